@@ -1,0 +1,47 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { getSupplier } from "@/db/queries/suppliers";
+import { SupplierForm } from "@/components/suppliers/supplier-form";
+import { requirePageUser } from "@/lib/auth/require-user";
+import { hasAnyRole } from "@/lib/auth/roles";
+import { screenByHref } from "@/lib/nav";
+import { AppError } from "@/lib/errors";
+import { parseId } from "@/lib/validation";
+
+export const metadata: Metadata = { title: "Supplier" };
+
+export default async function SupplierPage(props: PageProps<"/suppliers/[id]">) {
+  const { id: rawId } = await props.params;
+  const user = await requirePageUser({ role: screenByHref("/suppliers")!.roles, from: `/suppliers/${rawId}` });
+  let id: string;
+  try {
+    id = parseId(rawId, "That supplier");
+  } catch (err) {
+    if (err instanceof AppError) notFound();
+    throw err;
+  }
+  const supplier = await getSupplier({ workspaceId: user.workspaceId, supplierId: id });
+  if (!supplier) notFound();
+  return (
+    <div className="max-w-4xl space-y-6">
+      <Link href="/suppliers" className="text-sm text-gauge-600 underline">
+        ← Suppliers
+      </Link>
+      <div>
+        <h1 className="page-title">{supplier.name}</h1>
+        <p className="text-gauge-700">
+          {supplier.contactName ? `${supplier.contactName} · ` : ""}
+          {supplier.contactEmail} · {supplier.active ? "active" : "inactive"}
+        </p>
+        {supplier.notes && <p className="mt-2 whitespace-pre-line text-sm">{supplier.notes}</p>}
+      </div>
+      {hasAnyRole(user.roles, "lead") && (
+        <SupplierForm
+          supplierId={supplier.id}
+          initial={{ name: supplier.name, contactName: supplier.contactName ?? "", contactEmail: supplier.contactEmail, notes: supplier.notes }}
+        />
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,141 @@
+"use client";
+
+import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import { createColumnHelper, flexRender, getCoreRowModel, getSortedRowModel, useReactTable, type SortingState } from "@tanstack/react-table";
+import { useMemo, useState } from "react";
+import { FormMessage } from "@/components/ui/form-field";
+import { ROLE_LABELS, ROLES, type Role } from "@/lib/auth/roles";
+import { apiFetch } from "@/lib/http/client";
+
+type Person = { id: string; email: string; name: string; roles: Role[]; active: boolean; hasPassword: boolean; lastSignInAt: string | null };
+
+const column = createColumnHelper<Person>();
+
+function status(p: Person) {
+  if (!p.active) return "Deactivated";
+  return p.hasPassword ? "Active" : "Invited";
+}
+
+export function PeopleTable({ currentUserId }: { currentUserId: string }) {
+  const queryClient = useQueryClient();
+  const [sorting, setSorting] = useState<SortingState>([{ id: "name", desc: false }]);
+  const [message, setMessage] = useState<{ kind: "error" | "success"; text: string } | null>(null);
+  const people = useQuery({ queryKey: ["people"], queryFn: () => apiFetch<{ people: Person[] }>("/api/people").then((d) => d.people) });
+
+  const update = useMutation({
+    mutationFn: ({ id, body }: { id: string; body: Partial<Pick<Person, "roles" | "active">> }) => apiFetch(`/api/people/${id}`, { method: "PATCH", body }),
+    onSuccess: () => {
+      setMessage({ kind: "success", text: "Saved." });
+      void queryClient.invalidateQueries({ queryKey: ["people"] });
+    },
+    onError: (err) => setMessage({ kind: "error", text: err.message }),
+  });
+  const resend = useMutation({
+    mutationFn: (id: string) => apiFetch<{ message: string }>(`/api/people/${id}/invitation`, { method: "POST" }),
+    onSuccess: (d) => setMessage({ kind: "success", text: d.message }),
+    onError: (err) => setMessage({ kind: "error", text: err.message }),
+  });
+
+  const columns = useMemo(
+    () => [
+      column.accessor("name", { header: "Name" }),
+      column.accessor("email", { header: "E-mail" }),
+      column.accessor("roles", {
+        header: "Roles",
+        enableSorting: false,
+        cell: ({ row }) => (
+          <div className="flex flex-wrap gap-3" role="group" aria-label={`Roles of ${row.original.name}`}>
+            {ROLES.map((role) => {
+              const checked = row.original.roles.includes(role);
+              return (
+                <label key={role} className="flex items-center gap-1 text-xs">
+                  <input
+                    type="checkbox"
+                    checked={checked}
+                    disabled={update.isPending}
+                    onChange={() => {
+                      const roles = checked ? row.original.roles.filter((r) => r !== role) : [...row.original.roles, role];
+                      update.mutate({ id: row.original.id, body: { roles } });
+                    }}
+                  />
+                  {ROLE_LABELS[role]}
+                </label>
+              );
+            })}
+          </div>
+        ),
+      }),
+      column.accessor((p) => status(p), { id: "status", header: "Status" }),
+      column.display({
+        id: "actions",
+        header: () => <span className="sr-only">Actions</span>,
+        cell: ({ row }) => {
+          const p = row.original;
+          return (
+            <div className="flex justify-end gap-2">
+              {p.active && !p.hasPassword && (
+                <button type="button" className="btn-secondary py-1 text-xs" onClick={() => resend.mutate(p.id)}>
+                  Resend invitation
+                </button>
+              )}
+              {p.id !== currentUserId && (
+                <button
+                  type="button"
+                  className={p.active ? "btn-danger py-1 text-xs" : "btn-secondary py-1 text-xs"}
+                  onClick={() => update.mutate({ id: p.id, body: { active: !p.active } })}
+                >
+                  {p.active ? "Deactivate" : "Reactivate"}
+                </button>
+              )}
+            </div>
+          );
+        },
+      }),
+    ],
+    [currentUserId, update, resend],
+  );
+
+  const table = useReactTable({ data: people.data ?? [], columns, state: { sorting }, onSortingChange: setSorting, getCoreRowModel: getCoreRowModel(), getSortedRowModel: getSortedRowModel() });
+
+  if (people.isPending) return <p className="text-sm text-gauge-600">Loading people…</p>;
+  if (people.isError) return <FormMessage kind="error">{people.error.message}</FormMessage>;
+
+  return (
+    <div className="space-y-3">
+      {message && <FormMessage kind={message.kind}>{message.text}</FormMessage>}
+      <div className="card overflow-x-auto">
+        <table className="min-w-full text-sm" data-testid="people-table">
+          <thead className="bg-gauge-50 text-left text-xs uppercase tracking-wide text-gauge-600">
+            {table.getHeaderGroups().map((group) => (
+              <tr key={group.id}>
+                {group.headers.map((header) => (
+                  <th key={header.id} scope="col" className="px-4 py-2 font-medium">
+                    {header.column.getCanSort() ? (
+                      <button type="button" onClick={header.column.getToggleSortingHandler()} className="uppercase">
+                        {flexRender(header.column.columnDef.header, header.getContext())}
+                        {{ asc: " ↑", desc: " ↓" }[header.column.getIsSorted() as string] ?? ""}
+                      </button>
+                    ) : (
+                      flexRender(header.column.columnDef.header, header.getContext())
+                    )}
+                  </th>
+                ))}
+              </tr>
+            ))}
+          </thead>
+          <tbody className="divide-y divide-gauge-100">
+            {table.getRowModel().rows.map((row) => (
+              <tr key={row.id} data-testid={`person-${row.original.email}`}>
+                {row.getVisibleCells().map((cell) => (
+                  <td key={cell.id} className="px-4 py-2 align-top">
+                    {flexRender(cell.column.columnDef.cell, cell.getContext())}
+                  </td>
+                ))}
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
+    </div>
+  );
+}

@@ -1,0 +1,54 @@
+import Link from "next/link";
+import type { SessionUser } from "@/lib/auth/require-user";
+import { ROLE_LABELS } from "@/lib/auth/roles";
+import type { Screen } from "@/lib/nav";
+import { Wordmark } from "@/components/ui/logo";
+import { NavLinks } from "./nav-links";
+import { SignOutButton } from "./sign-out-button";
+import { MobileMenu } from "./mobile-menu";
+
+/** The frame around every signed-in page: navigation for the user's roles, who is signed in. */
+export function AppShell({ user, screens, children }: { user: SessionUser; screens: Screen[]; children: React.ReactNode }) {
+  const nav = screens.map(({ href, label, status }) => ({ href, label, planned: status === "planned" }));
+  const who = (
+    <div className="text-sm" data-testid="signed-in-user">
+      <div className="font-medium">{user.name}</div>
+      <div className="text-gauge-300">{user.workspaceName}</div>
+      <div className="mt-1 flex flex-wrap gap-1" aria-label="Your roles">
+        {user.roles.map((r) => (
+          <span key={r} className="rounded bg-gauge-800 px-1.5 py-0.5 text-xs text-gauge-100">
+            {ROLE_LABELS[r]}
+          </span>
+        ))}
+      </div>
+    </div>
+  );
+  return (
+    <div className="min-h-screen lg:flex">
+      <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:rounded focus:bg-white focus:px-3 focus:py-2">
+        Skip to content
+      </a>
+      <aside className="hidden w-60 shrink-0 flex-col bg-gauge-900 text-white lg:flex">
+        <Link href="/" className="px-5 py-5">
+          <Wordmark />
+        </Link>
+        <nav aria-label="Main" className="flex-1 px-3">
+          <NavLinks items={nav} />
+        </nav>
+        <div className="space-y-3 border-t border-gauge-800 px-5 py-4">
+          {who}
+          <SignOutButton />
+        </div>
+      </aside>
+      <header className="flex items-center justify-between bg-gauge-900 px-4 py-3 text-white lg:hidden">
+        <Link href="/">
+          <Wordmark />
+        </Link>
+        <MobileMenu items={nav} footer={<>{who}<SignOutButton /></>} />
+      </header>
+      <main id="main" className="min-w-0 flex-1 px-4 py-6 sm:px-8">
+        {children}
+      </main>
+    </div>
+  );
+}

@@ -1,0 +1,47 @@
+import "server-only";
+import crypto from "node:crypto";
+import { db } from "@/db/client";
+import { logActivity } from "@/db/queries/activity";
+import { getUserByEmail } from "@/db/queries/users";
+import { users, workspaces } from "@/db/schema";
+import { hashPassword } from "@/lib/auth/password";
+import type { SignUpInput } from "@/lib/auth/schemas";
+import { AppError } from "@/lib/errors";
+import { isUniqueViolation } from "@/db/errors";
+
+export const DUPLICATE_EMAIL_MESSAGE = "An account with this e-mail address already exists. Sign in, or reset your password.";
+
+export function slugify(name: string): string {
+  const base = name
+    .normalize("NFKD")
+    .replace(/[\u0300-\u036f]/g, "")
+    .toLowerCase()
+    .replace(/[^a-z0-9]+/g, "-")
+    .replace(/^-+|-+$/g, "")
+    .slice(0, 40);
+  return base || "workspace";
+}
+
+/** Creates a workspace (the company) and its first user, who is its lead. */
+export async function signUp(input: SignUpInput) {
+  if (await getUserByEmail({ email: input.email })) {
+    throw new AppError("conflict", DUPLICATE_EMAIL_MESSAGE, { fieldErrors: { email: DUPLICATE_EMAIL_MESSAGE } });
+  }
+  const passwordHash = await hashPassword(input.password);
+  try {
+    return await db().transaction(async (tx) => {
+      const slug = `${slugify(input.companyName)}-${crypto.randomBytes(3).toString("hex")}`;
+      const [workspace] = await tx.insert(workspaces).values({ name: input.companyName, slug }).returning();
+      const [user] = await tx
+        .insert(users)
+        .values({ workspaceId: workspace.id, email: input.email, name: input.name, passwordHash, roles: ["lead"] })
+        .returning({ id: users.id, email: users.email });
+      await logActivity(tx, { workspaceId: workspace.id, actorId: user.id, action: "workspace.created", subjectType: "workspace", subjectId: workspace.id, detail: { name: workspace.name } });
+      return { workspaceId: workspace.id, userId: user.id, email: user.email };
+    });
+  } catch (err) {
+    // Two sign-ups racing for one address: the unique index decides, the loser gets the same message.
+    if (isUniqueViolation(err, "users_email_key")) throw new AppError("conflict", DUPLICATE_EMAIL_MESSAGE, { fieldErrors: { email: DUPLICATE_EMAIL_MESSAGE } });
+    throw err;
+  }
+}

@@ -1,0 +1,74 @@
+import "server-only";
+import { getServerSession } from "next-auth";
+import { forbidden, redirect } from "next/navigation";
+import { cache } from "react";
+import { getSessionUser } from "@/db/queries/users";
+import { AppError } from "@/lib/errors";
+import { authOptions } from "./options";
+import { hasAnyRole, ROLE_LABELS, type Role } from "./roles";
+
+export type SessionUser = {
+  id: string;
+  workspaceId: string;
+  workspaceName: string;
+  email: string;
+  name: string;
+  roles: Role[];
+};
+
+/**
+ * The session's user, re-read from the database on every request so that deactivation, a
+ * password change or a role change takes effect at once (the JWT alone would outlive them).
+ */
+const loadSessionUser = cache(async (): Promise<SessionUser | null> => {
+  const session = await getServerSession(authOptions);
+  const claims = session?.user;
+  if (!claims?.id) return null;
+  const row = await getSessionUser({ userId: claims.id });
+  if (!row || !row.active || row.tokenVersion !== claims.tokenVersion || row.workspaceId !== claims.workspaceId) return null;
+  return {
+    id: row.id,
+    workspaceId: row.workspaceId,
+    workspaceName: row.workspaceName,
+    email: row.email,
+    name: row.name,
+    roles: row.roles as Role[],
+  };
+});
+
+function describeRoles(role: Role | readonly Role[]): string {
+  const list = typeof role === "string" ? [role] : role;
+  return list.map((r) => ROLE_LABELS[r]).join(" or ");
+}
+
+/**
+ * The one authorisation check. Every route handler, server action and protected page calls it.
+ * Throws AppError 401 without a valid session and 403 when the user lacks every wanted role
+ * (leads hold every permission).
+ */
+export async function requireUser(opts: { role?: Role | readonly Role[] } = {}): Promise<SessionUser> {
+  const user = await loadSessionUser();
+  if (!user) throw new AppError("unauthorized", "You are not signed in, or your session has ended. Sign in to continue.");
+  if (!hasAnyRole(user.roles, opts.role)) {
+    throw new AppError("forbidden", `This needs the ${describeRoles(opts.role!)} role, which your account does not have.`);
+  }
+  return user;
+}
+
+/** For pages: like requireUser, but sends a visitor without a session to sign in. */
+export async function requirePageUser(opts: { role?: Role | readonly Role[]; from?: string } = {}): Promise<SessionUser> {
+  try {
+    return await requireUser(opts);
+  } catch (err) {
+    if (err instanceof AppError && err.code === "unauthorized") {
+      redirect(opts.from ? `/sign-in?callbackUrl=${encodeURIComponent(opts.from)}` : "/sign-in");
+    }
+    if (err instanceof AppError && err.code === "forbidden") forbidden();
+    throw err;
+  }
+}
+
+/** The signed-in user or null, for public pages that change when someone is signed in. */
+export async function optionalUser(): Promise<SessionUser | null> {
+  return loadSessionUser();
+}

@@ -1,0 +1,23 @@
+/**
+ * Size limits for what one photo's annotation may hold. They protect the server (payload size,
+ * rasterising time) and are generous for real work: a traced part outline rarely needs more than
+ * a few hundred vertices. Shared by the editor (which simplifies to stay inside them) and by the
+ * save validation (which rejects what is outside them).
+ */
+export const MAX_POINTS_PER_SHAPE = 5_000;
+/** Defect regions per photo. */
+export const MAX_REGIONS_PER_PHOTO = 2_000;
+/** Surface outlines per photo (several faces or pieces of one part may be visible). */
+export const MAX_SURFACES_PER_PHOTO = 20;
+/** Vertices over all regions and surfaces of one photo. */
+export const MAX_TOTAL_POINTS_PER_PHOTO = 200_000;
+export const MAX_ID_LENGTH = 64;
+/** A ruler longer than 10 m is a typing slip on a parts bench (common practice, our own bound). */
+export const MAX_RULER_LENGTH_MM = 10_000;
+/**
+ * Smallest polygon area accepted, in px². Only there to tell a real outline from rounding noise
+ * on a collinear ring; any outline a person can draw is far larger.
+ */
+export const MIN_POLYGON_AREA = 1e-6;
+/** Points closer than this to the line through the others count as on it (px). */
+export const COLLINEAR_TOLERANCE = 1e-7;

@@ -1,0 +1,54 @@
+import "server-only";
+import type { z } from "zod";
+import { AppError } from "@/lib/errors";
+import { parseWith } from "@/lib/validation";
+
+export type ErrorBody = { error: { code: string; message: string; fieldErrors?: Record<string, string> } };
+
+/** Maps any thrown value to a JSON error response; unexpected errors are logged, not leaked. */
+export function errorResponse(err: unknown): Response {
+  if (err instanceof AppError) {
+    const body: ErrorBody = { error: { code: err.code, message: err.message, fieldErrors: err.fieldErrors } };
+    return Response.json(body, { status: err.status });
+  }
+  console.error("Unexpected error in route handler", err);
+  const body: ErrorBody = { error: { code: "internal", message: "Something went wrong on the server. Try again; if it keeps happening, tell your QC lead." } };
+  return Response.json(body, { status: 500 });
+}
+
+/** Wraps a route handler so every failure becomes a JSON error with the right status. */
+export function handler<C>(fn: (req: Request, ctx: C) => Promise<Response>) {
+  return async (req: Request, ctx: C): Promise<Response> => {
+    try {
+      return await fn(req, ctx);
+    } catch (err) {
+      return errorResponse(err);
+    }
+  };
+}
+
+const DEFAULT_MAX_BODY = 1024 * 1024;
+
+/** Reads and validates a JSON body (size-limited; wrong content is a 400 with a readable message). */
+export async function parseJson<S extends z.ZodType>(req: Request, schema: S, { maxBytes = DEFAULT_MAX_BODY } = {}): Promise<z.infer<S>> {
+  const declared = Number(req.headers.get("content-length") ?? "0");
+  if (declared > maxBytes) throw new AppError("payload_too_large", `The request is too large (limit ${Math.round(maxBytes / 1024)} KB).`);
+  const text = await req.text();
+  if (Buffer.byteLength(text) > maxBytes) throw new AppError("payload_too_large", `The request is too large (limit ${Math.round(maxBytes / 1024)} KB).`);
+  let value: unknown;
+  try {
+    value = text.length ? JSON.parse(text) : undefined;
+  } catch {
+    throw new AppError("bad_request", "The request body is not valid JSON.");
+  }
+  if (value === undefined) throw new AppError("bad_request", "The request has no body; send JSON.");
+  return parseWith(schema, value);
+}
+
+/** Validates query parameters (single values only) with a schema. */
+export function parseQuery<S extends z.ZodType>(req: Request, schema: S): z.infer<S> {
+  const params = new URL(req.url).searchParams;
+  const record: Record<string, string> = {};
+  for (const [key, value] of params) record[key] = value;
+  return parseWith(schema, record, "The query");
+}

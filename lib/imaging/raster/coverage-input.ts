@@ -1,0 +1,78 @@
+/**
+ * Validation of measureCoverage's input: bad input is refused with one clear AppError
+ * ("bad_request") that names every offending field, before any work is done.
+ */
+import { z } from "zod";
+import { AppError } from "@/lib/errors";
+import type { CoverageInput } from "@/lib/measure/types";
+
+/** Coordinates beyond this are surely a bug (photos are a few thousand pixels wide). */
+const COORDINATE_LIMIT = 1_000_000;
+/** Cairo surfaces stop at 32767 px a side; sharp's default pixel limit is 16383². */
+const MAX_SIDE = 32_767;
+const MAX_PIXELS = 268_402_689;
+const MAX_REGIONS = 10_000;
+const MAX_POINTS = 100_000;
+
+const coordinate = z
+  .number({ error: "must be a finite number" })
+  .min(-COORDINATE_LIMIT, `must be >= ${-COORDINATE_LIMIT}`)
+  .max(COORDINATE_LIMIT, `must be <= ${COORDINATE_LIMIT}`);
+const size = coordinate.min(0, "must not be negative");
+const point = z.tuple([coordinate, coordinate]);
+
+const shapeSchema = z.discriminatedUnion(
+  "kind",
+  [
+    z.object({ kind: z.literal("rect"), x: coordinate, y: coordinate, width: size, height: size }),
+    z.object({ kind: z.literal("polygon"), points: z.array(point).min(3, "a polygon needs at least 3 points").max(MAX_POINTS) }),
+    z.object({
+      kind: z.literal("line"),
+      points: z.array(point).min(1, "a line needs at least 1 point").max(MAX_POINTS),
+      width: size.positive("a line's width must be greater than 0"),
+    }),
+    z.object({ kind: z.literal("spot"), x: coordinate, y: coordinate, radius: size }),
+  ],
+  { error: 'kind must be one of "rect", "polygon", "line", "spot"' },
+);
+
+const side = z
+  .number({ error: "must be a number" })
+  .int("must be a whole number of pixels")
+  .min(1, "must be at least 1 pixel")
+  .max(MAX_SIDE, `must be at most ${MAX_SIDE} pixels`);
+
+const coverageInputSchema = z
+  .object({
+    width: side,
+    height: side,
+    regions: z
+      .array(z.object({ id: z.string().min(1, "must not be empty"), defect: z.string().min(1, "must not be empty"), shape: shapeSchema }))
+      .max(MAX_REGIONS, `at most ${MAX_REGIONS} regions per photo`),
+    surface: z.array(shapeSchema).max(MAX_REGIONS).optional(),
+    zones: z.array(z.object({ id: z.string().min(1, "must not be empty"), shape: shapeSchema })).max(MAX_REGIONS).optional(),
+  })
+  .superRefine((input, context) => {
+    if (input.width * input.height > MAX_PIXELS) {
+      context.addIssue({ code: "custom", path: ["width"], message: `width × height must be at most ${MAX_PIXELS} pixels` });
+    }
+    const seen = new Set<string>();
+    input.zones?.forEach((zone, index) => {
+      if (seen.has(zone.id)) context.addIssue({ code: "custom", path: ["zones", index, "id"], message: `duplicate zone id "${zone.id}"` });
+      seen.add(zone.id);
+    });
+  });
+
+export function parseCoverageInput(input: unknown): CoverageInput {
+  const parsed = coverageInputSchema.safeParse(input);
+  if (parsed.success) return parsed.data;
+  const fieldErrors: Record<string, string> = {};
+  for (const issue of parsed.error.issues) {
+    const path = issue.path.map(String).join(".") || "(input)";
+    fieldErrors[path] ??= issue.message;
+  }
+  const summary = Object.entries(fieldErrors)
+    .map(([path, message]) => `${path}: ${message}`)
+    .join("; ");
+  throw new AppError("bad_request", `Invalid coverage input — ${summary}`, { fieldErrors });
+}

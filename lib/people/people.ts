@@ -1,0 +1,94 @@
+import "server-only";
+import { and, eq, sql } from "drizzle-orm";
+import { db } from "@/db/client";
+import { isUniqueViolation } from "@/db/errors";
+import { logActivity } from "@/db/queries/activity";
+import { countActiveLeads, getPerson, getUserByEmail, getUserInWorkspace } from "@/db/queries/users";
+import { users } from "@/db/schema";
+import type { SessionUser } from "@/lib/auth/require-user";
+import type { InviteInput, UpdatePersonInput } from "@/lib/auth/schemas";
+import { INVITE_TTL_HOURS, issueAuthToken } from "@/lib/auth/tokens";
+import { AppError, notFound } from "@/lib/errors";
+import { sendMail } from "@/lib/mail/send";
+import { invitationEmail } from "@/lib/mail/templates";
+import { setPasswordLink } from "@/lib/accounts/links";
+
+export const DUPLICATE_PERSON_MESSAGE = "Someone with this e-mail address already has a Partproof account.";
+
+async function sendInvitation(actor: SessionUser, user: { id: string; email: string }, token: string) {
+  const mail = invitationEmail({ inviterName: actor.name, workspaceName: actor.workspaceName, link: setPasswordLink(token), expiresHours: INVITE_TTL_HOURS });
+  const sent = await sendMail({ workspaceId: actor.workspaceId, kind: "invitation", to: user.email, ...mail });
+  return sent.status === "sent";
+}
+
+/**
+ * Creates the account (without a password) and e-mails a one-time link to set one. The account
+ * is committed before the e-mail goes out; if delivery fails the lead can resend.
+ */
+export async function invitePerson(actor: SessionUser, input: InviteInput) {
+  if (await getUserByEmail({ email: input.email })) throw new AppError("conflict", DUPLICATE_PERSON_MESSAGE, { fieldErrors: { email: DUPLICATE_PERSON_MESSAGE } });
+  let created: { id: string; email: string }, token: string;
+  try {
+    ({ created, token } = await db().transaction(async (tx) => {
+      const [row] = await tx
+        .insert(users)
+        .values({ workspaceId: actor.workspaceId, email: input.email, name: input.name, roles: input.roles, passwordHash: null })
+        .returning({ id: users.id, email: users.email });
+      const t = await issueAuthToken(tx, { workspaceId: actor.workspaceId, userId: row.id, purpose: "invite", ttlMs: INVITE_TTL_HOURS * 3_600_000 });
+      await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.id, action: "user.invited", subjectType: "user", subjectId: row.id, detail: { email: input.email, roles: input.roles } });
+      return { created: row, token: t };
+    }));
+  } catch (err) {
+    if (isUniqueViolation(err, "users_email_key")) throw new AppError("conflict", DUPLICATE_PERSON_MESSAGE, { fieldErrors: { email: DUPLICATE_PERSON_MESSAGE } });
+    throw err;
+  }
+  const emailSent = await sendInvitation(actor, created, token);
+  return { person: (await getPerson({ workspaceId: actor.workspaceId, userId: created.id }))!, emailSent };
+}
+
+export async function resendInvitation(actor: SessionUser, userId: string) {
+  const user = await getUserInWorkspace({ workspaceId: actor.workspaceId, userId });
+  if (!user) throw notFound("That person");
+  if (user.passwordHash) throw new AppError("conflict", "This person has already set a password; they can use “Forgot password” instead.");
+  if (!user.active) throw new AppError("conflict", "This account is deactivated; reactivate it before sending a new invitation.");
+  const token = await issueAuthToken(db(), { workspaceId: actor.workspaceId, userId, purpose: "invite", ttlMs: INVITE_TTL_HOURS * 3_600_000 });
+  return { emailSent: await sendInvitation(actor, user, token) };
+}
+
+/**
+ * Edits name, roles or the active flag. Deactivating bumps the token version so the person's
+ * open sessions end on their next request. A workspace always keeps one active lead.
+ */
+export async function updatePerson(actor: SessionUser, userId: string, input: UpdatePersonInput) {
+  return db().transaction(async (tx) => {
+    const [user] = await tx
+      .select()
+      .from(users)
+      .where(and(eq(users.workspaceId, actor.workspaceId), eq(users.id, userId)))
+      .for("update")
+      .limit(1);
+    if (!user) throw notFound("That person");
+    if (userId === actor.id && input.active === false) throw new AppError("conflict", "You cannot deactivate your own account.");
+    const losesLead = user.roles.includes("lead") && ((input.roles && !input.roles.includes("lead")) || input.active === false);
+    if (losesLead && user.active) {
+      // Lock the workspace's lead rows so two leads demoting each other can't both succeed.
+      await tx.execute(sql`SELECT id FROM users WHERE workspace_id = ${actor.workspaceId} AND 'lead' = ANY(roles) FOR UPDATE`);
+      if ((await countActiveLeads({ workspaceId: actor.workspaceId }, tx)) <= 1) {
+        throw new AppError("conflict", "A workspace needs at least one active lead. Make someone else a lead first.");
+      }
+    }
+    const deactivating = input.active === false && user.active;
+    await tx
+      .update(users)
+      .set({
+        ...(input.name !== undefined && { name: input.name }),
+        ...(input.roles !== undefined && { roles: input.roles }),
+        ...(input.active !== undefined && { active: input.active }),
+        ...(deactivating && { tokenVersion: sql`${users.tokenVersion} + 1` }),
+        updatedAt: new Date(),
+      })
+      .where(and(eq(users.workspaceId, actor.workspaceId), eq(users.id, userId)));
+    await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.id, action: "user.updated", subjectType: "user", subjectId: userId, detail: { ...input } });
+    return (await tx.select({ id: users.id }).from(users).where(eq(users.id, userId)))[0]!.id;
+  }).then((id) => getPerson({ workspaceId: actor.workspaceId, userId: id }));
+}

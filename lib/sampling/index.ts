@@ -1,0 +1,2 @@
+export * from "./iso2859";
+export * from "./switching";

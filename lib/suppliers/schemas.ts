@@ -1,0 +1,21 @@
+import { z } from "zod";
+import { emailSchema } from "@/lib/auth/schemas";
+
+export const supplierSchema = z
+  .object({
+    name: z.string({ error: "Enter the supplier's name." }).trim().min(2, "Enter the supplier's name.").max(120, "Keep the name under 120 characters."),
+    contactName: z.string().trim().max(120, "Keep the contact name under 120 characters.").optional().transform((v) => v || null),
+    contactEmail: emailSchema,
+    notes: z.string().max(2000, "Keep notes under 2 000 characters.").optional().default(""),
+  })
+  .strict();
+export type SupplierInput = z.infer<typeof supplierSchema>;
+
+export const supplierUpdateSchema = supplierSchema
+  .partial()
+  .extend({ active: z.boolean({ error: "active must be true or false." }).optional() })
+  .strict()
+  .refine((v) => Object.keys(v).length > 0, "Nothing to change.");
+export type SupplierUpdateInput = z.infer<typeof supplierUpdateSchema>;
+
+export const supplierListQuerySchema = z.object({ search: z.string().trim().max(100).optional() }).strict();

@@ -1,0 +1,114 @@
+/**
+ * `npm start`: local services → migrations → demo seed when the database is empty → production
+ * build when missing or stale → `next start` on 127.0.0.1. Ctrl-C stops everything it started.
+ * `--dev` runs `next dev` instead of a production build.
+ */
+import http from "node:http";
+import { DEMO_PASSWORD, DEMO_WORKSPACES } from "../db/seed/demo-data";
+import { buildIfStale } from "./lib/build";
+import { killTree, run, start, tsxArgs, waitForExit } from "./lib/children";
+import { isPortFree, portTakenMessage, waitFor } from "./lib/ports";
+import { sessionSecret } from "./lib/secret";
+import { startServices } from "./lib/services";
+import { appEnvironment, demoSettings } from "./lib/settings";
+
+const dev = process.argv.includes("--dev");
+
+function healthOf(url: string): Promise<{ app?: string } | null> {
+  return new Promise((resolve) => {
+    const req = http.get(`${url}/api/health`, { timeout: 2000 }, (res) => {
+      let body = "";
+      res.on("data", (c) => (body += c));
+      res.on("end", () => {
+        try {
+          resolve(JSON.parse(body));
+        } catch {
+          resolve(null);
+        }
+      });
+    });
+    req.on("error", () => resolve(null));
+    req.on("timeout", () => {
+      req.destroy();
+      resolve(null);
+    });
+  });
+}
+
+function printWelcome(url: string) {
+  const lines = [
+    "",
+    `Partproof is running at ${url}`,
+    "",
+    `Demo accounts (demo only; password for all: ${DEMO_PASSWORD})`,
+    ...DEMO_WORKSPACES.flatMap((ws) => [`  ${ws.name}:`, ...ws.people.map((p) => `    ${p.email.padEnd(30)} ${p.roles.join(", ")}`)]),
+    "",
+    "Press Ctrl-C to stop.",
+    "",
+  ];
+  console.log(lines.join("\n"));
+}
+
+async function main() {
+  const settings = demoSettings();
+  if (!(await isPortFree(settings.app.port))) {
+    const health = await healthOf(settings.app.url);
+    if (health?.app === "partproof") {
+      console.log(`Partproof is already running at ${settings.app.url}; nothing to do.`);
+      return;
+    }
+    throw new Error(portTakenMessage(settings.app.port, "Partproof", "PORT"));
+  }
+
+  const secret = sessionSecret(settings.dataDir);
+  const env = appEnvironment(settings, secret);
+  console.log("Starting PostgreSQL, the local S3 store and the mail inbox …");
+  const services = await startServices(settings, {
+    // A real S3 or SMTP server configured in the environment replaces the local one.
+    localS3: !process.env.S3_ENDPOINT,
+    localMail: !process.env.SMTP_HOST,
+  });
+  if (process.env.SMTP_HOST) delete env.MAIL_INBOX_DIR;
+
+  let stopping = false;
+  const children: ReturnType<typeof start>[] = [];
+  const shutdown = async (code: number) => {
+    if (stopping) return;
+    stopping = true;
+    console.log("\nStopping Partproof …");
+    for (const c of children) killTree(c);
+    await Promise.all(children.map((c) => waitForExit(c, 10_000)));
+    await services.stop();
+    console.log("Stopped.");
+    process.exit(code);
+  };
+  process.on("SIGINT", () => void shutdown(0));
+  process.on("SIGTERM", () => void shutdown(0));
+
+  try {
+    const [node, seedArgs] = tsxArgs("db/seed.ts");
+    await run(node, seedArgs, { env, label: "seed" });
+    if (!dev) await buildIfStale({ distDir: ".next", env });
+  } catch (err) {
+    console.error(err instanceof Error ? err.message : err);
+    await shutdown(1);
+    return;
+  }
+
+  const nextArgs = ["node_modules/next/dist/bin/next", dev ? "dev" : "start", "-H", "127.0.0.1", "-p", String(settings.app.port)];
+  const app = start(process.execPath, nextArgs, { env, label: "next" });
+  children.push(app);
+  app.on("exit", (code) => {
+    if (!stopping) {
+      console.error(`The web server stopped unexpectedly (exit ${code}).`);
+      void shutdown(1);
+    }
+  });
+  await waitFor(async () => (await healthOf(settings.app.url))?.app === "partproof", { timeoutMs: 120_000, what: "The web server" });
+  printWelcome(settings.app.url);
+}
+
+main().catch((err) => {
+  console.error(err instanceof Error ? err.message : err);
+  process.exit(1);
+});

@@ -1,0 +1,21 @@
+import type { Role } from "@/lib/auth/roles";
+
+declare module "next-auth" {
+  interface User {
+    id: string;
+    workspaceId: string;
+    roles: Role[];
+    tokenVersion: number;
+  }
+  interface Session {
+    user: { id: string; email: string; name: string; workspaceId: string; roles: Role[]; tokenVersion: number };
+  }
+}
+
+declare module "next-auth/jwt" {
+  interface JWT {
+    workspaceId: string;
+    roles: Role[];
+    tokenVersion: number;
+  }
+}
