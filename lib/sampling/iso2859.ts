@@ -208,9 +208,13 @@ const planInputSchema = z.object({
   severity: z.enum(INSPECTION_SEVERITIES, { error: `severity must be one of ${INSPECTION_SEVERITIES.join(", ")}` }),
 });
 
-function firstIssueMessage(error: z.ZodError): string {
+/** The first problem as a sentence, with the value that was given (e.g. "… (got 2.5)"). */
+function firstIssueMessage(error: z.ZodError, input: unknown): string {
   const issue = error.issues[0];
-  return issue ? issue.message : "invalid sampling input";
+  if (!issue) return "invalid sampling input";
+  const given = issue.path.reduce<unknown>((value, key) => (value as Record<PropertyKey, unknown> | undefined)?.[key], input);
+  const shown = typeof given === "string" ? JSON.stringify(given) : String(given);
+  return issue.path.length ? `${issue.message} (got ${shown})` : issue.message;
 }
 
 /** Table 1. A lot of 1 unit uses the first row (2–8); the plan then covers the whole lot. */
@@ -253,7 +257,7 @@ export function singleSamplingPlan(input: {
   severity: InspectionSeverity;
 }): SingleSamplingPlan {
   const parsed = planInputSchema.safeParse(input);
-  if (!parsed.success) throw new SamplingInputError(firstIssueMessage(parsed.error));
+  if (!parsed.success) throw new SamplingInputError(firstIssueMessage(parsed.error, input));
   const { lotSize, level, aql, severity } = parsed.data;
   const codeLetter = codeLetterFor(lotSize, level);
   const plan = resolvePlan(codeLetter, aql, severity);

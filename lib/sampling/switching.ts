@@ -70,6 +70,7 @@ export interface Transition {
   reason: string;
 }
 
+/** Counters describe the state the next lot is inspected under: every switch resets them. */
 export interface SwitchingState {
   /** Severity for the next lot (tightened while discontinued: the plan used once resumed). */
   severity: InspectionSeverity;
@@ -160,7 +161,7 @@ export function nextInspectionState(input: SwitchingInput): SwitchingState {
       const approvedReduced = state.severity === "normal" && lot.severity === "reduced" && state.score >= SWITCHING_SCORE_FOR_REDUCED;
       if (!approvedReduced) notes.push(`Lot ${lot.lotId} was inspected on ${lot.severity} although the rules called for ${state.severity}.`);
       switchTo(lot.severity, previousLotId, approvedReduced
-        ? `Switching score ${state.score} reached ${SWITCHING_SCORE_FOR_REDUCED} and reduced inspection was approved → reduced.`
+        ? `The switching score was ${state.score} (reduced needs ${SWITCHING_SCORE_FOR_REDUCED}) and reduced inspection was approved → reduced.`
         : `Lot ${lot.lotId} was recorded on ${lot.severity} inspection → ${lot.severity}.`);
     }
     const notAccepted = !lot.accepted;
@@ -209,7 +210,7 @@ export function nextInspectionState(input: SwitchingInput): SwitchingState {
   const reducedEligible =
     state.severity === "normal" && !state.discontinued && state.score >= SWITCHING_SCORE_FOR_REDUCED && state.acceptedOnNormal >= 10 && steadyProduction;
   if (reducedEligible && reducedAllowed) {
-    switchTo("reduced", lastLotId, `Switching score ${state.score} reached ${SWITCHING_SCORE_FOR_REDUCED}, production is steady and the lead has enabled reduced inspection → reduced.`);
+    switchTo("reduced", lastLotId, `The switching score is ${state.score} (reduced needs ${SWITCHING_SCORE_FOR_REDUCED}), production is steady and the lead has enabled reduced inspection → reduced.`);
   } else if (state.severity === "reduced" && !steadyProduction) {
     switchTo("normal", lastLotId, "Production is irregular or delayed → normal.");
   } else if (state.severity === "reduced" && !reducedAllowed) {
