@@ -53,7 +53,7 @@ export function ruleFires(rule: Rule, value: number | PixelFaultClass): boolean 
   }
   if (typeof value !== "number") return false;
   const nearlyEqual = Math.abs(value - rule.threshold) <= TOLERANCE * Math.max(1, Math.abs(rule.threshold));
-  if (nearlyEqual) return true;
+  if (nearlyEqual) return rule.comparison === ">=";
   return value > rule.threshold;
 }
 

@@ -31,7 +31,7 @@ function fixed(value: number, minDecimals: number, maxDecimals: number): string 
   return text.endsWith(".") ? text.slice(0, -1) : text;
 }
 
-type Unit = "percent" | "mm" | "mm2" | "count" | "class";
+export type Unit = "percent" | "mm" | "mm2" | "count" | "class";
 
 export const unitOf = (rule: Rule): Unit =>
   rule.metric === "share"

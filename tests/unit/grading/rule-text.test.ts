@@ -22,6 +22,8 @@ describe("formatValue", () => {
 
   it("adds decimals until a value and its threshold print differently", () => {
     expect(formatPair("mm", 3.04, 3)).toEqual(["3.04 mm", "3.0 mm"]);
+    expect(formatPair("mm", 3.0412, 3)).toEqual(["3.04 mm", "3.0 mm"]); // only as many decimals as needed
+    expect(formatPair("percent", 0.50049, 0.5)).toEqual(["0.5005 %", "0.5 %"]);
     expect(formatPair("percent", 0.5, 0.5)).toEqual(["0.5 %", "0.5 %"]);
   });
 });

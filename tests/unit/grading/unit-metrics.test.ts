@@ -73,6 +73,11 @@ describe("readMetric aggregation", () => {
     expect(readMetric(metrics, rule({ metric: "share", zone: "lens-window" })).value).toBeCloseTo(0.8, 12);
     expect(readMetric(metrics, rule({ metric: "areaMm2", zone: "lens-window" })).value).toBeCloseTo(0.3, 12);
     expect(readMetric(metrics, rule({ metric: "share", zone: "body" }))).toEqual({ value: null, unknown: [], missing: "zone-not-on-photos" });
+    const clippedOnly = buildUnitMetrics({
+      photos: [photo({ photoId: "c", viewKey: "lens", zones: { "lens-window": { zonePx: 0, byDefect: { scratch: { px: 0, share: 0 } } } } })],
+      functionalFailures: noFailures,
+    });
+    expect(readMetric(clippedOnly, rule({ metric: "share", zone: "lens-window" })).missing).toBe("zone-not-on-photos");
   });
 
   it("marks mm values unknown on uncalibrated photos that show the class, keeping the known part as a lower bound", () => {
