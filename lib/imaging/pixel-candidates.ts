@@ -8,9 +8,9 @@
  * 8-connected weaker pixels around them form one candidate. Groups larger than `maxFaultAreaPx`
  * are not pixel-scale (smudges, edges, reflections) and are only counted.
  *
- * Size is judged on seed pixels only; the centre is weighted by each pixel's strength. A candidate
- * within 8 px of one 2.5 × stronger is taken as JPEG ringing and dropped (so is, rarely, a real
- * faint fault beside a strong one: the strong one still shows the inspector where to look).
+ * Size, centre and radius come from the seed pixels only (the weak fringe wanders with noise). A
+ * candidate within 8 px of one 2.5 × stronger is taken as JPEG ringing and dropped (so is, rarely,
+ * a real faint fault beside a strong one: the strong one still shows the inspector where to look).
  *
  * Kind: the candidate's summed deviation per channel over its box plus 2 px (sums survive blur and
  * JPEG ringing), divided by the room each channel had (255 − background up, background down).
@@ -51,7 +51,7 @@ export type PixelCandidate = {
   /** Centre in upright-photo pixel coordinates (pixel i spans [i, i+1)). */
   x: number;
   y: number;
-  /** Smallest disc about the centre covering every outlier pixel of the candidate. */
+  /** Smallest disc about the centre covering every seed (over-threshold) pixel of the candidate. */
   radius: number;
   kind: PixelCandidateKind;
   /** Strongest channel's deviation from the local background as a share of its room, 0–1. */
@@ -193,8 +193,8 @@ function shareOfRoom(deviation: number, background: number): number {
 }
 
 /**
- * Centre (weighted by each pixel's strongest share of room, so JPEG fringes pull little), radius
- * over the seed pixels, kind and score of one outlier group.
+ * Centre and radius from the seed pixels (centre weighted by each one's strongest share of room;
+ * the weak fringe wanders with noise), kind from the sums over the whole group's box.
  */
 function describeGroup(rgb: Rgb, members: number[], seeds: number[], medianSize: number, offsetX: number, offsetY: number): PixelCandidate {
   const { data, width, height } = rgb;
@@ -214,7 +214,7 @@ function describeGroup(rgb: Rgb, members: number[], seeds: number[], medianSize:
   }
   const strength = (index: number) => Math.max(...[0, 1, 2].map((c) => shareOfRoom(data[index * 3 + c] - background[c], background[c])));
   let weight = 0, sumX = 0, sumY = 0, score = 0;
-  for (const index of members) {
+  for (const index of seeds) {
     const w = strength(index);
     const x = index % width;
     sumX += w * (x + 0.5);
