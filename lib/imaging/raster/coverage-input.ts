@@ -50,17 +50,23 @@ const coverageInputSchema = z
       .array(z.object({ id: z.string().min(1, "must not be empty"), defect: z.string().min(1, "must not be empty"), shape: shapeSchema }))
       .max(MAX_REGIONS, `at most ${MAX_REGIONS} regions per photo`),
     surface: z.array(shapeSchema).max(MAX_REGIONS).optional(),
-    zones: z.array(z.object({ id: z.string().min(1, "must not be empty"), shape: shapeSchema })).max(MAX_REGIONS).optional(),
+    zones: z
+      .array(z.object({ id: z.string().min(1, "must not be empty"), shape: shapeSchema }))
+      .max(MAX_REGIONS)
+      .superRefine((zones, context) => {
+        // Zone ids are result keys, so they must be unique.
+        const seen = new Set<string>();
+        zones.forEach((zone, index) => {
+          if (seen.has(zone.id)) context.addIssue({ code: "custom", path: [index, "id"], message: `duplicate zone id "${zone.id}"` });
+          seen.add(zone.id);
+        });
+      })
+      .optional(),
   })
   .superRefine((input, context) => {
     if (input.width * input.height > MAX_PIXELS) {
       context.addIssue({ code: "custom", path: ["width"], message: `width × height must be at most ${MAX_PIXELS} pixels` });
     }
-    const seen = new Set<string>();
-    input.zones?.forEach((zone, index) => {
-      if (seen.has(zone.id)) context.addIssue({ code: "custom", path: ["zones", index, "id"], message: `duplicate zone id "${zone.id}"` });
-      seen.add(zone.id);
-    });
   });
 
 export function parseCoverageInput(input: unknown): CoverageInput {
