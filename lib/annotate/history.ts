@@ -50,11 +50,17 @@ export function beginBatch(state: AnnotationState): AnnotationState {
   return { ...state, history: { ...state.history, pending: snapshotOf(state) } };
 }
 
+/** Same regions in the same order (by reference: edits always make new region objects). */
+function sameRegions(a: readonly Region[], b: readonly Region[]): boolean {
+  return a === b || (a.length === b.length && a.every((region, i) => region === b[i]));
+}
+
 export function commitBatch(state: AnnotationState): AnnotationState {
   const { pending } = state.history;
   if (!pending) return state;
   const cleared = { ...state.history, pending: null };
-  const history = pending.regions === state.regions ? cleared : pushPast(cleared, pending);
+  // A drag that ends where it started (or never passed the threshold) leaves no undo step.
+  const history = sameRegions(pending.regions, state.regions) ? cleared : pushPast(cleared, pending);
   return { ...state, history, drag: null };
 }
 

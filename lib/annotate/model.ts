@@ -69,7 +69,7 @@ function allocateId(state: AnnotationState): { id: RegionId; state: AnnotationSt
  */
 export function replaceRegion(state: AnnotationState, next: Region): AnnotationState {
   const index = state.regions.findIndex((r) => r.id === next.id);
-  if (index < 0) return state;
+  if (index < 0 || state.regions[index] === next) return state;
   if (!state.history.pending && edits.regionProblem(next, state.image)) return state;
   return applyEdit(state, state.regions.map((r, i) => (i === index ? next : r)));
 }
@@ -207,7 +207,8 @@ export function toggleDefectHidden(state: AnnotationState, defect: string): Anno
 }
 
 export function setViewport(state: AnnotationState, viewport: Viewport): AnnotationState {
-  return { ...state, viewport };
+  const usable = viewport.scale > 0 && Number.isFinite(viewport.scale) && Number.isFinite(viewport.offsetX) && Number.isFinite(viewport.offsetY);
+  return usable ? { ...state, viewport } : state;
 }
 
 /** Stroke width for lines drawn from now on (not an edit; see setLineWidth for a region's). */

@@ -4,8 +4,9 @@
  * are returned as null so the caller can refuse the edit.
  */
 import { boundsOfPoints, boundsOfShape, type Bounds } from "@/lib/geometry/bounds";
-import { clamp, clampTranslation, maxExtentFor, type ImageSize } from "@/lib/geometry/clamp";
-import { describeOutsideImage, describeShapeProblem } from "@/lib/geometry/degenerate";
+import { clamp, clampPoint, clampShapeToImage, clampTranslation, maxExtentFor, type ImageSize } from "@/lib/geometry/clamp";
+import { describeOutsideImage, describeShapeProblem, pointInsideImage } from "@/lib/geometry/degenerate";
+import { checkRulerLength } from "@/lib/geometry/ruler";
 import { translatePoint, translateShape } from "@/lib/geometry/transform";
 import type { Point, RectShape, Shape } from "@/lib/geometry/shape";
 import { MIN_SPOT_RADIUS } from "./constants";
@@ -20,23 +21,31 @@ export function regionProblem(region: Region, image: ImageSize): string | null {
   if (region.role === "ruler") {
     const { a, b, lengthMm } = region.ruler;
     if (a[0] === b[0] && a[1] === b[1]) return "a ruler needs two different end points.";
-    if (!(lengthMm > 0) || !Number.isFinite(lengthMm)) return "the ruler's length must be more than 0 mm.";
-    return [a, b].some(([x, y]) => x < 0 || y < 0 || x > image.width || y > image.height) ? "the ruler reaches outside the photo." : null;
+    const length = checkRulerLength(lengthMm);
+    if (!length.ok) return length.message;
+    return pointInsideImage(a, image) && pointInsideImage(b, image) ? null : "the ruler reaches outside the photo.";
   }
   return describeShapeProblem(region.shape) ?? describeOutsideImage(region.shape, image);
 }
 
-/** Moves a region by (dx, dy), cut short so it stays inside the image. */
+/**
+ * Moves a region by (dx, dy), cut short so it stays inside the image. The result is clamped once
+ * more because x + dx can land one ulp past the edge even when dx was cut exactly.
+ */
 export function translateRegion(region: Region, dx: number, dy: number, image: ImageSize): Region {
   const move = clampTranslation(regionBounds(region), dx, dy, image);
+  // Pushing against the edge moves nothing and must not cost an undo step.
+  if (move.dx === 0 && move.dy === 0) return region;
   if (region.role === "ruler") {
     const { a, b, lengthMm } = region.ruler;
-    return { ...region, ruler: { a: translatePoint(a, move.dx, move.dy), b: translatePoint(b, move.dx, move.dy), lengthMm } };
+    const moved = (p: [number, number]) => clampPoint(translatePoint(p, move.dx, move.dy), image);
+    return { ...region, ruler: { a: moved(a), b: moved(b), lengthMm } };
   }
   if (region.role === "surface") {
-    return { ...region, shape: { kind: "polygon", points: region.shape.points.map((p) => translatePoint(p, move.dx, move.dy)) } };
+    const points = region.shape.points.map((p) => clampPoint(translatePoint(p, move.dx, move.dy), image));
+    return { ...region, shape: { kind: "polygon", points } };
   }
-  return { ...region, shape: translateShape(region.shape, move.dx, move.dy) };
+  return { ...region, shape: clampShapeToImage(translateShape(region.shape, move.dx, move.dy), image) };
 }
 
 /**

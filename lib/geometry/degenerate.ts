@@ -5,8 +5,8 @@
  */
 import type { ImageSize } from "./clamp";
 import { maxExtentFor } from "./clamp";
-import { COLLINEAR_TOLERANCE, MAX_POINTS_PER_SHAPE, MIN_POLYGON_AREA } from "./limits";
-import { dedupeConsecutive, distance, distinctPointCount, pointsEqual } from "./points";
+import { COLLINEAR_TOLERANCE, EDGE_TOLERANCE, MAX_POINTS_PER_SHAPE, MIN_POLYGON_AREA } from "./limits";
+import { dedupeConsecutive, distance, distinctPointsUpTo, pointsEqual } from "./points";
 import { polygonArea } from "./polygon";
 import type { Point, Shape } from "./shape";
 
@@ -43,7 +43,7 @@ export function areCollinear(points: readonly Point[], tolerance = COLLINEAR_TOL
  */
 export function isSelfRetracingLine(points: readonly Point[]): boolean {
   const path = dedupeConsecutive(points);
-  return path.length > 2 && distinctPointCount(path) === 2;
+  return path.length > 2 && distinctPointsUpTo(path, 3) === 2;
 }
 
 /** Whether the line ends on its start point. */
@@ -64,14 +64,14 @@ export function describeShapeProblem(shape: Shape): string | null {
       return shape.width > 0 && shape.height > 0 ? null : "a box needs a width and a height above 0.";
     case "polygon": {
       if (shape.points.length > MAX_POINTS_PER_SHAPE) return `a polygon may have at most ${MAX_POINTS_PER_SHAPE} points.`;
-      if (distinctPointCount(shape.points) < 3 || areCollinear(shape.points)) return POLYGON_TOO_FEW;
+      if (distinctPointsUpTo(shape.points, 3) < 3 || areCollinear(shape.points)) return POLYGON_TOO_FEW;
       if (polygonArea(shape.points) < MIN_POLYGON_AREA) return "the polygon encloses no area (its edges cancel out; does it cross itself?).";
       return null;
     }
     case "line": {
       if (shape.points.length > MAX_POINTS_PER_SHAPE) return `a line may have at most ${MAX_POINTS_PER_SHAPE} points.`;
       if (!(shape.width > 0)) return "a line needs a width above 0.";
-      if (distinctPointCount(shape.points) < 2) return "a line needs at least 2 different points.";
+      if (distinctPointsUpTo(shape.points, 2) < 2) return "a line needs at least 2 different points.";
       if (isSelfRetracingLine(shape.points)) {
         return "the line only runs back and forth between 2 points (it closes on itself); draw it once from one end to the other.";
       }
@@ -83,13 +83,19 @@ export function describeShapeProblem(shape: Shape): string | null {
 }
 
 function pointOutside([x, y]: Point, size: ImageSize): boolean {
-  return x < 0 || y < 0 || x > size.width || y > size.height;
+  const e = EDGE_TOLERANCE;
+  return x < -e || y < -e || x > size.width + e || y > size.height + e;
+}
+
+/** Whether a point lies in [0, width] × [0, height] (up to EDGE_TOLERANCE). */
+export function pointInsideImage(point: Point, size: ImageSize): boolean {
+  return !pointOutside(point, size);
 }
 
 /**
  * Why a shape does not fit the photo, or null. Defining points (box corners, vertices, spot
- * centre) must lie in [0, width] × [0, height] exactly; a spot radius or line width may reach past
- * the edge but not beyond the photo's long edge (see clamp.ts).
+ * centre) must lie in [0, width] × [0, height] (up to the round-off EDGE_TOLERANCE); a spot
+ * radius or line width may reach past the edge but not beyond the photo's long edge (clamp.ts).
  */
 export function describeOutsideImage(shape: Shape, size: ImageSize): string | null {
   const where = `outside the ${size.width} × ${size.height} px photo`;

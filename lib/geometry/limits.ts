@@ -21,3 +21,9 @@ export const MAX_RULER_LENGTH_MM = 10_000;
 export const MIN_POLYGON_AREA = 1e-6;
 /** Points closer than this to the line through the others count as on it (px). */
 export const COLLINEAR_TOLERANCE = 1e-7;
+/**
+ * How far past the photo's edge a coordinate may sit, in px. Not a real allowance: it only
+ * absorbs floating-point round-off of edits (x + width of a moved box can come out one ulp past
+ * the edge), which would otherwise make a save fail for nothing.
+ */
+export const EDGE_TOLERANCE = 1e-6;

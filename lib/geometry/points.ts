@@ -32,6 +32,22 @@ export function dedupeConsecutive(points: readonly Point[], closed = false): Poi
   return kept;
 }
 
+/**
+ * How many different points the list holds (exact equality), counting no further than `limit`:
+ * the checks only ask "at least 2?" or "at least 3?", and stopping early keeps a 5 000-point
+ * outline cheap.
+ */
+export function distinctPointsUpTo(points: readonly Point[], limit: number): number {
+  const found: Point[] = [];
+  for (const p of points) {
+    if (!found.some((q) => pointsEqual(p, q))) {
+      found.push(p);
+      if (found.length >= limit) break;
+    }
+  }
+  return found.length;
+}
+
 /** How many different points the list holds (exact equality). */
 export function distinctPointCount(points: readonly Point[]): number {
   const seen = new Set<string>();

@@ -9,6 +9,18 @@ import { distanceToSegment } from "./distance";
 import { distance } from "./points";
 import type { Point } from "./shape";
 
+/** Squared distance from p to segment ab, inlined without allocation (this loop is the hot path). */
+function segmentDistanceSquared(p: Point, a: Point, b: Point): number {
+  const dx = b[0] - a[0];
+  const dy = b[1] - a[1];
+  const lengthSquared = dx * dx + dy * dy;
+  let t = lengthSquared > 0 ? ((p[0] - a[0]) * dx + (p[1] - a[1]) * dy) / lengthSquared : 0;
+  t = t < 0 ? 0 : t > 1 ? 1 : t;
+  const ex = p[0] - (a[0] + t * dx);
+  const ey = p[1] - (a[1] + t * dy);
+  return ex * ex + ey * ey;
+}
+
 export function simplifyPolyline(points: readonly Point[], tolerance: number): Point[] {
   if (points.length <= 2 || !(tolerance > 0)) return points.slice();
   const keep = new Uint8Array(points.length);
@@ -18,9 +30,9 @@ export function simplifyPolyline(points: readonly Point[], tolerance: number): P
   while (stack.length > 0) {
     const [first, last] = stack.pop()!;
     let farIndex = -1;
-    let farDistance = tolerance;
+    let farDistance = tolerance * tolerance;
     for (let i = first + 1; i < last; i++) {
-      const d = distanceToSegment(points[i], points[first], points[last]);
+      const d = segmentDistanceSquared(points[i], points[first], points[last]);
       if (d > farDistance) {
         farIndex = i;
         farDistance = d;
@@ -62,8 +74,9 @@ export function simplifyRing(points: readonly Point[], tolerance: number): Point
 }
 
 /**
- * Simplify only as much as needed to fit `maxPoints`: starting at `startTolerance` px, double the
- * tolerance until the result fits. Returns the input unchanged when it already fits.
+ * Simplify only as much as needed to fit `maxPoints`: double the tolerance from `startTolerance`
+ * until the result fits, then bisect between the last two tolerances so as much detail as the
+ * limit allows survives. Returns the input unchanged when it already fits.
  */
 export function simplifyToLimit(
   points: readonly Point[],
@@ -72,12 +85,24 @@ export function simplifyToLimit(
 ): Point[] {
   if (points.length <= maxPoints) return points.slice();
   const simplify = options.closed ? simplifyRing : simplifyPolyline;
-  let tolerance = options.startTolerance ?? 0.25;
-  let result = simplify(points, tolerance);
+  let low = 0;
+  let high = options.startTolerance ?? 0.25;
+  let fitted = simplify(points, high);
   // 60 doublings take 0.25 px past any photo's size, so the loop always ends.
-  for (let round = 0; result.length > maxPoints && round < 60; round++) {
-    tolerance *= 2;
-    result = simplify(points, tolerance);
+  for (let round = 0; fitted.length > maxPoints && round < 60; round++) {
+    low = high;
+    high *= 2;
+    fitted = simplify(points, high);
   }
-  return result;
+  for (let round = 0; round < 12; round++) {
+    const middle = (low + high) / 2;
+    const candidate = simplify(points, middle);
+    if (candidate.length <= maxPoints) {
+      high = middle;
+      fitted = candidate;
+    } else {
+      low = middle;
+    }
+  }
+  return fitted;
 }

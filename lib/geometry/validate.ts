@@ -3,15 +3,16 @@
  * then the geometry rules of degenerate.ts, each failure as a sentence that names the region,
  * e.g. "Region 3 (Outline): a polygon needs at least 3 points that are not on one line.".
  *
- * Decisions: coordinates must lie in [0, width] × [0, height] with no tolerance (the editor clamps
- * every pointer position, so only foreign data can fall outside); spot radii and line widths may
+ * Decisions: coordinates must lie in [0, width] × [0, height], with only EDGE_TOLERANCE (1e-6 px)
+ * for floating-point round-off (the editor clamps every pointer position, so only foreign data
+ * can fall outside); spot radii and line widths may
  * reach past the edge (clamp.ts says why); a line that only runs back and forth between 2 points
  * (a → b → a, "self-closing") is rejected, a closed loop over 3 or more points is a valid scratch;
  * polygons may repeat points (the ring closes itself; repeats change neither area nor coverage).
  */
 import { z } from "zod";
 import type { ImageSize } from "./clamp";
-import { describeOutsideImage, describeShapeProblem } from "./degenerate";
+import { describeOutsideImage, describeShapeProblem, pointInsideImage } from "./degenerate";
 import {
   MAX_ID_LENGTH,
   MAX_POINTS_PER_SHAPE,
@@ -48,7 +49,7 @@ const id = z
   .string({ error: "must be text" })
   .min(1, "must not be empty")
   .max(MAX_ID_LENGTH, `must be at most ${MAX_ID_LENGTH} characters`)
-  .regex(/^[A-Za-z0-9_-]+$/, "may only use letters, digits, - and _");
+  .regex(/^[A-Za-z0-9_-]*$/, "may only use letters, digits, - and _");
 
 const rectSchema = z.strictObject({ kind: z.literal("rect"), x: finite, y: finite, width: finite, height: finite }, objectError("a box"));
 const polygonSchema = z.strictObject({ kind: z.literal("polygon"), points }, objectError("an outline"));
@@ -94,8 +95,7 @@ export function regionSetSchema(context: RegionSetContext) {
     .superRefine((value, ctx) => {
       if (pointsEqual(value.a, value.b)) ctx.addIssue({ code: "custom", message: "a ruler needs two different end points." });
       for (const end of ["a", "b"] as const) {
-        const problem = describeOutsideImage({ kind: "spot", x: value[end][0], y: value[end][1], radius: 1 }, size);
-        if (problem) ctx.addIssue({ code: "custom", path: [end], message: `lies outside the ${size.width} × ${size.height} px photo` });
+        if (!pointInsideImage(value[end], size)) ctx.addIssue({ code: "custom", path: [end], message: `lies outside the ${size.width} × ${size.height} px photo` });
       }
     });
   return z
@@ -111,7 +111,7 @@ export function regionSetSchema(context: RegionSetContext) {
       const seen = new Map<string, string>();
       const note = (value: string, where: string, path: (string | number)[]) => {
         const earlier = seen.get(value);
-        if (earlier) ctx.addIssue({ code: "custom", path: [...path, "id"], message: `uses the id “${value}” already used by ${earlier}` });
+        if (earlier) ctx.addIssue({ code: "custom", path: [...path, "id"], message: `“${value}” is already used by ${earlier}` });
         else seen.set(value, where);
       };
       set.regions.forEach((r, i) => note(r.id, `region ${i + 1}`, ["regions", i]));
@@ -140,7 +140,7 @@ export function parseRegionSet(input: unknown, context: RegionSetContext): Regio
   return { ok: false, messages: describeIssues(result.error.issues, input) };
 }
 
-/** Turns zod issues into sentences that name the region, e.g. "Region 2 (Spot): radius must be …". */
+/** Turns zod issues into sentences that name the region, e.g. "Region 2 (Spot): the radius must be a finite number.". */
 export function describeIssues(issues: readonly z.core.$ZodIssue[], input: unknown): string[] {
   const messages = issues.slice(0, MAX_MESSAGES).map((issue) => describeIssue(issue, input));
   if (issues.length > MAX_MESSAGES) messages.push(`…and ${issues.length - MAX_MESSAGES} more problems.`);
@@ -175,7 +175,7 @@ function describeIssue(issue: z.core.$ZodIssue, input: unknown): string {
 
 function kindAt(input: unknown, index: number): ShapeKind | null {
   const kind = (input as { regions?: { shape?: { kind?: unknown } }[] } | null)?.regions?.[index]?.shape?.kind;
-  return typeof kind === "string" && kind in TOOL_NAME_BY_KIND ? (kind as ShapeKind) : null;
+  return typeof kind === "string" && Object.hasOwn(TOOL_NAME_BY_KIND, kind) ? (kind as ShapeKind) : null;
 }
 
 const FIELD_NAMES: Record<string, string> = {

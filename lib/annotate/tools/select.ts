@@ -6,10 +6,10 @@
  */
 import { distance } from "@/lib/geometry/points";
 import type { Point } from "@/lib/geometry/shape";
-import { toShapePoint, type ImagePoint } from "../coords";
+import { imagePoint, toShapePoint, type ImagePoint } from "../coords";
 import { DRAG_THRESHOLD_PX, HANDLE_TOLERANCE_PX, HIT_TOLERANCE_PX, NUDGE_STEP, stepAlongLadder } from "../constants";
 import { beginBatch, cancelBatch } from "../history";
-import { handlesOf, hitTestEdge, hitTestHandle, hitTestRegions, isRegionVisible } from "../hit-test";
+import { hitTestEdge, hitTestHandle, hitTestRegions, isRegionVisible } from "../hit-test";
 import * as model from "../model";
 import * as edits from "../shape-edits";
 import type { AnnotationState, Drag, PointerModifiers, Region } from "../types";
@@ -64,7 +64,7 @@ function pressOnSelection(state: AnnotationState, region: Region, p: ImagePoint,
   }
   if (modifiers.clickCount >= 2) {
     const edge = hitTestEdge(region, at, imagePx(state, HIT_TOLERANCE_PX));
-    if (edge) return model.insertRegionVertex(state, region.id, edge.segmentIndex, { x: edge.point[0], y: edge.point[1] } as ImagePoint);
+    if (edge) return model.insertRegionVertex(state, region.id, edge.segmentIndex, imagePoint(edge.point[0], edge.point[1]));
   }
   return null;
 }
@@ -122,5 +122,3 @@ export const selectTool: Tool = {
     return state;
   },
 };
-
-export { handlesOf };

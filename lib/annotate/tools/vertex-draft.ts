@@ -10,7 +10,7 @@
  */
 import { describeShapeProblem } from "@/lib/geometry/degenerate";
 import { MAX_POINTS_PER_SHAPE } from "@/lib/geometry/limits";
-import { dedupeConsecutive, distinctPointCount } from "@/lib/geometry/points";
+import { dedupeConsecutive, distinctPointsUpTo } from "@/lib/geometry/points";
 import type { Point, Shape } from "@/lib/geometry/shape";
 import { simplifyPolyline, simplifyRing, simplifyToLimit } from "@/lib/geometry/simplify";
 import { toShapePoint, type ImagePoint } from "../coords";
@@ -50,7 +50,7 @@ export function cleanVertices(state: AnnotationState, points: readonly ImagePoin
   cleaned = closed ? simplifyRing(cleaned, tolerance) : simplifyPolyline(cleaned, tolerance);
   cleaned = simplifyToLimit(cleaned, MAX_POINTS_PER_SHAPE, { closed, startTolerance: tolerance * 2 });
   // An open path back and forth between two points is just the segment between them.
-  if (!closed && cleaned.length > 2 && distinctPointCount(cleaned) === 2) {
+  if (!closed && cleaned.length > 2 && distinctPointsUpTo(cleaned, 3) === 2) {
     const other = cleaned.find((p) => p[0] !== cleaned[0][0] || p[1] !== cleaned[0][1])!;
     cleaned = [cleaned[0], other];
   }
