@@ -1,4 +1,4 @@
-import { z } from "zod";
+import type { z } from "zod";
 import { AppError } from "./errors";
 
 /** Turns a zod failure into per-field messages and one sentence for the whole request. */

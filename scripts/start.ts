@@ -3,6 +3,7 @@
  * build when missing or stale → `next start` on 127.0.0.1. Ctrl-C stops everything it started.
  * `--dev` runs `next dev` instead of a production build.
  */
+import fs from "node:fs";
 import http from "node:http";
 import { DEMO_PASSWORD, DEMO_WORKSPACES } from "../db/seed/demo-data";
 import { buildIfStale } from "./lib/build";
@@ -50,6 +51,8 @@ function printWelcome(url: string) {
 }
 
 async function main() {
+  // A developer's .env overrides the defaults (see .env.example).
+  if (fs.existsSync(".env")) process.loadEnvFile(".env");
   const settings = demoSettings();
   if (!(await isPortFree(settings.app.port))) {
     const health = await healthOf(settings.app.url);

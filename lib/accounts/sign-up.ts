@@ -8,19 +8,9 @@ import { hashPassword } from "@/lib/auth/password";
 import type { SignUpInput } from "@/lib/auth/schemas";
 import { AppError } from "@/lib/errors";
 import { isUniqueViolation } from "@/db/errors";
+import { slugify } from "./slugify";
 
 export const DUPLICATE_EMAIL_MESSAGE = "An account with this e-mail address already exists. Sign in, or reset your password.";
-
-export function slugify(name: string): string {
-  const base = name
-    .normalize("NFKD")
-    .replace(/[\u0300-\u036f]/g, "")
-    .toLowerCase()
-    .replace(/[^a-z0-9]+/g, "-")
-    .replace(/^-+|-+$/g, "")
-    .slice(0, 40);
-  return base || "workspace";
-}
 
 /** Creates a workspace (the company) and its first user, who is its lead. */
 export async function signUp(input: SignUpInput) {

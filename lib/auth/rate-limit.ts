@@ -4,12 +4,7 @@ import { db } from "@/db/client";
 import { signInFailures } from "@/db/schema";
 import { env } from "@/lib/env";
 import { AppError } from "@/lib/errors";
-
-/** Minutes until the oldest failure inside the window expires (at least 1). */
-export function minutesUntilRetry(oldestFailure: Date, now: Date, windowMinutes: number): number {
-  const freeAt = oldestFailure.getTime() + windowMinutes * 60_000;
-  return Math.max(1, Math.ceil((freeAt - now.getTime()) / 60_000));
-}
+import { minutesUntilRetry } from "./retry";
 
 async function failuresSince(column: typeof signInFailures.email | typeof signInFailures.ip, value: string, since: Date) {
   const [row] = await db()

@@ -8,42 +8,26 @@ import { execFileSync, spawnSync } from "node:child_process";
 import fs from "node:fs";
 import path from "node:path";
 import pg from "pg";
+import { ensureDebianPackages, isRoot } from "./debian";
 import { isPortFree, portTakenMessage } from "./ports";
 import type { ServiceSettings } from "./settings";
 
-const isRoot = process.getuid?.() === 0;
 const osUser = process.env.PG_OS_USER || "postgres";
 
-/** The newest installed server's bin folder, installing the package when root. */
-export function findPostgresBin(): string {
-  const find = () => {
-    const base = "/usr/lib/postgresql";
-    if (!fs.existsSync(base)) return null;
-    const versions = fs
-      .readdirSync(base)
-      .filter((v) => fs.existsSync(path.join(base, v, "bin", "pg_ctl")))
-      .sort((a, b) => Number(b) - Number(a));
-    return versions.length ? path.join(base, versions[0], "bin") : null;
-  };
-  let bin = find();
-  if (bin) return bin;
-  if (!isRoot) {
-    throw new Error(
-      "PostgreSQL server binaries were not found (/usr/lib/postgresql/*/bin).\n" +
-        "Install them with:  sudo apt-get update && sudo apt-get install -y postgresql",
-    );
-  }
-  console.log("PostgreSQL is not installed; running apt-get install -y postgresql …");
-  aptInstall(["postgresql"]);
-  bin = find();
-  if (!bin) throw new Error("apt-get installed postgresql but no server binaries were found.");
-  return bin;
+function newestPostgresBin(): string | null {
+  const base = "/usr/lib/postgresql";
+  if (!fs.existsSync(base)) return null;
+  const versions = fs
+    .readdirSync(base)
+    .filter((v) => fs.existsSync(path.join(base, v, "bin", "pg_ctl")))
+    .sort((a, b) => Number(b) - Number(a));
+  return versions.length ? path.join(base, versions[0], "bin") : null;
 }
 
-export function aptInstall(packages: string[]) {
-  const env = { ...process.env, DEBIAN_FRONTEND: "noninteractive" };
-  execFileSync("apt-get", ["update", "-qq"], { stdio: "inherit", env });
-  execFileSync("apt-get", ["install", "-y", "-qq", ...packages], { stdio: "inherit", env });
+/** The newest installed server's bin folder, installing Debian's package when root. */
+export function findPostgresBin(): string {
+  ensureDebianPackages("The PostgreSQL server", ["postgresql"], () => newestPostgresBin() !== null);
+  return newestPostgresBin()!;
 }
 
 /** Runs a PostgreSQL program as the right OS user. */

@@ -1,0 +1,103 @@
+/**
+ * `npm test`: lint and typecheck, then unit tests, then integration and browser tests against
+ * real services — PostgreSQL (fresh database), s3rver and the mail inbox on their own test ports
+ * and folders — and a production build served by `next start`. Exits non-zero on any failure.
+ *   --only unit|integration|e2e   run one layer (integration/e2e still start the services)
+ */
+import fs from "node:fs";
+import { buildIfStale } from "./lib/build";
+import { ensureChromium } from "./lib/debian";
+import { killTree, run, start, tsxArgs, waitForExit } from "./lib/children";
+import { isPortFree, portTakenMessage, waitFor } from "./lib/ports";
+import { startServices, type Services } from "./lib/services";
+import { appEnvironment, testSettings } from "./lib/settings";
+
+const onlyIndex = process.argv.indexOf("--only");
+const only = onlyIndex > 0 ? process.argv[onlyIndex + 1] : undefined;
+if (only && !["unit", "integration", "e2e"].includes(only)) {
+  console.error(`Unknown layer "${only}"; use unit, integration or e2e.`);
+  process.exit(2);
+}
+const wants = (layer: string) => !only || only === layer;
+const failures: string[] = [];
+const timings: string[] = [];
+
+async function step(name: string, fn: () => Promise<void>) {
+  const t0 = Date.now();
+  console.log(`\n━━ ${name} ━━`);
+  try {
+    await fn();
+  } catch (err) {
+    failures.push(name);
+    console.error(`✗ ${name}: ${err instanceof Error ? err.message.split("\n")[0] : err}`);
+  }
+  timings.push(`${name}: ${((Date.now() - t0) / 1000).toFixed(1)} s`);
+}
+
+const bin = (name: string) => `node_modules/.bin/${name}`;
+
+async function main() {
+  const t0 = Date.now();
+  if (!only) {
+    await step("lint", () => run(bin("eslint"), ["--max-warnings", "0", "."], { label: "lint" }));
+    await step("typecheck", () => run("npm", ["run", "--silent", "typecheck"], { label: "typecheck" }));
+  }
+  if (wants("unit")) await step("unit tests", () => run(bin("vitest"), ["run", "--project", "unit"], { label: "unit" }));
+
+  if (wants("integration") || wants("e2e")) {
+    if (wants("e2e")) ensureChromium();
+    const settings = testSettings();
+    if (!(await isPortFree(settings.app.port))) throw new Error(portTakenMessage(settings.app.port, "the test web server", "TEST_APP_PORT"));
+    // Every run starts from nothing: a fresh database, an empty object store and inbox.
+    fs.rmSync(settings.s3.dir, { recursive: true, force: true });
+    fs.rmSync(settings.smtp.inboxDir, { recursive: true, force: true });
+    const env = {
+      ...appEnvironment(settings, "test-secret-not-for-production-0123456789"),
+      TEST_BASE_URL: settings.app.url,
+      NODE_ENV: "production",
+    };
+    let services: Services | null = null;
+    let app: ReturnType<typeof start> | null = null;
+    const stopAll = async () => {
+      if (app) {
+        killTree(app);
+        await waitForExit(app, 10_000);
+      }
+      await services?.stop();
+    };
+    process.on("SIGINT", () => void stopAll().then(() => process.exit(130)));
+    try {
+      console.log("\n━━ services ━━");
+      services = await startServices(settings, { freshDatabase: true });
+      const [node, seedArgs] = tsxArgs("db/seed.ts");
+      await run(node, seedArgs, { env, label: "seed" });
+      await buildIfStale({ distDir: ".next-test", env: { ...env, NODE_ENV: "production" } });
+      app = start(process.execPath, ["node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(settings.app.port)], {
+        env: { ...env, NEXT_DIST_DIR: ".next-test" },
+        label: "next",
+        quiet: true,
+      });
+      await waitFor(async () => (await fetch(`${settings.app.url}/api/health`)).ok, { timeoutMs: 60_000, what: "The test web server" });
+      const testEnv = { ...env, NODE_ENV: "test" };
+      if (wants("integration")) await step("integration tests", () => run(bin("vitest"), ["run", "--project", "integration"], { env: testEnv, label: "integration" }));
+      if (wants("e2e")) await step("browser tests", () => run(bin("playwright"), ["test"], { env: testEnv, label: "e2e" }));
+    } catch (err) {
+      failures.push("test services");
+      console.error(err instanceof Error ? err.message : err);
+    } finally {
+      await stopAll();
+    }
+  }
+
+  console.log(`\n━━ summary (${((Date.now() - t0) / 1000).toFixed(0)} s) ━━\n${timings.join("\n")}`);
+  if (failures.length) {
+    console.error(`\nFAILED: ${failures.join(", ")}`);
+    process.exit(1);
+  }
+  console.log("\nAll checks passed.");
+}
+
+main().catch((err) => {
+  console.error(err);
+  process.exit(1);
+});

@@ -1,0 +1,74 @@
+import { expect, test } from "@playwright/test";
+import { signInAs } from "./support";
+
+test("a wrong password shows a clear message and no session", async ({ page }) => {
+  await page.goto("/sign-in");
+  await page.getByLabel("E-mail").fill("auditor@vellmoor.example");
+  await page.getByLabel("Password").fill("definitely-wrong");
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await expect(page.locator("form").getByRole("alert")).toHaveText("The e-mail address or password is not right.");
+  await page.goto("/");
+  await expect(page).toHaveURL(/\/sign-in/);
+});
+
+test("the sign-in form checks input before sending", async ({ page }) => {
+  await page.goto("/sign-in");
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await expect(page.getByText("Enter an e-mail address.")).toBeVisible();
+  await expect(page.getByText("Enter your password.")).toBeVisible();
+});
+
+test("sign-up creates a company workspace with its first lead", async ({ page }) => {
+  const email = `founder.${Date.now()}@e2e.example`;
+  await page.goto("/sign-up");
+  await page.getByLabel("Company").fill("Pellwick Refurb Desk");
+  await page.getByLabel("Your name").fill("Pia Pellwick");
+  await page.getByLabel("Work e-mail").fill(email);
+  await page.getByLabel("Password").fill("pellwick-password");
+  await page.getByRole("button", { name: "Create workspace" }).click();
+  await expect(page.getByRole("heading", { level: 1, name: "People" })).toBeVisible();
+  await expect(page.getByTestId("people-table")).toContainText(email);
+  await expect(page.getByTestId("people-table")).not.toContainText("vellmoor.example");
+});
+
+test("a lead invites a colleague, who sets a password from the e-mail and signs in", async ({ page, browser }) => {
+  const email = `newhire.${Date.now()}@e2e.example`;
+  await signInAs(page, "lead@vellmoor.example");
+  await page.goto("/people");
+  const form = page.getByTestId("invite-form");
+  await form.getByLabel("Name").fill("Nell Newhire");
+  await form.getByLabel("E-mail").fill(email);
+  await form.getByLabel("Auditor").check();
+  await form.getByRole("button", { name: "Send invitation" }).click();
+  await expect(form.getByRole("status")).toContainText(`Invitation sent to ${email}`);
+  await expect(page.getByTestId(`person-${email}`)).toContainText("Invited");
+
+  // The lead opens the message in the Outbox and follows the link in a fresh browser.
+  await page.getByRole("navigation", { name: "Main" }).first().getByRole("link", { name: "Outbox" }).click();
+  await page.getByRole("row", { name: new RegExp(email) }).getByRole("link").click();
+  const text = await page.getByTestId("delivered-message").innerText();
+  const link = text.match(/https?:\/\/\S+\/set-password\?token=\S+/)![0];
+
+  const context = await browser.newContext();
+  const invitee = await context.newPage();
+  await invitee.goto(link);
+  await invitee.getByLabel("New password").fill("nell-newhire-pass");
+  await invitee.getByLabel("Repeat the password").fill("nell-newhire-pass");
+  await invitee.getByRole("button", { name: "Set password" }).click();
+  await expect(invitee.getByText("Your password is set.")).toBeVisible();
+  await invitee.getByLabel("E-mail").fill(email);
+  await invitee.getByLabel("Password").fill("nell-newhire-pass");
+  await invitee.getByRole("button", { name: "Sign in" }).click();
+  await expect(invitee.getByTestId("signed-in-user").first()).toContainText("Nell Newhire");
+  await context.close();
+});
+
+test("duplicate e-mail on the invite form is reported beside the field", async ({ page }) => {
+  await signInAs(page, "lead@vellmoor.example");
+  await page.goto("/people");
+  const form = page.getByTestId("invite-form");
+  await form.getByLabel("Name").fill("Copy Person");
+  await form.getByLabel("E-mail").fill("trainer@vellmoor.example");
+  await form.getByRole("button", { name: "Send invitation" }).click();
+  await expect(form.locator("#invite-email-error")).toHaveText("Someone with this e-mail address already has a Partproof account.");
+});

@@ -1,0 +1,84 @@
+import { sql } from "drizzle-orm";
+import { describe, expect, it } from "vitest";
+import { db } from "@/db/client";
+import { api, signIn, trySignIn } from "../support/http";
+import { uniqueEmail } from "../support/db";
+
+const count = async (table: string) => (await db().execute<{ n: number }>(sql.raw(`SELECT count(*)::int AS n FROM ${table}`))).rows[0].n;
+
+describe("sign-up", () => {
+  it("creates a workspace whose first user is its lead, isolated from the others", async () => {
+    const email = uniqueEmail("founder");
+    const res = await api<{ workspaceId: string }>(null, "POST", "/api/signup", { companyName: "Brannock Test Spares", name: "Fay Founder", email, password: "founder-password" });
+    expect(res.status).toBe(201);
+    const { session } = await trySignIn(email, "founder-password");
+    const me = await api<{ user: { roles: string[]; workspaceId: string; workspaceName: string } }>(session, "GET", "/api/me");
+    expect(me.body.user).toMatchObject({ roles: ["lead"], workspaceId: res.body.workspaceId, workspaceName: "Brannock Test Spares" });
+    const people = await api<{ people: { email: string }[] }>(session, "GET", "/api/people");
+    expect(people.body.people.map((p) => p.email)).toEqual([email]);
+    const suppliers = await api<{ suppliers: unknown[] }>(session, "GET", "/api/suppliers");
+    expect(suppliers.body.suppliers).toEqual([]);
+  });
+
+  const bad: [string, unknown][] = [
+    ["empty", {}],
+    ["wrong types", { companyName: 1, name: true, email: [], password: 5 }],
+    ["short password", { companyName: "Shorty Works", name: "S", email: "s@tests.example", password: "short" }],
+    ["oversized company", { companyName: "c".repeat(300), name: "Big", email: "big2@tests.example", password: "long-enough-pass" }],
+    ["oversized password", { companyName: "Longpass Works", name: "L", email: "lp@tests.example", password: "p".repeat(201) }],
+    ["bad e-mail", { companyName: "Mailless Works", name: "M", email: "not-mail", password: "long-enough-pass" }],
+  ];
+  it.each(bad)("%s → 400, nothing stored", async (_n, body) => {
+    const [ws, us] = [await count("workspaces"), await count("users")];
+    const res = await api<{ error: { message: string; fieldErrors: Record<string, string> } }>(null, "POST", "/api/signup", body);
+    expect(res.status).toBe(400);
+    expect(res.body.error.message).toMatch(/not valid/);
+    expect(Object.keys(res.body.error.fieldErrors).length).toBeGreaterThan(0);
+    expect([await count("workspaces"), await count("users")]).toEqual([ws, us]);
+  });
+
+  it("a duplicate e-mail → 409, no second workspace", async () => {
+    const ws = await count("workspaces");
+    const res = await api<{ error: { fieldErrors: Record<string, string> } }>(null, "POST", "/api/signup", { companyName: "Dupe Works", name: "D", email: "Inspector@Vellmoor.example", password: "long-enough-pass" });
+    expect(res.status).toBe(409);
+    expect(res.body.error.fieldErrors.email).toMatch(/already exists/);
+    expect(await count("workspaces")).toBe(ws);
+  });
+});
+
+describe("suppliers", () => {
+  it("a lead creates and edits one; names are unique per workspace, case-insensitively", async () => {
+    const lead = await signIn("lead@vellmoor.example");
+    const name = `Halvering Parts ${Date.now()}`;
+    const created = await api<{ supplier: { id: string } }>(lead, "POST", "/api/suppliers", { name, contactEmail: "Desk@Halvering.example" });
+    expect(created.status).toBe(201);
+    const got = await api<{ supplier: { contactEmail: string } }>(lead, "GET", `/api/suppliers/${created.body.supplier.id}`);
+    expect(got.body.supplier.contactEmail).toBe("desk@halvering.example");
+    const dupe = await api<{ error: { message: string } }>(lead, "POST", "/api/suppliers", { name: name.toUpperCase(), contactEmail: "x@halvering.example" });
+    expect(dupe.status).toBe(409);
+    // The same name is fine in another workspace.
+    const other = await signIn("lead@quillfen.example");
+    expect((await api(other, "POST", "/api/suppliers", { name, contactEmail: "x@halvering.example" })).status).toBe(201);
+  });
+
+  it("bad input → 400 and nothing stored", async () => {
+    const lead = await signIn("lead@vellmoor.example");
+    const before = await count("suppliers");
+    for (const body of [{}, { name: "X" }, { name: "Fine Name", contactEmail: "nope" }, { name: "Fine Name", contactEmail: "a@b.example", notes: "n".repeat(3000) }, { name: "Fine Name", contactEmail: "a@b.example", workspaceId: "x" }]) {
+      const res = await api(lead, "POST", "/api/suppliers", body);
+      expect(res.status, JSON.stringify(body)).toBe(400);
+    }
+    expect(await count("suppliers")).toBe(before);
+    expect((await api(lead, "GET", "/api/suppliers?page=2")).status).toBe(400);
+  });
+});
+
+describe("activity log", () => {
+  it("is append-only: the database refuses UPDATE and DELETE", async () => {
+    expect(await count("activity_log")).toBeGreaterThan(0);
+    // drizzle wraps the PostgreSQL error; the trigger's message is on the cause.
+    const refusal = (e: unknown) => String((e as { cause?: { message?: string } }).cause?.message);
+    await expect(db().execute(sql`UPDATE activity_log SET action = 'tampered'`).catch((e) => Promise.reject(refusal(e)))).rejects.toMatch(/append-only \(UPDATE refused\)/);
+    await expect(db().execute(sql`DELETE FROM activity_log`).catch((e) => Promise.reject(refusal(e)))).rejects.toMatch(/append-only \(DELETE refused\)/);
+  });
+});
