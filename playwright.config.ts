@@ -13,7 +13,7 @@ export default defineConfig({
   timeout: 60_000,
   expect: { timeout: 10_000 },
   reporter: [["list"]],
-  outputDir: ".data/test/playwright",
+  outputDir: process.env.TEST_OUTPUT_DIR ?? ".data/test/playwright",
   use: {
     baseURL,
     trace: "retain-on-failure",

@@ -10,7 +10,7 @@ import { ensureChromium } from "./lib/debian";
 import { killTree, run, start, tsxArgs, waitForExit } from "./lib/children";
 import { isPortFree, portTakenMessage, waitFor } from "./lib/ports";
 import { startServices, type Services } from "./lib/services";
-import { appEnvironment, testSettings } from "./lib/settings";
+import { appEnvironment, testDistDir, testSettings } from "./lib/settings";
 
 const onlyIndex = process.argv.indexOf("--only");
 const only = onlyIndex > 0 ? process.argv[onlyIndex + 1] : undefined;
@@ -54,6 +54,7 @@ async function main() {
     const env = {
       ...appEnvironment(settings, "test-secret-not-for-production-0123456789"),
       TEST_BASE_URL: settings.app.url,
+      TEST_OUTPUT_DIR: `${settings.dataDir}/playwright`,
       NODE_ENV: "production",
     };
     let services: Services | null = null;
@@ -71,9 +72,9 @@ async function main() {
       services = await startServices(settings, { freshDatabase: true });
       const [node, seedArgs] = tsxArgs("db/seed.ts");
       await run(node, seedArgs, { env, label: "seed" });
-      await buildIfStale({ distDir: ".next-test", env: { ...env, NODE_ENV: "production" } });
+      await buildIfStale({ distDir: testDistDir(), env: { ...env, NODE_ENV: "production" } });
       app = start(process.execPath, ["node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(settings.app.port)], {
-        env: { ...env, NEXT_DIST_DIR: ".next-test" },
+        env: { ...env, NEXT_DIST_DIR: testDistDir() },
         label: "next",
         quiet: true,
       });

@@ -51,28 +51,45 @@ export function demoSettings(): ServiceSettings {
   };
 }
 
+/**
+ * TEST_SLOT=n (1–4) gives a parallel test run its own ports, data folder and build folder, so
+ * several checkouts' worth of work can be tested at once on one machine.
+ */
+export function testSlot(): number {
+  const slot = Number(process.env.TEST_SLOT ?? "0");
+  if (!Number.isInteger(slot) || slot < 0 || slot > 4) throw new Error(`TEST_SLOT must be 0–4 (got "${process.env.TEST_SLOT}").`);
+  return slot;
+}
+
+export function testDistDir(): string {
+  const slot = testSlot();
+  return slot ? `.next-test/slot-${slot}` : ".next-test/main";
+}
+
 /** The test run: separate ports and folders, wiped at the start of every run. */
 export function testSettings(): ServiceSettings {
-  const dataDir = path.join(projectRoot, ".data", "test");
-  const appPort = intFromEnv("TEST_APP_PORT", 3100);
+  const slot = testSlot();
+  const dataDir = path.join(projectRoot, ".data", slot ? `test-${slot}` : "test");
+  const off = slot * 10;
+  const appPort = intFromEnv("TEST_APP_PORT", 3100 + off);
   return {
     name: "test",
     dataDir,
     pg: {
-      port: intFromEnv("TEST_PG_PORT", 54339),
+      port: intFromEnv("TEST_PG_PORT", 54339 + off),
       dataDir: path.join(dataDir, "postgres", "data"),
       user: "partproof",
       password: "partproof",
       database: "partproof_test",
     },
     s3: {
-      port: intFromEnv("TEST_S3_PORT", 4610),
+      port: intFromEnv("TEST_S3_PORT", 4610 + off),
       dir: path.join(dataDir, "s3"),
       bucket: "partproof-test",
       accessKeyId: "S3RVER",
       secretAccessKey: "S3RVER",
     },
-    smtp: { port: intFromEnv("TEST_SMTP_PORT", 2535), inboxDir: path.join(dataDir, "mail") },
+    smtp: { port: intFromEnv("TEST_SMTP_PORT", 2535 + off), inboxDir: path.join(dataDir, "mail") },
     app: { port: appPort, url: `http://127.0.0.1:${appPort}` },
   };
 }

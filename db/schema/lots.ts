@@ -1,0 +1,182 @@
+import { sql } from "drizzle-orm";
+import { boolean, check, date, index, integer, jsonb, pgTable, real, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { suppliers, users, workspaces } from "./core";
+
+/**
+ * Shapes of the JSON columns. Their zod schemas (the source of truth for validation) live in
+ * lib/part-types and lib/lots; these types keep the columns honest in TypeScript.
+ */
+export type DefectSeverity = "critical" | "major" | "minor";
+export type ZoneDefinition = { id: string; label: string; /** Polygon in 0..1 coordinates of the Surface bounding box. */ polygon: [number, number][] };
+export type ViewDefinition = { key: string; label: string; required: boolean; instructions?: string; zones: ZoneDefinition[] };
+export type DefectClassDefinition = { key: string; label: string; severity: DefectSeverity };
+export type ChecklistItem =
+  | { id: string; label: string; kind: "pass_fail"; severityOnFail: DefectSeverity; caution?: string }
+  | { id: string; label: string; kind: "numeric"; unit: string; min: number | null; max: number | null; decimals: number; severityOnFail: DefectSeverity; caution?: string }
+  | { id: string; label: string; kind: "choice"; options: { value: string; label: string; passes: boolean }[]; severityOnFail: DefectSeverity; caution?: string };
+
+/** What a lot's sampling decided, stored with the lot so later table changes never rewrite it. */
+export type StoredSamplingPlan = {
+  standard: "ISO 2859-1 single sampling";
+  lotSize: number;
+  level: string;
+  severity: "normal" | "tightened" | "reduced";
+  /** Units to inspect (the largest sample among the classes; the lot size for 100 %). */
+  sampleSize: number;
+  hundredPercent: boolean;
+  byDefectSeverity: Record<DefectSeverity, { aql: number | null; codeLetter: string; planLetter: string; sampleSize: number; accept: number; reject: number }>;
+  switchingReason: string;
+};
+
+export const partTypes = pgTable(
+  "part_types",
+  {
+    id: uuid().primaryKey().defaultRandom(),
+    workspaceId: uuid()
+      .notNull()
+      .references(() => workspaces.id),
+    slug: text().notNull(),
+    name: text().notNull(),
+    /** e.g. "camera", "battery", "display": drives cautions and which tools make sense. */
+    category: text().notNull(),
+    modelFamily: text().notNull().default(""),
+    views: jsonb().$type<ViewDefinition[]>().notNull(),
+    defectClasses: jsonb().$type<DefectClassDefinition[]>().notNull(),
+    checklist: jsonb().$type<ChecklistItem[]>().notNull(),
+    /** Nominal outline in mm, the calibration fallback when a photo has no Ruler. */
+    nominalSizeMm: jsonb().$type<{ width: number; height: number } | null>(),
+    /** Display parts: the panel's pixel grid, for ISO 13406-2 scaling. */
+    panelResolution: jsonb().$type<{ width: number; height: number } | null>(),
+    /** High-value parts: every unit is inspected. */
+    inspectAll: boolean().notNull().default(false),
+    active: boolean().notNull().default(true),
+    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex("part_types_workspace_slug_key").on(t.workspaceId, t.slug)],
+);
+
+export const lots = pgTable(
+  "lots",
+  {
+    id: uuid().primaryKey().defaultRandom(),
+    workspaceId: uuid()
+      .notNull()
+      .references(() => workspaces.id),
+    supplierId: uuid()
+      .notNull()
+      .references(() => suppliers.id),
+    partTypeId: uuid()
+      .notNull()
+      .references(() => partTypes.id),
+    purchaseRef: text().notNull(),
+    modelFamily: text().notNull().default(""),
+    quantity: integer().notNull(),
+    receivedOn: date({ mode: "string" }).notNull(),
+    dueOn: date({ mode: "string" }).notNull(),
+    inspectionLevel: text().notNull(),
+    /** AQL per defect severity; null for critical means "any critical defect rejects". */
+    aqlCritical: real(),
+    aqlMajor: real().notNull(),
+    aqlMinor: real().notNull(),
+    inspectionSeverity: text({ enum: ["normal", "tightened", "reduced"] }).notNull(),
+    plan: jsonb().$type<StoredSamplingPlan>().notNull(),
+    /** Seed of the random draw of sampled serials, so the draw can be reproduced. */
+    sampleSeed: text(),
+    status: text({ enum: ["open", "decided"] }).notNull().default("open"),
+    verdict: text({ enum: ["accept", "reject"] }),
+    disposition: text({ enum: ["to_stock", "downgrade", "sort", "return_to_vendor"] }),
+    dispositionReason: text(),
+    decidedBy: uuid().references(() => users.id),
+    decidedAt: timestamp({ withTimezone: true }),
+    createdBy: uuid()
+      .notNull()
+      .references(() => users.id),
+    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    index("lots_workspace_idx").on(t.workspaceId, t.createdAt),
+    index("lots_history_idx").on(t.workspaceId, t.supplierId, t.partTypeId, t.createdAt),
+    check("lots_quantity_positive", sql`${t.quantity} > 0`),
+  ],
+);
+
+export const UNIT_STATUSES = ["queued", "on_bench", "graded", "in_recheck", "final"] as const;
+export type UnitStatus = (typeof UNIT_STATUSES)[number];
+
+export const units = pgTable(
+  "units",
+  {
+    id: uuid().primaryKey().defaultRandom(),
+    workspaceId: uuid()
+      .notNull()
+      .references(() => workspaces.id),
+    lotId: uuid()
+      .notNull()
+      .references(() => lots.id),
+    /** 1-based order within the lot's sample. */
+    sampleIndex: integer().notNull(),
+    /** Null for a numbered placeholder until the inspector scans or types the serial. */
+    serial: text(),
+    status: text({ enum: UNIT_STATUSES }).notNull().default("queued"),
+    // Copied from the lot so the queue can be ordered and filtered from one index (keyset pages).
+    partTypeId: uuid()
+      .notNull()
+      .references(() => partTypes.id),
+    supplierId: uuid()
+      .notNull()
+      .references(() => suppliers.id),
+    lotDueOn: date({ mode: "string" }).notNull(),
+    lotReceivedOn: date({ mode: "string" }).notNull(),
+    lotCreatedAt: timestamp({ withTimezone: true }).notNull(),
+    /** Who has the unit on the bench, until when (an expired lease counts as free). */
+    leaseHolderId: uuid().references(() => users.id),
+    leaseExpiresAt: timestamp({ withTimezone: true }),
+    claimedAt: timestamp({ withTimezone: true }),
+    gradedAt: timestamp({ withTimezone: true }),
+    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    uniqueIndex("units_lot_sample_key").on(t.lotId, t.sampleIndex),
+    uniqueIndex("units_lot_serial_key").on(t.lotId, t.serial).where(sql`${t.serial} IS NOT NULL`),
+    index("units_queue_idx").on(t.workspaceId, t.status, t.lotDueOn, t.lotReceivedOn, t.lotCreatedAt, t.lotId, t.sampleIndex, t.id),
+    index("units_lot_idx").on(t.lotId, t.sampleIndex),
+  ],
+);
+
+/** The latest result of each checklist item on a unit (history is in the activity log). */
+export const checklistResults = pgTable(
+  "checklist_results",
+  {
+    id: uuid().primaryKey().defaultRandom(),
+    workspaceId: uuid()
+      .notNull()
+      .references(() => workspaces.id),
+    unitId: uuid()
+      .notNull()
+      .references(() => units.id),
+    itemId: text().notNull(),
+    /** { pass: boolean } | { reading: number } | { choice: string } */
+    value: jsonb().$type<{ pass: boolean } | { reading: number } | { choice: string }>().notNull(),
+    passed: boolean().notNull(),
+    /** Why it failed, in words ("3.12 V is below the minimum 3.40 V"). */
+    failureReason: text(),
+    severityOnFail: text({ enum: ["critical", "major", "minor"] }).notNull(),
+    note: text().notNull().default(""),
+    recordedBy: uuid()
+      .notNull()
+      .references(() => users.id),
+    recordedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex("checklist_results_unit_item_key").on(t.unitId, t.itemId)],
+);
+
+export type PartType = typeof partTypes.$inferSelect;
+export type NewPartType = typeof partTypes.$inferInsert;
+export type Lot = typeof lots.$inferSelect;
+export type NewLot = typeof lots.$inferInsert;
+export type Unit = typeof units.$inferSelect;
+export type NewUnit = typeof units.$inferInsert;
+export type ChecklistResult = typeof checklistResults.$inferSelect;
