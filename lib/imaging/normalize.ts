@@ -53,8 +53,12 @@ export type NormalizedPhoto = {
 
 /**
  * Process-wide sharp settings for a worker that normalises one photo after another: no operation
- * cache (each photo is new, the cache only holds memory) and libvips threads per image.
+ * cache (each photo is new, the cache only holds memory) and, if given, libvips threads per image.
  * Call once at worker start; importing this module changes nothing.
+ *
+ * On glibc, sharp defaults to 1 thread unless MALLOC_ARENA_MAX is set in the environment (it
+ * must be set before the process starts); with MALLOC_ARENA_MAX=2 sharp uses every core and the
+ * bench's peak RSS was lower too (bench/normalize.ts).
  */
 export function configureSharpForWorker(options: { concurrency?: number } = {}): void {
   sharp.cache(false);
@@ -92,12 +96,17 @@ export async function normalizePhoto(input: Buffer): Promise<NormalizedPhoto> {
     throw new PhotoRejectedError("unsupported_format", "This file is an animated WebP; upload a single still photo.");
   }
 
-  const [preview, thumbnail] = await Promise.allSettled([
-    renderDerivative(input, PREVIEW_LONG_EDGE, PREVIEW_WEBP),
-    renderDerivative(input, THUMBNAIL_LONG_EDGE, THUMBNAIL_WEBP),
+  let upright: Buffer;
+  try {
+    upright = await decodeUpright(input);
+  } catch (error) {
+    throw isPixelLimitError(error) ? await tooManyPixels(input, error) : corrupt(error);
+  }
+  // The intermediate is our own well-formed file: a failure from here on is a fault, not bad input.
+  const [preview, thumbnail] = await Promise.all([
+    encodeWebp(upright, null, PREVIEW_WEBP),
+    encodeWebp(upright, THUMBNAIL_LONG_EDGE, THUMBNAIL_WEBP),
   ]);
-  if (preview.status === "rejected") throw corrupt(preview.reason);
-  if (thumbnail.status === "rejected") throw corrupt(thumbnail.reason);
 
   const capture = readExifCaptureTime(header.exif);
   return {
@@ -109,12 +118,12 @@ export async function normalizePhoto(input: Buffer): Promise<NormalizedPhoto> {
     orientation: header.orientation ?? null,
     captureTime: capture?.time ?? null,
     captureTimeOffset: capture?.offset ?? null,
-    preview: preview.value.data,
-    previewWidth: preview.value.info.width,
-    previewHeight: preview.value.info.height,
-    thumbnail: thumbnail.value.data,
-    thumbnailWidth: thumbnail.value.info.width,
-    thumbnailHeight: thumbnail.value.info.height,
+    preview: preview.data,
+    previewWidth: preview.info.width,
+    previewHeight: preview.info.height,
+    thumbnail: thumbnail.data,
+    thumbnailWidth: thumbnail.info.width,
+    thumbnailHeight: thumbnail.info.height,
   };
 }
 
@@ -169,15 +178,28 @@ function settleFormat(sniffed: AcceptedPhotoFormat | null, header: Metadata): Ac
 }
 
 /**
- * Decodes the whole original (so damage anywhere fails), turns it upright, fits it inside a square
- * of `longEdge` without enlarging, and writes WebP. sharp writes no metadata unless asked: no
- * Exif, GPS, XMP or ICC; colours are converted to sRGB from any embedded profile first.
+ * The one full decode of the original (so damage anywhere fails): turned upright and fitted inside
+ * the preview square without enlarging. Conversion to sRGB is left to `encodeWebp`, where it
+ * touches 5 MP instead of 12 (at 12 MP the ICC transform costs about as much CPU as the decode
+ * itself); the embedded profile travels with the pixels in an uncompressed TIFF, since raw pixels
+ * cannot carry one.
  */
-function renderDerivative(input: Buffer, longEdge: number, webp: WebpOptions) {
+function decodeUpright(input: Buffer): Promise<Buffer> {
   return sharp(input, { ...DECODE_OPTIONS, autoOrient: true })
-    .resize({ width: longEdge, height: longEdge, fit: "inside", withoutEnlargement: true })
-    .webp(webp)
-    .toBuffer({ resolveWithObject: true });
+    .resize({ width: PREVIEW_LONG_EDGE, height: PREVIEW_LONG_EDGE, fit: "inside", withoutEnlargement: true })
+    .keepIccProfile()
+    .tiff({ compression: "none" })
+    .toBuffer();
+}
+
+/**
+ * WebP from the upright intermediate, optionally shrunk to fit `longEdge`. sharp converts to sRGB
+ * through any embedded profile and, unless asked, writes no metadata: no Exif, GPS, XMP or ICC.
+ */
+function encodeWebp(upright: Buffer, longEdge: number | null, webp: WebpOptions) {
+  const image = sharp(upright);
+  if (longEdge !== null) image.resize({ width: longEdge, height: longEdge, fit: "inside", withoutEnlargement: true });
+  return image.webp(webp).toBuffer({ resolveWithObject: true });
 }
 
 // ---- Exif DateTimeOriginal ---------------------------------------------------------------------

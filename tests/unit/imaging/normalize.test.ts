@@ -192,6 +192,13 @@ describe("rejections", () => {
     await expectRejected(noise, "unsupported_format");
   });
 
+  it("an animated WebP → unsupported_format (a photo is one still frame)", async () => {
+    const frame = (colour: string) => sharp({ create: { width: 32, height: 32, channels: 3, background: colour } }).png().toBuffer();
+    const animated = await sharp([await frame("#d22"), await frame("#2d2")], { join: { animated: true } }).webp().toBuffer();
+    expect((await sharp(animated).metadata()).pages).toBe(2);
+    expect(await expectRejected(animated, "unsupported_format")).toContain("animated");
+  });
+
   it.skipIf(canDecodeHeic())("HEIC → unsupported_format with 'convert it to JPEG'", async () => {
     for (const heic of [makeFtypFile("heic", ["mif1", "heic"]), makeFtypFile("mif1", ["mif1", "heix"])]) {
       const message = await expectRejected(heic, "unsupported_format");
@@ -275,6 +282,25 @@ describe("derivatives", () => {
       // Byte-level check of the WebP RIFF container: no EXIF, ICCP or XMP chunk.
       const text = output.toString("latin1");
       for (const chunk of ["EXIF", "ICCP", "XMP "]) expect(text.includes(chunk)).toBe(false);
+    }
+  });
+
+  it("colours are converted to sRGB through the embedded profile (P3, CMYK), then the profile is dropped", async () => {
+    const patch = () => sharp({ create: { width: 64, height: 64, channels: 3, background: { r: 220, g: 40, b: 30 } } });
+    const p3 = await patch().withMetadata({ icc: "p3" }).png().toBuffer();
+    const cmyk = await patch().toColourspace("cmyk").jpeg({ quality: 100 }).toBuffer();
+    expect((await sharp(p3).metadata()).icc).toBeDefined();
+    expect((await sharp(cmyk).metadata()).space).toBe("cmyk");
+    for (const input of [p3, cmyk]) {
+      // Reference: libvips/lcms's own colour-managed decode of the same file, straight to sRGB.
+      const reference = await sharp(input).raw().toBuffer();
+      const ignoringProfile = await sharp(input, { ignoreIcc: true }).removeAlpha().raw().toBuffer();
+      const photo = await normalizePhoto(input);
+      const seen = await sharp(photo.preview).removeAlpha().raw().toBuffer();
+      const centre = (32 * 64 + 32) * 3;
+      for (let k = 0; k < 3; k++) expect(Math.abs(seen[centre + k] - reference[centre + k])).toBeLessThanOrEqual(4);
+      if (input === p3) expect(Math.abs(ignoringProfile[centre] - reference[centre])).toBeGreaterThan(8); // the check can fail
+      expect((await sharp(photo.preview).metadata()).hasProfile).toBe(false);
     }
   });
 
