@@ -60,7 +60,7 @@ export async function resendInvitation(actor: SessionUser, userId: string) {
  * open sessions end on their next request. A workspace always keeps one active lead.
  */
 export async function updatePerson(actor: SessionUser, userId: string, input: UpdatePersonInput) {
-  return db().transaction(async (tx) => {
+  await db().transaction(async (tx) => {
     const [user] = await tx
       .select()
       .from(users)
@@ -89,6 +89,6 @@ export async function updatePerson(actor: SessionUser, userId: string, input: Up
       })
       .where(and(eq(users.workspaceId, actor.workspaceId), eq(users.id, userId)));
     await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.id, action: "user.updated", subjectType: "user", subjectId: userId, detail: { ...input } });
-    return (await tx.select({ id: users.id }).from(users).where(eq(users.id, userId)))[0]!.id;
-  }).then((id) => getPerson({ workspaceId: actor.workspaceId, userId: id }));
+  });
+  return getPerson({ workspaceId: actor.workspaceId, userId });
 }
