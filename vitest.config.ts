@@ -24,6 +24,8 @@ export default defineConfig({
           // One database for the whole run; files run one after another so fixtures never race.
           fileParallelism: false,
           testTimeout: 60_000,
+          // The queue test runs 50 concurrent claimers against PostgreSQL.
+          env: { DATABASE_POOL_MAX: "60" },
           hookTimeout: 120_000,
         },
       },

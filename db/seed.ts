@@ -4,7 +4,11 @@
  */
 import { sql } from "drizzle-orm";
 import { closeDb, db } from "./client";
+import { seedLots } from "./seed/lots";
+import { seedPartTypes } from "./seed/part-types";
 import { seedPeople } from "./seed/people";
+import { seedPhotos } from "./seed/photos";
+import { seedRubrics } from "./seed/rubrics";
 
 export async function isDatabaseEmpty(): Promise<boolean> {
   const { rows } = await db().execute<{ n: number }>(sql`SELECT count(*)::int AS n FROM workspaces`);
@@ -14,7 +18,14 @@ export async function isDatabaseEmpty(): Promise<boolean> {
 export async function seedDemo() {
   if (!(await isDatabaseEmpty())) return { seeded: false as const };
   const people = await seedPeople(db());
-  return { seeded: true as const, people };
+  // Part types for both workspaces, then the Vellmoor lots with their units and checklist results.
+  const partTypes = await seedPartTypes(db(), people);
+  const lots = await seedLots(db(), people);
+  // Must run after the part types are seeded (it publishes example rubrics for the seeded ones).
+  const rubrics = await seedRubrics(db());
+  // Last: photographs the units the steps above created, through the upload pipeline.
+  const photos = await seedPhotos();
+  return { seeded: true as const, people, partTypes, lots, rubrics, photos };
 }
 
 if (import.meta.url === `file://${process.argv[1]}`) {

@@ -50,6 +50,35 @@ function printWelcome(url: string) {
   console.log(lines.join("\n"));
 }
 
+/**
+ * The photo worker (lib/jobs/worker.ts). MALLOC_ARENA_MAX=2 lets sharp use every core and keeps its
+ * memory low (bench/normalize.ts). A crash restarts it (jobs in hand are retried by pg-boss);
+ * five crashes within ten minutes stop Partproof with a clear message instead of looping.
+ */
+function startWorker(env: Record<string, string>, children: ReturnType<typeof start>[], isStopping: () => boolean, shutdown: (code: number) => Promise<void>) {
+  const crashes: number[] = [];
+  const launch = () => {
+    const [node, args] = tsxArgs("lib/jobs/worker.ts");
+    const worker = start(node, args, { env: { ...env, MALLOC_ARENA_MAX: "2" }, label: "worker" });
+    children.push(worker);
+    worker.on("exit", (code, signal) => {
+      children.splice(children.indexOf(worker), 1);
+      if (isStopping()) return;
+      const now = Date.now();
+      crashes.push(now);
+      while (crashes.length && crashes[0] < now - 600_000) crashes.shift();
+      if (crashes.length >= 5) {
+        console.error(`The photo worker keeps stopping (last: ${signal ?? `exit ${code}`}); see its messages above.`);
+        void shutdown(1);
+        return;
+      }
+      console.error(`The photo worker stopped (${signal ?? `exit ${code}`}); restarting it.`);
+      setTimeout(() => !isStopping() && launch(), 2_000);
+    });
+  };
+  launch();
+}
+
 async function main() {
   // A developer's .env overrides the defaults (see .env.example).
   if (fs.existsSync(".env")) process.loadEnvFile(".env");
@@ -97,6 +126,8 @@ async function main() {
     await shutdown(1);
     return;
   }
+
+  startWorker(env, children, () => stopping, shutdown);
 
   const nextArgs = ["node_modules/next/dist/bin/next", dev ? "dev" : "start", "-H", "127.0.0.1", "-p", String(settings.app.port)];
   const app = start(process.execPath, nextArgs, { env, label: "next" });

@@ -1,2 +1,5 @@
 export * from "./core";
 export * from "./lots";
+export * from "./photos";
+export * from "./regions";
+export * from "./grading";

@@ -26,7 +26,17 @@ export type StoredSamplingPlan = {
   hundredPercent: boolean;
   byDefectSeverity: Record<DefectSeverity, { aql: number | null; codeLetter: string; planLetter: string; sampleSize: number; accept: number; reject: number }>;
   switchingReason: string;
+  /** The switching counters when the lot was created ("Normal: 1 of the last 3 lots not accepted …"). */
+  switchingProgress?: string;
 };
+
+/** Per defect severity: what was found when the lead decided the lot (feeds the switching rules). */
+export type LotDecisionCounts = Record<DefectSeverity, { found: number; inspected: number; sampleSize: number }>;
+
+/** How the lot's sampled units were made: drawn from a serial list (reproducible) or numbered placeholders. */
+export type SampleDraw =
+  | { source: "serials"; poolSize: number; poolSha256: string; seed: string; algorithm: string; drawnAt: string; drawnBy: string }
+  | { source: "placeholders"; drawnAt: string; drawnBy: string };
 
 export const partTypes = pgTable(
   "part_types",
@@ -53,7 +63,10 @@ export const partTypes = pgTable(
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [uniqueIndex("part_types_workspace_slug_key").on(t.workspaceId, t.slug)],
+  (t) => [
+    uniqueIndex("part_types_workspace_slug_key").on(t.workspaceId, t.slug),
+    uniqueIndex("part_types_workspace_name_key").on(t.workspaceId, sql`lower(${t.name})`),
+  ],
 );
 
 export const lots = pgTable(
@@ -83,10 +96,13 @@ export const lots = pgTable(
     plan: jsonb().$type<StoredSamplingPlan>().notNull(),
     /** Seed of the random draw of sampled serials, so the draw can be reproduced. */
     sampleSeed: text(),
+    /** Where the units came from (set once, when they are created). */
+    sampleDraw: jsonb().$type<SampleDraw>(),
     status: text({ enum: ["open", "decided"] }).notNull().default("open"),
     verdict: text({ enum: ["accept", "reject"] }),
     disposition: text({ enum: ["to_stock", "downgrade", "sort", "return_to_vendor"] }),
     dispositionReason: text(),
+    decisionCounts: jsonb().$type<LotDecisionCounts>(),
     decidedBy: uuid().references(() => users.id),
     decidedAt: timestamp({ withTimezone: true }),
     createdBy: uuid()
@@ -119,6 +135,8 @@ export const units = pgTable(
     sampleIndex: integer().notNull(),
     /** Null for a numbered placeholder until the inspector scans or types the serial. */
     serial: text(),
+    /** True when the unit began as a numbered placeholder (its serial stays editable on the bench). */
+    placeholder: boolean().notNull().default(false),
     status: text({ enum: UNIT_STATUSES }).notNull().default("queued"),
     // Copied from the lot so the queue can be ordered and filtered from one index (keyset pages).
     partTypeId: uuid()
@@ -143,7 +161,42 @@ export const units = pgTable(
     uniqueIndex("units_lot_serial_key").on(t.lotId, t.serial).where(sql`${t.serial} IS NOT NULL`),
     index("units_queue_idx").on(t.workspaceId, t.status, t.lotDueOn, t.lotReceivedOn, t.lotCreatedAt, t.lotId, t.sampleIndex, t.id),
     index("units_lot_idx").on(t.lotId, t.sampleIndex),
+    // The queue list walks waiting and on-bench units in Take next order (keyset pages).
+    index("units_open_queue_idx")
+      .on(t.workspaceId, t.lotDueOn, t.lotReceivedOn, t.lotCreatedAt, t.lotId, t.sampleIndex, t.id)
+      .where(sql`${t.status} IN ('queued', 'on_bench')`),
+    // Take next finds expired leases without walking every running one.
+    index("units_lease_expiry_idx").on(t.workspaceId, t.leaseExpiresAt).where(sql`${t.status} = 'on_bench'`),
   ],
+);
+
+/**
+ * The lead's say on the switching rules for one supplier + part type: whether reduced inspection
+ * may be used, whether production counts as steady, and corrective actions that resume a
+ * discontinued inspection (after the listed lots).
+ */
+export const inspectionSchemes = pgTable(
+  "inspection_schemes",
+  {
+    id: uuid().primaryKey().defaultRandom(),
+    workspaceId: uuid()
+      .notNull()
+      .references(() => workspaces.id),
+    supplierId: uuid()
+      .notNull()
+      .references(() => suppliers.id),
+    partTypeId: uuid()
+      .notNull()
+      .references(() => partTypes.id),
+    reducedAllowed: boolean().notNull().default(false),
+    steadyProduction: boolean().notNull().default(true),
+    resumedAfterLotIds: jsonb().$type<string[]>().notNull().default([]),
+    updatedBy: uuid()
+      .notNull()
+      .references(() => users.id),
+    updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex("inspection_schemes_key").on(t.workspaceId, t.supplierId, t.partTypeId)],
 );
 
 /** The latest result of each checklist item on a unit (history is in the activity log). */
@@ -180,3 +233,4 @@ export type NewLot = typeof lots.$inferInsert;
 export type Unit = typeof units.$inferSelect;
 export type NewUnit = typeof units.$inferInsert;
 export type ChecklistResult = typeof checklistResults.$inferSelect;
+export type InspectionScheme = typeof inspectionSchemes.$inferSelect;

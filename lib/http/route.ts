@@ -30,7 +30,7 @@ export function handler<C>(fn: (req: Request, ctx: C) => Promise<Response>) {
 const DEFAULT_MAX_BODY = 1024 * 1024;
 
 /** Reads and validates a JSON body (size-limited; wrong content is a 400 with a readable message). */
-export async function parseJson<S extends z.ZodType>(req: Request, schema: S, { maxBytes = DEFAULT_MAX_BODY } = {}): Promise<z.infer<S>> {
+export async function parseJson<S extends z.ZodType>(req: Request, schema: S, { maxBytes = DEFAULT_MAX_BODY, allowEmpty = false } = {}): Promise<z.infer<S>> {
   const declared = Number(req.headers.get("content-length") ?? "0");
   if (declared > maxBytes) throw new AppError("payload_too_large", `The request is too large (limit ${Math.round(maxBytes / 1024)} KB).`);
   const text = await req.text();
@@ -41,7 +41,10 @@ export async function parseJson<S extends z.ZodType>(req: Request, schema: S, { 
   } catch {
     throw new AppError("bad_request", "The request body is not valid JSON.");
   }
-  if (value === undefined) throw new AppError("bad_request", "The request has no body; send JSON.");
+  if (value === undefined) {
+    if (allowEmpty) return parseWith(schema, {});
+    throw new AppError("bad_request", "The request has no body; send JSON.");
+  }
   return parseWith(schema, value);
 }
 

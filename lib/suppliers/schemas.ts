@@ -4,7 +4,7 @@ import { emailSchema } from "@/lib/auth/schemas";
 export const supplierSchema = z
   .object({
     name: z.string({ error: "Enter the supplier's name." }).trim().min(2, "Enter the supplier's name.").max(120, "Keep the name under 120 characters."),
-    contactName: z.string().trim().max(120, "Keep the contact name under 120 characters.").optional().transform((v) => v || null),
+    contactName: z.string().trim().max(120, "Keep the contact name under 120 characters.").nullish().transform((v) => v || null),
     contactEmail: emailSchema,
     notes: z.string().max(2000, "Keep notes under 2 000 characters.").optional().default(""),
   })

@@ -4,10 +4,10 @@ import { navLabels, signInAs } from "./support";
 // What each demo role should see in the navigation (leads see every screen; Outbox while the
 // local inbox is the mail transport, as in the test run).
 const EXPECTED: Record<string, string[]> = {
-  "inspector@vellmoor.example": ["Queue", "Lots", "Gallery", "Calibration"],
-  "trainer@vellmoor.example": ["Gallery", "Calibration", "Rubrics"],
-  "auditor@vellmoor.example": ["Lots", "Gallery", "Recheck", "Rubrics", "Suppliers", "Reports"],
-  "lead@vellmoor.example": ["Queue", "Lots", "Gallery", "Calibration", "Recheck", "Rubrics", "Suppliers", "Reports", "People", "Outbox"],
+  "inspector@vellmoor.example": ["Queue", "Lots", "Gallery", "Calibration", "Part types"],
+  "trainer@vellmoor.example": ["Gallery", "Calibration", "Rubrics", "Part types"],
+  "auditor@vellmoor.example": ["Lots", "Gallery", "Recheck", "Rubrics", "Suppliers", "Part types", "Reports"],
+  "lead@vellmoor.example": ["Queue", "Lots", "Gallery", "Calibration", "Recheck", "Rubrics", "Suppliers", "Part types", "Reports", "People", "Outbox"],
 };
 
 for (const [email, screens] of Object.entries(EXPECTED)) {

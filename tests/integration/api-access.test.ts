@@ -4,6 +4,10 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { ROLES, type Role } from "@/lib/auth/roles";
 import { api, signIn, type Session } from "../support/http";
 import { createUser, TEST_PASSWORD, uniqueEmail, workspaceBySlug } from "../support/db";
+import { gradingFixtureIds } from "../support/grading-access";
+import { lotFixtureIds } from "../support/lot-access";
+import { photoFixtureIds } from "../support/photo-access";
+import { queueFixtureIds } from "../support/queue-access";
 import { NOT_IN_TABLE, ROUTES, type RouteAccess } from "./routes";
 
 /** Every route.ts under app/api with the HTTP methods it exports, as "/api/x/[id]" paths. */
@@ -27,7 +31,8 @@ function discoverRoutes(): { path: string; method: string }[] {
   return found;
 }
 
-const asTemplate = (p: string) => p.replace(/:[a-zA-Z]+/g, "[id]");
+// A query string is not part of the route (GET /api/inspection-schemes?supplierId=…).
+const asTemplate = (p: string) => p.split("?")[0].replace(/:[a-zA-Z]+/g, "[id]");
 
 type Ids = Record<string, string>;
 let own: Ids;
@@ -48,7 +53,7 @@ async function fixtureIds(lead: Session): Promise<Ids> {
   const emails = await api<{ emails: { id: string }[] }>(lead, "GET", "/api/outbox");
   const people = await api<{ people: { id: string; roles: string[] }[] }>(lead, "GET", "/api/people");
   const someone = people.body.people.find((p) => !p.roles.includes("lead"))!;
-  return { invitedPersonId: invited.body.person.id, personId: someone.id, supplierId: supplier.body.supplier.id, emailId: emails.body.emails[0].id };
+  return { invitedPersonId: invited.body.person.id, personId: someone.id, supplierId: supplier.body.supplier.id, emailId: emails.body.emails[0].id, ...(await gradingFixtureIds(lead)), ...(await queueFixtureIds(lead)), ...(await photoFixtureIds(lead)), ...(await lotFixtureIds(lead, supplier.body.supplier.id)) };
 }
 
 beforeAll(async () => {
@@ -75,12 +80,12 @@ describe("the route table", () => {
 });
 
 describe.each(ROUTES.map((r) => [`${r.method} ${r.path}`, r] as const))("%s", (_name, route) => {
-  const body = () => route.body?.();
+  const body = () => route.body?.(own);
 
   if (route.access === "public") {
     it(`answers anyone (${route.allowedStatus})`, async () => {
       const res = await api(null, route.method, fill(route, own ?? {}), body());
-      expect(res.status).toBe(route.allowedStatus);
+      expect([route.allowedStatus].flat()).toContain(res.status);
     });
     return;
   }
@@ -107,7 +112,7 @@ describe.each(ROUTES.map((r) => [`${r.method} ${r.path}`, r] as const))("%s", (_
   for (const role of allowed) {
     it(`${route.allowedStatus} for ${role}`, async () => {
       const res = await api(sessions[role], route.method, fill(route, own), body());
-      expect(res.status, JSON.stringify(res.body)).toBe(route.allowedStatus);
+      expect([route.allowedStatus].flat(), JSON.stringify(res.body)).toContain(res.status);
     });
   }
 

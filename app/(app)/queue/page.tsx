@@ -1,5 +1,8 @@
 import type { Metadata } from "next";
-import { PlannedScreen } from "@/components/shell/planned-screen";
+import { asc, and, eq } from "drizzle-orm";
+import { db } from "@/db/client";
+import { lots, partTypes, suppliers } from "@/db/schema";
+import { QueueBoard } from "@/components/queue/queue-board";
 import { requirePageUser } from "@/lib/auth/require-user";
 import { screenByHref } from "@/lib/nav";
 
@@ -7,15 +10,24 @@ const screen = screenByHref("/queue")!;
 export const metadata: Metadata = { title: screen.label };
 
 export default async function QueuePage() {
-  await requirePageUser({ role: screen.roles, from: screen.href });
+  const user = await requirePageUser({ role: screen.roles, from: screen.href });
+  const ws = user.workspaceId;
+  const [pts, sups, openLots] = await Promise.all([
+    db().select({ id: partTypes.id, name: partTypes.name }).from(partTypes).where(eq(partTypes.workspaceId, ws)).orderBy(asc(partTypes.name)),
+    db().select({ id: suppliers.id, name: suppliers.name }).from(suppliers).where(eq(suppliers.workspaceId, ws)).orderBy(asc(suppliers.name)),
+    db()
+      .select({ id: lots.id, purchaseRef: lots.purchaseRef, dueOn: lots.dueOn })
+      .from(lots)
+      .where(and(eq(lots.workspaceId, ws), eq(lots.status, "open")))
+      .orderBy(asc(lots.dueOn)),
+  ]);
   return (
-    <PlannedScreen
-      screen={screen}
-      coming={[
-        "Press Take next to get the most urgent waiting unit, leased to you so nobody else takes it.",
-        "Filter by part type, supplier or lot; see who has which unit on the bench.",
-        "Queue depth, units graded today and minutes per unit by part type.",
-        ]}
-    />
+    <div className="max-w-6xl space-y-4">
+      <div>
+        <h1 className="page-title">Queue</h1>
+        <p className="text-gauge-700">Take next gives you the most urgent waiting unit (earliest due lot first) and reserves it for you while its Bench is open.</p>
+      </div>
+      <QueueBoard options={{ partTypes: pts, suppliers: sups, lots: openLots.map((l) => ({ id: l.id, label: `${l.purchaseRef} (due ${l.dueOn})` })) }} />
+    </div>
   );
 }

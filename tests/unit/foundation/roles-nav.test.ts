@@ -20,12 +20,12 @@ describe("hasAnyRole", () => {
 describe("screensFor", () => {
   const labels = (roles: Parameters<typeof screensFor>[0], outbox = false) => screensFor(roles, { outbox }).map((s) => s.label);
   it("shows each role only its screens", () => {
-    expect(labels(["inspector"])).toEqual(["Queue", "Lots", "Gallery", "Calibration"]);
-    expect(labels(["trainer"])).toEqual(["Gallery", "Calibration", "Rubrics"]);
-    expect(labels(["auditor"])).toEqual(["Lots", "Gallery", "Recheck", "Rubrics", "Suppliers", "Reports"]);
+    expect(labels(["inspector"])).toEqual(["Queue", "Lots", "Gallery", "Calibration", "Part types"]);
+    expect(labels(["trainer"])).toEqual(["Gallery", "Calibration", "Rubrics", "Part types"]);
+    expect(labels(["auditor"])).toEqual(["Lots", "Gallery", "Recheck", "Rubrics", "Suppliers", "Part types", "Reports"]);
   });
   it("gives several roles the union, in navigation order", () => {
-    expect(labels(["trainer", "auditor"])).toEqual(["Lots", "Gallery", "Calibration", "Recheck", "Rubrics", "Suppliers", "Reports"]);
+    expect(labels(["trainer", "auditor"])).toEqual(["Lots", "Gallery", "Calibration", "Recheck", "Rubrics", "Suppliers", "Part types", "Reports"]);
   });
   it("shows the Outbox only to leads and only while the local inbox is in use", () => {
     expect(labels(["lead"], true)).toContain("Outbox");

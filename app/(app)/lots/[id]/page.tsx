@@ -1,0 +1,134 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { InspectionSeverityBadge, VerdictBadge } from "@/components/lots/badges";
+import { DispositionForm } from "@/components/lots/disposition-form";
+import { LotUnitsList } from "@/components/lots/lot-units-list";
+import { CountingNote, PlanTable } from "@/components/lots/plan-table";
+import { SwitchingBox } from "@/components/lots/switching-box";
+import { UnitImport } from "@/components/lots/unit-import";
+import { BatteryCaution, StaticCaution } from "@/components/ui/cautions";
+import { getLot } from "@/db/queries/lots";
+import { listLotUnits } from "@/db/queries/units";
+import { requirePageUser } from "@/lib/auth/require-user";
+import { hasAnyRole } from "@/lib/auth/roles";
+import { AppError } from "@/lib/errors";
+import { oneLotProgress } from "@/lib/lots/progress";
+import { switchingStateFor } from "@/lib/lots/scheme";
+import { DISPOSITION_LABELS } from "@/lib/lots/schemas";
+import { screenByHref } from "@/lib/nav";
+import { STATIC_SENSITIVE, type PartCategory } from "@/lib/part-types/schemas";
+import { parseId } from "@/lib/validation";
+
+export const metadata: Metadata = { title: "Lot" };
+
+export default async function LotPage(props: PageProps<"/lots/[id]">) {
+  const { id: rawId } = await props.params;
+  const user = await requirePageUser({ role: screenByHref("/lots")!.roles, from: `/lots/${rawId}` });
+  let id: string;
+  try {
+    id = parseId(rawId, "That lot");
+  } catch (err) {
+    if (err instanceof AppError) notFound();
+    throw err;
+  }
+  const row = await getLot({ workspaceId: user.workspaceId, lotId: id });
+  if (!row) notFound();
+  const { lot } = row;
+  const [progress, lotUnits, next] = await Promise.all([
+    oneLotProgress(user.workspaceId, { id, plan: lot.plan, checklistItemIds: row.checklistItemIds }),
+    listLotUnits({ workspaceId: user.workspaceId, lotId: id }),
+    switchingStateFor({ workspaceId: user.workspaceId, supplierId: lot.supplierId, partTypeId: lot.partTypeId }),
+  ]);
+  const { verdict } = progress;
+  const isLead = hasAnyRole(user.roles, "lead");
+  const shownVerdict = lot.status === "decided" && lot.verdict ? lot.verdict : verdict.verdict;
+  const percent = Math.round((100 * verdict.unitsInspected) / Math.max(1, lot.plan.sampleSize));
+
+  return (
+    <div className="max-w-6xl space-y-6">
+      <Link href="/lots" className="text-sm text-gauge-600 underline">
+        ← Lots
+      </Link>
+      <div className="flex flex-wrap items-start justify-between gap-3">
+        <div>
+          <h1 className="page-title">Lot {lot.purchaseRef}</h1>
+          <p className="text-gauge-700">
+            {row.supplierName} · {row.partTypeName}
+            {lot.modelFamily ? ` (${lot.modelFamily})` : ""} · {lot.quantity.toLocaleString("en-GB")} units · received {lot.receivedOn} · due {lot.dueOn}
+          </p>
+        </div>
+        <div className="flex items-center gap-2">
+          <InspectionSeverityBadge severity={lot.inspectionSeverity} />
+          <VerdictBadge verdict={shownVerdict} testId="lot-verdict" />
+          <span className="text-sm text-gauge-600">{lot.status === "decided" ? "decided" : "open"}</span>
+        </div>
+      </div>
+      {row.partTypeCategory === "battery" && <BatteryCaution />}
+      {STATIC_SENSITIVE.includes(row.partTypeCategory as PartCategory) && <StaticCaution />}
+
+      <section className="card space-y-3 p-5" aria-labelledby="progress-title">
+        <h2 id="progress-title" className="text-lg font-semibold">
+          Progress: {verdict.unitsInspected} of {lot.plan.sampleSize} units inspected
+        </h2>
+        <div className="h-2 overflow-hidden rounded bg-gauge-100" role="progressbar" aria-valuemin={0} aria-valuemax={lot.plan.sampleSize} aria-valuenow={verdict.unitsInspected} aria-label="Units inspected">
+          <div className="h-full bg-gauge-600" style={{ width: `${percent}%` }} />
+        </div>
+        <p className="text-sm" data-testid="verdict-summary">
+          {lot.status === "decided" ? `Decided: ${lot.verdict}. ` : "Running verdict. "}
+          {verdict.summary}
+        </p>
+      </section>
+
+      <section className="card space-y-3 p-5" aria-labelledby="plan-title">
+        <div className="flex flex-wrap items-baseline justify-between gap-2">
+          <h2 id="plan-title" className="text-lg font-semibold">Sampling plan</h2>
+          <span className="text-xs text-gauge-600">Stored with the lot on {lot.createdAt.toISOString().slice(0, 10)} by {row.createdByName}</span>
+        </div>
+        <p className="text-sm" data-testid="plan-switching">
+          <strong className="font-medium">{lot.inspectionSeverity[0].toUpperCase() + lot.inspectionSeverity.slice(1)} inspection</strong>, level {lot.plan.level}. Why: {lot.plan.switchingReason}
+        </p>
+        <PlanTable plan={lot.plan} verdict={verdict} />
+        <CountingNote plan={lot.plan} />
+      </section>
+
+      <section className="card space-y-3 p-5" aria-labelledby="disposition-title">
+        <h2 id="disposition-title" className="text-lg font-semibold">Disposition</h2>
+        {lot.status === "decided" ? (
+          <p className="text-sm" data-testid="disposition">
+            <strong>{DISPOSITION_LABELS[lot.disposition!]}</strong> ({lot.verdict}) on {lot.decidedAt?.toISOString().slice(0, 10)}: {lot.dispositionReason}
+          </p>
+        ) : verdict.verdict === "pending" ? (
+          <p className="text-sm text-gauge-700">The lead records the disposition once the verdict is reached.</p>
+        ) : isLead ? (
+          <DispositionForm lotId={id} verdict={verdict.verdict} />
+        ) : (
+          <p className="text-sm text-gauge-700">Verdict reached ({verdict.verdict}); a QC lead records the disposition.</p>
+        )}
+      </section>
+
+      <section className="space-y-3" aria-labelledby="units-title">
+        <h2 id="units-title" className="text-lg font-semibold">Units</h2>
+        {lotUnits.length === 0 ? (
+          isLead && lot.status === "open" ? (
+            <UnitImport lotId={id} sampleSize={lot.plan.sampleSize} quantity={lot.quantity} />
+          ) : (
+            <p className="card p-4 text-sm text-gauge-700">No sampled units yet; a QC lead creates them from the serial list or as placeholders.</p>
+          )
+        ) : (
+          <>
+            <p className="text-xs text-gauge-600" data-testid="sample-draw">
+              {lot.sampleDraw?.source === "serials"
+                ? `Drawn at random from a list of ${lot.sampleDraw.poolSize} serials with seed ${lot.sampleDraw.seed} (${lot.sampleDraw.algorithm}); the same list and seed give the same sample.`
+                : "Numbered placeholders: inspectors scan each unit's serial on the bench."}
+            </p>
+            <LotUnitsList units={lotUnits} checklistLength={row.checklistItemIds.length} now={new Date()} />
+          </>
+        )}
+      </section>
+
+
+      <SwitchingBox supplierId={lot.supplierId} partTypeId={lot.partTypeId} view={next} canEdit={isLead} title={`Next lot of ${row.partTypeName} from ${row.supplierName}`} />
+    </div>
+  );
+}

@@ -1,0 +1,58 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { listPartTypes } from "@/db/queries/part-types";
+import { requirePageUser } from "@/lib/auth/require-user";
+import { hasAnyRole } from "@/lib/auth/roles";
+import { screenByHref } from "@/lib/nav";
+import { CATEGORY_LABELS, type PartCategory } from "@/lib/part-types/schemas";
+
+const screen = screenByHref("/part-types")!;
+export const metadata: Metadata = { title: screen.label };
+
+export default async function PartTypesPage() {
+  const user = await requirePageUser({ role: screen.roles, from: screen.href });
+  const partTypes = await listPartTypes({ workspaceId: user.workspaceId });
+  return (
+    <div className="max-w-5xl space-y-6">
+      <div className="flex flex-wrap items-end justify-between gap-3">
+        <div>
+          <h1 className="page-title">Part types</h1>
+          <p className="text-gauge-700">{screen.summary}</p>
+        </div>
+        {hasAnyRole(user.roles, "lead") && <Link href="/part-types/new" className="btn-primary">New part type</Link>}
+      </div>
+      <div className="card overflow-x-auto">
+        <table className="min-w-full text-sm" data-testid="part-type-table">
+          <thead className="bg-gauge-50 text-left text-xs uppercase tracking-wide text-gauge-600">
+            <tr>
+              <th scope="col" className="px-4 py-2">Part type</th>
+              <th scope="col" className="px-4 py-2">Category</th>
+              <th scope="col" className="px-4 py-2">Model family</th>
+              <th scope="col" className="px-4 py-2">Views</th>
+              <th scope="col" className="px-4 py-2">Checklist</th>
+              <th scope="col" className="px-4 py-2">Sampling</th>
+            </tr>
+          </thead>
+          <tbody className="divide-y divide-gauge-100">
+            {partTypes.map((p) => (
+              <tr key={p.id} className={p.active ? "" : "text-gauge-500"}>
+                <td className="px-4 py-2">
+                  <Link href={`/part-types/${p.id}`} className="font-medium text-gauge-700 underline">{p.name}</Link>
+                  {!p.active && " (retired)"}
+                </td>
+                <td className="px-4 py-2">{CATEGORY_LABELS[p.category as PartCategory] ?? p.category}</td>
+                <td className="px-4 py-2">{p.modelFamily || "—"}</td>
+                <td className="px-4 py-2">{p.views.map((v) => v.label).join(", ")}</td>
+                <td className="px-4 py-2 tabular-nums">{p.checklist.length} items</td>
+                <td className="whitespace-nowrap px-4 py-2">{p.inspectAll ? "100 %" : "ISO 2859-1"}</td>
+              </tr>
+            ))}
+            {partTypes.length === 0 && (
+              <tr><td colSpan={6} className="px-4 py-6 text-center text-gauge-600">No part types yet.</td></tr>
+            )}
+          </tbody>
+        </table>
+      </div>
+    </div>
+  );
+}

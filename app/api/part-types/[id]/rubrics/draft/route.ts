@@ -1,0 +1,19 @@
+import { requireUser } from "@/lib/auth/require-user";
+import { getDraftOrThrow, saveDraft } from "@/lib/grading/rubric-versions";
+import { updateDraftSchema } from "@/lib/grading/schemas";
+import { handler, parseJson } from "@/lib/http/route";
+import { parseId } from "@/lib/validation";
+
+export const GET = handler(async (_req, ctx: RouteContext<"/api/part-types/[id]/rubrics/draft">) => {
+  const user = await requireUser();
+  const partTypeId = parseId((await ctx.params).id, "That part type");
+  return Response.json({ draft: await getDraftOrThrow(user, partTypeId) });
+});
+
+/** Replaces the draft's rules; a rubric that does not validate is refused whole (400). */
+export const PATCH = handler(async (req, ctx: RouteContext<"/api/part-types/[id]/rubrics/draft">) => {
+  const user = await requireUser({ role: "trainer" });
+  const partTypeId = parseId((await ctx.params).id, "That part type");
+  const { rubric } = await parseJson(req, updateDraftSchema);
+  return Response.json(await saveDraft(user, partTypeId, rubric));
+});

@@ -1,0 +1,48 @@
+import { requireUser } from "@/lib/auth/require-user";
+import { DeadlineExceeded } from "@/lib/grading/grade-unit";
+import { MEASURE_INLINE_BUDGET_MS, measureQuerySchema, measureSchema } from "@/lib/grading/schemas";
+import { latestMeasurement, measureAndStore, requireUnit } from "@/lib/grading/unit-grading";
+import { handler, parseJson, parseQuery } from "@/lib/http/route";
+import { enqueueMeasureUnit, measureJobState } from "@/lib/jobs/measure-unit";
+import { parseId } from "@/lib/validation";
+
+/**
+ * Measures the unit under the latest published rubric. Answers 200 with the stored measurement
+ * when it finishes within the time budget; otherwise (or with `{ "mode": "queue" }`) queues a
+ * "measure-unit" job and answers 202 with its id — poll GET ?jobId=… for the result.
+ */
+export const POST = handler(async (req, ctx: RouteContext<"/api/units/[id]/measure">) => {
+  const user = await requireUser({ role: "inspector" });
+  const unitId = parseId((await ctx.params).id, "That unit");
+  await requireUnit(user, unitId);
+  const body = (await req.clone().text()).trim();
+  const { mode = "auto" } = body ? await parseJson(req, measureSchema) : {};
+  if (mode === "auto") {
+    try {
+      const measurement = await measureAndStore(user, unitId, { deadline: Date.now() + MEASURE_INLINE_BUDGET_MS });
+      return Response.json({ status: "measured", measurement });
+    } catch (err) {
+      if (!(err instanceof DeadlineExceeded)) throw err;
+    }
+  }
+  const { jobId } = await enqueueMeasureUnit({ workspaceId: user.workspaceId, unitId, requestedBy: user.id });
+  return Response.json(
+    {
+      status: "queued",
+      jobId,
+      message: jobId ? "Measuring in the background; the result appears here when it is ready." : "A measurement of this unit is already waiting in the queue.",
+    },
+    { status: 202 },
+  );
+});
+
+/** The latest measurement with its staleness; with ?jobId= also the state of a queued measurement. */
+export const GET = handler(async (req, ctx: RouteContext<"/api/units/[id]/measure">) => {
+  const user = await requireUser();
+  const unitId = parseId((await ctx.params).id, "That unit");
+  await requireUnit(user, unitId);
+  const { jobId } = parseQuery(req, measureQuerySchema);
+  const job = jobId ? await measureJobState(jobId) : null;
+  const ownJob = job && job.data.workspaceId === user.workspaceId && job.data.unitId === unitId ? { id: job.id, state: job.state } : null;
+  return Response.json({ measurement: await latestMeasurement(user, unitId), job: ownJob });
+});

@@ -1,0 +1,36 @@
+import { requireUser } from "@/lib/auth/require-user";
+import { handler, parseJson, parseQuery } from "@/lib/http/route";
+import { toPhotoDto } from "@/lib/photos/dto";
+import { finaliseUpload } from "@/lib/photos/finalise";
+import { answeringRejections } from "@/lib/photos/http";
+import { loadUnit } from "@/lib/photos/intents";
+import { listUnitPhotos } from "@/lib/photos/queries";
+import { finaliseQuerySchema, finaliseSchema } from "@/lib/photos/schemas";
+import { parseId } from "@/lib/validation";
+
+/** The unit's photos with their status (every role of the workspace may look at evidence). */
+export const GET = handler(async (_req, ctx: RouteContext<"/api/units/[id]/photos">) => {
+  const user = await requireUser();
+  const unit = await loadUnit(user, parseId((await ctx.params).id, "That unit"));
+  const photos = await listUnitPhotos({ workspaceId: user.workspaceId, unitId: unit.id });
+  return Response.json({ unit: { id: unit.id, status: unit.status, views: unit.partType.views }, photos: photos.map(toPhotoDto) });
+});
+
+/**
+ * Finalise an upload the browser has PUT to the store. 201 ready, 202 still processing, 200 the
+ * same photo (a repeated request, or the same bytes already on this unit), 4xx for refused files
+ * (nothing is kept), 503 when the store is unreachable (retry later with the same ticket).
+ */
+export const POST = handler(async (req, ctx: RouteContext<"/api/units/[id]/photos">) => {
+  const user = await requireUser({ role: "inspector" });
+  const unitId = parseId((await ctx.params).id, "That unit");
+  await loadUnit(user, unitId);
+  const query = parseQuery(req, finaliseQuerySchema);
+  const input = await parseJson(req, finaliseSchema);
+  return answeringRejections(async () => {
+    const outcome = await finaliseUpload(user, unitId, input, query.wait === "0" ? { waitMs: 0 } : {});
+    const photo = toPhotoDto(outcome.photo);
+    const status = outcome.kind !== "accepted" ? 200 : photo.status === "ready" ? 201 : 202;
+    return Response.json({ photo, outcome: outcome.kind }, { status });
+  });
+});

@@ -1,0 +1,26 @@
+import { getUnitDetail, listUnitResults } from "@/db/queries/units";
+import { requireUser } from "@/lib/auth/require-user";
+import { notFound } from "@/lib/errors";
+import { handler, parseJson } from "@/lib/http/route";
+import { screenByHref } from "@/lib/nav";
+import { unitUpdateSchema } from "@/lib/units/schemas";
+import { setUnitSerial } from "@/lib/units/units";
+import { parseId } from "@/lib/validation";
+
+/** The unit with its lot, part type checklist and recorded results (what the Bench shows). */
+export const GET = handler(async (_req, ctx: RouteContext<"/api/units/[id]">) => {
+  const user = await requireUser({ role: screenByHref("/lots")!.roles });
+  const id = parseId((await ctx.params).id, "That unit");
+  const detail = await getUnitDetail({ workspaceId: user.workspaceId, unitId: id });
+  if (!detail) throw notFound("That unit");
+  const results = await listUnitResults({ workspaceId: user.workspaceId, unitIds: [id] });
+  return Response.json({ ...detail, results });
+});
+
+/** Sets a placeholder unit's serial. */
+export const PATCH = handler(async (req, ctx: RouteContext<"/api/units/[id]">) => {
+  const user = await requireUser({ role: "inspector" });
+  const id = parseId((await ctx.params).id, "That unit");
+  const { serial } = await parseJson(req, unitUpdateSchema);
+  return Response.json({ unit: await setUnitSerial(user, id, serial) });
+});

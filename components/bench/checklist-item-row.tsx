@@ -1,0 +1,103 @@
+"use client";
+
+import { useState } from "react";
+import { DefectSeverityBadge } from "@/components/lots/badges";
+import type { ChecklistItem } from "@/db/schema/lots";
+import { describeLimits, evaluateChecklistItem, formatReading, type ChecklistValue } from "@/lib/checklist/evaluate";
+import type { UnitView } from "./use-unit";
+
+type Result = UnitView["results"][number];
+
+/** "3,85" and "3.85" both mean 3.85 (bench keyboards vary). */
+export function parseReading(text: string): number | null {
+  const cleaned = text.trim().replace(",", ".");
+  if (!/^-?\d+(\.\d+)?$/.test(cleaned)) return null;
+  return Number(cleaned);
+}
+
+function shownValue(item: ChecklistItem, value: ChecklistValue): string {
+  if ("pass" in value) return value.pass ? "Pass" : "Fail";
+  if ("reading" in value && item.kind === "numeric") return formatReading(value.reading, item.decimals, item.unit);
+  if ("choice" in value && item.kind === "choice") return item.options.find((o) => o.value === value.choice)?.label ?? value.choice;
+  return "";
+}
+
+/** One checklist item: its control, the live check against limits, and the recorded result. */
+export function ChecklistItemRow({ item, result, disabled, saving, onRecord }: { item: ChecklistItem; result?: Result; disabled: boolean; saving: boolean; onRecord: (value: ChecklistValue) => void }) {
+  const [text, setText] = useState(result && "reading" in result.value ? String(result.value.reading) : "");
+  const reading = item.kind === "numeric" ? parseReading(text) : null;
+  const hint = item.kind === "numeric" && reading !== null ? evaluateChecklistItem(item, { reading }) : null;
+  const inputId = `item-${item.id}`;
+
+  return (
+    <li className="space-y-2 py-3" data-testid={`checklist-item-${item.id}`}>
+      <div className="flex flex-wrap items-center gap-2">
+        <span className="font-medium" id={`${inputId}-label`}>{item.label}</span>
+        <span className="text-xs text-gauge-600">fails as</span>
+        <DefectSeverityBadge severity={item.severityOnFail} />
+        {item.kind === "numeric" && <span className="text-xs text-gauge-600">limits {describeLimits(item)}</span>}
+      </div>
+      {item.caution && (
+        <p role="note" className="rounded bg-signal-50 px-2 py-1 text-xs text-signal-700">
+          {item.caution}
+        </p>
+      )}
+      <div className="flex flex-wrap items-center gap-2">
+        {item.kind === "pass_fail" && (
+          <div role="group" aria-labelledby={`${inputId}-label`} className="flex gap-2">
+            {[true, false].map((pass) => {
+              const current = result && "pass" in result.value && result.value.pass === pass;
+              return (
+                <button key={String(pass)} type="button" aria-pressed={current} disabled={disabled || saving} onClick={() => onRecord({ pass })} className={current ? (pass ? "btn-primary" : "btn-danger") : "btn-secondary"}>
+                  {pass ? "Pass" : "Fail"}
+                </button>
+              );
+            })}
+          </div>
+        )}
+        {item.kind === "numeric" && (
+          <form
+            className="flex flex-wrap items-center gap-2"
+            onSubmit={(e) => {
+              e.preventDefault();
+              if (reading !== null) onRecord({ reading });
+            }}
+          >
+            <label htmlFor={inputId} className="sr-only">
+              {item.label} reading{item.unit ? ` (${item.unit})` : ""}
+            </label>
+            <input id={inputId} inputMode="decimal" className="field-input w-32 font-mono" value={text} disabled={disabled} onChange={(e) => setText(e.target.value)} aria-describedby={`${inputId}-hint`} />
+            <span className="text-sm text-gauge-700">{item.unit}</span>
+            <button type="submit" className="btn-secondary" disabled={disabled || saving || reading === null}>
+              Save reading
+            </button>
+            <span id={`${inputId}-hint`} className="text-xs text-gauge-600">
+              {text.trim() === "" ? "" : reading === null ? "Enter a number." : hint?.passed ? "Within limits." : `Will fail: ${hint?.failureReason}`}
+            </span>
+          </form>
+        )}
+        {item.kind === "choice" && (
+          <fieldset className="flex flex-wrap gap-3" disabled={disabled || saving}>
+            <legend className="sr-only">{item.label}</legend>
+            {item.options.map((option) => (
+              <label key={option.value} className="flex items-center gap-1.5 text-sm">
+                <input type="radio" name={inputId} checked={Boolean(result && "choice" in result.value && result.value.choice === option.value)} onChange={() => onRecord({ choice: option.value })} />
+                {option.label}
+              </label>
+            ))}
+          </fieldset>
+        )}
+      </div>
+      {result && (
+        <p role="status" data-testid={`result-${item.id}`} className={`text-sm ${result.passed ? "text-ok-600" : "font-medium text-fault-700"}`}>
+          {result.passed
+            ? item.kind === "pass_fail" ? "Passed." : `Passed: ${shownValue(item, result.value)}.`
+            : `Failed automatically — ${result.failureReason} Adds a ${result.severityOnFail} functional defect.`}
+          <span className="ml-2 text-xs font-normal text-gauge-600">
+            {result.recordedByName}, {result.recordedAt.slice(11, 16)} UTC
+          </span>
+        </p>
+      )}
+    </li>
+  );
+}

@@ -1,0 +1,69 @@
+"use client";
+
+import { useMutation, useQueryClient } from "@tanstack/react-query";
+import { useState } from "react";
+import { BatteryCaution, StaticCaution } from "@/components/ui/cautions";
+import { FormMessage } from "@/components/ui/form-field";
+import type { ChecklistValue } from "@/lib/checklist/evaluate";
+import { apiFetch } from "@/lib/http/client";
+import { STATIC_SENSITIVE, type PartCategory } from "@/lib/part-types/schemas";
+import { ChecklistItemRow } from "./checklist-item-row";
+import { benchLock, unitQueryKey, useUnit, type UnitView } from "./use-unit";
+
+/** Items whose failure means a battery is unsafe to handle normally. */
+const BATTERY_HAZARD_ITEMS = ["swelling", "not-hot"];
+
+/**
+ * The functional checklist of one unit. Each result is judged on the server against the item's
+ * limits; a failed item becomes a functional defect of its severity (it counts toward the lot's
+ * verdict at once).
+ */
+export function ChecklistPanel({ initial, me }: { initial: UnitView; me: { id: string; isLead: boolean; canRecord: boolean } }) {
+  const { data: view } = useUnit(initial.unit.id, initial);
+  const queryClient = useQueryClient();
+  const [error, setError] = useState<string | null>(null);
+  const record = useMutation({
+    mutationFn: (input: { itemId: string; value: ChecklistValue }) => apiFetch(`/api/units/${view.unit.id}/checklist`, { body: input }),
+    onSuccess: () => {
+      setError(null);
+      void queryClient.invalidateQueries({ queryKey: unitQueryKey(view.unit.id) });
+    },
+    onError: (err) => setError(err.message),
+  });
+  const items = view.partType.checklist;
+  const byItem = new Map(view.results.map((r) => [r.itemId, r]));
+  const recorded = items.filter((i) => byItem.has(i.id)).length;
+  const failed = items.map((i) => byItem.get(i.id)).filter((r) => r && !r.passed);
+  const lock = benchLock(view, me) ?? (view.unit.serial === null ? "Scan or type the serial first." : null);
+  const battery = view.partType.category === "battery";
+  const hazard = battery && failed.some((r) => r && BATTERY_HAZARD_ITEMS.includes(r.itemId));
+
+  return (
+    <section className="card space-y-3 p-5" aria-labelledby="checklist-title" data-testid="checklist-panel">
+      <div className="flex flex-wrap items-baseline justify-between gap-2">
+        <h2 id="checklist-title" className="text-lg font-semibold">Functional checklist</h2>
+        <span className="text-sm text-gauge-700" data-testid="checklist-summary">
+          {recorded} of {items.length} recorded{failed.length ? ` · ${failed.length} failed` : ""}
+        </span>
+      </div>
+      {battery && <BatteryCaution />}
+      {STATIC_SENSITIVE.includes(view.partType.category as PartCategory) && <StaticCaution />}
+      {hazard && (
+        <div role="alert" className="rounded-md border-2 border-fault-600 bg-fault-50 p-3 text-sm font-medium text-fault-700" data-testid="battery-hazard">
+          Unsafe cell: swollen or hot. Stop testing, isolate it in a fire-safe container, do not charge or press it, and follow local rules for damaged lithium batteries.
+        </div>
+      )}
+      {error && <FormMessage kind="error">{error}</FormMessage>}
+      {lock && <p className="text-sm text-signal-700">{lock}</p>}
+      {items.length === 0 ? (
+        <p className="text-sm text-gauge-700">This part type has no checklist items.</p>
+      ) : (
+        <ol className="divide-y divide-gauge-100">
+          {items.map((item) => (
+            <ChecklistItemRow key={item.id} item={item} result={byItem.get(item.id)} disabled={lock !== null} saving={record.isPending} onRecord={(value) => record.mutate({ itemId: item.id, value })} />
+          ))}
+        </ol>
+      )}
+    </section>
+  );
+}

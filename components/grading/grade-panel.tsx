@@ -1,0 +1,179 @@
+"use client";
+
+import { zodResolver } from "@hookform/resolvers/zod";
+import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import { useState } from "react";
+import { useForm, useWatch, type Resolver } from "react-hook-form";
+import type { z } from "zod";
+import { FormMessage } from "@/components/ui/form-field";
+import { GRADES } from "@/lib/grading/rubric-schema";
+import { MAX_REASON_LENGTH, recordGradeSchema } from "@/lib/grading/schemas";
+import { ApiError, apiFetch } from "@/lib/http/client";
+import { GradeBadge } from "./grade-badge";
+import { GradeLines } from "./grade-lines";
+import { dateTime, type GradeView, type MeasurementView } from "./types";
+
+type MeasureState = { measurement: MeasurementView | null; job: { id: string; state: string } | null };
+type FormValues = z.input<typeof recordGradeSchema>;
+
+/** Inputs that are hidden or left empty are absent, not "" (an accept needs no final grade). */
+function cleaned(values: FormValues): FormValues {
+  const { finalGrade, reason, ...rest } = values as FormValues & { finalGrade?: string; reason?: string };
+  return { ...rest, ...(values.decision === "override" && finalGrade ? { finalGrade } : {}), ...(reason?.trim() ? { reason } : values.decision === "override" ? { reason: reason ?? "" } : {}) } as FormValues;
+}
+const schemaResolver = zodResolver(recordGradeSchema);
+const resolver: Resolver<FormValues> = (values, context, options) => schemaResolver(cleaned(values), context, options) as ReturnType<Resolver<FormValues>>;
+
+/** Measuring a unit and recording its grade: the proposal with its reasons, accept or override. */
+export function GradePanel({ unitId, canGrade, canCorrect }: { unitId: string; canGrade: boolean; canCorrect: boolean }) {
+  const queryClient = useQueryClient();
+  const [jobId, setJobId] = useState<string | null>(null);
+  const [message, setMessage] = useState<{ kind: "error" | "success"; text: string } | null>(null);
+  const state = useQuery({
+    queryKey: ["unit-measurement", unitId, jobId],
+    queryFn: () => apiFetch<MeasureState>(`/api/units/${unitId}/measure${jobId ? `?jobId=${jobId}` : ""}`),
+    // While a background measurement runs, look again every 2 s until the job is done.
+    refetchInterval: (query) => (jobId && !["completed", "failed", "cancelled"].includes(query.state.data?.job?.state ?? "") ? 2000 : false),
+  });
+  // Shares its cache with GradeHistory: a lead may correct only a unit that already has a grade.
+  const history = useQuery({ queryKey: ["unit-grades", unitId], queryFn: () => apiFetch<{ grades: GradeView[] }>(`/api/units/${unitId}/grades`) });
+  const hasGrade = (history.data?.grades.length ?? 0) > 0;
+  const refresh = () => {
+    void queryClient.invalidateQueries({ queryKey: ["unit-measurement", unitId] });
+    void queryClient.invalidateQueries({ queryKey: ["unit-grades", unitId] });
+    void queryClient.invalidateQueries({ queryKey: ["grade-preview", unitId] });
+  };
+  const measure = useMutation({
+    mutationFn: () => apiFetch<{ status: "measured" | "queued"; jobId?: string | null; message?: string }>(`/api/units/${unitId}/measure`, { method: "POST" }),
+    onSuccess: (res) => {
+      setMessage(res.status === "queued" ? { kind: "success", text: res.message ?? "Measuring in the background." } : null);
+      setJobId(res.status === "queued" ? (res.jobId ?? null) : null);
+      refresh();
+    },
+    onError: (err) => setMessage({ kind: "error", text: err.message }),
+  });
+
+  const { register, handleSubmit, control, reset, setError, formState } = useForm<FormValues>({ resolver, defaultValues: { decision: "accept" } });
+  const decision = useWatch({ control, name: "decision" });
+  const [correction, setCorrection] = useState(false);
+  const grade = useMutation({
+    mutationFn: (values: FormValues) =>
+      apiFetch<{ grade: GradeView }>(`/api/units/${unitId}/grades`, { body: { ...cleaned(values), measurementId: state.data?.measurement?.id, ...(correction ? { kind: "override" } : {}) } }),
+    onSuccess: (res) => {
+      setMessage({ kind: "success", text: `Grade ${res.grade.finalGrade} recorded.` });
+      reset({ decision: "accept" });
+      setCorrection(false);
+      refresh();
+    },
+    onError: (err) => {
+      if (err instanceof ApiError) for (const [field, text] of Object.entries(err.fieldErrors)) if (field === "reason" || field === "finalGrade") setError(field, { message: text });
+      setMessage({ kind: "error", text: err.message });
+    },
+  });
+
+  const m = state.data?.measurement ?? null;
+  const proposed = m?.proposal.grade;
+  const running = jobId !== null && !["completed", "failed", "cancelled"].includes(state.data?.job?.state ?? "");
+  const errors = formState.errors as { reason?: { message?: string }; finalGrade?: { message?: string } };
+
+  return (
+    <section className="card space-y-4 p-4 sm:p-5" aria-labelledby="grade-panel-title" data-testid="grade-panel">
+      <div className="flex flex-wrap items-center justify-between gap-3">
+        <h2 id="grade-panel-title" className="text-lg font-semibold">
+          Measurement and proposed grade
+        </h2>
+        {canGrade && (
+          <button type="button" className="btn-secondary" onClick={() => measure.mutate()} disabled={measure.isPending || running}>
+            {measure.isPending ? "Measuring…" : running ? "Measuring in the background…" : m ? "Measure again" : "Measure now"}
+          </button>
+        )}
+      </div>
+      {message && <FormMessage kind={message.kind}>{message.text}</FormMessage>}
+      {state.isPending && <p className="text-sm text-gauge-700">Loading the latest measurement…</p>}
+      {state.isError && <FormMessage kind="error">{state.error.message}</FormMessage>}
+      {state.isSuccess && !m && <p className="text-sm text-gauge-700">Not measured yet.</p>}
+      {m && (
+        <div className="space-y-3">
+          <div className="flex flex-wrap items-center gap-3">
+            <span className="text-sm">Proposed under rubric version {m.rubricVersion}:</span>
+            <GradeBadge grade={m.proposal.grade} size="lg" testId="proposed-grade" />
+            <span className="text-xs text-gauge-700">
+              measured {dateTime(m.createdAt)}
+              {m.createdByName ? ` by ${m.createdByName}` : ""}
+            </span>
+          </div>
+          {m.stale && (
+            <div role="alert" className="rounded-md border border-signal-500 bg-signal-50 px-3 py-2 text-sm text-signal-700" data-testid="measurement-stale">
+              <p className="font-medium">This measurement is out of date and cannot be graded. Measure again.</p>
+              <ul className="list-disc pl-5">
+                {m.reasons.map((r) => (
+                  <li key={r}>{r}</li>
+                ))}
+              </ul>
+            </div>
+          )}
+          <GradeLines lines={m.proposal.lines} notes={m.proposal.notes} testId="proposal-lines" />
+        </div>
+      )}
+      {m && !m.stale && canGrade && (
+        <form onSubmit={handleSubmit((values) => grade.mutate(values))} noValidate className="space-y-3 border-t border-gauge-100 pt-4" aria-label="Record the grade">
+          <fieldset className="flex flex-wrap gap-4">
+            <legend className="field-label">Decision</legend>
+            <label className="flex items-center gap-2 text-sm">
+              <input type="radio" value="accept" {...register("decision")} /> Accept {proposed}
+            </label>
+            <label className="flex items-center gap-2 text-sm">
+              <input type="radio" value="override" {...register("decision")} /> Override
+            </label>
+          </fieldset>
+          {decision === "override" && (
+            <div className="grid gap-3 sm:grid-cols-[10rem_minmax(0,1fr)]">
+              <div>
+                <label htmlFor="final-grade" className="field-label">
+                  Final grade
+                </label>
+                <select id="final-grade" className="field-input" aria-invalid={errors.finalGrade ? true : undefined} {...register("finalGrade")}>
+                  <option value="">Choose…</option>
+                  {GRADES.filter((g) => g !== proposed).map((g) => (
+                    <option key={g} value={g}>
+                      {g}
+                    </option>
+                  ))}
+                </select>
+                {errors.finalGrade?.message && <p className="field-error">{errors.finalGrade.message}</p>}
+              </div>
+              <div>
+                <label htmlFor="override-reason" className="field-label">
+                  Reason (required)
+                </label>
+                <textarea id="override-reason" rows={3} maxLength={MAX_REASON_LENGTH} className="field-input" aria-invalid={errors.reason ? true : undefined} aria-describedby={errors.reason ? "override-reason-error" : undefined} {...register("reason")} />
+                {errors.reason?.message && (
+                  <p id="override-reason-error" className="field-error" aria-live="polite">
+                    {errors.reason.message}
+                  </p>
+                )}
+              </div>
+            </div>
+          )}
+          {canCorrect && hasGrade && (
+            <label className="flex items-center gap-2 text-sm">
+              <input type="checkbox" checked={correction} onChange={(e) => setCorrection(e.target.checked)} /> Record as a lead&rsquo;s correction of the recorded grade (needs a reason)
+            </label>
+          )}
+          {correction && decision === "accept" && (
+            <div>
+              <label htmlFor="correction-reason" className="field-label">
+                Reason for the correction
+              </label>
+              <textarea id="correction-reason" rows={2} maxLength={MAX_REASON_LENGTH} className="field-input" {...register("reason")} />
+              {errors.reason?.message && <p className="field-error">{errors.reason.message}</p>}
+            </div>
+          )}
+          <button type="submit" className="btn-primary" disabled={grade.isPending}>
+            {grade.isPending ? "Recording…" : "Record grade"}
+          </button>
+        </form>
+      )}
+    </section>
+  );
+}

@@ -1,0 +1,1 @@
+CREATE UNIQUE INDEX "part_types_workspace_name_key" ON "part_types" USING btree ("workspace_id",lower("name"));

@@ -1,0 +1,2 @@
+CREATE INDEX "units_open_queue_idx" ON "units" USING btree ("workspace_id","lot_due_on","lot_received_on","lot_created_at","lot_id","sample_index","id") WHERE "units"."status" IN ('queued', 'on_bench');--> statement-breakpoint
+CREATE INDEX "units_lease_expiry_idx" ON "units" USING btree ("workspace_id","lease_expires_at") WHERE "units"."status" = 'on_bench';

@@ -1,0 +1,86 @@
+import "server-only";
+import { aliasedTable, and, asc, eq, inArray, sql } from "drizzle-orm";
+import { db, type DbOrTx } from "@/db/client";
+import { checklistResults, lots, partTypes, suppliers, units, users } from "@/db/schema";
+
+const holders = aliasedTable(users, "lease_holders");
+
+/** A lot's units in sample order, with how far each checklist got. */
+export function listLotUnits({ workspaceId, lotId }: { workspaceId: string; lotId: string }) {
+  return db()
+    .select({
+      id: units.id,
+      sampleIndex: units.sampleIndex,
+      serial: units.serial,
+      placeholder: units.placeholder,
+      status: units.status,
+      leaseHolderName: holders.name,
+      leaseExpiresAt: units.leaseExpiresAt,
+      recorded: sql<number>`(SELECT count(*)::int FROM ${checklistResults} WHERE ${checklistResults.unitId} = ${units.id})`,
+      failed: sql<number>`(SELECT count(*)::int FROM ${checklistResults} WHERE ${checklistResults.unitId} = ${units.id} AND NOT ${checklistResults.passed})`,
+      worstFailure: sql<"critical" | "major" | "minor" | null>`(SELECT ${checklistResults.severityOnFail} FROM ${checklistResults} WHERE ${checklistResults.unitId} = ${units.id} AND NOT ${checklistResults.passed} ORDER BY array_position(ARRAY['critical','major','minor'], ${checklistResults.severityOnFail}) LIMIT 1)`,
+    })
+    .from(units)
+    .leftJoin(holders, eq(holders.id, units.leaseHolderId))
+    .where(and(eq(units.workspaceId, workspaceId), eq(units.lotId, lotId)))
+    .orderBy(asc(units.sampleIndex));
+}
+
+export async function countLotUnits({ workspaceId, lotId }: { workspaceId: string; lotId: string }, tx: DbOrTx = db()) {
+  const [row] = await tx
+    .select({ n: sql<number>`count(*)::int` })
+    .from(units)
+    .where(and(eq(units.workspaceId, workspaceId), eq(units.lotId, lotId)));
+  return row?.n ?? 0;
+}
+
+/** One unit with what the bench needs of its lot and part type. */
+export async function getUnitDetail({ workspaceId, unitId }: { workspaceId: string; unitId: string }, tx: DbOrTx = db()) {
+  const [row] = await tx
+    .select({
+      unit: units,
+      leaseHolderName: holders.name,
+      lot: { id: lots.id, purchaseRef: lots.purchaseRef, status: lots.status, sampleSize: sql<number>`(${lots.plan}->>'sampleSize')::int`, quantity: lots.quantity },
+      supplierName: suppliers.name,
+      partType: { id: partTypes.id, name: partTypes.name, category: partTypes.category, checklist: partTypes.checklist },
+    })
+    .from(units)
+    .innerJoin(lots, eq(lots.id, units.lotId))
+    .innerJoin(suppliers, eq(suppliers.id, units.supplierId))
+    .innerJoin(partTypes, eq(partTypes.id, units.partTypeId))
+    .leftJoin(holders, eq(holders.id, units.leaseHolderId))
+    .where(and(eq(units.workspaceId, workspaceId), eq(units.id, unitId)))
+    .limit(1);
+  return row;
+}
+
+/** The unit row alone, locked for the rest of the transaction. */
+export async function lockUnit(tx: DbOrTx, { workspaceId, unitId }: { workspaceId: string; unitId: string }) {
+  const [row] = await tx
+    .select()
+    .from(units)
+    .where(and(eq(units.workspaceId, workspaceId), eq(units.id, unitId)))
+    .for("update");
+  return row;
+}
+
+export function listUnitResults({ workspaceId, unitIds }: { workspaceId: string; unitIds: string[] }, tx: DbOrTx = db()) {
+  if (unitIds.length === 0) return Promise.resolve([]);
+  return tx
+    .select({
+      id: checklistResults.id,
+      unitId: checklistResults.unitId,
+      itemId: checklistResults.itemId,
+      value: checklistResults.value,
+      passed: checklistResults.passed,
+      failureReason: checklistResults.failureReason,
+      severityOnFail: checklistResults.severityOnFail,
+      note: checklistResults.note,
+      recordedAt: checklistResults.recordedAt,
+      recordedByName: users.name,
+    })
+    .from(checklistResults)
+    .innerJoin(users, eq(users.id, checklistResults.recordedBy))
+    .where(and(eq(checklistResults.workspaceId, workspaceId), inArray(checklistResults.unitId, unitIds)))
+    .orderBy(asc(checklistResults.recordedAt));
+}

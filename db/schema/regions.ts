@@ -1,0 +1,73 @@
+import { sql } from "drizzle-orm";
+import { check, index, integer, jsonb, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import type { RulerMark } from "@/lib/geometry/ruler";
+import type { Shape } from "@/lib/geometry/shape";
+import { users, workspaces } from "./core";
+import { photos } from "./photos";
+
+/**
+ * The marked regions of one photo, saved as a whole by the Bench. `version` goes up by one on
+ * every save, and each region row keeps the version that wrote it; a measurement stores the
+ * versions it read, so a result computed from older regions is recognised as stale.
+ */
+export const regionSets = pgTable(
+  "region_sets",
+  {
+    photoId: uuid()
+      .primaryKey()
+      .references(() => photos.id),
+    workspaceId: uuid()
+      .notNull()
+      .references(() => workspaces.id),
+    version: integer().notNull().default(0),
+    updatedBy: uuid().references(() => users.id),
+    updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index("region_sets_workspace_idx").on(t.workspaceId), check("region_sets_version_nonnegative", sql`${t.version} >= 0`)],
+);
+
+export const REGION_ROLES = ["defect", "surface", "ruler"] as const;
+export type RegionRole = (typeof REGION_ROLES)[number];
+
+export const regions = pgTable(
+  "regions",
+  {
+    id: uuid().primaryKey().defaultRandom(),
+    workspaceId: uuid()
+      .notNull()
+      .references(() => workspaces.id),
+    photoId: uuid()
+      .notNull()
+      .references(() => regionSets.photoId),
+    /** The editor's own id of the region (lib/annotate), unique within the photo. */
+    clientId: text().notNull(),
+    role: text({ enum: REGION_ROLES }).notNull(),
+    /** Defect regions only: a defect class key of the part type. */
+    defectClass: text(),
+    /** Pixel coordinates of the upright original (lib/geometry/shape.ts); null for a ruler. */
+    shape: jsonb().$type<Shape>(),
+    /** Ruler regions only. */
+    ruler: jsonb().$type<RulerMark>(),
+    authorId: uuid()
+      .notNull()
+      .references(() => users.id),
+    /** The region set version that wrote this row. */
+    versionWritten: integer().notNull(),
+    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    uniqueIndex("regions_photo_client_key").on(t.photoId, t.clientId),
+    index("regions_workspace_photo_idx").on(t.workspaceId, t.photoId),
+    check(
+      "regions_role_fields",
+      sql`(${t.role} = 'defect' AND ${t.defectClass} IS NOT NULL AND ${t.shape} IS NOT NULL AND ${t.ruler} IS NULL)
+       OR (${t.role} = 'surface' AND ${t.defectClass} IS NULL AND ${t.shape} IS NOT NULL AND ${t.ruler} IS NULL)
+       OR (${t.role} = 'ruler' AND ${t.defectClass} IS NULL AND ${t.shape} IS NULL AND ${t.ruler} IS NOT NULL)`,
+    ),
+  ],
+);
+
+export type RegionSet = typeof regionSets.$inferSelect;
+export type NewRegionSet = typeof regionSets.$inferInsert;
+export type RegionRow = typeof regions.$inferSelect;
+export type NewRegionRow = typeof regions.$inferInsert;

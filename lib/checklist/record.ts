@@ -1,0 +1,74 @@
+import "server-only";
+import { and, eq } from "drizzle-orm";
+import { db } from "@/db/client";
+import { logActivity } from "@/db/queries/activity";
+import { getUnitDetail, lockUnit } from "@/db/queries/units";
+import { checklistResults, units } from "@/db/schema";
+import type { SessionUser } from "@/lib/auth/require-user";
+import { hasAnyRole } from "@/lib/auth/roles";
+import { env } from "@/lib/env";
+import { AppError, notFound } from "@/lib/errors";
+import { assertNotLeasedByOther } from "@/lib/queue/queue";
+import { STATUS_LABELS, transition } from "@/lib/units/state-machine";
+import type { ChecklistRecordInput } from "@/lib/units/schemas";
+import { evaluateChecklistItem } from "./evaluate";
+
+/**
+ * Records one checklist item's result on a unit (the latest result per item is kept; every change
+ * is in the activity log). The verdict of the item is computed here, never taken from the client.
+ *
+ * Bench rules: a unit waiting in the queue is taken onto the recorder's bench (state machine
+ * "claim", with the queue's lease length); a unit on another inspector's bench under a running
+ * lease is read-only (lib/queue/queue.ts); a lead may correct results without taking the lease.
+ * Graded, rechecked and final units, units of decided lots and placeholders without a serial are closed.
+ */
+export async function recordChecklistResult(actor: SessionUser, unitId: string, input: ChecklistRecordInput) {
+  return db().transaction(async (tx) => {
+    const unit = await lockUnit(tx, { workspaceId: actor.workspaceId, unitId });
+    if (!unit) throw notFound("That unit");
+    const detail = (await getUnitDetail({ workspaceId: actor.workspaceId, unitId }, tx))!;
+    if (detail.lot.status !== "open") throw new AppError("conflict", "This unit's lot is decided; its checklist can no longer change.");
+    if (unit.status !== "queued" && unit.status !== "on_bench") throw new AppError("conflict", `This unit is ${STATUS_LABELS[unit.status]}, so its checklist can no longer change.`);
+    if (unit.serial === null) throw new AppError("conflict", "Scan or type this unit's serial first, so the results belong to a known part.", { fieldErrors: { serial: "Enter the serial first." } });
+    const item = detail.partType.checklist.find((i) => i.id === input.itemId);
+    if (!item) throw new AppError("bad_request", `“${input.itemId}” is not an item of the ${detail.partType.name} checklist.`, { fieldErrors: { itemId: "Unknown checklist item." } });
+    const evaluation = evaluateChecklistItem(item, input.value);
+
+    const isLead = hasAnyRole(actor.roles, "lead");
+    if (!isLead) assertNotLeasedByOther(unit, actor, detail.leaseHolderName);
+    const leaseRunning = unit.status === "on_bench" && unit.leaseExpiresAt !== null && unit.leaseExpiresAt > new Date();
+    if (unit.status === "queued" || (!isLead && !leaseRunning)) {
+      // Queued, or on a bench whose lease ran out: the recorder takes it (release first if needed).
+      const status = transition(unit.status === "queued" ? "queued" : transition(unit.status, "release"), "claim");
+      await tx
+        .update(units)
+        .set({ status, leaseHolderId: actor.id, leaseExpiresAt: new Date(Date.now() + env().QUEUE_LEASE_SECONDS * 1000), claimedAt: new Date(), updatedAt: new Date() })
+        .where(and(eq(units.workspaceId, actor.workspaceId), eq(units.id, unitId)));
+      await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.id, action: "unit.claimed", subjectType: "unit", subjectId: unitId, detail: { via: "checklist", from: unit.leaseHolderId } });
+    }
+
+    const values = {
+      value: evaluation.value,
+      passed: evaluation.passed,
+      failureReason: evaluation.failureReason,
+      severityOnFail: item.severityOnFail,
+      note: input.note ?? "",
+      recordedBy: actor.id,
+      recordedAt: new Date(),
+    };
+    const [result] = await tx
+      .insert(checklistResults)
+      .values({ workspaceId: actor.workspaceId, unitId, itemId: item.id, ...values })
+      .onConflictDoUpdate({ target: [checklistResults.unitId, checklistResults.itemId], set: values })
+      .returning();
+    await logActivity(tx, {
+      workspaceId: actor.workspaceId,
+      actorId: actor.id,
+      action: "checklist.recorded",
+      subjectType: "unit",
+      subjectId: unitId,
+      detail: { itemId: item.id, value: evaluation.value, passed: evaluation.passed, failureReason: evaluation.failureReason, severityOnFail: item.severityOnFail },
+    });
+    return result;
+  });
+}

@@ -1,0 +1,123 @@
+import "server-only";
+import { db } from "@/db/client";
+import { logActivity } from "@/db/queries/activity";
+import { getLatestUnitMeasurement, getUnitMeasurement, insertGrade, listGrades, listPhotoMeasurements, type GradeHistoryRow } from "@/db/queries/grading";
+import { getLatestPublished, getRubricVersion } from "@/db/queries/rubrics";
+import type { SessionUser } from "@/lib/auth/require-user";
+import { finishInspection } from "@/lib/queue/queue";
+import { hasAnyRole } from "@/lib/auth/roles";
+import { AppError } from "@/lib/errors";
+import { regradeStored } from "./grade-unit";
+import type { RecordGradeInput } from "./schemas";
+import type { StoredUnitResult } from "./stored-measurement";
+import { currentInputs, lockUnit, measurementStaleness, photoNamer, requireUnit, storedPhotos } from "./unit-grading";
+
+type Actor = Pick<SessionUser, "id" | "workspaceId" | "roles">;
+
+/** The unit's grade history (oldest first) and its current grade (the last row). */
+export async function gradeHistory(actor: Actor, unitId: string) {
+  await requireUnit(actor, unitId);
+  const history = await listGrades({ workspaceId: actor.workspaceId, unitId });
+  return { grades: history, current: history.at(-1) ?? null };
+}
+
+/**
+ * Records a grade: the measurement's proposal accepted, or overridden with a reason. Appends one
+ * row; nothing earlier changes. The measurement must be current (its regions versions and
+ * checklist time equal the unit's now), else 409: a stale proposal is never graded.
+ */
+export async function recordGrade(actor: Actor, unitId: string, input: RecordGradeInput): Promise<GradeHistoryRow> {
+  const kind = input.kind ?? "inspection";
+  if (kind === "override" && !hasAnyRole(actor.roles, "lead")) {
+    throw new AppError("forbidden", "Overriding a recorded grade needs the QC lead role, which your account does not have.");
+  }
+  if (kind === "override" && !input.reason) {
+    throw new AppError("bad_request", "An override of a recorded grade needs a reason.", { fieldErrors: { reason: "An override of a recorded grade needs a reason." } });
+  }
+  const unit = await requireUnit(actor, unitId);
+  const gradeId = await db().transaction(async (tx) => {
+    await lockUnit(tx, actor, unitId);
+    // An inspection grade moves the unit on (on bench → graded) and ends its lease.
+    if (kind === "inspection") await finishInspection(tx, actor, unitId);
+    const measurement = input.measurementId
+      ? await getUnitMeasurement({ workspaceId: actor.workspaceId, unitId, measurementId: input.measurementId }, tx)
+      : await getLatestUnitMeasurement({ workspaceId: actor.workspaceId, unitId }, tx);
+    if (!measurement) {
+      throw new AppError(input.measurementId ? "not_found" : "conflict", input.measurementId ? "That measurement of this unit was not found." : "This unit has not been measured yet. Measure it, then grade.");
+    }
+    const stored = measurement.result as StoredUnitResult;
+    const current = await currentInputs(actor, unitId, tx);
+    const staleness = measurementStaleness({ regionsVersions: measurement.regionsVersions, checklistStamp: stored.checklistStamp }, current.inputs, photoNamer(current.photoRows));
+    if (staleness.stale) throw new AppError("conflict", `The measurement is out of date: ${staleness.reasons.join(" ")} Measure again before grading.`);
+
+    const previous = await listGrades({ workspaceId: actor.workspaceId, unitId }, tx);
+    if (kind === "override" && previous.length === 0) throw new AppError("conflict", "This unit has no recorded grade to override yet; record the inspection grade first.");
+
+    const proposed = stored.proposal.grade;
+    const finalGrade = input.decision === "accept" ? proposed : input.finalGrade;
+    if (input.decision === "override" && finalGrade === proposed) {
+      throw new AppError("bad_request", `The proposed grade is already ${proposed}; accept it instead of overriding.`, { fieldErrors: { finalGrade: `Choose a grade other than the proposed ${proposed}, or accept.` } });
+    }
+    const photoRows = await listPhotoMeasurements({ workspaceId: actor.workspaceId, unitMeasurementId: measurement.id }, tx);
+    const row = await insertGrade(tx, {
+      workspaceId: actor.workspaceId,
+      unitId,
+      kind,
+      proposedGrade: proposed,
+      finalGrade,
+      overrideReason: input.reason ?? null,
+      rubricVersionId: measurement.rubricVersionId,
+      measurementIds: [measurement.id, ...photoRows.map((p) => p.id)],
+      explanation: { lines: stored.proposal.lines, notes: stored.proposal.notes },
+      regionsVersions: measurement.regionsVersions,
+      gradedBy: actor.id,
+    });
+    await logActivity(tx, {
+      workspaceId: actor.workspaceId,
+      actorId: actor.id,
+      action: finalGrade === proposed ? "grade.accepted" : "grade.overridden",
+      subjectType: "unit",
+      subjectId: unitId,
+      detail: { gradeId: row.id, kind, proposed, final: finalGrade, rubricVersion: measurement.rubricVersion, serial: unit.serial },
+    });
+    return row.id;
+  });
+  const history = await listGrades({ workspaceId: actor.workspaceId, unitId });
+  return history.find((g) => g.id === gradeId)!;
+}
+
+/**
+ * "What would rubric version N say": the measurement behind the unit's current grade (or its
+ * latest measurement when ungraded) graded again under version N (default: the latest
+ * published). Stores nothing; the recorded grade stays as it is.
+ */
+export async function gradePreview(actor: Actor, unitId: string, version?: number) {
+  const unit = await requireUnit(actor, unitId);
+  const rubric = version === undefined
+    ? await getLatestPublished({ workspaceId: actor.workspaceId, partTypeId: unit.partTypeId })
+    : await getRubricVersion({ workspaceId: actor.workspaceId, partTypeId: unit.partTypeId, version });
+  if (!rubric) {
+    throw new AppError("not_found", version === undefined ? `${unit.partType.name} has no published rubric yet.` : `Rubric version ${version} of ${unit.partType.name} was not found.`);
+  }
+  const history = await listGrades({ workspaceId: actor.workspaceId, unitId });
+  const grade = history.at(-1) ?? null;
+  const measurement = grade
+    ? await getUnitMeasurement({ workspaceId: actor.workspaceId, unitId, measurementId: grade.measurementIds[0] })
+    : await getLatestUnitMeasurement({ workspaceId: actor.workspaceId, unitId });
+  if (!measurement) throw new AppError("conflict", "This unit has not been measured yet, so there is nothing to grade again.");
+  const stored = measurement.result as StoredUnitResult;
+  const result = regradeStored({ rubric: rubric.rubric, photos: await storedPhotos(actor, measurement.id), unit: stored });
+  const current = await currentInputs(actor, unitId);
+  const staleness = measurementStaleness({ regionsVersions: measurement.regionsVersions, checklistStamp: stored.checklistStamp }, current.inputs, photoNamer(current.photoRows));
+  return {
+    rubricVersion: { version: rubric.version, status: rubric.status, publishedAt: rubric.publishedAt },
+    basis: {
+      measurementId: measurement.id,
+      measuredAt: measurement.createdAt,
+      measuredUnderVersion: measurement.rubricVersion,
+      grade: grade ? { id: grade.id, finalGrade: grade.finalGrade, proposedGrade: grade.proposedGrade, rubricVersion: grade.rubricVersion, createdAt: grade.createdAt } : null,
+      ...staleness,
+    },
+    result,
+  };
+}

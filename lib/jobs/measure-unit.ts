@@ -1,0 +1,82 @@
+import "server-only";
+/**
+ * The "measure-unit" queue: measuring a unit in the background when it does not finish within
+ * the request's time budget (app/api/units/[id]/measure). The job measures under the latest
+ * published rubric at the time it runs and stores the result with the regions versions it read,
+ * so a result that arrives after the regions changed is stale and never shown as current.
+ *
+ * Wiring: the worker (lib/jobs/worker.ts) calls `boss.createQueue(MEASURE_UNIT_QUEUE,
+ * measureUnitQueueOptions)` and `boss.work(MEASURE_UNIT_QUEUE, handleMeasureUnitJobs)`.
+ */
+import PgBoss from "pg-boss";
+import { pool } from "@/db/client";
+import { AppError } from "@/lib/errors";
+import { measureAndStore } from "@/lib/grading/unit-grading";
+import { JOB_NOTIFY_CHANNEL } from "./queues";
+
+export const MEASURE_UNIT_QUEUE = "measure-unit";
+
+export type MeasureUnitJob = { workspaceId: string; unitId: string; requestedBy: string | null };
+
+/** "stately" + the unit id as singleton key: at most one waiting and one running job per unit. */
+export const measureUnitQueueOptions: PgBoss.Queue = {
+  name: MEASURE_UNIT_QUEUE,
+  policy: "stately",
+  retryLimit: 2,
+  retryDelay: 5,
+  retryBackoff: true,
+  expireInSeconds: 600,
+  retentionMinutes: 24 * 60,
+};
+
+/**
+ * Worker side. A unit that cannot be measured (no photos, no published rubric, photos still
+ * processing: AppError) completes the job without retrying — the person will see why when they
+ * measure again; any other error is thrown so pg-boss retries.
+ */
+export async function handleMeasureUnitJobs(jobs: PgBoss.Job<MeasureUnitJob>[]): Promise<void> {
+  for (const job of jobs) {
+    const { workspaceId, unitId, requestedBy } = job.data;
+    try {
+      await measureAndStore({ id: requestedBy, workspaceId }, unitId);
+    } catch (err) {
+      if (err instanceof AppError) {
+        console.warn(`measure-unit job ${job.id}: unit ${unitId} was not measured: ${err.message}`);
+        continue;
+      }
+      throw err;
+    }
+  }
+}
+
+const cache = globalThis as unknown as { __partproofMeasureSender?: Promise<PgBoss> };
+
+/** A send-only pg-boss on the app's pool (no maintenance or schedules in the web process). */
+function sender(): Promise<PgBoss> {
+  cache.__partproofMeasureSender ??= (async () => {
+    const boss = new PgBoss({ db: { executeSql: (text, values) => pool().query(text, values) }, supervise: false, schedule: false, migrate: true });
+    boss.on("error", (err) => console.error("pg-boss (measure sender) error", err));
+    await boss.start();
+    await boss.createQueue(MEASURE_UNIT_QUEUE, measureUnitQueueOptions);
+    return boss;
+  })().catch((err) => {
+    cache.__partproofMeasureSender = undefined;
+    throw err;
+  });
+  return cache.__partproofMeasureSender;
+}
+
+/** Queues a measurement; null when one for this unit is already waiting (the stately policy). */
+export async function enqueueMeasureUnit(job: MeasureUnitJob): Promise<{ jobId: string | null }> {
+  const boss = await sender();
+  const jobId = await boss.send(MEASURE_UNIT_QUEUE, job, { singletonKey: job.unitId });
+  if (jobId) await pool().query("SELECT pg_notify($1, $2)", [JOB_NOTIFY_CHANNEL, MEASURE_UNIT_QUEUE]);
+  return { jobId };
+}
+
+/** The state of a queued measurement, or null when pg-boss does not know the id. */
+export async function measureJobState(jobId: string): Promise<{ id: string; state: string; data: MeasureUnitJob } | null> {
+  const boss = await sender();
+  const job = await boss.getJobById<MeasureUnitJob>(MEASURE_UNIT_QUEUE, jobId, { includeArchive: true });
+  return job ? { id: job.id, state: job.state, data: job.data } : null;
+}

@@ -1,0 +1,77 @@
+import "server-only";
+/**
+ * Step 1 of an upload: the browser says what it is about to send; the server checks what it can
+ * without the bytes, picks the photo id and the staging key, and answers a short-lived presigned
+ * PUT URL plus a signed ticket that finalise will ask for. Nothing is written anywhere yet.
+ */
+import { randomUUID } from "node:crypto";
+import type { SessionUser } from "@/lib/auth/require-user";
+import { env } from "@/lib/env";
+import { AppError, notFound } from "@/lib/errors";
+import { checkStore, objectStore, presignPut, type ObjectStore } from "@/lib/storage/s3";
+import { photoSettings } from "./config";
+import { stagingKey } from "./object-keys";
+import { checkDeclaredUpload } from "./precheck";
+import { getUnitForPhotos, type UnitForPhotos } from "./queries";
+import type { UploadIntentInput } from "./schemas";
+import { signUploadTicket } from "./ticket";
+
+/** Photos can be added while the unit waits or is on the bench; after grading the evidence is fixed. */
+const UPLOAD_STATUSES: readonly UnitForPhotos["status"][] = ["queued", "on_bench"];
+
+/** The unit in the caller's workspace (404 for any other, exactly like a missing one). */
+export async function loadUnit(actor: SessionUser, unitId: string): Promise<UnitForPhotos> {
+  const unit = await getUnitForPhotos({ workspaceId: actor.workspaceId, unitId });
+  if (!unit) throw notFound("That unit");
+  return unit;
+}
+
+export const canAddPhotos = (unit: Pick<UnitForPhotos, "status">) => UPLOAD_STATUSES.includes(unit.status);
+
+export function assertOpenForUploads(unit: UnitForPhotos): void {
+  if (!canAddPhotos(unit)) {
+    throw new AppError("conflict", "This unit has been graded, so its photos are part of the record and no more can be added. A lead can reopen it.");
+  }
+}
+
+export function viewOf(unit: UnitForPhotos, viewKey: string) {
+  const view = unit.partType.views.find((v) => v.key === viewKey);
+  if (!view) {
+    const known = unit.partType.views.map((v) => v.label).join(", ");
+    const message = `“${viewKey}” is not a view of ${unit.partType.name}; choose one of: ${known}.`;
+    throw new AppError("bad_request", message, { fieldErrors: { viewKey: message } });
+  }
+  return view;
+}
+
+export type UploadIntent = {
+  photoId: string;
+  ticket: string;
+  upload: { method: "PUT"; url: string; headers: Record<string, string>; expiresAt: string };
+};
+
+export async function createUploadIntent(actor: SessionUser, unitId: string, input: UploadIntentInput, { store = objectStore(), now = new Date() }: { store?: ObjectStore; now?: Date } = {}): Promise<UploadIntent> {
+  const unit = await loadUnit(actor, unitId);
+  assertOpenForUploads(unit);
+  viewOf(unit, input.viewKey);
+  const rejection = checkDeclaredUpload(input);
+  if (rejection) throw rejection;
+  // Presigning needs no network; asking the bucket first turns an outage into a clear 503 now
+  // instead of a failed upload in the browser.
+  await checkStore(store);
+
+  const settings = photoSettings();
+  const photoId = randomUUID();
+  const contentType = input.contentType || "application/octet-stream";
+  const urlSeconds = settings.PHOTO_UPLOAD_URL_MINUTES * 60;
+  const url = await presignPut(store, stagingKey({ workspaceId: actor.workspaceId, unitId: unit.id, photoId }), { contentType, expiresInSeconds: urlSeconds });
+  const ticket = signUploadTicket(
+    { workspaceId: actor.workspaceId, unitId: unit.id, photoId, viewKey: input.viewKey, fileName: input.fileName, uploaderId: actor.id },
+    { secret: env().NEXTAUTH_SECRET, expiresAt: new Date(now.getTime() + settings.PHOTO_TICKET_HOURS * 3_600_000) },
+  );
+  return {
+    photoId,
+    ticket,
+    upload: { method: "PUT", url, headers: { "Content-Type": contentType }, expiresAt: new Date(now.getTime() + urlSeconds * 1000).toISOString() },
+  };
+}

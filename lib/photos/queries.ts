@@ -1,0 +1,131 @@
+import "server-only";
+/** Reads for photo intake, always scoped by workspace in the WHERE clause. */
+import { and, asc, eq, ne, sql } from "drizzle-orm";
+import { alias } from "drizzle-orm/pg-core";
+import { db, type DbOrTx } from "@/db/client";
+import { lots, partTypes, photos, units, users, type Photo, type ViewDefinition } from "@/db/schema";
+
+export type UnitForPhotos = {
+  id: string;
+  workspaceId: string;
+  status: (typeof units.$inferSelect)["status"];
+  serial: string | null;
+  sampleIndex: number;
+  lotId: string;
+  purchaseRef: string;
+  partType: { id: string; name: string; slug: string; category: string; views: ViewDefinition[] };
+};
+
+export async function getUnitForPhotos({ workspaceId, unitId }: { workspaceId: string; unitId: string }, tx: DbOrTx = db()): Promise<UnitForPhotos | null> {
+  const [row] = await tx
+    .select({
+      id: units.id,
+      workspaceId: units.workspaceId,
+      status: units.status,
+      serial: units.serial,
+      sampleIndex: units.sampleIndex,
+      lotId: units.lotId,
+      purchaseRef: lots.purchaseRef,
+      partType: { id: partTypes.id, name: partTypes.name, slug: partTypes.slug, category: partTypes.category, views: partTypes.views },
+    })
+    .from(units)
+    .innerJoin(lots, and(eq(lots.id, units.lotId), eq(lots.workspaceId, units.workspaceId)))
+    .innerJoin(partTypes, and(eq(partTypes.id, units.partTypeId), eq(partTypes.workspaceId, units.workspaceId)))
+    .where(and(eq(units.workspaceId, workspaceId), eq(units.id, unitId)))
+    .limit(1);
+  return row ?? null;
+}
+
+export const unitLabel = (u: { serial: string | null; sampleIndex: number; purchaseRef: string }) =>
+  u.serial ? `${u.serial} (${u.purchaseRef})` : `Sample ${u.sampleIndex} of ${u.purchaseRef}`;
+
+const reusedPhoto = alias(photos, "reused_photo");
+const reusedUnit = alias(units, "reused_unit");
+const reusedLot = alias(lots, "reused_lot");
+
+/** A photo with the names the API shows beside it (uploader, the unit a reused photo came from). */
+export type PhotoWithContext = Photo & {
+  uploaderName: string;
+  reuse: { photoId: string; unitId: string; serial: string | null; sampleIndex: number; purchaseRef: string } | null;
+};
+
+function selectPhotos(tx: DbOrTx) {
+  return tx
+    .select({
+      photo: photos,
+      uploaderName: users.name,
+      reusePhotoId: reusedPhoto.id,
+      reuseUnitId: reusedUnit.id,
+      reuseSerial: reusedUnit.serial,
+      reuseSampleIndex: reusedUnit.sampleIndex,
+      reusePurchaseRef: reusedLot.purchaseRef,
+    })
+    .from(photos)
+    .innerJoin(users, eq(users.id, photos.uploadedBy))
+    .leftJoin(reusedPhoto, and(eq(reusedPhoto.id, photos.possibleReuseOfPhotoId), eq(reusedPhoto.workspaceId, photos.workspaceId)))
+    .leftJoin(reusedUnit, eq(reusedUnit.id, reusedPhoto.unitId))
+    .leftJoin(reusedLot, eq(reusedLot.id, reusedUnit.lotId));
+}
+
+type SelectedRow = Awaited<ReturnType<ReturnType<typeof selectPhotos>["where"]>>[number];
+
+function withContext(row: SelectedRow): PhotoWithContext {
+  const reuse =
+    row.reusePhotoId && row.reuseUnitId
+      ? { photoId: row.reusePhotoId, unitId: row.reuseUnitId, serial: row.reuseSerial, sampleIndex: row.reuseSampleIndex ?? 0, purchaseRef: row.reusePurchaseRef ?? "" }
+      : null;
+  return { ...row.photo, uploaderName: row.uploaderName, reuse };
+}
+
+export async function listUnitPhotos({ workspaceId, unitId }: { workspaceId: string; unitId: string }, tx: DbOrTx = db()): Promise<PhotoWithContext[]> {
+  const rows = await selectPhotos(tx)
+    .where(and(eq(photos.workspaceId, workspaceId), eq(photos.unitId, unitId)))
+    .orderBy(asc(photos.createdAt), asc(photos.id));
+  return rows.map(withContext);
+}
+
+export async function getPhotoWithContext({ workspaceId, photoId }: { workspaceId: string; photoId: string }, tx: DbOrTx = db()): Promise<PhotoWithContext | null> {
+  const [row] = await selectPhotos(tx).where(and(eq(photos.workspaceId, workspaceId), eq(photos.id, photoId))).limit(1);
+  return row ? withContext(row) : null;
+}
+
+export async function getPhoto({ workspaceId, photoId }: { workspaceId: string; photoId: string }, tx: DbOrTx = db()): Promise<Photo | null> {
+  const [row] = await tx.select().from(photos).where(and(eq(photos.workspaceId, workspaceId), eq(photos.id, photoId))).limit(1);
+  return row ?? null;
+}
+
+/** For the worker, which acts for no workspace in particular: by id alone. */
+export async function getPhotoById(photoId: string, tx: DbOrTx = db()): Promise<Photo | null> {
+  const [row] = await tx.select().from(photos).where(eq(photos.id, photoId)).limit(1);
+  return row ?? null;
+}
+
+export async function findUnitPhotoBySha({ workspaceId, unitId, sha256 }: { workspaceId: string; unitId: string; sha256: string }, tx: DbOrTx = db()) {
+  const [row] = await tx
+    .select()
+    .from(photos)
+    .where(and(eq(photos.workspaceId, workspaceId), eq(photos.unitId, unitId), eq(photos.sha256, sha256)))
+    .limit(1);
+  return row ?? null;
+}
+
+/**
+ * The earliest photo with the same bytes on another unit of the workspace, refused files aside:
+ * the same picture standing as evidence for two units is worth a second look.
+ */
+export async function findReuseCandidate({ workspaceId, unitId, sha256 }: { workspaceId: string; unitId: string; sha256: string }, tx: DbOrTx = db()) {
+  const [row] = await tx
+    .select({ id: photos.id, unitId: photos.unitId })
+    .from(photos)
+    .where(
+      and(
+        eq(photos.workspaceId, workspaceId),
+        eq(photos.sha256, sha256),
+        ne(photos.unitId, unitId),
+        sql`${photos.originalKey} IS NOT NULL`,
+      ),
+    )
+    .orderBy(asc(photos.createdAt))
+    .limit(1);
+  return row ?? null;
+}

@@ -1,0 +1,106 @@
+import "server-only";
+/**
+ * The scheduled orphan sweep (pg-boss queue photo-sweep). Deletes, once older than the grace
+ * period: staging objects (uploads never finalised, or finalised without their clean-up), and
+ * photo objects that no row names (a finalise that failed after its copy, derivatives of a
+ * dismissed photo, a refused original whose delete failed). Also drops the failure notices of
+ * refused files after their retention, and marks photos whose job was lost (queued or processing
+ * with no progress for PHOTO_STALLED_HOURS) as failed, so Retry is offered instead of a spinner
+ * forever. Objects with keys this app never writes are left alone.
+ * Every original goes through the deletion gate first (lib/photos/deletion.ts).
+ */
+import { and, eq, inArray, isNull, lt } from "drizzle-orm";
+import { db } from "@/db/client";
+import { photos } from "@/db/schema";
+import { deleteObject, listObjects, objectStore, type ListedObject, type ObjectStore } from "@/lib/storage/s3";
+import { photoSettings } from "./config";
+import { ORIGINAL_DELETION_CHECKS, originalDeletionBlockers, type OriginalDeletionCheck } from "./deletion";
+import { parsePhotoKey, PHOTOS_PREFIX, STAGING_PREFIX } from "./object-keys";
+
+export type SweepReport = { scanned: number; deleted: string[]; kept: number; blocked: string[]; noticesRemoved: number; stalledMarked: number };
+
+export type SweepOptions = {
+  store?: ObjectStore;
+  now?: Date;
+  graceMs?: number;
+  noticeRetentionMs?: number;
+  stalledMs?: number;
+  checks?: readonly OriginalDeletionCheck[];
+};
+
+const BATCH = 500;
+
+export async function sweepOrphans(options: SweepOptions = {}): Promise<SweepReport> {
+  const settings = photoSettings();
+  const { store = objectStore(), now = new Date(), checks = ORIGINAL_DELETION_CHECKS } = options;
+  const graceMs = options.graceMs ?? settings.PHOTO_ORPHAN_GRACE_HOURS * 3_600_000;
+  const noticeRetentionMs = options.noticeRetentionMs ?? settings.PHOTO_FAILED_RETENTION_HOURS * 3_600_000;
+  const stalledMs = options.stalledMs ?? settings.PHOTO_STALLED_HOURS * 3_600_000;
+  const cutoff = now.getTime() - graceMs;
+  const report: SweepReport = { scanned: 0, deleted: [], kept: 0, blocked: [], noticesRemoved: 0, stalledMarked: 0 };
+
+  for await (const object of listObjects(store, STAGING_PREFIX)) {
+    report.scanned++;
+    // A staging object is never named by a row; past the grace its ticket has long expired.
+    if (parsePhotoKey(object.key)?.kind === "staging" && object.lastModified.getTime() < cutoff) {
+      await deleteObject(store, object.key);
+      report.deleted.push(object.key);
+    } else report.kept++;
+  }
+
+  let batch: ListedObject[] = [];
+  for await (const object of listObjects(store, PHOTOS_PREFIX)) {
+    report.scanned++;
+    if (parsePhotoKey(object.key) && object.lastModified.getTime() < cutoff) batch.push(object);
+    else report.kept++;
+    if (batch.length === BATCH) {
+      await sweepPhotoObjects(store, batch, checks, report);
+      batch = [];
+    }
+  }
+  if (batch.length) await sweepPhotoObjects(store, batch, checks, report);
+
+  const removed = await db()
+    .delete(photos)
+    .where(and(eq(photos.status, "failed"), isNull(photos.originalKey), lt(photos.updatedAt, new Date(now.getTime() - noticeRetentionMs))))
+    .returning({ id: photos.id });
+  report.noticesRemoved = removed.length;
+
+  const stalled = await db()
+    .update(photos)
+    .set({
+      status: "failed",
+      failureCode: "processing_failed",
+      failureReason: "Processing this photo did not finish. Press Retry; the original is kept.",
+      updatedAt: now,
+    })
+    .where(and(inArray(photos.status, ["queued", "processing"]), lt(photos.updatedAt, new Date(now.getTime() - stalledMs))))
+    .returning({ id: photos.id });
+  report.stalledMarked = stalled.length;
+  return report;
+}
+
+async function sweepPhotoObjects(store: ObjectStore, objects: ListedObject[], checks: readonly OriginalDeletionCheck[], report: SweepReport) {
+  const parsed = objects.map((o) => ({ object: o, key: parsePhotoKey(o.key)! }));
+  const ids = [...new Set(parsed.map((p) => p.key.photoId))];
+  const rows = await db()
+    .select({ id: photos.id, workspaceId: photos.workspaceId, originalKey: photos.originalKey, previewKey: photos.previewKey, thumbnailKey: photos.thumbnailKey })
+    .from(photos)
+    .where(inArray(photos.id, ids));
+  const named = new Set(rows.flatMap((r) => [r.originalKey, r.previewKey, r.thumbnailKey]).filter((k): k is string => k !== null));
+  for (const { object, key } of parsed) {
+    if (named.has(object.key)) {
+      report.kept++;
+      continue;
+    }
+    if (key.kind === "original") {
+      const reasons = await originalDeletionBlockers(db(), { workspaceId: key.workspaceId, photoId: key.photoId }, checks);
+      if (reasons.length) {
+        report.blocked.push(object.key);
+        continue;
+      }
+    }
+    await deleteObject(store, object.key);
+    report.deleted.push(object.key);
+  }
+}

@@ -1,0 +1,130 @@
+import "server-only";
+import { sql } from "drizzle-orm";
+import { db } from "@/db/client";
+import { decodeCursor, encodeCursor, type QueueKey } from "./cursor";
+import { filterSql } from "./queue";
+import type { QueueFilters } from "./schemas";
+
+export type QueueRow = {
+  id: string;
+  serial: string | null;
+  sampleIndex: number;
+  status: "waiting" | "on_bench";
+  lotId: string;
+  purchaseRef: string;
+  partTypeId: string;
+  partTypeName: string;
+  supplierName: string;
+  dueOn: string;
+  receivedOn: string;
+  holder: { id: string; name: string; since: string; leaseExpiresAt: string } | null;
+};
+
+type Raw = {
+  id: string;
+  serial: string | null;
+  sample_index: number;
+  status: string;
+  lease_active: boolean;
+  lot_id: string;
+  purchase_ref: string;
+  part_type_id: string;
+  part_type_name: string;
+  supplier_name: string;
+  lot_due_on: string;
+  lot_received_on: string;
+  lot_created_at: Date;
+  holder_id: string | null;
+  holder_name: string | null;
+  claimed_at: Date | null;
+  lease_expires_at: Date | null;
+};
+
+/**
+ * One keyset page of the queue (waiting units and units on a bench, in open lots), in Take next
+ * order. The cursor is the last row's sort key; no OFFSET, so deep pages cost the same as the first.
+ */
+export async function listQueue({ workspaceId, filters, cursor, limit }: { workspaceId: string; filters: QueueFilters; cursor?: string; limit: number }) {
+  const after: QueueKey | null = cursor ? decodeCursor(cursor) : null;
+  const keyset = after
+    ? sql`AND (u.lot_due_on, u.lot_received_on, u.lot_created_at, u.lot_id, u.sample_index, u.id)
+          > (${after.dueOn}::date, ${after.receivedOn}::date, ${after.lotCreatedAt}::timestamptz, ${after.lotId}::uuid, ${after.sampleIndex}, ${after.id}::uuid)`
+    : sql``;
+  const { rows } = await db().execute<Raw>(sql`
+    SELECT u.id, u.serial, u.sample_index, u.status, (u.lease_expires_at > now()) AS lease_active,
+           u.lot_id, l.purchase_ref, u.part_type_id, pt.name AS part_type_name, s.name AS supplier_name,
+           to_char(u.lot_due_on, 'YYYY-MM-DD') AS lot_due_on, to_char(u.lot_received_on, 'YYYY-MM-DD') AS lot_received_on, u.lot_created_at,
+           u.lease_holder_id AS holder_id, h.name AS holder_name, u.claimed_at, u.lease_expires_at
+    FROM units u
+    JOIN lots l ON l.id = u.lot_id
+    JOIN part_types pt ON pt.id = u.part_type_id
+    JOIN suppliers s ON s.id = u.supplier_id
+    LEFT JOIN users h ON h.id = u.lease_holder_id
+    WHERE u.workspace_id = ${workspaceId}
+      AND u.status IN ('queued', 'on_bench')
+      AND l.status = 'open'
+      ${filterSql(filters)}
+      ${keyset}
+    ORDER BY u.lot_due_on, u.lot_received_on, u.lot_created_at, u.lot_id, u.sample_index, u.id
+    LIMIT ${limit + 1}`);
+  const page = rows.slice(0, limit);
+  const last = page.at(-1);
+  return {
+    units: page.map(
+      (r): QueueRow => ({
+        id: r.id,
+        serial: r.serial,
+        sampleIndex: r.sample_index,
+        status: r.status === "on_bench" && r.lease_active ? "on_bench" : "waiting",
+        lotId: r.lot_id,
+        purchaseRef: r.purchase_ref,
+        partTypeId: r.part_type_id,
+        partTypeName: r.part_type_name,
+        supplierName: r.supplier_name,
+        dueOn: r.lot_due_on,
+        receivedOn: r.lot_received_on,
+        holder:
+          r.status === "on_bench" && r.lease_active && r.holder_id
+            ? { id: r.holder_id, name: r.holder_name ?? "", since: new Date(r.claimed_at!).toISOString(), leaseExpiresAt: new Date(r.lease_expires_at!).toISOString() }
+            : null,
+      }),
+    ),
+    nextCursor:
+      rows.length > limit && last
+        ? encodeCursor({ dueOn: last.lot_due_on, receivedOn: last.lot_received_on, lotCreatedAt: new Date(last.lot_created_at).toISOString(), lotId: last.lot_id, sampleIndex: last.sample_index, id: last.id })
+        : null,
+  };
+}
+
+export type QueueStats = {
+  waiting: number;
+  onBench: number;
+  gradedToday: number;
+  byPartType: { partTypeId: string; name: string; waiting: number; onBench: number; medianMinutes: number | null }[];
+};
+
+/** Depth and throughput: waiting, on bench, graded today (UTC day), median minutes per unit (last 30 days). */
+export async function queueStats({ workspaceId }: { workspaceId: string }): Promise<QueueStats> {
+  const { rows } = await db().execute<{ part_type_id: string; name: string; waiting: number; on_bench: number; graded_today: number; median_minutes: number | null }>(sql`
+    SELECT pt.id AS part_type_id, pt.name,
+      count(*) FILTER (WHERE l.status = 'open' AND (u.status = 'queued' OR (u.status = 'on_bench' AND u.lease_expires_at <= now())))::int AS waiting,
+      count(*) FILTER (WHERE l.status = 'open' AND u.status = 'on_bench' AND u.lease_expires_at > now())::int AS on_bench,
+      count(*) FILTER (WHERE u.graded_at >= date_trunc('day', now()))::int AS graded_today,
+      percentile_cont(0.5) WITHIN GROUP (ORDER BY extract(epoch FROM (u.graded_at - u.claimed_at)) / 60)
+        FILTER (WHERE u.graded_at >= now() - interval '30 days' AND u.claimed_at IS NOT NULL) AS median_minutes
+    FROM units u
+    JOIN lots l ON l.id = u.lot_id
+    JOIN part_types pt ON pt.id = u.part_type_id
+    WHERE u.workspace_id = ${workspaceId}
+    GROUP BY pt.id, pt.name
+    ORDER BY pt.name`);
+  const byPartType = rows
+    .map((r) => ({ partTypeId: r.part_type_id, name: r.name, waiting: r.waiting, onBench: r.on_bench, gradedToday: r.graded_today, medianMinutes: r.median_minutes === null ? null : Math.round(Number(r.median_minutes) * 10) / 10 }))
+    .filter((r) => r.waiting + r.onBench + r.gradedToday > 0 || r.medianMinutes !== null);
+  return {
+    waiting: byPartType.reduce((n, r) => n + r.waiting, 0),
+    onBench: byPartType.reduce((n, r) => n + r.onBench, 0),
+    gradedToday: byPartType.reduce((n, r) => n + r.gradedToday, 0),
+    byPartType: byPartType.map(({ gradedToday: _g, ...rest }) => rest),
+  };
+}

@@ -1,0 +1,195 @@
+import "server-only";
+import { sql, type SQL } from "drizzle-orm";
+import { db, type Tx } from "@/db/client";
+import type { UnitStatus } from "@/db/schema/lots";
+import { logActivity } from "@/db/queries/activity";
+import { hasAnyRole } from "@/lib/auth/roles";
+import type { SessionUser } from "@/lib/auth/require-user";
+import { env } from "@/lib/env";
+import { AppError, notFound } from "@/lib/errors";
+import { transition } from "@/lib/units/state-machine";
+import type { QueueFilters } from "./schemas";
+
+// Statuses come from the state machine, so the SQL below can't drift from it.
+const ON_BENCH = transition("queued", "claim");
+const QUEUED = transition(ON_BENCH, "release");
+
+export type ClaimedUnit = { id: string; lotId: string; serial: string | null; sampleIndex: number; partTypeId: string; leaseExpiresAt: Date };
+
+export function filterSql(filters: QueueFilters): SQL {
+  const parts: SQL[] = [];
+  if (filters.partTypeId) parts.push(sql`AND u.part_type_id = ${filters.partTypeId}`);
+  if (filters.supplierId) parts.push(sql`AND u.supplier_id = ${filters.supplierId}`);
+  if (filters.lotId) parts.push(sql`AND u.lot_id = ${filters.lotId}`);
+  return sql.join(parts, sql` `);
+}
+
+/**
+ * Expired leases go back to the queue first (the claim itself does this, so no clean-up job is
+ * needed to be correct). SKIP LOCKED: two claimers never wait on each other here either.
+ */
+async function returnExpiredLeases(tx: Tx, workspaceId: string) {
+  const { rows } = await tx.execute<{ id: string; lease_holder_id: string }>(sql`
+    WITH expired AS (
+      SELECT id, lease_holder_id FROM units
+      WHERE workspace_id = ${workspaceId} AND status = ${ON_BENCH} AND lease_expires_at < now()
+      FOR UPDATE SKIP LOCKED
+    )
+    UPDATE units u SET status = ${QUEUED}, lease_holder_id = NULL, lease_expires_at = NULL, claimed_at = NULL, updated_at = now()
+    FROM expired WHERE u.id = expired.id
+    RETURNING u.id, expired.lease_holder_id`);
+  for (const row of rows) {
+    await logActivity(tx, { workspaceId, actorId: null, action: "unit.lease_expired", subjectType: "unit", subjectId: row.id, detail: { holder: row.lease_holder_id } });
+  }
+}
+
+/** True when a unit is waiting (read without locks, so rows other claimers are busy with count too). */
+async function anythingWaiting(workspaceId: string, filters: QueueFilters): Promise<boolean> {
+  const { rows } = await db().execute<{ waiting: boolean }>(sql`
+    SELECT EXISTS (
+      SELECT 1 FROM units u
+      WHERE u.workspace_id = ${workspaceId}
+        AND (u.status = ${QUEUED} OR (u.status = ${ON_BENCH} AND u.lease_expires_at < now()))
+        AND EXISTS (SELECT 1 FROM lots l WHERE l.id = u.lot_id AND l.status = 'open')
+        ${filterSql(filters)}
+    ) AS waiting`);
+  return rows[0]?.waiting ?? false;
+}
+
+async function claimOnce(user: SessionUser, filters: QueueFilters): Promise<ClaimedUnit | null> {
+  const leaseSeconds = env().QUEUE_LEASE_SECONDS;
+  return db().transaction(async (tx) => {
+    await returnExpiredLeases(tx, user.workspaceId);
+    const { rows } = await tx.execute<{ id: string; lot_id: string; serial: string | null; sample_index: number; part_type_id: string; lease_expires_at: Date }>(sql`
+      WITH next AS (
+        SELECT u.id FROM units u
+        WHERE u.workspace_id = ${user.workspaceId}
+          AND u.status = ${QUEUED}
+          AND EXISTS (SELECT 1 FROM lots l WHERE l.id = u.lot_id AND l.status = 'open')
+          ${filterSql(filters)}
+        ORDER BY u.lot_due_on, u.lot_received_on, u.lot_created_at, u.lot_id, u.sample_index, u.id
+        LIMIT 1
+        FOR UPDATE OF u SKIP LOCKED
+      )
+      UPDATE units u
+      SET status = ${ON_BENCH}, lease_holder_id = ${user.id}, lease_expires_at = now() + make_interval(secs => ${leaseSeconds}),
+          claimed_at = now(), updated_at = now()
+      FROM next WHERE u.id = next.id
+      RETURNING u.id, u.lot_id, u.serial, u.sample_index, u.part_type_id, u.lease_expires_at`);
+    const row = rows[0];
+    if (!row) return null;
+    await logActivity(tx, { workspaceId: user.workspaceId, actorId: user.id, action: "unit.claimed", subjectType: "unit", subjectId: row.id });
+    return { id: row.id, lotId: row.lot_id, serial: row.serial, sampleIndex: row.sample_index, partTypeId: row.part_type_id, leaseExpiresAt: new Date(row.lease_expires_at) };
+  });
+}
+
+/**
+ * Take next: claims the most urgent waiting unit for the caller.
+ * FOR UPDATE SKIP LOCKED lets concurrent callers pass over a row another transaction is
+ * claiming, so no two callers ever get the same unit and nobody waits on anybody; the scan walks
+ * the queue index (workspace, status, due, received, lot, sample) in order and stops at the
+ * first free row. Skipping can make a claim come back empty while the only waiting rows are
+ * being handled by others (a claim that will fail, or a lease being returned): then it looks
+ * again, so "nothing" (204) means nothing is waiting.
+ */
+export async function claimNextUnit({ user, filters }: { user: SessionUser; filters: QueueFilters }): Promise<ClaimedUnit | null> {
+  for (let attempt = 0; attempt < 50; attempt++) {
+    const claimed = await claimOnce(user, filters);
+    if (claimed) return claimed;
+    if (!(await anythingWaiting(user.workspaceId, filters))) return null;
+    await new Promise((r) => setTimeout(r, 2 + Math.random() * 8));
+  }
+  throw new AppError("unavailable", "The queue is very busy right now; press Take next again.");
+}
+
+type LeaseRow = { id: string; status: UnitStatus; lease_holder_id: string | null; lease_expires_at: Date | null; holder_name: string | null };
+
+async function lockUnit(tx: Tx, user: Pick<SessionUser, "workspaceId">, unitId: string): Promise<LeaseRow> {
+  const { rows } = await tx.execute<LeaseRow>(sql`
+    SELECT u.id, u.status, u.lease_holder_id, u.lease_expires_at, h.name AS holder_name
+    FROM units u LEFT JOIN users h ON h.id = u.lease_holder_id
+    WHERE u.id = ${unitId} AND u.workspace_id = ${user.workspaceId}
+    FOR UPDATE OF u`);
+  if (!rows[0]) throw notFound("That unit");
+  return rows[0];
+}
+
+const leaseActive = (r: Pick<LeaseRow, "lease_expires_at">) => r.lease_expires_at !== null && new Date(r.lease_expires_at).getTime() > Date.now();
+
+/** The Bench's heartbeat: extends the caller's lease. A lease that ran out but that nobody took over is renewed too. */
+export async function renewLease({ user, unitId }: { user: SessionUser; unitId: string }) {
+  return db().transaction(async (tx) => {
+    const unit = await lockUnit(tx, user, unitId);
+    if (unit.status !== ON_BENCH || unit.lease_holder_id !== user.id) {
+      const who = unit.status === ON_BENCH && unit.holder_name && leaseActive(unit) ? ` ${unit.holder_name} has it on their bench now.` : "";
+      throw new AppError("conflict", `You no longer hold this unit.${who} Take it from the queue again if it is free.`);
+    }
+    const { rows } = await tx.execute<{ lease_expires_at: Date }>(sql`
+      UPDATE units SET lease_expires_at = now() + make_interval(secs => ${env().QUEUE_LEASE_SECONDS}), updated_at = now()
+      WHERE id = ${unitId} AND workspace_id = ${user.workspaceId} RETURNING lease_expires_at`);
+    return { leaseExpiresAt: new Date(rows[0].lease_expires_at) };
+  });
+}
+
+/** Puts a unit back in the queue. Inspectors may release only their own; leads any. */
+export async function releaseUnit({ user, unitId }: { user: SessionUser; unitId: string }) {
+  await db().transaction(async (tx) => {
+    const unit = await lockUnit(tx, user, unitId);
+    const isLead = hasAnyRole(user.roles, "lead");
+    if (unit.status === ON_BENCH && unit.lease_holder_id !== user.id && !isLead) {
+      throw new AppError("forbidden", `This unit is on ${unit.holder_name ?? "another inspector"}'s bench; only they or a lead can put it back.`);
+    }
+    const next = transition(unit.status, "release");
+    await tx.execute(sql`
+      UPDATE units SET status = ${next}, lease_holder_id = NULL, lease_expires_at = NULL, claimed_at = NULL, updated_at = now()
+      WHERE id = ${unitId} AND workspace_id = ${user.workspaceId}`);
+    await logActivity(tx, { workspaceId: user.workspaceId, actorId: user.id, action: "unit.released", subjectType: "unit", subjectId: unitId, detail: { from: unit.lease_holder_id } });
+  });
+}
+
+/** A lead hands a unit (waiting or on someone's bench) to a named inspector with a fresh lease. */
+export async function reassignUnit({ user, unitId, toUserId }: { user: SessionUser; unitId: string; toUserId: string }) {
+  await db().transaction(async (tx) => {
+    const unit = await lockUnit(tx, user, unitId);
+    const { rows: people } = await tx.execute<{ id: string; name: string }>(sql`
+      SELECT id, name FROM users WHERE id = ${toUserId} AND workspace_id = ${user.workspaceId} AND active
+        AND ('inspector' = ANY(roles) OR 'lead' = ANY(roles))`);
+    if (!people[0]) throw new AppError("bad_request", "Choose an active inspector of this workspace.", { fieldErrors: { userId: "Not an active inspector here." } });
+    if (unit.status !== ON_BENCH) transition(unit.status, "claim");
+    await tx.execute(sql`
+      UPDATE units SET status = ${ON_BENCH}, lease_holder_id = ${toUserId}, lease_expires_at = now() + make_interval(secs => ${env().QUEUE_LEASE_SECONDS}),
+        claimed_at = now(), updated_at = now()
+      WHERE id = ${unitId} AND workspace_id = ${user.workspaceId}`);
+    await logActivity(tx, { workspaceId: user.workspaceId, actorId: user.id, action: "unit.reassigned", subjectType: "unit", subjectId: unitId, detail: { from: unit.lease_holder_id, to: toUserId } });
+  });
+}
+
+/**
+ * After an inspection grade is recorded (same transaction): the unit leaves the bench as graded
+ * and its lease ends. Grading a waiting unit straight from its lot takes it onto the grader's
+ * bench first; a correction of an already graded unit leaves it graded.
+ */
+export async function finishInspection(tx: Tx, user: Pick<SessionUser, "id" | "workspaceId">, unitId: string) {
+  const unit = await lockUnit(tx, user, unitId);
+  if (unit.status === ON_BENCH && unit.lease_holder_id !== user.id && leaseActive(unit)) {
+    throw new AppError("conflict", `${unit.holder_name ?? "Another inspector"} has this unit on their bench, so it is read-only for you.`);
+  }
+  if (unit.status === "graded") return;
+  const onBench = unit.status === QUEUED ? transition(unit.status, "claim") : unit.status;
+  const graded = transition(onBench, "submit_grade");
+  await tx.execute(sql`
+    UPDATE units SET status = ${graded}, lease_holder_id = NULL, lease_expires_at = NULL,
+      claimed_at = coalesce(claimed_at, now()), graded_at = now(), updated_at = now()
+    WHERE id = ${unitId} AND workspace_id = ${user.workspaceId}`);
+}
+
+/**
+ * Work on a unit (checklist, photos, regions, grade) is refused while another person's lease on
+ * it is running: the unit is read-only for everybody else.
+ */
+export function assertNotLeasedByOther(unit: { status: string; leaseHolderId: string | null; leaseExpiresAt: Date | null }, user: SessionUser, holderName?: string | null) {
+  if (unit.status === ON_BENCH && unit.leaseHolderId && unit.leaseHolderId !== user.id && unit.leaseExpiresAt && unit.leaseExpiresAt.getTime() > Date.now()) {
+    const until = unit.leaseExpiresAt.toISOString().slice(11, 16);
+    throw new AppError("conflict", `${holderName ?? "Another inspector"} has this unit on their bench (lease until ${until} UTC), so it is read-only for you.`);
+  }
+}

@@ -1,0 +1,224 @@
+/**
+ * `npm run bench:queue`: load on the queue of the RUNNING production app (start it first with
+ * `npm start`). Loopback only, bounded in count and time. It creates (or resets) a workspace
+ * "Queue bench (generated)" in the demo database with 50 inspectors and its own lots, then:
+ *   1. 50 concurrent HTTP clients take next and submit (measure + accept the grade) as fast as
+ *      they can → duplicates (must be 0) and saturated throughput;
+ *   2. an offered load of 100 claims/s (open loop) → p50/p95 claim latency (target p95 <= 25 ms);
+ *   3. the list API over 100 000 units, 10 concurrent connections, keyset pages of 50
+ *      → p50/p95 page latency (target p95 <= 50 ms).
+ */
+import fs from "node:fs";
+import path from "node:path";
+import { hash } from "@node-rs/argon2";
+import pg from "pg";
+import { databaseUrl, demoSettings, projectRoot } from "./lib/settings";
+
+const settings = demoSettings();
+const BASE = process.env.BENCH_BASE_URL ?? settings.app.url;
+if (!/^http:\/\/(127\.0\.0\.1|localhost)(:\d+)?$/.test(BASE)) throw new Error("bench:queue only runs against a loopback URL.");
+const INSPECTORS = 50;
+const SATURATION_UNITS = 2_000;
+const SATURATION_SECONDS = 30;
+const OFFERED_RATE = 100;
+const OFFERED_SECONDS = 10;
+const LIST_UNITS = 100_000;
+const LIST_CONNECTIONS = 10;
+const LIST_PAGES_PER_CONNECTION = 60;
+const PASSWORD = "queue-bench-password";
+
+const pool = new pg.Pool({ connectionString: process.env.DATABASE_URL ?? databaseUrl(settings), max: 4 });
+
+function percentile(values: number[], p: number): number {
+  if (!values.length) return NaN;
+  const sorted = [...values].sort((a, b) => a - b);
+  return sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)];
+}
+const ms = (v: number) => `${v.toFixed(1)} ms`;
+
+async function setUp() {
+  const c = await pool.connect();
+  try {
+    await c.query("BEGIN");
+    let { rows } = await c.query("SELECT id FROM workspaces WHERE slug = 'queue-bench'");
+    if (!rows[0]) ({ rows } = await c.query("INSERT INTO workspaces (name, slug) VALUES ('Queue bench (generated)', 'queue-bench') RETURNING id"));
+    const ws = rows[0].id as string;
+    // Reset the previous run's work (units, lots, grades and measurements of this workspace only).
+    for (const table of ["grades", "measurements", "checklist_results", "units", "lots"]) {
+      const exists = await c.query("SELECT to_regclass($1) AS t", [table]);
+      if (exists.rows[0].t) await c.query(`DELETE FROM ${table} WHERE workspace_id = $1`, [ws]).catch(async (err) => {
+        throw new Error(`Could not reset ${table}: ${err.message}`);
+      });
+    }
+    const passwordHash = await hash(PASSWORD);
+    const emails: string[] = [];
+    for (let i = 1; i <= INSPECTORS + 1; i++) {
+      const email = i <= INSPECTORS ? `bench-inspector-${i}@queue-bench.example` : "bench-lead@queue-bench.example";
+      emails.push(email);
+      await c.query(
+        `INSERT INTO users (workspace_id, email, name, password_hash, roles) VALUES ($1, $2, $3, $4, $5)
+         ON CONFLICT (email) DO UPDATE SET password_hash = EXCLUDED.password_hash, active = true`,
+        [ws, email, i <= INSPECTORS ? `Bench inspector ${i}` : "Bench lead", passwordHash, i <= INSPECTORS ? ["inspector"] : ["lead"]],
+      );
+    }
+    const lead = (await c.query("SELECT id FROM users WHERE email = 'bench-lead@queue-bench.example'")).rows[0].id;
+    let pt = (await c.query("SELECT id FROM part_types WHERE workspace_id = $1 AND slug = 'bench-part'", [ws])).rows[0];
+    if (!pt) {
+      pt = (
+        await c.query(
+          `INSERT INTO part_types (workspace_id, slug, name, category, views, defect_classes, checklist)
+           VALUES ($1, 'bench-part', 'Bench part', 'flex', '[{"key":"front","label":"Front","required":false,"zones":[]}]', '[{"key":"scratch","label":"Scratch","severity":"minor"}]', '[]') RETURNING id`,
+          [ws],
+        )
+      ).rows[0];
+    }
+    let sup = (await c.query("SELECT id FROM suppliers WHERE workspace_id = $1", [ws])).rows[0];
+    if (!sup) sup = (await c.query("INSERT INTO suppliers (workspace_id, name, contact_email) VALUES ($1, 'Bench supplier', 'bench@supplier.example') RETURNING id", [ws])).rows[0];
+    const plan = (n: number) => JSON.stringify({ standard: "ISO 2859-1 single sampling", lotSize: n, level: "II", severity: "normal", sampleSize: n, hundredPercent: true, byDefectSeverity: {}, switchingReason: "bench" });
+    async function lotWithUnits(ref: string, n: number, due: string) {
+      const lot = (
+        await c.query(
+          `INSERT INTO lots (workspace_id, supplier_id, part_type_id, purchase_ref, quantity, received_on, due_on, inspection_level, aql_major, aql_minor, inspection_severity, plan, created_by)
+           VALUES ($1, $2, $3, $4, $5, '2026-12-01', $6, 'II', 1, 2.5, 'normal', $7, $8) RETURNING id, created_at`,
+          [ws, sup.id, pt.id, ref, n, due, plan(n), lead],
+        )
+      ).rows[0];
+      await c.query(
+        `INSERT INTO units (workspace_id, lot_id, sample_index, serial, part_type_id, supplier_id, lot_due_on, lot_received_on, lot_created_at)
+         SELECT $1, $2, g, 'QB-' || $3 || '-' || lpad(g::text, 6, '0'), $4, $5, $6, '2026-12-01', $7 FROM generate_series(1, $8) g`,
+        [ws, lot.id, ref, pt.id, sup.id, due, lot.created_at, n],
+      );
+      return lot.id as string;
+    }
+    const workLot = await lotWithUnits("WORK", SATURATION_UNITS + OFFERED_RATE * OFFERED_SECONDS + 500, "2026-12-05");
+    const listLot = await lotWithUnits("LIST", LIST_UNITS, "2026-12-31");
+    await c.query("COMMIT");
+    await c.query("ANALYZE units");
+    return { emails, workLot, listLot };
+  } catch (err) {
+    await c.query("ROLLBACK");
+    throw err;
+  } finally {
+    c.release();
+  }
+}
+
+async function signIn(email: string): Promise<string> {
+  const csrfRes = await fetch(`${BASE}/api/auth/csrf`);
+  const jar = csrfRes.headers.getSetCookie().map((c) => c.split(";")[0]);
+  const { csrfToken } = (await csrfRes.json()) as { csrfToken: string };
+  const res = await fetch(`${BASE}/api/auth/callback/credentials`, {
+    method: "POST",
+    redirect: "manual",
+    headers: { "content-type": "application/x-www-form-urlencoded", cookie: jar.join("; ") },
+    body: new URLSearchParams({ csrfToken, email, password: PASSWORD, json: "true" }),
+  });
+  const cookies = [...jar, ...res.headers.getSetCookie().map((c) => c.split(";")[0])];
+  if (!cookies.some((c) => c.includes("session-token"))) throw new Error(`Sign-in failed for ${email}`);
+  return cookies.join("; ");
+}
+
+async function timed<T>(fn: () => Promise<T>): Promise<[T, number]> {
+  const t0 = performance.now();
+  const v = await fn();
+  return [v, performance.now() - t0];
+}
+
+async function claim(cookie: string, lotId: string) {
+  const res = await fetch(`${BASE}/api/queue/next`, { method: "POST", headers: { cookie, "content-type": "application/json" }, body: JSON.stringify({ lotId }) });
+  if (res.status === 204) return null;
+  if (!res.ok) throw new Error(`claim answered ${res.status}: ${await res.text()}`);
+  return ((await res.json()) as { unit: { id: string } }).unit.id;
+}
+
+async function submit(cookie: string, unitId: string) {
+  const measure = await fetch(`${BASE}/api/units/${unitId}/measure`, { method: "POST", headers: { cookie } });
+  if (!measure.ok) throw new Error(`measure answered ${measure.status}: ${await measure.text()}`);
+  const grade = await fetch(`${BASE}/api/units/${unitId}/grades`, { method: "POST", headers: { cookie, "content-type": "application/json" }, body: JSON.stringify({ decision: "accept" }) });
+  if (grade.status !== 201) throw new Error(`grade answered ${grade.status}: ${await grade.text()}`);
+}
+
+async function saturated(cookies: string[], lotId: string) {
+  const seen = new Map<string, number>();
+  const deadline = Date.now() + SATURATION_SECONDS * 1000;
+  let claimed = 0;
+  const t0 = performance.now();
+  await Promise.all(
+    cookies.map(async (cookie) => {
+      while (Date.now() < deadline && claimed < SATURATION_UNITS) {
+        const id = await claim(cookie, lotId);
+        if (!id) return;
+        claimed++;
+        seen.set(id, (seen.get(id) ?? 0) + 1);
+        await submit(cookie, id);
+      }
+    }),
+  );
+  const seconds = (performance.now() - t0) / 1000;
+  const duplicates = [...seen.values()].filter((n) => n > 1).length;
+  console.log(`1. saturated: ${INSPECTORS} clients, ${claimed} units taken and submitted in ${seconds.toFixed(1)} s`);
+  console.log(`   duplicates: ${duplicates} (must be 0)`);
+  console.log(`   throughput: ${(claimed / seconds).toFixed(1)} units/s (take next + measure + grade each)`);
+  return duplicates;
+}
+
+async function offered(cookies: string[], lotId: string) {
+  const latencies: number[] = [];
+  const total = OFFERED_RATE * OFFERED_SECONDS;
+  const start = performance.now();
+  const pending: Promise<void>[] = [];
+  for (let i = 0; i < total; i++) {
+    const due = start + (i * 1000) / OFFERED_RATE;
+    const wait = due - performance.now();
+    if (wait > 0) await new Promise((r) => setTimeout(r, wait));
+    pending.push(timed(() => claim(cookies[i % cookies.length], lotId)).then(([, t]) => void latencies.push(t)));
+  }
+  await Promise.all(pending);
+  const achieved = total / ((performance.now() - start) / 1000);
+  console.log(`2. offered load: ${OFFERED_RATE} claims/s for ${OFFERED_SECONDS} s (achieved ${achieved.toFixed(1)}/s)`);
+  console.log(`   claim latency p50 ${ms(percentile(latencies, 50))}, p95 ${ms(percentile(latencies, 95))} (target p95 <= 25 ms), max ${ms(Math.max(...latencies))}`);
+}
+
+async function listing(cookie: string, lotId: string) {
+  const latencies: number[] = [];
+  await Promise.all(
+    Array.from({ length: LIST_CONNECTIONS }, async () => {
+      let cursor: string | null = null;
+      for (let page = 0; page < LIST_PAGES_PER_CONNECTION; page++) {
+        const url: string = `${BASE}/api/queue?lotId=${lotId}&limit=50${cursor ? `&cursor=${cursor}` : ""}`;
+        const [body, t]: [{ units: unknown[]; nextCursor: string | null }, number] = await timed(async () => {
+          const res = await fetch(url, { headers: { cookie } });
+          if (!res.ok) throw new Error(`list answered ${res.status}`);
+          return (await res.json()) as { units: unknown[]; nextCursor: string | null };
+        });
+        latencies.push(t);
+        cursor = body.nextCursor;
+        if (!cursor) break;
+      }
+    }),
+  );
+  console.log(`3. list API over ${LIST_UNITS.toLocaleString("en")} units: ${LIST_CONNECTIONS} connections, ${latencies.length} keyset pages of 50`);
+  console.log(`   page latency p50 ${ms(percentile(latencies, 50))}, p95 ${ms(percentile(latencies, 95))} (target p95 <= 50 ms)`);
+}
+
+async function main() {
+  const health = await fetch(`${BASE}/api/health`).then((r) => r.json()).catch(() => null);
+  if (health?.app !== "partproof") throw new Error(`No Partproof app answers at ${BASE}; start it with \`npm start\` first.`);
+  if (!fs.existsSync(path.join(projectRoot, ".next", "BUILD_ID"))) console.warn("warning: no production build found in .next");
+  console.log("Setting up the bench workspace …");
+  const { emails, workLot, listLot } = await setUp();
+  const cookies = await Promise.all(emails.slice(0, INSPECTORS).map(signIn));
+  // Warm up the route handlers once.
+  await fetch(`${BASE}/api/queue?lotId=${listLot}&limit=50`, { headers: { cookie: cookies[0] } });
+  const duplicates = await saturated(cookies, workLot);
+  await offered(cookies, workLot);
+  await listing(cookies[0], listLot);
+  await pool.end();
+  if (duplicates) process.exit(1);
+}
+
+main().catch(async (err) => {
+  console.error(err instanceof Error ? err.message : err);
+  await pool.end();
+  process.exit(1);
+});

@@ -1,0 +1,65 @@
+import { inArray, sql } from "drizzle-orm";
+import { beforeAll, describe, expect, it } from "vitest";
+import { db } from "@/db/client";
+import { units } from "@/db/schema";
+import type { SessionUser } from "@/lib/auth/require-user";
+import { claimNextUnit } from "@/lib/queue/queue";
+import { createUser, createWorkspace } from "../support/db";
+import { createLotWithUnits, createPartTypeAndSupplier } from "../support/lot-fixtures";
+
+// Direct calls into lib/queue against the real PostgreSQL: this is about the database's locking.
+const UNITS = 10_000;
+const CLAIMERS = 50;
+
+let inspectors: SessionUser[];
+let lotId: string;
+
+beforeAll(async () => {
+  const ws = await createWorkspace();
+  const lead = await createUser({ workspaceId: ws.id, roles: ["lead"] });
+  inspectors = [];
+  for (let i = 0; i < CLAIMERS; i++) {
+    const u = await createUser({ workspaceId: ws.id, roles: ["inspector"], password: null });
+    inspectors.push({ id: u.id, workspaceId: ws.id, workspaceName: ws.name, email: u.email, name: u.name, roles: ["inspector"] });
+  }
+  const { partType, supplier } = await createPartTypeAndSupplier(ws.id);
+  lotId = (await createLotWithUnits({ workspaceId: ws.id, createdBy: lead.id, count: UNITS, partTypeId: partType.id, supplierId: supplier.id })).id;
+}, 120_000);
+
+describe(`${CLAIMERS} concurrent claimers over ${UNITS} queued units`, () => {
+  it("claim every unit exactly once, lose none, and then get nothing", async () => {
+    const claimedBy = new Map<string, string[]>();
+    let emptyAnswers = 0;
+    await Promise.all(
+      inspectors.map(async (inspector) => {
+        for (;;) {
+          const unit = await claimNextUnit({ user: inspector, filters: { lotId } });
+          if (!unit) {
+            emptyAnswers++;
+            return;
+          }
+          claimedBy.set(unit.id, [...(claimedBy.get(unit.id) ?? []), inspector.id]);
+        }
+      }),
+    );
+    const duplicates = [...claimedBy.values()].filter((who) => who.length > 1);
+    expect(duplicates).toEqual([]);
+    expect(claimedBy.size).toBe(UNITS);
+    expect(emptyAnswers).toBe(CLAIMERS);
+    const { rows } = await db().execute<{ status: string; n: number; holders: number }>(
+      sql`SELECT status, count(*)::int AS n, count(DISTINCT lease_holder_id)::int AS holders FROM units WHERE lot_id = ${lotId} GROUP BY status`,
+    );
+    expect(rows).toEqual([{ status: "on_bench", n: UNITS, holders: CLAIMERS }]);
+  }, 300_000);
+
+  it("an expired lease makes its unit claimable again, to exactly one claimer", async () => {
+    const expired = (await db().select({ id: units.id }).from(units).where(sql`${units.lotId} = ${lotId}`).limit(25)).map((r) => r.id);
+    await db().update(units).set({ leaseExpiresAt: sql`now() - interval '1 second'` }).where(inArray(units.id, expired));
+    const results = await Promise.all(inspectors.map((inspector) => claimNextUnit({ user: inspector, filters: { lotId } })));
+    const got = results.filter((r) => r !== null).map((r) => r!.id);
+    expect(got.sort()).toEqual([...expired].sort());
+    expect(new Set(got).size).toBe(expired.length);
+    // Everyone else got nothing: the other 9 975 leases are still running.
+    expect(results.filter((r) => r === null)).toHaveLength(CLAIMERS - expired.length);
+  }, 120_000);
+});
