@@ -1,0 +1,66 @@
+/** Public types of the annotation canvas (its props) and the entries its parts share. */
+import type { Ref } from "react";
+import type { Size } from "@/lib/annotate/coords";
+import type { ToolId } from "@/lib/annotate/types";
+import type { RegionSetPayload } from "@/lib/geometry/validate";
+import type { RegionStyle } from "./defect-styles";
+import type { HistoryAvailability } from "./use-committed-changes";
+import type { ViewCommand } from "./view-commands";
+import type { ZoneInput } from "./zones";
+
+export type { HistoryAvailability } from "./use-committed-changes";
+export type { ZoneInput } from "./zones";
+
+/** A defect class of the part type, in the order number keys 1–9 pick them. */
+export type AllowedDefect = Readonly<{ key: string; label: string; severity: "critical" | "major" | "minor" }>;
+
+/** A class with the style it is drawn in. */
+export type ClassEntry = AllowedDefect & Readonly<{ style: RegionStyle; index: number }>;
+
+export type AnnotationCanvasProps = {
+  /** URL of the preview derivative (the canvas never loads the original). */
+  imageUrl: string;
+  /** Upright original size in pixels: every coordinate in and out is in this space. */
+  original: Size;
+  /** Pixel size of the preview derivative (its real size wins once it has loaded). */
+  preview: Size;
+  allowedDefects: readonly AllowedDefect[];
+  /** The view's inspection zones, in 0..1 of the Surface's bounding box. */
+  zones?: readonly ZoneInput[];
+  /** Saved regions; read once on mount (give the canvas a new `key` to load another set). */
+  initialRegions?: RegionSetPayload | null;
+  /** After every committed edit (also undo/redo), with the whole region set: for autosave. */
+  onChange?: (payload: RegionSetPayload) => void;
+  onHistoryChange?: (availability: HistoryAvailability) => void;
+  /**
+   * Receives the imperative handle. A prop of its own rather than `ref`, because next/dynamic
+   * (the lazy wrapper) keeps `ref` for its own loader object and would not pass it on.
+   */
+  handleRef?: Ref<AnnotationCanvasHandle>;
+  /** View only: pan, zoom, hide classes and select from the list; no editing. */
+  readOnly?: boolean;
+  className?: string;
+};
+
+/** Imperative handle (via the `handleRef` prop) for a page's own buttons or tests. */
+export type AnnotationCanvasHandle = {
+  undo(): void;
+  redo(): void;
+  view(command: ViewCommand): void;
+  focus(): void;
+  /** The current region set, as onChange would report it. */
+  getRegions(): RegionSetPayload;
+};
+
+export type ToolbarActions = {
+  tool(id: ToolId): void;
+  defect(key: string): void;
+  toggleHidden(key: string): void;
+  lineWidth(width: number): void;
+  view(command: ViewCommand): void;
+  undo(): void;
+  redo(): void;
+  rulerLength(lengthMm: number): void;
+  cancelRuler(): void;
+  showShortcuts(): void;
+};
