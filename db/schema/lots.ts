@@ -165,6 +165,16 @@ export const units = pgTable(
     index("units_open_queue_idx")
       .on(t.workspaceId, t.lotDueOn, t.lotReceivedOn, t.lotCreatedAt, t.lotId, t.sampleIndex, t.id)
       .where(sql`${t.status} IN ('queued', 'on_bench')`),
+    // Take next with a filter ("next battery", one lot, one supplier) walks only matching rows, in order.
+    index("units_queued_by_lot_idx")
+      .on(t.workspaceId, t.lotId, t.lotDueOn, t.lotReceivedOn, t.lotCreatedAt, t.sampleIndex, t.id)
+      .where(sql`${t.status} = 'queued'`),
+    index("units_queued_by_part_type_idx")
+      .on(t.workspaceId, t.partTypeId, t.lotDueOn, t.lotReceivedOn, t.lotCreatedAt, t.lotId, t.sampleIndex, t.id)
+      .where(sql`${t.status} = 'queued'`),
+    index("units_queued_by_supplier_idx")
+      .on(t.workspaceId, t.supplierId, t.lotDueOn, t.lotReceivedOn, t.lotCreatedAt, t.lotId, t.sampleIndex, t.id)
+      .where(sql`${t.status} = 'queued'`),
     // Take next finds expired leases without walking every running one.
     index("units_lease_expiry_idx").on(t.workspaceId, t.leaseExpiresAt).where(sql`${t.status} = 'on_bench'`),
   ],

@@ -33,7 +33,8 @@ type Raw = {
   supplier_name: string;
   lot_due_on: string;
   lot_received_on: string;
-  lot_created_at: Date;
+  /** Microsecond text, so the cursor compares exactly (a JS Date would round to milliseconds). */
+  lot_created_at: string;
   holder_id: string | null;
   holder_name: string | null;
   claimed_at: Date | null;
@@ -50,23 +51,30 @@ export async function listQueue({ workspaceId, filters, cursor, limit }: { works
     ? sql`AND (u.lot_due_on, u.lot_received_on, u.lot_created_at, u.lot_id, u.sample_index, u.id)
           > (${after.dueOn}::date, ${after.receivedOn}::date, ${after.lotCreatedAt}::timestamptz, ${after.lotId}::uuid, ${after.sampleIndex}, ${after.id}::uuid)`
     : sql``;
+  // The page is cut from units alone (walking units_open_queue_idx in order), then the few rows
+  // are joined; joining first lets the planner misjudge the row count and sort the whole queue.
   const { rows } = await db().execute<Raw>(sql`
+    WITH page AS MATERIALIZED (
+      SELECT u.* FROM units u
+      WHERE u.workspace_id = ${workspaceId}
+        AND u.status IN ('queued', 'on_bench')
+        AND EXISTS (SELECT 1 FROM lots l WHERE l.id = u.lot_id AND l.status = 'open')
+        ${filterSql(filters)}
+        ${keyset}
+      ORDER BY u.lot_due_on, u.lot_received_on, u.lot_created_at, u.lot_id, u.sample_index, u.id
+      LIMIT ${limit + 1}
+    )
     SELECT u.id, u.serial, u.sample_index, u.status, (u.lease_expires_at > now()) AS lease_active,
            u.lot_id, l.purchase_ref, u.part_type_id, pt.name AS part_type_name, s.name AS supplier_name,
-           to_char(u.lot_due_on, 'YYYY-MM-DD') AS lot_due_on, to_char(u.lot_received_on, 'YYYY-MM-DD') AS lot_received_on, u.lot_created_at,
+           to_char(u.lot_due_on, 'YYYY-MM-DD') AS lot_due_on, to_char(u.lot_received_on, 'YYYY-MM-DD') AS lot_received_on,
+           to_char(u.lot_created_at AT TIME ZONE 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.US"Z"') AS lot_created_at,
            u.lease_holder_id AS holder_id, h.name AS holder_name, u.claimed_at, u.lease_expires_at
-    FROM units u
+    FROM page u
     JOIN lots l ON l.id = u.lot_id
     JOIN part_types pt ON pt.id = u.part_type_id
     JOIN suppliers s ON s.id = u.supplier_id
     LEFT JOIN users h ON h.id = u.lease_holder_id
-    WHERE u.workspace_id = ${workspaceId}
-      AND u.status IN ('queued', 'on_bench')
-      AND l.status = 'open'
-      ${filterSql(filters)}
-      ${keyset}
-    ORDER BY u.lot_due_on, u.lot_received_on, u.lot_created_at, u.lot_id, u.sample_index, u.id
-    LIMIT ${limit + 1}`);
+    ORDER BY u.lot_due_on, u.lot_received_on, u.lot_created_at, u.lot_id, u.sample_index, u.id`);
   const page = rows.slice(0, limit);
   const last = page.at(-1);
   return {
@@ -91,7 +99,7 @@ export async function listQueue({ workspaceId, filters, cursor, limit }: { works
     ),
     nextCursor:
       rows.length > limit && last
-        ? encodeCursor({ dueOn: last.lot_due_on, receivedOn: last.lot_received_on, lotCreatedAt: new Date(last.lot_created_at).toISOString(), lotId: last.lot_id, sampleIndex: last.sample_index, id: last.id })
+        ? encodeCursor({ dueOn: last.lot_due_on, receivedOn: last.lot_received_on, lotCreatedAt: last.lot_created_at, lotId: last.lot_id, sampleIndex: last.sample_index, id: last.id })
         : null,
   };
 }

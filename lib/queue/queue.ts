@@ -29,18 +29,20 @@ export function filterSql(filters: QueueFilters): SQL {
  * needed to be correct). SKIP LOCKED: two claimers never wait on each other here either.
  */
 async function returnExpiredLeases(tx: Tx, workspaceId: string) {
-  const { rows } = await tx.execute<{ id: string; lease_holder_id: string }>(sql`
+  // One statement: return the units and log each expiry (set-based, however many expired at once).
+  await tx.execute(sql`
     WITH expired AS (
       SELECT id, lease_holder_id FROM units
       WHERE workspace_id = ${workspaceId} AND status = ${ON_BENCH} AND lease_expires_at < now()
       FOR UPDATE SKIP LOCKED
+    ), returned AS (
+      UPDATE units u SET status = ${QUEUED}, lease_holder_id = NULL, lease_expires_at = NULL, claimed_at = NULL, updated_at = now()
+      FROM expired WHERE u.id = expired.id
+      RETURNING u.id, expired.lease_holder_id
     )
-    UPDATE units u SET status = ${QUEUED}, lease_holder_id = NULL, lease_expires_at = NULL, claimed_at = NULL, updated_at = now()
-    FROM expired WHERE u.id = expired.id
-    RETURNING u.id, expired.lease_holder_id`);
-  for (const row of rows) {
-    await logActivity(tx, { workspaceId, actorId: null, action: "unit.lease_expired", subjectType: "unit", subjectId: row.id, detail: { holder: row.lease_holder_id } });
-  }
+    INSERT INTO activity_log (workspace_id, actor_id, action, subject_type, subject_id, detail)
+    SELECT ${workspaceId}::uuid, NULL, 'unit.lease_expired', 'unit', returned.id::text, jsonb_build_object('holder', returned.lease_holder_id)
+    FROM returned`);
 }
 
 /** True when a unit is waiting (read without locks, so rows other claimers are busy with count too). */
@@ -59,6 +61,9 @@ async function anythingWaiting(workspaceId: string, filters: QueueFilters): Prom
 async function claimOnce(user: SessionUser, filters: QueueFilters): Promise<ClaimedUnit | null> {
   const leaseSeconds = env().QUEUE_LEASE_SECONDS;
   return db().transaction(async (tx) => {
+    // A claim lost in a crash only puts the unit back in the queue, so it need not wait for the
+    // WAL flush; this keeps Take next fast under load.
+    await tx.execute(sql`SET LOCAL synchronous_commit = off`);
     await returnExpiredLeases(tx, user.workspaceId);
     const { rows } = await tx.execute<{ id: string; lot_id: string; serial: string | null; sample_index: number; part_type_id: string; lease_expires_at: Date }>(sql`
       WITH next AS (
@@ -70,12 +75,14 @@ async function claimOnce(user: SessionUser, filters: QueueFilters): Promise<Clai
         ORDER BY u.lot_due_on, u.lot_received_on, u.lot_created_at, u.lot_id, u.sample_index, u.id
         LIMIT 1
         FOR UPDATE OF u SKIP LOCKED
+      ), claimed AS (
+        UPDATE units u
+        SET status = ${ON_BENCH}, lease_holder_id = ${user.id}, lease_expires_at = now() + make_interval(secs => ${leaseSeconds}),
+            claimed_at = now(), updated_at = now()
+        FROM next WHERE u.id = next.id
+        RETURNING u.id, u.lot_id, u.serial, u.sample_index, u.part_type_id, u.lease_expires_at
       )
-      UPDATE units u
-      SET status = ${ON_BENCH}, lease_holder_id = ${user.id}, lease_expires_at = now() + make_interval(secs => ${leaseSeconds}),
-          claimed_at = now(), updated_at = now()
-      FROM next WHERE u.id = next.id
-      RETURNING u.id, u.lot_id, u.serial, u.sample_index, u.part_type_id, u.lease_expires_at`);
+      SELECT * FROM claimed`);
     const row = rows[0];
     if (!row) return null;
     await logActivity(tx, { workspaceId: user.workspaceId, actorId: user.id, action: "unit.claimed", subjectType: "unit", subjectId: row.id });

@@ -1,0 +1,3 @@
+CREATE INDEX "units_queued_by_lot_idx" ON "units" USING btree ("workspace_id","lot_id","lot_due_on","lot_received_on","lot_created_at","sample_index","id") WHERE "units"."status" = 'queued';--> statement-breakpoint
+CREATE INDEX "units_queued_by_part_type_idx" ON "units" USING btree ("workspace_id","part_type_id","lot_due_on","lot_received_on","lot_created_at","lot_id","sample_index","id") WHERE "units"."status" = 'queued';--> statement-breakpoint
+CREATE INDEX "units_queued_by_supplier_idx" ON "units" USING btree ("workspace_id","supplier_id","lot_due_on","lot_received_on","lot_created_at","lot_id","sample_index","id") WHERE "units"."status" = 'queued';
