@@ -27,8 +27,12 @@ export function parseWith<S extends z.ZodType>(schema: S, value: unknown, what?:
 
 const uuidPattern = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
+export function isUuid(value: string): boolean {
+  return uuidPattern.test(value);
+}
+
 /** Ids in URLs: a malformed id is treated exactly like a missing one (404). */
 export function parseId(value: string | undefined, what: string): string {
-  if (!value || !uuidPattern.test(value)) throw new AppError("not_found", `${what} was not found.`);
+  if (!value || !isUuid(value)) throw new AppError("not_found", `${what} was not found.`);
   return value.toLowerCase();
 }

@@ -11,27 +11,20 @@ import { BatteryCaution, StaticCaution } from "@/components/ui/cautions";
 import { getLot } from "@/db/queries/lots";
 import { listLotUnits } from "@/db/queries/units";
 import { requirePageUser } from "@/lib/auth/require-user";
+import { pageIdOrNotFound } from "@/lib/http/page-params";
 import { hasAnyRole } from "@/lib/auth/roles";
-import { AppError } from "@/lib/errors";
 import { oneLotProgress } from "@/lib/lots/progress";
 import { switchingStateFor } from "@/lib/lots/scheme";
 import { DISPOSITION_LABELS } from "@/lib/lots/schemas";
 import { screenByHref } from "@/lib/nav";
 import { STATIC_SENSITIVE, type PartCategory } from "@/lib/part-types/schemas";
-import { parseId } from "@/lib/validation";
 
 export const metadata: Metadata = { title: "Lot" };
 
 export default async function LotPage(props: PageProps<"/lots/[id]">) {
   const { id: rawId } = await props.params;
   const user = await requirePageUser({ role: screenByHref("/lots")!.roles, from: `/lots/${rawId}` });
-  let id: string;
-  try {
-    id = parseId(rawId, "That lot");
-  } catch (err) {
-    if (err instanceof AppError) notFound();
-    throw err;
-  }
+  const id = pageIdOrNotFound(rawId);
   const row = await getLot({ workspaceId: user.workspaceId, lotId: id });
   if (!row) notFound();
   const { lot } = row;

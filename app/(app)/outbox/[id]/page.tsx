@@ -3,18 +3,18 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { getOutgoingEmail } from "@/db/queries/emails";
 import { requirePageUser } from "@/lib/auth/require-user";
+import { pageIdOrNotFound } from "@/lib/http/page-params";
 import { localInboxDir } from "@/lib/env";
 import { readDeliveredMessage } from "@/lib/mail/inbox";
 
 export const metadata: Metadata = { title: "Outbox message" };
 
-const uuid = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
-
 export default async function OutboxMessagePage(props: PageProps<"/outbox/[id]">) {
-  const { id } = await props.params;
-  const user = await requirePageUser({ role: "lead", from: `/outbox/${id}` });
+  const { id: rawId } = await props.params;
+  const user = await requirePageUser({ role: "lead", from: `/outbox/${rawId}` });
   const inbox = localInboxDir();
-  if (!inbox || !uuid.test(id)) notFound();
+  if (!inbox) notFound();
+  const id = pageIdOrNotFound(rawId);
   const email = await getOutgoingEmail({ workspaceId: user.workspaceId, emailId: id });
   if (!email) notFound();
   const delivered = email.messageId ? await readDeliveredMessage(inbox, email.messageId) : null;

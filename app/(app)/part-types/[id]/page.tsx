@@ -6,25 +6,18 @@ import { PartTypeForm } from "@/components/part-types/part-type-form";
 import { BatteryCaution, StaticCaution } from "@/components/ui/cautions";
 import { getPartType } from "@/db/queries/part-types";
 import { requirePageUser } from "@/lib/auth/require-user";
+import { pageIdOrNotFound } from "@/lib/http/page-params";
 import { hasAnyRole } from "@/lib/auth/roles";
-import { AppError } from "@/lib/errors";
 import { screenByHref } from "@/lib/nav";
 import { partTypeToForm } from "@/lib/part-types/form-model";
 import { CATEGORY_LABELS, STATIC_SENSITIVE, type PartCategory } from "@/lib/part-types/schemas";
-import { parseId } from "@/lib/validation";
 
 export const metadata: Metadata = { title: "Part type" };
 
 export default async function PartTypePage(props: PageProps<"/part-types/[id]">) {
   const { id: rawId } = await props.params;
   const user = await requirePageUser({ role: screenByHref("/part-types")!.roles, from: `/part-types/${rawId}` });
-  let id: string;
-  try {
-    id = parseId(rawId, "That part type");
-  } catch (err) {
-    if (err instanceof AppError) notFound();
-    throw err;
-  }
+  const id = pageIdOrNotFound(rawId);
   const partType = await getPartType({ workspaceId: user.workspaceId, partTypeId: id });
   if (!partType) notFound();
   const category = partType.category as PartCategory;

@@ -4,23 +4,16 @@ import { notFound } from "next/navigation";
 import { getSupplier } from "@/db/queries/suppliers";
 import { SupplierForm } from "@/components/suppliers/supplier-form";
 import { requirePageUser } from "@/lib/auth/require-user";
+import { pageIdOrNotFound } from "@/lib/http/page-params";
 import { hasAnyRole } from "@/lib/auth/roles";
 import { screenByHref } from "@/lib/nav";
-import { AppError } from "@/lib/errors";
-import { parseId } from "@/lib/validation";
 
 export const metadata: Metadata = { title: "Supplier" };
 
 export default async function SupplierPage(props: PageProps<"/suppliers/[id]">) {
   const { id: rawId } = await props.params;
   const user = await requirePageUser({ role: screenByHref("/suppliers")!.roles, from: `/suppliers/${rawId}` });
-  let id: string;
-  try {
-    id = parseId(rawId, "That supplier");
-  } catch (err) {
-    if (err instanceof AppError) notFound();
-    throw err;
-  }
+  const id = pageIdOrNotFound(rawId);
   const supplier = await getSupplier({ workspaceId: user.workspaceId, supplierId: id });
   if (!supplier) notFound();
   return (
