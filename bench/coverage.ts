@@ -18,6 +18,7 @@ import type { Point, Shape } from "@/lib/geometry/shape";
 import type { CoverageInput } from "@/lib/measure/types";
 import { measureCoverage } from "@/lib/imaging/coverage";
 import { shapeRings } from "@/lib/imaging/raster/shape-geometry";
+import { mulberry32 as seededRandom } from "@/tests/support/prng";
 
 // The package's runtime export is a default object; its typings declare named functions.
 const polygonClipping =
@@ -28,15 +29,6 @@ const HEIGHT = 3000;
 const RUNS = 21;
 const BASELINE_RUNS = 5;
 
-function seededRandom(seed: number): () => number {
-  // mulberry32: small, fast, reproducible.
-  return () => {
-    seed = (seed + 0x6d2b79f5) | 0;
-    let t = Math.imul(seed ^ (seed >>> 15), 1 | seed);
-    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 function buildScene(): CoverageInput {
   const random = seededRandom(20261201);

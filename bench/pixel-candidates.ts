@@ -5,17 +5,8 @@
  */
 import sharp from "sharp";
 import { suggestPixelCandidates } from "@/lib/imaging/pixel-candidates";
+import { mulberry32 as prng } from "@/tests/support/prng";
 
-function prng(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 async function testScreen(width: number, height: number) {
   const random = prng(width);

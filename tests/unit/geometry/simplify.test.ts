@@ -2,17 +2,8 @@ import { describe, expect, it } from "vitest";
 import { distanceToPolyline } from "@/lib/geometry/distance";
 import type { Point } from "@/lib/geometry/shape";
 import { simplifyPolyline, simplifyRing, simplifyToLimit } from "@/lib/geometry/simplify";
+import { mulberry32 as random } from "@/tests/support/prng";
 
-/** Deterministic pseudo-random numbers (mulberry32) so the stroke is the same on every run. */
-function random(seed: number): () => number {
-  let a = seed;
-  return () => {
-    a = (a + 0x6d2b79f5) | 0;
-    let t = Math.imul(a ^ (a >>> 15), 1 | a);
-    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 function noisyStroke(n: number, seed = 7): Point[] {
   const rnd = random(seed);

@@ -18,16 +18,8 @@ import {
   unionSpanSets,
   type SpanSet,
 } from "@/lib/imaging/raster/spans";
+import { mulberry32 as seededRandom } from "@/tests/support/prng";
 
-function seededRandom(seed: number): () => number {
-  // mulberry32, so a failure reproduces from its seed.
-  return () => {
-    seed = (seed + 0x6d2b79f5) | 0;
-    let t = Math.imul(seed ^ (seed >>> 15), 1 | seed);
-    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 /** Nonzero winding number test at one point (the textbook crossing rule). */
 function insidePolygon(points: Point[], x: number, y: number): boolean {

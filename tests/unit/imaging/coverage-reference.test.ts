@@ -13,20 +13,12 @@ import type { Point, Shape } from "@/lib/geometry/shape";
 import type { CoverageInput } from "@/lib/measure/types";
 import { measureCoverage, type CoverageOptions } from "@/lib/imaging/coverage";
 import { shapeRings } from "@/lib/imaging/raster/shape-geometry";
+import { mulberry32 as seededRandom } from "@/tests/support/prng";
 
 // The package's runtime export is one default object; its typings declare named functions.
 const polygonClipping =
   (polygonClippingModule as unknown as { default?: typeof polygonClippingModule }).default ?? polygonClippingModule;
 
-function seededRandom(seed: number): () => number {
-  // mulberry32.
-  return () => {
-    seed = (seed + 0x6d2b79f5) | 0;
-    let t = Math.imul(seed ^ (seed >>> 15), 1 | seed);
-    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 /** Shoelace area of a MultiPolygon: each polygon's outer ring minus its holes. */
 function multiPolygonArea(shape: MultiPolygon): number {

@@ -2,18 +2,8 @@ import { describe, expect, it } from "vitest";
 import sharp from "sharp";
 import { Image } from "image-js";
 import { greyscaleHistogram, histogramOfBytes, otsuSplit, otsuThreshold } from "@/lib/imaging/otsu";
+import { mulberry32 as prng } from "@/tests/support/prng";
 
-/** Deterministic PRNG (mulberry32) so generated images are the same on every run. */
-function prng(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 function gaussian(random: () => number): number {
   return Math.sqrt(-2 * Math.log(1 - random())) * Math.cos(2 * Math.PI * random());

@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import sharp from "sharp";
 import { suggestPixelCandidates, type PixelCandidate, type PixelCandidateResult } from "@/lib/imaging/pixel-candidates";
+import { mulberry32 as prng } from "@/tests/support/prng";
 
 /*
  * Generated test screens. "Planted" faults are written into raw RGB before encoding; a planted
@@ -13,16 +14,6 @@ import { suggestPixelCandidates, type PixelCandidate, type PixelCandidateResult 
 type Rgb = [number, number, number];
 type Planted = { x: number; y: number; size: number; colour: (number | null)[]; kind: PixelCandidate["kind"] };
 
-function prng(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 /** A uniform screen with optional Gaussian noise (σ) and a left-to-right gradient (± gradient / 2). */
 function screen(width: number, height: number, colour: Rgb, { noise = 0, gradient = 0, seed = 1 } = {}): Buffer {

@@ -2,6 +2,7 @@ import { describe, expect, it } from "vitest";
 import sharp from "sharp";
 import type { Point } from "@/lib/geometry/shape";
 import { simplifyRing, suggestSurface, traceOuterBoundary } from "@/lib/imaging/suggest-surface";
+import { mulberry32 as prng } from "@/tests/support/prng";
 
 /** Shoelace formula (a: the standard surveyor's area formula for a simple polygon). */
 function shoelace(points: Point[]): number {
@@ -17,16 +18,6 @@ function shoelace(points: Point[]): number {
 /** Area of a w × h rectangle with corner radius r: w·h − (4 − π)·r² (a: elementary geometry). */
 const roundedRectArea = (w: number, h: number, r: number) => w * h - (4 - Math.PI) * r * r;
 
-function prng(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 type Part = { x: number; y: number; w: number; h: number; r: number; rotate?: number; grey: number };
 
