@@ -8,7 +8,9 @@
  * annotation-canvas-lazy.tsx: Konva must never run on the server.
  */
 import { useCallback, useEffect, useId, useImperativeHandle, useMemo, useRef, useState } from "react";
+import { createPortal } from "react-dom";
 import { Stage } from "react-konva";
+import { addNewRegions, replaceAllRegions } from "@/lib/annotate/bulk-edits";
 import { fitToView, type Viewport } from "@/lib/annotate/coords";
 import { isRegionVisible } from "@/lib/annotate/hit-test";
 import { createAnnotationState, selectedRegion, setViewport } from "@/lib/annotate/model";
@@ -25,7 +27,7 @@ import { RegionsLayer } from "./regions-layer";
 import { RulerLengthInput } from "./ruler-length-input";
 import { ShortcutSheet } from "./shortcut-sheet";
 import { Toolbar } from "./toolbar";
-import type { AnnotationCanvasProps, ClassEntry, ZoneInput } from "./types";
+import type { AnnotationCanvasProps, ClassEntry, GhostShape, ZoneInput } from "./types";
 import { useCanvasActions } from "./use-canvas-actions";
 import { useCanvasKeys } from "./use-canvas-keys";
 import { useCommittedChanges } from "./use-committed-changes";
@@ -37,6 +39,7 @@ import { zoneBox, zonesToImage } from "./zones";
 export type { AnnotationCanvasHandle, AnnotationCanvasProps } from "./types";
 
 const NO_ZONES: readonly ZoneInput[] = [];
+const NO_GHOSTS: readonly GhostShape[] = [];
 
 /** Start of this session's region ids: random, so ids stay unique across sessions and devices. */
 function newIdPrefix(): string {
@@ -61,6 +64,7 @@ function statusText(state: AnnotationState, imageStatus: "loading" | "ready" | "
 
 export function AnnotationCanvas(props: AnnotationCanvasProps) {
   const { handleRef, imageUrl, original, preview, allowedDefects, zones = NO_ZONES, initialRegions, onChange, onHistoryChange, readOnly = false, className = "" } = props;
+  const { ghosts = NO_GHOSTS, regionListContainer = null } = props;
   const defectKeys = useMemo(() => allowedDefects.map((d) => d.key), [allowedDefects]);
   const { state, dispatch, latestRef } = useCanvasStore(() =>
     createAnnotationState({ image: original, allowedDefects: defectKeys, idPrefix: newIdPrefix(), regions: initialRegions ? regionsFromPayload(initialRegions) : [] }),
@@ -88,7 +92,7 @@ export function AnnotationCanvas(props: AnnotationCanvasProps) {
   const showShortcuts = useCallback(() => setSheetOpen(true), []);
   const focusStage = useCallback(() => containerRef.current?.focus({ preventScroll: true }), []);
   const actions = useCanvasActions({ dispatch, stageSize, fittedRef, image: original, onShowShortcuts: showShortcuts, focusStage });
-  useCanvasKeys({ rootRef, latestRef, dispatch, readOnly, onView: actions.view, spaceHeldRef, onShowShortcuts: showShortcuts });
+  useCanvasKeys({ rootRef, alsoIn: regionListContainer, latestRef, dispatch, readOnly, onView: actions.view, spaceHeldRef, onShowShortcuts: showShortcuts });
   const pointer = usePointerInput({ containerRef, latestRef, dispatch, readOnly, spaceHeldRef });
 
   // Fit the photo when the stage first gets a size, and again on resize until the inspector zooms or pans.
@@ -101,8 +105,16 @@ export function AnnotationCanvas(props: AnnotationCanvasProps) {
 
   useImperativeHandle(
     handleRef,
-    () => ({ undo: actions.undo, redo: actions.redo, view: actions.view, focus: focusStage, getRegions: () => toRegionSetPayload(latestRef.current) }),
-    [actions, focusStage, latestRef],
+    () => ({
+      undo: actions.undo,
+      redo: actions.redo,
+      view: actions.view,
+      focus: focusStage,
+      getRegions: () => toRegionSetPayload(latestRef.current),
+      replaceRegions: (payload) => dispatch(edit((s) => replaceAllRegions(s, regionsFromPayload(payload)))),
+      addRegions: (items) => dispatch(edit((s) => addNewRegions(s, items).state)),
+    }),
+    [actions, focusStage, latestRef, dispatch],
   );
 
   const enabledKey = TOOLS.filter((t) => !readOnly && t.isEnabled(state)).map((t) => t.id).join(" ");
@@ -124,6 +136,15 @@ export function AnnotationCanvas(props: AnnotationCanvasProps) {
   const cursor = pointer.panning ? "grabbing" : readOnly ? "grab" : state.activeTool === "select" ? "default" : "crosshair";
   const ready = imageStatus === "ready" && stageSize !== null;
 
+  const regionList = (
+    <section aria-labelledby={`${statusId}-regions`} data-testid="region-panel">
+      <h2 id={`${statusId}-regions`} className="mb-2 text-sm font-semibold text-gauge-900">
+        Regions ({state.regions.length})
+      </h2>
+      <RegionList regions={state.regions} selectedId={state.selectedId} classes={classByKey} hiddenDefects={state.hiddenDefects} readOnly={readOnly} onSelect={actions.select} onDelete={actions.remove} />
+    </section>
+  );
+
   return (
     <div ref={rootRef} className={`flex flex-col gap-3 ${className}`} data-testid="annotation-canvas">
       <Toolbar
@@ -139,7 +160,7 @@ export function AnnotationCanvas(props: AnnotationCanvasProps) {
         readOnly={readOnly}
         actions={actions}
       />
-      <div className="flex flex-col gap-3 lg:flex-row">
+      <div className={`flex flex-col gap-3 ${regionListContainer ? "" : "lg:flex-row"}`}>
         <div className="relative min-w-0 flex-1">
           <div
             ref={containerRef}
@@ -155,7 +176,9 @@ export function AnnotationCanvas(props: AnnotationCanvasProps) {
             data-ready={ready ? "true" : "false"}
             data-region-count={state.regions.length}
             data-tool={state.activeTool}
-            data-zoom={Math.round(state.viewport.scale * 1e4) / 1e4}
+            data-zoom={Math.round(state.viewport.scale * 1e6) / 1e6}
+            data-offset-x={Math.round(state.viewport.offsetX * 100) / 100}
+            data-offset-y={Math.round(state.viewport.offsetY * 100) / 100}
           >
             {stageSize && (
               <Stage width={stageSize.width} height={stageSize.height} listening={false}>
@@ -168,6 +191,8 @@ export function AnnotationCanvas(props: AnnotationCanvasProps) {
                   lineWidth={state.lineWidth}
                   selected={visibleSelection}
                   showHandles={!readOnly}
+                  ghosts={ghosts}
+                  styles={styles}
                 />
               </Stage>
             )}
@@ -182,20 +207,7 @@ export function AnnotationCanvas(props: AnnotationCanvasProps) {
             {statusText(state, imageStatus, readOnly)}
           </p>
         </div>
-        <aside className="lg:max-h-[65vh] lg:w-80 lg:overflow-y-auto" aria-labelledby={`${statusId}-regions`}>
-          <h2 id={`${statusId}-regions`} className="mb-2 text-sm font-semibold text-gauge-900">
-            Regions ({state.regions.length})
-          </h2>
-          <RegionList
-            regions={state.regions}
-            selectedId={state.selectedId}
-            classes={classByKey}
-            hiddenDefects={state.hiddenDefects}
-            readOnly={readOnly}
-            onSelect={actions.select}
-            onDelete={actions.remove}
-          />
-        </aside>
+        {regionListContainer ? createPortal(regionList, regionListContainer) : <aside className="lg:max-h-[65vh] lg:w-80 lg:overflow-y-auto">{regionList}</aside>}
       </div>
       <ShortcutSheet open={sheetOpen} onClose={() => setSheetOpen(false)} />
     </div>

@@ -9,7 +9,9 @@ import { handlesOf } from "@/lib/annotate/hit-test";
 import type { Draft, Region } from "@/lib/annotate/types";
 import { hexWithAlpha, type RegionStyle } from "./defect-styles";
 import { layerTransform, nativeContext, paintViewOf } from "./konva-view";
+import { paintGhosts } from "./paint-ghosts";
 import { paintHandles, paintRuler, paintSelection } from "./paint-regions";
+import type { GhostShape } from "./types";
 
 type InteractionLayerProps = {
   viewport: Viewport;
@@ -21,6 +23,9 @@ type InteractionLayerProps = {
   /** The selected region when it is visible, else null. */
   selected: Region | null;
   showHandles: boolean;
+  /** Suggestions waiting to be accepted or dismissed. */
+  ghosts: readonly GhostShape[];
+  styles: ReadonlyMap<string, RegionStyle>;
 };
 
 /** Konva stroke props that stay the same on screen at every zoom (dash lengths too). */
@@ -84,7 +89,14 @@ function DraftShape({ draft, style, lineWidth, scale }: { draft: Draft; style: R
  * progress and the ruler being placed. Few nodes, so it simply re-renders with the view (grip
  * sizes depend on the zoom).
  */
-export const InteractionLayer = memo(function InteractionLayer({ viewport, draft, draftStyle, lineWidth, selected, showHandles }: InteractionLayerProps) {
+export const InteractionLayer = memo(function InteractionLayer({ viewport, draft, draftStyle, lineWidth, selected, showHandles, ghosts, styles }: InteractionLayerProps) {
+  const ghostFunc = useCallback(
+    (context: Konva.Context, shape: Konva.Shape) => {
+      const view = paintViewOf(shape);
+      if (view) paintGhosts(nativeContext(context), ghosts, styles, view);
+    },
+    [ghosts, styles],
+  );
   const selectionFunc = useCallback(
     (context: Konva.Context, shape: Konva.Shape) => {
       const view = paintViewOf(shape);
@@ -116,7 +128,8 @@ export const InteractionLayer = memo(function InteractionLayer({ viewport, draft
   );
   return (
     // An empty layer is hidden so panning does not clear and composite a blank canvas each frame.
-    <Layer listening={false} visible={selected !== null || draft !== null} {...layerTransform(viewport)}>
+    <Layer listening={false} visible={selected !== null || draft !== null || ghosts.length > 0} {...layerTransform(viewport)}>
+      {ghosts.length > 0 && <Shape sceneFunc={ghostFunc} listening={false} perfectDrawEnabled={false} />}
       {selected && <Shape sceneFunc={selectionFunc} listening={false} perfectDrawEnabled={false} />}
       {draft && <DraftShape draft={draft} style={draftStyle} lineWidth={lineWidth} scale={viewport.scale} />}
       {draft?.tool === "ruler" && <Shape sceneFunc={rulerFunc} listening={false} perfectDrawEnabled={false} />}

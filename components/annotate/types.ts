@@ -1,7 +1,9 @@
 /** Public types of the annotation canvas (its props) and the entries its parts share. */
 import type { Ref } from "react";
+import type { NewRegion } from "@/lib/annotate/bulk-edits";
 import type { Size } from "@/lib/annotate/coords";
 import type { ToolId } from "@/lib/annotate/types";
+import type { PolygonShape, Shape } from "@/lib/geometry/shape";
 import type { RegionSetPayload } from "@/lib/geometry/validate";
 import type { RegionStyle } from "./defect-styles";
 import type { HistoryAvailability } from "./use-committed-changes";
@@ -39,8 +41,18 @@ export type AnnotationCanvasProps = {
   handleRef?: Ref<AnnotationCanvasHandle>;
   /** View only: pan, zoom, hide classes and select from the list; no editing. */
   readOnly?: boolean;
+  /** Suggested shapes drawn as ghosts over the photo (not regions until accepted through the handle). */
+  ghosts?: readonly GhostShape[];
+  /**
+   * Where the region list goes: an element elsewhere on the page (a side panel) gets it through a
+   * portal and the stage takes the full width; without one it sits beside the stage.
+   */
+  regionListContainer?: HTMLElement | null;
   className?: string;
 };
+
+/** A suggestion shown on the canvas: dashed, unfilled, never hit-tested or saved. */
+export type GhostShape = Readonly<{ id: string; label: string } & ({ role: "surface"; shape: PolygonShape } | { role: "defect"; defect: string; shape: Shape })>;
 
 /** Imperative handle (via the `handleRef` prop) for a page's own buttons or tests. */
 export type AnnotationCanvasHandle = {
@@ -50,6 +62,10 @@ export type AnnotationCanvasHandle = {
   focus(): void;
   /** The current region set, as onChange would report it. */
   getRegions(): RegionSetPayload;
+  /** Puts `payload` in place of every region as one undo step (another session's save, or a merge). */
+  replaceRegions(payload: RegionSetPayload): void;
+  /** Adds new regions (accepted suggestions) as one undo step, each with a fresh id. */
+  addRegions(regions: readonly NewRegion[]): void;
 };
 
 export type ToolbarActions = {

@@ -11,7 +11,24 @@ import { MAX_REASON_LENGTH, recordGradeSchema } from "@/lib/grading/schemas";
 import { ApiError, apiFetch } from "@/lib/http/client";
 import { GradeBadge } from "./grade-badge";
 import { GradeLines } from "./grade-lines";
+import { MeasurementTable, type MeasurementLabels } from "./measurement-table";
 import { dateTime, type GradeView, type MeasurementView } from "./types";
+
+export type { MeasurementLabels } from "./measurement-table";
+
+type GradePanelProps = {
+  unitId: string;
+  canGrade: boolean;
+  canCorrect: boolean;
+  /** Names for classes, zones and views in the measurement table (keys shown without them). */
+  labels?: MeasurementLabels;
+  /** Region edits are still being saved: measuring now would read the older regions. */
+  unsavedRegions?: boolean;
+  /** Runs before measuring (the Bench saves pending regions); false stops the measurement. */
+  beforeMeasure?: () => Promise<boolean>;
+  /** After a grade is recorded (the unit moved on). */
+  onGraded?: () => void;
+};
 
 type MeasureState = { measurement: MeasurementView | null; job: { id: string; state: string } | null };
 type FormValues = z.input<typeof recordGradeSchema>;
@@ -24,8 +41,8 @@ function cleaned(values: FormValues): FormValues {
 const schemaResolver = zodResolver(recordGradeSchema);
 const resolver: Resolver<FormValues> = (values, context, options) => schemaResolver(cleaned(values), context, options) as ReturnType<Resolver<FormValues>>;
 
-/** Measuring a unit and recording its grade: the proposal with its reasons, accept or override. */
-export function GradePanel({ unitId, canGrade, canCorrect }: { unitId: string; canGrade: boolean; canCorrect: boolean }) {
+/** Measuring a unit and recording its grade: the numbers, the proposal with its reasons, accept or override. */
+export function GradePanel({ unitId, canGrade, canCorrect, labels = { defects: {}, zones: {}, views: {} }, unsavedRegions = false, beforeMeasure, onGraded }: GradePanelProps) {
   const queryClient = useQueryClient();
   const [jobId, setJobId] = useState<string | null>(null);
   const [message, setMessage] = useState<{ kind: "error" | "success"; text: string } | null>(null);
@@ -44,7 +61,10 @@ export function GradePanel({ unitId, canGrade, canCorrect }: { unitId: string; c
     void queryClient.invalidateQueries({ queryKey: ["grade-preview", unitId] });
   };
   const measure = useMutation({
-    mutationFn: () => apiFetch<{ status: "measured" | "queued"; jobId?: string | null; message?: string }>(`/api/units/${unitId}/measure`, { method: "POST" }),
+    mutationFn: async () => {
+      if (beforeMeasure && !(await beforeMeasure())) throw new Error("Some region edits could not be saved yet, so measuring now would use older regions. Wait until they are saved (see the status above the photo), then measure.");
+      return apiFetch<{ status: "measured" | "queued"; jobId?: string | null; message?: string }>(`/api/units/${unitId}/measure`, { method: "POST" });
+    },
     onSuccess: (res) => {
       setMessage(res.status === "queued" ? { kind: "success", text: res.message ?? "Measuring in the background." } : null);
       setJobId(res.status === "queued" ? (res.jobId ?? null) : null);
@@ -64,6 +84,7 @@ export function GradePanel({ unitId, canGrade, canCorrect }: { unitId: string; c
       reset({ decision: "accept" });
       setCorrection(false);
       refresh();
+      onGraded?.();
     },
     onError: (err) => {
       if (err instanceof ApiError) for (const [field, text] of Object.entries(err.fieldErrors)) if (field === "reason" || field === "finalGrade") setError(field, { message: text });
@@ -113,6 +134,7 @@ export function GradePanel({ unitId, canGrade, canCorrect }: { unitId: string; c
             </div>
           )}
           <GradeLines lines={m.proposal.lines} notes={m.proposal.notes} testId="proposal-lines" />
+          <MeasurementTable photos={m.photos} labels={labels} />
         </div>
       )}
       {m && !m.stale && canGrade && (
@@ -169,7 +191,8 @@ export function GradePanel({ unitId, canGrade, canCorrect }: { unitId: string; c
               {errors.reason?.message && <p className="field-error">{errors.reason.message}</p>}
             </div>
           )}
-          <button type="submit" className="btn-primary" disabled={grade.isPending}>
+          {unsavedRegions && <p className="text-sm text-signal-700">Region edits are not saved yet; once they are, this measurement is out of date and must be measured again.</p>}
+          <button type="submit" className="btn-primary" disabled={grade.isPending || unsavedRegions}>
             {grade.isPending ? "Recording…" : "Record grade"}
           </button>
         </form>

@@ -1,7 +1,9 @@
 "use client";
 /**
  * The unit's photos by view, with live status: polls while any photo is queued or processing,
- * so each turns ready (or failed, with the reason) without a reload.
+ * so each turns ready (or failed, with the reason) without a reload. Every required view gets a
+ * slot, so a missing one shows as an empty, marked place. On the Bench a ready photo is picked for
+ * the canvas (`onSelect`), and photos with edits not yet saved carry a badge.
  */
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import Link from "next/link";
@@ -20,7 +22,9 @@ const STATUS: Record<PhotoDto["status"], { text: string; className: string }> = 
   failed: { text: "Failed", className: "bg-fault-50 text-fault-700" },
 };
 
-export function PhotoStrip({ unitId, views, canManage = false }: { unitId: string; views: ViewChoice[]; canManage?: boolean }) {
+type Selection = { selectedId: string | null; onSelect(photo: PhotoDto): void; unsavedIds?: ReadonlySet<string> };
+
+export function PhotoStrip({ unitId, views, canManage = false, selection }: { unitId: string; views: ViewChoice[]; canManage?: boolean; selection?: Selection }) {
   const queryClient = useQueryClient();
   const [message, setMessage] = useState<string | null>(null);
   const photos = useQuery({
@@ -62,54 +66,83 @@ export function PhotoStrip({ unitId, views, canManage = false }: { unitId: strin
       </div>
       {message && <FormMessage kind="error">{message}</FormMessage>}
       {list.length === 0 && <p className="text-sm text-gauge-600">No photos yet.</p>}
-      {groups
-        .filter((g) => list.some((p) => p.viewKey === g.key))
-        .map((group) => (
-          <div key={group.key} className="space-y-2">
-            <h3 className="text-sm font-medium text-gauge-800">{group.label}</h3>
-            <ul className="grid grid-cols-2 gap-3 sm:grid-cols-3 lg:grid-cols-4 xl:grid-cols-5">
-              {list
-                .filter((p) => p.viewKey === group.key)
-                .map((photo) => (
-                  <PhotoCard
-                    key={photo.id}
-                    photo={photo}
-                    viewLabel={labelOf(photo.viewKey)}
-                    canManage={canManage}
-                    busy={retry.isPending || dismiss.isPending}
-                    onRetry={() => retry.mutate(photo.id)}
-                    onDismiss={() => dismiss.mutate(photo.id)}
-                  />
-                ))}
-            </ul>
-          </div>
-        ))}
+      <div className="flex flex-wrap gap-3">
+        {groups
+          .filter((g) => g.required || list.some((p) => p.viewKey === g.key))
+          .map((group) => {
+            const own = list.filter((p) => p.viewKey === group.key);
+            const isMissing = missing.some((v) => v.key === group.key);
+            return (
+              <div key={group.key} className={`space-y-1.5 rounded-lg border p-2 ${isMissing ? "border-dashed border-signal-500 bg-signal-50" : "border-gauge-200 bg-white"}`} data-testid="photo-view-group" data-view={group.key}>
+                <h3 className="text-sm font-medium text-gauge-800">
+                  {group.label}
+                  {group.required && <span className="ml-1 text-xs font-normal text-gauge-600">required</span>}
+                </h3>
+                {isMissing && own.length === 0 ? (
+                  <p className="flex h-24 w-32 items-center justify-center rounded border border-dashed border-signal-500 px-2 text-center text-xs font-medium text-signal-700" data-testid="missing-view">
+                    Missing — photograph this view
+                  </p>
+                ) : (
+                  <ul className="flex flex-wrap gap-2">
+                    {own.map((photo) => (
+                      <PhotoCard
+                        key={photo.id}
+                        photo={photo}
+                        viewLabel={labelOf(photo.viewKey)}
+                        canManage={canManage}
+                        busy={retry.isPending || dismiss.isPending}
+                        onRetry={() => retry.mutate(photo.id)}
+                        onDismiss={() => dismiss.mutate(photo.id)}
+                        selected={selection?.selectedId === photo.id}
+                        unsaved={selection?.unsavedIds?.has(photo.id) ?? false}
+                        onSelect={selection ? () => selection.onSelect(photo) : undefined}
+                      />
+                    ))}
+                  </ul>
+                )}
+              </div>
+            );
+          })}
+      </div>
     </section>
   );
 }
 
-function PhotoCard({ photo, viewLabel, canManage, busy, onRetry, onDismiss }: { photo: PhotoDto; viewLabel: string; canManage: boolean; busy: boolean; onRetry: () => void; onDismiss: () => void }) {
+function PhotoCard(props: {
+  photo: PhotoDto;
+  viewLabel: string;
+  canManage: boolean;
+  busy: boolean;
+  onRetry: () => void;
+  onDismiss: () => void;
+  selected: boolean;
+  unsaved: boolean;
+  onSelect?: () => void;
+}) {
+  const { photo, viewLabel, canManage, busy, onRetry, onDismiss, selected, unsaved, onSelect } = props;
   const status = STATUS[photo.status];
+  const image =
+    photo.urls && photo.thumbnail ? (
+      // eslint-disable-next-line @next/next/no-img-element -- served by our own access-checked route
+      <img src={photo.urls.thumbnail} width={photo.thumbnail.width} height={photo.thumbnail.height} alt={`${viewLabel} photo, ${photo.fileName}`} className="max-h-full max-w-full object-contain" data-testid="photo-thumbnail" />
+    ) : (
+      <span className="px-2 text-center text-xs text-gauge-600">{photo.status === "failed" ? "No image" : "Processing…"}</span>
+    );
+  const frame = "flex h-24 w-full items-center justify-center overflow-hidden rounded-t-md bg-gauge-100";
   return (
-    <li className="card overflow-hidden" data-testid="photo-card" data-photo-id={photo.id} data-status={photo.status}>
-      <div className="flex aspect-square items-center justify-center bg-gauge-100">
-        {photo.urls && photo.thumbnail ? (
-          <a href={photo.urls.preview} target="_blank" rel="noreferrer" className="flex h-full w-full items-center justify-center">
-            {/* eslint-disable-next-line @next/next/no-img-element -- served by our own access-checked route */}
-            <img
-              src={photo.urls.thumbnail}
-              width={photo.thumbnail.width}
-              height={photo.thumbnail.height}
-              alt={`${viewLabel} photo, ${photo.fileName}`}
-              className="max-h-full max-w-full object-contain"
-              data-testid="photo-thumbnail"
-            />
-          </a>
-        ) : (
-          <span className="px-2 text-center text-xs text-gauge-600">{photo.status === "failed" ? "No image" : "Processing…"}</span>
-        )}
-      </div>
-      <div className="space-y-1 p-2 text-xs">
+    <li className={`card w-36 overflow-hidden ${selected ? "ring-2 ring-signal-500" : ""}`} data-testid="photo-card" data-photo-id={photo.id} data-status={photo.status} data-selected={selected ? "true" : "false"}>
+      {onSelect && photo.status === "ready" ? (
+        <button type="button" className={`${frame} hover:opacity-90`} aria-pressed={selected} aria-label={`Open the ${viewLabel} photo ${photo.fileName} on the canvas`} onClick={onSelect} data-testid="photo-select">
+          {image}
+        </button>
+      ) : photo.urls ? (
+        <a href={photo.urls.preview} target="_blank" rel="noreferrer" className={frame}>
+          {image}
+        </a>
+      ) : (
+        <div className={frame}>{image}</div>
+      )}
+      <div className="space-y-1 p-1.5 text-xs">
         <div className="flex items-center justify-between gap-1">
           <span className={`rounded px-1.5 py-0.5 font-medium ${status.className}`} data-testid="photo-status">
             {status.text}
@@ -123,6 +156,11 @@ function PhotoCard({ photo, viewLabel, canManage, busy, onRetry, onDismiss }: { 
         <p className="truncate text-gauge-700" title={photo.fileName}>
           {photo.fileName}
         </p>
+        {unsaved && (
+          <p className="font-medium text-signal-700" data-testid="photo-unsaved">
+            Unsaved edits
+          </p>
+        )}
         {photo.retryNote && <p className="text-signal-700">{photo.retryNote}</p>}
         {photo.failure && (
           <p className="text-fault-700" role="alert">
@@ -132,7 +170,7 @@ function PhotoCard({ photo, viewLabel, canManage, busy, onRetry, onDismiss }: { 
         {photo.possibleReuse && (
           <p className="rounded bg-signal-50 px-1.5 py-1 text-signal-700" data-testid="possible-reuse">
             Possible reused photo: the same file is evidence for{" "}
-            <Link className="underline" href={`/units/${photo.possibleReuse.unitId}/photos`}>
+            <Link className="underline" href={`/units/${photo.possibleReuse.unitId}`}>
               {photo.possibleReuse.unitLabel}
             </Link>
             .

@@ -59,7 +59,7 @@ export function listRegionsOfPhotos({ workspaceId, photoIds }: { workspaceId: st
     .select({ photoId: regions.photoId, clientId: regions.clientId, role: regions.role, defectClass: regions.defectClass, shape: regions.shape, ruler: regions.ruler })
     .from(regions)
     .where(and(eq(regions.workspaceId, workspaceId), inArray(regions.photoId, photoIds)))
-    .orderBy(asc(regions.photoId), asc(regions.createdAt), asc(regions.clientId));
+    .orderBy(asc(regions.photoId), asc(regions.position), asc(regions.createdAt), asc(regions.clientId));
 }
 
 /** Checklist results of the unit (pass/fail and severity) and the time of the latest one. */

@@ -51,13 +51,18 @@ export const regions = pgTable(
     authorId: uuid()
       .notNull()
       .references(() => users.id),
-    /** The region set version that wrote this row. */
+    /** The region set version that last changed this region (unchanged regions keep theirs on a save). */
     versionWritten: integer().notNull(),
+    /**
+     * Drawing order within the photo's set (later on top), as the editor had it: rows of one save
+     * share their created_at, so order needs its own column.
+     */
+    position: integer().notNull().default(0),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [
     uniqueIndex("regions_photo_client_key").on(t.photoId, t.clientId),
-    index("regions_workspace_photo_idx").on(t.workspaceId, t.photoId),
+    index("regions_workspace_photo_idx").on(t.workspaceId, t.photoId, t.position),
     check(
       "regions_role_fields",
       sql`(${t.role} = 'defect' AND ${t.defectClass} IS NOT NULL AND ${t.shape} IS NOT NULL AND ${t.ruler} IS NULL)

@@ -59,7 +59,8 @@ export function selectedRegion(state: AnnotationState): Region | undefined {
   return regionById(state, state.selectedId);
 }
 
-function allocateId(state: AnnotationState): { id: RegionId; state: AnnotationState } {
+/** A fresh region id of this session (the counter never goes back). */
+export function allocateId(state: AnnotationState): { id: RegionId; state: AnnotationState } {
   return { id: `${state.idPrefix}-${state.nextIdNumber}`, state: { ...state, nextIdNumber: state.nextIdNumber + 1 } };
 }
 

@@ -74,6 +74,11 @@ export const ROUTES: RouteAccess[] = [
   { method: "GET", path: "/api/photos/:photoId/preview", access: "signed-in", allowedStatus: 200 },
   // A one-minute presigned GET of the untouched original.
   { method: "GET", path: "/api/photos/:photoId/original", access: "signed-in", allowedStatus: 302 },
+  // Regions and suggestions on the Bench (tests/support/region-access.ts: a ready photo on a unit nobody holds).
+  { method: "GET", path: "/api/photos/:regionPhotoId/regions", access: "signed-in", allowedStatus: 200 },
+  // Every allowed caller sends version 0: the first one saves (200), the later ones meet its save (409 with the current set).
+  { method: "PUT", path: "/api/photos/:regionPhotoId/regions", access: ["inspector"], body: () => ({ baseVersion: 0, regions: { regions: [{ id: "route-1", defect: "scratch", shape: { kind: "rect", x: 10, y: 10, width: 20, height: 10 } }], surfaces: [], ruler: null } }), allowedStatus: [200, 409] },
+  { method: "POST", path: "/api/photos/:regionPhotoId/suggestions", access: ["inspector"], body: () => ({ kind: "surface" }), allowedStatus: 200 },
   // Part types, lots, units and checklists (tests/support/lot-access.ts).
   { method: "GET", path: "/api/part-types", access: "signed-in", allowedStatus: 200 },
   { method: "POST", path: "/api/part-types", access: ["lead"], body: () => ({ name: unique("Route part"), category: "other", views: [{ key: "front", label: "Front", required: true, zones: [] }], defectClasses: [{ key: "scratch", label: "Scratch", severity: "minor" }], checklist: [] }), allowedStatus: 201 },

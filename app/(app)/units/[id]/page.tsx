@@ -1,8 +1,9 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
-import { ChecklistPanel } from "@/components/bench/checklist-panel";
-import { UnitHeader } from "@/components/bench/unit-header";
+import { BenchWorkspace } from "@/components/bench/bench-workspace";
 import type { UnitView } from "@/components/bench/use-unit";
+import { getUnitForGrading } from "@/db/queries/grading";
+import { listRubricVersions } from "@/db/queries/rubrics";
 import { getUnitDetail, listUnitResults } from "@/db/queries/units";
 import { requirePageUser } from "@/lib/auth/require-user";
 import { hasAnyRole } from "@/lib/auth/roles";
@@ -12,9 +13,11 @@ import { parseId } from "@/lib/validation";
 
 export const metadata: Metadata = { title: "Bench" };
 
-/** One unit on the Bench: a thin composition of panels (photos and grading are added beside the checklist). */
+const uuidOrNull = (value: string | string[] | undefined) => (typeof value === "string" && /^[0-9a-f-]{36}$/i.test(value) ? value.toLowerCase() : null);
+
+/** One unit on the Bench: a thin server composition; BenchWorkspace owns the photos, canvas, autosave and panels. */
 export default async function UnitPage(props: PageProps<"/units/[id]">) {
-  const { id: rawId } = await props.params;
+  const [{ id: rawId }, search] = await Promise.all([props.params, props.searchParams]);
   const user = await requirePageUser({ role: screenByHref("/lots")!.roles, from: `/units/${rawId}` });
   let id: string;
   try {
@@ -23,16 +26,22 @@ export default async function UnitPage(props: PageProps<"/units/[id]">) {
     if (err instanceof AppError) notFound();
     throw err;
   }
-  const detail = await getUnitDetail({ workspaceId: user.workspaceId, unitId: id });
-  if (!detail) notFound();
-  const results = await listUnitResults({ workspaceId: user.workspaceId, unitIds: [id] });
+  const key = { workspaceId: user.workspaceId, unitId: id };
+  const [detail, grading] = await Promise.all([getUnitDetail(key), getUnitForGrading(key)]);
+  if (!detail || !grading) notFound();
+  const [results, versions] = await Promise.all([listUnitResults({ workspaceId: user.workspaceId, unitIds: [id] }), listRubricVersions({ workspaceId: user.workspaceId, partTypeId: grading.partTypeId })]);
   // The same JSON the API sends, so the panels' queries start from what they will refetch.
   const initial = JSON.parse(JSON.stringify({ ...detail, results })) as UnitView;
   const me = { id: user.id, isLead: hasAnyRole(user.roles, "lead"), canRecord: hasAnyRole(user.roles, "inspector") };
+  const { views, defectClasses, panelResolution } = grading.partType;
   return (
-    <div className="max-w-4xl space-y-6">
-      <UnitHeader initial={initial} me={me} />
-      <ChecklistPanel initial={initial} me={me} />
-    </div>
+    <BenchWorkspace
+      initial={initial}
+      me={me}
+      canCorrect={me.isLead}
+      partType={{ views, defectClasses, panelResolution }}
+      rubricVersions={versions.map((v) => ({ version: v.version, status: v.status }))}
+      initialPhotoId={uuidOrNull(search.photo)}
+    />
   );
 }

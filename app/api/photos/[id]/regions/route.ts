@@ -1,0 +1,33 @@
+import { requireUser } from "@/lib/auth/require-user";
+import { handler, parseJson } from "@/lib/http/route";
+import { loadPhotoForRegions, readRegionSet, RegionVersionConflict, saveRegionSet } from "@/lib/regions/regions";
+import { REGION_SAVE_MAX_BYTES, saveRegionsSchema } from "@/lib/regions/schemas";
+import { parseId } from "@/lib/validation";
+
+/**
+ * The photo's region set and its version. Every role of the workspace reads it for now; a blind
+ * recheck will need a path that withholds the first grader's regions (see lib/regions/regions.ts).
+ */
+export const GET = handler(async (_req, ctx: RouteContext<"/api/photos/[id]/regions">) => {
+  const user = await requireUser();
+  const photoId = parseId((await ctx.params).id, "That photo");
+  await loadPhotoForRegions(user, photoId);
+  return Response.json(await readRegionSet(user, photoId));
+});
+
+/**
+ * Saves the whole region set: `{ baseVersion, regions }`. 200 with the new version; 409 with
+ * `current` (version and regions) when someone saved since `baseVersion`; 400 with the
+ * validation sentences (nothing stored); 409 while another person's lease on the unit runs.
+ */
+export const PUT = handler(async (req, ctx: RouteContext<"/api/photos/[id]/regions">) => {
+  const user = await requireUser({ role: "inspector" });
+  const photoId = parseId((await ctx.params).id, "That photo");
+  const input = await parseJson(req, saveRegionsSchema, { maxBytes: REGION_SAVE_MAX_BYTES });
+  try {
+    return Response.json(await saveRegionSet(user, photoId, input));
+  } catch (err) {
+    if (!(err instanceof RegionVersionConflict)) throw err;
+    return Response.json({ error: { code: err.code, message: err.message }, current: err.current }, { status: 409 });
+  }
+});

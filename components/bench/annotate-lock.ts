@@ -1,0 +1,33 @@
+/**
+ * Whether the signed-in person may change a unit's regions now, and if not, the sentence the Bench
+ * shows. Mirrors the server's rules (lib/regions/regions.ts) so the canvas opens read-only instead
+ * of failing on the first save; the server still decides. Unlike the checklist, a lead is not
+ * exempt from another inspector's running lease: two people marking one photo at once would only
+ * produce conflicts — a lead takes the unit over with Reassign instead. Pure.
+ */
+import { STATUS_LABELS } from "@/lib/units/state-machine";
+import type { UnitView } from "./use-unit";
+
+export type BenchPerson = { id: string; isLead: boolean; canRecord: boolean };
+
+export function leaseRunning(unit: UnitView["unit"], now = new Date()): boolean {
+  return unit.status === "on_bench" && unit.leaseExpiresAt !== null && new Date(unit.leaseExpiresAt) > now;
+}
+
+/** Someone else holds a running lease: their name, else null. */
+export function otherHolder(view: UnitView, me: BenchPerson, now = new Date()): string | null {
+  if (!leaseRunning(view.unit, now) || view.unit.leaseHolderId === me.id) return null;
+  return view.leaseHolderName ?? "Another inspector";
+}
+
+export function annotateLock(view: UnitView, me: BenchPerson, now = new Date()): string | null {
+  if (!me.canRecord) return "View only: marking regions needs the inspector role.";
+  if (view.lot.status !== "open") return "The lot is decided; this unit's regions are part of the record.";
+  if (view.unit.status !== "queued" && view.unit.status !== "on_bench") return `This unit is ${STATUS_LABELS[view.unit.status]}; its regions are part of the record and can no longer change.`;
+  const holder = otherHolder(view, me, now);
+  if (holder) {
+    const until = new Date(view.unit.leaseExpiresAt!).toLocaleTimeString([], { hour: "2-digit", minute: "2-digit" });
+    return `${holder} has this unit on their bench (lease until ${until}), so it is read-only for you.`;
+  }
+  return null;
+}

@@ -1,0 +1,75 @@
+"use client";
+
+import { useMutation } from "@tanstack/react-query";
+import { useState } from "react";
+import type { GhostShape } from "@/components/annotate/types";
+import { FormMessage } from "@/components/ui/form-field";
+import type { SuggestionKind } from "@/lib/regions/schemas";
+import { requestSuggestions } from "./regions-api";
+
+const SHOWN = 8;
+
+/**
+ * "Suggest Surface" and, on screen views of display parts, "Find pixel faults". Suggestions are
+ * ghosts on the canvas until the inspector accepts them (each becomes a region, one Undo step) or
+ * dismisses them; they are never saved on their own.
+ */
+export function SuggestionsBar({ photoId, screenView, ghosts, onGhosts, onAccept }: { photoId: string; screenView: boolean; ghosts: readonly GhostShape[]; onGhosts(ghosts: GhostShape[]): void; onAccept(ghosts: readonly GhostShape[]): void }) {
+  const [note, setNote] = useState<string | null>(null);
+  const suggest = useMutation({
+    mutationFn: (kind: SuggestionKind) => requestSuggestions(photoId, kind),
+    onSuccess: (res) => {
+      setNote(res.note);
+      onGhosts(res.ghosts.map((g) => ({ ...g, id: `${res.kind}-${Date.now().toString(36)}-${g.id}` })));
+    },
+    onError: () => setNote(null),
+  });
+  const accept = (list: readonly GhostShape[]) => {
+    onAccept(list);
+    onGhosts(ghosts.filter((g) => !list.includes(g)));
+  };
+  return (
+    <section className="space-y-2 rounded-lg border border-dashed border-gauge-300 bg-white p-3" aria-label="Suggestions" data-testid="suggestions-bar">
+      <div className="flex flex-wrap items-center gap-2">
+        <span className="text-sm font-medium">Suggestions</span>
+        <button type="button" className="btn-secondary px-2.5 py-1.5" onClick={() => suggest.mutate("surface")} disabled={suggest.isPending} data-testid="suggest-surface">
+          Suggest Surface
+        </button>
+        {screenView && (
+          <button type="button" className="btn-secondary px-2.5 py-1.5" onClick={() => suggest.mutate("pixel-candidates")} disabled={suggest.isPending} data-testid="suggest-pixels">
+            Find pixel faults
+          </button>
+        )}
+        {suggest.isPending && <span className="text-sm text-gauge-700" role="status">Looking…</span>}
+        {ghosts.length > 0 && (
+          <>
+            <button type="button" className="btn-primary px-2.5 py-1.5" onClick={() => accept(ghosts)} data-testid="accept-all-suggestions">
+              Accept {ghosts.length === 1 ? "it" : `all ${ghosts.length}`}
+            </button>
+            <button type="button" className="btn-secondary px-2.5 py-1.5" onClick={() => onGhosts([])} data-testid="dismiss-all-suggestions">
+              Dismiss {ghosts.length === 1 ? "it" : "all"}
+            </button>
+          </>
+        )}
+      </div>
+      {suggest.isError && <FormMessage kind="error">{suggest.error.message}</FormMessage>}
+      {note && <p className="text-xs text-gauge-700" data-testid="suggestion-note">{note} Suggestions are dashed until accepted and are never saved on their own.</p>}
+      {ghosts.length > 0 && (
+        <ul className="flex flex-wrap gap-2" aria-label="Suggested shapes">
+          {ghosts.slice(0, SHOWN).map((ghost) => (
+            <li key={ghost.id} className="flex items-center gap-1 rounded-md border border-gauge-200 px-2 py-1 text-xs" data-testid="suggestion-item">
+              <span>{ghost.label}</span>
+              <button type="button" className="rounded px-1.5 py-0.5 font-medium text-gauge-800 hover:bg-gauge-100" onClick={() => accept([ghost])} aria-label={`Accept ${ghost.label}`}>
+                Accept
+              </button>
+              <button type="button" className="rounded px-1.5 py-0.5 text-gauge-700 hover:bg-gauge-100" onClick={() => onGhosts(ghosts.filter((g) => g !== ghost))} aria-label={`Dismiss ${ghost.label}`}>
+                Dismiss
+              </button>
+            </li>
+          ))}
+          {ghosts.length > SHOWN && <li className="self-center text-xs text-gauge-700">and {ghosts.length - SHOWN} more (accept or dismiss all)</li>}
+        </ul>
+      )}
+    </section>
+  );
+}

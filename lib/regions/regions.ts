@@ -1,0 +1,108 @@
+import "server-only";
+/**
+ * Reading and saving one photo's region set (the Bench's autosave). A save sends the whole set
+ * with the version it was based on; in one transaction the server locks the set, compares the
+ * versions (a mismatch answers 409 with the current version and regions, so the Bench can merge
+ * without losing anything), replaces the rows and bumps the version. Invalid geometry or classes
+ * answer 400 with the validation library's sentences and store nothing.
+ *
+ * Who: inspectors and leads write; every role of the workspace reads. Not yet done: an auditor's
+ * blind recheck must not see the first grader's regions — the Recheck screen will need its own
+ * read path that withholds them (this GET serves every role for now).
+ */
+import { db, type DbOrTx } from "@/db/client";
+import { logActivity } from "@/db/queries/activity";
+import { lockUnit } from "@/db/queries/units";
+import { getPhotoForRegions, getRegionSetHead, listPhotoRegions, lockRegionSet, writeRegionSet, type PhotoForRegions } from "@/db/queries/regions";
+import type { SessionUser } from "@/lib/auth/require-user";
+import { AppError, notFound } from "@/lib/errors";
+import { parseRegionSet, type RegionSetPayload } from "@/lib/geometry/validate";
+import { assertNotLeasedByOther } from "@/lib/queue/queue";
+import { STATUS_LABELS } from "@/lib/units/state-machine";
+import { payloadFromRows, rowsForSave } from "./payload";
+import type { SaveRegionsInput } from "./schemas";
+
+type Actor = Pick<SessionUser, "id" | "workspaceId" | "roles">;
+
+export type RegionSetView = {
+  photoId: string;
+  version: number;
+  regions: RegionSetPayload;
+  updatedAt: string | null;
+  updatedByName: string | null;
+};
+
+/** Another save came first: the Bench gets the current state to merge with. */
+export class RegionVersionConflict extends AppError {
+  constructor(readonly current: RegionSetView, baseVersion: number) {
+    super(
+      "conflict",
+      `These regions were changed elsewhere${current.updatedByName ? ` by ${current.updatedByName}` : ""} (now version ${current.version}; this edit started from version ${baseVersion}). Nothing was saved; reload or merge, then save again.`,
+    );
+  }
+}
+
+/** Units whose regions may still change: waiting or on a bench (graded evidence is fixed). */
+const EDITABLE_STATUSES = ["queued", "on_bench"] as const;
+
+export async function loadPhotoForRegions(actor: Actor, photoId: string): Promise<PhotoForRegions> {
+  const row = await getPhotoForRegions({ workspaceId: actor.workspaceId, photoId });
+  if (!row) throw notFound("That photo");
+  return row;
+}
+
+export async function readRegionSet(actor: Actor, photoId: string, tx: DbOrTx = db()): Promise<RegionSetView> {
+  const key = { workspaceId: actor.workspaceId, photoId };
+  const [head, rows] = await Promise.all([getRegionSetHead(key, tx), listPhotoRegions(key, tx)]);
+  return { photoId, version: head.version, regions: payloadFromRows(rows), updatedAt: head.updatedAt?.toISOString() ?? null, updatedByName: head.updatedByName };
+}
+
+function validationError(messages: string[]): AppError {
+  const fieldErrors: Record<string, string> = { regions: messages[0] ?? "The region set is not valid." };
+  messages.forEach((m, i) => (fieldErrors[`regions.${i}`] = m));
+  const shown = messages.slice(0, 3).join(" ");
+  const more = messages.length > 3 ? ` (and ${messages.length - 3} more problem${messages.length === 4 ? "" : "s"})` : "";
+  return new AppError("bad_request", `The regions were not saved: ${shown}${more} Nothing was stored.`, { fieldErrors });
+}
+
+/** The payload, checked against this photo's size and its part type's defect classes (400 with sentences otherwise). */
+export function validateRegions(photo: PhotoForRegions, input: unknown): RegionSetPayload {
+  if (photo.photo.status !== "ready" || !photo.photo.width || !photo.photo.height) {
+    throw new AppError("conflict", "This photo is still being processed (or was refused); regions can be marked once it is ready.");
+  }
+  // zod checks a list's length before its elements, so even a two-million-point shape is refused at once.
+  const result = parseRegionSet(input, { width: photo.photo.width, height: photo.photo.height, allowedDefects: photo.partType.defectClasses.map((d) => d.key) });
+  if (!result.ok) throw validationError(result.messages);
+  return result.value;
+}
+
+export async function saveRegionSet(actor: SessionUser, photoId: string, input: SaveRegionsInput): Promise<RegionSetView> {
+  const photo = await loadPhotoForRegions(actor, photoId);
+  const payload = validateRegions(photo, input.regions);
+  const key = { workspaceId: actor.workspaceId, photoId };
+  return db().transaction(async (tx) => {
+    // The unit first (the same order as grading), so a grade and a save never deadlock.
+    const unit = await lockUnit(tx, { workspaceId: actor.workspaceId, unitId: photo.unit.id });
+    if (!unit) throw notFound("That photo");
+    if (photo.lotStatus !== "open") throw new AppError("conflict", "This unit's lot is decided; its regions can no longer change.");
+    if (!(EDITABLE_STATUSES as readonly string[]).includes(unit.status)) {
+      throw new AppError("conflict", `This unit is ${STATUS_LABELS[unit.status]}, so its regions are part of the record and can no longer change.`);
+    }
+    assertNotLeasedByOther(unit, actor, photo.leaseHolderName);
+    const set = await lockRegionSet(tx, key);
+    if (set.version !== input.baseVersion) throw new RegionVersionConflict(await readRegionSet(actor, photoId, tx), input.baseVersion);
+    const version = set.version + 1;
+    const previous = await listPhotoRegions(key, tx);
+    const { rows, added, changed, removed } = rowsForSave(payload, previous, { authorId: actor.id, version });
+    await writeRegionSet(tx, { ...key, rows, version, updatedBy: actor.id });
+    await logActivity(tx, {
+      workspaceId: actor.workspaceId,
+      actorId: actor.id,
+      action: "regions.saved",
+      subjectType: "photo",
+      subjectId: photoId,
+      detail: { unitId: photo.unit.id, version, regions: rows.length, added, changed, removed },
+    });
+    return readRegionSet(actor, photoId, tx);
+  });
+}
