@@ -9,7 +9,7 @@ import type { PhotoDto } from "@/lib/photos/dto";
 import { ConflictDialog, type ConflictChoice } from "./conflict-dialog";
 import type { RegionAutosaver, SaveStatus } from "./region-autosaver";
 import { fetchRegionSet } from "./regions-api";
-import { SaveStatusLine } from "./save-status";
+import { SaveProblem, SaveStatusLine } from "./save-status";
 import type { SaverRegistry } from "./saver-registry";
 import type { RegionSetPayload } from "@/lib/geometry/validate";
 import { SuggestionsBar } from "./suggestions-bar";
@@ -71,8 +71,8 @@ export function PhotoAnnotator({ photo, viewLabel, allowedDefects, zones, lock, 
   if (!photo.urls || !photo.width || !photo.height || !photo.preview) return <p className="text-sm text-gauge-700">This photo is not ready yet.</p>;
   return (
     <section className="space-y-3" aria-label={`Annotate the ${viewLabel} photo ${photo.fileName}`} data-testid="photo-annotator" data-photo-id={photo.id}>
-      <div className="flex flex-wrap items-baseline justify-between gap-2">
-        <h2 className="text-lg font-semibold">
+      <div className="flex items-center justify-between gap-3">
+        <h2 className="min-w-0 truncate text-lg font-semibold" title={`${viewLabel} · ${photo.fileName} · ${photo.width} × ${photo.height} px`}>
           {viewLabel} <span className="text-sm font-normal text-gauge-700">· {photo.fileName} · {photo.width} × {photo.height} px</span>
         </h2>
         {!readOnly && saver && <SaveStatusLine status={status} onRetry={() => saver.retryNow()} />}
@@ -95,6 +95,7 @@ export function PhotoAnnotator({ photo, viewLabel, allowedDefects, zones, lock, 
           regionListContainer={regionListContainer}
         />
       )}
+      {!readOnly && <SaveProblem status={status} />}
       {!readOnly && session.data && <SuggestionsBar photoId={photo.id} screenView={screenView} ghosts={ghosts} onGhosts={setGhosts} onAccept={accept} />}
       {saver && status.kind === "conflict" && <ConflictDialog current={status.current} base={saver.lastSaved()} mine={saver.latestRegions()} onChoose={resolve} />}
     </section>

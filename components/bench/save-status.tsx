@@ -4,38 +4,56 @@ import type { SaveStatus } from "./region-autosaver";
 
 const time = (ms: number) => new Date(ms).toLocaleTimeString([], { hour: "2-digit", minute: "2-digit", second: "2-digit" });
 
+type SaveStatusWords = { text: string; detail: string | null; tone: "ok" | "busy" | "warn" | "fault"; unsaved: boolean };
+
 /** What the autosave state means in words; "unsaved" whenever the edits are not on the server yet. */
-export function describeSaveStatus(status: SaveStatus): { text: string; tone: "ok" | "busy" | "warn" | "fault"; unsaved: boolean } {
+export function describeSaveStatus(status: SaveStatus): SaveStatusWords {
   switch (status.kind) {
     case "saved":
-      return { text: status.at ? `Saved (version ${status.version}, ${time(status.at)})` : status.version ? `Saved (version ${status.version})` : "No regions saved yet", tone: "ok", unsaved: false };
+      return { text: status.at ? `Saved (version ${status.version}, ${time(status.at)})` : status.version ? `Saved (version ${status.version})` : "No regions saved yet", detail: null, tone: "ok", unsaved: false };
     case "pending":
-      return { text: "Unsaved changes — saving…", tone: "busy", unsaved: true };
+      return { text: "Unsaved — saving…", detail: null, tone: "busy", unsaved: true };
     case "saving":
-      return { text: "Saving…", tone: "busy", unsaved: true };
+      return { text: "Saving…", detail: null, tone: "busy", unsaved: true };
     case "retrying":
-      return { text: `Unsaved (retrying in ${Math.round(status.retryInMs / 1000)} s): ${status.message}`, tone: "warn", unsaved: true };
+      return { text: `Unsaved (retrying in ${Math.round(status.retryInMs / 1000)} s)`, detail: status.message, tone: "warn", unsaved: true };
     case "conflict":
-      return { text: "Unsaved: these regions were changed elsewhere — choose how to continue.", tone: "fault", unsaved: true };
+      return { text: "Unsaved: changed elsewhere", detail: null, tone: "fault", unsaved: true };
     case "refused":
-      return { text: `Unsaved: ${status.message}`, tone: "fault", unsaved: true };
+      return { text: "Unsaved: not accepted", detail: status.message, tone: "fault", unsaved: true };
   }
 }
 
 const TONE = { ok: "text-ok-600", busy: "text-gauge-700", warn: "text-signal-700 font-medium", fault: "text-fault-700 font-medium" } as const;
 
+/**
+ * One line of fixed height beside the photo's heading: the short state only, so a state change
+ * never wraps the line and moves the canvas under the inspector's pointer. The reason of a failed
+ * save is long; `SaveProblem` shows it below the canvas.
+ */
 export function SaveStatusLine({ status, onRetry }: { status: SaveStatus; onRetry(): void }) {
-  const { text, tone } = describeSaveStatus(status);
+  const { text, detail, tone } = describeSaveStatus(status);
   return (
-    <div className="flex flex-wrap items-center gap-2 text-sm" data-testid="save-status" data-state={status.kind}>
-      <span role="status" aria-live="polite" className={TONE[tone]}>
+    <div className="flex h-7 min-w-0 shrink-0 items-center gap-2 text-sm whitespace-nowrap" data-testid="save-status" data-state={status.kind}>
+      <span role="status" aria-live="polite" className={TONE[tone]} title={detail ?? undefined}>
         {text}
       </span>
       {(status.kind === "retrying" || status.kind === "refused") && (
-        <button type="button" className="btn-secondary px-2 py-1 text-xs" onClick={onRetry}>
+        <button type="button" className="btn-secondary px-2 py-0.5 text-xs" onClick={onRetry}>
           Try again now
         </button>
       )}
     </div>
+  );
+}
+
+/** Why the last save failed, in full, for the states that have a reason; nothing otherwise. */
+export function SaveProblem({ status }: { status: SaveStatus }) {
+  const { detail, tone } = describeSaveStatus(status);
+  if (!detail) return null;
+  return (
+    <p className={`rounded-md border px-3 py-2 text-sm ${tone === "fault" ? "border-fault-600 bg-fault-50 text-fault-700" : "border-signal-500 bg-signal-50 text-signal-700"}`} data-testid="save-problem">
+      Your edits are kept in this tab and have not reached the server: {detail}
+    </p>
   );
 }

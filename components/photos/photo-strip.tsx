@@ -130,7 +130,7 @@ function PhotoCard(props: {
     );
   const frame = "flex h-24 w-full items-center justify-center overflow-hidden rounded-t-md bg-gauge-100";
   return (
-    <li className={`card w-36 overflow-hidden ${selected ? "ring-2 ring-signal-500" : ""}`} data-testid="photo-card" data-photo-id={photo.id} data-status={photo.status} data-selected={selected ? "true" : "false"}>
+    <li className={`card relative w-36 overflow-hidden ${selected ? "ring-2 ring-signal-500" : ""}`} data-testid="photo-card" data-photo-id={photo.id} data-status={photo.status} data-selected={selected ? "true" : "false"}>
       {onSelect && photo.status === "ready" ? (
         <button type="button" className={`${frame} hover:opacity-90`} aria-pressed={selected} aria-label={`Open the ${viewLabel} photo ${photo.fileName} on the canvas`} onClick={onSelect} data-testid="photo-select">
           {image}
@@ -141,6 +141,12 @@ function PhotoCard(props: {
         </a>
       ) : (
         <div className={frame}>{image}</div>
+      )}
+      {unsaved && (
+        // Over the thumbnail, not a line of its own: the strip keeps its height and the canvas below it does not move.
+        <span className="absolute top-1 left-1 rounded bg-signal-500 px-1.5 py-0.5 text-xs font-semibold text-gauge-900 shadow" data-testid="photo-unsaved">
+          Unsaved edits
+        </span>
       )}
       <div className="space-y-1 p-1.5 text-xs">
         <div className="flex items-center justify-between gap-1">
@@ -156,11 +162,6 @@ function PhotoCard(props: {
         <p className="truncate text-gauge-700" title={photo.fileName}>
           {photo.fileName}
         </p>
-        {unsaved && (
-          <p className="font-medium text-signal-700" data-testid="photo-unsaved">
-            Unsaved edits
-          </p>
-        )}
         {photo.retryNote && <p className="text-signal-700">{photo.retryNote}</p>}
         {photo.failure && (
           <p className="text-fault-700" role="alert">

@@ -85,11 +85,25 @@ function updateShape(state: AnnotationState, id: RegionId, change: (shape: Shape
   return replaceRegion(state, { ...region, shape });
 }
 
+/** Drawing order by role: surfaces underneath, defects above them, the ruler on top. */
+const LAYER: Record<Region["role"], number> = { surface: 0, defect: 1, ruler: 2 };
+
+/**
+ * `regions` with `region` after the last one of its layer or a lower one. The stored set keeps
+ * surfaces, defects and the ruler apart in that order (lib/regions/payload.ts), so adding in the
+ * same order means the list looks the same before and after a reload.
+ */
+function insertInDrawingOrder(regions: readonly Region[], region: Region): Region[] {
+  let at = regions.length;
+  while (at > 0 && LAYER[regions[at - 1].role] > LAYER[region.role]) at--;
+  return [...regions.slice(0, at), region, ...regions.slice(at)];
+}
+
 /** Adds a region with its own id (e.g. pasted); refused if the id is taken or the region is invalid. */
 export function addRegion(state: AnnotationState, region: Region): AnnotationState {
   if (regionById(state, region.id) || edits.regionProblem(region, state.image)) return state;
   const hiddenDefects = region.role === "defect" ? state.hiddenDefects.filter((d) => d !== region.defect) : state.hiddenDefects;
-  return applyEdit({ ...state, hiddenDefects }, [...state.regions, region]);
+  return applyEdit({ ...state, hiddenDefects }, insertInDrawingOrder(state.regions, region));
 }
 
 /** A new defect region of the active class (a drawn class is made visible again if hidden). */

@@ -17,17 +17,28 @@ type RegionSet = { version: number; regions: { regions: { id: string; defect: st
 
 const ORIGINAL = { width: 4000, height: 3000 };
 
-/** The stage's viewport as the canvas reports it, and conversions between image and page pixels. */
+/**
+ * The stage's viewport as the canvas reports it, and conversions between image and page pixels.
+ * The stage is scrolled fully into view first (mouse events outside the viewport reach nothing),
+ * and every conversion reads the stage's current box, so a later scroll cannot skew a point.
+ */
 async function stageView(page: Page) {
   const stage = page.getByTestId("annotation-stage");
   await expect(stage).toHaveAttribute("data-ready", "true", { timeout: 30_000 });
-  const box = (await stage.boundingBox())!;
+  await stage.evaluate((el) => el.scrollIntoView({ block: "end" }));
+  const startY = (await stage.boundingBox())!.y;
   const read = async (name: string) => Number(await stage.getAttribute(name));
   const [scale, ox, oy] = [await read("data-zoom"), await read("data-offset-x"), await read("data-offset-y")];
   return {
     scale,
     /** Page position of an image point. */
-    at: (x: number, y: number) => ({ x: box.x + ox + x * scale, y: box.y + oy + y * scale }),
+    at: async (x: number, y: number) => {
+      await stage.evaluate((el) => el.scrollIntoView({ block: "nearest" }));
+      const box = (await stage.boundingBox())!;
+      // Nothing above the canvas may change height while drawing: the photo would jump under the pointer.
+      expect(box.y, "the canvas moved on the page").toBeCloseTo(startY, 0);
+      return { x: box.x + ox + x * scale, y: box.y + oy + y * scale };
+    },
     /** One screen pixel in image pixels, plus rounding of the reported offsets. */
     tolerance: 1.5 / scale + 1,
   };
@@ -72,36 +83,37 @@ test("an inspector marks one shape with each tool, changes a class, undoes and r
 
   // Box (class 1, scratch) in the upper left, on the lens window.
   await page.getByTestId("tool-box").click();
-  await drag(page, v.at(1100, 800), v.at(1500, 1100));
+  await drag(page, await v.at(1100, 800), await v.at(1500, 1100));
   // Outline: three clicks, then the first vertex again closes it.
   await page.getByTestId("tool-outline").click();
-  for (const [x, y] of [[2200, 900], [2700, 900], [2450, 1300]]) await click(page, v.at(x, y));
-  await click(page, v.at(2200, 900));
+  for (const [x, y] of [[2200, 900], [2700, 900], [2450, 1300]]) await click(page, await v.at(x, y));
+  await click(page, await v.at(2200, 900));
   // Line: two clicks and a double-click on the last point.
   await page.getByTestId("tool-line").click();
-  await click(page, v.at(1200, 1800));
-  await click(page, v.at(1700, 2000));
-  const end = v.at(2300, 1850);
+  await click(page, await v.at(1200, 1800));
+  await click(page, await v.at(1700, 2000));
+  const end = await v.at(2300, 1850);
   await page.mouse.dblclick(end.x, end.y);
   // Spot, dragged out to a 150 px radius, far right (x > 2560: not a preview coordinate).
   await page.getByTestId("tool-spot").click();
-  await drag(page, v.at(3500, 1500), v.at(3650, 1500));
+  await drag(page, await v.at(3500, 1500), await v.at(3650, 1500));
   // Surface around the part.
   await page.getByTestId("tool-surface").click();
-  for (const [x, y] of [[1000, 750], [3000, 750], [3000, 2250], [1000, 2250]]) await click(page, v.at(x, y));
-  await click(page, v.at(1000, 750));
+  for (const [x, y] of [[1000, 750], [3000, 750], [3000, 2250], [1000, 2250]]) await click(page, await v.at(x, y));
+  await click(page, await v.at(1000, 750));
   // Ruler along the part's top edge, 40 mm.
   await page.getByTestId("tool-ruler").click();
-  await drag(page, v.at(1000, 700), v.at(3000, 700));
+  await drag(page, await v.at(1000, 700), await v.at(3000, 700));
   await page.getByLabel("Ruler length (mm)").fill("40");
   await page.getByRole("button", { name: "Set length" }).click();
   await expect(page.getByTestId("annotation-stage")).toHaveAttribute("data-region-count", "6");
 
   // Select the box and give it class 2 (dent) with the number key; undo, then redo.
   await page.getByTestId("tool-select").click();
-  await click(page, v.at(1300, 950));
+  await click(page, await v.at(1300, 950));
   await page.keyboard.press("2");
-  const boxRow = page.getByTestId("region-item").nth(0);
+  // Surfaces list first (they lie underneath), so the box is found by its kind.
+  const boxRow = page.getByTestId("region-item").filter({ hasText: "Box" });
   await expect(boxRow).toContainText("Dent");
   await page.getByTestId("undo").click();
   await expect(boxRow).toContainText("Scratch");
@@ -125,7 +137,7 @@ test("an inspector marks one shape with each tool, changes a class, undoes and r
   // Reload: everything is where it was, on screen and through the API, in original pixels.
   await page.reload();
   await expect(page.getByTestId("annotation-stage")).toHaveAttribute("data-region-count", "6", { timeout: 30_000 });
-  await expect(page.getByTestId("region-item").nth(0)).toContainText("Dent");
+  await expect(page.getByTestId("region-item").filter({ hasText: "Box" })).toContainText("Dent");
   const res = await page.request.get(`/api/photos/${photo.id}/regions`);
   const set = (await res.json()) as RegionSet;
   expect(set.version).toBe(firstVersion);
@@ -163,12 +175,12 @@ test("an inspector marks one shape with each tool, changes a class, undoes and r
   const v2 = await stageView(second);
   await page.bringToFront();
   await page.getByTestId("tool-spot").click();
-  await click(page, v.at(3300, 2700));
+  await click(page, await v.at(3300, 2700));
   const afterFirst = await savedVersion(page);
   expect(afterFirst).toBe(firstVersion + 1);
   await second.bringToFront();
   await second.getByTestId("tool-box").click();
-  await drag(second, v2.at(300, 300), v2.at(600, 500));
+  await drag(second, await v2.at(300, 300), await v2.at(600, 500));
   const dialog = second.getByTestId("conflict-dialog");
   await expect(dialog).toBeVisible({ timeout: 15_000 });
   await expect(dialog).toContainText("These regions were changed elsewhere");
@@ -189,7 +201,7 @@ test("an inspector marks one shape with each tool, changes a class, undoes and r
   const panel = page.getByTestId("grade-panel");
   await panel.getByRole("button", { name: "Measure now" }).click();
   await expect(page.getByTestId("proposed-grade")).toBeVisible({ timeout: 30_000 });
-  await expect(page.getByTestId("calibration")).toContainText("Ruler, 20.00 px/mm"); // 2000 px for 40 mm (hand computation)
+  await expect(page.getByTestId("calibration")).toContainText("Ruler, 50.00 px/mm"); // 2000 px over 40 mm = 50 px/mm (hand computation)
   await expect(page.getByTestId("measure-scratch")).toBeVisible();
   const proposed = (await page.getByTestId("proposed-grade").textContent())!.trim();
   await panel.getByLabel(`Accept ${proposed}`).check();
@@ -209,10 +221,11 @@ test("an edit made while the server is unreachable is shown as unsaved, retried,
   const v = await stageView(page);
   await page.route(`**/api/photos/${photo.id}/regions`, (route) => (route.request().method() === "PUT" ? route.abort("internetdisconnected") : route.fallback()));
   await page.getByTestId("tool-spot").click();
-  await click(page, v.at(800, 600));
+  await click(page, await v.at(800, 600));
   const status = page.getByTestId("save-status");
   await expect(status).toHaveAttribute("data-state", "retrying", { timeout: 10_000 });
   await expect(status).toContainText("Unsaved (retrying in");
+  await expect(page.getByTestId("save-problem")).toContainText("have not reached the server");
   await expect(page.getByTestId("photo-unsaved")).toBeVisible();
   // Leaving now asks first.
   const asked = new Promise<string>((resolve) => page.once("dialog", (d) => (resolve(d.type()), void d.dismiss())));

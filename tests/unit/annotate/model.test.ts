@@ -82,6 +82,16 @@ describe("adding", () => {
     expect(model.placeRuler(s0, { a: [5, 5], b: [5, 5], lengthMm: 10 })).toBe(s0);
   });
 
+  it("keeps surfaces under defects and the ruler on top whatever the drawing order, as a saved set reloads", () => {
+    const s0 = model.placeRuler(loaded(), { a: [0, 0], b: [100, 0], lengthMm: 10 });
+    const s1 = model.addSurface(s0, { kind: "polygon", points: [[1, 1], [9, 1], [5, 9]] });
+    const s2 = model.addDefectShape(s1, { kind: "spot", x: 50, y: 50, radius: 3 });
+    const roles = s2.regions.map((r) => r.role);
+    expect(roles).toEqual([...roles].sort((a, b) => ["surface", "defect", "ruler"].indexOf(a) - ["surface", "defect", "ruler"].indexOf(b)));
+    expect(roles.at(-1)).toBe("ruler");
+    expect(s2.regions.at(-2)).toMatchObject({ role: "defect", shape: { kind: "spot", x: 50 } });
+  });
+
   it("refuses a region whose id is taken", () => {
     const s = loaded();
     expect(model.addRegion(s, { ...spot, shape: { kind: "spot", x: 1, y: 1, radius: 1 } })).toBe(s);

@@ -7,25 +7,19 @@ import { listRubricVersions } from "@/db/queries/rubrics";
 import { getUnitDetail, listUnitResults } from "@/db/queries/units";
 import { requirePageUser } from "@/lib/auth/require-user";
 import { hasAnyRole } from "@/lib/auth/roles";
-import { AppError } from "@/lib/errors";
+import { pageIdOrNotFound } from "@/lib/http/page-params";
 import { screenByHref } from "@/lib/nav";
-import { parseId } from "@/lib/validation";
+import { isUuid } from "@/lib/validation";
 
 export const metadata: Metadata = { title: "Bench" };
 
-const uuidOrNull = (value: string | string[] | undefined) => (typeof value === "string" && /^[0-9a-f-]{36}$/i.test(value) ? value.toLowerCase() : null);
+const uuidOrNull = (value: string | string[] | undefined) => (typeof value === "string" && isUuid(value) ? value.toLowerCase() : null);
 
 /** One unit on the Bench: a thin server composition; BenchWorkspace owns the photos, canvas, autosave and panels. */
 export default async function UnitPage(props: PageProps<"/units/[id]">) {
   const [{ id: rawId }, search] = await Promise.all([props.params, props.searchParams]);
   const user = await requirePageUser({ role: screenByHref("/lots")!.roles, from: `/units/${rawId}` });
-  let id: string;
-  try {
-    id = parseId(rawId, "That unit");
-  } catch (err) {
-    if (err instanceof AppError) notFound();
-    throw err;
-  }
+  const id = pageIdOrNotFound(rawId);
   const key = { workspaceId: user.workspaceId, unitId: id };
   const [detail, grading] = await Promise.all([getUnitDetail(key), getUnitForGrading(key)]);
   if (!detail || !grading) notFound();
