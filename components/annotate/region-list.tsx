@@ -40,7 +40,7 @@ const RegionRow = memo(function RegionRow({ region, number, entry, selected, hid
   const kind = regionKindLabel(region);
   return (
     <li
-      className={`flex items-stretch gap-1 rounded-md border [content-visibility:auto] ${selected ? "border-signal-500 bg-signal-50" : "border-gauge-200 bg-white"}`}
+      className={`flex items-stretch gap-1 rounded-md border [contain-intrinsic-size:auto_3.25rem] [content-visibility:auto] ${selected ? "border-signal-500 bg-signal-50" : "border-gauge-200 bg-white"}`}
       data-testid="region-item"
       data-region-id={region.id}
     >

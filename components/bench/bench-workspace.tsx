@@ -59,7 +59,7 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
   const unsaved = useUnsavedPhotos(registry);
   const photos = useQuery({ queryKey: ["unit-photos", unitId], queryFn: () => apiFetch<{ photos: PhotoDto[] }>(`/api/units/${unitId}/photos`) });
   const [selectedId, setSelectedId] = useState<string | null>(initialPhotoId);
-  const [uploadOpen, setUploadOpen] = useState(false);
+  const [uploadOpen, setUploadOpen] = useState<boolean | null>(null);
   const wide = useMediaQuery("(min-width: 1280px)");
   const [sideSlot, setSideSlot] = useState<HTMLElement | null>(null);
   const [belowSlot, setBelowSlot] = useState<HTMLElement | null>(null);
@@ -77,6 +77,12 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
   );
   const selectedView = selected ? partType.views.find((v) => v.key === selected.viewKey) : undefined;
   const canUpload = me.canRecord && (view.unit.status === "queued" || view.unit.status === "on_bench");
+  // A unit without photos opens with the uploader; otherwise it waits behind "Add photos" so the
+  // canvas sits high. Decided once, when the photos first load, so the uploader does not close
+  // under the inspector when the first upload turns into a photo.
+  const hasPhotos = photos.isSuccess && photos.data.photos.length > 0;
+  if (uploadOpen === null && photos.isSuccess) setUploadOpen(photos.data.photos.length === 0);
+  const uploaderShown = uploadOpen === true;
 
   // Leaving the page (closing the tab, reloading) while edits are unsaved asks first.
   useEffect(() => {
@@ -119,16 +125,24 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
       <div className="flex flex-col gap-6 xl:flex-row xl:items-start">
         <div className="min-w-0 flex-1 space-y-4">
           <div id="photos" className="space-y-2">
-            <PhotoStrip unitId={unitId} views={views} canManage={canUpload} selection={{ selectedId: selected?.id ?? null, onSelect: (p) => void select(p), unsavedIds: unsaved }} />
+            <PhotoStrip
+              unitId={unitId}
+              views={views}
+              canManage={canUpload}
+              selection={{ selectedId: selected?.id ?? null, onSelect: (p) => void select(p), unsavedIds: unsaved }}
+              headerAction={
+                canUpload && (hasPhotos || uploaderShown) ? (
+                  <button type="button" className="btn-secondary px-3 py-1 text-sm" aria-expanded={uploaderShown} aria-controls="bench-uploader" onClick={() => setUploadOpen((open) => !open)} data-testid="add-photos-toggle">
+                    {uploaderShown ? "Hide the uploader" : "Add photos"}
+                  </button>
+                ) : null
+              }
+            />
             {canUpload && (
-              <details open={uploadOpen || (photos.isSuccess && photos.data.photos.length === 0)} onToggle={(e) => setUploadOpen(e.currentTarget.open)} className="group">
-                <summary className="btn-secondary cursor-pointer list-none" data-testid="add-photos-toggle">
-                  Add photos
-                </summary>
-                <div className="mt-2">
-                  <PhotoUploader unitId={unitId} views={views} />
-                </div>
-              </details>
+              // Hidden, not unmounted, so uploads in flight carry on while the uploader is out of the way.
+              <div id="bench-uploader" hidden={!uploaderShown}>
+                <PhotoUploader unitId={unitId} views={views} />
+              </div>
             )}
           </div>
           {selected ? (

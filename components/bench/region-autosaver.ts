@@ -27,7 +27,8 @@ export type SendResult =
 export type SaveStatus =
   | { kind: "saved"; version: number; at: number | null }
   | { kind: "pending" }
-  | { kind: "saving" }
+  /** `attempt` > 0: an earlier try failed and this is a retry. */
+  | { kind: "saving"; attempt?: number }
   | { kind: "retrying"; attempt: number; retryInMs: number; message: string }
   | { kind: "conflict"; current: ServerSet; message: string }
   | { kind: "refused"; message: string };
@@ -156,7 +157,7 @@ export class RegionAutosaver {
     if (!this.hasUnsaved()) return this.settle();
     const regions = this.latest;
     this.inFlight = true;
-    this.set({ kind: "saving" });
+    this.set(this.attempt > 0 ? { kind: "saving", attempt: this.attempt } : { kind: "saving" });
     let result: SendResult;
     try {
       result = await this.opts.send({ baseVersion: this.version, regions });

@@ -38,8 +38,9 @@ export function SaveStatusLine({ status, onRetry }: { status: SaveStatus; onRetr
       <span role="status" aria-live="polite" className={TONE[tone]} title={detail ?? undefined}>
         {text}
       </span>
-      {(status.kind === "retrying" || status.kind === "refused") && (
-        <button type="button" className="btn-secondary px-2 py-0.5 text-xs" onClick={onRetry}>
+      {/* Kept (disabled) while a retry is on its way, so the button does not flicker out from under the pointer. */}
+      {(status.kind === "retrying" || status.kind === "refused" || (status.kind === "saving" && (status.attempt ?? 0) > 0)) && (
+        <button type="button" className="btn-secondary px-2 py-0.5 text-xs" onClick={onRetry} disabled={status.kind === "saving"}>
           Try again now
         </button>
       )}

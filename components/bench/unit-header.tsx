@@ -25,7 +25,15 @@ export function UnitHeader({ initial, me }: { initial: UnitView; me: { id: strin
   const lock = benchLock(view, me);
   const editable = view.unit.placeholder && lock === null;
   const leaseRunning = view.unit.status === "on_bench" && view.unit.leaseExpiresAt !== null && new Date(view.unit.leaseExpiresAt) > new Date();
-  const holder = view.unit.status !== "on_bench" ? "" : !leaseRunning ? " — the lease ran out; it is free to take" : view.unit.leaseHolderId === me.id ? " — on your bench" : ` — on ${view.leaseHolderName ?? "another inspector"}'s bench`;
+  // Whose bench, in the status itself ("on your bench", not "on a bench — on your bench").
+  const statusText =
+    view.unit.status !== "on_bench"
+      ? STATUS_LABELS[view.unit.status]
+      : !leaseRunning
+        ? `${STATUS_LABELS.on_bench} — the lease ran out; it is free to take`
+        : view.unit.leaseHolderId === me.id
+          ? "on your bench"
+          : `on ${view.leaseHolderName ?? "another inspector"}'s bench`;
 
   return (
     <header className="space-y-3" data-testid="unit-header">
@@ -40,8 +48,7 @@ export function UnitHeader({ initial, me }: { initial: UnitView; me: { id: strin
           </p>
         </div>
         <p className="text-sm" data-testid="unit-status">
-          Status: <strong className="font-medium">{STATUS_LABELS[view.unit.status]}</strong>
-          {holder}
+          Status: <strong className="font-medium">{statusText}</strong>
         </p>
       </div>
       {view.unit.placeholder && (

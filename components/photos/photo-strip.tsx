@@ -7,7 +7,7 @@
  */
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import Link from "next/link";
-import { useState } from "react";
+import { useState, type ReactNode } from "react";
 import { FormMessage } from "@/components/ui/form-field";
 import { apiFetch } from "@/lib/http/client";
 import type { PhotoDto } from "@/lib/photos/dto";
@@ -24,7 +24,16 @@ const STATUS: Record<PhotoDto["status"], { text: string; className: string }> = 
 
 type Selection = { selectedId: string | null; onSelect(photo: PhotoDto): void; unsavedIds?: ReadonlySet<string> };
 
-export function PhotoStrip({ unitId, views, canManage = false, selection }: { unitId: string; views: ViewChoice[]; canManage?: boolean; selection?: Selection }) {
+type PhotoStripProps = {
+  unitId: string;
+  views: ViewChoice[];
+  canManage?: boolean;
+  selection?: Selection;
+  /** Shown at the end of the heading line (e.g. the Bench's "Add photos" toggle). */
+  headerAction?: ReactNode;
+};
+
+export function PhotoStrip({ unitId, views, canManage = false, selection, headerAction }: PhotoStripProps) {
   const queryClient = useQueryClient();
   const [message, setMessage] = useState<string | null>(null);
   const photos = useQuery({
@@ -62,7 +71,10 @@ export function PhotoStrip({ unitId, views, canManage = false, selection }: { un
         <h2 id="photo-strip-title" className="text-lg font-semibold">
           Photos <span className="text-sm font-normal text-gauge-600">({list.filter((p) => p.status === "ready").length} ready)</span>
         </h2>
-        {missing.length > 0 && <p className="text-sm text-signal-700">Still needed: {missing.map((v) => v.label).join(", ")}</p>}
+        <div className="flex flex-wrap items-center gap-3">
+          {missing.length > 0 && <p className="text-sm text-signal-700">Still needed: {missing.map((v) => v.label).join(", ")}</p>}
+          {headerAction}
+        </div>
       </div>
       {message && <FormMessage kind="error">{message}</FormMessage>}
       {list.length === 0 && <p className="text-sm text-gauge-600">No photos yet.</p>}
@@ -79,7 +91,7 @@ export function PhotoStrip({ unitId, views, canManage = false, selection }: { un
                   {group.required && <span className="ml-1 text-xs font-normal text-gauge-600">required</span>}
                 </h3>
                 {isMissing && own.length === 0 ? (
-                  <p className="flex h-24 w-32 items-center justify-center rounded border border-dashed border-signal-500 px-2 text-center text-xs font-medium text-signal-700" data-testid="missing-view">
+                  <p className="flex h-16 w-28 items-center justify-center rounded border border-dashed border-signal-500 px-2 text-center text-xs font-medium text-signal-700" data-testid="missing-view">
                     Missing — photograph this view
                   </p>
                 ) : (
@@ -128,9 +140,9 @@ function PhotoCard(props: {
     ) : (
       <span className="px-2 text-center text-xs text-gauge-600">{photo.status === "failed" ? "No image" : "Processing…"}</span>
     );
-  const frame = "flex h-24 w-full items-center justify-center overflow-hidden rounded-t-md bg-gauge-100";
+  const frame = "flex h-16 w-full items-center justify-center overflow-hidden rounded-t-md bg-gauge-100";
   return (
-    <li className={`card relative w-36 overflow-hidden ${selected ? "ring-2 ring-signal-500" : ""}`} data-testid="photo-card" data-photo-id={photo.id} data-status={photo.status} data-selected={selected ? "true" : "false"}>
+    <li className={`card relative w-32 overflow-hidden ${selected ? "ring-2 ring-signal-500" : ""}`} data-testid="photo-card" data-photo-id={photo.id} data-status={photo.status} data-selected={selected ? "true" : "false"}>
       {onSelect && photo.status === "ready" ? (
         <button type="button" className={`${frame} hover:opacity-90`} aria-pressed={selected} aria-label={`Open the ${viewLabel} photo ${photo.fileName} on the canvas`} onClick={onSelect} data-testid="photo-select">
           {image}

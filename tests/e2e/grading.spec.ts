@@ -14,8 +14,8 @@ test("a lead publishes rubric version 2; a unit graded under version 1 keeps its
 
   // The inspector measures the unit and accepts the proposal under version 1.
   await signInAs(page, "inspector@vellmoor.example");
-  await page.goto(`/units/${fixture.unitId}/grades`);
-  await expect(page.getByRole("heading", { level: 1, name: `Grades of ${fixture.serial}` })).toBeVisible();
+  await page.goto(`/units/${fixture.unitId}`);
+  await expect(page.getByRole("heading", { level: 1, name: fixture.serial })).toBeVisible();
   await page.getByRole("button", { name: "Measure now" }).click();
   await expect(page.getByTestId("proposed-grade")).toHaveText("C");
   await expect(page.getByTestId("proposal-lines")).toContainText("scratch covers 1.2 % of lens window > 1.0 % allowed for B → C");
@@ -64,7 +64,7 @@ test("a lead publishes rubric version 2; a unit graded under version 1 keeps its
   await expect(page.getByTestId("rubric-rules")).toContainText("scratch on lens window, share > 2.0 %");
 
   // The unit keeps its version-1 grade, and shows what version 2 would say.
-  await page.goto(`/units/${fixture.unitId}/grades`);
+  await page.goto(`/units/${fixture.unitId}`);
   const current = page.getByTestId("current-grade");
   await expect(current).toContainText("C");
   await expect(current).toContainText("under rubric version 1");

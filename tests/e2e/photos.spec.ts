@@ -35,8 +35,10 @@ test("an inspector uploads 10 photos at once, watches the progress, and sees eac
   const files = await Promise.all(orientations.map(async (o, i) => file(`bench-${i + 1}-exif${o}.jpg`, await orientedPhoto(i, o))));
 
   await signInAs(page, "inspector@vellmoor.example");
+  // The old photos link lands on the Bench, where the photos now live.
   await page.goto(`/units/${unitId}/photos`);
-  await expect(page.getByRole("heading", { level: 1 })).toContainText("Photos of CAM-");
+  await expect(page).toHaveURL(new RegExp(`/units/${unitId}#photos$`));
+  await expect(page.getByRole("heading", { level: 1 })).toContainText("CAM-");
   await page.getByTestId("photo-file-input").setInputFiles(files);
   await expect(page.getByTestId("upload-row")).toHaveCount(10);
   // Views are suggested in order (required first), and each can be changed before uploading.
@@ -91,7 +93,7 @@ test("an inspector uploads 10 photos at once, watches the progress, and sees eac
 test("a file the store never received can be retried, an upload can be cancelled, and a refused file says why", async ({ page }) => {
   const unitId = await createPhotoBenchUnit();
   await signInAs(page, "inspector@vellmoor.example");
-  await page.goto(`/units/${unitId}/photos`);
+  await page.goto(`/units/${unitId}`);
 
   // The object store unreachable for the PUT (connection refused), then back.
   await page.route("**/uploads/**", (route) => route.abort("connectionrefused"));
@@ -131,7 +133,7 @@ test("a file the store never received can be retried, an upload can be cancelled
 test("photos can be dropped onto the page; auditors see the photos but get no uploader", async ({ page, browser }) => {
   const unitId = await createPhotoBenchUnit();
   await signInAs(page, "inspector@vellmoor.example");
-  await page.goto(`/units/${unitId}/photos`);
+  await page.goto(`/units/${unitId}`);
   const bytes = (await orientedPhoto(30, 1)).toString("base64");
   const transfer = await page.evaluateHandle((b64) => {
     const data = Uint8Array.from(atob(b64), (c) => c.charCodeAt(0));
@@ -148,7 +150,7 @@ test("photos can be dropped onto the page; auditors see the photos but get no up
   try {
     const auditor = await auditorContext.newPage();
     await signInAs(auditor, "auditor@vellmoor.example");
-    await auditor.goto(`/units/${unitId}/photos`);
+    await auditor.goto(`/units/${unitId}`);
     await expect(auditor.locator('[data-testid="photo-card"][data-status="ready"]')).toHaveCount(1);
     await expect(auditor.getByTestId("photo-uploader")).toHaveCount(0);
   } finally {

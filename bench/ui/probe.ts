@@ -1,0 +1,83 @@
+/**
+ * Frame timing inside the page. A requestAnimationFrame loop records, for every frame, its
+ * timestamp, the phase the driver set (pan, zoom, settle or none), whether the stage's reported
+ * viewport changed, and how long Konva spent in Layer#draw since the previous frame (the canvas
+ * code's own painting work: the regions cache copy or repaint, the photo, the interaction layer).
+ * Konva puts itself on `window.Konva`; its Layer prototype is wrapped, nothing in the app changes.
+ *
+ * Kept as a plain-JS string: functions passed to page.evaluate from tsx-compiled code can carry
+ * helper calls that do not exist in the page.
+ */
+
+export const PROBE_SCRIPT = `(() => {
+  if (window.__uiBench) return "already installed";
+  const stage = document.querySelector('[data-testid="annotation-stage"]');
+  if (!stage) throw new Error("no annotation stage on the page");
+  const K = window.Konva;
+  if (!K || !K.Layer) throw new Error("Konva is not on window; cannot time the canvas draws");
+  const probe = { frames: [], phase: null, drawMs: 0, draws: 0, running: true };
+  const original = K.Layer.prototype.draw;
+  K.Layer.prototype.draw = function (...args) {
+    const t0 = performance.now();
+    try { return original.apply(this, args); } finally { probe.drawMs += performance.now() - t0; probe.draws++; }
+  };
+  let last = null;
+  const tick = (ts) => {
+    if (!probe.running) return;
+    const key = stage.dataset.zoom + "," + stage.dataset.offsetX + "," + stage.dataset.offsetY;
+    probe.frames.push([ts, probe.phase, key !== last ? 1 : 0, probe.drawMs, probe.draws]);
+    probe.drawMs = 0; probe.draws = 0; last = key;
+    requestAnimationFrame(tick);
+  };
+  requestAnimationFrame(tick);
+  window.__uiBench = probe;
+  return "installed";
+})()`;
+
+export type RawFrame = [ts: number, phase: string | null, viewChanged: 0 | 1, drawMs: number, draws: number];
+
+/** One frame interval: from one rAF to the next, with the draw work done inside it. */
+export type Interval = { phase: string | null; ms: number; drawMs: number; drew: boolean };
+
+/**
+ * Frame i−1 → i is one interval. Its phase is that of frame i−1 (the driver's phase when the
+ * frame began) and its draw work is what frame i reports (Konva draws run in rAF callbacks after
+ * the probe's own, so they land between the two timestamps).
+ */
+export function intervalsOf(frames: readonly RawFrame[]): Interval[] {
+  const out: Interval[] = [];
+  for (let i = 1; i < frames.length; i++) {
+    out.push({ phase: frames[i - 1][1], ms: frames[i][0] - frames[i - 1][0], drawMs: frames[i][3], drew: frames[i][4] > 0 });
+  }
+  return out;
+}
+
+export function percentile(values: readonly number[], p: number): number {
+  if (!values.length) return NaN;
+  const sorted = [...values].sort((a, b) => a - b);
+  return sorted[Math.min(sorted.length - 1, Math.max(0, Math.ceil((p / 100) * sorted.length) - 1))];
+}
+
+export type Summary = { frames: number; drawing: number; median: number; p95: number; max: number; drawMedian: number; drawP95: number; over: number };
+
+/**
+ * The frames of one phase. Only intervals in which the canvas drew count for the frame-time
+ * figures: with the frame-rate limit off the browser also runs empty frames (no new input yet)
+ * that would make it look faster than it is. `over` counts drawing frames above `budgetMs`.
+ */
+export function summarise(intervals: readonly Interval[], phase: string, budgetMs: number): Summary {
+  const all = intervals.filter((f) => f.phase === phase);
+  const drawing = all.filter((f) => f.drew);
+  const ms = drawing.map((f) => f.ms);
+  const draw = drawing.map((f) => f.drawMs);
+  return {
+    frames: all.length,
+    drawing: drawing.length,
+    median: percentile(ms, 50),
+    p95: percentile(ms, 95),
+    max: ms.length ? Math.max(...ms) : NaN,
+    drawMedian: percentile(draw, 50),
+    drawP95: percentile(draw, 95),
+    over: ms.filter((v) => v > budgetMs).length,
+  };
+}

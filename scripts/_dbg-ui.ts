@@ -1,0 +1,17 @@
+import { chromium } from "playwright-core";
+const t0 = performance.now();
+const log = (m: string) => console.log(`${((performance.now() - t0) / 1000).toFixed(1)} s ${m}`);
+const flags = ["--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run", "--disable-background-networking", "--disable-component-update", "--disable-sync", ...(process.argv[2] ? process.argv[2].split(" ") : [])];
+const b = await chromium.launch({ executablePath: "/usr/bin/chromium", headless: true, args: flags });
+log("launched " + b.version());
+const p = await b.newPage();
+await p.goto("about:blank");
+const r = await p.evaluate(`new Promise(res => { const t=[]; const f = (ts) => { t.push(ts); if (t.length < 120) requestAnimationFrame(f); else res([(t[119]-t[0])/119]); }; requestAnimationFrame(f); })`);
+log("rAF mean interval " + JSON.stringify(r));
+const t1 = performance.now();
+for (let i = 0; i < 100; i++) await p.mouse.move(10 + i, 10);
+log(`100 mouse moves: ${((performance.now() - t1)).toFixed(0)} ms`);
+const t2 = performance.now();
+for (let i = 0; i < 100; i++) await p.mouse.wheel(0, 10);
+log(`100 wheels: ${((performance.now() - t2)).toFixed(0)} ms`);
+await b.close();
