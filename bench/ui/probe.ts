@@ -4,10 +4,12 @@
  * viewport changed, and how long Konva spent in Layer#draw since the previous frame (the canvas
  * code's own painting work: the regions cache copy or repaint, the photo, the interaction layer).
  * Konva puts itself on `window.Konva`; its Layer prototype is wrapped, nothing in the app changes.
+ * Each frame is also marked (`uib:N`) so trace.ts can find it in a performance trace.
  *
  * Kept as a plain-JS string: functions passed to page.evaluate from tsx-compiled code can carry
  * helper calls that do not exist in the page.
  */
+import type { FrameWork } from "./trace";
 
 export const PROBE_SCRIPT = `(() => {
   if (window.__uiBench) return "already installed";
@@ -25,6 +27,7 @@ export const PROBE_SCRIPT = `(() => {
   const tick = (ts) => {
     if (!probe.running) return;
     const key = stage.dataset.zoom + "," + stage.dataset.offsetX + "," + stage.dataset.offsetY;
+    performance.mark("uib:" + probe.frames.length);
     probe.frames.push([ts, probe.phase, key !== last ? 1 : 0, probe.drawMs, probe.draws]);
     probe.drawMs = 0; probe.draws = 0; last = key;
     requestAnimationFrame(tick);
@@ -37,17 +40,17 @@ export const PROBE_SCRIPT = `(() => {
 export type RawFrame = [ts: number, phase: string | null, viewChanged: 0 | 1, drawMs: number, draws: number];
 
 /** One frame interval: from one rAF to the next, with the draw work done inside it. */
-export type Interval = { phase: string | null; ms: number; drawMs: number; drew: boolean };
+export type Interval = { phase: string | null; ms: number; drawMs: number; drew: boolean; work: FrameWork | null };
 
 /**
  * Frame i−1 → i is one interval. Its phase is that of frame i−1 (the driver's phase when the
  * frame began) and its draw work is what frame i reports (Konva draws run in rAF callbacks after
  * the probe's own, so they land between the two timestamps).
  */
-export function intervalsOf(frames: readonly RawFrame[]): Interval[] {
+export function intervalsOf(frames: readonly RawFrame[], work: ReadonlyMap<number, FrameWork> = new Map()): Interval[] {
   const out: Interval[] = [];
   for (let i = 1; i < frames.length; i++) {
-    out.push({ phase: frames[i - 1][1], ms: frames[i][0] - frames[i - 1][0], drawMs: frames[i][3], drew: frames[i][4] > 0 });
+    out.push({ phase: frames[i - 1][1], ms: frames[i][0] - frames[i - 1][0], drawMs: frames[i][3], drew: frames[i][4] > 0, work: work.get(i - 1) ?? null });
   }
   return out;
 }
@@ -58,26 +61,54 @@ export function percentile(values: readonly number[], p: number): number {
   return sorted[Math.min(sorted.length - 1, Math.max(0, Math.ceil((p / 100) * sorted.length) - 1))];
 }
 
-export type Summary = { frames: number; drawing: number; median: number; p95: number; max: number; drawMedian: number; drawP95: number; over: number };
+export type Summary = {
+  frames: number;
+  drawing: number;
+  /** rAF interval of drawing frames. */
+  median: number;
+  p95: number;
+  max: number;
+  /** Drawing frames whose rAF interval exceeded 1.5 display frames (a frame was missed). */
+  missed: number;
+  /** Konva Layer#draw time per drawing frame. */
+  drawMedian: number;
+  drawP95: number;
+  /** Main-thread work per drawing frame (trace), and how many frames had it. */
+  traced: number;
+  busyMedian: number;
+  busyP95: number;
+  busyOver: number;
+  /** Mean main-thread ms per drawing frame, by kind of work. */
+  parts: Record<string, number>;
+};
 
 /**
- * The frames of one phase. Only intervals in which the canvas drew count for the frame-time
- * figures: with the frame-rate limit off the browser also runs empty frames (no new input yet)
- * that would make it look faster than it is. `over` counts drawing frames above `budgetMs`.
+ * The frames of one phase. Only intervals in which the canvas drew count: a frame with nothing
+ * new to draw (no input arrived in time) says nothing about the canvas. `budgetMs` is the
+ * target; `displayMs` the idle rAF interval (one display frame).
  */
-export function summarise(intervals: readonly Interval[], phase: string, budgetMs: number): Summary {
+export function summarise(intervals: readonly Interval[], phase: string, budgetMs: number, displayMs: number): Summary {
   const all = intervals.filter((f) => f.phase === phase);
   const drawing = all.filter((f) => f.drew);
   const ms = drawing.map((f) => f.ms);
   const draw = drawing.map((f) => f.drawMs);
+  const traced = drawing.flatMap((f) => (f.work ? [f.work] : []));
+  const busy = traced.map((w) => w.busyMs);
+  const parts: Record<string, number> = {};
+  for (const w of traced) for (const [k, v] of Object.entries(w.parts)) parts[k] = (parts[k] ?? 0) + v / traced.length;
   return {
     frames: all.length,
     drawing: drawing.length,
     median: percentile(ms, 50),
     p95: percentile(ms, 95),
     max: ms.length ? Math.max(...ms) : NaN,
+    missed: ms.filter((v) => v > 1.5 * displayMs).length,
     drawMedian: percentile(draw, 50),
     drawP95: percentile(draw, 95),
-    over: ms.filter((v) => v > budgetMs).length,
+    traced: traced.length,
+    busyMedian: percentile(busy, 50),
+    busyP95: percentile(busy, 95),
+    busyOver: busy.filter((v) => v > budgetMs).length,
+    parts,
   };
 }

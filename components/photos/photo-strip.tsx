@@ -142,7 +142,7 @@ function PhotoCard(props: {
     );
   const frame = "flex h-16 w-full items-center justify-center overflow-hidden rounded-t-md bg-gauge-100";
   return (
-    <li className={`card relative w-32 overflow-hidden ${selected ? "ring-2 ring-signal-500" : ""}`} data-testid="photo-card" data-photo-id={photo.id} data-status={photo.status} data-selected={selected ? "true" : "false"}>
+    <li className={`card relative w-36 overflow-hidden ${selected ? "ring-2 ring-signal-500" : ""}`} data-testid="photo-card" data-photo-id={photo.id} data-status={photo.status} data-selected={selected ? "true" : "false"}>
       {onSelect && photo.status === "ready" ? (
         <button type="button" className={`${frame} hover:opacity-90`} aria-pressed={selected} aria-label={`Open the ${viewLabel} photo ${photo.fileName} on the canvas`} onClick={onSelect} data-testid="photo-select">
           {image}
