@@ -1,7 +1,8 @@
 /**
  * The UI benchmark's calls to the running app, as the browser makes them: sign-in (next-auth
  * credentials), photo upload (intent → PUT to the presigned URL → finalise; the worker makes
- * the preview) and the region set save (PUT with the version it starts from).
+ * the preview), the region set save (PUT with the version it starts from) and the release of
+ * the unit at the end.
  */
 import { parseRegionSet, type RegionSetPayload } from "@/lib/geometry/validate";
 import { canonicalRegions, PHOTO, UI_BENCH_DEFECTS } from "./scene";
@@ -95,4 +96,10 @@ export async function ensureRegions(s: Session, photoId: string, wanted: RegionS
   const res = await fetch(url, { method: "PUT", headers: { ...header(s), "content-type": "application/json" }, body: JSON.stringify({ baseVersion: set.version, regions: wanted }) });
   if (!res.ok) throw await failure("Saving the regions", res);
   return { version: ((await res.json()) as { version: number }).version, saved: true };
+}
+
+/** Gives the unit back to the queue, as the Bench's release does (it is due last, in 2099). */
+export async function releaseUnit(s: Session, unitId: string): Promise<void> {
+  const res = await fetch(`${s.base}/api/units/${unitId}/lease`, { method: "DELETE", headers: header(s) });
+  if (!res.ok) throw await failure("Releasing the unit", res);
 }

@@ -3,10 +3,11 @@
  * modules are server-only). Everything is named "(generated)" and reused on every run, so runs
  * add no rows after the first: a part type "UI bench module (generated)" with four defect
  * classes, a supplier, one open lot "UI-BENCH (generated)" due far ahead and one unit in it,
- * leased to the demo inspector for 20 minutes (the Bench renews the lease while it is open).
+ * leased to the demo inspector for 20 minutes (the Bench renews the lease while it is open; the
+ * bench gives it back to the queue at the end, where it is due last).
  * A unit that was graded in the meantime is left as it is and a new one is added to the lot.
  */
-import pg from "pg";
+import type pg from "pg";
 import { PHOTO, UI_BENCH_DEFECTS } from "./scene";
 
 export const BENCH_INSPECTOR = "inspector@vellmoor.example";
@@ -15,7 +16,7 @@ const PART_SLUG = "ui-bench-module";
 const LOT_REF = "UI-BENCH (generated)";
 const VIEWS = [{ key: "front", label: "Front", required: true, zones: [] }];
 
-export type UiBenchFixture = { unitId: string; serial: string; photoId: string | null; created: string[] };
+export type UiBenchFixture = { unitId: string; serial: string; photo: { id: string; bytes: number } | null; created: string[] };
 
 export async function prepareFixture(pool: pg.Pool): Promise<UiBenchFixture> {
   const c = await pool.connect();
@@ -75,12 +76,12 @@ export async function prepareFixture(pool: pg.Pool): Promise<UiBenchFixture> {
       `UPDATE units SET status = 'on_bench', lease_holder_id = $2, lease_expires_at = now() + interval '20 minutes', claimed_at = coalesce(claimed_at, now()), updated_at = now() WHERE id = $1`,
       [unit!.id, inspector.id],
     );
-    const photo = await one<{ id: string }>(
-      "SELECT id FROM photos WHERE unit_id = $1 AND view_key = 'front' AND status = 'ready' AND width = $2 AND height = $3 ORDER BY created_at LIMIT 1",
+    const photo = await one<{ id: string; bytes: number }>(
+      "SELECT id, bytes FROM photos WHERE unit_id = $1 AND view_key = 'front' AND status = 'ready' AND width = $2 AND height = $3 ORDER BY created_at LIMIT 1",
       [unit!.id, PHOTO.width, PHOTO.height],
     );
     await c.query("COMMIT");
-    return { unitId: unit!.id, serial: unit!.serial, photoId: photo?.id ?? null, created };
+    return { unitId: unit!.id, serial: unit!.serial, photo: photo ?? null, created };
   } catch (err) {
     await c.query("ROLLBACK");
     throw err;

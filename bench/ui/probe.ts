@@ -70,17 +70,24 @@ export type Summary = {
   max: number;
   /** Drawing frames whose rAF interval exceeded 1.5 display frames (a frame was missed). */
   missed: number;
-  /** Konva Layer#draw time per drawing frame. */
+  /** Konva Layer#draw time (wall clock) per drawing frame. */
   drawMedian: number;
   drawP95: number;
-  /** Main-thread work per drawing frame (trace), and how many frames had it. */
+  /** Drawing frames found in the trace. */
   traced: number;
-  busyMedian: number;
-  busyP95: number;
-  busyOver: number;
-  /** Mean main-thread ms per drawing frame, by kind of work. */
+  /** Main-thread CPU time per drawing frame (trace.ts), its mean, and frames above the budget. */
+  cpuMedian: number;
+  cpuP95: number;
+  cpuMean: number;
+  cpuOver: number;
+  /** Main-thread time inside tasks per drawing frame, CPU waits included. */
+  wallMedian: number;
+  wallP95: number;
+  /** Mean main-thread CPU ms per drawing frame, by kind of work. */
   parts: Record<string, number>;
 };
+
+const mean = (values: readonly number[]) => (values.length ? values.reduce((a, b) => a + b, 0) / values.length : NaN);
 
 /**
  * The frames of one phase. Only intervals in which the canvas drew count: a frame with nothing
@@ -93,7 +100,8 @@ export function summarise(intervals: readonly Interval[], phase: string, budgetM
   const ms = drawing.map((f) => f.ms);
   const draw = drawing.map((f) => f.drawMs);
   const traced = drawing.flatMap((f) => (f.work ? [f.work] : []));
-  const busy = traced.map((w) => w.busyMs);
+  const cpu = traced.map((w) => w.cpuMs);
+  const wall = traced.map((w) => w.wallMs);
   const parts: Record<string, number> = {};
   for (const w of traced) for (const [k, v] of Object.entries(w.parts)) parts[k] = (parts[k] ?? 0) + v / traced.length;
   return {
@@ -106,9 +114,12 @@ export function summarise(intervals: readonly Interval[], phase: string, budgetM
     drawMedian: percentile(draw, 50),
     drawP95: percentile(draw, 95),
     traced: traced.length,
-    busyMedian: percentile(busy, 50),
-    busyP95: percentile(busy, 95),
-    busyOver: busy.filter((v) => v > budgetMs).length,
+    cpuMedian: percentile(cpu, 50),
+    cpuP95: percentile(cpu, 95),
+    cpuMean: mean(cpu),
+    cpuOver: cpu.filter((v) => v > budgetMs).length,
+    wallMedian: percentile(wall, 50),
+    wallP95: percentile(wall, 95),
     parts,
   };
 }

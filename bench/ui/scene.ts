@@ -20,6 +20,8 @@ export const UI_BENCH_DEFECTS = [
   { key: "dust", label: "Dust under glass", severity: "minor" },
 ] as const;
 
+const clamp = (v: number, lo: number, hi: number) => Math.min(hi, Math.max(lo, v));
+
 /** A plain photo: a dark module with a round window on a light card, a soft gradient, JPEG q88. */
 export async function benchPhoto(): Promise<Buffer> {
   const { width: w, height: h } = PHOTO;
@@ -35,10 +37,12 @@ export async function benchPhoto(): Promise<Buffer> {
   <circle cx="${w * 0.62}" cy="${h * 0.38}" r="${h * 0.05}" fill="#151a1e" stroke="#6d7378" stroke-width="10"/>
   <rect x="${w * 0.56}" y="${h * 0.58}" width="${w * 0.14}" height="${h * 0.1}" rx="20" fill="#b48a3c"/>
 </svg>`;
-  return sharp(Buffer.from(svg)).jpeg({ quality: 88 }).toBuffer();
+  // Sensor-like noise (seeded), so the file is the size of a real 12 MP photo and not a flat drawing.
+  const { data, info } = await sharp(Buffer.from(svg)).removeAlpha().raw().toBuffer({ resolveWithObject: true });
+  const rnd = mulberry32(SCENE_SEED);
+  for (let i = 0; i < data.length; i++) data[i] = clamp(data[i] + Math.round((rnd() - 0.5) * 18), 0, 255);
+  return sharp(data, { raw: { width: info.width, height: info.height, channels: info.channels } }).jpeg({ quality: 88 }).toBuffer();
 }
-
-const clamp = (v: number, lo: number, hi: number) => Math.min(hi, Math.max(lo, v));
 
 /**
  * 1 000 regions, a quarter of each kind, classes in turn. Coordinates are whole pixels so the

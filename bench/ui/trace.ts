@@ -7,7 +7,7 @@
  * too. While the main thread needs more than one display frame for this, frames are missed.
  */
 
-type TraceEvent = { name: string; cat?: string; ph: string; ts: number; dur?: number; pid: number; tid: number };
+type TraceEvent = { name: string; cat?: string; ph: string; ts: number; dur?: number; tdur?: number; pid: number; tid: number };
 
 export const TRACE_CATEGORIES = ["toplevel", "devtools.timeline", "blink.user_timing"];
 
@@ -27,9 +27,16 @@ const BUCKETS: Record<string, string> = {
   Commit: "paint+commit",
   MinorGC: "GC",
   MajorGC: "GC",
+  HitTest: "hit test",
+  "IntersectionObserverController::computeIntersections": "intersections",
 };
 
-export type FrameWork = { busyMs: number; parts: Record<string, number> };
+/**
+ * `wallMs`: how long the main thread was inside tasks (on a busy machine this includes waiting
+ * for a CPU); `cpuMs`: the CPU time it used in them (the trace's thread time), the work itself.
+ * `parts`: CPU ms by kind of work.
+ */
+export type FrameWork = { wallMs: number; cpuMs: number; parts: Record<string, number> };
 
 /** Per probe frame index N: the main thread's work from frame N's task to frame N+1's. */
 export function frameWork(traceJson: Buffer | string): Map<number, FrameWork> {
@@ -48,8 +55,10 @@ export function frameWork(traceJson: Buffer | string): Map<number, FrameWork> {
     let found = -1;
     while (lo <= hi) {
       const mid = (lo + hi) >> 1;
-      if (tasks[mid].ts <= ts) (found = mid), (lo = mid + 1);
-      else hi = mid - 1;
+      if (tasks[mid].ts <= ts) {
+        found = mid;
+        lo = mid + 1;
+      } else hi = mid - 1;
     }
     return found >= 0 && tasks[found].ts + tasks[found].dur! >= ts ? tasks[found].ts : ts;
   };
@@ -65,22 +74,28 @@ export function frameWork(traceJson: Buffer | string): Map<number, FrameWork> {
     openUntil = e.ts + e.dur!;
   }
   const overlap = (e: TraceEvent, a: number, b: number) => Math.max(0, Math.min(b, e.ts + e.dur!) - Math.max(a, e.ts));
+  // CPU time of the part of an event inside [a, b), in proportion (a task cut by a frame boundary).
+  const cpu = (e: TraceEvent, a: number, b: number) => (e.dur! > 0 ? ((e.tdur ?? e.dur!) * overlap(e, a, b)) / e.dur! : 0);
   const indices = [...byIndex.keys()].sort((a, b) => a - b);
   let t = 0;
   let p = 0;
   for (let k = 0; k + 1 < indices.length; k++) {
     const [a, b] = [byIndex.get(indices[k])!, byIndex.get(indices[k + 1])!];
     if (indices[k + 1] !== indices[k] + 1 || b <= a) continue;
-    let busy = 0;
+    let wall = 0;
+    let used = 0;
     while (t < tasks.length && tasks[t].ts + tasks[t].dur! <= a) t++;
-    for (let i = t; i < tasks.length && tasks[i].ts < b; i++) busy += overlap(tasks[i], a, b);
+    for (let i = t; i < tasks.length && tasks[i].ts < b; i++) {
+      wall += overlap(tasks[i], a, b);
+      used += cpu(tasks[i], a, b);
+    }
     const parts: Record<string, number> = {};
     while (p < top.length && top[p].ts + top[p].dur! <= a) p++;
     for (let i = p; i < top.length && top[i].ts < b; i++) {
       const bucket = BUCKETS[top[i].name];
-      parts[bucket] = (parts[bucket] ?? 0) + overlap(top[i], a, b) / 1000;
+      parts[bucket] = (parts[bucket] ?? 0) + cpu(top[i], a, b) / 1000;
     }
-    out.set(indices[k], { busyMs: busy / 1000, parts });
+    out.set(indices[k], { wallMs: wall / 1000, cpuMs: used / 1000, parts });
   }
   return out;
 }
