@@ -304,6 +304,25 @@ describe("derivatives", () => {
     }
   });
 
+  it("profile-less inputs (grey JPEG, 16-bit PNG, PNG with alpha) keep their colours through the raw intermediate", async () => {
+    const grey = await sharp({ create: { width: 64, height: 48, channels: 3, background: { r: 90, g: 90, b: 90 } } }).greyscale().jpeg({ quality: 100 }).toBuffer();
+    const deep = await sharp({ create: { width: 64, height: 48, channels: 3, background: { r: 200, g: 120, b: 40 } } }).png().toColourspace("rgb16").toBuffer();
+    const alpha = await sharp({ create: { width: 64, height: 48, channels: 4, background: { r: 30, g: 160, b: 220, alpha: 1 } } }).png().toBuffer();
+    expect((await sharp(deep).metadata()).depth).toBe("ushort"); // the fixture really is 16-bit
+    for (const input of [grey, deep, alpha]) {
+      expect((await sharp(input).metadata()).hasProfile).toBe(false);
+      // Reference: libvips' own decode of the same file to 8-bit sRGB.
+      const reference = await sharp(input).removeAlpha().toColourspace("srgb").raw().toBuffer();
+      const photo = await normalizePhoto(input);
+      expect([photo.width, photo.height]).toEqual([64, 48]);
+      for (const output of [photo.preview, photo.thumbnail]) {
+        const seen = await sharp(output).removeAlpha().toColourspace("srgb").raw().toBuffer();
+        const centre = (24 * 64 + 32) * 3;
+        for (let k = 0; k < 3; k++) expect(Math.abs(seen[centre + k] - reference[centre + k]), `channel ${k}`).toBeLessThanOrEqual(4);
+      }
+    }
+  });
+
   it.runIf(canDecodeAvif())("AVIF is accepted when the installed libheif decodes it", async () => {
     const avif = await sharp(await smallJpeg()).avif().toBuffer();
     const photo = await normalizePhoto(avif);
