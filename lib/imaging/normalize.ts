@@ -8,7 +8,7 @@
  * before any pixel is decoded.
  */
 import { createHash } from "node:crypto";
-import sharp, { type Metadata, type SharpOptions, type WebpOptions } from "sharp";
+import sharp, { type Metadata, type WebpOptions } from "sharp";
 import { PhotoRejectedError, heicMessage, sniffPhotoFormat, type AcceptedPhotoFormat } from "./photo-errors";
 
 export { PhotoRejectedError, type PhotoRejectionCode, type AcceptedPhotoFormat } from "./photo-errors";
@@ -96,9 +96,9 @@ export async function normalizePhoto(input: Buffer): Promise<NormalizedPhoto> {
     throw new PhotoRejectedError("unsupported_format", "This file is an animated WebP; upload a single still photo.");
   }
 
-  let upright: Upright;
+  let upright: Buffer;
   try {
-    upright = await decodeUpright(input, Boolean(header.icc));
+    upright = await decodeUpright(input);
   } catch (error) {
     throw isPixelLimitError(error) ? await tooManyPixels(input, error) : corrupt(error);
   }
@@ -177,31 +177,27 @@ function settleFormat(sniffed: AcceptedPhotoFormat | null, header: Metadata): Ac
   throw corrupt(new Error(`magic bytes say ${sniffed ?? "HEIF"}, decoder says ${header.format}`));
 }
 
-/** The upright, preview-sized pixels: raw when the original has no colour profile, else a TIFF that carries it. */
-type Upright = { data: Buffer; raw: SharpOptions["raw"] | null };
-
 /**
  * The one full decode of the original (so damage anywhere fails): turned upright and fitted inside
- * the preview square without enlarging. With a colour profile, conversion to sRGB is left to
- * `encodeWebp`, where it touches 5 MP instead of 12 (at 12 MP the ICC transform costs about as
- * much CPU as the decode itself); the profile travels with the pixels in an uncompressed TIFF,
- * since raw pixels cannot carry one. Without a profile there is nothing to convert and the pixels
- * stay raw (writing and reading the 15 MB TIFF twice cost about 40 ms of a 12 MP photo's ~260 ms,
- * measured with `npm run bench`).
+ * the preview square without enlarging. Conversion to sRGB is left to `encodeWebp`, where it
+ * touches 5 MP instead of 12 (at 12 MP the ICC transform costs about as much CPU as the decode
+ * itself); the embedded profile travels with the pixels in an uncompressed TIFF, since raw pixels
+ * cannot carry one.
  */
-async function decodeUpright(input: Buffer, hasProfile: boolean): Promise<Upright> {
-  const pipeline = sharp(input, { ...DECODE_OPTIONS, autoOrient: true }).resize({ width: PREVIEW_LONG_EDGE, height: PREVIEW_LONG_EDGE, fit: "inside", withoutEnlargement: true });
-  if (hasProfile) return { data: await pipeline.keepIccProfile().tiff({ compression: "none" }).toBuffer(), raw: null };
-  const { data, info } = await pipeline.raw().toBuffer({ resolveWithObject: true });
-  return { data, raw: { width: info.width, height: info.height, channels: info.channels } };
+function decodeUpright(input: Buffer): Promise<Buffer> {
+  return sharp(input, { ...DECODE_OPTIONS, autoOrient: true })
+    .resize({ width: PREVIEW_LONG_EDGE, height: PREVIEW_LONG_EDGE, fit: "inside", withoutEnlargement: true })
+    .keepIccProfile()
+    .tiff({ compression: "none" })
+    .toBuffer();
 }
 
 /**
  * WebP from the upright intermediate, optionally shrunk to fit `longEdge`. sharp converts to sRGB
  * through any embedded profile and, unless asked, writes no metadata: no Exif, GPS, XMP or ICC.
  */
-function encodeWebp(upright: Upright, longEdge: number | null, webp: WebpOptions) {
-  const image = sharp(upright.data, upright.raw ? { raw: upright.raw } : {});
+function encodeWebp(upright: Buffer, longEdge: number | null, webp: WebpOptions) {
+  const image = sharp(upright);
   if (longEdge !== null) image.resize({ width: longEdge, height: longEdge, fit: "inside", withoutEnlargement: true });
   return image.webp(webp).toBuffer({ resolveWithObject: true });
 }
