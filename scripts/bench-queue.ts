@@ -91,11 +91,12 @@ async function setUp() {
       );
       return lot.id as string;
     }
-    // Earlier runs' work lots leave running leases that would expire in bursts during this run:
-    // close those lots and end their leases first (this workspace's generated data only).
+    // Earlier runs' work lots are closed as a lead's decision closes a lot (lib/lots/lots.ts
+    // decideLot): their units not yet graded leave the queue and any bench, so no lease of
+    // theirs expires during this run and no claim walks past them (this workspace's generated data only).
     await c.query(
-      `UPDATE units SET status = 'queued', lease_holder_id = NULL, lease_expires_at = NULL, updated_at = now()
-       WHERE workspace_id = $1 AND status = 'on_bench' AND lot_id IN (SELECT id FROM lots WHERE workspace_id = $1 AND purchase_ref LIKE 'WORK-%')`,
+      `UPDATE units SET status = 'not_graded', lease_holder_id = NULL, lease_expires_at = NULL, claimed_at = NULL, updated_at = now()
+       WHERE workspace_id = $1 AND status IN ('queued', 'on_bench') AND lot_id IN (SELECT id FROM lots WHERE workspace_id = $1 AND purchase_ref LIKE 'WORK-%')`,
       [ws],
     );
     await c.query("UPDATE lots SET status = 'decided' WHERE workspace_id = $1 AND purchase_ref LIKE 'WORK-%' AND status = 'open'", [ws]);

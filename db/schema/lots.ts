@@ -118,7 +118,7 @@ export const lots = pgTable(
   ],
 );
 
-export const UNIT_STATUSES = ["queued", "on_bench", "graded", "in_recheck", "final"] as const;
+export const UNIT_STATUSES = ["queued", "on_bench", "graded", "in_recheck", "final", "not_graded"] as const;
 export type UnitStatus = (typeof UNIT_STATUSES)[number];
 
 export const units = pgTable(

@@ -1,5 +1,5 @@
 import "server-only";
-import { and, eq } from "drizzle-orm";
+import { and, eq, inArray } from "drizzle-orm";
 import { db } from "@/db/client";
 import { logActivity } from "@/db/queries/activity";
 import { getLot, lockLot } from "@/db/queries/lots";
@@ -111,13 +111,20 @@ export async function decideLot(actor: SessionUser, lotId: string, input: Dispos
       .update(units)
       .set({ status: transition("graded", "finalise"), updatedAt: now })
       .where(and(eq(units.workspaceId, actor.workspaceId), eq(units.lotId, lotId), eq(units.status, "graded")));
+    // Units the decision came before leave the queue and any bench: nobody needs them now, and
+    // left queued they would sit in the queue's index for every later claim to walk past.
+    const withdrawn = await tx
+      .update(units)
+      .set({ status: transition("queued", "withdraw"), leaseHolderId: null, leaseExpiresAt: null, claimedAt: null, updatedAt: now })
+      .where(and(eq(units.workspaceId, actor.workspaceId), eq(units.lotId, lotId), inArray(units.status, ["queued", "on_bench"])))
+      .returning({ id: units.id });
     await logActivity(tx, {
       workspaceId: actor.workspaceId,
       actorId: actor.id,
       action: "lot.decided",
       subjectType: "lot",
       subjectId: lotId,
-      detail: { verdict: verdict.verdict, disposition: input.disposition, reason: input.reason, counts: decisionCounts, summary: verdict.summary },
+      detail: { verdict: verdict.verdict, disposition: input.disposition, reason: input.reason, counts: decisionCounts, summary: verdict.summary, notInspected: withdrawn.length },
     });
     return row;
   });

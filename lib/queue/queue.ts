@@ -24,27 +24,6 @@ export function filterSql(filters: QueueFilters): SQL {
   return sql.join(parts, sql` `);
 }
 
-/**
- * Expired leases go back to the queue first (the claim itself does this, so no clean-up job is
- * needed to be correct). SKIP LOCKED: two claimers never wait on each other here either.
- */
-async function returnExpiredLeases(tx: Tx, workspaceId: string) {
-  // One statement: return the units and log each expiry (set-based, however many expired at once).
-  await tx.execute(sql`
-    WITH expired AS (
-      SELECT id, lease_holder_id FROM units
-      WHERE workspace_id = ${workspaceId} AND status = ${ON_BENCH} AND lease_expires_at < now()
-      FOR UPDATE SKIP LOCKED
-    ), returned AS (
-      UPDATE units u SET status = ${QUEUED}, lease_holder_id = NULL, lease_expires_at = NULL, claimed_at = NULL, updated_at = now()
-      FROM expired WHERE u.id = expired.id
-      RETURNING u.id, expired.lease_holder_id
-    )
-    INSERT INTO activity_log (workspace_id, actor_id, action, subject_type, subject_id, detail)
-    SELECT ${workspaceId}::uuid, NULL, 'unit.lease_expired', 'unit', returned.id::text, jsonb_build_object('holder', returned.lease_holder_id)
-    FROM returned`);
-}
-
 /** True when a unit is waiting (read without locks, so rows other claimers are busy with count too). */
 async function anythingWaiting(workspaceId: string, filters: QueueFilters): Promise<boolean> {
   const { rows } = await db().execute<{ waiting: boolean }>(sql`
@@ -58,36 +37,59 @@ async function anythingWaiting(workspaceId: string, filters: QueueFilters): Prom
   return rows[0]?.waiting ?? false;
 }
 
+/**
+ * One claim attempt, as one SQL statement (one round trip, atomic on its own):
+ * - `expired` / `returned` / `expiry_log`: leases that ran out go back to the queue and are
+ *   logged (set-based; the claim itself does this, so no clean-up job is needed to be correct).
+ *   Units returned here are claimable from the next attempt on: all parts of one statement see
+ *   the same snapshot.
+ * - `next` / `claimed` / `claim_log`: the most urgent queued unit, locked with SKIP LOCKED so
+ *   concurrent claimers pass over each other's rows, gets the caller's lease, and is logged.
+ * The two sets are disjoint (on-bench vs queued rows in the same snapshot), so no row is changed twice.
+ * A claim lost in a crash only puts the unit back in the queue, so the commit need not wait for
+ * the WAL flush: `set_config(…, true)` turns synchronous_commit off for this statement's own
+ * transaction; it sits in `expired`, which always runs, so it is in force at commit.
+ */
 async function claimOnce(user: SessionUser, filters: QueueFilters): Promise<ClaimedUnit | null> {
   const leaseSeconds = env().QUEUE_LEASE_SECONDS;
-  return db().transaction(async (tx) => {
-    // A claim lost in a crash only puts the unit back in the queue, so it need not wait for the
-    // WAL flush; this keeps Take next fast under load.
-    await tx.execute(sql`SET LOCAL synchronous_commit = off`);
-    await returnExpiredLeases(tx, user.workspaceId);
-    const { rows } = await tx.execute<{ id: string; lot_id: string; serial: string | null; sample_index: number; part_type_id: string; lease_expires_at: Date }>(sql`
-      WITH next AS (
-        SELECT u.id FROM units u
-        WHERE u.workspace_id = ${user.workspaceId}
-          AND u.status = ${QUEUED}
-          AND EXISTS (SELECT 1 FROM lots l WHERE l.id = u.lot_id AND l.status = 'open')
-          ${filterSql(filters)}
-        ORDER BY u.lot_due_on, u.lot_received_on, u.lot_created_at, u.lot_id, u.sample_index, u.id
-        LIMIT 1
-        FOR UPDATE OF u SKIP LOCKED
-      ), claimed AS (
-        UPDATE units u
-        SET status = ${ON_BENCH}, lease_holder_id = ${user.id}, lease_expires_at = now() + make_interval(secs => ${leaseSeconds}),
-            claimed_at = now(), updated_at = now()
-        FROM next WHERE u.id = next.id
-        RETURNING u.id, u.lot_id, u.serial, u.sample_index, u.part_type_id, u.lease_expires_at
-      )
-      SELECT * FROM claimed`);
-    const row = rows[0];
-    if (!row) return null;
-    await logActivity(tx, { workspaceId: user.workspaceId, actorId: user.id, action: "unit.claimed", subjectType: "unit", subjectId: row.id });
-    return { id: row.id, lotId: row.lot_id, serial: row.serial, sampleIndex: row.sample_index, partTypeId: row.part_type_id, leaseExpiresAt: new Date(row.lease_expires_at) };
-  });
+  const { rows } = await db().execute<{ id: string; lot_id: string; serial: string | null; sample_index: number; part_type_id: string; lease_expires_at: Date }>(sql`
+    WITH expired AS (
+      SELECT id, lease_holder_id FROM units
+      WHERE workspace_id = ${user.workspaceId} AND status = ${ON_BENCH} AND lease_expires_at < now()
+        AND (SELECT set_config('synchronous_commit', 'off', true)) IS NOT NULL
+      FOR UPDATE SKIP LOCKED
+    ), returned AS (
+      UPDATE units u SET status = ${QUEUED}, lease_holder_id = NULL, lease_expires_at = NULL, claimed_at = NULL, updated_at = now()
+      FROM expired WHERE u.id = expired.id
+      RETURNING u.id, expired.lease_holder_id
+    ), expiry_log AS (
+      INSERT INTO activity_log (workspace_id, actor_id, action, subject_type, subject_id, detail)
+      SELECT ${user.workspaceId}::uuid, NULL, 'unit.lease_expired', 'unit', returned.id::text, jsonb_build_object('holder', returned.lease_holder_id)
+      FROM returned
+    ), next AS (
+      SELECT u.id FROM units u
+      WHERE u.workspace_id = ${user.workspaceId}
+        AND u.status = ${QUEUED}
+        AND EXISTS (SELECT 1 FROM lots l WHERE l.id = u.lot_id AND l.status = 'open')
+        ${filterSql(filters)}
+      ORDER BY u.lot_due_on, u.lot_received_on, u.lot_created_at, u.lot_id, u.sample_index, u.id
+      LIMIT 1
+      FOR UPDATE OF u SKIP LOCKED
+    ), claimed AS (
+      UPDATE units u
+      SET status = ${ON_BENCH}, lease_holder_id = ${user.id}, lease_expires_at = now() + make_interval(secs => ${leaseSeconds}),
+          claimed_at = now(), updated_at = now()
+      FROM next WHERE u.id = next.id
+      RETURNING u.id, u.lot_id, u.serial, u.sample_index, u.part_type_id, u.lease_expires_at
+    ), claim_log AS (
+      INSERT INTO activity_log (workspace_id, actor_id, action, subject_type, subject_id, detail)
+      SELECT ${user.workspaceId}::uuid, ${user.id}::uuid, 'unit.claimed', 'unit', claimed.id::text, '{}'::jsonb
+      FROM claimed
+    )
+    SELECT * FROM claimed`);
+  const row = rows[0];
+  if (!row) return null;
+  return { id: row.id, lotId: row.lot_id, serial: row.serial, sampleIndex: row.sample_index, partTypeId: row.part_type_id, leaseExpiresAt: new Date(row.lease_expires_at) };
 }
 
 /**

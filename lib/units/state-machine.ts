@@ -18,7 +18,9 @@ export type UnitEvent =
   /** Recheck or adjudication finished, or the lot was decided without one. */
   | "finalise"
   /** A lead reopens a graded unit for correction. */
-  | "reopen";
+  | "reopen"
+  /** The lot was decided before this unit was inspected: it leaves the queue (or the bench) for good. */
+  | "withdraw";
 
 const TRANSITIONS: Record<UnitEvent, Partial<Record<UnitStatus, UnitStatus>>> = {
   claim: { queued: "on_bench" },
@@ -27,6 +29,7 @@ const TRANSITIONS: Record<UnitEvent, Partial<Record<UnitStatus, UnitStatus>>> = 
   start_recheck: { graded: "in_recheck" },
   finalise: { graded: "final", in_recheck: "final" },
   reopen: { graded: "queued" },
+  withdraw: { queued: "not_graded", on_bench: "not_graded" },
 };
 
 export const STATUS_LABELS: Record<UnitStatus, string> = {
@@ -35,6 +38,7 @@ export const STATUS_LABELS: Record<UnitStatus, string> = {
   graded: "graded",
   in_recheck: "in recheck",
   final: "final",
+  not_graded: "not graded (the lot was decided first)",
 };
 
 const EVENT_LABELS: Record<UnitEvent, string> = {
@@ -44,6 +48,7 @@ const EVENT_LABELS: Record<UnitEvent, string> = {
   start_recheck: "sent to recheck",
   finalise: "made final",
   reopen: "reopened",
+  withdraw: "withdrawn from the queue",
 };
 
 export function canTransition(from: UnitStatus, event: UnitEvent): boolean {

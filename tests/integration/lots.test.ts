@@ -131,6 +131,10 @@ describe("switching rules across lots", () => {
     }
     const decided = await api(lead, "POST", `/api/lots/${lot.id}/disposition`, reject ? { disposition: "return_to_vendor", reason: "Power button dead." } : { disposition: "to_stock", reason: "Clean." });
     expect(decided.status, JSON.stringify(decided.body)).toBe(200);
+    // Its units, checked but never graded, leave the queue with the decision: none is offered again.
+    const after = (await api<{ units: { status: string }[] }>(lead, "GET", `/api/lots/${lot.id}/units`)).body.units;
+    expect(after.map((u) => u.status)).toEqual(["not_graded", "not_graded"]);
+    expect((await api(inspector, "POST", "/api/queue/next", { lotId: lot.id })).status).toBe(204);
     return lot;
   }
 

@@ -30,8 +30,16 @@ describe("unit state machine", () => {
     }
   });
 
-  it("final is terminal and every other status has a way forward", () => {
-    expect(eventsFrom("final")).toEqual([]);
-    for (const status of UNIT_STATUSES.filter((s) => s !== "final")) expect(eventsFrom(status).length).toBeGreaterThan(0);
+  it("a unit not yet graded when its lot is decided is withdrawn, from the queue or the bench, for good", () => {
+    expect(transition("queued", "withdraw")).toBe("not_graded");
+    expect(transition("on_bench", "withdraw")).toBe("not_graded");
+    expect(() => transition("graded", "withdraw")).toThrow("This unit is graded, so it cannot be withdrawn from the queue.");
+    expect(() => transition("not_graded", "claim")).toThrow("cannot be taken onto the bench");
+  });
+
+  it("final and not inspected are terminal and every other status has a way forward", () => {
+    const terminal = ["final", "not_graded"];
+    for (const status of terminal) expect(eventsFrom(status as (typeof UNIT_STATUSES)[number])).toEqual([]);
+    for (const status of UNIT_STATUSES.filter((s) => !terminal.includes(s))) expect(eventsFrom(status).length).toBeGreaterThan(0);
   });
 });
