@@ -38,39 +38,50 @@ async function anythingWaiting(workspaceId: string, filters: QueueFilters): Prom
 }
 
 /**
- * One claim attempt, as one SQL statement (one round trip, atomic on its own):
- * - `expired` / `returned` / `expiry_log`: leases that ran out go back to the queue and are
- *   logged (set-based; the claim itself does this, so no clean-up job is needed to be correct).
- *   Units returned here are claimable from the next attempt on: all parts of one statement see
- *   the same snapshot.
- * - `next` / `claimed` / `claim_log`: the most urgent queued unit, locked with SKIP LOCKED so
- *   concurrent claimers pass over each other's rows, gets the caller's lease, and is logged.
- * The two sets are disjoint (on-bench vs queued rows in the same snapshot), so no row is changed twice.
- * A claim lost in a crash only puts the unit back in the queue, so the commit need not wait for
- * the WAL flush: `set_config(…, true)` turns synchronous_commit off for this statement's own
- * transaction; it sits in `expired`, which always runs, so it is in force at commit.
+ * A claim lost in a crash only puts the unit back in the queue, so these statements' commits need
+ * not wait for the WAL flush: `set_config(…, true)` turns synchronous_commit off for the
+ * statement's own transaction. It sits in the first CTE's WHERE as a one-time filter, which runs
+ * before that scan whatever it finds, so it is in force at commit.
  */
-async function claimOnce(user: SessionUser, filters: QueueFilters): Promise<ClaimedUnit | null> {
-  const leaseSeconds = env().QUEUE_LEASE_SECONDS;
-  const { rows } = await db().execute<{ id: string; lot_id: string; serial: string | null; sample_index: number; part_type_id: string; lease_expires_at: Date }>(sql`
+const ASYNC_COMMIT = sql`(SELECT set_config('synchronous_commit', 'off', true)) IS NOT NULL`;
+
+/**
+ * Expired leases go back to the queue and are logged, in one statement (set-based, however many
+ * ran out at once). The claim itself does this, so no clean-up job is needed to be correct.
+ * SKIP LOCKED: claimers never wait on each other here either.
+ */
+async function returnExpiredLeases(workspaceId: string) {
+  await db().execute(sql`
     WITH expired AS (
       SELECT id, lease_holder_id FROM units
-      WHERE workspace_id = ${user.workspaceId} AND status = ${ON_BENCH} AND lease_expires_at < now()
-        AND (SELECT set_config('synchronous_commit', 'off', true)) IS NOT NULL
+      WHERE workspace_id = ${workspaceId} AND status = ${ON_BENCH} AND lease_expires_at < now() AND ${ASYNC_COMMIT}
       FOR UPDATE SKIP LOCKED
     ), returned AS (
       UPDATE units u SET status = ${QUEUED}, lease_holder_id = NULL, lease_expires_at = NULL, claimed_at = NULL, updated_at = now()
       FROM expired WHERE u.id = expired.id
       RETURNING u.id, expired.lease_holder_id
-    ), expiry_log AS (
-      INSERT INTO activity_log (workspace_id, actor_id, action, subject_type, subject_id, detail)
-      SELECT ${user.workspaceId}::uuid, NULL, 'unit.lease_expired', 'unit', returned.id::text, jsonb_build_object('holder', returned.lease_holder_id)
-      FROM returned
-    ), next AS (
+    )
+    INSERT INTO activity_log (workspace_id, actor_id, action, subject_type, subject_id, detail)
+    SELECT ${workspaceId}::uuid, NULL, 'unit.lease_expired', 'unit', returned.id::text, jsonb_build_object('holder', returned.lease_holder_id)
+    FROM returned`);
+}
+
+/**
+ * One claim attempt: expired leases returned first (their own statement, so the claim's snapshot
+ * sees those units as waiting and takes them in priority order), then the most urgent queued
+ * unit locked with SKIP LOCKED, given the caller's lease and logged — one statement, atomic on
+ * its own. Two round trips in all, no explicit transaction.
+ */
+async function claimOnce(user: SessionUser, filters: QueueFilters): Promise<ClaimedUnit | null> {
+  const leaseSeconds = env().QUEUE_LEASE_SECONDS;
+  await returnExpiredLeases(user.workspaceId);
+  const { rows } = await db().execute<{ id: string; lot_id: string; serial: string | null; sample_index: number; part_type_id: string; lease_expires_at: Date }>(sql`
+    WITH next AS (
       SELECT u.id FROM units u
       WHERE u.workspace_id = ${user.workspaceId}
         AND u.status = ${QUEUED}
         AND EXISTS (SELECT 1 FROM lots l WHERE l.id = u.lot_id AND l.status = 'open')
+        AND ${ASYNC_COMMIT}
         ${filterSql(filters)}
       ORDER BY u.lot_due_on, u.lot_received_on, u.lot_created_at, u.lot_id, u.sample_index, u.id
       LIMIT 1

@@ -62,4 +62,18 @@ describe(`${CLAIMERS} concurrent claimers over ${UNITS} queued units`, () => {
     // Everyone else got nothing: the other 9 975 leases are still running.
     expect(results.filter((r) => r === null)).toHaveLength(CLAIMERS - expired.length);
   }, 120_000);
+
+  it("a unit whose lease ran out keeps its place: it is taken before a less urgent waiting unit", async () => {
+    const [inspector] = inspectors;
+    const { partType, supplier } = await createPartTypeAndSupplier(inspector.workspaceId);
+    const urgent = await createLotWithUnits({ workspaceId: inspector.workspaceId, createdBy: inspector.id, count: 1, dueOn: "2026-12-03", partTypeId: partType.id, supplierId: supplier.id });
+    const later = await createLotWithUnits({ workspaceId: inspector.workspaceId, createdBy: inspector.id, count: 1, dueOn: "2026-12-09", partTypeId: partType.id, supplierId: supplier.id });
+    const filters = { partTypeId: partType.id };
+    const first = await claimNextUnit({ user: inspector, filters });
+    expect(first?.lotId).toBe(urgent.id);
+    await db().update(units).set({ leaseExpiresAt: sql`now() - interval '1 second'` }).where(inArray(units.id, [first!.id]));
+    const again = await claimNextUnit({ user: inspectors[1], filters });
+    expect(again?.id).toBe(first!.id); // not the waiting unit of the lot due later
+    expect((await claimNextUnit({ user: inspectors[2], filters }))?.lotId).toBe(later.id);
+  });
 });
