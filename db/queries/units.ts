@@ -2,6 +2,7 @@ import "server-only";
 import { aliasedTable, and, asc, eq, inArray, sql } from "drizzle-orm";
 import { db, type DbOrTx } from "@/db/client";
 import { checklistResults, lots, partTypes, suppliers, units, users } from "@/db/schema";
+import { transition } from "@/lib/units/state-machine";
 
 const holders = aliasedTable(users, "lease_holders");
 
@@ -83,4 +84,16 @@ export function listUnitResults({ workspaceId, unitIds }: { workspaceId: string;
     .innerJoin(users, eq(users.id, checklistResults.recordedBy))
     .where(and(eq(checklistResults.workspaceId, workspaceId), inArray(checklistResults.unitId, unitIds)))
     .orderBy(asc(checklistResults.recordedAt));
+}
+
+/**
+ * A decided lot's units that were never graded (still waiting, or on a bench) leave the queue and
+ * any bench for good, as "not graded". Used by the lead's decision and by the demo seed.
+ */
+export async function withdrawUngradedUnits(tx: DbOrTx, { workspaceId, lotId, at }: { workspaceId: string; lotId: string; at: Date }) {
+  return tx
+    .update(units)
+    .set({ status: transition("queued", "withdraw"), leaseHolderId: null, leaseExpiresAt: null, claimedAt: null, updatedAt: at })
+    .where(and(eq(units.workspaceId, workspaceId), eq(units.lotId, lotId), inArray(units.status, ["queued", "on_bench"])))
+    .returning({ id: units.id });
 }

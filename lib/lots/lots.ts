@@ -1,8 +1,9 @@
 import "server-only";
-import { and, eq, inArray } from "drizzle-orm";
+import { and, eq } from "drizzle-orm";
 import { db } from "@/db/client";
 import { logActivity } from "@/db/queries/activity";
 import { getLot, lockLot } from "@/db/queries/lots";
+import { withdrawUngradedUnits } from "@/db/queries/units";
 import { lots, units, type LotDecisionCounts } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/require-user";
 import { AppError, notFound } from "@/lib/errors";
@@ -113,11 +114,7 @@ export async function decideLot(actor: SessionUser, lotId: string, input: Dispos
       .where(and(eq(units.workspaceId, actor.workspaceId), eq(units.lotId, lotId), eq(units.status, "graded")));
     // Units the decision came before leave the queue and any bench: nobody needs them now, and
     // left queued they would sit in the queue's index for every later claim to walk past.
-    const withdrawn = await tx
-      .update(units)
-      .set({ status: transition("queued", "withdraw"), leaseHolderId: null, leaseExpiresAt: null, claimedAt: null, updatedAt: now })
-      .where(and(eq(units.workspaceId, actor.workspaceId), eq(units.lotId, lotId), inArray(units.status, ["queued", "on_bench"])))
-      .returning({ id: units.id });
+    const withdrawn = await withdrawUngradedUnits(tx, { workspaceId: actor.workspaceId, lotId, at: now });
     await logActivity(tx, {
       workspaceId: actor.workspaceId,
       actorId: actor.id,

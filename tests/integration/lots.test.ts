@@ -190,3 +190,13 @@ describe("switching rules across lots", () => {
     expect((await api(lead, "PUT", "/api/inspection-schemes", { ...body, recordCorrectiveAction: true })).status).toBe(409);
   });
 });
+
+describe("the demo seed", () => {
+  it("decides its historical lots as a lead would: no unit of a decided lot is left waiting or on a bench", async () => {
+    const { rows } = await db().execute<{ decided: number; left: number }>(sql`
+      SELECT count(DISTINCT l.id)::int AS decided, count(u.id) FILTER (WHERE u.status IN ('queued', 'on_bench'))::int AS "left"
+      FROM lots l JOIN units u ON u.lot_id = l.id WHERE l.status = 'decided'`);
+    expect(rows[0].decided).toBeGreaterThan(0); // the seed has decided lots, so the check can fail
+    expect(rows[0].left).toBe(0);
+  });
+});
