@@ -77,7 +77,8 @@ export function PhotoStrip({ unitId, views, canManage = false, selection, header
         </div>
       </div>
       {message && <FormMessage kind="error">{message}</FormMessage>}
-      {list.length === 0 && <p className="text-sm text-gauge-600">No photos yet.</p>}
+      {/* With required views, their empty slots already say what is missing. */}
+      {list.length === 0 && missing.length === 0 && <p className="text-sm text-gauge-600">No photos yet.</p>}
       <div className="flex flex-wrap gap-3">
         {groups
           .filter((g) => g.required || list.some((p) => p.viewKey === g.key))
