@@ -121,7 +121,7 @@ export async function decideLot(actor: SessionUser, lotId: string, input: Dispos
       action: "lot.decided",
       subjectType: "lot",
       subjectId: lotId,
-      detail: { verdict: verdict.verdict, disposition: input.disposition, reason: input.reason, counts: decisionCounts, summary: verdict.summary, notInspected: withdrawn.length },
+      detail: { verdict: verdict.verdict, disposition: input.disposition, reason: input.reason, counts: decisionCounts, summary: verdict.summary, notGraded: withdrawn.length },
     });
     return row;
   });
