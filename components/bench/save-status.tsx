@@ -4,23 +4,23 @@ import type { SaveStatus } from "./region-autosaver";
 
 const time = (ms: number) => new Date(ms).toLocaleTimeString([], { hour: "2-digit", minute: "2-digit", second: "2-digit" });
 
-type SaveStatusWords = { text: string; detail: string | null; tone: "ok" | "busy" | "warn" | "fault"; unsaved: boolean };
+type SaveStatusWords = { text: string; detail: string | null; tone: "ok" | "busy" | "warn" | "fault" };
 
-/** What the autosave state means in words; "unsaved" whenever the edits are not on the server yet. */
-export function describeSaveStatus(status: SaveStatus): SaveStatusWords {
+/** What the autosave state means in words ("Unsaved …" whenever the edits are not on the server yet). */
+function describeSaveStatus(status: SaveStatus): SaveStatusWords {
   switch (status.kind) {
     case "saved":
-      return { text: status.at ? `Saved (version ${status.version}, ${time(status.at)})` : status.version ? `Saved (version ${status.version})` : "No regions saved yet", detail: null, tone: "ok", unsaved: false };
+      return { text: status.at ? `Saved (version ${status.version}, ${time(status.at)})` : status.version ? `Saved (version ${status.version})` : "No regions saved yet", detail: null, tone: "ok" };
     case "pending":
-      return { text: "Unsaved — saving…", detail: null, tone: "busy", unsaved: true };
+      return { text: "Unsaved — saving…", detail: null, tone: "busy" };
     case "saving":
-      return { text: "Saving…", detail: null, tone: "busy", unsaved: true };
+      return { text: "Saving…", detail: null, tone: "busy" };
     case "retrying":
-      return { text: `Unsaved (retrying in ${Math.round(status.retryInMs / 1000)} s)`, detail: status.message, tone: "warn", unsaved: true };
+      return { text: `Unsaved (retrying in ${Math.round(status.retryInMs / 1000)} s)`, detail: status.message, tone: "warn" };
     case "conflict":
-      return { text: "Unsaved: changed elsewhere", detail: null, tone: "fault", unsaved: true };
+      return { text: "Unsaved: changed elsewhere", detail: null, tone: "fault" };
     case "refused":
-      return { text: "Unsaved: not accepted", detail: status.message, tone: "fault", unsaved: true };
+      return { text: "Unsaved: not accepted", detail: status.message, tone: "fault" };
   }
 }
 
