@@ -33,9 +33,14 @@ export async function getUserInWorkspace({ workspaceId, userId }: { workspaceId:
   return row;
 }
 
-/** What a request needs to know about its session's user, in one query. */
-export async function getSessionUser({ userId }: { userId: string }) {
-  const [row] = await db()
+/**
+ * The session user's query, prepared once per database handle: every signed-in request runs it
+ * (see lib/auth/require-user.ts), so it skips parsing and planning after a connection's first run.
+ */
+const sessionUserQueries = new WeakMap<object, ReturnType<typeof prepareSessionUserQuery>>();
+
+function prepareSessionUserQuery(database: ReturnType<typeof db>) {
+  return database
     .select({
       id: users.id,
       workspaceId: users.workspaceId,
@@ -48,8 +53,17 @@ export async function getSessionUser({ userId }: { userId: string }) {
     })
     .from(users)
     .innerJoin(workspaces, eq(workspaces.id, users.workspaceId))
-    .where(eq(users.id, userId))
-    .limit(1);
+    .where(eq(users.id, sql.placeholder("userId")))
+    .limit(1)
+    .prepare("session_user");
+}
+
+/** What a request needs to know about its session's user, in one query. */
+export async function getSessionUser({ userId }: { userId: string }) {
+  const database = db();
+  let query = sessionUserQueries.get(database);
+  if (!query) sessionUserQueries.set(database, (query = prepareSessionUserQuery(database)));
+  const [row] = await query.execute({ userId });
   return row;
 }
 

@@ -1,11 +1,11 @@
 import "server-only";
-import { decode } from "next-auth/jwt";
 import { cookies } from "next/headers";
 import { forbidden, redirect } from "next/navigation";
 import { cache } from "react";
 import { getSessionUser } from "@/db/queries/users";
 import { AppError } from "@/lib/errors";
 import { hasAnyRole, ROLE_LABELS, type Role } from "./roles";
+import { decodeSessionToken } from "./session-token";
 
 export type SessionUser = {
   id: string;
@@ -38,7 +38,7 @@ const loadSessionUser = cache(async (): Promise<SessionUser | null> => {
 /**
  * The verified claims of next-auth's session cookie. Decoding the JWT directly (instead of
  * getServerSession, which runs next-auth's whole session endpoint) keeps every API request cheap;
- * next-auth still issues and signs the cookie. Large cookies are split into .0, .1, … chunks.
+ * next-auth still issues and encrypts the cookie. Large cookies are split into .0, .1, … chunks.
  */
 async function sessionClaims() {
   const jar = await cookies();
@@ -52,11 +52,7 @@ async function sessionClaims() {
           .sort((a, b) => Number(a.name.split(".").pop()) - Number(b.name.split(".").pop()))
           .map((c) => c.value);
     if (!chunks.length) continue;
-    try {
-      return await decode({ token: chunks.join(""), secret: process.env.NEXTAUTH_SECRET ?? "" });
-    } catch {
-      return null;
-    }
+    return decodeSessionToken(chunks.join(""), process.env.NEXTAUTH_SECRET ?? "");
   }
   return null;
 }

@@ -1,6 +1,6 @@
 import "server-only";
 import { sql } from "drizzle-orm";
-import { db } from "@/db/client";
+import { db, executePrepared } from "@/db/client";
 import { decodeCursor, encodeCursor, type QueueKey } from "./cursor";
 import { filterSql } from "./queue";
 import type { QueueFilters } from "./schemas";
@@ -53,7 +53,7 @@ export async function listQueue({ workspaceId, filters, cursor, limit }: { works
     : sql``;
   // The page is cut from units alone (walking units_open_queue_idx in order), then the few rows
   // are joined; joining first lets the planner misjudge the row count and sort the whole queue.
-  const { rows } = await db().execute<Raw>(sql`
+  const { rows } = await executePrepared<Raw>(sql`
     WITH page AS MATERIALIZED (
       SELECT u.* FROM units u
       WHERE u.workspace_id = ${workspaceId}

@@ -1,6 +1,6 @@
 import "server-only";
 import { sql, type SQL } from "drizzle-orm";
-import { db, type Tx } from "@/db/client";
+import { db, executePrepared, type Tx } from "@/db/client";
 import type { UnitStatus } from "@/db/schema/lots";
 import { logActivity } from "@/db/queries/activity";
 import { hasAnyRole } from "@/lib/auth/roles";
@@ -26,7 +26,7 @@ export function filterSql(filters: QueueFilters): SQL {
 
 /** True when a unit is waiting (read without locks, so rows other claimers are busy with count too). */
 async function anythingWaiting(workspaceId: string, filters: QueueFilters): Promise<boolean> {
-  const { rows } = await db().execute<{ waiting: boolean }>(sql`
+  const { rows } = await executePrepared<{ waiting: boolean }>(sql`
     SELECT EXISTS (
       SELECT 1 FROM units u
       WHERE u.workspace_id = ${workspaceId}
@@ -51,7 +51,7 @@ const ASYNC_COMMIT = sql`(SELECT set_config('synchronous_commit', 'off', true)) 
  * SKIP LOCKED: claimers never wait on each other here either.
  */
 async function returnExpiredLeases(workspaceId: string) {
-  await db().execute(sql`
+  await executePrepared(sql`
     WITH expired AS (
       SELECT id, lease_holder_id FROM units
       WHERE workspace_id = ${workspaceId} AND status = ${ON_BENCH} AND lease_expires_at < now() AND ${ASYNC_COMMIT}
@@ -75,7 +75,7 @@ async function returnExpiredLeases(workspaceId: string) {
 async function claimOnce(user: SessionUser, filters: QueueFilters): Promise<ClaimedUnit | null> {
   const leaseSeconds = env().QUEUE_LEASE_SECONDS;
   await returnExpiredLeases(user.workspaceId);
-  const { rows } = await db().execute<{ id: string; lot_id: string; serial: string | null; sample_index: number; part_type_id: string; lease_expires_at: Date }>(sql`
+  const { rows } = await executePrepared<{ id: string; lot_id: string; serial: string | null; sample_index: number; part_type_id: string; lease_expires_at: Date }>(sql`
     WITH next AS (
       SELECT u.id FROM units u
       WHERE u.workspace_id = ${user.workspaceId}
