@@ -219,7 +219,8 @@ test("an edit made while the server is unreachable is shown as unsaved, retried,
   const photo = await uploadThroughApi(page.request, fixture.unitId, await partPhoto(1600, 1200), "front");
   await page.goto(`/units/${fixture.unitId}`);
   const v = await stageView(page);
-  await page.route(`**/api/photos/${photo.id}/regions`, (route) => (route.request().method() === "PUT" ? route.abort("internetdisconnected") : route.fallback()));
+  let offline = true;
+  await page.route(`**/api/photos/${photo.id}/regions`, (route) => (offline && route.request().method() === "PUT" ? route.abort("internetdisconnected") : route.fallback()));
   await page.getByTestId("tool-spot").click();
   await click(page, await v.at(800, 600));
   const status = page.getByTestId("save-status");
@@ -231,8 +232,12 @@ test("an edit made while the server is unreachable is shown as unsaved, retried,
   const asked = new Promise<string>((resolve) => page.once("dialog", (d) => (resolve(d.type()), void d.dismiss())));
   await page.evaluate(() => window.location.reload()).catch(() => {});
   expect(await asked).toBe("beforeunload");
-  await page.unroute(`**/api/photos/${photo.id}/regions`);
+  // Wait for a long backoff (1, 2, 4, then 8 s), so that a save within the next few seconds can
+  // only come from the button; a short one let the automatic retry win the race on a busy machine.
+  await expect(status).toContainText(/retrying in (8|16|30) s/, { timeout: 20_000 });
+  offline = false;
   await page.getByRole("button", { name: "Try again now" }).click();
+  await expect(status).toHaveAttribute("data-state", "saved", { timeout: 5_000 });
   expect(await savedVersion(page)).toBe(1);
   const set = (await (await page.request.get(`/api/photos/${photo.id}/regions`)).json()) as RegionSet;
   expect(set.regions.regions).toHaveLength(1);
