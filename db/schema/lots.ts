@@ -177,6 +177,8 @@ export const units = pgTable(
       .where(sql`${t.status} = 'queued'`),
     // Take next finds expired leases without walking every running one.
     index("units_lease_expiry_idx").on(t.workspaceId, t.leaseExpiresAt).where(sql`${t.status} = 'on_bench'`),
+    // The queue's "graded today" and 30-day median read recent grades only, not the whole history.
+    index("units_graded_idx").on(t.workspaceId, t.gradedAt).where(sql`${t.gradedAt} IS NOT NULL`),
   ],
 );
 

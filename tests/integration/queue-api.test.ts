@@ -1,7 +1,7 @@
 import { eq, sql } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db/client";
-import { units } from "@/db/schema";
+import { lots, units } from "@/db/schema";
 import { api, trySignIn, type Session } from "../support/http";
 import { createUser, createWorkspace, TEST_PASSWORD } from "../support/db";
 import { createLotWithUnits, createPartTypeAndSupplier } from "../support/lot-fixtures";
@@ -70,6 +70,37 @@ describe("Take next", () => {
     const stats = await api<{ waiting: number; onBench: number; byPartType: { partTypeId: string; waiting: number; onBench: number }[] }>(a, "GET", "/api/queue/stats");
     expect(stats.body).toMatchObject({ waiting: 2, onBench: 3 });
     expect(stats.body.byPartType.find((p) => p.partTypeId === otherPartTypeId)).toMatchObject({ waiting: 0, onBench: 2 });
+  });
+});
+
+describe("queue stats", () => {
+  it("count the open queue (an expired lease is waiting, a decided lot is not) and recent grades", async () => {
+    const ws = await createWorkspace();
+    const leadUser = await createUser({ workspaceId: ws.id, roles: ["lead"] });
+    const inspector = await createUser({ workspaceId: ws.id, roles: ["inspector"] });
+    const { partType, supplier } = await createPartTypeAndSupplier(ws.id);
+    const open = await createLotWithUnits({ workspaceId: ws.id, createdBy: leadUser.id, count: 6, partTypeId: partType.id, supplierId: supplier.id });
+    const decided = await createLotWithUnits({ workspaceId: ws.id, createdBy: leadUser.id, count: 2, partTypeId: partType.id, supplierId: supplier.id });
+    await db().update(lots).set({ status: "decided" }).where(eq(lots.id, decided.id));
+    const unit = (sampleIndex: number) => sql`lot_id = ${open.id} AND sample_index = ${sampleIndex}`;
+    // 1 stays queued. 2 is on a bench, 3 on a bench whose lease ran out (so waiting again).
+    await db().execute(sql`UPDATE units SET status = 'on_bench', lease_holder_id = ${inspector.id}, claimed_at = now(), lease_expires_at = now() + interval '10 minutes' WHERE ${unit(2)}`);
+    await db().execute(sql`UPDATE units SET status = 'on_bench', lease_holder_id = ${inspector.id}, claimed_at = now() - interval '30 minutes', lease_expires_at = now() - interval '1 minute' WHERE ${unit(3)}`);
+    // Graded now after 10 minutes on the bench, two days ago after 30, and 40 days ago after 5.
+    await db().execute(sql`UPDATE units SET status = 'graded', claimed_at = now() - interval '10 minutes', graded_at = now() WHERE ${unit(4)}`);
+    await db().execute(sql`UPDATE units SET status = 'graded', claimed_at = now() - interval '2 days 30 minutes', graded_at = now() - interval '2 days' WHERE ${unit(5)}`);
+    await db().execute(sql`UPDATE units SET status = 'graded', claimed_at = now() - interval '40 days 5 minutes', graded_at = now() - interval '40 days' WHERE ${unit(6)}`);
+    const stats = await api<{ waiting: number; onBench: number; gradedToday: number; byPartType: { partTypeId: string; medianMinutes: number | null }[] }>(
+      await session(inspector.email),
+      "GET",
+      "/api/queue/stats",
+    );
+    expect(stats.status).toBe(200);
+    // The decided lot's two queued units are not counted; the 40-day-old grade is outside the month.
+    expect(stats.body).toMatchObject({ waiting: 2, onBench: 1, gradedToday: 1 });
+    // Median of 10 and 30 minutes = 20: for an even count, percentile_cont(0.5) interpolates
+    // between the two middle values (PostgreSQL manual, "Ordered-Set Aggregate Functions").
+    expect(stats.body.byPartType).toEqual([expect.objectContaining({ partTypeId: partType.id, medianMinutes: 20 })]);
   });
 });
 

@@ -1,0 +1,1 @@
+CREATE INDEX "units_graded_idx" ON "units" USING btree ("workspace_id","graded_at") WHERE "units"."graded_at" IS NOT NULL;
