@@ -24,16 +24,39 @@ export function filterSql(filters: QueueFilters): SQL {
   return sql.join(parts, sql` `);
 }
 
-/** True when a unit is waiting (read without locks, so rows other claimers are busy with count too). */
+/**
+ * Queued units of open lots that match the filters, in Take next order: the claim's candidates.
+ * With the ORDER BY (and a LIMIT) the planner walks units_queue_idx or the filter's
+ * units_queued_by_* index and stops at the first open row.
+ */
+function queuedInTakeNextOrder(workspaceId: string, filters: QueueFilters, extraCondition: SQL = sql``): SQL {
+  return sql`
+      SELECT u.id FROM units u
+      WHERE u.workspace_id = ${workspaceId}
+        AND u.status = ${QUEUED}
+        AND EXISTS (SELECT 1 FROM lots l WHERE l.id = u.lot_id AND l.status = 'open')
+        ${extraCondition}
+        ${filterSql(filters)}
+      ORDER BY u.lot_due_on, u.lot_received_on, u.lot_created_at, u.lot_id, u.sample_index, u.id
+      LIMIT 1`;
+}
+
+/**
+ * True when a unit is waiting (read without locks, so rows other claimers are busy with count too):
+ * a queued unit, or a unit whose lease has run out. Asked as two probes, each on its own index.
+ * One EXISTS over "queued OR expired" let the planner pick a sequential scan, betting on finding
+ * a row early, while most units of a big workspace are graded: 70–170 ms at 125 000 units for
+ * the answer "nothing waiting" (an EXISTS would also drop the ORDER BY that steers the first probe).
+ */
 async function anythingWaiting(workspaceId: string, filters: QueueFilters): Promise<boolean> {
   const { rows } = await executePrepared<{ waiting: boolean }>(sql`
-    SELECT EXISTS (
-      SELECT 1 FROM units u
-      WHERE u.workspace_id = ${workspaceId}
-        AND (u.status = ${QUEUED} OR (u.status = ${ON_BENCH} AND u.lease_expires_at < now()))
-        AND EXISTS (SELECT 1 FROM lots l WHERE l.id = u.lot_id AND l.status = 'open')
-        ${filterSql(filters)}
-    ) AS waiting`);
+    SELECT (${queuedInTakeNextOrder(workspaceId, filters)}) IS NOT NULL
+      OR EXISTS (
+        SELECT 1 FROM units u
+        WHERE u.workspace_id = ${workspaceId} AND u.status = ${ON_BENCH} AND u.lease_expires_at < now()
+          AND EXISTS (SELECT 1 FROM lots l WHERE l.id = u.lot_id AND l.status = 'open')
+          ${filterSql(filters)}
+      ) AS waiting`);
   return rows[0]?.waiting ?? false;
 }
 
@@ -76,15 +99,7 @@ async function claimOnce(user: SessionUser, filters: QueueFilters): Promise<Clai
   const leaseSeconds = env().QUEUE_LEASE_SECONDS;
   await returnExpiredLeases(user.workspaceId);
   const { rows } = await executePrepared<{ id: string; lot_id: string; serial: string | null; sample_index: number; part_type_id: string; lease_expires_at: Date }>(sql`
-    WITH next AS (
-      SELECT u.id FROM units u
-      WHERE u.workspace_id = ${user.workspaceId}
-        AND u.status = ${QUEUED}
-        AND EXISTS (SELECT 1 FROM lots l WHERE l.id = u.lot_id AND l.status = 'open')
-        AND ${ASYNC_COMMIT}
-        ${filterSql(filters)}
-      ORDER BY u.lot_due_on, u.lot_received_on, u.lot_created_at, u.lot_id, u.sample_index, u.id
-      LIMIT 1
+    WITH next AS (${queuedInTakeNextOrder(user.workspaceId, filters, sql`AND ${ASYNC_COMMIT}`)}
       FOR UPDATE OF u SKIP LOCKED
     ), claimed AS (
       UPDATE units u

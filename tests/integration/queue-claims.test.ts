@@ -1,6 +1,6 @@
 import { inArray, sql } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
-import { db } from "@/db/client";
+import { db, pool } from "@/db/client";
 import { units } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/require-user";
 import { claimNextUnit } from "@/lib/queue/queue";
@@ -75,5 +75,30 @@ describe(`${CLAIMERS} concurrent claimers over ${UNITS} queued units`, () => {
     const again = await claimNextUnit({ user: inspectors[1], filters });
     expect(again?.id).toBe(first!.id); // not the waiting unit of the lot due later
     expect((await claimNextUnit({ user: inspectors[2], filters }))?.lotId).toBe(later.id);
+  });
+
+  // Take next answers "nothing" only when nothing is waiting. A unit that another transaction
+  // holds locked is skipped by the claim, but it is still waiting: the claim must look again,
+  // whether the unit is queued or its lease has run out (two different probes in anythingWaiting).
+  it.each([
+    ["queued", sql`status = 'queued'`],
+    ["with an expired lease", sql`status = 'on_bench', lease_holder_id = NULL, claimed_at = now() - interval '30 minutes', lease_expires_at = now() - interval '1 minute'`],
+  ])("a waiting unit %s that another transaction holds locked is still handed out once the lock goes", async (_label, state) => {
+    const [inspector] = inspectors;
+    const { partType, supplier } = await createPartTypeAndSupplier(inspector.workspaceId);
+    const lot = await createLotWithUnits({ workspaceId: inspector.workspaceId, createdBy: inspector.id, count: 1, partTypeId: partType.id, supplierId: supplier.id });
+    await db().execute(sql`UPDATE units SET ${state} WHERE lot_id = ${lot.id}`);
+    const holder = await pool().connect();
+    try {
+      await holder.query("BEGIN");
+      await holder.query("SELECT id FROM units WHERE lot_id = $1 FOR UPDATE", [lot.id]);
+      const claim = claimNextUnit({ user: inspectors[3], filters: { lotId: lot.id } });
+      await new Promise((r) => setTimeout(r, 100));
+      await holder.query("ROLLBACK");
+      const unit = await claim;
+      expect(unit?.lotId).toBe(lot.id);
+    } finally {
+      holder.release();
+    }
   });
 });
