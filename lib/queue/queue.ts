@@ -14,6 +14,15 @@ import type { QueueFilters } from "./schemas";
 const ON_BENCH = transition("queued", "claim");
 const QUEUED = transition(ON_BENCH, "release");
 
+/**
+ * A status as an SQL literal, for the WHERE clauses of executePrepared statements: their plan is
+ * made without parameter values, and a partial index (`WHERE status = 'queued'`) only applies when
+ * the query names the status itself. Only the state machine's own constants come here.
+ */
+const statusLiteral = (status: UnitStatus) => sql.raw(`'${status}'`);
+const QUEUED_LITERAL = statusLiteral(QUEUED);
+const ON_BENCH_LITERAL = statusLiteral(ON_BENCH);
+
 export type ClaimedUnit = { id: string; lotId: string; serial: string | null; sampleIndex: number; partTypeId: string; leaseExpiresAt: Date };
 
 export function filterSql(filters: QueueFilters): SQL {
@@ -33,7 +42,7 @@ function queuedInTakeNextOrder(workspaceId: string, filters: QueueFilters, extra
   return sql`
       SELECT u.id FROM units u
       WHERE u.workspace_id = ${workspaceId}
-        AND u.status = ${QUEUED}
+        AND u.status = ${QUEUED_LITERAL}
         AND EXISTS (SELECT 1 FROM lots l WHERE l.id = u.lot_id AND l.status = 'open')
         ${extraCondition}
         ${filterSql(filters)}
@@ -53,7 +62,7 @@ async function anythingWaiting(workspaceId: string, filters: QueueFilters): Prom
     SELECT (${queuedInTakeNextOrder(workspaceId, filters)}) IS NOT NULL
       OR EXISTS (
         SELECT 1 FROM units u
-        WHERE u.workspace_id = ${workspaceId} AND u.status = ${ON_BENCH} AND u.lease_expires_at < now()
+        WHERE u.workspace_id = ${workspaceId} AND u.status = ${ON_BENCH_LITERAL} AND u.lease_expires_at < now()
           AND EXISTS (SELECT 1 FROM lots l WHERE l.id = u.lot_id AND l.status = 'open')
           ${filterSql(filters)}
       ) AS waiting`);
@@ -77,7 +86,7 @@ async function returnExpiredLeases(workspaceId: string) {
   await executePrepared(sql`
     WITH expired AS (
       SELECT id, lease_holder_id FROM units
-      WHERE workspace_id = ${workspaceId} AND status = ${ON_BENCH} AND lease_expires_at < now() AND ${ASYNC_COMMIT}
+      WHERE workspace_id = ${workspaceId} AND status = ${ON_BENCH_LITERAL} AND lease_expires_at < now() AND ${ASYNC_COMMIT}
       FOR UPDATE SKIP LOCKED
     ), returned AS (
       UPDATE units u SET status = ${QUEUED}, lease_holder_id = NULL, lease_expires_at = NULL, claimed_at = NULL, updated_at = now()
