@@ -21,6 +21,10 @@ import { configureSharpForWorker, normalizePhoto } from "@/lib/imaging/normalize
 import { makePhotoLikeJpeg } from "@/tests/support/fixtures/make-photos";
 
 const TIMED_RUNS = 11;
+// The first call loads the codecs; the next few grow the allocator's heap to a photo's working set
+// (until then every 15 MB buffer is fresh memory whose pages fault in: about 7 000 page faults,
+// 60-100 ms of system time per photo). A worker that has handled a few photos is past that.
+const WARM_UP_RUNS = Number(process.env.BENCH_WARM_UP ?? 3);
 const BATCH_SIZE = 50;
 const DISTINCT_PHOTOS = 5;
 
@@ -38,7 +42,7 @@ const median = (values: number[]) => {
 };
 
 async function timeOne(label: string, input: Buffer): Promise<void> {
-  await normalizePhoto(input); // warm-up: first call loads codecs
+  for (let i = 0; i < WARM_UP_RUNS; i++) await normalizePhoto(input);
   const times: number[] = [];
   const cpuTimes: number[] = [];
   let last;
