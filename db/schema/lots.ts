@@ -169,12 +169,16 @@ export const units = pgTable(
     index("units_queued_by_lot_idx")
       .on(t.workspaceId, t.lotId, t.lotDueOn, t.lotReceivedOn, t.lotCreatedAt, t.sampleIndex, t.id)
       .where(sql`${t.status} = 'queued'`),
-    index("units_queued_by_part_type_idx")
+    // Part type and supplier: the queue list's filtered pages walk these too, so they hold the
+    // units on a bench as well (take next skips those few). The keyset row comparison is an index
+    // condition here, as on units_open_queue_idx. For a lot the list keeps units_open_queue_idx:
+    // it carries lot_id, and in units_queued_by_lot_idx lot_id would break the keyset's column order.
+    index("units_open_by_part_type_idx")
       .on(t.workspaceId, t.partTypeId, t.lotDueOn, t.lotReceivedOn, t.lotCreatedAt, t.lotId, t.sampleIndex, t.id)
-      .where(sql`${t.status} = 'queued'`),
-    index("units_queued_by_supplier_idx")
+      .where(sql`${t.status} IN ('queued', 'on_bench')`),
+    index("units_open_by_supplier_idx")
       .on(t.workspaceId, t.supplierId, t.lotDueOn, t.lotReceivedOn, t.lotCreatedAt, t.lotId, t.sampleIndex, t.id)
-      .where(sql`${t.status} = 'queued'`),
+      .where(sql`${t.status} IN ('queued', 'on_bench')`),
     // Take next finds expired leases without walking every running one.
     index("units_lease_expiry_idx").on(t.workspaceId, t.leaseExpiresAt).where(sql`${t.status} = 'on_bench'`),
     // The queue's "graded today" and 30-day median read recent grades only, not the whole history.

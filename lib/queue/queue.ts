@@ -35,8 +35,8 @@ export function filterSql(filters: QueueFilters): SQL {
 
 /**
  * Queued units of open lots that match the filters, in Take next order: the claim's candidates.
- * With the ORDER BY (and a LIMIT) the planner walks units_queue_idx or the filter's
- * units_queued_by_* index and stops at the first open row.
+ * With the ORDER BY (and a LIMIT) the planner walks units_queue_idx or the filter's index
+ * (units_queued_by_lot_idx, units_open_by_part_type_idx, …) and stops at the first open row.
  */
 function queuedInTakeNextOrder(workspaceId: string, filters: QueueFilters, extraCondition: SQL = sql``): SQL {
   return sql`

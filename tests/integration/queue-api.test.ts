@@ -66,6 +66,20 @@ describe("Take next", () => {
     expect(page3.body.nextCursor).toBeNull();
   });
 
+  it("a list filtered by part type shows that type's units on a bench and waiting, in order, by cursor", async () => {
+    type Page = { units: { lotId: string; sampleIndex: number; status: string; holder: { id: string } | null }[]; nextCursor: string | null };
+    const page1 = await api<Page>(lead, "GET", `/api/queue?limit=2&partTypeId=${partTypeId}`);
+    expect(page1.body.units.map((u) => [u.lotId, u.sampleIndex, u.status, u.holder?.id ?? null])).toEqual([
+      [late.id, 1, "on_bench", aId],
+      [late.id, 2, "waiting", null],
+    ]);
+    const page2 = await api<Page>(lead, "GET", `/api/queue?limit=2&partTypeId=${partTypeId}&cursor=${page1.body.nextCursor}`);
+    expect(page2.body.units.map((u) => [u.lotId, u.sampleIndex])).toEqual([[late.id, 3]]);
+    expect(page2.body.nextCursor).toBeNull();
+    const other = await api<Page>(lead, "GET", `/api/queue?partTypeId=${otherPartTypeId}`);
+    expect(other.body.units.map((u) => [u.sampleIndex, u.holder?.id])).toEqual([[1, aId], [2, bId]]);
+  });
+
   it("stats count waiting and on-bench units per part type", async () => {
     const stats = await api<{ waiting: number; onBench: number; byPartType: { partTypeId: string; waiting: number; onBench: number }[] }>(a, "GET", "/api/queue/stats");
     expect(stats.body).toMatchObject({ waiting: 2, onBench: 3 });

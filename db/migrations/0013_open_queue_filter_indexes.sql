@@ -1,0 +1,4 @@
+DROP INDEX "units_queued_by_part_type_idx";--> statement-breakpoint
+DROP INDEX "units_queued_by_supplier_idx";--> statement-breakpoint
+CREATE INDEX "units_open_by_part_type_idx" ON "units" USING btree ("workspace_id","part_type_id","lot_due_on","lot_received_on","lot_created_at","lot_id","sample_index","id") WHERE "units"."status" IN ('queued', 'on_bench');--> statement-breakpoint
+CREATE INDEX "units_open_by_supplier_idx" ON "units" USING btree ("workspace_id","supplier_id","lot_due_on","lot_received_on","lot_created_at","lot_id","sample_index","id") WHERE "units"."status" IN ('queued', 'on_bench');
