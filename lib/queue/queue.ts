@@ -131,10 +131,10 @@ async function claimOnce(user: SessionUser, filters: QueueFilters): Promise<Clai
  * Take next: claims the most urgent waiting unit for the caller.
  * FOR UPDATE SKIP LOCKED lets concurrent callers pass over a row another transaction is
  * claiming, so no two callers ever get the same unit and nobody waits on anybody; the scan walks
- * the queue index (workspace, status, due, received, lot, sample) in order and stops at the
- * first free row. Skipping can make a claim come back empty while the only waiting rows are
- * being handled by others (a claim that will fail, or a lease being returned): then it looks
- * again, so "nothing" (204) means nothing is waiting.
+ * an index in Take next order (queuedInTakeNextOrder) and stops at the first free row. Skipping
+ * can make a claim come back empty while the only waiting rows are being handled by others (a
+ * claim that will fail, or a lease being returned): then it looks again, so "nothing" (204)
+ * means nothing is waiting.
  */
 export async function claimNextUnit({ user, filters }: { user: SessionUser; filters: QueueFilters }): Promise<ClaimedUnit | null> {
   for (let attempt = 0; attempt < 50; attempt++) {
