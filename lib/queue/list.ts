@@ -2,7 +2,7 @@ import "server-only";
 import { sql } from "drizzle-orm";
 import { db, executePrepared } from "@/db/client";
 import { decodeCursor, encodeCursor, type QueueKey } from "./cursor";
-import { filterSql } from "./queue";
+import { filterSql, ON_BENCH_LITERAL, QUEUED_LITERAL } from "./queue";
 import type { QueueFilters } from "./schemas";
 
 export type QueueRow = {
@@ -51,13 +51,14 @@ export async function listQueue({ workspaceId, filters, cursor, limit }: { works
     ? sql`AND (u.lot_due_on, u.lot_received_on, u.lot_created_at, u.lot_id, u.sample_index, u.id)
           > (${after.dueOn}::date, ${after.receivedOn}::date, ${after.lotCreatedAt}::timestamptz, ${after.lotId}::uuid, ${after.sampleIndex}, ${after.id}::uuid)`
     : sql``;
-  // The page is cut from units alone (walking units_open_queue_idx in order), then the few rows
-  // are joined; joining first lets the planner misjudge the row count and sort the whole queue.
+  // The page is cut from units alone (walking units_open_queue_idx, or the part type's or
+  // supplier's units_open_by_* index, in order), then the few rows are joined; joining first lets
+  // the planner misjudge the row count and sort the whole queue.
   const { rows } = await executePrepared<Raw>(sql`
     WITH page AS MATERIALIZED (
       SELECT u.* FROM units u
       WHERE u.workspace_id = ${workspaceId}
-        AND u.status IN ('queued', 'on_bench')
+        AND u.status IN (${QUEUED_LITERAL}, ${ON_BENCH_LITERAL})
         AND EXISTS (SELECT 1 FROM lots l WHERE l.id = u.lot_id AND l.status = 'open')
         ${filterSql(filters)}
         ${keyset}
@@ -121,10 +122,10 @@ export async function queueStats({ workspaceId }: { workspaceId: string }): Prom
   const { rows } = await db().execute<{ part_type_id: string; name: string; waiting: number; on_bench: number; graded_today: number; median_minutes: number | null }>(sql`
     WITH open_queue AS (
       SELECT u.part_type_id,
-        count(*) FILTER (WHERE u.status = 'queued' OR u.lease_expires_at <= now()) AS waiting,
-        count(*) FILTER (WHERE u.status = 'on_bench' AND u.lease_expires_at > now()) AS on_bench
+        count(*) FILTER (WHERE u.status = ${QUEUED_LITERAL} OR u.lease_expires_at <= now()) AS waiting,
+        count(*) FILTER (WHERE u.status = ${ON_BENCH_LITERAL} AND u.lease_expires_at > now()) AS on_bench
       FROM units u
-      WHERE u.workspace_id = ${workspaceId} AND u.status IN ('queued', 'on_bench')
+      WHERE u.workspace_id = ${workspaceId} AND u.status IN (${QUEUED_LITERAL}, ${ON_BENCH_LITERAL})
         AND EXISTS (SELECT 1 FROM lots l WHERE l.id = u.lot_id AND l.status = 'open')
       GROUP BY u.part_type_id
     ), recent_grades AS (

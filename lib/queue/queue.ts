@@ -15,13 +15,14 @@ const ON_BENCH = transition("queued", "claim");
 const QUEUED = transition(ON_BENCH, "release");
 
 /**
- * A status as an SQL literal, for the WHERE clauses of executePrepared statements: their plan is
- * made without parameter values, and a partial index (`WHERE status = 'queued'`) only applies when
- * the query names the status itself. Only the state machine's own constants come here.
+ * A status as an SQL literal, for the WHERE clauses of the queue's statements (here and in
+ * list.ts): executePrepared plans them without parameter values, and a partial index
+ * (`WHERE status = 'queued'`) only applies when the query names the status itself. Only the state
+ * machine's own constants come here.
  */
 const statusLiteral = (status: UnitStatus) => sql.raw(`'${status}'`);
-const QUEUED_LITERAL = statusLiteral(QUEUED);
-const ON_BENCH_LITERAL = statusLiteral(ON_BENCH);
+export const QUEUED_LITERAL = statusLiteral(QUEUED);
+export const ON_BENCH_LITERAL = statusLiteral(ON_BENCH);
 
 export type ClaimedUnit = { id: string; lotId: string; serial: string | null; sampleIndex: number; partTypeId: string; leaseExpiresAt: Date };
 
