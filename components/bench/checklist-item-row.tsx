@@ -22,6 +22,9 @@ function shownValue(item: ChecklistItem, value: ChecklistValue): string {
   return "";
 }
 
+/** "2026-11-28 09:10 UTC": with the date, since a reading from an earlier day must not read as today's. */
+const recordedAtText = (iso: string) => `${iso.slice(0, 10)} ${iso.slice(11, 16)} UTC`;
+
 /** One checklist item: its control, the live check against limits, and the recorded result. */
 export function ChecklistItemRow({ item, result, disabled, saving, onRecord }: { item: ChecklistItem; result?: Result; disabled: boolean; saving: boolean; onRecord: (value: ChecklistValue) => void }) {
   const [text, setText] = useState(result && "reading" in result.value ? String(result.value.reading) : "");
@@ -94,7 +97,7 @@ export function ChecklistItemRow({ item, result, disabled, saving, onRecord }: {
             ? item.kind === "pass_fail" ? "Passed." : `Passed: ${shownValue(item, result.value)}.`
             : `Failed automatically — ${result.failureReason} Adds a ${result.severityOnFail} functional defect.`}
           <span className="ml-2 text-xs font-normal text-gauge-600">
-            {result.recordedByName}, {result.recordedAt.slice(11, 16)} UTC
+            {result.recordedByName}, {recordedAtText(result.recordedAt)}
           </span>
         </p>
       )}

@@ -78,6 +78,8 @@ test("a lead receives a lot and imports serials; an inspector's out-of-limit bat
   await expect(ocv).toContainText("Will fail: 2.87 V is below the minimum 3.00 V.");
   await ocv.getByRole("button", { name: "Save reading" }).click();
   await expect(bench.getByTestId("result-ocv")).toContainText("Failed automatically — 2.87 V is below the minimum 3.00 V. Adds a major functional defect.");
+  // Who and when, with the date: a reading kept from an earlier day must not read as today's.
+  await expect(bench.getByTestId("result-ocv")).toContainText(/, \d{4}-\d{2}-\d{2} \d{2}:\d{2} UTC/);
   await expect(bench.getByTestId("unit-status")).toContainText("on your bench");
   // A swollen cell: critical, and the hazard warning appears.
   await bench.getByTestId("checklist-item-swelling").getByRole("button", { name: "Fail" }).click();
