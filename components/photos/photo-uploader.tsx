@@ -6,6 +6,7 @@
  */
 import { useQuery } from "@tanstack/react-query";
 import { useEffect, useMemo, useRef, useState } from "react";
+import { useHydrated } from "@/components/ui/use-hydrated";
 import { apiFetch } from "@/lib/http/client";
 import type { PhotoDto } from "@/lib/photos/dto";
 import { suggestViews, type ViewChoice } from "@/lib/photos/views";
@@ -28,6 +29,8 @@ const PHASE_TEXT: Record<UploadItem["phase"], string> = {
 
 export function PhotoUploader({ unitId, views }: { unitId: string; views: ViewChoice[] }) {
   const uploads = usePhotoUploads(unitId);
+  // Files chosen before hydration would reach no handler and vanish without a word.
+  const hydrated = useHydrated();
   const [dragging, setDragging] = useState(false);
   const pickerRef = useRef<HTMLInputElement>(null);
   const cameraRef = useRef<HTMLInputElement>(null);
@@ -62,6 +65,7 @@ export function PhotoUploader({ unitId, views }: { unitId: string; views: ViewCh
 
       <div
         data-testid="photo-drop-zone"
+        data-ready={hydrated}
         onDragOver={(e) => {
           e.preventDefault();
           setDragging(true);
@@ -76,15 +80,15 @@ export function PhotoUploader({ unitId, views }: { unitId: string; views: ViewCh
       >
         <p className="text-sm text-gauge-800">Drop photos here, or</p>
         <div className="flex flex-wrap justify-center gap-2">
-          <button type="button" className="btn-secondary" onClick={() => pickerRef.current?.click()}>
+          <button type="button" className="btn-secondary" disabled={!hydrated} onClick={() => pickerRef.current?.click()}>
             Choose photos
           </button>
-          <button type="button" className="btn-secondary" onClick={() => cameraRef.current?.click()}>
+          <button type="button" className="btn-secondary" disabled={!hydrated} onClick={() => cameraRef.current?.click()}>
             Use camera
           </button>
         </div>
-        <input ref={pickerRef} type="file" accept="image/*" multiple className="sr-only" aria-label="Choose photos" data-testid="photo-file-input" onChange={(e) => { addFiles(e.target.files); e.target.value = ""; }} />
-        <input ref={cameraRef} type="file" accept="image/*" capture="environment" className="sr-only" aria-label="Take a photo with the camera" onChange={(e) => { addFiles(e.target.files); e.target.value = ""; }} />
+        <input ref={pickerRef} type="file" accept="image/*" multiple className="sr-only" aria-label="Choose photos" data-testid="photo-file-input" disabled={!hydrated} onChange={(e) => { addFiles(e.target.files); e.target.value = ""; }} />
+        <input ref={cameraRef} type="file" accept="image/*" capture="environment" className="sr-only" aria-label="Take a photo with the camera" disabled={!hydrated} onChange={(e) => { addFiles(e.target.files); e.target.value = ""; }} />
       </div>
 
       {progress.total > 0 && (

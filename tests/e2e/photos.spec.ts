@@ -5,6 +5,13 @@ import { signInAs } from "./support";
 
 const file = (name: string, buffer: Buffer, mimeType = "image/jpeg") => ({ name, mimeType, buffer });
 
+/** Picks files as a person would: once the uploader takes them (its picker is disabled until the page has hydrated). */
+async function chooseFiles(page: Page, files: ReturnType<typeof file>[]): Promise<void> {
+  const picker = page.getByTestId("photo-file-input");
+  await expect(picker).toBeEnabled();
+  await picker.setInputFiles(files);
+}
+
 /** Reads the batch bar's value every few milliseconds until it reaches 100; returns what it saw. */
 async function watchBatchProgress(page: Page): Promise<number[]> {
   return page.evaluate(
@@ -39,7 +46,7 @@ test("an inspector uploads 10 photos at once, watches the progress, and sees eac
   await page.goto(`/units/${unitId}/photos`);
   await expect(page).toHaveURL(new RegExp(`/units/${unitId}#photos$`));
   await expect(page.getByRole("heading", { level: 1 })).toContainText("CAM-");
-  await page.getByTestId("photo-file-input").setInputFiles(files);
+  await chooseFiles(page, files);
   await expect(page.getByTestId("upload-row")).toHaveCount(10);
   // Views are suggested in order (required first), and each can be changed before uploading.
   const firstView = page.getByLabel("View of bench-1-exif1.jpg");
@@ -97,7 +104,7 @@ test("a file the store never received can be retried, an upload can be cancelled
 
   // The object store unreachable for the PUT (connection refused), then back.
   await page.route("**/uploads/**", (route) => route.abort("connectionrefused"));
-  await page.getByTestId("photo-file-input").setInputFiles([file("outage.jpg", await orientedPhoto(20, 1))]);
+  await chooseFiles(page, [file("outage.jpg", await orientedPhoto(20, 1))]);
   await page.getByRole("button", { name: "Upload 1 photo" }).click();
   const row = page.getByTestId("upload-row").filter({ hasText: "outage.jpg" });
   await expect(row.getByTestId("upload-status")).toHaveText(/photo store is not reachable/);
@@ -112,7 +119,7 @@ test("a file the store never received can be retried, an upload can be cancelled
     await released;
     await route.abort().catch(() => {});
   });
-  await page.getByTestId("photo-file-input").setInputFiles([file("cancel-me.jpg", await orientedPhoto(21, 1))]);
+  await chooseFiles(page, [file("cancel-me.jpg", await orientedPhoto(21, 1))]);
   await page.getByRole("button", { name: "Upload 1 photo" }).click();
   const hanging = page.getByTestId("upload-row").filter({ hasText: "cancel-me.jpg" });
   await expect(hanging).toHaveAttribute("data-phase", "uploading");
@@ -122,7 +129,7 @@ test("a file the store never received can be retried, an upload can be cancelled
   await page.unroute("**/uploads/**");
 
   // Not a photo: the server's reason is shown and there is nothing to retry.
-  await page.getByTestId("photo-file-input").setInputFiles([file("notes.jpg", Buffer.from("serial,grade\nA1,B\n"))]);
+  await chooseFiles(page, [file("notes.jpg", Buffer.from("serial,grade\nA1,B\n"))]);
   await page.getByRole("button", { name: "Upload 1 photo" }).click();
   const refused = page.getByTestId("upload-row").filter({ hasText: "notes.jpg" });
   await expect(refused.getByTestId("upload-status")).toHaveText(/text file, not an image/);
@@ -141,6 +148,7 @@ test("photos can be dropped onto the page; auditors see the photos but get no up
     dt.items.add(new File([data], "dropped.jpg", { type: "image/jpeg" }));
     return dt;
   }, bytes);
+  await expect(page.getByTestId("photo-drop-zone")).toHaveAttribute("data-ready", "true");
   await page.getByTestId("photo-drop-zone").dispatchEvent("drop", { dataTransfer: transfer });
   await expect(page.getByTestId("upload-row")).toHaveCount(1);
   await page.getByRole("button", { name: "Upload 1 photo" }).click();
