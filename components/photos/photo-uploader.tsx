@@ -65,7 +65,6 @@ export function PhotoUploader({ unitId, views }: { unitId: string; views: ViewCh
 
       <div
         data-testid="photo-drop-zone"
-        data-ready={hydrated}
         onDragOver={(e) => {
           e.preventDefault();
           setDragging(true);

@@ -208,7 +208,10 @@ async function rawPixels(image: Sharp): Promise<UprightPixels> {
   return { data, raw: { width: info.width, height: info.height, channels: info.channels } };
 }
 
-/** WebP from the upright pixels, optionally shrunk to fit `longEdge`; sharp writes no metadata unless asked (no Exif, GPS, XMP or ICC). */
+/**
+ * WebP from the upright pixels, optionally shrunk to fit `longEdge`. sharp writes no metadata
+ * unless asked: no Exif, GPS, XMP or ICC.
+ */
 function encodeWebp(upright: UprightPixels, longEdge: number | null, webp: WebpOptions) {
   const image = sharp(upright.data, { raw: upright.raw });
   if (longEdge !== null) image.resize({ width: longEdge, height: longEdge, fit: "inside", withoutEnlargement: true });

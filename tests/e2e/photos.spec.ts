@@ -148,7 +148,7 @@ test("photos can be dropped onto the page; auditors see the photos but get no up
     dt.items.add(new File([data], "dropped.jpg", { type: "image/jpeg" }));
     return dt;
   }, bytes);
-  await expect(page.getByTestId("photo-drop-zone")).toHaveAttribute("data-ready", "true");
+  await expect(page.getByTestId("photo-file-input")).toBeEnabled(); // hydrated: the drop zone has its handlers
   await page.getByTestId("photo-drop-zone").dispatchEvent("drop", { dataTransfer: transfer });
   await expect(page.getByTestId("upload-row")).toHaveCount(1);
   await page.getByRole("button", { name: "Upload 1 photo" }).click();
