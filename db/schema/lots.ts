@@ -59,6 +59,8 @@ export const partTypes = pgTable(
     panelResolution: jsonb().$type<{ width: number; height: number } | null>(),
     /** High-value parts: every unit is inspected. */
     inspectAll: boolean().notNull().default(false),
+    /** The cosmetic grade lots of this part type are bought at unless the supplier says otherwise. */
+    promisedGrade: text({ enum: ["A", "B", "C"] }).notNull().default("A"),
     active: boolean().notNull().default(true),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
@@ -93,6 +95,11 @@ export const lots = pgTable(
     aqlMajor: real().notNull(),
     aqlMinor: real().notNull(),
     inspectionSeverity: text({ enum: ["normal", "tightened", "reduced"] }).notNull(),
+    /**
+     * The cosmetic grade the purchase promised: a unit graded worse is a cosmetic nonconformity.
+     * Receiving a lot always sets it (lib/lots/lots.ts); the default only serves direct inserts.
+     */
+    promisedGrade: text({ enum: ["A", "B", "C"] }).notNull().default("A"),
     plan: jsonb().$type<StoredSamplingPlan>().notNull(),
     /** Seed of the random draw of sampled serials, so the draw can be reproduced. */
     sampleSeed: text(),

@@ -6,6 +6,7 @@
  * choices one per line "value | Label | pass" (or "fail").
  */
 import type { ChecklistItem, PartType } from "@/db/schema/lots";
+import type { PromisedGrade } from "@/lib/lots/schemas";
 import type { PartCategory } from "./schemas";
 
 export type ItemForm = { id: string; label: string; kind: ChecklistItem["kind"]; severityOnFail: ChecklistItem["severityOnFail"]; caution: string; unit: string; min: string; max: string; decimals: string; options: string };
@@ -14,6 +15,7 @@ export type PartTypeFormValues = {
   category: PartCategory;
   modelFamily: string;
   inspectAll: boolean;
+  promisedGrade: PromisedGrade;
   active: boolean;
   nominalWidth: string;
   nominalHeight: string;
@@ -31,6 +33,7 @@ export const EMPTY_PART_TYPE: PartTypeFormValues = {
   category: "other",
   modelFamily: "",
   inspectAll: false,
+  promisedGrade: "A",
   active: true,
   nominalWidth: "",
   nominalHeight: "",
@@ -90,6 +93,7 @@ export function formToInput(values: PartTypeFormValues): unknown {
     category: values.category,
     modelFamily: values.modelFamily,
     inspectAll: values.inspectAll,
+    promisedGrade: values.promisedGrade,
     active: values.active,
     nominalSizeMm: size(values.nominalWidth, values.nominalHeight),
     panelResolution: size(values.panelWidth, values.panelHeight),
@@ -99,13 +103,14 @@ export function formToInput(values: PartTypeFormValues): unknown {
   };
 }
 
-export function partTypeToForm(p: Pick<PartType, "name" | "category" | "modelFamily" | "inspectAll" | "active" | "nominalSizeMm" | "panelResolution" | "defectClasses" | "checklist" | "views">): PartTypeFormValues {
+export function partTypeToForm(p: Pick<PartType, "name" | "category" | "modelFamily" | "inspectAll" | "promisedGrade" | "active" | "nominalSizeMm" | "panelResolution" | "defectClasses" | "checklist" | "views">): PartTypeFormValues {
   const text = (v: number | undefined) => (v === undefined ? "" : String(v));
   return {
     name: p.name,
     category: p.category as PartCategory,
     modelFamily: p.modelFamily,
     inspectAll: p.inspectAll,
+    promisedGrade: p.promisedGrade,
     active: p.active,
     nominalWidth: text(p.nominalSizeMm?.width),
     nominalHeight: text(p.nominalSizeMm?.height),

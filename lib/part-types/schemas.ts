@@ -6,6 +6,7 @@
 import { z } from "zod";
 import type { ChecklistItem, DefectSeverity, PartType } from "@/db/schema/lots";
 import { decimalPlaces } from "@/lib/checklist/evaluate";
+import { promisedGradeSchema } from "@/lib/lots/schemas";
 
 export const DEFECT_SEVERITIES = ["critical", "major", "minor"] as const satisfies readonly DefectSeverity[];
 export const SEVERITY_LABELS: Record<DefectSeverity, string> = { critical: "Critical", major: "Major", minor: "Minor" };
@@ -134,6 +135,8 @@ const partTypeFields = {
   nominalSizeMm,
   panelResolution,
   inspectAll: z.boolean({ error: "inspectAll must be true or false." }),
+  /** The cosmetic grade lots are bought at unless the supplier says otherwise. */
+  promisedGrade: promisedGradeSchema,
   active: z.boolean({ error: "active must be true or false." }),
 };
 
@@ -144,6 +147,7 @@ export const partTypeSchema = z
     nominalSizeMm: nominalSizeMm.default(null),
     panelResolution: panelResolution.default(null),
     inspectAll: partTypeFields.inspectAll.default(false),
+    promisedGrade: partTypeFields.promisedGrade.default("A"),
     active: partTypeFields.active.default(true),
   })
   .strict();

@@ -99,7 +99,7 @@ test("a lead receives a lot and imports serials; an inspector's out-of-limit bat
   await expect(page.getByTestId("disposition")).toContainText("Return to vendor");
 });
 
-/** A decided button-flex lot of 2 through the API (as the lead's browser session). */
+/** A decided lot of 2 of a checklist-only flex part through the API (as the lead's browser session). */
 async function decidedLot(request: APIRequestContext, supplierId: string, partTypeId: string, reject: boolean, ref: string) {
   const ok = async <T = unknown>(res: Awaited<ReturnType<APIRequestContext["post"]>>): Promise<T> => {
     expect(res.ok(), await res.text()).toBe(true);
@@ -122,13 +122,24 @@ test("after five lots with two rejections the next lot is on tightened inspectio
   await signInAs(page, "lead@vellmoor.example");
   await createSupplier(page, supplier);
   const suppliers = (await (await page.request.get("/api/suppliers")).json()).suppliers as { id: string; name: string }[];
-  const partTypes = (await (await page.request.get("/api/part-types")).json()).partTypes as { id: string; slug: string }[];
   const supplierId = suppliers.find((s) => s.name === supplier)!.id;
-  const flex = partTypes.find((p) => p.slug === "button-flex")!.id;
+  // Like the seeded button flex, but without a published rubric: its units count on their
+  // checklists alone, so a clean pair is accepted without photos and grades (lib/lots/findings.ts).
+  const created = await page.request.post("/api/part-types", {
+    data: {
+      name: `Switching flex ${stamp()}`,
+      category: "flex",
+      views: [{ key: "front", label: "Front", required: true, zones: [] }],
+      defectClasses: [{ key: "scratch", label: "Scratch", severity: "minor" }],
+      checklist: ["power", "volume-up", "volume-down", "side-switch"].map((id) => ({ id, label: `${id} responds`, kind: "pass_fail", severityOnFail: "major" })),
+    },
+  });
+  expect(created.ok(), await created.text()).toBe(true);
+  const flex = ((await created.json()) as { partType: { id: string; name: string } }).partType;
   const refs = [1, 2, 3, 4, 5].map((n) => `FW-${stamp()}-${n}`);
-  for (const [i, ref] of refs.entries()) await decidedLot(page.request, supplierId, flex, i === 1 || i === 4, ref);
+  for (const [i, ref] of refs.entries()) await decidedLot(page.request, supplierId, flex.id, i === 1 || i === 4, ref);
 
-  await fillLotForm(page, { supplier, partType: "Button flex", ref: `FW-NEXT-${stamp()}`, quantity: 120 });
+  await fillLotForm(page, { supplier, partType: flex.name, ref: `FW-NEXT-${stamp()}`, quantity: 120 });
   const why = `2 of the last 5 lots on normal inspection were not accepted (${refs[1]}, ${refs[4]}) → tightened.`;
   await expect(page.getByTestId("switching-box")).toContainText("Tightened");
   await expect(page.getByTestId("switching-reason")).toHaveText(why);
