@@ -20,8 +20,9 @@
  * - A grade overridden below the promise with no fired line below it: the classes of the fired
  *   cosmetic lines (the grader judged those defects worse than the rubric did); with none either,
  *   the shortfall counts as **major** with no class named — it breaks what was bought, which is
- *   more than a blemish, and nothing says it is a safety matter (our choice, c). When only a
- *   functional line fired, nothing cosmetic is added: the failure itself counts.
+ *   more than a blemish, and nothing says it is a safety matter (our choice, c). When no cosmetic
+ *   line is below the promise but a functional one is, that failure explains the grade and nothing
+ *   cosmetic is added: the failure itself counts.
  * - A critical defect class always counts as critical: a fired line naming a class of critical
  *   severity counts, whatever the promise and whatever an override said.
  * Counting once per class in which a unit has a nonconformity, rather than only in its most serious
@@ -85,9 +86,10 @@ export function cosmeticNonconformities(promised: PromisedGrade, grade: GradeEvi
   let unattributed = false;
   if (isWorse(grade.finalGrade, promised)) {
     const below = fired.filter(({ line, classes }) => classes.length > 0 && isWorse(line.grade, promised));
-    const cosmetic = below.length > 0 ? below : fired.filter(({ classes }) => classes.length > 0);
-    for (const { classes } of cosmetic) classes.forEach(add);
     const functionalExplains = grade.lines.some((line) => rules.get(line.ruleId)?.metric === "functionalFailures" && isWorse(line.grade, promised));
+    // Nothing fired below the promise: an override; unless a failure explains it (counted already).
+    const cosmetic = below.length > 0 ? below : functionalExplains ? [] : fired.filter(({ classes }) => classes.length > 0);
+    for (const { classes } of cosmetic) classes.forEach(add);
     unattributed = cosmetic.length === 0 && !functionalExplains;
   }
 

@@ -90,6 +90,8 @@ describe("cosmeticNonconformities", () => {
 
   it("a grade below the promise only through a functional rule adds nothing cosmetic (the failure counts)", () => {
     expect(cosmeticNonconformities("A", grade("C", [["func-major", "C"]]))).toEqual([]);
+    // A stain within the promise beside it is not what broke the promise either.
+    expect(cosmeticNonconformities("B", grade("C", [["func-major", "C"], ["stain-b", "B"]]))).toEqual([]);
   });
 
   it("a line of a rule the rubric version does not have names no class", () => {
