@@ -1,8 +1,8 @@
 import "server-only";
 /**
  * Suggestions for the Bench: a Surface outline (Otsu on the preview derivative) or pixel-fault
- * candidates (on the original, screen views of display parts only), as ghost shapes in original
- * pixels. Nothing is stored: an accepted ghost becomes a region through the normal save.
+ * candidates (on the original, screen views of display parts only, inside the active screen area:
+ * lib/regions/screen-area.ts), as ghost shapes in original pixels. Nothing is stored: an accepted ghost becomes a region through the normal save.
  * Time-bounded: past the limit the request answers 503 and the inspector marks by hand (the
  * image work itself cannot be interrupted; it finishes in the background and is discarded).
  */
@@ -11,7 +11,8 @@ import { AppError } from "@/lib/errors";
 import { suggestPixelCandidates } from "@/lib/imaging/pixel-candidates";
 import { suggestSurface } from "@/lib/imaging/suggest-surface";
 import { getObjectBuffer, objectStore } from "@/lib/storage/s3";
-import { loadPhotoForRegions } from "./regions";
+import { loadPhotoForRegions, readRegionSet } from "./regions";
+import { screenSearchArea } from "./screen-area";
 import type { SuggestionKind } from "./schemas";
 import { candidateGhosts, isScreenView, scalePolygon, type SuggestionResponse } from "./suggestion-mapping";
 
@@ -56,10 +57,15 @@ export async function suggestForPhoto(actor: Pick<SessionUser, "id" | "workspace
     throw new AppError("conflict", "Pixel faults are looked for only on the lit test-screen views (screen-…) of display parts.");
   }
   if (original.width * original.height > MAX_CANDIDATE_PIXELS) throw new AppError("payload_too_large", "This photo is too large to search for pixel faults in time.");
+  const { regions } = await readRegionSet(actor, photoId);
+  const view = partType.views.find((v) => v.key === photo.viewKey);
+  const screen = screenSearchArea({ surfaces: regions.surfaces.map((s) => s.shape), zones: view?.zones ?? [], size: original });
+  if ("problem" in screen) throw new AppError("conflict", screen.problem);
   const bytes = await objectBytes(photo.originalKey);
-  const result = await withinTime(suggestPixelCandidates(bytes, { maxCandidates: 200 }), SUGGESTION_TIME_LIMIT_MS["pixel-candidates"], "Looking for pixel faults");
+  const result = await withinTime(suggestPixelCandidates(bytes, { maxCandidates: 200, area: screen.area }), SUGGESTION_TIME_LIMIT_MS["pixel-candidates"], "Looking for pixel faults");
   const { ghosts, withoutClass } = candidateGhosts(result.candidates, partType.defectClasses, original);
-  const parts = [`${ghosts.length} candidate${ghosts.length === 1 ? "" : "s"} found.`];
+  const parts = [`${ghosts.length} candidate${ghosts.length === 1 ? "" : "s"} found ${screen.description}.`];
+  if (result.droppedNearEdge) parts.push(`${result.droppedNearEdge} more at the panel's edge ${result.droppedNearEdge === 1 ? "was" : "were"} left out.`);
   if (withoutClass) parts.push(`${withoutClass} more are of a class this part type does not have.`);
   if (result.truncated) parts.push("More were found; only the strongest 200 are shown.");
   if (result.largeGroups) parts.push(`${result.largeGroups} larger blotch${result.largeGroups === 1 ? " was" : "es were"} left out (not pixel-sized: check for smudges or clouding).`);
