@@ -38,9 +38,18 @@ export type AnnotatedPhotoInput = {
 
 export type AnnotatedPhoto = { jpeg: Buffer; width: number; height: number; photoHeight: number };
 
+/**
+ * Output sizes (long edge, px) by use. Report: a half A4 page is about 7 in wide, so 1 000 px
+ * prints at ~140 dpi; more costs time (decoding and drawing grow with the area) for no visible
+ * gain. Certificate: a quarter-width thumbnail (~1.7 in) at 320 px is ~190 dpi, and the photo
+ * worker already stores a 320 px thumbnail to start from. Attachment: e-mailed to a supplier
+ * who zooms in, so larger.
+ */
+export const ANNOTATED_EDGE = { report: 1000, certificate: 320, attachment: 1600 } as const;
+
 /** Below this many output px on the long edge, marks keep their screen size; above, they grow. */
 const REFERENCE_EDGE = 1000;
-const DEFAULT_MAX_EDGE = 1600;
+const DEFAULT_MAX_EDGE = ANNOTATED_EDGE.attachment;
 
 export const styleScale = (longEdge: number) => Math.max(1, longEdge / REFERENCE_EDGE);
 

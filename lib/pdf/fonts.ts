@@ -16,11 +16,14 @@ import * as fontkit from "fontkit";
 import { withoutTables } from "./sfnt";
 
 export const PDF_FONT_FILES = {
-  regular: "node_modules/source-sans/TTF/SourceSans3-Regular.ttf",
-  semibold: "node_modules/source-sans/TTF/SourceSans3-Semibold.ttf",
-  bold: "node_modules/source-sans/TTF/SourceSans3-Bold.ttf",
+  regular: "SourceSans3-Regular.ttf",
+  semibold: "SourceSans3-Semibold.ttf",
+  bold: "SourceSans3-Bold.ttf",
 } as const;
 export type PdfFontWeight = keyof typeof PDF_FONT_FILES;
+
+/** The folder is spelled out so the build traces only it (a variable path traces the whole project). */
+export const pdfFontPath = (weight: PdfFontWeight) => path.join(process.cwd(), "node_modules", "source-sans", "TTF", PDF_FONT_FILES[weight]);
 export const PDF_FONT_WEIGHTS = Object.keys(PDF_FONT_FILES) as PdfFontWeight[];
 
 /** The names the documents register the fonts under (`doc.font(PDF_FONT.bold)`). */
@@ -32,7 +35,7 @@ let loaded: Record<PdfFontWeight, LoadedFont> | undefined;
 function loadFonts(): Record<PdfFontWeight, LoadedFont> {
   if (loaded) return loaded;
   const entries = PDF_FONT_WEIGHTS.map((weight) => {
-    const file = path.join(process.cwd(), PDF_FONT_FILES[weight]);
+    const file = pdfFontPath(weight);
     // GSUB/GPOS dropped: see sfnt.ts for why and what it costs.
     const buffer = withoutTables(fs.readFileSync(file), ["GSUB", "GPOS"]);
     const font = fontkit.create(buffer);

@@ -15,7 +15,7 @@ const LINE = "#B5482A";
 const AXIS = "#555555";
 
 export function drawParetoChart(doc: PdfDoc, rows: readonly ParetoRow[], box: { x: number; y: number; width: number; height: number }): void {
-  const g = paretoGeometry(rows, { width: box.width, height: box.height, margin: { top: 10, right: 34, bottom: 44, left: 30 } });
+  const g = paretoGeometry(rows, { width: box.width, height: box.height, margin: { top: 18, right: 34, bottom: 34, left: 30 } });
   doc.save();
   doc.translate(box.x, box.y);
   const { plot } = g;
@@ -42,6 +42,7 @@ export function drawParetoChart(doc: PdfDoc, rows: readonly ParetoRow[], box: { 
     for (const point of g.line) doc.circle(point.x, point.y, 1.8).fill(LINE);
   }
   doc.moveTo(plot.x, plot.y).lineTo(plot.x, plot.y + plot.height).lineTo(plot.x + plot.width, plot.y + plot.height).lineTo(plot.x + plot.width, plot.y).lineWidth(0.6).strokeColor(AXIS).stroke();
-  doc.fontSize(6.5).fillColor(AXIS).text("defects", 0, plot.y + plot.height + 32, { width: plot.x + 20, lineBreak: false });
+  doc.fontSize(6.5).fillColor(AXIS).text("Defects", 0, plot.y - 14, { width: plot.x + 30, lineBreak: false });
+  doc.fillColor(LINE).text("Cumulative share", plot.x + plot.width - 60, plot.y - 14, { width: 92, align: "right", lineBreak: false });
   doc.restore();
 }

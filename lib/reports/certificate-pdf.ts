@@ -35,6 +35,11 @@ function field(doc: PdfDoc, name: string, value: string, x: number, y: number, w
   doc.font(PDF_FONT.semibold).fontSize(size).fillColor(INK).text(value || "—", x, y + 10, { width, height: size * 2.6, ellipsis: true });
 }
 
+/** Pixel size of an image as pdfkit reads it (openImage exists at run time; its types omit it). */
+function imageSize(doc: PdfDoc, image: Buffer): { width: number; height: number } {
+  return (doc as unknown as { openImage(src: Buffer): { width: number; height: number } }).openImage(image);
+}
+
 export async function renderCertificatePdf(data: CertificateData, options: CertificateOptions = {}): Promise<Buffer> {
   const timeZone = options.timeZone ?? "UTC";
   const doc = createPdf({ title: `Condition certificate — ${data.serial}`, subject: `${data.partType} · ${data.modelFamily}`, author: data.workspaceName, createdAt: data.issuedAt });
@@ -90,10 +95,14 @@ export async function renderCertificatePdf(data: CertificateData, options: Certi
   label(doc, `Photos graded (${data.views.length} view${data.views.length === 1 ? "" : "s"}, regions drawn in)`, left, y, width);
   const gap = 10;
   const thumbWidth = (width - gap * (MAX_VIEWS - 1)) / MAX_VIEWS;
+  const thumbMaxHeight = 150;
   views.forEach((view, i) => {
     const x = left + i * (thumbWidth + gap);
-    doc.image(view.thumbnail, x, y + 12, { fit: [thumbWidth, 150], align: "center" });
-    doc.font(PDF_FONT.regular).fontSize(8).fillColor(MUTED).text(view.label, x, y + 166, { width: thumbWidth, align: "center", lineBreak: false, ellipsis: true });
+    // The label goes right under the picture as drawn (fit keeps the aspect ratio).
+    const size = imageSize(doc, view.thumbnail);
+    const drawnHeight = Math.min(thumbMaxHeight, (size.height * thumbWidth) / size.width);
+    doc.image(view.thumbnail, x, y + 12, { fit: [thumbWidth, thumbMaxHeight], align: "center" });
+    doc.font(PDF_FONT.regular).fontSize(8).fillColor(MUTED).text(view.label, x, y + 16 + drawnHeight, { width: thumbWidth, align: "center", lineBreak: false, ellipsis: true });
   });
   if (data.views.length > MAX_VIEWS) doc.text(`… ${data.views.length - MAX_VIEWS} more on the verification page`, left, y + 178, { width });
   y += 196;

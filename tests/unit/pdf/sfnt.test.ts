@@ -3,13 +3,12 @@
  * font engine, a) with the same glyphs, the same advance widths and the same character map.
  */
 import fs from "node:fs";
-import path from "node:path";
 import * as fontkit from "fontkit";
 import { describe, expect, it } from "vitest";
-import { PDF_FONT_FILES } from "@/lib/pdf/fonts";
+import { pdfFontPath } from "@/lib/pdf/fonts";
 import { withoutTables } from "@/lib/pdf/sfnt";
 
-const original = fs.readFileSync(path.join(process.cwd(), PDF_FONT_FILES.regular));
+const original = fs.readFileSync(pdfFontPath("regular"));
 const open = (buffer: Buffer) => fontkit.create(buffer) as fontkit.Font;
 
 describe("withoutTables", () => {
