@@ -2,7 +2,7 @@
 
 /**
  * The Bench annotation canvas: the photo, its regions and the marking tools. This component only
- * wires things together (STYLE.md 9–10): the pure model in lib/annotate owns every rule, the
+ * wires things together (DEVELOPERS.md, "Annotation canvas"): the pure model in lib/annotate owns every rule, the
  * hooks here turn pointer, wheel and key events into model edits, and three thin Konva layers
  * draw the photo, the regions and the work in progress. Import it through
  * annotation-canvas-lazy.tsx: Konva must never run on the server.

@@ -1,6 +1,6 @@
 /**
  * measureCoverage — how much of a part's visible surface (and of each inspection zone) each
- * defect class covers, and how many separate defects there are. Contract: PRODUCT.md,
+ * defect class covers, and how many separate defects there are. Contract: docs/contracts.md,
  * "Computation contracts".
  *
  * How it measures (decisions):

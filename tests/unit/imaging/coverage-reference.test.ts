@@ -1,7 +1,7 @@
 /**
  * measureCoverage against a general-purpose exact polygon library: polygon-clipping 0.15.7
  * (npm; union / intersection of polygons, MultiPolygon output) with areas by the shoelace
- * formula, outer ring minus holes (REFERENCES.md, "Areas and images"). Scenes come from a seeded
+ * formula, outer ring minus holes (docs/references.md, "Areas and images"). Scenes come from a seeded
  * PRNG so a failure reproduces. Tolerance: 1 % of the exact area (the contract's accuracy target).
  */
 import { readFileSync, readdirSync } from "node:fs";
@@ -154,7 +154,7 @@ describe("trap: @turf/area is geodesic (square metres on the globe), not a pixel
   });
 
   it("the coverage code and the project's dependencies do not use @turf/area", () => {
-    // Source: REFERENCES.md, "Areas and images" (trap).
+    // Source: docs/references.md, "Areas and images" (trap).
     const root = process.cwd();
     const manifest = JSON.parse(readFileSync(join(root, "package.json"), "utf8")) as Record<string, Record<string, string> | undefined>;
     expect({ ...manifest.dependencies, ...manifest.devDependencies }).not.toHaveProperty("@turf/area");
