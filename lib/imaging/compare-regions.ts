@@ -28,7 +28,7 @@
 import { z } from "zod";
 import type { Shape } from "@/lib/geometry/shape";
 import { diceOf, iouOf, maskOverlap } from "@/lib/agreement/masks";
-import { checkPhotoSize, parseOrRefuse, regionListSchema, side, surfaceSchema } from "@/lib/imaging/raster/coverage-input";
+import { checkPhotoSize, parseOrRefuse, photoSide, regionListSchema, surfaceSchema } from "@/lib/imaging/raster/coverage-input";
 import { overlappingGroups, regionMasks, surfaceMask, type RegionRaster } from "@/lib/imaging/raster/region-masks";
 import { countIntersection, countSpans, intersectSpanSets, unionSpanSets, type SpanSet } from "@/lib/imaging/raster/spans";
 
@@ -65,7 +65,7 @@ export type ClassComparison = {
 export type RegionSetComparison = { surfacePx: number; byDefect: Record<string, ClassComparison> };
 
 const comparisonSchema = z
-  .object({ width: side, height: side, a: regionListSchema, b: regionListSchema, surface: surfaceSchema.optional() })
+  .object({ width: photoSide, height: photoSide, a: regionListSchema, b: regionListSchema, surface: surfaceSchema.optional() })
   .superRefine(checkPhotoSize);
 
 type Group = { regionIds: string[]; mask: SpanSet; px: number; matched: boolean };

@@ -37,7 +37,7 @@ const shapeSchema = z.discriminatedUnion(
   { error: 'kind must be one of "rect", "polygon", "line", "spot"' },
 );
 
-export const side = z
+export const photoSide = z
   .number({ error: "must be a number" })
   .int("must be a whole number of pixels")
   .min(1, "must be at least 1 pixel")
@@ -58,8 +58,8 @@ export function checkPhotoSize(input: { width: number; height: number }, context
 
 const coverageInputSchema = z
   .object({
-    width: side,
-    height: side,
+    width: photoSide,
+    height: photoSide,
     regions: regionListSchema,
     surface: surfaceSchema.optional(),
     zones: z
