@@ -8,15 +8,16 @@
  *   its preview (same picture, other size): shapes are scaled from `regionSpace` to the output.
  * - The output fits in `maxEdge` px (never enlarged); styles scale with it (`styleScale`), so a
  *   320 px thumbnail and a 1 600 px page photo both show readable dashes and hatching.
- * - Styles come from the Bench's style table by the part type's class order (`classes`), so a
- *   class looks the same here as on the canvas. A region of a class not in the list is drawn in
- *   the "unlisted class" style and named by its key in the legend.
+ * - Styles come from the Bench's style table (lib/annotate/class-looks.ts: a class's look follows
+ *   its key), so a class looks the same here as on the canvas. A region of a class the part type
+ *   does not list is drawn in the "unlisted class" style and named by its key in the legend.
  * - The legend lists the classes present on this photo, each with its swatch (fill + dash) and
  *   its number of regions, and the Surface when one is drawn. Text is drawn as paths in the
  *   report font (svg-text.ts), so no server font is needed.
  */
 import sharp from "sharp";
-import { defectStyleMap, SURFACE_STYLE, UNKNOWN_DEFECT_STYLE, type RegionStyle } from "@/components/annotate/defect-styles";
+import { defectStyleMap } from "@/lib/annotate/class-looks";
+import { SURFACE_STYLE, UNKNOWN_DEFECT_STYLE, type RegionStyle } from "@/lib/annotate/defect-styles";
 import type { Shape } from "@/lib/geometry/shape";
 import { defsSvg, shapeSvg, swatchSvg, type StyledShape } from "./annotation-svg";
 import { measureText, svgText } from "./svg-text";
@@ -27,7 +28,7 @@ export type AnnotatedPhotoInput = {
   regionSpace?: { width: number; height: number };
   regions: readonly { defect: string; shape: Shape }[];
   surface?: readonly Shape[];
-  /** The part type's defect classes in its order (this order picks each class's style). */
+  /** The part type's defect classes, in the order the legend lists them. */
   classes: readonly { key: string; label: string }[];
   /** A line above the legend, e.g. "Unit OV-24-0113 · Front · grade C". */
   caption?: string;

@@ -1,13 +1,13 @@
 /**
  * Regions of a photo as an SVG overlay, in the same colours, dashes and fills as the Bench canvas
- * (the one style source, components/annotate/defect-styles.ts), so a class is told apart by
+ * (the one style source, lib/annotate/defect-styles.ts and class-looks.ts), so a class is told apart by
  * pattern as well as colour in e-mails and PDFs too. Pure string building; annotated-photo.ts
  * rasterises it with sharp.
  *
  * Sizes: the canvas's styles are in screen px; here they are multiplied by `scale` (chosen by the
  * caller from the output size) so marks read alike on a thumbnail and on a full page.
  */
-import type { FillPattern, RegionStyle } from "@/components/annotate/defect-styles";
+import type { FillPattern, RegionStyle } from "@/lib/annotate/defect-styles";
 import type { Shape } from "@/lib/geometry/shape";
 
 export type Transform = { sx: number; sy: number };

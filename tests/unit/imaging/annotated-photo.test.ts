@@ -6,7 +6,8 @@
  */
 import sharp from "sharp";
 import { describe, expect, it } from "vitest";
-import { defectStyleMap, SURFACE_STYLE, UNKNOWN_DEFECT_STYLE } from "@/components/annotate/defect-styles";
+import { defectStyleMap } from "@/lib/annotate/class-looks";
+import { SURFACE_STYLE, UNKNOWN_DEFECT_STYLE } from "@/lib/annotate/defect-styles";
 import { annotationOverlay, renderAnnotatedPhoto } from "@/lib/imaging/annotated-photo";
 
 const classes = [
@@ -36,8 +37,20 @@ describe("renderAnnotatedPhoto", { timeout: 30_000 }, () => {
     const dentColour = defectStyleMap(classes.map((c) => c.key)).get("dent")!.colour;
     const out = await renderAnnotatedPhoto({ image: await greyPhoto(400, 300), regions: [{ defect: "dent", shape: { kind: "rect", x: 100, y: 100, width: 120, height: 80 } }], classes, legend: false });
     expect([out.width, out.height]).toEqual([400, 300]);
-    // Dent is the second class: a solid... whichever dash it has, the outline starts at the corner.
-    expect(near(await pixel(out.jpeg, 100, 140), hex(dentColour), 40) || near(await pixel(out.jpeg, 101, 100), hex(dentColour), 40)).toBe(true);
+    // Walk the rectangle's outline: dashes leave gaps (halo shows there), but a good part is the class colour.
+    const { data, info } = await sharp(out.jpeg).raw().toBuffer({ resolveWithObject: true });
+    const at = (x: number, y: number) => ({ r: data[(y * info.width + x) * 3], g: data[(y * info.width + x) * 3 + 1], b: data[(y * info.width + x) * 3 + 2] });
+    const outline: [number, number][] = [];
+    for (let x = 100; x < 220; x++) outline.push([x, 100], [x, 180]);
+    for (let y = 100; y < 180; y++) outline.push([100, y], [220, y]);
+    // JPEG's halved colour resolution shifts thin lines' colours, so "class colour" means nearer to it than to the photo or the halo.
+    const distance = (a: { r: number; g: number; b: number }, b: { r: number; g: number; b: number }) => Math.hypot(a.r - b.r, a.g - b.g, a.b - b.b);
+    const black = { r: 0, g: 0, b: 0 };
+    const isClassColour = (p: { r: number; g: number; b: number }) => distance(p, hex(dentColour)) < Math.min(distance(p, grey), distance(p, black));
+    const coloured = outline.filter(([x, y]) => isClassColour(at(x, y))).length;
+    expect(coloured / outline.length).toBeGreaterThan(0.3);
+    // Away from the outline the class colour does not appear.
+    expect(isClassColour(at(160, 60))).toBe(false);
     expect(near(await pixel(out.jpeg, 20, 20), grey, 6)).toBe(true);
     expect(near(await pixel(out.jpeg, 350, 260), grey, 6)).toBe(true);
   });
