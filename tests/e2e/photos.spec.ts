@@ -137,7 +137,7 @@ test("a file the store never received can be retried, an upload can be cancelled
   await expect(page.getByTestId("photo-card")).toHaveCount(1);
 });
 
-test("photos can be dropped onto the page; auditors see the photos but get no uploader", async ({ page, browser }) => {
+test("photos can be dropped onto the page; auditors cannot open the Bench (blind recheck)", async ({ page, browser }) => {
   const unitId = await createPhotoBenchUnit();
   await signInAs(page, "inspector@vellmoor.example");
   await page.goto(`/units/${unitId}`);
@@ -158,8 +158,9 @@ test("photos can be dropped onto the page; auditors see the photos but get no up
   try {
     const auditor = await auditorContext.newPage();
     await signInAs(auditor, "auditor@vellmoor.example");
-    await auditor.goto(`/units/${unitId}`);
-    await expect(auditor.locator('[data-testid="photo-card"][data-status="ready"]')).toHaveCount(1);
+    const response = await auditor.goto(`/units/${unitId}`);
+    expect(response?.status()).toBe(403);
+    await expect(auditor.getByTestId("photo-card")).toHaveCount(0);
     await expect(auditor.getByTestId("photo-uploader")).toHaveCount(0);
   } finally {
     await auditorContext.close();
