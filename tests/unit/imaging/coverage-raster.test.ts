@@ -143,7 +143,8 @@ describe("span algebra", () => {
       expect(countIntersection(a, b)).toBe(coveredPixels(both));
       expect(spanSetsOverlap(a, b)).toBe(coveredPixels(both) > 0);
     }
-  });
+    // Deep-comparing 80 bitmaps takes ~5 s on a loaded 2-CPU machine: more than the default limit.
+  }, 20_000);
 
   it("merges touching and overlapping ranges given in any order, up to the largest allowed columns", () => {
     const loose = new LooseSpans();
