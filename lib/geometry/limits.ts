@@ -25,11 +25,12 @@ export const MIN_SIZE_CAP_PX = 16;
 /**
  * Measuring work allowed per photo, in shape rows (lib/imaging/raster/cost.ts: one pixel row of
  * one polygon edge, line segment, box or disc). The cost of measuring grows with this count, not
- * with the photo's size, so this bounds the time and memory of one photo's measurement. Real
- * annotation is far below it: 2 000 defects of 200 rows each and a traced Surface are under
- * 500 000; `npm run bench` prints what a set at the limit costs on a 12 MP photo.
+ * with the photo's size, so this bounds the time and memory of one photo's measurement: the
+ * worst set at the limit takes about as long as the 2 s inline measuring budget on a busy 2-CPU
+ * machine (`npm run bench -- measure-cost` prints it). Real annotation stays well below: 2 000
+ * defects of 200 rows each and a traced Surface come to about 400 000.
  */
-export const MAX_RASTER_ROWS_PER_PHOTO = 4_000_000;
+export const MAX_RASTER_ROWS_PER_PHOTO = 1_000_000;
 /** A ruler longer than 10 m is a typing slip on a parts bench (common practice, our own bound). */
 export const MAX_RULER_LENGTH_MM = 10_000;
 /**

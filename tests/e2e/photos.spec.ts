@@ -158,8 +158,8 @@ test("photos can be dropped onto the page; auditors cannot open the Bench (blind
   try {
     const auditor = await auditorContext.newPage();
     await signInAs(auditor, "auditor@vellmoor.example");
-    const response = await auditor.goto(`/units/${unitId}`);
-    expect(response?.status()).toBe(403);
+    await auditor.goto(`/units/${unitId}`);
+    await expect(auditor.getByTestId("forbidden")).toBeVisible();
     await expect(auditor.getByTestId("photo-card")).toHaveCount(0);
     await expect(auditor.getByTestId("photo-uploader")).toHaveCount(0);
   } finally {

@@ -43,11 +43,12 @@ describe("measuring costs are bounded", () => {
     expect(wide.body.error.message).toMatch(/Region 1 \(Line\): the line is 4000 px wide; at most 200 px \(5 % of the photo's long edge\) is allowed — mark a wider defect with Outline\./);
     const spot = await save(large.id, [{ kind: "spot", x: 2000, y: 1500, radius: 900 }]);
     expect(spot.body.error.message).toMatch(/the spot's radius is 900 px; at most 400 px/);
-    // 20 zigzag outlines of 400 points, every edge across all 3 000 rows: 24 million shape rows.
-    const zigzags = Array.from({ length: 20 }, (_, k) => ({ kind: "polygon", points: Array.from({ length: 400 }, (_, i) => [100 + k * 150 + i * 0.3, i % 2 ? 3000 : 0]) }));
+    // 20 comb outlines (401 points: 200 teeth down the whole photo, closed along the top edge),
+    // every tooth edge across all 3 000 rows: 20 × (400 × 3 000 + 3 000) = 24.06 million shape rows.
+    const zigzags = Array.from({ length: 20 }, (_, k) => ({ kind: "polygon", points: Array.from({ length: 401 }, (_, i) => [100 + k * 150 + i * 0.3, i % 2 ? 3000 : 0]) }));
     const costly = await save(large.id, zigzags);
     expect(costly.status).toBe(400);
-    expect(costly.body.error.message).toMatch(/too long to measure: their edges and lines cross 24\.1 million pixel rows in all, at most 4\.0 million are allowed per photo/);
+    expect(costly.body.error.message).toMatch(/too long to measure: their edges and lines cross 24\.1 million pixel rows in all, at most 1\.0 million are allowed per photo/);
     expect(await db().select().from(regions).where(eq(regions.photoId, large.id))).toHaveLength(0);
     // At the caps is fine.
     expect((await save(large.id, [{ kind: "line", points: [[0, 1500], [4000, 1500]], width: 200 }, { kind: "spot", x: 10, y: 10, radius: 400 }])).status).toBe(200);
@@ -66,8 +67,8 @@ describe("measuring costs are bounded", () => {
 
   it("measuring runs off the request thread: the server keeps answering while a heavy set is measured", async () => {
     const { unit, large } = await largePhoto();
-    // Within every cap and the budget: 1 300 Lines at the width cap, each across all 3 000 rows.
-    const heavy: FixtureRegion[] = Array.from({ length: 1300 }, (_, k) => ({ clientId: `h${k}`, role: "defect", defect: "scratch", shape: { kind: "line", points: [[k * 3, 0], [k * 3 + 2, 3000]], width: 199 } }));
+    // Within every cap and the budget: 330 Lines at the width cap, each across all 3 000 rows.
+    const heavy: FixtureRegion[] = Array.from({ length: 330 }, (_, k) => ({ clientId: `h${k}`, role: "defect", defect: "scratch", shape: { kind: "line", points: [[k * 11, 0], [k * 11 + 2, 3000]], width: 199 } }));
     await saveRegions({ workspaceId: owner.workspaceId, photoId: large.id, authorId: owner.userId, regions: heavy });
     let measured = false;
     const measuring = api(inspector, "POST", `/api/units/${unit.id}/measure`).then((res) => {

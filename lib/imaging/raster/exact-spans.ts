@@ -110,8 +110,19 @@ function polygonSpans(points: Point[], frame: Frame, check: () => void): SpanSet
   return writer.finish();
 }
 
-/** Sorts one row's crossings in place (few per row: insertion sort) and sweeps nonzero winding. */
+/** Above this many crossings in a row, insertion sort (quadratic) gives way to typed-array sorts. */
+const INSERTION_SORT_MAX = 32;
+let ups = new Float64Array(64);
+let downs = new Float64Array(64);
+
+/**
+ * Sorts one row's crossings and sweeps nonzero winding. Rows usually hold a handful of crossings
+ * (insertion sort, in place); a row crossed by many edges in an unlucky order (a zigzag outline)
+ * sorts its upward and downward crossings separately and merges them, so a row never costs more
+ * than k log k for k crossings.
+ */
 function windingRow(row: number, xs: Float64Array, directions: Int8Array, from: number, to: number, frame: Frame, writer: SpanWriter): void {
+  if (to - from > INSERTION_SORT_MAX) return windingRowSorted(row, xs, directions, from, to, frame, writer);
   for (let i = from + 1; i < to; i++) {
     const x = xs[i];
     const direction = directions[i];
@@ -131,6 +142,33 @@ function windingRow(row: number, xs: Float64Array, directions: Int8Array, from: 
     winding += directions[i];
     if (before === 0 && winding !== 0) start = xs[i];
     else if (before !== 0 && winding === 0) writer.push(row, firstColumn(start), endColumn(xs[i], frame));
+  }
+}
+
+function windingRowSorted(row: number, xs: Float64Array, directions: Int8Array, from: number, to: number, frame: Frame, writer: SpanWriter): void {
+  if (ups.length < to - from) {
+    ups = new Float64Array(2 * (to - from));
+    downs = new Float64Array(2 * (to - from));
+  }
+  let upCount = 0;
+  let downCount = 0;
+  for (let i = from; i < to; i++) {
+    if (directions[i] > 0) ups[upCount++] = xs[i];
+    else downs[downCount++] = xs[i];
+  }
+  const up = ups.subarray(0, upCount).sort();
+  const down = downs.subarray(0, downCount).sort();
+  let winding = 0;
+  let start = 0;
+  for (let u = 0, d = 0; u < upCount || d < downCount; ) {
+    // Ties take the upward crossing first, as the insertion sort's stable order may not: either
+    // order yields the same covered pixels, since a zero-length run covers none.
+    const takeUp = d >= downCount || (u < upCount && up[u] <= down[d]);
+    const x = takeUp ? up[u++] : down[d++];
+    const before = winding;
+    winding += takeUp ? 1 : -1;
+    if (before === 0 && winding !== 0) start = x;
+    else if (before !== 0 && winding === 0) writer.push(row, firstColumn(start), endColumn(x, frame));
   }
 }
 
