@@ -1,6 +1,6 @@
 /**
  * measureCoverage — how much of a part's visible surface (and of each inspection zone) each
- * defect class covers, and how many separate defects there are. Contract: PRODUCT.md,
+ * defect class covers, and how many separate defects there are. Contract: docs/contracts.md,
  * "Computation contracts".
  *
  * How it measures (decisions):
@@ -29,44 +29,33 @@
  * - Every defect class named by a region appears in `byDefect` and in each zone's `byDefect`,
  *   with zeros when nothing of it lies inside.
  */
-import type { Shape } from "@/lib/geometry/shape";
 import type { CoverageInput, CoverageResult } from "@/lib/measure/types";
 import { parseCoverageInput } from "@/lib/imaging/raster/coverage-input";
 import { shapeSpans } from "@/lib/imaging/raster/exact-spans";
-import { countSeparateRegions } from "@/lib/imaging/raster/separate";
-import { sharpShapeSpans } from "@/lib/imaging/raster/sharp-spans";
 import { assertBeforeDeadline, deadlineCheck } from "@/lib/imaging/deadline";
-import {
-  countIntersection,
-  countSpans,
-  fullFrameSpanSet,
-  intersectSpanSets,
-  unionSpanSets,
-  type SpanSet,
-} from "@/lib/imaging/raster/spans";
+import { overlappingGroups, regionMasks, surfaceMask, type Frame, type RegionRaster } from "@/lib/imaging/raster/region-masks";
+import { countIntersection, countSpans, intersectSpanSets, unionSpanSets } from "@/lib/imaging/raster/spans";
 
 export type CoverageOptions = {
   /** How region shapes become pixels: "exact" (default, see the decisions above) or "sharp". */
-  regionRaster?: "sharp" | "exact";
+  regionRaster?: RegionRaster;
   /** Epoch ms: past it, measuring stops with DeadlineExceeded (checked inside the loops). */
   deadline?: number;
 };
-
-type Frame = { width: number; height: number };
 
 export async function measureCoverage(input: CoverageInput, options: CoverageOptions = {}): Promise<CoverageResult> {
   const { width, height, regions, surface = [], zones = [] } = parseCoverageInput(input);
   const frame: Frame = { width, height };
   const check = deadlineCheck(options.deadline);
 
-  const surfaceSpans = surface.length > 0 ? unionSpanSets(surface.map((shape) => shapeSpans(shape, frame, check))) : fullFrameSpanSet(width, height);
+  const surfaceSpans = surfaceMask(surface, frame, check);
   const surfacePx = countSpans(surfaceSpans);
   const zoneMeasures = zones.map((zone) => {
     const spans = intersectSpanSets(shapeSpans(zone.shape, frame, check), surfaceSpans);
     return { id: zone.id, spans, zonePx: countSpans(spans) };
   });
 
-  const rawRegionSpans = await rasteriseRegions(
+  const rawRegionSpans = await regionMasks(
     regions.map((region) => region.shape),
     frame,
     options.regionRaster ?? "exact",
@@ -92,7 +81,7 @@ export async function measureCoverage(input: CoverageInput, options: CoverageOpt
     const memberSpans = members.map((index) => clippedRegionSpans[index]);
     const classUnion = unionSpanSets(memberSpans);
     const px = countSpans(classUnion);
-    byDefect.push([defect, { px, share: ratio(px, surfacePx), count: countSeparateRegions(memberSpans, check) }]);
+    byDefect.push([defect, { px, share: ratio(px, surfacePx), count: overlappingGroups(memberSpans, check).length }]);
     assertBeforeDeadline(options.deadline);
     zoneMeasures.forEach((zone, zoneIndex) => {
       const zonePxOfClass = zone.zonePx === 0 ? 0 : countIntersection(classUnion, zone.spans);
@@ -108,11 +97,4 @@ export async function measureCoverage(input: CoverageInput, options: CoverageOpt
   };
 }
 
-function rasteriseRegions(shapes: Shape[], frame: Frame, mode: "sharp" | "exact", check: () => void): Promise<SpanSet[]> {
-  if (mode === "exact") return Promise.resolve(shapes.map((shape) => shapeSpans(shape, frame, check)));
-  return sharpShapeSpans(shapes, frame);
-}
-
 const ratio = (part: number, whole: number) => (whole === 0 ? 0 : part / whole);
-
-export { countSeparateRegions };

@@ -1,8 +1,8 @@
 /**
- * Validation of measureCoverage's input: bad input is refused with one clear AppError
- * ("bad_request") that names every offending field, before any work is done — including input
- * that is valid but would cost too much: Line widths and Spot radii beyond their caps for the
- * photo (lib/geometry/limits.ts) and more shape rows than the per-photo budget (raster/cost.ts).
+ * Validation of measureCoverage's input (and, from the same pieces, of the region-set comparison
+ * in lib/imaging/compare-regions.ts): bad input is refused with one clear AppError
+ * ("bad_request") that names every offending field, before any work is done — for coverage
+ * also input that is valid but would cost too much (checkMeasuringCost).
  */
 import { z } from "zod";
 import { AppError } from "@/lib/errors";
@@ -42,20 +42,31 @@ const shapeSchema = z.discriminatedUnion(
   { error: 'kind must be one of "rect", "polygon", "line", "spot"' },
 );
 
-const side = z
+export const photoSide = z
   .number({ error: "must be a number" })
   .int("must be a whole number of pixels")
   .min(1, "must be at least 1 pixel")
   .max(MAX_SIDE, `must be at most ${MAX_SIDE} pixels`);
 
+/** A photo's region list (also one side of a region-set comparison, lib/imaging/compare-regions.ts). */
+export const regionListSchema = z
+  .array(z.object({ id: z.string().min(1, "must not be empty"), defect: z.string().min(1, "must not be empty"), shape: shapeSchema }))
+  .max(MAX_REGIONS, `at most ${MAX_REGIONS} regions per photo`);
+export const surfaceSchema = z.array(shapeSchema).max(MAX_REGIONS);
+
+/** Refuses a photo larger than the rasterisers handle (add to an object schema with width/height). */
+export function checkPhotoSize(input: { width: number; height: number }, context: z.RefinementCtx): void {
+  if (input.width * input.height > MAX_PIXELS) {
+    context.addIssue({ code: "custom", path: ["width"], message: `width × height must be at most ${MAX_PIXELS} pixels` });
+  }
+}
+
 const coverageInputSchema = z
   .object({
-    width: side,
-    height: side,
-    regions: z
-      .array(z.object({ id: z.string().min(1, "must not be empty"), defect: z.string().min(1, "must not be empty"), shape: shapeSchema }))
-      .max(MAX_REGIONS, `at most ${MAX_REGIONS} regions per photo`),
-    surface: z.array(shapeSchema).max(MAX_REGIONS).optional(),
+    width: photoSide,
+    height: photoSide,
+    regions: regionListSchema,
+    surface: surfaceSchema.optional(),
     zones: z
       .array(z.object({ id: z.string().min(1, "must not be empty"), shape: shapeSchema }))
       .max(MAX_REGIONS)
@@ -70,23 +81,33 @@ const coverageInputSchema = z
       .optional(),
   })
   .superRefine((input, context) => {
-    if (input.width * input.height > MAX_PIXELS) {
-      context.addIssue({ code: "custom", path: ["width"], message: `width × height must be at most ${MAX_PIXELS} pixels` });
-      return;
-    }
-    const lineCap = maxLineWidthFor(input);
-    const spotCap = maxSpotRadiusFor(input);
-    input.regions.forEach(({ shape }, index) => {
-      if (shape.kind === "line" && shape.width > lineCap) context.addIssue({ code: "custom", path: ["regions", index, "shape", "width"], message: `must be at most ${lineCap} px (5 % of the photo's long edge)` });
-      if (shape.kind === "spot" && shape.radius > spotCap) context.addIssue({ code: "custom", path: ["regions", index, "shape", "radius"], message: `must be at most ${spotCap} px (10 % of the photo's long edge)` });
-    });
-    const shapes = [...input.regions.map((r) => r.shape), ...(input.surface ?? []), ...(input.zones ?? []).map((z) => z.shape)];
-    const rows = rasterRows(shapes, input);
-    if (rows > MAX_RASTER_ROWS_PER_PHOTO) context.addIssue({ code: "custom", path: ["regions"], message: describeRasterBudget(rows) });
+    checkPhotoSize(input, context);
+    checkMeasuringCost(input, context);
   });
 
+/**
+ * Input that is valid but would cost too much: Line widths and Spot radii beyond their caps for
+ * the photo (lib/geometry/limits.ts), more shape rows than the per-photo budget (raster/cost.ts).
+ */
+export function checkMeasuringCost(input: CoverageInput, context: z.RefinementCtx): void {
+  const lineCap = maxLineWidthFor(input);
+  const spotCap = maxSpotRadiusFor(input);
+  input.regions.forEach(({ shape }, index) => {
+    if (shape.kind === "line" && shape.width > lineCap) context.addIssue({ code: "custom", path: ["regions", index, "shape", "width"], message: `must be at most ${lineCap} px (5 % of the photo's long edge)` });
+    if (shape.kind === "spot" && shape.radius > spotCap) context.addIssue({ code: "custom", path: ["regions", index, "shape", "radius"], message: `must be at most ${spotCap} px (10 % of the photo's long edge)` });
+  });
+  const shapes = [...input.regions.map((r) => r.shape), ...(input.surface ?? []), ...(input.zones ?? []).map((z) => z.shape)];
+  const rows = rasterRows(shapes, input);
+  if (rows > MAX_RASTER_ROWS_PER_PHOTO) context.addIssue({ code: "custom", path: ["regions"], message: describeRasterBudget(rows) });
+}
+
 export function parseCoverageInput(input: unknown): CoverageInput {
-  const parsed = coverageInputSchema.safeParse(input);
+  return parseOrRefuse(coverageInputSchema, input, "coverage input");
+}
+
+/** Parses with `schema` or throws one AppError ("bad_request") naming every offending field. */
+export function parseOrRefuse<T>(schema: z.ZodType<T>, input: unknown, what: string): T {
+  const parsed = schema.safeParse(input);
   if (parsed.success) return parsed.data;
   const fieldErrors: Record<string, string> = {};
   for (const issue of parsed.error.issues) {
@@ -96,5 +117,5 @@ export function parseCoverageInput(input: unknown): CoverageInput {
   const summary = Object.entries(fieldErrors)
     .map(([path, message]) => `${path}: ${message}`)
     .join("; ");
-  throw new AppError("bad_request", `Invalid coverage input — ${summary}`, { fieldErrors });
+  throw new AppError("bad_request", `Invalid ${what} — ${summary}`, { fieldErrors });
 }

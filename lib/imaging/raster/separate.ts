@@ -1,6 +1,7 @@
 /**
- * How many separate defects a class has: regions are merged when their masks share at least one
- * pixel, directly or through a chain (union–find); regions with an empty mask do not count.
+ * Separate defects of a class: regions are merged when their masks share at least one pixel,
+ * directly or through a chain (union–find); regions with an empty mask belong to no group, and
+ * masks that only touch (adjacent pixels, no shared pixel) stay apart.
  *
  * One sweep over the rows instead of testing every pair of regions: on each row, the spans of the
  * regions active there are sorted by start, and a span that starts before the furthest end seen
@@ -12,9 +13,15 @@ import type { SpanSet } from "./spans";
 
 const SLOTS = 16_777_216;
 
+/** The number of separate defects (overlappingGroups' count). */
 export function countSeparateRegions(masks: SpanSet[], check: () => void = () => {}): number {
+  return overlappingGroups(masks, check).length;
+}
+
+/** Groups of mask indices sharing pixels, in order of their first member; `check` runs per span visited. */
+export function overlappingGroups(masks: SpanSet[], check: () => void = () => {}): number[][] {
   const present = masks.map((_, index) => index).filter((index) => masks[index].offsets[masks[index].rowCount] > 0);
-  if (present.length <= 1) return present.length;
+  if (present.length <= 1) return present.map((index) => [index]);
   const parent = new Int32Array(masks.length).map((_, index) => index);
   const find = (index: number): number => {
     while (parent[index] !== index) {
@@ -78,7 +85,14 @@ export function countSeparateRegions(masks: SpanSet[], check: () => void = () =>
     }
     active = active.filter((index) => masks[index].top + masks[index].rowCount > row + 1);
   }
-  return new Set(present.map(find)).size;
+  const groups = new Map<number, number[]>();
+  for (const index of present) {
+    const root = find(index);
+    const group = groups.get(root) ?? [];
+    group.push(index);
+    groups.set(root, group);
+  }
+  return [...groups.values()];
 }
 
 function grow<T extends Float64Array | Int32Array>(array: T): T {
