@@ -26,7 +26,8 @@ export async function loadWorkingImage(input: Buffer, workingSide: number): Prom
     const meta = await sharp(input, { limitInputPixels: LIMIT_INPUT_PIXELS }).metadata();
     const original = { width: meta.autoOrient?.width ?? meta.width ?? 0, height: meta.autoOrient?.height ?? meta.height ?? 0 };
     const { data, info } = await sharp(input, { limitInputPixels: LIMIT_INPUT_PIXELS, autoOrient: true })
-      .resize({ width: workingSide, height: workingSide, fit: "inside", withoutEnlargement: true })
+      // Smaller photos are enlarged too: a mark must span the same working pixels at any photo size.
+      .resize({ width: workingSide, height: workingSide, fit: "inside" })
       .removeAlpha()
       .toColourspace("srgb")
       .raw()
