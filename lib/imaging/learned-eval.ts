@@ -2,7 +2,8 @@
  * Held-out evaluation of learned suggestions, and the rules the training job applies with it.
  * Pure (the model is run through suggestRegions on buffers the caller loaded).
  *
- * - Split by photo: a photo is a test photo when the hash of its key (FNV-1a, 32 bit) falls in the
+ * - Split by photo: a photo is a test photo when the hash of its key (FNV-1a, 32 bit, then
+ *   murmur3's finaliser) falls in the
  *   lowest `testShare` of the range. The same photo therefore lands on the same side in every
  *   training run, so no model is ever trained on a photo it is judged on, and a new model and the
  *   one in use can be compared on the same test photos.
@@ -41,12 +42,20 @@ export function fnv1a(key: string): number {
   return hash >>> 0;
 }
 
+/** murmur3's 32-bit finaliser: spreads FNV-1a's bits so keys that differ in one character split evenly. */
+function mix(hash: number): number {
+  let h = hash >>> 0;
+  h = Math.imul(h ^ (h >>> 16), 0x85ebca6b) >>> 0;
+  h = Math.imul(h ^ (h >>> 13), 0xc2b2ae35) >>> 0;
+  return (h ^ (h >>> 16)) >>> 0;
+}
+
 /** Train and test sets by photo key; never the same key on both sides. */
 export function splitByPhoto<T>(items: readonly T[], keyOf: (item: T) => string, { testShare = 0.2 }: { testShare?: number } = {}): { train: T[]; test: T[] } {
   if (!(testShare >= 0 && testShare <= 1)) throw new RangeError("testShare must be between 0 and 1.");
   const train: T[] = [];
   const test: T[] = [];
-  for (const item of items) (fnv1a(keyOf(item)) / 2 ** 32 < testShare ? test : train).push(item);
+  for (const item of items) (mix(fnv1a(keyOf(item))) / 2 ** 32 < testShare ? test : train).push(item);
   return { train, test };
 }
 

@@ -47,7 +47,7 @@ export type CellGrid = {
 };
 
 /** Mean over the (2r+1)² box around each pixel, clipped at the borders (running sums, row by row). */
-function boxMeans(values: Float32Array, width: number, height: number, r: number): Float32Array {
+export function boxMeans(values: Float32Array, width: number, height: number, r: number): Float32Array {
   const across = new Float32Array(width * height);
   for (let y = 0; y < height; y++) {
     const row = y * width;
@@ -79,7 +79,7 @@ function boxMeans(values: Float32Array, width: number, height: number, r: number
 }
 
 /** LBP riu2 code: the number of set bits when the circular pattern has at most 2 transitions, else 9. */
-const LBP_RIU2 = Uint8Array.from({ length: 256 }, (_, code) => {
+export const LBP_RIU2 = Uint8Array.from({ length: 256 }, (_, code) => {
   let transitions = 0;
   let ones = 0;
   for (let bit = 0; bit < 8; bit++) {
@@ -95,7 +95,7 @@ const TAN_22 = Math.tan(Math.PI / 8);
 const TAN_67 = Math.tan((3 * Math.PI) / 8);
 
 /** Unsigned direction bin 0–7 of (gx, gy), bin k = [k·22.5°, (k+1)·22.5°), without atan2. */
-function directionBin(gx: number, gy: number): number {
+export function directionBin(gx: number, gy: number): number {
   const flip = gy < 0 || (gy === 0 && gx < 0);
   const x = flip ? -gx : gx;
   const y = flip ? -gy : gy;

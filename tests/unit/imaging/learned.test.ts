@@ -37,7 +37,8 @@ beforeAll(async () => {
   console.log(`model JSON ${(JSON.stringify(model).length / 1024).toFixed(0)} KiB`);
 }, 600_000);
 
-describe("learned suggestions on held-out synthetic photos", () => {
+// Each suggestion run decodes and scores a photo: seconds on a busy 2-core machine.
+describe("learned suggestions on held-out synthetic photos", { timeout: 60_000 }, () => {
   it.each(["scratch", "stain"])("%s: recall >= 0.7 and precision >= 0.5 at IoU >= 0.3", (defect) => {
     const figures = evaluation.byClass[defect];
     expect(figures.accepted).toBeGreaterThanOrEqual(10);
