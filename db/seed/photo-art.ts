@@ -3,7 +3,8 @@
  * seeded part type on a plain backdrop, seen from one view, with defects planted where the demo
  * wants them (scratch, crack, stain, dust, dent, chip, corrosion, swelling, torn flex) and, for
  * displays, a test pattern with dead and stuck pixels. Every shape and colour is invented; no
- * photo comes from anywhere else. Deterministic for a given seed.
+ * photo comes from anywhere else. Deterministic for a given seed. `renderAnnotatedPartPhoto` also
+ * returns the regions an inspector would mark for the planted defects (photo-defects.ts).
  */
 import sharp from "sharp";
 import type { Shape } from "@/lib/geometry/shape";
