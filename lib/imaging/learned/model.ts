@@ -28,6 +28,8 @@ export const trainingSettingsSchema = z.strictObject({
   /** Training cells per defect class, and "no defect" cells, over all photos (bounds training time). */
   maxCellsPerClass: z.number().int().min(10).max(20000).default(1500),
   maxNegativeCells: z.number().int().min(10).max(50000).default(4000),
+  /** Photos decoded per training (the rest are left out, rare classes first in): bounds training time. */
+  maxPhotos: z.number().int().min(1).max(100000).default(120),
   /** A class needs this many accepted regions to be learned at all. */
   minRegionsPerClass: z.number().int().min(1).default(3),
   /** Share of the photos (with regions) kept aside to set each class's threshold, and its cap. */
@@ -49,7 +51,7 @@ export type ModelClass = {
   lineWidth: number;
   spotRadius: number;
   minCells: number;
-  /** What the model saw: accepted regions, the photos they are on, training cells drawn from them. */
+  /** What the model saw: accepted regions on the photos it used, those photos, training cells drawn from them. */
   regions: number;
   photos: number;
   cells: number;
@@ -63,7 +65,8 @@ export type RegionModel = {
   settings: TrainingSettings;
   features: string[];
   classes: ModelClass[];
-  /** Photos trained on, calibration photos among them, "no defect" cells drawn. */
+  /** Photos handed in, photos trained on (at most `maxPhotos`), calibration photos among them, "no defect" cells drawn. */
+  photosOffered: number;
   photos: number;
   calibrationPhotos: number;
   negativeCells: number;

@@ -47,87 +47,133 @@ async function eachWithPrefetch<T, L>(items: readonly T[], load: (item: T) => Pr
   }
 }
 
-export async function trainModel(examples: readonly TrainingExample[], settings: TrainingSettings): Promise<RegionModel> {
-  const random = seededRandom(settings.seed);
-  const regionCounts = new Map<string, number>();
-  for (const e of examples) for (const r of e.regions) regionCounts.set(r.defect, (regionCounts.get(r.defect) ?? 0) + 1);
+type ClassHabit = { line: number[]; spot: number[]; outline: number; cells: number[]; photos: number };
+type Plan = {
+  defects: string[];
+  /** Forest labels: 0 = no defect, k + 1 = defects[k] (also the masks' class indices). */
+  label: Map<string, number>;
+  calibrationSet: Set<number>;
+  quotaFor: (photo: number) => { perClass: Map<number, number>; negatives: number };
+};
+
+function plan(examples: readonly TrainingExample[], settings: TrainingSettings, random: () => number): Plan {
+  const regionCounts = countRegions(examples);
   const defects = [...regionCounts].filter(([, n]) => n >= settings.minRegionsPerClass).map(([d]) => d).sort();
   if (defects.length === 0) throw new RangeError(`No defect class has ${settings.minRegionsPerClass} or more accepted regions to learn from.`);
-  // Forest labels: 0 = no defect, k + 1 = defects[k]. Mask class indices are the forest labels.
   const label = new Map(defects.map((d, k) => [d, k + 1]));
-
-  const withRegions = examples.map((e, k) => [e, k] as const).filter(([e]) => e.regions.some((r) => label.has(r.defect))).map(([, k]) => k);
+  const withRegions = examples.map((_, k) => k).filter((k) => examples[k].regions.some((r) => label.has(r.defect)));
   const wanted = Math.min(settings.maxCalibrationPhotos, Math.floor(withRegions.length * settings.calibrationShare));
   const calibrationSet = new Set(shuffled(withRegions, random).slice(0, wanted >= 1 && withRegions.length >= 4 ? wanted : 0));
-  const fitIndices = examples.map((_, k) => k).filter((k) => !calibrationSet.has(k));
+  const all = examples.map((_, k) => k);
+  const fit = all.filter((k) => !calibrationSet.has(k));
+  // 1.5 × the even share per photo, trimmed to the caps at the end, so photos with few cells of a class leave room for others.
+  const quota = (among: number[]) => ({
+    perClass: new Map(defects.map((d) => [label.get(d)!, Math.ceil((1.5 * settings.maxCellsPerClass) / Math.max(1, among.filter((k) => examples[k].regions.some((r) => r.defect === d)).length))])),
+    negatives: Math.ceil((1.5 * settings.maxNegativeCells) / Math.max(1, among.length)),
+  });
+  const [fitQuota, allQuota] = [quota(fit), quota(all)];
+  return { defects, label, calibrationSet, quotaFor: (k) => (calibrationSet.has(k) ? allQuota : fitQuota) };
+}
 
-  const photosWith = (defect: string, among: number[]) => among.filter((k) => examples[k].regions.some((r) => r.defect === defect)).length;
-  // 1.5 × the even share, trimmed to the cap at the end, so photos with few cells of a class leave room for others.
-  const quota = (among: number[]) => new Map(defects.map((d) => [label.get(d)!, Math.ceil((1.5 * settings.maxCellsPerClass) / Math.max(1, photosWith(d, among)))]));
-  const negativeQuota = (among: number[]) => Math.ceil((1.5 * settings.maxNegativeCells) / Math.max(1, among.length));
-  const fitQuota = quota(fitIndices);
-  const allIndices = examples.map((_, k) => k);
-  const allQuota = quota(allIndices);
+function countRegions(examples: readonly TrainingExample[]): Map<string, number> {
+  const counts = new Map<string, number>();
+  for (const e of examples) for (const r of e.regions) counts.set(r.defect, (counts.get(r.defect) ?? 0) + 1);
+  return counts;
+}
 
-
+/** Decodes every photo once: training cells, the calibration photos kept whole, and how each class was drawn. */
+async function collect(examples: readonly TrainingExample[], settings: TrainingSettings, { defects, label, calibrationSet, quotaFor }: Plan, random: () => number) {
   const fitSamples: Sample[] = [];
   const calibrationSamples: Sample[] = [];
   const calibration: CalibrationPhoto[] = [];
-  const drawn = defects.map(() => ({ line: [] as number[], spot: [] as number[], outline: 0, cells: [] as number[], photos: 0 }));
+  const habits: ClassHabit[] = defects.map(() => ({ line: [], spot: [], outline: 0, cells: [], photos: 0 }));
+  const cellPx = settings.cellSize ** 2;
   await eachWithPrefetch(
-    allIndices,
+    examples.map((_, k) => k),
     (k) => preparePhoto(examples[k].image, examples[k].surface, settings.workingSide, settings.cellSize),
     (photo, k) => {
       const { shapes, masks } = workingRegions(photo, examples[k].regions, label);
-      const cellPx = settings.cellSize ** 2;
       shapes.forEach((s, r) => {
-        const habit = drawn[s.classIndex - 1];
+        const habit = habits[s.classIndex - 1];
         if (s.shape.kind === "line") habit.line.push(s.shape.width);
         else if (s.shape.kind === "spot") habit.spot.push(s.shape.radius);
         else habit.outline++;
         habit.cells.push(countSpans(masks[r].spans) / cellPx);
       });
-      for (const c of new Set(shapes.map((s) => s.classIndex - 1))) drawn[c].photos++;
-      const inCalibration = calibrationSet.has(k);
-      const picked = pickCells(photo.grid, labelCells(photo.grid, masks, photo.inside), inCalibration ? allQuota : fitQuota, negativeQuota(inCalibration ? allIndices : fitIndices), random);
+      for (const c of new Set(shapes.map((s) => s.classIndex - 1))) habits[c].photos++;
+      const { perClass, negatives } = quotaFor(k);
+      const picked = pickCells(photo.grid, labelCells(photo.grid, masks, photo.inside), perClass, negatives, random);
       const rows = featureRows(photo.grid, picked.map(([cell]) => cell));
-      (inCalibration ? calibrationSamples : fitSamples).push(...rows.map((row, r) => ({ row, label: picked[r][1] })));
-      if (inCalibration) calibration.push({ photo, scores: [], truth: shapes.map((s) => ({ classIndex: s.classIndex - 1, shape: s.shape })) });
+      const into = calibrationSet.has(k) ? calibrationSamples : fitSamples;
+      rows.forEach((row, r) => into.push({ row, label: picked[r][1] }));
+      if (calibrationSet.has(k)) calibration.push({ photo, scores: [], truth: shapes.map((s) => ({ classIndex: s.classIndex - 1, shape: s.shape })) });
     },
   );
-  const cap = (samples: Sample[]) => {
-    const byLabel = new Map<number, Sample[]>();
-    for (const s of shuffled(samples, random)) {
-      const list = byLabel.get(s.label) ?? [];
-      list.push(s);
-      byLabel.set(s.label, list);
-    }
-    return [...byLabel].flatMap(([l, list]) => list.slice(0, l === 0 ? settings.maxNegativeCells : settings.maxCellsPerClass));
-  };
-  const forestOptions = { trees: settings.trees, maxDepth: settings.maxDepth, featureShare: settings.featureShare, minLeafSamples: settings.minLeafSamples, seed: settings.seed };
-  const grow = settings.trainer === "histogram" ? trainHistogramForest : trainForest;
-  const train = (samples: Sample[]) => grow(samples.map((s) => s.row), samples.map((s) => s.label), defects.length + 1, forestOptions);
-  const fit = cap(fitSamples);
-  let forest = train(fit);
+  return { fitSamples, calibrationSamples, calibration, habits };
+}
 
-  const specs: ClassProposalSpec[] = drawn.map((habit) => {
+/** Shape kind, Line width, Spot radius and smallest size of each class, from what inspectors drew (working px). */
+function specsFrom(habits: readonly ClassHabit[]): ClassProposalSpec[] {
+  return habits.map((habit) => {
     const kind: ShapeKindForClass = habit.line.length >= Math.max(habit.spot.length, habit.outline) ? "line" : habit.spot.length > habit.outline ? "spot" : "outline";
     const smallest = percentile(habit.cells, 0.1, 1);
     return { kind, threshold: DEFAULT_THRESHOLD, lineWidth: percentile(habit.line, 0.5, 4), spotRadius: percentile(habit.spot, 0.5, 2), minCells: Math.max(1, Math.round(MIN_CELLS_SHARE * smallest)) };
   });
+}
+
+/** At most the caps' worth of cells per label, drawn at random. */
+function capSamples(samples: readonly Sample[], settings: TrainingSettings, random: () => number): Sample[] {
+  const byLabel = new Map<number, Sample[]>();
+  for (const s of shuffled(samples, random)) {
+    const list = byLabel.get(s.label) ?? [];
+    list.push(s);
+    byLabel.set(s.label, list);
+  }
+  return [...byLabel].flatMap(([l, list]) => list.slice(0, l === 0 ? settings.maxNegativeCells : settings.maxCellsPerClass));
+}
+
+/**
+ * At most `maxPhotos` photos, so training time stays bounded however many a workspace has: each
+ * photo weighs the sum of 1 / (regions of its class) over its regions (photos of rare classes
+ * first), with a seeded jitter to break ties.
+ */
+function choosePhotos(examples: readonly TrainingExample[], maxPhotos: number, random: () => number): TrainingExample[] {
+  if (examples.length <= maxPhotos) return examples.slice();
+  const counts = countRegions(examples);
+  const weight = examples.map((e, k) => ({ k, w: e.regions.reduce((sum, r) => sum + 1 / counts.get(r.defect)!, 0) + random() * 1e-9 }));
+  return weight.sort((a, b) => b.w - a.w).slice(0, maxPhotos).sort((a, b) => a.k - b.k).map(({ k }) => examples[k]);
+}
+
+export async function trainModel(offered: readonly TrainingExample[], settings: TrainingSettings): Promise<RegionModel> {
+  const random = seededRandom(settings.seed);
+  const examples = choosePhotos(offered, settings.maxPhotos, random);
+  const steps = plan(examples, settings, random);
+  const { defects } = steps;
+  const { fitSamples, calibrationSamples, calibration, habits } = await collect(examples, settings, steps, random);
+
+  const grow = settings.trainer === "histogram" ? trainHistogramForest : trainForest;
+  const forestOptions = { trees: settings.trees, maxDepth: settings.maxDepth, featureShare: settings.featureShare, minLeafSamples: settings.minLeafSamples, seed: settings.seed };
+  const train = (samples: Sample[]) => grow(samples.map((s) => s.row), samples.map((s) => s.label), defects.length + 1, forestOptions);
+  const fit = capSamples(fitSamples, settings, random);
+  let forest = train(fit);
+
+  const specs = specsFrom(habits);
   for (const entry of calibration) entry.scores = scoreActiveCells(entry.photo, (rows) => scoreRows(forest, rows));
   const calibrated = calibrateThresholds(calibration, specs);
   calibrated.forEach((result, c) => result && (specs[c].threshold = result.threshold));
 
-  const all = cap([...fitSamples, ...calibrationSamples]);
-  if (settings.refit && calibration.length > 0) forest = train(all);
-
+  let stored = fit;
+  if (settings.refit && calibration.length > 0) {
+    stored = capSamples([...fitSamples, ...calibrationSamples], settings, random);
+    forest = train(stored);
+  }
+  const regionCounts = countRegions(examples);
   const classes: ModelClass[] = defects.map((defect, c) => ({
     defect,
     ...specs[c],
     regions: regionCounts.get(defect) ?? 0,
-    photos: drawn[c].photos,
-    cells: all.filter((s) => s.label === c + 1).length,
+    photos: habits[c].photos,
+    cells: stored.filter((s) => s.label === c + 1).length,
     calibration: calibrated[c] && { regions: calibrated[c].regions, recall: round(calibrated[c].recall), precision: round(calibrated[c].precision) },
   }));
   return {
@@ -136,9 +182,10 @@ export async function trainModel(examples: readonly TrainingExample[], settings:
     settings,
     features: [...FEATURE_NAMES],
     classes,
+    photosOffered: offered.length,
     photos: examples.length,
     calibrationPhotos: calibration.length,
-    negativeCells: all.filter((s) => s.label === 0).length,
+    negativeCells: stored.filter((s) => s.label === 0).length,
     forest,
   };
 }

@@ -95,7 +95,12 @@ describe("pixel measurements", () => {
     for (let y = 0; y < height; y++) {
       for (let x = 0; x < width; x++) {
         let [sum, n] = [0, 0];
-        for (let yy = Math.max(0, y - r); yy <= Math.min(height - 1, y + r); yy++) for (let xx = Math.max(0, x - r); xx <= Math.min(width - 1, x + r); xx++) (sum += values[yy * width + xx]), n++;
+        for (let yy = Math.max(0, y - r); yy <= Math.min(height - 1, y + r); yy++) {
+          for (let xx = Math.max(0, x - r); xx <= Math.min(width - 1, x + r); xx++) {
+            sum += values[yy * width + xx];
+            n++;
+          }
+        }
         expect(means[y * width + x]).toBeCloseTo(sum / n, 3);
       }
     }

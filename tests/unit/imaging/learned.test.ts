@@ -57,7 +57,10 @@ describe("learned suggestions on held-out synthetic photos", { timeout: 60_000 }
     expect(scratch.photos).toBe(40);
     expect(scratch.kind).toBe("line");
     expect(model.classes.find((c) => c.defect === "stain")!.kind).toBe("outline");
-    for (const c of model.classes) expect(c.threshold).toBeGreaterThan(0), expect(c.threshold).toBeLessThanOrEqual(1);
+    for (const c of model.classes) {
+      expect(c.threshold).toBeGreaterThan(0);
+      expect(c.threshold).toBeLessThanOrEqual(1);
+    }
     expect(JSON.parse(JSON.stringify(model))).toEqual(model);
     // Plain data also crosses a worker-thread boundary (the structured clone a postMessage makes).
     expect(structuredClone(model)).toEqual(model);
