@@ -20,8 +20,8 @@ import { activateTool, draftHint, TOOLS, type ShortcutGroup } from "@/lib/annota
 import type { AnnotationState, ToolId } from "@/lib/annotate/types";
 import type { PolygonShape } from "@/lib/geometry/shape";
 import { edit, useCanvasStore } from "./canvas-store";
-import { defectStyleMap } from "./class-looks";
-import { RULER_STYLE, SURFACE_STYLE, UNKNOWN_DEFECT_STYLE, type RegionStyle } from "./defect-styles";
+import { defectStyleMap } from "@/lib/annotate/class-looks";
+import { RULER_STYLE, SURFACE_STYLE, UNKNOWN_DEFECT_STYLE, type RegionStyle } from "@/lib/annotate/defect-styles";
 import { ImageLayer } from "./image-layer";
 import { InteractionLayer } from "./interaction-layer";
 import { RegionList } from "./region-list";
