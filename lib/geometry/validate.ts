@@ -58,6 +58,11 @@ const polygonSchema = z.strictObject({ kind: z.literal("polygon"), points }, obj
 const lineSchema = z.strictObject({ kind: z.literal("line"), points, width: finite }, objectError("a line"));
 const spotSchema = z.strictObject({ kind: z.literal("spot"), x: finite, y: finite, radius: finite }, objectError("a spot"));
 
+/** Any region shape, structure only (a known kind, finite numbers); geometry is checked separately. */
+export const shapeStructureSchema = z.discriminatedUnion("kind", [rectSchema, polygonSchema, lineSchema, spotSchema], {
+  error: 'must be "rect", "polygon", "line" or "spot"',
+});
+
 function geometryCheck(size: ImageSize) {
   return (shape: Shape, ctx: z.RefinementCtx) => {
     const problem = describeShapeProblem(shape) ?? describeOutsideImage(shape, size);
@@ -77,11 +82,7 @@ export function regionSetSchema(context: RegionSetContext) {
     throw new RangeError(`regionSetSchema needs a positive photo size, got ${size.width} × ${size.height}`);
   }
   const allowed = new Set(context.allowedDefects);
-  const shape = z
-    .discriminatedUnion("kind", [rectSchema, polygonSchema, lineSchema, spotSchema], {
-      error: 'must be "rect", "polygon", "line" or "spot"',
-    })
-    .superRefine(geometryCheck(size));
+  const shape = shapeStructureSchema.superRefine(geometryCheck(size));
   const defect = z.string({ error: "must be text" }).superRefine((value, ctx) => {
     if (!allowed.has(value)) {
       ctx.addIssue({ code: "custom", message: `“${value}” is not allowed for this part type (allowed: ${describeAllowed(context.allowedDefects)})` });
