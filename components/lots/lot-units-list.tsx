@@ -42,8 +42,8 @@ function CosmeticCell({ defects }: { defects: readonly FindingDefect[] }) {
   );
 }
 
-/** The lot's sampled units in sample order, each linking to its Bench page. */
-export function LotUnitsList({ units, checklistLength, defectsByUnit, now }: { units: LotUnitRow[]; checklistLength: number; defectsByUnit: ReadonlyMap<string, FindingDefect[]>; now: Date }) {
+/** The lot's sampled units in sample order, each linking to its Bench page for those who may open it. */
+export function LotUnitsList({ units, checklistLength, defectsByUnit, now, benchLinks }: { units: LotUnitRow[]; checklistLength: number; defectsByUnit: ReadonlyMap<string, FindingDefect[]>; now: Date; benchLinks: boolean }) {
   return (
     <div className="card overflow-x-auto">
       <table className="min-w-full text-sm" data-testid="lot-units">
@@ -63,9 +63,13 @@ export function LotUnitsList({ units, checklistLength, defectsByUnit, now }: { u
             <tr key={u.id} data-testid={`unit-row-${u.sampleIndex}`}>
               <td className="px-3 py-1.5 tabular-nums text-gauge-600">{u.sampleIndex}</td>
               <td className="px-3 py-1.5">
-                <Link href={`/units/${u.id}`} className="font-mono text-gauge-700 underline">
-                  {u.serial ?? `Unit ${u.sampleIndex} (serial to scan)`}
-                </Link>
+                {benchLinks ? (
+                  <Link href={`/units/${u.id}`} className="font-mono text-gauge-700 underline">
+                    {u.serial ?? `Unit ${u.sampleIndex} (serial to scan)`}
+                  </Link>
+                ) : (
+                  <span className="font-mono text-gauge-700">{u.serial ?? `Unit ${u.sampleIndex} (serial to scan)`}</span>
+                )}
               </td>
               <td className="px-3 py-1.5">{unitStatusText(u, now)}</td>
               <td className="px-3 py-1.5 tabular-nums">
