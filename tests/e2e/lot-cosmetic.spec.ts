@@ -77,9 +77,12 @@ test("units defective only cosmetically, only functionally and both count once p
     }),
   );
   await ok(await page.request.post(`/api/part-types/${partType.id}/rubrics`));
-  await ok(
+  const { draft } = await ok<{ draft: { version: number; revision: number } }>(await page.request.get(`/api/part-types/${partType.id}/rubrics/draft`));
+  const saved = await ok<{ version: number; revision: number }>(
     await page.request.patch(`/api/part-types/${partType.id}/rubrics/draft`, {
       data: {
+        version: draft.version,
+        revision: draft.revision,
         rubric: {
           rules: [
             { id: "scratch-c", metric: "share", defect: "scratch", comparison: ">", threshold: 1, grade: "C" },
@@ -90,7 +93,7 @@ test("units defective only cosmetically, only functionally and both count once p
       },
     }),
   );
-  await ok(await page.request.post(`/api/part-types/${partType.id}/rubrics/draft/publish`));
+  await ok(await page.request.post(`/api/part-types/${partType.id}/rubrics/draft/publish`, { data: { version: saved.version, revision: saved.revision } }));
 
   // Receive the lot: the promised grade follows the supplier's default.
   const ref = `PO-COS-${stamp()}`;
