@@ -13,7 +13,7 @@ export type ViewDefinition = { key: string; label: string; required: boolean; in
 export type DefectClassDefinition = { key: string; label: string; severity: DefectSeverity };
 export type ChecklistItem =
   | { id: string; label: string; kind: "pass_fail"; severityOnFail: DefectSeverity; caution?: string }
-  | { id: string; label: string; kind: "numeric"; unit: string; min: number | null; max: number | null; decimals: number; severityOnFail: DefectSeverity; caution?: string }
+  | { id: string; label: string; kind: "numeric"; unit: string; min: number | null; max: number | null; decimals: number; severityOnFail: DefectSeverity; caution?: string; /** A reading below this sets the part aside as suspect (stronger than failing). */ suspectBelow?: number | null }
   | { id: string; label: string; kind: "choice"; options: { value: string; label: string; passes: boolean }[]; severityOnFail: DefectSeverity; caution?: string };
 
 /** What a lot's sampling decided, stored with the lot so later table changes never rewrite it. */

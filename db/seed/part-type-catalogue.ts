@@ -122,9 +122,10 @@ export const PART_TYPE_CATALOGUE: CataloguePartType[] = [
       passFail("not-hot", "Not warm to the touch at rest", "critical", BATTERY_ITEM_CAUTION),
       passFail("gauge-detected", "Battery reader detects the fuel gauge", "major"),
       // Full charge 4.20–4.40 V for phone cells, device cut-off about 3.0 V (a, docs/references.md);
-      // below 3.00 V flags a deeply discharged cell (c).
+      // below 3.00 V flags a deeply discharged cell (c); protection circuits open at about 2.5 V
+      // and such packs may not charge normally (a, BU-802c): below 2.50 V, set aside as suspect (c).
       {
-        id: "ocv", label: "Open-circuit voltage", kind: "numeric", unit: "V", min: 3.0, max: 4.4, decimals: 2, severityOnFail: "major",
+        id: "ocv", label: "Open-circuit voltage", kind: "numeric", unit: "V", min: 3.0, max: 4.4, decimals: 2, severityOnFail: "major", suspectBelow: 2.5,
         caution: "Below 2.50 V the cell is over-discharged: do not charge it normally; set it aside as suspect.",
       },
       // Replace below 80 % of design capacity: common practice (c).

@@ -78,8 +78,18 @@ test("a lead receives a lot and imports serials; an inspector's out-of-limit bat
   await expect(ocv).toContainText("Will fail: 2.87 V is below the minimum 3.00 V.");
   await ocv.getByRole("button", { name: "Save reading" }).click();
   await expect(bench.getByTestId("result-ocv")).toContainText("Failed automatically — 2.87 V is below the minimum 3.00 V. Adds a major functional defect.");
-  // Who and when, with the date: a reading kept from an earlier day must not read as today's.
-  await expect(bench.getByTestId("result-ocv")).toContainText(/, \d{4}-\d{2}-\d{2} \d{2}:\d{2} UTC/);
+  // Who and when, with the date (a reading kept from an earlier day must not read as today's), in
+  // the workspace's zone, which the page names once.
+  await expect(bench.getByTestId("result-ocv")).toContainText(/, \d{4}-\d{2}-\d{2} \d{2}:\d{2}$/);
+  await expect(bench.getByTestId("time-zone-note").first()).toContainText("Times in UTC");
+  // An ordinary out-of-limit reading is a failure; below 2.50 V the cell is set aside as suspect, a
+  // stronger caution (protection cut-off about 2.5 V: a, Battery University BU-802c; handling: c).
+  await expect(bench.getByTestId("suspect-reading")).toHaveCount(0);
+  await ocv.getByLabel(/Open-circuit voltage reading/).fill("2.31");
+  await expect(ocv).toContainText("Will fail: 2.31 V is below the minimum 3.00 V. Below 2.50 V: set it aside as suspect.");
+  await ocv.getByRole("button", { name: "Save reading" }).click();
+  await expect(bench.getByTestId("suspect-reading")).toContainText("Set this cell aside as suspect. Open-circuit voltage 2.31 V is below 2.50 V.");
+  await expect(bench.getByTestId("suspect-reading")).toContainText("do not charge it normally");
   await expect(bench.getByTestId("unit-status")).toContainText("on your bench");
   // A swollen cell: critical, and the hazard warning appears.
   await bench.getByTestId("checklist-item-swelling").getByRole("button", { name: "Fail" }).click();

@@ -19,6 +19,7 @@ import { decidedVerdictView } from "@/lib/lots/verdict";
 import { DISPOSITION_LABELS } from "@/lib/lots/schemas";
 import { screenByHref } from "@/lib/nav";
 import { STATIC_SENSITIVE, type PartCategory } from "@/lib/part-types/schemas";
+import { formatDate } from "@/lib/time/format";
 
 export const metadata: Metadata = { title: "Lot" };
 
@@ -78,7 +79,7 @@ export default async function LotPage(props: PageProps<"/lots/[id]">) {
       <section className="card space-y-3 p-5" aria-labelledby="plan-title">
         <div className="flex flex-wrap items-baseline justify-between gap-2">
           <h2 id="plan-title" className="text-lg font-semibold">Sampling plan</h2>
-          <span className="text-xs text-gauge-600">Stored with the lot on {lot.createdAt.toISOString().slice(0, 10)} by {row.createdByName}</span>
+          <span className="text-xs text-gauge-600">Stored with the lot on {formatDate(lot.createdAt, user.timeZone)} by {row.createdByName}</span>
         </div>
         <p className="text-sm" data-testid="plan-switching">
           <strong className="font-medium">{lot.inspectionSeverity[0].toUpperCase() + lot.inspectionSeverity.slice(1)} inspection</strong>, level {lot.plan.level}. Why: {lot.plan.switchingReason}
@@ -91,7 +92,7 @@ export default async function LotPage(props: PageProps<"/lots/[id]">) {
         <h2 id="disposition-title" className="text-lg font-semibold">Disposition</h2>
         {lot.status === "decided" ? (
           <p className="text-sm" data-testid="disposition">
-            <strong>{DISPOSITION_LABELS[lot.disposition!]}</strong> ({lot.verdict}) on {lot.decidedAt?.toISOString().slice(0, 10)}: {lot.dispositionReason}
+            <strong>{DISPOSITION_LABELS[lot.disposition!]}</strong> ({lot.verdict}) on {lot.decidedAt ? formatDate(lot.decidedAt, user.timeZone) : "—"}: {lot.dispositionReason}
           </p>
         ) : verdict.verdict === "pending" ? (
           <p className="text-sm text-gauge-700">The lead records the disposition once the verdict is reached.</p>
