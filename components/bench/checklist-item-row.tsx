@@ -25,9 +25,23 @@ function shownValue(item: ChecklistItem, value: ChecklistValue): string {
 /** "2026-11-28 09:10 UTC": with the date, since a reading from an earlier day must not read as today's. */
 const recordedAtText = (iso: string) => `${iso.slice(0, 10)} ${iso.slice(11, 16)} UTC`;
 
-/** One checklist item: its control, the live check against limits, and the recorded result. */
-export function ChecklistItemRow({ item, result, disabled, saving, onRecord }: { item: ChecklistItem; result?: Result; disabled: boolean; saving: boolean; onRecord: (value: ChecklistValue) => void }) {
+/**
+ * How a failed result reads: a reading is judged against the limits automatically; a Fail button
+ * or a failing choice is the inspector's own call and says so.
+ */
+export function failureText(item: ChecklistItem, result: Pick<Result, "failureReason" | "severityOnFail">): string {
+  const adds = `Adds a ${result.severityOnFail} functional defect.`;
+  if (item.kind === "pass_fail") return `Failed (marked by the inspector). ${adds}`;
+  if (item.kind === "choice") return `Failed — ${result.failureReason} ${adds}`;
+  return `Failed automatically — ${result.failureReason} ${adds}`;
+}
+
+/** One checklist item: its control, the live check against limits, a note, and the recorded result. */
+export function ChecklistItemRow({ item, result, disabled, saving, onRecord }: { item: ChecklistItem; result?: Result; disabled: boolean; saving: boolean; onRecord: (value: ChecklistValue, note: string) => void }) {
   const [text, setText] = useState(result && "reading" in result.value ? String(result.value.reading) : "");
+  const [note, setNote] = useState(result?.note ?? "");
+  const record = (value: ChecklistValue) => onRecord(value, note.trim());
+  const noteChanged = result !== undefined && note.trim() !== result.note;
   const reading = item.kind === "numeric" ? parseReading(text) : null;
   const hint = item.kind === "numeric" && reading !== null ? evaluateChecklistItem(item, { reading }) : null;
   const inputId = `item-${item.id}`;
@@ -51,7 +65,7 @@ export function ChecklistItemRow({ item, result, disabled, saving, onRecord }: {
             {[true, false].map((pass) => {
               const current = result && "pass" in result.value && result.value.pass === pass;
               return (
-                <button key={String(pass)} type="button" aria-pressed={current} disabled={disabled || saving} onClick={() => onRecord({ pass })} className={current ? (pass ? "btn-primary" : "btn-danger") : "btn-secondary"}>
+                <button key={String(pass)} type="button" aria-pressed={current} disabled={disabled || saving} onClick={() => record({ pass })} className={current ? (pass ? "btn-primary" : "btn-danger") : "btn-secondary"}>
                   {pass ? "Pass" : "Fail"}
                 </button>
               );
@@ -63,7 +77,7 @@ export function ChecklistItemRow({ item, result, disabled, saving, onRecord }: {
             className="flex flex-wrap items-center gap-2"
             onSubmit={(e) => {
               e.preventDefault();
-              if (reading !== null) onRecord({ reading });
+              if (reading !== null) record({ reading });
             }}
           >
             <label htmlFor={inputId} className="sr-only">
@@ -84,21 +98,46 @@ export function ChecklistItemRow({ item, result, disabled, saving, onRecord }: {
             <legend className="sr-only">{item.label}</legend>
             {item.options.map((option) => (
               <label key={option.value} className="flex items-center gap-1.5 text-sm">
-                <input type="radio" name={inputId} checked={Boolean(result && "choice" in result.value && result.value.choice === option.value)} onChange={() => onRecord({ choice: option.value })} />
+                <input type="radio" name={inputId} checked={Boolean(result && "choice" in result.value && result.value.choice === option.value)} onChange={() => record({ choice: option.value })} />
                 {option.label}
               </label>
             ))}
           </fieldset>
         )}
       </div>
+      <div className="flex flex-wrap items-center gap-2">
+        <label htmlFor={`${inputId}-note`} className="text-xs font-medium text-gauge-700">
+          Note
+        </label>
+        <input
+          id={`${inputId}-note`}
+          className="field-input min-w-0 flex-1 py-1 text-sm"
+          value={note}
+          maxLength={500}
+          disabled={disabled}
+          placeholder={result ? "Add a note to this result" : "Saved with the result"}
+          onChange={(e) => setNote(e.target.value)}
+          data-testid={`note-${item.id}`}
+        />
+        {noteChanged && (
+          <button type="button" className="btn-secondary py-1 text-sm" disabled={disabled || saving} onClick={() => record(result.value)}>
+            Save note
+          </button>
+        )}
+      </div>
       {result && (
         <p role="status" data-testid={`result-${item.id}`} className={`text-sm ${result.passed ? "text-ok-600" : "font-medium text-fault-700"}`}>
           {result.passed
             ? item.kind === "pass_fail" ? "Passed." : `Passed: ${shownValue(item, result.value)}.`
-            : `Failed automatically — ${result.failureReason} Adds a ${result.severityOnFail} functional defect.`}
+            : failureText(item, result)}
           <span className="ml-2 text-xs font-normal text-gauge-600">
             {result.recordedByName}, {recordedAtText(result.recordedAt)}
           </span>
+          {result.note && (
+            <span className="block text-xs font-normal text-gauge-700" data-testid={`saved-note-${item.id}`}>
+              Note: {result.note}
+            </span>
+          )}
         </p>
       )}
     </li>

@@ -23,7 +23,7 @@ export function ChecklistPanel({ initial, me }: { initial: UnitView; me: { id: s
   const queryClient = useQueryClient();
   const [error, setError] = useState<string | null>(null);
   const record = useMutation({
-    mutationFn: (input: { itemId: string; value: ChecklistValue }) => apiFetch(`/api/units/${view.unit.id}/checklist`, { body: input }),
+    mutationFn: (input: { itemId: string; value: ChecklistValue; note: string }) => apiFetch(`/api/units/${view.unit.id}/checklist`, { body: input }),
     onSuccess: () => {
       setError(null);
       void queryClient.invalidateQueries({ queryKey: unitQueryKey(view.unit.id) });
@@ -60,7 +60,7 @@ export function ChecklistPanel({ initial, me }: { initial: UnitView; me: { id: s
       ) : (
         <ol className="divide-y divide-gauge-100">
           {items.map((item) => (
-            <ChecklistItemRow key={item.id} item={item} result={byItem.get(item.id)} disabled={lock !== null} saving={record.isPending} onRecord={(value) => record.mutate({ itemId: item.id, value })} />
+            <ChecklistItemRow key={item.id} item={item} result={byItem.get(item.id)} disabled={lock !== null} saving={record.isPending} onRecord={(value, note) => record.mutate({ itemId: item.id, value, note })} />
           ))}
         </ol>
       )}

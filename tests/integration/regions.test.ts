@@ -174,6 +174,25 @@ describe("who may save, and when", () => {
     expect((await api(inspector, "PUT", path, { ...body, baseVersion: 1 })).status).toBe(200);
   });
 
+  it("takes a unit still waiting in the queue onto the saver's bench, as the checklist does", async () => {
+    // Issue 15: regions could be saved on a queued unit while the queue still offered it to others.
+    const { unit, path } = await freshPhoto();
+    await db().update(units).set({ status: "queued", leaseHolderId: null, leaseExpiresAt: null }).where(eq(units.id, unit.id));
+    const body = withRegion({ id: "a", defect: "scratch", shape: { kind: "spot", x: 30, y: 30, radius: 2 } });
+    const saved = await api<SetBody>(inspector, "PUT", path, body);
+    expect(saved.status, JSON.stringify(saved.body)).toBe(200);
+    const [after] = await db().select().from(units).where(eq(units.id, unit.id));
+    const me = await workspaceIdOf("inspector@vellmoor.example");
+    expect(after).toMatchObject({ status: "on_bench", leaseHolderId: me.userId });
+    expect(after.leaseExpiresAt!.getTime()).toBeGreaterThan(Date.now());
+    const [claimed] = await db().select().from(activityLog).where(and(eq(activityLog.subjectId, unit.id), eq(activityLog.action, "unit.claimed")));
+    expect(claimed.detail).toMatchObject({ via: "regions" });
+    // It is now the saver's: someone else is refused, and the queue no longer offers it.
+    const refused = await api<ErrorBody>(inspector2, "PUT", path, { ...body, baseVersion: 1 });
+    expect(refused.status).toBe(409);
+    expect(refused.body.error.message).toMatch(/has this unit on their bench/);
+  });
+
   it("refuses graded units, decided lots and photos still processing", async () => {
     const graded = await freshPhoto();
     await db().update(units).set({ status: "graded" }).where(eq(units.id, graded.unit.id));
