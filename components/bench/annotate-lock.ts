@@ -31,3 +31,18 @@ export function annotateLock(view: UnitView, me: BenchPerson, now = new Date()):
   }
   return null;
 }
+
+export type BenchNotice = { tone: "held" | "closed" | "view-only"; text: string };
+
+/**
+ * The one read-only banner of the Bench: why this person cannot change the unit now, said once
+ * (the header and panels no longer repeat it). A lead on someone else's running lease may still
+ * correct checklist results, and the banner says so.
+ */
+export function benchNotice(view: UnitView, me: BenchPerson, now = new Date()): BenchNotice | null {
+  const lock = annotateLock(view, me, now);
+  if (!lock) return null;
+  if (!me.canRecord) return { tone: "view-only", text: lock };
+  if (otherHolder(view, me, now)) return { tone: "held", text: me.isLead ? `${lock} As a lead you may still correct checklist results.` : lock };
+  return { tone: "closed", text: lock };
+}

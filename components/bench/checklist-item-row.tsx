@@ -47,8 +47,8 @@ export function ChecklistItemRow({ item, result, disabled, saving, onRecord }: {
   const inputId = `item-${item.id}`;
 
   return (
-    <li className="space-y-2 py-3" data-testid={`checklist-item-${item.id}`}>
-      <div className="flex flex-wrap items-center gap-2">
+    <li className="space-y-1.5 py-2 text-sm" data-testid={`checklist-item-${item.id}`}>
+      <div className="flex flex-wrap items-center gap-x-2 gap-y-0.5">
         <span className="font-medium" id={`${inputId}-label`}>{item.label}</span>
         <span className="text-xs text-gauge-600">fails as</span>
         <DefectSeverityBadge severity={item.severityOnFail} />
@@ -65,7 +65,7 @@ export function ChecklistItemRow({ item, result, disabled, saving, onRecord }: {
             {[true, false].map((pass) => {
               const current = result && "pass" in result.value && result.value.pass === pass;
               return (
-                <button key={String(pass)} type="button" aria-pressed={current} disabled={disabled || saving} onClick={() => record({ pass })} className={current ? (pass ? "btn-primary" : "btn-danger") : "btn-secondary"}>
+                <button key={String(pass)} type="button" aria-pressed={current} disabled={disabled || saving} onClick={() => record({ pass })} className={`${current ? (pass ? "btn-primary" : "btn-danger") : "btn-secondary"} h-8 py-0`}>
                   {pass ? "Pass" : "Fail"}
                 </button>
               );
@@ -83,9 +83,9 @@ export function ChecklistItemRow({ item, result, disabled, saving, onRecord }: {
             <label htmlFor={inputId} className="sr-only">
               {item.label} reading{item.unit ? ` (${item.unit})` : ""}
             </label>
-            <input id={inputId} inputMode="decimal" className="field-input w-32 font-mono" value={text} disabled={disabled} onChange={(e) => setText(e.target.value)} aria-describedby={`${inputId}-hint`} />
+            <input id={inputId} inputMode="decimal" className="field-input h-8 w-28 py-0 font-mono" value={text} disabled={disabled} onChange={(e) => setText(e.target.value)} aria-describedby={`${inputId}-hint`} />
             <span className="text-sm text-gauge-700">{item.unit}</span>
-            <button type="submit" className="btn-secondary" disabled={disabled || saving || reading === null}>
+            <button type="submit" className="btn-secondary h-8 py-0" disabled={disabled || saving || reading === null}>
               Save reading
             </button>
             <span id={`${inputId}-hint`} className="text-xs text-gauge-600">
@@ -111,7 +111,7 @@ export function ChecklistItemRow({ item, result, disabled, saving, onRecord }: {
         </label>
         <input
           id={`${inputId}-note`}
-          className="field-input min-w-0 flex-1 py-1 text-sm"
+          className="field-input h-7 min-w-0 flex-1 py-0 text-xs"
           value={note}
           maxLength={500}
           disabled={disabled}
@@ -120,7 +120,7 @@ export function ChecklistItemRow({ item, result, disabled, saving, onRecord }: {
           data-testid={`note-${item.id}`}
         />
         {noteChanged && (
-          <button type="button" className="btn-secondary py-1 text-sm" disabled={disabled || saving} onClick={() => record(result.value)}>
+          <button type="button" className="btn-secondary h-7 py-0 text-xs" disabled={disabled || saving} onClick={() => record(result.value)}>
             Save note
           </button>
         )}

@@ -28,6 +28,10 @@ type GradePanelProps = {
   beforeMeasure?: () => Promise<boolean>;
   /** After a grade is recorded (the unit moved on). */
   onGraded?: () => void;
+  /** Why this person cannot measure or grade the unit now (the Bench's read-only reason), or null. */
+  readOnlyReason?: string | null;
+  /** In a card with its own large heading (default), or bare inside a panel that has one. */
+  framed?: boolean;
 };
 
 type MeasureState = { measurement: MeasurementView | null; job: { id: string; state: string } | null };
@@ -42,7 +46,8 @@ const schemaResolver = zodResolver(recordGradeSchema);
 const resolver: Resolver<FormValues> = (values, context, options) => schemaResolver(cleaned(values), context, options) as ReturnType<Resolver<FormValues>>;
 
 /** Measuring a unit and recording its grade: the numbers, the proposal with its reasons, accept or override. */
-export function GradePanel({ unitId, canGrade, canCorrect, labels = { defects: {}, zones: {}, views: {} }, unsavedRegions = false, beforeMeasure, onGraded }: GradePanelProps) {
+export function GradePanel(props: GradePanelProps) {
+  const { unitId, canGrade, canCorrect, labels = { defects: {}, zones: {}, views: {} }, unsavedRegions = false, beforeMeasure, onGraded, readOnlyReason = null, framed = true } = props;
   const queryClient = useQueryClient();
   const [jobId, setJobId] = useState<string | null>(null);
   const [message, setMessage] = useState<{ kind: "error" | "success"; text: string } | null>(null);
@@ -98,13 +103,13 @@ export function GradePanel({ unitId, canGrade, canCorrect, labels = { defects: {
   const errors = formState.errors as { reason?: { message?: string }; finalGrade?: { message?: string } };
 
   return (
-    <section className="card space-y-4 p-4 sm:p-5" aria-labelledby="grade-panel-title" data-testid="grade-panel">
+    <section className={framed ? "card space-y-4 p-4 sm:p-5" : "space-y-3"} aria-labelledby="grade-panel-title" data-testid="grade-panel">
       <div className="flex flex-wrap items-center justify-between gap-3">
-        <h2 id="grade-panel-title" className="text-lg font-semibold">
+        <h2 id="grade-panel-title" className={framed ? "text-lg font-semibold" : "text-sm font-semibold"}>
           Measurement and proposed grade
         </h2>
         {canGrade && (
-          <button type="button" className="btn-secondary" onClick={() => measure.mutate()} disabled={measure.isPending || running}>
+          <button type="button" className="btn-secondary" onClick={() => measure.mutate()} disabled={measure.isPending || running || readOnlyReason !== null} title={readOnlyReason ?? undefined}>
             {measure.isPending ? "Measuring…" : running ? "Measuring in the background…" : m ? "Measure again" : "Measure now"}
           </button>
         )}

@@ -12,7 +12,7 @@ import type { GradePreviewView } from "./types";
  * "What would version N say": the measurement behind the current grade, graded again by another
  * rubric version. Nothing is stored; the recorded grade stays as it is.
  */
-export function GradeWhatIf({ unitId, versions }: { unitId: string; versions: { version: number; status: "draft" | "published" }[] }) {
+export function GradeWhatIf({ unitId, versions, framed = true }: { unitId: string; versions: { version: number; status: "draft" | "published" }[]; framed?: boolean }) {
   const published = versions.filter((v) => v.status === "published");
   const [version, setVersion] = useState<number | null>(published[0]?.version ?? versions[0]?.version ?? null);
   // The same query (and cache) as the grade panel's: ask for a preview only once there is a measurement to grade again.
@@ -26,9 +26,9 @@ export function GradeWhatIf({ unitId, versions }: { unitId: string; versions: { 
   });
   const basis = preview.data?.basis;
   return (
-    <section className="card space-y-3 p-4 sm:p-5" aria-labelledby="what-if-title" data-testid="grade-what-if">
+    <section className={framed ? "card space-y-3 p-4 sm:p-5" : "space-y-2"} aria-labelledby="what-if-title" data-testid="grade-what-if">
       <div className="flex flex-wrap items-end justify-between gap-3">
-        <h2 id="what-if-title" className="text-lg font-semibold">
+        <h2 id="what-if-title" className={framed ? "text-lg font-semibold" : "text-sm font-semibold"}>
           What another rubric version would say
         </h2>
         <div>

@@ -23,17 +23,20 @@ export function LeaseHeartbeat({ unitId, intervalMs = 60_000 }: { unitId: string
     mutationFn: () => apiFetch(`/api/units/${unitId}/lease`, { method: "DELETE" }),
     onSuccess: () => router.push("/queue"),
   });
+  const until = heartbeat.data ? new Date(heartbeat.data.leaseExpiresAt).toLocaleTimeString([], { hour: "2-digit", minute: "2-digit" }) : null;
   return (
-    <div className="flex flex-wrap items-center gap-3 text-sm" data-testid="lease-status">
+    <div className="flex shrink-0 items-center gap-2 text-sm" data-testid="lease-status">
       {heartbeat.isError ? (
         <FormMessage kind="error">{heartbeat.error.message}</FormMessage>
       ) : (
-        <span className="text-gauge-700">
-          Reserved for you{heartbeat.data ? ` until ${new Date(heartbeat.data.leaseExpiresAt).toLocaleTimeString()}` : ""}, renewed while this page is open.
+        <span className="text-gauge-700" title="The reservation is renewed every minute while this page is open; closing it lets the reservation run out.">
+          {/* Narrow screens keep the header on one line with the short form. */}
+          <span className="max-lg:sr-only">Reserved for you </span>
+          {until ? `until ${until}` : <span className="lg:sr-only">reserved for you</span>}
         </span>
       )}
-      <button type="button" className="btn-secondary py-1" onClick={() => release.mutate()} disabled={release.isPending}>
-        Put back in the queue
+      <button type="button" className="btn-secondary h-8 py-0 text-sm" onClick={() => release.mutate()} disabled={release.isPending} title="Put the unit back in the queue for someone else">
+        Put back
       </button>
       {release.isError && <FormMessage kind="error">{release.error.message}</FormMessage>}
     </div>

@@ -79,8 +79,9 @@ describe("reading and saving a photo's regions", () => {
 
   it("answers 409 with the current version and regions to a save from an old version, and stores nothing", async () => {
     const { path, photo } = await freshPhoto();
+    // Two tabs of the same inspector (the first save took the unit onto their bench).
     await api(inspector, "PUT", path, { baseVersion: 0, regions: ONE_OF_EACH });
-    const stale = await api<ConflictBody>(inspector2, "PUT", path, withRegion({ id: "other-1", defect: "dent", shape: { kind: "spot", x: 5, y: 5, radius: 2 } }));
+    const stale = await api<ConflictBody>(inspector, "PUT", path, withRegion({ id: "other-1", defect: "dent", shape: { kind: "spot", x: 5, y: 5, radius: 2 } }));
     expect(stale.status).toBe(409);
     expect(stale.body.error.code).toBe("conflict");
     expect(stale.body.error.message).toMatch(/changed elsewhere .*now version 1; this edit started from version 0\)\. Nothing was saved/);
@@ -90,7 +91,7 @@ describe("reading and saving a photo's regions", () => {
 
     // From the current version it goes through; unchanged regions keep the version that wrote them.
     const merged = { ...ONE_OF_EACH, regions: [...ONE_OF_EACH.regions, { id: "other-1", defect: "dent", shape: { kind: "spot" as const, x: 5, y: 5, radius: 2 } }] };
-    const next = await api<SetBody>(inspector2, "PUT", path, { baseVersion: 1, regions: merged });
+    const next = await api<SetBody>(inspector, "PUT", path, { baseVersion: 1, regions: merged });
     expect(next.status).toBe(200);
     expect(next.body.version).toBe(2);
     const rows = await db().select({ clientId: regions.clientId, v: regions.versionWritten }).from(regions).where(eq(regions.photoId, photo.id));
