@@ -20,9 +20,9 @@ import { activateTool, TOOLS, TOOLS_BY_ID, type ShortcutGroup } from "@/lib/anno
 import type { ToolId } from "@/lib/annotate/types";
 import type { PolygonShape } from "@/lib/geometry/shape";
 import { edit, useCanvasStore } from "./canvas-store";
-import { defectStyleMap } from "./class-looks";
+import { defectStyleMap } from "@/lib/annotate/class-looks";
+import { UNKNOWN_DEFECT_STYLE } from "@/lib/annotate/defect-styles";
 import { canvasHint, draftStyleOf } from "./canvas-hint";
-import { UNKNOWN_DEFECT_STYLE } from "./defect-styles";
 import { DefectClassPicker } from "./defect-class-picker";
 import { ImageLayer } from "./image-layer";
 import { InteractionLayer } from "./interaction-layer";

@@ -5,7 +5,7 @@
  */
 import { draftHint, TOOLS_BY_ID } from "@/lib/annotate/tools";
 import type { AnnotationState } from "@/lib/annotate/types";
-import { RULER_STYLE, SURFACE_STYLE, UNKNOWN_DEFECT_STYLE, type RegionStyle } from "./defect-styles";
+import { RULER_STYLE, SURFACE_STYLE, UNKNOWN_DEFECT_STYLE, type RegionStyle } from "@/lib/annotate/defect-styles";
 
 export type ImageStatus = "loading" | "ready" | "failed";
 

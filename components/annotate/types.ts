@@ -6,7 +6,7 @@ import type { ShortcutGroup } from "@/lib/annotate/tools";
 import type { ToolId } from "@/lib/annotate/types";
 import type { PolygonShape, Shape } from "@/lib/geometry/shape";
 import type { RegionSetPayload } from "@/lib/geometry/validate";
-import type { RegionStyle } from "./defect-styles";
+import type { RegionStyle } from "@/lib/annotate/defect-styles";
 import type { HistoryAvailability } from "./use-committed-changes";
 import type { ViewCommand } from "./view-commands";
 import type { ZoneInput } from "./zones";

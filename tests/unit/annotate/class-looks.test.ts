@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { classLooks, defectStyleMap, fnv1a, hashedLook, USUAL_CLASS_LOOKS } from "@/components/annotate/class-looks";
-import { patternKey } from "@/components/annotate/defect-styles";
+import { classLooks, defectStyleMap, fnv1a, hashedLook, USUAL_CLASS_LOOKS } from "@/lib/annotate/class-looks";
+import { patternKey } from "@/lib/annotate/defect-styles";
 import { benchClassOrder } from "@/lib/annotate/class-order";
 import { EXAMPLE_PART_TYPES } from "@/lib/grading/example-part-types";
 

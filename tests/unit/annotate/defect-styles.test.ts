@@ -12,7 +12,7 @@ import {
   styleOfLook,
   SURFACE_STYLE,
   ZONE_STYLE,
-} from "@/components/annotate/defect-styles";
+} from "@/lib/annotate/defect-styles";
 
 describe("the palette", () => {
   it("uses the Okabe–Ito colours (Okabe & Ito 2008, Color Universal Design; hex values (b) from memory)", () => {
