@@ -86,6 +86,11 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
     [markingArea, switched, hand, setHand],
   );
 
+  const showPhotoPanel = () => {
+    setPanels((s) => ({ folded: false, closed: s.closed.filter((id) => id !== "photos") }));
+    requestAnimationFrame(() => document.getElementById("panel-photos")?.scrollIntoView({ block: "start" }));
+  };
+
   const sections: PanelSection[] = [
     {
       id: "regions",
@@ -122,7 +127,7 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
         </div>
       ),
     },
-    { id: "photos", title: "Photos", summary: `${photos.data?.photos.length ?? 0}`, content: <PhotoList unitId={unitId} views={views} canManage={canUpload} /> },
+    { id: "photos", title: "Photos", summary: `${photos.data?.photos.length ?? 0}`, content: <PhotoList unitId={unitId} views={views} canManage={canUpload} beforeRemove={(id) => registry.get(id)?.flush() ?? Promise.resolve(true)} /> },
   ];
 
   return (
@@ -133,7 +138,7 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
         end={
           <>
             {holdsLease && <LeaseHeartbeat unitId={unitId} />}
-            {me.canRecord && view.unit.status === "graded" && <TakeNext />}
+            {me.canRecord && view.unit.status === "graded" && <TakeNext lotId={view.lot.id} />}
           </>
         }
       />
@@ -182,9 +187,14 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
             end={
               <div className="flex shrink-0 flex-col items-end gap-1">
                 {canUpload && !noPhotos && (
-                  <button type="button" className="btn-secondary h-8 py-0 text-sm" aria-expanded={uploaderShown} aria-controls="bench-uploader" onClick={() => setUploadOpen((open) => !open)} data-testid="add-photos-toggle">
-                    {uploaderShown ? "Hide the uploader" : "Add photos"}
-                  </button>
+                  <div className="flex gap-1">
+                    <button type="button" className="btn-secondary h-8 px-2 py-0 text-sm" onClick={showPhotoPanel} title="File a photo under the right view, or remove a wrong one" data-testid="manage-photos">
+                      View or remove…
+                    </button>
+                    <button type="button" className="btn-secondary h-8 py-0 text-sm" aria-expanded={uploaderShown} aria-controls="bench-uploader" onClick={() => setUploadOpen((open) => !open)} data-testid="add-photos-toggle">
+                      {uploaderShown ? "Hide the uploader" : "Add photos"}
+                    </button>
+                  </div>
                 )}
                 <div ref={setStatusSlot} className="text-xs" />
               </div>

@@ -78,7 +78,7 @@ export function SidePanels({ sections, state, onChange, className = "" }: { sect
           ))}
         </nav>
       )}
-      <div className={`min-h-0 flex-1 space-y-2 overflow-y-auto pr-0.5 ${state.folded ? "lg:hidden" : ""}`}>
+      <div className={`relative min-h-0 flex-1 space-y-2 overflow-y-auto pr-0.5 ${state.folded ? "lg:hidden" : ""}`}>
         {sections.map((s) => {
           const isOpen = !state.closed.includes(s.id);
           return (

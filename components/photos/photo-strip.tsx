@@ -43,7 +43,7 @@ export function PhotoStrip({ unitId, views, selection, end }: PhotoStripProps) {
         Photos
         <span className="block font-normal text-gauge-600">{photos.isPending ? "…" : `${ready} ready`}</span>
       </h2>
-      <ul className="flex h-full min-w-0 flex-1 items-center gap-1.5 overflow-x-auto py-1">
+      <ul className="relative flex h-full min-w-0 flex-1 items-center gap-1.5 overflow-x-auto py-1">
         {photosInViewOrder(list, views).map((photo) => (
           <PhotoTile
             key={photo.id}

@@ -12,7 +12,7 @@ export const photosQueryKey = (unitId: string) => ["unit-photos", unitId] as con
 export function usePhotos(unitId: string) {
   return useQuery({
     queryKey: photosQueryKey(unitId),
-    queryFn: () => apiFetch<{ photos: PhotoDto[] }>(`/api/units/${unitId}/photos`),
+    queryFn: () => apiFetch<{ photos: PhotoDto[]; removed?: PhotoDto[] }>(`/api/units/${unitId}/photos`),
     refetchInterval: (query) => (query.state.data?.photos.some((p) => p.status === "queued" || p.status === "processing") ? POLL_MS : false),
   });
 }

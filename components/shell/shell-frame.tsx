@@ -15,7 +15,7 @@ export function isWorkspacePath(pathname: string): boolean {
 export function ShellFrame({ sidebar, topBar, children }: { sidebar: React.ReactNode; topBar: React.ReactNode; children: React.ReactNode }) {
   const workspace = isWorkspacePath(usePathname());
   return (
-    <div className={workspace ? "flex h-dvh flex-col overflow-hidden" : "min-h-screen lg:flex"} data-shell={workspace ? "workspace" : "page"}>
+    <div className={workspace ? "relative flex h-dvh flex-col overflow-hidden" : "min-h-screen lg:flex"} data-shell={workspace ? "workspace" : "page"}>
       <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:rounded focus:bg-white focus:px-3 focus:py-2">
         Skip to content
       </a>

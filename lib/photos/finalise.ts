@@ -147,6 +147,10 @@ async function answerSameBytes(actor: SessionUser, store: ObjectStore, newOrigin
   if (existing.status === "failed" && existing.failureCode !== "processing_failed") {
     throw new PhotoRejectedError(existing.failureCode as PhotoRejectionCode, existing.failureReason ?? "This file was refused.");
   }
+  // The same file was taken out of this unit before: it does not come back in by the side door.
+  if (existing.removedAt) {
+    throw new AppError("conflict", `This exact file was taken out of this unit on ${existing.removedAt.toISOString().slice(0, 10)} (“${existing.removalReason ?? ""}”) and is kept only as a record. Upload a different photo.`);
+  }
   return { kind: "duplicate", photo: existing };
 }
 

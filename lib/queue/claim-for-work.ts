@@ -25,7 +25,7 @@ export function workClaimsUnit(unit: LockedUnit, now = new Date()): boolean {
 }
 
 /** Claims the unit for the actor (release first if an expired lease is still recorded) and logs it. */
-export async function claimForWork(tx: Tx, actor: Pick<SessionUser, "id" | "workspaceId">, unit: LockedUnit, via: "checklist" | "regions"): Promise<void> {
+export async function claimForWork(tx: Tx, actor: Pick<SessionUser, "id" | "workspaceId">, unit: LockedUnit, via: "checklist" | "regions" | "photos"): Promise<void> {
   const status = transition(unit.status === "queued" ? "queued" : transition(unit.status, "release"), "claim");
   await setUnitOnBench(tx, { workspaceId: actor.workspaceId, unitId: unit.id, status, holderId: actor.id, leaseExpiresAt: new Date(Date.now() + env().QUEUE_LEASE_SECONDS * 1000) });
   await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.id, action: "unit.claimed", subjectType: "unit", subjectId: unit.id, detail: { via, from: unit.leaseHolderId } });

@@ -68,6 +68,7 @@ function validationError(messages: string[]): AppError {
 
 /** The payload, checked against this photo's size and its part type's defect classes (400 with sentences otherwise). */
 export function validateRegions(photo: PhotoForRegions, input: unknown): RegionSetPayload {
+  if (photo.photo.removedAt) throw new AppError("conflict", "This photo was taken out of the unit; its regions are kept as a record and can no longer change.");
   if (photo.photo.status !== "ready" || !photo.photo.width || !photo.photo.height) {
     throw new AppError("conflict", "This photo is still being processed (or was refused); regions can be marked once it is ready.");
   }
