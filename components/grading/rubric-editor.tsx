@@ -44,6 +44,8 @@ export function RubricEditor({
   const watched = useWatch({ control }) as RubricFormValues;
   // Rows present when the form was loaded show as sentences; rows added since open for editing.
   const [baseline, setBaseline] = useState(() => draft.rubric.rules.length);
+  // The edit this form is based on: a save or publish over someone else's newer edit is refused.
+  const [revision, setRevision] = useState(draft.revision);
 
   // A resolver error is only shown for the field that changed; validate the whole rubric on load
   // and on every change, so a message caused elsewhere (a duplicate id, a metric change, a part
@@ -57,8 +59,9 @@ export function RubricEditor({
 
   const save = useMutation({
     mutationFn: (values: RubricFormValues) =>
-      apiFetch<{ version: number; rubric: Rubric }>(`/api/part-types/${partType.id}/rubrics/draft`, { method: "PATCH", body: { rubric: toRubric(values) } }),
+      apiFetch<{ version: number; revision: number; rubric: Rubric }>(`/api/part-types/${partType.id}/rubrics/draft`, { method: "PATCH", body: { rubric: toRubric(values), version: draft.version, revision } }),
     onSuccess: (saved) => {
+      setRevision(saved.revision);
       reset(fromRubric(saved.rubric));
       setBaseline(saved.rubric.rules.length);
       setMessage({ kind: "success", text: `Draft version ${saved.version} saved.` });
@@ -94,7 +97,7 @@ export function RubricEditor({
           <button type="submit" className="btn-primary" disabled={save.isPending || !formState.isDirty}>
             {save.isPending ? "Saving…" : formState.isDirty ? "Save draft" : "Saved"}
           </button>
-          {canPublish && <PublishDraft partTypeId={partType.id} version={draft.version} blockedReason={formState.isDirty ? "Save the draft before publishing it." : invalidCount > 0 ? "Fix the rules marked in red first." : null} />}
+          {canPublish && <PublishDraft partTypeId={partType.id} version={draft.version} revision={revision} blockedReason={formState.isDirty ? "Save the draft before publishing it." : invalidCount > 0 ? "Fix the rules marked in red first." : null} />}
         </div>
       </div>
       {message && <FormMessage kind={message.kind}>{message.text}</FormMessage>}

@@ -12,6 +12,8 @@ export type RubricVersionView = {
   status: "draft" | "published";
   rubric: Rubric;
   basedOnVersion: number | null;
+  /** Edits of the draft so far; save and publish send it back (409 when someone saved since). */
+  revision: number;
   createdAt: string;
   createdByName: string | null;
   updatedAt: string;

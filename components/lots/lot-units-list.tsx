@@ -23,8 +23,8 @@ export function unitStatusText(u: Pick<LotUnitRow, "status" | "leaseHolderName" 
   return "waiting (lease ran out)";
 }
 
-/** The lot's sampled units in sample order, each linking to its Bench page. */
-export function LotUnitsList({ units, checklistLength, now }: { units: LotUnitRow[]; checklistLength: number; now: Date }) {
+/** The lot's sampled units in sample order, each linking to its Bench page for those who may open it. */
+export function LotUnitsList({ units, checklistLength, now, benchLinks }: { units: LotUnitRow[]; checklistLength: number; now: Date; benchLinks: boolean }) {
   return (
     <div className="card overflow-x-auto">
       <table className="min-w-full text-sm" data-testid="lot-units">
@@ -42,9 +42,13 @@ export function LotUnitsList({ units, checklistLength, now }: { units: LotUnitRo
             <tr key={u.id} data-testid={`unit-row-${u.sampleIndex}`}>
               <td className="px-3 py-1.5 tabular-nums text-gauge-600">{u.sampleIndex}</td>
               <td className="px-3 py-1.5">
-                <Link href={`/units/${u.id}`} className="font-mono text-gauge-700 underline">
-                  {u.serial ?? `Unit ${u.sampleIndex} (serial to scan)`}
-                </Link>
+                {benchLinks ? (
+                  <Link href={`/units/${u.id}`} className="font-mono text-gauge-700 underline">
+                    {u.serial ?? `Unit ${u.sampleIndex} (serial to scan)`}
+                  </Link>
+                ) : (
+                  <span className="font-mono text-gauge-700">{u.serial ?? `Unit ${u.sampleIndex} (serial to scan)`}</span>
+                )}
               </td>
               <td className="px-3 py-1.5">{unitStatusText(u, now)}</td>
               <td className="px-3 py-1.5 tabular-nums">

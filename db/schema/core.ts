@@ -9,9 +9,11 @@ import {
   pgTable,
   text,
   timestamp,
+  unique,
   uniqueIndex,
   uuid,
 } from "drizzle-orm/pg-core";
+import { sameWorkspace } from "./workspace-keys";
 
 /** A company using Partproof. Every row of company data points at one. */
 export const workspaces = pgTable("workspaces", {
@@ -43,6 +45,8 @@ export const users = pgTable(
   },
   (t) => [
     uniqueIndex("users_email_key").on(t.email),
+    // The target of the composite (workspace_id, id) foreign keys: a row can only name a user of its own workspace.
+    unique("users_workspace_id_key").on(t.workspaceId, t.id),
     index("users_workspace_idx").on(t.workspaceId),
     check("users_email_lower", sql`${t.email} = lower(${t.email})`),
     check(
@@ -60,16 +64,17 @@ export const authTokens = pgTable(
     workspaceId: uuid()
       .notNull()
       .references(() => workspaces.id),
-    userId: uuid()
-      .notNull()
-      .references(() => users.id),
+    userId: uuid().notNull(),
     purpose: text({ enum: ["invite", "reset"] }).notNull(),
     tokenHash: text().notNull().unique(),
     expiresAt: timestamp({ withTimezone: true }).notNull(),
     usedAt: timestamp({ withTimezone: true }),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [index("auth_tokens_user_idx").on(t.userId)],
+  (t) => [
+    index("auth_tokens_user_idx").on(t.userId),
+    sameWorkspace("auth_tokens_user_fk", t.workspaceId, t.userId, users),
+  ],
 );
 
 /** Failed sign-ins, read by the rate limit (per account and per client address). */
@@ -92,14 +97,17 @@ export const activityLog = pgTable(
     workspaceId: uuid()
       .notNull()
       .references(() => workspaces.id),
-    actorId: uuid().references(() => users.id),
+    actorId: uuid(),
     action: text().notNull(),
     subjectType: text().notNull(),
     subjectId: text(),
     detail: jsonb().$type<Record<string, unknown>>().notNull().default({}),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [index("activity_log_workspace_idx").on(t.workspaceId, t.createdAt)],
+  (t) => [
+    index("activity_log_workspace_idx").on(t.workspaceId, t.createdAt),
+    sameWorkspace("activity_log_actor_fk", t.workspaceId, t.actorId, users),
+  ],
 );
 
 export const suppliers = pgTable(
@@ -117,7 +125,7 @@ export const suppliers = pgTable(
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [uniqueIndex("suppliers_workspace_name_key").on(t.workspaceId, sql`lower(${t.name})`)],
+  (t) => [uniqueIndex("suppliers_workspace_name_key").on(t.workspaceId, sql`lower(${t.name})`), unique("suppliers_workspace_id_key").on(t.workspaceId, t.id)],
 );
 
 /** Every e-mail the app sends (invitations, resets, supplier evidence), per workspace. */

@@ -1,10 +1,10 @@
 import { signUpSchema } from "@/lib/auth/schemas";
 import { signUp } from "@/lib/accounts/sign-up";
-import { handler, parseJson } from "@/lib/http/route";
+import { handler, parseJson, PUBLIC_MAX_BODY } from "@/lib/http/route";
 
 /** Public: creates a workspace and its first lead. */
 export const POST = handler(async (req) => {
-  const input = await parseJson(req, signUpSchema.strict());
+  const input = await parseJson(req, signUpSchema.strict(), { maxBytes: PUBLIC_MAX_BODY });
   const created = await signUp(input);
   return Response.json({ workspaceId: created.workspaceId, email: created.email }, { status: 201 });
 });

@@ -12,7 +12,7 @@ import { getLot } from "@/db/queries/lots";
 import { listLotUnits } from "@/db/queries/units";
 import { requirePageUser } from "@/lib/auth/require-user";
 import { pageIdOrNotFound } from "@/lib/http/page-params";
-import { hasAnyRole } from "@/lib/auth/roles";
+import { hasAnyRole, INSPECTION_READERS } from "@/lib/auth/roles";
 import { oneLotProgress } from "@/lib/lots/progress";
 import { switchingStateFor } from "@/lib/lots/scheme";
 import { DISPOSITION_LABELS } from "@/lib/lots/schemas";
@@ -115,7 +115,7 @@ export default async function LotPage(props: PageProps<"/lots/[id]">) {
                 ? `Drawn at random from a list of ${lot.sampleDraw.poolSize} serials with seed ${lot.sampleDraw.seed} (${lot.sampleDraw.algorithm}); the same list and seed give the same sample.`
                 : "Numbered placeholders: inspectors scan each unit's serial on the bench."}
             </p>
-            <LotUnitsList units={lotUnits} checklistLength={row.checklistItemIds.length} now={new Date()} />
+            <LotUnitsList units={lotUnits} checklistLength={row.checklistItemIds.length} now={new Date()} benchLinks={hasAnyRole(user.roles, INSPECTION_READERS)} />
           </>
         )}
       </section>
