@@ -59,7 +59,7 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
   const [regionSlot, setRegionSlot] = useState<HTMLElement | null>(null);
   const [suggestionSlot, setSuggestionSlot] = useState<HTMLElement | null>(null);
   const [statusSlot, setStatusSlot] = useState<HTMLElement | null>(null);
-  const [uploadOpen, setUploadOpen] = useState(false);
+  const [uploadOpen, setUploadOpen] = useState<boolean | null>(null);
   const [panels, setPanels] = usePanelState();
   const { photos, selected, select, registry, unsaved, switched } = useBenchPhotos({ unitId, initialPhotoId, keyArea: markingArea });
   const grades = useQuery({ queryKey: ["unit-grades", unitId], queryFn: () => apiFetch<{ grades: GradeView[] }>(`/api/units/${unitId}/grades`) });
@@ -78,8 +78,11 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
   const selectedView = selected ? partType.views.find((v) => v.key === selected.viewKey) : undefined;
   const canUpload = me.canRecord && (view.unit.status === "queued" || view.unit.status === "on_bench");
   const noPhotos = photos.isSuccess && photos.data.photos.length === 0;
-  // With no photo yet, the uploader stands where the canvas will be; later it opens over it.
-  const uploaderShown = canUpload && (noPhotos || uploadOpen);
+  // A unit without photos opens with the uploader where the canvas will be; later it opens over the
+  // canvas on demand. Decided once, when the photos first load, so the uploader does not close under
+  // the inspector when the first upload turns into a photo.
+  if (uploadOpen === null && photos.isSuccess) setUploadOpen(noPhotos);
+  const uploaderShown = canUpload && uploadOpen === true;
   const current = grades.data?.grades.at(-1) ?? null;
   const link = useMemo<CanvasLink>(
     () => ({ keyArea: markingArea, autoFocus: switched, startWith: hand, onToolChange: setHand, pageShortcuts: [{ title: "Photos", shortcuts: PHOTO_SHORTCUTS }] }),
@@ -137,7 +140,7 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
         me={me}
         end={
           <>
-            {holdsLease && <LeaseHeartbeat unitId={unitId} />}
+            {holdsLease && <LeaseHeartbeat unitId={unitId} onRenewed={() => void queryClient.invalidateQueries({ queryKey: unitQueryKey(unitId) })} />}
             {me.canRecord && view.unit.status === "graded" && <TakeNext lotId={view.lot.id} />}
           </>
         }
@@ -171,7 +174,7 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
             {canUpload && (
               // Hidden, not unmounted, so uploads in flight carry on while the uploader is out of the way.
               <div id="bench-uploader" hidden={!uploaderShown} className="absolute inset-0 z-20 overflow-y-auto rounded-lg border border-gauge-200 bg-white p-4 shadow-lg">
-                {!noPhotos && (
+                {photos.data?.photos.some((p) => p.status === "ready") && (
                   <button type="button" className="btn-secondary float-right h-8 py-0 text-sm" onClick={() => setUploadOpen(false)}>
                     Back to the photo
                   </button>

@@ -43,6 +43,12 @@ function cleaned(values: FormValues): FormValues {
   return { ...rest, ...(values.decision === "override" && finalGrade ? { finalGrade } : {}), ...(reason?.trim() ? { reason } : values.decision === "override" ? { reason: reason ?? "" } : {}) } as FormValues;
 }
 const schemaResolver = zodResolver(recordGradeSchema);
+
+/** The override grades the form offers (every grade but the proposal), as a sentence: never names one that is not offered. */
+export function offeredGradesSentence(proposed: string | undefined): string {
+  const offered = GRADES.filter((g) => g !== proposed);
+  return `Choose the final grade: ${offered.slice(0, -1).join(", ")} or ${offered.at(-1)}.`;
+}
 const resolver: Resolver<FormValues> = (values, context, options) => schemaResolver(cleaned(values), context, options) as ReturnType<Resolver<FormValues>>;
 
 /** Measuring a unit and recording its grade: the numbers, the proposal with its reasons, accept or override. */
@@ -83,6 +89,8 @@ export function GradePanel(props: GradePanelProps) {
   const { register, handleSubmit, control, reset, setError, formState } = useForm<FormValues>({ resolver, defaultValues: { decision: "accept" } });
   const decision = useWatch({ control, name: "decision" });
   const correction = hasGrade;
+  // A recorded grade folds the form away; a lead opens it again to correct the grade.
+  const [correcting, setCorrecting] = useState(false);
   // One key per submission: a retried or doubled request is answered with the same grade row.
   const submissionKey = useRef<string | null>(null);
   const grade = useMutation({
@@ -95,6 +103,7 @@ export function GradePanel(props: GradePanelProps) {
       submissionKey.current = null;
       setMessage({ kind: "success", text: `Grade ${res.grade.finalGrade} recorded.` });
       reset({ decision: "accept" });
+      setCorrecting(false);
       refresh();
       onGraded?.();
     },
@@ -107,7 +116,10 @@ export function GradePanel(props: GradePanelProps) {
   const m = state.data?.measurement ?? null;
   const proposed = m?.proposal.grade;
   const running = jobId !== null && !["completed", "failed", "cancelled"].includes(state.data?.job?.state ?? "");
-  const errors = formState.errors as { reason?: { message?: string }; finalGrade?: { message?: string } };
+  const errors = formState.errors as { reason?: { message?: string }; finalGrade?: { message?: string; type?: string } };
+  // The schema's own message lists every grade; the form offers all but the proposal, so it says those.
+  const finalGradeError = errors.finalGrade ? (errors.finalGrade.type ? offeredGradesSentence(proposed) : errors.finalGrade.message) : null;
+  const gradable = Boolean(m && !m.stale && canGrade && readOnlyReason === null);
 
   return (
     <section className={framed ? "card space-y-4 p-4 sm:p-5" : "space-y-3"} aria-labelledby="grade-panel-title" data-testid="grade-panel">
@@ -150,7 +162,12 @@ export function GradePanel(props: GradePanelProps) {
           <MeasurementTable photos={m.photos} labels={labels} />
         </div>
       )}
-      {m && !m.stale && canGrade && (!hasGrade || canCorrect) && (
+      {gradable && hasGrade && canCorrect && !correcting && (
+        <button type="button" className="btn-secondary" onClick={() => setCorrecting(true)} data-testid="correct-grade">
+          Correct this grade…
+        </button>
+      )}
+      {gradable && (!hasGrade || (canCorrect && correcting)) && (
         <form onSubmit={handleSubmit((values) => grade.mutate(values))} noValidate className="space-y-3 border-t border-gauge-100 pt-4" aria-label="Record the grade">
           <fieldset className="flex flex-wrap gap-4">
             <legend className="field-label">Decision</legend>
@@ -175,7 +192,7 @@ export function GradePanel(props: GradePanelProps) {
                     </option>
                   ))}
                 </select>
-                {errors.finalGrade?.message && <p className="field-error">{errors.finalGrade.message}</p>}
+                {finalGradeError && <p className="field-error">{finalGradeError}</p>}
               </div>
               <div>
                 <label htmlFor="override-reason" className="field-label">
@@ -205,9 +222,16 @@ export function GradePanel(props: GradePanelProps) {
             </div>
           )}
           {unsavedRegions && <p className="text-sm text-signal-700">Region edits are not saved yet; once they are, this measurement is out of date and must be measured again.</p>}
-          <button type="submit" className="btn-primary" disabled={grade.isPending || unsavedRegions}>
-            {grade.isPending ? "Recording…" : "Record grade"}
-          </button>
+          <div className="flex gap-2">
+            <button type="submit" className="btn-primary" disabled={grade.isPending || unsavedRegions}>
+              {grade.isPending ? "Recording…" : "Record grade"}
+            </button>
+            {correcting && (
+              <button type="button" className="btn-secondary" onClick={() => setCorrecting(false)}>
+                Cancel
+              </button>
+            )}
+          </div>
         </form>
       )}
     </section>

@@ -1,6 +1,7 @@
 "use client";
 
 import { useMutation, useQuery } from "@tanstack/react-query";
+import { useEffect, useRef } from "react";
 import { useRouter } from "next/navigation";
 import { FormMessage } from "@/components/ui/form-field";
 import { apiFetch } from "@/lib/http/client";
@@ -9,7 +10,7 @@ import { apiFetch } from "@/lib/http/client";
  * Mounted on the Bench of a unit the user holds: renews the lease every minute while the page is
  * open (so a closed tab lets it expire), and offers to put the unit back in the queue.
  */
-export function LeaseHeartbeat({ unitId, intervalMs = 60_000 }: { unitId: string; intervalMs?: number }) {
+export function LeaseHeartbeat({ unitId, intervalMs = 60_000, onRenewed }: { unitId: string; intervalMs?: number; onRenewed?: () => void }) {
   const router = useRouter();
   const heartbeat = useQuery({
     queryKey: ["lease", unitId],
@@ -19,6 +20,15 @@ export function LeaseHeartbeat({ unitId, intervalMs = 60_000 }: { unitId: string
     retry: 1,
     staleTime: 0,
   });
+  // Whatever shows the unit's status reads it again once the lease is renewed (it may have run out before).
+  const renewedAt = heartbeat.dataUpdatedAt;
+  const onRenewedRef = useRef(onRenewed);
+  useEffect(() => {
+    onRenewedRef.current = onRenewed;
+  });
+  useEffect(() => {
+    if (renewedAt) onRenewedRef.current?.();
+  }, [renewedAt]);
   const release = useMutation({
     mutationFn: () => apiFetch(`/api/units/${unitId}/lease`, { method: "DELETE" }),
     onSuccess: () => router.push("/queue"),
