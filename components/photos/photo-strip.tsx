@@ -33,7 +33,8 @@ export function PhotoStrip({ unitId, views, selection, end }: PhotoStripProps) {
   const photos = usePhotos(unitId);
   const list = photos.data?.photos ?? [];
   const covered = new Set(list.filter((p) => p.status !== "failed").map((p) => p.viewKey));
-  const missing = missingRequiredViews(views, covered);
+  // Nothing is "missing" before the photos have loaded.
+  const missing = photos.isSuccess ? missingRequiredViews(views, covered) : [];
   const labelOf = (key: string) => views.find((v) => v.key === key)?.label ?? key;
   const ready = list.filter((p) => p.status === "ready").length;
 

@@ -65,12 +65,17 @@ export async function createBenchUnit(holderEmail = "inspector@vellmoor.example"
   return { unitId: unit.id, serial, partTypeId: partType.id, siblingId: sibling?.id ?? null };
 }
 
-/** A plain photo of a dark part on a light card: `width` × `height`, the part in the middle half. */
+/** A plain photo of a dark part on a light card: `width` × `height`, the part in the middle half; never the same bytes twice. */
 export async function partPhoto(width: number, height: number): Promise<Buffer> {
   const shade = 30 + crypto.randomInt(40);
+  // A small tag of random colour in the card's corner, so two photos of one unit are never one file.
+  const tag = await sharp({ create: { width: 16, height: 16, channels: 3, background: { r: crypto.randomInt(256), g: crypto.randomInt(256), b: crypto.randomInt(256) } } }).png().toBuffer();
   const part = await sharp({ create: { width: width / 2, height: height / 2, channels: 3, background: { r: shade, g: shade + 4, b: shade + 8 } } }).png().toBuffer();
   return sharp({ create: { width, height, channels: 3, background: { r: 224, g: 221, b: 214 } } })
-    .composite([{ input: part, left: width / 4, top: height / 4 }])
+    .composite([
+      { input: part, left: width / 4, top: height / 4 },
+      { input: tag, left: 8, top: 8 },
+    ])
     .jpeg({ quality: 88 })
     .toBuffer();
 }

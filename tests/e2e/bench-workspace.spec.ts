@@ -117,7 +117,7 @@ test("a photo filed under the wrong view is reassigned, a wrong one is removed w
   await page.getByTestId("manage-photos").click();
   const rows = page.getByTestId("photo-row");
   await rows.filter({ hasText: "really-the-back.jpg" }).getByTestId("photo-view-select").selectOption("back");
-  await expect(page.getByTestId("missing-view")).toContainText("Front"); // the only photo is the back now
+  await expect(page.getByTestId("missing-view")).toHaveCount(0); // front (the stray) and back both have a photo now
   await expect(page.locator(`[data-testid=photo-card][data-photo-id="${front.id}"]`)).toContainText("Back");
   const strayRow = rows.filter({ hasText: "another-unit.jpg" });
   await strayRow.getByTestId("photo-remove").click();
@@ -125,6 +125,7 @@ test("a photo filed under the wrong view is reassigned, a wrong one is removed w
   await strayRow.getByRole("button", { name: "Remove photo" }).click();
   await expect(page.getByTestId("panel-photos")).toContainText("The photo was removed; nothing referred to it yet.");
   await expect(page.locator(`[data-testid=photo-card][data-photo-id="${stray.id}"]`)).toHaveCount(0);
+  await expect(page.getByTestId("missing-view")).toContainText("Front");
   const units = (await (await page.request.get(`/api/units/${fixture.unitId}/photos`)).json()) as { photos: { id: string; viewKey: string }[] };
   expect(units.photos.map((p) => [p.id, p.viewKey])).toEqual([[front.id, "back"]]);
 

@@ -5,6 +5,9 @@ import { signInAs } from "./support";
 test.describe.configure({ mode: "serial" });
 
 async function signOut(page: Page) {
+  // On the Bench (a workspace screen) the navigation, Sign out with it, sits behind the menu.
+  const menu = page.getByRole("button", { name: "Menu" });
+  if (await menu.isVisible()) await menu.click();
   await page.getByRole("button", { name: "Sign out" }).first().click();
   await expect(page).toHaveURL(/\/sign-in/);
 }

@@ -81,10 +81,14 @@ test("a lead receives a lot and imports serials; an inspector's out-of-limit bat
   // Who and when, with the date: a reading kept from an earlier day must not read as today's.
   await expect(bench.getByTestId("result-ocv")).toContainText(/, \d{4}-\d{2}-\d{2} \d{2}:\d{2} UTC/);
   await expect(bench.getByTestId("unit-status")).toContainText("on your bench");
-  // A swollen cell: critical, and the hazard warning appears.
-  await bench.getByTestId("checklist-item-swelling").getByRole("button", { name: "Fail" }).click();
+  // A swollen cell, failed by hand with a note: critical, and the hazard warning appears.
+  const swelling = bench.getByTestId("checklist-item-swelling");
+  await swelling.getByLabel("Note").fill("Bulge at the connector end, 1 mm");
+  await swelling.getByRole("button", { name: "Fail" }).click();
   await expect(bench.getByTestId("battery-hazard")).toContainText("isolate it in a fire-safe container");
-  await expect(bench.getByTestId("result-swelling")).toContainText("Adds a critical functional defect.");
+  await expect(bench.getByTestId("result-swelling")).toContainText("Failed (marked by the inspector). Adds a critical functional defect.");
+  await expect(bench.getByTestId("result-swelling")).not.toContainText("automatically");
+  await expect(bench.getByTestId("saved-note-swelling")).toHaveText("Note: Bulge at the connector end, 1 mm");
   await context.close();
 
   // Back on the lot page: the verdict follows Ac/Re (a major and a critical defective, Re 1 each).
