@@ -2,8 +2,9 @@
 
 import { useState } from "react";
 import { DefectSeverityBadge } from "@/components/lots/badges";
+import { useDateTime } from "@/components/ui/time-zone";
 import type { ChecklistItem } from "@/db/schema/lots";
-import { describeLimits, evaluateChecklistItem, formatReading, type ChecklistValue } from "@/lib/checklist/evaluate";
+import { describeLimits, evaluateChecklistItem, formatReading, suspectReading, type ChecklistValue } from "@/lib/checklist/evaluate";
 import type { UnitView } from "./use-unit";
 
 type Result = UnitView["results"][number];
@@ -22,8 +23,6 @@ function shownValue(item: ChecklistItem, value: ChecklistValue): string {
   return "";
 }
 
-/** "2026-11-28 09:10 UTC": with the date, since a reading from an earlier day must not read as today's. */
-const recordedAtText = (iso: string) => `${iso.slice(0, 10)} ${iso.slice(11, 16)} UTC`;
 
 /**
  * How a failed result reads: a reading is judged against the limits automatically; a Fail button
@@ -42,8 +41,10 @@ export function ChecklistItemRow({ item, result, disabled, saving, onRecord }: {
   const [note, setNote] = useState(result?.note ?? "");
   const record = (value: ChecklistValue) => onRecord(value, note.trim());
   const noteChanged = result !== undefined && note.trim() !== result.note;
+  const dateTime = useDateTime();
   const reading = item.kind === "numeric" ? parseReading(text) : null;
   const hint = item.kind === "numeric" && reading !== null ? evaluateChecklistItem(item, { reading }) : null;
+  const suspect = reading !== null ? suspectReading(item, { reading }) : null;
   const inputId = `item-${item.id}`;
 
   return (
@@ -89,7 +90,7 @@ export function ChecklistItemRow({ item, result, disabled, saving, onRecord }: {
               Save reading
             </button>
             <span id={`${inputId}-hint`} className="text-xs text-gauge-600">
-              {text.trim() === "" ? "" : reading === null ? "Enter a number." : hint?.passed ? "Within limits." : `Will fail: ${hint?.failureReason}`}
+              {text.trim() === "" ? "" : reading === null ? "Enter a number." : hint?.passed ? "Within limits." : `Will fail: ${hint?.failureReason}${suspect ? ` Below ${suspect.level}: set it aside as suspect.` : ""}`}
             </span>
           </form>
         )}
@@ -131,7 +132,8 @@ export function ChecklistItemRow({ item, result, disabled, saving, onRecord }: {
             ? item.kind === "pass_fail" ? "Passed." : `Passed: ${shownValue(item, result.value)}.`
             : failureText(item, result)}
           <span className="ml-2 text-xs font-normal text-gauge-600">
-            {result.recordedByName}, {recordedAtText(result.recordedAt)}
+            {/* With the date, since a reading from an earlier day must not read as today's. */}
+            {result.recordedByName}, {dateTime(result.recordedAt)}
           </span>
           {result.note && (
             <span className="block text-xs font-normal text-gauge-700" data-testid={`saved-note-${item.id}`}>

@@ -6,13 +6,14 @@ import { useRef, useState } from "react";
 import { useForm, useWatch, type Resolver } from "react-hook-form";
 import type { z } from "zod";
 import { FormMessage } from "@/components/ui/form-field";
+import { useDateTime } from "@/components/ui/time-zone";
 import { GRADES } from "@/lib/grading/rubric-schema";
 import { MAX_REASON_LENGTH, recordGradeSchema } from "@/lib/grading/schemas";
 import { ApiError, apiFetch } from "@/lib/http/client";
 import { GradeBadge } from "./grade-badge";
 import { GradeLines } from "./grade-lines";
 import { MeasurementTable, type MeasurementLabels } from "./measurement-table";
-import { dateTime, type GradeView, type MeasurementView } from "./types";
+import { type GradeView, type MeasurementView } from "./types";
 
 export type { MeasurementLabels } from "./measurement-table";
 
@@ -54,6 +55,7 @@ const resolver: Resolver<FormValues> = (values, context, options) => schemaResol
 /** Measuring a unit and recording its grade: the numbers, the proposal with its reasons, accept or override. */
 export function GradePanel(props: GradePanelProps) {
   const { unitId, canGrade, canCorrect, labels = { defects: {}, zones: {}, views: {} }, unsavedRegions = false, beforeMeasure, onGraded, readOnlyReason = null, framed = true } = props;
+  const dateTime = useDateTime();
   const queryClient = useQueryClient();
   const [jobId, setJobId] = useState<string | null>(null);
   const [message, setMessage] = useState<{ kind: "error" | "success"; text: string } | null>(null);

@@ -4,12 +4,13 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { useEffect, useMemo, useState } from "react";
 import { useFieldArray, useForm, useWatch, type FieldErrors, type Resolver } from "react-hook-form";
 import { FormMessage } from "@/components/ui/form-field";
+import { useDateTime } from "@/components/ui/time-zone";
 import { fromRubric, newRule, rubricFormErrors, toRubric, type RubricFormValues } from "@/lib/grading/rule-form";
 import type { Rubric } from "@/lib/grading/rubric-schema";
 import { ApiError, apiFetch } from "@/lib/http/client";
 import { PublishDraft } from "./publish-draft";
 import { RuleRow } from "./rule-row";
-import { dateTime, type PartTypeSummary, type RubricVersionView } from "./types";
+import { type PartTypeSummary, type RubricVersionView } from "./types";
 
 /** react-hook-form resolver: the rubric schema (with the part type's lists) decides what is valid. */
 function rubricResolver(lists: PartTypeSummary["lists"]): Resolver<RubricFormValues> {
@@ -34,6 +35,7 @@ export function RubricEditor({
   canPublish: boolean;
   onRubricChange: (rubric: Rubric | null) => void;
 }) {
+  const dateTime = useDateTime();
   const queryClient = useQueryClient();
   const [message, setMessage] = useState<{ kind: "error" | "success"; text: string } | null>(null);
   const resolver = useMemo(() => rubricResolver(partType.lists), [partType.lists]);

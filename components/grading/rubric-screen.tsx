@@ -4,19 +4,21 @@ import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { usePathname, useRouter } from "next/navigation";
 import { useState } from "react";
 import { FormMessage } from "@/components/ui/form-field";
+import { useDateTime } from "@/components/ui/time-zone";
 import type { Rubric } from "@/lib/grading/rubric-schema";
 import { apiFetch } from "@/lib/http/client";
 import { RubricDiff } from "./rubric-diff";
 import { RubricEditor } from "./rubric-editor";
 import { PreviewBar, RubricPreview, useSamplePreview } from "./rubric-preview";
 import { RubricRulesTable } from "./rubric-rules-table";
-import { dateTime, type RubricVersionsResponse, type RubricVersionView } from "./types";
+import { type RubricVersionsResponse, type RubricVersionView } from "./types";
 
 const EMPTY_PART_TYPE: RubricVersionsResponse["partType"] = { id: "", slug: "", name: "", views: [], lists: { defects: [], zones: [], views: [] }, severities: {}, labels: { defects: {}, zones: {}, views: {} } };
 
 export type PartTypeOption = { id: string; name: string; publishedVersion: number | null; draftVersion: number | null };
 
 function VersionList({ versions, selected, onSelect }: { versions: RubricVersionView[]; selected: number | null; onSelect: (v: number) => void }) {
+  const dateTime = useDateTime();
   return (
     <ul className="flex flex-wrap gap-2" aria-label="Versions" data-testid="rubric-versions">
       {versions.map((v) => {
@@ -48,6 +50,7 @@ function VersionList({ versions, selected, onSelect }: { versions: RubricVersion
 
 /** The Rubrics screen: pick a part type, read its versions, edit the draft with a live preview, compare versions. */
 export function RubricScreen({ partTypes, initialPartTypeId, canDraft, canPublish }: { partTypes: PartTypeOption[]; initialPartTypeId: string | null; canDraft: boolean; canPublish: boolean }) {
+  const dateTime = useDateTime();
   const router = useRouter();
   const pathname = usePathname();
   const queryClient = useQueryClient();

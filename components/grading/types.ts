@@ -71,6 +71,3 @@ export type GradePreviewView = {
   };
   result: GradeResult;
 };
-
-export const dateTime = (iso: string | null) =>
-  iso ? new Date(iso).toLocaleString("en-GB", { day: "numeric", month: "short", year: "numeric", hour: "2-digit", minute: "2-digit" }) : "—";

@@ -4,7 +4,9 @@ import { useMutation, useQuery } from "@tanstack/react-query";
 import { useEffect, useRef } from "react";
 import { useRouter } from "next/navigation";
 import { FormMessage } from "@/components/ui/form-field";
+import { useTimeZone } from "@/components/ui/time-zone";
 import { apiFetch } from "@/lib/http/client";
+import { formatTime } from "@/lib/time/format";
 
 /**
  * Mounted on the Bench of a unit the user holds: renews the lease every minute while the page is
@@ -12,6 +14,7 @@ import { apiFetch } from "@/lib/http/client";
  */
 export function LeaseHeartbeat({ unitId, intervalMs = 60_000, onRenewed }: { unitId: string; intervalMs?: number; onRenewed?: () => void }) {
   const router = useRouter();
+  const timeZone = useTimeZone();
   const heartbeat = useQuery({
     queryKey: ["lease", unitId],
     queryFn: () => apiFetch<{ leaseExpiresAt: string }>(`/api/units/${unitId}/lease`, { method: "PUT" }),
@@ -33,7 +36,7 @@ export function LeaseHeartbeat({ unitId, intervalMs = 60_000, onRenewed }: { uni
     mutationFn: () => apiFetch(`/api/units/${unitId}/lease`, { method: "DELETE" }),
     onSuccess: () => router.push("/queue"),
   });
-  const until = heartbeat.data ? new Date(heartbeat.data.leaseExpiresAt).toLocaleTimeString([], { hour: "2-digit", minute: "2-digit" }) : null;
+  const until = heartbeat.data ? formatTime(heartbeat.data.leaseExpiresAt, timeZone) : null;
   return (
     <div className="flex shrink-0 items-center gap-2 text-sm" data-testid="lease-status">
       {heartbeat.isError ? (

@@ -45,6 +45,7 @@ function prepareSessionUserQuery(database: ReturnType<typeof db>) {
       id: users.id,
       workspaceId: users.workspaceId,
       workspaceName: workspaces.name,
+      timeZone: workspaces.timeZone,
       email: users.email,
       name: users.name,
       roles: users.roles,

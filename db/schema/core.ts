@@ -20,6 +20,8 @@ export const workspaces = pgTable("workspaces", {
   id: uuid().primaryKey().defaultRandom(),
   name: text().notNull(),
   slug: text().notNull().unique(),
+  /** IANA time zone every time in the app is shown in (one rule for the whole workspace). */
+  timeZone: text().notNull().default("UTC"),
   createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
 });
 
@@ -121,6 +123,8 @@ export const suppliers = pgTable(
     contactName: text(),
     contactEmail: text().notNull(),
     notes: text().notNull().default(""),
+    /** The cosmetic grade this supplier's lots are bought at by default (null: the part type's). */
+    promisedGrade: text({ enum: ["A", "B", "C"] }),
     active: boolean().notNull().default(true),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),

@@ -13,7 +13,7 @@ export type ViewDefinition = { key: string; label: string; required: boolean; in
 export type DefectClassDefinition = { key: string; label: string; severity: DefectSeverity };
 export type ChecklistItem =
   | { id: string; label: string; kind: "pass_fail"; severityOnFail: DefectSeverity; caution?: string }
-  | { id: string; label: string; kind: "numeric"; unit: string; min: number | null; max: number | null; decimals: number; severityOnFail: DefectSeverity; caution?: string }
+  | { id: string; label: string; kind: "numeric"; unit: string; min: number | null; max: number | null; decimals: number; severityOnFail: DefectSeverity; caution?: string; /** A reading below this sets the part aside as suspect (stronger than failing). */ suspectBelow?: number | null }
   | { id: string; label: string; kind: "choice"; options: { value: string; label: string; passes: boolean }[]; severityOnFail: DefectSeverity; caution?: string };
 
 /** What a lot's sampling decided, stored with the lot so later table changes never rewrite it. */
@@ -60,6 +60,8 @@ export const partTypes = pgTable(
     panelResolution: jsonb().$type<{ width: number; height: number } | null>(),
     /** High-value parts: every unit is inspected. */
     inspectAll: boolean().notNull().default(false),
+    /** The cosmetic grade lots of this part type are bought at unless the supplier says otherwise. */
+    promisedGrade: text({ enum: ["A", "B", "C"] }).notNull().default("A"),
     active: boolean().notNull().default(true),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
@@ -91,6 +93,11 @@ export const lots = pgTable(
     aqlMajor: real().notNull(),
     aqlMinor: real().notNull(),
     inspectionSeverity: text({ enum: ["normal", "tightened", "reduced"] }).notNull(),
+    /**
+     * The cosmetic grade the purchase promised: a unit graded worse is a cosmetic nonconformity.
+     * Receiving a lot always sets it (lib/lots/lots.ts); the default only serves direct inserts.
+     */
+    promisedGrade: text({ enum: ["A", "B", "C"] }).notNull().default("A"),
     plan: jsonb().$type<StoredSamplingPlan>().notNull(),
     /** Seed of the random draw of sampled serials, so the draw can be reproduced. */
     sampleSeed: text(),

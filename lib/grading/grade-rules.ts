@@ -12,6 +12,7 @@
  */
 import { hasAnyRole, type Role } from "@/lib/auth/roles";
 import { AppError } from "@/lib/errors";
+import { DEFAULT_TIME_ZONE, formatDateTime } from "@/lib/time/format";
 
 export type CurrentGrade = { id: string; finalGrade: string; gradedByName: string; createdAt: Date };
 export type GradeSubmission = {
@@ -20,11 +21,10 @@ export type GradeSubmission = {
   expectedCurrentGradeId?: string | null;
 };
 
-const when = (d: Date) => `${d.toISOString().slice(0, 16).replace("T", " ")} UTC`;
-const describe = (g: CurrentGrade) => `${g.finalGrade}, recorded by ${g.gradedByName} on ${when(g.createdAt)}`;
+const describe = (g: CurrentGrade, timeZone: string) => `${g.finalGrade}, recorded by ${g.gradedByName} on ${formatDateTime(g.createdAt, timeZone)}`;
 
 /** Throws the AppError that refuses this submission, or returns when it may be recorded. */
-export function assertMayRecord(submission: GradeSubmission, current: CurrentGrade | null, roles: readonly Role[]): void {
+export function assertMayRecord(submission: GradeSubmission, current: CurrentGrade | null, roles: readonly Role[], timeZone = DEFAULT_TIME_ZONE): void {
   const { kind, reason, expectedCurrentGradeId } = submission;
   if (kind === "override" && !hasAnyRole(roles, "lead")) {
     throw new AppError("forbidden", "Overriding a recorded grade needs the QC lead role, which your account does not have.");
@@ -40,7 +40,7 @@ export function assertMayRecord(submission: GradeSubmission, current: CurrentGra
   if (kind !== "override") {
     throw new AppError(
       "conflict",
-      `This unit is already graded (${describe(current)}). Only a QC lead can change a recorded grade, with an override that gives a reason and names the grade it replaces.`,
+      `This unit is already graded (${describe(current, timeZone)}). Only a QC lead can change a recorded grade, with an override that gives a reason and names the grade it replaces.`,
     );
   }
   if (!expectedCurrentGradeId) {
@@ -48,7 +48,7 @@ export function assertMayRecord(submission: GradeSubmission, current: CurrentGra
     throw new AppError("bad_request", message, { fieldErrors: { expectedCurrentGradeId: message } });
   }
   if (expectedCurrentGradeId !== current.id) {
-    throw new AppError("conflict", `The unit's grade changed since you looked: it is now ${describe(current)}. Review it, then override again if it is still wrong.`);
+    throw new AppError("conflict", `The unit's grade changed since you looked: it is now ${describe(current, timeZone)}. Review it, then override again if it is still wrong.`);
   }
 }
 

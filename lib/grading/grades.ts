@@ -12,7 +12,7 @@ import type { RecordGradeInput } from "./schemas";
 import type { StoredUnitResult } from "./stored-measurement";
 import { currentInputs, lockUnit, measurementStaleness, photoNamer, requireUnit, storedPhotos } from "./unit-grading";
 
-type Actor = Pick<SessionUser, "id" | "workspaceId" | "roles">;
+type Actor = Pick<SessionUser, "id" | "workspaceId" | "roles"> & Partial<Pick<SessionUser, "timeZone">>;
 
 /** The unit's grade history (oldest first) and its current grade (the last row). */
 export async function gradeHistory(actor: Actor, unitId: string) {
@@ -37,7 +37,7 @@ export async function recordGrade(actor: Actor, unitId: string, input: RecordGra
     const previous = await listGrades({ workspaceId: actor.workspaceId, unitId }, tx);
     const repeated = input.idempotencyKey ? await getGradeByIdempotencyKey({ workspaceId: actor.workspaceId, unitId, key: input.idempotencyKey }, tx) : undefined;
     if (repeated) return { id: replayOf(repeated, { kind, decision: input.decision, finalGrade: input.decision === "override" ? input.finalGrade : undefined, reason: input.reason }).id, replayed: true };
-    assertMayRecord({ kind, reason: input.reason, expectedCurrentGradeId: input.expectedCurrentGradeId }, previous.at(-1) ?? null, actor.roles);
+    assertMayRecord({ kind, reason: input.reason, expectedCurrentGradeId: input.expectedCurrentGradeId }, previous.at(-1) ?? null, actor.roles, actor.timeZone);
     // An inspection grade moves the unit on (on bench → graded) and ends its lease.
     if (kind === "inspection") await finishInspection(tx, actor, unitId);
     const measurement = input.measurementId

@@ -1,8 +1,9 @@
 import "server-only";
 /**
  * Suggestions for the Bench: a Surface outline (Otsu on the preview derivative) or pixel-fault
- * candidates (on the original, screen views of display parts only), as ghost shapes in original
- * pixels. Nothing is stored: an accepted ghost becomes a region through the normal save.
+ * candidates (on the original, screen views of display parts only, inside the active screen area:
+ * lib/regions/screen-area.ts), as ghost shapes in original pixels. Nothing is stored: an accepted
+ * ghost becomes a region through the normal save.
  * The image work runs in a compute thread (lib/compute/pool.ts), never on the request's thread,
  * with a few at a time per kind (a further request answers 503 "busy" at once), decoding capped
  * at the size the photo's row records, and a hard time limit: past it the thread is ended and
@@ -12,7 +13,8 @@ import type { SessionUser } from "@/lib/auth/require-user";
 import { runInThread } from "@/lib/compute/pool";
 import { AppError } from "@/lib/errors";
 import { getObjectBuffer, objectStore } from "@/lib/storage/s3";
-import { loadPhotoForRegions } from "./regions";
+import { loadPhotoForRegions, readRegionSet } from "./regions";
+import { screenSearchArea } from "./screen-area";
 import type { SuggestionKind } from "./schemas";
 import { candidateGhosts, isScreenView, scalePolygon, type SuggestionResponse } from "./suggestion-mapping";
 
@@ -48,12 +50,17 @@ export async function suggestForPhoto(actor: Pick<SessionUser, "id" | "workspace
     throw new AppError("conflict", "Pixel faults are looked for only on the lit test-screen views (screen-…) of display parts.");
   }
   if (original.width * original.height > MAX_CANDIDATE_PIXELS) throw new AppError("payload_too_large", "This photo is too large to search for pixel faults in time.");
+  const { regions } = await readRegionSet(actor, photoId);
+  const view = partType.views.find((v) => v.key === photo.viewKey);
+  const screen = screenSearchArea({ surfaces: regions.surfaces.map((s) => s.shape), zones: view?.zones ?? [], size: original });
+  if ("problem" in screen) throw new AppError("conflict", screen.problem);
   const bytes = await objectBytes(photo.originalKey);
   // Decode no more pixels than the photo's row records: a swapped object cannot be bigger.
-  const options = { maxCandidates: 200, limitInputPixels: original.width * original.height };
+  const options = { maxCandidates: 200, limitInputPixels: original.width * original.height, area: screen.area };
   const result = await runInThread("pixel-candidates", { image: bytes, options }, { timeoutMs: SUGGESTION_TIME_LIMIT_MS["pixel-candidates"] });
   const { ghosts, withoutClass } = candidateGhosts(result.candidates, partType.defectClasses, original);
-  const parts = [`${ghosts.length} candidate${ghosts.length === 1 ? "" : "s"} found.`];
+  const parts = [`${ghosts.length} candidate${ghosts.length === 1 ? "" : "s"} found ${screen.description}.`];
+  if (result.droppedNearEdge) parts.push(`${result.droppedNearEdge} more at the panel's edge ${result.droppedNearEdge === 1 ? "was" : "were"} left out.`);
   if (withoutClass) parts.push(`${withoutClass} more are of a class this part type does not have.`);
   if (result.truncated) parts.push("More were found; only the strongest 200 are shown.");
   if (result.largeGroups) parts.push(`${result.largeGroups} larger blotch${result.largeGroups === 1 ? " was" : "es were"} left out (not pixel-sized: check for smudges or clouding).`);

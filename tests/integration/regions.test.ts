@@ -166,7 +166,7 @@ describe("who may save, and when", () => {
     for (const session of [inspector, lead]) {
       const refused = await api<ErrorBody>(session, "PUT", path, body);
       expect(refused.status).toBe(409);
-      expect(refused.body.error.message).toMatch(/has this unit on their bench \(lease until \d\d:\d\d UTC\), so it is read-only for you/);
+      expect(refused.body.error.message).toMatch(/has this unit on their bench \(lease until \d\d:\d\d\), so it is read-only for you/);
     }
     expect(await setVersion(photo.id)).toBeNull();
     expect((await api(inspector2, "PUT", path, body)).status).toBe(200);

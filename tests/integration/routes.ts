@@ -29,6 +29,9 @@ export const ROUTES: RouteAccess[] = [
   // A well-formed but unknown token: the handler itself answers 400 "link not valid".
   { method: "POST", path: "/api/password/set", access: "public", body: () => ({ token: "x".repeat(43), password: "long-enough-password" }), allowedStatus: 400 },
   { method: "GET", path: "/api/me", access: "signed-in", allowedStatus: 200 },
+  { method: "GET", path: "/api/workspace", access: "signed-in", allowedStatus: 200 },
+  // Sets the default again, so the other tests' times stay in UTC.
+  { method: "PATCH", path: "/api/workspace", access: ["lead"], body: () => ({ timeZone: "UTC" }), allowedStatus: 200 },
   { method: "GET", path: "/api/people", access: ["lead"], allowedStatus: 200 },
   { method: "POST", path: "/api/people", access: ["lead"], body: () => ({ email: `${unique("invitee")}@tests.example`, name: "Route Invitee", roles: ["inspector"] }), allowedStatus: 201 },
   { method: "GET", path: "/api/people/:personId", access: ["lead"], allowedStatus: 200 },

@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import { InviteForm } from "@/components/people/invite-form";
 import { PeopleTable } from "@/components/people/people-table";
+import { WorkspaceSettingsForm } from "@/components/people/workspace-settings-form";
 import { requirePageUser } from "@/lib/auth/require-user";
 
 export const metadata: Metadata = { title: "People" };
@@ -13,6 +14,7 @@ export default async function PeoplePage() {
         <h1 className="page-title">People</h1>
         <p className="text-gauge-700">Everyone in {user.workspaceName}. Roles take effect on the person&rsquo;s next request; deactivation ends their sessions.</p>
       </div>
+      <WorkspaceSettingsForm timeZone={user.timeZone} />
       <InviteForm />
       <PeopleTable currentUserId={user.id} />
     </div>

@@ -24,7 +24,7 @@ describe("who may add a grade row", () => {
   it("a graded unit takes only a lead's override, with a reason, naming the current grade", () => {
     expect(refusal(() => assertMayRecord({ kind: "inspection" }, current, ["inspector"]))).toEqual([
       409,
-      "This unit is already graded (C, recorded by Ines Vale on 2026-11-20 09:30 UTC). Only a QC lead can change a recorded grade, with an override that gives a reason and names the grade it replaces.",
+      "This unit is already graded (C, recorded by Ines Vale on 2026-11-20 09:30). Only a QC lead can change a recorded grade, with an override that gives a reason and names the grade it replaces.",
     ]);
     expect(refusal(() => assertMayRecord({ kind: "inspection", reason: "lead", expectedCurrentGradeId: "g-1" }, current, ["lead"]))?.[0]).toBe(409);
     expect(refusal(() => assertMayRecord({ kind: "override", reason: "x", expectedCurrentGradeId: "g-1" }, current, ["inspector", "auditor"]))?.[0]).toBe(403);
@@ -32,7 +32,7 @@ describe("who may add a grade row", () => {
     expect(refusal(() => assertMayRecord({ kind: "override", reason: "x" }, current, ["lead"]))?.[0]).toBe(400);
     expect(refusal(() => assertMayRecord({ kind: "override", reason: "x", expectedCurrentGradeId: "g-0" }, current, ["lead"]))).toEqual([
       409,
-      "The unit's grade changed since you looked: it is now C, recorded by Ines Vale on 2026-11-20 09:30 UTC. Review it, then override again if it is still wrong.",
+      "The unit's grade changed since you looked: it is now C, recorded by Ines Vale on 2026-11-20 09:30. Review it, then override again if it is still wrong.",
     ]);
     expect(refusal(() => assertMayRecord({ kind: "override", reason: "x", expectedCurrentGradeId: "g-1" }, current, ["lead"]))).toBeNull();
   });

@@ -20,8 +20,8 @@ export default async function NewLotPage() {
         <p className="text-gauge-700">The sampling plan is computed from ISO 2859-1 and stored with the lot; the switching rules pick normal, tightened or reduced inspection.</p>
       </div>
       <LotCreateForm
-        suppliers={suppliers.filter((s) => s.active).map((s) => ({ id: s.id, name: s.name }))}
-        partTypes={partTypes.map((p) => ({ id: p.id, name: p.name, modelFamily: p.modelFamily, inspectAll: p.inspectAll }))}
+        suppliers={suppliers.filter((s) => s.active).map((s) => ({ id: s.id, name: s.name, promisedGrade: s.promisedGrade }))}
+        partTypes={partTypes.map((p) => ({ id: p.id, name: p.name, modelFamily: p.modelFamily, inspectAll: p.inspectAll, promisedGrade: p.promisedGrade }))}
         canEditSwitching
       />
     </div>
