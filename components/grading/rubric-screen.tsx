@@ -117,6 +117,14 @@ export function RubricScreen({ partTypes, initialPartTypeId, canDraft, canPublis
             <h2 className="mb-2 text-sm font-semibold uppercase tracking-wide text-gauge-700">Versions</h2>
             <VersionList versions={versions} selected={selected.version} onSelect={(v) => { setPicked(v); setLiveRubric(null); }} />
           </div>
+          {/* A rubric's notes travel with it: an example says so here, whoever opens it. */}
+          {(selected.rubric.notes?.length ?? 0) > 0 && (
+            <ul className="max-w-3xl list-disc space-y-0.5 rounded-md bg-gauge-50 py-2 pl-8 pr-3 text-sm text-gauge-800" aria-label="Notes of this version" data-testid="rubric-notes">
+              {selected.rubric.notes!.map((note) => (
+                <li key={note}>{note}</li>
+              ))}
+            </ul>
+          )}
           <div className="grid items-start gap-6 xl:grid-cols-[minmax(0,1fr)_26rem]">
             <section className="card min-w-0 p-4 sm:p-5">
               {editing ? (

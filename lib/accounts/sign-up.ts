@@ -8,11 +8,12 @@ import { hashPassword } from "@/lib/auth/password";
 import type { SignUpInput } from "@/lib/auth/schemas";
 import { AppError } from "@/lib/errors";
 import { isUniqueViolation } from "@/db/errors";
+import { addStarterPartTypes } from "@/lib/part-types/starters";
 import { slugify } from "./slugify";
 
 export const DUPLICATE_EMAIL_MESSAGE = "An account with this e-mail address already exists. Sign in, or reset your password.";
 
-/** Creates a workspace (the company) and its first user, who is its lead. */
+/** Creates a workspace (the company), its first user, who is its lead, and the starter part types chosen. */
 export async function signUp(input: SignUpInput) {
   if (await getUserByEmail({ email: input.email })) {
     throw new AppError("conflict", DUPLICATE_EMAIL_MESSAGE, { fieldErrors: { email: DUPLICATE_EMAIL_MESSAGE } });
@@ -27,7 +28,8 @@ export async function signUp(input: SignUpInput) {
         .values({ workspaceId: workspace.id, email: input.email, name: input.name, passwordHash, roles: ["lead"] })
         .returning({ id: users.id, email: users.email });
       await logActivity(tx, { workspaceId: workspace.id, actorId: user.id, action: "workspace.created", subjectType: "workspace", subjectId: workspace.id, detail: { name: workspace.name } });
-      return { workspaceId: workspace.id, userId: user.id, email: user.email };
+      const starters = await addStarterPartTypes(tx, { workspaceId: workspace.id, actorId: user.id, slugs: input.starterPartTypes });
+      return { workspaceId: workspace.id, userId: user.id, email: user.email, starterPartTypes: starters.map((s) => s.name) };
     });
   } catch (err) {
     // Two sign-ups racing for one address: the unique index decides, the loser gets the same message.

@@ -6,6 +6,7 @@
 import { z } from "zod";
 import type { ChecklistItem, DefectSeverity, PartType } from "@/db/schema/lots";
 import { decimalPlaces } from "@/lib/checklist/evaluate";
+import { EXAMPLE_PART_TYPE_SLUGS } from "@/lib/grading/example-part-types";
 import { promisedGradeSchema } from "@/lib/lots/schemas";
 
 export const DEFECT_SEVERITIES = ["critical", "major", "minor"] as const satisfies readonly DefectSeverity[];
@@ -165,6 +166,14 @@ export const partTypeUpdateSchema = z
   .strict()
   .refine((v) => Object.keys(v).length > 0, "Nothing to change.");
 export type PartTypeUpdateInput = z.infer<typeof partTypeUpdateSchema>;
+
+/** Which starter part types to add (lib/part-types/starters.ts). */
+export const starterRequestSchema = z.strictObject({
+  slugs: z
+    .array(z.enum(EXAMPLE_PART_TYPE_SLUGS, { error: `Starter part types are ${EXAMPLE_PART_TYPE_SLUGS.join(", ")}.` }), { error: "slugs is a list of starter part types." })
+    .min(1, "Choose at least one starter part type.")
+    .max(EXAMPLE_PART_TYPE_SLUGS.length),
+});
 
 export const partTypeListQuerySchema = z.object({ active: z.enum(["true", "false", "all"]).optional() }).strict();
 

@@ -30,6 +30,8 @@ export const ROUTES: RouteAccess[] = [
   { method: "POST", path: "/api/password/set", access: "public", body: () => ({ token: "x".repeat(43), password: "long-enough-password" }), allowedStatus: 400 },
   { method: "GET", path: "/api/me", access: "signed-in", allowedStatus: 200 },
   { method: "GET", path: "/api/workspace", access: "signed-in", allowedStatus: 200 },
+  // The demo workspace has every starter already: nothing is created (201, created []).
+  { method: "POST", path: "/api/part-types/starters", access: ["lead"], body: () => ({ slugs: ["battery"] }), allowedStatus: 201 },
   // Sets the default again, so the other tests' times stay in UTC.
   { method: "PATCH", path: "/api/workspace", access: ["lead"], body: () => ({ timeZone: "UTC" }), allowedStatus: 200 },
   { method: "GET", path: "/api/people", access: ["lead"], allowedStatus: 200 },

@@ -6,5 +6,5 @@ import { handler, parseJson, PUBLIC_MAX_BODY } from "@/lib/http/route";
 export const POST = handler(async (req) => {
   const input = await parseJson(req, signUpSchema.strict(), { maxBytes: PUBLIC_MAX_BODY });
   const created = await signUp(input);
-  return Response.json({ workspaceId: created.workspaceId, email: created.email }, { status: 201 });
+  return Response.json({ workspaceId: created.workspaceId, email: created.email, starterPartTypes: created.starterPartTypes }, { status: 201 });
 });

@@ -1,7 +1,8 @@
 /**
- * The invented part types of the demo. Keys of views, zones and defect classes (and each class's
- * severity) are those lib/grading/example-part-types.ts assumes, so the example rubrics fit.
- * Checklist limits are examples to adapt, marked beside each: (a) read in a public source,
+ * The starter part types: offered to a new workspace at sign-up (and on an empty Part types
+ * screen), and the demo's part types. Keys of views, zones and defect classes (and each class's
+ * severity) are those lib/grading/example-part-types.ts assumes, so the example rubrics fit. They
+ * are examples to adapt. Checklist limits are marked beside each: (a) read in a public source,
  * (c) common practice. Model families are invented.
  */
 import type { ChecklistItem, DefectClassDefinition, ViewDefinition, ZoneDefinition } from "@/db/schema/lots";
