@@ -9,15 +9,15 @@ import { RULER_STYLE, SURFACE_STYLE, UNKNOWN_DEFECT_STYLE, type RegionStyle } fr
 
 export type ImageStatus = "loading" | "ready" | "failed";
 
-/** Keys worth a reminder with each tool (the `?` sheet has them all). */
+/** Keys worth a reminder with each tool, beyond what its description already says (the `?` sheet has them all). */
 const TOOL_KEYS: Record<AnnotationState["activeTool"], string> = {
   select: "Del removes · arrows nudge · Esc clears",
   box: "Shift squares it · Esc cancels",
-  outline: "Enter or double-click closes · Backspace drops a point · Esc cancels",
-  line: "double-click or Enter ends · [ ] width · Esc cancels",
-  spot: "drag sets the radius · Esc cancels",
+  outline: "Backspace drops a point · Esc cancels",
+  line: "Backspace drops a point · Esc cancels",
+  spot: "Esc cancels",
   surface: "Enter or double-click closes · Backspace drops a point · Esc cancels",
-  ruler: "drag, or click both ends · Esc cancels",
+  ruler: "Esc cancels",
 };
 
 export function canvasHint(state: AnnotationState, imageStatus: ImageStatus, readOnly: boolean): string {

@@ -23,7 +23,7 @@ export function otherHolder(view: UnitView, me: BenchPerson, now = new Date()): 
 }
 
 export function annotateLock(view: UnitView, me: BenchPerson, now = new Date()): string | null {
-  if (!me.canRecord) return "View only: marking regions needs the inspector role.";
+  if (!me.canRecord) return "Marking regions needs the inspector role.";
   if (view.lot.status !== "open") return "The lot is decided; this unit's regions are part of the record.";
   if (view.unit.status !== "queued" && view.unit.status !== "on_bench") return `This unit is ${STATUS_LABELS[view.unit.status]}; its regions are part of the record and can no longer change.`;
   const holder = otherHolder(view, me, now);

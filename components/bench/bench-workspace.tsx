@@ -20,7 +20,7 @@ import { annotateLock, benchNotice, type BenchPerson } from "./annotate-lock";
 import { checklistSummary, ChecklistPanel } from "./checklist-panel";
 import { PhotoAnnotator, type CanvasLink } from "./photo-annotator";
 import { PHOTO_SHORTCUTS } from "./photo-keys";
-import { SidePanels, usePanelState, type PanelSection } from "./side-panels";
+import { openSection, SidePanels, usePanelState, type PanelSection } from "./side-panels";
 import { TakeNext } from "./take-next";
 import { useToolInHand } from "./tool-in-hand";
 import { UnitHeader } from "./unit-header";
@@ -89,10 +89,7 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
     [markingArea, switched, hand, setHand],
   );
 
-  const showPhotoPanel = () => {
-    setPanels((s) => ({ folded: false, closed: s.closed.filter((id) => id !== "photos") }));
-    requestAnimationFrame(() => document.getElementById("panel-photos")?.scrollIntoView({ block: "start" }));
-  };
+  const showPhotoPanel = () => openSection(setPanels, "photos");
 
   const sections: PanelSection[] = [
     {
@@ -151,7 +148,9 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
         </p>
       )}
       <div className="flex min-h-0 flex-1 flex-col gap-2 lg:flex-row">
-        <div ref={setMarkingArea} className="flex min-h-[26rem] min-w-0 shrink-0 basis-[62%] flex-col gap-2 lg:min-h-0 lg:flex-1 lg:basis-auto">
+        {/* Portrait: the marking area keeps a fixed share of the height (never the panels' content
+            size, which changes while marking) and takes all of it once the panels are folded. */}
+        <div ref={setMarkingArea} className={`flex min-h-[26rem] min-w-0 flex-col gap-2 lg:min-h-0 lg:flex-1 lg:basis-auto ${panels.folded ? "flex-1" : "shrink-0 basis-[74%]"}`} data-testid="marking-area">
           <div className="relative flex min-h-0 flex-1 flex-col">
             {selected ? (
               <PhotoAnnotator
@@ -204,7 +203,7 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
             }
           />
         </div>
-        <SidePanels sections={sections} state={panels} onChange={setPanels} className="min-h-0 flex-1 lg:w-[19rem] lg:flex-none xl:w-[23rem]" />
+        <SidePanels sections={sections} state={panels} onChange={setPanels} className={`lg:flex-none ${panels.folded ? "flex-none lg:w-11" : "min-h-0 flex-1 lg:w-[19rem] xl:w-[23rem]"}`} />
       </div>
     </div>
   );

@@ -48,41 +48,43 @@ export function usePanelState(): [PanelState, (change: (s: PanelState) => PanelS
 }
 
 /**
- * The Bench's side column: checklist, regions, measurement and grade, photos — each folds on
- * its header, and the whole column folds to a narrow strip of section buttons so the canvas can
- * have the width. Panels keep their content mounted while folded (hidden), so a form half filled
- * in or an upload in flight is never lost.
+ * The Bench's side column: regions, checklist, measurement and grade, photos — each folds on its
+ * header, and the whole column folds away so the photo gets the room: to a narrow strip of
+ * section buttons beside it (landscape), or to one row of them under it (portrait, where that row
+ * is always there and jumps to a section, since the panels below the photo are short). Panels
+ * keep their content mounted while folded (hidden), so a form half filled in or an upload in
+ * flight is never lost. `openSection` is how other parts of the Bench bring a panel into view.
  */
 export function SidePanels({ sections, state, onChange, className = "" }: { sections: PanelSection[]; state: PanelState; onChange(change: (s: PanelState) => PanelState): void; className?: string }) {
-  const open = (id: PanelId) => onChange((s) => ({ folded: false, closed: s.closed.filter((c) => c !== id) }));
   const toggle = (id: PanelId) => onChange((s) => ({ ...s, closed: s.closed.includes(id) ? s.closed.filter((c) => c !== id) : [...s.closed, id] }));
+  const open = (id: PanelId) => openSection(onChange, id);
   return (
-    <aside aria-label="Unit panels" className={`flex min-h-0 flex-col gap-2 ${state.folded ? "lg:w-11" : ""} ${className}`} data-testid="side-panels" data-folded={state.folded ? "true" : "false"}>
-      <button
-        type="button"
-        className="hidden h-8 shrink-0 items-center gap-1.5 self-end rounded-md px-2 text-xs text-gauge-700 hover:bg-gauge-100 lg:flex"
-        aria-expanded={!state.folded}
-        onClick={() => onChange((s) => ({ ...s, folded: !s.folded }))}
-        data-testid="fold-panels"
-        title={state.folded ? "Show the panels" : "Fold the panels away to widen the photo"}
-      >
-        <Glyph name="fold" className={`h-4 w-4 ${state.folded ? "rotate-180" : ""}`} />
-        <span className={state.folded ? "sr-only" : ""}>Fold panels</span>
-      </button>
-      {state.folded && (
-        <nav aria-label="Panels" className="hidden flex-col gap-1 lg:flex">
+    <aside aria-label="Unit panels" className={`flex min-h-0 flex-col gap-2 ${className}`} data-testid="side-panels" data-folded={state.folded ? "true" : "false"}>
+      <div className={`flex shrink-0 items-center gap-1 ${state.folded ? "lg:flex-col lg:items-stretch" : "lg:justify-end"}`}>
+        <nav aria-label="Panels" className={`flex min-w-0 flex-1 gap-1 overflow-x-auto ${state.folded ? "lg:flex-none lg:flex-col" : "lg:hidden"}`}>
           {sections.map((s) => (
-            <button key={s.id} type="button" className="rounded-md bg-white px-1 py-2 text-[11px] font-medium text-gauge-800 shadow-xs [writing-mode:vertical-rl] hover:bg-gauge-100" onClick={() => open(s.id)}>
+            <button key={s.id} type="button" className="shrink-0 rounded-md border border-gauge-200 bg-white px-2 py-1 text-xs font-medium text-gauge-800 hover:bg-gauge-100 lg:border-0 lg:px-1 lg:py-2 lg:text-[11px] lg:shadow-xs lg:[writing-mode:vertical-rl]" onClick={() => open(s.id)} data-testid={`jump-${s.id}`}>
               {s.title}
             </button>
           ))}
         </nav>
-      )}
-      <div className={`relative min-h-0 flex-1 space-y-2 overflow-y-auto pr-0.5 ${state.folded ? "lg:hidden" : ""}`}>
+        <button
+          type="button"
+          className="flex h-8 shrink-0 items-center gap-1.5 rounded-md px-2 text-xs text-gauge-700 hover:bg-gauge-100 lg:order-first lg:self-end"
+          aria-expanded={!state.folded}
+          onClick={() => onChange((s) => ({ ...s, folded: !s.folded }))}
+          data-testid="fold-panels"
+          title={state.folded ? "Show the panels" : "Fold the panels away to give the photo more room"}
+        >
+          <Glyph name="fold" className={`h-4 w-4 ${state.folded ? "-rotate-90 lg:rotate-180" : "rotate-90 lg:rotate-0"}`} />
+          <span className={state.folded ? "lg:sr-only" : ""}>{state.folded ? "Show panels" : "Fold panels"}</span>
+        </button>
+      </div>
+      <div className={`relative min-h-0 flex-1 space-y-2 overflow-y-auto pr-0.5 ${state.folded ? "hidden" : ""}`} data-testid="panel-scroller">
         {sections.map((s) => {
           const isOpen = !state.closed.includes(s.id);
           return (
-            <section key={s.id} className="rounded-lg border border-gauge-200 bg-white" aria-labelledby={`panel-${s.id}`} data-testid={`panel-${s.id}`}>
+            <section key={s.id} className="rounded-lg border border-gauge-200 bg-white" aria-labelledby={`panel-${s.id}`} data-testid={`panel-${s.id}`} data-section={s.id}>
               <h2 className="text-sm">
                 <button type="button" id={`panel-${s.id}`} className="flex w-full items-center gap-2 px-3 py-2 text-left font-semibold text-gauge-900 hover:bg-gauge-50" aria-expanded={isOpen} aria-controls={`panel-${s.id}-body`} onClick={() => toggle(s.id)}>
                   <Glyph name="fold" className={`h-3.5 w-3.5 shrink-0 transition-transform ${isOpen ? "rotate-90" : ""}`} />
@@ -99,4 +101,17 @@ export function SidePanels({ sections, state, onChange, className = "" }: { sect
       </div>
     </aside>
   );
+}
+
+/**
+ * Unfolds the column, opens the section and scrolls the panels (only them: scrollIntoView could
+ * also scroll the workspace's own clipped frame) so the section's header is at the top.
+ */
+export function openSection(onChange: (change: (s: PanelState) => PanelState) => void, id: PanelId) {
+  onChange((s) => ({ folded: false, closed: s.closed.filter((c) => c !== id) }));
+  requestAnimationFrame(() => {
+    const area = document.querySelector<HTMLElement>("[data-testid=panel-scroller]");
+    const section = area?.querySelector<HTMLElement>(`[data-section="${id}"]`);
+    if (area && section) area.scrollTop = section.offsetTop;
+  });
 }

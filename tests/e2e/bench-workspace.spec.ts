@@ -87,7 +87,7 @@ for (const [width, height] of [
   });
 }
 
-test("at 768 × 1024 (portrait) the canvas comes first and the panels below it", async ({ page }, testInfo) => {
+test("at 768 × 1024 (portrait) the canvas comes first and takes most of the height, the panels below it; folding them gives the photo the rest", async ({ page }, testInfo) => {
   const fixture = await createBenchUnit();
   await signInAs(page, "inspector@vellmoor.example");
   await uploadThroughApi(page.request, fixture.unitId, await partPhoto(1600, 1200), "front");
@@ -95,11 +95,23 @@ test("at 768 × 1024 (portrait) the canvas comes first and the panels below it",
   await page.goto(`/units/${fixture.unitId}`);
   const box = await stageBox(page);
   expect(box.y + box.height).toBeLessThanOrEqual(1024);
-  expect(box.height).toBeGreaterThan(1024 * 0.3);
+  expect(box.height, "the canvas takes most of the height").toBeGreaterThan(1024 * 0.5);
   const panels = (await page.getByTestId("side-panels").boundingBox())!;
   expect(panels.y).toBeGreaterThan(box.y + box.height);
   expect(await pageScroll(page)).toEqual({ y: 0, overflow: 0 });
   await page.screenshot({ path: testInfo.outputPath("bench-768x1024.png") });
+
+  // Folded, the panels are one row of section buttons and the canvas grows into their place (same top edge).
+  await page.getByTestId("fold-panels").click();
+  await expect(page.getByTestId("side-panels")).toHaveAttribute("data-folded", "true");
+  await expect.poll(async () => (await stageBox(page)).height).toBeGreaterThan(box.height + 150);
+  expect((await stageBox(page)).y).toBe(box.y);
+  // A section button brings the panels back with that section open.
+  await page.getByTestId("jump-grade").click();
+  await expect(page.getByTestId("side-panels")).toHaveAttribute("data-folded", "false");
+  await expect(page.locator("#panel-grade")).toBeInViewport(); // scrolled to the top of the short panel area
+  await expect.poll(async () => (await stageBox(page)).height).toBe(box.height);
+  expect(await pageScroll(page)).toEqual({ y: 0, overflow: 0 });
 });
 
 test("a photo filed under the wrong view is reassigned, a wrong one is removed with its reason, and after grading Take next opens the lot's next unit", async ({ page }) => {
