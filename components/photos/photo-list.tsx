@@ -9,9 +9,11 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import Link from "next/link";
 import { useState } from "react";
 import { FormMessage } from "@/components/ui/form-field";
+import { useTimeZone } from "@/components/ui/time-zone";
 import { apiFetch } from "@/lib/http/client";
 import type { PhotoDto } from "@/lib/photos/dto";
 import type { ViewChoice } from "@/lib/photos/views";
+import { formatDate } from "@/lib/time/format";
 import { photosInViewOrder } from "./photo-strip";
 import { photosQueryKey, usePhotos } from "./use-photos";
 
@@ -28,6 +30,7 @@ type PhotoListProps = {
 export function PhotoList({ unitId, views, canManage, beforeRemove }: PhotoListProps) {
   const queryClient = useQueryClient();
   const photos = usePhotos(unitId);
+  const timeZone = useTimeZone();
   const [message, setMessage] = useState<string | null>(null);
   const [notice, setNotice] = useState<string | null>(null);
   const refresh = () => queryClient.invalidateQueries({ queryKey: photosQueryKey(unitId) });
@@ -135,7 +138,7 @@ export function PhotoList({ unitId, views, canManage, beforeRemove }: PhotoListP
           <ul className="space-y-1 text-xs text-gauge-700">
             {removed.map((p) => (
               <li key={p.id} data-testid="removed-photo">
-                {labelOf(p.viewKey)} · {p.fileName}: “{p.removal?.reason}” — {p.removal?.byName ?? "someone"}, {p.removal?.at.slice(0, 10)}
+                {labelOf(p.viewKey)} · {p.fileName}: “{p.removal?.reason}” — {p.removal?.byName ?? "someone"}, {p.removal && formatDate(p.removal.at, timeZone)}
               </li>
             ))}
           </ul>
