@@ -11,13 +11,13 @@
  * - A lot counts in the month it was received (its `receivedOn`, a calendar date, so no time
  *   zone is involved), also for its decision, which may come later: the scorecard reads "of the
  *   lots received in March, so many were rejected".
- * - Per severity (ANSI/ASQ Z1.4 §3.2, "percent nonconforming", a): defective units ÷ units
- *   inspected for that severity × 100, with the lot verdict's counting (PRODUCT.md, "Lot verdict
- *   counting": a unit counts once per severity; each severity is judged on its own inspected
- *   units, which is why `bySeverity` carries its own `inspected`).
+ * - Per severity ("percent nonconforming", MIL-STD-105E / ANSI/ASQ Z1.4 section 3; b, from
+ *   memory): defective units ÷ units inspected for that severity × 100, counted as the lot
+ *   verdict counts them (lib/lots/verdict.ts: a unit counts once per severity; each severity is
+ *   judged on its own inspected units, which is why `bySeverity` carries its own `inspected`).
  * - Per defect class: units with at least one defect of the class ÷ units inspected × 100
- *   (percent of units affected), and separate defects ÷ units inspected × 100 (Z1.4 §3.3,
- *   "nonconformities per hundred units", a). The Pareto counts defects (nonconformities).
+ *   (percent of units affected), and separate defects ÷ units inspected × 100 ("nonconformities
+ *   per hundred units", same section, b). The Pareto counts defects (nonconformities).
  * - Rates of a month or a total are pooled: sums of counts divided by sums of inspected units,
  *   not a mean of per-lot rates (a 5-unit lot does not weigh as much as a 200-unit one).
  *   NaN where nothing was inspected (show "n/a").
