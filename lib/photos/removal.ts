@@ -28,7 +28,8 @@ import { originalDeletionBlockers } from "./deletion";
 import { viewOf } from "./intents";
 import { getPhoto, getUnitForPhotos } from "./queries";
 
-type Photo = NonNullable<Awaited<ReturnType<typeof getPhoto>>>;
+/** A unit's photo (gallery uploads have no unit: this is not their way out). */
+type Photo = NonNullable<Awaited<ReturnType<typeof getPhoto>>> & { unitId: string };
 
 const NOT_FOUND = "That photo";
 
@@ -46,9 +47,9 @@ async function openForWork(tx: Tx, actor: SessionUser, photo: Photo) {
 
 async function loadCurrentPhoto(actor: SessionUser, photoId: string): Promise<Photo> {
   const photo = await getPhoto({ workspaceId: actor.workspaceId, photoId });
-  if (!photo) throw notFound(NOT_FOUND);
+  if (!photo || photo.unitId === null) throw notFound(NOT_FOUND);
   if (photo.removedAt) throw new AppError("conflict", "This photo was already taken out of the unit; it is kept only as a record.");
-  return photo;
+  return { ...photo, unitId: photo.unitId };
 }
 
 export async function reassignPhotoView(actor: SessionUser, photoId: string, viewKey: string) {
