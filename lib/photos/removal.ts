@@ -40,7 +40,7 @@ async function openForWork(tx: Tx, actor: SessionUser, photo: Photo) {
   if (!unit || !detail) throw notFound(NOT_FOUND);
   if (detail.lot.status !== "open") throw new AppError("conflict", "This unit's lot is decided; its photos are part of the record and can no longer change.");
   if (unit.status !== "queued" && unit.status !== "on_bench") throw new AppError("conflict", `This unit is ${STATUS_LABELS[unit.status]}, so its photos are part of the record and can no longer change.`);
-  assertNotLeasedByOther(unit, actor, detail.leaseHolderName);
+  assertNotLeasedByOther(unit, actor);
   if (workClaimsUnit(unit)) await claimForWork(tx, actor, unit, "photos");
   return detail;
 }
