@@ -14,7 +14,7 @@ import "server-only";
  *   under (null when the part type has none published).
  * - Regions are validated as on the Bench (size, classes, shapes) plus the gallery's smaller budget.
  */
-import { db, type DbOrTx } from "@/db/client";
+import { transaction, type DbOrTx } from "@/db/client";
 import { logActivity } from "@/db/queries/activity";
 import { findActiveItemForPhoto, getUnitPhotoForPromotion, lockPhotoForItems, insertGalleryItem, lockGalleryItem, updateGalleryItem, type GalleryItemPatch } from "@/db/queries/gallery";
 import { listPhotoRegions } from "@/db/queries/regions";
@@ -23,7 +23,7 @@ import type { GalleryItemRow } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/require-user";
 import { AppError, notFound } from "@/lib/errors";
 import { parseRegionSet, type RegionSetPayload } from "@/lib/geometry/validate";
-import { getPhoto } from "@/lib/photos/queries";
+import { getPhoto } from "@/db/queries/photos";
 import { payloadFromRows } from "@/lib/regions/payload";
 import { STATUS_LABELS } from "@/lib/units/state-machine";
 import type { GalleryItemDto } from "./dto";
@@ -56,7 +56,7 @@ export async function promotePhoto(editor: Editor, input: PromoteInput): Promise
     throw new AppError("conflict", `Only a graded unit's photo can be added to the gallery; this unit is ${STATUS_LABELS[unit.status]}. Grade it first.`);
   }
   const regions = payloadFromRows(await listPhotoRegions(key));
-  const itemId = await db().transaction(async (tx) => {
+  const itemId = await transaction(async (tx) => {
     await lockPhotoForItems(tx, key);
     const existing = await findActiveItemForPhoto(key, tx);
     if (existing) throw new AppError("conflict", `This photo is already in the gallery (a ${existing.status} item); open that item instead.`, { fieldErrors: { photoId: existing.id } });
@@ -113,7 +113,7 @@ async function getPhotoSize(editor: Editor, item: GalleryItemRow, tx: DbOrTx): P
 }
 
 export async function editItem(editor: Editor, itemId: string, input: EditItemInput): Promise<GalleryItemDto> {
-  await db().transaction(async (tx) => {
+  await transaction(async (tx) => {
     const item = await lockForChange(tx, editor, itemId, input.revision, "edit");
     const patch: GalleryItemPatch = {};
     if (input.caption !== undefined) patch.caption = input.caption;
@@ -134,7 +134,7 @@ export async function editItem(editor: Editor, itemId: string, input: EditItemIn
 }
 
 export async function publishItem(editor: Editor, itemId: string, input: TransitionInput): Promise<GalleryItemDto> {
-  await db().transaction(async (tx) => {
+  await transaction(async (tx) => {
     const item = await lockForChange(tx, editor, itemId, input.revision, "publish");
     const photo = await getPhoto({ workspaceId: editor.workspaceId, photoId: item.photoId }, tx);
     const problems = publishProblems({ kind: item.kind, grade: item.grade, caption: item.caption, regions: item.regions, photoReady: photo?.status === "ready" });
@@ -146,7 +146,7 @@ export async function publishItem(editor: Editor, itemId: string, input: Transit
 }
 
 export async function retireItem(editor: Editor, itemId: string, input: TransitionInput): Promise<GalleryItemDto> {
-  await db().transaction(async (tx) => {
+  await transaction(async (tx) => {
     const item = await lockForChange(tx, editor, itemId, input.revision, "retire");
     await updateGalleryItem(tx, { workspaceId: editor.workspaceId, itemId, actorId: editor.id, patch: { status: "retired", retiredAt: new Date() } });
     await logActivity(tx, { workspaceId: editor.workspaceId, actorId: editor.id, action: "gallery.retired", subjectType: "gallery_item", subjectId: itemId, detail: { from: item.status } });

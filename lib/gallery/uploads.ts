@@ -16,7 +16,7 @@ import "server-only";
  */
 import { randomUUID } from "node:crypto";
 import { z } from "zod";
-import { db } from "@/db/client";
+import { transaction } from "@/db/client";
 import { logActivity } from "@/db/queries/activity";
 import { findActiveItemForPhoto, insertGalleryItem, lockPhotoForItems } from "@/db/queries/gallery";
 import { getGradingPartType, getLatestPublished } from "@/db/queries/rubrics";
@@ -28,7 +28,7 @@ import { photoSettings } from "@/lib/photos/config";
 import { storeUpload, type FinaliseOptions } from "@/lib/photos/finalise";
 import { stagingKey } from "@/lib/photos/object-keys";
 import { checkDeclaredUpload } from "@/lib/photos/precheck";
-import { getPhoto } from "@/lib/photos/queries";
+import { getPhoto } from "@/db/queries/photos";
 import type { FinaliseInput } from "@/lib/photos/schemas";
 import { signToken, verifyToken } from "@/lib/signing/signed-token";
 import { checkStore, objectStore, presignPut, type ObjectStore } from "@/lib/storage/s3";
@@ -114,7 +114,7 @@ export async function finaliseGalleryUpload(actor: SessionUser, input: FinaliseI
 /** The draft for this upload, made once (a repeated finalise finds it). */
 async function ensureItem(actor: SessionUser, ticket: GalleryTicket): Promise<{ id: string; created: boolean }> {
   const key = { workspaceId: actor.workspaceId, photoId: ticket.photoId };
-  return db().transaction(async (tx) => {
+  return transaction(async (tx) => {
     await lockPhotoForItems(tx, key);
     const existing = await findActiveItemForPhoto(key, tx);
     if (existing) return { id: existing.id, created: false };
