@@ -4,8 +4,8 @@ import { db } from "@/db/client";
 import { logActivity } from "@/db/queries/activity";
 import { getUnitDetail, lockUnit } from "@/db/queries/units";
 import { checklistResults, units } from "@/db/schema";
+import { can } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/require-user";
-import { hasAnyRole } from "@/lib/auth/roles";
 import { env } from "@/lib/env";
 import { AppError, notFound } from "@/lib/errors";
 import { assertNotLeasedByOther } from "@/lib/queue/queue";
@@ -34,10 +34,10 @@ export async function recordChecklistResult(actor: SessionUser, unitId: string, 
     if (!item) throw new AppError("bad_request", `“${input.itemId}” is not an item of the ${detail.partType.name} checklist.`, { fieldErrors: { itemId: "Unknown checklist item." } });
     const evaluation = evaluateChecklistItem(item, input.value);
 
-    const isLead = hasAnyRole(actor.roles, "lead");
-    if (!isLead) assertNotLeasedByOther(unit, actor, detail.leaseHolderName);
+    const managesLeases = can(actor, "leases.manage");
+    if (!managesLeases) assertNotLeasedByOther(unit, actor, detail.leaseHolderName);
     const leaseRunning = unit.status === "on_bench" && unit.leaseExpiresAt !== null && unit.leaseExpiresAt > new Date();
-    if (unit.status === "queued" || (!isLead && !leaseRunning)) {
+    if (unit.status === "queued" || (!managesLeases && !leaseRunning)) {
       // Queued, or on a bench whose lease ran out: the recorder takes it (release first if needed).
       const status = transition(unit.status === "queued" ? "queued" : transition(unit.status, "release"), "claim");
       await tx

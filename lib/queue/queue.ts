@@ -3,7 +3,7 @@ import { sql, type SQL } from "drizzle-orm";
 import { db, executePrepared, type Tx } from "@/db/client";
 import type { UnitStatus } from "@/db/schema/lots";
 import { logActivity } from "@/db/queries/activity";
-import { hasAnyRole } from "@/lib/auth/roles";
+import { can } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/require-user";
 import { env } from "@/lib/env";
 import { AppError, notFound } from "@/lib/errors";
@@ -181,8 +181,8 @@ export async function renewLease({ user, unitId }: { user: SessionUser; unitId: 
 export async function releaseUnit({ user, unitId }: { user: SessionUser; unitId: string }) {
   await db().transaction(async (tx) => {
     const unit = await lockUnit(tx, user, unitId);
-    const isLead = hasAnyRole(user.roles, "lead");
-    if (unit.status === ON_BENCH && unit.lease_holder_id !== user.id && !isLead) {
+    const managesLeases = can(user, "leases.manage");
+    if (unit.status === ON_BENCH && unit.lease_holder_id !== user.id && !managesLeases) {
       throw new AppError("forbidden", `This unit is on ${unit.holder_name ?? "another inspector"}'s bench; only they or a lead can put it back.`);
     }
     const next = transition(unit.status, "release");

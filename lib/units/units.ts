@@ -7,8 +7,8 @@ import { logActivity } from "@/db/queries/activity";
 import { lockLot } from "@/db/queries/lots";
 import { countLotUnits, getUnitDetail, lockUnit } from "@/db/queries/units";
 import { lots, units, type SampleDraw } from "@/db/schema";
+import { can } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/require-user";
-import { hasAnyRole } from "@/lib/auth/roles";
 import { AppError, notFound } from "@/lib/errors";
 import { assertNotLeasedByOther } from "@/lib/queue/queue";
 import { DRAW_ALGORITHM, drawSample } from "./sample-draw";
@@ -96,7 +96,7 @@ export async function setUnitSerial(actor: SessionUser, unitId: string, serial: 
       if (detail.lot.status !== "open") throw new AppError("conflict", "This unit's lot is decided; its serial can no longer change.");
       if (!unit.placeholder) throw new AppError("conflict", "This unit's serial came from the supplier's list and cannot be edited here.", { fieldErrors: { serial: "Imported serials are fixed." } });
       if (unit.status !== "queued" && unit.status !== "on_bench") throw new AppError("conflict", "This unit is graded; its serial can no longer change.");
-      if (!hasAnyRole(actor.roles, "lead")) assertNotLeasedByOther(unit, actor, detail.leaseHolderName);
+      if (!can(actor, "leases.manage")) assertNotLeasedByOther(unit, actor, detail.leaseHolderName);
       const [row] = await tx
         .update(units)
         .set({ serial, updatedAt: new Date() })

@@ -5,8 +5,8 @@ import { EmptyState } from "@/components/ui/empty-state";
 import { db } from "@/db/client";
 import { getSetupCounts } from "@/db/queries/workspaces";
 import { lots, partTypes, suppliers } from "@/db/schema";
+import { can } from "@/lib/auth/permissions";
 import { requirePageUser } from "@/lib/auth/require-user";
-import { hasAnyRole } from "@/lib/auth/roles";
 import { screenByHref } from "@/lib/nav";
 import { setupSteps } from "@/lib/workspace/setup";
 
@@ -14,7 +14,7 @@ const screen = screenByHref("/queue")!;
 export const metadata: Metadata = { title: screen.label };
 
 export default async function QueuePage() {
-  const user = await requirePageUser({ role: screen.roles, from: screen.href });
+  const user = await requirePageUser({ permission: screen.permission, from: screen.href });
   const ws = user.workspaceId;
   const [counts, pts, sups, openLots] = await Promise.all([
     getSetupCounts({ workspaceId: ws }),
@@ -33,7 +33,7 @@ export default async function QueuePage() {
         <p className="text-gauge-700">Take next gives you the most urgent waiting unit (earliest due lot first) and reserves it for you while its Bench is open.</p>
       </div>
       {counts.units === 0 && (
-        <EmptyState title="Nothing to inspect yet" steps={hasAnyRole(user.roles, "lead") ? setupSteps(counts).filter((s) => s.key === "lot") : []} testId="queue-empty">
+        <EmptyState title="Nothing to inspect yet" steps={can(user, "workspace.manage") ? setupSteps(counts).filter((s) => s.key === "lot") : []} testId="queue-empty">
           Units arrive here when a QC lead receives a lot and creates its sample (from the supplier&apos;s serial list or as numbered placeholders).
         </EmptyState>
       )}
