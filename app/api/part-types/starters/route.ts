@@ -1,4 +1,4 @@
-import { db } from "@/db/client";
+import { transaction } from "@/db/client";
 import { handler, parseJson } from "@/lib/http/route";
 import { starterRequestSchema } from "@/lib/part-types/schemas";
 import { addStarterPartTypes } from "@/lib/part-types/starters";
@@ -9,6 +9,6 @@ import { addStarterPartTypes } from "@/lib/part-types/starters";
  */
 export const POST = handler({ permission: "part-types.edit" }, async (req, _ctx, user) => {
   const { slugs } = await parseJson(req, starterRequestSchema);
-  const created = await db().transaction((tx) => addStarterPartTypes(tx, { workspaceId: user.workspaceId, actorId: user.id, slugs }));
+  const created = await transaction((tx) => addStarterPartTypes(tx, { workspaceId: user.workspaceId, actorId: user.id, slugs }));
   return Response.json({ created, skipped: slugs.length - created.length }, { status: 201 });
 });

@@ -2,7 +2,7 @@ import { notFound } from "@/lib/errors";
 import { handler, parseJson } from "@/lib/http/route";
 import { toPhotoDto } from "@/lib/photos/dto";
 import { dismissFailedPhoto } from "@/lib/photos/manage";
-import { getPhotoWithContext } from "@/lib/photos/queries";
+import { getPhotoWithContext } from "@/db/queries/photos";
 import { reassignPhotoView } from "@/lib/photos/removal";
 import { photoViewSchema } from "@/lib/photos/schemas";
 import { parseId } from "@/lib/validation";

@@ -3,7 +3,7 @@ import { toPhotoDto } from "@/lib/photos/dto";
 import { finaliseUpload } from "@/lib/photos/finalise";
 import { answeringRejections } from "@/lib/photos/http";
 import { loadUnit } from "@/lib/photos/intents";
-import { listUnitPhotos } from "@/lib/photos/queries";
+import { listUnitPhotos } from "@/db/queries/photos";
 import { finaliseQuerySchema, finaliseSchema } from "@/lib/photos/schemas";
 import { parseId } from "@/lib/validation";
 
