@@ -1,5 +1,3 @@
-import { requireUser } from "@/lib/auth/require-user";
-import { GALLERY_EDITORS } from "@/lib/gallery/access";
 import { finaliseGalleryUpload } from "@/lib/gallery/uploads";
 import { handler, parseJson, parseQuery } from "@/lib/http/route";
 import { answeringRejections } from "@/lib/photos/http";
@@ -10,8 +8,7 @@ import { finaliseQuerySchema, finaliseSchema } from "@/lib/photos/schemas";
  * item for a repeated request, 202 while the photo is still processing (send the same ticket
  * again), 4xx for a refused file (nothing is kept).
  */
-export const POST = handler(async (req) => {
-  const user = await requireUser({ role: GALLERY_EDITORS });
+export const POST = handler({ permission: "gallery.edit" }, async (req, _ctx, user) => {
   const query = parseQuery(req, finaliseQuerySchema);
   const input = await parseJson(req, finaliseSchema);
   return answeringRejections(async () => {
