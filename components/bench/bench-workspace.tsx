@@ -3,6 +3,7 @@
 import { useQuery, useQueryClient } from "@tanstack/react-query";
 import { useMemo, useState } from "react";
 import type { AllowedDefect } from "@/components/annotate/types";
+import { AddToGallery } from "@/components/gallery/add-to-gallery";
 import { GradeBadge } from "@/components/grading/grade-badge";
 import { GradeHistory } from "@/components/grading/grade-history";
 import { GradePanel, type MeasurementLabels } from "@/components/grading/grade-panel";
@@ -40,6 +41,8 @@ type BenchWorkspaceProps = {
   partType: BenchPartType;
   rubricVersions: { version: number; status: "draft" | "published" }[];
   initialPhotoId: string | null;
+  /** May add a graded unit's photo to the Gallery (trainers and leads). */
+  canPromote: boolean;
 };
 
 const BANNER_TONE = { held: "border-signal-500 bg-signal-50 text-signal-700", closed: "border-gauge-300 bg-gauge-50 text-gauge-800", "view-only": "border-gauge-300 bg-gauge-50 text-gauge-800" } as const;
@@ -51,7 +54,7 @@ const BANNER_TONE = { held: "border-signal-500 bg-signal-50 text-signal-700", cl
  * photos) in a column that folds. Landscape screens put the panels beside the canvas, portrait
  * ones below it. Owns the selected photo and the tool in hand; the panels own their own data.
  */
-export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersions, initialPhotoId }: BenchWorkspaceProps) {
+export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersions, initialPhotoId, canPromote }: BenchWorkspaceProps) {
   const unitId = initial.unit.id;
   const queryClient = useQueryClient();
   const { data: view } = useUnit(unitId, initial);
@@ -78,6 +81,7 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
   const selectedView = selected ? partType.views.find((v) => v.key === selected.viewKey) : undefined;
   const canUpload = me.canRecord && (view.unit.status === "queued" || view.unit.status === "on_bench");
   const noPhotos = photos.isSuccess && photos.data.photos.length === 0;
+  const graded = view.unit.status === "graded" || view.unit.status === "in_recheck" || view.unit.status === "final";
   // A unit without photos opens with the uploader where the canvas will be; later it opens over the
   // canvas on demand. Decided once, when the photos first load, so the uploader does not close under
   // the inspector when the first upload turns into a photo.
@@ -198,6 +202,7 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
                     </button>
                   </div>
                 )}
+                {canPromote && graded && selected && <AddToGallery key={selected.id} photoId={selected.id} />}
                 <div ref={setStatusSlot} className="text-xs" />
               </div>
             }

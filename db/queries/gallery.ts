@@ -260,3 +260,22 @@ export async function deleteUnusedGalleryPhoto(tx: DbOrTx, { workspaceId, photoI
     .returning({ originalKey: photos.originalKey, previewKey: photos.previewKey, thumbnailKey: photos.thumbnailKey });
   return row ?? null;
 }
+
+/** Recently graded units (with their current grade), newest grade first: where trainers find photos to promote. */
+export function listRecentlyGradedUnits({ workspaceId, limit }: { workspaceId: string; limit: number }) {
+  const latest = db()
+    .selectDistinctOn([grades.unitId], { unitId: grades.unitId, finalGrade: grades.finalGrade, gradedAt: grades.createdAt })
+    .from(grades)
+    .where(eq(grades.workspaceId, workspaceId))
+    .orderBy(grades.unitId, desc(grades.createdAt), desc(grades.id))
+    .as("latest_grade");
+  return db()
+    .select({ id: units.id, serial: units.serial, sampleIndex: units.sampleIndex, purchaseRef: lots.purchaseRef, partTypeName: partTypes.name, grade: latest.finalGrade, gradedAt: latest.gradedAt })
+    .from(units)
+    .innerJoin(latest, eq(latest.unitId, units.id))
+    .innerJoin(lots, eq(lots.id, units.lotId))
+    .innerJoin(partTypes, eq(partTypes.id, units.partTypeId))
+    .where(and(eq(units.workspaceId, workspaceId), inArray(units.status, ["graded", "in_recheck", "final"])))
+    .orderBy(desc(latest.gradedAt))
+    .limit(limit);
+}
