@@ -43,7 +43,7 @@ export function ItemEditor({ item, partType, onDone }: { item: GalleryItemDto; p
   };
   const dirty = regionsChanged || caption !== item.caption || grade !== item.grade || kind !== item.kind;
   return (
-    <div className="grid gap-4 lg:grid-cols-[minmax(0,1fr)_22rem]" data-testid="gallery-editor">
+    <div className="grid gap-4 lg:grid-cols-[minmax(0,1fr)_24rem]" data-testid="gallery-editor">
       <ItemCanvas
         item={item}
         regions={item.regions}

@@ -88,7 +88,7 @@ export function GalleryItemScreen({ initial, partType, canEdit }: { initial: Gal
       {editing ? (
         <ItemEditor key={item.revision} item={item} partType={partType} onDone={() => setEditing(false)} />
       ) : (
-        <div className="grid gap-4 lg:grid-cols-[minmax(0,1fr)_22rem]">
+        <div className="grid gap-4 lg:grid-cols-[minmax(0,1fr)_24rem]">
           <ItemCanvas key={item.revision} item={item} regions={item.regions} partType={partType} readOnly />
           <aside className="space-y-3" aria-label="About this example">
             <section className="card space-y-2 p-4">
