@@ -1,18 +1,21 @@
 "use client";
 
 import Link from "next/link";
-import { useEffect, useRef } from "react";
+import { useEffect, useRef, useState } from "react";
 import type { GalleryCardDto } from "@/lib/gallery/dto";
 import { ItemBadges } from "./item-badges";
 import { RegionOverlay } from "./region-overlay";
 
 /**
- * A reference example beside the photo being marked: laid over the right-hand part of the marking
- * area (never beside it in the layout, so the canvas keeps its size and place), with its regions,
- * grade and caption. Escape or Close puts it away and gives the keyboard back to where it was.
+ * A reference example beside the photo being marked: laid over the right-hand part of the photo
+ * (never beside it in the layout, so the canvas keeps its size and place), below the class bar so
+ * every class stays in reach, with its regions, grade and caption. Escape or Close puts it away
+ * and gives the keyboard back to where it was.
  */
 export function ReferenceViewer({ item, classLabels, classKeys, onClose }: { item: GalleryCardDto; classLabels: Readonly<Record<string, string>>; classKeys: readonly string[]; onClose: () => void }) {
   const closeRef = useRef<HTMLButtonElement>(null);
+  const rootRef = useRef<HTMLElement>(null);
+  const top = useStageTop(rootRef);
   useEffect(() => {
     const before = document.activeElement as HTMLElement | null;
     closeRef.current?.focus({ preventScroll: true });
@@ -21,7 +24,9 @@ export function ReferenceViewer({ item, classLabels, classKeys, onClose }: { ite
   const { photo } = item;
   return (
     <aside
-      className="absolute inset-y-0 right-0 z-30 flex w-[min(46%,28rem)] flex-col gap-2 rounded-lg border border-gauge-300 bg-white p-2 shadow-xl"
+      ref={rootRef}
+      style={{ top }}
+      className="absolute right-0 bottom-0 z-30 flex w-[min(44%,28rem)] flex-col gap-2 rounded-lg border border-gauge-300 bg-white p-2 shadow-xl"
       aria-label="Reference example"
       data-testid="reference-viewer"
       data-item-id={item.id}
@@ -58,4 +63,22 @@ export function ReferenceViewer({ item, classLabels, classKeys, onClose }: { ite
       </Link>
     </aside>
   );
+}
+
+/** How far below the top of the viewer's container the photo's stage starts (the class bar's height), kept up to date. */
+function useStageTop(ref: React.RefObject<HTMLElement | null>): number {
+  const [top, setTop] = useState(0);
+  useEffect(() => {
+    const container = ref.current?.parentElement;
+    if (!container) return;
+    const measure = () => {
+      const stage = container.querySelector<HTMLElement>("[data-testid=annotation-stage]");
+      setTop(stage ? Math.max(0, stage.getBoundingClientRect().top - container.getBoundingClientRect().top) : 0);
+    };
+    measure();
+    const observer = new ResizeObserver(measure);
+    observer.observe(container);
+    return () => observer.disconnect();
+  }, [ref]);
+  return top;
 }
