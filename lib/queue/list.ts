@@ -41,19 +41,28 @@ type Raw = {
   lease_expires_at: Date | null;
 };
 
+export type QueuePage = { units: QueueRow[]; nextCursor: string | null; prevCursor: string | null };
+
+const keyOf = (r: Raw) => encodeCursor({ dueOn: r.lot_due_on, receivedOn: r.lot_received_on, lotCreatedAt: r.lot_created_at, lotId: r.lot_id, sampleIndex: r.sample_index, id: r.id });
+
 /**
  * One keyset page of the queue (waiting units and units on a bench, in open lots), in Take next
- * order. The cursor is the last row's sort key; no OFFSET, so deep pages cost the same as the first.
+ * order: the units after `cursor`, or the units just before `before` (the page before a page, for
+ * Previous; walked backwards on the same index). A cursor is a row's sort key; no OFFSET, so deep
+ * pages cost the same as the first. `nextCursor` / `prevCursor` open the pages on either side (null
+ * when nothing is there; after a `before` page the page it came from is assumed to follow).
  */
-export async function listQueue({ workspaceId, filters, cursor, limit }: { workspaceId: string; filters: QueueFilters; cursor?: string; limit: number }) {
-  const after: QueueKey | null = cursor ? decodeCursor(cursor) : null;
-  const keyset = after
+export async function listQueue({ workspaceId, filters, cursor, before, limit }: { workspaceId: string; filters: QueueFilters; cursor?: string; before?: string; limit: number }): Promise<QueuePage> {
+  const backwards = before !== undefined;
+  const from: QueueKey | null = before !== undefined ? decodeCursor(before) : cursor ? decodeCursor(cursor) : null;
+  const keyset = from
     ? sql`AND (u.lot_due_on, u.lot_received_on, u.lot_created_at, u.lot_id, u.sample_index, u.id)
-          > (${after.dueOn}::date, ${after.receivedOn}::date, ${after.lotCreatedAt}::timestamptz, ${after.lotId}::uuid, ${after.sampleIndex}, ${after.id}::uuid)`
+          ${backwards ? sql.raw("<") : sql.raw(">")} (${from.dueOn}::date, ${from.receivedOn}::date, ${from.lotCreatedAt}::timestamptz, ${from.lotId}::uuid, ${from.sampleIndex}, ${from.id}::uuid)`
     : sql``;
+  const direction = sql.raw(backwards ? "DESC" : "ASC");
   // The page is cut from units alone (walking units_open_queue_idx, or the part type's or
-  // supplier's units_open_by_* index, in order), then the few rows are joined; joining first lets
-  // the planner misjudge the row count and sort the whole queue.
+  // supplier's units_open_by_* index, in order — backwards for a previous page), then the few rows
+  // are joined; joining first lets the planner misjudge the row count and sort the whole queue.
   const { rows } = await executePrepared<Raw>(sql`
     WITH page AS MATERIALIZED (
       SELECT u.* FROM units u
@@ -62,7 +71,7 @@ export async function listQueue({ workspaceId, filters, cursor, limit }: { works
         AND EXISTS (SELECT 1 FROM lots l WHERE l.id = u.lot_id AND l.status = 'open')
         ${filterSql(filters)}
         ${keyset}
-      ORDER BY u.lot_due_on, u.lot_received_on, u.lot_created_at, u.lot_id, u.sample_index, u.id
+      ORDER BY u.lot_due_on ${direction}, u.lot_received_on ${direction}, u.lot_created_at ${direction}, u.lot_id ${direction}, u.sample_index ${direction}, u.id ${direction}
       LIMIT ${limit + 1}
     )
     SELECT u.id, u.serial, u.sample_index, u.status, (u.lease_expires_at > now()) AS lease_active,
@@ -76,7 +85,10 @@ export async function listQueue({ workspaceId, filters, cursor, limit }: { works
     JOIN suppliers s ON s.id = u.supplier_id
     LEFT JOIN users h ON h.id = u.lease_holder_id
     ORDER BY u.lot_due_on, u.lot_received_on, u.lot_created_at, u.lot_id, u.sample_index, u.id`);
-  const page = rows.slice(0, limit);
+  const more = rows.length > limit;
+  // The extra row read to know whether more follow is the farthest one: last going forwards, first going back.
+  const page = more ? (backwards ? rows.slice(1) : rows.slice(0, limit)) : rows;
+  const first = page.at(0);
   const last = page.at(-1);
   return {
     units: page.map(
@@ -98,10 +110,8 @@ export async function listQueue({ workspaceId, filters, cursor, limit }: { works
             : null,
       }),
     ),
-    nextCursor:
-      rows.length > limit && last
-        ? encodeCursor({ dueOn: last.lot_due_on, receivedOn: last.lot_received_on, lotCreatedAt: last.lot_created_at, lotId: last.lot_id, sampleIndex: last.sample_index, id: last.id })
-        : null,
+    nextCursor: last && (backwards || more) ? keyOf(last) : null,
+    prevCursor: first && (backwards ? more : from !== null) ? keyOf(first) : null,
   };
 }
 

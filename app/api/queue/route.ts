@@ -5,6 +5,6 @@ import { queueListQuerySchema } from "@/lib/queue/schemas";
 
 export const GET = handler(async (req) => {
   const user = await requireUser({ role: "inspector" });
-  const { cursor, limit, ...filters } = parseQuery(req, queueListQuerySchema);
-  return Response.json(await listQueue({ workspaceId: user.workspaceId, filters, cursor, limit }));
+  const { cursor, before, limit, ...filters } = parseQuery(req, queueListQuerySchema);
+  return Response.json(await listQueue({ workspaceId: user.workspaceId, filters, cursor, before, limit }));
 });
