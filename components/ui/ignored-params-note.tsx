@@ -4,7 +4,7 @@ export function IgnoredParamsNote({ ignored, labels }: { ignored: readonly strin
   const names = [...new Set(ignored.map((key) => labels[key] ?? `“${key}”`))];
   return (
     <p role="status" className="rounded-md bg-signal-50 px-3 py-2 text-sm text-signal-700" data-testid="ignored-params">
-      Part of this link could not be used and is left out ({names.join(", ")}): the list shows {names.length === 1 ? "its default" : "their defaults"} instead.
+      Part of this link could not be used and is left out: {names.join(", ")}. The list shows {names.length === 1 ? "its default" : "their defaults"} instead.
     </p>
   );
 }

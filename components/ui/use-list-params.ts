@@ -15,13 +15,13 @@ export type HistoryMode = "push" | "replace";
  * (the back button undoes them); typing in a search box replaces it.
  *
  * `pageKeys` are reset to their defaults whenever a filter changes (`setFilters`), so a narrower
- * filter never opens on a page that no longer exists.
+ * filter never opens on a page that no longer exists, and when a link's filter is left out.
  */
 export function useListParams<T extends ParamValues>(schema: z.ZodType<T>, options: { allowed?: AllowedValues<T>; pageKeys?: readonly (keyof T)[] } = {}) {
   const searchParams = useSearchParams();
   const pathname = usePathname();
   const { allowed, pageKeys } = options;
-  const { params, ignored } = useMemo(() => readListParams(schema, new URLSearchParams(searchParams.toString()), { allowed }), [schema, searchParams, allowed]);
+  const { params, ignored } = useMemo(() => readListParams(schema, new URLSearchParams(searchParams.toString()), { allowed, pageKeys }), [schema, searchParams, allowed, pageKeys]);
 
   const hrefFor = useCallback((next: T) => `${pathname}${listParamsSearch(schema, next)}`, [pathname, schema]);
   const go = useCallback(

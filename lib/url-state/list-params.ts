@@ -6,6 +6,8 @@
  *   screen's options (another workspace's supplier, a lot closed since the link was copied) is
  *   left out and its key reported in `ignored`: the screen shows its default for it and says so,
  *   never an error page.
+ * - When a filter is left out, the page keys go too: a page number or cursor belongs to the
+ *   filtered list it was taken from.
  * - The written query string leaves out defaults and empty values, in the schema's key order, so
  *   one view has one URL.
  * Every key of the schema must be optional or have a default (`schema.parse({})` must succeed).
@@ -41,7 +43,7 @@ export function defaultParams<T extends ParamValues>(schema: z.ZodType<T>): T {
 }
 
 /** Reads a list's state from its query string; what cannot be used is left out and named in `ignored`. */
-export function readListParams<T extends ParamValues>(schema: z.ZodType<T>, raw: RawSearchParams, options: { allowed?: AllowedValues<T> } = {}): ReadParams<T> {
+export function readListParams<T extends ParamValues>(schema: z.ZodType<T>, raw: RawSearchParams, options: { allowed?: AllowedValues<T>; pageKeys?: readonly (keyof T)[] } = {}): ReadParams<T> {
   const { values, repeated } = singleValues(raw);
   const ignored = new Set(repeated);
   const input: Record<string, string> = { ...values };
@@ -70,6 +72,15 @@ export function readListParams<T extends ParamValues>(schema: z.ZodType<T>, raw:
   for (const [key, allowedValues] of Object.entries(options.allowed ?? {}) as [string, readonly string[] | undefined][]) {
     const value = result[key];
     if (allowedValues && value !== undefined && value !== defaults[key] && !allowedValues.includes(String(value))) {
+      if (defaults[key] === undefined) delete result[key];
+      else result[key] = defaults[key];
+      ignored.add(key);
+    }
+  }
+  const pageKeys = (options.pageKeys ?? []) as readonly string[];
+  if ([...ignored].some((key) => !pageKeys.includes(key))) {
+    for (const key of pageKeys) {
+      if (result[key] === undefined || result[key] === defaults[key]) continue;
       if (defaults[key] === undefined) delete result[key];
       else result[key] = defaults[key];
       ignored.add(key);

@@ -13,7 +13,7 @@ import { getSetupCounts } from "@/db/queries/workspaces";
 import { requirePageUser } from "@/lib/auth/require-user";
 import { hasAnyRole } from "@/lib/auth/roles";
 import { lotPage } from "@/lib/lots/list";
-import { lotListAllowed, lotListParamsSchema } from "@/lib/lots/list-params";
+import { LOT_LIST_PAGE_KEYS, lotListAllowed, lotListParamsSchema } from "@/lib/lots/list-params";
 import type { LotListQuery } from "@/lib/lots/schemas";
 import { screenByHref } from "@/lib/nav";
 import { lotKeys } from "@/lib/query-keys/lots";
@@ -43,7 +43,7 @@ export default async function LotsPage(props: PageProps<"/lots">) {
   ]);
   const options: LotFilterOptions = { suppliers: suppliers.map((s) => ({ id: s.id, name: s.name })), partTypes: partTypes.map((p) => ({ id: p.id, name: p.name })) };
   // The same reading the browser makes of the URL (bad values fall back, and the filters say so).
-  const { params } = readListParams(lotListParamsSchema, search, { allowed: lotListAllowed(options) });
+  const { params } = readListParams(lotListParamsSchema, search, { allowed: lotListAllowed(options), pageKeys: LOT_LIST_PAGE_KEYS });
   const isLead = hasAnyRole(user.roles, "lead");
   return (
     <div className="max-w-7xl space-y-6">

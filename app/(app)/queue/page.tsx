@@ -13,7 +13,7 @@ import { requirePageUser } from "@/lib/auth/require-user";
 import { hasAnyRole } from "@/lib/auth/roles";
 import { screenByHref } from "@/lib/nav";
 import { listQueue } from "@/lib/queue/list";
-import { queueListAllowed, queueListParamsSchema, type QueueFilterOptions, type QueueListParams } from "@/lib/queue/list-params";
+import { QUEUE_LIST_PAGE_KEYS, queueListAllowed, queueListParamsSchema, type QueueFilterOptions, type QueueListParams } from "@/lib/queue/list-params";
 import { queueKeys } from "@/lib/query-keys/queue";
 import { QUEUE_PAGE_SIZE } from "@/lib/queue/schemas";
 import { readListParams } from "@/lib/url-state/list-params";
@@ -49,7 +49,7 @@ export default async function QueuePage(props: PageProps<"/queue">) {
   ]);
   const options: QueueFilterOptions = { partTypes: pts, suppliers: sups, lots: openLots.map((l) => ({ id: l.id, label: `${l.purchaseRef} (due ${l.dueOn})` })) };
   // The same reading the browser makes of the URL (bad values fall back, and the controls say so).
-  const { params } = readListParams(queueListParamsSchema, search, { allowed: queueListAllowed(options) });
+  const { params } = readListParams(queueListParamsSchema, search, { allowed: queueListAllowed(options), pageKeys: QUEUE_LIST_PAGE_KEYS });
   return (
     <div className="max-w-6xl space-y-4">
       <div>

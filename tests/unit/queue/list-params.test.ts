@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { encodeCursor, readCursor } from "@/lib/queue/cursor";
-import { queueApiSearch, queueListAllowed, queueListParamsSchema } from "@/lib/queue/list-params";
+import { QUEUE_LIST_PAGE_KEYS, queueApiSearch, queueListAllowed, queueListParamsSchema } from "@/lib/queue/list-params";
 import { listParamsSearch, readListParams } from "@/lib/url-state/list-params";
 
 const LOT = "3c1d2e4f-5a6b-4c7d-8e9f-a0b1c2d3e4f5";
@@ -38,5 +38,18 @@ describe("the Queue's URL state", () => {
     const params = { lotId: LOT, before: cursor, page: 3 };
     expect(queueApiSearch(params)).toBe(`?lotId=${LOT}&before=${cursor}`);
     expect(listParamsSearch(queueListParamsSchema, params)).toBe(`?lotId=${LOT}&before=${cursor}&page=3`);
+  });
+});
+
+describe("a link whose filter is left out", () => {
+  it("opens on the first page: its cursor belonged to the filtered list", () => {
+    const cursor = encodeCursor(key);
+    const closedLot = "11111111-2222-4333-8444-555555555555";
+    const { params, ignored } = readListParams(queueListParamsSchema, new URLSearchParams(`lotId=${closedLot}&cursor=${cursor}&page=2`), {
+      allowed: queueListAllowed(options),
+      pageKeys: QUEUE_LIST_PAGE_KEYS,
+    });
+    expect(params).toEqual({});
+    expect(ignored).toEqual(["lotId", "cursor", "page"]);
   });
 });
