@@ -6,7 +6,7 @@ import { expect, test } from "@playwright/test";
 import { testDb } from "./db";
 import { signInAs } from "./support";
 
-test("a mistyped id or another workspace's id shows the segment's not-found, with the way back", async ({ page }) => {
+test("a mistyped id or another workspace's id shows the segment's not-found, with the way back", async ({ page, browser }) => {
   // Rows of the demo company (Vellmoor), opened by the second company's lead.
   const { rows } = await testDb().query(
     `SELECT (SELECT l.id FROM lots l WHERE l.workspace_id = w.id LIMIT 1) AS lot,
@@ -33,9 +33,15 @@ test("a mistyped id or another workspace's id shows the segment's not-found, wit
     // Inside the signed-in frame: the navigation is still there.
     await expect(page.getByRole("navigation", { name: "Main" }).first()).toBeVisible();
   }
-  // The same rows open for their own company.
-  await signInAs(page, "lead@vellmoor.example");
-  await page.goto(`/lots/${other.lot}`);
-  await expect(page.getByRole("heading", { level: 1, name: /^Lot / })).toBeVisible();
-  await expect(page.getByTestId("detail-not-found")).toHaveCount(0);
+  // The same row opens for its own company.
+  const own = await browser.newContext();
+  try {
+    const ownPage = await own.newPage();
+    await signInAs(ownPage, "lead@vellmoor.example");
+    await ownPage.goto(`/lots/${other.lot}`);
+    await expect(ownPage.getByRole("heading", { level: 1, name: /^Lot / })).toBeVisible();
+    await expect(ownPage.getByTestId("detail-not-found")).toHaveCount(0);
+  } finally {
+    await own.close();
+  }
 });
