@@ -1,30 +1,18 @@
 "use client";
 
-import { useEffect, useState } from "react";
+import { useCallback } from "react";
 import { IgnoredParamsNote } from "@/components/ui/ignored-params-note";
+import { useSearchBox } from "@/components/ui/use-search-box";
 import { LOT_LIST_LABELS } from "@/lib/lots/list-params";
 import { useLotListParams, type LotFilterOptions } from "./use-lot-list-params";
-
-/** Typing waits this long before the list follows, so each keystroke is not a request. */
-const SEARCH_DELAY_MS = 300;
 
 /** The Lots filters; they write the URL, which the table reads. */
 export function LotFilters({ options }: { options: LotFilterOptions }) {
   const { params, ignored, setFilters } = useLotListParams(options);
-  const [search, setSearch] = useState(params.search ?? "");
-  // When the URL's search changes from outside (back, forward, a link), the box follows it.
-  const [searchInUrl, setSearchInUrl] = useState(params.search);
-  if (params.search !== searchInUrl) {
-    setSearchInUrl(params.search);
-    setSearch(params.search ?? "");
-  }
-  useEffect(() => {
-    const wanted = search.trim();
-    if (wanted === (params.search ?? "")) return;
-    // Typing replaces the history entry: back leaves the list, not the last keystroke.
-    const timer = setTimeout(() => setFilters({ search: wanted || undefined }, "replace"), SEARCH_DELAY_MS);
-    return () => clearTimeout(timer);
-  }, [search, params.search, setFilters]);
+  const [search, setSearch] = useSearchBox(
+    params.search,
+    useCallback((value: string | undefined) => setFilters({ search: value }, "replace"), [setFilters]),
+  );
 
   return (
     <div className="space-y-3">
