@@ -1,4 +1,3 @@
-import { asc, and, eq } from "drizzle-orm";
 import type { Metadata } from "next";
 import { Suspense } from "react";
 import { QueueBoard } from "@/components/queue/queue-board";
@@ -6,9 +5,8 @@ import { QueueList } from "@/components/queue/queue-list";
 import { EmptyState } from "@/components/ui/empty-state";
 import { Prefetched } from "@/components/ui/prefetched";
 import { TableSkeleton } from "@/components/ui/table-skeleton";
-import { db } from "@/db/client";
+import { listQueueFilterChoices } from "@/db/queries/queue";
 import { getSetupCounts } from "@/db/queries/workspaces";
-import { lots, partTypes, suppliers } from "@/db/schema";
 import { requirePageUser } from "@/lib/auth/require-user";
 import { hasAnyRole } from "@/lib/auth/roles";
 import { screenByHref } from "@/lib/nav";
@@ -36,18 +34,8 @@ async function FirstQueuePage({ workspaceId, params, options }: { workspaceId: s
 export default async function QueuePage(props: PageProps<"/queue">) {
   const user = await requirePageUser({ role: screen.roles, from: screen.href });
   const ws = user.workspaceId;
-  const [counts, pts, sups, openLots, search] = await Promise.all([
-    getSetupCounts({ workspaceId: ws }),
-    db().select({ id: partTypes.id, name: partTypes.name }).from(partTypes).where(eq(partTypes.workspaceId, ws)).orderBy(asc(partTypes.name)),
-    db().select({ id: suppliers.id, name: suppliers.name }).from(suppliers).where(eq(suppliers.workspaceId, ws)).orderBy(asc(suppliers.name)),
-    db()
-      .select({ id: lots.id, purchaseRef: lots.purchaseRef, dueOn: lots.dueOn })
-      .from(lots)
-      .where(and(eq(lots.workspaceId, ws), eq(lots.status, "open")))
-      .orderBy(asc(lots.dueOn)),
-    props.searchParams,
-  ]);
-  const options: QueueFilterOptions = { partTypes: pts, suppliers: sups, lots: openLots.map((l) => ({ id: l.id, label: `${l.purchaseRef} (due ${l.dueOn})` })) };
+  const [counts, choices, search] = await Promise.all([getSetupCounts({ workspaceId: ws }), listQueueFilterChoices({ workspaceId: ws }), props.searchParams]);
+  const options: QueueFilterOptions = { partTypes: choices.partTypes, suppliers: choices.suppliers, lots: choices.openLots.map((l) => ({ id: l.id, label: `${l.purchaseRef} (due ${l.dueOn})` })) };
   // The same reading the browser makes of the URL (bad values fall back, and the controls say so).
   const { params } = readListParams(queueListParamsSchema, search, { allowed: queueListAllowed(options), pageKeys: QUEUE_LIST_PAGE_KEYS });
   return (
