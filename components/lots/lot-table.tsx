@@ -3,6 +3,7 @@
 import { keepPreviousData, useQuery } from "@tanstack/react-query";
 import { createColumnHelper, flexRender, getCoreRowModel, useReactTable, type SortingState, type Updater } from "@tanstack/react-table";
 import Link from "next/link";
+import { useMemo } from "react";
 import { FormMessage } from "@/components/ui/form-field";
 import { apiFetch } from "@/lib/http/client";
 import type { LotSummary } from "@/lib/lots/dto";
@@ -77,8 +78,10 @@ export function LotTable({ options }: { options: LotFilterOptions }) {
     placeholderData: keepPreviousData,
   });
   const total = lots.data?.total ?? 0;
-  const sorting: SortingState = [{ id: params.sort, desc: params.dir === "desc" }];
-  const pagination = { pageIndex: params.page - 1, pageSize: params.pageSize };
+  // Derived from the URL, and kept the same between renders: table state that changes identity on
+  // every render makes TanStack Table recompute (and, with its own row models, reset) each time.
+  const sorting: SortingState = useMemo(() => [{ id: params.sort, desc: params.dir === "desc" }], [params.sort, params.dir]);
+  const pagination = useMemo(() => ({ pageIndex: params.page - 1, pageSize: params.pageSize }), [params.page, params.pageSize]);
   const onSortingChange = (updater: Updater<SortingState>) => {
     const next = (typeof updater === "function" ? updater(sorting) : updater)[0];
     if (next) go({ sort: next.id as LotSort, dir: next.desc ? "desc" : "asc", page: 1 });

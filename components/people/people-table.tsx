@@ -23,7 +23,10 @@ export function PeopleTable({ currentUserId }: { currentUserId: string }) {
   const queryClient = useQueryClient();
   // The sort is in the URL (back and a shared link keep it); the rows are sorted here.
   const { params, go } = useListParams(peopleListParamsSchema);
-  const sorting: SortingState = [{ id: params.sort, desc: params.dir === "desc" }];
+  // The same array between renders: a new one re-sorts the rows on every render, and TanStack Table
+  // then resets its page index after each sort, which renders again — after a click (a synchronous
+  // update) that loop froze the page (accounts.spec: invite someone, then open the Outbox).
+  const sorting: SortingState = useMemo(() => [{ id: params.sort, desc: params.dir === "desc" }], [params.sort, params.dir]);
   const setSorting = (updater: Updater<SortingState>) => {
     const next = (typeof updater === "function" ? updater(sorting) : updater)[0];
     if (next && (PEOPLE_SORTS as readonly string[]).includes(next.id)) go({ sort: next.id as (typeof PEOPLE_SORTS)[number], dir: next.desc ? "desc" : "asc" });
