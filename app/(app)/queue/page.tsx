@@ -7,8 +7,8 @@ import { Prefetched } from "@/components/ui/prefetched";
 import { TableSkeleton } from "@/components/ui/table-skeleton";
 import { listQueueFilterChoices } from "@/db/queries/queue";
 import { getSetupCounts } from "@/db/queries/workspaces";
+import { can } from "@/lib/auth/permissions";
 import { requirePageUser } from "@/lib/auth/require-user";
-import { hasAnyRole } from "@/lib/auth/roles";
 import { screenByHref } from "@/lib/nav";
 import { listQueue } from "@/lib/queue/list";
 import { QUEUE_LIST_PAGE_KEYS, queueListAllowed, queueListParamsSchema, type QueueFilterOptions, type QueueListParams } from "@/lib/queue/list-params";
@@ -32,7 +32,7 @@ async function FirstQueuePage({ workspaceId, params, options }: { workspaceId: s
 }
 
 export default async function QueuePage(props: PageProps<"/queue">) {
-  const user = await requirePageUser({ role: screen.roles, from: screen.href });
+  const user = await requirePageUser({ permission: screen.permission, from: screen.href });
   const ws = user.workspaceId;
   const [counts, choices, search] = await Promise.all([getSetupCounts({ workspaceId: ws }), listQueueFilterChoices({ workspaceId: ws }), props.searchParams]);
   const options: QueueFilterOptions = { partTypes: choices.partTypes, suppliers: choices.suppliers, lots: choices.openLots.map((l) => ({ id: l.id, label: `${l.purchaseRef} (due ${l.dueOn})` })) };
@@ -45,7 +45,7 @@ export default async function QueuePage(props: PageProps<"/queue">) {
         <p className="text-gauge-700">Take next gives you the most urgent waiting unit (earliest due lot first) and reserves it for you while its Bench is open.</p>
       </div>
       {counts.units === 0 && (
-        <EmptyState title="Nothing to inspect yet" steps={hasAnyRole(user.roles, "lead") ? setupSteps(counts).filter((s) => s.key === "lot") : []} testId="queue-empty">
+        <EmptyState title="Nothing to inspect yet" steps={can(user, "workspace.manage") ? setupSteps(counts).filter((s) => s.key === "lot") : []} testId="queue-empty">
           Units arrive here when a QC lead receives a lot and creates its sample (from the supplier&apos;s serial list or as numbered placeholders).
         </EmptyState>
       )}
