@@ -7,7 +7,8 @@ import type { PhotoWithContext } from "./queries";
 
 export type PhotoDto = {
   id: string;
-  unitId: string;
+  /** Null for a photo uploaded straight into the Gallery. */
+  unitId: string | null;
   viewKey: string;
   status: PhotoStatus;
   failure: { code: PhotoFailureCode; reason: string } | null;

@@ -67,15 +67,26 @@ function readTicket(actor: SessionUser, unitId: string, token: string, now: Date
 const withContext = async (actor: SessionUser, photoId: string) => (await getPhotoWithContext({ workspaceId: actor.workspaceId, photoId }))!;
 
 export async function finaliseUpload(actor: SessionUser, unitId: string, input: FinaliseInput, options: FinaliseOptions = {}): Promise<FinaliseOutcome> {
-  const { store = objectStore(), dispatch = "queue", now = new Date() } = options;
-  const waitMs = options.waitMs ?? photoSettings().PHOTO_FINALISE_WAIT_MS;
   const unit = await loadUnit(actor, unitId);
-  const ticket = readTicket(actor, unitId, input.ticket, now);
+  const ticket = readTicket(actor, unitId, input.ticket, options.now ?? new Date());
   if (await getPhoto({ workspaceId: actor.workspaceId, photoId: ticket.photoId })) return { kind: "replayed", photo: await withContext(actor, ticket.photoId) };
   assertOpenForUploads(unit);
   viewOf(unit, ticket.viewKey);
+  return storeUpload(actor, { unitId, photoId: ticket.photoId, viewKey: ticket.viewKey, fileName: ticket.fileName }, options);
+}
 
-  const owner: PhotoKeyOwner = { workspaceId: actor.workspaceId, unitId, photoId: ticket.photoId };
+/** What a checked ticket promised: where the staged bytes go. `unitId` null: a Gallery upload. */
+export type UploadTarget = { unitId: string | null; photoId: string; viewKey: string; fileName: string };
+
+/**
+ * Steps 2–6 for a ticket the caller has checked (a unit's, or the Gallery's in lib/gallery/uploads.ts).
+ * Gallery uploads skip the same-bytes and reuse checks: those compare evidence between units.
+ */
+export async function storeUpload(actor: SessionUser, target: UploadTarget, options: FinaliseOptions = {}): Promise<FinaliseOutcome> {
+  const { store = objectStore(), dispatch = "queue" } = options;
+  const waitMs = options.waitMs ?? photoSettings().PHOTO_FINALISE_WAIT_MS;
+  const { unitId } = target;
+  const owner: PhotoKeyOwner = { workspaceId: actor.workspaceId, unitId, photoId: target.photoId };
   const original = await moveToOriginal(store, owner);
   const digest = await digestObject(store, original);
   if (!digest) throw new AppError("conflict", NOT_ARRIVED);
@@ -85,18 +96,18 @@ export async function finaliseUpload(actor: SessionUser, unitId: string, input: 
     throw stored.rejection;
   }
 
-  const same = await findUnitPhotoBySha({ workspaceId: actor.workspaceId, unitId, sha256: digest.sha256 });
+  const same = unitId ? await findUnitPhotoBySha({ workspaceId: actor.workspaceId, unitId, sha256: digest.sha256 }) : null;
   if (same) return answerSameBytes(actor, store, original, same.id);
-  const reuse = await findReuseCandidate({ workspaceId: actor.workspaceId, unitId, sha256: digest.sha256 });
+  const reuse = unitId ? await findReuseCandidate({ workspaceId: actor.workspaceId, unitId, sha256: digest.sha256 }) : null;
   const row: NewPhoto = {
-    id: ticket.photoId,
+    id: target.photoId,
     workspaceId: actor.workspaceId,
     unitId,
-    viewKey: ticket.viewKey,
+    viewKey: target.viewKey,
     status: "queued",
     originalKey: original,
     contentType: stored.contentType,
-    fileName: ticket.fileName,
+    fileName: target.fileName,
     bytes: digest.bytes,
     sha256: digest.sha256,
     possibleReuseOfPhotoId: reuse?.id ?? null,
@@ -107,7 +118,7 @@ export async function finaliseUpload(actor: SessionUser, unitId: string, input: 
     else await db().transaction((tx) => insertPhoto(tx, actor, row, reuse?.unitId ?? null, null));
   } catch (err) {
     if (isUniqueViolation(err, "photos_pkey")) return { kind: "replayed", photo: await withContext(actor, row.id) };
-    if (isUniqueViolation(err, "photos_unit_sha256_key")) {
+    if (unitId && isUniqueViolation(err, "photos_unit_sha256_key")) {
       const winner = await findUnitPhotoBySha({ workspaceId: actor.workspaceId, unitId, sha256: digest.sha256 });
       if (winner) return answerSameBytes(actor, store, original, winner.id);
     }

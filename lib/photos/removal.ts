@@ -28,7 +28,8 @@ import { originalDeletionBlockers } from "./deletion";
 import { viewOf } from "./intents";
 import { getPhoto, getUnitForPhotos } from "./queries";
 
-type Photo = NonNullable<Awaited<ReturnType<typeof getPhoto>>>;
+/** A unit's photo (gallery uploads have no unit: this is not their way out). */
+type Photo = NonNullable<Awaited<ReturnType<typeof getPhoto>>> & { unitId: string };
 
 const NOT_FOUND = "That photo";
 
@@ -39,16 +40,16 @@ async function openForWork(tx: Tx, actor: SessionUser, photo: Photo) {
   if (!unit || !detail) throw notFound(NOT_FOUND);
   if (detail.lot.status !== "open") throw new AppError("conflict", "This unit's lot is decided; its photos are part of the record and can no longer change.");
   if (unit.status !== "queued" && unit.status !== "on_bench") throw new AppError("conflict", `This unit is ${STATUS_LABELS[unit.status]}, so its photos are part of the record and can no longer change.`);
-  assertNotLeasedByOther(unit, actor, detail.leaseHolderName);
+  assertNotLeasedByOther(unit, actor);
   if (workClaimsUnit(unit)) await claimForWork(tx, actor, unit, "photos");
   return detail;
 }
 
 async function loadCurrentPhoto(actor: SessionUser, photoId: string): Promise<Photo> {
   const photo = await getPhoto({ workspaceId: actor.workspaceId, photoId });
-  if (!photo) throw notFound(NOT_FOUND);
+  if (!photo || photo.unitId === null) throw notFound(NOT_FOUND);
   if (photo.removedAt) throw new AppError("conflict", "This photo was already taken out of the unit; it is kept only as a record.");
-  return photo;
+  return { ...photo, unitId: photo.unitId };
 }
 
 export async function reassignPhotoView(actor: SessionUser, photoId: string, viewKey: string) {

@@ -90,7 +90,7 @@ export async function saveRegionSet(actor: SessionUser, photoId: string, input: 
     if (!(EDITABLE_STATUSES as readonly string[]).includes(unit.status)) {
       throw new AppError("conflict", `This unit is ${STATUS_LABELS[unit.status]}, so its regions are part of the record and can no longer change.`);
     }
-    assertNotLeasedByOther(unit, actor, photo.leaseHolderName);
+    assertNotLeasedByOther(unit, actor);
     const set = await lockRegionSet(tx, key);
     if (set.version !== input.baseVersion) throw new RegionVersionConflict(await readRegionSet(actor, photoId, tx), input.baseVersion);
     // Marking a unit that waits in the queue (or whose lease ran out) takes it onto the marker's bench.
