@@ -3,8 +3,8 @@ import { QueueBoard } from "@/components/queue/queue-board";
 import { EmptyState } from "@/components/ui/empty-state";
 import { listQueueFilterChoices } from "@/db/queries/queue";
 import { getSetupCounts } from "@/db/queries/workspaces";
+import { can } from "@/lib/auth/permissions";
 import { requirePageUser } from "@/lib/auth/require-user";
-import { hasAnyRole } from "@/lib/auth/roles";
 import { screenByHref } from "@/lib/nav";
 import { setupSteps } from "@/lib/workspace/setup";
 
@@ -12,7 +12,7 @@ const screen = screenByHref("/queue")!;
 export const metadata: Metadata = { title: screen.label };
 
 export default async function QueuePage() {
-  const user = await requirePageUser({ role: screen.roles, from: screen.href });
+  const user = await requirePageUser({ permission: screen.permission, from: screen.href });
   const ws = user.workspaceId;
   const [counts, choices] = await Promise.all([getSetupCounts({ workspaceId: ws }), listQueueFilterChoices({ workspaceId: ws })]);
   return (
@@ -22,7 +22,7 @@ export default async function QueuePage() {
         <p className="text-gauge-700">Take next gives you the most urgent waiting unit (earliest due lot first) and reserves it for you while its Bench is open.</p>
       </div>
       {counts.units === 0 && (
-        <EmptyState title="Nothing to inspect yet" steps={hasAnyRole(user.roles, "lead") ? setupSteps(counts).filter((s) => s.key === "lot") : []} testId="queue-empty">
+        <EmptyState title="Nothing to inspect yet" steps={can(user, "workspace.manage") ? setupSteps(counts).filter((s) => s.key === "lot") : []} testId="queue-empty">
           Units arrive here when a QC lead receives a lot and creates its sample (from the supplier&apos;s serial list or as numbered placeholders).
         </EmptyState>
       )}
