@@ -1,7 +1,7 @@
 import "server-only";
-import { and, asc, eq } from "drizzle-orm";
+import { and, asc, desc, eq, inArray } from "drizzle-orm";
 import { db, type DbOrTx } from "@/db/client";
-import { partTypes } from "@/db/schema";
+import { lots, partTypes, photos, regions, units } from "@/db/schema";
 
 export function listPartTypes({ workspaceId, active }: { workspaceId: string; active?: boolean }) {
   const where = [eq(partTypes.workspaceId, workspaceId)];
@@ -16,4 +16,36 @@ export async function getPartType({ workspaceId, partTypeId }: { workspaceId: st
     .where(and(eq(partTypes.workspaceId, workspaceId), eq(partTypes.id, partTypeId)))
     .limit(1);
   return row;
+}
+
+/**
+ * The newest processed photos of one view of a part type, with their Surface outlines: samples a
+ * lead draws the view's zones on. Scoped by workspace on every table.
+ */
+export async function listSamplePhotos({ workspaceId, partTypeId, viewKey, limit = 12 }: { workspaceId: string; partTypeId: string; viewKey: string; limit?: number }) {
+  const rows = await db()
+    .select({
+      id: photos.id,
+      width: photos.width,
+      height: photos.height,
+      previewWidth: photos.previewWidth,
+      previewHeight: photos.previewHeight,
+      createdAt: photos.createdAt,
+      serial: units.serial,
+      sampleIndex: units.sampleIndex,
+      purchaseRef: lots.purchaseRef,
+    })
+    .from(photos)
+    .innerJoin(units, and(eq(units.id, photos.unitId), eq(units.workspaceId, workspaceId)))
+    .innerJoin(lots, and(eq(lots.id, units.lotId), eq(lots.workspaceId, workspaceId)))
+    .where(and(eq(photos.workspaceId, workspaceId), eq(units.partTypeId, partTypeId), eq(photos.viewKey, viewKey), eq(photos.status, "ready")))
+    .orderBy(desc(photos.createdAt), desc(photos.id))
+    .limit(limit);
+  const surfaces = rows.length
+    ? await db()
+        .select({ photoId: regions.photoId, id: regions.clientId, shape: regions.shape })
+        .from(regions)
+        .where(and(eq(regions.workspaceId, workspaceId), inArray(regions.photoId, rows.map((r) => r.id)), eq(regions.role, "surface")))
+    : [];
+  return rows.map((row) => ({ ...row, surfaces: surfaces.filter((s) => s.photoId === row.id).map((s) => ({ id: s.id, shape: s.shape })) }));
 }

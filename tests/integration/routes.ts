@@ -32,6 +32,7 @@ export const ROUTES: RouteAccess[] = [
   { method: "GET", path: "/api/workspace", access: "signed-in", allowedStatus: 200 },
   // The demo workspace has every starter already: nothing is created (201, created []).
   { method: "POST", path: "/api/part-types/starters", access: ["lead"], body: () => ({ slugs: ["battery"] }), allowedStatus: 201 },
+  { method: "GET", path: "/api/part-types/:partTypeId/sample-photos?view=lens", access: ["lead"], allowedStatus: 200 },
   // Sets the default again, so the other tests' times stay in UTC.
   { method: "PATCH", path: "/api/workspace", access: ["lead"], body: () => ({ timeZone: "UTC" }), allowedStatus: 200 },
   { method: "GET", path: "/api/people", access: ["lead"], allowedStatus: 200 },
