@@ -6,13 +6,16 @@ import { DEFECT_SEVERITIES, SEVERITY_LABELS } from "@/lib/part-types/schemas";
 
 const small = "field-input py-1";
 
-/** A labelled field of a checklist item (every field has a visible label). */
-function Field({ label, className = "", children }: { label: string; className?: string; children: React.ReactNode }) {
+/**
+ * A labelled field of a checklist item (every field has a visible label), tied to its control by
+ * id, so a select's options never become part of the label.
+ */
+function Field({ id, label, className = "", children }: { id: string; label: string; className?: string; children: React.ReactNode }) {
   return (
-    <label className={`block ${className}`}>
-      <span className="mb-0.5 block text-xs font-medium text-gauge-700">{label}</span>
+    <div className={className}>
+      <label htmlFor={id} className="mb-0.5 block text-xs font-medium text-gauge-700">{label}</label>
       {children}
-    </label>
+    </div>
   );
 }
 
@@ -22,38 +25,38 @@ export function ChecklistItemFields({ index, control, register, onRemove }: { in
   const p = `checklist.${index}` as const;
   return (
     <li className="grid gap-2 rounded-md border border-gauge-100 p-3 sm:grid-cols-6" data-testid={`item-editor-${index}`}>
-      <Field label="Key"><input className={small} placeholder="e.g. ocv" {...register(`${p}.id`)} /></Field>
-      <Field label="What the Bench checks" className="sm:col-span-3"><input className={small} {...register(`${p}.label`)} /></Field>
-      <Field label="Kind">
-        <select className={small} {...register(`${p}.kind`)}>
+      <Field id={`${p}-key`} label="Key"><input id={`${p}-key`} className={small} placeholder="e.g. ocv" {...register(`${p}.id`)} /></Field>
+      <Field id={`${p}-label`} label="What the Bench checks" className="sm:col-span-3"><input id={`${p}-label`} className={small} {...register(`${p}.label`)} /></Field>
+      <Field id={`${p}-kind`} label="Kind">
+        <select id={`${p}-kind`} className={small} {...register(`${p}.kind`)}>
           <option value="pass_fail">Pass / fail</option>
           <option value="numeric">Reading</option>
           <option value="choice">Choice</option>
         </select>
       </Field>
-      <Field label="Fails as">
-        <select className={small} {...register(`${p}.severityOnFail`)}>
+      <Field id={`${p}-fails-as`} label="Fails as">
+        <select id={`${p}-fails-as`} className={small} {...register(`${p}.severityOnFail`)}>
           {DEFECT_SEVERITIES.map((s) => <option key={s} value={s}>{SEVERITY_LABELS[s]}</option>)}
         </select>
       </Field>
       {kind === "numeric" && (
         <>
-          <Field label="Unit"><input className={small} placeholder="V, %, cycles" {...register(`${p}.unit`)} /></Field>
-          <Field label="Minimum"><input className={small} placeholder="none" inputMode="decimal" {...register(`${p}.min`)} /></Field>
-          <Field label="Maximum"><input className={small} placeholder="none" inputMode="decimal" {...register(`${p}.max`)} /></Field>
-          <Field label="Decimals"><input className={small} inputMode="numeric" {...register(`${p}.decimals`)} /></Field>
-          <Field label="Set aside below" className="sm:col-span-2">
-            <input className={small} placeholder="none (e.g. 2.50 for a cell)" inputMode="decimal" aria-describedby={`${p}-suspect-hint`} {...register(`${p}.suspectBelow`)} />
+          <Field id={`${p}-unit`} label="Unit"><input id={`${p}-unit`} className={small} placeholder="V, %, cycles" {...register(`${p}.unit`)} /></Field>
+          <Field id={`${p}-minimum`} label="Minimum"><input id={`${p}-minimum`} className={small} placeholder="none" inputMode="decimal" {...register(`${p}.min`)} /></Field>
+          <Field id={`${p}-maximum`} label="Maximum"><input id={`${p}-maximum`} className={small} placeholder="none" inputMode="decimal" {...register(`${p}.max`)} /></Field>
+          <Field id={`${p}-decimals`} label="Decimals"><input id={`${p}-decimals`} className={small} inputMode="numeric" {...register(`${p}.decimals`)} /></Field>
+          <Field id={`${p}-set-aside-below`} label="Set aside below" className="sm:col-span-2">
+            <input id={`${p}-set-aside-below`} className={small} placeholder="none (e.g. 2.50 for a cell)" inputMode="decimal" aria-describedby={`${p}-suspect-hint`} {...register(`${p}.suspectBelow`)} />
             <span id={`${p}-suspect-hint`} className="mt-0.5 block text-xs text-gauge-600">A reading below this asks to set the part aside as suspect.</span>
           </Field>
         </>
       )}
       {kind === "choice" && (
-        <Field label="Choices: one per line, “value | Label | pass” or “fail”" className="sm:col-span-6">
-          <textarea className={`${small} font-mono`} rows={3} placeholder={"none | None | pass\nloud | Loud | fail"} {...register(`${p}.options`)} />
+        <Field id={`${p}-choices`} label="Choices: one per line, “value | Label | pass” or “fail”" className="sm:col-span-6">
+          <textarea id={`${p}-choices`} className={`${small} font-mono`} rows={3} placeholder={"none | None | pass\nloud | Loud | fail"} {...register(`${p}.options`)} />
         </Field>
       )}
-      <Field label="Caution shown with the item (optional)" className="sm:col-span-5"><input className={small} {...register(`${p}.caution`)} /></Field>
+      <Field id={`${p}-caution`} label="Caution shown with the item (optional)" className="sm:col-span-5"><input id={`${p}-caution`} className={small} {...register(`${p}.caution`)} /></Field>
       <div className="flex items-end"><button type="button" className="btn-secondary py-1 text-xs" onClick={onRemove}>Remove item</button></div>
     </li>
   );

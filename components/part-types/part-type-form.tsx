@@ -108,9 +108,9 @@ export function PartTypeForm({ partTypeId, initial = EMPTY_PART_TYPE }: { partTy
         <ul className="grid gap-2 sm:grid-cols-2">
           {classes.fields.map((field, i) => (
             <li key={field.id} className="flex items-end gap-2">
-              <label className="block"><span className="mb-0.5 block text-xs text-gauge-700">Key</span><input className={small} {...register(`defectClasses.${i}.key`)} /></label>
-              <label className="block"><span className="mb-0.5 block text-xs text-gauge-700">Label</span><input className={small} {...register(`defectClasses.${i}.label`)} /></label>
-              <label className="block"><span className="mb-0.5 block text-xs text-gauge-700">Severity</span><select className={small} {...register(`defectClasses.${i}.severity`)}>{severityOptions}</select></label>
+              <label className="block w-28 shrink-0"><span className="mb-0.5 block text-xs text-gauge-700">Key</span><input className={small} {...register(`defectClasses.${i}.key`)} /></label>
+              <label className="block min-w-0 flex-1"><span className="mb-0.5 block text-xs text-gauge-700">Label</span><input className={small} {...register(`defectClasses.${i}.label`)} /></label>
+              <div className="w-28 shrink-0"><label htmlFor={`class-${i}-severity`} className="mb-0.5 block text-xs text-gauge-700">Severity</label><select id={`class-${i}-severity`} className={small} {...register(`defectClasses.${i}.severity`)}>{severityOptions}</select></div>
               <button type="button" className="btn-secondary py-1 text-xs" onClick={() => classes.remove(i)} aria-label={`Remove defect class ${i + 1}`}>×</button>
             </li>
           ))}

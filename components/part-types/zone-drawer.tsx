@@ -60,6 +60,12 @@ export function ZoneDrawer({ partTypeId, view, zones, onApply, onClose }: { part
     setMessage({ kind: "success", text: `Pick “${label}” in the classes and draw it with Box or Outline.` });
     remount(current());
   };
+  const removeZone = (zone: ZoneDefinition) => {
+    setWorking(working.filter((z) => z.id !== zone.id));
+    const now = current();
+    remount({ ...now, regions: now.regions.filter((r) => r.defect !== zone.id) });
+    setMessage({ kind: "success", text: `“${zone.label}” removed. Use these zones, then save the part type, to drop it for good.` });
+  };
   const apply = () => {
     const result = zonesFromDrawing(current(), working);
     if (result.problems.length > 0) return setMessage({ kind: "error", text: result.problems.join(" ") });
@@ -110,6 +116,18 @@ export function ZoneDrawer({ partTypeId, view, zones, onApply, onClose }: { part
               Each zone is one shape, stored relative to the box around the part&apos;s Surface{photo.surfaces.length ? "" : " — this photo has no Surface yet: trace the part with the Surface tool first"}.
               Pick a zone among the classes, draw it with Box or Outline; delete a shape to draw it again.
             </p>
+            <section aria-labelledby="zone-list-title" className="space-y-1">
+              <h3 id="zone-list-title" className="font-medium">Zones of this view</h3>
+              {working.length === 0 && <p className="text-gauge-700">None yet: add one below.</p>}
+              <ul className="space-y-1" data-testid="zone-list">
+                {working.map((zone) => (
+                  <li key={zone.id} className="flex items-center justify-between gap-2">
+                    <span>{zone.label} <span className="text-xs text-gauge-600">({zone.id})</span></span>
+                    <button type="button" className="btn-secondary py-0.5 text-xs" onClick={() => removeZone(zone)} aria-label={`Remove zone ${zone.label}`}>Remove</button>
+                  </li>
+                ))}
+              </ul>
+            </section>
             <fieldset className="space-y-2">
               <legend className="font-medium">Add a zone</legend>
               <label className="block"><span className="field-label">Key</span><input className="field-input py-1" value={newZone.id} onChange={(e) => setNewZone({ ...newZone, id: e.target.value })} placeholder="e.g. lens-window" /></label>

@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, desc, eq, inArray } from "drizzle-orm";
+import { and, asc, desc, eq, inArray, isNotNull } from "drizzle-orm";
 import { db, type DbOrTx } from "@/db/client";
 import { lots, partTypes, photos, regions, units } from "@/db/schema";
 
@@ -19,8 +19,8 @@ export async function getPartType({ workspaceId, partTypeId }: { workspaceId: st
 }
 
 /**
- * The newest processed photos of one view of a part type, with their Surface outlines: samples a
- * lead draws the view's zones on. Scoped by workspace on every table.
+ * The newest processed photos of one view of a part type (with a preview to draw on), with their
+ * Surface outlines: samples a lead draws the view's zones on. Scoped by workspace on every table.
  */
 export async function listSamplePhotos({ workspaceId, partTypeId, viewKey, limit = 12 }: { workspaceId: string; partTypeId: string; viewKey: string; limit?: number }) {
   const rows = await db()
@@ -38,7 +38,7 @@ export async function listSamplePhotos({ workspaceId, partTypeId, viewKey, limit
     .from(photos)
     .innerJoin(units, and(eq(units.id, photos.unitId), eq(units.workspaceId, workspaceId)))
     .innerJoin(lots, and(eq(lots.id, units.lotId), eq(lots.workspaceId, workspaceId)))
-    .where(and(eq(photos.workspaceId, workspaceId), eq(units.partTypeId, partTypeId), eq(photos.viewKey, viewKey), eq(photos.status, "ready")))
+    .where(and(eq(photos.workspaceId, workspaceId), eq(units.partTypeId, partTypeId), eq(photos.viewKey, viewKey), eq(photos.status, "ready"), isNotNull(photos.previewWidth), isNotNull(photos.previewHeight)))
     .orderBy(desc(photos.createdAt), desc(photos.id))
     .limit(limit);
   const surfaces = rows.length

@@ -68,6 +68,43 @@ test("a lead draws a new zone on a photo of the part type, and it is saved with 
   expect(partType.views.find((v) => v.key === "front")!.zones.find((z) => z.id === "lens-window")!.polygon).toEqual([[0, 0], [0.5, 0], [0.5, 1], [0, 1]]);
 });
 
+test("a lead removes a drawn zone in the drawer; a view with no photo yet says what to do instead", async ({ page, browser }) => {
+  const { unitId, partTypeId } = await createBenchUnit();
+  const context = await browser.newContext();
+  const bench = await context.newPage();
+  await signInAs(bench, "inspector@vellmoor.example");
+  const photo = await uploadThroughApi(bench.request, unitId, await partPhoto(1200, 900), "front");
+  const surface = { id: "surface-1", shape: { kind: "polygon", points: [[300, 225], [900, 225], [900, 675], [300, 675]] } };
+  const saved = await bench.request.put(`/api/photos/${photo.id}/regions`, { data: { baseVersion: 0, regions: { surfaces: [surface], regions: [], ruler: null } } });
+  expect(saved.ok(), await saved.text()).toBe(true);
+  await context.close();
+
+  await signInAs(page, "lead@vellmoor.example");
+  await page.goto(`/part-types/${partTypeId}`);
+  const form = page.getByTestId("part-type-form");
+  await form.getByTestId("view-editor-1").getByRole("button", { name: "Draw zones on a photo" }).click();
+  const drawer = page.getByTestId("zone-drawer");
+  await expect(drawer.getByTestId("zone-drawer-no-photo")).toHaveText(/No photo of the Back view yet\. Photograph a unit of this part type on the Bench first/);
+  await drawer.getByRole("button", { name: "Close" }).click();
+
+  await form.getByTestId("view-editor-0").getByRole("button", { name: "Draw zones on a photo" }).click();
+  const stage = drawer.getByTestId("annotation-stage");
+  await expect(stage).toHaveAttribute("data-ready", "true", { timeout: 30_000 });
+  await expect(stage).toHaveAttribute("data-region-count", "2"); // the Surface and the lens window
+  await expect(drawer.getByTestId("zone-list")).toContainText("Lens window");
+  await drawer.getByRole("button", { name: "Remove zone Lens window" }).click();
+  await expect(drawer.getByTestId("zone-list")).not.toContainText("Lens window");
+  await expect(drawer.getByTestId("annotation-stage")).toHaveAttribute("data-region-count", "1");
+  await drawer.getByRole("button", { name: "Use these zones" }).click();
+  await expect(drawer.getByText(/Zones of Front taken into the form/)).toBeVisible();
+  await drawer.getByRole("button", { name: "Close" }).click();
+  await expect(form.getByTestId("view-zones-0")).toHaveText("none");
+  await form.getByRole("button", { name: "Save part type" }).click();
+  await expect(form.getByRole("status")).toContainText("saved");
+  const { partType } = (await (await page.request.get(`/api/part-types/${partTypeId}`)).json()) as { partType: { views: { key: string; zones: unknown[] }[] } };
+  expect(partType.views.find((v) => v.key === "front")!.zones).toEqual([]);
+});
+
 test("every field of a checklist reading has a visible label", async ({ page }) => {
   await signInAs(page, "lead@vellmoor.example");
   await page.goto("/part-types/new");
