@@ -20,7 +20,8 @@ export async function getPartType({ workspaceId, partTypeId }: { workspaceId: st
 
 /**
  * The newest processed photos of one view of a part type (with a preview to draw on), with their
- * Surface outlines: samples a lead draws the view's zones on. Scoped by workspace on every table.
+ * Surface outlines: samples a lead draws the view's zones on. Those with a Surface come first (the
+ * stored zones show on them at once), newest first within each. Scoped by workspace on every table.
  */
 export async function listSamplePhotos({ workspaceId, partTypeId, viewKey, limit = 12 }: { workspaceId: string; partTypeId: string; viewKey: string; limit?: number }) {
   const rows = await db()
@@ -47,5 +48,7 @@ export async function listSamplePhotos({ workspaceId, partTypeId, viewKey, limit
         .from(regions)
         .where(and(eq(regions.workspaceId, workspaceId), inArray(regions.photoId, rows.map((r) => r.id)), eq(regions.role, "surface")))
     : [];
-  return rows.map((row) => ({ ...row, surfaces: surfaces.filter((s) => s.photoId === row.id).map((s) => ({ id: s.id, shape: s.shape })) }));
+  const samples = rows.map((row) => ({ ...row, surfaces: surfaces.filter((s) => s.photoId === row.id).map((s) => ({ id: s.id, shape: s.shape })) }));
+  // A stable sort: the newest-first order is kept within each group.
+  return samples.sort((a, b) => Number(b.surfaces.length > 0) - Number(a.surfaces.length > 0));
 }

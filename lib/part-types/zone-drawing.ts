@@ -12,6 +12,8 @@
  * - points are made relative to the box, clamped to 0..1 (a zone may not reach past the part) and
  *   rounded to 4 decimals (0.1 px on a 1 000 px part);
  * - a zone with no shape is left as it was, and says so.
+ * A photo without a Surface shows no stored zone (there is no box to place them in); once a Surface
+ * is drawn or suggested, `zonesToPlace` puts the stored zones not drawn yet into its box.
  */
 import type { ZoneDefinition } from "@/db/schema/lots";
 import { boundsOfShape, type Bounds } from "@/lib/geometry/bounds";
@@ -36,17 +38,24 @@ function pointsOf(shape: Shape): Point[] | null {
   return null;
 }
 
+/** A stored zone's polygon in the photo's pixels, through the Surface box. */
+function zoneInBox(zone: ZoneDefinition, box: Bounds): PolygonShape {
+  return { kind: "polygon", points: zone.polygon.map(([u, v]): Point => [box.minX + u * (box.maxX - box.minX), box.minY + v * (box.maxY - box.minY)]) };
+}
+
 /** The canvas's region set for a view: the photo's surfaces, and each zone as a region of its own class. */
 export function drawingFromZones(zones: readonly ZoneDefinition[], surfaces: RegionSetPayload["surfaces"]): RegionSetPayload {
   const box = surfaceBox(surfaces.map((s) => s.shape));
-  const regions = box
-    ? zones.map((zone) => ({
-        id: `zone-${zone.id}`,
-        defect: zone.id,
-        shape: { kind: "polygon" as const, points: zone.polygon.map(([u, v]): Point => [box.minX + u * (box.maxX - box.minX), box.minY + v * (box.maxY - box.minY)]) },
-      }))
-    : [];
+  const regions = box ? zones.map((zone) => ({ id: `zone-${zone.id}`, defect: zone.id, shape: zoneInBox(zone, box) })) : [];
   return { surfaces: [...surfaces], regions, ruler: null };
+}
+
+/** Stored zones the drawing does not show yet, as shapes in its Surface box ([] without a Surface). */
+export function zonesToPlace(drawing: RegionSetPayload, zones: readonly ZoneDefinition[]): { defect: string; shape: PolygonShape }[] {
+  const box = surfaceBox(drawing.surfaces.map((s) => s.shape));
+  if (!box) return [];
+  const drawn = new Set(drawing.regions.map((r) => r.defect));
+  return zones.filter((z) => z.polygon.length >= 3 && !drawn.has(z.id)).map((zone) => ({ defect: zone.id, shape: zoneInBox(zone, box) }));
 }
 
 /** The zones as drawn, in the stored form; `problems` (nothing is taken then) and `unchanged` in words. */

@@ -36,11 +36,11 @@ test("a lead draws a new zone on a photo of the part type, and it is saved with 
   await expect(stage).toHaveAttribute("data-ready", "true", { timeout: 30_000 });
   // The existing zone (Lens window, left half of the Surface box) is already on the photo.
   await expect(stage).toHaveAttribute("data-region-count", "2");
+  await stage.focus(); // before measuring: focus may scroll the stage into view
   const read = async (name: string) => Number(await stage.getAttribute(name));
   const [scale, ox, oy] = [await read("data-zoom"), await read("data-offset-x"), await read("data-offset-y")];
   const box = (await stage.boundingBox())!;
   const at = (x: number, y: number) => ({ x: box.x + ox + x * scale, y: box.y + oy + y * scale });
-  await stage.focus();
   await page.keyboard.press("b"); // Box
   await page.keyboard.press("2"); // the second zone class: Connector
   const from = at(1200, 900);
@@ -103,6 +103,48 @@ test("a lead removes a drawn zone in the drawer; a view with no photo yet says w
   await expect(form.getByRole("status")).toContainText("saved");
   const { partType } = (await (await page.request.get(`/api/part-types/${partTypeId}`)).json()) as { partType: { views: { key: string; zones: unknown[] }[] } };
   expect(partType.views.find((v) => v.key === "front")!.zones).toEqual([]);
+});
+
+test("on a photo with no Surface a lead has one suggested and the stored zones appear; Enter adds a zone, never saves the part type; Close asks once before dropping a drawing", async ({ page, browser }) => {
+  const { unitId, partTypeId } = await createBenchUnit();
+  const context = await browser.newContext();
+  const bench = await context.newPage();
+  await signInAs(bench, "inspector@vellmoor.example");
+  await uploadThroughApi(bench.request, unitId, await partPhoto(1600, 1200), "front"); // no Surface traced
+  await context.close();
+
+  await signInAs(page, "lead@vellmoor.example");
+  await page.goto(`/part-types/${partTypeId}`);
+  const partTypeWrites: string[] = [];
+  page.on("request", (r) => {
+    if (r.method() !== "GET" && r.url().includes(`/api/part-types/${partTypeId}`)) partTypeWrites.push(r.method());
+  });
+  const form = page.getByTestId("part-type-form");
+  await form.getByTestId("view-editor-0").getByRole("button", { name: "Draw zones on a photo" }).click();
+  const drawer = page.getByTestId("zone-drawer");
+  const stage = drawer.getByTestId("annotation-stage");
+  await expect(stage).toHaveAttribute("data-ready", "true", { timeout: 30_000 });
+  await expect(stage).toHaveAttribute("data-region-count", "0"); // no Surface, so no box for the lens window yet
+  await drawer.getByRole("button", { name: "Suggest a Surface" }).click();
+  await expect(drawer.getByText(/Suggested Surface/)).toBeVisible({ timeout: 20_000 });
+  await expect(stage).toHaveAttribute("data-region-count", "2"); // the Surface and the lens window in its box
+  await expect(drawer.getByTestId("zone-drawer-no-surface")).toBeHidden();
+
+  await drawer.getByLabel("Key").fill("connector");
+  await drawer.getByLabel("Key").press("Enter");
+  await expect(drawer.getByTestId("zone-list")).toContainText("connector");
+  await expect(drawer.getByLabel("Key")).toHaveValue("");
+  await drawer.getByLabel("Key").fill("Bad Key");
+  await drawer.getByLabel("Key").press("Enter");
+  await expect(drawer.getByTestId("zone-add-problem")).toHaveText(/lower-case letters, digits and single hyphens/);
+
+  await drawer.getByRole("button", { name: "Close" }).click();
+  await expect(drawer.getByText(/not in the form yet/)).toBeVisible();
+  await drawer.getByRole("button", { name: "Close without using" }).click();
+  await expect(drawer).toBeHidden();
+  await expect(form.getByTestId("view-zones-0")).toHaveText("Lens window");
+  await expect(form.getByTestId("view-editor-0").getByRole("button", { name: "Draw zones on a photo" })).toBeFocused();
+  expect(partTypeWrites).toEqual([]);
 });
 
 test("every field of a checklist reading has a visible label", async ({ page }) => {

@@ -1,8 +1,9 @@
 /**
  * Sample photos a lead draws a view's zones on (GET /api/part-types/:id/sample-photos?view=…), over
- * HTTP against the test server and its PostgreSQL: only processed photos of that view of that part
- * type, newest first, each with its Surface outlines and never its defect regions; bad input and
- * other roles or workspaces get a clear 4xx.
+ * HTTP against the test server and its PostgreSQL: only processed photos with a preview, of that
+ * view of that part type, those with a Surface first and newest first within each, each with its
+ * Surface outlines and never its defect regions; bad input and other roles or workspaces get a
+ * clear 4xx.
  */
 import { eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
@@ -31,12 +32,13 @@ async function readyPhoto(unitId: string, viewKey: string, createdAt: Date) {
 }
 
 describe("sample photos for drawing zones", () => {
-  it("lists the newest processed photos of the view with their Surface, nothing of other views, part types or photos without a preview", async () => {
+  it("lists the processed photos of the view, traced ones first, with their Surface; nothing of other views, part types or photos without a preview", async () => {
     const partType = await createPartType(owner.workspaceId);
     const unit = await createUnit({ workspaceId: owner.workspaceId, partTypeId: partType.id, createdBy: owner.userId });
     const older = await readyPhoto(unit.id, "lens", new Date("2026-11-01T08:00:00Z"));
     const newer = await readyPhoto(unit.id, "lens", new Date("2026-11-02T08:00:00Z"));
     await saveRegions({ workspaceId: owner.workspaceId, photoId: newer.id, authorId: owner.userId, regions: [FIXTURE_SURFACE, scratchBox(10, 10)] });
+    const newest = await readyPhoto(unit.id, "lens", new Date("2026-11-02T12:00:00Z")); // no Surface traced
     await readyPhoto(unit.id, "back", new Date("2026-11-03T08:00:00Z")); // another view
     await createPhoto({ workspaceId: owner.workspaceId, unitId: unit.id, uploadedBy: owner.userId, viewKey: "lens", status: "processing" });
     await createPhoto({ workspaceId: owner.workspaceId, unitId: unit.id, uploadedBy: owner.userId, viewKey: "lens" }); // ready, but no preview sizes
@@ -46,7 +48,8 @@ describe("sample photos for drawing zones", () => {
 
     const res = await api<{ photos: Sample[] }>(lead, "GET", `/api/part-types/${partType.id}/sample-photos?view=lens`);
     expect(res.status).toBe(200);
-    expect(res.body.photos.map((p) => p.id)).toEqual([newer.id, older.id]);
+    // The traced photo first, then the others newest first.
+    expect(res.body.photos.map((p) => p.id)).toEqual([newer.id, newest.id, older.id]);
     const [first, second] = res.body.photos;
     expect(first).toMatchObject({ width: 300, height: 200, preview: { width: 150, height: 100 }, urls: { preview: `/api/photos/${newer.id}/preview` } });
     expect(first.unitLabel).toContain(unit.serial!);

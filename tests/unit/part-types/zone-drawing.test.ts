@@ -5,7 +5,7 @@
 import { describe, expect, it } from "vitest";
 import type { ZoneDefinition } from "@/db/schema/lots";
 import type { PolygonShape } from "@/lib/geometry/shape";
-import { drawingFromZones, surfaceBox, zonesFromDrawing } from "@/lib/part-types/zone-drawing";
+import { drawingFromZones, surfaceBox, zonesFromDrawing, zonesToPlace } from "@/lib/part-types/zone-drawing";
 
 // Surface box x 100–500, y 50–250 (400 × 200 px).
 const surface: PolygonShape = { kind: "polygon", points: [[100, 50], [500, 50], [500, 250], [100, 250]] };
@@ -61,6 +61,14 @@ describe("zone drawing", () => {
     expect(drawn.unchanged).toEqual(["Body"]);
     const line = zonesFromDrawing({ surfaces: [{ id: "s", shape: surface }], regions: [{ id: "l", defect: "body", shape: { kind: "line", points: [[110, 60], [200, 60]], width: 4 } }], ruler: null }, [body]);
     expect(line.problems[0]).toMatch(/drawn as a Line; draw a zone with Box or Outline/);
+  });
+
+  it("places the stored zones not drawn yet once a Surface exists, and none before", () => {
+    const drawing = { surfaces: [{ id: "s", shape: surface }], regions: [{ id: "a", defect: "body", shape: { kind: "rect" as const, x: 110, y: 60, width: 50, height: 50 } }], ruler: null };
+    // Body is drawn already; the lens window's left half of the box is x 100–300, y 50–250.
+    expect(zonesToPlace(drawing, [lens, body])).toEqual([{ defect: "lens-window", shape: { kind: "polygon", points: [[100, 50], [300, 50], [300, 250], [100, 250]] } }]);
+    expect(zonesToPlace({ ...drawing, surfaces: [] }, [lens, body])).toEqual([]);
+    expect(zonesToPlace(drawing, [{ id: "new", label: "New", polygon: [] }])).toEqual([]); // nothing stored to place
   });
 
   it("the box is that of all surfaces together", () => {
