@@ -57,7 +57,7 @@ export function ChecklistItemFields({ index, control, register, onRemove }: { in
         </Field>
       )}
       <Field id={`${p}-caution`} label="Caution shown with the item (optional)" className="sm:col-span-5"><input id={`${p}-caution`} className={small} {...register(`${p}.caution`)} /></Field>
-      <div className="flex items-end"><button type="button" className="btn-secondary py-1 text-xs" onClick={onRemove}>Remove item</button></div>
+      <div className="flex items-end"><button type="button" className="btn-secondary py-1 text-xs whitespace-nowrap" onClick={onRemove}>Remove item</button></div>
     </li>
   );
 }

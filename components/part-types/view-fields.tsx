@@ -45,7 +45,7 @@ export function ViewFields({ index, partTypeId, control, register, setValue, onR
           </label>
         </details>
       </div>
-      <div><button type="button" className="btn-secondary py-1 text-xs" onClick={onRemove}>Remove view</button></div>
+      <div><button type="button" className="btn-secondary py-1 text-xs whitespace-nowrap" onClick={onRemove}>Remove view</button></div>
       {drawing && partTypeId && (
         <ZoneDrawer
           partTypeId={partTypeId}
