@@ -2,6 +2,7 @@ import "server-only";
 import { aliasedTable, and, asc, eq, inArray, sql } from "drizzle-orm";
 import { db, type DbOrTx } from "@/db/client";
 import { checklistResults, grades, lots, partTypes, suppliers, units, users } from "@/db/schema";
+import type { UnitStatus } from "@/db/schema/lots";
 import { transition } from "@/lib/units/state-machine";
 
 const holders = aliasedTable(users, "lease_holders");
@@ -54,6 +55,14 @@ export async function getUnitDetail({ workspaceId, unitId }: { workspaceId: stri
     .where(and(eq(units.workspaceId, workspaceId), eq(units.id, unitId)))
     .limit(1);
   return row;
+}
+
+/** Puts the unit on `holderId`'s bench until `leaseExpiresAt` (the caller has decided the transition). */
+export async function setUnitOnBench(tx: DbOrTx, { workspaceId, unitId, status, holderId, leaseExpiresAt }: { workspaceId: string; unitId: string; status: UnitStatus; holderId: string; leaseExpiresAt: Date }) {
+  await tx
+    .update(units)
+    .set({ status, leaseHolderId: holderId, leaseExpiresAt, claimedAt: new Date(), updatedAt: new Date() })
+    .where(and(eq(units.workspaceId, workspaceId), eq(units.id, unitId)));
 }
 
 /** The unit row alone, locked for the rest of the transaction. */

@@ -1,15 +1,14 @@
 import "server-only";
-import { and, eq } from "drizzle-orm";
 import { db } from "@/db/client";
 import { logActivity } from "@/db/queries/activity";
 import { getUnitDetail, lockUnit } from "@/db/queries/units";
-import { checklistResults, units } from "@/db/schema";
+import { checklistResults } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/require-user";
 import { hasAnyRole } from "@/lib/auth/roles";
-import { env } from "@/lib/env";
 import { AppError, notFound } from "@/lib/errors";
+import { claimForWork, workClaimsUnit } from "@/lib/queue/claim-for-work";
 import { assertNotLeasedByOther } from "@/lib/queue/queue";
-import { STATUS_LABELS, transition } from "@/lib/units/state-machine";
+import { STATUS_LABELS } from "@/lib/units/state-machine";
 import type { ChecklistRecordInput } from "@/lib/units/schemas";
 import { evaluateChecklistItem } from "./evaluate";
 
@@ -36,16 +35,9 @@ export async function recordChecklistResult(actor: SessionUser, unitId: string, 
 
     const isLead = hasAnyRole(actor.roles, "lead");
     if (!isLead) assertNotLeasedByOther(unit, actor, detail.leaseHolderName);
-    const leaseRunning = unit.status === "on_bench" && unit.leaseExpiresAt !== null && unit.leaseExpiresAt > new Date();
-    if (unit.status === "queued" || (!isLead && !leaseRunning)) {
-      // Queued, or on a bench whose lease ran out: the recorder takes it (release first if needed).
-      const status = transition(unit.status === "queued" ? "queued" : transition(unit.status, "release"), "claim");
-      await tx
-        .update(units)
-        .set({ status, leaseHolderId: actor.id, leaseExpiresAt: new Date(Date.now() + env().QUEUE_LEASE_SECONDS * 1000), claimedAt: new Date(), updatedAt: new Date() })
-        .where(and(eq(units.workspaceId, actor.workspaceId), eq(units.id, unitId)));
-      await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.id, action: "unit.claimed", subjectType: "unit", subjectId: unitId, detail: { via: "checklist", from: unit.leaseHolderId } });
-    }
+    // Queued, or on a bench whose lease ran out: the recorder takes it. A lead correcting a
+    // result leaves a bench whose lease ran out alone.
+    if (unit.status === "queued" || (!isLead && workClaimsUnit(unit))) await claimForWork(tx, actor, unit, "checklist");
 
     const values = {
       value: evaluation.value,

@@ -48,7 +48,7 @@ export async function recordGrade(actor: Actor, unitId: string, input: RecordGra
     }
     const stored = measurement.result as StoredUnitResult;
     const current = await currentInputs(actor, unitId, tx);
-    const staleness = measurementStaleness({ regionsVersions: measurement.regionsVersions, checklistStamp: stored.checklistStamp }, current.inputs, photoNamer(current.photoRows));
+    const staleness = measurementStaleness({ regionsVersions: measurement.regionsVersions, checklistStamp: stored.checklistStamp, views: stored.views }, current.inputs, photoNamer(current.photoRows));
     if (staleness.stale) throw new AppError("conflict", `The measurement is out of date: ${staleness.reasons.join(" ")} Measure again before grading.`);
 
 
@@ -108,7 +108,7 @@ export async function gradePreview(actor: Actor, unitId: string, version?: numbe
   const stored = measurement.result as StoredUnitResult;
   const result = regradeStored({ rubric: rubric.rubric, photos: await storedPhotos(actor, measurement.id), unit: stored });
   const current = await currentInputs(actor, unitId);
-  const staleness = measurementStaleness({ regionsVersions: measurement.regionsVersions, checklistStamp: stored.checklistStamp }, current.inputs, photoNamer(current.photoRows));
+  const staleness = measurementStaleness({ regionsVersions: measurement.regionsVersions, checklistStamp: stored.checklistStamp, views: stored.views }, current.inputs, photoNamer(current.photoRows));
   return {
     rubricVersion: { version: rubric.version, status: rubric.status, publishedAt: rubric.publishedAt },
     basis: {

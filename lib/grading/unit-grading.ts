@@ -42,6 +42,7 @@ export async function currentInputs(actor: GradingActor, unitId: string, tx: DbO
   const inputs: MeasuredInputs = {
     regionsVersions: Object.fromEntries(ready.map((photo) => [photo.photoId, photo.regionsVersion ?? 0])),
     checklistStamp: checklistStampOf(checklist.latestAt),
+    views: Object.fromEntries(ready.map((photo) => [photo.photoId, photo.viewKey])),
   };
   return { inputs, photoRows, ready, checklist };
 }
@@ -89,7 +90,7 @@ export type MeasurementView = Awaited<ReturnType<typeof describeMeasurement>>;
 async function describeMeasurement(actor: GradingActor, row: UnitMeasurementRow, current: { inputs: MeasuredInputs; photoRows: { photoId: string; viewKey: string }[] }) {
   const photoRows = await listPhotoMeasurements({ workspaceId: actor.workspaceId, unitMeasurementId: row.id });
   const unit = row.result as StoredUnitResult;
-  const staleness: Staleness = measurementStaleness({ regionsVersions: row.regionsVersions, checklistStamp: unit.checklistStamp }, current.inputs, photoNamer(current.photoRows));
+  const staleness: Staleness = measurementStaleness({ regionsVersions: row.regionsVersions, checklistStamp: unit.checklistStamp, views: unit.views }, current.inputs, photoNamer(current.photoRows));
   return {
     id: row.id,
     createdAt: row.createdAt,
@@ -125,7 +126,7 @@ export async function measureAndStore(actor: GradingActor, unitId: string, optio
     },
     { timeoutMs: budgetMs + COMPUTE_START_ALLOWANCE_MS },
   );
-  const unitResult: StoredUnitResult = { ...outcome.unit, checklistStamp };
+  const unitResult: StoredUnitResult = { ...outcome.unit, checklistStamp, views: loaded.inputs.views };
   const stored = await db().transaction(async (tx) => {
     const ids = await insertMeasurementSet(tx, {
       workspaceId: actor.workspaceId,

@@ -26,6 +26,7 @@ import { AppError } from "@/lib/errors";
 import { MAX_PHOTO_BYTES, PhotoRejectedError, type PhotoRejectionCode } from "@/lib/imaging/normalize";
 import { transactionWithJobs, type JobSender } from "@/lib/jobs/send";
 import { copyObject, deleteObject, digestObject, headObject, objectStore, type ObjectStore } from "@/lib/storage/s3";
+import { formatDate } from "@/lib/time/format";
 import { photoSettings } from "./config";
 import { assertOpenForUploads, loadUnit, viewOf } from "./intents";
 import { originalKey, stagingKey, type PhotoKeyOwner } from "./object-keys";
@@ -147,6 +148,10 @@ async function answerSameBytes(actor: SessionUser, store: ObjectStore, newOrigin
   // The same file was refused before (its notice is still shown): refuse it again, for the same reason.
   if (existing.status === "failed" && existing.failureCode !== "processing_failed") {
     throw new PhotoRejectedError(existing.failureCode as PhotoRejectionCode, existing.failureReason ?? "This file was refused.");
+  }
+  // The same file was taken out of this unit before: it does not come back in by the side door.
+  if (existing.removedAt) {
+    throw new AppError("conflict", `This exact file was taken out of this unit on ${formatDate(existing.removedAt, actor.timeZone)} (“${existing.removalReason ?? ""}”) and is kept only as a record. Upload a different photo.`);
   }
   return { kind: "duplicate", photo: existing };
 }
