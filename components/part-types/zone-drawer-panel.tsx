@@ -34,7 +34,7 @@ export function ZoneDrawerPanel({ notice, zones, hasSurface, suggesting, onSugge
     <aside className="min-h-0 space-y-4 overflow-y-auto text-sm" data-testid="zone-drawer-panel">
       {notice}
       <p className="text-gauge-700">
-        Each zone is one shape, stored relative to the box around the part&apos;s Surface. Pick a zone among the classes above the photo, draw it with Box or Outline; delete a shape to draw it again.
+        Each zone is one shape, stored relative to the box around the part&apos;s Surface. Pick a zone in the Zones bar above the photo (or by its number key), draw it with Box or Outline; delete a shape to draw it again.
       </p>
       {!hasSurface && (
         <div className="space-y-2 rounded-md border border-signal-300 bg-signal-50 p-2" data-testid="zone-drawer-no-surface">

@@ -103,7 +103,7 @@ export function ZoneDrawer({ partTypeId, view, zones, onApply, onClose }: { part
     if (!ZONE_KEY.test(id)) return "A zone key is lower-case letters, digits and single hyphens (e.g. lens-window).";
     if (working.some((z) => z.id === id)) return `There is already a zone “${id}”.`;
     setWorking([...working, { id, label, polygon: [] }]);
-    edited(`Pick “${label}” in the classes and draw it with Box or Outline.`);
+    edited(`Pick “${label}” in the Zones bar and draw it with Box or Outline.`);
     remount(current());
     return null;
   };
@@ -169,6 +169,7 @@ export function ZoneDrawer({ partTypeId, view, zones, onApply, onClose }: { part
               initialRegions={initial}
               onChange={onChange}
               regionListContainer={shapeList}
+              classKind="Zones"
               className="min-h-0"
             />
             <ZoneDrawerPanel notice={notice} zones={working} hasSurface={hasSurface} suggesting={suggest.isPending} onSuggestSurface={() => suggest.mutate(photo.id)} onAdd={addZone} onRemove={removeZone} listRef={setShapeList} />

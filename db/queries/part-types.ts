@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, desc, eq, inArray, isNotNull } from "drizzle-orm";
+import { and, asc, desc, eq, inArray, isNotNull, isNull } from "drizzle-orm";
 import { db, type DbOrTx } from "@/db/client";
 import { lots, partTypes, photos, regions, units } from "@/db/schema";
 
@@ -19,9 +19,10 @@ export async function getPartType({ workspaceId, partTypeId }: { workspaceId: st
 }
 
 /**
- * The newest processed photos of one view of a part type (with a preview to draw on), with their
- * Surface outlines: samples a lead draws the view's zones on. Those with a Surface come first (the
- * stored zones show on them at once), newest first within each. Scoped by workspace on every table.
+ * The newest processed photos of one view of a part type (with a preview to draw on; none taken
+ * out of its unit as a wrong photo), with their Surface outlines: samples a lead draws the view's
+ * zones on. Those with a Surface come first (the stored zones show on them at once), newest first
+ * within each. Scoped by workspace on every table.
  */
 export async function listSamplePhotos({ workspaceId, partTypeId, viewKey, limit = 12 }: { workspaceId: string; partTypeId: string; viewKey: string; limit?: number }) {
   const rows = await db()
@@ -39,7 +40,7 @@ export async function listSamplePhotos({ workspaceId, partTypeId, viewKey, limit
     .from(photos)
     .innerJoin(units, and(eq(units.id, photos.unitId), eq(units.workspaceId, workspaceId)))
     .innerJoin(lots, and(eq(lots.id, units.lotId), eq(lots.workspaceId, workspaceId)))
-    .where(and(eq(photos.workspaceId, workspaceId), eq(units.partTypeId, partTypeId), eq(photos.viewKey, viewKey), eq(photos.status, "ready"), isNotNull(photos.previewWidth), isNotNull(photos.previewHeight)))
+    .where(and(eq(photos.workspaceId, workspaceId), eq(units.partTypeId, partTypeId), eq(photos.viewKey, viewKey), eq(photos.status, "ready"), isNotNull(photos.previewWidth), isNotNull(photos.previewHeight), isNull(photos.removedAt)))
     .orderBy(desc(photos.createdAt), desc(photos.id))
     .limit(limit);
   const surfaces = rows.length

@@ -28,14 +28,19 @@ test("a lead draws a new zone on a photo of the part type, and it is saved with 
   const form = page.getByTestId("part-type-form");
   await form.getByTestId("view-editor-0").getByRole("button", { name: "Draw zones on a photo" }).click();
   const drawer = page.getByTestId("zone-drawer");
-  await drawer.getByLabel("Key").fill("connector");
-  await drawer.getByLabel("Label").fill("Connector");
+  await drawer.getByLabel("Key", { exact: true }).fill("connector");
+  await drawer.getByLabel("Label", { exact: true }).fill("Connector");
   await drawer.getByRole("button", { name: "Add zone" }).click();
 
   const stage = drawer.getByTestId("annotation-stage");
   await expect(stage).toHaveAttribute("data-ready", "true", { timeout: 30_000 });
   // The existing zone (Lens window, left half of the Surface box) is already on the photo.
   await expect(stage).toHaveAttribute("data-region-count", "2");
+  // Zones are offered as zones, not as defect classes of some severity.
+  const bar = drawer.getByTestId("class-bar");
+  await expect(bar).toHaveAccessibleName("Zones");
+  await expect(bar).toContainText("Connector");
+  await expect(bar).not.toContainText(/minor|major|critical/i);
   await stage.focus(); // before measuring: focus may scroll the stage into view
   const read = async (name: string) => Number(await stage.getAttribute(name));
   const [scale, ox, oy] = [await read("data-zoom"), await read("data-offset-x"), await read("data-offset-y")];
@@ -130,12 +135,12 @@ test("on a photo with no Surface a lead has one suggested and the stored zones a
   await expect(stage).toHaveAttribute("data-region-count", "2"); // the Surface and the lens window in its box
   await expect(drawer.getByTestId("zone-drawer-no-surface")).toBeHidden();
 
-  await drawer.getByLabel("Key").fill("connector");
-  await drawer.getByLabel("Key").press("Enter");
+  await drawer.getByLabel("Key", { exact: true }).fill("connector");
+  await drawer.getByLabel("Key", { exact: true }).press("Enter");
   await expect(drawer.getByTestId("zone-list")).toContainText("connector");
-  await expect(drawer.getByLabel("Key")).toHaveValue("");
-  await drawer.getByLabel("Key").fill("Bad Key");
-  await drawer.getByLabel("Key").press("Enter");
+  await expect(drawer.getByLabel("Key", { exact: true })).toHaveValue("");
+  await drawer.getByLabel("Key", { exact: true }).fill("Bad Key");
+  await drawer.getByLabel("Key", { exact: true }).press("Enter");
   await expect(drawer.getByTestId("zone-add-problem")).toHaveText(/lower-case letters, digits and single hyphens/);
 
   await drawer.getByRole("button", { name: "Close" }).click();

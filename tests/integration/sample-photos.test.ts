@@ -1,9 +1,9 @@
 /**
  * Sample photos a lead draws a view's zones on (GET /api/part-types/:id/sample-photos?view=…), over
  * HTTP against the test server and its PostgreSQL: only processed photos with a preview, of that
- * view of that part type, those with a Surface first and newest first within each, each with its
- * Surface outlines and never its defect regions; bad input and other roles or workspaces get a
- * clear 4xx.
+ * view of that part type, none taken out of its unit; those with a Surface first and newest first
+ * within each, each with its Surface outlines and never its defect regions. Bad input and other
+ * roles or workspaces get a clear 4xx.
  */
 import { eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
@@ -42,6 +42,8 @@ describe("sample photos for drawing zones", () => {
     await readyPhoto(unit.id, "back", new Date("2026-11-03T08:00:00Z")); // another view
     await createPhoto({ workspaceId: owner.workspaceId, unitId: unit.id, uploadedBy: owner.userId, viewKey: "lens", status: "processing" });
     await createPhoto({ workspaceId: owner.workspaceId, unitId: unit.id, uploadedBy: owner.userId, viewKey: "lens" }); // ready, but no preview sizes
+    const removed = await readyPhoto(unit.id, "lens", new Date("2026-11-02T10:00:00Z"));
+    await db().update(photos).set({ removedAt: new Date(), removedBy: owner.userId, removalReason: "A photo of another part" }).where(eq(photos.id, removed.id));
     const otherType = await createPartType(owner.workspaceId);
     const otherUnit = await createUnit({ workspaceId: owner.workspaceId, partTypeId: otherType.id, createdBy: owner.userId });
     await readyPhoto(otherUnit.id, "lens", new Date("2026-11-04T08:00:00Z"));
