@@ -1,7 +1,7 @@
 import "server-only";
-import { and, asc, desc, eq, inArray, isNotNull, isNull } from "drizzle-orm";
+import { and, asc, eq, inArray, or, sql } from "drizzle-orm";
 import { db, type DbOrTx } from "@/db/client";
-import { lots, partTypes, photos, regions, units } from "@/db/schema";
+import { partTypes, type NewPartType } from "@/db/schema";
 
 export function listPartTypes({ workspaceId, active }: { workspaceId: string; active?: boolean }) {
   const where = [eq(partTypes.workspaceId, workspaceId)];
@@ -18,38 +18,25 @@ export async function getPartType({ workspaceId, partTypeId }: { workspaceId: st
   return row;
 }
 
-/**
- * The newest processed photos of one view of a part type (with a preview to draw on; none taken
- * out of its unit as a wrong photo), with their Surface outlines: samples a lead draws the view's
- * zones on. Those with a Surface come first (the stored zones show on them at once), newest first
- * within each. Scoped by workspace on every table.
- */
-export async function listSamplePhotos({ workspaceId, partTypeId, viewKey, limit = 12 }: { workspaceId: string; partTypeId: string; viewKey: string; limit?: number }) {
-  const rows = await db()
-    .select({
-      id: photos.id,
-      width: photos.width,
-      height: photos.height,
-      previewWidth: photos.previewWidth,
-      previewHeight: photos.previewHeight,
-      createdAt: photos.createdAt,
-      serial: units.serial,
-      sampleIndex: units.sampleIndex,
-      purchaseRef: lots.purchaseRef,
-    })
-    .from(photos)
-    .innerJoin(units, and(eq(units.id, photos.unitId), eq(units.workspaceId, workspaceId)))
-    .innerJoin(lots, and(eq(lots.id, units.lotId), eq(lots.workspaceId, workspaceId)))
-    .where(and(eq(photos.workspaceId, workspaceId), eq(units.partTypeId, partTypeId), eq(photos.viewKey, viewKey), eq(photos.status, "ready"), isNotNull(photos.previewWidth), isNotNull(photos.previewHeight), isNull(photos.removedAt)))
-    .orderBy(desc(photos.createdAt), desc(photos.id))
-    .limit(limit);
-  const surfaces = rows.length
-    ? await db()
-        .select({ photoId: regions.photoId, id: regions.clientId, shape: regions.shape })
-        .from(regions)
-        .where(and(eq(regions.workspaceId, workspaceId), inArray(regions.photoId, rows.map((r) => r.id)), eq(regions.role, "surface")))
-    : [];
-  const samples = rows.map((row) => ({ ...row, surfaces: surfaces.filter((s) => s.photoId === row.id).map((s) => ({ id: s.id, shape: s.shape })) }));
-  // A stable sort: the newest-first order is kept within each group.
-  return samples.sort((a, b) => Number(b.surfaces.length > 0) - Number(a.surfaces.length > 0));
+export async function insertPartType(tx: DbOrTx, values: NewPartType) {
+  const [row] = await tx.insert(partTypes).values(values).returning();
+  return row;
+}
+
+/** Undefined when the part type is not in this workspace. */
+export async function updatePartTypeFields(tx: DbOrTx, { workspaceId, partTypeId, fields }: { workspaceId: string; partTypeId: string; fields: Partial<Omit<NewPartType, "id" | "workspaceId" | "slug">> }) {
+  const [row] = await tx
+    .update(partTypes)
+    .set({ ...fields, updatedAt: new Date() })
+    .where(and(eq(partTypes.workspaceId, workspaceId), eq(partTypes.id, partTypeId)))
+    .returning();
+  return row;
+}
+
+/** The workspace's part types that have one of these slugs, or one of these names in any case. */
+export function listPartTypesNamed(tx: DbOrTx, { workspaceId, slugs, names }: { workspaceId: string; slugs: string[]; names: string[] }) {
+  return tx
+    .select({ slug: partTypes.slug, name: partTypes.name })
+    .from(partTypes)
+    .where(and(eq(partTypes.workspaceId, workspaceId), or(inArray(partTypes.slug, slugs), inArray(sql`lower(${partTypes.name})`, names.map((n) => n.toLowerCase())))));
 }

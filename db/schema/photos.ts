@@ -27,8 +27,13 @@ export const photos = pgTable(
     workspaceId: uuid()
       .notNull()
       .references(() => workspaces.id),
-    unitId: uuid().notNull(),
-    /** A view key of the unit's part type ("front", "screen-white", …). */
+    /**
+     * The unit it documents; null for a photo uploaded straight into the Gallery (its gallery item
+     * names it, lib/gallery/uploads.ts). Unit features join through this column, so they never see
+     * gallery uploads.
+     */
+    unitId: uuid(),
+    /** A view key of the unit's (or the gallery item's) part type ("front", "screen-white", …). */
     viewKey: text().notNull(),
     status: text({ enum: PHOTO_STATUSES }).notNull().default("queued"),
     failureCode: text({ enum: PHOTO_FAILURE_CODES }),

@@ -1,10 +1,10 @@
 import "server-only";
-import { db } from "@/db/client";
+import { transaction } from "@/db/client";
 import { logActivity } from "@/db/queries/activity";
+import { upsertChecklistResult } from "@/db/queries/checklist";
 import { getUnitDetail, lockUnit } from "@/db/queries/units";
-import { checklistResults } from "@/db/schema";
+import { can } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/require-user";
-import { hasAnyRole } from "@/lib/auth/roles";
 import { AppError, notFound } from "@/lib/errors";
 import { claimForWork, workClaimsUnit } from "@/lib/queue/claim-for-work";
 import { assertNotLeasedByOther } from "@/lib/queue/queue";
@@ -22,7 +22,7 @@ import { evaluateChecklistItem } from "./evaluate";
  * Graded, rechecked and final units, units of decided lots and placeholders without a serial are closed.
  */
 export async function recordChecklistResult(actor: SessionUser, unitId: string, input: ChecklistRecordInput) {
-  return db().transaction(async (tx) => {
+  return transaction(async (tx) => {
     const unit = await lockUnit(tx, { workspaceId: actor.workspaceId, unitId });
     if (!unit) throw notFound("That unit");
     const detail = (await getUnitDetail({ workspaceId: actor.workspaceId, unitId }, tx))!;
@@ -33,11 +33,11 @@ export async function recordChecklistResult(actor: SessionUser, unitId: string, 
     if (!item) throw new AppError("bad_request", `“${input.itemId}” is not an item of the ${detail.partType.name} checklist.`, { fieldErrors: { itemId: "Unknown checklist item." } });
     const evaluation = evaluateChecklistItem(item, input.value);
 
-    const isLead = hasAnyRole(actor.roles, "lead");
-    if (!isLead) assertNotLeasedByOther(unit, actor, detail.leaseHolderName);
+    const managesLeases = can(actor, "leases.manage");
+    if (!managesLeases) assertNotLeasedByOther(unit, actor);
     // Queued, or on a bench whose lease ran out: the recorder takes it. A lead correcting a
     // result leaves a bench whose lease ran out alone.
-    if (unit.status === "queued" || (!isLead && workClaimsUnit(unit))) await claimForWork(tx, actor, unit, "checklist");
+    if (unit.status === "queued" || (!managesLeases && workClaimsUnit(unit))) await claimForWork(tx, actor, unit, "checklist");
 
     const values = {
       value: evaluation.value,
@@ -48,11 +48,7 @@ export async function recordChecklistResult(actor: SessionUser, unitId: string, 
       recordedBy: actor.id,
       recordedAt: new Date(),
     };
-    const [result] = await tx
-      .insert(checklistResults)
-      .values({ workspaceId: actor.workspaceId, unitId, itemId: item.id, ...values })
-      .onConflictDoUpdate({ target: [checklistResults.unitId, checklistResults.itemId], set: values })
-      .returning();
+    const result = await upsertChecklistResult(tx, { workspaceId: actor.workspaceId, unitId, itemId: item.id, values });
     await logActivity(tx, {
       workspaceId: actor.workspaceId,
       actorId: actor.id,

@@ -3,11 +3,16 @@
  * /api/photos/:id/{thumbnail,preview,original}, which check the session every time.
  */
 import type { PhotoFailureCode, PhotoStatus } from "@/db/schema/photos";
-import type { PhotoWithContext } from "./queries";
+import type { PhotoWithContext } from "@/db/queries/photos";
+
+/** How a unit is named beside a photo: its serial, or its place in the lot's sample. */
+export const unitLabel = (u: { serial: string | null; sampleIndex: number; purchaseRef: string }) =>
+  u.serial ? `${u.serial} (${u.purchaseRef})` : `sample ${u.sampleIndex} of ${u.purchaseRef}`;
 
 export type PhotoDto = {
   id: string;
-  unitId: string;
+  /** Null for a photo uploaded straight into the Gallery. */
+  unitId: string | null;
   viewKey: string;
   status: PhotoStatus;
   failure: { code: PhotoFailureCode; reason: string } | null;
@@ -60,7 +65,7 @@ export function toPhotoDto(p: PhotoWithContext): PhotoDto {
       ? {
           photoId: p.reuse.photoId,
           unitId: p.reuse.unitId,
-          unitLabel: p.reuse.serial ? `${p.reuse.serial} (${p.reuse.purchaseRef})` : `sample ${p.reuse.sampleIndex} of ${p.reuse.purchaseRef}`,
+          unitLabel: unitLabel(p.reuse),
         }
       : null,
     uploadedBy: { id: p.uploadedBy, name: p.uploaderName },

@@ -15,11 +15,11 @@ import "server-only";
  *     A slower verdict answers 202; the photo's status then shows it.
  * Refusals throw PhotoRejectedError (mapped to 4xx by lib/photos/http.ts).
  */
-import { and, eq, isNull } from "drizzle-orm";
-import { db, type DbOrTx } from "@/db/client";
+import { transaction, type DbOrTx } from "@/db/client";
 import { isUniqueViolation } from "@/db/errors";
 import { logActivity } from "@/db/queries/activity";
-import { photos, type NewPhoto } from "@/db/schema";
+import { deleteRefusalNotice } from "@/db/queries/photo-processing";
+import type { NewPhoto } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/require-user";
 import { env } from "@/lib/env";
 import { AppError } from "@/lib/errors";
@@ -32,7 +32,7 @@ import { assertOpenForUploads, loadUnit, viewOf } from "./intents";
 import { originalKey, stagingKey, type PhotoKeyOwner } from "./object-keys";
 import { checkStoredUpload, emptyFile, tooLarge } from "./precheck";
 import { processPhoto } from "./process";
-import { findReuseCandidate, findUnitPhotoBySha, getPhoto, getPhotoWithContext, type PhotoWithContext } from "./queries";
+import { findReuseCandidate, findUnitPhotoBySha, getPhoto, getPhotoById, getPhotoWithContext, insertPhotoRow, type PhotoWithContext } from "@/db/queries/photos";
 import type { FinaliseInput } from "./schemas";
 import { verifyUploadTicket, type UploadTicket } from "./ticket";
 
@@ -67,15 +67,26 @@ function readTicket(actor: SessionUser, unitId: string, token: string, now: Date
 const withContext = async (actor: SessionUser, photoId: string) => (await getPhotoWithContext({ workspaceId: actor.workspaceId, photoId }))!;
 
 export async function finaliseUpload(actor: SessionUser, unitId: string, input: FinaliseInput, options: FinaliseOptions = {}): Promise<FinaliseOutcome> {
-  const { store = objectStore(), dispatch = "queue", now = new Date() } = options;
-  const waitMs = options.waitMs ?? photoSettings().PHOTO_FINALISE_WAIT_MS;
   const unit = await loadUnit(actor, unitId);
-  const ticket = readTicket(actor, unitId, input.ticket, now);
+  const ticket = readTicket(actor, unitId, input.ticket, options.now ?? new Date());
   if (await getPhoto({ workspaceId: actor.workspaceId, photoId: ticket.photoId })) return { kind: "replayed", photo: await withContext(actor, ticket.photoId) };
   assertOpenForUploads(unit);
   viewOf(unit, ticket.viewKey);
+  return storeUpload(actor, { unitId, photoId: ticket.photoId, viewKey: ticket.viewKey, fileName: ticket.fileName }, options);
+}
 
-  const owner: PhotoKeyOwner = { workspaceId: actor.workspaceId, unitId, photoId: ticket.photoId };
+/** What a checked ticket promised: where the staged bytes go. `unitId` null: a Gallery upload. */
+export type UploadTarget = { unitId: string | null; photoId: string; viewKey: string; fileName: string };
+
+/**
+ * Steps 2–6 for a ticket the caller has checked (a unit's, or the Gallery's in lib/gallery/uploads.ts).
+ * Gallery uploads skip the same-bytes and reuse checks: those compare evidence between units.
+ */
+export async function storeUpload(actor: SessionUser, target: UploadTarget, options: FinaliseOptions = {}): Promise<FinaliseOutcome> {
+  const { store = objectStore(), dispatch = "queue" } = options;
+  const waitMs = options.waitMs ?? photoSettings().PHOTO_FINALISE_WAIT_MS;
+  const { unitId } = target;
+  const owner: PhotoKeyOwner = { workspaceId: actor.workspaceId, unitId, photoId: target.photoId };
   const original = await moveToOriginal(store, owner);
   const digest = await digestObject(store, original);
   if (!digest) throw new AppError("conflict", NOT_ARRIVED);
@@ -85,18 +96,18 @@ export async function finaliseUpload(actor: SessionUser, unitId: string, input: 
     throw stored.rejection;
   }
 
-  const same = await findUnitPhotoBySha({ workspaceId: actor.workspaceId, unitId, sha256: digest.sha256 });
+  const same = unitId ? await findUnitPhotoBySha({ workspaceId: actor.workspaceId, unitId, sha256: digest.sha256 }) : null;
   if (same) return answerSameBytes(actor, store, original, same.id);
-  const reuse = await findReuseCandidate({ workspaceId: actor.workspaceId, unitId, sha256: digest.sha256 });
+  const reuse = unitId ? await findReuseCandidate({ workspaceId: actor.workspaceId, unitId, sha256: digest.sha256 }) : null;
   const row: NewPhoto = {
-    id: ticket.photoId,
+    id: target.photoId,
     workspaceId: actor.workspaceId,
     unitId,
-    viewKey: ticket.viewKey,
+    viewKey: target.viewKey,
     status: "queued",
     originalKey: original,
     contentType: stored.contentType,
-    fileName: ticket.fileName,
+    fileName: target.fileName,
     bytes: digest.bytes,
     sha256: digest.sha256,
     possibleReuseOfPhotoId: reuse?.id ?? null,
@@ -104,10 +115,10 @@ export async function finaliseUpload(actor: SessionUser, unitId: string, input: 
   };
   try {
     if (dispatch === "queue") await transactionWithJobs((tx, jobs) => insertPhoto(tx, actor, row, reuse?.unitId ?? null, jobs));
-    else await db().transaction((tx) => insertPhoto(tx, actor, row, reuse?.unitId ?? null, null));
+    else await transaction((tx) => insertPhoto(tx, actor, row, reuse?.unitId ?? null, null));
   } catch (err) {
     if (isUniqueViolation(err, "photos_pkey")) return { kind: "replayed", photo: await withContext(actor, row.id) };
-    if (isUniqueViolation(err, "photos_unit_sha256_key")) {
+    if (unitId && isUniqueViolation(err, "photos_unit_sha256_key")) {
       const winner = await findUnitPhotoBySha({ workspaceId: actor.workspaceId, unitId, sha256: digest.sha256 });
       if (winner) return answerSameBytes(actor, store, original, winner.id);
     }
@@ -157,7 +168,7 @@ async function answerSameBytes(actor: SessionUser, store: ObjectStore, newOrigin
 }
 
 async function insertPhoto(tx: DbOrTx, actor: SessionUser, row: NewPhoto, reuseUnitId: string | null, jobs: JobSender | null) {
-  await tx.insert(photos).values(row);
+  await insertPhotoRow(tx, row);
   await logActivity(tx, {
     workspaceId: actor.workspaceId,
     actorId: actor.id,
@@ -174,7 +185,7 @@ const sleep = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
 async function waitForVerdict(photoId: string, waitMs: number) {
   const deadline = Date.now() + waitMs;
   while (Date.now() < deadline) {
-    const [row] = await db().select({ status: photos.status }).from(photos).where(eq(photos.id, photoId)).limit(1);
+    const row = await getPhotoById(photoId);
     if (!row || row.status === "ready" || row.status === "failed") return;
     await sleep(150);
   }
@@ -182,10 +193,8 @@ async function waitForVerdict(photoId: string, waitMs: number) {
 
 /** A file the decoder refused: its original is already gone; drop the notice too and answer 4xx. */
 async function dropIfRefused(photoId: string) {
-  const [row] = await db().select().from(photos).where(eq(photos.id, photoId)).limit(1);
+  const row = await getPhotoById(photoId);
   if (!row || row.status !== "failed" || row.failureCode === "processing_failed" || row.originalKey !== null) return;
-  await db()
-    .delete(photos)
-    .where(and(eq(photos.id, photoId), eq(photos.status, "failed"), isNull(photos.originalKey)));
+  await deleteRefusalNotice(photoId);
   throw new PhotoRejectedError(row.failureCode as PhotoRejectionCode, row.failureReason ?? "This file was refused.");
 }

@@ -12,7 +12,7 @@ import { checkStore, objectStore, presignPut, type ObjectStore } from "@/lib/sto
 import { photoSettings } from "./config";
 import { stagingKey } from "./object-keys";
 import { checkDeclaredUpload } from "./precheck";
-import { getUnitForPhotos, type UnitForPhotos } from "./queries";
+import { getUnitForPhotos, type UnitForPhotos } from "@/db/queries/photos";
 import type { UploadIntentInput } from "./schemas";
 import { signUploadTicket } from "./ticket";
 

@@ -7,26 +7,27 @@ import "server-only";
  */
 import type { Tx } from "@/db/client";
 import { logActivity } from "@/db/queries/activity";
-import { setUnitOnBench } from "@/db/queries/units";
-import type { UnitStatus } from "@/db/schema/lots";
+import { grantLease } from "@/db/queries/unit-status";
+import type { LockedUnit } from "@/db/queries/units";
 import type { SessionUser } from "@/lib/auth/require-user";
 import { env } from "@/lib/env";
 import { transition } from "@/lib/units/state-machine";
 
-type LockedUnit = { id: string; status: UnitStatus; leaseHolderId: string | null; leaseExpiresAt: Date | null };
+type UnitLease = Pick<LockedUnit, "id" | "status" | "leaseHolderId" | "leaseRunning">;
 
-export function leaseRunning(unit: LockedUnit, now = new Date()): boolean {
-  return unit.status === "on_bench" && unit.leaseExpiresAt !== null && unit.leaseExpiresAt > now;
+/** On a bench under a lease that has not run out (lockUnit reads it from the database's clock). */
+export function leaseRunning(unit: UnitLease): boolean {
+  return unit.status === "on_bench" && unit.leaseRunning;
 }
 
 /** Whether the actor's work claims the unit: it is waiting, or on a bench whose lease ran out (the actor's own included). */
-export function workClaimsUnit(unit: LockedUnit, now = new Date()): boolean {
-  return unit.status === "queued" || (unit.status === "on_bench" && !leaseRunning(unit, now));
+export function workClaimsUnit(unit: UnitLease): boolean {
+  return unit.status === "queued" || (unit.status === "on_bench" && !leaseRunning(unit));
 }
 
 /** Claims the unit for the actor (release first if an expired lease is still recorded) and logs it. */
-export async function claimForWork(tx: Tx, actor: Pick<SessionUser, "id" | "workspaceId">, unit: LockedUnit, via: "checklist" | "regions" | "photos"): Promise<void> {
+export async function claimForWork(tx: Tx, actor: Pick<SessionUser, "id" | "workspaceId">, unit: UnitLease, via: "checklist" | "regions" | "photos"): Promise<void> {
   const status = transition(unit.status === "queued" ? "queued" : transition(unit.status, "release"), "claim");
-  await setUnitOnBench(tx, { workspaceId: actor.workspaceId, unitId: unit.id, status, holderId: actor.id, leaseExpiresAt: new Date(Date.now() + env().QUEUE_LEASE_SECONDS * 1000) });
+  await grantLease(tx, { workspaceId: actor.workspaceId, unitId: unit.id, holderId: actor.id, status, leaseSeconds: env().QUEUE_LEASE_SECONDS });
   await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.id, action: "unit.claimed", subjectType: "unit", subjectId: unit.id, detail: { via, from: unit.leaseHolderId } });
 }

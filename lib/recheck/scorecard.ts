@@ -16,7 +16,8 @@
  *   zone: a scorecard judges the grader's work of that week, whenever the auditor got to it.
  *   Rows outside [from, to] are ignored.
  * - Rechecks marked "not blind" (the auditor could have seen the first grade) are left out of
- *   every figure and counted apart (`notBlind`).
+ *   every figure and counted apart (`notBlind`). `rechecked` counts both kinds; the figures' n
+ *   counts the blind ones they are computed from.
  * - Weeks run Monday to Sunday (lib/time/periods.ts); the trend lists every week of the period,
  *   empty ones with n = 0 and NaN figures (a gap, not a zero). Figures: tally.ts; drift: drift.ts.
  */
@@ -44,14 +45,15 @@ export type ScorecardInput = {
   graded: readonly GradedCount[];
   settings: DriftSettings;
 };
-export type WeekPoint = { week: string; graded: number; notBlind: number; figures: AgreementFigures };
-export type GraderScorecard = { graderId: string; graded: number; notBlind: number; figures: AgreementFigures; weeks: WeekPoint[]; drift: DriftFlag };
+type Counts = { graded: number; rechecked: number; notBlind: number; figures: AgreementFigures };
+export type WeekPoint = { week: string } & Counts;
+export type GraderScorecard = { graderId: string } & Counts & { weeks: WeekPoint[]; drift: DriftFlag };
 export type Scorecards = {
   from: string;
   to: string;
   weeks: string[];
   graders: GraderScorecard[];
-  team: { graded: number; notBlind: number; figures: AgreementFigures; weeks: WeekPoint[] };
+  team: Counts & { weeks: WeekPoint[] };
 };
 
 type WeekCounts = { tally: AgreementTally; graded: number; notBlind: number };
@@ -97,7 +99,8 @@ export function buildScorecards(input: ScorecardInput): Scorecards {
     }
     return total;
   };
-  const points = (list: readonly WeekCounts[]): WeekPoint[] => list.map((week, index) => ({ week: weeks[index], graded: week.graded, notBlind: week.notBlind, figures: week.tally.figures() }));
+  const counts = ({ tally, graded, notBlind }: WeekCounts): Counts => ({ graded, rechecked: tally.n + notBlind, notBlind, figures: tally.figures() });
+  const points = (list: readonly WeekCounts[]): WeekPoint[] => list.map((week, index) => ({ week: weeks[index], ...counts(week) }));
 
   const ids = [...graders.keys()].sort((a, b) => (a < b ? -1 : a > b ? 1 : 0));
   const windows = new Map(ids.map((id) => [id, sum(graders.get(id)!, windowStart).tally]));
@@ -106,9 +109,9 @@ export function buildScorecards(input: ScorecardInput): Scorecards {
     const period = sum(list);
     const others = new AgreementTally();
     for (const [id, window] of windows) if (id !== graderId) others.addTally(window);
-    return { graderId, graded: period.graded, notBlind: period.notBlind, figures: period.tally.figures(), weeks: points(list), drift: driftFlag(windows.get(graderId)!, others, driftWindow, input.settings) };
+    return { graderId, ...counts(period), weeks: points(list), drift: driftFlag(windows.get(graderId)!, others, driftWindow, input.settings) };
   });
   const teamWeeks = weeks.map((_, index) => sum(ids.map((id) => graders.get(id)![index])));
   const team = sum(teamWeeks);
-  return { from, to, weeks, graders: cards, team: { graded: team.graded, notBlind: team.notBlind, figures: team.tally.figures(), weeks: points(teamWeeks) } };
+  return { from, to, weeks, graders: cards, team: { ...counts(team), weeks: points(teamWeeks) } };
 }

@@ -9,7 +9,8 @@
  * UTC offset is looked up once per UTC day (at its first and last millisecond) and reused for
  * every instant of that day; only a day on which the offset changes (a daylight-saving switch) is
  * formatted instant by instant. This is exact as long as a zone changes its offset at most once
- * in a UTC day, which holds for the zones in use (c).
+ * in a UTC day, which holds for the zones in use (c). Date keys are memoised both ways (day
+ * number ↔ "YYYY-MM-DD"), since a report's rows fall on a few hundred distinct days.
  */
 
 export type PeriodUnit = "day" | "week" | "month";
@@ -17,7 +18,12 @@ export type PeriodUnit = "day" | "week" | "month";
 const DAY_MS = 86_400_000;
 const DATE_KEY = /^(\d{4})-(\d{2})-(\d{2})$/;
 
+/** Memo caches are cleared when they reach this size (a bound, never reached by one report). */
+const CACHE_LIMIT = 100_000;
 const offsetFormatters = new Map<string, Intl.DateTimeFormat>();
+/** UTC day number (days since 1970-01-01) → "YYYY-MM-DD", and valid keys → their UTC midnight. */
+const keysOfDays = new Map<number, string>();
+const daysOfKeys = new Map<string, number>();
 /** Per zone: UTC day number → offset in ms for that whole day, or null when it changes that day. */
 const dayOffsets = new Map<string, Map<number, number | null>>();
 
@@ -45,7 +51,17 @@ function toMs(at: Date | string | number): number {
   return ms;
 }
 
-const dateKeyOfUtcMs = (ms: number): string => new Date(ms).toISOString().slice(0, 10);
+function keyOfDay(day: number): string {
+  let key = keysOfDays.get(day);
+  if (key === undefined) {
+    key = new Date(day * DAY_MS).toISOString().slice(0, 10);
+    if (keysOfDays.size >= CACHE_LIMIT) keysOfDays.clear();
+    keysOfDays.set(day, key);
+  }
+  return key;
+}
+
+const dateKeyOfUtcMs = (ms: number): string => keyOfDay(Math.floor(ms / DAY_MS));
 
 /** The local calendar date ("YYYY-MM-DD") of an instant in `timeZone`. */
 export function localDate(at: Date | string | number, timeZone: string): string {
@@ -69,9 +85,13 @@ export function localDate(at: Date | string | number, timeZone: string): string 
 
 /** Checks a "YYYY-MM-DD" key and returns its UTC midnight in ms. */
 export function parseDateKey(date: string): number {
+  const known = daysOfKeys.get(date);
+  if (known !== undefined) return known;
   const match = DATE_KEY.exec(date);
   const ms = match ? Date.UTC(Number(match[1]), Number(match[2]) - 1, Number(match[3])) : Number.NaN;
   if (!match || !Number.isFinite(ms) || dateKeyOfUtcMs(ms) !== date) throw new RangeError(`Not a calendar date (YYYY-MM-DD): ${JSON.stringify(date)}.`);
+  if (daysOfKeys.size >= CACHE_LIMIT) daysOfKeys.clear();
+  daysOfKeys.set(date, ms);
   return ms;
 }
 
@@ -80,8 +100,9 @@ export function periodOfDate(date: string, unit: PeriodUnit): string {
   const ms = parseDateKey(date);
   if (unit === "day") return date;
   if (unit === "month") return `${date.slice(0, 7)}-01`;
-  const weekday = (new Date(ms).getUTCDay() + 6) % 7; // Monday 0 … Sunday 6
-  return dateKeyOfUtcMs(ms - weekday * DAY_MS);
+  const day = ms / DAY_MS;
+  const weekday = (((day + 3) % 7) + 7) % 7; // Monday 0 … Sunday 6 (1970-01-01 was a Thursday)
+  return keyOfDay(day - weekday);
 }
 
 /** The period of an instant in the zone. */

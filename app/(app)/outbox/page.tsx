@@ -11,7 +11,7 @@ export const metadata: Metadata = { title: "Outbox" };
 const KIND_LABELS = { invitation: "Invitation", password_reset: "Password reset", supplier_evidence: "Supplier evidence" } as const;
 
 export default async function OutboxPage() {
-  const user = await requirePageUser({ role: "lead", from: "/outbox" });
+  const user = await requirePageUser({ permission: "outbox.read", from: "/outbox" });
   if (!localInboxDir()) notFound();
   const emails = await listOutgoingEmails({ workspaceId: user.workspaceId });
   return (

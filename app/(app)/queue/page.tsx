@@ -1,12 +1,10 @@
-import { asc, and, eq } from "drizzle-orm";
 import type { Metadata } from "next";
 import { QueueBoard } from "@/components/queue/queue-board";
 import { EmptyState } from "@/components/ui/empty-state";
-import { db } from "@/db/client";
+import { listQueueFilterChoices } from "@/db/queries/queue";
 import { getSetupCounts } from "@/db/queries/workspaces";
-import { lots, partTypes, suppliers } from "@/db/schema";
+import { can } from "@/lib/auth/permissions";
 import { requirePageUser } from "@/lib/auth/require-user";
-import { hasAnyRole } from "@/lib/auth/roles";
 import { screenByHref } from "@/lib/nav";
 import { setupSteps } from "@/lib/workspace/setup";
 
@@ -14,18 +12,9 @@ const screen = screenByHref("/queue")!;
 export const metadata: Metadata = { title: screen.label };
 
 export default async function QueuePage() {
-  const user = await requirePageUser({ role: screen.roles, from: screen.href });
+  const user = await requirePageUser({ permission: screen.permission, from: screen.href });
   const ws = user.workspaceId;
-  const [counts, pts, sups, openLots] = await Promise.all([
-    getSetupCounts({ workspaceId: ws }),
-    db().select({ id: partTypes.id, name: partTypes.name }).from(partTypes).where(eq(partTypes.workspaceId, ws)).orderBy(asc(partTypes.name)),
-    db().select({ id: suppliers.id, name: suppliers.name }).from(suppliers).where(eq(suppliers.workspaceId, ws)).orderBy(asc(suppliers.name)),
-    db()
-      .select({ id: lots.id, purchaseRef: lots.purchaseRef, dueOn: lots.dueOn })
-      .from(lots)
-      .where(and(eq(lots.workspaceId, ws), eq(lots.status, "open")))
-      .orderBy(asc(lots.dueOn)),
-  ]);
+  const [counts, choices] = await Promise.all([getSetupCounts({ workspaceId: ws }), listQueueFilterChoices({ workspaceId: ws })]);
   return (
     <div className="max-w-6xl space-y-4">
       <div>
@@ -33,11 +22,11 @@ export default async function QueuePage() {
         <p className="text-gauge-700">Take next gives you the most urgent waiting unit (earliest due lot first) and reserves it for you while its Bench is open.</p>
       </div>
       {counts.units === 0 && (
-        <EmptyState title="Nothing to inspect yet" steps={hasAnyRole(user.roles, "lead") ? setupSteps(counts).filter((s) => s.key === "lot") : []} testId="queue-empty">
+        <EmptyState title="Nothing to inspect yet" steps={can(user, "workspace.manage") ? setupSteps(counts).filter((s) => s.key === "lot") : []} testId="queue-empty">
           Units arrive here when a QC lead receives a lot and creates its sample (from the supplier&apos;s serial list or as numbered placeholders).
         </EmptyState>
       )}
-      <QueueBoard options={{ partTypes: pts, suppliers: sups, lots: openLots.map((l) => ({ id: l.id, label: `${l.purchaseRef} (due ${l.dueOn})` })) }} />
+      <QueueBoard options={{ partTypes: choices.partTypes, suppliers: choices.suppliers, lots: choices.openLots.map((l) => ({ id: l.id, label: `${l.purchaseRef} (due ${l.dueOn})` })) }} />
     </div>
   );
 }

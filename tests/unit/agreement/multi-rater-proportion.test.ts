@@ -11,7 +11,7 @@
  * NEW   Newcombe (1998), Statistics in Medicine 17:857–872, Table I, Wilson score interval without
  *       continuity correction: 81/263 → 0.2553–0.3662, 15/148 → 0.0624–0.1605, 0/20 → 0–0.1611,
  *       1/29 → 0.0061–0.1718 (b, from memory) — all four confirmed to 10 digits by SciPy 1.17.1
- *       (Debian python3-scipy, `binomtest(k, n).proportion_ci(method="wilson")`, run 2026-12-05),
+ *       (the machine's Python 3.11 site packages, `binomtest(k, n).proportion_ci(method="wilson")`),
  *       a reference library; SciPy also for 4/5 and 29/29.
  */
 import { describe, expect, it } from "vitest";

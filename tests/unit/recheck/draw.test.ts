@@ -4,7 +4,7 @@
  *       types, never twice) — our decisions (c), counted by hand beside each check (HAND).
  * CHI   Pearson's chi-squared goodness-of-fit test for uniform draws (c, common practice); the
  *       0.999 quantile of χ² with 19 degrees of freedom, 43.8202, from SciPy 1.17.1
- *       `scipy.stats.chi2.ppf(0.999, 19)` (reference library, Debian python3-scipy, run here).
+ *       `scipy.stats.chi2.ppf(0.999, 19)` (reference library, the machine's Python 3.11, run here).
  */
 import { describe, expect, it } from "vitest";
 import { drawRechecks, recheckRateFor, RECHECK_DRAW_ALGORITHM, type DrawCandidate } from "@/lib/recheck/draw";

@@ -47,17 +47,17 @@ describe("buildScorecards", () => {
 
   it("lists every week of the period by its Monday, empty weeks included (EU a, HAND)", () => {
     expect(cards.weeks).toEqual(["2026-06-01", "2026-06-08", "2026-06-15", "2026-06-22"]);
-    expect(ann.weeks.map((week) => [week.week, week.graded, week.figures.n, week.notBlind])).toEqual([
-      ["2026-06-01", 10, 1, 1],
-      ["2026-06-08", 12, 1, 0],
-      ["2026-06-15", 0, 0, 0],
-      ["2026-06-22", 0, 1, 0],
+    expect(ann.weeks.map((week) => [week.week, week.graded, week.rechecked, week.figures.n, week.notBlind])).toEqual([
+      ["2026-06-01", 10, 2, 1, 1],
+      ["2026-06-08", 12, 1, 1, 0],
+      ["2026-06-15", 0, 0, 0, 0],
+      ["2026-06-22", 0, 1, 1, 0],
     ]);
     expect(ann.weeks[2].figures.exact.share).toBeNaN();
   });
 
   it("counts a recheck in the local week of the grade it rechecks, leaves out 'not blind' ones and rows outside the period (HAND)", () => {
-    expect(ann).toMatchObject({ graded: 22, notBlind: 1 });
+    expect(ann).toMatchObject({ graded: 22, rechecked: 4, notBlind: 1 });
     expect(ann.figures.n).toBe(3);
     expect(ann.figures.exact.share).toBeCloseTo(2 / 3, 15);
     expect(ann.weeks[0].figures.exact.share).toBe(0);
@@ -68,7 +68,7 @@ describe("buildScorecards", () => {
   });
 
   it("adds the graders up into the team, week by week (HAND)", () => {
-    expect(cards.team).toMatchObject({ graded: 27, notBlind: 1 });
+    expect(cards.team).toMatchObject({ graded: 27, rechecked: 14, notBlind: 1 });
     expect(cards.team.figures.n).toBe(13);
     // Exact: ann 2 + bo 3 = 5 of 13.
     expect(cards.team.figures.exact.share).toBeCloseTo(5 / 13, 15);

@@ -7,7 +7,7 @@
  * SM    statsmodels 0.13.5 `cohens_kappa(…, wt="quadratic")` on that table: κ 0.4501607717
  *       (reference library, the figure tests/unit/agreement/kappa.test.ts pins).
  * SCIPY SciPy 1.17.1 `binomtest(13, 19).proportion_ci(method="wilson")`: 0.4601040768–0.8463562091
- *       (reference library, Debian python3-scipy, run here).
+ *       (reference library, the machine's Python 3.11, run here).
  */
 import { describe, expect, it } from "vitest";
 import type { Grade } from "@/lib/grading/rubric-schema";

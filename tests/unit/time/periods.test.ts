@@ -77,6 +77,20 @@ describe("periods", () => {
     expect(periodOfDate("2027-01-01", "week")).toBe("2026-12-28");
   });
 
+  it("gives a Monday at most six days back for every day of 1965–2035, before 1970 too (ISO a; the runtime's getUTCDay)", () => {
+    const DAY_MS = 86_400_000;
+    for (let ms = Date.UTC(1965, 0, 1); ms <= Date.UTC(2035, 11, 31); ms += DAY_MS) {
+      const date = new Date(ms).toISOString().slice(0, 10);
+      const monday = periodOfDate(date, "week");
+      const mondayMs = Date.parse(`${monday}T00:00:00Z`);
+      if (new Date(mondayMs).getUTCDay() !== 1 || ms - mondayMs < 0 || ms - mondayMs > 6 * DAY_MS) expect.fail(`${date} → ${monday}`);
+    }
+    // The same key twice (the second from the memo) and a bad key after a good one.
+    expect(periodOfDate("1969-12-31", "week")).toBe("1969-12-29");
+    expect(periodOfDate("1969-12-31", "week")).toBe("1969-12-29");
+    expect(() => parseDateKey("1969-02-29")).toThrow(RangeError);
+  });
+
   it("months start on the 1st; days are themselves", () => {
     expect(periodOfDate("2026-02-28", "month")).toBe("2026-02-01");
     expect(periodOfDate("2026-02-28", "day")).toBe("2026-02-28");

@@ -1,9 +1,13 @@
 import "server-only";
-/** Reads for photo intake, always scoped by workspace in the WHERE clause. */
-import { and, asc, eq, isNotNull, isNull, ne, sql } from "drizzle-orm";
+/**
+ * Photo rows: the reads of intake and the Bench, and the writes people make (upload, view change,
+ * withdrawal, removal). Always scoped by workspace in the WHERE clause, except the worker's
+ * reads by id. The worker's and the sweep's writes are in ./photo-processing.ts.
+ */
+import { and, asc, desc, eq, inArray, isNotNull, isNull, ne, sql } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
 import { db, type DbOrTx } from "@/db/client";
-import { lots, partTypes, photos, units, users, type Photo, type ViewDefinition } from "@/db/schema";
+import { lots, partTypes, photos, regions, units, users, type NewPhoto, type Photo, type ViewDefinition } from "@/db/schema";
 
 export type UnitForPhotos = {
   id: string;
@@ -35,9 +39,6 @@ export async function getUnitForPhotos({ workspaceId, unitId }: { workspaceId: s
     .limit(1);
   return row ?? null;
 }
-
-export const unitLabel = (u: { serial: string | null; sampleIndex: number; purchaseRef: string }) =>
-  u.serial ? `${u.serial} (${u.purchaseRef})` : `Sample ${u.sampleIndex} of ${u.purchaseRef}`;
 
 const reusedPhoto = alias(photos, "reused_photo");
 const reusedUnit = alias(units, "reused_unit");
@@ -134,4 +135,70 @@ export async function findReuseCandidate({ workspaceId, unitId, sha256 }: { work
     .orderBy(asc(photos.createdAt))
     .limit(1);
   return row ?? null;
+}
+
+export async function insertPhotoRow(tx: DbOrTx, row: NewPhoto) {
+  await tx.insert(photos).values(row);
+}
+
+type PhotoKey = { workspaceId: string; photoId: string };
+/** Only photos still in their unit change; the rest are records. */
+const currentPhoto = ({ workspaceId, photoId }: PhotoKey) => and(eq(photos.workspaceId, workspaceId), eq(photos.id, photoId), isNull(photos.removedAt));
+
+/** Files the photo under another view; false when it was taken out meanwhile. */
+export async function updatePhotoView(tx: DbOrTx, { viewKey, ...key }: PhotoKey & { viewKey: string }): Promise<boolean> {
+  const rows = await tx.update(photos).set({ viewKey, updatedAt: new Date() }).where(currentPhoto(key)).returning({ id: photos.id });
+  return rows.length > 0;
+}
+
+/** Takes the photo out of its unit but keeps it (and its objects) as a record; false when already out. */
+export async function withdrawPhoto(tx: DbOrTx, { removedBy, reason, ...key }: PhotoKey & { removedBy: string; reason: string }): Promise<boolean> {
+  const rows = await tx
+    .update(photos)
+    .set({ removedAt: new Date(), removedBy, removalReason: reason, updatedAt: new Date() })
+    .where(currentPhoto(key))
+    .returning({ id: photos.id });
+  return rows.length > 0;
+}
+
+/** Deletes a photo still in its unit; false when it was taken out meanwhile. */
+export async function deleteCurrentPhoto(tx: DbOrTx, key: PhotoKey): Promise<boolean> {
+  const rows = await tx.delete(photos).where(currentPhoto(key)).returning({ id: photos.id });
+  return rows.length > 0;
+}
+
+/**
+ * The newest processed photos of one view of a part type (with a preview to draw on; none taken
+ * out of its unit as a wrong photo), with their Surface outlines: samples a lead draws the view's
+ * zones on. Those with a Surface come first (the stored zones show on them at once), newest first
+ * within each. Scoped by workspace on every table.
+ */
+export async function listSamplePhotos({ workspaceId, partTypeId, viewKey, limit = 12 }: { workspaceId: string; partTypeId: string; viewKey: string; limit?: number }) {
+  const rows = await db()
+    .select({
+      id: photos.id,
+      width: photos.width,
+      height: photos.height,
+      previewWidth: photos.previewWidth,
+      previewHeight: photos.previewHeight,
+      createdAt: photos.createdAt,
+      serial: units.serial,
+      sampleIndex: units.sampleIndex,
+      purchaseRef: lots.purchaseRef,
+    })
+    .from(photos)
+    .innerJoin(units, and(eq(units.id, photos.unitId), eq(units.workspaceId, workspaceId)))
+    .innerJoin(lots, and(eq(lots.id, units.lotId), eq(lots.workspaceId, workspaceId)))
+    .where(and(eq(photos.workspaceId, workspaceId), eq(units.partTypeId, partTypeId), eq(photos.viewKey, viewKey), eq(photos.status, "ready"), isNotNull(photos.previewWidth), isNotNull(photos.previewHeight), isNull(photos.removedAt)))
+    .orderBy(desc(photos.createdAt), desc(photos.id))
+    .limit(limit);
+  const surfaces = rows.length
+    ? await db()
+        .select({ photoId: regions.photoId, id: regions.clientId, shape: regions.shape })
+        .from(regions)
+        .where(and(eq(regions.workspaceId, workspaceId), inArray(regions.photoId, rows.map((r) => r.id)), eq(regions.role, "surface")))
+    : [];
+  const samples = rows.map((row) => ({ ...row, surfaces: surfaces.filter((s) => s.photoId === row.id).map((s) => ({ id: s.id, shape: s.shape })) }));
+  // A stable sort: the newest-first order is kept within each group.
+  return samples.sort((a, b) => Number(b.surfaces.length > 0) - Number(a.surfaces.length > 0));
 }
