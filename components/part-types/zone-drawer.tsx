@@ -11,6 +11,7 @@ import type { PolygonShape } from "@/lib/geometry/shape";
 import type { RegionSetPayload } from "@/lib/geometry/validate";
 import { apiFetch } from "@/lib/http/client";
 import { drawingFromZones, zonesFromDrawing, zonesToPlace } from "@/lib/part-types/zone-drawing";
+import { partTypeKeys } from "@/lib/query-keys/part-types";
 import { ZoneDrawerPanel } from "./zone-drawer-panel";
 
 type SamplePhoto = {
@@ -50,7 +51,7 @@ export function ZoneDrawer({ partTypeId, view, zones, onApply, onClose }: { part
   const [closing, setClosing] = useState(false);
   const [message, setMessage] = useState<{ kind: "error" | "success"; text: string } | null>(null);
   const samples = useQuery({
-    queryKey: ["sample-photos", partTypeId, view.key],
+    queryKey: partTypeKeys.samplePhotos(partTypeId, view.key),
     queryFn: () => apiFetch<{ photos: SamplePhoto[] }>(`/api/part-types/${partTypeId}/sample-photos?view=${encodeURIComponent(view.key)}`),
   });
   const photo = samples.data?.photos[photoIndex] ?? null;
