@@ -54,7 +54,7 @@ function newIdPrefix(): string {
 
 export function AnnotationCanvas(props: AnnotationCanvasProps) {
   const { handleRef, imageUrl, original, preview, allowedDefects, zones = NO_ZONES, initialRegions, onChange, onHistoryChange, readOnly = false, className = "" } = props;
-  const { ghosts = NO_GHOSTS, regionListContainer = null, keyArea = null, autoFocus = false, startWith, onToolChange, pageShortcuts = NO_SHORTCUTS, toolbarEnd = null } = props;
+  const { ghosts = NO_GHOSTS, regionListContainer = null, keyArea = null, autoFocus = false, startWith, onToolChange, pageShortcuts = NO_SHORTCUTS, toolbarEnd = null, classKind } = props;
   // Number keys follow the severity groups (least severe first); the look follows the class key.
   const ordered = useMemo(() => benchClassOrder(allowedDefects), [allowedDefects]);
   const defectKeys = useMemo(() => ordered.map((d) => d.key), [ordered]);
@@ -86,8 +86,8 @@ export function AnnotationCanvas(props: AnnotationCanvasProps) {
   const history = useCommittedChanges(state, onChange, onHistoryChange);
   const showShortcuts = useCallback(() => setSheetOpen(true), []);
   const focusStage = useCallback(() => containerRef.current?.focus({ preventScroll: true }), []);
-  const actions = useCanvasActions({ dispatch, stageSize, fittedRef, image: original, onShowShortcuts: showShortcuts, focusStage });
-  useCanvasKeys({ rootRef, alsoIn: [regionListContainer, keyArea], latestRef, dispatch, readOnly, onView: actions.view, spaceHeldRef, onShowShortcuts: showShortcuts });
+  const actions = useCanvasActions({ dispatch, stageSize, fittedRef, image: original, onShowShortcuts: showShortcuts, focusStage, latestRef, onHandChange: onToolChange });
+  useCanvasKeys({ rootRef, alsoIn: [regionListContainer, keyArea], latestRef, dispatch, readOnly, onView: actions.view, spaceHeldRef, onShowShortcuts: showShortcuts, onHandChange: onToolChange });
 
   // The photo being marked takes the keyboard when it opens (e.g. after a thumbnail click),
   // unless the inspector has moved on to another control meanwhile.
@@ -97,7 +97,8 @@ export function AnnotationCanvas(props: AnnotationCanvasProps) {
     if (!active || active === document.body || keyArea?.contains(active)) focusStage();
   }, [autoFocus, keyArea, focusStage]);
 
-  // Tell the page which tool and class are in hand, so the next photo opens with the same ones.
+  // Tell the page which tool and class are in hand, so the next photo opens with the same ones
+  // (keys and buttons also tell it at once, in their own event: hand.ts).
   const { activeTool, activeDefect } = state;
   useEffect(() => onToolChange?.({ tool: activeTool, defect: activeDefect }), [onToolChange, activeTool, activeDefect]);
   const pointer = usePointerInput({ containerRef, latestRef, dispatch, readOnly, spaceHeldRef });
@@ -170,7 +171,7 @@ export function AnnotationCanvas(props: AnnotationCanvasProps) {
           <ToolRail activeTool={state.activeTool} lineWidth={lineWidth} enabledTools={enabledTools} classes={classes} hiddenDefects={state.hiddenDefects} history={history} readOnly={readOnly} actions={actions} />
         </div>
         <div className="flex min-h-8 min-w-0 items-start gap-3" data-testid="annotation-toolbar">
-          {!readOnly && <DefectClassPicker classes={classes} activeDefect={state.activeDefect} onPick={actions.defect} />}
+          {!readOnly && <DefectClassPicker classes={classes} activeDefect={state.activeDefect} onPick={actions.defect} kind={classKind} />}
           {toolbarEnd && <div className="ml-auto flex shrink-0 items-center">{toolbarEnd}</div>}
         </div>
         <div className="relative min-h-[320px] min-w-0">
