@@ -4,7 +4,7 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import Link from "next/link";
 import type { GalleryItemDto } from "@/lib/gallery/dto";
 import { ApiError, apiFetch } from "@/lib/http/client";
-import { galleryKeys } from "./query-keys";
+import { galleryKeys } from "@/lib/query-keys/gallery";
 
 /**
  * "Add to gallery" for a graded unit's photo (trainers and leads): its regions and the unit's grade

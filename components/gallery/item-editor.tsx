@@ -9,7 +9,7 @@ import type { RegionSetPayload } from "@/lib/geometry/validate";
 import { GRADES, type Grade } from "@/lib/grading/rubric-schema";
 import { ApiError, apiFetch } from "@/lib/http/client";
 import { ItemCanvas, type ItemPartType } from "./item-canvas";
-import { galleryKeys } from "./query-keys";
+import { galleryKeys } from "@/lib/query-keys/gallery";
 
 /**
  * A trainer's edit of one item: the same canvas as the Bench (editable), the caption, the grade it

@@ -7,7 +7,7 @@ import { MeasurementTable, type MeasurementLabels } from "@/components/grading/m
 import type { GalleryMeasurement } from "@/lib/gallery/measure";
 import type { Grade } from "@/lib/grading/rubric-schema";
 import { apiFetch } from "@/lib/http/client";
-import { galleryKeys } from "./query-keys";
+import { galleryKeys } from "@/lib/query-keys/gallery";
 
 /**
  * The item's measured numbers (its own regions, measured as the Bench measures a photo) and what

@@ -11,7 +11,7 @@ import { ItemBadges } from "./item-badges";
 import { ItemCanvas, type ItemPartType } from "./item-canvas";
 import { ItemEditor } from "./item-editor";
 import { ItemMeasurement } from "./item-measurement";
-import { galleryKeys } from "./query-keys";
+import { galleryKeys } from "@/lib/query-keys/gallery";
 
 export function measurementLabels(partType: ItemPartType): MeasurementLabels {
   return {

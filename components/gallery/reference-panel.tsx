@@ -5,7 +5,7 @@ import { useId } from "react";
 import { GradeBadge } from "@/components/grading/grade-badge";
 import type { GalleryCardDto } from "@/lib/gallery/dto";
 import { apiFetch } from "@/lib/http/client";
-import { galleryKeys } from "./query-keys";
+import { galleryKeys } from "@/lib/query-keys/gallery";
 import { RegionOverlay } from "./region-overlay";
 
 export type ReferenceClass = { key: string; label: string };

@@ -22,11 +22,12 @@ export const metadata: Metadata = { title: screen.label };
  */
 export default async function GalleryPage(props: PageProps<"/gallery">) {
   const user = await requirePageUser({ permission: screen.permission, from: screen.href });
-  const filters = parseGallerySearchParams(await props.searchParams);
+  const partTypeRows = await listPartTypes({ workspaceId: user.workspaceId });
+  const filters = parseGallerySearchParams(await props.searchParams, { partTypeIds: partTypeRows.map((p) => p.id) });
   // A cursor that does not decode (an old or edited link) opens the first page rather than an error.
   if (filters.cursor && !isGalleryCursor(filters.cursor)) delete filters.cursor;
   const canEdit = canEditGallery(user.roles);
-  const [page, partTypeRows] = await Promise.all([listGallery(user, { ...filters, limit: GALLERY_PAGE_DEFAULT }), listPartTypes({ workspaceId: user.workspaceId })]);
+  const page = await listGallery(user, { ...filters, limit: GALLERY_PAGE_DEFAULT });
   const partTypes: FilterPartType[] = partTypeRows.map((p) => ({ id: p.id, name: p.name, views: p.views.map((v) => ({ key: v.key, label: v.label })), defectClasses: p.defectClasses.map((d) => ({ key: d.key, label: d.label })) }));
   const byId = new Map(partTypes.map((p) => [p.id, p]));
   const filtered = Object.keys(filters).some((k) => k !== "cursor");

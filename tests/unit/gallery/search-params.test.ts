@@ -9,6 +9,12 @@ describe("gallery list state in the URL", () => {
     expect(parseGallerySearchParams({ partType: "not-an-id", grade: "E", kind: ["normal", "abnormal"], view: "", limit: "5" })).toEqual({});
   });
 
+  it("leaves out a part type that is not the workspace's, and the page taken from that filtered list", () => {
+    const other = "2f1d7a9c-1e0b-4c7d-8f3a-6b5e4d3c2b1a";
+    expect(parseGallerySearchParams({ partType: other, grade: "B", cursor: "p2" }, { partTypeIds: [PT] })).toEqual({ grade: "B" });
+    expect(parseGallerySearchParams({ partType: PT, cursor: "p2" }, { partTypeIds: [PT] })).toEqual({ partType: PT, cursor: "p2" });
+  });
+
   it("starts again at page 1 when a filter changes, and keeps the cursor when only the page does", () => {
     const current = { partType: PT, grade: "B" as const, cursor: "p2" };
     expect(galleryHref(current, { grade: "C" })).toBe(`/gallery?partType=${PT}&grade=C`);
