@@ -123,17 +123,17 @@ export function listGalleryItems({ workspaceId, filters, after, limit }: { works
   if (filters.kind) where.push(eq(galleryItems.kind, filters.kind));
   if (filters.grade) where.push(eq(galleryItems.grade, filters.grade));
   if (filters.defectClass) where.push(sql`${galleryItems.defectClasses} @> ARRAY[${filters.defectClass}]::text[]`);
-  if (after) {
-    const at = sql`${after.createdAt}::timestamptz`;
-    where.push(or(sql`${galleryItems.createdAt} < ${at}`, and(sql`${galleryItems.createdAt} = ${at}`, lt(galleryItems.id, after.id))));
-  }
+  // A row comparison, so the keyset is an index condition of gallery_items_list_idx (an OR of two
+  // comparisons was only a filter, and PostgreSQL sorted every row of the workspace for each page).
+  if (after) where.push(sql`(${galleryItems.createdAt}, ${galleryItems.id}) < (${after.createdAt}::timestamptz, ${after.id}::uuid)`);
   return db()
     .select({ ...cardColumns, cursorAt: createdAtText })
     .from(galleryItems)
     .innerJoin(photos, and(eq(photos.workspaceId, galleryItems.workspaceId), eq(photos.id, galleryItems.photoId)))
     .innerJoin(partTypes, and(eq(partTypes.workspaceId, galleryItems.workspaceId), eq(partTypes.id, galleryItems.partTypeId)))
     .where(and(...where))
-    .orderBy(desc(galleryItems.createdAt), desc(galleryItems.id))
+    // NULLS LAST as the index is declared (drizzle writes DESC NULLS LAST): a plain DESC would not match it and every page would sort.
+    .orderBy(sql`${galleryItems.createdAt} DESC NULLS LAST`, sql`${galleryItems.id} DESC NULLS LAST`)
     .limit(limit + 1);
 }
 
