@@ -17,7 +17,7 @@ const settings = demoSettings();
 const BASE = process.env.BENCH_BASE_URL ?? settings.app.url;
 if (!/^http:\/\/(127\.0\.0\.1|localhost)(:\d+)?$/.test(BASE)) throw new Error("bench gallery-list only runs against a loopback URL.");
 const ITEMS = 5_000;
-const CONNECTIONS = 10;
+const CONNECTIONS = Number(process.env.BENCH_GALLERY_CONNECTIONS ?? 10);
 const PASSES = Number(process.env.BENCH_GALLERY_PASSES ?? 2);
 const PASSWORD = "gallery-bench-password";
 const GRADES = ["A", "B", "C", "Reject"] as const;
