@@ -4,6 +4,7 @@
  */
 import { sql } from "drizzle-orm";
 import { closeDb, db } from "./client";
+import { seedCalibration } from "./seed/calibration";
 import { seedGallery } from "./seed/gallery";
 import { seedLots } from "./seed/lots";
 import { seedPartTypes } from "./seed/part-types";
@@ -28,7 +29,9 @@ export async function seedDemo() {
   const photos = await seedPhotos();
   // Needs the published rubrics (each example's grade is what its rubric says of its regions).
   const gallery = await seedGallery();
-  return { seeded: true as const, people, partTypes, lots, rubrics, photos, gallery };
+  // A calibration set of those examples with one passing and one failing attempt.
+  const calibration = await seedCalibration();
+  return { seeded: true as const, people, partTypes, lots, rubrics, photos, gallery, calibration };
 }
 
 if (import.meta.url === `file://${process.argv[1]}`) {

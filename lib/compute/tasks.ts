@@ -3,6 +3,7 @@
  * Plain data in and out (structured clone). Errors travel back as data, so an AppError keeps its
  * code and sentence and a DeadlineExceeded stays recognisable on the other side.
  */
+import { scoreCalibrationSet, type ScoreSetInput } from "@/lib/calibration/score-set";
 import { AppError } from "@/lib/errors";
 import { measureUnit, type UnitMeasureInput } from "@/lib/grading/grade-unit";
 import { DeadlineExceeded } from "@/lib/imaging/deadline";
@@ -15,6 +16,7 @@ export const TASKS = {
   "measure-unit": (input: UnitMeasureInput) => measureUnit(input),
   "suggest-surface": ({ image, options }: { image: Uint8Array; options?: SuggestSurfaceOptions }) => suggestSurface(bufferOf(image), options),
   "pixel-candidates": ({ image, options }: { image: Uint8Array; options?: PixelCandidateOptions }) => suggestPixelCandidates(bufferOf(image), options),
+  "score-calibration": (input: ScoreSetInput) => scoreCalibrationSet(input),
 };
 
 export type TaskName = keyof typeof TASKS;
