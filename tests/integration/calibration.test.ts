@@ -45,16 +45,17 @@ beforeAll(async () => {
 describe("making a set", () => {
   const valid = () => ({ name: "Lens basics", itemIds: ids(), thresholds: { minGradeAgreement: 0.8, minMeanIou: 0.5 } });
 
+  // The changes are functions: the fixture's item ids exist only once beforeAll has run.
   it.each([
-    ["an empty set", { itemIds: [] }, /at least 5 items/],
-    ["four items", { itemIds: ids().slice(0, 4) }, /at least 5 items/],
-    ["an item twice", { itemIds: [...ids().slice(0, 4), ids()[0]] }, /only once/],
-    ["a threshold above 100 %", { thresholds: { minGradeAgreement: 1.2, minMeanIou: 0.5 } }, /at most 1/],
-    ["a negative IoU threshold", { thresholds: { minGradeAgreement: 0.8, minMeanIou: -0.1 } }, /at least 0/],
-    ["no name", { name: "  " }, /name/],
+    ["an empty set", () => ({ itemIds: [] }), /at least 5 items/],
+    ["four items", () => ({ itemIds: ids().slice(0, 4) }), /at least 5 items/],
+    ["an item twice", () => ({ itemIds: [...ids().slice(0, 4), ids()[0]] }), /only once/],
+    ["a threshold above 100 %", () => ({ thresholds: { minGradeAgreement: 1.2, minMeanIou: 0.5 } }), /at most 1/],
+    ["a negative IoU threshold", () => ({ thresholds: { minGradeAgreement: 0.8, minMeanIou: -0.1 } }), /at least 0/],
+    ["no name", () => ({ name: "  " }), /name/],
   ])("refuses %s with a 400 and stores nothing", async (_what, change, message) => {
     const before = await count(calibrationSets);
-    const res = await api<ErrorBody>(trainer, "POST", "/api/calibration/sets", { ...valid(), ...change });
+    const res = await api<ErrorBody>(trainer, "POST", "/api/calibration/sets", { ...valid(), ...change() });
     expect(res.status, JSON.stringify(res.body)).toBe(400);
     expect(JSON.stringify(res.body.error)).toMatch(message);
     expect(await count(calibrationSets)).toBe(before);
