@@ -114,6 +114,15 @@ export async function modelInUse(workspaceId: string, tx: DbOrTx = db()) {
   return row ?? null;
 }
 
+/** One model of the workspace (without its JSON), or null for another workspace's or a missing id. */
+export async function modelOfWorkspace(workspaceId: string, modelId: string, tx: DbOrTx = db()) {
+  const [row] = await tx
+    .select({ id: suggestionModels.id, version: suggestionModels.version })
+    .from(suggestionModels)
+    .where(and(eq(suggestionModels.workspaceId, workspaceId), eq(suggestionModels.id, modelId)));
+  return row ?? null;
+}
+
 export type NewModel = Omit<typeof suggestionModels.$inferInsert, "id" | "version" | "workspaceId" | "inUse" | "createdAt">;
 
 /**

@@ -5,23 +5,19 @@ import "server-only";
  * - "stately" with the workspace id as singleton key: per workspace at most one training runs
  *   and one waits; asking again while one waits changes nothing.
  * - Started on demand by a trainer (POST /api/suggestion-models) and by the check below, which
- *   the worker runs on SUGGESTION_CHECK_CRON: a workspace is due when RETRAIN_AFTER_NEW_REGIONS
- *   accepted regions have been added since its latest model was trained (or, with no model yet,
- *   when it has FIRST_TRAINING_REGIONS). Accepted regions are counted as training-set.ts defines them.
+ *   the worker runs on SUGGESTION_CHECK_CRON, for every workspace `trainingDue` (training-set.ts).
  */
 import type PgBoss from "pg-boss";
 import { pool } from "@/db/client";
 import { acceptedRegionTotals } from "@/db/queries/suggestions";
 import { trainWorkspaceModel, type TrainingOutcome } from "@/lib/suggestions/training";
-import { ACCEPTED_UNIT_STATUSES } from "@/lib/suggestions/training-set";
+import { ACCEPTED_UNIT_STATUSES, trainingDue } from "@/lib/suggestions/training-set";
 import { JOB_NOTIFY_CHANNEL } from "./queues";
 import { queueSender } from "./send-only";
 
 export const SUGGESTION_TRAINING_QUEUE = "suggestion-training";
 export const SUGGESTION_CHECK_QUEUE = "suggestion-training-check";
 export const SUGGESTION_CHECK_CRON = process.env.SUGGESTION_CHECK_CRON ?? "*/15 * * * *";
-export const FIRST_TRAINING_REGIONS = 60;
-export const RETRAIN_AFTER_NEW_REGIONS = 50;
 
 export type SuggestionTrainingJob = { workspaceId: string; requestedBy: string | null };
 
@@ -45,11 +41,6 @@ export async function handleSuggestionTrainingJobs(jobs: PgBoss.Job<SuggestionTr
     console.log(`suggestion-training ${job.id} (workspace ${job.data.workspaceId}, ${took}): ${outcome.trained ? `version ${outcome.version}, ${outcome.decision}` : `not trained: ${outcome.reason}`}`);
   }
   return outcome;
-}
-
-/** Whether a workspace has enough new accepted regions to train again (pure). */
-export function trainingDue(accepted: number, lastTrainedOn: number | null): boolean {
-  return lastTrainedOn === null ? accepted >= FIRST_TRAINING_REGIONS : accepted - lastTrainedOn >= RETRAIN_AFTER_NEW_REGIONS;
 }
 
 const sender = () => queueSender(suggestionTrainingQueueOptions);

@@ -2,7 +2,7 @@ import "server-only";
 /** The trainers' view of a workspace's learned-suggestion models (GET /api/suggestion-models). */
 import { listModels } from "@/db/queries/suggestions";
 import { EVALUATION_IOU, SUGGESTION_RULE } from "@/lib/imaging/learned-eval";
-import { FIRST_TRAINING_REGIONS, RETRAIN_AFTER_NEW_REGIONS } from "@/lib/jobs/suggestion-training";
+import { FIRST_TRAINING_REGIONS, RETRAIN_AFTER_NEW_REGIONS } from "./training-set";
 
 export async function suggestionModelHistory(workspaceId: string) {
   const models = await listModels(workspaceId);

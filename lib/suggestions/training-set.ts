@@ -14,6 +14,10 @@
  * - Work is bounded: at most MAX_TRAIN_PHOTOS training and MAX_TEST_PHOTOS test photos are
  *   loaded (in photo id order, so a rerun reads the same ones); the trainer decodes at most its
  *   own `maxPhotos` of them.
+ * - A training starts on its own (the worker's scheduled check) when trainingDue says so: the first
+ *   needs FIRST_TRAINING_REGIONS accepted regions (fewer could not give a class the 30 the
+ *   suggestion rule asks for), later ones RETRAIN_AFTER_NEW_REGIONS new ones, so a busy workspace
+ *   retrains about daily and a quiet one does not spend CPU on the same data.
  * Shapes are stored in original pixels and training reads the preview, so each is scaled per axis.
  */
 import type { Shape } from "@/lib/geometry/shape";
@@ -24,6 +28,15 @@ export const ACCEPTED_UNIT_STATUSES = ["graded", "in_recheck", "final"] as const
 export const MAX_TRAIN_PHOTOS = 400;
 export const MAX_TEST_PHOTOS = 60;
 export const TEST_SHARE = 0.2;
+/** Automatic trainings: the first once a workspace has this many accepted regions… */
+export const FIRST_TRAINING_REGIONS = 60;
+/** …then again whenever this many more have been accepted since the latest model was trained. */
+export const RETRAIN_AFTER_NEW_REGIONS = 50;
+
+/** Whether the scheduled check queues a training (a trainer may always ask for one). */
+export function trainingDue(accepted: number, lastTrainedOn: number | null): boolean {
+  return lastTrainedOn === null ? accepted >= FIRST_TRAINING_REGIONS : accepted - lastTrainedOn >= RETRAIN_AFTER_NEW_REGIONS;
+}
 
 export type PhotoGeometry = { photoId: string; previewKey: string; width: number; height: number; previewWidth: number; previewHeight: number };
 export type LabelledPhoto = PhotoGeometry & { source: "unit" | "gallery"; regions: { defect: string; shape: Shape }[]; surfaces: Shape[] };
