@@ -17,6 +17,9 @@ export default defineConfig({
       provider: "v8",
       include: ["lib/**/*.ts"],
       reporter: [["text", { skipFull: true }], "text-summary"],
+      // Measured 2026-12-03 with the unit project: statements 79.2 %, branches 71.3 %,
+      // functions 77.8 %, lines 79.5 % (files no unit test loads count as 0 %).
+      thresholds: { statements: 77, branches: 69, functions: 75, lines: 77 },
     },
     projects: [
       {
