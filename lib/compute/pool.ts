@@ -23,6 +23,9 @@ export const COMPUTE_LIMITS: Record<TaskName, KindLimits> = {
   "suggest-surface": { concurrent: 2, hardTimeoutMs: 8_000, what: "Finding the Surface", advice: "Mark it by hand, or try again." },
   "score-calibration": { concurrent: 2, hardTimeoutMs: 60_000, what: "Scoring the attempt", advice: "Nothing was submitted; your answers are kept. Try again in a moment." },
   "pixel-candidates": { concurrent: 1, hardTimeoutMs: 20_000, what: "Looking for pixel faults", advice: "Mark them by hand, or try again." },
+  // Only the job worker runs it (one training at a time per process); the bench measures ~30 s for 1 000 regions.
+  "train-suggestion-model": { concurrent: 1, hardTimeoutMs: 15 * 60_000, what: "Training the suggestion model", advice: "Nothing was stored; it will be tried again." },
+  "suggest-learned": { concurrent: 2, hardTimeoutMs: 15_000, what: "Finding learned suggestions", advice: "Mark by hand, or try again." },
 };
 
 /**
