@@ -1,4 +1,5 @@
 import type { NextConfig } from "next";
+import { staticSecurityHeaders } from "./lib/http/security-headers";
 
 const nextConfig: NextConfig = {
   // The test run builds into its own folder so it never clobbers the demo build.
@@ -16,6 +17,12 @@ const nextConfig: NextConfig = {
   // forbidden() gives protected pages a real 403 with app/forbidden.tsx.
   experimental: { authInterrupts: true },
   turbopack: { root: import.meta.dirname },
+  // Files the proxy does not see (proxy.ts, matcher) get the request-independent security headers;
+  // HSTS comes with every page and API answer, which is where a browser learns it.
+  async headers() {
+    const headers = Object.entries(staticSecurityHeaders({ https: false })).map(([key, value]) => ({ key, value }));
+    return [{ source: "/_next/static/:path*", headers }, { source: "/favicon.ico", headers }, { source: "/icon.svg", headers }];
+  },
 };
 
 export default nextConfig;

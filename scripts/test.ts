@@ -1,7 +1,7 @@
 /**
  * `npm test`: lint and typecheck, then unit tests, then integration and browser tests against
  * real services — PostgreSQL (fresh database), s3rver and the mail inbox on their own test ports
- * and folders — and a production build served by `next start`. Exits non-zero on any failure.
+ * and folders — and a production build served by scripts/serve.ts. Exits non-zero on any failure.
  *   --only unit|integration|e2e   run one layer (integration/e2e still start the services)
  */
 import { spawn, type ChildProcess } from "node:child_process";
@@ -10,7 +10,7 @@ import http from "node:http";
 import path from "node:path";
 import { buildIfStale } from "./lib/build";
 import { ensureChromium } from "./lib/debian";
-import { killTree, run, start, tsxArgs, waitForExit } from "./lib/children";
+import { killTree, run, start, tsxArgs, waitForExit, webServerArgs } from "./lib/children";
 import { isPortFree, portTakenMessage, waitFor } from "./lib/ports";
 import S3rver from "s3rver";
 import { corsXml } from "./lib/local-s3";
@@ -119,6 +119,10 @@ async function main() {
       NODE_ENV: "production",
       // Short backoff so the store-outage test's retries come within seconds (app and worker agree).
       PHOTO_JOB_RETRY_DELAY_SECONDS: "1",
+      // The tests play the reverse proxy: X-Forwarded-For names the client they act as, so
+      // per-address limits in one test never spill into another (the default of 0 hops, the
+      // socket's address, is tested with servers of its own in two-instances.test.ts).
+      TRUSTED_PROXY_HOPS: "1",
     };
     let services: Services | null = null;
     let app: ReturnType<typeof start> | null = null;
@@ -139,8 +143,9 @@ async function main() {
       await run(node, seedArgs, { env, label: "seed" });
       worker = startWorker(env, settings.dataDir);
       await buildIfStale({ distDir: testDistDir(), env: { ...env, NODE_ENV: "production" } });
-      app = start(process.execPath, ["node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(settings.app.port)], {
-        env: { ...env, NEXT_DIST_DIR: testDistDir() },
+      const [webNode, webArgs] = webServerArgs({ port: settings.app.port });
+      app = start(webNode, webArgs, {
+        env: { ...env, NEXT_DIST_DIR: testDistDir(), PORT: String(settings.app.port), HOST: "127.0.0.1" },
         label: "next",
         quiet: true,
       });

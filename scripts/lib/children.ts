@@ -63,3 +63,13 @@ export function waitForExit(child: ChildProcess, timeoutMs: number): Promise<voi
 export function tsxArgs(script: string, extra: string[] = []): [string, string[]] {
   return [process.execPath, ["--conditions=react-server", "--import", "tsx", script, ...extra]];
 }
+
+/**
+ * The production web server (scripts/serve.ts: Next.js behind a server that sets the client
+ * address), or `next dev` for --dev. Plain `tsx`, without the react-server condition, which
+ * Next.js sets up for its own server code.
+ */
+export function webServerArgs({ port, dev = false }: { port: number; dev?: boolean }): [string, string[]] {
+  if (dev) return [process.execPath, ["node_modules/next/dist/bin/next", "dev", "-H", "127.0.0.1", "-p", String(port)]];
+  return [process.execPath, ["--import", "tsx", "scripts/serve.ts"]];
+}
