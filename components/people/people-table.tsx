@@ -7,13 +7,16 @@ import { FormMessage } from "@/components/ui/form-field";
 import { ROLE_LABELS, ROLES, type Role } from "@/lib/auth/roles";
 import { apiFetch } from "@/lib/http/client";
 
-type Person = { id: string; email: string; name: string; roles: Role[]; active: boolean; hasPassword: boolean; lastSignInAt: string | null };
+type Person = { id: string; email: string; name: string; roles: Role[]; active: boolean; hasPassword: boolean; lastSignInAt: string | null; invitationEmail: "sent" | "queued" | "failed" | null };
 
 const column = createColumnHelper<Person>();
 
 function status(p: Person) {
   if (!p.active) return "Deactivated";
-  return p.hasPassword ? "Active" : "Invited";
+  if (p.hasPassword) return "Active";
+  if (p.invitationEmail === "queued") return "Invited (e-mail pending: the mail server has not taken it yet)";
+  if (p.invitationEmail === "failed") return "Invited (e-mail not delivered: resend it)";
+  return "Invited";
 }
 
 export function PeopleTable({ currentUserId }: { currentUserId: string }) {

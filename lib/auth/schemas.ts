@@ -33,11 +33,11 @@ export const signInSchema = z.object({
   password: z.string({ error: "Enter your password." }).min(1, "Enter your password.").max(200, "That password is too long."),
 });
 
+/** The password is chosen through the confirmation link (lib/accounts/sign-up.ts). */
 export const signUpSchema = z.object({
   companyName: z.string({ error: "Enter the company name." }).trim().min(2, "Enter the company name.").max(120, "Keep the company name under 120 characters."),
   name: personNameSchema,
   email: emailSchema,
-  password: newPasswordSchema,
 });
 export type SignUpInput = z.infer<typeof signUpSchema>;
 

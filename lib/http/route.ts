@@ -1,7 +1,10 @@
 import "server-only";
 import type { z } from "zod";
+import { isDatabaseUnavailable } from "@/db/errors";
 import { AppError } from "@/lib/errors";
 import { parseWith } from "@/lib/validation";
+
+export const DATABASE_UNAVAILABLE_MESSAGE = "The database is not reachable right now, so nothing was changed. Try again in a moment; your work on this page is kept.";
 
 export type ErrorBody = { error: { code: string; message: string; fieldErrors?: Record<string, string> } };
 
@@ -9,7 +12,14 @@ export type ErrorBody = { error: { code: string; message: string; fieldErrors?: 
 export function errorResponse(err: unknown): Response {
   if (err instanceof AppError) {
     const body: ErrorBody = { error: { code: err.code, message: err.message, fieldErrors: err.fieldErrors } };
-    return Response.json(body, { status: err.status });
+    const headers = err.retryAfterSeconds ? { "Retry-After": String(err.retryAfterSeconds) } : undefined;
+    return Response.json(body, { status: err.status, headers });
+  }
+  if (isDatabaseUnavailable(err)) {
+    // Logged in one line: during an outage every request lands here.
+    console.error(`Database unavailable: ${err instanceof Error ? err.message : String(err)}`);
+    const body: ErrorBody = { error: { code: "unavailable", message: DATABASE_UNAVAILABLE_MESSAGE } };
+    return Response.json(body, { status: 503, headers: { "Retry-After": "5" } });
   }
   console.error("Unexpected error in route handler", err);
   const body: ErrorBody = { error: { code: "internal", message: "Something went wrong on the server. Try again; if it keeps happening, tell your QC lead." } };

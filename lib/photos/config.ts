@@ -10,6 +10,8 @@ const schema = z
   .object({
     /** How long the browser's presigned PUT URL stays valid. */
     PHOTO_UPLOAD_URL_MINUTES: int(15, 1),
+    /** Upload intents (presigned URLs) one person may ask for per minute. */
+    PHOTO_UPLOAD_INTENTS_PER_MINUTE: int(60, 1),
     /** How long finalise accepts an upload ticket (covers a slow upload plus retries during an outage). */
     PHOTO_TICKET_HOURS: int(2, 1),
     /** Objects with no row are deleted by the sweep once they are older than this. */

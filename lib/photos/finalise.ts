@@ -29,7 +29,7 @@ import { copyObject, deleteObject, digestObject, headObject, objectStore, type O
 import { photoSettings } from "./config";
 import { assertOpenForUploads, loadUnit, viewOf } from "./intents";
 import { originalKey, stagingKey, type PhotoKeyOwner } from "./object-keys";
-import { checkStoredUpload, emptyFile, tooLarge } from "./precheck";
+import { checkStoredUpload, emptyFile, lengthMismatch, tooLarge } from "./precheck";
 import { processPhoto } from "./process";
 import { findReuseCandidate, findUnitPhotoBySha, getPhoto, getPhotoWithContext, type PhotoWithContext } from "./queries";
 import type { FinaliseInput } from "./schemas";
@@ -74,7 +74,7 @@ export async function finaliseUpload(actor: SessionUser, unitId: string, input: 
   viewOf(unit, ticket.viewKey);
 
   const owner: PhotoKeyOwner = { workspaceId: actor.workspaceId, unitId, photoId: ticket.photoId };
-  const original = await moveToOriginal(store, owner);
+  const original = await moveToOriginal(store, owner, ticket.bytes);
   const digest = await digestObject(store, original);
   if (!digest) throw new AppError("conflict", NOT_ARRIVED);
   const stored = checkStoredUpload(digest);
@@ -120,8 +120,11 @@ export async function finaliseUpload(actor: SessionUser, unitId: string, input: 
   return { kind: "accepted", photo: await withContext(actor, row.id) };
 }
 
-/** HEAD, size limits, server-side copy to the original's key, staging deleted. Returns the key. */
-async function moveToOriginal(store: ObjectStore, owner: PhotoKeyOwner): Promise<string> {
+/**
+ * HEAD, size limits (and the length the upload was signed for), server-side copy to the
+ * original's key, staging deleted. Returns the key.
+ */
+async function moveToOriginal(store: ObjectStore, owner: PhotoKeyOwner, declaredBytes: number | undefined): Promise<string> {
   const staged = stagingKey(owner);
   const original = originalKey(owner);
   const head = await headObject(store, staged);
@@ -130,7 +133,8 @@ async function moveToOriginal(store: ObjectStore, owner: PhotoKeyOwner): Promise
     if (await headObject(store, original)) return original;
     throw new AppError("conflict", NOT_ARRIVED);
   }
-  const sizeRejection = head.bytes === 0 ? emptyFile() : head.bytes > MAX_PHOTO_BYTES ? tooLarge(head.bytes) : null;
+  const sizeRejection =
+    head.bytes === 0 ? emptyFile() : head.bytes > MAX_PHOTO_BYTES ? tooLarge(head.bytes) : declaredBytes !== undefined && head.bytes !== declaredBytes ? lengthMismatch(head.bytes, declaredBytes) : null;
   if (sizeRejection) {
     await deleteObject(store, staged);
     throw sizeRejection;

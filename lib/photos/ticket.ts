@@ -15,6 +15,8 @@ const payloadSchema = z
     viewKey: z.string().min(1).max(64),
     fileName: z.string().max(200),
     uploaderId: z.uuid(),
+    /** The length the presigned PUT was signed for; finalise refuses anything else. */
+    bytes: z.number().int().positive().optional(),
     /** Expiry, seconds since the epoch. */
     exp: z.number().int().positive(),
   })

@@ -2,7 +2,7 @@ import { listPeople } from "@/db/queries/users";
 import { requireUser } from "@/lib/auth/require-user";
 import { inviteSchema } from "@/lib/auth/schemas";
 import { handler, parseJson } from "@/lib/http/route";
-import { invitePerson } from "@/lib/people/people";
+import { invitationMessage, invitePerson } from "@/lib/people/people";
 
 export const GET = handler(async () => {
   const user = await requireUser({ role: "lead" });
@@ -13,15 +13,6 @@ export const GET = handler(async () => {
 export const POST = handler(async (req) => {
   const user = await requireUser({ role: "lead" });
   const input = await parseJson(req, inviteSchema.strict());
-  const { person, emailSent } = await invitePerson(user, input);
-  return Response.json(
-    {
-      person,
-      emailSent,
-      message: emailSent
-        ? `Invitation sent to ${person.email}.`
-        : `${person.name} was added, but the invitation e-mail could not be sent. Use “Resend invitation” once mail works again.`,
-    },
-    { status: 201 },
-  );
+  const { person, ...sent } = await invitePerson(user, input);
+  return Response.json({ person, ...sent, message: invitationMessage(person, sent) }, { status: 201 });
 });

@@ -1,10 +1,12 @@
+import { requestSignUp } from "@/lib/accounts/sign-up";
+import { limitSignUp } from "@/lib/accounts/public-limits";
+import { clientIp } from "@/lib/auth/client-ip";
 import { signUpSchema } from "@/lib/auth/schemas";
-import { signUp } from "@/lib/accounts/sign-up";
 import { handler, parseJson } from "@/lib/http/route";
 
-/** Public: creates a workspace and its first lead. */
+/** Public: e-mails a confirmation link (or, for a known address, a note); the same answer either way. */
 export const POST = handler(async (req) => {
   const input = await parseJson(req, signUpSchema.strict());
-  const created = await signUp(input);
-  return Response.json({ workspaceId: created.workspaceId, email: created.email }, { status: 201 });
+  await limitSignUp({ ip: clientIp(req.headers), email: input.email });
+  return Response.json(await requestSignUp(input), { status: 202 });
 });

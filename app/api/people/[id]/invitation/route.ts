@@ -7,6 +7,5 @@ import { parseId } from "@/lib/validation";
 export const POST = handler(async (_req, ctx: RouteContext<"/api/people/[id]/invitation">) => {
   const user = await requireUser({ role: "lead" });
   const id = parseId((await ctx.params).id, "That person");
-  const { emailSent } = await resendInvitation(user, id);
-  return Response.json({ emailSent, message: emailSent ? "A new invitation is on its way." : "The invitation e-mail could not be sent; try again later." });
+  return Response.json(await resendInvitation(user, id));
 });
