@@ -25,7 +25,8 @@ export type Limit = {
 
 export type Allowance = { ok: true; eventIds: number[] } | { ok: false; limit: Limit; retryAfterSeconds: number };
 
-const lockKey = (l: Limit) => `${l.bucket}\u0000${l.key}`;
+// Bucket names never contain "|", so bucket and key cannot run into each other.
+const lockKey = (l: Limit) => `${l.bucket}|${l.key}`;
 
 /** Records one event for every limit, or none when any of them is used up. */
 export async function takeAllowance(limits: readonly Limit[], { now = new Date() }: { now?: Date } = {}): Promise<Allowance> {
