@@ -63,6 +63,10 @@ async function main() {
       PHOTO_JOB_RETRY_DELAY_SECONDS: "1",
       // The same for mail the inbox did not take while it was down (mail-outage test).
       MAIL_RETRY_DELAY_SECONDS: "1",
+      // A killed worker's jobs come back within seconds (worker-fault test), not minutes.
+      PHOTO_JOB_EXPIRE_SECONDS: "30",
+      MEASURE_JOB_EXPIRE_SECONDS: "15",
+      JOB_MAINTENANCE_SECONDS: "2",
       // The tests play the reverse proxy: X-Forwarded-For names the client they act as, so
       // per-address limits in one test never spill into another (the default of 0 hops, the
       // socket's address, is tested with servers of its own in two-instances.test.ts).
@@ -96,7 +100,7 @@ async function main() {
         quiet: true,
       });
       await waitFor(async () => (await fetch(`${settings.app.url}/api/health`)).ok, { timeoutMs: 60_000, what: "The test web server" });
-      const testEnv = { ...env, NODE_ENV: "test", TEST_CONTROL_URL: controls.url, TEST_DATA_DIR: settings.dataDir };
+      const testEnv = { ...env, NODE_ENV: "test", TEST_CONTROL_URL: controls.url, TEST_DATA_DIR: settings.dataDir, TEST_DIST_DIR: testDistDir() };
       if (wants("integration")) await step("integration tests", () => run(bin("vitest"), ["run", "--project", "integration", ...passThrough], { env: testEnv, label: "integration" }));
       if (wants("e2e")) await step("browser tests", () => run(bin("playwright"), ["test", ...passThrough], { env: testEnv, label: "e2e" }));
     } catch (err) {

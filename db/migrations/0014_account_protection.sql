@@ -1,8 +1,9 @@
-CREATE TABLE "rate_limit_events" (
-	"id" bigserial PRIMARY KEY NOT NULL,
+CREATE TABLE "rate_limit_counters" (
 	"bucket" text NOT NULL,
 	"key" text NOT NULL,
-	"created_at" timestamp with time zone DEFAULT now() NOT NULL
+	"window_start" timestamp with time zone NOT NULL,
+	"count" integer NOT NULL,
+	CONSTRAINT "rate_limit_counters_bucket_key_pk" PRIMARY KEY("bucket","key")
 );
 --> statement-breakpoint
 CREATE TABLE "revoked_sessions" (
@@ -30,8 +31,7 @@ ALTER TABLE "outgoing_emails" ALTER COLUMN "workspace_id" DROP NOT NULL;--> stat
 ALTER TABLE "outgoing_emails" ADD COLUMN "attempts" integer DEFAULT 1 NOT NULL;--> statement-breakpoint
 ALTER TABLE "outgoing_emails" ADD COLUMN "updated_at" timestamp with time zone DEFAULT now() NOT NULL;--> statement-breakpoint
 ALTER TABLE "revoked_sessions" ADD CONSTRAINT "revoked_sessions_user_id_users_id_fk" FOREIGN KEY ("user_id") REFERENCES "public"."users"("id") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
-CREATE INDEX "rate_limit_events_key_idx" ON "rate_limit_events" USING btree ("bucket","key","created_at");--> statement-breakpoint
-CREATE INDEX "rate_limit_events_created_idx" ON "rate_limit_events" USING btree ("created_at");--> statement-breakpoint
+CREATE INDEX "rate_limit_counters_window_idx" ON "rate_limit_counters" USING btree ("window_start");--> statement-breakpoint
 -- Only the newest unused link per user and purpose stays live (what issueAuthToken always meant).
 UPDATE "auth_tokens" t SET "used_at" = now() WHERE t."used_at" IS NULL AND EXISTS (SELECT 1 FROM "auth_tokens" n WHERE n."user_id" = t."user_id" AND n."purpose" = t."purpose" AND n."used_at" IS NULL AND (n."created_at", n."id") > (t."created_at", t."id"));--> statement-breakpoint
 CREATE UNIQUE INDEX "auth_tokens_live_key" ON "auth_tokens" USING btree ("user_id","purpose") WHERE "auth_tokens"."used_at" IS NULL;--> statement-breakpoint

@@ -7,6 +7,7 @@ import {
   integer,
   jsonb,
   pgTable,
+  primaryKey,
   text,
   timestamp,
   uniqueIndex,
@@ -106,18 +107,19 @@ export const revokedSessions = pgTable("revoked_sessions", {
 });
 
 /**
- * Events counted by the limits in lib/rate-limit (sign-in attempts, public account requests,
- * upload intents), one row per counted request; pruned by the worker once past every window.
+ * The counters of the limits in lib/rate-limit (sign-in attempts, public account requests, upload
+ * intents): one row per bucket and key, whose window starts with the first request it counts;
+ * counted up by a single atomic upsert. Pruned by the worker once the window is long over.
  */
-export const rateLimitEvents = pgTable(
-  "rate_limit_events",
+export const rateLimitCounters = pgTable(
+  "rate_limit_counters",
   {
-    id: bigserial({ mode: "number" }).primaryKey(),
     bucket: text().notNull(),
     key: text().notNull(),
-    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    windowStart: timestamp({ withTimezone: true }).notNull(),
+    count: integer().notNull(),
   },
-  (t) => [index("rate_limit_events_key_idx").on(t.bucket, t.key, t.createdAt), index("rate_limit_events_created_idx").on(t.createdAt)],
+  (t) => [primaryKey({ columns: [t.bucket, t.key] }), index("rate_limit_counters_window_idx").on(t.windowStart)],
 );
 
 /** Append-only record of who did what; a trigger (migration 0001) refuses UPDATE and DELETE. */

@@ -2,6 +2,7 @@ import "server-only";
 import { randomUUID } from "node:crypto";
 import type { NextAuthOptions } from "next-auth";
 import CredentialsProvider from "next-auth/providers/credentials";
+import { isDatabaseUnavailable } from "@/db/errors";
 import { getUserByEmail, recordSignIn, revokeSession } from "@/db/queries/users";
 import { clientIp } from "./client-ip";
 import { servedOverHttps } from "./cookies";
@@ -14,21 +15,26 @@ import { signInSchema } from "./schemas";
 export const SIGN_IN_MESSAGES = {
   invalid: "The e-mail address or password is not right.",
   deactivated: "This account has been deactivated. Ask your QC lead to reactivate it.",
+  unavailable: "Signing in is not possible right now: the database cannot be reached. Try again in a moment.",
+  failed: "Signing in did not work because of a problem on the server. Try again; if it keeps happening, tell your QC lead.",
 } as const;
+
+/** A refusal whose sentence the sign-in form shows as it is. */
+class SignInRefusal extends Error {}
 
 async function authorizeCredentials(raw: unknown, headers: Record<string, string | string[] | undefined>) {
   const parsed = signInSchema.safeParse(raw);
-  if (!parsed.success) throw new Error(parsed.error.issues[0]?.message ?? SIGN_IN_MESSAGES.invalid);
+  if (!parsed.success) throw new SignInRefusal(parsed.error.issues[0]?.message ?? SIGN_IN_MESSAGES.invalid);
   const { email, password } = parsed.data;
   const ip = clientIp(headers);
   // Counted before the password is checked, so parallel guesses cannot outrun the limit.
   const attempt = await beginSignInAttempt({ email, ip });
-  if (!attempt.ok) throw new Error(attempt.message);
+  if (!attempt.ok) throw new SignInRefusal(attempt.message);
   const user = await getUserByEmail({ email });
   const passwordOk = await verifyPassword(user?.passwordHash ?? null, password);
-  if (!user || !passwordOk) throw new Error(SIGN_IN_MESSAGES.invalid);
-  if (!user.active) throw new Error(SIGN_IN_MESSAGES.deactivated);
-  await Promise.all([signInSucceeded({ email, ip, eventIds: attempt.eventIds }), recordSignIn({ userId: user.id })]);
+  if (!user || !passwordOk) throw new SignInRefusal(SIGN_IN_MESSAGES.invalid);
+  if (!user.active) throw new SignInRefusal(SIGN_IN_MESSAGES.deactivated);
+  await Promise.all([signInSucceeded({ email, ip, taken: attempt.taken }), recordSignIn({ userId: user.id })]);
   return {
     id: user.id,
     email: user.email,
@@ -37,6 +43,17 @@ async function authorizeCredentials(raw: unknown, headers: Record<string, string
     roles: user.roles as Role[],
     tokenVersion: user.tokenVersion,
   };
+}
+
+/** next-auth shows a thrown error's message on the form: anything but a refusal becomes a plain sentence. */
+async function authorize(raw: unknown, headers: Record<string, string | string[] | undefined>) {
+  try {
+    return await authorizeCredentials(raw, headers);
+  } catch (err) {
+    if (err instanceof SignInRefusal) throw err;
+    console.error("Sign-in failed", err);
+    throw new Error(isDatabaseUnavailable(err) ? SIGN_IN_MESSAGES.unavailable : SIGN_IN_MESSAGES.failed);
+  }
 }
 
 const SESSION_MAX_AGE = 12 * 60 * 60;
@@ -50,7 +67,7 @@ export const authOptions: NextAuthOptions = {
     CredentialsProvider({
       name: "E-mail and password",
       credentials: { email: { label: "E-mail", type: "email" }, password: { label: "Password", type: "password" } },
-      authorize: (credentials, req) => authorizeCredentials(credentials, req.headers ?? {}),
+      authorize: (credentials, req) => authorize(credentials, req.headers ?? {}),
     }),
   ],
   events: {

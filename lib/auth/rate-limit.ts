@@ -1,7 +1,7 @@
 import "server-only";
 /**
  * The sign-in limit (policy in README, "Sign-in protection"). Every attempt is counted before its
- * password is checked, atomically (lib/rate-limit/limits.ts), against three limits in the window:
+ * password is checked, atomically (lib/rate-limit/limits.ts), against three limits per window:
  *   - per account and client address (default 5): a stranger guessing from one address stops
  *     there, while the owner, from any other address, is not affected;
  *   - per client address (default 20), across accounts: one address cannot spray many accounts;
@@ -12,7 +12,7 @@ import "server-only";
  * keep failing; a password reset by e-mail clears the account's count (unlockAccount).
  */
 import { env } from "@/lib/env";
-import { clearLimit, returnAllowance, takeAllowance, waitPhrase, type Limit } from "@/lib/rate-limit/limits";
+import { clearLimit, returnAllowance, takeAllowance, waitPhrase, type Limit, type Taken } from "@/lib/rate-limit/limits";
 
 const PAIR = "sign-in:account+address";
 const ADDRESS = "sign-in:address";
@@ -28,7 +28,7 @@ export function signInLimits({ email, ip }: { email: string; ip: string }): Limi
   ];
 }
 
-export type SignInAttempt = { ok: true; eventIds: number[] } | { ok: false; message: string };
+export type SignInAttempt = { ok: true; taken: Taken[] } | { ok: false; message: string };
 
 /** Counts the attempt, or refuses it with the sentence to show when a limit is used up. */
 export async function beginSignInAttempt({ email, ip }: { email: string; ip: string }): Promise<SignInAttempt> {
@@ -38,8 +38,8 @@ export async function beginSignInAttempt({ email, ip }: { email: string; ip: str
 }
 
 /** The password was right: this attempt does not count, and neither do the pair's earlier ones. */
-export async function signInSucceeded({ email, ip, eventIds }: { email: string; ip: string; eventIds: number[] }) {
-  await returnAllowance(eventIds);
+export async function signInSucceeded({ email, ip, taken }: { email: string; ip: string; taken: Taken[] }) {
+  await returnAllowance(taken);
   await clearLimit({ bucket: PAIR, key: `${email}|${ip}` });
 }
 

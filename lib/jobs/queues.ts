@@ -31,8 +31,7 @@ export function queueOptions(): Record<string, PgBoss.Queue> {
       retryLimit: s.PHOTO_JOB_RETRY_LIMIT,
       retryDelay: s.PHOTO_JOB_RETRY_DELAY_SECONDS,
       retryBackoff: true,
-      // A 40 MB, 50 MP photo takes seconds; five minutes means the worker died with it.
-      expireInSeconds: 300,
+      expireInSeconds: s.PHOTO_JOB_EXPIRE_SECONDS,
       retentionMinutes: 7 * 24 * 60,
     },
     // The sweep is idempotent and runs again on its schedule, so one retry is enough.
@@ -57,4 +56,13 @@ export async function ensureQueues(boss: PgBoss, { apply = false }: { apply?: bo
     await boss.createQueue(name, options);
     if (apply) await boss.updateQueue(name, options);
   }
+}
+
+/**
+ * How often one of the workers (whichever gets there first; pg-boss takes turns through the
+ * database) looks for expired jobs of dead workers and puts them back for a retry.
+ */
+export function maintenanceIntervalSeconds(): number {
+  const raw = Number(process.env.JOB_MAINTENANCE_SECONDS ?? 60);
+  return Number.isInteger(raw) && raw >= 1 ? raw : 60;
 }

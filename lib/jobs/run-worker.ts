@@ -18,7 +18,7 @@ import { ObjectStoreUnavailableError } from "@/lib/storage/s3";
 import { handleMeasureUnitJobs, MEASURE_UNIT_QUEUE, measureUnitQueueOptions, type MeasureUnitJob } from "./measure-unit";
 import { retryQueuedMail, type MailDeliveryJob } from "@/lib/mail/deliver";
 import { pruneAccountRecords } from "@/lib/rate-limit/prune";
-import { ensureQueues, JOB_NOTIFY_CHANNEL, MAIL_SEND_QUEUE, PHOTO_PROCESS_QUEUE, PHOTO_SWEEP_QUEUE, PRUNE_QUEUE, type PhotoProcessJob } from "./queues";
+import { ensureQueues, JOB_NOTIFY_CHANNEL, MAIL_SEND_QUEUE, maintenanceIntervalSeconds, PHOTO_PROCESS_QUEUE, PHOTO_SWEEP_QUEUE, PRUNE_QUEUE, type PhotoProcessJob } from "./queues";
 
 const jobDataSchema = z.object({ photoId: z.uuid() });
 
@@ -45,7 +45,7 @@ async function handleMailJob([job]: PgBoss.JobWithMetadata<MailDeliveryJob>[]) {
 
 async function handlePrune() {
   const report = await pruneAccountRecords();
-  console.log(`account records pruned: ${report.rateLimitEvents} rate-limit events, ${report.revokedSessions} revoked sessions, ${report.authTokens} tokens, ${report.signUpRequests} sign-up requests`);
+  console.log(`account records pruned: ${report.rateLimitCounters} rate-limit counters, ${report.revokedSessions} revoked sessions, ${report.authTokens} tokens, ${report.signUpRequests} sign-up requests`);
   return report;
 }
 
@@ -93,7 +93,7 @@ export async function runWorker(): Promise<void> {
   const settings = photoSettings();
   configureSharpForWorker();
 
-  const boss = new PgBoss({ connectionString, max: 4, application_name: "partproof-worker" });
+  const boss = new PgBoss({ connectionString, max: 4, application_name: "partproof-worker", maintenanceIntervalSeconds: maintenanceIntervalSeconds() });
   boss.on("error", (err) => console.error("pg-boss error:", err.message));
   await boss.start();
   await ensureQueues(boss, { apply: true });

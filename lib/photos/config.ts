@@ -27,6 +27,11 @@ const schema = z
     /** Processing retries after the first attempt, and the base delay of the exponential backoff. */
     PHOTO_JOB_RETRY_LIMIT: int(10, 0),
     PHOTO_JOB_RETRY_DELAY_SECONDS: int(5, 1),
+    /**
+     * A photo job still running after this long is taken for lost (its worker died) and retried.
+     * A 40 MB, 50 MP photo takes seconds, so five minutes means the worker is gone.
+     */
+    PHOTO_JOB_EXPIRE_SECONDS: int(300, 5),
     /** When the orphan sweep runs (cron, UTC). */
     PHOTO_SWEEP_CRON: z.string().default("17 * * * *"),
   })

@@ -1,17 +1,21 @@
 import "server-only";
 /**
  * Counting limits in PostgreSQL, shared by every web instance (sign-in, the public account
- * endpoints, upload intents). An event is recorded *before* the work it pays for, in the same
- * transaction as the count that allowed it, under an advisory lock per (bucket, key): of many
- * parallel requests, exactly `max` get through in a window, however they interleave; the rest
- * are refused without being recorded, so hammering a refused limit does not extend it.
+ * endpoints, upload intents). A request is counted *before* the work it pays for, by one atomic
+ * statement per limit: an upsert of the (bucket, key, window) counter that only adds one while
+ * the count is below the maximum. Of many parallel requests exactly `max` get through in a window,
+ * however they interleave; the rest are refused without being counted, so hammering a refused
+ * limit does not extend it. A row lock is held only for the length of one statement, so a burst
+ * of requests never ties up the connection pool waiting for each other.
  *
- * Locks are taken in one global order (sorted keys), so requests that share some limits cannot
- * deadlock. Old events are deleted by the worker's pruning job (lib/rate-limit/prune.ts).
+ * A window starts with the first request it counts and lasts `windowSeconds`; the next request
+ * after it starts a new one. So a burst never straddles two windows, and a refusal can say exactly
+ * how long to wait. When a later limit refuses, the counts already taken for the same request are
+ * given back.
  */
-import { and, eq, gte, inArray, sql } from "drizzle-orm";
+import { and, eq, sql } from "drizzle-orm";
 import { db } from "@/db/client";
-import { rateLimitEvents } from "@/db/schema";
+import { rateLimitCounters } from "@/db/schema";
 import { AppError } from "@/lib/errors";
 
 export type Limit = {
@@ -23,44 +27,69 @@ export type Limit = {
   windowSeconds: number;
 };
 
-export type Allowance = { ok: true; eventIds: number[] } | { ok: false; limit: Limit; retryAfterSeconds: number };
+/** A count taken for one limit, to give back if the request turns out not to count. */
+export type Taken = { bucket: string; key: string; windowStart: Date };
+export type Allowance = { ok: true; taken: Taken[] } | { ok: false; limit: Limit; retryAfterSeconds: number };
 
-// Bucket names never contain "|", so bucket and key cannot run into each other.
-const lockKey = (l: Limit) => `${l.bucket}|${l.key}`;
+/**
+ * Adds one to the limit's counter unless it is used up, in one statement (the row lock lasts as
+ * long as the statement). Returns the window it was counted in, or null when refused.
+ */
+async function takeOne(limit: Limit, now: Date): Promise<Date | null> {
+  const windowOver = sql`${rateLimitCounters.windowStart} <= ${new Date(now.getTime() - limit.windowSeconds * 1000)}`;
+  const rows = await db()
+    .insert(rateLimitCounters)
+    .values({ bucket: limit.bucket, key: limit.key, windowStart: now, count: 1 })
+    .onConflictDoUpdate({
+      target: [rateLimitCounters.bucket, rateLimitCounters.key],
+      set: {
+        count: sql`CASE WHEN ${windowOver} THEN 1 ELSE ${rateLimitCounters.count} + 1 END`,
+        windowStart: sql`CASE WHEN ${windowOver} THEN excluded.window_start ELSE ${rateLimitCounters.windowStart} END`,
+      },
+      setWhere: sql`${windowOver} OR ${rateLimitCounters.count} < ${limit.max}`,
+    })
+    .returning({ windowStart: rateLimitCounters.windowStart });
+  return rows[0]?.windowStart ?? null;
+}
 
-/** Records one event for every limit, or none when any of them is used up. */
+/** When the limit's current window ends (for a refusal's "wait …"). */
+async function windowEnd(limit: Limit): Promise<Date | null> {
+  const [row] = await db()
+    .select({ windowStart: rateLimitCounters.windowStart })
+    .from(rateLimitCounters)
+    .where(and(eq(rateLimitCounters.bucket, limit.bucket), eq(rateLimitCounters.key, limit.key)));
+  return row ? new Date(row.windowStart.getTime() + limit.windowSeconds * 1000) : null;
+}
+
+/** Counts the request against every limit, or against none when any of them is used up. */
 export async function takeAllowance(limits: readonly Limit[], { now = new Date() }: { now?: Date } = {}): Promise<Allowance> {
-  const ordered = [...limits].sort((a, b) => (lockKey(a) < lockKey(b) ? -1 : lockKey(a) > lockKey(b) ? 1 : 0));
-  return db().transaction(async (tx) => {
-    for (const limit of ordered) await tx.execute(sql`SELECT pg_advisory_xact_lock(hashtextextended(${lockKey(limit)}, 0))`);
-    for (const limit of ordered) {
-      const since = new Date(now.getTime() - limit.windowSeconds * 1000);
-      const [row] = await tx
-        .select({ n: sql<number>`count(*)::int`, oldest: sql<string | null>`min(${rateLimitEvents.createdAt})::text` })
-        .from(rateLimitEvents)
-        .where(and(eq(rateLimitEvents.bucket, limit.bucket), eq(rateLimitEvents.key, limit.key), gte(rateLimitEvents.createdAt, since)));
-      if ((row?.n ?? 0) >= limit.max) {
-        const oldest = row?.oldest ? new Date(row.oldest).getTime() : now.getTime();
-        return { ok: false as const, limit, retryAfterSeconds: Math.max(1, Math.ceil((oldest + limit.windowSeconds * 1000 - now.getTime()) / 1000)) };
-      }
+  const taken: Taken[] = [];
+  for (const limit of limits) {
+    const windowStart = await takeOne(limit, now);
+    if (!windowStart) {
+      await returnAllowance(taken);
+      const end = (await windowEnd(limit)) ?? new Date(now.getTime() + limit.windowSeconds * 1000);
+      return { ok: false, limit, retryAfterSeconds: Math.max(1, Math.ceil((end.getTime() - now.getTime()) / 1000)) };
     }
-    const inserted = await tx
-      .insert(rateLimitEvents)
-      .values(ordered.map((l) => ({ bucket: l.bucket, key: l.key, createdAt: now })))
-      .returning({ id: rateLimitEvents.id });
-    return { ok: true as const, eventIds: inserted.map((r) => r.id) };
-  });
+    taken.push({ bucket: limit.bucket, key: limit.key, windowStart });
+  }
+  return { ok: true, taken };
 }
 
-/** Takes back events (the attempt they paid for turned out not to count, e.g. a good password). */
-export async function returnAllowance(eventIds: readonly number[]): Promise<void> {
-  if (eventIds.length) await db().delete(rateLimitEvents).where(inArray(rateLimitEvents.id, [...eventIds]));
+/** Gives counts back (the attempt they paid for turned out not to count, e.g. a good password); a window started since keeps its count. */
+export async function returnAllowance(taken: readonly Taken[]): Promise<void> {
+  for (const t of taken) {
+    await db()
+      .update(rateLimitCounters)
+      .set({ count: sql`greatest(${rateLimitCounters.count} - 1, 0)` })
+      .where(and(eq(rateLimitCounters.bucket, t.bucket), eq(rateLimitCounters.key, t.key), eq(rateLimitCounters.windowStart, t.windowStart)));
+  }
 }
 
-/** Forgets every event of a bucket and key, or of every key starting with keyPrefix. */
+/** Forgets every count of a bucket and key, or of every key starting with keyPrefix. */
 export async function clearLimit({ bucket, key, keyPrefix }: { bucket: string; key?: string; keyPrefix?: string }): Promise<void> {
-  const match = key !== undefined ? eq(rateLimitEvents.key, key) : sql`starts_with(${rateLimitEvents.key}, ${keyPrefix ?? ""})`;
-  await db().delete(rateLimitEvents).where(and(eq(rateLimitEvents.bucket, bucket), match));
+  const match = key !== undefined ? eq(rateLimitCounters.key, key) : sql`starts_with(${rateLimitCounters.key}, ${keyPrefix ?? ""})`;
+  await db().delete(rateLimitCounters).where(and(eq(rateLimitCounters.bucket, bucket), match));
 }
 
 /** "Wait 3 minutes" / "Wait 40 seconds", for the sentences of 429 answers. */
@@ -71,8 +100,8 @@ export function waitPhrase(seconds: number): string {
 }
 
 /** Throws a 429 with the given sentence (and a Retry-After) unless every limit allows one more. */
-export async function enforceLimits(limits: readonly Limit[], message: (retryAfterSeconds: number, limit: Limit) => string): Promise<number[]> {
+export async function enforceLimits(limits: readonly Limit[], message: (retryAfterSeconds: number, limit: Limit) => string): Promise<Taken[]> {
   const allowance = await takeAllowance(limits);
   if (!allowance.ok) throw new AppError("too_many_requests", message(allowance.retryAfterSeconds, allowance.limit), { retryAfterSeconds: allowance.retryAfterSeconds });
-  return allowance.eventIds;
+  return allowance.taken;
 }

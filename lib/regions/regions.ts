@@ -19,7 +19,7 @@ import { AppError, notFound } from "@/lib/errors";
 import { parseRegionSet, type RegionSetPayload } from "@/lib/geometry/validate";
 import { assertNotLeasedByOther } from "@/lib/queue/queue";
 import { STATUS_LABELS } from "@/lib/units/state-machine";
-import { payloadFromRows, rowsForSave } from "./payload";
+import { payloadFromRows, rowsForSave, samePayload } from "./payload";
 import type { SaveRegionsInput } from "./schemas";
 
 type Actor = Pick<SessionUser, "id" | "workspaceId" | "roles">;
@@ -90,7 +90,13 @@ export async function saveRegionSet(actor: SessionUser, photoId: string, input: 
     }
     assertNotLeasedByOther(unit, actor, photo.leaseHolderName);
     const set = await lockRegionSet(tx, key);
-    if (set.version !== input.baseVersion) throw new RegionVersionConflict(await readRegionSet(actor, photoId, tx), input.baseVersion);
+    if (set.version !== input.baseVersion) {
+      const current = await readRegionSet(actor, photoId, tx);
+      // A retry of this person's save that did go through (its answer was lost, e.g. in a
+      // database outage): the same set, one version on, by them. Answered as saved, not as a conflict.
+      if (current.version === input.baseVersion + 1 && set.updatedBy === actor.id && samePayload(current.regions, payload)) return current;
+      throw new RegionVersionConflict(current, input.baseVersion);
+    }
     const version = set.version + 1;
     const previous = await listPhotoRegions(key, tx);
     const { rows, added, changed, removed } = rowsForSave(payload, previous, { authorId: actor.id, version });

@@ -57,12 +57,13 @@ describe("sign-in limit", () => {
     const results = await Promise.all(Array.from({ length: 200 }, (_, i) => trySignIn(user.email, `guess-${i}`, from("203.0.113.200"))));
     const checked = results.filter((r) => r.error === "The e-mail address or password is not right.").length;
     const refused = results.filter((r) => isRefusal(r.error)).length;
-    console.log(`200 parallel guesses: ${checked} checked, ${refused} refused`);
+    const others = results.filter((r) => r.error !== "The e-mail address or password is not right." && !isRefusal(r.error)).map((r) => r.error);
+    console.log(`200 parallel guesses: ${checked} checked, ${refused} refused, others: ${JSON.stringify([...new Set(others)])}`);
     expect(checked).toBe(5);
     expect(refused).toBe(195);
     expect(results.some((r) => r.signedIn)).toBe(false);
     // Refused attempts are not recorded, so hammering does not extend the lock.
-    const [row] = (await db().execute<{ n: number }>(sql`SELECT count(*)::int AS n FROM rate_limit_events WHERE bucket = 'sign-in:account+address' AND key = ${`${user.email}|203.0.113.200`}`)).rows;
+    const [row] = (await db().execute<{ n: number }>(sql`SELECT sum(count)::int AS n FROM rate_limit_counters WHERE bucket = 'sign-in:account+address' AND key = ${`${user.email}|203.0.113.200`}`)).rows;
     expect(row.n).toBe(5);
   });
 
@@ -71,10 +72,10 @@ describe("sign-in limit", () => {
     for (let i = 0; i < 5; i++) expect((await trySignIn(user.email, `wrong-${i}`, from("203.0.113.10"))).error).toMatch(/not right/);
     const stranger = await trySignIn(user.email, TEST_PASSWORD, from("203.0.113.10"));
     expect(stranger.signedIn).toBe(false);
-    expect(stranger.error).toMatch(/Too many failed sign-in attempts\. Wait 15 minutes/);
+    expect(stranger.error).toMatch(/Too many failed sign-in attempts\. Wait \d+ minutes? and try again/);
     expect((await trySignIn(user.email, TEST_PASSWORD, from("198.51.100.10"))).signedIn).toBe(true);
-    // Once the failures are older than the window, that address may try again.
-    await db().execute(sql`UPDATE rate_limit_events SET created_at = now() - interval '16 minutes' WHERE key LIKE ${`${user.email}|%`}`);
+    // Once the window has passed, that address may try again.
+    await db().execute(sql`UPDATE rate_limit_counters SET window_start = window_start - interval '16 minutes' WHERE key LIKE ${`${user.email}|%`}`);
     expect((await trySignIn(user.email, TEST_PASSWORD, from("203.0.113.10"))).signedIn).toBe(true);
   });
 
