@@ -97,7 +97,7 @@ async function main() {
       app = start(webNode, webArgs, {
         env: { ...env, NEXT_DIST_DIR: testDistDir(), PORT: String(settings.app.port), HOST: "127.0.0.1" },
         label: "next",
-        quiet: true,
+        logFile: `${settings.dataDir}/web.log`,
       });
       await waitFor(async () => (await fetch(`${settings.app.url}/api/health`)).ok, { timeoutMs: 60_000, what: "The test web server" });
       const testEnv = { ...env, NODE_ENV: "test", TEST_CONTROL_URL: controls.url, TEST_DATA_DIR: settings.dataDir, TEST_DIST_DIR: testDistDir() };
