@@ -65,7 +65,7 @@ async function main() {
       MAIL_RETRY_DELAY_SECONDS: "1",
       // A killed worker's jobs come back within seconds (worker-fault test), not minutes.
       PHOTO_JOB_EXPIRE_SECONDS: "30",
-      MEASURE_JOB_EXPIRE_SECONDS: "15",
+      MEASURE_JOB_EXPIRE_SECONDS: "30",
       JOB_MAINTENANCE_SECONDS: "2",
       // The tests play the reverse proxy: X-Forwarded-For names the client they act as, so
       // per-address limits in one test never spill into another (the default of 0 hops, the

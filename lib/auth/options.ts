@@ -15,7 +15,7 @@ import { signInSchema } from "./schemas";
 export const SIGN_IN_MESSAGES = {
   invalid: "The e-mail address or password is not right.",
   deactivated: "This account has been deactivated. Ask your QC lead to reactivate it.",
-  unavailable: "Signing in is not possible right now: the database cannot be reached. Try again in a moment.",
+  unavailable: "Signing in is not possible right now: the database did not answer in time. Try again in a moment.",
   failed: "Signing in did not work because of a problem on the server. Try again; if it keeps happening, tell your QC lead.",
 } as const;
 

@@ -4,7 +4,7 @@ import { isDatabaseUnavailable } from "@/db/errors";
 import { AppError } from "@/lib/errors";
 import { parseWith } from "@/lib/validation";
 
-export const DATABASE_UNAVAILABLE_MESSAGE = "The database is not reachable right now, so nothing was changed. Try again in a moment; your work on this page is kept.";
+export const DATABASE_UNAVAILABLE_MESSAGE = "The database did not answer in time, so nothing was changed. Try again in a moment; your work on this page is kept.";
 
 export type ErrorBody = { error: { code: string; message: string; fieldErrors?: Record<string, string> } };
 

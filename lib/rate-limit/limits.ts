@@ -33,45 +33,39 @@ export type Allowance = { ok: true; taken: Taken[] } | { ok: false; limit: Limit
 
 /**
  * Adds one to the limit's counter unless it is used up, in one statement (the row lock lasts as
- * long as the statement). Returns the window it was counted in, or null when refused.
+ * long as the statement; under a burst every request holds a connection only that long). Answers
+ * whether it was counted and when the counter's window started (for a refusal's "wait …"; null
+ * when the refusing row is too new for this statement's snapshot).
  */
-async function takeOne(limit: Limit, now: Date): Promise<Date | null> {
-  const windowOver = sql`${rateLimitCounters.windowStart} <= ${new Date(now.getTime() - limit.windowSeconds * 1000)}`;
-  const rows = await db()
-    .insert(rateLimitCounters)
-    .values({ bucket: limit.bucket, key: limit.key, windowStart: now, count: 1 })
-    .onConflictDoUpdate({
-      target: [rateLimitCounters.bucket, rateLimitCounters.key],
-      set: {
-        count: sql`CASE WHEN ${windowOver} THEN 1 ELSE ${rateLimitCounters.count} + 1 END`,
-        windowStart: sql`CASE WHEN ${windowOver} THEN excluded.window_start ELSE ${rateLimitCounters.windowStart} END`,
-      },
-      setWhere: sql`${windowOver} OR ${rateLimitCounters.count} < ${limit.max}`,
-    })
-    .returning({ windowStart: rateLimitCounters.windowStart });
-  return rows[0]?.windowStart ?? null;
-}
-
-/** When the limit's current window ends (for a refusal's "wait …"). */
-async function windowEnd(limit: Limit): Promise<Date | null> {
-  const [row] = await db()
-    .select({ windowStart: rateLimitCounters.windowStart })
-    .from(rateLimitCounters)
-    .where(and(eq(rateLimitCounters.bucket, limit.bucket), eq(rateLimitCounters.key, limit.key)));
-  return row ? new Date(row.windowStart.getTime() + limit.windowSeconds * 1000) : null;
+async function takeOne(limit: Limit, now: Date): Promise<{ taken: boolean; windowStart: Date | null }> {
+  const windowOver = sql`rate_limit_counters.window_start <= ${new Date(now.getTime() - limit.windowSeconds * 1000)}`;
+  const { rows } = await db().execute<{ window_start: string; taken: boolean }>(sql`
+    WITH up AS (
+      INSERT INTO rate_limit_counters (bucket, key, window_start, count) VALUES (${limit.bucket}, ${limit.key}, ${now}, 1)
+      ON CONFLICT (bucket, key) DO UPDATE SET
+        count = CASE WHEN ${windowOver} THEN 1 ELSE rate_limit_counters.count + 1 END,
+        window_start = CASE WHEN ${windowOver} THEN excluded.window_start ELSE rate_limit_counters.window_start END
+      WHERE ${windowOver} OR rate_limit_counters.count < ${limit.max}
+      RETURNING window_start
+    )
+    SELECT window_start::text, true AS taken FROM up
+    UNION ALL
+    SELECT window_start::text, false FROM rate_limit_counters WHERE bucket = ${limit.bucket} AND key = ${limit.key} AND NOT EXISTS (SELECT 1 FROM up)`);
+  const row = rows[0];
+  return { taken: row?.taken === true, windowStart: row ? new Date(row.window_start) : null };
 }
 
 /** Counts the request against every limit, or against none when any of them is used up. */
 export async function takeAllowance(limits: readonly Limit[], { now = new Date() }: { now?: Date } = {}): Promise<Allowance> {
   const taken: Taken[] = [];
   for (const limit of limits) {
-    const windowStart = await takeOne(limit, now);
-    if (!windowStart) {
+    const one = await takeOne(limit, now);
+    if (!one.taken) {
       await returnAllowance(taken);
-      const end = (await windowEnd(limit)) ?? new Date(now.getTime() + limit.windowSeconds * 1000);
-      return { ok: false, limit, retryAfterSeconds: Math.max(1, Math.ceil((end.getTime() - now.getTime()) / 1000)) };
+      const end = one.windowStart ? one.windowStart.getTime() + limit.windowSeconds * 1000 : now.getTime() + limit.windowSeconds * 1000;
+      return { ok: false, limit, retryAfterSeconds: Math.max(1, Math.ceil((end - now.getTime()) / 1000)) };
     }
-    taken.push({ bucket: limit.bucket, key: limit.key, windowStart });
+    taken.push({ bucket: limit.bucket, key: limit.key, windowStart: one.windowStart! });
   }
   return { ok: true, taken };
 }

@@ -57,12 +57,14 @@ describe("sign-in limit", () => {
     const results = await Promise.all(Array.from({ length: 200 }, (_, i) => trySignIn(user.email, `guess-${i}`, from("203.0.113.200"))));
     const checked = results.filter((r) => r.error === "The e-mail address or password is not right.").length;
     const refused = results.filter((r) => isRefusal(r.error)).length;
-    const others = results.filter((r) => r.error !== "The e-mail address or password is not right." && !isRefusal(r.error)).map((r) => r.error);
-    console.log(`200 parallel guesses: ${checked} checked, ${refused} refused, others: ${JSON.stringify([...new Set(others)])}`);
+    // A burst of 200 on one small server may also meet a full connection pool: those attempts
+    // are answered "try again in a moment" and check no password either.
+    const busy = results.filter((r) => /did not answer in time/.test(r.error ?? "")).length;
+    console.log(`200 parallel guesses: ${checked} passwords checked, ${refused} refused by the limit, ${busy} answered "busy"`);
     expect(checked).toBe(5);
-    expect(refused).toBe(195);
+    expect(checked + refused + busy).toBe(200);
     expect(results.some((r) => r.signedIn)).toBe(false);
-    // Refused attempts are not recorded, so hammering does not extend the lock.
+    // Refused attempts are not counted, so hammering does not extend the lock.
     const [row] = (await db().execute<{ n: number }>(sql`SELECT sum(count)::int AS n FROM rate_limit_counters WHERE bucket = 'sign-in:account+address' AND key = ${`${user.email}|203.0.113.200`}`)).rows;
     expect(row.n).toBe(5);
   });

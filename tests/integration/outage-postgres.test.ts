@@ -87,7 +87,7 @@ it("saves fail with 503 while PostgreSQL is down, are retried, and afterwards ev
   expect(answers).toContain(503);
   expect(answers).not.toContain(500);
   expect(statuses).toContain("retrying");
-  expect(retryMessage).toMatch(/problem \(503\)|database is not reachable/);
+  expect(retryMessage).toMatch(/problem \(503\)|database did not answer/);
   const down = await realFetch(`${BASE_URL}/api/photos/${photoId}/regions`, { headers: { cookie: inspector.cookie } });
   expect(down.status).toBe(200);
 

@@ -8,9 +8,10 @@
  * per minute, not once per worker. A third server configured for https shows the secure cookie
  * and HSTS.
  */
-import { sql } from "drizzle-orm";
+import { inArray, sql } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db/client";
+import { photos } from "@/db/schema";
 import { createUser, createWorkspace, TEST_PASSWORD, uniqueEmail, workspaceBySlug } from "../support/db";
 import { BASE_URL } from "../support/http";
 import { startWebServer, startWorker, logOf, type Instance } from "../support/instances";
@@ -27,16 +28,18 @@ let startedAt: Date;
 beforeAll(async () => {
   await serviceControl("worker", "kill");
   suiteWorkerStopped = true;
-  startedAt = new Date();
   // Both workers keep the schedule and race for every minute's sweep (pg-boss checks every 30 s).
   const workerEnv = { PHOTO_SWEEP_CRON: "* * * * *" };
+  // The default: no proxy trusted, the socket's address is the client (the test run's own server trusts one hop).
+  const web = { TRUSTED_PROXY_HOPS: "0" };
   [a, b, secure, w1, w2] = await Promise.all([
-    startWebServer("instance-a", basePort + 1),
-    startWebServer("instance-b", basePort + 2),
-    startWebServer("instance-https", basePort + 3, { APP_URL: `https://127.0.0.1:${basePort + 3}`, NEXTAUTH_URL: `https://127.0.0.1:${basePort + 3}` }),
+    startWebServer("instance-a", basePort + 1, web),
+    startWebServer("instance-b", basePort + 2, web),
+    startWebServer("instance-https", basePort + 3, { ...web, APP_URL: `https://127.0.0.1:${basePort + 3}`, NEXTAUTH_URL: `https://127.0.0.1:${basePort + 3}` }),
     startWorker("worker-1", workerEnv),
     startWorker("worker-2", workerEnv),
   ]);
+  startedAt = new Date();
 }, 300_000);
 
 afterAll(async () => {
@@ -136,7 +139,7 @@ describe("two web servers and two workers on one database and one store", () => 
       expect(done.status).toBe(201);
       ids.push(((await done.json()) as { photo: { id: string; status: string } }).photo.id);
     }
-    const { rows } = await db().execute<{ id: string; status: string; attempts: number }>(sql`SELECT id, status, attempts FROM photos WHERE id = ANY(${ids})`);
+    const rows = await db().select({ status: photos.status, attempts: photos.attempts }).from(photos).where(inArray(photos.id, ids));
     expect(rows.map((r) => [r.status, r.attempts])).toEqual(ids.map(() => ["ready", 1]));
     const logs = [logOf(w1), logOf(w2)];
     for (const id of ids) expect(logs.join("\n").match(new RegExp(`photo ${id}: ready`, "g"))).toHaveLength(1);
