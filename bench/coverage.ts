@@ -12,84 +12,14 @@
  */
 import { loadavg } from "node:os";
 import sharp from "sharp";
-import * as polygonClippingModule from "polygon-clipping";
-import type { MultiPolygon, Pair } from "polygon-clipping";
-import type { Point, Shape } from "@/lib/geometry/shape";
+import type { Shape } from "@/lib/geometry/shape";
 import type { CoverageInput } from "@/lib/measure/types";
 import { measureCoverage } from "@/lib/imaging/coverage";
-import { shapeRings } from "@/lib/imaging/raster/shape-geometry";
-import { mulberry32 as seededRandom } from "@/tests/support/prng";
+import { exactUnion, multiPolygonArea, polygonClipping } from "@/tests/support/exact-areas";
+import { buildPhotoScene, HEIGHT, WIDTH } from "@/bench/_photo-scene";
 
-// The package's runtime export is a default object; its typings declare named functions.
-const polygonClipping =
-  (polygonClippingModule as unknown as { default?: typeof polygonClippingModule }).default ?? polygonClippingModule;
-
-const WIDTH = 4000;
-const HEIGHT = 3000;
 const RUNS = 21;
 const BASELINE_RUNS = 5;
-
-
-function buildScene(): CoverageInput {
-  const random = seededRandom(20261201);
-  const between = (low: number, high: number) => low + (high - low) * random();
-  // The part: a rounded-rectangle outline (a phone back) as a 200-vertex polygon.
-  const outline: Point[] = [];
-  for (let k = 0; k < 200; k++) {
-    const angle = (2 * Math.PI * k) / 200;
-    const c = Math.cos(angle);
-    const s = Math.sin(angle);
-    // Superellipse |x/a|^4 + |y/b|^4 = 1.
-    outline.push([2000 + 1800 * Math.sign(c) * Math.abs(c) ** 0.5, 1500 + 1350 * Math.sign(s) * Math.abs(s) ** 0.5]);
-  }
-  const lens: Point[] = Array.from({ length: 64 }, (_, k) => {
-    const angle = (2 * Math.PI * k) / 64;
-    return [900 + 420 * Math.cos(angle), 800 + 420 * Math.sin(angle)] as Point;
-  });
-  const regions: CoverageInput["regions"] = [];
-  const inPart = (): Point => [between(300, 3700), between(250, 2750)];
-  for (let k = 0; k < 20; k++) {
-    const start = inPart();
-    const points: Point[] = [start];
-    const heading = between(0, 2 * Math.PI);
-    for (let p = 0; p < 1 + Math.floor(between(0, 4)); p++) {
-      const last = points[points.length - 1];
-      const step = between(60, 250);
-      const turn = heading + between(-0.4, 0.4);
-      points.push([last[0] + step * Math.cos(turn), last[1] + step * Math.sin(turn)]);
-    }
-    regions.push({ id: `s${k}`, defect: "scratch", shape: { kind: "line", points, width: between(3, 12) } });
-  }
-  for (let k = 0; k < 15; k++) {
-    const [cx, cy] = inPart();
-    if (k % 3 === 0) {
-      regions.push({ id: `d${k}`, defect: "dent", shape: { kind: "rect", x: cx, y: cy, width: between(20, 200), height: between(20, 160) } });
-      continue;
-    }
-    const sides = 6 + Math.floor(between(0, 8));
-    const points: Point[] = Array.from({ length: sides }, (_, p) => {
-      const angle = (2 * Math.PI * p) / sides + between(-0.2, 0.2);
-      const radius = between(20, 120);
-      return [cx + radius * Math.cos(angle), cy + radius * Math.sin(angle)] as Point;
-    });
-    regions.push({ id: `d${k}`, defect: "dent", shape: { kind: "polygon", points } });
-  }
-  for (let k = 0; k < 15; k++) {
-    const [x, y] = inPart();
-    regions.push({ id: `p${k}`, defect: "dust", shape: { kind: "spot", x, y, radius: between(2, 25) } });
-  }
-  return {
-    width: WIDTH,
-    height: HEIGHT,
-    regions,
-    surface: [{ kind: "polygon", points: outline }],
-    zones: [
-      { id: "lens", shape: { kind: "polygon", points: lens } },
-      { id: "body", shape: { kind: "rect", x: 0, y: 1300, width: WIDTH, height: 1700 } },
-      { id: "edge-band", shape: { kind: "rect", x: 0, y: 0, width: 400, height: HEIGHT } },
-    ],
-  };
-}
 
 // ---- naive baseline -------------------------------------------------------------------------
 
@@ -137,24 +67,9 @@ async function naiveCoverage(input: CoverageInput) {
 
 // ---- exact reference (polygon-clipping) -----------------------------------------------------
 
-function multiPolygonArea(shape: MultiPolygon): number {
-  const ringArea = (ring: Pair[]) => {
-    let twice = 0;
-    for (let k = 0; k < ring.length; k++) {
-      const [x1, y1] = ring[k];
-      const [x2, y2] = ring[(k + 1) % ring.length];
-      twice += x1 * y2 - x2 * y1;
-    }
-    return Math.abs(twice) / 2;
-  };
-  return shape.reduce((sum, polygon) => sum + ringArea(polygon[0]) - polygon.slice(1).reduce((holes, ring) => holes + ringArea(ring), 0), 0);
-}
-
 function exactClassArea(input: CoverageInput, defect: string): number {
-  const outlines = input.regions.filter((region) => region.defect === defect).flatMap((region) => shapeRings(region.shape));
-  const union = polygonClipping.union(outlines.map((ring) => [ring]) as unknown as MultiPolygon);
-  const surface = polygonClipping.union((input.surface ?? []).flatMap((shape) => shapeRings(shape)).map((ring) => [ring]) as unknown as MultiPolygon);
-  return multiPolygonArea(polygonClipping.intersection(union, surface));
+  const union = exactUnion(input.regions.filter((region) => region.defect === defect).map((region) => region.shape));
+  return multiPolygonArea(polygonClipping.intersection(union, exactUnion(input.surface ?? [])));
 }
 
 // ---- run ------------------------------------------------------------------------------------
@@ -173,7 +88,7 @@ async function timeRuns(runs: number, task: () => Promise<unknown>) {
   return { median, label: `${median.toFixed(1)} ms (min ${times[0].toFixed(1)}, p25 ${times[Math.floor(times.length / 4)].toFixed(1)})` };
 }
 
-const scene = buildScene();
+const scene = buildPhotoScene();
 const measured = await measureCoverage(scene);
 const naive = await naiveCoverage(scene);
 
@@ -198,6 +113,6 @@ for (const defect of Object.keys(measured.byDefect)) {
     `  ${defect.padEnd(8)} px ${px} (baseline ${naive.result[defect].px}) exact ${exact.toFixed(1)} → error ${(error * 100).toFixed(3)} %, count ${measured.byDefect[defect].count}`,
   );
 }
-const exactSurface = multiPolygonArea(polygonClipping.union((scene.surface ?? []).flatMap((shape) => shapeRings(shape)).map((ring) => [ring]) as unknown as MultiPolygon));
+const exactSurface = multiPolygonArea(exactUnion(scene.surface ?? []));
 console.log(`  surface  px ${measured.surfacePx} (baseline ${naive.surfacePx}) exact ${exactSurface.toFixed(1)} → error ${((Math.abs(measured.surfacePx - exactSurface) / exactSurface) * 100).toFixed(4)} %`);
 console.log(`relative area error vs exact (worst class): ${(worstError * 100).toFixed(3)} % (target <= 1 %)`);

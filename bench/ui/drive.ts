@@ -1,5 +1,5 @@
 /**
- * The UI benchmark's browser part: Debian's Chromium, headless, with the flags of STACK.md (a
+ * The UI benchmark's browser part: Debian's Chromium, headless, with the flags of docs/stack.md (a
  * fresh profile per launch; anything not on loopback is refused), the Bench opened on the
  * fixture unit, then wheel zooms and middle-button pans with page.mouse while probe.ts times
  * every frame and a performance trace records the main thread's work (trace.ts).

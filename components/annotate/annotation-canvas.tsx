@@ -2,7 +2,7 @@
 
 /**
  * The Bench annotation canvas: the photo, its regions and the marking tools. This component only
- * wires things together (STYLE.md 9–10): the pure model in lib/annotate owns every rule, the
+ * wires things together (DEVELOPERS.md, "Annotation canvas"): the pure model in lib/annotate owns every rule, the
  * hooks here turn pointer, wheel and key events into model edits, and three thin Konva layers
  * draw the photo, the regions and the work in progress. Import it through
  * annotation-canvas-lazy.tsx: Konva must never run on the server.
@@ -11,15 +11,17 @@ import { useCallback, useEffect, useId, useImperativeHandle, useMemo, useRef, us
 import { createPortal } from "react-dom";
 import { Stage } from "react-konva";
 import { addNewRegions, replaceAllRegions } from "@/lib/annotate/bulk-edits";
+import { benchClassOrder, startingClass } from "@/lib/annotate/class-order";
 import { fitToView, type Viewport } from "@/lib/annotate/coords";
 import { isRegionVisible } from "@/lib/annotate/hit-test";
 import { createAnnotationState, selectedRegion, setViewport } from "@/lib/annotate/model";
 import { regionsFromPayload, toRegionSetPayload } from "@/lib/annotate/serialise";
-import { draftHint, TOOLS } from "@/lib/annotate/tools";
+import { activateTool, draftHint, TOOLS, type ShortcutGroup } from "@/lib/annotate/tools";
 import type { AnnotationState, ToolId } from "@/lib/annotate/types";
 import type { PolygonShape } from "@/lib/geometry/shape";
 import { edit, useCanvasStore } from "./canvas-store";
-import { defectStyleAt, RULER_STYLE, SURFACE_STYLE, UNKNOWN_DEFECT_STYLE, type RegionStyle } from "./defect-styles";
+import { defectStyleMap } from "@/lib/annotate/class-looks";
+import { RULER_STYLE, SURFACE_STYLE, UNKNOWN_DEFECT_STYLE, type RegionStyle } from "@/lib/annotate/defect-styles";
 import { ImageLayer } from "./image-layer";
 import { InteractionLayer } from "./interaction-layer";
 import { RegionList } from "./region-list";
@@ -40,6 +42,7 @@ export type { AnnotationCanvasHandle, AnnotationCanvasProps } from "./types";
 
 const NO_ZONES: readonly ZoneInput[] = [];
 const NO_GHOSTS: readonly GhostShape[] = [];
+const NO_SHORTCUTS: readonly ShortcutGroup[] = [];
 
 /** Start of this session's region ids: random, so ids stay unique across sessions and devices. */
 function newIdPrefix(): string {
@@ -58,17 +61,23 @@ function statusText(state: AnnotationState, imageStatus: "loading" | "ready" | "
   const hint = draftHint(state);
   if (hint) return hint;
   if (imageStatus === "loading") return "Loading the photo…";
-  if (state.activeDefect === null && !readOnly) return "This part type has no defect classes: only Surface and Ruler can be drawn.";
+  if (state.activeDefect === null && !readOnly) {
+    return state.allowedDefects.length === 0 ? "This part type has no defect classes: only Surface and Ruler can be drawn." : "Choose a defect class to draw with: every class here is critical, so none is chosen for you.";
+  }
   return readOnly ? "View only. Drag to pan, scroll or pinch to zoom. Press ? for shortcuts." : "Press ? for the keyboard shortcuts.";
 }
 
 export function AnnotationCanvas(props: AnnotationCanvasProps) {
   const { handleRef, imageUrl, original, preview, allowedDefects, zones = NO_ZONES, initialRegions, onChange, onHistoryChange, readOnly = false, className = "" } = props;
-  const { ghosts = NO_GHOSTS, regionListContainer = null } = props;
-  const defectKeys = useMemo(() => allowedDefects.map((d) => d.key), [allowedDefects]);
-  const { state, dispatch, latestRef } = useCanvasStore(() =>
-    createAnnotationState({ image: original, allowedDefects: defectKeys, idPrefix: newIdPrefix(), regions: initialRegions ? regionsFromPayload(initialRegions) : [] }),
-  );
+  const { ghosts = NO_GHOSTS, regionListContainer = null, keyArea = null, autoFocus = false, startWith, onToolChange, pageShortcuts = NO_SHORTCUTS } = props;
+  // Number keys follow the severity groups (least severe first); the look follows the class key.
+  const ordered = useMemo(() => benchClassOrder(allowedDefects), [allowedDefects]);
+  const defectKeys = useMemo(() => ordered.map((d) => d.key), [ordered]);
+  const { state, dispatch, latestRef } = useCanvasStore(() => {
+    const startingDefect = startWith?.defect && defectKeys.includes(startWith.defect) ? startWith.defect : startingClass(allowedDefects);
+    const fresh = createAnnotationState({ image: original, allowedDefects: defectKeys, startingDefect, idPrefix: newIdPrefix(), regions: initialRegions ? regionsFromPayload(initialRegions) : [] });
+    return startWith?.tool && !readOnly ? activateTool(fresh, startWith.tool) : fresh;
+  });
   const rootRef = useRef<HTMLDivElement>(null);
   const containerRef = useRef<HTMLDivElement>(null);
   const spaceHeldRef = useRef(false);
@@ -78,12 +87,13 @@ export function AnnotationCanvas(props: AnnotationCanvasProps) {
   const [sheetOpen, setSheetOpen] = useState(false);
   const statusId = useId();
 
-  const classes = useMemo<ClassEntry[]>(() => allowedDefects.map((d, index) => ({ ...d, index, style: defectStyleAt(index) })), [allowedDefects]);
+  const styles = useMemo(() => defectStyleMap(defectKeys), [defectKeys]);
+  const classes = useMemo<ClassEntry[]>(() => ordered.map((d, index) => ({ ...d, index, style: styles.get(d.key) ?? UNKNOWN_DEFECT_STYLE })), [ordered, styles]);
   const classByKey = useMemo(() => new Map(classes.map((c) => [c.key, c])), [classes]);
-  const styles = useMemo(() => new Map(classes.map((c) => [c.key, c.style])), [classes]);
   // Keyed on the box's numbers, not on the regions, so a drag that leaves the surfaces alone keeps the zones object.
-  const { minX, minY, maxX, maxY } = zoneBox(state.regions.flatMap((r): PolygonShape[] => (r.role === "surface" ? [r.shape] : [])), original);
-  const imageZones = useMemo(() => zonesToImage(zones, { minX, minY, maxX, maxY }), [zones, minX, minY, maxX, maxY]);
+  const { minX, minY, maxX, maxY, source: zoneSource } = zoneBox(state.regions.flatMap((r): PolygonShape[] => (r.role === "surface" ? [r.shape] : [])), original);
+  // Zones hang on the Surface: before one is traced they would only cover the backdrop.
+  const imageZones = useMemo(() => (zoneSource === "surface" ? zonesToImage(zones, { minX, minY, maxX, maxY }) : []), [zones, zoneSource, minX, minY, maxX, maxY]);
   // Regions stay inside the photo; labels and halos may reach a little past its edge.
   const content = useMemo(() => ({ minX: -0.05 * original.width, minY: -0.05 * original.height, maxX: 1.05 * original.width, maxY: 1.05 * original.height }), [original]);
   const scene = useMemo(() => ({ regions: state.regions, hiddenDefects: state.hiddenDefects, styles, zones: imageZones }), [state.regions, state.hiddenDefects, styles, imageZones]);
@@ -92,7 +102,19 @@ export function AnnotationCanvas(props: AnnotationCanvasProps) {
   const showShortcuts = useCallback(() => setSheetOpen(true), []);
   const focusStage = useCallback(() => containerRef.current?.focus({ preventScroll: true }), []);
   const actions = useCanvasActions({ dispatch, stageSize, fittedRef, image: original, onShowShortcuts: showShortcuts, focusStage });
-  useCanvasKeys({ rootRef, alsoIn: regionListContainer, latestRef, dispatch, readOnly, onView: actions.view, spaceHeldRef, onShowShortcuts: showShortcuts });
+  useCanvasKeys({ rootRef, alsoIn: [regionListContainer, keyArea], latestRef, dispatch, readOnly, onView: actions.view, spaceHeldRef, onShowShortcuts: showShortcuts });
+
+  // The photo being marked takes the keyboard when it opens (e.g. after a thumbnail click),
+  // unless the inspector has moved on to another control meanwhile.
+  useEffect(() => {
+    if (!autoFocus) return;
+    const active = document.activeElement;
+    if (!active || active === document.body || keyArea?.contains(active)) focusStage();
+  }, [autoFocus, keyArea, focusStage]);
+
+  // Tell the page which tool and class are in hand, so the next photo opens with the same ones.
+  const { activeTool, activeDefect } = state;
+  useEffect(() => onToolChange?.({ tool: activeTool, defect: activeDefect }), [onToolChange, activeTool, activeDefect]);
   const pointer = usePointerInput({ containerRef, latestRef, dispatch, readOnly, spaceHeldRef });
 
   // Fit the photo when the stage first gets a size, and again on resize until the inspector zooms or pans.
@@ -173,6 +195,7 @@ export function AnnotationCanvas(props: AnnotationCanvasProps) {
             style={{ touchAction: "none", cursor }}
             {...pointer.handlers}
             data-testid="annotation-stage"
+            data-canvas-stage=""
             data-ready={ready ? "true" : "false"}
             data-region-count={state.regions.length}
             data-tool={state.activeTool}
@@ -197,6 +220,12 @@ export function AnnotationCanvas(props: AnnotationCanvasProps) {
               </Stage>
             )}
           </div>
+          {zones.length > 0 && zoneSource === "image" && (
+            // Over the stage, so the photo does not move when the first Surface appears.
+            <p className="pointer-events-none absolute right-2 bottom-2 rounded bg-gauge-950/75 px-2 py-1 text-xs text-white" data-testid="zones-waiting">
+              Zones: no Surface yet — trace the part with Surface to place them.
+            </p>
+          )}
           {ruler && !readOnly && (
             // Over the stage, not above it, so the photo does not jump when the prompt opens.
             <div className="card absolute left-2 top-2 z-10 max-w-[calc(100%-1rem)] p-3 shadow-md">
@@ -209,7 +238,7 @@ export function AnnotationCanvas(props: AnnotationCanvasProps) {
         </div>
         {regionListContainer ? createPortal(regionList, regionListContainer) : <aside className="lg:max-h-[65vh] lg:w-80 lg:overflow-y-auto">{regionList}</aside>}
       </div>
-      <ShortcutSheet open={sheetOpen} onClose={() => setSheetOpen(false)} />
+      <ShortcutSheet open={sheetOpen} onClose={() => setSheetOpen(false)} extra={pageShortcuts} />
     </div>
   );
 }

@@ -1,7 +1,7 @@
 "use client";
 
 import { useId } from "react";
-import { hexWithAlpha, type RegionStyle } from "./defect-styles";
+import { hexWithAlpha, type RegionStyle } from "@/lib/annotate/defect-styles";
 
 /** SVG pattern content for a fill, on an 8 × 8 tile (the canvas's hatch spacing). */
 function PatternMarks({ fill, colour }: { fill: RegionStyle["fill"]; colour: string }) {

@@ -7,7 +7,7 @@ import { CLOSE_TOLERANCE_PX } from "@/lib/annotate/constants";
 import { toShapePoint, type Viewport } from "@/lib/annotate/coords";
 import { handlesOf } from "@/lib/annotate/hit-test";
 import type { Draft, Region } from "@/lib/annotate/types";
-import { hexWithAlpha, type RegionStyle } from "./defect-styles";
+import { hexWithAlpha, type RegionStyle } from "@/lib/annotate/defect-styles";
 import { layerTransform, nativeContext, paintViewOf } from "./konva-view";
 import { paintGhosts } from "./paint-ghosts";
 import { paintHandles, paintRuler, paintSelection } from "./paint-regions";

@@ -5,7 +5,7 @@
  * can still be seen on a zoomed-out photo.
  */
 import { boundsOfShape } from "@/lib/geometry/bounds";
-import { SURFACE_STYLE, UNKNOWN_DEFECT_STYLE, type RegionStyle } from "./defect-styles";
+import { SURFACE_STYLE, UNKNOWN_DEFECT_STYLE, type RegionStyle } from "@/lib/annotate/defect-styles";
 import { boxesOverlap, paintLabel, shapePath, strokeStyled, type PaintView } from "./paint-regions";
 import type { GhostShape } from "./types";
 

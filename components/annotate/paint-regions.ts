@@ -12,7 +12,7 @@ import type { Region } from "@/lib/annotate/types";
 import { boundsOfPoints, boundsOfShape, expandBounds, type Bounds } from "@/lib/geometry/bounds";
 import type { Point, Shape } from "@/lib/geometry/shape";
 import { fillPattern } from "./pattern-tiles";
-import { RULER_STYLE, SELECTION_COLOUR, SURFACE_STYLE, UNKNOWN_DEFECT_STYLE, ZONE_STYLE, type RegionStyle } from "./defect-styles";
+import { RULER_STYLE, SELECTION_COLOUR, SURFACE_STYLE, UNKNOWN_DEFECT_STYLE, ZONE_STYLE, type RegionStyle } from "@/lib/annotate/defect-styles";
 import type { ImageZone } from "./zones";
 
 export type PaintView = Readonly<{ scale: number; visible: Bounds }>;

@@ -3,7 +3,7 @@
  * at twice its CSS size for sharp hi-DPI screens, and its pattern transform is set to
  * 1 / (2 × scale) so the hatching keeps the same spacing on screen at every zoom.
  */
-import type { FillPattern } from "./defect-styles";
+import type { FillPattern } from "@/lib/annotate/defect-styles";
 
 /** Tile edge in CSS px: hatch lines 8 px apart (our own choice). */
 const TILE_PX = 8;

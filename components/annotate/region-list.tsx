@@ -3,7 +3,7 @@
 import { memo, useDeferredValue } from "react";
 import type { Region, RegionId } from "@/lib/annotate/types";
 import { ClassSwatch } from "./class-swatch";
-import { RULER_STYLE, SURFACE_STYLE, UNKNOWN_DEFECT_STYLE } from "./defect-styles";
+import { RULER_STYLE, SURFACE_STYLE, UNKNOWN_DEFECT_STYLE } from "@/lib/annotate/defect-styles";
 import { regionKindLabel, regionSizeSummary } from "./region-summary";
 import type { ClassEntry } from "./types";
 

@@ -1,17 +1,18 @@
 "use client";
 
 import { useEffect, useRef, type KeyboardEvent } from "react";
-import { shortcutSheet } from "@/lib/annotate/tools";
+import { shortcutSheet, type ShortcutGroup } from "@/lib/annotate/tools";
 import { VIEW_SHORTCUTS } from "./view-commands";
 
 const GROUPS = [...shortcutSheet(), { title: "View", shortcuts: VIEW_SHORTCUTS }];
 
 /**
- * The `?` sheet: every key of the canvas, from the tool registry plus the view keys. A modal
+ * The `?` sheet: every key of the canvas, from the tool registry plus the view keys (and the
+ * page's own, `extra`, e.g. the Bench's photo keys). A modal
  * dialog: focus moves into it, Tab stays inside, Escape or the button closes it, and focus goes
  * back to where it was.
  */
-export function ShortcutSheet({ open, onClose }: { open: boolean; onClose(): void }) {
+export function ShortcutSheet({ open, onClose, extra = [] }: { open: boolean; onClose(): void; extra?: readonly ShortcutGroup[] }) {
   const dialogRef = useRef<HTMLDivElement>(null);
   const closeRef = useRef<HTMLButtonElement>(null);
 
@@ -66,7 +67,7 @@ export function ShortcutSheet({ open, onClose }: { open: boolean; onClose(): voi
           </button>
         </div>
         <div className="grid gap-x-8 gap-y-4 sm:grid-cols-2">
-          {GROUPS.map((group) => (
+          {[...GROUPS, ...extra].map((group) => (
             <section key={group.title} aria-labelledby={`shortcuts-${group.title}`}>
               <h3 id={`shortcuts-${group.title}`} className="mb-1 text-sm font-semibold text-gauge-800">
                 {group.title}

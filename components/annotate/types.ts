@@ -2,10 +2,11 @@
 import type { Ref } from "react";
 import type { NewRegion } from "@/lib/annotate/bulk-edits";
 import type { Size } from "@/lib/annotate/coords";
+import type { ShortcutGroup } from "@/lib/annotate/tools";
 import type { ToolId } from "@/lib/annotate/types";
 import type { PolygonShape, Shape } from "@/lib/geometry/shape";
 import type { RegionSetPayload } from "@/lib/geometry/validate";
-import type { RegionStyle } from "./defect-styles";
+import type { RegionStyle } from "@/lib/annotate/defect-styles";
 import type { HistoryAvailability } from "./use-committed-changes";
 import type { ViewCommand } from "./view-commands";
 import type { ZoneInput } from "./zones";
@@ -13,7 +14,7 @@ import type { ZoneInput } from "./zones";
 export type { HistoryAvailability } from "./use-committed-changes";
 export type { ZoneInput } from "./zones";
 
-/** A defect class of the part type, in the order number keys 1–9 pick them. */
+/** A defect class of the part type (the canvas orders them by severity for the number keys). */
 export type AllowedDefect = Readonly<{ key: string; label: string; severity: "critical" | "major" | "minor" }>;
 
 /** A class with the style it is drawn in. */
@@ -48,8 +49,20 @@ export type AnnotationCanvasProps = {
    * portal and the stage takes the full width; without one it sits beside the stage.
    */
   regionListContainer?: HTMLElement | null;
+  /** Another part of the page whose key presses the canvas takes too (the Bench's photo strip). */
+  keyArea?: HTMLElement | null;
+  /** Take keyboard focus on mount, unless another control outside `keyArea` has it. */
+  autoFocus?: boolean;
+  /** Tool and class to open with (the ones in hand on the previous photo). */
+  startWith?: ToolInHand | null;
+  /** After the tool or class in hand changes. */
+  onToolChange?: (inHand: ToolInHand) => void;
+  /** The page's own keys, listed in the `?` sheet after the canvas's. */
+  pageShortcuts?: readonly ShortcutGroup[];
   className?: string;
 };
+
+export type ToolInHand = Readonly<{ tool: ToolId; defect: string | null }>;
 
 /** A suggestion shown on the canvas: dashed, unfilled, never hit-tested or saved. */
 export type GhostShape = Readonly<{ id: string; label: string } & ({ role: "surface"; shape: PolygonShape } | { role: "defect"; defect: string; shape: Shape })>;

@@ -1,6 +1,7 @@
 /**
  * Keyboard input for the canvas. Keys count while focus is inside the canvas's root element
- * (toolbar, stage, region list — also when the list is portalled into a side panel, `alsoIn`) or while nothing is focused (the page body, e.g. right after
+ * (toolbar, stage, region list — also when the list is portalled into a side panel — and any
+ * other element the page names in `alsoIn`, e.g. its photo strip) or while nothing is focused (the page body, e.g. right after
  * the page loads), never while another part of the page has focus; key-scope.ts then keeps form
  * fields' own keys away from the canvas. Order: Space (held: pan), the tool registry (tools,
  * classes, undo/redo, `?`), then the view keys (+, −, 0, Shift+0).
@@ -15,8 +16,8 @@ import { viewCommandForKey, type ViewCommand } from "./view-commands";
 
 type CanvasKeyOptions = {
   rootRef: RefObject<HTMLElement | null>;
-  /** Another element that belongs to the canvas (the portalled region list). */
-  alsoIn?: HTMLElement | null;
+  /** Other elements whose keys belong to the canvas (the portalled region list, the photo strip). */
+  alsoIn?: readonly (HTMLElement | null)[];
   latestRef: RefObject<AnnotationState>;
   dispatch: Dispatch<CanvasAction>;
   readOnly: boolean;
@@ -25,9 +26,9 @@ type CanvasKeyOptions = {
   onShowShortcuts(): void;
 };
 
-function inScope(root: HTMLElement | null, target: EventTarget | null, alsoIn: HTMLElement | null | undefined): boolean {
+function inScope(root: HTMLElement | null, target: EventTarget | null, alsoIn: readonly (HTMLElement | null)[] = []): boolean {
   if (!root || !(target instanceof Node)) return false;
-  return root.contains(target) || Boolean(alsoIn?.contains(target)) || target === document.body || target === document.documentElement;
+  return root.contains(target) || alsoIn.some((el) => el?.contains(target)) || target === document.body || target === document.documentElement;
 }
 
 export function useCanvasKeys(options: CanvasKeyOptions): void {

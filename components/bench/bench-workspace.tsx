@@ -12,10 +12,13 @@ import { LeaseHeartbeat } from "@/components/queue/lease-heartbeat";
 import type { DefectClassDefinition, ViewDefinition } from "@/db/schema/lots";
 import { apiFetch } from "@/lib/http/client";
 import type { PhotoDto } from "@/lib/photos/dto";
+import { benchClassOrder, startingClass } from "@/lib/annotate/class-order";
 import { isScreenView } from "@/lib/regions/suggestion-mapping";
 import { annotateLock, otherHolder, type BenchPerson } from "./annotate-lock";
 import { ChecklistPanel } from "./checklist-panel";
-import { PhotoAnnotator } from "./photo-annotator";
+import { PhotoAnnotator, type CanvasLink } from "./photo-annotator";
+import { PHOTO_SHORTCUTS, usePhotoKeys } from "./photo-keys";
+import { useToolInHand } from "./tool-in-hand";
 import { putRegionSet } from "./regions-api";
 import { SaverRegistry } from "./saver-registry";
 import { UnitHeader } from "./unit-header";
@@ -63,10 +66,15 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
   const wide = useMediaQuery("(min-width: 1280px)");
   const [sideSlot, setSideSlot] = useState<HTMLElement | null>(null);
   const [belowSlot, setBelowSlot] = useState<HTMLElement | null>(null);
+  const [markingArea, setMarkingArea] = useState<HTMLElement | null>(null);
+  // The next canvas takes the keyboard once the inspector has switched photos.
+  const [switched, setSwitched] = useState(false);
 
   const ready = (photos.data?.photos ?? []).filter((p) => p.status === "ready");
   const selected = ready.find((p) => p.id === selectedId) ?? ready[0] ?? null;
   const lock = annotateLock(view, me);
+  const classKeys = useMemo(() => benchClassOrder(partType.defectClasses).map((d) => d.key), [partType.defectClasses]);
+  const { hand, setHand } = useToolInHand({ area: markingArea, classKeys, startingDefect: startingClass(partType.defectClasses), readOnly: lock !== null });
   const holder = otherHolder(view, me);
   const holdsLease = view.unit.status === "on_bench" && view.unit.leaseHolderId === me.id;
   const views = useMemo(() => partType.views.map((v) => ({ key: v.key, label: v.label, required: v.required })), [partType.views]);
@@ -107,10 +115,17 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
       await Promise.race([registry.get(selected.id)?.flush(), new Promise((r) => setTimeout(r, SWITCH_FLUSH_MS))]);
     }
     setSelectedId(photo.id);
+    setSwitched(true);
     const url = new URL(window.location.href);
     url.searchParams.set("photo", photo.id);
     window.history.replaceState(window.history.state, "", url);
   };
+
+  usePhotoKeys({ area: markingArea, ids: ready.map((p) => p.id), currentId: selected?.id ?? null, onOpen: (id) => void select(ready.find((p) => p.id === id)!) });
+  const link = useMemo<CanvasLink>(
+    () => ({ keyArea: markingArea, autoFocus: switched, startWith: hand, onToolChange: setHand, pageShortcuts: [{ title: "Photos", shortcuts: PHOTO_SHORTCUTS }] }),
+    [markingArea, switched, hand, setHand],
+  );
 
   const regions = <div ref={wide ? setSideSlot : setBelowSlot} className="max-h-[45vh] overflow-y-auto rounded-lg border border-gauge-200 bg-white p-3 xl:max-h-[40vh]" data-testid="region-slot" />;
   return (
@@ -123,7 +138,7 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
         </div>
       )}
       <div className="flex flex-col gap-6 xl:flex-row xl:items-start">
-        <div className="min-w-0 flex-1 space-y-4">
+        <div ref={setMarkingArea} className="min-w-0 flex-1 space-y-4">
           <div id="photos" className="space-y-2">
             <PhotoStrip
               unitId={unitId}
@@ -156,6 +171,7 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
               screenView={isScreenView(partType, selected.viewKey)}
               registry={registry}
               regionListContainer={wide ? sideSlot : belowSlot}
+              link={link}
             />
           ) : (
             <p className="rounded-lg border border-dashed border-gauge-300 p-6 text-center text-sm text-gauge-700">

@@ -2,7 +2,7 @@
 
 import { useQuery } from "@tanstack/react-query";
 import { useCallback, useRef, useState, useSyncExternalStore } from "react";
-import { AnnotationCanvasLazy, type AnnotationCanvasHandle } from "@/components/annotate/annotation-canvas-lazy";
+import { AnnotationCanvasLazy, type AnnotationCanvasHandle, type AnnotationCanvasProps } from "@/components/annotate/annotation-canvas-lazy";
 import type { AllowedDefect, GhostShape, ZoneInput } from "@/components/annotate/types";
 import { FormMessage } from "@/components/ui/form-field";
 import type { PhotoDto } from "@/lib/photos/dto";
@@ -24,7 +24,11 @@ type PhotoAnnotatorProps = {
   screenView: boolean;
   registry: SaverRegistry;
   regionListContainer: HTMLElement | null;
+  /** How the canvas joins the rest of the Bench: keys, focus, the tool carried from photo to photo. */
+  link: CanvasLink;
 };
+
+export type CanvasLink = Pick<AnnotationCanvasProps, "keyArea" | "autoFocus" | "startWith" | "onToolChange" | "pageShortcuts">;
 
 const NOT_LOADED: SaveStatus = { kind: "saved", version: 0, at: null };
 const noSubscription = () => () => {};
@@ -38,7 +42,7 @@ function useSaverStatus(saver: RegionAutosaver | null): SaveStatus {
  * this visit), the canvas, autosave with its status line, the conflict dialog and suggestions.
  * Give it a `key` per photo: switching photos starts a fresh canvas.
  */
-export function PhotoAnnotator({ photo, viewLabel, allowedDefects, zones, lock, screenView, registry, regionListContainer }: PhotoAnnotatorProps) {
+export function PhotoAnnotator({ photo, viewLabel, allowedDefects, zones, lock, screenView, registry, regionListContainer, link }: PhotoAnnotatorProps) {
   const canvasRef = useRef<AnnotationCanvasHandle>(null);
   const [ghosts, setGhosts] = useState<GhostShape[]>([]);
   const session = useQuery({
@@ -93,6 +97,7 @@ export function PhotoAnnotator({ photo, viewLabel, allowedDefects, zones, lock, 
           readOnly={readOnly}
           ghosts={ghosts}
           regionListContainer={regionListContainer}
+          {...link}
         />
       )}
       {!readOnly && <SaveProblem status={status} />}

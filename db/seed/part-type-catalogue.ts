@@ -119,7 +119,7 @@ export const PART_TYPE_CATALOGUE: CataloguePartType[] = [
       passFail("swelling", "No swelling: the cell lies flat, no bulge at the edges", "critical", BATTERY_ITEM_CAUTION),
       passFail("not-hot", "Not warm to the touch at rest", "critical", BATTERY_ITEM_CAUTION),
       passFail("gauge-detected", "Battery reader detects the fuel gauge", "major"),
-      // Full charge 4.20–4.40 V for phone cells, device cut-off about 3.0 V (a, REFERENCES.md);
+      // Full charge 4.20–4.40 V for phone cells, device cut-off about 3.0 V (a, docs/references.md);
       // below 3.00 V flags a deeply discharged cell (c).
       {
         id: "ocv", label: "Open-circuit voltage", kind: "numeric", unit: "V", min: 3.0, max: 4.4, decimals: 2, severityOnFail: "major",

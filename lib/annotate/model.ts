@@ -16,6 +16,8 @@ import type { AnnotationState, RectHandle, Region, RegionId } from "./types";
 export type CreateAnnotationOptions = {
   image: ImageSize;
   allowedDefects: readonly string[];
+  /** The class new regions get at first (default: the first allowed; null: none until one is chosen). */
+  startingDefect?: string | null;
   /** Start of every new region id in this session, e.g. 8 random hex digits; ids stay unique across sessions. */
   idPrefix: string;
   /** Regions loaded from the server (already validated when they were saved). */
@@ -33,13 +35,15 @@ export function createAnnotationState(options: CreateAnnotationOptions): Annotat
   if (!/^[A-Za-z0-9_]{1,40}$/.test(idPrefix)) throw new RangeError(`The id prefix must be 1–40 letters, digits or _, got “${idPrefix}”`);
   const ids = new Set(regions.map((r) => r.id));
   if (ids.size !== regions.length) throw new RangeError("Two loaded regions share an id");
+  const starting = options.startingDefect === undefined ? (allowedDefects[0] ?? null) : options.startingDefect;
+  if (starting !== null && !allowedDefects.includes(starting)) throw new RangeError(`The starting class “${starting}” is not an allowed class`);
   return {
     image,
     allowedDefects,
     regions,
     selectedId: null,
     activeTool: "select",
-    activeDefect: allowedDefects[0] ?? null,
+    activeDefect: starting,
     hiddenDefects: [],
     draft: null,
     drag: null,

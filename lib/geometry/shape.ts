@@ -3,7 +3,7 @@
  * original photo (after Exif orientation): x to the right, y down, (0, 0) the top-left corner of
  * the top-left pixel, so a pixel (i, j) covers [i, i+1) × [j, j+1).
  *
- * This is the shape union of the `measureCoverage` contract in PRODUCT.md; keep them identical.
+ * This is the shape union of the `measureCoverage` contract in docs/contracts.md; keep them identical.
  */
 export type Point = [x: number, y: number];
 

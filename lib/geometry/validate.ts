@@ -33,7 +33,7 @@ export type RegionSetPayload = {
   ruler: ({ id: string } & RulerMark) | null;
 };
 
-/** The tool names of PRODUCT.md, used to name a region in messages. */
+/** The tool names of docs/contracts.md, used to name a region in messages. */
 export const TOOL_NAME_BY_KIND: Record<ShapeKind, string> = { rect: "Box", polygon: "Outline", line: "Line", spot: "Spot" };
 
 const finite = z.number({ error: "must be a finite number" }); // zod 4 numbers reject NaN and ±Infinity

@@ -106,7 +106,7 @@ export const EXAMPLE_RUBRICS: Record<ExamplePartTypeSlug, Rubric> = {
   },
   display: {
     rules: [
-      // ISO 13406-2 classes (a: REFERENCES.md table); which class a grade allows is (c) invented.
+      // ISO 13406-2 classes (a: docs/references.md table); which class a grade allows is (c) invented.
       { id: "display-pixels-b", metric: "pixelFaultClass", comparison: "worse-than", threshold: "I", grade: "B" },
       { id: "display-pixels-c", metric: "pixelFaultClass", comparison: "worse-than", threshold: "II", grade: "C" },
       { id: "display-pixels-reject", metric: "pixelFaultClass", comparison: "worse-than", threshold: "III", grade: "Reject" },

@@ -1,6 +1,6 @@
 /**
  * measureCoverage — how much of a part's visible surface (and of each inspection zone) each
- * defect class covers, and how many separate defects there are. Contract: PRODUCT.md,
+ * defect class covers, and how many separate defects there are. Contract: docs/contracts.md,
  * "Computation contracts".
  *
  * How it measures (decisions):
@@ -23,41 +23,29 @@
  * - Every defect class named by a region appears in `byDefect` and in each zone's `byDefect`,
  *   with zeros when nothing of it lies inside.
  */
-import type { Shape } from "@/lib/geometry/shape";
 import type { CoverageInput, CoverageResult } from "@/lib/measure/types";
 import { parseCoverageInput } from "@/lib/imaging/raster/coverage-input";
 import { shapeSpans } from "@/lib/imaging/raster/exact-spans";
-import { sharpShapeSpans } from "@/lib/imaging/raster/sharp-spans";
-import {
-  countIntersection,
-  countSpans,
-  fullFrameSpanSet,
-  intersectSpanSets,
-  isEmptySpanSet,
-  spanSetsOverlap,
-  unionSpanSets,
-  type SpanSet,
-} from "@/lib/imaging/raster/spans";
+import { overlappingGroups, regionMasks, surfaceMask, type Frame, type RegionRaster } from "@/lib/imaging/raster/region-masks";
+import { countIntersection, countSpans, intersectSpanSets, unionSpanSets } from "@/lib/imaging/raster/spans";
 
 export type CoverageOptions = {
   /** How region shapes become pixels: "sharp" (default, per the product design) or "exact". */
-  regionRaster?: "sharp" | "exact";
+  regionRaster?: RegionRaster;
 };
-
-type Frame = { width: number; height: number };
 
 export async function measureCoverage(input: CoverageInput, options: CoverageOptions = {}): Promise<CoverageResult> {
   const { width, height, regions, surface = [], zones = [] } = parseCoverageInput(input);
   const frame: Frame = { width, height };
 
-  const surfaceSpans = surface.length > 0 ? unionSpanSets(surface.map((shape) => shapeSpans(shape, frame))) : fullFrameSpanSet(width, height);
+  const surfaceSpans = surfaceMask(surface, frame);
   const surfacePx = countSpans(surfaceSpans);
   const zoneMeasures = zones.map((zone) => {
     const spans = intersectSpanSets(shapeSpans(zone.shape, frame), surfaceSpans);
     return { id: zone.id, spans, zonePx: countSpans(spans) };
   });
 
-  const rawRegionSpans = await rasteriseRegions(
+  const rawRegionSpans = await regionMasks(
     regions.map((region) => region.shape),
     frame,
     options.regionRaster ?? "sharp",
@@ -78,7 +66,7 @@ export async function measureCoverage(input: CoverageInput, options: CoverageOpt
     const memberSpans = members.map((index) => clippedRegionSpans[index]);
     const classUnion = unionSpanSets(memberSpans);
     const px = countSpans(classUnion);
-    byDefect.push([defect, { px, share: ratio(px, surfacePx), count: countSeparateRegions(memberSpans) }]);
+    byDefect.push([defect, { px, share: ratio(px, surfacePx), count: overlappingGroups(memberSpans).length }]);
     zoneMeasures.forEach((zone, zoneIndex) => {
       const zonePxOfClass = zone.zonePx === 0 ? 0 : countIntersection(classUnion, zone.spans);
       zoneRows[zoneIndex].push([defect, { px: zonePxOfClass, share: ratio(zonePxOfClass, zone.zonePx) }]);
@@ -93,36 +81,4 @@ export async function measureCoverage(input: CoverageInput, options: CoverageOpt
   };
 }
 
-function rasteriseRegions(shapes: Shape[], frame: Frame, mode: "sharp" | "exact"): Promise<SpanSet[]> {
-  if (mode === "exact") return Promise.resolve(shapes.map((shape) => shapeSpans(shape, frame)));
-  return sharpShapeSpans(shapes, frame);
-}
-
 const ratio = (part: number, whole: number) => (whole === 0 ? 0 : part / whole);
-
-/**
- * Number of groups of regions whose (surface-clipped) masks share at least one pixel, directly
- * or through a chain; regions with an empty mask do not count.
- */
-export function countSeparateRegions(masks: SpanSet[]): number {
-  const parent = masks.map((_, index) => index);
-  const find = (index: number): number => {
-    while (parent[index] !== index) {
-      parent[index] = parent[parent[index]];
-      index = parent[index];
-    }
-    return index;
-  };
-  for (let a = 0; a < masks.length; a++) {
-    if (isEmptySpanSet(masks[a])) continue;
-    for (let b = a + 1; b < masks.length; b++) {
-      // spanSetsOverlap rejects on the bounding boxes first, so far-apart pairs cost nothing.
-      if (find(a) !== find(b) && spanSetsOverlap(masks[a], masks[b])) parent[find(a)] = find(b);
-    }
-  }
-  const roots = new Set<number>();
-  masks.forEach((mask, index) => {
-    if (!isEmptySpanSet(mask)) roots.add(find(index));
-  });
-  return roots.size;
-}

@@ -2,7 +2,7 @@
  * Pixel faults on a display panel, counted from the Spot regions an inspector marked, and the
  * panel's class under ISO 13406-2:2001 (withdrawn; summarised here, the licensed standard governs).
  *
- * Rules chosen here (REFERENCES.md marks the scaling rule as unconfirmed):
+ * Rules chosen here (docs/references.md marks the scaling rule as unconfirmed):
  * - Every Spot of class `pixel-lit` (type 1), `pixel-dark` (type 2) or `pixel-subpixel` (type 3) is
  *   one fault at its centre. Other shapes of these classes are not counted (listed in `assumptions`).
  * - A cluster is two or more faults that fit in one 5 × 5 block of PANEL pixels, i.e. whose panel
@@ -28,7 +28,7 @@ export type PixelFaultDefect = (typeof PIXEL_FAULT_DEFECTS)[number];
 export type IsoPixelClass = Exclude<PixelFaultClass, "beyond">;
 export const ISO_PIXEL_CLASSES: IsoPixelClass[] = ["I", "II", "III", "IV"];
 
-/** ISO 13406-2 maximum faults per 1 000 000 pixels (REFERENCES.md, mark a). */
+/** ISO 13406-2 maximum faults per 1 000 000 pixels (docs/references.md, mark a). */
 export const ISO_13406_2_PER_MILLION: Record<IsoPixelClass, PixelFaultCounts> = {
   I: { alwaysLit: 0, alwaysDark: 0, subPixel: 0, clustersLitOrDark: 0, clustersSubPixel: 0 },
   II: { alwaysLit: 2, alwaysDark: 2, subPixel: 5, clustersLitOrDark: 0, clustersSubPixel: 2 },

@@ -2,7 +2,7 @@
  * ISO 2859-1 switching rules over one supplier + part type's decided lots. Pure: history in,
  * next inspection severity and a sentence explaining it out.
  *
- * Rules (marks as in /work/shared/REFERENCES.md):
+ * Rules (marks as in docs/references.md):
  * - Start (no history) and every entry into normal: switching score 0 (b, ISO 2859-1:1999).
  * - normal → tightened: 2 lots not accepted within 5 or fewer consecutive lots on normal (b).
  * - tightened → normal: 5 consecutive lots accepted on tightened (b).

@@ -51,7 +51,7 @@ export function createObjectStore(config: ObjectStoreConfig): ObjectStore {
     forcePathStyle: config.forcePathStyle,
     credentials: { accessKeyId: config.accessKeyId, secretAccessKey: config.secretAccessKey },
     // Without these the SDK signs a CRC32 of an *empty* body into presigned PUT URLs, which a real
-    // S3 would refuse for any non-empty upload (STACK.md, section 5).
+    // S3 would refuse for any non-empty upload (docs/stack.md, "Object store").
     requestChecksumCalculation: "WHEN_REQUIRED",
     responseChecksumValidation: "WHEN_REQUIRED",
     // Fail fast when the store is down: the person gets a clear 503 and retries; jobs back off.

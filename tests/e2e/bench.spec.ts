@@ -81,7 +81,7 @@ test("an inspector marks one shape with each tool, changes a class, undoes and r
   const v = await stageView(page);
   expect(v.scale).toBeLessThan(0.5); // the whole 4000 px photo fits: drawn from the preview, scaled
 
-  // Box (class 1, scratch) in the upper left, on the lens window.
+  // Box (class 1: the least severe class comes first, so Dent) in the upper left, on the lens window.
   await page.getByTestId("tool-box").click();
   await drag(page, await v.at(1100, 800), await v.at(1500, 1100));
   // Outline: three clicks, then the first vertex again closes it.
@@ -108,17 +108,17 @@ test("an inspector marks one shape with each tool, changes a class, undoes and r
   await page.getByRole("button", { name: "Set length" }).click();
   await expect(page.getByTestId("annotation-stage")).toHaveAttribute("data-region-count", "6");
 
-  // Select the box and give it class 2 (dent) with the number key; undo, then redo.
+  // Select the box and give it class 2 (scratch, the major class) with the number key; undo, then redo.
   await page.getByTestId("tool-select").click();
   await click(page, await v.at(1300, 950));
   await page.keyboard.press("2");
   // Surfaces list first (they lie underneath), so the box is found by its kind.
   const boxRow = page.getByTestId("region-item").filter({ hasText: "Box" });
-  await expect(boxRow).toContainText("Dent");
-  await page.getByTestId("undo").click();
   await expect(boxRow).toContainText("Scratch");
-  await page.keyboard.press("Control+Shift+Z");
+  await page.getByTestId("undo").click();
   await expect(boxRow).toContainText("Dent");
+  await page.keyboard.press("Control+Shift+Z");
+  await expect(boxRow).toContainText("Scratch");
   // The shortcut sheet opens on ?.
   await page.keyboard.press("?");
   await expect(page.getByTestId("shortcut-sheet")).toContainText("Choose the defect class");
@@ -137,13 +137,13 @@ test("an inspector marks one shape with each tool, changes a class, undoes and r
   // Reload: everything is where it was, on screen and through the API, in original pixels.
   await page.reload();
   await expect(page.getByTestId("annotation-stage")).toHaveAttribute("data-region-count", "6", { timeout: 30_000 });
-  await expect(page.getByTestId("region-item").filter({ hasText: "Box" })).toContainText("Dent");
+  await expect(page.getByTestId("region-item").filter({ hasText: "Box" })).toContainText("Scratch");
   const res = await page.request.get(`/api/photos/${photo.id}/regions`);
   const set = (await res.json()) as RegionSet;
   expect(set.version).toBe(firstVersion);
   const t = v.tolerance;
   const [box, outline, line, spot] = set.regions.regions;
-  expect(box).toMatchObject({ defect: "dent", shape: { kind: "rect" } });
+  expect(box).toMatchObject({ defect: "scratch", shape: { kind: "rect" } });
   if (box.shape.kind !== "rect") throw new Error("not a box");
   near(box.shape.x, 1100, t);
   near(box.shape.y, 800, t);
@@ -159,7 +159,7 @@ test("an inspector marks one shape with each tool, changes a class, undoes and r
   near(line.shape.points.at(-1)![0], 2300, t);
   near(spot.shape.x, 3500, t);
   near(spot.shape.radius, 150, 2 * t);
-  expect(spot.defect).toBe("scratch");
+  expect(spot.defect).toBe("dent");
   const surface = set.regions.surfaces[0].shape;
   if (surface.kind !== "polygon") throw new Error("surface is not a polygon");
   near(Math.max(...surface.points.map((p) => p[0])), 3000, t);

@@ -1,7 +1,7 @@
 /**
  * Units and checklists over HTTP against the test server and PostgreSQL. Plans: lot 200 at II → G
  * (Table 1, REF a); lot 10 000 at II → L; the seeded draw and CSV rules as in the unit tests.
- * Battery limits: 3.00–4.40 V (REFERENCES.md, a); swelling is critical (c).
+ * Battery limits: 3.00–4.40 V (docs/references.md, a); swelling is critical (c).
  */
 import { sql } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";

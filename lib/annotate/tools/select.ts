@@ -1,6 +1,6 @@
 /**
  * Select: pick a region, drag it, drag its handles (box corners and edges, polygon and line
- * vertices, the spot's radius grip, ruler ends). Alt+click on a vertex deletes it; a double-click
+ * vertices, the spot's radius grip, ruler ends). A Surface moves only once it is selected. Alt+click on a vertex deletes it; a double-click
  * on an edge of the selected Outline/Line/Surface inserts a vertex there. Every drag is one undo
  * step from press to release, and a drag that would leave the region invalid snaps back.
  */
@@ -83,7 +83,7 @@ export const selectTool: Tool = {
   key: "s",
   description: "Pick, move and reshape regions.",
   shortcuts: [
-    { keys: "Drag a region", action: "Move it (Shift: along one axis)" },
+    { keys: "Drag a region", action: "Move it (Shift: along one axis); a Surface must be selected first" },
     { keys: "Drag a handle", action: "Resize or move a vertex" },
     { keys: "Alt + click a vertex", action: "Delete the vertex" },
     { keys: "Double-click an edge", action: "Insert a vertex" },
@@ -102,7 +102,11 @@ export const selectTool: Tool = {
     }
     const id = hitTestRegions(state, toShapePoint(p), imagePx(state, HIT_TOLERANCE_PX));
     const region = model.regionById(state, id);
-    return region ? startDrag(state, region, p, { kind: "body" }) : model.selectRegion(state, null);
+    if (!region) return model.selectRegion(state, null);
+    // The Surface lies under everything: a press on it only selects it, so a drag meant for
+    // something else (or made with the wrong tool) never carries the whole part away.
+    if (region.role === "surface" && region.id !== state.selectedId) return model.selectRegion(state, region.id);
+    return startDrag(state, region, p, { kind: "body" });
   },
   pointerMove: dragTo,
   pointerUp(state, point, modifiers) {

@@ -13,7 +13,7 @@ export type Shortcut = Readonly<{ keys: string; action: string }>;
 
 export type Tool = Readonly<{
   id: ToolId;
-  /** The name shown on the toolbar (PRODUCT.md). */
+  /** The name shown on the toolbar (docs/contracts.md). */
   label: string;
   /** Lower-case letter that switches to the tool. */
   key: string;

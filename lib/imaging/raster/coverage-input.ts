@@ -1,5 +1,6 @@
 /**
- * Validation of measureCoverage's input: bad input is refused with one clear AppError
+ * Validation of measureCoverage's input (and, from the same pieces, of the region-set comparison
+ * in lib/imaging/compare-regions.ts): bad input is refused with one clear AppError
  * ("bad_request") that names every offending field, before any work is done.
  */
 import { z } from "zod";
@@ -36,20 +37,31 @@ const shapeSchema = z.discriminatedUnion(
   { error: 'kind must be one of "rect", "polygon", "line", "spot"' },
 );
 
-const side = z
+export const photoSide = z
   .number({ error: "must be a number" })
   .int("must be a whole number of pixels")
   .min(1, "must be at least 1 pixel")
   .max(MAX_SIDE, `must be at most ${MAX_SIDE} pixels`);
 
+/** A photo's region list (also one side of a region-set comparison, lib/imaging/compare-regions.ts). */
+export const regionListSchema = z
+  .array(z.object({ id: z.string().min(1, "must not be empty"), defect: z.string().min(1, "must not be empty"), shape: shapeSchema }))
+  .max(MAX_REGIONS, `at most ${MAX_REGIONS} regions per photo`);
+export const surfaceSchema = z.array(shapeSchema).max(MAX_REGIONS);
+
+/** Refuses a photo larger than the rasterisers handle (add to an object schema with width/height). */
+export function checkPhotoSize(input: { width: number; height: number }, context: z.RefinementCtx): void {
+  if (input.width * input.height > MAX_PIXELS) {
+    context.addIssue({ code: "custom", path: ["width"], message: `width × height must be at most ${MAX_PIXELS} pixels` });
+  }
+}
+
 const coverageInputSchema = z
   .object({
-    width: side,
-    height: side,
-    regions: z
-      .array(z.object({ id: z.string().min(1, "must not be empty"), defect: z.string().min(1, "must not be empty"), shape: shapeSchema }))
-      .max(MAX_REGIONS, `at most ${MAX_REGIONS} regions per photo`),
-    surface: z.array(shapeSchema).max(MAX_REGIONS).optional(),
+    width: photoSide,
+    height: photoSide,
+    regions: regionListSchema,
+    surface: surfaceSchema.optional(),
     zones: z
       .array(z.object({ id: z.string().min(1, "must not be empty"), shape: shapeSchema }))
       .max(MAX_REGIONS)
@@ -63,14 +75,15 @@ const coverageInputSchema = z
       })
       .optional(),
   })
-  .superRefine((input, context) => {
-    if (input.width * input.height > MAX_PIXELS) {
-      context.addIssue({ code: "custom", path: ["width"], message: `width × height must be at most ${MAX_PIXELS} pixels` });
-    }
-  });
+  .superRefine(checkPhotoSize);
 
 export function parseCoverageInput(input: unknown): CoverageInput {
-  const parsed = coverageInputSchema.safeParse(input);
+  return parseOrRefuse(coverageInputSchema, input, "coverage input");
+}
+
+/** Parses with `schema` or throws one AppError ("bad_request") naming every offending field. */
+export function parseOrRefuse<T>(schema: z.ZodType<T>, input: unknown, what: string): T {
+  const parsed = schema.safeParse(input);
   if (parsed.success) return parsed.data;
   const fieldErrors: Record<string, string> = {};
   for (const issue of parsed.error.issues) {
@@ -80,5 +93,5 @@ export function parseCoverageInput(input: unknown): CoverageInput {
   const summary = Object.entries(fieldErrors)
     .map(([path, message]) => `${path}: ${message}`)
     .join("; ");
-  throw new AppError("bad_request", `Invalid coverage input — ${summary}`, { fieldErrors });
+  throw new AppError("bad_request", `Invalid ${what} — ${summary}`, { fieldErrors });
 }

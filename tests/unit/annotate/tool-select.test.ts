@@ -46,6 +46,23 @@ describe("picking", () => {
 });
 
 describe("dragging", () => {
+  const part: Region = { id: "f2", role: "surface", shape: { kind: "polygon", points: [[100, 100], [600, 100], [600, 500], [100, 500]] } };
+
+  it("does not move a Surface that was not selected first: the drag only selects it", () => {
+    // Issue 15: a Box drag that ran with Select carried the whole Surface 250 × 170 px away.
+    const s = drive(makeState({ regions: [part] }), dragSteps(300, 300, 550, 470));
+    expect(s.selectedId).toBe("f2");
+    expect(shape(s, "f2")).toEqual(part.shape);
+    expect(s.history.past).toHaveLength(0);
+    expect(s.drag).toBeNull();
+  });
+
+  it("moves a Surface once it is selected", () => {
+    const s = drive(makeState({ regions: [part] }), [["click", 300, 300], ...dragSteps(300, 300, 320, 290)]);
+    expect(shape(s, "f2")).toEqual({ kind: "polygon", points: [[120, 90], [620, 90], [620, 490], [120, 490]] });
+    expect(s.history.past).toHaveLength(1);
+  });
+
   it("moves a region by the drag as one undo step", () => {
     const s = drive(scene(), dragSteps(250, 180, 300, 160, 10));
     expect(shape(s, "b1")).toEqual({ kind: "rect", x: 150, y: 80, width: 200, height: 100 });

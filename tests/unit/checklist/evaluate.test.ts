@@ -1,11 +1,11 @@
 /**
  * Checklist limit evaluation: inclusive limits, rounding to the item's decimals, failure sentences.
- * Sources (marks as in /work/shared/REFERENCES.md):
+ * Sources (marks as in docs/references.md):
  * DEC  decimal.js-light 2.5.1 (npm, general-purpose decimal arithmetic), ROUND_HALF_UP = "rounds
  *      towards nearest neighbour; if equidistant, away from zero" (a, its documentation) — the
  *      reference for our rounding of typed decimals.
  * LIM  Inclusive limits (min <= reading <= max): common practice (c) for bench limits.
- * BAT  Phone cells: full charge 4.20–4.40 V, device cut-off about 3.0 V (a, REFERENCES.md).
+ * BAT  Phone cells: full charge 4.20–4.40 V, device cut-off about 3.0 V (a, docs/references.md).
  */
 import Decimal from "decimal.js-light";
 import { describe, expect, it } from "vitest";

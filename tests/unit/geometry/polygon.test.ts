@@ -36,7 +36,7 @@ describe("shoelace area", () => {
 
   it("agrees with inclusion–exclusion over polygon-clipping's union and intersection", () => {
     // |A| + |B| = |A ∪ B| + |A ∩ B|; the booleans come from polygon-clipping (npm, a general
-    // polygon library), the areas from our shoelace. Squares [0,4]² and [2,6]² (REFERENCES.md, a):
+    // polygon library), the areas from our shoelace. Squares [0,4]² and [2,6]² (docs/references.md, a):
     // intersection 4, union 28.
     const a: Polygon = [[[0, 0], [4, 0], [4, 4], [0, 4], [0, 0]]];
     const b: Polygon = [[[2, 2], [6, 2], [6, 6], [2, 6], [2, 2]]];

@@ -1,5 +1,5 @@
 /**
- * Rubric evaluation: worst grade wins (PRODUCT.md scale A < B < C < Reject), one explanation line
+ * Rubric evaluation: worst grade wins (docs/contracts.md scale A < B < C < Reject), one explanation line
  * per fired rule, "could not evaluate" notes instead of silent passes. Thresholds in these
  * rubrics are (c) invented examples; expected numbers are hand computations noted beside them.
  */

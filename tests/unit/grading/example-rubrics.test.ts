@@ -1,7 +1,7 @@
 /**
  * The example rubrics: each validates against its example part type and grades a clean unit A.
  * Their thresholds are (c) common practice / invented examples; the battery caution text is the
- * one in /work/shared/PRODUCT.md ("Cautions the product shows").
+ * one in the README ("Cautions").
  */
 import { describe, expect, it } from "vitest";
 import { evaluateRubric } from "@/lib/grading/evaluate";

@@ -1,6 +1,6 @@
 /**
  * measurePhoto: zones from Surface-box coordinates to pixels, calibration method, mm lengths,
- * diameters and mm² areas, pixel-fault class. Source marks as in /work/shared/REFERENCES.md:
+ * diameters and mm² areas, pixel-fault class. Source marks as in docs/references.md:
  * (a) read in a public source, (b) from memory, (c) common practice.
  */
 import { describe, expect, it } from "vitest";
@@ -77,7 +77,7 @@ describe("measurePhoto", () => {
   });
 
   it("agrees with polygon-clipping on a slanted defect clipped to a triangular zone (1 %)", async () => {
-    // Reference: polygon-clipping 0.15.7 (npm) intersection + shoelace area (REFERENCES.md "Areas and images").
+    // Reference: polygon-clipping 0.15.7 (npm) intersection + shoelace area (docs/references.md "Areas and images").
     const zone = { id: "tri", polygon: [[0, 0], [1, 0], [0, 1]] as [number, number][] };
     const defect: Shape = { kind: "polygon", points: [[120, 230], [330, 210], [360, 330], [140, 380]] };
     const { measurement } = await measurePhoto({ ...base, zones: [zone], defects: [{ id: "d", defect: "stain", shape: defect }] });
@@ -141,7 +141,7 @@ describe("measurePhoto", () => {
 
   it("classifies pixel faults under ISO 13406-2 on panel views", async () => {
     // Panel 1000 × 1000 = 1 000 000 px: class II allows 2 always-lit per million, class I none
-    // (a: ISO 13406-2 table in REFERENCES.md) → 1 lit pixel is class II, 3 are class III (limit 5).
+    // (a: ISO 13406-2 table in docs/references.md) → 1 lit pixel is class II, 3 are class III (limit 5).
     const panel = { width: 1000, height: 1000 };
     const spots = (n: number) => Array.from({ length: n }, (_, i) => ({ id: `px${i}`, defect: "pixel-lit", shape: { kind: "spot", x: 150 + i * 100, y: 300, radius: 1 } as Shape }));
     const one = await measurePhoto({ ...base, viewKey: "screen-white", panel, defects: spots(1) });

@@ -1,6 +1,6 @@
 /**
  * Rubric validation. The rules checked here are our own product spec (the grading brief and
- * /work/shared/PRODUCT.md: grade scale A, B, C, Reject; share as a percentage), not a standard.
+ * docs/contracts.md: grade scale A, B, C, Reject; share as a percentage), not a standard.
  */
 import { describe, expect, it } from "vitest";
 import { MAX_RULES, gradeRank, parseRubric, rubricSchemaFor, worseGrade, type Rule } from "@/lib/grading/rubric-schema";

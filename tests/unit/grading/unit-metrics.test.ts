@@ -122,7 +122,7 @@ describe("readMetric aggregation", () => {
     });
     const pixel = (view?: string) =>
       readMetric(metrics, { id: "p", metric: "pixelFaultClass", view, comparison: "worse-than", threshold: "I", grade: "B" });
-    // ISO 13406-2 class order I (best) … IV (a, REFERENCES.md table); "beyond" is worse than IV.
+    // ISO 13406-2 class order I (best) … IV (a, docs/references.md table); "beyond" is worse than IV.
     expect(pixel().value).toBe("IV");
     expect(pixel("screen-white").value).toBe("II");
     expect(pixel("front")).toEqual({ value: null, unknown: [], missing: "no-pixel-fault-count" });

@@ -1,42 +1,18 @@
 /**
  * measureCoverage against a general-purpose exact polygon library: polygon-clipping 0.15.7
  * (npm; union / intersection of polygons, MultiPolygon output) with areas by the shoelace
- * formula, outer ring minus holes (REFERENCES.md, "Areas and images"). Scenes come from a seeded
+ * formula, outer ring minus holes (docs/references.md, "Areas and images"). Scenes come from a seeded
  * PRNG so a failure reproduces. Tolerance: 1 % of the exact area (the contract's accuracy target).
  */
 import { readFileSync, readdirSync } from "node:fs";
 import { join } from "node:path";
 import { describe, expect, it } from "vitest";
-import * as polygonClippingModule from "polygon-clipping";
-import type { MultiPolygon, Pair } from "polygon-clipping";
-import type { Point, Shape } from "@/lib/geometry/shape";
+import type { MultiPolygon } from "polygon-clipping";
+import type { Shape } from "@/lib/geometry/shape";
 import type { CoverageInput } from "@/lib/measure/types";
 import { measureCoverage, type CoverageOptions } from "@/lib/imaging/coverage";
-import { shapeRings } from "@/lib/imaging/raster/shape-geometry";
+import { exactUnion, multiPolygonArea, polygonClipping, starPolygon } from "@/tests/support/exact-areas";
 import { mulberry32 as seededRandom } from "@/tests/support/prng";
-
-// The package's runtime export is one default object; its typings declare named functions.
-const polygonClipping =
-  (polygonClippingModule as unknown as { default?: typeof polygonClippingModule }).default ?? polygonClippingModule;
-
-
-/** Shoelace area of a MultiPolygon: each polygon's outer ring minus its holes. */
-function multiPolygonArea(shape: MultiPolygon): number {
-  const ringArea = (ring: Pair[]) => {
-    let twice = 0;
-    for (let k = 0; k < ring.length; k++) {
-      const [x1, y1] = ring[k];
-      const [x2, y2] = ring[(k + 1) % ring.length];
-      twice += x1 * y2 - x2 * y1;
-    }
-    return Math.abs(twice) / 2;
-  };
-  return shape.reduce((sum, polygon) => sum + ringArea(polygon[0]) - polygon.slice(1).reduce((holes, ring) => holes + ringArea(ring), 0), 0);
-}
-
-/** Exact union of shapes (circles and caps as 256-gons, about 1e-4 low), as a MultiPolygon. */
-const exactUnion = (shapes: Shape[]): MultiPolygon =>
-  polygonClipping.union(shapes.flatMap((shape) => shapeRings(shape)).map((ring) => [ring]) as unknown as MultiPolygon);
 
 function referenceCoverage(input: CoverageInput) {
   const image = exactUnion([{ kind: "rect", x: 0, y: 0, width: input.width, height: input.height }]);
@@ -49,23 +25,6 @@ function referenceCoverage(input: CoverageInput) {
     surfaceArea: multiPolygonArea(surface),
     byDefect: Object.fromEntries(defects.map((defect) => [defect, classArea(defect, surface)])),
     byZone: Object.fromEntries(zones.map((zone) => [zone.id, { zoneArea: multiPolygonArea(zone.clipped), byDefect: Object.fromEntries(defects.map((defect) => [defect, classArea(defect, zone.clipped)])) }])),
-  };
-}
-
-/**
- * A simple polygon around (cx, cy): evenly spaced, jittered angles (so it surrounds its centre),
- * radii between minFraction and 1 of maxRadius.
- */
-function starPolygon(random: () => number, cx: number, cy: number, maxRadius: number, minFraction = 0.3): Shape {
-  const sides = 4 + Math.floor(random() * 9);
-  const step = (2 * Math.PI) / sides;
-  const angles = Array.from({ length: sides }, (_, k) => (k + 0.8 * random()) * step);
-  return {
-    kind: "polygon",
-    points: angles.map((angle) => {
-      const radius = maxRadius * (minFraction + (1 - minFraction) * random());
-      return [cx + radius * Math.cos(angle), cy + radius * Math.sin(angle)] as Point;
-    }),
   };
 }
 
@@ -154,7 +113,7 @@ describe("trap: @turf/area is geodesic (square metres on the globe), not a pixel
   });
 
   it("the coverage code and the project's dependencies do not use @turf/area", () => {
-    // Source: REFERENCES.md, "Areas and images" (trap).
+    // Source: docs/references.md, "Areas and images" (trap).
     const root = process.cwd();
     const manifest = JSON.parse(readFileSync(join(root, "package.json"), "utf8")) as Record<string, Record<string, string> | undefined>;
     expect({ ...manifest.dependencies, ...manifest.devDependencies }).not.toHaveProperty("@turf/area");

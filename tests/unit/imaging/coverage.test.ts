@@ -1,8 +1,8 @@
 /**
- * measureCoverage against closed-form geometry and the contract in PRODUCT.md. Every check runs
+ * measureCoverage against closed-form geometry and the contract in docs/contracts.md. Every check runs
  * with both region rasterisers (sharp tiles, the default, and the exact scanline one).
- * Source marks as in /work/shared/REFERENCES.md: (a) read in a public source, (b) from memory,
- * (c) common practice; "contract" = PRODUCT.md / the task's stated semantics.
+ * Source marks as in docs/references.md: (a) read in a public source, (b) from memory,
+ * (c) common practice; "contract" = docs/contracts.md / the task's stated semantics.
  */
 import { describe, expect, it } from "vitest";
 import type { Shape } from "@/lib/geometry/shape";
@@ -18,7 +18,7 @@ describe.each<CoverageOptions["regionRaster"]>(["sharp", "exact"])("measureCover
 
   describe("closed forms", () => {
     it("counts an axis-aligned shape with corners on pixel corners as exactly its area", async () => {
-      // Source: REFERENCES.md "Raster vs exact" (a polygon with vertices on pixel corners counts
+      // Source: docs/references.md "Raster vs exact" (a polygon with vertices on pixel corners counts
       // exactly its area); area of a rectangle w·h and of an L by the shoelace formula (a, geometry).
       const lShape: Shape = { kind: "polygon", points: [[10, 10], [70, 10], [70, 30], [30, 30], [30, 90], [10, 90]] };
       const result = await measure({ width: 200, height: 150, regions: [region("r", "dent", rect(100, 20, 37, 51)), region("l", "chip", lShape)] });

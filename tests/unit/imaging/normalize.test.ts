@@ -48,7 +48,7 @@ const smallJpeg = () => makePhotoLikeJpeg({ width: 640, height: 480 });
 
 // ---- Exif orientation -------------------------------------------------------------------------
 // Source (a): libjpeg-turbo's jpegexiforient manual, which mirrors CIPA DC-008 (Exif), as copied
-// into /work/shared/REFERENCES.md: stored (x, y) of a W × H raster → upright (x′, y′).
+// into docs/references.md: stored (x, y) of a W × H raster → upright (x′, y′).
 type Mapping = (x: number, y: number, w: number, h: number) => [number, number];
 const UPRIGHT_POSITION: Record<number, Mapping> = {
   1: (x, y) => [x, y],

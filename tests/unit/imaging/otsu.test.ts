@@ -35,19 +35,19 @@ function expectSameMaskAsImageJs(pixels: Uint8Array, width: number, height: numb
 }
 
 describe("otsuSplit — published worked example", () => {
-  // Worked example, REFERENCES.md "Areas and images": 6 × 6 image, levels 0–5, histogram
+  // Worked example, docs/references.md "Areas and images": 6 × 6 image, levels 0–5, histogram
   // [8, 7, 2, 6, 9, 4] → foreground levels 3–5, within-class variance 0.4909, between-class 2.6287
   // (b for the publication, a for the computation).
   const histogram = [8, 7, 2, 6, 9, 4];
 
   it("puts levels 3–5 in the foreground (first foreground level 3)", () => {
-    expect(otsuThreshold(histogram)).toBe(3); // (a) computation in REFERENCES.md
+    expect(otsuThreshold(histogram)).toBe(3); // (a) computation in docs/references.md
   });
 
   it("reproduces the published within- and between-class variances", () => {
     const split = otsuSplit(histogram)!;
-    expect(split.withinClassVariance).toBeCloseTo(0.4909, 4); // (a) REFERENCES.md
-    expect(split.betweenClassVariance).toBeCloseTo(2.6287, 4); // (a) REFERENCES.md
+    expect(split.withinClassVariance).toBeCloseTo(0.4909, 4); // (a) docs/references.md
+    expect(split.betweenClassVariance).toBeCloseTo(2.6287, 4); // (a) docs/references.md
     // σ_W² + σ_B² = σ_T² (variance decomposition, Otsu 1979; (b) from memory, checked by arithmetic here).
     expect(split.withinClassVariance + split.betweenClassVariance).toBeCloseTo(split.totalVariance, 10);
     expect(split.background.weight).toBeCloseTo(17 / 36, 12);

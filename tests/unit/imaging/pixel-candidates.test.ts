@@ -6,8 +6,8 @@ import { mulberry32 as prng } from "@/tests/support/prng";
 /*
  * Generated test screens. "Planted" faults are written into raw RGB before encoding; a planted
  * fault counts as found when a candidate's centre lies within 1.5 px of the fault's centre (pixel
- * i spans [i, i+1), PRODUCT.md shape convention). Every other candidate is a false one; each test
- * states how many it tolerates. Expected kinds follow ISO 13406-2's types (REFERENCES.md, a):
+ * i spans [i, i+1), docs/contracts.md shape convention). Every other candidate is a false one; each test
+ * states how many it tolerates. Expected kinds follow ISO 13406-2's types (docs/references.md, a):
  * type 1 always lit, type 2 always dark, type 3 a single sub-pixel (colour element) stuck.
  */
 
@@ -155,7 +155,7 @@ describe("suggestPixelCandidates — false ones, size and coordinates", () => {
 
   it("reports upright coordinates for a JPEG with Exif orientation 6", async () => {
     // Orientation 6: stored (x, y) of a W × H raster → upright (H − 1 − y, x), size H × W
-    // (REFERENCES.md, a: libjpeg-turbo jpegexiforient manual / CIPA DC-008).
+    // (docs/references.md, a: libjpeg-turbo jpegexiforient manual / CIPA DC-008).
     const data = screen(W, H, [20, 20, 20]);
     plant(data, W, [lit(50, 30, 1)]);
     const jpeg = await sharp(data, { raw: { width: W, height: H, channels: 3 } })

@@ -102,7 +102,7 @@ describe("suggestSurface on generated parts", () => {
 
   it("works in upright coordinates for a photo with Exif orientation 6", async () => {
     // Orientation 6: stored (x, y) of a W × H raster → upright (H − 1 − y, x), size H × W
-    // (REFERENCES.md, a). A part stored at x 100–500, y 50–250 of 800 × 600 is upright at
+    // (docs/references.md, a). A part stored at x 100–500, y 50–250 of 800 × 600 is upright at
     // x 350–550, y 100–500 (pixel edges, so H − y for the far edge).
     const stored = await photo(800, 600, 220, { x: 100, y: 50, w: 400, h: 200, r: 0, grey: 40 });
     const rotated = await sharp(stored).jpeg({ quality: 95 }).withMetadata({ orientation: 6 }).toBuffer();

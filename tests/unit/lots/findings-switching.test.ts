@@ -1,7 +1,7 @@
 /**
  * From stored units and results to verdict findings, and from decided lots to the switching rules.
  * SW  ISO 2859-1 switching: 2 of 5 or fewer consecutive lots not accepted on normal → tightened
- *     (b, REFERENCES.md; the same chart on sqconline.com, a).
+ *     (b, docs/references.md; the same chart on sqconline.com, a).
  */
 import { describe, expect, it } from "vitest";
 import type { LotDecisionCounts } from "@/db/schema/lots";

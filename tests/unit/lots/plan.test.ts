@@ -1,6 +1,6 @@
 /**
  * The plan stored with a lot, built from ISO 2859-1 single sampling plans per defect severity.
- * Cells (sources as named in tests/unit/sampling/iso2859.test.ts, marks as in REFERENCES.md):
+ * Cells (sources as named in tests/unit/sampling/iso2859.test.ts, marks as in docs/references.md):
  * - Lot 120, level II → F (Table 1, REF a). Normal: F at 1.0 ↑ E n 13 0/1 (N1, N3); F at 2.5 n 20 1/2 (N1, N2).
  *   Tightened: F at 1.0 n 20 0/1 (T1, T2); F at 2.5 ↓ G n 32 1/2 (T1).
  * - Lot 4, II → A. A at 0.65 ↓ F n 20 (N1, N3) ≥ lot size → 100 % (table footnote, REF a); A at 6.5 n 2 0/1 (N1, N2).

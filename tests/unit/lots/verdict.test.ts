@@ -1,7 +1,7 @@
 /**
  * The running verdict against Ac/Re. Plans as in plan.test.ts (lot 120, II: critical 0/1 on 20,
  * major 0/1 on 13, minor 1/2 on 20 — Table 2-A cells N1, N2, N3). Rules:
- * AR   ISO 2859-1 single sampling: accept when defectives <= Ac, reject when >= Re (a, REFERENCES.md).
+ * AR   ISO 2859-1 single sampling: accept when defectives <= Ac, reject when >= Re (a, docs/references.md).
  * GAP  Reduced plans with a gap: Ac < found < Re → accept and reinstate normal (Z1.4 §10.1.4, a);
  *      J at 1.5 reduced → n 32, Ac 1, Re 4 (Z1, a).
  * CNT  Each unit counts at most once per severity; each class judged on its own first n units (c).

@@ -17,7 +17,7 @@ const spot = (id: string, defect: string, x: number, y: number) => ({ id, defect
 
 describe("ISO 13406-2 limits", () => {
   it("at exactly 1 000 000 pixels the limits are the published table", () => {
-    // REFERENCES.md "Display pixel faults", table per 1 000 000 pixels (a).
+    // docs/references.md "Display pixel faults", table per 1 000 000 pixels (a).
     const limits = pixelFaultLimits(1000 * 1000);
     expect(limits.I).toEqual(zero);
     expect(limits.II).toEqual({ alwaysLit: 2, alwaysDark: 2, subPixel: 5, clustersLitOrDark: 0, clustersSubPixel: 2 });
@@ -26,7 +26,7 @@ describe("ISO 13406-2 limits", () => {
     expect(limits).toEqual(ISO_13406_2_PER_MILLION);
   });
 
-  it("scales linearly and rounds down (our rule; REFERENCES.md marks the rule unconfirmed, b)", () => {
+  it("scales linearly and rounds down (our rule; docs/references.md marks the rule unconfirmed, b)", () => {
     // 1920 × 1080 = 2 073 600 px: 2.0736 × the table, floored.
     const limits = pixelFaultLimits(1920 * 1080);
     expect(limits.II).toEqual({ alwaysLit: 4, alwaysDark: 4, subPixel: 10, clustersLitOrDark: 0, clustersSubPixel: 4 });
@@ -55,7 +55,7 @@ describe("assessPixelFaults", () => {
 
   it("counts Spots by class and finds clusters within a 5 × 5 panel-pixel block (scale mapping)", () => {
     // 3 photo px per panel px. Lit at x 100 and dark at x 112: 4 panel px apart → one block (a: cluster
-    // definition in REFERENCES.md). The lit at x 130 is 6 panel px from x 112 → alone.
+    // definition in docs/references.md). The lit at x 130 is 6 panel px from x 112 → alone.
     const result = assessPixelFaults({
       panel,
       mapping: { kind: "scale", photoPxPerPanelPx: 3 },

@@ -1,6 +1,6 @@
 /**
  * Part type schema and the seeded catalogue. The catalogue's keys must be those the example rubrics
- * assume (lib/grading/example-part-types.ts); battery limits follow REFERENCES.md (a: 4.20–4.40 V full
+ * assume (lib/grading/example-part-types.ts); battery limits follow docs/references.md (a: 4.20–4.40 V full
  * charge, about 3.0 V cut-off; c: 80 % health).
  */
 import { describe, expect, it } from "vitest";

@@ -17,8 +17,8 @@ import {
   type InspectionSeverity,
 } from "@/lib/sampling/iso2859";
 
-// Sources (marks as in /work/shared/REFERENCES.md: (a) read in a public source, (b) from memory):
-// REF  /work/shared/REFERENCES.md, "Acceptance sampling — ISO 2859-1" (Table 1 and sample sizes, a).
+// Sources (marks as in docs/references.md: (a) read in a public source, (b) from memory):
+// REF  docs/references.md, "Acceptance sampling — ISO 2859-1" (Table 1 and sample sizes, a).
 // N1   nibs.org FMOC/DPW_AC/AC-TABLE.ASC, Table 1-A "developed from MIL-STD-105E Table II-A":
 //      Re numbers and arrows for AQL 0.65–15, letters A–Q (a).
 // N2   qualitycontrolpartners.com/aql-tables, "Source: ISO 2859-1": plan cells AQL 0.065–6.5 (a).

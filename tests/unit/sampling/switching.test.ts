@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { SamplingInputError, singleSamplingPlan, type InspectionSeverity } from "@/lib/sampling/iso2859";
 import { nextInspectionState, type DecidedLot } from "@/lib/sampling/switching";
 
-// Sources (marks as in /work/shared/REFERENCES.md):
+// Sources (marks as in docs/references.md):
 // SW   REFERENCES "Switching rules" (b): 2 of 5 or fewer → tightened; 5 consecutive accepted → normal;
 //      score >= 30 + steady + approval → reduced; not accepted → normal; 5 not accepted on tightened
 //      → discontinue. The same chart appears on sqconline.com "Switching Rules (ISO 2859-1)" (a).

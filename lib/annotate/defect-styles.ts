@@ -5,8 +5,8 @@
  *
  * Colours: the eight colours of Okabe & Ito's "Color Universal Design" palette (2008; hex values
  * from memory), which stay distinguishable under the common forms of colour blindness, plus
- * white as a ninth. They are ordered so that neighbours in the list (classes 1, 2, 3 …) differ
- * most. Every stroke is drawn over a contrasting halo (black or white, whichever contrasts more
+ * white as a ninth. Which class wears which colour, dash and fill is decided by the class's key
+ * in class-looks.ts, never by its place in a part type's list. Every stroke is drawn over a contrasting halo (black or white, whichever contrasts more
  * with the colour by the WCAG formula), so black, white and yellow marks stay visible on any photo.
  *
  * Dash lengths and stroke widths are **screen** pixels: the painter divides them by the zoom, so
@@ -38,7 +38,7 @@ export type RegionStyle = Readonly<{
 
 export type PaletteColour = Readonly<{ name: string; hex: string }>;
 
-/** Okabe–Ito colours (from memory) plus white, in the order classes 1–9 get them. */
+/** Okabe–Ito colours (from memory) plus white; class-looks.ts says which class wears which. */
 export const CLASS_COLOURS: readonly PaletteColour[] = [
   { name: "vermillion", hex: "#D55E00" },
   { name: "sky blue", hex: "#56B4E9" },
@@ -64,8 +64,8 @@ export const CLASS_STROKES: readonly StrokePattern[] = [
   { name: "sparse dots", dash: [0.001, 9], lineCap: "round" },
 ];
 
-/** Fills paired with the strokes above (areas only; lines are told apart by their dashes). */
-export const CLASS_FILLS: readonly FillPattern[] = ["tint", "hatch-forward", "dots", "hatch-back", "cross-hatch", "tint", "rows", "hatch-forward", "dots"];
+/** Fills a class may take (areas only; lines are told apart by their dashes). */
+export const CLASS_FILLS: readonly FillPattern[] = ["tint", "hatch-forward", "hatch-back", "cross-hatch", "dots", "rows"];
 
 const CLASS_STROKE_WIDTH = 2;
 const CLASS_TINT_OPACITY = 0.18;
@@ -93,34 +93,18 @@ export function haloFor(hex: string): string {
   return contrastRatio(hex, "#000000") >= contrastRatio(hex, "#FFFFFF") ? "rgba(0, 0, 0, 0.8)" : "rgba(255, 255, 255, 0.85)";
 }
 
-/**
- * The style of the class at `index` in the part type's list. Past the ninth class the colours
- * repeat but each colour is paired with the next stroke and fill along, so classes 10–18 still
- * differ from classes 1–9 (and from each other) in pattern.
- */
-export function defectStyleAt(index: number): RegionStyle {
-  if (!Number.isInteger(index) || index < 0) throw new RangeError(`A class index is a whole number from 0, got ${index}`);
-  const n = CLASS_COLOURS.length;
-  const colour = CLASS_COLOURS[index % n].hex;
-  const patternIndex = (index + Math.floor(index / n)) % n;
-  return {
-    colour,
-    halo: haloFor(colour),
-    stroke: CLASS_STROKES[patternIndex],
-    fill: CLASS_FILLS[patternIndex],
-    tintOpacity: CLASS_TINT_OPACITY,
-    strokeWidth: CLASS_STROKE_WIDTH,
-  };
+/** The pieces a class style is built from: indices into the lists above, and a fill. */
+export type ClassLook = Readonly<{ colour: number; stroke: number; fill: FillPattern }>;
+
+/** A full style from its pieces (every class shares the stroke width and tint strength). */
+export function styleOfLook(look: ClassLook): RegionStyle {
+  const colour = CLASS_COLOURS[look.colour].hex;
+  return { colour, halo: haloFor(colour), stroke: CLASS_STROKES[look.stroke], fill: look.fill, tintOpacity: CLASS_TINT_OPACITY, strokeWidth: CLASS_STROKE_WIDTH };
 }
 
 /** A key naming a style's pattern (dash + fill), used to check that classes differ without colour. */
 export function patternKey(style: RegionStyle): string {
   return `${style.stroke.dash.join(",") || "solid"}|${style.fill}`;
-}
-
-/** Styles for the part type's classes, by class key, in list order. */
-export function defectStyleMap(keys: readonly string[]): ReadonlyMap<string, RegionStyle> {
-  return new Map(keys.map((key, i) => [key, defectStyleAt(i)]));
 }
 
 /** The part's own outline: neutral light grey, long dash-dot, no fill (it covers the whole part). */

@@ -1,63 +1,31 @@
 import { describe, expect, it } from "vitest";
 import {
   CLASS_COLOURS,
+  CLASS_FILLS,
   CLASS_STROKES,
   contrastRatio,
-  defectStyleAt,
-  defectStyleMap,
   haloFor,
   hexWithAlpha,
   patternKey,
   relativeLuminance,
   RULER_STYLE,
+  styleOfLook,
   SURFACE_STYLE,
   ZONE_STYLE,
-} from "@/components/annotate/defect-styles";
+} from "@/lib/annotate/defect-styles";
 
-const FIRST_NINE = Array.from({ length: 9 }, (_, i) => defectStyleAt(i));
-
-describe("class styles are told apart without colour", () => {
-  it("gives the first 9 classes 9 different patterns (dash + fill)", () => {
-    expect(new Set(FIRST_NINE.map(patternKey)).size).toBe(9);
-  });
-
-  it("gives the first 9 classes 9 different dash arrays, so Line regions differ too", () => {
-    expect(new Set(FIRST_NINE.map((s) => s.stroke.dash.join(","))).size).toBe(9);
-    expect(new Set(FIRST_NINE.map((s) => s.stroke.name)).size).toBe(9);
-  });
-
-  it("gives the first 9 classes 9 different colours", () => {
-    expect(new Set(FIRST_NINE.map((s) => s.colour.toLowerCase())).size).toBe(9);
-  });
-
-  it("keeps classes 10–18 apart from classes 1–9 that share their colour", () => {
-    for (let i = 9; i < 18; i++) {
-      const repeat = defectStyleAt(i);
-      const sameColour = defectStyleAt(i % 9);
-      expect(repeat.colour).toBe(sameColour.colour);
-      expect(patternKey(repeat)).not.toBe(patternKey(sameColour));
-    }
-    const first18 = Array.from({ length: 18 }, (_, i) => defectStyleAt(i));
-    expect(new Set(first18.map((s) => `${s.colour}|${patternKey(s)}`)).size).toBe(18);
-  });
-
-  it("keeps Surface, Ruler and zones apart from every class pattern", () => {
-    const classPatterns = new Set(FIRST_NINE.map(patternKey));
-    for (const style of [SURFACE_STYLE, RULER_STYLE, ZONE_STYLE]) expect(classPatterns.has(patternKey(style))).toBe(false);
-    expect(new Set([SURFACE_STYLE, RULER_STYLE, ZONE_STYLE].map(patternKey)).size).toBe(3);
-  });
-
+describe("the palette", () => {
   it("uses the Okabe–Ito colours (Okabe & Ito 2008, Color Universal Design; hex values (b) from memory)", () => {
     const okabeIto = ["#E69F00", "#56B4E9", "#009E73", "#F0E442", "#0072B2", "#D55E00", "#CC79A7", "#000000"];
     expect(CLASS_COLOURS.map((c) => c.hex).filter((hex) => okabeIto.includes(hex))).toHaveLength(8);
     expect(CLASS_STROKES).toHaveLength(CLASS_COLOURS.length);
+    expect(new Set(CLASS_STROKES.map((s) => s.dash.join(","))).size).toBe(CLASS_STROKES.length);
   });
 
-  it("maps class keys to styles in list order", () => {
-    const map = defectStyleMap(["scratch", "crack"]);
-    expect(map.get("scratch")).toEqual(defectStyleAt(0));
-    expect(map.get("crack")).toEqual(defectStyleAt(1));
-    expect(() => defectStyleAt(-1)).toThrow(RangeError);
+  it("keeps Surface, Ruler and zones apart from every pattern a class can take", () => {
+    const classPatterns = new Set(CLASS_STROKES.flatMap((_, stroke) => CLASS_FILLS.map((fill) => patternKey(styleOfLook({ colour: 0, stroke, fill })))));
+    for (const style of [SURFACE_STYLE, RULER_STYLE, ZONE_STYLE]) expect(classPatterns.has(patternKey(style))).toBe(false);
+    expect(new Set([SURFACE_STYLE, RULER_STYLE, ZONE_STYLE].map(patternKey)).size).toBe(3);
   });
 });
 

@@ -1,0 +1,20 @@
+/** Small formatters shared by the report templates (PDF text and e-mail bodies). */
+import type { DefectSeverity } from "@/db/schema/lots";
+
+/** "2026-12-01 14:05 UTC" — an instant in the workspace's time zone (UTC when none is given), named once. */
+export function formatInstant(date: Date, timeZone = "UTC"): string {
+  const parts = new Intl.DateTimeFormat("en-GB", { timeZone, year: "numeric", month: "2-digit", day: "2-digit", hour: "2-digit", minute: "2-digit", hourCycle: "h23" }).formatToParts(date);
+  const part = (type: Intl.DateTimeFormatPartTypes) => parts.find((p) => p.type === type)?.value ?? "";
+  return `${part("year")}-${part("month")}-${part("day")} ${part("hour")}:${part("minute")} ${timeZone}`;
+}
+
+export const SEVERITY_LABELS: Record<DefectSeverity, string> = { critical: "Critical", major: "Major", minor: "Minor" };
+
+/** "1.0" / "0.65" as printed in AQL tables; null AQL for critical means zero acceptance. */
+export const formatAql = (aql: number | null) => (aql === null ? "0 (none accepted)" : String(aql));
+
+/** Share 0..1 as "12.5 %". */
+export const formatShare = (share: number) => `${(share * 100).toFixed(1)} %`;
+
+export const GRADE_CAUTION =
+  "Grades are decision aids: company policy, supplier contracts and local regulations decide. Standards tables in Partproof are summaries; the licensed standard governs.";
