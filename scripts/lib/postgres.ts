@@ -158,3 +158,18 @@ async function ensureDatabase(s: ServiceSettings, fresh: boolean) {
     await admin.end();
   }
 }
+
+/**
+ * The local app role may sign in with its local password (migration 0015 creates it without
+ * one; a real deployment gives it, or a member role, a password of its own).
+ */
+export async function enableAppLogin(s: ServiceSettings) {
+  const owner = new pg.Client({ host: "127.0.0.1", port: s.pg.port, user: s.pg.user, password: s.pg.password, database: s.pg.database });
+  await owner.connect();
+  try {
+    const password = s.pg.appPassword.replace(/'/g, "''");
+    await owner.query(`ALTER ROLE "${s.pg.appUser.replace(/"/g, '""')}" WITH LOGIN PASSWORD '${password}'`);
+  } finally {
+    await owner.end();
+  }
+}

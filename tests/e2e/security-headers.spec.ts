@@ -52,6 +52,7 @@ test("sign-in, queue, lots and the Bench with its canvas and an upload run with 
   const stage = page.getByTestId("annotation-stage");
   await expect(stage).toHaveAttribute("data-ready", "true", { timeout: 30_000 });
   await expect(stage.locator("canvas").first()).toBeVisible();
+  await page.getByRole("button", { name: "Add photos" }).click();
   const picker = page.getByTestId("photo-file-input");
   await expect(picker).toBeEnabled();
   await picker.setInputFiles({ name: "back.jpg", mimeType: "image/jpeg", buffer: await partPhoto(800, 600) });
