@@ -12,6 +12,12 @@ END $$;
 --> statement-breakpoint
 GRANT USAGE ON SCHEMA public TO partproof_app;
 --> statement-breakpoint
+-- pg-boss runs `CREATE SCHEMA IF NOT EXISTS pgboss` at every start, which needs the right to create schemas.
+DO $$
+BEGIN
+  EXECUTE format('GRANT CREATE ON DATABASE %I TO partproof_app', current_database());
+END $$;
+--> statement-breakpoint
 GRANT SELECT, INSERT, UPDATE, DELETE ON ALL TABLES IN SCHEMA public TO partproof_app;
 --> statement-breakpoint
 GRANT USAGE, SELECT ON ALL SEQUENCES IN SCHEMA public TO partproof_app;
