@@ -10,7 +10,7 @@ const nextConfig: NextConfig = {
   // the queue list's throughput.
   compress: false,
   // Native/Node-only packages stay out of the server bundle.
-  serverExternalPackages: ["sharp", "@node-rs/argon2", "pg-boss", "mailparser"],
+  serverExternalPackages: ["sharp", "@node-rs/argon2", "pg-boss", "mailparser", "piscina"],
   // `npm run typecheck` (part of `npm test`) checks the whole project, tests included; the build
   // would repeat it on every start.
   typescript: { ignoreBuildErrors: true },

@@ -1,21 +1,31 @@
-import Link from "next/link";
 import type { Metadata } from "next";
+import Link from "next/link";
 import { BatteryCaution, GradeScopeNote, StaticCaution } from "@/components/ui/cautions";
+import { EmptyState } from "@/components/ui/empty-state";
+import { getSetupCounts } from "@/db/queries/workspaces";
 import { requirePageUser } from "@/lib/auth/require-user";
+import { hasAnyRole } from "@/lib/auth/roles";
 import { localInboxDir } from "@/lib/env";
 import { screensFor } from "@/lib/nav";
+import { setupSteps } from "@/lib/workspace/setup";
 
 export const metadata: Metadata = { title: "Home" };
 
 export default async function HomePage() {
   const user = await requirePageUser({ from: "/" });
   const screens = screensFor(user.roles, { outbox: Boolean(localInboxDir()) });
+  const steps = hasAnyRole(user.roles, "lead") ? setupSteps(await getSetupCounts({ workspaceId: user.workspaceId })) : [];
   return (
     <div className="max-w-5xl space-y-6">
       <div>
         <h1 className="page-title">Good to see you, {user.name.split(" ")[0]}</h1>
         <p className="text-gauge-700">{user.workspaceName} · your screens</p>
       </div>
+      {steps.some((s) => !s.done) && (
+        <EmptyState title="Getting started" steps={steps} testId="getting-started">
+          Set up the desk in this order; each step links to its screen. This list goes away once everything is done.
+        </EmptyState>
+      )}
       <ul className="grid gap-3 sm:grid-cols-2 lg:grid-cols-3">
         {screens.map((s) => (
           <li key={s.href}>

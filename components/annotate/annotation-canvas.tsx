@@ -134,7 +134,13 @@ export function AnnotationCanvas(props: AnnotationCanvasProps) {
       focus: focusStage,
       getRegions: () => toRegionSetPayload(latestRef.current),
       replaceRegions: (payload) => dispatch(edit((s) => replaceAllRegions(s, regionsFromPayload(payload)))),
-      addRegions: (items) => dispatch(edit((s) => addNewRegions(s, items).state)),
+      addRegions: (items) => {
+        // The edit runs in the reducer like every other; the report reads the same pure step on
+        // the latest committed state (nothing can change in between: this is one event).
+        const { ids, skipped } = addNewRegions(latestRef.current, items);
+        dispatch(edit((s) => addNewRegions(s, items).state));
+        return { ids, skipped };
+      },
     }),
     [actions, focusStage, latestRef, dispatch],
   );

@@ -1,6 +1,6 @@
 /** Public types of the annotation canvas (its props) and the entries its parts share. */
 import type { Ref } from "react";
-import type { NewRegion } from "@/lib/annotate/bulk-edits";
+import type { AddOutcome, NewRegion } from "@/lib/annotate/bulk-edits";
 import type { Size } from "@/lib/annotate/coords";
 import type { ShortcutGroup } from "@/lib/annotate/tools";
 import type { ToolId } from "@/lib/annotate/types";
@@ -77,8 +77,8 @@ export type AnnotationCanvasHandle = {
   getRegions(): RegionSetPayload;
   /** Puts `payload` in place of every region as one undo step (another session's save, or a merge). */
   replaceRegions(payload: RegionSetPayload): void;
-  /** Adds new regions (accepted suggestions) as one undo step, each with a fresh id. */
-  addRegions(regions: readonly NewRegion[]): void;
+  /** Adds new regions (accepted suggestions) as one undo step, each with a fresh id; says what was left out and why. */
+  addRegions(regions: readonly NewRegion[]): Pick<AddOutcome, "ids" | "skipped">;
 };
 
 export type ToolbarActions = {

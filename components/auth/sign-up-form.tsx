@@ -5,16 +5,20 @@ import Link from "next/link";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { type z } from "zod";
+import { StarterChoices, type StarterChoice } from "@/components/part-types/starter-choices";
 import { FormField, FormMessage } from "@/components/ui/form-field";
 import { signUpSchema } from "@/lib/auth/schemas";
 import { ApiError, apiFetch } from "@/lib/http/client";
 
 type Values = z.input<typeof signUpSchema>;
 
-export function SignUpForm() {
+export function SignUpForm({ starters }: { starters: readonly StarterChoice[] }) {
   const [serverError, setServerError] = useState<string | null>(null);
   const [sent, setSent] = useState<string | null>(null);
-  const { register, handleSubmit, formState, setError } = useForm<Values>({ resolver: zodResolver(signUpSchema) });
+  const { register, handleSubmit, formState, setError } = useForm<Values>({
+    resolver: zodResolver(signUpSchema),
+    defaultValues: { starterPartTypes: starters.map((s) => s.slug) as Values["starterPartTypes"] },
+  });
 
   const onSubmit = handleSubmit(async (values) => {
     setServerError(null);
@@ -62,6 +66,14 @@ export function SignUpForm() {
       <FormField id="companyName" label="Company" registration={register("companyName")} error={formState.errors.companyName} autoComplete="organization" />
       <FormField id="name" label="Your name" registration={register("name")} error={formState.errors.name} autoComplete="name" />
       <FormField id="email" label="Work e-mail" type="email" registration={register("email")} error={formState.errors.email} autoComplete="email" />
+      <fieldset className="space-y-2" aria-describedby="starter-hint">
+        <legend className="field-label">Start with example part types</legend>
+        <p id="starter-hint" className="text-xs text-gauge-600">
+          Each comes with its views and zones, defect classes and functional checklist, and an example rubric as a draft. They are examples to adapt: change
+          anything on the Part types and Rubrics screens, and publish a rubric once its thresholds suit your contracts. Untick what you do not handle.
+        </p>
+        <StarterChoices choices={starters} registration={register("starterPartTypes")} idPrefix="starter" />
+      </fieldset>
       <button type="submit" className="btn-primary w-full" disabled={formState.isSubmitting}>
         {formState.isSubmitting ? "Sending…" : "Create workspace"}
       </button>

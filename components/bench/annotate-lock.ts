@@ -5,10 +5,12 @@
  * exempt from another inspector's running lease: two people marking one photo at once would only
  * produce conflicts — a lead takes the unit over with Reassign instead. Pure.
  */
+import { DEFAULT_TIME_ZONE, formatTime } from "@/lib/time/format";
 import { STATUS_LABELS } from "@/lib/units/state-machine";
 import type { UnitView } from "./use-unit";
 
-export type BenchPerson = { id: string; isLead: boolean; canRecord: boolean };
+/** Who looks at the Bench; `timeZone` is the workspace's (times are shown in it). */
+export type BenchPerson = { id: string; isLead: boolean; canRecord: boolean; timeZone?: string };
 
 export function leaseRunning(unit: UnitView["unit"], now = new Date()): boolean {
   return unit.status === "on_bench" && unit.leaseExpiresAt !== null && new Date(unit.leaseExpiresAt) > now;
@@ -26,7 +28,7 @@ export function annotateLock(view: UnitView, me: BenchPerson, now = new Date()):
   if (view.unit.status !== "queued" && view.unit.status !== "on_bench") return `This unit is ${STATUS_LABELS[view.unit.status]}; its regions are part of the record and can no longer change.`;
   const holder = otherHolder(view, me, now);
   if (holder) {
-    const until = new Date(view.unit.leaseExpiresAt!).toLocaleTimeString([], { hour: "2-digit", minute: "2-digit" });
+    const until = formatTime(view.unit.leaseExpiresAt!, me.timeZone ?? DEFAULT_TIME_ZONE);
     return `${holder} has this unit on their bench (lease until ${until}), so it is read-only for you.`;
   }
   return null;

@@ -2,8 +2,9 @@
 
 import { useState } from "react";
 import { DefectSeverityBadge } from "@/components/lots/badges";
+import { useDateTime } from "@/components/ui/time-zone";
 import type { ChecklistItem } from "@/db/schema/lots";
-import { describeLimits, evaluateChecklistItem, formatReading, type ChecklistValue } from "@/lib/checklist/evaluate";
+import { describeLimits, evaluateChecklistItem, formatReading, suspectReading, type ChecklistValue } from "@/lib/checklist/evaluate";
 import type { UnitView } from "./use-unit";
 
 type Result = UnitView["results"][number];
@@ -22,14 +23,14 @@ function shownValue(item: ChecklistItem, value: ChecklistValue): string {
   return "";
 }
 
-/** "2026-11-28 09:10 UTC": with the date, since a reading from an earlier day must not read as today's. */
-const recordedAtText = (iso: string) => `${iso.slice(0, 10)} ${iso.slice(11, 16)} UTC`;
 
 /** One checklist item: its control, the live check against limits, and the recorded result. */
 export function ChecklistItemRow({ item, result, disabled, saving, onRecord }: { item: ChecklistItem; result?: Result; disabled: boolean; saving: boolean; onRecord: (value: ChecklistValue) => void }) {
   const [text, setText] = useState(result && "reading" in result.value ? String(result.value.reading) : "");
+  const dateTime = useDateTime();
   const reading = item.kind === "numeric" ? parseReading(text) : null;
   const hint = item.kind === "numeric" && reading !== null ? evaluateChecklistItem(item, { reading }) : null;
+  const suspect = reading !== null ? suspectReading(item, { reading }) : null;
   const inputId = `item-${item.id}`;
 
   return (
@@ -75,7 +76,7 @@ export function ChecklistItemRow({ item, result, disabled, saving, onRecord }: {
               Save reading
             </button>
             <span id={`${inputId}-hint`} className="text-xs text-gauge-600">
-              {text.trim() === "" ? "" : reading === null ? "Enter a number." : hint?.passed ? "Within limits." : `Will fail: ${hint?.failureReason}`}
+              {text.trim() === "" ? "" : reading === null ? "Enter a number." : hint?.passed ? "Within limits." : `Will fail: ${hint?.failureReason}${suspect ? ` Below ${suspect.level}: set it aside as suspect.` : ""}`}
             </span>
           </form>
         )}
@@ -97,7 +98,8 @@ export function ChecklistItemRow({ item, result, disabled, saving, onRecord }: {
             ? item.kind === "pass_fail" ? "Passed." : `Passed: ${shownValue(item, result.value)}.`
             : `Failed automatically — ${result.failureReason} Adds a ${result.severityOnFail} functional defect.`}
           <span className="ml-2 text-xs font-normal text-gauge-600">
-            {result.recordedByName}, {recordedAtText(result.recordedAt)}
+            {/* With the date, since a reading from an earlier day must not read as today's. */}
+            {result.recordedByName}, {dateTime(result.recordedAt)}
           </span>
         </p>
       )}

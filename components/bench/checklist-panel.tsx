@@ -2,9 +2,9 @@
 
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { useState } from "react";
-import { BatteryCaution, StaticCaution } from "@/components/ui/cautions";
+import { BatteryCaution, StaticCaution, SuspectCaution } from "@/components/ui/cautions";
 import { FormMessage } from "@/components/ui/form-field";
-import type { ChecklistValue } from "@/lib/checklist/evaluate";
+import { suspectReading, type ChecklistValue } from "@/lib/checklist/evaluate";
 import { apiFetch } from "@/lib/http/client";
 import { STATIC_SENSITIVE, type PartCategory } from "@/lib/part-types/schemas";
 import { ChecklistItemRow } from "./checklist-item-row";
@@ -37,6 +37,11 @@ export function ChecklistPanel({ initial, me }: { initial: UnitView; me: { id: s
   const lock = benchLock(view, me) ?? (view.unit.serial === null ? "Scan or type the serial first." : null);
   const battery = view.partType.category === "battery";
   const hazard = battery && failed.some((r) => r && BATTERY_HAZARD_ITEMS.includes(r.itemId));
+  const suspects = items.flatMap((item) => {
+    const result = byItem.get(item.id);
+    const suspect = result ? suspectReading(item, result.value) : null;
+    return suspect ? [`${item.label} ${suspect.reading} is below ${suspect.level}`] : [];
+  });
 
   return (
     <section className="card space-y-3 p-5" aria-labelledby="checklist-title" data-testid="checklist-panel">
@@ -53,6 +58,7 @@ export function ChecklistPanel({ initial, me }: { initial: UnitView; me: { id: s
           Unsafe cell: swollen or hot. Stop testing, isolate it in a fire-safe container, do not charge or press it, and follow local rules for damaged lithium batteries.
         </div>
       )}
+      {suspects.length > 0 && <SuspectCaution battery={battery} findings={suspects} />}
       {error && <FormMessage kind="error">{error}</FormMessage>}
       {lock && <p className="text-sm text-signal-700">{lock}</p>}
       {items.length === 0 ? (

@@ -1,16 +1,16 @@
 "use client";
 
+import { useTimeZone } from "@/components/ui/time-zone";
+import { formatTime } from "@/lib/time/format";
 import type { SaveStatus } from "./region-autosaver";
-
-const time = (ms: number) => new Date(ms).toLocaleTimeString([], { hour: "2-digit", minute: "2-digit", second: "2-digit" });
 
 type SaveStatusWords = { text: string; detail: string | null; tone: "ok" | "busy" | "warn" | "fault" };
 
 /** What the autosave state means in words ("Unsaved …" whenever the edits are not on the server yet). */
-function describeSaveStatus(status: SaveStatus): SaveStatusWords {
+function describeSaveStatus(status: SaveStatus, timeZone: string): SaveStatusWords {
   switch (status.kind) {
     case "saved":
-      return { text: status.at ? `Saved (version ${status.version}, ${time(status.at)})` : status.version ? `Saved (version ${status.version})` : "No regions saved yet", detail: null, tone: "ok" };
+      return { text: status.at ? `Saved (version ${status.version}, ${formatTime(status.at, timeZone, { seconds: true })})` : status.version ? `Saved (version ${status.version})` : "No regions saved yet", detail: null, tone: "ok" };
     case "pending":
       return { text: "Unsaved — saving…", detail: null, tone: "busy" };
     case "saving":
@@ -32,7 +32,7 @@ const TONE = { ok: "text-ok-600", busy: "text-gauge-700", warn: "text-signal-700
  * save is long; `SaveProblem` shows it below the canvas.
  */
 export function SaveStatusLine({ status, onRetry }: { status: SaveStatus; onRetry(): void }) {
-  const { text, detail, tone } = describeSaveStatus(status);
+  const { text, detail, tone } = describeSaveStatus(status, useTimeZone());
   return (
     <div className="flex h-7 min-w-0 shrink-0 items-center gap-2 text-sm whitespace-nowrap" data-testid="save-status" data-state={status.kind}>
       <span role="status" aria-live="polite" className={TONE[tone]} title={detail ?? undefined}>
@@ -50,7 +50,7 @@ export function SaveStatusLine({ status, onRetry }: { status: SaveStatus; onRetr
 
 /** Why the last save failed, in full, for the states that have a reason; nothing otherwise. */
 export function SaveProblem({ status }: { status: SaveStatus }) {
-  const { detail, tone } = describeSaveStatus(status);
+  const { detail, tone } = describeSaveStatus(status, useTimeZone());
   if (!detail) return null;
   return (
     <p className={`rounded-md border px-3 py-2 text-sm ${tone === "fault" ? "border-fault-600 bg-fault-50 text-fault-700" : "border-signal-500 bg-signal-50 text-signal-700"}`} data-testid="save-problem">

@@ -5,7 +5,10 @@ import { useState } from "react";
 import type { GhostShape } from "@/components/annotate/types";
 import { FormMessage } from "@/components/ui/form-field";
 import type { SuggestionKind } from "@/lib/regions/schemas";
+import { describeAddOutcome, type AddOutcome } from "@/lib/annotate/bulk-edits";
 import { requestSuggestions } from "./regions-api";
+
+type AcceptOutcome = Pick<AddOutcome, "ids" | "skipped">;
 
 const SHOWN = 8;
 
@@ -14,18 +17,22 @@ const SHOWN = 8;
  * ghosts on the canvas until the inspector accepts them (each becomes a region, one Undo step) or
  * dismisses them; they are never saved on their own.
  */
-export function SuggestionsBar({ photoId, screenView, ghosts, onGhosts, onAccept }: { photoId: string; screenView: boolean; ghosts: readonly GhostShape[]; onGhosts(ghosts: GhostShape[]): void; onAccept(ghosts: readonly GhostShape[]): void }) {
+export function SuggestionsBar({ photoId, screenView, ghosts, onGhosts, onAccept }: { photoId: string; screenView: boolean; ghosts: readonly GhostShape[]; onGhosts(ghosts: GhostShape[]): void; onAccept(ghosts: readonly GhostShape[]): AcceptOutcome | undefined }) {
   const [note, setNote] = useState<string | null>(null);
+  const [accepted, setAccepted] = useState<string | null>(null);
   const suggest = useMutation({
     mutationFn: (kind: SuggestionKind) => requestSuggestions(photoId, kind),
     onSuccess: (res) => {
       setNote(res.note);
+      setAccepted(null);
       onGhosts(res.ghosts.map((g) => ({ ...g, id: `${res.kind}-${Date.now().toString(36)}-${g.id}` })));
     },
     onError: () => setNote(null),
   });
   const accept = (list: readonly GhostShape[]) => {
-    onAccept(list);
+    const outcome = onAccept(list);
+    // Say what became of them when several were accepted at once, or when one was left out.
+    setAccepted(outcome && (list.length > 1 || outcome.ids.length < list.length) ? describeAddOutcome(outcome, list.length) : null);
     onGhosts(ghosts.filter((g) => !list.includes(g)));
   };
   return (
@@ -53,6 +60,7 @@ export function SuggestionsBar({ photoId, screenView, ghosts, onGhosts, onAccept
         )}
       </div>
       {suggest.isError && <FormMessage kind="error">{suggest.error.message}</FormMessage>}
+      {accepted && <p className="text-xs text-gauge-800" role="status" data-testid="suggestions-accepted">{accepted}</p>}
       {note && <p className="text-xs text-gauge-700" data-testid="suggestion-note">{note} Suggestions are dashed until accepted and are never saved on their own.</p>}
       {ghosts.length > 0 && (
         <ul className="flex flex-wrap gap-2" aria-label="Suggested shapes">

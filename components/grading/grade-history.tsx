@@ -2,15 +2,17 @@
 
 import { useQuery } from "@tanstack/react-query";
 import { FormMessage } from "@/components/ui/form-field";
+import { useDateTime } from "@/components/ui/time-zone";
 import { apiFetch } from "@/lib/http/client";
 import { GradeBadge } from "./grade-badge";
 import { GradeLines } from "./grade-lines";
-import { dateTime, type GradeView } from "./types";
+import { type GradeView } from "./types";
 
 const KIND_LABEL: Record<GradeView["kind"], string> = { inspection: "Inspection", recheck: "Recheck", adjudication: "Adjudication", override: "Lead's correction" };
 
 /** The unit's append-only grade history, newest first; the top row is the current grade. */
 export function GradeHistory({ unitId }: { unitId: string }) {
+  const dateTime = useDateTime();
   const history = useQuery({ queryKey: ["unit-grades", unitId], queryFn: () => apiFetch<{ grades: GradeView[]; current: GradeView | null }>(`/api/units/${unitId}/grades`) });
   return (
     <section className="card space-y-3 p-4 sm:p-5" aria-labelledby="grade-history-title" data-testid="grade-history">

@@ -2,17 +2,18 @@
 
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
-import { useState } from "react";
+import { useRef, useState } from "react";
 import { useForm, useWatch, type Resolver } from "react-hook-form";
 import type { z } from "zod";
 import { FormMessage } from "@/components/ui/form-field";
+import { useDateTime } from "@/components/ui/time-zone";
 import { GRADES } from "@/lib/grading/rubric-schema";
 import { MAX_REASON_LENGTH, recordGradeSchema } from "@/lib/grading/schemas";
 import { ApiError, apiFetch } from "@/lib/http/client";
 import { GradeBadge } from "./grade-badge";
 import { GradeLines } from "./grade-lines";
 import { MeasurementTable, type MeasurementLabels } from "./measurement-table";
-import { dateTime, type GradeView, type MeasurementView } from "./types";
+import { type GradeView, type MeasurementView } from "./types";
 
 export type { MeasurementLabels } from "./measurement-table";
 
@@ -30,7 +31,7 @@ type GradePanelProps = {
   onGraded?: () => void;
 };
 
-type MeasureState = { measurement: MeasurementView | null; job: { id: string; state: string } | null };
+type MeasureState = { measurement: MeasurementView | null; job: { id: string; state: string; notMeasured?: string | null } | null };
 type FormValues = z.input<typeof recordGradeSchema>;
 
 /** Inputs that are hidden or left empty are absent, not "" (an accept needs no final grade). */
@@ -43,6 +44,7 @@ const resolver: Resolver<FormValues> = (values, context, options) => schemaResol
 
 /** Measuring a unit and recording its grade: the numbers, the proposal with its reasons, accept or override. */
 export function GradePanel({ unitId, canGrade, canCorrect, labels = { defects: {}, zones: {}, views: {} }, unsavedRegions = false, beforeMeasure, onGraded }: GradePanelProps) {
+  const dateTime = useDateTime();
   const queryClient = useQueryClient();
   const [jobId, setJobId] = useState<string | null>(null);
   const [message, setMessage] = useState<{ kind: "error" | "success"; text: string } | null>(null);
@@ -54,7 +56,9 @@ export function GradePanel({ unitId, canGrade, canCorrect, labels = { defects: {
   });
   // Shares its cache with GradeHistory: a lead may correct only a unit that already has a grade.
   const history = useQuery({ queryKey: ["unit-grades", unitId], queryFn: () => apiFetch<{ grades: GradeView[] }>(`/api/units/${unitId}/grades`) });
-  const hasGrade = (history.data?.grades.length ?? 0) > 0;
+  const current = history.data?.grades.at(-1) ?? null;
+  // Once graded, the only new grade is a lead's correction naming the grade it replaces.
+  const hasGrade = current !== null;
   const refresh = () => {
     void queryClient.invalidateQueries({ queryKey: ["unit-measurement", unitId] });
     void queryClient.invalidateQueries({ queryKey: ["unit-grades", unitId] });
@@ -75,14 +79,19 @@ export function GradePanel({ unitId, canGrade, canCorrect, labels = { defects: {
 
   const { register, handleSubmit, control, reset, setError, formState } = useForm<FormValues>({ resolver, defaultValues: { decision: "accept" } });
   const decision = useWatch({ control, name: "decision" });
-  const [correction, setCorrection] = useState(false);
+  const correction = hasGrade;
+  // One key per submission: a retried or doubled request is answered with the same grade row.
+  const submissionKey = useRef<string | null>(null);
   const grade = useMutation({
-    mutationFn: (values: FormValues) =>
-      apiFetch<{ grade: GradeView }>(`/api/units/${unitId}/grades`, { body: { ...cleaned(values), measurementId: state.data?.measurement?.id, ...(correction ? { kind: "override" } : {}) } }),
+    mutationFn: (values: FormValues) => {
+      submissionKey.current ??= crypto.randomUUID();
+      const replaces = correction ? { kind: "override" as const, expectedCurrentGradeId: current?.id } : { expectedCurrentGradeId: null };
+      return apiFetch<{ grade: GradeView }>(`/api/units/${unitId}/grades`, { body: { ...cleaned(values), measurementId: state.data?.measurement?.id, ...replaces, idempotencyKey: submissionKey.current } });
+    },
     onSuccess: (res) => {
+      submissionKey.current = null;
       setMessage({ kind: "success", text: `Grade ${res.grade.finalGrade} recorded.` });
       reset({ decision: "accept" });
-      setCorrection(false);
       refresh();
       onGraded?.();
     },
@@ -112,6 +121,7 @@ export function GradePanel({ unitId, canGrade, canCorrect, labels = { defects: {
       {message && <FormMessage kind={message.kind}>{message.text}</FormMessage>}
       {state.isPending && <p className="text-sm text-gauge-700">Loading the latest measurement…</p>}
       {state.isError && <FormMessage kind="error">{state.error.message}</FormMessage>}
+      {state.data?.job?.notMeasured && <FormMessage kind="error">{state.data.job.notMeasured}</FormMessage>}
       {state.isSuccess && !m && <p className="text-sm text-gauge-700">Not measured yet.</p>}
       {m && (
         <div className="space-y-3">
@@ -137,7 +147,7 @@ export function GradePanel({ unitId, canGrade, canCorrect, labels = { defects: {
           <MeasurementTable photos={m.photos} labels={labels} />
         </div>
       )}
-      {m && !m.stale && canGrade && (
+      {m && !m.stale && canGrade && (!hasGrade || canCorrect) && (
         <form onSubmit={handleSubmit((values) => grade.mutate(values))} noValidate className="space-y-3 border-t border-gauge-100 pt-4" aria-label="Record the grade">
           <fieldset className="flex flex-wrap gap-4">
             <legend className="field-label">Decision</legend>
@@ -177,10 +187,10 @@ export function GradePanel({ unitId, canGrade, canCorrect, labels = { defects: {
               </div>
             </div>
           )}
-          {canCorrect && hasGrade && (
-            <label className="flex items-center gap-2 text-sm">
-              <input type="checkbox" checked={correction} onChange={(e) => setCorrection(e.target.checked)} /> Record as a lead&rsquo;s correction of the recorded grade (needs a reason)
-            </label>
+          {correction && current && (
+            <p className="text-sm text-gauge-700" data-testid="correction-note">
+              This unit is graded {current.finalGrade}. What you record here is a lead&rsquo;s correction of that grade and needs a reason.
+            </p>
           )}
           {correction && decision === "accept" && (
             <div>

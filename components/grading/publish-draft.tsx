@@ -6,11 +6,11 @@ import { FormMessage } from "@/components/ui/form-field";
 import { apiFetch } from "@/lib/http/client";
 
 /** The lead's publish action, with one confirmation step: publishing cannot be undone. */
-export function PublishDraft({ partTypeId, version, blockedReason }: { partTypeId: string; version: number; blockedReason: string | null }) {
+export function PublishDraft({ partTypeId, version, revision, blockedReason }: { partTypeId: string; version: number; revision: number; blockedReason: string | null }) {
   const queryClient = useQueryClient();
   const [confirming, setConfirming] = useState(false);
   const publish = useMutation({
-    mutationFn: () => apiFetch<{ version: number }>(`/api/part-types/${partTypeId}/rubrics/draft/publish`, { method: "POST" }),
+    mutationFn: () => apiFetch<{ version: number }>(`/api/part-types/${partTypeId}/rubrics/draft/publish`, { method: "POST", body: { version, revision } }),
     onSuccess: () => {
       setConfirming(false);
       void queryClient.invalidateQueries({ queryKey: ["rubrics", partTypeId] });

@@ -4,12 +4,13 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { useEffect, useMemo, useState } from "react";
 import { useFieldArray, useForm, useWatch, type FieldErrors, type Resolver } from "react-hook-form";
 import { FormMessage } from "@/components/ui/form-field";
+import { useDateTime } from "@/components/ui/time-zone";
 import { fromRubric, newRule, rubricFormErrors, toRubric, type RubricFormValues } from "@/lib/grading/rule-form";
 import type { Rubric } from "@/lib/grading/rubric-schema";
 import { ApiError, apiFetch } from "@/lib/http/client";
 import { PublishDraft } from "./publish-draft";
 import { RuleRow } from "./rule-row";
-import { dateTime, type PartTypeSummary, type RubricVersionView } from "./types";
+import { type PartTypeSummary, type RubricVersionView } from "./types";
 
 /** react-hook-form resolver: the rubric schema (with the part type's lists) decides what is valid. */
 function rubricResolver(lists: PartTypeSummary["lists"]): Resolver<RubricFormValues> {
@@ -34,6 +35,7 @@ export function RubricEditor({
   canPublish: boolean;
   onRubricChange: (rubric: Rubric | null) => void;
 }) {
+  const dateTime = useDateTime();
   const queryClient = useQueryClient();
   const [message, setMessage] = useState<{ kind: "error" | "success"; text: string } | null>(null);
   const resolver = useMemo(() => rubricResolver(partType.lists), [partType.lists]);
@@ -44,6 +46,8 @@ export function RubricEditor({
   const watched = useWatch({ control }) as RubricFormValues;
   // Rows present when the form was loaded show as sentences; rows added since open for editing.
   const [baseline, setBaseline] = useState(() => draft.rubric.rules.length);
+  // The edit this form is based on: a save or publish over someone else's newer edit is refused.
+  const [revision, setRevision] = useState(draft.revision);
 
   // A resolver error is only shown for the field that changed; validate the whole rubric on load
   // and on every change, so a message caused elsewhere (a duplicate id, a metric change, a part
@@ -57,8 +61,9 @@ export function RubricEditor({
 
   const save = useMutation({
     mutationFn: (values: RubricFormValues) =>
-      apiFetch<{ version: number; rubric: Rubric }>(`/api/part-types/${partType.id}/rubrics/draft`, { method: "PATCH", body: { rubric: toRubric(values) } }),
+      apiFetch<{ version: number; revision: number; rubric: Rubric }>(`/api/part-types/${partType.id}/rubrics/draft`, { method: "PATCH", body: { rubric: toRubric(values), version: draft.version, revision } }),
     onSuccess: (saved) => {
+      setRevision(saved.revision);
       reset(fromRubric(saved.rubric));
       setBaseline(saved.rubric.rules.length);
       setMessage({ kind: "success", text: `Draft version ${saved.version} saved.` });
@@ -94,7 +99,7 @@ export function RubricEditor({
           <button type="submit" className="btn-primary" disabled={save.isPending || !formState.isDirty}>
             {save.isPending ? "Saving…" : formState.isDirty ? "Save draft" : "Saved"}
           </button>
-          {canPublish && <PublishDraft partTypeId={partType.id} version={draft.version} blockedReason={formState.isDirty ? "Save the draft before publishing it." : invalidCount > 0 ? "Fix the rules marked in red first." : null} />}
+          {canPublish && <PublishDraft partTypeId={partType.id} version={draft.version} revision={revision} blockedReason={formState.isDirty ? "Save the draft before publishing it." : invalidCount > 0 ? "Fix the rules marked in red first." : null} />}
         </div>
       </div>
       {message && <FormMessage kind={message.kind}>{message.text}</FormMessage>}

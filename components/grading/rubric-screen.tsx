@@ -4,19 +4,21 @@ import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { usePathname, useRouter } from "next/navigation";
 import { useState } from "react";
 import { FormMessage } from "@/components/ui/form-field";
+import { useDateTime } from "@/components/ui/time-zone";
 import type { Rubric } from "@/lib/grading/rubric-schema";
 import { apiFetch } from "@/lib/http/client";
 import { RubricDiff } from "./rubric-diff";
 import { RubricEditor } from "./rubric-editor";
 import { PreviewBar, RubricPreview, useSamplePreview } from "./rubric-preview";
 import { RubricRulesTable } from "./rubric-rules-table";
-import { dateTime, type RubricVersionsResponse, type RubricVersionView } from "./types";
+import { type RubricVersionsResponse, type RubricVersionView } from "./types";
 
 const EMPTY_PART_TYPE: RubricVersionsResponse["partType"] = { id: "", slug: "", name: "", views: [], lists: { defects: [], zones: [], views: [] }, severities: {}, labels: { defects: {}, zones: {}, views: {} } };
 
 export type PartTypeOption = { id: string; name: string; publishedVersion: number | null; draftVersion: number | null };
 
 function VersionList({ versions, selected, onSelect }: { versions: RubricVersionView[]; selected: number | null; onSelect: (v: number) => void }) {
+  const dateTime = useDateTime();
   return (
     <ul className="flex flex-wrap gap-2" aria-label="Versions" data-testid="rubric-versions">
       {versions.map((v) => {
@@ -48,6 +50,7 @@ function VersionList({ versions, selected, onSelect }: { versions: RubricVersion
 
 /** The Rubrics screen: pick a part type, read its versions, edit the draft with a live preview, compare versions. */
 export function RubricScreen({ partTypes, initialPartTypeId, canDraft, canPublish }: { partTypes: PartTypeOption[]; initialPartTypeId: string | null; canDraft: boolean; canPublish: boolean }) {
+  const dateTime = useDateTime();
   const router = useRouter();
   const pathname = usePathname();
   const queryClient = useQueryClient();
@@ -114,6 +117,14 @@ export function RubricScreen({ partTypes, initialPartTypeId, canDraft, canPublis
             <h2 className="mb-2 text-sm font-semibold uppercase tracking-wide text-gauge-700">Versions</h2>
             <VersionList versions={versions} selected={selected.version} onSelect={(v) => { setPicked(v); setLiveRubric(null); }} />
           </div>
+          {/* A rubric's notes travel with it: an example says so here, whoever opens it. */}
+          {(selected.rubric.notes?.length ?? 0) > 0 && (
+            <ul className="max-w-3xl list-disc space-y-0.5 rounded-md bg-gauge-50 py-2 pl-8 pr-3 text-sm text-gauge-800" aria-label="Notes of this version" data-testid="rubric-notes">
+              {selected.rubric.notes!.map((note) => (
+                <li key={note}>{note}</li>
+              ))}
+            </ul>
+          )}
           <div className="grid items-start gap-6 xl:grid-cols-[minmax(0,1fr)_26rem]">
             <section className="card min-w-0 p-4 sm:p-5">
               {editing ? (

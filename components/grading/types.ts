@@ -12,6 +12,8 @@ export type RubricVersionView = {
   status: "draft" | "published";
   rubric: Rubric;
   basedOnVersion: number | null;
+  /** Edits of the draft so far; save and publish send it back (409 when someone saved since). */
+  revision: number;
   createdAt: string;
   createdByName: string | null;
   updatedAt: string;
@@ -69,6 +71,3 @@ export type GradePreviewView = {
   };
   result: GradeResult;
 };
-
-export const dateTime = (iso: string | null) =>
-  iso ? new Date(iso).toLocaleString("en-GB", { day: "numeric", month: "short", year: "numeric", hour: "2-digit", minute: "2-digit" }) : "—";

@@ -3,21 +3,22 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useMutation, useQuery } from "@tanstack/react-query";
 import { useRouter } from "next/navigation";
-import { useMemo, useState } from "react";
+import { useEffect, useMemo, useState } from "react";
 import { useForm, useWatch } from "react-hook-form";
 import type { z } from "zod";
 import { FormField, FormMessage } from "@/components/ui/form-field";
 import { ApiError, apiFetch } from "@/lib/http/client";
 import { aqlLabel, buildLotPlan, DEFAULT_AQLS, DEFAULT_LEVEL } from "@/lib/lots/plan";
-import { lotCreateSchema } from "@/lib/lots/schemas";
+import { lotCreateSchema, PROMISED_GRADES, type PromisedGrade } from "@/lib/lots/schemas";
 import { INSPECTION_LEVELS, PREFERRED_AQLS } from "@/lib/sampling/iso2859";
 import { CountingNote, PlanTable } from "./plan-table";
 import { SwitchingBox, type SwitchingView } from "./switching-box";
 
 type Values = z.input<typeof lotCreateSchema>;
 type Output = z.output<typeof lotCreateSchema>;
-type PartTypeOption = { id: string; name: string; modelFamily: string; inspectAll: boolean };
-const FIELDS = ["supplierId", "partTypeId", "purchaseRef", "modelFamily", "quantity", "receivedOn", "dueOn", "inspectionLevel", "aqlCritical", "aqlMajor", "aqlMinor"] as const;
+type PartTypeOption = { id: string; name: string; modelFamily: string; inspectAll: boolean; promisedGrade: PromisedGrade };
+type SupplierOption = { id: string; name: string; promisedGrade: PromisedGrade | null };
+const FIELDS = ["supplierId", "partTypeId", "purchaseRef", "modelFamily", "quantity", "receivedOn", "dueOn", "inspectionLevel", "aqlCritical", "aqlMajor", "aqlMinor", "promisedGrade"] as const;
 
 const isoDay = (offsetDays = 0) => {
   const d = new Date(Date.now() + offsetDays * 86_400_000);
@@ -26,7 +27,7 @@ const isoDay = (offsetDays = 0) => {
 const toNumber = (v: unknown) => (v === "" || v === null || v === undefined ? Number.NaN : Number(v));
 
 /** Receive a lot: the plan preview follows the inputs and the switching state of supplier + part type. */
-export function LotCreateForm({ suppliers, partTypes, canEditSwitching }: { suppliers: { id: string; name: string }[]; partTypes: PartTypeOption[]; canEditSwitching: boolean }) {
+export function LotCreateForm({ suppliers, partTypes, canEditSwitching }: { suppliers: SupplierOption[]; partTypes: PartTypeOption[]; canEditSwitching: boolean }) {
   const router = useRouter();
   const [error, setError] = useState<string | null>(null);
   const form = useForm<Values, unknown, Output>({
@@ -42,11 +43,20 @@ export function LotCreateForm({ suppliers, partTypes, canEditSwitching }: { supp
       aqlCritical: DEFAULT_AQLS.critical,
       aqlMajor: DEFAULT_AQLS.major,
       aqlMinor: DEFAULT_AQLS.minor,
+      promisedGrade: "A",
     },
   });
   const { register, handleSubmit, formState, control } = form;
   const [supplierId, partTypeId, quantity, level, aqlCritical, aqlMajor, aqlMinor] = useWatch({ control, name: ["supplierId", "partTypeId", "quantity", "inspectionLevel", "aqlCritical", "aqlMajor", "aqlMinor"] });
   const partType = partTypes.find((p) => p.id === partTypeId);
+  const supplier = suppliers.find((s) => s.id === supplierId);
+  const defaultGrade = supplier?.promisedGrade ?? partType?.promisedGrade ?? "A";
+  const gradeSource = supplier?.promisedGrade ? `${supplier.name}'s default` : partType ? `${partType.name}'s default` : "choose the supplier and part type for their default";
+  // Follow the supplier's or part type's default until the lead picks a grade on purpose.
+  const gradeTouched = formState.dirtyFields.promisedGrade;
+  useEffect(() => {
+    if (!gradeTouched) form.setValue("promisedGrade", defaultGrade);
+  }, [defaultGrade, gradeTouched, form]);
 
   const switching = useQuery({
     queryKey: ["switching", supplierId, partTypeId],
@@ -111,6 +121,17 @@ export function LotCreateForm({ suppliers, partTypes, canEditSwitching }: { supp
             ))}
           </select>
           {e.partTypeId && <p className="field-error">{e.partTypeId.message}</p>}
+        </div>
+        <div>
+          <label htmlFor="lot-promised-grade" className="field-label">Grade the purchase promised</label>
+          <select id="lot-promised-grade" className="field-input" aria-describedby="lot-promised-grade-hint" {...register("promisedGrade", { setValueAs: (v) => v })}>
+            {PROMISED_GRADES.map((g) => (
+              <option key={g} value={g}>{g}</option>
+            ))}
+          </select>
+          <p id="lot-promised-grade-hint" className="mt-1 text-xs text-gauge-600" data-testid="promised-grade-source">
+            {gradeTouched ? "Chosen for this lot." : `From ${gradeSource}.`} A unit graded worse counts against the lot.
+          </p>
         </div>
         <FormField id="lot-ref" label="Purchase reference" registration={register("purchaseRef")} error={e.purchaseRef} />
         <FormField id="lot-model" label="Model family" registration={register("modelFamily")} error={e.modelFamily} hint={partType?.modelFamily ? `Defaults to ${partType.modelFamily}.` : undefined} />

@@ -66,15 +66,30 @@ export function PlanTable({ plan, verdict }: { plan: StoredSamplingPlan; verdict
   );
 }
 
-/** How the counting works, in words, next to the plan. */
-export function CountingNote({ plan }: { plan: StoredSamplingPlan }) {
+/**
+ * How the counting works, in words, next to the plan. With a lot: its promised grade, and whether
+ * cosmetic grades count yet (they need a published rubric for the part type).
+ */
+export function CountingNote({ plan, lot }: { plan: StoredSamplingPlan; lot?: { promisedGrade: string; cosmeticGrading: boolean; partTypeName: string } }) {
+  const promised = lot ? `the promised grade (${lot.promisedGrade})` : "the grade the purchase promised";
   return (
     <ul className="list-disc space-y-0.5 pl-5 text-xs text-gauge-600">
       <li>
         {plan.hundredPercent ? `Every unit of the lot (${plan.sampleSize}) is inspected.` : `${plan.sampleSize} units are inspected (the largest sample of the three classes).`} Each class is judged on its own
         sample: {SEVERITY_ORDER.map((s) => `${s} on ${judgedOnText(plan, s)}`).join("; ")}.
       </li>
-      <li>A unit counts once per class when it has at least one defect of that class (a failed checklist item now; cosmetic defects later).</li>
+      <li data-testid="counting-rule">
+        A unit counts once per class in which it has a nonconformity: a failed checklist item of that severity, or a grade worse than {promised}, counted in the severity
+        of each defect class whose fired rule made it worse. A critical defect class always counts as critical; a grade overridden below the promise with no class to
+        go by counts as major.
+      </li>
+      {lot && (
+        <li data-testid="inspected-rule">
+          {lot.cosmeticGrading
+            ? "A unit is inspected once it is graded: until then a cosmetic shortfall could still appear."
+            : `${lot.partTypeName} has no published rubric yet, so no unit can be graded: units count on their checklists alone and are inspected once the checklist is complete.`}
+        </li>
+      )}
       <li>Reaching Re rejects the lot at once; accepting needs the whole sample of each class inspected with at most Ac defectives.</li>
       <li>ISO 2859-1 single sampling ({plan.level}, {plan.severity} inspection). Tables are summarised; the licensed standard governs.</li>
     </ul>

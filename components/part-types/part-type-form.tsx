@@ -7,6 +7,7 @@ import { useFieldArray, useForm, useWatch, type Control, type UseFormRegister } 
 import { FormMessage } from "@/components/ui/form-field";
 import { ApiError, apiFetch } from "@/lib/http/client";
 import { EMPTY_ITEM, EMPTY_PART_TYPE, formToInput, type PartTypeFormValues } from "@/lib/part-types/form-model";
+import { PROMISED_GRADES } from "@/lib/lots/schemas";
 import { CATEGORY_LABELS, DEFECT_SEVERITIES, PART_CATEGORIES, partTypeSchema, SEVERITY_LABELS } from "@/lib/part-types/schemas";
 
 const small = "field-input py-1";
@@ -106,6 +107,13 @@ export function PartTypeForm({ partTypeId, initial = EMPTY_PART_TYPE }: { partTy
           <input className="field-input" aria-label="Panel width in pixels" placeholder="width px" inputMode="numeric" {...register("panelWidth")} />
           <input className="field-input" aria-label="Panel height in pixels" placeholder="height px" inputMode="numeric" {...register("panelHeight")} />
         </fieldset>
+        <label className="block">
+          <span className="field-label">Grade lots are bought at</span>
+          <select className="field-input" aria-describedby="promised-grade-hint" {...register("promisedGrade")}>
+            {PROMISED_GRADES.map((g) => <option key={g} value={g}>{g}</option>)}
+          </select>
+          <span id="promised-grade-hint" className="mt-1 block text-xs text-gauge-600">Default for new lots, unless the supplier has its own: a unit graded worse counts against the lot.</span>
+        </label>
         <div className="space-y-2 pt-6 text-sm">
           <label className="flex items-center gap-2"><input type="checkbox" {...register("inspectAll")} /> Inspect every unit (100 %)</label>
           <label className="flex items-center gap-2"><input type="checkbox" {...register("active")} /> Active (new lots may use it)</label>

@@ -3,7 +3,9 @@
 import { useMutation, useQuery } from "@tanstack/react-query";
 import { useRouter } from "next/navigation";
 import { FormMessage } from "@/components/ui/form-field";
+import { useTimeZone } from "@/components/ui/time-zone";
 import { apiFetch } from "@/lib/http/client";
+import { formatTime } from "@/lib/time/format";
 
 /**
  * Mounted on the Bench of a unit the user holds: renews the lease every minute while the page is
@@ -11,6 +13,7 @@ import { apiFetch } from "@/lib/http/client";
  */
 export function LeaseHeartbeat({ unitId, intervalMs = 60_000 }: { unitId: string; intervalMs?: number }) {
   const router = useRouter();
+  const timeZone = useTimeZone();
   const heartbeat = useQuery({
     queryKey: ["lease", unitId],
     queryFn: () => apiFetch<{ leaseExpiresAt: string }>(`/api/units/${unitId}/lease`, { method: "PUT" }),
@@ -29,7 +32,7 @@ export function LeaseHeartbeat({ unitId, intervalMs = 60_000 }: { unitId: string
         <FormMessage kind="error">{heartbeat.error.message}</FormMessage>
       ) : (
         <span className="text-gauge-700">
-          Reserved for you{heartbeat.data ? ` until ${new Date(heartbeat.data.leaseExpiresAt).toLocaleTimeString()}` : ""}, renewed while this page is open.
+          Reserved for you{heartbeat.data ? ` until ${formatTime(heartbeat.data.leaseExpiresAt, timeZone)}` : ""}, renewed while this page is open.
         </span>
       )}
       <button type="button" className="btn-secondary py-1" onClick={() => release.mutate()} disabled={release.isPending}>

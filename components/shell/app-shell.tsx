@@ -1,6 +1,7 @@
 import Link from "next/link";
 import type { SessionUser } from "@/lib/auth/require-user";
 import { ROLE_LABELS } from "@/lib/auth/roles";
+import { describeTimeZone } from "@/lib/time/format";
 import type { Screen } from "@/lib/nav";
 import { Wordmark } from "@/components/ui/logo";
 import { NavLinks } from "./nav-links";
@@ -14,6 +15,9 @@ export function AppShell({ user, screens, children }: { user: SessionUser; scree
     <div className="text-sm" data-testid="signed-in-user">
       <div className="font-medium">{user.name}</div>
       <div className="text-gauge-300">{user.workspaceName}</div>
+      <div className="mt-1 text-xs text-gauge-300" data-testid="time-zone-note">
+        Times in {describeTimeZone(user.timeZone)}
+      </div>
       <div className="mt-1 flex flex-wrap gap-1" aria-label="Your roles">
         {user.roles.map((r) => (
           <span key={r} className="rounded bg-gauge-800 px-1.5 py-0.5 text-xs text-gauge-100">

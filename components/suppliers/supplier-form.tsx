@@ -8,11 +8,12 @@ import { useForm } from "react-hook-form";
 import { type z } from "zod";
 import { FormField, FormMessage } from "@/components/ui/form-field";
 import { ApiError, apiFetch } from "@/lib/http/client";
+import { PROMISED_GRADES } from "@/lib/lots/schemas";
 import { supplierSchema } from "@/lib/suppliers/schemas";
 
 type Values = z.input<typeof supplierSchema>;
 type Output = z.output<typeof supplierSchema>;
-const FIELDS = ["name", "contactName", "contactEmail", "notes"] as const;
+const FIELDS = ["name", "contactName", "contactEmail", "notes", "promisedGrade"] as const;
 
 /** Create (no supplierId) or edit a supplier. */
 export function SupplierForm({ supplierId, initial }: { supplierId?: string; initial?: Values }) {
@@ -21,7 +22,7 @@ export function SupplierForm({ supplierId, initial }: { supplierId?: string; ini
   const [result, setResult] = useState<{ kind: "error" | "success"; text: string } | null>(null);
   const { register, handleSubmit, formState, reset, setError } = useForm<Values, unknown, Output>({
     resolver: zodResolver(supplierSchema),
-    defaultValues: initial ?? { name: "", contactName: "", contactEmail: "", notes: "" },
+    defaultValues: initial ?? { name: "", contactName: "", contactEmail: "", notes: "", promisedGrade: null },
   });
   const save = useMutation({
     mutationFn: (values: Output) =>
@@ -50,6 +51,18 @@ export function SupplierForm({ supplierId, initial }: { supplierId?: string; ini
         <FormField id="supplier-name" label="Name" registration={register("name")} error={formState.errors.name} />
         <FormField id="supplier-contact" label="Contact person" registration={register("contactName")} error={formState.errors.contactName} />
         <FormField id="supplier-email" label="Contact e-mail" type="email" registration={register("contactEmail")} error={formState.errors.contactEmail} hint="Evidence packs are sent here." />
+      </div>
+      <div className="sm:w-1/3">
+        <label htmlFor="supplier-promised-grade" className="field-label">
+          Grade lots are bought at
+        </label>
+        <select id="supplier-promised-grade" className="field-input" aria-describedby="supplier-promised-grade-hint" {...register("promisedGrade", { setValueAs: (v) => (v === "" || v === null ? null : v) })}>
+          <option value="">The part type&apos;s default</option>
+          {PROMISED_GRADES.map((g) => (
+            <option key={g} value={g}>{g}</option>
+          ))}
+        </select>
+        <p id="supplier-promised-grade-hint" className="mt-1 text-xs text-gauge-600">E.g. A for new stock, B for refurbished pulls. New lots start from it.</p>
       </div>
       <div>
         <label htmlFor="supplier-notes" className="field-label">

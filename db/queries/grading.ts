@@ -154,6 +154,16 @@ export function listPhotoMeasurements({ workspaceId, unitMeasurementId }: { work
     .orderBy(asc(measurements.id));
 }
 
+/** The grade a submission with this idempotency key made on the unit, if any. */
+export async function getGradeByIdempotencyKey({ workspaceId, unitId, key }: UnitKey & { key: string }, tx: DbOrTx = db()) {
+  const [row] = await tx
+    .select({ id: grades.id, kind: grades.kind, proposedGrade: grades.proposedGrade, finalGrade: grades.finalGrade, overrideReason: grades.overrideReason })
+    .from(grades)
+    .where(and(eq(grades.workspaceId, workspaceId), eq(grades.unitId, unitId), eq(grades.idempotencyKey, key)))
+    .limit(1);
+  return row;
+}
+
 export async function insertGrade(tx: DbOrTx, row: NewGradeRow) {
   const [inserted] = await tx.insert(grades).values(row).returning({ id: grades.id, createdAt: grades.createdAt });
   return inserted;

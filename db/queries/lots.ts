@@ -1,7 +1,9 @@
 import "server-only";
 import { and, asc, desc, eq, ilike, inArray, isNotNull, sql, type SQL } from "drizzle-orm";
 import { db, type DbOrTx } from "@/db/client";
-import { checklistResults, inspectionSchemes, lots, partTypes, suppliers, units, users } from "@/db/schema";
+import { checklistResults, grades, inspectionSchemes, lots, measurements, partTypes, rubricVersions, suppliers, units, users } from "@/db/schema";
+import type { DefectSeverity } from "@/db/schema/lots";
+import type { Grade, Rule } from "@/lib/grading/rubric-schema";
 import type { LotListQuery } from "@/lib/lots/schemas";
 
 const lotColumns = {
@@ -75,10 +77,15 @@ export async function listLots({ workspaceId, query }: { workspaceId: string; qu
   return { rows, total };
 }
 
-/** Units and checklist results of some lots, for their running verdicts. */
+/**
+ * What the running verdicts of some lots rest on: their units, checklist results, each graded
+ * unit's current grade (the last row of its history, with the defect severities and labels stored
+ * with the measurement it rests on), the rules of the rubric versions those grades used, and which
+ * of the lots' part types have a published rubric.
+ */
 export async function loadLotEvidence({ workspaceId, lotIds }: { workspaceId: string; lotIds: string[] }, tx: DbOrTx = db()) {
-  if (lotIds.length === 0) return { units: [], results: [] };
-  const [unitRows, resultRows] = await Promise.all([
+  if (lotIds.length === 0) return { units: [], results: [], grades: [], rubricRules: new Map<string, Rule[]>(), gradedPartTypeIds: new Set<string>() };
+  const [unitRows, resultRows, gradeRows, published] = await Promise.all([
     tx
       .select({ id: units.id, lotId: units.lotId, sampleIndex: units.sampleIndex, status: units.status })
       .from(units)
@@ -88,8 +95,31 @@ export async function loadLotEvidence({ workspaceId, lotIds }: { workspaceId: st
       .from(checklistResults)
       .innerJoin(units, eq(units.id, checklistResults.unitId))
       .where(and(eq(checklistResults.workspaceId, workspaceId), inArray(units.lotId, lotIds))),
+    tx.execute<{ unit_id: string; final_grade: Grade; lines: { ruleId: string; grade: Grade }[]; rubric_version_id: string; severities: Record<string, DefectSeverity> | null; labels: Record<string, string> | null }>(sql`
+      SELECT DISTINCT ON (g.unit_id) g.unit_id, g.final_grade, g.explanation->'lines' AS lines, g.rubric_version_id,
+        m.result->'defectSeverities' AS severities, m.result->'labels'->'defects' AS labels
+      FROM ${grades} g
+      JOIN ${units} u ON u.id = g.unit_id
+      LEFT JOIN ${measurements} m ON m.id = g.measurement_ids[1] AND m.workspace_id = g.workspace_id
+      WHERE g.workspace_id = ${workspaceId} AND u.workspace_id = ${workspaceId} AND u.lot_id IN (${sql.join(lotIds.map((id) => sql`${id}`), sql`, `)})
+      ORDER BY g.unit_id, g.created_at DESC, g.id DESC`),
+    tx
+      .selectDistinct({ partTypeId: rubricVersions.partTypeId })
+      .from(rubricVersions)
+      .innerJoin(lots, eq(lots.partTypeId, rubricVersions.partTypeId))
+      .where(and(eq(rubricVersions.workspaceId, workspaceId), eq(rubricVersions.status, "published"), inArray(lots.id, lotIds))),
   ]);
-  return { units: unitRows, results: resultRows };
+  const versionIds = [...new Set(gradeRows.rows.map((g) => g.rubric_version_id))];
+  const versions = versionIds.length
+    ? await tx.select({ id: rubricVersions.id, rubric: rubricVersions.rubric }).from(rubricVersions).where(and(eq(rubricVersions.workspaceId, workspaceId), inArray(rubricVersions.id, versionIds)))
+    : [];
+  return {
+    units: unitRows,
+    results: resultRows,
+    grades: gradeRows.rows.map((g) => ({ unitId: g.unit_id, finalGrade: g.final_grade, lines: g.lines ?? [], rubricVersionId: g.rubric_version_id, severities: g.severities ?? {}, labels: g.labels ?? {} })),
+    rubricRules: new Map(versions.map((v) => [v.id, v.rubric.rules])),
+    gradedPartTypeIds: new Set(published.map((p) => p.partTypeId)),
+  };
 }
 
 /** A supplier + part type's decided lots in the order their verdicts were recorded. */

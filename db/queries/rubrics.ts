@@ -51,6 +51,7 @@ const versionColumns = {
   status: rubricVersions.status,
   rubric: rubricVersions.rubric,
   basedOnVersion: rubricVersions.basedOnVersion,
+  revision: rubricVersions.revision,
   createdAt: rubricVersions.createdAt,
   createdByName: creators.name,
   updatedAt: rubricVersions.updatedAt,
@@ -130,13 +131,16 @@ export async function insertRubricVersion(
   return inserted;
 }
 
-/** Changes a draft's rules; the status test in the WHERE clause keeps published rows untouched. */
-export async function updateDraftRubric(tx: DbOrTx, { workspaceId, partTypeId, rubric, actorId }: PartTypeKey & { rubric: Rubric; actorId: string }) {
+/**
+ * Changes a draft's rules and counts the edit; the status test in the WHERE clause keeps
+ * published rows untouched, the revision test refuses (no row) a save based on an older edit.
+ */
+export async function updateDraftRubric(tx: DbOrTx, { workspaceId, partTypeId, rubric, actorId, revision }: PartTypeKey & { rubric: Rubric; actorId: string; revision: number }) {
   const [row] = await tx
     .update(rubricVersions)
-    .set({ rubric, updatedBy: actorId, updatedAt: new Date() })
-    .where(and(eq(rubricVersions.workspaceId, workspaceId), eq(rubricVersions.partTypeId, partTypeId), eq(rubricVersions.status, "draft")))
-    .returning({ version: rubricVersions.version });
+    .set({ rubric, updatedBy: actorId, updatedAt: new Date(), revision: sql`${rubricVersions.revision} + 1` })
+    .where(and(eq(rubricVersions.workspaceId, workspaceId), eq(rubricVersions.partTypeId, partTypeId), eq(rubricVersions.status, "draft"), eq(rubricVersions.revision, revision)))
+    .returning({ version: rubricVersions.version, revision: rubricVersions.revision });
   return row;
 }
 

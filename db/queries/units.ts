@@ -1,7 +1,7 @@
 import "server-only";
 import { aliasedTable, and, asc, eq, inArray, sql } from "drizzle-orm";
 import { db, type DbOrTx } from "@/db/client";
-import { checklistResults, lots, partTypes, suppliers, units, users } from "@/db/schema";
+import { checklistResults, grades, lots, partTypes, suppliers, units, users } from "@/db/schema";
 import { transition } from "@/lib/units/state-machine";
 
 const holders = aliasedTable(users, "lease_holders");
@@ -20,6 +20,7 @@ export function listLotUnits({ workspaceId, lotId }: { workspaceId: string; lotI
       recorded: sql<number>`(SELECT count(*)::int FROM ${checklistResults} WHERE ${checklistResults.unitId} = ${units.id})`,
       failed: sql<number>`(SELECT count(*)::int FROM ${checklistResults} WHERE ${checklistResults.unitId} = ${units.id} AND NOT ${checklistResults.passed})`,
       worstFailure: sql<"critical" | "major" | "minor" | null>`(SELECT ${checklistResults.severityOnFail} FROM ${checklistResults} WHERE ${checklistResults.unitId} = ${units.id} AND NOT ${checklistResults.passed} ORDER BY array_position(ARRAY['critical','major','minor'], ${checklistResults.severityOnFail}) LIMIT 1)`,
+      grade: sql<"A" | "B" | "C" | "Reject" | null>`(SELECT ${grades.finalGrade} FROM ${grades} WHERE ${grades.unitId} = ${units.id} AND ${grades.workspaceId} = ${units.workspaceId} ORDER BY ${grades.createdAt} DESC, ${grades.id} DESC LIMIT 1)`,
     })
     .from(units)
     .leftJoin(holders, eq(holders.id, units.leaseHolderId))

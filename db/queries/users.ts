@@ -69,6 +69,7 @@ function sessionUserSelect(database: ReturnType<typeof db>, sessionId: Placehold
       id: users.id,
       workspaceId: users.workspaceId,
       workspaceName: workspaces.name,
+      timeZone: workspaces.timeZone,
       email: users.email,
       name: users.name,
       roles: users.roles,

@@ -10,15 +10,19 @@ import {
   primaryKey,
   text,
   timestamp,
+  unique,
   uniqueIndex,
   uuid,
 } from "drizzle-orm/pg-core";
+import { sameWorkspace } from "./workspace-keys";
 
 /** A company using Partproof. Every row of company data points at one. */
 export const workspaces = pgTable("workspaces", {
   id: uuid().primaryKey().defaultRandom(),
   name: text().notNull(),
   slug: text().notNull().unique(),
+  /** IANA time zone every time in the app is shown in (one rule for the whole workspace). */
+  timeZone: text().notNull().default("UTC"),
   createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
 });
 
@@ -48,6 +52,8 @@ export const users = pgTable(
     // same for every address, and such an invitation simply cannot be accepted (lib/people).
     uniqueIndex("users_email_key").on(t.email).where(sql`${t.passwordHash} IS NOT NULL`),
     uniqueIndex("users_workspace_email_key").on(t.workspaceId, t.email),
+    // The target of the composite (workspace_id, id) foreign keys: a row can only name a user of its own workspace.
+    unique("users_workspace_id_key").on(t.workspaceId, t.id),
     index("users_workspace_idx").on(t.workspaceId),
     check("users_email_lower", sql`${t.email} = lower(${t.email})`),
     check(
@@ -65,9 +71,7 @@ export const authTokens = pgTable(
     workspaceId: uuid()
       .notNull()
       .references(() => workspaces.id),
-    userId: uuid()
-      .notNull()
-      .references(() => users.id),
+    userId: uuid().notNull(),
     purpose: text({ enum: ["invite", "reset"] }).notNull(),
     tokenHash: text().notNull().unique(),
     expiresAt: timestamp({ withTimezone: true }).notNull(),
@@ -78,6 +82,7 @@ export const authTokens = pgTable(
     index("auth_tokens_user_idx").on(t.userId),
     // Only the newest link of a purpose works: issuing one voids the others (lib/auth/tokens.ts).
     uniqueIndex("auth_tokens_live_key").on(t.userId, t.purpose).where(sql`${t.usedAt} IS NULL`),
+    sameWorkspace("auth_tokens_user_fk", t.workspaceId, t.userId, users),
   ],
 );
 
@@ -91,6 +96,8 @@ export const signUpRequests = pgTable("sign_up_requests", {
   email: text().notNull(),
   companyName: text().notNull(),
   name: text().notNull(),
+  /** The starter part types chosen on the form, created with the workspace (lib/part-types/starters.ts). */
+  starterPartTypes: text().array().notNull().default(sql`'{}'::text[]`),
   tokenHash: text().notNull().unique(),
   expiresAt: timestamp({ withTimezone: true }).notNull(),
   usedAt: timestamp({ withTimezone: true }),
@@ -130,14 +137,17 @@ export const activityLog = pgTable(
     workspaceId: uuid()
       .notNull()
       .references(() => workspaces.id),
-    actorId: uuid().references(() => users.id),
+    actorId: uuid(),
     action: text().notNull(),
     subjectType: text().notNull(),
     subjectId: text(),
     detail: jsonb().$type<Record<string, unknown>>().notNull().default({}),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [index("activity_log_workspace_idx").on(t.workspaceId, t.createdAt)],
+  (t) => [
+    index("activity_log_workspace_idx").on(t.workspaceId, t.createdAt),
+    sameWorkspace("activity_log_actor_fk", t.workspaceId, t.actorId, users),
+  ],
 );
 
 export const suppliers = pgTable(
@@ -151,11 +161,13 @@ export const suppliers = pgTable(
     contactName: text(),
     contactEmail: text().notNull(),
     notes: text().notNull().default(""),
+    /** The cosmetic grade this supplier's lots are bought at by default (null: the part type's). */
+    promisedGrade: text({ enum: ["A", "B", "C"] }),
     active: boolean().notNull().default(true),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [uniqueIndex("suppliers_workspace_name_key").on(t.workspaceId, sql`lower(${t.name})`)],
+  (t) => [uniqueIndex("suppliers_workspace_name_key").on(t.workspaceId, sql`lower(${t.name})`), unique("suppliers_workspace_id_key").on(t.workspaceId, t.id)],
 );
 
 /** Every e-mail the app sends (invitations, resets, supplier evidence), per workspace. */

@@ -1,11 +1,12 @@
 import { sql } from "drizzle-orm";
-import { check, index, integer, jsonb, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { check, index, integer, jsonb, pgTable, text, timestamp, unique, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import type { GradeLine } from "@/lib/grading/evaluate";
 import type { Grade, Rubric } from "@/lib/grading/rubric-schema";
 import type { StoredMeasurementResult } from "@/lib/grading/stored-measurement";
 import { users, workspaces } from "./core";
 import { partTypes, units } from "./lots";
 import { photos } from "./photos";
+import { sameWorkspace } from "./workspace-keys";
 
 export const RUBRIC_STATUSES = ["draft", "published"] as const;
 export type RubricStatus = (typeof RUBRIC_STATUSES)[number];
@@ -22,19 +23,22 @@ export const rubricVersions = pgTable(
     workspaceId: uuid()
       .notNull()
       .references(() => workspaces.id),
-    partTypeId: uuid()
-      .notNull()
-      .references(() => partTypes.id),
+    partTypeId: uuid().notNull(),
     version: integer().notNull(),
     status: text({ enum: RUBRIC_STATUSES }).notNull().default("draft"),
     rubric: jsonb().$type<Rubric>().notNull(),
     /** The version this one was copied from (null for a first version). */
     basedOnVersion: integer(),
-    createdBy: uuid().references(() => users.id),
+    /**
+     * Edits of a draft so far: every save adds one. Save and publish name the revision they saw,
+     * so a lead never publishes (and a trainer never overwrites) rules they have not seen.
+     */
+    revision: integer().notNull().default(0),
+    createdBy: uuid(),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
-    updatedBy: uuid().references(() => users.id),
+    updatedBy: uuid(),
     updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
-    publishedBy: uuid().references(() => users.id),
+    publishedBy: uuid(),
     publishedAt: timestamp({ withTimezone: true }),
   },
   (t) => [
@@ -47,6 +51,11 @@ export const rubricVersions = pgTable(
       "rubric_versions_published_fields",
       sql`(${t.status} = 'published') = (${t.publishedAt} IS NOT NULL)`,
     ),
+    unique("rubric_versions_workspace_id_key").on(t.workspaceId, t.id),
+    sameWorkspace("rubric_versions_part_type_fk", t.workspaceId, t.partTypeId, partTypes),
+    sameWorkspace("rubric_versions_created_by_fk", t.workspaceId, t.createdBy, users),
+    sameWorkspace("rubric_versions_updated_by_fk", t.workspaceId, t.updatedBy, users),
+    sameWorkspace("rubric_versions_published_by_fk", t.workspaceId, t.publishedBy, users),
   ],
 );
 
@@ -63,23 +72,25 @@ export const measurements = pgTable(
     workspaceId: uuid()
       .notNull()
       .references(() => workspaces.id),
-    unitId: uuid()
-      .notNull()
-      .references(() => units.id),
-    photoId: uuid().references(() => photos.id),
+    unitId: uuid().notNull(),
+    photoId: uuid(),
     /** The unit-level row this photo row belongs to (null on the unit-level row itself). */
     unitMeasurementId: uuid(),
-    rubricVersionId: uuid()
-      .notNull()
-      .references(() => rubricVersions.id),
+    rubricVersionId: uuid().notNull(),
     regionsVersions: jsonb().$type<Record<string, number>>().notNull(),
     result: jsonb().$type<StoredMeasurementResult>().notNull(),
-    createdBy: uuid().references(() => users.id),
+    createdBy: uuid(),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [
     index("measurements_unit_idx").on(t.workspaceId, t.unitId, t.createdAt),
     index("measurements_parent_idx").on(t.unitMeasurementId),
+    unique("measurements_workspace_id_key").on(t.workspaceId, t.id),
+    sameWorkspace("measurements_unit_fk", t.workspaceId, t.unitId, units),
+    sameWorkspace("measurements_photo_fk", t.workspaceId, t.photoId, photos),
+    sameWorkspace("measurements_parent_fk", t.workspaceId, t.unitMeasurementId, { workspaceId: t.workspaceId, id: t.id }),
+    sameWorkspace("measurements_rubric_version_fk", t.workspaceId, t.rubricVersionId, rubricVersions),
+    sameWorkspace("measurements_created_by_fk", t.workspaceId, t.createdBy, users),
   ],
 );
 
@@ -101,27 +112,27 @@ export const grades = pgTable(
     workspaceId: uuid()
       .notNull()
       .references(() => workspaces.id),
-    unitId: uuid()
-      .notNull()
-      .references(() => units.id),
+    unitId: uuid().notNull(),
     kind: text({ enum: GRADE_KINDS }).notNull(),
     proposedGrade: text({ enum: GRADE_VALUES }).notNull(),
     finalGrade: text({ enum: GRADE_VALUES }).notNull(),
     overrideReason: text(),
-    rubricVersionId: uuid()
-      .notNull()
-      .references(() => rubricVersions.id),
+    rubricVersionId: uuid().notNull(),
     /** The unit-level measurement first, then its photo rows. */
     measurementIds: uuid().array().notNull(),
     explanation: jsonb().$type<StoredExplanation>().notNull(),
     regionsVersions: jsonb().$type<Record<string, number>>().notNull(),
-    gradedBy: uuid()
-      .notNull()
-      .references(() => users.id),
+    gradedBy: uuid().notNull(),
+    /** The client's key for one submission: a repeated request returns this row instead of adding another. */
+    idempotencyKey: uuid(),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [
     index("grades_unit_idx").on(t.workspaceId, t.unitId, t.createdAt),
+    uniqueIndex("grades_unit_idempotency_key").on(t.unitId, t.idempotencyKey).where(sql`${t.idempotencyKey} IS NOT NULL`),
+    sameWorkspace("grades_unit_fk", t.workspaceId, t.unitId, units),
+    sameWorkspace("grades_rubric_version_fk", t.workspaceId, t.rubricVersionId, rubricVersions),
+    sameWorkspace("grades_graded_by_fk", t.workspaceId, t.gradedBy, users),
     check(
       "grades_override_reason",
       sql`${t.finalGrade} = ${t.proposedGrade} OR (${t.overrideReason} IS NOT NULL AND length(btrim(${t.overrideReason})) > 0)`,

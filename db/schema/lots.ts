@@ -1,6 +1,7 @@
 import { sql } from "drizzle-orm";
-import { boolean, check, date, index, integer, jsonb, pgTable, real, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { boolean, check, date, index, integer, jsonb, pgTable, real, text, timestamp, unique, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import { suppliers, users, workspaces } from "./core";
+import { sameWorkspace } from "./workspace-keys";
 
 /**
  * Shapes of the JSON columns. Their zod schemas (the source of truth for validation) live in
@@ -12,7 +13,7 @@ export type ViewDefinition = { key: string; label: string; required: boolean; in
 export type DefectClassDefinition = { key: string; label: string; severity: DefectSeverity };
 export type ChecklistItem =
   | { id: string; label: string; kind: "pass_fail"; severityOnFail: DefectSeverity; caution?: string }
-  | { id: string; label: string; kind: "numeric"; unit: string; min: number | null; max: number | null; decimals: number; severityOnFail: DefectSeverity; caution?: string }
+  | { id: string; label: string; kind: "numeric"; unit: string; min: number | null; max: number | null; decimals: number; severityOnFail: DefectSeverity; caution?: string; /** A reading below this sets the part aside as suspect (stronger than failing). */ suspectBelow?: number | null }
   | { id: string; label: string; kind: "choice"; options: { value: string; label: string; passes: boolean }[]; severityOnFail: DefectSeverity; caution?: string };
 
 /** What a lot's sampling decided, stored with the lot so later table changes never rewrite it. */
@@ -59,6 +60,8 @@ export const partTypes = pgTable(
     panelResolution: jsonb().$type<{ width: number; height: number } | null>(),
     /** High-value parts: every unit is inspected. */
     inspectAll: boolean().notNull().default(false),
+    /** The cosmetic grade lots of this part type are bought at unless the supplier says otherwise. */
+    promisedGrade: text({ enum: ["A", "B", "C"] }).notNull().default("A"),
     active: boolean().notNull().default(true),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
@@ -66,6 +69,7 @@ export const partTypes = pgTable(
   (t) => [
     uniqueIndex("part_types_workspace_slug_key").on(t.workspaceId, t.slug),
     uniqueIndex("part_types_workspace_name_key").on(t.workspaceId, sql`lower(${t.name})`),
+    unique("part_types_workspace_id_key").on(t.workspaceId, t.id),
   ],
 );
 
@@ -76,12 +80,8 @@ export const lots = pgTable(
     workspaceId: uuid()
       .notNull()
       .references(() => workspaces.id),
-    supplierId: uuid()
-      .notNull()
-      .references(() => suppliers.id),
-    partTypeId: uuid()
-      .notNull()
-      .references(() => partTypes.id),
+    supplierId: uuid().notNull(),
+    partTypeId: uuid().notNull(),
     purchaseRef: text().notNull(),
     modelFamily: text().notNull().default(""),
     quantity: integer().notNull(),
@@ -93,6 +93,11 @@ export const lots = pgTable(
     aqlMajor: real().notNull(),
     aqlMinor: real().notNull(),
     inspectionSeverity: text({ enum: ["normal", "tightened", "reduced"] }).notNull(),
+    /**
+     * The cosmetic grade the purchase promised: a unit graded worse is a cosmetic nonconformity.
+     * Receiving a lot always sets it (lib/lots/lots.ts); the default only serves direct inserts.
+     */
+    promisedGrade: text({ enum: ["A", "B", "C"] }).notNull().default("A"),
     plan: jsonb().$type<StoredSamplingPlan>().notNull(),
     /** Seed of the random draw of sampled serials, so the draw can be reproduced. */
     sampleSeed: text(),
@@ -103,11 +108,9 @@ export const lots = pgTable(
     disposition: text({ enum: ["to_stock", "downgrade", "sort", "return_to_vendor"] }),
     dispositionReason: text(),
     decisionCounts: jsonb().$type<LotDecisionCounts>(),
-    decidedBy: uuid().references(() => users.id),
+    decidedBy: uuid(),
     decidedAt: timestamp({ withTimezone: true }),
-    createdBy: uuid()
-      .notNull()
-      .references(() => users.id),
+    createdBy: uuid().notNull(),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
   },
@@ -115,6 +118,11 @@ export const lots = pgTable(
     index("lots_workspace_idx").on(t.workspaceId, t.createdAt),
     index("lots_history_idx").on(t.workspaceId, t.supplierId, t.partTypeId, t.createdAt),
     check("lots_quantity_positive", sql`${t.quantity} > 0`),
+    unique("lots_workspace_id_key").on(t.workspaceId, t.id),
+    sameWorkspace("lots_supplier_fk", t.workspaceId, t.supplierId, suppliers),
+    sameWorkspace("lots_part_type_fk", t.workspaceId, t.partTypeId, partTypes),
+    sameWorkspace("lots_decided_by_fk", t.workspaceId, t.decidedBy, users),
+    sameWorkspace("lots_created_by_fk", t.workspaceId, t.createdBy, users),
   ],
 );
 
@@ -128,9 +136,7 @@ export const units = pgTable(
     workspaceId: uuid()
       .notNull()
       .references(() => workspaces.id),
-    lotId: uuid()
-      .notNull()
-      .references(() => lots.id),
+    lotId: uuid().notNull(),
     /** 1-based order within the lot's sample. */
     sampleIndex: integer().notNull(),
     /** Null for a numbered placeholder until the inspector scans or types the serial. */
@@ -139,17 +145,13 @@ export const units = pgTable(
     placeholder: boolean().notNull().default(false),
     status: text({ enum: UNIT_STATUSES }).notNull().default("queued"),
     // Copied from the lot so the queue can be ordered and filtered from one index (keyset pages).
-    partTypeId: uuid()
-      .notNull()
-      .references(() => partTypes.id),
-    supplierId: uuid()
-      .notNull()
-      .references(() => suppliers.id),
+    partTypeId: uuid().notNull(),
+    supplierId: uuid().notNull(),
     lotDueOn: date({ mode: "string" }).notNull(),
     lotReceivedOn: date({ mode: "string" }).notNull(),
     lotCreatedAt: timestamp({ withTimezone: true }).notNull(),
     /** Who has the unit on the bench, until when (an expired lease counts as free). */
-    leaseHolderId: uuid().references(() => users.id),
+    leaseHolderId: uuid(),
     leaseExpiresAt: timestamp({ withTimezone: true }),
     claimedAt: timestamp({ withTimezone: true }),
     gradedAt: timestamp({ withTimezone: true }),
@@ -183,6 +185,11 @@ export const units = pgTable(
     index("units_lease_expiry_idx").on(t.workspaceId, t.leaseExpiresAt).where(sql`${t.status} = 'on_bench'`),
     // The queue's "graded today" and 30-day median read recent grades only, not the whole history.
     index("units_graded_idx").on(t.workspaceId, t.gradedAt).where(sql`${t.gradedAt} IS NOT NULL`),
+    unique("units_workspace_id_key").on(t.workspaceId, t.id),
+    sameWorkspace("units_lot_fk", t.workspaceId, t.lotId, lots),
+    sameWorkspace("units_part_type_fk", t.workspaceId, t.partTypeId, partTypes),
+    sameWorkspace("units_supplier_fk", t.workspaceId, t.supplierId, suppliers),
+    sameWorkspace("units_lease_holder_fk", t.workspaceId, t.leaseHolderId, users),
   ],
 );
 
@@ -198,21 +205,20 @@ export const inspectionSchemes = pgTable(
     workspaceId: uuid()
       .notNull()
       .references(() => workspaces.id),
-    supplierId: uuid()
-      .notNull()
-      .references(() => suppliers.id),
-    partTypeId: uuid()
-      .notNull()
-      .references(() => partTypes.id),
+    supplierId: uuid().notNull(),
+    partTypeId: uuid().notNull(),
     reducedAllowed: boolean().notNull().default(false),
     steadyProduction: boolean().notNull().default(true),
     resumedAfterLotIds: jsonb().$type<string[]>().notNull().default([]),
-    updatedBy: uuid()
-      .notNull()
-      .references(() => users.id),
+    updatedBy: uuid().notNull(),
     updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [uniqueIndex("inspection_schemes_key").on(t.workspaceId, t.supplierId, t.partTypeId)],
+  (t) => [
+    uniqueIndex("inspection_schemes_key").on(t.workspaceId, t.supplierId, t.partTypeId),
+    sameWorkspace("inspection_schemes_supplier_fk", t.workspaceId, t.supplierId, suppliers),
+    sameWorkspace("inspection_schemes_part_type_fk", t.workspaceId, t.partTypeId, partTypes),
+    sameWorkspace("inspection_schemes_updated_by_fk", t.workspaceId, t.updatedBy, users),
+  ],
 );
 
 /** The latest result of each checklist item on a unit (history is in the activity log). */
@@ -223,9 +229,7 @@ export const checklistResults = pgTable(
     workspaceId: uuid()
       .notNull()
       .references(() => workspaces.id),
-    unitId: uuid()
-      .notNull()
-      .references(() => units.id),
+    unitId: uuid().notNull(),
     itemId: text().notNull(),
     /** { pass: boolean } | { reading: number } | { choice: string } */
     value: jsonb().$type<{ pass: boolean } | { reading: number } | { choice: string }>().notNull(),
@@ -234,12 +238,14 @@ export const checklistResults = pgTable(
     failureReason: text(),
     severityOnFail: text({ enum: ["critical", "major", "minor"] }).notNull(),
     note: text().notNull().default(""),
-    recordedBy: uuid()
-      .notNull()
-      .references(() => users.id),
+    recordedBy: uuid().notNull(),
     recordedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [uniqueIndex("checklist_results_unit_item_key").on(t.unitId, t.itemId)],
+  (t) => [
+    uniqueIndex("checklist_results_unit_item_key").on(t.unitId, t.itemId),
+    sameWorkspace("checklist_results_unit_fk", t.workspaceId, t.unitId, units),
+    sameWorkspace("checklist_results_recorded_by_fk", t.workspaceId, t.recordedBy, users),
+  ],
 );
 
 export type PartType = typeof partTypes.$inferSelect;

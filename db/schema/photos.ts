@@ -1,7 +1,8 @@
 import { sql } from "drizzle-orm";
-import { type AnyPgColumn, check, index, integer, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { type AnyPgColumn, check, index, integer, pgTable, text, timestamp, unique, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import { users, workspaces } from "./core";
 import { units } from "./lots";
+import { sameWorkspace } from "./workspace-keys";
 
 /**
  * queued → processing → ready, or → failed. There is no row before finalise: the browser uploads
@@ -26,9 +27,7 @@ export const photos = pgTable(
     workspaceId: uuid()
       .notNull()
       .references(() => workspaces.id),
-    unitId: uuid()
-      .notNull()
-      .references(() => units.id),
+    unitId: uuid().notNull(),
     /** A view key of the unit's part type ("front", "screen-white", …). */
     viewKey: text().notNull(),
     status: text({ enum: PHOTO_STATUSES }).notNull().default("queued"),
@@ -64,9 +63,7 @@ export const photos = pgTable(
     /** Processing attempts so far, and the last transient error (shown while a retry is pending). */
     attempts: integer().notNull().default(0),
     lastError: text(),
-    uploadedBy: uuid()
-      .notNull()
-      .references(() => users.id),
+    uploadedBy: uuid().notNull(),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
     processedAt: timestamp({ withTimezone: true }),
@@ -85,6 +82,9 @@ export const photos = pgTable(
     check("photos_original_present", sql`${t.originalKey} IS NOT NULL OR (${t.status} = 'failed' AND ${t.failureCode} <> 'processing_failed')`),
     check("photos_failed_has_reason", sql`(${t.status} = 'failed') = (${t.failureCode} IS NOT NULL AND ${t.failureReason} IS NOT NULL)`),
     check("photos_bytes_positive", sql`${t.bytes} > 0`),
+    unique("photos_workspace_id_key").on(t.workspaceId, t.id),
+    sameWorkspace("photos_unit_fk", t.workspaceId, t.unitId, units),
+    sameWorkspace("photos_uploaded_by_fk", t.workspaceId, t.uploadedBy, users),
   ],
 );
 

@@ -1,9 +1,10 @@
 import { sql } from "drizzle-orm";
-import { check, index, integer, jsonb, pgTable, text, timestamp, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { check, foreignKey, index, integer, jsonb, pgTable, text, timestamp, unique, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import type { RulerMark } from "@/lib/geometry/ruler";
 import type { Shape } from "@/lib/geometry/shape";
 import { users, workspaces } from "./core";
 import { photos } from "./photos";
+import { sameWorkspace } from "./workspace-keys";
 
 /**
  * The marked regions of one photo, saved as a whole by the Bench. `version` goes up by one on
@@ -13,17 +14,21 @@ import { photos } from "./photos";
 export const regionSets = pgTable(
   "region_sets",
   {
-    photoId: uuid()
-      .primaryKey()
-      .references(() => photos.id),
+    photoId: uuid().primaryKey(),
     workspaceId: uuid()
       .notNull()
       .references(() => workspaces.id),
     version: integer().notNull().default(0),
-    updatedBy: uuid().references(() => users.id),
+    updatedBy: uuid(),
     updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [index("region_sets_workspace_idx").on(t.workspaceId), check("region_sets_version_nonnegative", sql`${t.version} >= 0`)],
+  (t) => [
+    index("region_sets_workspace_idx").on(t.workspaceId),
+    check("region_sets_version_nonnegative", sql`${t.version} >= 0`),
+    unique("region_sets_workspace_photo_key").on(t.workspaceId, t.photoId),
+    sameWorkspace("region_sets_photo_fk", t.workspaceId, t.photoId, photos),
+    sameWorkspace("region_sets_updated_by_fk", t.workspaceId, t.updatedBy, users),
+  ],
 );
 
 export const REGION_ROLES = ["defect", "surface", "ruler"] as const;
@@ -36,9 +41,7 @@ export const regions = pgTable(
     workspaceId: uuid()
       .notNull()
       .references(() => workspaces.id),
-    photoId: uuid()
-      .notNull()
-      .references(() => regionSets.photoId),
+    photoId: uuid().notNull(),
     /** The editor's own id of the region (lib/annotate), unique within the photo. */
     clientId: text().notNull(),
     role: text({ enum: REGION_ROLES }).notNull(),
@@ -48,9 +51,7 @@ export const regions = pgTable(
     shape: jsonb().$type<Shape>(),
     /** Ruler regions only. */
     ruler: jsonb().$type<RulerMark>(),
-    authorId: uuid()
-      .notNull()
-      .references(() => users.id),
+    authorId: uuid().notNull(),
     /** The region set version that last changed this region (unchanged regions keep theirs on a save). */
     versionWritten: integer().notNull(),
     /**
@@ -63,6 +64,8 @@ export const regions = pgTable(
   (t) => [
     uniqueIndex("regions_photo_client_key").on(t.photoId, t.clientId),
     index("regions_workspace_photo_idx").on(t.workspaceId, t.photoId, t.position),
+    foreignKey({ name: "regions_region_set_fk", columns: [t.workspaceId, t.photoId], foreignColumns: [regionSets.workspaceId, regionSets.photoId] }),
+    sameWorkspace("regions_author_fk", t.workspaceId, t.authorId, users),
     check(
       "regions_role_fields",
       sql`(${t.role} = 'defect' AND ${t.defectClass} IS NOT NULL AND ${t.shape} IS NOT NULL AND ${t.ruler} IS NULL)

@@ -91,7 +91,9 @@ export async function seedLots(database: Database, people: People) {
         }),
       );
       for (let start = 0; start < results.length; start += 1000) await tx.insert(checklistResults).values(results.slice(start, start + 1000));
-      const verdict = lotVerdict(plan, unitFindings({ units: insertedUnits, results, checklistItemIds: partType.checklist.map((i) => i.id) }));
+      // The demo's history has no photos or grades: its lots are judged on their checklists alone, as
+      // lots were before cosmetic grades counted; the app judges the open ones live.
+      const verdict = lotVerdict(plan, unitFindings({ units: insertedUnits, results, checklistItemIds: partType.checklist.map((i) => i.id), cosmeticGrading: false }));
       await tx.insert(activityLog).values({ workspaceId: ws.workspaceId, actorId: lead, action: "lot.created", subjectType: "lot", subjectId: lot.id, detail: { demo: true, severity: state.severity, sampleSize: plan.sampleSize, switchingReason: state.reason }, createdAt });
       if (spec.decision) {
         if (verdict.verdict !== spec.decision.expect) throw new Error(`Seed lot ${spec.purchaseRef}: expected ${spec.decision.expect}, the verdict is ${verdict.verdict} (${verdict.summary})`);

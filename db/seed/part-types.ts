@@ -1,6 +1,6 @@
 import type { Database } from "@/db/client";
 import { activityLog, partTypes } from "@/db/schema";
-import { PART_TYPE_CATALOGUE } from "./part-type-catalogue";
+import { PART_TYPE_CATALOGUE } from "@/lib/part-types/starter-catalogue";
 import type { seedPeople } from "./people";
 
 type People = Awaited<ReturnType<typeof seedPeople>>;

@@ -3,11 +3,14 @@
  * seeded part type on a plain backdrop, seen from one view, with defects planted where the demo
  * wants them (scratch, crack, stain, dust, dent, chip, corrosion, swelling, torn flex) and, for
  * displays, a test pattern with dead and stuck pixels. Every shape and colour is invented; no
- * photo comes from anywhere else. Deterministic for a given seed.
+ * photo comes from anywhere else. Deterministic for a given seed. `renderAnnotatedPartPhoto` also
+ * returns the regions an inspector would mark for the planted defects (photo-defects.ts).
  */
 import sharp from "sharp";
+import type { Shape } from "@/lib/geometry/shape";
+import { plantDefect, type Box, type Drawn, type PlantedDefect, type PlantedRegion } from "./photo-defects";
 
-export type PlantedDefect = "scratch" | "crack" | "stain" | "dust" | "dent" | "chip" | "corrosion" | "swelling" | "torn-flex" | "dead-pixel" | "stuck-pixel";
+export type { PlantedDefect, PlantedRegion } from "./photo-defects";
 
 export type PartPhotoSpec = {
   /** Part type slug or category ("rear-camera", "battery", "display", …); unknown ones get a generic module. */
@@ -19,8 +22,6 @@ export type PartPhotoSpec = {
   height?: number;
 };
 
-type Box = { x: number; y: number; w: number; h: number };
-type Drawn = { svg: string; surface: Box; screen?: Box };
 
 function random(seed: number): () => number {
   let state = seed >>> 0 || 1;
@@ -113,62 +114,6 @@ function drawPart(kind: string, W: number, H: number, view: string): Drawn {
   return drawCamera(W, H, view);
 }
 
-function defectSvg(defect: PlantedDefect, drawn: Drawn, next: () => number): string {
-  const s = drawn.surface;
-  const at = (margin = 0.15) => ({ x: s.x + s.w * (margin + next() * (1 - 2 * margin)), y: s.y + s.h * (margin + next() * (1 - 2 * margin)) });
-  const p = at();
-  switch (defect) {
-    case "scratch": {
-      const len = s.w * (0.25 + next() * 0.3);
-      const angle = next() * Math.PI;
-      const [dx, dy] = [Math.cos(angle) * len, Math.sin(angle) * len];
-      return `<path d="M${p.x} ${p.y} q${dx / 2 + 12} ${dy / 2 - 10} ${dx} ${dy}" stroke="#e9edf0" stroke-width="2.5" fill="none" opacity="0.85"/>`;
-    }
-    case "crack": {
-      let d = `M${p.x} ${p.y}`;
-      let [x, y] = [p.x, p.y];
-      for (let i = 0; i < 9; i++) {
-        x += (next() - 0.3) * s.w * 0.08;
-        y += (next() - 0.3) * s.h * 0.07;
-        d += ` L${x.toFixed(1)} ${y.toFixed(1)}`;
-      }
-      const branch = `M${p.x} ${p.y} l${-s.w * 0.06} ${s.h * 0.05} l${-s.w * 0.03} ${s.h * 0.06}`;
-      return `<path d="${d} ${branch}" stroke="#f2f4f5" stroke-width="3" fill="none" opacity="0.9"/><path d="${d}" stroke="#1a1a1a" stroke-width="1" fill="none" opacity="0.6" transform="translate(2 2)"/>`;
-    }
-    case "stain":
-      return `<ellipse cx="${p.x}" cy="${p.y}" rx="${s.w * 0.09}" ry="${s.w * 0.06}" fill="#8a6a3a" opacity="0.45" filter="url(#soft)"/>`;
-    case "dust":
-      return Array.from({ length: 40 }, () => {
-        const q = at(0.05);
-        return `<circle cx="${q.x.toFixed(1)}" cy="${q.y.toFixed(1)}" r="${(1 + next() * 2.5).toFixed(1)}" fill="#d7d2c8" opacity="0.8"/>`;
-      }).join("");
-    case "dent":
-      return `<ellipse cx="${p.x}" cy="${p.y}" rx="${s.w * 0.07}" ry="${s.w * 0.045}" fill="url(#dent)"/>`;
-    case "chip": {
-      const x = s.x + s.w * (0.2 + next() * 0.6);
-      return `<path d="M${x} ${s.y - 3} l${s.w * 0.05} 0 l${-s.w * 0.02} ${s.w * 0.03} z" fill="#cfd6dc"/>`;
-    }
-    case "corrosion":
-      return `<ellipse cx="${p.x}" cy="${p.y}" rx="${s.w * 0.05}" ry="${s.w * 0.04}" fill="#4f8f6a" opacity="0.7" filter="url(#soft)"/><ellipse cx="${p.x + 8}" cy="${p.y + 5}" rx="${s.w * 0.025}" ry="${s.w * 0.02}" fill="#b6c98c" opacity="0.8"/>`;
-    case "swelling":
-      return `<ellipse cx="${s.x + s.w / 2}" cy="${s.y + s.h / 2}" rx="${s.w * 0.38}" ry="${s.h * 0.3}" fill="url(#bulge)"/>`;
-    case "torn-flex": {
-      // Across a flex strip when the part is one; otherwise through the tab above the body.
-      const strip = s.w > 3 * s.h;
-      const x = strip ? s.x + s.w * (0.3 + next() * 0.4) : s.x + s.w * 0.69;
-      const [top, len] = strip ? [s.y - 2, s.h + 4] : [s.y - s.h * 0.105, s.h * 0.05];
-      return `<path d="M${x} ${top} l${len * 0.15} ${len * 0.4} l${-len * 0.12} ${len * 0.25} l${len * 0.1} ${len * 0.35}" stroke="#3a2a1a" stroke-width="5" fill="none"/>`;
-    }
-    case "dead-pixel":
-    case "stuck-pixel": {
-      const screen = drawn.screen ?? s;
-      const q = { x: screen.x + screen.w * (0.2 + next() * 0.6), y: screen.y + screen.h * (0.15 + next() * 0.3) };
-      const colour = defect === "dead-pixel" ? "#000000" : ["#ff0000", "#00ff00", "#ffffff"][Math.floor(next() * 3)];
-      return `<rect x="${q.x.toFixed(0)}" y="${q.y.toFixed(0)}" width="3" height="3" fill="${colour}" shape-rendering="crispEdges"/>`;
-    }
-  }
-}
-
 const noiseCache = new Map<string, Promise<Buffer>>();
 
 /** A grain layer like a camera sensor's, so the photos do not compress like flat drawings (made once per size). */
@@ -180,13 +125,26 @@ function sensorNoise(W: number, H: number): Promise<Buffer> {
   return noiseCache.get(key)!;
 }
 
-/** Renders the photo upright, as an sRGB JPEG with no metadata (the caller tags Exif as it likes). */
-export async function renderPartPhoto(spec: PartPhotoSpec): Promise<Buffer> {
+export type AnnotatedPartPhoto = {
+  /** Upright sRGB JPEG, no metadata. */
+  jpeg: Buffer;
+  width: number;
+  height: number;
+  /** The part's outline as a Box (its rounded corners are a few pixels inside). */
+  surface: Shape;
+  /** What an inspector would mark for each planted defect (the truth for learned-suggestion tests). */
+  regions: PlantedRegion[];
+};
+
+/** Renders the photo upright and returns it with the regions of every planted defect. */
+export async function renderAnnotatedPartPhoto(spec: PartPhotoSpec): Promise<AnnotatedPartPhoto> {
   const W = spec.width ?? 1600;
   const H = spec.height ?? 1200;
+  // Defect strokes and blur are drawn for a 1 600 px wide photo and scale with the width.
+  const u = W / 1600;
   const next = random(spec.seed);
   const drawn = drawPart(spec.kind, W, H, spec.viewKey);
-  const defects = spec.defects.map((d) => defectSvg(d, drawn, next)).join("");
+  const planted = spec.defects.map((d) => plantDefect(d, drawn, next, u));
   const shadow = `<rect x="${drawn.surface.x + 18}" y="${drawn.surface.y + 22}" width="${drawn.surface.w}" height="${drawn.surface.h}" rx="24" fill="#000" opacity="0.25" filter="url(#shadow)"/>`;
   const svg = `<svg xmlns="http://www.w3.org/2000/svg" width="${W}" height="${H}" viewBox="0 0 ${W} ${H}">
     <defs>
@@ -194,13 +152,20 @@ export async function renderPartPhoto(spec: PartPhotoSpec): Promise<Buffer> {
       <radialGradient id="glass" cx="40%" cy="40%" r="60%"><stop offset="0" stop-color="#2d4a6b"/><stop offset="1" stop-color="#05070a"/></radialGradient>
       <radialGradient id="dent" cx="40%" cy="40%" r="60%"><stop offset="0" stop-color="#000" stop-opacity="0.45"/><stop offset="1" stop-color="#fff" stop-opacity="0"/></radialGradient>
       <radialGradient id="bulge" cx="45%" cy="45%" r="55%"><stop offset="0" stop-color="#fff" stop-opacity="0.28"/><stop offset="1" stop-color="#fff" stop-opacity="0"/></radialGradient>
-      <filter id="soft"><feGaussianBlur stdDeviation="6"/></filter>
+      <filter id="soft"><feGaussianBlur stdDeviation="${6 * u}"/></filter>
       <filter id="shadow"><feGaussianBlur stdDeviation="14"/></filter>
     </defs>
-    <rect width="${W}" height="${H}" fill="url(#backdrop)"/>${shadow}${drawn.svg}${defects}
+    <rect width="${W}" height="${H}" fill="url(#backdrop)"/>${shadow}${drawn.svg}${planted.map((d) => d.svg).join("")}
   </svg>`;
   const noise = await sensorNoise(W, H);
-  return sharp(Buffer.from(svg)).flatten({ background: "#c0c6cc" }).composite([{ input: noise, blend: "soft-light" }]).jpeg({ quality: 88 }).toBuffer();
+  const jpeg = await sharp(Buffer.from(svg)).flatten({ background: "#c0c6cc" }).composite([{ input: noise, blend: "soft-light" }]).jpeg({ quality: 88 }).toBuffer();
+  const { x, y, w, h } = drawn.surface;
+  return { jpeg, width: W, height: H, surface: { kind: "rect", x, y, width: w, height: h }, regions: planted.flatMap((d) => d.regions) };
+}
+
+/** Renders the photo upright, as an sRGB JPEG with no metadata (the caller tags Exif as it likes). */
+export async function renderPartPhoto(spec: PartPhotoSpec): Promise<Buffer> {
+  return (await renderAnnotatedPartPhoto(spec)).jpeg;
 }
 
 /**

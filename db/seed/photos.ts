@@ -46,7 +46,7 @@ async function openUnits(lotIds?: string[]): Promise<SeedUnit[]> {
 
 async function inspectorOf(workspaceId: string): Promise<SessionUser | null> {
   const [row] = await db()
-    .select({ id: users.id, email: users.email, name: users.name, roles: users.roles, workspaceName: workspaces.name })
+    .select({ id: users.id, email: users.email, name: users.name, roles: users.roles, workspaceName: workspaces.name, timeZone: workspaces.timeZone })
     .from(users)
     .innerJoin(workspaces, eq(workspaces.id, users.workspaceId))
     .where(and(eq(users.workspaceId, workspaceId), eq(users.active, true), sql`'inspector' = ANY(${users.roles})`))

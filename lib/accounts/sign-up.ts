@@ -17,6 +17,7 @@ import { hashToken } from "@/lib/auth/tokens";
 import { AppError } from "@/lib/errors";
 import { sendMail } from "@/lib/mail/send";
 import { existingAccountEmail, signUpConfirmationEmail } from "@/lib/mail/templates";
+import { addStarterPartTypes } from "@/lib/part-types/starters";
 import { setPasswordLink, signInLink } from "./links";
 import { slugify } from "./slugify";
 
@@ -34,7 +35,14 @@ export async function requestSignUp(input: SignUpInput): Promise<{ message: stri
   const token = crypto.randomBytes(32).toString("base64url");
   await db()
     .insert(signUpRequests)
-    .values({ email: input.email, companyName: input.companyName, name: input.name, tokenHash: hashToken(token), expiresAt: new Date(Date.now() + SIGN_UP_TTL_HOURS * 3_600_000) });
+    .values({
+      email: input.email,
+      companyName: input.companyName,
+      name: input.name,
+      starterPartTypes: input.starterPartTypes,
+      tokenHash: hashToken(token),
+      expiresAt: new Date(Date.now() + SIGN_UP_TTL_HOURS * 3_600_000),
+    });
   await sendMail({ workspaceId: null, kind: "sign_up", to: input.email, ...signUpConfirmationEmail({ companyName: input.companyName, link: setPasswordLink(token), expiresHours: SIGN_UP_TTL_HOURS }) });
   return { message: signUpReply(input.email) };
 }
@@ -72,5 +80,6 @@ export async function completeSignUp(tx: Tx, { requestId, passwordHash }: { requ
     throw err;
   }
   await logActivity(tx, { workspaceId: workspace.id, actorId: user.id, action: "workspace.created", subjectType: "workspace", subjectId: workspace.id, detail: { name: workspace.name } });
+  await addStarterPartTypes(tx, { workspaceId: workspace.id, actorId: user.id, slugs: request.starterPartTypes });
   return { email: request.email };
 }

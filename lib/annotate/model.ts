@@ -4,7 +4,7 @@
  * degenerate). Region changes go through history.applyEdit, so each one is a single undo step, or
  * part of one drag while a batch is open.
  */
-import { clampPoint, clampShapeToImage, type ImageSize } from "@/lib/geometry/clamp";
+import { clampPoint, clampShapeToImage, maxLineWidthFor, type ImageSize } from "@/lib/geometry/clamp";
 import type { RulerMark } from "@/lib/geometry/ruler";
 import type { PolygonShape, Shape } from "@/lib/geometry/shape";
 import { IDENTITY_VIEWPORT, toShapePoint, type ImagePoint, type Viewport } from "./coords";
@@ -233,7 +233,7 @@ export function setViewport(state: AnnotationState, viewport: Viewport): Annotat
 /** Stroke width for lines drawn from now on (not an edit; see setLineWidth for a region's). */
 export function setDefaultLineWidth(state: AnnotationState, width: number): AnnotationState {
   if (!(width > 0) || !Number.isFinite(width)) return state;
-  return { ...state, lineWidth: Math.min(width, Math.max(state.image.width, state.image.height)) };
+  return { ...state, lineWidth: Math.min(width, maxLineWidthFor(state.image)) };
 }
 
 /** Ends a drag: one undo step if the region is still valid, otherwise the drag is undone. */

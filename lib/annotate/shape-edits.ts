@@ -4,7 +4,7 @@
  * are returned as null so the caller can refuse the edit.
  */
 import { boundsOfPoints, boundsOfShape, type Bounds } from "@/lib/geometry/bounds";
-import { clamp, clampPoint, clampShapeToImage, clampTranslation, maxExtentFor, type ImageSize } from "@/lib/geometry/clamp";
+import { clamp, clampPoint, clampShapeToImage, clampTranslation, maxLineWidthFor, maxSpotRadiusFor, type ImageSize } from "@/lib/geometry/clamp";
 import { describeOutsideImage, describeShapeProblem, pointInsideImage } from "@/lib/geometry/degenerate";
 import { checkRulerLength } from "@/lib/geometry/ruler";
 import { translatePoint, translateShape } from "@/lib/geometry/transform";
@@ -74,12 +74,12 @@ function span(start: number, length: number, minLength: number, limit: number): 
 
 export function withSpotRadius(shape: Shape, radius: number, image: ImageSize): Shape {
   if (shape.kind !== "spot") return shape;
-  return { ...shape, radius: clamp(radius, MIN_SPOT_RADIUS, maxExtentFor(image)) };
+  return { ...shape, radius: clamp(radius, MIN_SPOT_RADIUS, maxSpotRadiusFor(image)) };
 }
 
 export function withLineWidth(shape: Shape, width: number, image: ImageSize): Shape {
   if (shape.kind !== "line") return shape;
-  return { ...shape, width: clamp(width, 1e-3, maxExtentFor(image)) };
+  return { ...shape, width: clamp(width, 1e-3, maxLineWidthFor(image)) };
 }
 
 /** Vertex edits apply to polygons (at least 3 vertices) and lines (at least 2). */

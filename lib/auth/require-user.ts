@@ -13,6 +13,8 @@ export type SessionUser = {
   id: string;
   workspaceId: string;
   workspaceName: string;
+  /** The workspace's time zone: every time is shown in it (lib/time/format.ts). */
+  timeZone: string;
   email: string;
   name: string;
   roles: Role[];
@@ -32,6 +34,7 @@ const loadSessionUser = cache(async (): Promise<SessionUser | null> => {
     id: row.id,
     workspaceId: row.workspaceId,
     workspaceName: row.workspaceName,
+    timeZone: row.timeZone,
     email: row.email,
     name: row.name,
     roles: row.roles as Role[],

@@ -20,3 +20,12 @@ export function hasAnyRole(userRoles: readonly Role[], wanted: Role | readonly R
 export function isRole(value: unknown): value is Role {
   return typeof value === "string" && (ROLES as readonly string[]).includes(value);
 }
+
+/**
+ * Who may read a unit's inspection work: its photos' details, regions, measurements, proposals,
+ * grades and the Bench that shows them (leads pass every check). Not auditors: a blind recheck
+ * must not see the first grader's regions, grade, override reason or name; they will see graded
+ * work on the Recheck screens, after their own grade. Not trainers yet: nothing they do today
+ * reads a real unit (the Rubrics preview grades typed sample readings); the Gallery may add them.
+ */
+export const INSPECTION_READERS: readonly Role[] = ["inspector"];

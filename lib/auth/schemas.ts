@@ -1,5 +1,6 @@
 /** zod schemas shared by sign-in, sign-up, invitations and password forms (client and server). */
 import { z } from "zod";
+import { EXAMPLE_PART_TYPE_SLUGS } from "@/lib/grading/example-part-types";
 import { ROLES } from "./roles";
 
 export const emailSchema = z
@@ -38,6 +39,11 @@ export const signUpSchema = z.object({
   companyName: z.string({ error: "Enter the company name." }).trim().min(2, "Enter the company name.").max(120, "Keep the company name under 120 characters."),
   name: personNameSchema,
   email: emailSchema,
+  /** Starter part types to create with the workspace (each with a draft example rubric). */
+  starterPartTypes: z
+    .array(z.enum(EXAMPLE_PART_TYPE_SLUGS, { error: `Starter part types are ${EXAMPLE_PART_TYPE_SLUGS.join(", ")}.` }), { error: "starterPartTypes is a list of starter part types." })
+    .max(EXAMPLE_PART_TYPE_SLUGS.length)
+    .default([]),
 });
 export type SignUpInput = z.infer<typeof signUpSchema>;
 

@@ -85,6 +85,18 @@ export function evaluateChecklistItem(item: ChecklistItem, value: ChecklistValue
   return { passed: true, failureReason: null, value: { reading: stored } };
 }
 
+/**
+ * A reading below the item's `suspectBelow` level: the part is set aside as suspect, which is more
+ * than failing the item (e.g. an over-discharged lithium cell below about 2.5 V may not charge
+ * normally and is treated as suspect: docs/references.md, a for the 2.5 V protection cut-off,
+ * Battery University BU-802c; c for the handling). Compared like the limits, on the rounded value.
+ */
+export function suspectReading(item: ChecklistItem, value: ChecklistValue): { reading: string; level: string } | null {
+  if (item.kind !== "numeric" || item.suspectBelow == null || !("reading" in value) || !Number.isFinite(value.reading)) return null;
+  if (scaledInteger(value.reading, item.decimals) >= scaledInteger(item.suspectBelow, item.decimals)) return null;
+  return { reading: formatReading(value.reading, item.decimals, item.unit), level: formatReading(item.suspectBelow, item.decimals, item.unit) };
+}
+
 /** "3.40–4.40 V", "at least 80 %", "at most 800 cycles", "any value". */
 export function describeLimits(item: Extract<ChecklistItem, { kind: "numeric" }>): string {
   const shown = (v: number) => formatReading(v, item.decimals, item.unit);

@@ -5,6 +5,7 @@
  * worse than painting a few pixels outside.
  */
 import type { Bounds } from "./bounds";
+import { MAX_LINE_WIDTH_SHARE, MAX_SPOT_RADIUS_SHARE, MIN_SIZE_CAP_PX } from "./limits";
 import type { Point, Shape } from "./shape";
 
 export type ImageSize = { width: number; height: number };
@@ -17,15 +18,20 @@ export function clampPoint([x, y]: Point, size: ImageSize): Point {
   return [clamp(x, 0, size.width), clamp(y, 0, size.height)];
 }
 
-/** Longest spot radius or line width allowed on this photo: its long edge. */
-export function maxExtentFor(size: ImageSize): number {
-  return Math.max(size.width, size.height);
+/** Widest Line allowed on this photo (limits.ts says why). */
+export function maxLineWidthFor(size: ImageSize): number {
+  return Math.max(MIN_SIZE_CAP_PX, Math.floor(MAX_LINE_WIDTH_SHARE * Math.max(size.width, size.height)));
+}
+
+/** Largest Spot radius allowed on this photo (limits.ts says why). */
+export function maxSpotRadiusFor(size: ImageSize): number {
+  return Math.max(MIN_SIZE_CAP_PX, Math.floor(MAX_SPOT_RADIUS_SHARE * Math.max(size.width, size.height)));
 }
 
 /**
  * The shape with every defining point moved into the image: a rect is intersected with the image
  * (its width or height may become 0 when it lay outside; check with describeShapeProblem),
- * vertices and spot centres are clamped, and radius and width are capped at maxExtentFor.
+ * vertices and spot centres are clamped, and radius and width are capped (maxSpotRadiusFor, maxLineWidthFor).
  */
 export function clampShapeToImage(shape: Shape, size: ImageSize): Shape {
   switch (shape.kind) {
@@ -39,10 +45,10 @@ export function clampShapeToImage(shape: Shape, size: ImageSize): Shape {
     case "polygon":
       return { kind: "polygon", points: shape.points.map((p) => clampPoint(p, size)) };
     case "line":
-      return { kind: "line", points: shape.points.map((p) => clampPoint(p, size)), width: Math.min(shape.width, maxExtentFor(size)) };
+      return { kind: "line", points: shape.points.map((p) => clampPoint(p, size)), width: Math.min(shape.width, maxLineWidthFor(size)) };
     case "spot": {
       const [x, y] = clampPoint([shape.x, shape.y], size);
-      return { kind: "spot", x, y, radius: Math.min(shape.radius, maxExtentFor(size)) };
+      return { kind: "spot", x, y, radius: Math.min(shape.radius, maxSpotRadiusFor(size)) };
     }
   }
 }

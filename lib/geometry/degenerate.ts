@@ -4,7 +4,7 @@
  * input, so both say the same thing in the same words.
  */
 import type { ImageSize } from "./clamp";
-import { maxExtentFor } from "./clamp";
+import { maxLineWidthFor, maxSpotRadiusFor } from "./clamp";
 import { COLLINEAR_TOLERANCE, EDGE_TOLERANCE, MAX_POINTS_PER_SHAPE, MIN_POLYGON_AREA } from "./limits";
 import { dedupeConsecutive, distance, distinctPointsUpTo, pointsEqual } from "./points";
 import { polygonArea } from "./polygon";
@@ -95,7 +95,7 @@ export function pointInsideImage(point: Point, size: ImageSize): boolean {
 /**
  * Why a shape does not fit the photo, or null. Defining points (box corners, vertices, spot
  * centre) must lie in [0, width] × [0, height] (up to the round-off EDGE_TOLERANCE); a spot
- * radius or line width may reach past the edge but not beyond the photo's long edge (clamp.ts).
+ * radius or line width may reach past the edge but stays within its cap (clamp.ts, limits.ts).
  */
 export function describeOutsideImage(shape: Shape, size: ImageSize): string | null {
   const where = `outside the ${size.width} × ${size.height} px photo`;
@@ -111,12 +111,16 @@ export function describeOutsideImage(shape: Shape, size: ImageSize): string | nu
         const [x, y] = shape.points[index];
         return `point ${index + 1} (${x}, ${y}) lies ${where}.`;
       }
-      if (shape.kind === "line" && shape.width > maxExtentFor(size)) return `the line is wider than the photo's long edge (${maxExtentFor(size)} px).`;
+      if (shape.kind === "line" && shape.width > maxLineWidthFor(size)) {
+        return `the line is ${shape.width} px wide; at most ${maxLineWidthFor(size)} px (5 % of the photo's long edge) is allowed — mark a wider defect with Outline.`;
+      }
       return null;
     }
     case "spot": {
       if (pointOutside([shape.x, shape.y], size)) return `the spot's centre (${shape.x}, ${shape.y}) lies ${where}.`;
-      if (shape.radius > maxExtentFor(size)) return `the spot's radius is larger than the photo's long edge (${maxExtentFor(size)} px).`;
+      if (shape.radius > maxSpotRadiusFor(size)) {
+        return `the spot's radius is ${shape.radius} px; at most ${maxSpotRadiusFor(size)} px (10 % of the photo's long edge) is allowed — mark a larger defect with Outline.`;
+      }
       return null;
     }
   }

@@ -16,11 +16,13 @@ import { describeOutsideImage, describeShapeProblem, pointInsideImage } from "./
 import {
   MAX_ID_LENGTH,
   MAX_POINTS_PER_SHAPE,
+  MAX_RASTER_ROWS_PER_PHOTO,
   MAX_REGIONS_PER_PHOTO,
   MAX_RULER_LENGTH_MM,
   MAX_SURFACES_PER_PHOTO,
   MAX_TOTAL_POINTS_PER_PHOTO,
 } from "./limits";
+import { rasterRows } from "@/lib/imaging/raster/cost";
 import { pointsEqual } from "./points";
 import type { RulerMark } from "./ruler";
 import type { PolygonShape, Shape, ShapeKind } from "./shape";
@@ -56,6 +58,11 @@ const polygonSchema = z.strictObject({ kind: z.literal("polygon"), points }, obj
 const lineSchema = z.strictObject({ kind: z.literal("line"), points, width: finite }, objectError("a line"));
 const spotSchema = z.strictObject({ kind: z.literal("spot"), x: finite, y: finite, radius: finite }, objectError("a spot"));
 
+/** Any region shape, structure only (a known kind, finite numbers); geometry is checked separately. */
+export const shapeStructureSchema = z.discriminatedUnion("kind", [rectSchema, polygonSchema, lineSchema, spotSchema], {
+  error: 'must be "rect", "polygon", "line" or "spot"',
+});
+
 function geometryCheck(size: ImageSize) {
   return (shape: Shape, ctx: z.RefinementCtx) => {
     const problem = describeShapeProblem(shape) ?? describeOutsideImage(shape, size);
@@ -75,11 +82,7 @@ export function regionSetSchema(context: RegionSetContext) {
     throw new RangeError(`regionSetSchema needs a positive photo size, got ${size.width} × ${size.height}`);
   }
   const allowed = new Set(context.allowedDefects);
-  const shape = z
-    .discriminatedUnion("kind", [rectSchema, polygonSchema, lineSchema, spotSchema], {
-      error: 'must be "rect", "polygon", "line" or "spot"',
-    })
-    .superRefine(geometryCheck(size));
+  const shape = shapeStructureSchema.superRefine(geometryCheck(size));
   const defect = z.string({ error: "must be text" }).superRefine((value, ctx) => {
     if (!allowed.has(value)) {
       ctx.addIssue({ code: "custom", message: `“${value}” is not allowed for this part type (allowed: ${describeAllowed(context.allowedDefects)})` });
@@ -120,7 +123,11 @@ export function regionSetSchema(context: RegionSetContext) {
       const total = [...set.regions, ...set.surfaces].reduce((sum, r) => sum + ("points" in r.shape ? r.shape.points.length : 0), 0);
       if (total > MAX_TOTAL_POINTS_PER_PHOTO) {
         ctx.addIssue({ code: "custom", message: `the photo's regions hold ${total} points in all; at most ${MAX_TOTAL_POINTS_PER_PHOTO} are allowed (simplify the longest outlines).` });
+        return;
       }
+      // What measuring these shapes would cost (lib/imaging/raster/cost.ts), refused before it is stored.
+      const rows = rasterRows([...set.regions, ...set.surfaces].map((r) => r.shape), size);
+      if (rows > MAX_RASTER_ROWS_PER_PHOTO) ctx.addIssue({ code: "custom", message: describeRasterBudget(rows) });
     });
 }
 
@@ -128,6 +135,12 @@ export function regionSetSchema(context: RegionSetContext) {
 type SchemaOutput = z.output<ReturnType<typeof regionSetSchema>>;
 const _payloadMatches: [SchemaOutput] extends [RegionSetPayload] ? ([RegionSetPayload] extends [SchemaOutput] ? true : false) : false = true;
 void _payloadMatches;
+
+/** The sentence for a region set that would cost too much to measure (also used when measuring). */
+export function describeRasterBudget(rows: number): string {
+  const millions = (n: number) => `${(n / 1_000_000).toFixed(1)} million`;
+  return `these regions would take too long to measure: their edges and lines cross ${millions(rows)} pixel rows in all, at most ${millions(MAX_RASTER_ROWS_PER_PHOTO)} are allowed per photo (use fewer or smaller regions, or fewer points on long zigzag outlines).`;
+}
 
 export type RegionSetResult = { ok: true; value: RegionSetPayload } | { ok: false; messages: string[] };
 

@@ -8,6 +8,7 @@
  */
 import type { DefectClassDefinition, ViewDefinition } from "@/db/schema/lots";
 import { AppError } from "@/lib/errors";
+import { assertBeforeDeadline, DeadlineExceeded } from "@/lib/imaging/deadline";
 import type { Shape } from "@/lib/geometry/shape";
 import type { RulerInput } from "@/lib/measure/calibration";
 import type { PhotoMeasurement } from "@/lib/measure/types";
@@ -42,8 +43,10 @@ export type UnitMeasureInput = {
   rubric: Rubric;
   photos: UnitPhotoInput[];
   functionalFailures: FunctionalFailureCounts;
-  /** Epoch ms; measuring stops with a DeadlineExceeded between photos once it has passed. */
+  /** Epoch ms; measuring stops with a DeadlineExceeded (inside the loops) once it has passed. */
   deadline?: number;
+  /** Instead of `deadline`: ms from the moment measuring starts (a compute thread may start later). */
+  budgetMs?: number;
 };
 
 export type UnitMeasureOutcome = {
@@ -52,13 +55,7 @@ export type UnitMeasureOutcome = {
   unit: Omit<StoredUnitResult, "checklistStamp">;
 };
 
-/** Thrown when an inline measurement runs out of its time budget (the caller queues a job). */
-export class DeadlineExceeded extends Error {
-  constructor() {
-    super("The measurement did not finish within its time budget.");
-    this.name = "DeadlineExceeded";
-  }
-}
+export { DeadlineExceeded };
 
 /** Failed checklist items counted per severity (what functionalFailures rules read). */
 export function functionalFailureCounts(results: readonly { passed: boolean; severityOnFail: FailureSeverity }[]): FunctionalFailureCounts {
@@ -73,9 +70,10 @@ export async function measureUnit(input: UnitMeasureInput): Promise<UnitMeasureO
   }
   const context = gradingContextOf(input.partType);
   const views = new Map(input.partType.views.map((view) => [view.key, view]));
+  const deadline = input.deadline ?? (input.budgetMs !== undefined ? Date.now() + input.budgetMs : undefined);
   const photos: PhotoMeasurementResult[] = [];
-  for (const photo of input.photos) {
-    if (input.deadline !== undefined && Date.now() > input.deadline) throw new DeadlineExceeded();
+  for (const [index, photo] of input.photos.entries()) {
+    assertBeforeDeadline(deadline);
     const view = views.get(photo.viewKey);
     const result = await measurePhoto({
       photoId: photo.photoId,
@@ -88,6 +86,10 @@ export async function measureUnit(input: UnitMeasureInput): Promise<UnitMeasureO
       zones: view?.zones.map((zone) => ({ id: zone.id, polygon: zone.polygon })) ?? [],
       nominalSizeMm: input.partType.nominalSizeMm,
       panel: panelFor({ panelResolution: input.partType.panelResolution, viewKey: photo.viewKey, defects: photo.defects }),
+    }, { deadline }).catch((err: unknown) => {
+      // Stored regions that cannot be measured (e.g. saved before today's caps): say which photo.
+      if (err instanceof AppError && err.code === "bad_request") throw new AppError("conflict", `Photo ${index + 1} (${view?.label ?? photo.viewKey}) cannot be measured: ${err.message} Change its regions, then measure again.`);
+      throw err;
     });
     if (!view) result.notes.push(`View "${photo.viewKey}" is not one of this part type's views: no zones were measured on this photo.`);
     photos.push(result);

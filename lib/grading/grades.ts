@@ -1,18 +1,18 @@
 import "server-only";
 import { db } from "@/db/client";
 import { logActivity } from "@/db/queries/activity";
-import { getLatestUnitMeasurement, getUnitMeasurement, insertGrade, listGrades, listPhotoMeasurements, type GradeHistoryRow } from "@/db/queries/grading";
+import { getGradeByIdempotencyKey, getLatestUnitMeasurement, getUnitMeasurement, insertGrade, listGrades, listPhotoMeasurements, type GradeHistoryRow } from "@/db/queries/grading";
 import { getLatestPublished, getRubricVersion } from "@/db/queries/rubrics";
 import type { SessionUser } from "@/lib/auth/require-user";
 import { finishInspection } from "@/lib/queue/queue";
-import { hasAnyRole } from "@/lib/auth/roles";
 import { AppError } from "@/lib/errors";
 import { regradeStored } from "./grade-unit";
+import { assertMayRecord, replayOf } from "./grade-rules";
 import type { RecordGradeInput } from "./schemas";
 import type { StoredUnitResult } from "./stored-measurement";
 import { currentInputs, lockUnit, measurementStaleness, photoNamer, requireUnit, storedPhotos } from "./unit-grading";
 
-type Actor = Pick<SessionUser, "id" | "workspaceId" | "roles">;
+type Actor = Pick<SessionUser, "id" | "workspaceId" | "roles"> & Partial<Pick<SessionUser, "timeZone">>;
 
 /** The unit's grade history (oldest first) and its current grade (the last row). */
 export async function gradeHistory(actor: Actor, unitId: string) {
@@ -23,20 +23,21 @@ export async function gradeHistory(actor: Actor, unitId: string) {
 
 /**
  * Records a grade: the measurement's proposal accepted, or overridden with a reason. Appends one
- * row; nothing earlier changes. The measurement must be current (its regions versions and
+ * row; nothing earlier changes. Once the unit is graded, only a lead's override naming the
+ * current grade may follow (grade-rules.ts); a repeat with the same idempotency key answers with
+ * the row it made (`replayed`). The measurement must be current (its regions versions and
  * checklist time equal the unit's now), else 409: a stale proposal is never graded.
  */
-export async function recordGrade(actor: Actor, unitId: string, input: RecordGradeInput): Promise<GradeHistoryRow> {
+export async function recordGrade(actor: Actor, unitId: string, input: RecordGradeInput): Promise<{ grade: GradeHistoryRow; replayed: boolean }> {
   const kind = input.kind ?? "inspection";
-  if (kind === "override" && !hasAnyRole(actor.roles, "lead")) {
-    throw new AppError("forbidden", "Overriding a recorded grade needs the QC lead role, which your account does not have.");
-  }
-  if (kind === "override" && !input.reason) {
-    throw new AppError("bad_request", "An override of a recorded grade needs a reason.", { fieldErrors: { reason: "An override of a recorded grade needs a reason." } });
-  }
   const unit = await requireUnit(actor, unitId);
-  const gradeId = await db().transaction(async (tx) => {
+  const recorded = await db().transaction(async (tx) => {
+    // The unit row lock serialises every grade write on the unit, so "current" stays current.
     await lockUnit(tx, actor, unitId);
+    const previous = await listGrades({ workspaceId: actor.workspaceId, unitId }, tx);
+    const repeated = input.idempotencyKey ? await getGradeByIdempotencyKey({ workspaceId: actor.workspaceId, unitId, key: input.idempotencyKey }, tx) : undefined;
+    if (repeated) return { id: replayOf(repeated, { kind, decision: input.decision, finalGrade: input.decision === "override" ? input.finalGrade : undefined, reason: input.reason }).id, replayed: true };
+    assertMayRecord({ kind, reason: input.reason, expectedCurrentGradeId: input.expectedCurrentGradeId }, previous.at(-1) ?? null, actor.roles, actor.timeZone);
     // An inspection grade moves the unit on (on bench → graded) and ends its lease.
     if (kind === "inspection") await finishInspection(tx, actor, unitId);
     const measurement = input.measurementId
@@ -50,8 +51,6 @@ export async function recordGrade(actor: Actor, unitId: string, input: RecordGra
     const staleness = measurementStaleness({ regionsVersions: measurement.regionsVersions, checklistStamp: stored.checklistStamp }, current.inputs, photoNamer(current.photoRows));
     if (staleness.stale) throw new AppError("conflict", `The measurement is out of date: ${staleness.reasons.join(" ")} Measure again before grading.`);
 
-    const previous = await listGrades({ workspaceId: actor.workspaceId, unitId }, tx);
-    if (kind === "override" && previous.length === 0) throw new AppError("conflict", "This unit has no recorded grade to override yet; record the inspection grade first.");
 
     const proposed = stored.proposal.grade;
     const finalGrade = input.decision === "accept" ? proposed : input.finalGrade;
@@ -71,6 +70,7 @@ export async function recordGrade(actor: Actor, unitId: string, input: RecordGra
       explanation: { lines: stored.proposal.lines, notes: stored.proposal.notes },
       regionsVersions: measurement.regionsVersions,
       gradedBy: actor.id,
+      idempotencyKey: input.idempotencyKey ?? null,
     });
     await logActivity(tx, {
       workspaceId: actor.workspaceId,
@@ -78,12 +78,12 @@ export async function recordGrade(actor: Actor, unitId: string, input: RecordGra
       action: finalGrade === proposed ? "grade.accepted" : "grade.overridden",
       subjectType: "unit",
       subjectId: unitId,
-      detail: { gradeId: row.id, kind, proposed, final: finalGrade, rubricVersion: measurement.rubricVersion, serial: unit.serial },
+      detail: { gradeId: row.id, kind, proposed, final: finalGrade, rubricVersion: measurement.rubricVersion, serial: unit.serial, replaces: previous.at(-1)?.id ?? null },
     });
-    return row.id;
+    return { id: row.id, replayed: false };
   });
   const history = await listGrades({ workspaceId: actor.workspaceId, unitId });
-  return history.find((g) => g.id === gradeId)!;
+  return { grade: history.find((g) => g.id === recorded.id)!, replayed: recorded.replayed };
 }
 
 /**

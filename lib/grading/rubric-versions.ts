@@ -18,12 +18,13 @@ import { AppError, notFound } from "@/lib/errors";
 import { diffRubrics } from "./diff";
 import { evaluateRubric } from "./evaluate";
 import { gradingContextOf } from "./part-type-context";
-import { rubricOrThrow } from "./schemas";
+import { rubricOrThrow, type DraftSeen } from "./schemas";
 import { buildUnitMetrics, type FunctionalFailureCounts } from "./unit-metrics";
 import { assertEditable, planDraft } from "./versioning";
 import type { PhotoMeasurement } from "@/lib/measure/types";
+import { DEFAULT_TIME_ZONE, formatTime } from "@/lib/time/format";
 
-type Actor = Pick<SessionUser, "id" | "workspaceId">;
+type Actor = Pick<SessionUser, "id" | "workspaceId"> & Partial<Pick<SessionUser, "timeZone">>;
 
 /** The part type of the caller's workspace, or the same 404 as for a missing one. */
 export async function requirePartType(actor: Actor, partTypeId: string): Promise<GradingPartTypeRow> {
@@ -70,8 +71,19 @@ export async function openDraft(actor: Actor, partTypeId: string): Promise<{ cre
   }
 }
 
-/** Replaces the draft's rules after validating them against the part type (400, nothing stored). */
-export async function saveDraft(actor: Actor, partTypeId: string, input: unknown) {
+/** 409 unless the draft is still the version and revision the caller saw. */
+function assertDraftUnchanged(draft: { version: number; revision: number; updatedAt: Date; updatedByName: string | null }, seen: DraftSeen, doing: string, timeZone = DEFAULT_TIME_ZONE) {
+  if (draft.version === seen.version && draft.revision === seen.revision) return;
+  const by = draft.updatedByName ? ` by ${draft.updatedByName}` : "";
+  const what =
+    draft.version !== seen.version
+      ? `The draft is now version ${draft.version}, not version ${seen.version}.`
+      : `Draft version ${draft.version} was saved again${by} at ${formatTime(draft.updatedAt, timeZone)} (edit ${draft.revision}; you had edit ${seen.revision}).`;
+  throw new AppError("conflict", `${what} Nothing was ${doing}: reload the draft to see the rules as they are now.`);
+}
+
+/** Replaces the draft's rules after validating them against the part type (400, nothing stored); 409 when the draft moved. */
+export async function saveDraft(actor: Actor, partTypeId: string, input: unknown, seen: DraftSeen) {
   const partType = await requirePartType(actor, partTypeId);
   const rubric = rubricOrThrow(input, gradingContextOf(partType).lists);
   return db().transaction(async (tx) => {
@@ -79,19 +91,21 @@ export async function saveDraft(actor: Actor, partTypeId: string, input: unknown
     const draft = await getDraft({ workspaceId: actor.workspaceId, partTypeId }, tx);
     if (!draft) throw new AppError("conflict", `${partType.name} has no draft to save into: it was published or never opened. Open a new draft.`);
     assertEditable(draft);
-    const updated = await updateDraftRubric(tx, { workspaceId: actor.workspaceId, partTypeId, rubric, actorId: actor.id });
-    await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.id, action: "rubric.draft_saved", subjectType: "part_type", subjectId: partTypeId, detail: { version: draft.version, rules: rubric.rules.length } });
-    return { version: updated.version, rubric };
+    assertDraftUnchanged(draft, seen, "saved", actor.timeZone);
+    const updated = await updateDraftRubric(tx, { workspaceId: actor.workspaceId, partTypeId, rubric, actorId: actor.id, revision: seen.revision });
+    await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.id, action: "rubric.draft_saved", subjectType: "part_type", subjectId: partTypeId, detail: { version: draft.version, revision: updated.revision, rules: rubric.rules.length } });
+    return { version: updated.version, revision: updated.revision, rubric };
   });
 }
 
-/** Publishes the draft (leads only, checked by the route); the row is frozen from then on. */
-export async function publishDraft(actor: Actor, partTypeId: string) {
+/** Publishes the draft the lead saw (leads only, checked by the route); the row is frozen from then on. */
+export async function publishDraft(actor: Actor, partTypeId: string, seen: DraftSeen) {
   const partType = await requirePartType(actor, partTypeId);
   return db().transaction(async (tx) => {
     await lockPartType(tx, { workspaceId: actor.workspaceId, partTypeId });
     const draft = await getDraft({ workspaceId: actor.workspaceId, partTypeId }, tx);
     if (!draft) throw new AppError("conflict", `${partType.name} has no draft to publish. Open a draft, edit it, then publish.`);
+    assertDraftUnchanged(draft, seen, "published", actor.timeZone);
     // The part type may have changed since the draft was saved: check its lists again.
     rubricOrThrow(draft.rubric, gradingContextOf(partType).lists);
     const published = await markDraftPublished(tx, { workspaceId: actor.workspaceId, partTypeId, actorId: actor.id });

@@ -10,7 +10,18 @@ import { parseRubric, type PartTypeLists, type Rubric } from "./rubric-schema";
 
 export const MAX_REASON_LENGTH = 1000;
 
-export const updateDraftSchema = z.strictObject({ rubric: z.unknown() });
+/**
+ * Which draft the caller saw: its version number and edit revision (both from GET …/draft). Save
+ * and publish answer 409 when the draft moved since, so nobody overwrites or publishes rules
+ * they have not seen.
+ */
+const draftSeen = {
+  version: z.number({ error: "must be the draft's version number" }).int("must be a whole number").min(1, "must be 1 or more"),
+  revision: z.number({ error: "must be the draft's revision (from the draft you opened)" }).int("must be a whole number").min(0, "cannot be negative"),
+};
+export const updateDraftSchema = z.strictObject({ rubric: z.unknown(), ...draftSeen });
+export const publishDraftSchema = z.strictObject(draftSeen);
+export type DraftSeen = z.infer<typeof publishDraftSchema>;
 
 const uuid = z.uuid({ error: "must be a measurement id" });
 const reason = z
@@ -19,15 +30,19 @@ const reason = z
   .min(1, "An override needs a reason: say why the proposed grade is wrong.")
   .max(MAX_REASON_LENGTH, `must be at most ${MAX_REASON_LENGTH} characters`);
 const kind = z.enum(["inspection", "override"], { error: 'must be "inspection" or "override" (rechecks and adjudications are recorded on the Recheck screen)' }).optional();
+/** The grade the caller saw as current (null: none yet). An override must name it; lib/grading/grade-rules.ts. */
+const expectedCurrentGradeId = z.uuid({ error: "must be the id of the unit's current grade" }).nullable().optional();
+/** One key per submission, chosen by the client: a repeated request answers with the row it made. */
+const idempotencyKey = z.uuid({ error: "must be a UUID chosen once per submission" }).optional();
+const common = { measurementId: uuid.optional(), kind, expectedCurrentGradeId, idempotencyKey };
 
 export const recordGradeSchema = z.discriminatedUnion(
   "decision",
   [
-    z.strictObject({ decision: z.literal("accept"), measurementId: uuid.optional(), kind, reason: reason.optional() }),
+    z.strictObject({ decision: z.literal("accept"), ...common, reason: reason.optional() }),
     z.strictObject({
       decision: z.literal("override"),
-      measurementId: uuid.optional(),
-      kind,
+      ...common,
       finalGrade: z.enum(GRADES, { error: "must be A, B, C or Reject" }),
       reason,
     }),
@@ -63,3 +78,9 @@ export const measureSchema = z.strictObject({ mode: z.enum(["auto", "queue"], { 
 export const measureQuerySchema = z.strictObject({ jobId: z.uuid({ error: "jobId must be a job id" }).optional() });
 /** How long a measurement may run inside the request before it is handed to the job queue. */
 export const MEASURE_INLINE_BUDGET_MS = 2000;
+/**
+ * How long a background measurement may run. A photo at the per-photo work limit measures in
+ * well under a second (`npm run bench`), so this is ample for a unit's photos; past it the job
+ * ends with a sentence instead of holding a thread.
+ */
+export const MEASURE_JOB_BUDGET_MS = 60_000;

@@ -19,7 +19,9 @@ import { units } from "@/db/schema";
 import type { PolygonShape, Shape } from "@/lib/geometry/shape";
 import { AppError, notFound } from "@/lib/errors";
 import type { PhotoMeasurement } from "@/lib/measure/types";
-import { functionalFailureCounts, measureUnit, type UnitPhotoInput } from "./grade-unit";
+import { COMPUTE_START_ALLOWANCE_MS, runInThread } from "@/lib/compute/pool";
+import { functionalFailureCounts, type UnitPhotoInput } from "./grade-unit";
+import { MEASURE_JOB_BUDGET_MS } from "./schemas";
 import { checklistStampOf, measurementStaleness, type MeasuredInputs, type Staleness } from "./staleness";
 import type { StoredPhotoResult, StoredUnitResult } from "./stored-measurement";
 import { gradingVersion } from "./versioning";
@@ -103,19 +105,26 @@ async function describeMeasurement(actor: GradingActor, row: UnitMeasurementRow,
 }
 
 /**
- * Measures the unit now under the latest published rubric and stores the result. `deadline`
- * (epoch ms) makes it give up between photos with DeadlineExceeded, storing nothing.
+ * Measures the unit now under the latest published rubric and stores the result. The measuring
+ * runs in a compute thread (lib/compute/pool.ts), never on the request's thread: `budgetMs` is
+ * its time once started (default: a background job's) — past it DeadlineExceeded, storing
+ * nothing — and a thread that still runs a few seconds later is ended (ComputeTimeout).
  */
-export async function measureAndStore(actor: GradingActor, unitId: string, options: { deadline?: number } = {}) {
+export async function measureAndStore(actor: GradingActor, unitId: string, options: { budgetMs?: number } = {}) {
   const loaded = await loadMeasureInput(actor, unitId);
   const checklistStamp = loaded.inputs.checklistStamp;
-  const outcome = await measureUnit({
-    partType: loaded.unit.partType,
-    rubric: loaded.rubric.rubric,
-    photos: loaded.photos,
-    functionalFailures: functionalFailureCounts(loaded.checklist.results),
-    deadline: options.deadline,
-  });
+  const budgetMs = options.budgetMs ?? MEASURE_JOB_BUDGET_MS;
+  const outcome = await runInThread(
+    "measure-unit",
+    {
+      partType: loaded.unit.partType,
+      rubric: loaded.rubric.rubric,
+      photos: loaded.photos,
+      functionalFailures: functionalFailureCounts(loaded.checklist.results),
+      budgetMs,
+    },
+    { timeoutMs: budgetMs + COMPUTE_START_ALLOWANCE_MS },
+  );
   const unitResult: StoredUnitResult = { ...outcome.unit, checklistStamp };
   const stored = await db().transaction(async (tx) => {
     const ids = await insertMeasurementSet(tx, {

@@ -38,18 +38,47 @@ export function handler<C>(fn: (req: Request, ctx: C) => Promise<Response>) {
 }
 
 const DEFAULT_MAX_BODY = 1024 * 1024;
+/** Public routes (sign-up, passwords) take a few short fields: anyone may send them, so keep it small. */
+export const PUBLIC_MAX_BODY = 16 * 1024;
 
-/** Reads and validates a JSON body (size-limited; wrong content is a 400 with a readable message). */
+const tooLarge = (maxBytes: number) => new AppError("payload_too_large", `The request is too large (limit ${Math.round(maxBytes / 1024)} KB).`);
+
+/**
+ * The request body, read as a stream with a byte counter: 413 as soon as the limit is passed,
+ * without reading the rest — for a declared Content-Length and for chunked bodies alike (a
+ * declared length is only a claim; the counter decides).
+ */
+export async function readBodyLimited(req: Request, maxBytes: number): Promise<Uint8Array> {
+  const declared = req.headers.get("content-length");
+  if (declared !== null && Number(declared) > maxBytes) throw tooLarge(maxBytes);
+  if (!req.body) return new Uint8Array(0);
+  const reader = req.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let total = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    total += value.byteLength;
+    if (total > maxBytes) {
+      await reader.cancel().catch(() => {});
+      throw tooLarge(maxBytes);
+    }
+    chunks.push(value);
+  }
+  return Buffer.concat(chunks, total);
+}
+
+const utf8 = new TextDecoder("utf-8", { fatal: true });
+
+/** Reads and validates a JSON body (size-limited while reading; wrong content is a 400 with a readable message). */
 export async function parseJson<S extends z.ZodType>(req: Request, schema: S, { maxBytes = DEFAULT_MAX_BODY, allowEmpty = false } = {}): Promise<z.infer<S>> {
-  const declared = Number(req.headers.get("content-length") ?? "0");
-  if (declared > maxBytes) throw new AppError("payload_too_large", `The request is too large (limit ${Math.round(maxBytes / 1024)} KB).`);
-  const text = await req.text();
-  if (Buffer.byteLength(text) > maxBytes) throw new AppError("payload_too_large", `The request is too large (limit ${Math.round(maxBytes / 1024)} KB).`);
+  const bytes = await readBodyLimited(req, maxBytes);
   let value: unknown;
   try {
+    const text = utf8.decode(bytes).trim();
     value = text.length ? JSON.parse(text) : undefined;
   } catch {
-    throw new AppError("bad_request", "The request body is not valid JSON.");
+    throw new AppError("bad_request", "The request body is not valid JSON (UTF-8 text).");
   }
   if (value === undefined) {
     if (allowEmpty) return parseWith(schema, {});

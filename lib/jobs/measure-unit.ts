@@ -11,6 +11,8 @@ import "server-only";
 import PgBoss from "pg-boss";
 import { pool } from "@/db/client";
 import { AppError } from "@/lib/errors";
+import { DeadlineExceeded } from "@/lib/imaging/deadline";
+import { MEASURE_JOB_BUDGET_MS } from "@/lib/grading/schemas";
 import { measureAndStore } from "@/lib/grading/unit-grading";
 import { JOB_NOTIFY_CHANNEL } from "./queues";
 
@@ -30,24 +32,30 @@ export const measureUnitQueueOptions: PgBoss.Queue = {
   retentionMinutes: 24 * 60,
 };
 
+/** What a finished job tells the Bench: nothing when measured, else the sentence why not. */
+export type MeasureUnitOutput = { notMeasured: string } | undefined;
+
 /**
  * Worker side. A unit that cannot be measured (no photos, no published rubric, photos still
- * processing: AppError) completes the job without retrying — the person will see why when they
- * measure again; any other error is thrown so pg-boss retries.
+ * processing, regions beyond the measuring limits: AppError) or whose measuring ran past its
+ * time budget completes the job without retrying — the same input would fail the same way — and
+ * the job's output says why (GET …/measure?jobId= shows it); any other error is thrown so
+ * pg-boss retries.
  */
-export async function handleMeasureUnitJobs(jobs: PgBoss.Job<MeasureUnitJob>[]): Promise<void> {
+export async function handleMeasureUnitJobs(jobs: PgBoss.Job<MeasureUnitJob>[]): Promise<MeasureUnitOutput> {
+  let output: MeasureUnitOutput;
   for (const job of jobs) {
     const { workspaceId, unitId, requestedBy } = job.data;
     try {
       await measureAndStore({ id: requestedBy, workspaceId }, unitId);
     } catch (err) {
-      if (err instanceof AppError) {
-        console.warn(`measure-unit job ${job.id}: unit ${unitId} was not measured: ${err.message}`);
-        continue;
-      }
-      throw err;
+      const reason = err instanceof DeadlineExceeded ? `Measuring took longer than ${MEASURE_JOB_BUDGET_MS / 1000} s and was stopped; nothing was stored. Use fewer or simpler regions.` : err instanceof AppError ? err.message : null;
+      if (reason === null) throw err;
+      console.warn(`measure-unit job ${job.id}: unit ${unitId} was not measured: ${reason}`);
+      output = { notMeasured: reason };
     }
   }
+  return output;
 }
 
 const cache = globalThis as unknown as { __partproofMeasureSender?: Promise<PgBoss> };
@@ -75,9 +83,11 @@ export async function enqueueMeasureUnit(job: MeasureUnitJob): Promise<{ jobId: 
   return { jobId };
 }
 
-/** The state of a queued measurement, or null when pg-boss does not know the id. */
-export async function measureJobState(jobId: string): Promise<{ id: string; state: string; data: MeasureUnitJob } | null> {
+/** The state of a queued measurement (with why it was not measured, if so), or null when pg-boss does not know the id. */
+export async function measureJobState(jobId: string): Promise<{ id: string; state: string; data: MeasureUnitJob; notMeasured: string | null } | null> {
   const boss = await sender();
   const job = await boss.getJobById<MeasureUnitJob>(MEASURE_UNIT_QUEUE, jobId, { includeArchive: true });
-  return job ? { id: job.id, state: job.state, data: job.data } : null;
+  if (!job) return null;
+  const output = job.output as { notMeasured?: unknown } | null | undefined;
+  return { id: job.id, state: job.state, data: job.data, notMeasured: typeof output?.notMeasured === "string" ? output.notMeasured : null };
 }

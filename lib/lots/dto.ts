@@ -17,6 +17,7 @@ export function lotSummary(row: Pick<LotRow, "lot" | "supplierName" | "partTypeN
     dueOn: lot.dueOn,
     inspectionLevel: lot.inspectionLevel,
     inspectionSeverity: lot.inspectionSeverity,
+    promisedGrade: lot.promisedGrade,
     sampleSize: lot.plan.sampleSize,
     hundredPercent: lot.plan.hundredPercent,
     unitsCreated: progress.unitsCreated,

@@ -10,7 +10,7 @@ import { AppError, notFound } from "@/lib/errors";
 import { SamplingInputError } from "@/lib/sampling/iso2859";
 import { transition } from "@/lib/units/state-machine";
 import { buildLotPlan, SEVERITY_ORDER } from "./plan";
-import { oneLotProgress } from "./progress";
+import { oneLotProgress, progressInput } from "./progress";
 import { assertPair, switchingStateFor } from "./scheme";
 import { DISPOSITION_LABELS, DISPOSITIONS_FOR_VERDICT, MAX_UNITS_PER_LOT, type DispositionInput, type LotCreateInput } from "./schemas";
 
@@ -65,6 +65,7 @@ export async function createLot(actor: SessionUser, input: LotCreateInput) {
         aqlMajor: input.aqlMajor,
         aqlMinor: input.aqlMinor,
         inspectionSeverity: state.severity,
+        promisedGrade: input.promisedGrade ?? supplier.promisedGrade ?? partType.promisedGrade,
         plan,
         createdBy: actor.id,
       })
@@ -75,7 +76,7 @@ export async function createLot(actor: SessionUser, input: LotCreateInput) {
       action: "lot.created",
       subjectType: "lot",
       subjectId: row.id,
-      detail: { purchaseRef: row.purchaseRef, quantity: row.quantity, severity: state.severity, sampleSize: plan.sampleSize, switchingReason: state.reason },
+      detail: { purchaseRef: row.purchaseRef, quantity: row.quantity, promisedGrade: row.promisedGrade, severity: state.severity, sampleSize: plan.sampleSize, switchingReason: state.reason },
     });
     return row;
   });
@@ -91,7 +92,7 @@ export async function decideLot(actor: SessionUser, lotId: string, input: Dispos
     if (!locked) throw notFound("That lot");
     if (locked.status === "decided") throw new AppError("conflict", `This lot was already decided (${locked.verdict}, ${DISPOSITION_LABELS[locked.disposition!].toLowerCase()}).`);
     const lot = (await getLot({ workspaceId: actor.workspaceId, lotId }, tx))!;
-    const { verdict } = await oneLotProgress(actor.workspaceId, { id: lotId, plan: locked.plan, checklistItemIds: lot.checklistItemIds }, tx);
+    const { verdict } = await oneLotProgress(actor.workspaceId, progressInput({ lot: locked, checklistItemIds: lot.checklistItemIds }), tx);
     if (verdict.verdict === "pending") throw new AppError("conflict", `There is no verdict yet. ${verdict.summary}`);
     const allowed = DISPOSITIONS_FOR_VERDICT[verdict.verdict];
     if (!allowed.includes(input.disposition)) {

@@ -24,6 +24,11 @@ export const DISPOSITIONS_FOR_VERDICT: Record<"accept" | "reject", readonly Disp
   reject: ["downgrade", "sort", "return_to_vendor"],
 };
 
+/** Cosmetic grades a purchase can promise (Reject is never bought). */
+export const PROMISED_GRADES = ["A", "B", "C"] as const;
+export type PromisedGrade = (typeof PROMISED_GRADES)[number];
+export const promisedGradeSchema = z.enum(PROMISED_GRADES, { error: "The promised grade is A, B or C." });
+
 const uuid = (what: string) => z.string({ error: `Choose a ${what}.` }).uuid(`Choose a ${what}.`);
 
 /** A calendar date as YYYY-MM-DD that really exists (2026-02-30 does not). */
@@ -58,6 +63,8 @@ export const lotCreateSchema = z
     aqlCritical: aqlSchema.nullable(),
     aqlMajor: aqlSchema,
     aqlMinor: aqlSchema,
+    /** Left out: the supplier's default, else the part type's. */
+    promisedGrade: promisedGradeSchema.optional(),
   })
   .strict()
   .refine((lot) => lot.dueOn >= lot.receivedOn, { path: ["dueOn"], message: "The due date cannot be before the received date." });

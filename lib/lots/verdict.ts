@@ -3,9 +3,9 @@
  *
  * Counting (decision, shown on the lot page):
  * - "Defectives per severity" counts units, not defects: a unit counts at most once per severity,
- *   when it has at least one defect of that severity (a failed checklist item now; cosmetic
- *   defects of that class from the Bench later). A unit with a critical and a major defect counts
- *   once in each class. ISO 2859-1's note on classes of nonconforming items files an item under its
+ *   when it has at least one defect of that severity: a failed checklist item, or a cosmetic
+ *   nonconformity (its grade worse than the lot's promised grade, lib/lots/cosmetic.ts). A unit
+ *   with a critical and a major defect counts once in each class. ISO 2859-1's note on classes of nonconforming items files an item under its
  *   most serious class only (from memory, b); counting per class can only raise each count, so it
  *   never accepts a lot that the stricter reading would reject. (c) common practice.
  * - Each class counts the units within its own sample (sample order 1..n of its plan). Defects a
@@ -15,7 +15,7 @@
  *   class's sample inspected and found <= Ac; with a reduced plan's gap (Ac < found < Re) the lot is
  *   accepted and normal inspection is reinstated (judgeLot, Z1.4 §10.1.4).
  */
-import type { DefectSeverity, StoredSamplingPlan } from "@/db/schema/lots";
+import type { DefectSeverity, LotDecisionCounts, StoredSamplingPlan } from "@/db/schema/lots";
 import { judgeLot } from "@/lib/sampling/iso2859";
 import { SEVERITY_ORDER } from "./plan";
 
@@ -113,4 +113,20 @@ export function lotVerdict(plan: PlanPart, findings: readonly UnitFinding[]): Lo
     summary = `Pending: ${unitsInspected} of ${plan.sampleSize} units inspected; no class has reached its rejection number.`;
   }
   return { verdict, reinstateNormal, unitsToInspect: plan.sampleSize, unitsInspected, classes, summary };
+}
+
+/**
+ * A decided lot shows the verdict and the counts its decision rested on (stored with it), never a
+ * recount under a later rule: history is not rewritten. Classes are judged on those counts.
+ */
+export function decidedVerdictView(plan: PlanPart, decided: { verdict: "accept" | "reject"; counts: LotDecisionCounts }, live: LotVerdict): LotVerdict {
+  const classes = { ...live.classes };
+  for (const severity of SEVERITY_ORDER) {
+    const entry = plan.byDefectSeverity[severity];
+    const { found, inspected } = decided.counts[severity];
+    const judgement = judgeLot(entry, found);
+    classes[severity] = { ...classes[severity], found, inspected, foundOutsideSample: 0, status: judgement === "not-accepted" ? "reject" : "accept", reinstateNormal: judgement === "accept-reinstate-normal" };
+  }
+  const summary = `Decided: ${decided.verdict}, on the counts recorded with the decision.`;
+  return { ...live, verdict: decided.verdict, reinstateNormal: SEVERITY_ORDER.some((s) => classes[s].reinstateNormal), classes, summary };
 }

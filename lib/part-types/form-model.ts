@@ -6,14 +6,16 @@
  * choices one per line "value | Label | pass" (or "fail").
  */
 import type { ChecklistItem, PartType } from "@/db/schema/lots";
+import type { PromisedGrade } from "@/lib/lots/schemas";
 import type { PartCategory } from "./schemas";
 
-export type ItemForm = { id: string; label: string; kind: ChecklistItem["kind"]; severityOnFail: ChecklistItem["severityOnFail"]; caution: string; unit: string; min: string; max: string; decimals: string; options: string };
+export type ItemForm = { id: string; label: string; kind: ChecklistItem["kind"]; severityOnFail: ChecklistItem["severityOnFail"]; caution: string; unit: string; min: string; max: string; decimals: string; suspectBelow: string; options: string };
 export type PartTypeFormValues = {
   name: string;
   category: PartCategory;
   modelFamily: string;
   inspectAll: boolean;
+  promisedGrade: PromisedGrade;
   active: boolean;
   nominalWidth: string;
   nominalHeight: string;
@@ -24,13 +26,14 @@ export type PartTypeFormValues = {
   views: { key: string; label: string; required: boolean; instructions: string; zones: string }[];
 };
 
-export const EMPTY_ITEM: ItemForm = { id: "", label: "", kind: "pass_fail", severityOnFail: "major", caution: "", unit: "", min: "", max: "", decimals: "0", options: "" };
+export const EMPTY_ITEM: ItemForm = { id: "", label: "", kind: "pass_fail", severityOnFail: "major", caution: "", unit: "", min: "", max: "", decimals: "0", suspectBelow: "", options: "" };
 
 export const EMPTY_PART_TYPE: PartTypeFormValues = {
   name: "",
   category: "other",
   modelFamily: "",
   inspectAll: false,
+  promisedGrade: "A",
   active: true,
   nominalWidth: "",
   nominalHeight: "",
@@ -78,7 +81,10 @@ export function textToOptions(text: string) {
 
 function itemToInput(item: ItemForm): unknown {
   const base = { id: item.id.trim(), label: item.label, kind: item.kind, severityOnFail: item.severityOnFail, ...(item.caution.trim() ? { caution: item.caution } : {}) };
-  if (item.kind === "numeric") return { ...base, unit: item.unit, min: num(item.min), max: num(item.max), decimals: num(item.decimals) ?? 0 };
+  if (item.kind === "numeric") {
+    const suspectBelow = num(item.suspectBelow);
+    return { ...base, unit: item.unit, min: num(item.min), max: num(item.max), decimals: num(item.decimals) ?? 0, ...(suspectBelow === null ? {} : { suspectBelow }) };
+  }
   if (item.kind === "choice") return { ...base, options: textToOptions(item.options) };
   return base;
 }
@@ -90,6 +96,7 @@ export function formToInput(values: PartTypeFormValues): unknown {
     category: values.category,
     modelFamily: values.modelFamily,
     inspectAll: values.inspectAll,
+    promisedGrade: values.promisedGrade,
     active: values.active,
     nominalSizeMm: size(values.nominalWidth, values.nominalHeight),
     panelResolution: size(values.panelWidth, values.panelHeight),
@@ -99,13 +106,14 @@ export function formToInput(values: PartTypeFormValues): unknown {
   };
 }
 
-export function partTypeToForm(p: Pick<PartType, "name" | "category" | "modelFamily" | "inspectAll" | "active" | "nominalSizeMm" | "panelResolution" | "defectClasses" | "checklist" | "views">): PartTypeFormValues {
+export function partTypeToForm(p: Pick<PartType, "name" | "category" | "modelFamily" | "inspectAll" | "promisedGrade" | "active" | "nominalSizeMm" | "panelResolution" | "defectClasses" | "checklist" | "views">): PartTypeFormValues {
   const text = (v: number | undefined) => (v === undefined ? "" : String(v));
   return {
     name: p.name,
     category: p.category as PartCategory,
     modelFamily: p.modelFamily,
     inspectAll: p.inspectAll,
+    promisedGrade: p.promisedGrade,
     active: p.active,
     nominalWidth: text(p.nominalSizeMm?.width),
     nominalHeight: text(p.nominalSizeMm?.height),
@@ -119,7 +127,7 @@ export function partTypeToForm(p: Pick<PartType, "name" | "category" | "modelFam
       kind: i.kind,
       severityOnFail: i.severityOnFail,
       caution: i.caution ?? "",
-      ...(i.kind === "numeric" ? { unit: i.unit, min: i.min === null ? "" : String(i.min), max: i.max === null ? "" : String(i.max), decimals: String(i.decimals) } : {}),
+      ...(i.kind === "numeric" ? { unit: i.unit, min: i.min === null ? "" : String(i.min), max: i.max === null ? "" : String(i.max), decimals: String(i.decimals), suspectBelow: i.suspectBelow == null ? "" : String(i.suspectBelow) } : {}),
       ...(i.kind === "choice" ? { options: optionsToText(i.options) } : {}),
     })),
     views: p.views.map((v) => ({ key: v.key, label: v.label, required: v.required, instructions: v.instructions ?? "", zones: zonesToText(v.zones) })),

@@ -6,6 +6,8 @@
 import { z } from "zod";
 import type { ChecklistItem, DefectSeverity, PartType } from "@/db/schema/lots";
 import { decimalPlaces } from "@/lib/checklist/evaluate";
+import { EXAMPLE_PART_TYPE_SLUGS } from "@/lib/grading/example-part-types";
+import { promisedGradeSchema } from "@/lib/lots/schemas";
 
 export const DEFECT_SEVERITIES = ["critical", "major", "minor"] as const satisfies readonly DefectSeverity[];
 export const SEVERITY_LABELS: Record<DefectSeverity, string> = { critical: "Critical", major: "Major", minor: "Minor" };
@@ -77,16 +79,22 @@ const numericItem = z
     min: limit,
     max: limit,
     decimals: z.number({ error: "Decimals is a whole number from 0 to 6." }).int("Decimals is a whole number from 0 to 6.").min(0).max(6, "Decimals is a whole number from 0 to 6."),
+    /** Below this the part is set aside as suspect (e.g. an over-discharged cell), not merely failed. */
+    suspectBelow: z.number({ error: "“Set aside below” is a number (or empty)." }).finite().nullable().optional(),
     severityOnFail: severity,
     caution,
   })
   .strict()
   .superRefine((item, ctx) => {
     if (item.min !== null && item.max !== null && item.min > item.max) ctx.addIssue({ code: "custom", path: ["max"], message: "The maximum must not be below the minimum." });
-    for (const field of ["min", "max"] as const) {
+    if (item.suspectBelow != null && item.min !== null && item.suspectBelow > item.min) {
+      ctx.addIssue({ code: "custom", path: ["suspectBelow"], message: "“Set aside below” must not be above the minimum: a reading fails first, then, lower still, is set aside." });
+    }
+    for (const field of ["min", "max", "suspectBelow"] as const) {
       const value = item[field];
-      if (value !== null && decimalPlaces(value) > item.decimals) {
-        ctx.addIssue({ code: "custom", path: [field], message: `The ${field === "min" ? "minimum" : "maximum"} has more decimals than the item records (${item.decimals}).` });
+      if (value != null && decimalPlaces(value) > item.decimals) {
+        const name = field === "min" ? "The minimum" : field === "max" ? "The maximum" : "“Set aside below”";
+        ctx.addIssue({ code: "custom", path: [field], message: `${name} has more decimals than the item records (${item.decimals}).` });
       }
     }
   });
@@ -134,6 +142,8 @@ const partTypeFields = {
   nominalSizeMm,
   panelResolution,
   inspectAll: z.boolean({ error: "inspectAll must be true or false." }),
+  /** The cosmetic grade lots are bought at unless the supplier says otherwise. */
+  promisedGrade: promisedGradeSchema,
   active: z.boolean({ error: "active must be true or false." }),
 };
 
@@ -144,6 +154,7 @@ export const partTypeSchema = z
     nominalSizeMm: nominalSizeMm.default(null),
     panelResolution: panelResolution.default(null),
     inspectAll: partTypeFields.inspectAll.default(false),
+    promisedGrade: partTypeFields.promisedGrade.default("A"),
     active: partTypeFields.active.default(true),
   })
   .strict();
@@ -155,6 +166,14 @@ export const partTypeUpdateSchema = z
   .strict()
   .refine((v) => Object.keys(v).length > 0, "Nothing to change.");
 export type PartTypeUpdateInput = z.infer<typeof partTypeUpdateSchema>;
+
+/** Which starter part types to add (lib/part-types/starters.ts). */
+export const starterRequestSchema = z.strictObject({
+  slugs: z
+    .array(z.enum(EXAMPLE_PART_TYPE_SLUGS, { error: `Starter part types are ${EXAMPLE_PART_TYPE_SLUGS.join(", ")}.` }), { error: "slugs is a list of starter part types." })
+    .min(1, "Choose at least one starter part type.")
+    .max(EXAMPLE_PART_TYPE_SLUGS.length),
+});
 
 export const partTypeListQuerySchema = z.object({ active: z.enum(["true", "false", "all"]).optional() }).strict();
 

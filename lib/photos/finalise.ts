@@ -3,7 +3,7 @@ import "server-only";
  * Step 3 of an upload (after the browser's PUT): accept the bytes or refuse them, and never leave
  * a row without its object or an object without its row.
  *
- *  1. Check the ticket (signed by intents.ts) against the unit in the URL.
+ *  1. Check the ticket (signed by intents.ts) against the unit in the URL and the signed-in uploader.
  *  2. Size from HEAD (0 bytes / over 40 MB → refused), then a server-side copy from the staging
  *     key to the original's key, which no browser ever had a URL for — so an accepted original
  *     cannot be overwritten through the old PUT URL. The staging object is deleted.
@@ -56,7 +56,8 @@ const NOT_ARRIVED = "The file has not arrived in the photo store (the upload did
 
 function readTicket(actor: SessionUser, unitId: string, token: string, now: Date): UploadTicket {
   const check = verifyUploadTicket(token, { secret: env().NEXTAUTH_SECRET, now });
-  if (!check.ok || check.ticket.workspaceId !== actor.workspaceId || check.ticket.unitId !== unitId) {
+  // The ticket names who asked for it: a colleague who got hold of it cannot finalise it as theirs.
+  if (!check.ok || check.ticket.workspaceId !== actor.workspaceId || check.ticket.unitId !== unitId || check.ticket.uploaderId !== actor.id) {
     throw new AppError("bad_request", BAD_TICKET, { fieldErrors: { ticket: BAD_TICKET } });
   }
   return check.ticket;

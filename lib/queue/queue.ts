@@ -9,6 +9,7 @@ import { env } from "@/lib/env";
 import { AppError, notFound } from "@/lib/errors";
 import { transition } from "@/lib/units/state-machine";
 import type { QueueFilters } from "./schemas";
+import { formatTime } from "@/lib/time/format";
 
 // Statuses come from the state machine, so the SQL below can't drift from it.
 const ON_BENCH = transition("queued", "claim");
@@ -234,7 +235,7 @@ export async function finishInspection(tx: Tx, user: Pick<SessionUser, "id" | "w
  */
 export function assertNotLeasedByOther(unit: { status: string; leaseHolderId: string | null; leaseExpiresAt: Date | null }, user: SessionUser, holderName?: string | null) {
   if (unit.status === ON_BENCH && unit.leaseHolderId && unit.leaseHolderId !== user.id && unit.leaseExpiresAt && unit.leaseExpiresAt.getTime() > Date.now()) {
-    const until = unit.leaseExpiresAt.toISOString().slice(11, 16);
-    throw new AppError("conflict", `${holderName ?? "Another inspector"} has this unit on their bench (lease until ${until} UTC), so it is read-only for you.`);
+    const until = formatTime(unit.leaseExpiresAt, user.timeZone);
+    throw new AppError("conflict", `${holderName ?? "Another inspector"} has this unit on their bench (lease until ${until}), so it is read-only for you.`);
   }
 }

@@ -1,12 +1,9 @@
 /** Small formatters shared by the report templates (PDF text and e-mail bodies). */
 import type { DefectSeverity } from "@/db/schema/lots";
+import { DEFAULT_TIME_ZONE, formatInstant as formatInstantIn } from "@/lib/time/format";
 
-/** "2026-12-01 14:05 UTC" — an instant in the workspace's time zone (UTC when none is given), named once. */
-export function formatInstant(date: Date, timeZone = "UTC"): string {
-  const parts = new Intl.DateTimeFormat("en-GB", { timeZone, year: "numeric", month: "2-digit", day: "2-digit", hour: "2-digit", minute: "2-digit", hourCycle: "h23" }).formatToParts(date);
-  const part = (type: Intl.DateTimeFormatPartTypes) => parts.find((p) => p.type === type)?.value ?? "";
-  return `${part("year")}-${part("month")}-${part("day")} ${part("hour")}:${part("minute")} ${timeZone}`;
-}
+/** "2026-12-01 14:05 UTC" — an instant in the workspace's time zone (UTC when none is given), named with it: a document is read outside the app. */
+export const formatInstant = (date: Date, timeZone = DEFAULT_TIME_ZONE): string => formatInstantIn(date, timeZone);
 
 export const SEVERITY_LABELS: Record<DefectSeverity, string> = { critical: "Critical", major: "Major", minor: "Minor" };
 

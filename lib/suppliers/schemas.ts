@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { emailSchema } from "@/lib/auth/schemas";
+import { promisedGradeSchema } from "@/lib/lots/schemas";
 
 export const supplierSchema = z
   .object({
@@ -7,6 +8,8 @@ export const supplierSchema = z
     contactName: z.string().trim().max(120, "Keep the contact name under 120 characters.").nullish().transform((v) => v || null),
     contactEmail: emailSchema,
     notes: z.string().max(2000, "Keep notes under 2 000 characters.").optional().default(""),
+    /** The grade this supplier's lots are bought at by default; null: the part type's. */
+    promisedGrade: promisedGradeSchema.nullish().transform((v) => v ?? null),
   })
   .strict();
 export type SupplierInput = z.infer<typeof supplierSchema>;

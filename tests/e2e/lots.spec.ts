@@ -78,8 +78,18 @@ test("a lead receives a lot and imports serials; an inspector's out-of-limit bat
   await expect(ocv).toContainText("Will fail: 2.87 V is below the minimum 3.00 V.");
   await ocv.getByRole("button", { name: "Save reading" }).click();
   await expect(bench.getByTestId("result-ocv")).toContainText("Failed automatically — 2.87 V is below the minimum 3.00 V. Adds a major functional defect.");
-  // Who and when, with the date: a reading kept from an earlier day must not read as today's.
-  await expect(bench.getByTestId("result-ocv")).toContainText(/, \d{4}-\d{2}-\d{2} \d{2}:\d{2} UTC/);
+  // Who and when, with the date (a reading kept from an earlier day must not read as today's), in
+  // the workspace's zone, which the page names once.
+  await expect(bench.getByTestId("result-ocv")).toContainText(/, \d{4}-\d{2}-\d{2} \d{2}:\d{2}$/);
+  await expect(bench.getByTestId("time-zone-note").first()).toContainText("Times in UTC");
+  // An ordinary out-of-limit reading is a failure; below 2.50 V the cell is set aside as suspect, a
+  // stronger caution (protection cut-off about 2.5 V: a, Battery University BU-802c; handling: c).
+  await expect(bench.getByTestId("suspect-reading")).toHaveCount(0);
+  await ocv.getByLabel(/Open-circuit voltage reading/).fill("2.31");
+  await expect(ocv).toContainText("Will fail: 2.31 V is below the minimum 3.00 V. Below 2.50 V: set it aside as suspect.");
+  await ocv.getByRole("button", { name: "Save reading" }).click();
+  await expect(bench.getByTestId("suspect-reading")).toContainText("Set this cell aside as suspect. Open-circuit voltage 2.31 V is below 2.50 V.");
+  await expect(bench.getByTestId("suspect-reading")).toContainText("do not charge it normally");
   await expect(bench.getByTestId("unit-status")).toContainText("on your bench");
   // A swollen cell: critical, and the hazard warning appears.
   await bench.getByTestId("checklist-item-swelling").getByRole("button", { name: "Fail" }).click();
@@ -99,7 +109,7 @@ test("a lead receives a lot and imports serials; an inspector's out-of-limit bat
   await expect(page.getByTestId("disposition")).toContainText("Return to vendor");
 });
 
-/** A decided button-flex lot of 2 through the API (as the lead's browser session). */
+/** A decided lot of 2 of a checklist-only flex part through the API (as the lead's browser session). */
 async function decidedLot(request: APIRequestContext, supplierId: string, partTypeId: string, reject: boolean, ref: string) {
   const ok = async <T = unknown>(res: Awaited<ReturnType<APIRequestContext["post"]>>): Promise<T> => {
     expect(res.ok(), await res.text()).toBe(true);
@@ -122,13 +132,24 @@ test("after five lots with two rejections the next lot is on tightened inspectio
   await signInAs(page, "lead@vellmoor.example");
   await createSupplier(page, supplier);
   const suppliers = (await (await page.request.get("/api/suppliers")).json()).suppliers as { id: string; name: string }[];
-  const partTypes = (await (await page.request.get("/api/part-types")).json()).partTypes as { id: string; slug: string }[];
   const supplierId = suppliers.find((s) => s.name === supplier)!.id;
-  const flex = partTypes.find((p) => p.slug === "button-flex")!.id;
+  // Like the seeded button flex, but without a published rubric: its units count on their
+  // checklists alone, so a clean pair is accepted without photos and grades (lib/lots/findings.ts).
+  const created = await page.request.post("/api/part-types", {
+    data: {
+      name: `Switching flex ${stamp()}`,
+      category: "flex",
+      views: [{ key: "front", label: "Front", required: true, zones: [] }],
+      defectClasses: [{ key: "scratch", label: "Scratch", severity: "minor" }],
+      checklist: ["power", "volume-up", "volume-down", "side-switch"].map((id) => ({ id, label: `${id} responds`, kind: "pass_fail", severityOnFail: "major" })),
+    },
+  });
+  expect(created.ok(), await created.text()).toBe(true);
+  const flex = ((await created.json()) as { partType: { id: string; name: string } }).partType;
   const refs = [1, 2, 3, 4, 5].map((n) => `FW-${stamp()}-${n}`);
-  for (const [i, ref] of refs.entries()) await decidedLot(page.request, supplierId, flex, i === 1 || i === 4, ref);
+  for (const [i, ref] of refs.entries()) await decidedLot(page.request, supplierId, flex.id, i === 1 || i === 4, ref);
 
-  await fillLotForm(page, { supplier, partType: "Button flex", ref: `FW-NEXT-${stamp()}`, quantity: 120 });
+  await fillLotForm(page, { supplier, partType: flex.name, ref: `FW-NEXT-${stamp()}`, quantity: 120 });
   const why = `2 of the last 5 lots on normal inspection were not accepted (${refs[1]}, ${refs[4]}) → tightened.`;
   await expect(page.getByTestId("switching-box")).toContainText("Tightened");
   await expect(page.getByTestId("switching-reason")).toHaveText(why);

@@ -137,7 +137,7 @@ test("a file the store never received can be retried, an upload can be cancelled
   await expect(page.getByTestId("photo-card")).toHaveCount(1);
 });
 
-test("photos can be dropped onto the page; auditors see the photos but get no uploader", async ({ page, browser }) => {
+test("photos can be dropped onto the page; auditors cannot open the Bench (blind recheck)", async ({ page, browser }) => {
   const unitId = await createPhotoBenchUnit();
   await signInAs(page, "inspector@vellmoor.example");
   await page.goto(`/units/${unitId}`);
@@ -159,7 +159,8 @@ test("photos can be dropped onto the page; auditors see the photos but get no up
     const auditor = await auditorContext.newPage();
     await signInAs(auditor, "auditor@vellmoor.example");
     await auditor.goto(`/units/${unitId}`);
-    await expect(auditor.locator('[data-testid="photo-card"][data-status="ready"]')).toHaveCount(1);
+    await expect(auditor.getByTestId("forbidden")).toBeVisible();
+    await expect(auditor.getByTestId("photo-card")).toHaveCount(0);
     await expect(auditor.getByTestId("photo-uploader")).toHaveCount(0);
   } finally {
     await auditorContext.close();

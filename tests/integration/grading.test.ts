@@ -142,7 +142,7 @@ describe("recording grades", () => {
     // A lead's later correction is its own kind, needs the lead role and a reason.
     expect((await api<ErrorBody>(inspector, "POST", `/api/units/${unit.id}/grades`, { decision: "accept", kind: "override", reason: "x" })).status).toBe(403);
     expect((await api<ErrorBody>(lead, "POST", `/api/units/${unit.id}/grades`, { decision: "accept", kind: "override" })).status).toBe(400);
-    const corrected = await api<{ grade: Grade }>(lead, "POST", `/api/units/${unit.id}/grades`, { decision: "accept", kind: "override", reason: "Checked under the loupe: the scratch is real." });
+    const corrected = await api<{ grade: Grade }>(lead, "POST", `/api/units/${unit.id}/grades`, { decision: "accept", kind: "override", reason: "Checked under the loupe: the scratch is real.", expectedCurrentGradeId: overridden.body.grade.id });
     expect(corrected.body.grade).toMatchObject({ kind: "override", proposedGrade: "C", finalGrade: "C" });
 
     const history = await api<History>(inspector, "GET", `/api/units/${unit.id}/grades`);
@@ -177,8 +177,8 @@ describe("a new rubric version never rewrites past grades", () => {
     // A trainer drafts v2 (C only above 2 %), a lead publishes it.
     const base = `/api/part-types/${partType.id}/rubrics`;
     await api(lead, "POST", base);
-    await api(lead, "PATCH", `${base}/draft`, { rubric: { ...FIXTURE_RUBRIC_V1, rules: FIXTURE_RUBRIC_V1.rules.map((r) => (r.id === "lens-scratch-c" ? { ...r, threshold: 2 } : r)) } });
-    expect((await api(lead, "POST", `${base}/draft/publish`)).body).toEqual({ version: 2 });
+    await api(lead, "PATCH", `${base}/draft`, { rubric: { ...FIXTURE_RUBRIC_V1, rules: FIXTURE_RUBRIC_V1.rules.map((r) => (r.id === "lens-scratch-c" ? { ...r, threshold: 2 } : r)) }, version: 2, revision: 0 });
+    expect((await api(lead, "POST", `${base}/draft/publish`, { version: 2, revision: 1 })).body).toEqual({ version: 2 });
 
     type Preview = { rubricVersion: { version: number; status: string }; basis: { grade: { finalGrade: string; rubricVersion: number }; stale: boolean }; result: { grade: string; lines: { text: string }[] } };
     const preview = await api<Preview>(inspector, "GET", `/api/units/${unit.id}/grade-preview?rubricVersion=2`);

@@ -117,9 +117,26 @@ describe("the lot list", () => {
 });
 
 describe("switching rules across lots", () => {
-  /** A button-flex lot of 2 (a plan that covers the lot: 100 %), placeholders, a dead power button or a clean pair, decided. */
+  /**
+   * A flex part type like the seeded button flex but without a published rubric: its units count
+   * on their checklists alone (lib/lots/findings.ts), so a clean pair is accepted without grading.
+   */
+  let flexWithoutRubric: string;
+  beforeAll(async () => {
+    const res = await api<{ partType: { id: string } }>(lead, "POST", "/api/part-types", {
+      name: `Switching flex ${Date.now().toString(36)}`,
+      category: "flex",
+      views: [{ key: "front", label: "Front", required: true, zones: [] }],
+      defectClasses: [{ key: "scratch", label: "Scratch", severity: "minor" }],
+      checklist: ["power", "volume-up", "volume-down", "side-switch"].map((id) => ({ id, label: `${id} responds`, kind: "pass_fail", severityOnFail: "major" })),
+    });
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    flexWithoutRubric = res.body.partType.id;
+  });
+
+  /** A lot of 2 (a plan that covers the lot: 100 %), placeholders, a dead power button or a clean pair, decided. */
   async function decidedLot(supplierId: string, reject: boolean) {
-    const { lot } = (await api<{ lot: { id: string; purchaseRef: string } }>(lead, "POST", "/api/lots", lotBody({ supplierId, partTypeId: slugs["button-flex"] }, 2))).body;
+    const { lot } = (await api<{ lot: { id: string; purchaseRef: string } }>(lead, "POST", "/api/lots", lotBody({ supplierId, partTypeId: flexWithoutRubric }, 2))).body;
     await api(lead, "POST", `/api/lots/${lot.id}/units`, { source: "placeholders" });
     const { units } = (await api<{ units: { id: string }[] }>(lead, "GET", `/api/lots/${lot.id}/units`)).body;
     for (const [i, unit] of units.entries()) {
@@ -142,11 +159,11 @@ describe("switching rules across lots", () => {
     const supplierId = await newSupplier();
     const ids = [];
     for (const reject of [false, true, false, false, true]) ids.push((await decidedLot(supplierId, reject)).purchaseRef);
-    const state = await api<{ state: { severity: string; reason: string } }>(inspector, "GET", `/api/inspection-schemes?supplierId=${supplierId}&partTypeId=${slugs["button-flex"]}`);
+    const state = await api<{ state: { severity: string; reason: string } }>(inspector, "GET", `/api/inspection-schemes?supplierId=${supplierId}&partTypeId=${flexWithoutRubric}`);
     expect(state.body.state.severity).toBe("tightened");
     expect(state.body.state.reason).toBe(`2 of the last 5 lots on normal inspection were not accepted (${ids[1]}, ${ids[4]}) → tightened.`);
     // Lot 120 at II, tightened: major F n 20 0/1, minor G n 32 1/2 (T1, T2).
-    const next = await api<{ lot: { id: string; inspectionSeverity: string; plan: Plan } }>(lead, "POST", "/api/lots", lotBody({ supplierId, partTypeId: slugs["button-flex"] }, 120));
+    const next = await api<{ lot: { id: string; inspectionSeverity: string; plan: Plan } }>(lead, "POST", "/api/lots", lotBody({ supplierId, partTypeId: flexWithoutRubric }, 120));
     expect(next.body.lot.inspectionSeverity).toBe("tightened");
     expect(next.body.lot.plan.byDefectSeverity.major).toMatchObject({ planLetter: "F", sampleSize: 20, accept: 0, reject: 1 });
     expect(next.body.lot.plan.byDefectSeverity.minor).toMatchObject({ planLetter: "G", sampleSize: 32, accept: 1, reject: 2 });

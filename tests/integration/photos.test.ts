@@ -141,9 +141,10 @@ describe("an accepted photo", () => {
     expect(list.body.photos.find((p) => p.id === photo.id)?.possibleReuse).toBeNull();
   });
 
-  it("every role of the workspace may look; only inspectors and leads may upload", async () => {
+  it("the photo list and details (with the uploader) are inspection work; the images are for every role; only inspectors and leads upload", async () => {
     for (const viewer of [trainer, auditor]) {
-      expect((await api(viewer, "GET", `/api/units/${unitA}/photos`)).status).toBe(200);
+      expect((await api(viewer, "GET", `/api/units/${unitA}/photos`)).status).toBe(403);
+      expect((await api(viewer, "GET", `/api/photos/${photo.id}`)).status).toBe(403);
       expect((await fetchBytes(viewer, photo.urls!.thumbnail)).status).toBe(200);
       expect((await requestUpload(viewer, unitA, { bytes: 1000 })).status).toBe(403);
     }
@@ -172,6 +173,18 @@ describe("tickets and unit state", () => {
     expect(wrong.body.error?.message).toMatch(/not valid for this unit/);
     const tampered = await finalise(inspector, unitC, intent.body.ticket.replace(/.$/, (c) => (c === "A" ? "B" : "A")));
     expect(tampered.status).toBe(400);
+    expect((await finalise(inspector, unitC, intent.body.ticket)).status).toBe(201);
+  });
+
+  it("a ticket issued to one inspector does not finalise for another (the uploader is checked)", async () => {
+    const jpeg = await makePhotoLikeJpeg({ width: 320, height: 240, seed: 43 });
+    const intent = await requestUpload(inspector, unitC, { bytes: jpeg.length });
+    await putToStore(intent.body, jpeg);
+    const colleague = await signIn((await createUser({ workspaceId: (await workspaceBySlug("vellmoor")).id, roles: ["inspector"], email: uniqueEmail("photos-colleague") })).email, TEST_PASSWORD);
+    const taken = await finalise(colleague, unitC, intent.body.ticket);
+    expect(taken.status).toBe(400);
+    expect(taken.body.error?.message).toMatch(/not valid for this unit/);
+    expect(await photoRowsFor(unitC).then((rows) => rows.some((r) => r.id === intent.body.photoId))).toBe(false);
     expect((await finalise(inspector, unitC, intent.body.ticket)).status).toBe(201);
   });
 

@@ -20,7 +20,7 @@ beforeAll(async () => {
   inspectors = [];
   for (let i = 0; i < CLAIMERS; i++) {
     const u = await createUser({ workspaceId: ws.id, roles: ["inspector"], password: null });
-    inspectors.push({ id: u.id, workspaceId: ws.id, workspaceName: ws.name, email: u.email, name: u.name, roles: ["inspector"] });
+    inspectors.push({ id: u.id, workspaceId: ws.id, workspaceName: ws.name, timeZone: "UTC", email: u.email, name: u.name, roles: ["inspector"] });
   }
   const { partType, supplier } = await createPartTypeAndSupplier(ws.id);
   lotId = (await createLotWithUnits({ workspaceId: ws.id, createdBy: lead.id, count: UNITS, partTypeId: partType.id, supplierId: supplier.id })).id;

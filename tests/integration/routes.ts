@@ -3,7 +3,7 @@
  * route handler in app/api (so a new route cannot skip the access tests) and then exercises
  * 401 / 403 / allowed / other-workspace for each entry.
  */
-import type { Role } from "@/lib/auth/roles";
+import { INSPECTION_READERS, type Role } from "@/lib/auth/roles";
 
 export type RouteAccess = {
   method: "GET" | "POST" | "PATCH" | "PUT" | "DELETE";
@@ -17,6 +17,8 @@ export type RouteAccess = {
   allowedStatus: number | number[];
 };
 
+/** The inspection read paths: never auditors (blind recheck), see INSPECTION_READERS. */
+const inspectionWork: Role[] = [...INSPECTION_READERS];
 let n = 0;
 const unique = (p: string) => `${p}-${Date.now().toString(36)}-${++n}`;
 
@@ -28,6 +30,11 @@ export const ROUTES: RouteAccess[] = [
   // A well-formed but unknown token: the handler itself answers 400 "link not valid".
   { method: "POST", path: "/api/password/set", access: "public", body: () => ({ token: "x".repeat(43), password: "long-enough-password" }), allowedStatus: 400 },
   { method: "GET", path: "/api/me", access: "signed-in", allowedStatus: 200 },
+  { method: "GET", path: "/api/workspace", access: "signed-in", allowedStatus: 200 },
+  // The demo workspace has every starter already: nothing is created (201, created []).
+  { method: "POST", path: "/api/part-types/starters", access: ["lead"], body: () => ({ slugs: ["battery"] }), allowedStatus: 201 },
+  // Sets the default again, so the other tests' times stay in UTC.
+  { method: "PATCH", path: "/api/workspace", access: ["lead"], body: () => ({ timeZone: "UTC" }), allowedStatus: 200 },
   { method: "GET", path: "/api/people", access: ["lead"], allowedStatus: 200 },
   { method: "POST", path: "/api/people", access: ["lead"], body: () => ({ email: `${unique("invitee")}@tests.example`, name: "Route Invitee", roles: ["inspector"] }), allowedStatus: 201 },
   { method: "GET", path: "/api/people/:personId", access: ["lead"], allowedStatus: 200 },
@@ -44,16 +51,18 @@ export const ROUTES: RouteAccess[] = [
   // The draft exists, so opening it again answers 200 with the same draft.
   { method: "POST", path: "/api/part-types/:partTypeId/rubrics", access: ["trainer"], allowedStatus: 200 },
   { method: "GET", path: "/api/part-types/:partTypeId/rubrics/draft", access: "signed-in", allowedStatus: 200 },
-  { method: "PATCH", path: "/api/part-types/:partTypeId/rubrics/draft", access: ["trainer"], body: () => ({ rubric: { rules: [{ id: unique("route-check"), metric: "count", defect: "scratch", comparison: ">", threshold: 3, grade: "B" }] } }), allowedStatus: 200 },
+  // Every allowed caller names edit 0 of draft v2: the first saves (200), the later ones meet its save (409).
+  { method: "PATCH", path: "/api/part-types/:partTypeId/rubrics/draft", access: ["trainer"], body: () => ({ rubric: { rules: [{ id: unique("route-check"), metric: "count", defect: "scratch", comparison: ">", threshold: 3, grade: "B" }] }, version: 2, revision: 0 }), allowedStatus: [200, 409] },
   { method: "GET", path: "/api/part-types/:partTypeId/rubrics/diff", access: "signed-in", allowedStatus: 200 },
   { method: "POST", path: "/api/part-types/:partTypeId/rubrics/preview", access: "signed-in", body: () => ({ rubric: { rules: [{ id: "preview", metric: "count", defect: "scratch", comparison: ">", threshold: 0, grade: "B" }] }, photos: [] }), allowedStatus: 200 },
-  { method: "POST", path: "/api/part-types/:publishPartTypeId/rubrics/draft/publish", access: ["lead"], allowedStatus: 200 },
+  { method: "POST", path: "/api/part-types/:publishPartTypeId/rubrics/draft/publish", access: ["lead"], body: () => ({ version: 2, revision: 0 }), allowedStatus: 200 },
   // Grading (the fixture unit has a ready photo with regions, measured and graded once).
   { method: "POST", path: "/api/units/:unitId/measure", access: ["inspector"], allowedStatus: 200 },
-  { method: "GET", path: "/api/units/:unitId/measure", access: "signed-in", allowedStatus: 200 },
-  { method: "GET", path: "/api/units/:unitId/grades", access: "signed-in", allowedStatus: 200 },
-  { method: "POST", path: "/api/units/:unitId/grades", access: ["inspector"], body: () => ({ decision: "accept" }), allowedStatus: 201 },
-  { method: "GET", path: "/api/units/:unitId/grade-preview", access: "signed-in", allowedStatus: 200 },
+  { method: "GET", path: "/api/units/:unitId/measure", access: inspectionWork, allowedStatus: 200 },
+  { method: "GET", path: "/api/units/:unitId/grades", access: inspectionWork, allowedStatus: 200 },
+  // The fixture unit is graded: a plain grade is refused (409) for anyone allowed (grade-integrity.test.ts covers overrides).
+  { method: "POST", path: "/api/units/:unitId/grades", access: ["inspector"], body: () => ({ decision: "accept" }), allowedStatus: 409 },
+  { method: "GET", path: "/api/units/:unitId/grade-preview", access: inspectionWork, allowedStatus: 200 },
   // Queue and leases (the fixture unit is queued, so renewing or releasing it is a 409 for anyone allowed).
   { method: "POST", path: "/api/queue/next", access: ["inspector"], body: () => ({ lotId: "00000000-0000-4000-8000-000000000000" }), allowedStatus: 204 },
   { method: "GET", path: "/api/queue", access: ["inspector"], allowedStatus: 200 },
@@ -62,12 +71,12 @@ export const ROUTES: RouteAccess[] = [
   { method: "DELETE", path: "/api/units/:queuedUnitId/lease", access: ["inspector"], allowedStatus: 409 },
   { method: "POST", path: "/api/units/:queuedUnitId/lease/reassign", access: ["lead"], body: (ids) => ({ userId: ids.inspectorId }), allowedStatus: 200 },
   // Photo intake (tests/support/photo-access.ts: a unit on the bench with one ready photo).
-  { method: "GET", path: "/api/units/:photoUnitId/photos", access: "signed-in", allowedStatus: 200 },
+  { method: "GET", path: "/api/units/:photoUnitId/photos", access: inspectionWork, allowedStatus: 200 },
   // An intent stores nothing (no row, no object) until the browser uploads and finalises.
   { method: "POST", path: "/api/units/:photoUnitId/photos/uploads", access: ["inspector"], body: () => ({ viewKey: "front", fileName: "route-check.jpg", contentType: "image/jpeg", bytes: 1000 }), allowedStatus: 201 },
   // A well-formed but forged ticket: the handler itself answers 400 (real finalising is in photos.test.ts).
   { method: "POST", path: "/api/units/:photoUnitId/photos", access: ["inspector"], body: () => ({ ticket: `${"e30".repeat(8)}.${"x".repeat(43)}` }), allowedStatus: 400 },
-  { method: "GET", path: "/api/photos/:photoId", access: "signed-in", allowedStatus: 200 },
+  { method: "GET", path: "/api/photos/:photoId", access: inspectionWork, allowedStatus: 200 },
   // The fixture photo is ready: evidence is not dismissed, nothing to retry (both 409 for anyone allowed).
   { method: "DELETE", path: "/api/photos/:photoId", access: ["inspector"], allowedStatus: 409 },
   { method: "POST", path: "/api/photos/:photoId/retry", access: ["inspector"], allowedStatus: 409 },
@@ -76,7 +85,7 @@ export const ROUTES: RouteAccess[] = [
   // A one-minute presigned GET of the untouched original.
   { method: "GET", path: "/api/photos/:photoId/original", access: "signed-in", allowedStatus: 302 },
   // Regions and suggestions on the Bench (tests/support/region-access.ts: a ready photo on a unit nobody holds).
-  { method: "GET", path: "/api/photos/:regionPhotoId/regions", access: "signed-in", allowedStatus: 200 },
+  { method: "GET", path: "/api/photos/:regionPhotoId/regions", access: inspectionWork, allowedStatus: 200 },
   // Every allowed caller sends version 0: the first one saves (200), the later ones meet its save (409 with the current set).
   { method: "PUT", path: "/api/photos/:regionPhotoId/regions", access: ["inspector"], body: () => ({ baseVersion: 0, regions: { regions: [{ id: "route-1", defect: "scratch", shape: { kind: "rect", x: 10, y: 10, width: 20, height: 10 } }], surfaces: [], ruler: null } }), allowedStatus: [200, 409] },
   { method: "POST", path: "/api/photos/:regionPhotoId/suggestions", access: ["inspector"], body: () => ({ kind: "surface" }), allowedStatus: 200 },
@@ -94,7 +103,7 @@ export const ROUTES: RouteAccess[] = [
   { method: "POST", path: "/api/lots/:decidableLotId/disposition", access: ["lead"], body: () => ({ disposition: "return_to_vendor", reason: "Route check: swollen cell." }), allowedStatus: 200 },
   { method: "GET", path: "/api/inspection-schemes?supplierId=:supplierId&partTypeId=:lotPartTypeId", access: ["inspector", "auditor"], allowedStatus: 200 },
   { method: "PUT", path: "/api/inspection-schemes", access: ["lead"], body: (ids) => ({ supplierId: ids.supplierId, partTypeId: ids.lotPartTypeId, steadyProduction: true }), allowedStatus: 200 },
-  { method: "GET", path: "/api/units/:benchUnitId", access: ["inspector", "auditor"], allowedStatus: 200 },
+  { method: "GET", path: "/api/units/:benchUnitId", access: inspectionWork, allowedStatus: 200 },
   { method: "PATCH", path: "/api/units/:serialUnitId", access: ["inspector"], body: () => ({ serial: unique("SN-ROUTE") }), allowedStatus: 200 },
   // The inspector's first result takes the queued unit onto their bench; the lead may still correct it.
   { method: "POST", path: "/api/units/:benchUnitId/checklist", access: ["inspector"], body: () => ({ itemId: "power", value: { pass: true } }), allowedStatus: 200 },

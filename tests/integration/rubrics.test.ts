@@ -50,12 +50,13 @@ describe("rubric drafts and publishing", () => {
     const draft = await api<{ draft: { version: number; rubric: unknown; basedOnVersion: number } }>(trainer, "GET", `${base}/draft`);
     expect(draft.body.draft).toMatchObject({ version: 2, basedOnVersion: 1, rubric: FIXTURE_RUBRIC_V1 });
 
-    const saved = await api(trainer, "PATCH", `${base}/draft`, { rubric: { ...FIXTURE_RUBRIC_V1, rules: v2Rules } });
+    const saved = await api(trainer, "PATCH", `${base}/draft`, { rubric: { ...FIXTURE_RUBRIC_V1, rules: v2Rules }, version: 2, revision: 0 });
     expect(saved.status, JSON.stringify(saved.body)).toBe(200);
+    expect(saved.body).toMatchObject({ version: 2, revision: 1 });
 
-    const byTrainer = await api<ErrorBody>(trainer, "POST", `${base}/draft/publish`);
+    const byTrainer = await api<ErrorBody>(trainer, "POST", `${base}/draft/publish`, { version: 2, revision: 1 });
     expect(byTrainer.status).toBe(403);
-    const published = await api(lead, "POST", `${base}/draft/publish`);
+    const published = await api(lead, "POST", `${base}/draft/publish`, { version: 2, revision: 1 });
     expect(published.status).toBe(200);
     expect(published.body).toEqual({ version: 2 });
 
@@ -64,7 +65,7 @@ describe("rubric drafts and publishing", () => {
     expect(list.body.versions[0].rubric.rules.find((r) => r.id === "lens-scratch-c")?.threshold).toBe(2);
 
     // No draft any more: saving answers 409 and the published v2 is untouched.
-    const late = await api<ErrorBody>(trainer, "PATCH", `${base}/draft`, { rubric: { rules: [] } });
+    const late = await api<ErrorBody>(trainer, "PATCH", `${base}/draft`, { rubric: { rules: [] }, version: 2, revision: 1 });
     expect(late.status).toBe(409);
     expect((await api<Versions>(inspector, "GET", base)).body.versions[0].rubric.rules).toHaveLength(2);
 
@@ -90,12 +91,14 @@ describe("rubric drafts and publishing", () => {
       [{ rules: "all of them" }, /rules: must be a list of rules/],
     ];
     for (const [rubric, message] of bad) {
-      const res = await api<ErrorBody>(trainer, "PATCH", `${base}/draft`, { rubric });
+      const res = await api<ErrorBody>(trainer, "PATCH", `${base}/draft`, { rubric, version: 2, revision: 0 });
       expect(res.status, JSON.stringify(rubric)).toBe(400);
       expect(res.body.error.message).toMatch(message);
       expect(Object.keys(res.body.error.fieldErrors ?? {}).every((key) => key.startsWith("rubric"))).toBe(true);
     }
-    expect((await api(trainer, "PATCH", `${base}/draft`, { rubric: { rules: [] }, extra: 1 })).status).toBe(400);
+    expect((await api(trainer, "PATCH", `${base}/draft`, { rubric: { rules: [] }, version: 2, revision: 0, extra: 1 })).status).toBe(400);
+    // Without the revision it was based on, a save is refused before anything is read.
+    expect((await api<ErrorBody>(trainer, "PATCH", `${base}/draft`, { rubric: { rules: [] } })).body.error.fieldErrors?.revision).toMatch(/the draft's revision/);
     const after = (await api<{ draft: { rubric: unknown; updatedAt: string } }>(trainer, "GET", `${base}/draft`)).body.draft;
     expect(after).toEqual(before);
   });
@@ -106,8 +109,8 @@ describe("rubric drafts and publishing", () => {
     expect((await api(inspector, "POST", base)).status).toBe(403);
     expect((await api(await signIn("auditor@vellmoor.example"), "POST", base)).status).toBe(403);
     expect((await api(lead, "POST", base)).status).toBe(201);
-    expect((await api(inspector, "PATCH", `${base}/draft`, { rubric: { rules: [] } })).status).toBe(403);
-    expect((await api(inspector, "POST", `${base}/draft/publish`)).status).toBe(403);
+    expect((await api(inspector, "PATCH", `${base}/draft`, { rubric: { rules: [] }, version: 2, revision: 0 })).status).toBe(403);
+    expect((await api(inspector, "POST", `${base}/draft/publish`, { version: 2, revision: 0 })).status).toBe(403);
   });
 
   it("another workspace's part type is a 404, exactly like a missing one", async () => {
@@ -118,20 +121,49 @@ describe("rubric drafts and publishing", () => {
     expect(foreign.status).toBe(404);
     expect(foreign.body).toEqual(missing.body);
     expect((await api(other, "POST", `/api/part-types/${partType.id}/rubrics`)).status).toBe(404);
-    expect((await api(other, "POST", `/api/part-types/${partType.id}/rubrics/draft/publish`)).status).toBe(404);
+    expect((await api(other, "POST", `/api/part-types/${partType.id}/rubrics/draft/publish`, { version: 2, revision: 0 })).status).toBe(404);
   });
 
   it("publishing re-checks the draft against the part type as it is now", async () => {
     const partType = await partTypeWithV1();
     const base = `/api/part-types/${partType.id}/rubrics`;
     await api(trainer, "POST", base);
-    await api(trainer, "PATCH", `${base}/draft`, { rubric: { rules: [{ id: "dent-b", metric: "count", defect: "dent", comparison: ">", threshold: 0, grade: "B" }] } });
+    await api(trainer, "PATCH", `${base}/draft`, { rubric: { rules: [{ id: "dent-b", metric: "count", defect: "dent", comparison: ">", threshold: 0, grade: "B" }] }, version: 2, revision: 0 });
     // The part type loses its "dent" class after the draft was saved.
     await db().execute(sql`UPDATE part_types SET defect_classes = '[{"key":"scratch","label":"scratch","severity":"major"}]'::jsonb WHERE id = ${partType.id}`);
-    const res = await api<ErrorBody>(lead, "POST", `${base}/draft/publish`);
+    const res = await api<ErrorBody>(lead, "POST", `${base}/draft/publish`, { version: 2, revision: 1 });
     expect(res.status).toBe(400);
     expect(res.body.error.message).toMatch(/defect class "dent" is not one of this part type's defect classes/);
     expect((await api<{ draft: { status: string } }>(lead, "GET", `${base}/draft`)).body.draft.status).toBe("draft");
+  });
+});
+
+describe("drafts carry their revision (no lost updates)", () => {
+  it("a save or publish based on an older edit of the draft is refused with 409 and changes nothing", async () => {
+    const partType = await partTypeWithV1();
+    const base = `/api/part-types/${partType.id}/rubrics`;
+    await api(trainer, "POST", base);
+    const opened = (await api<{ draft: { version: number; revision: number } }>(trainer, "GET", `${base}/draft`)).body.draft;
+    expect(opened).toMatchObject({ version: 2, revision: 0 });
+    // Two people opened edit 0; the trainer saves first.
+    const first = await api<{ revision: number }>(trainer, "PATCH", `${base}/draft`, { rubric: { ...FIXTURE_RUBRIC_V1, rules: v2Rules }, version: 2, revision: 0 });
+    expect(first.status).toBe(200);
+    expect(first.body.revision).toBe(1);
+    // The lead, still on edit 0, would overwrite the trainer's rules unseen: 409.
+    const stale = await api<ErrorBody>(lead, "PATCH", `${base}/draft`, { rubric: { rules: [] }, version: 2, revision: 0 });
+    expect(stale.status).toBe(409);
+    expect(stale.body.error.message).toMatch(/was saved again .*edit 1; you had edit 0.*reload the draft/);
+    // Nor may the lead publish edit 0: what would be published is not what they reviewed.
+    const blindPublish = await api<ErrorBody>(lead, "POST", `${base}/draft/publish`, { version: 2, revision: 0 });
+    expect(blindPublish.status).toBe(409);
+    const draft = (await api<{ draft: { status: string; revision: number; rubric: { rules: unknown[] } } }>(lead, "GET", `${base}/draft`)).body.draft;
+    expect(draft).toMatchObject({ status: "draft", revision: 1 });
+    expect(draft.rubric.rules).toHaveLength(v2Rules.length);
+    // A draft of another version number (v3 after v2 is published) is "moved" as well.
+    expect((await api(lead, "POST", `${base}/draft/publish`, { version: 2, revision: 1 })).status).toBe(200);
+    await api(trainer, "POST", base);
+    expect((await api<ErrorBody>(trainer, "PATCH", `${base}/draft`, { rubric: { rules: [] }, version: 2, revision: 1 })).status).toBe(409);
+    expect((await api(trainer, "PATCH", `${base}/draft`, { rubric: { rules: [] }, version: 3, revision: 0 })).status).toBe(200);
   });
 });
 

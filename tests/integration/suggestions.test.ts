@@ -36,7 +36,8 @@ async function displayUnit() {
       category: "display",
       views: [
         { key: "front", label: "Front", required: true, zones: [] },
-        { key: "screen-white", label: "White screen", required: true, zones: [] },
+        // The display's active area, as the seeded display part type has it (0..1 of the Surface box).
+        { key: "screen-white", label: "White screen", required: true, zones: [{ id: "screen-active", label: "Screen active", polygon: [[0.04, 0.03], [0.96, 0.03], [0.96, 0.97], [0.04, 0.97]] }] },
       ],
       defectClasses: [
         { key: "scratch", label: "Scratch", severity: "minor" },
@@ -81,31 +82,57 @@ describe("suggestions", () => {
     expect(set).toBeUndefined();
   });
 
-  it("finds planted pixel faults on a screen view as Spots of their class, in original pixels", async () => {
+  it("finds planted pixel faults only inside the active screen area, an edge band in from its edges", async () => {
     const unit = await displayUnit();
+    // A photo of the lit panel: dark table (18), the device's body (38) at x 100–1100, y 80–820 =
+    // the Surface, the lit panel (128 ± 3) with 40 px rounded corners at x 120–1080, y 90–810.
+    // The zone is x 140–1060, y 102.2–797.8 (0.04–0.96 × 0.03–0.97 of the Surface box); the edge
+    // band is max(16 px, 2 % of 695.6 px) = 16 px (lib/regions/screen-area.ts).
     const [w, h] = [1200, 900];
     const raw = Buffer.alloc(w * h * 3);
+    const inRounded = (x: number, y: number) => {
+      if (x < 120 || x >= 1080 || y < 90 || y >= 810) return false;
+      const cx = Math.min(Math.max(x, 160), 1040);
+      const cy = Math.min(Math.max(y, 130), 770);
+      return Math.hypot(x - cx, y - cy) <= 40;
+    };
     let state = 12345;
-    for (let i = 0; i < raw.length; i++) {
-      state = (state * 1103515245 + 12345) >>> 0;
-      raw[i] = 128 + ((state >>> 16) % 7) - 3;
+    for (let y = 0; y < h; y++) {
+      for (let x = 0; x < w; x++) {
+        const level = inRounded(x, y) ? 128 : x >= 100 && x < 1100 && y >= 80 && y < 820 ? 38 : 18;
+        for (let c = 0; c < 3; c++) {
+          state = (state * 1103515245 + 12345) >>> 0;
+          raw[(y * w + x) * 3 + c] = level + ((state >>> 16) % 7) - 3;
+        }
+      }
     }
-    const planted: { x: number; y: number; value: number }[] = [
-      { x: 300, y: 200, value: 255 },
-      { x: 900, y: 650, value: 0 },
-    ];
-    for (const p of planted) for (let dy = 0; dy < 2; dy++) for (let dx = 0; dx < 2; dx++) raw.fill(p.value, ((p.y + dy) * w + p.x + dx) * 3, ((p.y + dy) * w + p.x + dx) * 3 + 3);
+    const speck = (x: number, y: number, value: number) => {
+      for (let dy = 0; dy < 2; dy++) for (let dx = 0; dx < 2; dx++) raw.fill(value, ((y + dy) * w + x + dx) * 3, ((y + dy) * w + x + dx) * 3 + 3);
+    };
+    speck(300, 200, 255); // inside: a lit pixel
+    speck(900, 650, 0); // inside: a dark pixel
+    speck(20, 20, 255); // the photo's corner
+    speck(108, 400, 255); // the body, outside the panel
+    speck(148, 400, 255); // inside the zone, 8 px from its edge: in the band
     const jpeg = await sharp(raw, { raw: { width: w, height: h, channels: 3 } }).jpeg({ quality: 95, chromaSubsampling: "4:4:4" }).toBuffer();
     const screen = await upload(unit.id, jpeg, "screen-white");
 
+    const noSurface = await suggest(screen.id, { kind: "pixel-candidates" });
+    expect(noSurface.status).toBe(409);
+    expect(noSurface.body.error?.message).toMatch(/no Surface yet/);
+
+    const surface = { id: "surface-1", shape: { kind: "polygon", points: [[100, 80], [1100, 80], [1100, 820], [100, 820]] } };
+    const saved = await api(inspector, "PUT", `/api/photos/${screen.id}/regions`, { baseVersion: 0, regions: { surfaces: [surface], regions: [], ruler: null } });
+    expect(saved.status, JSON.stringify(saved.body)).toBe(200);
     const res = await suggest(screen.id, { kind: "pixel-candidates" });
     expect(res.status, JSON.stringify(res.body)).toBe(200);
     const spots = res.body.ghosts.map((g) => ({ defect: g.role === "defect" ? g.defect : null, ...(g.shape.kind === "spot" ? g.shape : { x: NaN, y: NaN, radius: NaN }) }));
     // A 2 × 2 fault at (x, y) has its centre at (x + 1, y + 1) (pixel i spans [i, i + 1)).
+    expect(spots).toHaveLength(2); // nothing at the photo's corner, on the body or in the band
     expect(spots.find((s) => Math.hypot(s.x - 301, s.y - 201) <= 1.5)).toMatchObject({ defect: "pixel-lit" });
     expect(spots.find((s) => Math.hypot(s.x - 901, s.y - 651) <= 1.5)).toMatchObject({ defect: "pixel-dark" });
     expect(spots.every((s) => s.radius >= 1)).toBe(true);
-    expect(res.body.note).toMatch(/candidates? found/);
+    expect(res.body.note).toMatch(/^2 candidates found inside the Surface and the zone Screen active, 16 px in from their edges\./);
   });
 
   it("looks for pixel faults only on screen views, and refuses unknown kinds and fields", async () => {

@@ -4,6 +4,7 @@ import { notFound } from "next/navigation";
 import { listOutgoingEmails } from "@/db/queries/emails";
 import { requirePageUser } from "@/lib/auth/require-user";
 import { localInboxDir } from "@/lib/env";
+import { formatDateTime } from "@/lib/time/format";
 
 export const metadata: Metadata = { title: "Outbox" };
 
@@ -38,7 +39,7 @@ export default async function OutboxPage() {
           <tbody className="divide-y divide-gauge-100">
             {emails.map((e) => (
               <tr key={e.id}>
-                <td className="whitespace-nowrap px-4 py-2">{e.createdAt.toISOString().slice(0, 16).replace("T", " ")}</td>
+                <td className="whitespace-nowrap px-4 py-2">{formatDateTime(e.createdAt, user.timeZone)}</td>
                 <td className="px-4 py-2">{KIND_LABELS[e.kind]}</td>
                 <td className="px-4 py-2">{e.toAddress}</td>
                 <td className="px-4 py-2">

@@ -1,10 +1,13 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+import { AddStartersForm } from "@/components/part-types/add-starters-form";
+import { EmptyState } from "@/components/ui/empty-state";
 import { listPartTypes } from "@/db/queries/part-types";
 import { requirePageUser } from "@/lib/auth/require-user";
 import { hasAnyRole } from "@/lib/auth/roles";
 import { screenByHref } from "@/lib/nav";
 import { CATEGORY_LABELS, type PartCategory } from "@/lib/part-types/schemas";
+import { STARTER_CHOICES } from "@/lib/part-types/starters";
 
 const screen = screenByHref("/part-types")!;
 export const metadata: Metadata = { title: screen.label };
@@ -12,6 +15,7 @@ export const metadata: Metadata = { title: screen.label };
 export default async function PartTypesPage() {
   const user = await requirePageUser({ role: screen.roles, from: screen.href });
   const partTypes = await listPartTypes({ workspaceId: user.workspaceId });
+  const isLead = hasAnyRole(user.roles, "lead");
   return (
     <div className="max-w-5xl space-y-6">
       <div className="flex flex-wrap items-end justify-between gap-3">
@@ -19,8 +23,18 @@ export default async function PartTypesPage() {
           <h1 className="page-title">Part types</h1>
           <p className="text-gauge-700">{screen.summary}</p>
         </div>
-        {hasAnyRole(user.roles, "lead") && <Link href="/part-types/new" className="btn-primary">New part type</Link>}
+        {isLead && <Link href="/part-types/new" className="btn-primary">New part type</Link>}
       </div>
+      {partTypes.length === 0 && (
+        <EmptyState title="No part types yet">
+          <p className="mb-3">
+            A part type says what the Bench asks for: the views to photograph and their zones, the defect classes and how serious each is, and the functional
+            checklist.{" "}
+            {isLead ? "Start from the examples below (each with an example rubric as a draft, to adapt before you publish it), or make your own with New part type." : "A QC lead adds them."}
+          </p>
+          {isLead && <AddStartersForm choices={STARTER_CHOICES} />}
+        </EmptyState>
+      )}
       <div className="card overflow-x-auto">
         <table className="min-w-full text-sm" data-testid="part-type-table">
           <thead className="bg-gauge-50 text-left text-xs uppercase tracking-wide text-gauge-600">

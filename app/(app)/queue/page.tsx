@@ -1,10 +1,14 @@
-import type { Metadata } from "next";
 import { asc, and, eq } from "drizzle-orm";
-import { db } from "@/db/client";
-import { lots, partTypes, suppliers } from "@/db/schema";
+import type { Metadata } from "next";
 import { QueueBoard } from "@/components/queue/queue-board";
+import { EmptyState } from "@/components/ui/empty-state";
+import { db } from "@/db/client";
+import { getSetupCounts } from "@/db/queries/workspaces";
+import { lots, partTypes, suppliers } from "@/db/schema";
 import { requirePageUser } from "@/lib/auth/require-user";
+import { hasAnyRole } from "@/lib/auth/roles";
 import { screenByHref } from "@/lib/nav";
+import { setupSteps } from "@/lib/workspace/setup";
 
 const screen = screenByHref("/queue")!;
 export const metadata: Metadata = { title: screen.label };
@@ -12,7 +16,8 @@ export const metadata: Metadata = { title: screen.label };
 export default async function QueuePage() {
   const user = await requirePageUser({ role: screen.roles, from: screen.href });
   const ws = user.workspaceId;
-  const [pts, sups, openLots] = await Promise.all([
+  const [counts, pts, sups, openLots] = await Promise.all([
+    getSetupCounts({ workspaceId: ws }),
     db().select({ id: partTypes.id, name: partTypes.name }).from(partTypes).where(eq(partTypes.workspaceId, ws)).orderBy(asc(partTypes.name)),
     db().select({ id: suppliers.id, name: suppliers.name }).from(suppliers).where(eq(suppliers.workspaceId, ws)).orderBy(asc(suppliers.name)),
     db()
@@ -27,6 +32,11 @@ export default async function QueuePage() {
         <h1 className="page-title">Queue</h1>
         <p className="text-gauge-700">Take next gives you the most urgent waiting unit (earliest due lot first) and reserves it for you while its Bench is open.</p>
       </div>
+      {counts.units === 0 && (
+        <EmptyState title="Nothing to inspect yet" steps={hasAnyRole(user.roles, "lead") ? setupSteps(counts).filter((s) => s.key === "lot") : []} testId="queue-empty">
+          Units arrive here when a QC lead receives a lot and creates its sample (from the supplier&apos;s serial list or as numbered placeholders).
+        </EmptyState>
+      )}
       <QueueBoard options={{ partTypes: pts, suppliers: sups, lots: openLots.map((l) => ({ id: l.id, label: `${l.purchaseRef} (due ${l.dueOn})` })) }} />
     </div>
   );

@@ -3,7 +3,7 @@ import { requireUser } from "@/lib/auth/require-user";
 import { handler, parseJson, parseQuery } from "@/lib/http/route";
 import { lotSummary } from "@/lib/lots/dto";
 import { createLot } from "@/lib/lots/lots";
-import { lotProgress } from "@/lib/lots/progress";
+import { lotProgress, progressInput } from "@/lib/lots/progress";
 import { lotCreateSchema, lotListQuerySchema } from "@/lib/lots/schemas";
 import { screenByHref } from "@/lib/nav";
 
@@ -14,7 +14,7 @@ export const GET = handler(async (req) => {
   const user = await requireUser({ role: LOTS_ROLES });
   const query = parseQuery(req, lotListQuerySchema);
   const { rows, total } = await listLots({ workspaceId: user.workspaceId, query });
-  const progress = await lotProgress(user.workspaceId, rows.map((r) => ({ id: r.lot.id, plan: r.lot.plan, checklistItemIds: r.checklistItemIds })));
+  const progress = await lotProgress(user.workspaceId, rows.map(progressInput));
   return Response.json({ lots: rows.map((r) => lotSummary(r, progress.get(r.lot.id)!)), total, page: query.page, pageSize: query.pageSize });
 });
 

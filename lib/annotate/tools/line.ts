@@ -2,7 +2,7 @@
  * Line: a polyline with a stroke width, for scratches and cracks. `[` and `]` step the width of
  * the line being drawn (and of lines drawn after it) along LINE_WIDTH_STEPS.
  */
-import { maxExtentFor } from "@/lib/geometry/clamp";
+import { maxLineWidthFor } from "@/lib/geometry/clamp";
 import type { LineShape } from "@/lib/geometry/shape";
 import { stepAlongLadder } from "../constants";
 import { addDefectShape, setDefaultLineWidth } from "../model";
@@ -16,7 +16,7 @@ export const lineSpec: VertexToolSpec = {
   description: "Click along a scratch or crack; double-click or Enter finishes. [ and ] set the width.",
   closed: false,
   isEnabled: hasDefectClass,
-  shapeFrom: (state, points): LineShape => ({ kind: "line", points, width: Math.min(state.lineWidth, maxExtentFor(state.image)) }),
+  shapeFrom: (state, points): LineShape => ({ kind: "line", points, width: Math.min(state.lineWidth, maxLineWidthFor(state.image)) }),
   commit: addDefectShape,
   extraKey(state, key) {
     if (key !== "[" && key !== "]") return state;

@@ -1,11 +1,16 @@
 /**
  * Validation of measureCoverage's input (and, from the same pieces, of the region-set comparison
  * in lib/imaging/compare-regions.ts): bad input is refused with one clear AppError
- * ("bad_request") that names every offending field, before any work is done.
+ * ("bad_request") that names every offending field, before any work is done — for coverage
+ * also input that is valid but would cost too much (checkMeasuringCost).
  */
 import { z } from "zod";
 import { AppError } from "@/lib/errors";
+import { maxLineWidthFor, maxSpotRadiusFor } from "@/lib/geometry/clamp";
+import { MAX_RASTER_ROWS_PER_PHOTO } from "@/lib/geometry/limits";
+import { describeRasterBudget } from "@/lib/geometry/validate";
 import type { CoverageInput } from "@/lib/measure/types";
+import { rasterRows } from "./cost";
 
 /** Coordinates beyond this are surely a bug (photos are a few thousand pixels wide). */
 const COORDINATE_LIMIT = 1_000_000;
@@ -75,7 +80,26 @@ const coverageInputSchema = z
       })
       .optional(),
   })
-  .superRefine(checkPhotoSize);
+  .superRefine((input, context) => {
+    checkPhotoSize(input, context);
+    checkMeasuringCost(input, context);
+  });
+
+/**
+ * Input that is valid but would cost too much: Line widths and Spot radii beyond their caps for
+ * the photo (lib/geometry/limits.ts), more shape rows than the per-photo budget (raster/cost.ts).
+ */
+export function checkMeasuringCost(input: CoverageInput, context: z.RefinementCtx): void {
+  const lineCap = maxLineWidthFor(input);
+  const spotCap = maxSpotRadiusFor(input);
+  input.regions.forEach(({ shape }, index) => {
+    if (shape.kind === "line" && shape.width > lineCap) context.addIssue({ code: "custom", path: ["regions", index, "shape", "width"], message: `must be at most ${lineCap} px (5 % of the photo's long edge)` });
+    if (shape.kind === "spot" && shape.radius > spotCap) context.addIssue({ code: "custom", path: ["regions", index, "shape", "radius"], message: `must be at most ${spotCap} px (10 % of the photo's long edge)` });
+  });
+  const shapes = [...input.regions.map((r) => r.shape), ...(input.surface ?? []), ...(input.zones ?? []).map((z) => z.shape)];
+  const rows = rasterRows(shapes, input);
+  if (rows > MAX_RASTER_ROWS_PER_PHOTO) context.addIssue({ code: "custom", path: ["regions"], message: describeRasterBudget(rows) });
+}
 
 export function parseCoverageInput(input: unknown): CoverageInput {
   return parseOrRefuse(coverageInputSchema, input, "coverage input");

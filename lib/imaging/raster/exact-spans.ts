@@ -22,32 +22,37 @@ function rowRange(y0: number, y1: number, frame: Frame): [number, number] {
 const firstColumn = (x0: number) => Math.max(0, Math.ceil(x0 - 0.5));
 const endColumn = (x1: number, frame: Frame) => Math.min(frame.width, Math.ceil(x1 - 0.5));
 
-export function shapeSpans(shape: Shape, frame: Frame): SpanSet {
+/** `check` is called once per row written (a deadline check, see lib/imaging/deadline.ts). */
+export function shapeSpans(shape: Shape, frame: Frame, check: () => void = () => {}): SpanSet {
   switch (shape.kind) {
     case "rect":
-      return rectSpans(shape.x, shape.y, shape.width, shape.height, frame);
+      return rectSpans(shape.x, shape.y, shape.width, shape.height, frame, check);
     case "spot":
-      return discSpans(shape.x, shape.y, shape.radius, frame);
+      return discSpans(shape.x, shape.y, shape.radius, frame, check);
     case "polygon":
-      return polygonSpans(shape.points, frame);
+      return polygonSpans(shape.points, frame, check);
     case "line":
-      return lineSpans(shape.points, shape.width / 2, frame);
+      return lineSpans(shape.points, shape.width / 2, frame, check);
   }
 }
 
-function rectSpans(x: number, y: number, width: number, height: number, frame: Frame): SpanSet {
+function rectSpans(x: number, y: number, width: number, height: number, frame: Frame, check: () => void): SpanSet {
   const [first, end] = rowRange(y, y + height, frame);
   const start = firstColumn(x);
   const stop = endColumn(x + width, frame);
   const writer = new SpanWriter();
-  for (let j = first; j < end; j++) writer.push(j, start, stop);
+  for (let j = first; j < end; j++) {
+    check();
+    writer.push(j, start, stop);
+  }
   return writer.finish();
 }
 
-function discSpans(cx: number, cy: number, radius: number, frame: Frame): SpanSet {
+function discSpans(cx: number, cy: number, radius: number, frame: Frame, check: () => void): SpanSet {
   const [first, end] = rowRange(cy - radius, cy + radius, frame);
   const writer = new SpanWriter();
   for (let j = first; j < end; j++) {
+    check();
     const dy = j + 0.5 - cy;
     const halfChord2 = radius * radius - dy * dy;
     if (halfChord2 <= 0) continue;
@@ -57,7 +62,7 @@ function discSpans(cx: number, cy: number, radius: number, frame: Frame): SpanSe
   return writer.finish();
 }
 
-function polygonSpans(points: Point[], frame: Frame): SpanSet {
+function polygonSpans(points: Point[], frame: Frame, check: () => void): SpanSet {
   let minY = Infinity;
   let maxY = -Infinity;
   for (const [, y] of points) {
@@ -91,18 +96,33 @@ function polygonSpans(points: Point[], frame: Frame): SpanSet {
     const slope = (x2 - x1) / (y2 - y1);
     const direction = y2 > y1 ? 1 : -1;
     for (let j = from; j < to; j++) {
+      check();
       const slot = fill[j - first]++;
       xs[slot] = x1 + (j + 0.5 - y1) * slope;
       directions[slot] = direction;
     }
   }
   const writer = new SpanWriter();
-  for (let j = first; j < end; j++) windingRow(j, xs, directions, rowStarts[j - first], rowStarts[j - first + 1], frame, writer);
+  for (let j = first; j < end; j++) {
+    check();
+    windingRow(j, xs, directions, rowStarts[j - first], rowStarts[j - first + 1], frame, writer);
+  }
   return writer.finish();
 }
 
-/** Sorts one row's crossings in place (few per row: insertion sort) and sweeps nonzero winding. */
+/** Above this many crossings in a row, insertion sort (quadratic) gives way to typed-array sorts. */
+const INSERTION_SORT_MAX = 32;
+let ups = new Float64Array(64);
+let downs = new Float64Array(64);
+
+/**
+ * Sorts one row's crossings and sweeps nonzero winding. Rows usually hold a handful of crossings
+ * (insertion sort, in place); a row crossed by many edges in an unlucky order (a zigzag outline)
+ * sorts its upward and downward crossings separately and merges them, so a row never costs more
+ * than k log k for k crossings.
+ */
 function windingRow(row: number, xs: Float64Array, directions: Int8Array, from: number, to: number, frame: Frame, writer: SpanWriter): void {
+  if (to - from > INSERTION_SORT_MAX) return windingRowSorted(row, xs, directions, from, to, frame, writer);
   for (let i = from + 1; i < to; i++) {
     const x = xs[i];
     const direction = directions[i];
@@ -125,12 +145,40 @@ function windingRow(row: number, xs: Float64Array, directions: Int8Array, from: 
   }
 }
 
-function lineSpans(points: Point[], halfWidth: number, frame: Frame): SpanSet {
+function windingRowSorted(row: number, xs: Float64Array, directions: Int8Array, from: number, to: number, frame: Frame, writer: SpanWriter): void {
+  if (ups.length < to - from) {
+    ups = new Float64Array(2 * (to - from));
+    downs = new Float64Array(2 * (to - from));
+  }
+  let upCount = 0;
+  let downCount = 0;
+  for (let i = from; i < to; i++) {
+    if (directions[i] > 0) ups[upCount++] = xs[i];
+    else downs[downCount++] = xs[i];
+  }
+  const up = ups.subarray(0, upCount).sort();
+  const down = downs.subarray(0, downCount).sort();
+  let winding = 0;
+  let start = 0;
+  for (let u = 0, d = 0; u < upCount || d < downCount; ) {
+    // Ties take the upward crossing first, as the insertion sort's stable order may not: either
+    // order yields the same covered pixels, since a zero-length run covers none.
+    const takeUp = d >= downCount || (u < upCount && up[u] <= down[d]);
+    const x = takeUp ? up[u++] : down[d++];
+    const before = winding;
+    winding += takeUp ? 1 : -1;
+    if (before === 0 && winding !== 0) start = x;
+    else if (before !== 0 && winding === 0) writer.push(row, firstColumn(start), endColumn(x, frame));
+  }
+}
+
+function lineSpans(points: Point[], halfWidth: number, frame: Frame, check: () => void): SpanSet {
   const loose = new LooseSpans();
   const section = new Float64Array(2);
   for (const [a, b] of lineSegments(points)) {
     const [from, to] = rowRange(Math.min(a[1], b[1]) - halfWidth, Math.max(a[1], b[1]) + halfWidth, frame);
     for (let j = from; j < to; j++) {
+      check();
       if (capsuleSection(a, b, halfWidth, j + 0.5, section)) loose.add(j, firstColumn(section[0]), endColumn(section[1], frame));
     }
   }

@@ -19,6 +19,7 @@
  * rectangles on pixel corners are exact.
  */
 import sharp from "sharp";
+import { AppError } from "@/lib/errors";
 import type { Point, Shape } from "@/lib/geometry/shape";
 import { lineSegments, shapeBounds, splitSegments, type Bounds } from "@/lib/imaging/raster/shape-geometry";
 import { LooseSpans, type SpanSet } from "@/lib/imaging/raster/spans";
@@ -174,9 +175,21 @@ async function renderAtlasMask(atlas: Atlas): Promise<Uint8Array> {
   return mask;
 }
 
+/**
+ * Tile pixels one call may render. The tiles, not the photo, are this path's cost: a 4 000 px wide
+ * Line across a 12 MP photo is 125 tiles of 16 MP each (two billion pixels, about 16 s). The caps
+ * on widths and radii keep real input far below; this refuses whatever still gets through.
+ */
+export const MAX_TILE_PIXELS = 400_000_000;
+
 /** One span set per input shape (same order), clipped to the image. */
 export async function sharpShapeSpans(shapes: Shape[], frame: Frame): Promise<SpanSet[]> {
-  const atlases = packAtlases(collectPieces(shapes, frame));
+  const pieces = collectPieces(shapes, frame);
+  const tilePixels = pieces.reduce((sum, p) => sum + (p.right - p.left) * (p.bottom - p.top), 0);
+  if (tilePixels > MAX_TILE_PIXELS) {
+    throw new AppError("bad_request", `These regions need ${Math.round(tilePixels / 1e6)} million tile pixels to rasterise with sharp; at most ${MAX_TILE_PIXELS / 1e6} million are allowed.`);
+  }
+  const atlases = packAtlases(pieces);
   const masks = await Promise.all(atlases.map(renderAtlasMask));
   const loose = shapes.map(() => new LooseSpans());
   atlases.forEach((atlas, index) => {

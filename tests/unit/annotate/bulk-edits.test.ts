@@ -1,6 +1,6 @@
 /** Replacing the whole set (reload / merge) and adding accepted suggestions: each one undo step. */
 import { describe, expect, it } from "vitest";
-import { addNewRegions, replaceAllRegions } from "@/lib/annotate/bulk-edits";
+import { addNewRegions, describeAddOutcome, replaceAllRegions } from "@/lib/annotate/bulk-edits";
 import { undo, redo } from "@/lib/annotate/history";
 import { selectRegion } from "@/lib/annotate/model";
 import type { Region } from "@/lib/annotate/types";
@@ -54,5 +54,17 @@ describe("adding accepted suggestions", () => {
   it("returns the same state when nothing can be added", () => {
     const s = makeState();
     expect(addNewRegions(s, [{ role: "defect", defect: "unknown", shape: { kind: "spot", x: 1, y: 1, radius: 1 } }]).state).toBe(s);
+  });
+
+  it("counts what it left out and why: another class, an invalid shape, a repeat of a region already there", () => {
+    const spot = (x: number, y: number, defect = "dead-pixel") => ({ role: "defect" as const, defect, shape: { kind: "spot" as const, x, y, radius: 1 } });
+    const first = addNewRegions(makeState(), [spot(40, 50)]).state;
+    const outcome = addNewRegions(first, [spot(40.5, 50.2), spot(300, 300), spot(300.4, 300), { role: "defect", defect: "dead-pixel", shape: { kind: "spot", x: 500, y: 500, radius: 0 } }, spot(60, 60, "not-a-class")]);
+    expect(outcome.ids).toHaveLength(1); // only the Spot at (300, 300); its neighbour repeats it
+    expect(outcome.skipped).toEqual({ class: 1, invalid: 1, duplicate: 2, limit: 0 });
+    expect(describeAddOutcome(outcome, 5)).toBe(
+      "Accepted 1 of 5: 2 repeat regions of the same class already marked there; 1 is of a class this part type does not have; 1 is too small or outside the photo.",
+    );
+    expect(describeAddOutcome({ ids: ["a", "b"], skipped: { class: 0, invalid: 0, duplicate: 0, limit: 0 } }, 2)).toBe("Accepted 2 of 2.");
   });
 });

@@ -30,9 +30,9 @@ describe("Spot tool", () => {
     expect(only(tiny.regions)).toMatchObject({ shape: { radius: MIN_SPOT_RADIUS } });
   });
 
-  it("keeps the centre inside the photo and the radius within its long edge", () => {
+  it("keeps the centre inside the photo and the radius within its cap (10 % of the long edge)", () => {
     const s = drive(spotState(), dragSteps(1200, 400, -5000, 400));
-    expect(only(s.regions)).toMatchObject({ shape: { x: 1000, y: 400, radius: 1000 } });
+    expect(only(s.regions)).toMatchObject({ shape: { x: 1000, y: 400, radius: 100 } });
   });
 
   it("cancels with Escape", () => {

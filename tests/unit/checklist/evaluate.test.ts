@@ -6,11 +6,13 @@
  *      reference for our rounding of typed decimals.
  * LIM  Inclusive limits (min <= reading <= max): common practice (c) for bench limits.
  * BAT  Phone cells: full charge 4.20–4.40 V, device cut-off about 3.0 V (a, docs/references.md).
+ * SUS  Protection circuits open at about 2.5 V and such packs may not charge normally (a, Battery
+ *      University BU-802c via docs/references.md); below 2.5 V treat the cell as suspect (c).
  */
 import Decimal from "decimal.js-light";
 import { describe, expect, it } from "vitest";
 import type { ChecklistItem } from "@/db/schema/lots";
-import { decimalPlaces, describeLimits, evaluateChecklistItem, roundToDecimals } from "@/lib/checklist/evaluate";
+import { decimalPlaces, describeLimits, evaluateChecklistItem, roundToDecimals, suspectReading } from "@/lib/checklist/evaluate";
 import { AppError } from "@/lib/errors";
 
 type Numeric = Extract<ChecklistItem, { kind: "numeric" }>;
@@ -109,5 +111,20 @@ describe("pass/fail and choice items", () => {
     expect(() => evaluateChecklistItem(swelling, { reading: 1 })).toThrow(/takes pass or fail/);
     expect(() => evaluateChecklistItem(voltage, { pass: true })).toThrow(/takes a reading/);
     expect(() => evaluateChecklistItem(rattle, { choice: "loud" })).toThrow(/not one of the choices/);
+  });
+});
+
+describe("set aside as suspect (SUS: a for the 2.5 V cut-off, c for the handling)", () => {
+  const ocv: Numeric = { ...voltage, suspectBelow: 2.5 };
+  it("a reading below the level is suspect, on the rounded value; at the level it only fails", () => {
+    expect(suspectReading(ocv, { reading: 2.31 })).toEqual({ reading: "2.31 V", level: "2.50 V" });
+    expect(suspectReading(ocv, { reading: 2.495 })).toBeNull(); // rounds to 2.50: not below
+    expect(suspectReading(ocv, { reading: 2.5 })).toBeNull();
+    expect(reading(ocv, 2.5).passed).toBe(false); // still an ordinary failure (below 3.00 V)
+  });
+  it("items without a level, other kinds and other values are never suspect", () => {
+    expect(suspectReading(voltage, { reading: 0.1 })).toBeNull();
+    expect(suspectReading({ id: "swelling", label: "No swelling", kind: "pass_fail", severityOnFail: "critical" }, { pass: false })).toBeNull();
+    expect(suspectReading(ocv, { pass: false })).toBeNull();
   });
 });

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { boundsArea, boundsContainPoint, boundsOfPoints, boundsOfShape } from "@/lib/geometry/bounds";
-import { clampPoint, clampShapeToImage, clampTranslation, maxExtentFor } from "@/lib/geometry/clamp";
+import { clampPoint, clampShapeToImage, clampTranslation, maxLineWidthFor, maxSpotRadiusFor } from "@/lib/geometry/clamp";
 import { translateShape } from "@/lib/geometry/transform";
 
 const image = { width: 100, height: 50 };
@@ -36,10 +36,17 @@ describe("clamping into the image", () => {
     expect(clampShapeToImage({ kind: "rect", x: 200, y: 0, width: 5, height: 5 }, image)).toMatchObject({ width: 0 });
   });
 
-  it("clamps vertices and spot centres and caps radius and width at the long edge", () => {
+  it("clamps vertices and spot centres and caps radius and width (at least 16 px on small photos)", () => {
     expect(clampShapeToImage({ kind: "polygon", points: [[-1, -1], [50, 80], [120, 10]] }, image)).toEqual({ kind: "polygon", points: [[0, 0], [50, 50], [100, 10]] });
-    expect(clampShapeToImage({ kind: "spot", x: 101, y: 25, radius: 500 }, image)).toEqual({ kind: "spot", x: 100, y: 25, radius: 100 });
-    expect(clampShapeToImage({ kind: "line", points: [[0, 0], [10, 10]], width: 1e6 }, image)).toMatchObject({ width: maxExtentFor(image) });
+    // 100 × 50 px: 10 % and 5 % of the long edge are below the 16 px floor.
+    expect(clampShapeToImage({ kind: "spot", x: 101, y: 25, radius: 500 }, image)).toEqual({ kind: "spot", x: 100, y: 25, radius: 16 });
+    expect(clampShapeToImage({ kind: "line", points: [[0, 0], [10, 10]], width: 1e6 }, image)).toMatchObject({ width: 16 });
+  });
+
+  it("caps a 4000 × 3000 photo's Line at 200 px and Spot radius at 400 px (5 % and 10 % of the long edge)", () => {
+    const large = { width: 4000, height: 3000 };
+    expect([maxLineWidthFor(large), maxSpotRadiusFor(large)]).toEqual([200, 400]);
+    expect(maxLineWidthFor({ width: 3000, height: 4000 })).toBe(200);
   });
 
   it("cuts a move short at the image edge", () => {

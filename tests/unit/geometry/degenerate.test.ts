@@ -70,10 +70,14 @@ describe("describeOutsideImage", () => {
     expect(describeOutsideImage({ kind: "line", points: [[-0.1, 0], [1, 1]], width: 1 }, image)).toMatch(/^point 1/);
   });
 
-  it("lets a spot's radius reach past the edge but not past the long edge", () => {
+  it("lets a spot's radius and a line's width reach past the edge but not past their caps", () => {
+    // 100 × 50 px: both caps are the 16 px floor (10 % and 5 % of 100 px are less).
     expect(describeOutsideImage({ kind: "spot", x: 0, y: 0, radius: 10 }, image)).toBeNull();
-    expect(describeOutsideImage({ kind: "spot", x: 0, y: 0, radius: 101 }, image)).toMatch(/long edge/);
+    expect(describeOutsideImage({ kind: "spot", x: 0, y: 0, radius: 16 }, image)).toBeNull();
+    expect(describeOutsideImage({ kind: "spot", x: 0, y: 0, radius: 16.5 }, image)).toBe("the spot's radius is 16.5 px; at most 16 px (10 % of the photo's long edge) is allowed — mark a larger defect with Outline.");
     expect(describeOutsideImage({ kind: "spot", x: -1, y: 0, radius: 1 }, image)).toMatch(/centre/);
-    expect(describeOutsideImage({ kind: "line", points: [[0, 0], [1, 1]], width: 101 }, image)).toMatch(/wider/);
+    expect(describeOutsideImage({ kind: "line", points: [[0, 0], [1, 1]], width: 17 }, image)).toBe("the line is 17 px wide; at most 16 px (5 % of the photo's long edge) is allowed — mark a wider defect with Outline.");
+    // The case: a 4 000 px wide line on a 4000 × 3000 photo (cap 200 px).
+    expect(describeOutsideImage({ kind: "line", points: [[0, 1500], [4000, 1500]], width: 4000 }, { width: 4000, height: 3000 })).toMatch(/at most 200 px/);
   });
 });

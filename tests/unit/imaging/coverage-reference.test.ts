@@ -40,7 +40,8 @@ function randomScene(seed: number, withCurves: boolean): CoverageInput {
     const cx = 60 + random() * 560 - 40;
     const cy = 60 + random() * 380 - 20;
     let shape: Shape = starPolygon(random, cx, cy, 40 + random() * 80);
-    if (withCurves && k % 3 === 1) shape = { kind: "spot", x: cx, y: cy, radius: 15 + random() * 50 };
+    // Radii within the Spot cap (10 % of the 640 px long edge, lib/geometry/limits.ts).
+    if (withCurves && k % 3 === 1) shape = { kind: "spot", x: cx, y: cy, radius: 15 + random() * 49 };
     if (withCurves && k % 3 === 2) {
       shape = { kind: "line", points: [[cx, cy], [cx + 80 + random() * 150, cy + random() * 120 - 60], [cx + random() * 200, cy + 100 + random() * 60]], width: 4 + random() * 14 };
     }

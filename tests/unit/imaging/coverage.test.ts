@@ -9,6 +9,7 @@ import type { Shape } from "@/lib/geometry/shape";
 import type { CoverageInput } from "@/lib/measure/types";
 import { AppError } from "@/lib/errors";
 import { measureCoverage, type CoverageOptions } from "@/lib/imaging/coverage";
+import { DeadlineExceeded } from "@/lib/imaging/deadline";
 
 const rect = (x: number, y: number, width: number, height: number): Shape => ({ kind: "rect", x, y, width, height });
 const region = (id: string, defect: string, shape: Shape) => ({ id, defect, shape });
@@ -33,8 +34,9 @@ describe.each<CoverageOptions["regionRaster"]>(["sharp", "exact"])("measureCover
       // MathWorld/CRC "Gauss's Circle Problem", stated for a lattice-point centre; (b) that its
       // square-packing proof holds for any centre) is 0.94 % here. 0.2 % is our tighter tolerance
       // (typical errors grow like r^θ with θ <= 0.63, Huxley, same page).
+      // The photo is 3 100 px wide so the Spot cap (10 % of the long edge) allows this radius.
       const radius = 300.37;
-      const result = await measure({ width: 700, height: 700, regions: [region("s", "dust", { kind: "spot", x: 350.2, y: 349.8, radius })] });
+      const result = await measure({ width: 3100, height: 700, regions: [region("s", "dust", { kind: "spot", x: 350.2, y: 349.8, radius })] });
       const area = Math.PI * radius ** 2;
       expect(Math.abs(result.byDefect.dust.px - area)).toBeLessThanOrEqual(2 * Math.SQRT2 * Math.PI * radius);
       expect(Math.abs(result.byDefect.dust.px - area) / area).toBeLessThan(0.002);
@@ -94,8 +96,9 @@ describe.each<CoverageOptions["regionRaster"]>(["sharp", "exact"])("measureCover
     it("clips regions partly outside the image", async () => {
       // Source: rect areas (a, geometry); a disc centred on the image corner keeps a quarter, πr²/4
       // (a, geometry), 1 % tolerance (contract's target).
+      // 400 px wide, so the Spot cap (10 % of the long edge) allows the 40 px radius.
       const result = await measure({
-        width: 100,
+        width: 400,
         height: 100,
         regions: [
           region("a", "dent", rect(-10, 90, 30, 30)),
@@ -207,6 +210,30 @@ describe("measureCoverage input validation", () => {
     const error = (await rejection({ ...valid, width: 20_000, height: 20_000 })) as AppError;
     expect(error.code).toBe("bad_request");
     expect(error.fieldErrors).toEqual({ width: "width × height must be at most 268402689 pixels" });
+  });
+
+  it("refuses, before any work, Lines and Spots beyond their caps and sets beyond the per-photo work budget", async () => {
+    // The issue's case: a 2-point Line 4 000 px wide on a 4000 × 3000 photo (16 s through sharp before).
+    const started = performance.now();
+    const wide = (await rejection({ width: 4000, height: 3000, regions: [region("w", "scratch", { kind: "line", points: [[0, 1500], [4000, 1500]], width: 4000 })] })) as AppError;
+    expect(wide.fieldErrors).toEqual({ "regions.0.shape.width": "must be at most 200 px (5 % of the photo's long edge)" });
+    const big = (await rejection({ width: 4000, height: 3000, regions: [region("s", "dust", { kind: "spot", x: 10, y: 10, radius: 401 })] })) as AppError;
+    expect(big.fieldErrors).toEqual({ "regions.0.shape.radius": "must be at most 400 px (10 % of the photo's long edge)" });
+    // 40 zigzags of 2 000 edges, each edge spanning all 3 000 rows: 240 million shape rows.
+    const zigzag = Array.from({ length: 40 }, (_, k) => region(`z${k}`, "dent", { kind: "polygon", points: Array.from({ length: 2000 }, (_, i) => [k + i * 0.01, i % 2 ? 3000 : 0] as [number, number]) }));
+    const costly = (await rejection({ width: 4000, height: 3000, regions: zigzag })) as AppError;
+    expect(costly.message).toMatch(/too long to measure: their edges and lines cross 240\.1 million pixel rows in all, at most 1\.0 million are allowed per photo/);
+    // Refused from arithmetic on the input, not by trying (generous bound for a loaded machine).
+    expect(performance.now() - started).toBeLessThan(2000);
+  });
+
+  it("stops with DeadlineExceeded once its deadline has passed, also inside the rasterising loops", async () => {
+    await expect(measureCoverage(valid, { deadline: Date.now() - 1 })).rejects.toBeInstanceOf(DeadlineExceeded);
+    // Within the caps but plenty of rows: the check inside the loops fires long before the end.
+    const lines = Array.from({ length: 300 }, (_, k) => region(`l${k}`, "scratch", { kind: "line", points: [[k * 4, 0], [k * 4 + 3, 3000]], width: 199 }));
+    const started = performance.now();
+    await expect(measureCoverage({ width: 4000, height: 3000, regions: lines }, { deadline: Date.now() + 20 })).rejects.toBeInstanceOf(DeadlineExceeded);
+    expect(performance.now() - started).toBeLessThan(2000);
   });
 
   it("accepts ids that are also object-prototype names as plain keys", async () => {

@@ -177,6 +177,52 @@ describe("suggestPixelCandidates — false ones, size and coordinates", () => {
   });
 });
 
+describe("suggestPixelCandidates — the active screen area", () => {
+  /** A lit panel (128) with rounded corners on the device body (38) on a dark table (18), noise σ 2. */
+  function panelPhoto(width: number, height: number) {
+    const random = prng(7);
+    const data = Buffer.alloc(width * height * 3);
+    const inPanel = (x: number, y: number) => {
+      if (x < 60 || x >= width - 60 || y < 50 || y >= height - 50) return false;
+      const cx = Math.min(Math.max(x, 90), width - 90);
+      const cy = Math.min(Math.max(y, 80), height - 80);
+      return Math.hypot(x - cx, y - cy) <= 30;
+    };
+    for (let y = 0; y < height; y++) {
+      for (let x = 0; x < width; x++) {
+        const level = inPanel(x, y) ? 128 : x >= 40 && x < width - 40 && y >= 30 && y < height - 30 ? 38 : 18;
+        for (let c = 0; c < 3; c++) data[(y * width + x) * 3 + c] = Math.round(level + 2 * Math.sqrt(-2 * Math.log(1 - random())) * Math.cos(2 * Math.PI * random()));
+      }
+    }
+    return data;
+  }
+  const rect = (x0: number, y0: number, x1: number, y1: number): [number, number][] => [[x0, y0], [x1, y0], [x1, y1], [x0, y1]];
+
+  it("looks only inside the Surface and the zone, an edge band in: no candidates on the corners or the table", async () => {
+    const [w, h] = [640, 480];
+    const data = panelPhoto(w, h);
+    const faults = [lit(200, 200, 1), dark(400, 300, 2)];
+    plant(data, w, [...faults, lit(8, 8, 2), lit(50, 240, 1), lit(75, 240, 1)]); // table corner, body, band
+    const png = await encode(data, w, h, "png");
+    const area = { regions: [{ polygons: [rect(40, 30, w - 40, h - 30)] }, { polygons: [rect(64, 54, w - 64, h - 54)] }], edgeBandPx: 16 };
+    const result = await suggestPixelCandidates(png, { area });
+    const { found, falseOnes } = match(result, faults);
+    expect(found.every(Boolean)).toBe(true);
+    expect(falseOnes).toEqual([]);
+    expect(result.searched).toEqual({ x: 80, y: 70, width: 480, height: 340 });
+    // The whole frame, for contrast: the planted specks outside the area come back too.
+    const everywhere = await suggestPixelCandidates(png);
+    expect(match(everywhere, faults).falseOnes.length).toBeGreaterThanOrEqual(2);
+  });
+
+  it("an area that misses the photo searches nothing", async () => {
+    const png = await encode(screen(W, H, [0, 0, 0]), W, H, "png");
+    const result = await suggestPixelCandidates(png, { area: { regions: [{ polygons: [rect(400, 10, 500, 100)] }], edgeBandPx: 4 } });
+    expect(result.candidates).toEqual([]);
+    expect(result.searched.width).toBe(0);
+  });
+});
+
 describe("suggestPixelCandidates — bad input", () => {
   it("rejects non-images, oversize photos and bad options with clear errors", async () => {
     await expect(suggestPixelCandidates(Buffer.from("not an image"))).rejects.toThrow(/could not be decoded/);

@@ -12,7 +12,7 @@ import { nextInspectionState } from "@/lib/sampling/switching";
 
 describe("unitFindings", () => {
   const items = ["ocv", "swelling"];
-  it("a unit is inspected when every current item has a result, or once graded", () => {
+  it("without a published rubric, a unit is inspected when every current item has a result, or once graded", () => {
     const found = unitFindings({
       units: [
         { id: "a", sampleIndex: 1, status: "on_bench" },
@@ -25,6 +25,7 @@ describe("unitFindings", () => {
         { unitId: "b", itemId: "swelling", passed: false, severityOnFail: "critical" },
       ],
       checklistItemIds: items,
+      cosmeticGrading: false,
     });
     expect(found).toEqual([
       { unitId: "a", sampleIndex: 1, inspected: true, defects: [{ severity: "major", source: "functional", label: "ocv" }] },

@@ -1,6 +1,6 @@
 /** The part type editor's text formats round-trip every seeded part type exactly (our format, c). */
 import { describe, expect, it } from "vitest";
-import { PART_TYPE_CATALOGUE } from "@/db/seed/part-type-catalogue";
+import { PART_TYPE_CATALOGUE } from "@/lib/part-types/starter-catalogue";
 import { formToInput, partTypeToForm, textToOptions, textToZones } from "@/lib/part-types/form-model";
 import { partTypeSchema } from "@/lib/part-types/schemas";
 

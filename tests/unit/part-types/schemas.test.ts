@@ -4,7 +4,7 @@
  * charge, about 3.0 V cut-off; c: 80 % health).
  */
 import { describe, expect, it } from "vitest";
-import { PART_TYPE_CATALOGUE } from "@/db/seed/part-type-catalogue";
+import { PART_TYPE_CATALOGUE } from "@/lib/part-types/starter-catalogue";
 import { EXAMPLE_PART_TYPES, EXAMPLE_PART_TYPE_SLUGS } from "@/lib/grading/example-part-types";
 import { EXAMPLE_RUBRICS } from "@/lib/grading/example-rubrics";
 import { validateRubricAgainstPartType } from "@/lib/grading/rubric-schema";

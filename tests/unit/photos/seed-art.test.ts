@@ -1,6 +1,8 @@
 import sharp from "sharp";
 import { describe, expect, it } from "vitest";
-import { asCameraJpeg, renderPartPhoto } from "@/db/seed/photo-art";
+import { asCameraJpeg, renderAnnotatedPartPhoto, renderPartPhoto } from "@/db/seed/photo-art";
+import { shapeSpans } from "@/lib/imaging/raster/exact-spans";
+import type { Shape } from "@/lib/geometry/shape";
 import { normalizePhoto, readExifCaptureTime } from "@/lib/imaging/normalize";
 
 type Rgb = [number, number, number];
@@ -59,4 +61,30 @@ describe("demo photos shot with the phone held another way", () => {
     const n = await normalizePhoto(jpeg);
     expect([n.format, n.width, n.height]).toEqual(["jpeg", 400, 300]);
   });
+
+  it("returns the planted defects' regions where the marks are drawn", async () => {
+    const photo = await renderAnnotatedPartPhoto({ kind: "rear-camera", viewKey: "back", defects: ["scratch", "stain", "crack"], seed: 11, width: 1600, height: 1200 });
+    expect(photo.regions.map((r) => r.defect)).toEqual(["scratch", "stain", "crack", "crack"]);
+    expect(await renderPartPhoto({ kind: "rear-camera", viewKey: "back", defects: ["scratch", "stain", "crack"], seed: 11, width: 1600, height: 1200 })).toEqual(photo.jpeg);
+    const { data, info } = await sharp(photo.jpeg).raw().toBuffer({ resolveWithObject: true });
+    const meanRgb = (shape: Shape) => {
+      const spans = shapeSpans(shape, info);
+      const sum = [0, 0, 0];
+      let n = 0;
+      for (let k = 0; k < spans.rowCount; k++) {
+        for (let i = spans.offsets[k]; i < spans.offsets[k + 1]; i += 2) {
+          for (let x = spans.cols[i]; x < spans.cols[i + 1]; x++, n++) for (let c = 0; c < 3; c++) sum[c] += data[((spans.top + k) * info.width + x) * 3 + c];
+        }
+      }
+      return sum.map((v) => v / n);
+    };
+    const scratch = photo.regions[0].shape;
+    if (scratch.kind !== "line") throw new Error("a scratch is marked with a Line");
+    // The light scratch on the dark camera body: its Line is brighter than the same path shifted off it.
+    const beside: Shape = { ...scratch, points: scratch.points.map(([x, y]) => [x + 25, y + 25]) };
+    expect(meanRgb(scratch)[1]).toBeGreaterThan(meanRgb(beside)[1] + 15);
+    // The brown stain (#8a6a3a at 45 %): redder than blue inside its Outline.
+    const [r, , b] = meanRgb(photo.regions[1].shape);
+    expect(r - b).toBeGreaterThan(10);
+  }, 60_000);
 });

@@ -12,12 +12,14 @@ import { getLot } from "@/db/queries/lots";
 import { listLotUnits } from "@/db/queries/units";
 import { requirePageUser } from "@/lib/auth/require-user";
 import { pageIdOrNotFound } from "@/lib/http/page-params";
-import { hasAnyRole } from "@/lib/auth/roles";
-import { oneLotProgress } from "@/lib/lots/progress";
+import { hasAnyRole, INSPECTION_READERS } from "@/lib/auth/roles";
+import { oneLotProgress, progressInput } from "@/lib/lots/progress";
 import { switchingStateFor } from "@/lib/lots/scheme";
+import { decidedVerdictView } from "@/lib/lots/verdict";
 import { DISPOSITION_LABELS } from "@/lib/lots/schemas";
 import { screenByHref } from "@/lib/nav";
 import { STATIC_SENSITIVE, type PartCategory } from "@/lib/part-types/schemas";
+import { formatDate } from "@/lib/time/format";
 
 export const metadata: Metadata = { title: "Lot" };
 
@@ -29,11 +31,12 @@ export default async function LotPage(props: PageProps<"/lots/[id]">) {
   if (!row) notFound();
   const { lot } = row;
   const [progress, lotUnits, next] = await Promise.all([
-    oneLotProgress(user.workspaceId, { id, plan: lot.plan, checklistItemIds: row.checklistItemIds }),
+    oneLotProgress(user.workspaceId, progressInput(row)),
     listLotUnits({ workspaceId: user.workspaceId, lotId: id }),
     switchingStateFor({ workspaceId: user.workspaceId, supplierId: lot.supplierId, partTypeId: lot.partTypeId }),
   ]);
-  const { verdict } = progress;
+  // A decided lot shows the counts its decision rested on, never a recount under a later rule.
+  const verdict = lot.status === "decided" && lot.verdict && lot.decisionCounts ? decidedVerdictView(lot.plan, { verdict: lot.verdict, counts: lot.decisionCounts }, progress.verdict) : progress.verdict;
   const isLead = hasAnyRole(user.roles, "lead");
   const shownVerdict = lot.status === "decided" && lot.verdict ? lot.verdict : verdict.verdict;
   const percent = Math.round((100 * verdict.unitsInspected) / Math.max(1, lot.plan.sampleSize));
@@ -48,7 +51,8 @@ export default async function LotPage(props: PageProps<"/lots/[id]">) {
           <h1 className="page-title">Lot {lot.purchaseRef}</h1>
           <p className="text-gauge-700">
             {row.supplierName} · {row.partTypeName}
-            {lot.modelFamily ? ` (${lot.modelFamily})` : ""} · {lot.quantity.toLocaleString("en-GB")} units · received {lot.receivedOn} · due {lot.dueOn}
+            {lot.modelFamily ? ` (${lot.modelFamily})` : ""} · {lot.quantity.toLocaleString("en-GB")} units · received {lot.receivedOn} · due {lot.dueOn} ·{" "}
+            <span data-testid="promised-grade">bought at grade {lot.promisedGrade}</span>
           </p>
         </div>
         <div className="flex items-center gap-2">
@@ -68,28 +72,27 @@ export default async function LotPage(props: PageProps<"/lots/[id]">) {
           <div className="h-full bg-gauge-600" style={{ width: `${percent}%` }} />
         </div>
         <p className="text-sm" data-testid="verdict-summary">
-          {lot.status === "decided" ? `Decided: ${lot.verdict}. ` : "Running verdict. "}
-          {verdict.summary}
+          {lot.status === "decided" ? verdict.summary : `Running verdict. ${verdict.summary}`}
         </p>
       </section>
 
       <section className="card space-y-3 p-5" aria-labelledby="plan-title">
         <div className="flex flex-wrap items-baseline justify-between gap-2">
           <h2 id="plan-title" className="text-lg font-semibold">Sampling plan</h2>
-          <span className="text-xs text-gauge-600">Stored with the lot on {lot.createdAt.toISOString().slice(0, 10)} by {row.createdByName}</span>
+          <span className="text-xs text-gauge-600">Stored with the lot on {formatDate(lot.createdAt, user.timeZone)} by {row.createdByName}</span>
         </div>
         <p className="text-sm" data-testid="plan-switching">
           <strong className="font-medium">{lot.inspectionSeverity[0].toUpperCase() + lot.inspectionSeverity.slice(1)} inspection</strong>, level {lot.plan.level}. Why: {lot.plan.switchingReason}
         </p>
         <PlanTable plan={lot.plan} verdict={verdict} />
-        <CountingNote plan={lot.plan} />
+        <CountingNote plan={lot.plan} lot={{ promisedGrade: lot.promisedGrade, cosmeticGrading: progress.cosmeticGrading, partTypeName: row.partTypeName }} />
       </section>
 
       <section className="card space-y-3 p-5" aria-labelledby="disposition-title">
         <h2 id="disposition-title" className="text-lg font-semibold">Disposition</h2>
         {lot.status === "decided" ? (
           <p className="text-sm" data-testid="disposition">
-            <strong>{DISPOSITION_LABELS[lot.disposition!]}</strong> ({lot.verdict}) on {lot.decidedAt?.toISOString().slice(0, 10)}: {lot.dispositionReason}
+            <strong>{DISPOSITION_LABELS[lot.disposition!]}</strong> ({lot.verdict}) on {lot.decidedAt ? formatDate(lot.decidedAt, user.timeZone) : "—"}: {lot.dispositionReason}
           </p>
         ) : verdict.verdict === "pending" ? (
           <p className="text-sm text-gauge-700">The lead records the disposition once the verdict is reached.</p>
@@ -115,7 +118,7 @@ export default async function LotPage(props: PageProps<"/lots/[id]">) {
                 ? `Drawn at random from a list of ${lot.sampleDraw.poolSize} serials with seed ${lot.sampleDraw.seed} (${lot.sampleDraw.algorithm}); the same list and seed give the same sample.`
                 : "Numbered placeholders: inspectors scan each unit's serial on the bench."}
             </p>
-            <LotUnitsList units={lotUnits} checklistLength={row.checklistItemIds.length} now={new Date()} />
+            <LotUnitsList units={lotUnits} checklistLength={row.checklistItemIds.length} defectsByUnit={progress.defectsByUnit} now={new Date()} benchLinks={hasAnyRole(user.roles, INSPECTION_READERS)} />
           </>
         )}
       </section>

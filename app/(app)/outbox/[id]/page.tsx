@@ -6,6 +6,8 @@ import { requirePageUser } from "@/lib/auth/require-user";
 import { pageIdOrNotFound } from "@/lib/http/page-params";
 import { localInboxDir } from "@/lib/env";
 import { readDeliveredMessage } from "@/lib/mail/inbox";
+import { linkifyText } from "@/lib/mail/linkify";
+import { formatDateTime } from "@/lib/time/format";
 
 export const metadata: Metadata = { title: "Outbox message" };
 
@@ -34,12 +36,22 @@ export default async function OutboxMessagePage(props: PageProps<"/outbox/[id]">
             <dt className="text-gauge-600">To</dt>
             <dd>{delivered.to}</dd>
             <dt className="text-gauge-600">Date</dt>
-            <dd>{delivered.date ?? "—"}</dd>
+            <dd>{delivered.date ? formatDateTime(delivered.date, user.timeZone) : "—"}</dd>
             <dt className="text-gauge-600">Size</dt>
             <dd>{delivered.rawSize.toLocaleString("en")} bytes</dd>
           </dl>
-          {/* The plain-text part is shown (never the HTML) so nothing in a message can run here. */}
-          <pre className="whitespace-pre-wrap break-words rounded bg-gauge-50 p-3 text-sm">{delivered.text}</pre>
+          {/* The plain-text part is shown (never the HTML) so nothing in a message can run here; its web addresses are links. */}
+          <pre className="whitespace-pre-wrap break-words rounded bg-gauge-50 p-3 text-sm" data-testid="message-text">
+            {linkifyText(delivered.text).map((part, i) =>
+              part.kind === "link" ? (
+                <a key={i} href={part.href} className="text-gauge-700 underline" rel="noreferrer noopener">
+                  {part.href}
+                </a>
+              ) : (
+                part.text
+              ),
+            )}
+          </pre>
           {delivered.attachments.length > 0 && (
             <ul className="text-sm">
               {delivered.attachments.map((a) => (

@@ -25,14 +25,14 @@ export default async function SupplierPage(props: PageProps<"/suppliers/[id]">) 
         <h1 className="page-title">{supplier.name}</h1>
         <p className="text-gauge-700">
           {supplier.contactName ? `${supplier.contactName} · ` : ""}
-          {supplier.contactEmail} · {supplier.active ? "active" : "inactive"}
+          {supplier.contactEmail} · {supplier.active ? "active" : "inactive"} · lots bought at {supplier.promisedGrade ? `grade ${supplier.promisedGrade}` : "the part type's grade"}
         </p>
         {supplier.notes && <p className="mt-2 whitespace-pre-line text-sm">{supplier.notes}</p>}
       </div>
       {hasAnyRole(user.roles, "lead") && (
         <SupplierForm
           supplierId={supplier.id}
-          initial={{ name: supplier.name, contactName: supplier.contactName ?? "", contactEmail: supplier.contactEmail, notes: supplier.notes }}
+          initial={{ name: supplier.name, contactName: supplier.contactName ?? "", contactEmail: supplier.contactEmail, notes: supplier.notes, promisedGrade: supplier.promisedGrade }}
         />
       )}
     </div>

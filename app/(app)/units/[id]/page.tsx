@@ -6,9 +6,8 @@ import { getUnitForGrading } from "@/db/queries/grading";
 import { listRubricVersions } from "@/db/queries/rubrics";
 import { getUnitDetail, listUnitResults } from "@/db/queries/units";
 import { requirePageUser } from "@/lib/auth/require-user";
-import { hasAnyRole } from "@/lib/auth/roles";
+import { hasAnyRole, INSPECTION_READERS } from "@/lib/auth/roles";
 import { pageIdOrNotFound } from "@/lib/http/page-params";
-import { screenByHref } from "@/lib/nav";
 import { isUuid } from "@/lib/validation";
 
 export const metadata: Metadata = { title: "Bench" };
@@ -18,7 +17,8 @@ const uuidOrNull = (value: string | string[] | undefined) => (typeof value === "
 /** One unit on the Bench: a thin server composition; BenchWorkspace owns the photos, canvas, autosave and panels. */
 export default async function UnitPage(props: PageProps<"/units/[id]">) {
   const [{ id: rawId }, search] = await Promise.all([props.params, props.searchParams]);
-  const user = await requirePageUser({ role: screenByHref("/lots")!.roles, from: `/units/${rawId}` });
+  // Inspection work: auditors get 403 here (a blind recheck must not see the first grader's work).
+  const user = await requirePageUser({ role: INSPECTION_READERS, from: `/units/${rawId}` });
   const id = pageIdOrNotFound(rawId);
   const key = { workspaceId: user.workspaceId, unitId: id };
   const [detail, grading] = await Promise.all([getUnitDetail(key), getUnitForGrading(key)]);
@@ -26,7 +26,7 @@ export default async function UnitPage(props: PageProps<"/units/[id]">) {
   const [results, versions] = await Promise.all([listUnitResults({ workspaceId: user.workspaceId, unitIds: [id] }), listRubricVersions({ workspaceId: user.workspaceId, partTypeId: grading.partTypeId })]);
   // The same JSON the API sends, so the panels' queries start from what they will refetch.
   const initial = JSON.parse(JSON.stringify({ ...detail, results })) as UnitView;
-  const me = { id: user.id, isLead: hasAnyRole(user.roles, "lead"), canRecord: hasAnyRole(user.roles, "inspector") };
+  const me = { id: user.id, isLead: hasAnyRole(user.roles, "lead"), canRecord: hasAnyRole(user.roles, "inspector"), timeZone: user.timeZone };
   const { views, defectClasses, panelResolution } = grading.partType;
   return (
     <BenchWorkspace

@@ -1,4 +1,5 @@
 import { requireUser } from "@/lib/auth/require-user";
+import { INSPECTION_READERS } from "@/lib/auth/roles";
 import { notFound } from "@/lib/errors";
 import { handler } from "@/lib/http/route";
 import { toPhotoDto } from "@/lib/photos/dto";
@@ -7,7 +8,7 @@ import { getPhotoWithContext } from "@/lib/photos/queries";
 import { parseId } from "@/lib/validation";
 
 export const GET = handler(async (_req, ctx: RouteContext<"/api/photos/[id]">) => {
-  const user = await requireUser();
+  const user = await requireUser({ role: INSPECTION_READERS });
   const photo = await getPhotoWithContext({ workspaceId: user.workspaceId, photoId: parseId((await ctx.params).id, "That photo") });
   if (!photo) throw notFound("That photo");
   return Response.json({ photo: toPhotoDto(photo) });

@@ -1,15 +1,15 @@
 import { getUnitDetail, listUnitResults } from "@/db/queries/units";
 import { requireUser } from "@/lib/auth/require-user";
+import { INSPECTION_READERS } from "@/lib/auth/roles";
 import { notFound } from "@/lib/errors";
 import { handler, parseJson } from "@/lib/http/route";
-import { screenByHref } from "@/lib/nav";
 import { unitUpdateSchema } from "@/lib/units/schemas";
 import { setUnitSerial } from "@/lib/units/units";
 import { parseId } from "@/lib/validation";
 
-/** The unit with its lot, part type checklist and recorded results (what the Bench shows). */
+/** The unit with its lot, part type checklist and recorded results (what the Bench shows; not for auditors). */
 export const GET = handler(async (_req, ctx: RouteContext<"/api/units/[id]">) => {
-  const user = await requireUser({ role: screenByHref("/lots")!.roles });
+  const user = await requireUser({ role: INSPECTION_READERS });
   const id = parseId((await ctx.params).id, "That unit");
   const detail = await getUnitDetail({ workspaceId: user.workspaceId, unitId: id });
   if (!detail) throw notFound("That unit");

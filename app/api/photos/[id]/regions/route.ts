@@ -1,15 +1,13 @@
 import { requireUser } from "@/lib/auth/require-user";
+import { INSPECTION_READERS } from "@/lib/auth/roles";
 import { handler, parseJson } from "@/lib/http/route";
 import { loadPhotoForRegions, readRegionSet, RegionVersionConflict, saveRegionSet } from "@/lib/regions/regions";
 import { REGION_SAVE_MAX_BYTES, saveRegionsSchema } from "@/lib/regions/schemas";
 import { parseId } from "@/lib/validation";
 
-/**
- * The photo's region set and its version. Every role of the workspace reads it for now; a blind
- * recheck will need a path that withholds the first grader's regions (see lib/regions/regions.ts).
- */
+/** The photo's region set and its version; inspection work, so not for auditors (blind recheck). */
 export const GET = handler(async (_req, ctx: RouteContext<"/api/photos/[id]/regions">) => {
-  const user = await requireUser();
+  const user = await requireUser({ role: INSPECTION_READERS });
   const photoId = parseId((await ctx.params).id, "That photo");
   await loadPhotoForRegions(user, photoId);
   return Response.json(await readRegionSet(user, photoId));

@@ -1,4 +1,5 @@
 import { requireUser } from "@/lib/auth/require-user";
+import { INSPECTION_READERS } from "@/lib/auth/roles";
 import { gradeHistory, recordGrade } from "@/lib/grading/grades";
 import { recordGradeSchema } from "@/lib/grading/schemas";
 import { requireUnit } from "@/lib/grading/unit-grading";
@@ -7,16 +8,22 @@ import { parseId } from "@/lib/validation";
 
 /** The unit's append-only grade history, oldest first, and its current grade. */
 export const GET = handler(async (_req, ctx: RouteContext<"/api/units/[id]/grades">) => {
-  const user = await requireUser();
+  const user = await requireUser({ role: INSPECTION_READERS });
   const unitId = parseId((await ctx.params).id, "That unit");
   return Response.json(await gradeHistory(user, unitId));
 });
 
-/** Accepts the current measurement's proposed grade or overrides it with a reason (201). */
+/**
+ * Accepts the current measurement's proposed grade or overrides it with a reason (201). A graded
+ * unit takes only a lead's override naming the grade it replaces (`expectedCurrentGradeId`; 409
+ * when that is no longer current). A repeat with the same `idempotencyKey` answers 200 with the
+ * row the first request made.
+ */
 export const POST = handler(async (req, ctx: RouteContext<"/api/units/[id]/grades">) => {
   const user = await requireUser({ role: "inspector" });
   const unitId = parseId((await ctx.params).id, "That unit");
   await requireUnit(user, unitId);
   const input = await parseJson(req, recordGradeSchema);
-  return Response.json({ grade: await recordGrade(user, unitId, input) }, { status: 201 });
+  const { grade, replayed } = await recordGrade(user, unitId, input);
+  return Response.json({ grade, replayed }, { status: replayed ? 200 : 201 });
 });

@@ -1,4 +1,6 @@
 import { requireUser } from "@/lib/auth/require-user";
+import { INSPECTION_READERS } from "@/lib/auth/roles";
+import { ComputeBusy, ComputeTimeout } from "@/lib/compute/pool";
 import { DeadlineExceeded } from "@/lib/grading/grade-unit";
 import { MEASURE_INLINE_BUDGET_MS, measureQuerySchema, measureSchema } from "@/lib/grading/schemas";
 import { latestMeasurement, measureAndStore, requireUnit } from "@/lib/grading/unit-grading";
@@ -7,22 +9,22 @@ import { enqueueMeasureUnit, measureJobState } from "@/lib/jobs/measure-unit";
 import { parseId } from "@/lib/validation";
 
 /**
- * Measures the unit under the latest published rubric. Answers 200 with the stored measurement
- * when it finishes within the time budget; otherwise (or with `{ "mode": "queue" }`) queues a
- * "measure-unit" job and answers 202 with its id — poll GET ?jobId=… for the result.
+ * Measures the unit under the latest published rubric, in a compute thread (never on this one).
+ * Answers 200 with the stored measurement when it finishes within the time budget; otherwise —
+ * or when the threads are busy, or with `{ "mode": "queue" }` — queues a "measure-unit" job and
+ * answers 202 with its id: poll GET ?jobId=… for the result. The body is optional.
  */
 export const POST = handler(async (req, ctx: RouteContext<"/api/units/[id]/measure">) => {
   const user = await requireUser({ role: "inspector" });
   const unitId = parseId((await ctx.params).id, "That unit");
   await requireUnit(user, unitId);
-  const body = (await req.clone().text()).trim();
-  const { mode = "auto" } = body ? await parseJson(req, measureSchema) : {};
+  const { mode = "auto" } = await parseJson(req, measureSchema, { allowEmpty: true, maxBytes: 1024 });
   if (mode === "auto") {
     try {
-      const measurement = await measureAndStore(user, unitId, { deadline: Date.now() + MEASURE_INLINE_BUDGET_MS });
+      const measurement = await measureAndStore(user, unitId, { budgetMs: MEASURE_INLINE_BUDGET_MS });
       return Response.json({ status: "measured", measurement });
     } catch (err) {
-      if (!(err instanceof DeadlineExceeded)) throw err;
+      if (!(err instanceof DeadlineExceeded || err instanceof ComputeBusy || err instanceof ComputeTimeout)) throw err;
     }
   }
   const { jobId } = await enqueueMeasureUnit({ workspaceId: user.workspaceId, unitId, requestedBy: user.id });
@@ -38,11 +40,11 @@ export const POST = handler(async (req, ctx: RouteContext<"/api/units/[id]/measu
 
 /** The latest measurement with its staleness; with ?jobId= also the state of a queued measurement. */
 export const GET = handler(async (req, ctx: RouteContext<"/api/units/[id]/measure">) => {
-  const user = await requireUser();
+  const user = await requireUser({ role: INSPECTION_READERS });
   const unitId = parseId((await ctx.params).id, "That unit");
   await requireUnit(user, unitId);
   const { jobId } = parseQuery(req, measureQuerySchema);
   const job = jobId ? await measureJobState(jobId) : null;
-  const ownJob = job && job.data.workspaceId === user.workspaceId && job.data.unitId === unitId ? { id: job.id, state: job.state } : null;
+  const ownJob = job && job.data.workspaceId === user.workspaceId && job.data.unitId === unitId ? { id: job.id, state: job.state, notMeasured: job.notMeasured } : null;
   return Response.json({ measurement: await latestMeasurement(user, unitId), job: ownJob });
 });

@@ -1,4 +1,5 @@
 import { requireUser } from "@/lib/auth/require-user";
+import { INSPECTION_READERS } from "@/lib/auth/roles";
 import { handler, parseJson, parseQuery } from "@/lib/http/route";
 import { toPhotoDto } from "@/lib/photos/dto";
 import { finaliseUpload } from "@/lib/photos/finalise";
@@ -8,9 +9,9 @@ import { listUnitPhotos } from "@/lib/photos/queries";
 import { finaliseQuerySchema, finaliseSchema } from "@/lib/photos/schemas";
 import { parseId } from "@/lib/validation";
 
-/** The unit's photos with their status (every role of the workspace may look at evidence). */
+/** The unit's photos with their status and uploader (inspection work: not for auditors). */
 export const GET = handler(async (_req, ctx: RouteContext<"/api/units/[id]/photos">) => {
-  const user = await requireUser();
+  const user = await requireUser({ role: INSPECTION_READERS });
   const unit = await loadUnit(user, parseId((await ctx.params).id, "That unit"));
   const photos = await listUnitPhotos({ workspaceId: user.workspaceId, unitId: unit.id });
   return Response.json({ unit: { id: unit.id, status: unit.status, views: unit.partType.views }, photos: photos.map(toPhotoDto) });

@@ -10,10 +10,13 @@ export const GET = handler(async (_req, ctx: RouteContext<"/api/part-types/[id]/
   return Response.json({ draft: await getDraftOrThrow(user, partTypeId) });
 });
 
-/** Replaces the draft's rules; a rubric that does not validate is refused whole (400). */
+/**
+ * Replaces the draft's rules: `{ rubric, version, revision }` naming the draft the editor loaded.
+ * A rubric that does not validate is refused whole (400); a draft saved or published since is 409.
+ */
 export const PATCH = handler(async (req, ctx: RouteContext<"/api/part-types/[id]/rubrics/draft">) => {
   const user = await requireUser({ role: "trainer" });
   const partTypeId = parseId((await ctx.params).id, "That part type");
-  const { rubric } = await parseJson(req, updateDraftSchema);
-  return Response.json(await saveDraft(user, partTypeId, rubric));
+  const { rubric, ...seen } = await parseJson(req, updateDraftSchema);
+  return Response.json(await saveDraft(user, partTypeId, rubric, seen));
 });

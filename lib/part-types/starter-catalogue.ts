@@ -1,7 +1,8 @@
 /**
- * The invented part types of the demo. Keys of views, zones and defect classes (and each class's
- * severity) are those lib/grading/example-part-types.ts assumes, so the example rubrics fit.
- * Checklist limits are examples to adapt, marked beside each: (a) read in a public source,
+ * The starter part types: offered to a new workspace at sign-up (and on an empty Part types
+ * screen), and the demo's part types. Keys of views, zones and defect classes (and each class's
+ * severity) are those lib/grading/example-part-types.ts assumes, so the example rubrics fit. They
+ * are examples to adapt. Checklist limits are marked beside each: (a) read in a public source,
  * (c) common practice. Model families are invented.
  */
 import type { ChecklistItem, DefectClassDefinition, ViewDefinition, ZoneDefinition } from "@/db/schema/lots";
@@ -48,6 +49,8 @@ export type CataloguePartType = {
   nominalSizeMm: { width: number; height: number } | null;
   panelResolution: { width: number; height: number } | null;
   inspectAll: boolean;
+  /** The grade lots are bought at by default (new stock: A). */
+  promisedGrade: "A" | "B" | "C";
 };
 
 const cameraViews = (lensRadius: number) => [
@@ -99,12 +102,12 @@ export const PART_TYPE_CATALOGUE: CataloguePartType[] = [
   {
     slug: "rear-camera", name: "Rear camera module", category: "camera", modelFamily: "Korvo X2",
     views: cameraViews(0.28), defectClasses: defectsOf("rear-camera"), checklist: cameraChecklist(false),
-    nominalSizeMm: { width: 24, height: 20 }, panelResolution: null, inspectAll: false,
+    nominalSizeMm: { width: 24, height: 20 }, panelResolution: null, inspectAll: false, promisedGrade: "A",
   },
   {
     slug: "front-camera", name: "Front camera", category: "camera", modelFamily: "Korvo X2",
     views: cameraViews(0.32), defectClasses: defectsOf("front-camera"), checklist: cameraChecklist(true),
-    nominalSizeMm: { width: 12, height: 8 }, panelResolution: null, inspectAll: false,
+    nominalSizeMm: { width: 12, height: 8 }, panelResolution: null, inspectAll: false, promisedGrade: "A",
   },
   {
     slug: "battery", name: "Battery", category: "battery", modelFamily: "Korvo X2",
@@ -120,9 +123,10 @@ export const PART_TYPE_CATALOGUE: CataloguePartType[] = [
       passFail("not-hot", "Not warm to the touch at rest", "critical", BATTERY_ITEM_CAUTION),
       passFail("gauge-detected", "Battery reader detects the fuel gauge", "major"),
       // Full charge 4.20–4.40 V for phone cells, device cut-off about 3.0 V (a, docs/references.md);
-      // below 3.00 V flags a deeply discharged cell (c).
+      // below 3.00 V flags a deeply discharged cell (c); protection circuits open at about 2.5 V
+      // and such packs may not charge normally (a, BU-802c): below 2.50 V, set aside as suspect (c).
       {
-        id: "ocv", label: "Open-circuit voltage", kind: "numeric", unit: "V", min: 3.0, max: 4.4, decimals: 2, severityOnFail: "major",
+        id: "ocv", label: "Open-circuit voltage", kind: "numeric", unit: "V", min: 3.0, max: 4.4, decimals: 2, severityOnFail: "major", suspectBelow: 2.5,
         caution: "Below 2.50 V the cell is over-discharged: do not charge it normally; set it aside as suspect.",
       },
       // Replace below 80 % of design capacity: common practice (c).
@@ -130,7 +134,7 @@ export const PART_TYPE_CATALOGUE: CataloguePartType[] = [
       // Invented example limit (c), in the spirit of the EU's 800-cycle durability figure (a).
       { id: "cycle-count", label: "Cycle count", kind: "numeric", unit: "cycles", min: 0, max: 800, decimals: 0, severityOnFail: "minor" },
     ],
-    nominalSizeMm: { width: 44, height: 70 }, panelResolution: null, inspectAll: false,
+    nominalSizeMm: { width: 44, height: 70 }, panelResolution: null, inspectAll: false, promisedGrade: "A",
   },
   {
     slug: "back-housing", name: "Back housing", category: "housing", modelFamily: "Korvo X2",
@@ -152,7 +156,7 @@ export const PART_TYPE_CATALOGUE: CataloguePartType[] = [
         ],
       },
     ],
-    nominalSizeMm: { width: 72, height: 150 }, panelResolution: null, inspectAll: false,
+    nominalSizeMm: { width: 72, height: 150 }, panelResolution: null, inspectAll: false, promisedGrade: "A",
   },
   {
     slug: "display", name: "Display assembly", category: "display", modelFamily: "Korvo X2",
@@ -186,7 +190,7 @@ export const PART_TYPE_CATALOGUE: CataloguePartType[] = [
       // Invented example limit (c).
       { id: "brightness", label: "Peak brightness on white", kind: "numeric", unit: "cd/m²", min: 350, max: null, decimals: 0, severityOnFail: "minor" },
     ],
-    nominalSizeMm: { width: 70, height: 152 }, panelResolution: { width: 1080, height: 2400 }, inspectAll: true,
+    nominalSizeMm: { width: 70, height: 152 }, panelResolution: { width: 1080, height: 2400 }, inspectAll: true, promisedGrade: "A",
   },
   {
     slug: "charging-flex", name: "Charging-port flex", category: "flex", modelFamily: "Korvo X2",
@@ -199,7 +203,7 @@ export const PART_TYPE_CATALOGUE: CataloguePartType[] = [
       passFail("audio-path", "Microphone / audio path: test recording plays back clearly", "major"),
       passFail("plug-retention", "Port holds a plug firmly", "minor"),
     ],
-    nominalSizeMm: { width: 62, height: 14 }, panelResolution: null, inspectAll: false,
+    nominalSizeMm: { width: 62, height: 14 }, panelResolution: null, inspectAll: false, promisedGrade: "A",
   },
   {
     slug: "button-flex", name: "Button flex", category: "flex", modelFamily: "Korvo X2",
@@ -210,7 +214,7 @@ export const PART_TYPE_CATALOGUE: CataloguePartType[] = [
       passFail("volume-down", "Volume down responds", "major"),
       passFail("side-switch", "Side switch changes the sound profile", "minor"),
     ],
-    nominalSizeMm: { width: 45, height: 8 }, panelResolution: null, inspectAll: false,
+    nominalSizeMm: { width: 45, height: 8 }, panelResolution: null, inspectAll: false, promisedGrade: "A",
   },
   {
     slug: "loudspeaker", name: "Loudspeaker", category: "speaker", modelFamily: "Korvo X2",
@@ -235,6 +239,6 @@ export const PART_TYPE_CATALOGUE: CataloguePartType[] = [
       // Invented example limit (c).
       { id: "level-1k", label: "Sound level at 1 kHz, 10 cm", kind: "numeric", unit: "dB(A)", min: 75, max: null, decimals: 0, severityOnFail: "minor" },
     ],
-    nominalSizeMm: { width: 16, height: 11 }, panelResolution: null, inspectAll: false,
+    nominalSizeMm: { width: 16, height: 11 }, panelResolution: null, inspectAll: false, promisedGrade: "A",
   },
 ];
