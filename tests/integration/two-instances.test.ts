@@ -14,7 +14,7 @@ import { db } from "@/db/client";
 import { photos } from "@/db/schema";
 import { createUser, createWorkspace, TEST_PASSWORD, uniqueEmail, workspaceBySlug } from "../support/db";
 import { BASE_URL } from "../support/http";
-import { startWebServer, startWorker, logOf, type Instance } from "../support/instances";
+import { startWebServer, startWorker, stopAll, logOf, type Instance } from "../support/instances";
 import { createLotWithUnits, createPartTypeAndSupplier } from "../support/lot-fixtures";
 import { makePhotoLikeJpeg } from "../support/fixtures/make-photos";
 import { createPhotoUnits } from "../support/photos";
@@ -43,7 +43,8 @@ beforeAll(async () => {
 }, 300_000);
 
 afterAll(async () => {
-  await Promise.all([a, b, secure, w1, w2].filter(Boolean).map((i) => i.stop()));
+  // Every server and worker started, also those of a start that failed half-way.
+  await stopAll();
   if (suiteWorkerStopped) await serviceControl("worker", "start");
 }, 60_000);
 

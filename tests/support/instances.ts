@@ -15,12 +15,34 @@ const dataDir = () => {
   return dir;
 };
 
+/**
+ * Every child started here, so a failed start (one of several in a Promise.all) or a test run
+ * that ends early never leaves a server behind: stopAll() in afterAll, and a last SIGKILL to each
+ * child's process group when the test process exits.
+ */
+const launched = new Set<ChildProcess>();
+process.once("exit", () => {
+  for (const child of launched) {
+    try {
+      process.kill(-child.pid!, "SIGKILL");
+    } catch {
+      /* gone */
+    }
+  }
+});
+
+export async function stopAll() {
+  await Promise.all([...launched].map(stopChild));
+}
+
 function launch(name: string, args: string[], env: Record<string, string>): { child: ChildProcess; log: string } {
   const log = path.join(dataDir(), `${name}.log`);
   const fd = fs.openSync(log, "w");
   // The test runner's own NODE_ENV is "test"; the servers run as they do in production.
   const child = spawn(process.execPath, args, { cwd: process.cwd(), env: { ...process.env, NODE_ENV: "production", ...env }, stdio: ["ignore", fd, fd], detached: true });
   fs.closeSync(fd);
+  launched.add(child);
+  child.once("exit", () => launched.delete(child));
   return { child, log };
 }
 
@@ -48,6 +70,8 @@ export async function startWebServer(name: string, port: number, env: Record<str
   const distDir = process.env.TEST_DIST_DIR;
   if (!distDir) throw new Error("TEST_DIST_DIR is not set; run the integration tests through `npm run test:integration`.");
   const url = `http://127.0.0.1:${port}`;
+  // A server left over on the port would answer the health check in this one's place.
+  if (await fetch(`${url}/api/health`).then(() => true, () => false)) throw new Error(`Something already answers on ${url}; stop it before running this test.`);
   const { child, log } = launch(name, ["--import", "tsx", "scripts/serve.ts"], { PORT: String(port), HOST: "127.0.0.1", NEXT_DIST_DIR: distDir, APP_URL: url, NEXTAUTH_URL: url, ...env });
   const deadline = Date.now() + 120_000;
   for (;;) {
