@@ -55,12 +55,12 @@ export function demoSettings(): ServiceSettings {
 }
 
 /**
- * TEST_SLOT=n (1–4) gives a parallel test run its own ports, data folder and build folder, so
+ * TEST_SLOT=n (1–8) gives a parallel test run its own ports, data folder and build folder, so
  * several checkouts' worth of work can be tested at once on one machine.
  */
 export function testSlot(): number {
   const slot = Number(process.env.TEST_SLOT ?? "0");
-  if (!Number.isInteger(slot) || slot < 0 || slot > 4) throw new Error(`TEST_SLOT must be 0–4 (got "${process.env.TEST_SLOT}").`);
+  if (!Number.isInteger(slot) || slot < 0 || slot > 8) throw new Error(`TEST_SLOT must be 0–8 (got "${process.env.TEST_SLOT}").`);
   return slot;
 }
 
