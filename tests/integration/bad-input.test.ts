@@ -1,7 +1,8 @@
 /**
  * Bad input, counted: one table of distinct bad requests — wrong content types, cross-site
  * origins, broken and oversized bodies (also chunked), NaN / Infinity / huge geometry, 2 001
- * regions, 200 001 points, forged ids of another workspace in paths and in bodies, wrong roles,
+ * regions, 200 001 points, lines and spots far past their size caps, forged ids of another
+ * workspace in paths and in bodies (grades and measuring included), wrong roles,
  * replayed and expired tokens, tampered and foreign session cookies, images that lie about their
  * type. Each must be answered 4xx with a sentence, and leave the database (row counts of every
  * table) and the object store (every key) exactly as they were. The count is in the test name.
@@ -19,6 +20,7 @@ import { api, BASE_URL, FILE_CLIENT_ADDRESS, signIn, trySignIn, type ApiResult, 
 import { latestLinkTo, tokenFromLink } from "../support/inbox";
 import { photoFixtureIds } from "../support/photo-access";
 import { finalise, putToStore, requestUpload, testStore } from "../support/photos";
+import { createMeasurableUnit, workspaceIdOf } from "../support/grading";
 import { regionFixtureIds } from "../support/region-access";
 import { lotFixtureIds } from "../support/lot-access";
 
@@ -37,15 +39,34 @@ async function personId(session: Session) {
   return res.body.people.find((p) => !p.roles.includes("lead"))!.id;
 }
 
-async function fixtures(session: Session): Promise<Ids> {
+/** A measured unit (and, with `graded`, its accepted grade): its id, its measurement's and its grade's. */
+async function gradingIds(session: Session, graded: boolean): Promise<Ids> {
+  const { unit } = await createMeasurableUnit(await workspaceIdOf(session.email));
+  const measured = await api<{ measurement: { id: string } }>(session, "POST", `/api/units/${unit.id}/measure`);
+  if (measured.status !== 200) throw new Error(`Fixture measure failed: ${JSON.stringify(measured.body)}`);
+  const ids: Ids = { gradeUnitId: unit.id, measurementId: measured.body.measurement.id };
+  if (!graded) return ids;
+  const grade = await api<{ grade: { id: string } }>(session, "POST", `/api/units/${unit.id}/grades`, { decision: "accept" });
+  if (grade.status !== 201) throw new Error(`Fixture grade failed: ${JSON.stringify(grade.body)}`);
+  return { ...ids, gradeId: grade.body.grade.id };
+}
+
+async function fixtures(session: Session, graded: boolean): Promise<Ids> {
   const supplier = await supplierId(session);
-  return { supplierId: supplier, personId: await personId(session), ...(await regionFixtureIds(session)), ...(await photoFixtureIds(session)), ...(await lotFixtureIds(session, supplier)) };
+  return {
+    supplierId: supplier,
+    personId: await personId(session),
+    ...(await regionFixtureIds(session)),
+    ...(await photoFixtureIds(session)),
+    ...(await lotFixtureIds(session, supplier)),
+    ...(await gradingIds(session, graded)),
+  };
 }
 
 beforeAll(async () => {
   [lead, inspector, auditor, trainer] = await Promise.all(["lead@vellmoor.example", "inspector@vellmoor.example", "auditor@vellmoor.example", "trainer@vellmoor.example"].map((e) => signIn(e)));
-  own = await fixtures(lead);
-  foreign = await fixtures(await signIn("lead@quillfen.example"));
+  own = await fixtures(lead, false);
+  foreign = await fixtures(await signIn("lead@quillfen.example"), true);
   // A session that was signed out (its cookie copied before), and two spent links.
   const vellmoor = await workspaceBySlug("vellmoor");
   const leaver = await createUser({ workspaceId: vellmoor.id, roles: ["inspector"] });
@@ -137,6 +158,10 @@ const CASES: Case[] = [
   ["an unknown shape kind", () => api(inspector, "PUT", `/api/photos/${own.regionPhotoId}/regions`, regionsBody([region({ kind: "star", x: 10, y: 10 })])), 400],
   ["a defect class the part type does not have", () => api(inspector, "PUT", `/api/photos/${own.regionPhotoId}/regions`, regionsBody([{ id: "k", defect: "explosion", shape: { kind: "rect", x: 1, y: 1, width: 5, height: 5 } }])), 400],
   ["2 001 regions", () => api(inspector, "PUT", `/api/photos/${own.regionPhotoId}/regions`, regionsBody(Array.from({ length: 2001 }, (_, i) => ({ id: `r${i}`, defect: "scratch", shape: { kind: "spot", x: 10, y: 10, radius: 1 } })))), 400],
+  // The fixture photo is 120 × 90 px: Lines may be 16 px wide and Spots 16 px in radius there (lib/geometry/limits.ts).
+  ["a line 4 000 px wide", () => api(inspector, "PUT", `/api/photos/${own.regionPhotoId}/regions`, regionsBody([region({ kind: "line", points: [[10, 10], [100, 80]], width: 4000 })])), 400],
+  ["a line just past its width cap (17 px)", () => api(inspector, "PUT", `/api/photos/${own.regionPhotoId}/regions`, regionsBody([region({ kind: "line", points: [[10, 10], [100, 80]], width: 17 })])), 400],
+  ["a spot of radius 4 000 px", () => api(inspector, "PUT", `/api/photos/${own.regionPhotoId}/regions`, regionsBody([region({ kind: "spot", x: 60, y: 45, radius: 4000 })])), 400],
   ["an outline of 200 001 points", () => api(inspector, "PUT", `/api/photos/${own.regionPhotoId}/regions`, regionsBody([region({ kind: "polygon", points: Array.from({ length: 200_001 }, (_, i) => [i % 60, Math.floor(i / 60) % 40]) })])), [400, 413]],
   ["two regions with one id", () => api(inspector, "PUT", `/api/photos/${own.regionPhotoId}/regions`, regionsBody([region({ kind: "spot", x: 10, y: 10, radius: 1 }), region({ kind: "spot", x: 20, y: 20, radius: 1 })])), 400],
   ["a negative base version", () => api(inspector, "PUT", `/api/photos/${own.regionPhotoId}/regions`, regionsBody([], { baseVersion: -1 })), 400],
@@ -151,6 +176,11 @@ const CASES: Case[] = [
   ["a lot naming another workspace's part type (in the body)", () => api(lead, "POST", "/api/lots", { supplierId: own.supplierId, partTypeId: foreign.lotPartTypeId, purchaseRef: "PO-BAD-2", quantity: 10, receivedOn: "2026-11-20", dueOn: "2026-11-25", inspectionLevel: "II", aqlCritical: null, aqlMajor: 1, aqlMinor: 2.5 }), [400, 404]],
   ["reassigning a unit to another workspace's person (in the body)", () => api(lead, "POST", `/api/units/${own.benchUnitId}/lease/reassign`, { userId: foreign.personId }), [400, 404, 409]],
   ["another workspace's inspection scheme (in the body)", () => api(lead, "PUT", "/api/inspection-schemes", { supplierId: foreign.supplierId, partTypeId: own.lotPartTypeId, steadyProduction: true }), [400, 404]],
+  ["grading another workspace's unit", () => api(lead, "POST", `/api/units/${foreign.gradeUnitId}/grades`, { decision: "accept" }), 404],
+  ["measuring another workspace's unit", () => api(lead, "POST", `/api/units/${foreign.gradeUnitId}/measure`), 404],
+  ["a grade naming another workspace's measurement (in the body)", () => api(lead, "POST", `/api/units/${own.gradeUnitId}/grades`, { decision: "accept", measurementId: foreign.measurementId }), 404],
+  ["an override naming another workspace's grade as the one it replaces (in the body)", () => api(lead, "POST", `/api/units/${own.gradeUnitId}/grades`, { decision: "override", finalGrade: "C", reason: "Forged current grade", expectedCurrentGradeId: foreign.gradeId }), 409],
+  ["another workspace's unit id in a measure request's body", () => api(lead, "POST", `/api/units/${own.gradeUnitId}/measure`, { mode: "auto", unitId: foreign.gradeUnitId }), 400],
   ["a malformed id in the path", () => api(lead, "GET", "/api/photos/not-a-uuid"), 404],
   // Wrong roles.
   ["an inspector creating a supplier", () => api(inspector, "POST", "/api/suppliers", { name: "Inspector Supplier", contactEmail: "i@x.example" }), 403],

@@ -6,7 +6,7 @@
  * it); 20 claimers spread over both get every unit exactly once; photos finalised through one are
  * processed once, by one of the workers; the orphan sweep, scheduled every minute here, runs once
  * per minute, not once per worker. A third server configured for https shows the secure cookie
- * and HSTS.
+ * and HSTS, and a production start without NEXTAUTH_SECRET refuses to run.
  */
 import { inArray, sql } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
@@ -179,5 +179,12 @@ describe("a server configured for https", () => {
     const token = jar.get("__Secure-next-auth.session-token")!;
     const planted = await fetch(`${secure.url}/api/me`, { headers: { cookie: `next-auth.session-token=${token}` } });
     expect(planted.status).toBe(401);
+  });
+});
+
+describe("a production start", () => {
+  it("refuses to run without NEXTAUTH_SECRET and says why, before answering anyone", async () => {
+    const production = { NEXTAUTH_SECRET: "", APP_URL: "https://qc.partproof.example", NEXTAUTH_URL: "https://qc.partproof.example" };
+    await expect(startWebServer("instance-no-secret", basePort + 4, production)).rejects.toThrow(/exited \(1\)[\s\S]*NEXTAUTH_SECRET is not set[\s\S]*production start/);
   });
 });
