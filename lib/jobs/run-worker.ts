@@ -40,7 +40,7 @@ async function handlePhotoJob([job]: PgBoss.JobWithMetadata<PhotoProcessJob>[]) 
 
 async function handleMailJob([job]: PgBoss.JobWithMetadata<MailDeliveryJob>[]) {
   const outcome = await retryQueuedMail(job.data, { isLastAttempt: job.retryCount >= job.retryLimit });
-  console.log(`mail ${job.data.emailId} to ${job.data.message.to}: ${outcome} (attempt ${job.retryCount + 1})`);
+  console.log(`mail ${job.data.emailId}: ${outcome} (attempt ${job.retryCount + 1})`);
 }
 
 async function handlePrune() {

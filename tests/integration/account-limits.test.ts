@@ -1,14 +1,24 @@
 /**
  * Limits of the public account endpoints (forgot-password, set-password, sign-up), stored in
- * PostgreSQL, and the atomic issue of one-time links. Each test acts as its own client address.
+ * PostgreSQL, the order of work in set-password, and the atomic issue of one-time links. Each
+ * test acts as its own client address.
  */
 import { and, eq, isNull, sql } from "drizzle-orm";
-import { beforeAll, describe, expect, it } from "vitest";
+import { beforeAll, describe, expect, it, vi } from "vitest";
 import { db } from "@/db/client";
 import { authTokens } from "@/db/schema";
+import { setPasswordWithToken } from "@/lib/accounts/passwords";
+import type * as passwordModule from "@/lib/auth/password";
+import { hashPassword } from "@/lib/auth/password";
 import { issueAuthToken } from "@/lib/auth/tokens";
 import { api } from "../support/http";
 import { createUser, createWorkspace, uniqueEmail } from "../support/db";
+
+// The real argon2 hash, watched: set-password must not compute it for a link that does not exist.
+vi.mock("@/lib/auth/password", async (importOriginal) => {
+  const real = await importOriginal<typeof passwordModule>();
+  return { ...real, hashPassword: vi.fn(real.hashPassword) };
+});
 
 let workspaceId: string;
 beforeAll(async () => {
@@ -52,6 +62,18 @@ describe("set password", () => {
       expect(res.body.error.message).toMatch(/not valid any more/);
     }
     expectTooMany(await api(null, "POST", "/api/password/set", { token: "y".repeat(43), password: "a-long-enough-password" }, from("203.0.113.70")), /Too many attempts to set a password from here/);
+  });
+});
+
+describe("set password, in-process (the app's own function on the test database)", () => {
+  it("looks the link up before computing the slow password hash", async () => {
+    vi.mocked(hashPassword).mockClear();
+    await expect(setPasswordWithToken({ token: "z".repeat(43), password: "a-long-enough-password", ip: "203.0.113.75" })).rejects.toMatchObject({ status: 400 });
+    expect(hashPassword).not.toHaveBeenCalled();
+    const user = await createUser({ workspaceId, roles: ["inspector"], password: null });
+    const token = await issueAuthToken(db(), { workspaceId, userId: user.id, purpose: "invite", ttlMs: 3_600_000 });
+    await setPasswordWithToken({ token, password: "a-long-enough-password", ip: "203.0.113.76" });
+    expect(hashPassword).toHaveBeenCalledTimes(1);
   });
 });
 

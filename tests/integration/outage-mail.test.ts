@@ -1,9 +1,10 @@
 /**
  * The mail server is down when a lead invites someone: the invitation is still made, its e-mail
  * is queued (the lead is told, People shows it pending) and the worker sends it once the server
- * is back — without anyone resending. The local inbox is stopped and started for real.
+ * is back — without anyone resending. The local inbox is stopped and started for real. The
+ * queued job never shows the invitation's one-time link to whoever can read the database.
  */
-import { and, eq } from "drizzle-orm";
+import { and, eq, sql } from "drizzle-orm";
 import { afterAll, beforeAll, expect, it } from "vitest";
 import { db } from "@/db/client";
 import { outgoingEmails } from "@/db/schema";
@@ -53,6 +54,11 @@ it("an invitation sent while the mail server is down is queued, shown pending, a
   expect(await messagesTo(email)).toHaveLength(1);
   const after = await api<{ people: Person[] }>(lead, "GET", "/api/people");
   expect(after.body.people.find((p) => p.email === email)?.invitationEmail).toBe("sent");
+  // The job that waited in the database all along held the link only sealed.
+  const jobs = await db().execute<{ data: string }>(sql`SELECT data::text AS data FROM pgboss.job WHERE name = 'mail-send' AND data->>'emailId' = ${queued.id}`);
+  expect(jobs.rows).toHaveLength(1);
+  expect(jobs.rows[0].data).not.toContain(tokenFromLink(link));
+  expect(jobs.rows[0].data).not.toContain("set-password");
   // The queued link is the invitation's own: it sets the password.
   expect((await api(null, "POST", "/api/password/set", { token: tokenFromLink(link), password: "otto-outage-password" })).status).toBe(200);
 });
