@@ -2,9 +2,11 @@
  * The benchmark photo scene shared by bench/coverage.ts and bench/compare-regions.ts (files
  * starting with "_" are not run by `npm run bench`): a 12-megapixel photo (4000 × 3000) with 50
  * regions in 3 defect classes (lines, polygons, rects, spots of realistic defect sizes), a polygon
- * surface (a phone back's rounded outline) and 3 zones, generated from a seed.
+ * surface (a phone back's rounded outline) and 3 zones, generated from a seed; and a second
+ * person's marking of it (buildComparedPair) for bench/compare-regions.ts and bench/scoring.ts.
  */
-import type { Point } from "@/lib/geometry/shape";
+import type { Point, Shape } from "@/lib/geometry/shape";
+import type { ComparedRegion, RegionSetComparisonInput } from "@/lib/imaging/compare-regions";
 import type { CoverageInput } from "@/lib/measure/types";
 import { mulberry32 as seededRandom } from "@/tests/support/prng";
 
@@ -70,4 +72,37 @@ export function buildPhotoScene(seed = 20261201): CoverageInput {
       { id: "edge-band", shape: { kind: "rect", x: 0, y: 0, width: 400, height: HEIGHT } },
     ],
   };
+}
+
+function moved(shape: Shape, random: () => number): Shape {
+  const dx = (random() - 0.5) * 8;
+  const dy = (random() - 0.5) * 8;
+  const shift = (points: Point[]) => points.map(([x, y]) => [x + dx, y + dy] as Point);
+  switch (shape.kind) {
+    case "rect":
+      return { ...shape, x: shape.x + dx, y: shape.y + dy };
+    case "spot":
+      return { ...shape, x: shape.x + dx, y: shape.y + dy, radius: shape.radius * (0.9 + 0.2 * random()) };
+    case "polygon":
+      return { kind: "polygon", points: shift(shape.points) };
+    case "line":
+      return { kind: "line", points: shift(shape.points), width: shape.width };
+  }
+}
+
+/**
+ * Item `index` of a 20-item attempt as Calibration and Recheck score it: side A is the scene (a
+ * new seed per item); side B is A as a second person might mark it — every region moved by up to
+ * ±4 px (spots also resized by ±10 %), about one in seven left out, and four extra regions.
+ */
+export function buildComparedPair(index: number): RegionSetComparisonInput {
+  const scene = buildPhotoScene(20261202 + index);
+  const random = seededRandom(7000 + index);
+  const b: ComparedRegion[] = scene.regions.filter(() => random() > 1 / 7).map((region) => ({ ...region, id: `b-${region.id}`, shape: moved(region.shape, random) }));
+  for (let k = 0; k < 4; k++) {
+    const x = 400 + random() * 3200;
+    const y = 300 + random() * 2400;
+    b.push(k % 2 === 0 ? { id: `extra${k}`, defect: "dust", shape: { kind: "spot", x, y, radius: 5 + random() * 15 } } : { id: `extra${k}`, defect: "dent", shape: { kind: "rect", x, y, width: 40 + random() * 80, height: 30 + random() * 60 } });
+  }
+  return { width: scene.width, height: scene.height, a: scene.regions, b, surface: scene.surface };
 }

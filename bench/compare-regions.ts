@@ -11,42 +11,12 @@
  * Run: npm run bench -- compare-regions   (figures are medians of repeated runs on this machine)
  */
 import { loadavg } from "node:os";
-import type { Point, Shape } from "@/lib/geometry/shape";
-import { compareRegionSets, type ComparedRegion, type RegionSetComparison, type RegionSetComparisonInput } from "@/lib/imaging/compare-regions";
+import { compareRegionSets, type RegionSetComparison, type RegionSetComparisonInput } from "@/lib/imaging/compare-regions";
 import type { RegionRaster } from "@/lib/imaging/raster/region-masks";
-import { buildPhotoScene, HEIGHT, WIDTH } from "@/bench/_photo-scene";
-import { mulberry32 as seededRandom } from "@/tests/support/prng";
+import { buildComparedPair, HEIGHT, WIDTH } from "@/bench/_photo-scene";
 
 const ITEMS = 20;
 const RUNS = 7;
-
-function moved(shape: Shape, random: () => number): Shape {
-  const dx = (random() - 0.5) * 8;
-  const dy = (random() - 0.5) * 8;
-  const shift = (points: Point[]) => points.map(([x, y]) => [x + dx, y + dy] as Point);
-  switch (shape.kind) {
-    case "rect":
-      return { ...shape, x: shape.x + dx, y: shape.y + dy };
-    case "spot":
-      return { ...shape, x: shape.x + dx, y: shape.y + dy, radius: shape.radius * (0.9 + 0.2 * random()) };
-    case "polygon":
-      return { kind: "polygon", points: shift(shape.points) };
-    case "line":
-      return { kind: "line", points: shift(shape.points), width: shape.width };
-  }
-}
-
-function buildItem(index: number): RegionSetComparisonInput {
-  const scene = buildPhotoScene(20261202 + index);
-  const random = seededRandom(7000 + index);
-  const b: ComparedRegion[] = scene.regions.filter(() => random() > 1 / 7).map((region) => ({ ...region, id: `b-${region.id}`, shape: moved(region.shape, random) }));
-  for (let k = 0; k < 4; k++) {
-    const x = 400 + random() * 3200;
-    const y = 300 + random() * 2400;
-    b.push(k % 2 === 0 ? { id: `extra${k}`, defect: "dust", shape: { kind: "spot", x, y, radius: 5 + random() * 15 } } : { id: `extra${k}`, defect: "dent", shape: { kind: "rect", x, y, width: 40 + random() * 80, height: 30 + random() * 60 } });
-  }
-  return { width: scene.width, height: scene.height, a: scene.regions, b, surface: scene.surface };
-}
 
 /** Compares the items `concurrency` at a time (1: one after another). */
 async function scoreAll(items: RegionSetComparisonInput[], regionRaster: RegionRaster, concurrency = 1) {
@@ -79,7 +49,7 @@ async function timeRuns(task: () => Promise<unknown>) {
   return { median, label: `${median.toFixed(0)} ms (min ${times[0].toFixed(0)}, max ${times[times.length - 1].toFixed(0)}; CPU ${cpuMs.toFixed(0)} ms)` };
 }
 
-const items = Array.from({ length: ITEMS }, (_, index) => buildItem(index));
+const items = Array.from({ length: ITEMS }, (_, index) => buildComparedPair(index));
 const exactTimes = await timeRuns(() => scoreAll(items, "exact"));
 const sharpTimes = await timeRuns(() => scoreAll(items, "sharp"));
 const pairedTimes = await timeRuns(() => scoreAll(items, "sharp", 2));

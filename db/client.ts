@@ -116,3 +116,12 @@ export async function executePrepared<Row extends Record<string, unknown>>(query
   const { rows } = await preparedPool().query<Row>({ name, text, values: params });
   return { rows };
 }
+
+/**
+ * Opens a transaction on the main pool. lib opens its transactions here, so the lock order and
+ * the activity entry are decided where the change is decided; db/queries functions take the
+ * `tx` it hands over and run the statements.
+ */
+export function transaction<T>(work: (tx: Tx) => Promise<T>, config?: Parameters<Database["transaction"]>[1]): Promise<T> {
+  return db().transaction(work, config);
+}

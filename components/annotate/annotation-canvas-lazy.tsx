@@ -10,7 +10,7 @@ import dynamic from "next/dynamic";
 export const AnnotationCanvasLazy = dynamic(() => import("./annotation-canvas").then((m) => m.AnnotationCanvas), {
   ssr: false,
   loading: () => (
-    <div className="flex h-[65vh] min-h-[360px] w-full items-center justify-center rounded-lg bg-gauge-900 text-sm text-gauge-100" role="status" data-testid="annotation-loading">
+    <div className="flex min-h-[320px] w-full flex-1 items-center justify-center rounded-lg bg-gauge-900 text-sm text-gauge-100" role="status" data-testid="annotation-loading">
       Loading the annotation canvas…
     </div>
   ),

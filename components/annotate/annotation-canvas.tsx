@@ -16,19 +16,21 @@ import { fitToView, type Viewport } from "@/lib/annotate/coords";
 import { isRegionVisible } from "@/lib/annotate/hit-test";
 import { createAnnotationState, selectedRegion, setViewport } from "@/lib/annotate/model";
 import { regionsFromPayload, toRegionSetPayload } from "@/lib/annotate/serialise";
-import { activateTool, draftHint, TOOLS, type ShortcutGroup } from "@/lib/annotate/tools";
-import type { AnnotationState, ToolId } from "@/lib/annotate/types";
+import { activateTool, TOOLS, TOOLS_BY_ID, type ShortcutGroup } from "@/lib/annotate/tools";
+import type { ToolId } from "@/lib/annotate/types";
 import type { PolygonShape } from "@/lib/geometry/shape";
 import { edit, useCanvasStore } from "./canvas-store";
 import { defectStyleMap } from "@/lib/annotate/class-looks";
-import { RULER_STYLE, SURFACE_STYLE, UNKNOWN_DEFECT_STYLE, type RegionStyle } from "@/lib/annotate/defect-styles";
+import { UNKNOWN_DEFECT_STYLE } from "@/lib/annotate/defect-styles";
+import { canvasHint, draftStyleOf } from "./canvas-hint";
+import { DefectClassPicker } from "./defect-class-picker";
 import { ImageLayer } from "./image-layer";
 import { InteractionLayer } from "./interaction-layer";
 import { RegionList } from "./region-list";
 import { RegionsLayer } from "./regions-layer";
-import { RulerLengthInput } from "./ruler-length-input";
 import { ShortcutSheet } from "./shortcut-sheet";
-import { Toolbar } from "./toolbar";
+import { StageOverlays } from "./stage-overlays";
+import { ToolRail } from "./tool-rail";
 import type { AnnotationCanvasProps, ClassEntry, GhostShape, ZoneInput } from "./types";
 import { useCanvasActions } from "./use-canvas-actions";
 import { useCanvasKeys } from "./use-canvas-keys";
@@ -50,26 +52,9 @@ function newIdPrefix(): string {
   return Array.from(words, (w) => w.toString(16).padStart(8, "0")).join("");
 }
 
-function draftStyleOf(state: AnnotationState, styles: ReadonlyMap<string, RegionStyle>): RegionStyle {
-  if (state.activeTool === "surface") return SURFACE_STYLE;
-  if (state.activeTool === "ruler") return RULER_STYLE;
-  return (state.activeDefect && styles.get(state.activeDefect)) || UNKNOWN_DEFECT_STYLE;
-}
-
-function statusText(state: AnnotationState, imageStatus: "loading" | "ready" | "failed", readOnly: boolean): string {
-  if (imageStatus === "failed") return "The photo could not be loaded. Check the connection and reload the page; the regions are kept.";
-  const hint = draftHint(state);
-  if (hint) return hint;
-  if (imageStatus === "loading") return "Loading the photo…";
-  if (state.activeDefect === null && !readOnly) {
-    return state.allowedDefects.length === 0 ? "This part type has no defect classes: only Surface and Ruler can be drawn." : "Choose a defect class to draw with: every class here is critical, so none is chosen for you.";
-  }
-  return readOnly ? "View only. Drag to pan, scroll or pinch to zoom. Press ? for shortcuts." : "Press ? for the keyboard shortcuts.";
-}
-
 export function AnnotationCanvas(props: AnnotationCanvasProps) {
   const { handleRef, imageUrl, original, preview, allowedDefects, zones = NO_ZONES, initialRegions, onChange, onHistoryChange, readOnly = false, className = "" } = props;
-  const { ghosts = NO_GHOSTS, regionListContainer = null, keyArea = null, autoFocus = false, startWith, onToolChange, pageShortcuts = NO_SHORTCUTS } = props;
+  const { ghosts = NO_GHOSTS, regionListContainer = null, keyArea = null, autoFocus = false, startWith, onToolChange, pageShortcuts = NO_SHORTCUTS, toolbarEnd = null } = props;
   // Number keys follow the severity groups (least severe first); the look follows the class key.
   const ordered = useMemo(() => benchClassOrder(allowedDefects), [allowedDefects]);
   const defectKeys = useMemo(() => ordered.map((d) => d.key), [ordered]);
@@ -150,6 +135,8 @@ export function AnnotationCanvas(props: AnnotationCanvasProps) {
   const selected = selectedRegion(state) ?? null;
   const visibleSelection = selected && isRegionVisible(state, selected) ? selected : null;
   const lineSelected = selected?.role === "defect" && selected.shape.kind === "line" ? selected.shape : null;
+  const lineWidthValue = lineSelected ? lineSelected.width : state.lineWidth;
+  const lineWidth = useMemo(() => ({ value: lineWidthValue, target: lineSelected ? ("selection" as const) : ("new" as const) }), [lineWidthValue, lineSelected]);
   const rulerWaiting = state.draft?.tool === "ruler" && state.draft.phase === "length";
   const selectedRuler = selected?.role === "ruler" ? selected : null;
   const ruler = useMemo(
@@ -166,30 +153,27 @@ export function AnnotationCanvas(props: AnnotationCanvasProps) {
 
   const regionList = (
     <section aria-labelledby={`${statusId}-regions`} data-testid="region-panel">
-      <h2 id={`${statusId}-regions`} className="mb-2 text-sm font-semibold text-gauge-900">
-        Regions ({state.regions.length})
-      </h2>
+      <h3 id={`${statusId}-regions`} className="mb-1.5 text-xs font-medium text-gauge-700">
+        {state.regions.length === 1 ? "1 region" : `${state.regions.length} regions`} on this photo
+      </h3>
       <RegionList regions={state.regions} selectedId={state.selectedId} classes={classByKey} hiddenDefects={state.hiddenDefects} readOnly={readOnly} onSelect={actions.select} onDelete={actions.remove} />
     </section>
   );
 
+  const inHand = readOnly ? null : { id: state.activeTool, label: TOOLS_BY_ID[state.activeTool].label };
+  const entryInHand = !readOnly && state.activeDefect && state.activeTool !== "surface" && state.activeTool !== "ruler" && state.activeTool !== "select" ? (classByKey.get(state.activeDefect) ?? null) : null;
+
   return (
-    <div ref={rootRef} className={`flex flex-col gap-3 ${className}`} data-testid="annotation-canvas">
-      <Toolbar
-        activeTool={state.activeTool}
-        enabledTools={enabledTools}
-        classes={classes}
-        activeDefect={state.activeDefect}
-        hiddenDefects={state.hiddenDefects}
-        lineWidth={lineSelected ? lineSelected.width : state.lineWidth}
-        lineWidthTarget={lineSelected ? "selection" : "new"}
-        zoom={state.viewport.scale}
-        history={history}
-        readOnly={readOnly}
-        actions={actions}
-      />
-      <div className={`flex flex-col gap-3 ${regionListContainer ? "" : "lg:flex-row"}`}>
-        <div className="relative min-w-0 flex-1">
+    <div ref={rootRef} className={`flex min-h-0 flex-col gap-2 ${className}`} data-testid="annotation-canvas">
+      <div className="grid min-h-0 flex-1 grid-cols-[auto_minmax(0,1fr)] grid-rows-[auto_minmax(0,1fr)] gap-x-2 gap-y-1.5">
+        <div className="row-span-2">
+          <ToolRail activeTool={state.activeTool} lineWidth={lineWidth} enabledTools={enabledTools} classes={classes} hiddenDefects={state.hiddenDefects} history={history} readOnly={readOnly} actions={actions} />
+        </div>
+        <div className="flex min-h-8 min-w-0 items-start gap-3" data-testid="annotation-toolbar">
+          {!readOnly && <DefectClassPicker classes={classes} activeDefect={state.activeDefect} onPick={actions.defect} />}
+          {toolbarEnd && <div className="ml-auto flex shrink-0 items-center">{toolbarEnd}</div>}
+        </div>
+        <div className="relative min-h-[320px] min-w-0">
           <div
             ref={containerRef}
             tabIndex={0}
@@ -197,7 +181,7 @@ export function AnnotationCanvas(props: AnnotationCanvasProps) {
             aria-roledescription="annotation canvas"
             aria-label="Photo with marked regions"
             aria-describedby={statusId}
-            className="relative h-[65vh] min-h-[360px] w-full overflow-hidden rounded-lg bg-gauge-900 outline-none select-none focus-visible:ring-4 focus-visible:ring-signal-500"
+            className="absolute inset-0 overflow-hidden rounded-lg bg-gauge-900 outline-none select-none focus-visible:ring-4 focus-visible:ring-signal-500"
             style={{ touchAction: "none", cursor }}
             {...pointer.handlers}
             data-testid="annotation-stage"
@@ -226,24 +210,19 @@ export function AnnotationCanvas(props: AnnotationCanvasProps) {
               </Stage>
             )}
           </div>
-          {zones.length > 0 && zoneSource === "image" && (
-            // Over the stage, so the photo does not move when the first Surface appears.
-            <p className="pointer-events-none absolute right-2 bottom-2 rounded bg-gauge-950/75 px-2 py-1 text-xs text-white" data-testid="zones-waiting">
-              Zones: no Surface yet — trace the part with Surface to place them.
-            </p>
-          )}
-          {ruler && !readOnly && (
-            // Over the stage, not above it, so the photo does not jump when the prompt opens.
-            <div className="card absolute left-2 top-2 z-10 max-w-[calc(100%-1rem)] p-3 shadow-md">
-              <RulerLengthInput key={ruler.id} mode={ruler.mode} currentMm={ruler.lengthMm} onApply={actions.rulerLength} onCancel={actions.cancelRuler} />
-            </div>
-          )}
-          <p id={statusId} className="mt-1 min-h-5 text-sm text-gauge-800" aria-live="polite" data-testid="annotation-status">
-            {statusText(state, imageStatus, readOnly)}
-          </p>
+          <StageOverlays
+            statusId={statusId}
+            tool={inHand}
+            entry={entryInHand}
+            hint={canvasHint(state, imageStatus, readOnly)}
+            zoom={state.viewport.scale}
+            zonesWaiting={zones.length > 0 && zoneSource === "image"}
+            ruler={readOnly ? null : ruler}
+            actions={actions}
+          />
         </div>
-        {regionListContainer ? createPortal(regionList, regionListContainer) : <aside className="lg:max-h-[65vh] lg:w-80 lg:overflow-y-auto">{regionList}</aside>}
       </div>
+      {regionListContainer ? createPortal(regionList, regionListContainer) : <aside className="max-h-64 overflow-y-auto">{regionList}</aside>}
       <ShortcutSheet open={sheetOpen} onClose={() => setSheetOpen(false)} extra={pageShortcuts} />
     </div>
   );

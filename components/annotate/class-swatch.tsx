@@ -26,13 +26,13 @@ function PatternMarks({ fill, colour }: { fill: RegionStyle["fill"]; colour: str
  * A small legend mark: the class's colour, dash pattern and fill, as on the canvas. Decorative
  * (aria-hidden); the class name next to it carries the meaning.
  */
-export function ClassSwatch({ style, className = "" }: { style: RegionStyle; className?: string }) {
+export function ClassSwatch({ style, size = "md", className = "" }: { style: RegionStyle; size?: "md" | "sm"; className?: string }) {
   // useId's characters vary between React versions; keep an id that is safe inside url(#…).
   const patternId = `swatch-${useId().replace(/[^A-Za-z0-9_-]/g, "")}`;
   const dash = style.stroke.dash.length ? style.stroke.dash.map((d) => Math.max(d, 0.01)).join(" ") : undefined;
   const hasPattern = style.fill !== "tint" && style.fill !== "none";
   return (
-    <svg viewBox="0 0 32 18" width="32" height="18" aria-hidden="true" className={`shrink-0 rounded-sm bg-gauge-700 ${className}`}>
+    <svg viewBox="0 0 32 18" width={size === "sm" ? 24 : 32} height={size === "sm" ? 14 : 18} aria-hidden="true" className={`shrink-0 rounded-sm bg-gauge-700 ${className}`}>
       {hasPattern && (
         <defs>
           <pattern id={patternId} width="8" height="8" patternUnits="userSpaceOnUse">

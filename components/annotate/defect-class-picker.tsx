@@ -1,56 +1,55 @@
 "use client";
 
+import { memo } from "react";
+import { SEVERITY_GROUPS, type ClassSeverity } from "@/lib/annotate/class-order";
 import { ClassSwatch } from "./class-swatch";
 import type { ClassEntry } from "./types";
 
+const GROUP: Record<ClassSeverity, { label: string; tone: string; pressed: string }> = {
+  minor: { label: "Minor", tone: "text-gauge-600", pressed: "aria-pressed:border-gauge-800 aria-pressed:bg-gauge-800 aria-pressed:text-white" },
+  major: { label: "Major", tone: "text-signal-700", pressed: "aria-pressed:border-signal-700 aria-pressed:bg-signal-700 aria-pressed:text-white" },
+  critical: { label: "Critical", tone: "text-fault-700", pressed: "aria-pressed:border-fault-700 aria-pressed:bg-fault-700 aria-pressed:text-white" },
+};
+
 /**
- * The part type's defect classes as buttons: the class for new regions. Number keys 1–9 do the
- * same and also recolour the selected region; so does a click.
+ * The part type's defect classes, grouped by severity (least severe first, as the number keys
+ * run): the class for new regions. A click does what its number key does — it also gives the
+ * selected region that class. Critical classes sit last and wear a red edge: a deliberate choice.
  */
-export function DefectClassPicker({ classes, activeDefect, onPick }: { classes: readonly ClassEntry[]; activeDefect: string | null; onPick(key: string): void }) {
+export const DefectClassPicker = memo(function DefectClassPicker({ classes, activeDefect, onPick }: { classes: readonly ClassEntry[]; activeDefect: string | null; onPick(key: string): void }) {
   return (
-    <div role="group" aria-label="Defect class" className="flex flex-wrap gap-1.5">
-      {classes.map((c) => {
-        const number = c.index < 9 ? String(c.index + 1) : null;
+    <div role="group" aria-label="Defect class" className="flex min-w-0 flex-wrap items-center gap-1" data-testid="class-bar">
+      {SEVERITY_GROUPS.filter((severity) => classes.some((c) => c.severity === severity)).map((severity, i) => {
+        const members = classes.filter((c) => c.severity === severity);
+        const group = GROUP[severity];
         return (
-          <button
-            key={c.key}
-            type="button"
-            className="btn-secondary min-h-10 gap-1.5 px-2.5 py-1.5 aria-pressed:border-gauge-800 aria-pressed:bg-gauge-800 aria-pressed:text-white"
-            aria-pressed={activeDefect === c.key}
-            aria-keyshortcuts={number ?? undefined}
-            title={`${c.label} (${c.severity})${number ? ` — key ${number}` : ""}`}
-            onClick={() => onPick(c.key)}
-            data-testid={`defect-class-${c.key}`}
-          >
-            {number && <kbd className="font-mono text-xs opacity-80">{number}</kbd>}
-            <ClassSwatch style={c.style} />
-            <span>{c.label}</span>
-          </button>
+          // `contents`: the chips of every group flow on the same lines, so the bar wraps as little as it can.
+          <div key={severity} role="group" aria-label={`${group.label} classes`} className="contents" data-testid={`class-group-${severity}`}>
+            <span className={`text-[10px] font-semibold tracking-wide uppercase ${i > 0 ? "ml-2" : ""} ${group.tone}`} aria-hidden="true">
+              {group.label}
+            </span>
+            {members.map((c) => {
+              const number = c.index < 9 ? String(c.index + 1) : null;
+              return (
+                <button
+                  key={c.key}
+                  type="button"
+                  className={`flex h-7 items-center gap-1 rounded-md border bg-white px-1.5 text-xs text-gauge-900 hover:bg-gauge-50 ${severity === "critical" ? "border-fault-600 border-l-4" : "border-gauge-300"} ${group.pressed}`}
+                  aria-pressed={activeDefect === c.key}
+                  aria-keyshortcuts={number ?? undefined}
+                  title={`${c.label} (${c.severity})${number ? ` — key ${number}` : ""}`}
+                  onClick={() => onPick(c.key)}
+                  data-testid={`defect-class-${c.key}`}
+                >
+                  {number && <kbd className="font-mono text-[11px] opacity-80">{number}</kbd>}
+                  <ClassSwatch style={c.style} size="sm" />
+                  <span className="whitespace-nowrap">{c.label}</span>
+                </button>
+              );
+            })}
+          </div>
         );
       })}
     </div>
   );
-}
-
-/** Show or hide classes on the canvas (a disclosure with one checkbox per class). */
-export function ClassVisibility({ classes, hiddenDefects, onToggle }: { classes: readonly ClassEntry[]; hiddenDefects: readonly string[]; onToggle(key: string): void }) {
-  const hiddenCount = classes.filter((c) => hiddenDefects.includes(c.key)).length;
-  return (
-    <details className="relative">
-      <summary className="btn-secondary min-h-10 cursor-pointer list-none px-2.5 py-1.5" data-testid="class-visibility">
-        Show classes{hiddenCount > 0 ? ` (${hiddenCount} hidden)` : ""}
-      </summary>
-      <fieldset className="card absolute right-0 z-20 mt-1 min-w-56 space-y-1 p-3">
-        <legend className="sr-only">Classes shown on the photo</legend>
-        {classes.map((c) => (
-          <label key={c.key} className="flex min-h-9 cursor-pointer items-center gap-2 text-sm">
-            <input type="checkbox" checked={!hiddenDefects.includes(c.key)} onChange={() => onToggle(c.key)} data-testid={`show-class-${c.key}`} />
-            <ClassSwatch style={c.style} />
-            {c.label}
-          </label>
-        ))}
-      </fieldset>
-    </details>
-  );
-}
+});

@@ -1,5 +1,5 @@
 /** Public types of the annotation canvas (its props) and the entries its parts share. */
-import type { Ref } from "react";
+import type { ReactNode, Ref } from "react";
 import type { AddOutcome, NewRegion } from "@/lib/annotate/bulk-edits";
 import type { Size } from "@/lib/annotate/coords";
 import type { ShortcutGroup } from "@/lib/annotate/tools";
@@ -57,6 +57,8 @@ export type AnnotationCanvasProps = {
   startWith?: ToolInHand | null;
   /** After the tool or class in hand changes. */
   onToolChange?: (inHand: ToolInHand) => void;
+  /** Shown at the end of the class bar (the Bench puts the save status there). */
+  toolbarEnd?: ReactNode;
   /** The page's own keys, listed in the `?` sheet after the canvas's. */
   pageShortcuts?: readonly ShortcutGroup[];
   className?: string;

@@ -23,7 +23,7 @@ export function otherHolder(view: UnitView, me: BenchPerson, now = new Date()): 
 }
 
 export function annotateLock(view: UnitView, me: BenchPerson, now = new Date()): string | null {
-  if (!me.canRecord) return "View only: marking regions needs the inspector role.";
+  if (!me.canRecord) return "Marking regions needs the inspector role.";
   if (view.lot.status !== "open") return "The lot is decided; this unit's regions are part of the record.";
   if (view.unit.status !== "queued" && view.unit.status !== "on_bench") return `This unit is ${STATUS_LABELS[view.unit.status]}; its regions are part of the record and can no longer change.`;
   const holder = otherHolder(view, me, now);
@@ -32,4 +32,19 @@ export function annotateLock(view: UnitView, me: BenchPerson, now = new Date()):
     return `${holder} has this unit on their bench (lease until ${until}), so it is read-only for you.`;
   }
   return null;
+}
+
+export type BenchNotice = { tone: "held" | "closed" | "view-only"; text: string };
+
+/**
+ * The one read-only banner of the Bench: why this person cannot change the unit now, said once
+ * (the header and panels no longer repeat it). A lead on someone else's running lease may still
+ * correct checklist results, and the banner says so.
+ */
+export function benchNotice(view: UnitView, me: BenchPerson, now = new Date()): BenchNotice | null {
+  const lock = annotateLock(view, me, now);
+  if (!lock) return null;
+  if (!me.canRecord) return { tone: "view-only", text: lock };
+  if (otherHolder(view, me, now)) return { tone: "held", text: me.isLead ? `${lock} As a lead you may still correct checklist results.` : lock };
+  return { tone: "closed", text: lock };
 }

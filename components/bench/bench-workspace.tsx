@@ -1,29 +1,31 @@
 "use client";
 
 import { useQuery, useQueryClient } from "@tanstack/react-query";
-import { useEffect, useMemo, useState, useSyncExternalStore } from "react";
+import { useMemo, useState } from "react";
 import type { AllowedDefect } from "@/components/annotate/types";
+import { GradeBadge } from "@/components/grading/grade-badge";
 import { GradeHistory } from "@/components/grading/grade-history";
 import { GradePanel, type MeasurementLabels } from "@/components/grading/grade-panel";
 import { GradeWhatIf } from "@/components/grading/grade-what-if";
+import type { GradeView } from "@/components/grading/types";
+import { PhotoList } from "@/components/photos/photo-list";
 import { PhotoStrip } from "@/components/photos/photo-strip";
 import { PhotoUploader } from "@/components/photos/photo-uploader";
 import { LeaseHeartbeat } from "@/components/queue/lease-heartbeat";
 import type { DefectClassDefinition, ViewDefinition } from "@/db/schema/lots";
-import { apiFetch } from "@/lib/http/client";
-import type { PhotoDto } from "@/lib/photos/dto";
 import { benchClassOrder, startingClass } from "@/lib/annotate/class-order";
+import { apiFetch } from "@/lib/http/client";
 import { isScreenView } from "@/lib/regions/suggestion-mapping";
-import { annotateLock, otherHolder, type BenchPerson } from "./annotate-lock";
-import { ChecklistPanel } from "./checklist-panel";
+import { annotateLock, benchNotice, type BenchPerson } from "./annotate-lock";
+import { checklistSummary, ChecklistPanel } from "./checklist-panel";
 import { PhotoAnnotator, type CanvasLink } from "./photo-annotator";
-import { PHOTO_SHORTCUTS, usePhotoKeys } from "./photo-keys";
+import { PHOTO_SHORTCUTS } from "./photo-keys";
+import { openSection, SidePanels, usePanelState, type PanelSection } from "./side-panels";
+import { TakeNext } from "./take-next";
 import { useToolInHand } from "./tool-in-hand";
-import { putRegionSet } from "./regions-api";
-import { SaverRegistry } from "./saver-registry";
 import { UnitHeader } from "./unit-header";
+import { useBenchPhotos } from "./use-bench-photos";
 import { unitQueryKey, useUnit, type UnitView } from "./use-unit";
-import { useMediaQuery } from "./use-media-query";
 
 export type BenchPartType = {
   views: ViewDefinition[];
@@ -40,43 +42,33 @@ type BenchWorkspaceProps = {
   initialPhotoId: string | null;
 };
 
-/** A switch waits this long for the previous photo's save; past it the save goes on in the background. */
-const SWITCH_FLUSH_MS = 4000;
-
-function useUnsavedPhotos(registry: SaverRegistry): ReadonlySet<string> {
-  const key = useSyncExternalStore(registry.subscribe, registry.unsavedPhotoIds, () => "");
-  return useMemo(() => new Set(key ? key.split(" ") : []), [key]);
-}
+const BANNER_TONE = { held: "border-signal-500 bg-signal-50 text-signal-700", closed: "border-gauge-300 bg-gauge-50 text-gauge-800", "view-only": "border-gauge-300 bg-gauge-50 text-gauge-800" } as const;
 
 /**
- * The Bench for one unit: header with the lease, photos by view, the canvas of the selected photo
- * with autosave, the region list, checklist, measurement and grade. Owns the selected photo and
- * one autosaver per photo (so a switch never loses an edit); the panels own their own data.
- * Desktop: the canvas large on the left, panels in a column beside it; narrower: stacked, canvas first.
+ * The Bench for one unit, as a workspace that fills the window: the unit in one header line, the
+ * read-only reason (if any) once, then the photo on the canvas with the tool rail and class bar,
+ * the photos as a strip under it, and the panels (regions, checklist, measurement and grade,
+ * photos) in a column that folds. Landscape screens put the panels beside the canvas, portrait
+ * ones below it. Owns the selected photo and the tool in hand; the panels own their own data.
  */
 export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersions, initialPhotoId }: BenchWorkspaceProps) {
   const unitId = initial.unit.id;
   const queryClient = useQueryClient();
   const { data: view } = useUnit(unitId, initial);
-  const [registry] = useState(() => new SaverRegistry(putRegionSet, () => void queryClient.invalidateQueries({ queryKey: ["unit-measurement", unitId] })));
-  const unsaved = useUnsavedPhotos(registry);
-  const photos = useQuery({ queryKey: ["unit-photos", unitId], queryFn: () => apiFetch<{ photos: PhotoDto[] }>(`/api/units/${unitId}/photos`) });
-  const [selectedId, setSelectedId] = useState<string | null>(initialPhotoId);
-  const [uploadOpen, setUploadOpen] = useState<boolean | null>(null);
-  const wide = useMediaQuery("(min-width: 1280px)");
-  const [sideSlot, setSideSlot] = useState<HTMLElement | null>(null);
-  const [belowSlot, setBelowSlot] = useState<HTMLElement | null>(null);
   const [markingArea, setMarkingArea] = useState<HTMLElement | null>(null);
-  // The next canvas takes the keyboard once the inspector has switched photos.
-  const [switched, setSwitched] = useState(false);
+  const [regionSlot, setRegionSlot] = useState<HTMLElement | null>(null);
+  const [suggestionSlot, setSuggestionSlot] = useState<HTMLElement | null>(null);
+  const [statusSlot, setStatusSlot] = useState<HTMLElement | null>(null);
+  const [uploadOpen, setUploadOpen] = useState<boolean | null>(null);
+  const [panels, setPanels] = usePanelState();
+  const { photos, selected, select, registry, unsaved, switched } = useBenchPhotos({ unitId, initialPhotoId, keyArea: markingArea });
+  const grades = useQuery({ queryKey: ["unit-grades", unitId], queryFn: () => apiFetch<{ grades: GradeView[] }>(`/api/units/${unitId}/grades`) });
 
-  const ready = (photos.data?.photos ?? []).filter((p) => p.status === "ready");
-  const selected = ready.find((p) => p.id === selectedId) ?? ready[0] ?? null;
   const lock = annotateLock(view, me);
+  const notice = benchNotice(view, me);
+  const holdsLease = view.unit.status === "on_bench" && view.unit.leaseHolderId === me.id;
   const classKeys = useMemo(() => benchClassOrder(partType.defectClasses).map((d) => d.key), [partType.defectClasses]);
   const { hand, setHand } = useToolInHand({ area: markingArea, classKeys, startingDefect: startingClass(partType.defectClasses), readOnly: lock !== null });
-  const holder = otherHolder(view, me);
-  const holdsLease = view.unit.status === "on_bench" && view.unit.leaseHolderId === me.id;
   const views = useMemo(() => partType.views.map((v) => ({ key: v.key, label: v.label, required: v.required })), [partType.views]);
   const allowedDefects = useMemo<AllowedDefect[]>(() => partType.defectClasses.map((d) => ({ key: d.key, label: d.label, severity: d.severity })), [partType.defectClasses]);
   const labels = useMemo<MeasurementLabels>(
@@ -85,118 +77,133 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
   );
   const selectedView = selected ? partType.views.find((v) => v.key === selected.viewKey) : undefined;
   const canUpload = me.canRecord && (view.unit.status === "queued" || view.unit.status === "on_bench");
-  // A unit without photos opens with the uploader; otherwise it waits behind "Add photos" so the
-  // canvas sits high. Decided once, when the photos first load, so the uploader does not close
-  // under the inspector when the first upload turns into a photo.
-  const hasPhotos = photos.isSuccess && photos.data.photos.length > 0;
-  if (uploadOpen === null && photos.isSuccess) setUploadOpen(photos.data.photos.length === 0);
-  const uploaderShown = uploadOpen === true;
-
-  // Leaving the page (closing the tab, reloading) while edits are unsaved asks first.
-  useEffect(() => {
-    const warn = (e: BeforeUnloadEvent) => {
-      if (!registry.anyUnsaved()) return;
-      e.preventDefault();
-      e.returnValue = "";
-    };
-    const online = () => registry.retryAll();
-    window.addEventListener("beforeunload", warn);
-    window.addEventListener("online", online);
-    return () => {
-      window.removeEventListener("beforeunload", warn);
-      window.removeEventListener("online", online);
-      // Navigating elsewhere in the app: whatever is owed is still sent.
-      void registry.flushAll();
-    };
-  }, [registry]);
-
-  const select = async (photo: PhotoDto) => {
-    if (selected && photo.id !== selected.id) {
-      await Promise.race([registry.get(selected.id)?.flush(), new Promise((r) => setTimeout(r, SWITCH_FLUSH_MS))]);
-    }
-    setSelectedId(photo.id);
-    setSwitched(true);
-    const url = new URL(window.location.href);
-    url.searchParams.set("photo", photo.id);
-    window.history.replaceState(window.history.state, "", url);
-  };
-
-  usePhotoKeys({ area: markingArea, ids: ready.map((p) => p.id), currentId: selected?.id ?? null, onOpen: (id) => void select(ready.find((p) => p.id === id)!) });
+  const noPhotos = photos.isSuccess && photos.data.photos.length === 0;
+  // A unit without photos opens with the uploader where the canvas will be; later it opens over the
+  // canvas on demand. Decided once, when the photos first load, so the uploader does not close under
+  // the inspector when the first upload turns into a photo.
+  if (uploadOpen === null && photos.isSuccess) setUploadOpen(noPhotos);
+  const uploaderShown = canUpload && uploadOpen === true;
+  const current = grades.data?.grades.at(-1) ?? null;
   const link = useMemo<CanvasLink>(
     () => ({ keyArea: markingArea, autoFocus: switched, startWith: hand, onToolChange: setHand, pageShortcuts: [{ title: "Photos", shortcuts: PHOTO_SHORTCUTS }] }),
     [markingArea, switched, hand, setHand],
   );
 
-  const regions = <div ref={wide ? setSideSlot : setBelowSlot} className="max-h-[45vh] overflow-y-auto rounded-lg border border-gauge-200 bg-white p-3 xl:max-h-[40vh]" data-testid="region-slot" />;
-  return (
-    <div className="space-y-4">
-      <UnitHeader initial={initial} me={me} />
-      {holdsLease && <LeaseHeartbeat unitId={unitId} />}
-      {holder && (
-        <div role="status" className="rounded-md border-2 border-signal-500 bg-signal-50 px-4 py-3 text-sm font-medium text-signal-700" data-testid="read-only-banner">
-          Read-only: {lock}
+  const showPhotoPanel = () => openSection(setPanels, "photos");
+
+  const sections: PanelSection[] = [
+    {
+      id: "regions",
+      title: "Regions",
+      content: (
+        <div className="space-y-2">
+          <div ref={setSuggestionSlot} />
+          <div ref={setRegionSlot} data-testid="region-slot">
+            {!selected && <p className="text-sm text-gauge-700">Regions are marked on a photo; open one from the strip.</p>}
+          </div>
         </div>
+      ),
+    },
+    { id: "checklist", title: "Functional checklist", summary: checklistSummary(view), content: <ChecklistPanel initial={initial} me={me} framed={false} /> },
+    {
+      id: "grade",
+      title: "Measurement and grade",
+      summary: current ? <GradeBadge grade={current.finalGrade} size="sm" /> : undefined,
+      content: (
+        <div id="grade" className="space-y-4">
+          <GradePanel
+            unitId={unitId}
+            canGrade={me.canRecord}
+            canCorrect={canCorrect}
+            labels={labels}
+            unsavedRegions={unsaved.size > 0}
+            beforeMeasure={() => registry.flushAll()}
+            onGraded={() => void queryClient.invalidateQueries({ queryKey: unitQueryKey(unitId) })}
+            readOnlyReason={lock !== null && !(me.isLead && view.unit.status === "graded") ? lock : null}
+            framed={false}
+          />
+          <GradeHistory unitId={unitId} framed={false} />
+          <GradeWhatIf unitId={unitId} versions={rubricVersions} framed={false} />
+        </div>
+      ),
+    },
+    { id: "photos", title: "Photos", summary: `${photos.data?.photos.length ?? 0}`, content: <PhotoList unitId={unitId} views={views} canManage={canUpload} beforeRemove={(id) => registry.get(id)?.flush() ?? Promise.resolve(true)} /> },
+  ];
+
+  return (
+    <div className="flex h-full min-h-0 flex-col gap-2" data-testid="bench">
+      <UnitHeader
+        initial={initial}
+        me={me}
+        end={
+          <>
+            {holdsLease && <LeaseHeartbeat unitId={unitId} onRenewed={() => void queryClient.invalidateQueries({ queryKey: unitQueryKey(unitId) })} />}
+            {me.canRecord && view.unit.status === "graded" && <TakeNext lotId={view.lot.id} />}
+          </>
+        }
+      />
+      {notice && (
+        <p role="status" className={`shrink-0 truncate rounded-md border px-3 py-1.5 text-sm font-medium ${BANNER_TONE[notice.tone]}`} title={notice.text} data-testid="read-only-banner">
+          Read-only: {notice.text}
+        </p>
       )}
-      <div className="flex flex-col gap-6 xl:flex-row xl:items-start">
-        <div ref={setMarkingArea} className="min-w-0 flex-1 space-y-4">
-          <div id="photos" className="space-y-2">
-            <PhotoStrip
-              unitId={unitId}
-              views={views}
-              canManage={canUpload}
-              selection={{ selectedId: selected?.id ?? null, onSelect: (p) => void select(p), unsavedIds: unsaved }}
-              headerAction={
-                canUpload && (hasPhotos || uploaderShown) ? (
-                  <button type="button" className="btn-secondary px-3 py-1 text-sm" aria-expanded={uploaderShown} aria-controls="bench-uploader" onClick={() => setUploadOpen((open) => !open)} data-testid="add-photos-toggle">
-                    {uploaderShown ? "Hide the uploader" : "Add photos"}
-                  </button>
-                ) : null
-              }
-            />
+      <div className="flex min-h-0 flex-1 flex-col gap-2 lg:flex-row">
+        {/* Portrait: the marking area keeps a fixed share of the height (never the panels' content
+            size, which changes while marking) and takes all of it once the panels are folded. */}
+        <div ref={setMarkingArea} className={`flex min-h-[26rem] min-w-0 flex-col gap-2 lg:min-h-0 lg:flex-1 lg:basis-auto ${panels.folded ? "flex-1" : "shrink-0 basis-[74%]"}`} data-testid="marking-area">
+          <div className="relative flex min-h-0 flex-1 flex-col">
+            {selected ? (
+              <PhotoAnnotator
+                key={selected.id}
+                photo={selected}
+                viewLabel={selectedView?.label ?? selected.viewKey}
+                allowedDefects={allowedDefects}
+                zones={selectedView?.zones ?? []}
+                lock={lock}
+                screenView={isScreenView(partType, selected.viewKey)}
+                registry={registry}
+                slots={{ regions: regionSlot, suggestions: suggestionSlot, status: statusSlot }}
+                link={link}
+              />
+            ) : (
+              <p className="flex flex-1 items-center justify-center rounded-lg border border-dashed border-gauge-300 p-6 text-center text-sm text-gauge-700">
+                {photos.isPending ? "Loading photos…" : "No processed photo yet. Add photos of the required views; each opens here for marking once it is ready."}
+              </p>
+            )}
             {canUpload && (
               // Hidden, not unmounted, so uploads in flight carry on while the uploader is out of the way.
-              <div id="bench-uploader" hidden={!uploaderShown}>
+              <div id="bench-uploader" hidden={!uploaderShown} className="absolute inset-0 z-20 overflow-y-auto rounded-lg border border-gauge-200 bg-white p-4 shadow-lg">
+                {photos.data?.photos.some((p) => p.status === "ready") && (
+                  <button type="button" className="btn-secondary float-right h-8 py-0 text-sm" onClick={() => setUploadOpen(false)}>
+                    Back to the photo
+                  </button>
+                )}
                 <PhotoUploader unitId={unitId} views={views} />
               </div>
             )}
           </div>
-          {selected ? (
-            <PhotoAnnotator
-              key={selected.id}
-              photo={selected}
-              viewLabel={selectedView?.label ?? selected.viewKey}
-              allowedDefects={allowedDefects}
-              zones={selectedView?.zones ?? []}
-              lock={lock}
-              screenView={isScreenView(partType, selected.viewKey)}
-              registry={registry}
-              regionListContainer={wide ? sideSlot : belowSlot}
-              link={link}
-            />
-          ) : (
-            <p className="rounded-lg border border-dashed border-gauge-300 p-6 text-center text-sm text-gauge-700">
-              {photos.isPending ? "Loading photos…" : "No processed photo yet. Add photos of the required views; each opens here for marking once it is ready."}
-            </p>
-          )}
-          {!wide && selected && regions}
+          <PhotoStrip
+            unitId={unitId}
+            views={views}
+            selection={{ selectedId: selected?.id ?? null, onSelect: (p) => void select(p), unsavedIds: unsaved }}
+            end={
+              <div className="flex shrink-0 flex-col items-end gap-1">
+                {canUpload && !noPhotos && (
+                  <div className="flex gap-1">
+                    <button type="button" className="btn-secondary h-8 px-2 py-0 text-sm" onClick={showPhotoPanel} title="File a photo under the right view, or remove a wrong one" data-testid="manage-photos">
+                      View or remove…
+                    </button>
+                    <button type="button" className="btn-secondary h-8 py-0 text-sm" aria-expanded={uploaderShown} aria-controls="bench-uploader" onClick={() => setUploadOpen((open) => !open)} data-testid="add-photos-toggle">
+                      {uploaderShown ? "Hide the uploader" : "Add photos"}
+                    </button>
+                  </div>
+                )}
+                <div ref={setStatusSlot} className="text-xs" />
+              </div>
+            }
+          />
         </div>
-        <aside className="w-full space-y-4 xl:sticky xl:top-4 xl:max-h-[calc(100vh-2rem)] xl:w-[24rem] xl:shrink-0 xl:overflow-y-auto" aria-label="Unit panels">
-          {wide && selected && regions}
-          <ChecklistPanel initial={initial} me={me} />
-          <div id="grade" className="space-y-4">
-            <GradePanel
-              unitId={unitId}
-              canGrade={me.canRecord}
-              canCorrect={canCorrect}
-              labels={labels}
-              unsavedRegions={unsaved.size > 0}
-              beforeMeasure={() => registry.flushAll()}
-              onGraded={() => void queryClient.invalidateQueries({ queryKey: unitQueryKey(unitId) })}
-            />
-            <GradeHistory unitId={unitId} />
-            <GradeWhatIf unitId={unitId} versions={rubricVersions} />
-          </div>
-        </aside>
+        <SidePanels sections={sections} state={panels} onChange={setPanels} className={`lg:flex-none ${panels.folded ? "flex-none lg:w-11" : "min-h-0 flex-1 lg:w-[19rem] xl:w-[23rem]"}`} />
       </div>
     </div>
   );

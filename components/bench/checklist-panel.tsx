@@ -13,17 +13,25 @@ import { benchLock, unitQueryKey, useUnit, type UnitView } from "./use-unit";
 /** Items whose failure means a battery is unsafe to handle normally. */
 const BATTERY_HAZARD_ITEMS = ["swelling", "not-hot"];
 
+/** "7 of 7 recorded · 1 failed". */
+export function checklistSummary(view: UnitView): string {
+  const items = view.partType.checklist;
+  const results = view.results.filter((r) => items.some((i) => i.id === r.itemId));
+  const failed = results.filter((r) => !r.passed).length;
+  return `${results.length} of ${items.length} recorded${failed ? ` · ${failed} failed` : ""}`;
+}
+
 /**
  * The functional checklist of one unit. Each result is judged on the server against the item's
  * limits; a failed item becomes a functional defect of its severity (it counts toward the lot's
  * verdict at once).
  */
-export function ChecklistPanel({ initial, me }: { initial: UnitView; me: { id: string; isLead: boolean; canRecord: boolean } }) {
+export function ChecklistPanel({ initial, me, framed = true }: { initial: UnitView; me: { id: string; isLead: boolean; canRecord: boolean }; framed?: boolean }) {
   const { data: view } = useUnit(initial.unit.id, initial);
   const queryClient = useQueryClient();
   const [error, setError] = useState<string | null>(null);
   const record = useMutation({
-    mutationFn: (input: { itemId: string; value: ChecklistValue }) => apiFetch(`/api/units/${view.unit.id}/checklist`, { body: input }),
+    mutationFn: (input: { itemId: string; value: ChecklistValue; note: string }) => apiFetch(`/api/units/${view.unit.id}/checklist`, { body: input }),
     onSuccess: () => {
       setError(null);
       void queryClient.invalidateQueries({ queryKey: unitQueryKey(view.unit.id) });
@@ -32,9 +40,11 @@ export function ChecklistPanel({ initial, me }: { initial: UnitView; me: { id: s
   });
   const items = view.partType.checklist;
   const byItem = new Map(view.results.map((r) => [r.itemId, r]));
-  const recorded = items.filter((i) => byItem.has(i.id)).length;
   const failed = items.map((i) => byItem.get(i.id)).filter((r) => r && !r.passed);
-  const lock = benchLock(view, me) ?? (view.unit.serial === null ? "Scan or type the serial first." : null);
+  // Why it is closed is said once, in the Bench's banner; only the serial is this panel's own hint.
+  const closed = benchLock(view, me);
+  const needsSerial = closed === null && view.unit.serial === null;
+  const lock = closed ?? (needsSerial ? "Scan or type the serial first." : null);
   const battery = view.partType.category === "battery";
   const hazard = battery && failed.some((r) => r && BATTERY_HAZARD_ITEMS.includes(r.itemId));
   const suspects = items.flatMap((item) => {
@@ -44,13 +54,13 @@ export function ChecklistPanel({ initial, me }: { initial: UnitView; me: { id: s
   });
 
   return (
-    <section className="card space-y-3 p-5" aria-labelledby="checklist-title" data-testid="checklist-panel">
-      <div className="flex flex-wrap items-baseline justify-between gap-2">
-        <h2 id="checklist-title" className="text-lg font-semibold">Functional checklist</h2>
-        <span className="text-sm text-gauge-700" data-testid="checklist-summary">
-          {recorded} of {items.length} recorded{failed.length ? ` · ${failed.length} failed` : ""}
-        </span>
-      </div>
+    <section className={framed ? "card space-y-3 p-5" : "space-y-3"} aria-label="Functional checklist" data-testid="checklist-panel">
+      {framed && (
+        <div className="flex flex-wrap items-baseline justify-between gap-2">
+          <h2 className="text-lg font-semibold">Functional checklist</h2>
+          <span className="text-sm text-gauge-700">{checklistSummary(view)}</span>
+        </div>
+      )}
       {battery && <BatteryCaution />}
       {STATIC_SENSITIVE.includes(view.partType.category as PartCategory) && <StaticCaution />}
       {hazard && (
@@ -60,13 +70,13 @@ export function ChecklistPanel({ initial, me }: { initial: UnitView; me: { id: s
       )}
       {suspects.length > 0 && <SuspectCaution battery={battery} findings={suspects} />}
       {error && <FormMessage kind="error">{error}</FormMessage>}
-      {lock && <p className="text-sm text-signal-700">{lock}</p>}
+      {needsSerial && <p className="text-sm text-signal-700">Scan or type the serial first (in the line above).</p>}
       {items.length === 0 ? (
         <p className="text-sm text-gauge-700">This part type has no checklist items.</p>
       ) : (
         <ol className="divide-y divide-gauge-100">
           {items.map((item) => (
-            <ChecklistItemRow key={item.id} item={item} result={byItem.get(item.id)} disabled={lock !== null} saving={record.isPending} onRecord={(value) => record.mutate({ itemId: item.id, value })} />
+            <ChecklistItemRow key={item.id} item={item} result={byItem.get(item.id)} disabled={lock !== null} saving={record.isPending} onRecord={(value, note) => record.mutate({ itemId: item.id, value, note })} />
           ))}
         </ol>
       )}

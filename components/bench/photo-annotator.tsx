@@ -2,6 +2,7 @@
 
 import { useQuery } from "@tanstack/react-query";
 import { useCallback, useRef, useState, useSyncExternalStore } from "react";
+import { createPortal } from "react-dom";
 import { AnnotationCanvasLazy, type AnnotationCanvasHandle, type AnnotationCanvasProps } from "@/components/annotate/annotation-canvas-lazy";
 import type { AllowedDefect, GhostShape, ZoneInput } from "@/components/annotate/types";
 import { FormMessage } from "@/components/ui/form-field";
@@ -23,7 +24,8 @@ type PhotoAnnotatorProps = {
   lock: string | null;
   screenView: boolean;
   registry: SaverRegistry;
-  regionListContainer: HTMLElement | null;
+  /** Where the Bench shows this photo's region list, its suggestions and its save status. */
+  slots: { regions: HTMLElement | null; suggestions: HTMLElement | null; status: HTMLElement | null };
   /** How the canvas joins the rest of the Bench: keys, focus, the tool carried from photo to photo. */
   link: CanvasLink;
 };
@@ -42,7 +44,7 @@ function useSaverStatus(saver: RegionAutosaver | null): SaveStatus {
  * this visit), the canvas, autosave with its status line, the conflict dialog and suggestions.
  * Give it a `key` per photo: switching photos starts a fresh canvas.
  */
-export function PhotoAnnotator({ photo, viewLabel, allowedDefects, zones, lock, screenView, registry, regionListContainer, link }: PhotoAnnotatorProps) {
+export function PhotoAnnotator({ photo, viewLabel, allowedDefects, zones, lock, screenView, registry, slots, link }: PhotoAnnotatorProps) {
   const canvasRef = useRef<AnnotationCanvasHandle>(null);
   const [ghosts, setGhosts] = useState<GhostShape[]>([]);
   const session = useQuery({
@@ -74,15 +76,9 @@ export function PhotoAnnotator({ photo, viewLabel, allowedDefects, zones, lock, 
 
   if (!photo.urls || !photo.width || !photo.height || !photo.preview) return <p className="text-sm text-gauge-700">This photo is not ready yet.</p>;
   return (
-    <section className="space-y-3" aria-label={`Annotate the ${viewLabel} photo ${photo.fileName}`} data-testid="photo-annotator" data-photo-id={photo.id}>
-      <div className="flex items-center justify-between gap-3">
-        <h2 className="min-w-0 truncate text-lg font-semibold" title={`${viewLabel} · ${photo.fileName} · ${photo.width} × ${photo.height} px`}>
-          {viewLabel} <span className="text-sm font-normal text-gauge-700">· {photo.fileName} · {photo.width} × {photo.height} px</span>
-        </h2>
-        {!readOnly && saver && <SaveStatusLine status={status} onRetry={() => saver.retryNow()} />}
-      </div>
+    <section className="relative flex h-full min-h-0 flex-col" aria-label={`Annotate the ${viewLabel} photo ${photo.fileName}`} data-testid="photo-annotator" data-photo-id={photo.id}>
       {session.isError && <FormMessage kind="error">The saved regions could not be loaded: {session.error.message} Reload the page to try again.</FormMessage>}
-      {session.isPending && <div className="flex h-[65vh] min-h-[360px] items-center justify-center rounded-lg bg-gauge-900 text-sm text-gauge-100" role="status">Loading the regions…</div>}
+      {session.isPending && <div className="flex min-h-0 flex-1 items-center justify-center rounded-lg bg-gauge-900 text-sm text-gauge-100" role="status">Loading the regions…</div>}
       {session.data && (
         <AnnotationCanvasLazy
           key={`${photo.id}-${session.dataUpdatedAt}`}
@@ -96,12 +92,19 @@ export function PhotoAnnotator({ photo, viewLabel, allowedDefects, zones, lock, 
           onChange={readOnly ? undefined : onChange}
           readOnly={readOnly}
           ghosts={ghosts}
-          regionListContainer={regionListContainer}
+          regionListContainer={slots.regions}
+          className="min-h-0 flex-1"
           {...link}
         />
       )}
-      {!readOnly && <SaveProblem status={status} />}
-      {!readOnly && session.data && <SuggestionsBar photoId={photo.id} screenView={screenView} ghosts={ghosts} onGhosts={setGhosts} onAccept={accept} />}
+      {!readOnly && (
+        // Over the photo's lower edge, not below it: a failed save must not push the canvas up.
+        <div className="pointer-events-none absolute inset-x-16 bottom-12 z-10 flex justify-center [&>*]:pointer-events-auto">
+          <SaveProblem status={status} />
+        </div>
+      )}
+      {!readOnly && saver && slots.status && createPortal(<SaveStatusLine status={status} onRetry={() => saver.retryNow()} />, slots.status)}
+      {!readOnly && session.data && slots.suggestions && createPortal(<SuggestionsBar photoId={photo.id} screenView={screenView} ghosts={ghosts} onGhosts={setGhosts} onAccept={accept} />, slots.suggestions)}
       {saver && status.kind === "conflict" && <ConflictDialog current={status.current} base={saver.lastSaved()} mine={saver.latestRegions()} onChoose={resolve} />}
     </section>
   );

@@ -2,74 +2,76 @@
 
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import Link from "next/link";
-import { useState } from "react";
-import { FormMessage } from "@/components/ui/form-field";
+import { useState, type ReactNode } from "react";
 import { apiFetch } from "@/lib/http/client";
 import { STATUS_LABELS } from "@/lib/units/state-machine";
 import { benchLock, unitQueryKey, useUnit, type UnitView } from "./use-unit";
 
-/** Lot, part type, serial (editable for placeholders) and status of the unit on the Bench. */
-export function UnitHeader({ initial, me }: { initial: UnitView; me: { id: string; isLead: boolean; canRecord: boolean } }) {
-  const { data: view } = useUnit(initial.unit.id, initial);
+type Person = { id: string; isLead: boolean; canRecord: boolean };
+
+/** Whose bench, in the status itself ("on your bench", not "on a bench — on your bench"). */
+function statusText(view: UnitView, me: Person): string {
+  const { unit } = view;
+  if (unit.status !== "on_bench") return STATUS_LABELS[unit.status];
+  const leaseRunning = unit.leaseExpiresAt !== null && new Date(unit.leaseExpiresAt) > new Date();
+  if (!leaseRunning) return `${STATUS_LABELS.on_bench} — the lease ran out; it is free to take`;
+  return unit.leaseHolderId === me.id ? "on your bench" : `on ${view.leaseHolderName ?? "another inspector"}'s bench`;
+}
+
+/** A placeholder unit's serial, typed or scanned in the header line itself. */
+function SerialForm({ view, editable }: { view: UnitView; editable: boolean }) {
   const queryClient = useQueryClient();
   const [serial, setSerial] = useState(view.unit.serial ?? "");
-  const [message, setMessage] = useState<{ kind: "error" | "success"; text: string } | null>(null);
   const save = useMutation({
     mutationFn: (value: string) => apiFetch(`/api/units/${view.unit.id}`, { method: "PATCH", body: { serial: value } }),
-    onSuccess: () => {
-      setMessage({ kind: "success", text: "Serial saved." });
-      void queryClient.invalidateQueries({ queryKey: unitQueryKey(view.unit.id) });
-    },
-    onError: (err) => setMessage({ kind: "error", text: err.message }),
+    onSuccess: () => void queryClient.invalidateQueries({ queryKey: unitQueryKey(view.unit.id) }),
   });
-  const lock = benchLock(view, me);
-  const editable = view.unit.placeholder && lock === null;
-  const leaseRunning = view.unit.status === "on_bench" && view.unit.leaseExpiresAt !== null && new Date(view.unit.leaseExpiresAt) > new Date();
-  // Whose bench, in the status itself ("on your bench", not "on a bench — on your bench").
-  const statusText =
-    view.unit.status !== "on_bench"
-      ? STATUS_LABELS[view.unit.status]
-      : !leaseRunning
-        ? `${STATUS_LABELS.on_bench} — the lease ran out; it is free to take`
-        : view.unit.leaseHolderId === me.id
-          ? "on your bench"
-          : `on ${view.leaseHolderName ?? "another inspector"}'s bench`;
-
   return (
-    <header className="space-y-3" data-testid="unit-header">
-      <Link href={`/lots/${view.lot.id}`} className="text-sm text-gauge-600 underline">
-        ← Lot {view.lot.purchaseRef}
+    <form
+      className="flex shrink-0 items-center gap-1.5"
+      onSubmit={(e) => {
+        e.preventDefault();
+        save.mutate(serial.trim());
+      }}
+    >
+      <label htmlFor="unit-serial" className="text-xs font-medium text-gauge-700">
+        Serial (scan or type)
+      </label>
+      <input id="unit-serial" className="field-input h-8 w-44 py-0 font-mono" value={serial} onChange={(e) => setSerial(e.target.value)} disabled={!editable} autoComplete="off" aria-describedby="unit-serial-message" />
+      <button type="submit" className="btn-secondary h-8 py-0 text-sm" disabled={!editable || save.isPending || serial.trim() === "" || serial.trim() === view.unit.serial}>
+        Save serial
+      </button>
+      <span id="unit-serial-message" role="status" className={`text-xs ${save.isError ? "text-fault-700" : "text-ok-600"}`}>
+        {save.isError ? save.error.message : save.isSuccess ? "Saved." : ""}
+      </span>
+    </form>
+  );
+}
+
+/**
+ * The unit in one line: back to its lot, the serial, part type, supplier and place in the sample,
+ * the status, then the page's own controls (the lease, Take next) at the end. Long text is cut,
+ * never wrapped, so the workspace below keeps its place.
+ */
+export function UnitHeader({ initial, me, end }: { initial: UnitView; me: Person; end?: ReactNode }) {
+  const { data: view } = useUnit(initial.unit.id, initial);
+  const editable = view.unit.placeholder && benchLock(view, me) === null;
+  const title = `${view.partType.name} · ${view.supplierName} · unit ${view.unit.sampleIndex} of ${view.lot.sampleSize} in the sample`;
+  return (
+    <header className={`flex min-h-10 shrink-0 items-center gap-x-4 gap-y-1 ${view.unit.placeholder ? "flex-wrap" : ""}`} data-testid="unit-header">
+      <Link href={`/lots/${view.lot.id}`} className="shrink-0 text-sm text-gauge-600 underline" title={`Back to lot ${view.lot.purchaseRef}`}>
+        ← {view.lot.purchaseRef}
       </Link>
-      <div className="flex flex-wrap items-baseline justify-between gap-3">
-        <div>
-          <h1 className="page-title font-mono">{view.unit.serial ?? `Unit ${view.unit.sampleIndex}`}</h1>
-          <p className="text-gauge-700">
-            {view.partType.name} · {view.supplierName} · unit {view.unit.sampleIndex} of {view.lot.sampleSize} in the sample
-          </p>
-        </div>
-        <p className="text-sm" data-testid="unit-status">
-          Status: <strong className="font-medium">{statusText}</strong>
-        </p>
-      </div>
-      {view.unit.placeholder && (
-        <form
-          className="flex flex-wrap items-end gap-2"
-          onSubmit={(e) => {
-            e.preventDefault();
-            save.mutate(serial.trim());
-          }}
-        >
-          <div>
-            <label htmlFor="unit-serial" className="field-label">Serial (scan or type)</label>
-            <input id="unit-serial" className="field-input w-72 font-mono" value={serial} onChange={(e) => setSerial(e.target.value)} disabled={!editable} autoComplete="off" />
-          </div>
-          <button type="submit" className="btn-secondary" disabled={!editable || save.isPending || serial.trim() === "" || serial.trim() === view.unit.serial}>
-            Save serial
-          </button>
-        </form>
-      )}
-      {message && <FormMessage kind={message.kind}>{message.text}</FormMessage>}
-      {lock && <p className="text-sm text-signal-700" data-testid="bench-lock">{lock}</p>}
+      <h1 className="shrink-0 font-mono text-lg font-semibold">{view.unit.serial ?? `Unit ${view.unit.sampleIndex}`}</h1>
+      {view.unit.placeholder && <SerialForm view={view} editable={editable} />}
+      <p className="min-w-0 flex-1 truncate text-sm text-gauge-700" title={title}>
+        {title}
+      </p>
+      <p className="shrink-0 text-sm" data-testid="unit-status">
+        <span className="sr-only">Status: </span>
+        <strong className="rounded bg-gauge-100 px-2 py-0.5 font-medium text-gauge-900">{statusText(view, me)}</strong>
+      </p>
+      {end}
     </header>
   );
 }

@@ -29,6 +29,10 @@ type GradePanelProps = {
   beforeMeasure?: () => Promise<boolean>;
   /** After a grade is recorded (the unit moved on). */
   onGraded?: () => void;
+  /** Why this person cannot measure or grade the unit now (the Bench's read-only reason), or null. */
+  readOnlyReason?: string | null;
+  /** In a card with its own large heading (default), or bare inside a panel that has one. */
+  framed?: boolean;
 };
 
 type MeasureState = { measurement: MeasurementView | null; job: { id: string; state: string; notMeasured?: string | null } | null };
@@ -40,10 +44,17 @@ function cleaned(values: FormValues): FormValues {
   return { ...rest, ...(values.decision === "override" && finalGrade ? { finalGrade } : {}), ...(reason?.trim() ? { reason } : values.decision === "override" ? { reason: reason ?? "" } : {}) } as FormValues;
 }
 const schemaResolver = zodResolver(recordGradeSchema);
+
+/** The override grades the form offers (every grade but the proposal), as a sentence: never names one that is not offered. */
+export function offeredGradesSentence(proposed: string | undefined): string {
+  const offered = GRADES.filter((g) => g !== proposed);
+  return `Choose the final grade: ${offered.slice(0, -1).join(", ")} or ${offered.at(-1)}.`;
+}
 const resolver: Resolver<FormValues> = (values, context, options) => schemaResolver(cleaned(values), context, options) as ReturnType<Resolver<FormValues>>;
 
 /** Measuring a unit and recording its grade: the numbers, the proposal with its reasons, accept or override. */
-export function GradePanel({ unitId, canGrade, canCorrect, labels = { defects: {}, zones: {}, views: {} }, unsavedRegions = false, beforeMeasure, onGraded }: GradePanelProps) {
+export function GradePanel(props: GradePanelProps) {
+  const { unitId, canGrade, canCorrect, labels = { defects: {}, zones: {}, views: {} }, unsavedRegions = false, beforeMeasure, onGraded, readOnlyReason = null, framed = true } = props;
   const dateTime = useDateTime();
   const queryClient = useQueryClient();
   const [jobId, setJobId] = useState<string | null>(null);
@@ -80,6 +91,8 @@ export function GradePanel({ unitId, canGrade, canCorrect, labels = { defects: {
   const { register, handleSubmit, control, reset, setError, formState } = useForm<FormValues>({ resolver, defaultValues: { decision: "accept" } });
   const decision = useWatch({ control, name: "decision" });
   const correction = hasGrade;
+  // A recorded grade folds the form away; a lead opens it again to correct the grade.
+  const [correcting, setCorrecting] = useState(false);
   // One key per submission: a retried or doubled request is answered with the same grade row.
   const submissionKey = useRef<string | null>(null);
   const grade = useMutation({
@@ -92,6 +105,7 @@ export function GradePanel({ unitId, canGrade, canCorrect, labels = { defects: {
       submissionKey.current = null;
       setMessage({ kind: "success", text: `Grade ${res.grade.finalGrade} recorded.` });
       reset({ decision: "accept" });
+      setCorrecting(false);
       refresh();
       onGraded?.();
     },
@@ -104,16 +118,19 @@ export function GradePanel({ unitId, canGrade, canCorrect, labels = { defects: {
   const m = state.data?.measurement ?? null;
   const proposed = m?.proposal.grade;
   const running = jobId !== null && !["completed", "failed", "cancelled"].includes(state.data?.job?.state ?? "");
-  const errors = formState.errors as { reason?: { message?: string }; finalGrade?: { message?: string } };
+  const errors = formState.errors as { reason?: { message?: string }; finalGrade?: { message?: string; type?: string } };
+  // The schema's own message lists every grade; the form offers all but the proposal, so it says those.
+  const finalGradeError = errors.finalGrade ? (errors.finalGrade.type ? offeredGradesSentence(proposed) : errors.finalGrade.message) : null;
+  const gradable = Boolean(m && !m.stale && canGrade && readOnlyReason === null);
 
   return (
-    <section className="card space-y-4 p-4 sm:p-5" aria-labelledby="grade-panel-title" data-testid="grade-panel">
+    <section className={framed ? "card space-y-4 p-4 sm:p-5" : "space-y-3"} aria-labelledby="grade-panel-title" data-testid="grade-panel">
       <div className="flex flex-wrap items-center justify-between gap-3">
-        <h2 id="grade-panel-title" className="text-lg font-semibold">
+        <h2 id="grade-panel-title" className={framed ? "text-lg font-semibold" : "text-sm font-semibold"}>
           Measurement and proposed grade
         </h2>
         {canGrade && (
-          <button type="button" className="btn-secondary" onClick={() => measure.mutate()} disabled={measure.isPending || running}>
+          <button type="button" className="btn-secondary" onClick={() => measure.mutate()} disabled={measure.isPending || running || readOnlyReason !== null} title={readOnlyReason ?? undefined}>
             {measure.isPending ? "Measuring…" : running ? "Measuring in the background…" : m ? "Measure again" : "Measure now"}
           </button>
         )}
@@ -147,7 +164,12 @@ export function GradePanel({ unitId, canGrade, canCorrect, labels = { defects: {
           <MeasurementTable photos={m.photos} labels={labels} />
         </div>
       )}
-      {m && !m.stale && canGrade && (!hasGrade || canCorrect) && (
+      {gradable && hasGrade && canCorrect && !correcting && (
+        <button type="button" className="btn-secondary" onClick={() => setCorrecting(true)} data-testid="correct-grade">
+          Correct this grade…
+        </button>
+      )}
+      {gradable && (!hasGrade || (canCorrect && correcting)) && (
         <form onSubmit={handleSubmit((values) => grade.mutate(values))} noValidate className="space-y-3 border-t border-gauge-100 pt-4" aria-label="Record the grade">
           <fieldset className="flex flex-wrap gap-4">
             <legend className="field-label">Decision</legend>
@@ -172,7 +194,7 @@ export function GradePanel({ unitId, canGrade, canCorrect, labels = { defects: {
                     </option>
                   ))}
                 </select>
-                {errors.finalGrade?.message && <p className="field-error">{errors.finalGrade.message}</p>}
+                {finalGradeError && <p className="field-error">{finalGradeError}</p>}
               </div>
               <div>
                 <label htmlFor="override-reason" className="field-label">
@@ -202,9 +224,16 @@ export function GradePanel({ unitId, canGrade, canCorrect, labels = { defects: {
             </div>
           )}
           {unsavedRegions && <p className="text-sm text-signal-700">Region edits are not saved yet; once they are, this measurement is out of date and must be measured again.</p>}
-          <button type="submit" className="btn-primary" disabled={grade.isPending || unsavedRegions}>
-            {grade.isPending ? "Recording…" : "Record grade"}
-          </button>
+          <div className="flex gap-2">
+            <button type="submit" className="btn-primary" disabled={grade.isPending || unsavedRegions}>
+              {grade.isPending ? "Recording…" : "Record grade"}
+            </button>
+            {correcting && (
+              <button type="button" className="btn-secondary" onClick={() => setCorrecting(false)}>
+                Cancel
+              </button>
+            )}
+          </div>
         </form>
       )}
     </section>

@@ -12,20 +12,23 @@ import type { GradePreviewView } from "./types";
  * "What would version N say": the measurement behind the current grade, graded again by another
  * rubric version. Nothing is stored; the recorded grade stays as it is.
  */
-export function GradeWhatIf({ unitId, versions }: { unitId: string; versions: { version: number; status: "draft" | "published" }[] }) {
+export function GradeWhatIf({ unitId, versions, framed = true }: { unitId: string; versions: { version: number; status: "draft" | "published" }[]; framed?: boolean }) {
   const published = versions.filter((v) => v.status === "published");
   const [version, setVersion] = useState<number | null>(published[0]?.version ?? versions[0]?.version ?? null);
+  // The same query (and cache) as the grade panel's: ask for a preview only once there is a measurement to grade again.
+  const latest = useQuery({ queryKey: ["unit-measurement", unitId, null], queryFn: () => apiFetch<{ measurement: unknown }>(`/api/units/${unitId}/measure`) });
+  const measured = Boolean(latest.data?.measurement);
   const preview = useQuery({
     queryKey: ["grade-preview", unitId, version],
     queryFn: () => apiFetch<GradePreviewView>(`/api/units/${unitId}/grade-preview?rubricVersion=${version}`),
-    enabled: version !== null,
+    enabled: version !== null && measured,
     retry: false,
   });
   const basis = preview.data?.basis;
   return (
-    <section className="card space-y-3 p-4 sm:p-5" aria-labelledby="what-if-title" data-testid="grade-what-if">
+    <section className={framed ? "card space-y-3 p-4 sm:p-5" : "space-y-2"} aria-labelledby="what-if-title" data-testid="grade-what-if">
       <div className="flex flex-wrap items-end justify-between gap-3">
-        <h2 id="what-if-title" className="text-lg font-semibold">
+        <h2 id="what-if-title" className={framed ? "text-lg font-semibold" : "text-sm font-semibold"}>
           What another rubric version would say
         </h2>
         <div>
@@ -43,7 +46,12 @@ export function GradeWhatIf({ unitId, versions }: { unitId: string; versions: { 
         </div>
       </div>
       {versions.length === 0 && <p className="text-sm text-gauge-700">This part type has no rubric versions.</p>}
-      {preview.isPending && version !== null && <p className="text-sm text-gauge-700">Grading again…</p>}
+      {latest.isSuccess && !measured && versions.length > 0 && (
+        <p className="text-sm text-gauge-700" data-testid="what-if-waiting">
+          Not measured yet. Once the unit is measured, any rubric version can grade the same numbers here.
+        </p>
+      )}
+      {preview.isPending && measured && version !== null && <p className="text-sm text-gauge-700">Grading again…</p>}
       {preview.isError && (preview.error.message.includes("not been measured") ? <p className="text-sm text-gauge-700">{preview.error.message}</p> : <FormMessage kind="error">{preview.error.message}</FormMessage>)}
       {preview.isSuccess && basis && (
         <div className="space-y-3">

@@ -1,208 +1,107 @@
 "use client";
 /**
- * The unit's photos by view, with live status: polls while any photo is queued or processing,
- * so each turns ready (or failed, with the reason) without a reload. Every required view gets a
- * slot, so a missing one shows as an empty, marked place. On the Bench a ready photo is picked for
- * the canvas (`onSelect`), and photos with edits not yet saved carry a badge.
+ * The unit's photos as one compact strip under the canvas: a tile per photo in the part type's
+ * view order, a dashed tile for each required view still missing, live status (polls while a
+ * photo is queued or processing). A ready tile opens the photo on the canvas; tiles with edits
+ * not yet saved carry a mark. The strip has a fixed height, so nothing in it moves the canvas.
+ * Details and changes (failures, retry, view, removal) live in the Photos panel (photo-list.tsx).
  */
-import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
-import Link from "next/link";
-import { useState, type ReactNode } from "react";
-import { FormMessage } from "@/components/ui/form-field";
-import { apiFetch } from "@/lib/http/client";
+import type { ReactNode } from "react";
 import type { PhotoDto } from "@/lib/photos/dto";
 import { missingRequiredViews, type ViewChoice } from "@/lib/photos/views";
-
-const POLL_MS = 1500;
-
-const STATUS: Record<PhotoDto["status"], { text: string; className: string }> = {
-  queued: { text: "Queued", className: "bg-gauge-100 text-gauge-800" },
-  processing: { text: "Processing…", className: "bg-signal-100 text-signal-700" },
-  ready: { text: "Ready", className: "bg-ok-50 text-ok-600" },
-  failed: { text: "Failed", className: "bg-fault-50 text-fault-700" },
-};
+import { usePhotos } from "./use-photos";
 
 type Selection = { selectedId: string | null; onSelect(photo: PhotoDto): void; unsavedIds?: ReadonlySet<string> };
 
 type PhotoStripProps = {
   unitId: string;
   views: ViewChoice[];
-  canManage?: boolean;
   selection?: Selection;
-  /** Shown at the end of the heading line (e.g. the Bench's "Add photos" toggle). */
-  headerAction?: ReactNode;
+  /** At the strip's end (the Bench's "Add photos" and the save status). */
+  end?: ReactNode;
 };
 
-export function PhotoStrip({ unitId, views, canManage = false, selection, headerAction }: PhotoStripProps) {
-  const queryClient = useQueryClient();
-  const [message, setMessage] = useState<string | null>(null);
-  const photos = useQuery({
-    queryKey: ["unit-photos", unitId],
-    queryFn: () => apiFetch<{ photos: PhotoDto[] }>(`/api/units/${unitId}/photos`),
-    refetchInterval: (query) => (query.state.data?.photos.some((p) => p.status === "queued" || p.status === "processing") ? POLL_MS : false),
-  });
-  const refresh = () => queryClient.invalidateQueries({ queryKey: ["unit-photos", unitId] });
-  const retry = useMutation({
-    mutationFn: (id: string) => apiFetch(`/api/photos/${id}/retry`, { method: "POST" }),
-    onSuccess: () => setMessage(null),
-    onError: (err) => setMessage(err.message),
-    onSettled: refresh,
-  });
-  const dismiss = useMutation({
-    mutationFn: (id: string) => apiFetch(`/api/photos/${id}`, { method: "DELETE" }),
-    onSuccess: () => setMessage(null),
-    onError: (err) => setMessage(err.message),
-    onSettled: refresh,
-  });
+/** Photos ordered by the part type's views (unknown views last), each view's in upload order. */
+export function photosInViewOrder(photos: readonly PhotoDto[], views: readonly ViewChoice[]): PhotoDto[] {
+  const rank = new Map(views.map((v, i) => [v.key, i]));
+  return photos.map((p, i) => ({ p, i })).sort((a, b) => (rank.get(a.p.viewKey) ?? views.length) - (rank.get(b.p.viewKey) ?? views.length) || a.i - b.i).map(({ p }) => p);
+}
 
-  if (photos.isPending) return <p className="text-sm text-gauge-600">Loading photos…</p>;
-  if (photos.isError) return <FormMessage kind="error">{photos.error.message}</FormMessage>;
+const STATUS_TEXT: Record<PhotoDto["status"], string> = { queued: "Queued", processing: "Processing…", ready: "Ready", failed: "Failed" };
 
-  const list = photos.data.photos;
+export function PhotoStrip({ unitId, views, selection, end }: PhotoStripProps) {
+  const photos = usePhotos(unitId);
+  const list = photos.data?.photos ?? [];
   const covered = new Set(list.filter((p) => p.status !== "failed").map((p) => p.viewKey));
-  const missing = missingRequiredViews(views, covered);
+  // Nothing is "missing" before the photos have loaded.
+  const missing = photos.isSuccess ? missingRequiredViews(views, covered) : [];
   const labelOf = (key: string) => views.find((v) => v.key === key)?.label ?? key;
-  const known = new Set(views.map((v) => v.key));
-  const groups = [...views.map((v) => ({ key: v.key, label: v.label, required: v.required })), ...[...new Set(list.map((p) => p.viewKey))].filter((k) => !known.has(k)).map((k) => ({ key: k, label: k, required: false }))];
+  const ready = list.filter((p) => p.status === "ready").length;
 
   return (
-    <section className="space-y-3" aria-labelledby="photo-strip-title" data-testid="photo-strip">
-      <div className="flex flex-wrap items-baseline justify-between gap-2">
-        <h2 id="photo-strip-title" className="text-lg font-semibold">
-          Photos <span className="text-sm font-normal text-gauge-600">({list.filter((p) => p.status === "ready").length} ready)</span>
-        </h2>
-        <div className="flex flex-wrap items-center gap-3">
-          {missing.length > 0 && <p className="text-sm text-signal-700">Still needed: {missing.map((v) => v.label).join(", ")}</p>}
-          {headerAction}
-        </div>
-      </div>
-      {message && <FormMessage kind="error">{message}</FormMessage>}
-      {/* With required views, their empty slots already say what is missing. */}
-      {list.length === 0 && missing.length === 0 && <p className="text-sm text-gauge-600">No photos yet.</p>}
-      <div className="flex flex-wrap gap-3">
-        {groups
-          .filter((g) => g.required || list.some((p) => p.viewKey === g.key))
-          .map((group) => {
-            const own = list.filter((p) => p.viewKey === group.key);
-            const isMissing = missing.some((v) => v.key === group.key);
-            return (
-              <div key={group.key} className={`space-y-1.5 rounded-lg border p-2 ${isMissing ? "border-dashed border-signal-500 bg-signal-50" : "border-gauge-200 bg-white"}`} data-testid="photo-view-group" data-view={group.key}>
-                <h3 className="text-sm font-medium text-gauge-800">
-                  {group.label}
-                  {group.required && <span className="ml-1 text-xs font-normal text-gauge-600">required</span>}
-                </h3>
-                {isMissing && own.length === 0 ? (
-                  <p className="flex h-16 w-28 items-center justify-center rounded border border-dashed border-signal-500 px-2 text-center text-xs font-medium text-signal-700" data-testid="missing-view">
-                    Missing — photograph this view
-                  </p>
-                ) : (
-                  <ul className="flex flex-wrap gap-2">
-                    {own.map((photo) => (
-                      <PhotoCard
-                        key={photo.id}
-                        photo={photo}
-                        viewLabel={labelOf(photo.viewKey)}
-                        canManage={canManage}
-                        busy={retry.isPending || dismiss.isPending}
-                        onRetry={() => retry.mutate(photo.id)}
-                        onDismiss={() => dismiss.mutate(photo.id)}
-                        selected={selection?.selectedId === photo.id}
-                        unsaved={selection?.unsavedIds?.has(photo.id) ?? false}
-                        onSelect={selection ? () => selection.onSelect(photo) : undefined}
-                      />
-                    ))}
-                  </ul>
-                )}
-              </div>
-            );
-          })}
-      </div>
+    <section className="flex h-[4.5rem] shrink-0 items-center gap-2 rounded-lg border border-gauge-200 bg-white px-2" aria-labelledby="photo-strip-title" data-testid="photo-strip">
+      <h2 id="photo-strip-title" className="w-14 shrink-0 text-xs leading-tight font-semibold text-gauge-800">
+        Photos
+        <span className="block font-normal text-gauge-600">{photos.isPending ? "…" : `${ready} ready`}</span>
+      </h2>
+      <ul className="relative flex h-full min-w-0 flex-1 items-center gap-1.5 overflow-x-auto py-1">
+        {photosInViewOrder(list, views).map((photo) => (
+          <PhotoTile
+            key={photo.id}
+            photo={photo}
+            viewLabel={labelOf(photo.viewKey)}
+            selected={selection?.selectedId === photo.id}
+            unsaved={selection?.unsavedIds?.has(photo.id) ?? false}
+            onSelect={selection ? () => selection.onSelect(photo) : undefined}
+          />
+        ))}
+        {missing.map((view) => (
+          <li key={view.key} className="flex h-14 w-24 shrink-0 flex-col items-center justify-center rounded border border-dashed border-signal-500 bg-signal-50 px-1 text-center text-[11px] leading-tight font-medium text-signal-700" data-testid="missing-view" data-view={view.key}>
+            {view.label}
+            <span className="font-normal">Missing — photograph this view</span>
+          </li>
+        ))}
+        {photos.isError && <li className="text-sm text-fault-700">{photos.error.message}</li>}
+      </ul>
+      {end}
     </section>
   );
 }
 
-function PhotoCard(props: {
-  photo: PhotoDto;
-  viewLabel: string;
-  canManage: boolean;
-  busy: boolean;
-  onRetry: () => void;
-  onDismiss: () => void;
-  selected: boolean;
-  unsaved: boolean;
-  onSelect?: () => void;
-}) {
-  const { photo, viewLabel, canManage, busy, onRetry, onDismiss, selected, unsaved, onSelect } = props;
-  const status = STATUS[photo.status];
+function PhotoTile({ photo, viewLabel, selected, unsaved, onSelect }: { photo: PhotoDto; viewLabel: string; selected: boolean; unsaved: boolean; onSelect?: () => void }) {
   const image =
     photo.urls && photo.thumbnail ? (
       // eslint-disable-next-line @next/next/no-img-element -- served by our own access-checked route
-      <img src={photo.urls.thumbnail} width={photo.thumbnail.width} height={photo.thumbnail.height} alt={`${viewLabel} photo, ${photo.fileName}`} className="max-h-full max-w-full object-contain" data-testid="photo-thumbnail" />
+      <img src={photo.urls.thumbnail} width={photo.thumbnail.width} height={photo.thumbnail.height} alt={`${viewLabel} photo, ${photo.fileName}`} className="h-full w-full object-cover" data-testid="photo-thumbnail" />
     ) : (
-      <span className="px-2 text-center text-xs text-gauge-600">{photo.status === "failed" ? "No image" : "Processing…"}</span>
+      <span className="px-1 text-center text-[11px] text-gauge-600">{photo.status === "failed" ? "No image" : "Processing…"}</span>
     );
-  const frame = "flex h-16 w-full items-center justify-center overflow-hidden rounded-t-md bg-gauge-100";
-  return (
-    <li className={`card relative w-36 overflow-hidden ${selected ? "ring-2 ring-signal-500" : ""}`} data-testid="photo-card" data-photo-id={photo.id} data-status={photo.status} data-selected={selected ? "true" : "false"}>
-      {onSelect && photo.status === "ready" ? (
-        <button type="button" className={`${frame} hover:opacity-90`} aria-pressed={selected} aria-label={`Open the ${viewLabel} photo ${photo.fileName} on the canvas`} onClick={onSelect} data-testid="photo-select">
-          {image}
-        </button>
-      ) : photo.urls ? (
-        <a href={photo.urls.preview} target="_blank" rel="noreferrer" className={frame}>
-          {image}
-        </a>
-      ) : (
-        <div className={frame}>{image}</div>
-      )}
-      {unsaved && (
-        // Over the thumbnail, not a line of its own: the strip keeps its height and the canvas below it does not move.
-        <span className="absolute top-1 left-1 rounded bg-signal-500 px-1.5 py-0.5 text-xs font-semibold text-gauge-900 shadow" data-testid="photo-unsaved">
-          Unsaved edits
+  const body = (
+    <>
+      {image}
+      <span className="absolute inset-x-0 bottom-0 truncate bg-gauge-950/70 px-1 text-left text-[11px] leading-4 text-white">{viewLabel}</span>
+      {photo.status !== "ready" && (
+        <span className={`absolute top-0.5 left-0.5 rounded px-1 text-[10px] font-semibold ${photo.status === "failed" ? "bg-fault-600 text-white" : "bg-signal-100 text-signal-700"}`} data-testid="photo-status">
+          {STATUS_TEXT[photo.status]}
         </span>
       )}
-      <div className="space-y-1 p-1.5 text-xs">
-        <div className="flex items-center justify-between gap-1">
-          <span className={`rounded px-1.5 py-0.5 font-medium ${status.className}`} data-testid="photo-status">
-            {status.text}
-          </span>
-          {photo.width && photo.height && (
-            <span className="text-gauge-600">
-              {photo.width} × {photo.height}
-            </span>
-          )}
-        </div>
-        <p className="truncate text-gauge-700" title={photo.fileName}>
-          {photo.fileName}
-        </p>
-        {photo.retryNote && <p className="text-signal-700">{photo.retryNote}</p>}
-        {photo.failure && (
-          <p className="text-fault-700" role="alert">
-            {photo.failure.reason}
-          </p>
-        )}
-        {photo.possibleReuse && (
-          <p className="rounded bg-signal-50 px-1.5 py-1 text-signal-700" data-testid="possible-reuse">
-            Possible reused photo: the same file is evidence for{" "}
-            <Link className="underline" href={`/units/${photo.possibleReuse.unitId}`}>
-              {photo.possibleReuse.unitLabel}
-            </Link>
-            .
-          </p>
-        )}
-        {canManage && photo.status === "failed" && (
-          <div className="flex gap-1 pt-1">
-            {photo.failure?.code === "processing_failed" && (
-              <button type="button" className="btn-secondary px-2 py-1 text-xs" disabled={busy} onClick={onRetry}>
-                Retry
-              </button>
-            )}
-            <button type="button" className="btn-secondary px-2 py-1 text-xs" disabled={busy} onClick={onDismiss}>
-              Dismiss
-            </button>
-          </div>
-        )}
-      </div>
+      {unsaved && (
+        <span className="absolute top-0.5 right-0.5 rounded bg-signal-500 px-1 text-[10px] font-semibold text-gauge-900" data-testid="photo-unsaved">
+          Unsaved
+        </span>
+      )}
+    </>
+  );
+  const frame = `relative flex h-14 w-20 items-center justify-center overflow-hidden rounded bg-gauge-100 ${selected ? "ring-3 ring-signal-500" : "ring-1 ring-gauge-200"}`;
+  return (
+    <li className="shrink-0" data-testid="photo-card" data-photo-id={photo.id} data-status={photo.status} data-selected={selected ? "true" : "false"} title={`${viewLabel} · ${photo.fileName}${photo.width ? ` · ${photo.width} × ${photo.height} px` : ""}`}>
+      {onSelect && photo.status === "ready" ? (
+        <button type="button" className={`${frame} hover:opacity-90`} aria-pressed={selected} aria-label={`Open the ${viewLabel} photo ${photo.fileName} on the canvas`} onClick={onSelect} data-testid="photo-select">
+          {body}
+        </button>
+      ) : (
+        <div className={frame}>{body}</div>
+      )}
     </li>
   );
 }

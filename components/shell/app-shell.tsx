@@ -7,6 +7,7 @@ import { Wordmark } from "@/components/ui/logo";
 import { NavLinks } from "./nav-links";
 import { SignOutButton } from "./sign-out-button";
 import { MobileMenu } from "./mobile-menu";
+import { ShellFrame } from "./shell-frame";
 
 /** The frame around every signed-in page: navigation for the user's roles, who is signed in. */
 export function AppShell({ user, screens, children }: { user: SessionUser; screens: Screen[]; children: React.ReactNode }) {
@@ -28,31 +29,31 @@ export function AppShell({ user, screens, children }: { user: SessionUser; scree
     </div>
   );
   return (
-    <div className="min-h-screen lg:flex">
-      <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:rounded focus:bg-white focus:px-3 focus:py-2">
-        Skip to content
-      </a>
-      <aside className="hidden w-60 shrink-0 flex-col bg-gauge-900 text-white lg:flex">
-        <Link href="/" className="px-5 py-5">
-          <Wordmark />
-        </Link>
-        <nav aria-label="Main" className="flex-1 px-3">
-          <NavLinks items={nav} />
-        </nav>
-        <div className="space-y-3 border-t border-gauge-800 px-5 py-4">
-          {who}
-          <SignOutButton />
-        </div>
-      </aside>
-      <header className="flex items-center justify-between bg-gauge-900 px-4 py-3 text-white lg:hidden">
-        <Link href="/">
-          <Wordmark />
-        </Link>
-        <MobileMenu items={nav} footer={<>{who}<SignOutButton /></>} />
-      </header>
-      <main id="main" className="min-w-0 flex-1 px-4 py-6 sm:px-8">
-        {children}
-      </main>
-    </div>
+    <ShellFrame
+      sidebar={
+        <aside className="hidden w-60 shrink-0 flex-col bg-gauge-900 text-white lg:flex">
+          <Link href="/" className="px-5 py-5">
+            <Wordmark />
+          </Link>
+          <nav aria-label="Main" className="flex-1 px-3">
+            <NavLinks items={nav} />
+          </nav>
+          <div className="space-y-3 border-t border-gauge-800 px-5 py-4">
+            {who}
+            <SignOutButton />
+          </div>
+        </aside>
+      }
+      topBar={
+        <header className="flex items-center justify-between bg-gauge-900 px-4 py-2 text-white">
+          <Link href="/">
+            <Wordmark />
+          </Link>
+          <MobileMenu items={nav} footer={<>{who}<SignOutButton /></>} />
+        </header>
+      }
+    >
+      {children}
+    </ShellFrame>
   );
 }

@@ -11,7 +11,7 @@ export function MobileMenu({ items, footer }: { items: NavItem[]; footer: React.
         Menu
       </button>
       {open && (
-        <div id="mobile-nav" className="absolute inset-x-0 top-14 z-40 space-y-4 bg-gauge-900 px-4 pb-5 pt-2 shadow-lg">
+        <div id="mobile-nav" className="absolute inset-x-0 top-full z-40 space-y-4 bg-gauge-900 px-4 pb-5 pt-2 shadow-lg">
           <nav aria-label="Main">
             <NavLinks items={items} onNavigate={() => setOpen(false)} />
           </nav>

@@ -49,7 +49,8 @@ export function listUnitPhotoVersions({ workspaceId, unitId }: UnitKey, tx: DbOr
     })
     .from(photos)
     .leftJoin(regionSets, and(eq(regionSets.photoId, photos.id), eq(regionSets.workspaceId, workspaceId)))
-    .where(and(eq(photos.workspaceId, workspaceId), eq(photos.unitId, unitId)))
+    // A photo taken out of the unit (lib/photos/removal.ts) is no longer measured.
+    .where(and(eq(photos.workspaceId, workspaceId), eq(photos.unitId, unitId), isNull(photos.removedAt)))
     .orderBy(asc(photos.createdAt), asc(photos.id));
 }
 

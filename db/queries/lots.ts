@@ -2,7 +2,7 @@ import "server-only";
 import { and, asc, desc, eq, ilike, inArray, isNotNull, sql, type SQL } from "drizzle-orm";
 import { db, type DbOrTx } from "@/db/client";
 import { checklistResults, grades, inspectionSchemes, lots, measurements, partTypes, rubricVersions, suppliers, units, users } from "@/db/schema";
-import type { DefectSeverity } from "@/db/schema/lots";
+import type { DefectSeverity, Lot, NewLot, SampleDraw } from "@/db/schema/lots";
 import type { Grade, Rule } from "@/lib/grading/rubric-schema";
 import type { LotListQuery } from "@/lib/lots/schemas";
 
@@ -35,6 +35,29 @@ export async function lockLot(tx: DbOrTx, { workspaceId, lotId }: { workspaceId:
     .from(lots)
     .where(and(eq(lots.workspaceId, workspaceId), eq(lots.id, lotId)))
     .for("update");
+  return row;
+}
+
+/** Stores how the lot's sample was drawn (once, with its units). */
+export async function setLotSampleDraw(tx: DbOrTx, { workspaceId, lotId, seed, draw }: { workspaceId: string; lotId: string; seed: string | null; draw: SampleDraw }) {
+  await tx.update(lots).set({ sampleSeed: seed, sampleDraw: draw, updatedAt: new Date() }).where(and(eq(lots.workspaceId, workspaceId), eq(lots.id, lotId)));
+}
+
+export async function insertLot(tx: DbOrTx, values: NewLot) {
+  const [row] = await tx.insert(lots).values(values).returning();
+  return row;
+}
+
+/** The lead's decision on a locked open lot. */
+export async function recordLotDecision(
+  tx: DbOrTx,
+  { workspaceId, lotId, decision }: { workspaceId: string; lotId: string; decision: Pick<Lot, "verdict" | "disposition" | "dispositionReason" | "decisionCounts" | "decidedBy"> & { decidedAt: Date } },
+) {
+  const [row] = await tx
+    .update(lots)
+    .set({ status: "decided", ...decision, updatedAt: decision.decidedAt })
+    .where(and(eq(lots.workspaceId, workspaceId), eq(lots.id, lotId)))
+    .returning();
   return row;
 }
 

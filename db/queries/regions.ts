@@ -23,6 +23,7 @@ export async function getPhotoForRegions({ workspaceId, photoId }: PhotoKey, tx:
         previewWidth: photos.previewWidth,
         previewHeight: photos.previewHeight,
         originalKey: photos.originalKey,
+        removedAt: photos.removedAt,
       },
       unit: { id: units.id, status: units.status, leaseHolderId: units.leaseHolderId, leaseExpiresAt: units.leaseExpiresAt },
       leaseHolderName: holders.name,

@@ -1,8 +1,7 @@
 import "server-only";
 import { aliasedTable, and, asc, eq, inArray, sql } from "drizzle-orm";
 import { db, type DbOrTx } from "@/db/client";
-import { checklistResults, grades, lots, partTypes, suppliers, units, users } from "@/db/schema";
-import { transition } from "@/lib/units/state-machine";
+import { checklistResults, grades, lots, partTypes, suppliers, units, users, type NewUnit } from "@/db/schema";
 
 const holders = aliasedTable(users, "lease_holders");
 
@@ -56,15 +55,23 @@ export async function getUnitDetail({ workspaceId, unitId }: { workspaceId: stri
   return row;
 }
 
-/** The unit row alone, locked for the rest of the transaction. */
+/**
+ * The unit row, locked for the rest of the transaction: the one lock every change of a unit takes
+ * first (status, lease, checklist, regions, serial, grades), so they serialise and never
+ * deadlock. With the lease holder's name, and whether the lease is still running by the
+ * database's clock (the clock every lease is granted by: ./unit-status.ts). Undefined when the
+ * unit is not in this workspace.
+ */
 export async function lockUnit(tx: DbOrTx, { workspaceId, unitId }: { workspaceId: string; unitId: string }) {
   const [row] = await tx
-    .select()
+    .select({ unit: units, leaseHolderName: holders.name, leaseRunning: sql<boolean>`coalesce(${units.leaseExpiresAt} > now(), false)` })
     .from(units)
+    .leftJoin(holders, eq(holders.id, units.leaseHolderId))
     .where(and(eq(units.workspaceId, workspaceId), eq(units.id, unitId)))
-    .for("update");
-  return row;
+    .for("update", { of: units });
+  return row && { ...row.unit, leaseHolderName: row.leaseHolderName, leaseRunning: row.leaseRunning };
 }
+export type LockedUnit = NonNullable<Awaited<ReturnType<typeof lockUnit>>>;
 
 export function listUnitResults({ workspaceId, unitIds }: { workspaceId: string; unitIds: string[] }, tx: DbOrTx = db()) {
   if (unitIds.length === 0) return Promise.resolve([]);
@@ -87,14 +94,18 @@ export function listUnitResults({ workspaceId, unitIds }: { workspaceId: string;
     .orderBy(asc(checklistResults.recordedAt));
 }
 
-/**
- * A decided lot's units that were never graded (still waiting, or on a bench) leave the queue and
- * any bench for good, as "not graded". Used by the lead's decision and by the demo seed.
- */
-export async function withdrawUngradedUnits(tx: DbOrTx, { workspaceId, lotId, at }: { workspaceId: string; lotId: string; at: Date }) {
-  return tx
+/** Inserts a lot's sampled units (in chunks, within the caller's transaction). */
+export async function insertUnits(tx: DbOrTx, rows: NewUnit[]) {
+  const CHUNK = 1000;
+  for (let start = 0; start < rows.length; start += CHUNK) await tx.insert(units).values(rows.slice(start, start + CHUNK));
+}
+
+/** Sets a unit's serial; a serial used by another unit of the lot fails on units_lot_serial_key. */
+export async function updateUnitSerial(tx: DbOrTx, { workspaceId, unitId, serial }: { workspaceId: string; unitId: string; serial: string }) {
+  const [row] = await tx
     .update(units)
-    .set({ status: transition("queued", "withdraw"), leaseHolderId: null, leaseExpiresAt: null, claimedAt: null, updatedAt: at })
-    .where(and(eq(units.workspaceId, workspaceId), eq(units.lotId, lotId), inArray(units.status, ["queued", "on_bench"])))
-    .returning({ id: units.id });
+    .set({ serial, updatedAt: new Date() })
+    .where(and(eq(units.workspaceId, workspaceId), eq(units.id, unitId)))
+    .returning();
+  return row;
 }

@@ -3,3 +3,4 @@ export * from "./lots";
 export * from "./photos";
 export * from "./regions";
 export * from "./grading";
+export * from "./gallery";

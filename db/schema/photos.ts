@@ -27,8 +27,13 @@ export const photos = pgTable(
     workspaceId: uuid()
       .notNull()
       .references(() => workspaces.id),
-    unitId: uuid().notNull(),
-    /** A view key of the unit's part type ("front", "screen-white", …). */
+    /**
+     * The unit it documents; null for a photo uploaded straight into the Gallery (its gallery item
+     * names it, lib/gallery/uploads.ts). Unit features join through this column, so they never see
+     * gallery uploads.
+     */
+    unitId: uuid(),
+    /** A view key of the unit's (or the gallery item's) part type ("front", "screen-white", …). */
     viewKey: text().notNull(),
     status: text({ enum: PHOTO_STATUSES }).notNull().default("queued"),
     failureCode: text({ enum: PHOTO_FAILURE_CODES }),
@@ -67,6 +72,14 @@ export const photos = pgTable(
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
     processedAt: timestamp({ withTimezone: true }),
+    /**
+     * A wrong photo taken out of the unit's evidence while regions or a measurement referenced it
+     * (lib/photos/removal.ts): the row and its objects stay, with who took it out, when and why;
+     * the unit's photo lists and measurements leave it out. Null: part of the unit.
+     */
+    removedAt: timestamp({ withTimezone: true }),
+    removedBy: uuid(),
+    removalReason: text(),
   },
   (t) => [
     // The same bytes on the same unit are the same photo.
@@ -82,9 +95,11 @@ export const photos = pgTable(
     check("photos_original_present", sql`${t.originalKey} IS NOT NULL OR (${t.status} = 'failed' AND ${t.failureCode} <> 'processing_failed')`),
     check("photos_failed_has_reason", sql`(${t.status} = 'failed') = (${t.failureCode} IS NOT NULL AND ${t.failureReason} IS NOT NULL)`),
     check("photos_bytes_positive", sql`${t.bytes} > 0`),
+    check("photos_removal_complete", sql`(${t.removedAt} IS NULL) = (${t.removedBy} IS NULL) AND (${t.removedAt} IS NULL) = (${t.removalReason} IS NULL)`),
     unique("photos_workspace_id_key").on(t.workspaceId, t.id),
     sameWorkspace("photos_unit_fk", t.workspaceId, t.unitId, units),
     sameWorkspace("photos_uploaded_by_fk", t.workspaceId, t.uploadedBy, users),
+    sameWorkspace("photos_removed_by_fk", t.workspaceId, t.removedBy, users),
   ],
 );
 

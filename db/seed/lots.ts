@@ -11,9 +11,9 @@ import { evaluateChecklistItem, type ChecklistValue } from "@/lib/checklist/eval
 import { unitFindings } from "@/lib/lots/findings";
 import { buildLotPlan, DEFAULT_AQLS, SEVERITY_ORDER } from "@/lib/lots/plan";
 import { switchingInputFor, type DecidedLotRow } from "@/lib/lots/switching-history";
-import { withdrawUngradedUnits } from "@/db/queries/units";
 import { lotVerdict } from "@/lib/lots/verdict";
 import { nextInspectionState } from "@/lib/sampling/switching";
+import { closeLotUnits } from "@/lib/units/lot-closing";
 import { DRAW_ALGORITHM, drawSample } from "@/lib/units/sample-draw";
 import { LOT_SCENARIO } from "./lot-scenario";
 import type { seedPeople } from "./people";
@@ -100,7 +100,7 @@ export async function seedLots(database: Database, people: People) {
         const decisionCounts = Object.fromEntries(SEVERITY_ORDER.map((s) => [s, { found: verdict.classes[s].found, inspected: verdict.classes[s].inspected, sampleSize: verdict.classes[s].sampleSize }])) as LotDecisionCounts;
         const decidedAt = new Date(createdAt.getTime() + 2 * DAY);
         await tx.update(lots).set({ status: "decided", verdict: verdict.verdict, disposition: spec.decision.disposition, dispositionReason: spec.decision.reason, decisionCounts, decidedBy: lead, decidedAt }).where(eq(lots.id, lot.id));
-        await withdrawUngradedUnits(tx, { workspaceId: ws.workspaceId, lotId: lot.id, at: decidedAt });
+        await closeLotUnits(tx, { workspaceId: ws.workspaceId, lotId: lot.id, at: decidedAt });
         await tx.insert(activityLog).values({ workspaceId: ws.workspaceId, actorId: lead, action: "lot.decided", subjectType: "lot", subjectId: lot.id, detail: { demo: true, verdict: verdict.verdict, disposition: spec.decision.disposition }, createdAt: decidedAt });
         history.set(key, [...(history.get(key) ?? []), { id: lot.id, purchaseRef: lot.purchaseRef, inspectionSeverity: state.severity, verdict: verdict.verdict, plan, decisionCounts }]);
       }

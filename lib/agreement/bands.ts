@@ -9,6 +9,8 @@
  * shows as 0.41 (0.405 is stored as 0.40500000000000002665) and is moderate. A value that shows as
  * "-0.00" is slight, not poor. NaN (undefined kappa) has no band: null.
  */
+import type { KappaInterval } from "./kappa";
+
 export const LANDIS_KOCH_BANDS = ["poor", "slight", "fair", "moderate", "substantial", "almost perfect"] as const;
 export type LandisKochBand = (typeof LANDIS_KOCH_BANDS)[number];
 
@@ -26,3 +28,7 @@ export function landisKochBand(kappa: number): LandisKochBand | null {
   for (const [upper, band] of UPPER_BOUNDS) if (shown <= upper) return band;
   return "almost perfect";
 }
+
+/** A kappa with its interval and the band of its point value, as scorecards and attempts show it. */
+export type KappaWithBand = KappaInterval & { band: LandisKochBand | null };
+export const withBand = (interval: KappaInterval): KappaWithBand => ({ ...interval, band: landisKochBand(interval.kappa) });

@@ -1,15 +1,14 @@
 import "server-only";
-import { and, eq } from "drizzle-orm";
-import { db } from "@/db/client";
+import { transaction } from "@/db/client";
 import { logActivity } from "@/db/queries/activity";
+import { upsertChecklistResult } from "@/db/queries/checklist";
 import { getUnitDetail, lockUnit } from "@/db/queries/units";
-import { checklistResults, units } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/require-user";
 import { hasAnyRole } from "@/lib/auth/roles";
-import { env } from "@/lib/env";
 import { AppError, notFound } from "@/lib/errors";
+import { claimForWork, workClaimsUnit } from "@/lib/queue/claim-for-work";
 import { assertNotLeasedByOther } from "@/lib/queue/queue";
-import { STATUS_LABELS, transition } from "@/lib/units/state-machine";
+import { STATUS_LABELS } from "@/lib/units/state-machine";
 import type { ChecklistRecordInput } from "@/lib/units/schemas";
 import { evaluateChecklistItem } from "./evaluate";
 
@@ -23,7 +22,7 @@ import { evaluateChecklistItem } from "./evaluate";
  * Graded, rechecked and final units, units of decided lots and placeholders without a serial are closed.
  */
 export async function recordChecklistResult(actor: SessionUser, unitId: string, input: ChecklistRecordInput) {
-  return db().transaction(async (tx) => {
+  return transaction(async (tx) => {
     const unit = await lockUnit(tx, { workspaceId: actor.workspaceId, unitId });
     if (!unit) throw notFound("That unit");
     const detail = (await getUnitDetail({ workspaceId: actor.workspaceId, unitId }, tx))!;
@@ -35,17 +34,10 @@ export async function recordChecklistResult(actor: SessionUser, unitId: string, 
     const evaluation = evaluateChecklistItem(item, input.value);
 
     const isLead = hasAnyRole(actor.roles, "lead");
-    if (!isLead) assertNotLeasedByOther(unit, actor, detail.leaseHolderName);
-    const leaseRunning = unit.status === "on_bench" && unit.leaseExpiresAt !== null && unit.leaseExpiresAt > new Date();
-    if (unit.status === "queued" || (!isLead && !leaseRunning)) {
-      // Queued, or on a bench whose lease ran out: the recorder takes it (release first if needed).
-      const status = transition(unit.status === "queued" ? "queued" : transition(unit.status, "release"), "claim");
-      await tx
-        .update(units)
-        .set({ status, leaseHolderId: actor.id, leaseExpiresAt: new Date(Date.now() + env().QUEUE_LEASE_SECONDS * 1000), claimedAt: new Date(), updatedAt: new Date() })
-        .where(and(eq(units.workspaceId, actor.workspaceId), eq(units.id, unitId)));
-      await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.id, action: "unit.claimed", subjectType: "unit", subjectId: unitId, detail: { via: "checklist", from: unit.leaseHolderId } });
-    }
+    if (!isLead) assertNotLeasedByOther(unit, actor);
+    // Queued, or on a bench whose lease ran out: the recorder takes it. A lead correcting a
+    // result leaves a bench whose lease ran out alone.
+    if (unit.status === "queued" || (!isLead && workClaimsUnit(unit))) await claimForWork(tx, actor, unit, "checklist");
 
     const values = {
       value: evaluation.value,
@@ -56,11 +48,7 @@ export async function recordChecklistResult(actor: SessionUser, unitId: string, 
       recordedBy: actor.id,
       recordedAt: new Date(),
     };
-    const [result] = await tx
-      .insert(checklistResults)
-      .values({ workspaceId: actor.workspaceId, unitId, itemId: item.id, ...values })
-      .onConflictDoUpdate({ target: [checklistResults.unitId, checklistResults.itemId], set: values })
-      .returning();
+    const result = await upsertChecklistResult(tx, { workspaceId: actor.workspaceId, unitId, itemId: item.id, values });
     await logActivity(tx, {
       workspaceId: actor.workspaceId,
       actorId: actor.id,

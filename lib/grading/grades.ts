@@ -1,16 +1,17 @@
 import "server-only";
-import { db } from "@/db/client";
+import { transaction } from "@/db/client";
 import { logActivity } from "@/db/queries/activity";
 import { getGradeByIdempotencyKey, getLatestUnitMeasurement, getUnitMeasurement, insertGrade, listGrades, listPhotoMeasurements, type GradeHistoryRow } from "@/db/queries/grading";
 import { getLatestPublished, getRubricVersion } from "@/db/queries/rubrics";
+import { lockUnit } from "@/db/queries/units";
 import type { SessionUser } from "@/lib/auth/require-user";
 import { finishInspection } from "@/lib/queue/queue";
-import { AppError } from "@/lib/errors";
+import { AppError, notFound } from "@/lib/errors";
 import { regradeStored } from "./grade-unit";
 import { assertMayRecord, replayOf } from "./grade-rules";
 import type { RecordGradeInput } from "./schemas";
 import type { StoredUnitResult } from "./stored-measurement";
-import { currentInputs, lockUnit, measurementStaleness, photoNamer, requireUnit, storedPhotos } from "./unit-grading";
+import { currentInputs, measurementStaleness, photoNamer, requireUnit, storedPhotos } from "./unit-grading";
 
 type Actor = Pick<SessionUser, "id" | "workspaceId" | "roles"> & Partial<Pick<SessionUser, "timeZone">>;
 
@@ -31,15 +32,16 @@ export async function gradeHistory(actor: Actor, unitId: string) {
 export async function recordGrade(actor: Actor, unitId: string, input: RecordGradeInput): Promise<{ grade: GradeHistoryRow; replayed: boolean }> {
   const kind = input.kind ?? "inspection";
   const unit = await requireUnit(actor, unitId);
-  const recorded = await db().transaction(async (tx) => {
+  const recorded = await transaction(async (tx) => {
     // The unit row lock serialises every grade write on the unit, so "current" stays current.
-    await lockUnit(tx, actor, unitId);
+    const locked = await lockUnit(tx, { workspaceId: actor.workspaceId, unitId });
+    if (!locked) throw notFound("That unit");
     const previous = await listGrades({ workspaceId: actor.workspaceId, unitId }, tx);
     const repeated = input.idempotencyKey ? await getGradeByIdempotencyKey({ workspaceId: actor.workspaceId, unitId, key: input.idempotencyKey }, tx) : undefined;
     if (repeated) return { id: replayOf(repeated, { kind, decision: input.decision, finalGrade: input.decision === "override" ? input.finalGrade : undefined, reason: input.reason }).id, replayed: true };
     assertMayRecord({ kind, reason: input.reason, expectedCurrentGradeId: input.expectedCurrentGradeId }, previous.at(-1) ?? null, actor.roles, actor.timeZone);
     // An inspection grade moves the unit on (on bench → graded) and ends its lease.
-    if (kind === "inspection") await finishInspection(tx, actor, unitId);
+    if (kind === "inspection") await finishInspection(tx, actor, locked);
     const measurement = input.measurementId
       ? await getUnitMeasurement({ workspaceId: actor.workspaceId, unitId, measurementId: input.measurementId }, tx)
       : await getLatestUnitMeasurement({ workspaceId: actor.workspaceId, unitId }, tx);
@@ -48,7 +50,7 @@ export async function recordGrade(actor: Actor, unitId: string, input: RecordGra
     }
     const stored = measurement.result as StoredUnitResult;
     const current = await currentInputs(actor, unitId, tx);
-    const staleness = measurementStaleness({ regionsVersions: measurement.regionsVersions, checklistStamp: stored.checklistStamp }, current.inputs, photoNamer(current.photoRows));
+    const staleness = measurementStaleness({ regionsVersions: measurement.regionsVersions, checklistStamp: stored.checklistStamp, views: stored.views }, current.inputs, photoNamer(current.photoRows));
     if (staleness.stale) throw new AppError("conflict", `The measurement is out of date: ${staleness.reasons.join(" ")} Measure again before grading.`);
 
 
@@ -108,7 +110,7 @@ export async function gradePreview(actor: Actor, unitId: string, version?: numbe
   const stored = measurement.result as StoredUnitResult;
   const result = regradeStored({ rubric: rubric.rubric, photos: await storedPhotos(actor, measurement.id), unit: stored });
   const current = await currentInputs(actor, unitId);
-  const staleness = measurementStaleness({ regionsVersions: measurement.regionsVersions, checklistStamp: stored.checklistStamp }, current.inputs, photoNamer(current.photoRows));
+  const staleness = measurementStaleness({ regionsVersions: measurement.regionsVersions, checklistStamp: stored.checklistStamp, views: stored.views }, current.inputs, photoNamer(current.photoRows));
   return {
     rubricVersion: { version: rubric.version, status: rubric.status, publishedAt: rubric.publishedAt },
     basis: {

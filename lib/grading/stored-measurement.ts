@@ -19,6 +19,8 @@ export type StoredUnitResult = {
   labels: GradingLabels;
   /** Latest checklist result time when measured (ISO), part of the staleness check. */
   checklistStamp: string | null;
+  /** Photo id → the view it was filed under when measured, part of the staleness check (absent on older measurements). */
+  views?: Record<string, string>;
   proposal: GradeResult;
 };
 

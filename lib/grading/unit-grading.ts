@@ -1,6 +1,5 @@
 import "server-only";
-import { and, eq } from "drizzle-orm";
-import { db, type DbOrTx } from "@/db/client";
+import { transaction, type DbOrTx } from "@/db/client";
 import { logActivity } from "@/db/queries/activity";
 import {
   getChecklistState,
@@ -15,7 +14,6 @@ import {
   type UnitMeasurementRow,
 } from "@/db/queries/grading";
 import { getLatestPublished } from "@/db/queries/rubrics";
-import { units } from "@/db/schema";
 import type { PolygonShape, Shape } from "@/lib/geometry/shape";
 import { AppError, notFound } from "@/lib/errors";
 import type { PhotoMeasurement } from "@/lib/measure/types";
@@ -28,20 +26,21 @@ import { gradingVersion } from "./versioning";
 
 export type GradingActor = { id: string | null; workspaceId: string };
 
-export async function requireUnit(actor: GradingActor, unitId: string, tx: DbOrTx = db()): Promise<GradingUnit> {
+export async function requireUnit(actor: GradingActor, unitId: string, tx?: DbOrTx): Promise<GradingUnit> {
   const unit = await getUnitForGrading({ workspaceId: actor.workspaceId, unitId }, tx);
   if (!unit) throw notFound("That unit");
   return unit;
 }
 
 /** What the unit's measurement depends on right now: ready photos' region versions, checklist time. */
-export async function currentInputs(actor: GradingActor, unitId: string, tx: DbOrTx = db()) {
+export async function currentInputs(actor: GradingActor, unitId: string, tx?: DbOrTx) {
   const photoRows = await listUnitPhotoVersions({ workspaceId: actor.workspaceId, unitId }, tx);
   const checklist = await getChecklistState({ workspaceId: actor.workspaceId, unitId }, tx);
   const ready = photoRows.filter((photo) => photo.status === "ready");
   const inputs: MeasuredInputs = {
     regionsVersions: Object.fromEntries(ready.map((photo) => [photo.photoId, photo.regionsVersion ?? 0])),
     checklistStamp: checklistStampOf(checklist.latestAt),
+    views: Object.fromEntries(ready.map((photo) => [photo.photoId, photo.viewKey])),
   };
   return { inputs, photoRows, ready, checklist };
 }
@@ -54,7 +53,7 @@ function photoNamer(photoRows: { photoId: string; viewKey: string }[]) {
 
 /** Reads everything a measurement needs in one snapshot, so the versions stored match the regions measured. */
 async function loadMeasureInput(actor: GradingActor, unitId: string) {
-  return db().transaction(
+  return transaction(
     async (tx) => {
       const unit = await requireUnit(actor, unitId, tx);
       const rubric = await getLatestPublished({ workspaceId: actor.workspaceId, partTypeId: unit.partTypeId }, tx);
@@ -89,7 +88,7 @@ export type MeasurementView = Awaited<ReturnType<typeof describeMeasurement>>;
 async function describeMeasurement(actor: GradingActor, row: UnitMeasurementRow, current: { inputs: MeasuredInputs; photoRows: { photoId: string; viewKey: string }[] }) {
   const photoRows = await listPhotoMeasurements({ workspaceId: actor.workspaceId, unitMeasurementId: row.id });
   const unit = row.result as StoredUnitResult;
-  const staleness: Staleness = measurementStaleness({ regionsVersions: row.regionsVersions, checklistStamp: unit.checklistStamp }, current.inputs, photoNamer(current.photoRows));
+  const staleness: Staleness = measurementStaleness({ regionsVersions: row.regionsVersions, checklistStamp: unit.checklistStamp, views: unit.views }, current.inputs, photoNamer(current.photoRows));
   return {
     id: row.id,
     createdAt: row.createdAt,
@@ -125,8 +124,8 @@ export async function measureAndStore(actor: GradingActor, unitId: string, optio
     },
     { timeoutMs: budgetMs + COMPUTE_START_ALLOWANCE_MS },
   );
-  const unitResult: StoredUnitResult = { ...outcome.unit, checklistStamp };
-  const stored = await db().transaction(async (tx) => {
+  const unitResult: StoredUnitResult = { ...outcome.unit, checklistStamp, views: loaded.inputs.views };
+  const stored = await transaction(async (tx) => {
     const ids = await insertMeasurementSet(tx, {
       workspaceId: actor.workspaceId,
       unitId,
@@ -151,15 +150,9 @@ export async function latestMeasurement(actor: GradingActor, unitId: string): Pr
 }
 
 /** Loads a unit measurement's photo rows as the PhotoMeasurements a re-evaluation reads. */
-export async function storedPhotos(actor: GradingActor, unitMeasurementId: string, tx: DbOrTx = db()): Promise<PhotoMeasurement[]> {
+export async function storedPhotos(actor: GradingActor, unitMeasurementId: string, tx?: DbOrTx): Promise<PhotoMeasurement[]> {
   const rows = await listPhotoMeasurements({ workspaceId: actor.workspaceId, unitMeasurementId }, tx);
   return rows.map((row) => (row.result as StoredPhotoResult).measurement);
-}
-
-/** Serialises grade writes on one unit (the unit row is locked for the transaction). */
-export async function lockUnit(tx: DbOrTx, actor: GradingActor, unitId: string) {
-  const [row] = await tx.select({ id: units.id }).from(units).where(and(eq(units.workspaceId, actor.workspaceId), eq(units.id, unitId))).for("update");
-  if (!row) throw notFound("That unit");
 }
 
 export { measurementStaleness, photoNamer };

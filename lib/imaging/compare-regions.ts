@@ -24,12 +24,16 @@
  *   matches the one long stroke, and a spot that only grazes another (less than half of the
  *   smaller inside) does not. A defect is "matched" when it matches at least one defect of the
  *   other side, else it is "only A" (missed by B) or "only B" (extra in B).
+ * - With `keepAreas`, each class also carries its areas as span sets: only A, only B and both
+ *   (what a grader missed, what they added, where they agree), for the after-submit view and the
+ *   adjudication overlay. Off by default: the masks can be large and most callers need counts.
  */
 import { z } from "zod";
 import type { Shape } from "@/lib/geometry/shape";
 import { diceOf, iouOf, maskOverlap } from "@/lib/agreement/masks";
 import { checkPhotoSize, parseOrRefuse, photoSide, regionListSchema, surfaceSchema } from "@/lib/imaging/raster/coverage-input";
 import { overlappingGroups, regionMasks, surfaceMask, type RegionRaster } from "@/lib/imaging/raster/region-masks";
+import { subtractSpanSets } from "@/lib/imaging/raster/span-areas";
 import { countIntersection, countSpans, intersectSpanSets, unionSpanSets, type SpanSet } from "@/lib/imaging/raster/spans";
 
 /** Share of the smaller defect that must lie inside the other for the two to match. */
@@ -61,7 +65,11 @@ export type ClassComparison = {
   matchedB: number;
   onlyA: number;
   onlyB: number;
+  /** Only with `keepAreas` (see the file head). */
+  areas?: ClassAreas;
 };
+export type ClassAreas = { onlyA: SpanSet; onlyB: SpanSet; both: SpanSet };
+export type CompareOptions = { regionRaster?: RegionRaster; keepAreas?: boolean };
 export type RegionSetComparison = { surfacePx: number; byDefect: Record<string, ClassComparison> };
 
 const comparisonSchema = z
@@ -70,7 +78,7 @@ const comparisonSchema = z
 
 type Group = { regionIds: string[]; mask: SpanSet; px: number; matched: boolean };
 
-export async function compareRegionSets(input: RegionSetComparisonInput, options: { regionRaster?: RegionRaster } = {}): Promise<RegionSetComparison> {
+export async function compareRegionSets(input: RegionSetComparisonInput, options: CompareOptions = {}): Promise<RegionSetComparison> {
   const { width, height, a, b, surface = [] } = parseOrRefuse(comparisonSchema, input, "region comparison input");
   const frame = { width, height };
   const surfaceSpans = surfaceMask(surface, frame);
@@ -84,7 +92,7 @@ export async function compareRegionSets(input: RegionSetComparisonInput, options
   // Object.fromEntries defines own keys, so a class named "__proto__" stays plain data.
   return {
     surfacePx: countSpans(surfaceSpans),
-    byDefect: Object.fromEntries(defects.map((defect) => [defect, compareClass(defectGroups(sideA, defect), defectGroups(sideB, defect))])),
+    byDefect: Object.fromEntries(defects.map((defect) => [defect, compareClass(defectGroups(sideA, defect), defectGroups(sideB, defect), options.keepAreas ?? false)])),
   };
 }
 
@@ -97,7 +105,7 @@ function defectGroups(sideRegions: { regions: ComparedRegion[]; masks: SpanSet[]
   });
 }
 
-function compareClass(groupsA: Group[], groupsB: Group[]): ClassComparison {
+function compareClass(groupsA: Group[], groupsB: Group[], keepAreas: boolean): ClassComparison {
   for (const groupA of groupsA) {
     for (const groupB of groupsB) {
       const shared = countIntersection(groupA.mask, groupB.mask);
@@ -107,7 +115,9 @@ function compareClass(groupsA: Group[], groupsB: Group[]): ClassComparison {
       }
     }
   }
-  const overlap = maskOverlap(unionSpanSets(groupsA.map((group) => group.mask)), unionSpanSets(groupsB.map((group) => group.mask)));
+  const unionA = unionSpanSets(groupsA.map((group) => group.mask));
+  const unionB = unionSpanSets(groupsB.map((group) => group.mask));
+  const overlap = maskOverlap(unionA, unionB);
   const matchedA = groupsA.filter((group) => group.matched).length;
   const matchedB = groupsB.filter((group) => group.matched).length;
   const publicGroup = ({ regionIds, px, matched }: Group): DefectGroup => ({ regionIds, px, matched });
@@ -126,5 +136,6 @@ function compareClass(groupsA: Group[], groupsB: Group[]): ClassComparison {
     matchedB,
     onlyA: groupsA.length - matchedA,
     onlyB: groupsB.length - matchedB,
+    ...(keepAreas ? { areas: { onlyA: subtractSpanSets(unionA, unionB), onlyB: subtractSpanSets(unionB, unionA), both: intersectSpanSets(unionA, unionB) } } : {}),
   };
 }

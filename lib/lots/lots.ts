@@ -1,14 +1,12 @@
 import "server-only";
-import { and, eq } from "drizzle-orm";
-import { db } from "@/db/client";
+import { transaction } from "@/db/client";
 import { logActivity } from "@/db/queries/activity";
-import { getLot, lockLot } from "@/db/queries/lots";
-import { withdrawUngradedUnits } from "@/db/queries/units";
-import { lots, units, type LotDecisionCounts } from "@/db/schema";
+import { getLot, insertLot, lockLot, recordLotDecision } from "@/db/queries/lots";
+import type { LotDecisionCounts } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/require-user";
 import { AppError, notFound } from "@/lib/errors";
 import { SamplingInputError } from "@/lib/sampling/iso2859";
-import { transition } from "@/lib/units/state-machine";
+import { closeLotUnits } from "@/lib/units/lot-closing";
 import { buildLotPlan, SEVERITY_ORDER } from "./plan";
 import { oneLotProgress, progressInput } from "./progress";
 import { assertPair, switchingStateFor } from "./scheme";
@@ -21,7 +19,7 @@ import { DISPOSITION_LABELS, DISPOSITIONS_FOR_VERDICT, MAX_UNITS_PER_LOT, type D
  */
 export async function createLot(actor: SessionUser, input: LotCreateInput) {
   const pair = { workspaceId: actor.workspaceId, supplierId: input.supplierId, partTypeId: input.partTypeId };
-  return db().transaction(async (tx) => {
+  return transaction(async (tx) => {
     const { supplier, partType } = await assertPair(pair, tx);
     if (!supplier.active) throw new AppError("conflict", `${supplier.name} is marked inactive; reactivate the supplier before receiving a lot.`, { fieldErrors: { supplierId: "This supplier is inactive." } });
     if (!partType.active) throw new AppError("conflict", `${partType.name} is retired; reactivate the part type before receiving a lot.`, { fieldErrors: { partTypeId: "This part type is retired." } });
@@ -49,27 +47,24 @@ export async function createLot(actor: SessionUser, input: LotCreateInput) {
         fieldErrors: { quantity: `At most ${MAX_UNITS_PER_LOT.toLocaleString("en-GB")} for a part type inspected 100 %.` },
       });
     }
-    const [row] = await tx
-      .insert(lots)
-      .values({
-        workspaceId: actor.workspaceId,
-        supplierId: input.supplierId,
-        partTypeId: input.partTypeId,
-        purchaseRef: input.purchaseRef,
-        modelFamily: input.modelFamily || partType.modelFamily,
-        quantity: input.quantity,
-        receivedOn: input.receivedOn,
-        dueOn: input.dueOn,
-        inspectionLevel: input.inspectionLevel,
-        aqlCritical: input.aqlCritical,
-        aqlMajor: input.aqlMajor,
-        aqlMinor: input.aqlMinor,
-        inspectionSeverity: state.severity,
-        promisedGrade: input.promisedGrade ?? supplier.promisedGrade ?? partType.promisedGrade,
-        plan,
-        createdBy: actor.id,
-      })
-      .returning();
+    const row = await insertLot(tx, {
+      workspaceId: actor.workspaceId,
+      supplierId: input.supplierId,
+      partTypeId: input.partTypeId,
+      purchaseRef: input.purchaseRef,
+      modelFamily: input.modelFamily || partType.modelFamily,
+      quantity: input.quantity,
+      receivedOn: input.receivedOn,
+      dueOn: input.dueOn,
+      inspectionLevel: input.inspectionLevel,
+      aqlCritical: input.aqlCritical,
+      aqlMajor: input.aqlMajor,
+      aqlMinor: input.aqlMinor,
+      inspectionSeverity: state.severity,
+      promisedGrade: input.promisedGrade ?? supplier.promisedGrade ?? partType.promisedGrade,
+      plan,
+      createdBy: actor.id,
+    });
     await logActivity(tx, {
       workspaceId: actor.workspaceId,
       actorId: actor.id,
@@ -87,7 +82,7 @@ export async function createLot(actor: SessionUser, input: LotCreateInput) {
  * the counts it rests on; the disposition must suit it. Graded units become final.
  */
 export async function decideLot(actor: SessionUser, lotId: string, input: DispositionInput) {
-  return db().transaction(async (tx) => {
+  return transaction(async (tx) => {
     const locked = await lockLot(tx, { workspaceId: actor.workspaceId, lotId });
     if (!locked) throw notFound("That lot");
     if (locked.status === "decided") throw new AppError("conflict", `This lot was already decided (${locked.verdict}, ${DISPOSITION_LABELS[locked.disposition!].toLowerCase()}).`);
@@ -103,19 +98,12 @@ export async function decideLot(actor: SessionUser, lotId: string, input: Dispos
       SEVERITY_ORDER.map((s) => [s, { found: verdict.classes[s].found, inspected: verdict.classes[s].inspected, sampleSize: verdict.classes[s].sampleSize }]),
     ) as LotDecisionCounts;
     const now = new Date();
-    const [row] = await tx
-      .update(lots)
-      .set({ status: "decided", verdict: verdict.verdict, disposition: input.disposition, dispositionReason: input.reason, decisionCounts, decidedBy: actor.id, decidedAt: now, updatedAt: now })
-      .where(and(eq(lots.workspaceId, actor.workspaceId), eq(lots.id, lotId)))
-      .returning();
-    // "finalise: … or the lot was decided without one [recheck]" (lib/units/state-machine.ts).
-    await tx
-      .update(units)
-      .set({ status: transition("graded", "finalise"), updatedAt: now })
-      .where(and(eq(units.workspaceId, actor.workspaceId), eq(units.lotId, lotId), eq(units.status, "graded")));
-    // Units the decision came before leave the queue and any bench: nobody needs them now, and
-    // left queued they would sit in the queue's index for every later claim to walk past.
-    const withdrawn = await withdrawUngradedUnits(tx, { workspaceId: actor.workspaceId, lotId, at: now });
+    const row = await recordLotDecision(tx, {
+      workspaceId: actor.workspaceId,
+      lotId,
+      decision: { verdict: verdict.verdict, disposition: input.disposition, dispositionReason: input.reason, decisionCounts, decidedBy: actor.id, decidedAt: now },
+    });
+    const { withdrawn } = await closeLotUnits(tx, { workspaceId: actor.workspaceId, lotId, at: now });
     await logActivity(tx, {
       workspaceId: actor.workspaceId,
       actorId: actor.id,

@@ -3,9 +3,11 @@ import "server-only";
  * The one gate every deletion of a photo's original goes through. Evidence must outlive the
  * decisions made on it: once grades (and regions, measurements, gallery items) reference photos,
  * each of those features adds its check to ORIGINAL_DELETION_CHECKS — e.g. "a grade references
- * this photo" — and no caller needs to change. Today: regions and measurements (lib/grading/photo-evidence.ts).
+ * this photo" — and no caller needs to change. Today: regions and measurements (lib/grading/photo-evidence.ts)
+ * and gallery items (lib/gallery/photo-use.ts).
  */
 import type { DbOrTx } from "@/db/client";
+import { galleryUseCheck } from "@/lib/gallery/photo-use";
 import { gradingEvidenceCheck } from "@/lib/grading/photo-evidence";
 import { AppError } from "@/lib/errors";
 
@@ -17,6 +19,8 @@ export type OriginalDeletionCheck = (tx: DbOrTx, photo: PhotoRef) => Promise<str
 export const ORIGINAL_DELETION_CHECKS: OriginalDeletionCheck[] = [
   // Regions marked on it, or a measurement (and so possibly a grade) made from it.
   gradingEvidenceCheck,
+  // A gallery item shows it (draft, published or retired).
+  galleryUseCheck,
 ];
 
 export async function originalDeletionBlockers(tx: DbOrTx, photo: PhotoRef, checks: readonly OriginalDeletionCheck[] = ORIGINAL_DELETION_CHECKS): Promise<string[]> {

@@ -7,7 +7,8 @@ import type { PhotoWithContext } from "./queries";
 
 export type PhotoDto = {
   id: string;
-  unitId: string;
+  /** Null for a photo uploaded straight into the Gallery. */
+  unitId: string | null;
   viewKey: string;
   status: PhotoStatus;
   failure: { code: PhotoFailureCode; reason: string } | null;
@@ -30,6 +31,8 @@ export type PhotoDto = {
   createdAt: string;
   processedAt: string | null;
   urls: { thumbnail: string; preview: string; original: string } | null;
+  /** Taken out of the unit but kept as a record (lib/photos/removal.ts); null while part of it. */
+  removal: { at: string; byName: string | null; reason: string } | null;
 };
 
 const size = (width: number | null, height: number | null) => (width !== null && height !== null ? { width, height } : null);
@@ -65,5 +68,6 @@ export function toPhotoDto(p: PhotoWithContext): PhotoDto {
     createdAt: p.createdAt.toISOString(),
     processedAt: p.processedAt?.toISOString() ?? null,
     urls: ready ? { thumbnail: `/api/photos/${p.id}/thumbnail`, preview: `/api/photos/${p.id}/preview`, original: `/api/photos/${p.id}/original` } : null,
+    removal: p.removedAt && p.removalReason ? { at: p.removedAt.toISOString(), byName: p.removerName, reason: p.removalReason } : null,
   };
 }

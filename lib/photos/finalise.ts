@@ -26,6 +26,7 @@ import { AppError } from "@/lib/errors";
 import { MAX_PHOTO_BYTES, PhotoRejectedError, type PhotoRejectionCode } from "@/lib/imaging/normalize";
 import { transactionWithJobs, type JobSender } from "@/lib/jobs/send";
 import { copyObject, deleteObject, digestObject, headObject, objectStore, type ObjectStore } from "@/lib/storage/s3";
+import { formatDate } from "@/lib/time/format";
 import { photoSettings } from "./config";
 import { assertOpenForUploads, loadUnit, viewOf } from "./intents";
 import { originalKey, stagingKey, type PhotoKeyOwner } from "./object-keys";
@@ -66,16 +67,30 @@ function readTicket(actor: SessionUser, unitId: string, token: string, now: Date
 const withContext = async (actor: SessionUser, photoId: string) => (await getPhotoWithContext({ workspaceId: actor.workspaceId, photoId }))!;
 
 export async function finaliseUpload(actor: SessionUser, unitId: string, input: FinaliseInput, options: FinaliseOptions = {}): Promise<FinaliseOutcome> {
-  const { store = objectStore(), dispatch = "queue", now = new Date() } = options;
-  const waitMs = options.waitMs ?? photoSettings().PHOTO_FINALISE_WAIT_MS;
   const unit = await loadUnit(actor, unitId);
-  const ticket = readTicket(actor, unitId, input.ticket, now);
+  const ticket = readTicket(actor, unitId, input.ticket, options.now ?? new Date());
   if (await getPhoto({ workspaceId: actor.workspaceId, photoId: ticket.photoId })) return { kind: "replayed", photo: await withContext(actor, ticket.photoId) };
   assertOpenForUploads(unit);
   viewOf(unit, ticket.viewKey);
+  return storeUpload(actor, { unitId, photoId: ticket.photoId, viewKey: ticket.viewKey, fileName: ticket.fileName, bytes: ticket.bytes }, options);
+}
 
-  const owner: PhotoKeyOwner = { workspaceId: actor.workspaceId, unitId, photoId: ticket.photoId };
-  const original = await moveToOriginal(store, owner, ticket.bytes);
+/**
+ * What a checked ticket promised: where the staged bytes go (`unitId` null: a Gallery upload),
+ * and the length the presigned PUT was signed for (finalise refuses any other).
+ */
+export type UploadTarget = { unitId: string | null; photoId: string; viewKey: string; fileName: string; bytes?: number };
+
+/**
+ * Steps 2–6 for a ticket the caller has checked (a unit's, or the Gallery's in lib/gallery/uploads.ts).
+ * Gallery uploads skip the same-bytes and reuse checks: those compare evidence between units.
+ */
+export async function storeUpload(actor: SessionUser, target: UploadTarget, options: FinaliseOptions = {}): Promise<FinaliseOutcome> {
+  const { store = objectStore(), dispatch = "queue" } = options;
+  const waitMs = options.waitMs ?? photoSettings().PHOTO_FINALISE_WAIT_MS;
+  const { unitId } = target;
+  const owner: PhotoKeyOwner = { workspaceId: actor.workspaceId, unitId, photoId: target.photoId };
+  const original = await moveToOriginal(store, owner, target.bytes);
   const digest = await digestObject(store, original);
   if (!digest) throw new AppError("conflict", NOT_ARRIVED);
   const stored = checkStoredUpload(digest);
@@ -84,18 +99,18 @@ export async function finaliseUpload(actor: SessionUser, unitId: string, input: 
     throw stored.rejection;
   }
 
-  const same = await findUnitPhotoBySha({ workspaceId: actor.workspaceId, unitId, sha256: digest.sha256 });
+  const same = unitId ? await findUnitPhotoBySha({ workspaceId: actor.workspaceId, unitId, sha256: digest.sha256 }) : null;
   if (same) return answerSameBytes(actor, store, original, same.id);
-  const reuse = await findReuseCandidate({ workspaceId: actor.workspaceId, unitId, sha256: digest.sha256 });
+  const reuse = unitId ? await findReuseCandidate({ workspaceId: actor.workspaceId, unitId, sha256: digest.sha256 }) : null;
   const row: NewPhoto = {
-    id: ticket.photoId,
+    id: target.photoId,
     workspaceId: actor.workspaceId,
     unitId,
-    viewKey: ticket.viewKey,
+    viewKey: target.viewKey,
     status: "queued",
     originalKey: original,
     contentType: stored.contentType,
-    fileName: ticket.fileName,
+    fileName: target.fileName,
     bytes: digest.bytes,
     sha256: digest.sha256,
     possibleReuseOfPhotoId: reuse?.id ?? null,
@@ -106,7 +121,7 @@ export async function finaliseUpload(actor: SessionUser, unitId: string, input: 
     else await db().transaction((tx) => insertPhoto(tx, actor, row, reuse?.unitId ?? null, null));
   } catch (err) {
     if (isUniqueViolation(err, "photos_pkey")) return { kind: "replayed", photo: await withContext(actor, row.id) };
-    if (isUniqueViolation(err, "photos_unit_sha256_key")) {
+    if (unitId && isUniqueViolation(err, "photos_unit_sha256_key")) {
       const winner = await findUnitPhotoBySha({ workspaceId: actor.workspaceId, unitId, sha256: digest.sha256 });
       if (winner) return answerSameBytes(actor, store, original, winner.id);
     }
@@ -151,6 +166,10 @@ async function answerSameBytes(actor: SessionUser, store: ObjectStore, newOrigin
   // The same file was refused before (its notice is still shown): refuse it again, for the same reason.
   if (existing.status === "failed" && existing.failureCode !== "processing_failed") {
     throw new PhotoRejectedError(existing.failureCode as PhotoRejectionCode, existing.failureReason ?? "This file was refused.");
+  }
+  // The same file was taken out of this unit before: it does not come back in by the side door.
+  if (existing.removedAt) {
+    throw new AppError("conflict", `This exact file was taken out of this unit on ${formatDate(existing.removedAt, actor.timeZone)} (“${existing.removalReason ?? ""}”) and is kept only as a record. Upload a different photo.`);
   }
   return { kind: "duplicate", photo: existing };
 }

@@ -1,6 +1,6 @@
 import "server-only";
 /** Reads for photo intake, always scoped by workspace in the WHERE clause. */
-import { and, asc, eq, ne, sql } from "drizzle-orm";
+import { and, asc, eq, isNotNull, isNull, ne, sql } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
 import { db, type DbOrTx } from "@/db/client";
 import { lots, partTypes, photos, units, users, type Photo, type ViewDefinition } from "@/db/schema";
@@ -42,10 +42,13 @@ export const unitLabel = (u: { serial: string | null; sampleIndex: number; purch
 const reusedPhoto = alias(photos, "reused_photo");
 const reusedUnit = alias(units, "reused_unit");
 const reusedLot = alias(lots, "reused_lot");
+const remover = alias(users, "remover");
 
 /** A photo with the names the API shows beside it (uploader, the unit a reused photo came from). */
 export type PhotoWithContext = Photo & {
   uploaderName: string;
+  /** Who took the photo out of the unit, when it was (removedAt). */
+  removerName: string | null;
   reuse: { photoId: string; unitId: string; serial: string | null; sampleIndex: number; purchaseRef: string } | null;
 };
 
@@ -59,12 +62,14 @@ function selectPhotos(tx: DbOrTx) {
       reuseSerial: reusedUnit.serial,
       reuseSampleIndex: reusedUnit.sampleIndex,
       reusePurchaseRef: reusedLot.purchaseRef,
+      removerName: remover.name,
     })
     .from(photos)
     .innerJoin(users, eq(users.id, photos.uploadedBy))
     .leftJoin(reusedPhoto, and(eq(reusedPhoto.id, photos.possibleReuseOfPhotoId), eq(reusedPhoto.workspaceId, photos.workspaceId)))
     .leftJoin(reusedUnit, eq(reusedUnit.id, reusedPhoto.unitId))
-    .leftJoin(reusedLot, eq(reusedLot.id, reusedUnit.lotId));
+    .leftJoin(reusedLot, eq(reusedLot.id, reusedUnit.lotId))
+    .leftJoin(remover, eq(remover.id, photos.removedBy));
 }
 
 type SelectedRow = Awaited<ReturnType<ReturnType<typeof selectPhotos>["where"]>>[number];
@@ -74,12 +79,13 @@ function withContext(row: SelectedRow): PhotoWithContext {
     row.reusePhotoId && row.reuseUnitId
       ? { photoId: row.reusePhotoId, unitId: row.reuseUnitId, serial: row.reuseSerial, sampleIndex: row.reuseSampleIndex ?? 0, purchaseRef: row.reusePurchaseRef ?? "" }
       : null;
-  return { ...row.photo, uploaderName: row.uploaderName, reuse };
+  return { ...row.photo, uploaderName: row.uploaderName, removerName: row.removerName, reuse };
 }
 
-export async function listUnitPhotos({ workspaceId, unitId }: { workspaceId: string; unitId: string }, tx: DbOrTx = db()): Promise<PhotoWithContext[]> {
+/** The unit's photos; those taken out of it (removedAt) only with `removed: true`. */
+export async function listUnitPhotos({ workspaceId, unitId, removed = false }: { workspaceId: string; unitId: string; removed?: boolean }, tx: DbOrTx = db()): Promise<PhotoWithContext[]> {
   const rows = await selectPhotos(tx)
-    .where(and(eq(photos.workspaceId, workspaceId), eq(photos.unitId, unitId)))
+    .where(and(eq(photos.workspaceId, workspaceId), eq(photos.unitId, unitId), removed ? isNotNull(photos.removedAt) : isNull(photos.removedAt)))
     .orderBy(asc(photos.createdAt), asc(photos.id));
   return rows.map(withContext);
 }

@@ -24,3 +24,17 @@ export type FinaliseInput = z.infer<typeof finaliseSchema>;
 
 /** `?wait=0` answers at once (202) instead of waiting for the worker's verdict. */
 export const finaliseQuerySchema = z.object({ wait: z.enum(["0", "1"]).optional() }).strict();
+
+export const photoViewSchema = z
+  .object({ viewKey: z.string({ error: "Choose the view this photo shows." }).trim().min(1, "Choose the view this photo shows.").max(64) })
+  .strict();
+
+export const photoRemovalSchema = z
+  .object({
+    reason: z
+      .string({ error: "Say why the photo is removed." })
+      .trim()
+      .min(3, "Say why the photo is removed (a few words are enough, e.g. “another unit's back”).")
+      .max(500, "Keep the reason under 500 characters."),
+  })
+  .strict();

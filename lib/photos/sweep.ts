@@ -6,18 +6,20 @@ import "server-only";
  * dismissed photo, a refused original whose delete failed). Also drops the failure notices of
  * refused files after their retention, and marks photos whose job was lost (queued or processing
  * with no progress for PHOTO_STALLED_HOURS) as failed, so Retry is offered instead of a spinner
- * forever. Objects with keys this app never writes are left alone.
+ * forever. Gallery uploads that no gallery item names (the browser left before the item was made)
+ * are removed after the grace period too. Objects with keys this app never writes are left alone.
  * Every original goes through the deletion gate first (lib/photos/deletion.ts).
  */
 import { and, eq, inArray, isNull, lt } from "drizzle-orm";
 import { db } from "@/db/client";
+import { deleteUnusedGalleryPhoto, listUnusedGalleryPhotos } from "@/db/queries/gallery";
 import { photos } from "@/db/schema";
 import { deleteObject, listObjects, objectStore, type ListedObject, type ObjectStore } from "@/lib/storage/s3";
 import { photoSettings } from "./config";
 import { ORIGINAL_DELETION_CHECKS, originalDeletionBlockers, type OriginalDeletionCheck } from "./deletion";
 import { parsePhotoKey, PHOTOS_PREFIX, STAGING_PREFIX } from "./object-keys";
 
-export type SweepReport = { scanned: number; deleted: string[]; kept: number; blocked: string[]; noticesRemoved: number; stalledMarked: number };
+export type SweepReport = { scanned: number; deleted: string[]; kept: number; blocked: string[]; noticesRemoved: number; stalledMarked: number; galleryUploadsRemoved: number };
 
 export type SweepOptions = {
   store?: ObjectStore;
@@ -37,7 +39,8 @@ export async function sweepOrphans(options: SweepOptions = {}): Promise<SweepRep
   const noticeRetentionMs = options.noticeRetentionMs ?? settings.PHOTO_FAILED_RETENTION_HOURS * 3_600_000;
   const stalledMs = options.stalledMs ?? settings.PHOTO_STALLED_HOURS * 3_600_000;
   const cutoff = now.getTime() - graceMs;
-  const report: SweepReport = { scanned: 0, deleted: [], kept: 0, blocked: [], noticesRemoved: 0, stalledMarked: 0 };
+  const report: SweepReport = { scanned: 0, deleted: [], kept: 0, blocked: [], noticesRemoved: 0, stalledMarked: 0, galleryUploadsRemoved: 0 };
+  await sweepUnusedGalleryUploads(store, new Date(cutoff), checks, report);
 
   for await (const object of listObjects(store, STAGING_PREFIX)) {
     report.scanned++;
@@ -102,5 +105,24 @@ async function sweepPhotoObjects(store: ObjectStore, objects: ListedObject[], ch
     }
     await deleteObject(store, object.key);
     report.deleted.push(object.key);
+  }
+}
+
+/** Gallery uploads no item names, past the grace: row and objects go, each original through the gate. */
+async function sweepUnusedGalleryUploads(store: ObjectStore, before: Date, checks: readonly OriginalDeletionCheck[], report: SweepReport) {
+  for (const photo of await listUnusedGalleryPhotos({ before, limit: BATCH })) {
+    const ref = { workspaceId: photo.workspaceId, photoId: photo.id };
+    const keys = await db().transaction(async (tx) => {
+      if ((await originalDeletionBlockers(tx, ref, checks)).length) return null;
+      // Deletes only while no item names it: an item made meanwhile keeps the photo (and its key lock waits for this).
+      return deleteUnusedGalleryPhoto(tx, ref);
+    });
+    if (!keys) continue;
+    report.galleryUploadsRemoved++;
+    for (const key of [keys.originalKey, keys.previewKey, keys.thumbnailKey]) {
+      if (!key) continue;
+      await deleteObject(store, key);
+      report.deleted.push(key);
+    }
   }
 }

@@ -17,6 +17,7 @@ import { getPhotoForRegions, getRegionSetHead, listPhotoRegions, lockRegionSet, 
 import type { SessionUser } from "@/lib/auth/require-user";
 import { AppError, notFound } from "@/lib/errors";
 import { parseRegionSet, type RegionSetPayload } from "@/lib/geometry/validate";
+import { claimForWork, workClaimsUnit } from "@/lib/queue/claim-for-work";
 import { assertNotLeasedByOther } from "@/lib/queue/queue";
 import { STATUS_LABELS } from "@/lib/units/state-machine";
 import { payloadFromRows, rowsForSave, samePayload } from "./payload";
@@ -67,6 +68,7 @@ function validationError(messages: string[]): AppError {
 
 /** The payload, checked against this photo's size and its part type's defect classes (400 with sentences otherwise). */
 export function validateRegions(photo: PhotoForRegions, input: unknown): RegionSetPayload {
+  if (photo.photo.removedAt) throw new AppError("conflict", "This photo was taken out of the unit; its regions are kept as a record and can no longer change.");
   if (photo.photo.status !== "ready" || !photo.photo.width || !photo.photo.height) {
     throw new AppError("conflict", "This photo is still being processed (or was refused); regions can be marked once it is ready.");
   }
@@ -88,7 +90,7 @@ export async function saveRegionSet(actor: SessionUser, photoId: string, input: 
     if (!(EDITABLE_STATUSES as readonly string[]).includes(unit.status)) {
       throw new AppError("conflict", `This unit is ${STATUS_LABELS[unit.status]}, so its regions are part of the record and can no longer change.`);
     }
-    assertNotLeasedByOther(unit, actor, photo.leaseHolderName);
+    assertNotLeasedByOther(unit, actor);
     const set = await lockRegionSet(tx, key);
     if (set.version !== input.baseVersion) {
       const current = await readRegionSet(actor, photoId, tx);
@@ -97,6 +99,8 @@ export async function saveRegionSet(actor: SessionUser, photoId: string, input: 
       if (current.version === input.baseVersion + 1 && set.updatedBy === actor.id && samePayload(current.regions, payload)) return current;
       throw new RegionVersionConflict(current, input.baseVersion);
     }
+    // Marking a unit that waits in the queue (or whose lease ran out) takes it onto the marker's bench.
+    if (workClaimsUnit(unit)) await claimForWork(tx, actor, unit, "regions");
     const version = set.version + 1;
     const previous = await listPhotoRegions(key, tx);
     const { rows, added, changed, removed } = rowsForSave(payload, previous, { authorId: actor.id, version });

@@ -1,12 +1,11 @@
 import "server-only";
 import crypto from "node:crypto";
-import { and, eq } from "drizzle-orm";
-import { db } from "@/db/client";
+import { transaction } from "@/db/client";
 import { isUniqueViolation } from "@/db/errors";
 import { logActivity } from "@/db/queries/activity";
-import { lockLot } from "@/db/queries/lots";
-import { countLotUnits, getUnitDetail, lockUnit } from "@/db/queries/units";
-import { lots, units, type SampleDraw } from "@/db/schema";
+import { lockLot, setLotSampleDraw } from "@/db/queries/lots";
+import { countLotUnits, getUnitDetail, insertUnits, lockUnit, updateUnitSerial } from "@/db/queries/units";
+import type { SampleDraw } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/require-user";
 import { hasAnyRole } from "@/lib/auth/roles";
 import { AppError, notFound } from "@/lib/errors";
@@ -14,8 +13,6 @@ import { assertNotLeasedByOther } from "@/lib/queue/queue";
 import { DRAW_ALGORITHM, drawSample } from "./sample-draw";
 import { describeSerialProblems, hasSerialProblems, parseSerialCsv } from "./serial-csv";
 import type { UnitsCreateInput } from "./schemas";
-
-const INSERT_CHUNK = 1000;
 
 /** A fresh seed for a draw: 32 random bits from the operating system, as decimal text. */
 export function newDrawSeed(): string {
@@ -34,7 +31,7 @@ function serialListError(problems: string[]): AppError {
  * placeholders whose serials the inspector scans on the bench.
  */
 export async function createLotUnits(actor: SessionUser, lotId: string, input: UnitsCreateInput) {
-  return db().transaction(async (tx) => {
+  return transaction(async (tx) => {
     const lot = await lockLot(tx, { workspaceId: actor.workspaceId, lotId });
     if (!lot) throw notFound("That lot");
     if (lot.status !== "open") throw new AppError("conflict", "This lot is decided; its sample can no longer change.");
@@ -79,8 +76,8 @@ export async function createLotUnits(actor: SessionUser, lotId: string, input: U
       lotReceivedOn: lot.receivedOn,
       lotCreatedAt: lot.createdAt,
     }));
-    for (let start = 0; start < rows.length; start += INSERT_CHUNK) await tx.insert(units).values(rows.slice(start, start + INSERT_CHUNK));
-    await tx.update(lots).set({ sampleSeed: seed, sampleDraw: draw, updatedAt: new Date() }).where(and(eq(lots.workspaceId, actor.workspaceId), eq(lots.id, lotId)));
+    await insertUnits(tx, rows);
+    await setLotSampleDraw(tx, { workspaceId: actor.workspaceId, lotId, seed, draw });
     await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.id, action: "lot.units_created", subjectType: "lot", subjectId: lotId, detail: { ...draw, units: rows.length } });
     return { created: rows.length, draw };
   });
@@ -89,19 +86,15 @@ export async function createLotUnits(actor: SessionUser, lotId: string, input: U
 /** Sets the serial of a placeholder unit (scanned or typed on the bench). */
 export async function setUnitSerial(actor: SessionUser, unitId: string, serial: string) {
   try {
-    return await db().transaction(async (tx) => {
+    return await transaction(async (tx) => {
       const unit = await lockUnit(tx, { workspaceId: actor.workspaceId, unitId });
       if (!unit) throw notFound("That unit");
       const detail = (await getUnitDetail({ workspaceId: actor.workspaceId, unitId }, tx))!;
       if (detail.lot.status !== "open") throw new AppError("conflict", "This unit's lot is decided; its serial can no longer change.");
       if (!unit.placeholder) throw new AppError("conflict", "This unit's serial came from the supplier's list and cannot be edited here.", { fieldErrors: { serial: "Imported serials are fixed." } });
       if (unit.status !== "queued" && unit.status !== "on_bench") throw new AppError("conflict", "This unit is graded; its serial can no longer change.");
-      if (!hasAnyRole(actor.roles, "lead")) assertNotLeasedByOther(unit, actor, detail.leaseHolderName);
-      const [row] = await tx
-        .update(units)
-        .set({ serial, updatedAt: new Date() })
-        .where(and(eq(units.workspaceId, actor.workspaceId), eq(units.id, unitId)))
-        .returning();
+      if (!hasAnyRole(actor.roles, "lead")) assertNotLeasedByOther(unit, actor);
+      const row = await updateUnitSerial(tx, { workspaceId: actor.workspaceId, unitId, serial });
       await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.id, action: "unit.serial_set", subjectType: "unit", subjectId: unitId, detail: { from: unit.serial, to: serial } });
       return row;
     });

@@ -29,7 +29,7 @@ const RUBRIC = {
 };
 
 /** A unit on `holderEmail`'s bench (lease running 20 min), in a lot due far ahead so no queue test meets it. */
-export async function createBenchUnit(holderEmail = "inspector@vellmoor.example") {
+export async function createBenchUnit(holderEmail = "inspector@vellmoor.example", { queuedSibling = false } = {}) {
   if (!process.env.DATABASE_URL) throw new Error("DATABASE_URL is not set; run browser tests through `npm test`.");
   const t = crypto.randomBytes(4).toString("hex");
   const q = async <T extends pg.QueryResultRow>(text: string, values: unknown[]) => (await db().query<T>(text, values)).rows[0];
@@ -42,10 +42,10 @@ export async function createBenchUnit(holderEmail = "inspector@vellmoor.example"
   );
   await db().query(`INSERT INTO rubric_versions (workspace_id, part_type_id, version, status, rubric, created_by, published_by, published_at) VALUES ($1, $2, 1, 'published', $3, $4, $4, now())`, [ws, partType.id, JSON.stringify(RUBRIC), lead.id]);
   const supplier = await q<{ id: string }>("INSERT INTO suppliers (workspace_id, name, contact_email) VALUES ($1, $2, 'bench@supplier.example') RETURNING id", [ws, `E2E bench supplier ${t}`]);
-  const plan = { standard: "ISO 2859-1 single sampling", lotSize: 1, level: "II", severity: "normal", sampleSize: 1, hundredPercent: true, byDefectSeverity: {}, switchingReason: "e2e fixture" };
+  const plan = { standard: "ISO 2859-1 single sampling", lotSize: 2, level: "II", severity: "normal", sampleSize: 2, hundredPercent: true, byDefectSeverity: {}, switchingReason: "e2e fixture" };
   const lot = await q<{ id: string; created_at: Date }>(
     `INSERT INTO lots (workspace_id, supplier_id, part_type_id, purchase_ref, quantity, received_on, due_on, inspection_level, aql_major, aql_minor, inspection_severity, plan, created_by)
-     VALUES ($1, $2, $3, $4, 1, '2026-11-30', '2099-12-31', 'II', 1, 2.5, 'normal', $5, $6) RETURNING id, created_at`,
+     VALUES ($1, $2, $3, $4, 2, '2026-11-30', '2099-12-31', 'II', 1, 2.5, 'normal', $5, $6) RETURNING id, created_at`,
     [ws, supplier.id, partType.id, `PO-E2E-BENCH-${t}`, JSON.stringify(plan), lead.id],
   );
   const serial = `BEN-${t.toUpperCase()}`;
@@ -54,15 +54,28 @@ export async function createBenchUnit(holderEmail = "inspector@vellmoor.example"
      VALUES ($1, $2, 1, $3, 'on_bench', $4, $5, '2099-12-31', '2026-11-30', $6, $7, now() + interval '20 minutes', now()) RETURNING id`,
     [ws, lot.id, serial, partType.id, supplier.id, lot.created_at, holder.id],
   );
-  return { unitId: unit.id, serial, partTypeId: partType.id };
+  // A second sampled unit of the same lot, still waiting in the queue (for Take next in this lot).
+  const sibling = queuedSibling
+    ? await q<{ id: string }>(
+        `INSERT INTO units (workspace_id, lot_id, sample_index, serial, status, part_type_id, supplier_id, lot_due_on, lot_received_on, lot_created_at)
+         VALUES ($1, $2, 2, $3, 'queued', $4, $5, '2099-12-31', '2026-11-30', $6) RETURNING id`,
+        [ws, lot.id, `${serial}-2`, partType.id, supplier.id, lot.created_at],
+      )
+    : null;
+  return { unitId: unit.id, serial, partTypeId: partType.id, siblingId: sibling?.id ?? null };
 }
 
-/** A plain photo of a dark part on a light card: `width` × `height`, the part in the middle half. */
+/** A plain photo of a dark part on a light card: `width` × `height`, the part in the middle half; never the same bytes twice. */
 export async function partPhoto(width: number, height: number): Promise<Buffer> {
   const shade = 30 + crypto.randomInt(40);
+  // A small tag of random colour in the card's corner, so two photos of one unit are never one file.
+  const tag = await sharp({ create: { width: 16, height: 16, channels: 3, background: { r: crypto.randomInt(256), g: crypto.randomInt(256), b: crypto.randomInt(256) } } }).png().toBuffer();
   const part = await sharp({ create: { width: width / 2, height: height / 2, channels: 3, background: { r: shade, g: shade + 4, b: shade + 8 } } }).png().toBuffer();
   return sharp({ create: { width, height, channels: 3, background: { r: 224, g: 221, b: 214 } } })
-    .composite([{ input: part, left: width / 4, top: height / 4 }])
+    .composite([
+      { input: part, left: width / 4, top: height / 4 },
+      { input: tag, left: 8, top: 8 },
+    ])
     .jpeg({ quality: 88 })
     .toBuffer();
 }

@@ -5,6 +5,9 @@ import { signInAs } from "./support";
 test.describe.configure({ mode: "serial" });
 
 async function signOut(page: Page) {
+  // On the Bench (a workspace screen) the navigation, Sign out with it, sits behind the menu.
+  const menu = page.getByRole("button", { name: "Menu" });
+  if (await menu.isVisible()) await menu.click();
   await page.getByRole("button", { name: "Sign out" }).first().click();
   await expect(page).toHaveURL(/\/sign-in/);
 }
@@ -19,8 +22,11 @@ test("a lead publishes rubric version 2; a unit graded under version 1 keeps its
   await page.getByRole("button", { name: "Measure now" }).click();
   await expect(page.getByTestId("proposed-grade")).toHaveText("C");
   await expect(page.getByTestId("proposal-lines")).toContainText("scratch covers 1.2 % of lens window > 1.0 % allowed for B → C");
-  // An override without a reason is refused in the form.
+  // An override without a final grade names only the grades the form offers (not the proposed C).
   await page.getByLabel("Override").check();
+  await page.getByRole("button", { name: "Record grade" }).click();
+  await expect(page.getByText("Choose the final grade: A, B or Reject.")).toBeVisible();
+  // An override without a reason is refused in the form.
   await page.getByLabel("Final grade").selectOption("B");
   await page.getByRole("button", { name: "Record grade" }).click();
   await expect(page.getByText("An override needs a reason")).toBeVisible();

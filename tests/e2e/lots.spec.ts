@@ -91,10 +91,14 @@ test("a lead receives a lot and imports serials; an inspector's out-of-limit bat
   await expect(bench.getByTestId("suspect-reading")).toContainText("Set this cell aside as suspect. Open-circuit voltage 2.31 V is below 2.50 V.");
   await expect(bench.getByTestId("suspect-reading")).toContainText("do not charge it normally");
   await expect(bench.getByTestId("unit-status")).toContainText("on your bench");
-  // A swollen cell: critical, and the hazard warning appears.
-  await bench.getByTestId("checklist-item-swelling").getByRole("button", { name: "Fail" }).click();
+  // A swollen cell, failed by hand with a note: critical, and the hazard warning appears.
+  const swelling = bench.getByTestId("checklist-item-swelling");
+  await swelling.getByLabel("Note").fill("Bulge at the connector end, 1 mm");
+  await swelling.getByRole("button", { name: "Fail" }).click();
   await expect(bench.getByTestId("battery-hazard")).toContainText("isolate it in a fire-safe container");
-  await expect(bench.getByTestId("result-swelling")).toContainText("Adds a critical functional defect.");
+  await expect(bench.getByTestId("result-swelling")).toContainText("Failed (marked by the inspector). Adds a critical functional defect.");
+  await expect(bench.getByTestId("result-swelling")).not.toContainText("automatically");
+  await expect(bench.getByTestId("saved-note-swelling")).toHaveText("Note: Bulge at the connector end, 1 mm");
   await context.close();
 
   // Back on the lot page: the verdict follows Ac/Re (a major and a critical defective, Re 1 each).

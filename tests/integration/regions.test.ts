@@ -79,8 +79,9 @@ describe("reading and saving a photo's regions", () => {
 
   it("answers 409 with the current version and regions to a save from an old version, and stores nothing", async () => {
     const { path, photo } = await freshPhoto();
+    // Two tabs of the same inspector (the first save took the unit onto their bench).
     await api(inspector, "PUT", path, { baseVersion: 0, regions: ONE_OF_EACH });
-    const stale = await api<ConflictBody>(inspector2, "PUT", path, withRegion({ id: "other-1", defect: "dent", shape: { kind: "spot", x: 5, y: 5, radius: 2 } }));
+    const stale = await api<ConflictBody>(inspector, "PUT", path, withRegion({ id: "other-1", defect: "dent", shape: { kind: "spot", x: 5, y: 5, radius: 2 } }));
     expect(stale.status).toBe(409);
     expect(stale.body.error.code).toBe("conflict");
     expect(stale.body.error.message).toMatch(/changed elsewhere .*now version 1; this edit started from version 0\)\. Nothing was saved/);
@@ -90,7 +91,7 @@ describe("reading and saving a photo's regions", () => {
 
     // From the current version it goes through; unchanged regions keep the version that wrote them.
     const merged = { ...ONE_OF_EACH, regions: [...ONE_OF_EACH.regions, { id: "other-1", defect: "dent", shape: { kind: "spot" as const, x: 5, y: 5, radius: 2 } }] };
-    const next = await api<SetBody>(inspector2, "PUT", path, { baseVersion: 1, regions: merged });
+    const next = await api<SetBody>(inspector, "PUT", path, { baseVersion: 1, regions: merged });
     expect(next.status).toBe(200);
     expect(next.body.version).toBe(2);
     const rows = await db().select({ clientId: regions.clientId, v: regions.versionWritten }).from(regions).where(eq(regions.photoId, photo.id));
@@ -172,6 +173,25 @@ describe("who may save, and when", () => {
     // An expired lease no longer locks anyone out.
     await db().update(units).set({ leaseExpiresAt: new Date(Date.now() - 1000) }).where(eq(units.id, unit.id));
     expect((await api(inspector, "PUT", path, { ...body, baseVersion: 1 })).status).toBe(200);
+  });
+
+  it("takes a unit still waiting in the queue onto the saver's bench, as the checklist does", async () => {
+    // Issue 15: regions could be saved on a queued unit while the queue still offered it to others.
+    const { unit, path } = await freshPhoto();
+    await db().update(units).set({ status: "queued", leaseHolderId: null, leaseExpiresAt: null }).where(eq(units.id, unit.id));
+    const body = withRegion({ id: "a", defect: "scratch", shape: { kind: "spot", x: 30, y: 30, radius: 2 } });
+    const saved = await api<SetBody>(inspector, "PUT", path, body);
+    expect(saved.status, JSON.stringify(saved.body)).toBe(200);
+    const [after] = await db().select().from(units).where(eq(units.id, unit.id));
+    const me = await workspaceIdOf("inspector@vellmoor.example");
+    expect(after).toMatchObject({ status: "on_bench", leaseHolderId: me.userId });
+    expect(after.leaseExpiresAt!.getTime()).toBeGreaterThan(Date.now());
+    const [claimed] = await db().select().from(activityLog).where(and(eq(activityLog.subjectId, unit.id), eq(activityLog.action, "unit.claimed")));
+    expect(claimed.detail).toMatchObject({ via: "regions" });
+    // It is now the saver's: someone else is refused, and the queue no longer offers it.
+    const refused = await api<ErrorBody>(inspector2, "PUT", path, { ...body, baseVersion: 1 });
+    expect(refused.status).toBe(409);
+    expect(refused.body.error.message).toMatch(/has this unit on their bench/);
   });
 
   it("refuses graded units, decided lots and photos still processing", async () => {

@@ -80,13 +80,19 @@ export const ROUTES: RouteAccess[] = [
   // The fixture photo is ready: evidence is not dismissed, nothing to retry (both 409 for anyone allowed).
   { method: "DELETE", path: "/api/photos/:photoId", access: ["inspector"], allowedStatus: 409 },
   { method: "POST", path: "/api/photos/:photoId/retry", access: ["inspector"], allowedStatus: 409 },
+  // Filing the fixture photo under its own view again changes nothing, but it is work on the unit: the
+  // first allowed caller takes the waiting unit onto their bench (200), later ones meet that lease (409).
+  { method: "PATCH", path: "/api/photos/:photoId", access: ["inspector"], body: () => ({ viewKey: "front" }), allowedStatus: [200, 409] },
+  // A photo with saved regions on a unit the lead holds (tests/support/photo-access.ts): the lead withdraws
+  // it (200, kept as a record); anyone else meets the lead's lease, or the photo already withdrawn (409).
+  { method: "POST", path: "/api/photos/:removalPhotoId/removal", access: ["inspector"], body: () => ({ reason: "Route check: another unit's photo" }), allowedStatus: [200, 409] },
   { method: "GET", path: "/api/photos/:photoId/thumbnail", access: "signed-in", allowedStatus: 200 },
   { method: "GET", path: "/api/photos/:photoId/preview", access: "signed-in", allowedStatus: 200 },
   // A one-minute presigned GET of the untouched original.
   { method: "GET", path: "/api/photos/:photoId/original", access: "signed-in", allowedStatus: 302 },
   // Regions and suggestions on the Bench (tests/support/region-access.ts: a ready photo on a unit nobody holds).
   { method: "GET", path: "/api/photos/:regionPhotoId/regions", access: inspectionWork, allowedStatus: 200 },
-  // Every allowed caller sends version 0: the first one saves (200), the later ones meet its save (409 with the current set).
+  // Every allowed caller sends version 0: the first one saves (200) and takes the unit onto their bench; the later ones meet that lease or its save (409).
   { method: "PUT", path: "/api/photos/:regionPhotoId/regions", access: ["inspector"], body: () => ({ baseVersion: 0, regions: { regions: [{ id: "route-1", defect: "scratch", shape: { kind: "rect", x: 10, y: 10, width: 20, height: 10 } }], surfaces: [], ruler: null } }), allowedStatus: [200, 409] },
   { method: "POST", path: "/api/photos/:regionPhotoId/suggestions", access: ["inspector"], body: () => ({ kind: "surface" }), allowedStatus: 200 },
   // Part types, lots, units and checklists (tests/support/lot-access.ts).

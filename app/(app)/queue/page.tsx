@@ -1,10 +1,8 @@
-import { asc, and, eq } from "drizzle-orm";
 import type { Metadata } from "next";
 import { QueueBoard } from "@/components/queue/queue-board";
 import { EmptyState } from "@/components/ui/empty-state";
-import { db } from "@/db/client";
+import { listQueueFilterChoices } from "@/db/queries/queue";
 import { getSetupCounts } from "@/db/queries/workspaces";
-import { lots, partTypes, suppliers } from "@/db/schema";
 import { requirePageUser } from "@/lib/auth/require-user";
 import { hasAnyRole } from "@/lib/auth/roles";
 import { screenByHref } from "@/lib/nav";
@@ -16,16 +14,7 @@ export const metadata: Metadata = { title: screen.label };
 export default async function QueuePage() {
   const user = await requirePageUser({ role: screen.roles, from: screen.href });
   const ws = user.workspaceId;
-  const [counts, pts, sups, openLots] = await Promise.all([
-    getSetupCounts({ workspaceId: ws }),
-    db().select({ id: partTypes.id, name: partTypes.name }).from(partTypes).where(eq(partTypes.workspaceId, ws)).orderBy(asc(partTypes.name)),
-    db().select({ id: suppliers.id, name: suppliers.name }).from(suppliers).where(eq(suppliers.workspaceId, ws)).orderBy(asc(suppliers.name)),
-    db()
-      .select({ id: lots.id, purchaseRef: lots.purchaseRef, dueOn: lots.dueOn })
-      .from(lots)
-      .where(and(eq(lots.workspaceId, ws), eq(lots.status, "open")))
-      .orderBy(asc(lots.dueOn)),
-  ]);
+  const [counts, choices] = await Promise.all([getSetupCounts({ workspaceId: ws }), listQueueFilterChoices({ workspaceId: ws })]);
   return (
     <div className="max-w-6xl space-y-4">
       <div>
@@ -37,7 +26,7 @@ export default async function QueuePage() {
           Units arrive here when a QC lead receives a lot and creates its sample (from the supplier&apos;s serial list or as numbered placeholders).
         </EmptyState>
       )}
-      <QueueBoard options={{ partTypes: pts, suppliers: sups, lots: openLots.map((l) => ({ id: l.id, label: `${l.purchaseRef} (due ${l.dueOn})` })) }} />
+      <QueueBoard options={{ partTypes: choices.partTypes, suppliers: choices.suppliers, lots: choices.openLots.map((l) => ({ id: l.id, label: `${l.purchaseRef} (due ${l.dueOn})` })) }} />
     </div>
   );
 }

@@ -1,6 +1,6 @@
 /** Who may mark regions on the Bench right now (mirrors lib/regions/regions.ts). */
 import { describe, expect, it } from "vitest";
-import { annotateLock, otherHolder } from "@/components/bench/annotate-lock";
+import { annotateLock, benchNotice, otherHolder } from "@/components/bench/annotate-lock";
 import type { UnitView } from "@/components/bench/use-unit";
 
 const now = new Date("2026-12-02T10:00:00Z");
@@ -34,5 +34,22 @@ describe("annotate lock", () => {
     expect(annotateLock(view({ status: "graded" }), inspector, now)).toBe("This unit is graded; its regions are part of the record and can no longer change.");
     expect(annotateLock(view({}, { status: "decided" }), inspector, now)).toMatch(/lot is decided/);
     expect(annotateLock(view(), { ...inspector, canRecord: false }, now)).toMatch(/needs the inspector role/);
+  });
+});
+
+describe("the Bench's one read-only banner", () => {
+  it("says nothing when the unit is yours to change", () => {
+    expect(benchNotice(view(), inspector, now)).toBeNull();
+  });
+
+  it("names the holder once, and tells a lead what they may still do", () => {
+    const other = view({ leaseHolderId: "ines" });
+    expect(benchNotice(other, inspector, now)).toEqual({ tone: "held", text: annotateLock(other, inspector, now) });
+    expect(benchNotice(other, { ...inspector, isLead: true }, now)?.text).toMatch(/so it is read-only for you\. As a lead you may still correct checklist results\.$/);
+  });
+
+  it("tells closed units and view-only people apart", () => {
+    expect(benchNotice(view({ status: "graded" }), inspector, now)?.tone).toBe("closed");
+    expect(benchNotice(view(), { ...inspector, canRecord: false }, now)?.tone).toBe("view-only");
   });
 });

@@ -60,6 +60,14 @@ describe("measurement staleness", () => {
     expect(measurementStaleness(measured, { regionsVersions: { a: 2, b: 5 }, checklistStamp: null }).reasons).toEqual(["Checklist results changed since measuring."]);
   });
 
+  it("is stale when a photo was filed under another view (its zones change); measurements without views skip that check", () => {
+    const withViews = { ...measured, views: { a: "front", b: "back" } };
+    const now = { regionsVersions: { a: 2, b: 5 }, checklistStamp: measured.checklistStamp, views: { a: "back", b: "back" } };
+    expect(measurementStaleness(withViews, now, (id) => `Photo ${id.toUpperCase()}`).reasons).toEqual(["Photo A: filed under another view since measuring (front → back)."]);
+    expect(measurementStaleness(withViews, { ...now, views: { a: "front", b: "back" } }).stale).toBe(false);
+    expect(measurementStaleness(measured, now).stale).toBe(false); // measured before views were recorded
+  });
+
   it("normalises checklist stamps from Date and text", () => {
     expect(checklistStampOf(new Date("2026-12-01T10:00:00Z"))).toBe("2026-12-01T10:00:00.000Z");
     expect(checklistStampOf("2026-12-01 11:00:00+01")).toBe("2026-12-01T10:00:00.000Z");

@@ -18,9 +18,20 @@ describe("object keys", () => {
     }
   });
 
+  it("put a gallery upload (no unit) under gallery/ and parse it back with a null unit", () => {
+    const gallery = { ...owner, unitId: null };
+    expect(stagingKey(gallery)).toBe(`uploads/${owner.workspaceId}/gallery/${owner.photoId}`);
+    expect(originalKey(gallery)).toBe(`photos/${owner.workspaceId}/gallery/${owner.photoId}/original`);
+    expect(parsePhotoKey(originalKey(gallery))).toEqual({ ...gallery, kind: "original" });
+    expect(parsePhotoKey(thumbnailKey(gallery))).toEqual({ ...gallery, kind: "thumbnail" });
+    expect(parsePhotoKey(stagingKey(gallery))).toEqual({ ...gallery, kind: "staging" });
+    expect(parsePhotoKey(`photos/${owner.workspaceId}/Gallery/${owner.photoId}/original`)).toBeNull();
+  });
+
   it("refuse anything but lower-case UUIDs, so no text a person typed can reach a key", () => {
     expect(() => originalKey({ ...owner, photoId: "../../etc/passwd" })).toThrow(/UUID/);
     expect(() => stagingKey({ ...owner, unitId: owner.unitId.toUpperCase() })).toThrow(/UUID/);
+    expect(() => stagingKey({ ...owner, unitId: "gallery" })).toThrow(/UUID/);
   });
 
   it("do not recognise keys this app never writes", () => {

@@ -9,12 +9,13 @@ import { listUnitPhotos } from "@/lib/photos/queries";
 import { finaliseQuerySchema, finaliseSchema } from "@/lib/photos/schemas";
 import { parseId } from "@/lib/validation";
 
-/** The unit's photos with their status and uploader (inspection work: not for auditors). */
+/** The unit's photos with their status and uploader, and apart from them those taken out of it (inspection work: not for auditors). */
 export const GET = handler(async (_req, ctx: RouteContext<"/api/units/[id]/photos">) => {
   const user = await requireUser({ role: INSPECTION_READERS });
   const unit = await loadUnit(user, parseId((await ctx.params).id, "That unit"));
-  const photos = await listUnitPhotos({ workspaceId: user.workspaceId, unitId: unit.id });
-  return Response.json({ unit: { id: unit.id, status: unit.status, views: unit.partType.views }, photos: photos.map(toPhotoDto) });
+  const key = { workspaceId: user.workspaceId, unitId: unit.id };
+  const [photos, removed] = await Promise.all([listUnitPhotos(key), listUnitPhotos({ ...key, removed: true })]);
+  return Response.json({ unit: { id: unit.id, status: unit.status, views: unit.partType.views }, photos: photos.map(toPhotoDto), removed: removed.map(toPhotoDto) });
 });
 
 /**

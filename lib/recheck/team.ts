@@ -1,0 +1,47 @@
+/**
+ * The team's agreement beyond two raters: Krippendorff's alpha (ordinal metric, on the A < B < C <
+ * Reject order) and Gwet's AC1 over the units of a period that more than one person graded —
+ * first grade, recheck, adjudication, calibration keys and attempts alike. Both stay meaningful
+ * when nearly every unit gets the same grade, where kappa collapses (docs/references.md,
+ * "Agreement between graders").
+ *
+ * Input: per unit, the grades it was given, one per person (the caller keeps each person's last
+ * grade of the unit). Units with fewer than `minGrades` grades (default 2) are left out of both
+ * coefficients (alpha ignores single grades by construction; AC1 would count them in its chance
+ * term, and leaving them out keeps the two figures over the same units). Pass `minGrades: 3` for
+ * the figure over units graded by more than two people only. Raters need not be the same people
+ * from unit to unit: alpha and AC1 only compare the grades within each unit.
+ *
+ * Caution for readers of the figure: an adjudication is made after seeing both earlier grades,
+ * so it is not independent of them and raises agreement a little; the screen should say which
+ * kinds of grade went in.
+ */
+import { gwetAc1Units, krippendorffAlpha } from "@/lib/agreement";
+import { GRADES, type Grade } from "@/lib/grading/rubric-schema";
+
+export type MultiRaterFigures = {
+  /** Units with at least `minGrades` grades (the ones both coefficients are over). */
+  units: number;
+  /** Of those, units graded by more than two people. */
+  unitsWithMoreThanTwo: number;
+  grades: number;
+  alphaOrdinal: number;
+  ac1: number;
+};
+
+export function multiRaterAgreement(units: readonly (readonly Grade[])[], options: { minGrades?: number } = {}): MultiRaterFigures {
+  const minGrades = options.minGrades ?? 2;
+  if (!Number.isInteger(minGrades) || minGrades < 2) throw new RangeError(`Agreement needs units with at least two grades; minGrades was ${minGrades}.`);
+  const rated = units.filter((unit) => unit.length >= minGrades);
+  const slots = rated.reduce((most, unit) => Math.max(most, unit.length), 0);
+  // Krippendorff's data layout: one row per "rating slot", one entry per unit, null where a unit
+  // has fewer grades; alpha depends only on the grades within each unit, not on who is in a row.
+  const rows = Array.from({ length: slots }, (_, slot) => rated.map((unit) => unit[slot] ?? null));
+  return {
+    units: rated.length,
+    unitsWithMoreThanTwo: rated.filter((unit) => unit.length > 2).length,
+    grades: rated.reduce((total, unit) => total + unit.length, 0),
+    alphaOrdinal: rated.length === 0 ? Number.NaN : krippendorffAlpha(rows, { metric: "ordinal", categories: GRADES }),
+    ac1: gwetAc1Units(rated, { categories: GRADES }),
+  };
+}
