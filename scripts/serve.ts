@@ -33,8 +33,24 @@ await app.prepare();
 const handle = app.getRequestHandler();
 const upgrade = app.getUpgradeHandler();
 
+/**
+ * A route may answer before it has read the whole request body (413 while an oversized body is
+ * still arriving, lib/http/route.ts). The rest of that body is still on its way over the
+ * connection, so it cannot carry another request: the answer then says `Connection: close` and
+ * the connection ends after it (RFC 9112, 9.6). Without this a client that reused the connection
+ * hung on its next request.
+ */
+function closeIfBodyUnread(req: http.IncomingMessage, res: http.ServerResponse) {
+  const writeHead = res.writeHead;
+  res.writeHead = function (this: http.ServerResponse, ...args: Parameters<typeof writeHead>) {
+    if (!req.complete && !this.headersSent) this.setHeader("Connection", "close");
+    return writeHead.apply(this, args);
+  } as typeof writeHead;
+}
+
 const server = http.createServer((req, res) => {
   normaliseForwarding(req);
+  closeIfBodyUnread(req, res);
   void handle(req, res);
 });
 server.on("upgrade", (req, socket, head) => {

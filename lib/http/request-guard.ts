@@ -1,5 +1,5 @@
 /**
- * Cross-site write protection for the JSON API (pure; proxy.ts applies it to every /api request).
+ * Cross-site write protection for the JSON API (pure; lib/http/api-guard.ts applies it to every /api request).
  *
  * A browser attaches the session cookie to any request to the app, including one a foreign page
  * starts. Every write must therefore come from the app's own pages: the Origin header (sent by

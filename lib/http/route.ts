@@ -3,6 +3,7 @@ import type { z } from "zod";
 import { isDatabaseUnavailable } from "@/db/errors";
 import { AppError } from "@/lib/errors";
 import { parseWith } from "@/lib/validation";
+import { guardedRoute } from "./api-guard";
 
 export const DATABASE_UNAVAILABLE_MESSAGE = "The database did not answer in time, so nothing was changed. Try again in a moment; your work on this page is kept.";
 
@@ -26,15 +27,15 @@ export function errorResponse(err: unknown): Response {
   return Response.json(body, { status: 500 });
 }
 
-/** Wraps a route handler so every failure becomes a JSON error with the right status. */
+/** Wraps a route handler: cross-site writes refused first (lib/http/api-guard.ts), then every failure becomes a JSON error with the right status. */
 export function handler<C>(fn: (req: Request, ctx: C) => Promise<Response>) {
-  return async (req: Request, ctx: C): Promise<Response> => {
+  return guardedRoute(async (req: Request, ctx: C): Promise<Response> => {
     try {
       return await fn(req, ctx);
     } catch (err) {
       return errorResponse(err);
     }
-  };
+  });
 }
 
 const DEFAULT_MAX_BODY = 1024 * 1024;

@@ -61,7 +61,9 @@ describe("sign-in limit", () => {
     // are answered "try again in a moment" and check no password either.
     const busy = results.filter((r) => /did not answer in time/.test(r.error ?? "")).length;
     console.log(`200 parallel guesses: ${checked} passwords checked, ${refused} refused by the limit, ${busy} answered "busy"`);
-    expect(checked).toBe(5);
+    // Never more than 5 checked; exactly 5 unless some counted attempt then met the full pool.
+    expect(checked).toBeLessThanOrEqual(5);
+    if (busy === 0) expect(checked).toBe(5);
     expect(checked + refused + busy).toBe(200);
     expect(results.some((r) => r.signedIn)).toBe(false);
     // Refused attempts are not counted, so hammering does not extend the lock.

@@ -110,7 +110,11 @@ async function uploadAndFinalise(bytes: Buffer, declared = bytes.length): Promis
   return finalise(inspector, own.photoUnitId, intent.body.ticket);
 }
 
-/** A chunked body (no Content-Length) of `bytes` bytes, streamed. */
+/**
+ * A chunked body (no Content-Length) of `bytes` bytes, streamed. Answered before the body is all
+ * read, the connection must close (scripts/serve.ts): the rest of the body is still on it, and
+ * the next request over it (the case after this one) used to hang.
+ */
 async function chunked(session: Session, path: string, bytes: number): Promise<ApiResult> {
   const chunk = new TextEncoder().encode(`{"name":"${"x".repeat(64 * 1024 - 20)}`);
   let sent = 0;
@@ -122,6 +126,7 @@ async function chunked(session: Session, path: string, bytes: number): Promise<A
     },
   });
   const res = await fetch(`${BASE_URL}${path}`, { method: "POST", headers: { ...json, cookie: session.cookie, "x-forwarded-for": FILE_CLIENT_ADDRESS }, body: stream, duplex: "half" } as RequestInit);
+  expect(res.headers.get("connection")).toBe("close");
   return { status: res.status, body: await res.json().catch(() => null), headers: res.headers };
 }
 

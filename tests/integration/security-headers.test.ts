@@ -27,6 +27,8 @@ describe("security headers", () => {
       "a 404": await api(lead, "GET", "/api/photos/not-a-photo"),
       "a cross-site refusal": await api(lead, "POST", "/api/suppliers", { name: "Header Check" }, { origin: "https://elsewhere.example" }),
       "the health check": await api(null, "GET", "/api/health"),
+      "next-auth's own answer": await api(null, "GET", "/api/auth/csrf"),
+      "a path no route answers": await api(lead, "GET", "/api/no-such-route"),
     };
     for (const [what, res] of Object.entries(answers)) {
       expectCommonHeaders(res.headers, what);
