@@ -3,8 +3,8 @@ import Link from "next/link";
 import { BatteryCaution, GradeScopeNote, StaticCaution } from "@/components/ui/cautions";
 import { EmptyState } from "@/components/ui/empty-state";
 import { getSetupCounts } from "@/db/queries/workspaces";
+import { can } from "@/lib/auth/permissions";
 import { requirePageUser } from "@/lib/auth/require-user";
-import { hasAnyRole } from "@/lib/auth/roles";
 import { localInboxDir } from "@/lib/env";
 import { screensFor } from "@/lib/nav";
 import { setupSteps } from "@/lib/workspace/setup";
@@ -14,7 +14,7 @@ export const metadata: Metadata = { title: "Home" };
 export default async function HomePage() {
   const user = await requirePageUser({ from: "/" });
   const screens = screensFor(user.roles, { outbox: Boolean(localInboxDir()) });
-  const steps = hasAnyRole(user.roles, "lead") ? setupSteps(await getSetupCounts({ workspaceId: user.workspaceId })) : [];
+  const steps = can(user, "workspace.manage") ? setupSteps(await getSetupCounts({ workspaceId: user.workspaceId })) : [];
   return (
     <div className="max-w-5xl space-y-6">
       <div>

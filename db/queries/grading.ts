@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, desc, eq, inArray, isNull, max } from "drizzle-orm";
+import { and, asc, desc, eq, inArray, isNull, max, sql } from "drizzle-orm";
 import { db, type DbOrTx } from "@/db/client";
 import { checklistResults, grades, measurements, partTypes, photos, regions, regionSets, rubricVersions, units, users, type NewGradeRow } from "@/db/schema";
 import type { StoredPhotoResult, StoredUnitResult } from "@/lib/grading/stored-measurement";
@@ -195,3 +195,14 @@ export function listGrades({ workspaceId, unitId }: UnitKey, tx: DbOrTx = db()) 
     .orderBy(asc(grades.createdAt), asc(grades.id));
 }
 export type GradeHistoryRow = Awaited<ReturnType<typeof listGrades>>[number];
+
+/** Whether regions were saved on a photo and whether a measurement read it (the photo deletion gate's grading check). */
+export async function getPhotoEvidenceUse(tx: DbOrTx, { workspaceId, photoId }: { workspaceId: string; photoId: string }) {
+  const [row] = await tx
+    .select({
+      regions: sql<boolean>`EXISTS (SELECT 1 FROM ${regionSets} WHERE ${and(eq(regionSets.workspaceId, workspaceId), eq(regionSets.photoId, photoId))})`,
+      measured: sql<boolean>`EXISTS (SELECT 1 FROM ${measurements} WHERE ${and(eq(measurements.workspaceId, workspaceId), eq(measurements.photoId, photoId))})`,
+    })
+    .from(sql`(SELECT 1) AS one`);
+  return row;
+}

@@ -2,7 +2,7 @@ import "server-only";
 import { and, asc, desc, eq, ilike, inArray, isNotNull, sql, type SQL } from "drizzle-orm";
 import { db, type DbOrTx } from "@/db/client";
 import { checklistResults, grades, inspectionSchemes, lots, measurements, partTypes, rubricVersions, suppliers, units, users } from "@/db/schema";
-import type { DefectSeverity, Lot, NewLot, SampleDraw } from "@/db/schema/lots";
+import type { DefectSeverity, InspectionScheme, Lot, NewLot, SampleDraw } from "@/db/schema/lots";
 import type { Grade, Rule } from "@/lib/grading/rubric-schema";
 import type { LotListQuery } from "@/lib/lots/schemas";
 
@@ -161,4 +161,16 @@ export async function getScheme({ workspaceId, supplierId, partTypeId }: { works
     .where(and(eq(inspectionSchemes.workspaceId, workspaceId), eq(inspectionSchemes.supplierId, supplierId), eq(inspectionSchemes.partTypeId, partTypeId)))
     .limit(1);
   return row;
+}
+
+/** The lead's approvals for a supplier + part type, one row per pair. */
+export async function upsertScheme(
+  tx: DbOrTx,
+  pair: { workspaceId: string; supplierId: string; partTypeId: string },
+  values: Pick<InspectionScheme, "reducedAllowed" | "steadyProduction" | "resumedAfterLotIds" | "updatedBy" | "updatedAt">,
+) {
+  await tx
+    .insert(inspectionSchemes)
+    .values({ ...pair, ...values })
+    .onConflictDoUpdate({ target: [inspectionSchemes.workspaceId, inspectionSchemes.supplierId, inspectionSchemes.partTypeId], set: values });
 }

@@ -6,7 +6,8 @@ import { getSessionUser } from "@/db/queries/users";
 import { env } from "@/lib/env";
 import { AppError } from "@/lib/errors";
 import { servedOverHttps, sessionCookieName } from "./cookies";
-import { hasAnyRole, ROLE_LABELS, type Role } from "./roles";
+import { can, describeHolders, type Permission } from "./permissions";
+import type { Role } from "./roles";
 import { decodeSessionToken } from "./session-token";
 
 export type SessionUser = {
@@ -62,27 +63,23 @@ async function sessionClaims() {
   return decodeSessionToken(chunks.join(""), process.env.NEXTAUTH_SECRET ?? "");
 }
 
-function describeRoles(role: Role | readonly Role[]): string {
-  const list = typeof role === "string" ? [role] : role;
-  return list.map((r) => ROLE_LABELS[r]).join(" or ");
-}
-
 /**
- * The one authorisation check. Every route handler, server action and protected page calls it.
- * Throws AppError 401 without a valid session and 403 when the user lacks every wanted role
- * (leads hold every permission).
+ * The one authorisation check. Every route handler (through `handler({ permission })` in
+ * lib/http/route.ts) and protected page calls it. Throws AppError 401 without a valid session and
+ * 403 when none of the user's roles holds the permission (lib/auth/permissions.ts; leads hold
+ * every one). Without a permission, any signed-in user passes (the app's layout).
  */
-export async function requireUser(opts: { role?: Role | readonly Role[] } = {}): Promise<SessionUser> {
+export async function requireUser(opts: { permission?: Permission } = {}): Promise<SessionUser> {
   const user = await loadSessionUser();
   if (!user) throw new AppError("unauthorized", "You are not signed in, or your session has ended. Sign in to continue.");
-  if (!hasAnyRole(user.roles, opts.role)) {
-    throw new AppError("forbidden", `This needs the ${describeRoles(opts.role!)} role, which your account does not have.`);
+  if (opts.permission && !can(user, opts.permission)) {
+    throw new AppError("forbidden", `This needs the ${describeHolders(opts.permission)} role, which your account does not have.`);
   }
   return user;
 }
 
 /** For pages: like requireUser, but sends a visitor without a session to sign in. */
-export async function requirePageUser(opts: { role?: Role | readonly Role[]; from?: string } = {}): Promise<SessionUser> {
+export async function requirePageUser(opts: { permission?: Permission; from?: string } = {}): Promise<SessionUser> {
   try {
     return await requireUser(opts);
   } catch (err) {

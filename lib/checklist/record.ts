@@ -3,8 +3,8 @@ import { transaction } from "@/db/client";
 import { logActivity } from "@/db/queries/activity";
 import { upsertChecklistResult } from "@/db/queries/checklist";
 import { getUnitDetail, lockUnit } from "@/db/queries/units";
+import { can } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/require-user";
-import { hasAnyRole } from "@/lib/auth/roles";
 import { AppError, notFound } from "@/lib/errors";
 import { claimForWork, workClaimsUnit } from "@/lib/queue/claim-for-work";
 import { assertNotLeasedByOther } from "@/lib/queue/queue";
@@ -33,11 +33,11 @@ export async function recordChecklistResult(actor: SessionUser, unitId: string, 
     if (!item) throw new AppError("bad_request", `“${input.itemId}” is not an item of the ${detail.partType.name} checklist.`, { fieldErrors: { itemId: "Unknown checklist item." } });
     const evaluation = evaluateChecklistItem(item, input.value);
 
-    const isLead = hasAnyRole(actor.roles, "lead");
-    if (!isLead) assertNotLeasedByOther(unit, actor);
+    const managesLeases = can(actor, "leases.manage");
+    if (!managesLeases) assertNotLeasedByOther(unit, actor);
     // Queued, or on a bench whose lease ran out: the recorder takes it. A lead correcting a
     // result leaves a bench whose lease ran out alone.
-    if (unit.status === "queued" || (!isLead && workClaimsUnit(unit))) await claimForWork(tx, actor, unit, "checklist");
+    if (unit.status === "queued" || (!managesLeases && workClaimsUnit(unit))) await claimForWork(tx, actor, unit, "checklist");
 
     const values = {
       value: evaluation.value,

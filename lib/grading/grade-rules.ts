@@ -10,7 +10,8 @@
  * - A repeated submission (same idempotency key) is answered with the row it made, never a second
  *   row; the same key with a different decision is refused (see `replayOf`).
  */
-import { hasAnyRole, type Role } from "@/lib/auth/roles";
+import { can, describeHolders } from "@/lib/auth/permissions";
+import type { Role } from "@/lib/auth/roles";
 import { AppError } from "@/lib/errors";
 import { DEFAULT_TIME_ZONE, formatDateTime } from "@/lib/time/format";
 
@@ -26,8 +27,8 @@ const describe = (g: CurrentGrade, timeZone: string) => `${g.finalGrade}, record
 /** Throws the AppError that refuses this submission, or returns when it may be recorded. */
 export function assertMayRecord(submission: GradeSubmission, current: CurrentGrade | null, roles: readonly Role[], timeZone = DEFAULT_TIME_ZONE): void {
   const { kind, reason, expectedCurrentGradeId } = submission;
-  if (kind === "override" && !hasAnyRole(roles, "lead")) {
-    throw new AppError("forbidden", "Overriding a recorded grade needs the QC lead role, which your account does not have.");
+  if (kind === "override" && !can({ roles }, "grades.override")) {
+    throw new AppError("forbidden", `Overriding a recorded grade needs the ${describeHolders("grades.override")} role, which your account does not have.`);
   }
   if (kind === "override" && !reason) {
     throw new AppError("bad_request", "An override of a recorded grade needs a reason.", { fieldErrors: { reason: "An override of a recorded grade needs a reason." } });

@@ -1,5 +1,5 @@
 import "server-only";
-import { db } from "@/db/client";
+import { transaction } from "@/db/client";
 import { isUniqueViolation } from "@/db/errors";
 import { logActivity } from "@/db/queries/activity";
 import {
@@ -56,7 +56,7 @@ export async function getDraftOrThrow(actor: Actor, partTypeId: string) {
 export async function openDraft(actor: Actor, partTypeId: string): Promise<{ created: boolean; version: number }> {
   const partType = await requirePartType(actor, partTypeId);
   try {
-    return await db().transaction(async (tx) => {
+    return await transaction(async (tx) => {
       await lockPartType(tx, { workspaceId: actor.workspaceId, partTypeId });
       const versions = await listRubricVersions({ workspaceId: actor.workspaceId, partTypeId }, tx);
       const plan = planDraft(versions);
@@ -86,7 +86,7 @@ function assertDraftUnchanged(draft: { version: number; revision: number; update
 export async function saveDraft(actor: Actor, partTypeId: string, input: unknown, seen: DraftSeen) {
   const partType = await requirePartType(actor, partTypeId);
   const rubric = rubricOrThrow(input, gradingContextOf(partType).lists);
-  return db().transaction(async (tx) => {
+  return transaction(async (tx) => {
     await lockPartType(tx, { workspaceId: actor.workspaceId, partTypeId });
     const draft = await getDraft({ workspaceId: actor.workspaceId, partTypeId }, tx);
     if (!draft) throw new AppError("conflict", `${partType.name} has no draft to save into: it was published or never opened. Open a new draft.`);
@@ -101,7 +101,7 @@ export async function saveDraft(actor: Actor, partTypeId: string, input: unknown
 /** Publishes the draft the lead saw (leads only, checked by the route); the row is frozen from then on. */
 export async function publishDraft(actor: Actor, partTypeId: string, seen: DraftSeen) {
   const partType = await requirePartType(actor, partTypeId);
-  return db().transaction(async (tx) => {
+  return transaction(async (tx) => {
     await lockPartType(tx, { workspaceId: actor.workspaceId, partTypeId });
     const draft = await getDraft({ workspaceId: actor.workspaceId, partTypeId }, tx);
     if (!draft) throw new AppError("conflict", `${partType.name} has no draft to publish. Open a draft, edit it, then publish.`);

@@ -1,6 +1,8 @@
 import "server-only";
 import type { z } from "zod";
 import { isDatabaseUnavailable } from "@/db/errors";
+import type { Permission } from "@/lib/auth/permissions";
+import { requireUser, type SessionUser } from "@/lib/auth/require-user";
 import { AppError } from "@/lib/errors";
 import { parseWith } from "@/lib/validation";
 import { guardedRoute } from "./api-guard";
@@ -27,11 +29,26 @@ export function errorResponse(err: unknown): Response {
   return Response.json(body, { status: 500 });
 }
 
-/** Wraps a route handler: cross-site writes refused first (lib/http/api-guard.ts), then every failure becomes a JSON error with the right status. */
-export function handler<C>(fn: (req: Request, ctx: C) => Promise<Response>) {
+/**
+ * Who may call a route: a permission from lib/auth/permissions.ts, or `public: true` for the few
+ * routes anyone may call (sign-up, password links, health). Every route names one; the route
+ * access matrix test (tests/integration/api-access.test.ts) checks the source against its table.
+ */
+export type RouteAccess = { permission: Permission } | { public: true };
+
+/**
+ * Wraps a route handler: refuses cross-site writes and non-JSON bodies first (lib/http/api-guard.ts),
+ * checks the session and the permission (401 / 403), hands the user to `fn`, and turns every
+ * failure into a JSON error with the right status.
+ */
+export function handler<C>(access: { permission: Permission }, fn: (req: Request, ctx: C, user: SessionUser) => Promise<Response>): (req: Request, ctx: C) => Promise<Response>;
+export function handler<C>(access: { public: true }, fn: (req: Request, ctx: C) => Promise<Response>): (req: Request, ctx: C) => Promise<Response>;
+export function handler<C>(access: RouteAccess, fn: (req: Request, ctx: C, user: SessionUser) => Promise<Response>) {
   return guardedRoute(async (req: Request, ctx: C): Promise<Response> => {
     try {
-      return await fn(req, ctx);
+      if ("public" in access) return await (fn as (req: Request, ctx: C) => Promise<Response>)(req, ctx);
+      const user = await requireUser({ permission: access.permission });
+      return await fn(req, ctx, user);
     } catch (err) {
       return errorResponse(err);
     }

@@ -1,5 +1,5 @@
 import "server-only";
-import { db, type DbOrTx } from "@/db/client";
+import type { DbOrTx } from "@/db/client";
 import { loadLotEvidence } from "@/db/queries/lots";
 import type { StoredSamplingPlan } from "@/db/schema/lots";
 import type { Rule } from "@/lib/grading/rubric-schema";
@@ -19,7 +19,7 @@ export type LotProgress = {
 };
 
 /** Running verdicts of several lots from their units, checklist results and current grades. */
-export async function lotProgress(workspaceId: string, lotList: readonly LotForProgress[], tx: DbOrTx = db()): Promise<Map<string, LotProgress>> {
+export async function lotProgress(workspaceId: string, lotList: readonly LotForProgress[], tx?: DbOrTx): Promise<Map<string, LotProgress>> {
   const evidence = await loadLotEvidence({ workspaceId, lotIds: lotList.map((l) => l.id) }, tx);
   const gradeByUnit = new Map(evidence.grades.map((g) => [g.unitId, g]));
   const progress = new Map<string, LotProgress>();
@@ -45,7 +45,7 @@ export async function lotProgress(workspaceId: string, lotList: readonly LotForP
   return progress;
 }
 
-export async function oneLotProgress(workspaceId: string, lot: LotForProgress, tx: DbOrTx = db()): Promise<LotProgress> {
+export async function oneLotProgress(workspaceId: string, lot: LotForProgress, tx?: DbOrTx): Promise<LotProgress> {
   return (await lotProgress(workspaceId, [lot], tx)).get(lot.id)!;
 }
 

@@ -1,10 +1,9 @@
 import "server-only";
-import { db, type DbOrTx } from "@/db/client";
+import { transaction, type DbOrTx } from "@/db/client";
 import { logActivity } from "@/db/queries/activity";
-import { getScheme, listDecidedLots } from "@/db/queries/lots";
+import { getScheme, listDecidedLots, upsertScheme } from "@/db/queries/lots";
 import { getPartType } from "@/db/queries/part-types";
 import { getSupplier } from "@/db/queries/suppliers";
-import { inspectionSchemes } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/require-user";
 import { AppError, notFound } from "@/lib/errors";
 import { nextInspectionState, type SwitchingState } from "@/lib/sampling/switching";
@@ -17,7 +16,7 @@ export const DEFAULT_SCHEME: SchemeSettings = { reducedAllowed: false, steadyPro
 type Pair = { workspaceId: string; supplierId: string; partTypeId: string };
 
 /** Both must exist in the workspace; another workspace's ids answer exactly like missing ones. */
-export async function assertPair(pair: Pair, tx: DbOrTx = db()) {
+export async function assertPair(pair: Pair, tx?: DbOrTx) {
   const supplier = await getSupplier({ workspaceId: pair.workspaceId, supplierId: pair.supplierId }, tx);
   if (!supplier) throw notFound("That supplier");
   const partType = await getPartType({ workspaceId: pair.workspaceId, partTypeId: pair.partTypeId }, tx);
@@ -26,7 +25,7 @@ export async function assertPair(pair: Pair, tx: DbOrTx = db()) {
 }
 
 /** Where the switching rules stand for the next lot of a supplier + part type, and why. */
-export async function switchingStateFor(pair: Pair, tx: DbOrTx = db()): Promise<{ state: SwitchingState; settings: SchemeSettings; decidedLots: number }> {
+export async function switchingStateFor(pair: Pair, tx?: DbOrTx): Promise<{ state: SwitchingState; settings: SchemeSettings; decidedLots: number }> {
   const [decided, scheme] = await Promise.all([listDecidedLots(pair, tx), getScheme(pair, tx)]);
   const settings: SchemeSettings = scheme ? { reducedAllowed: scheme.reducedAllowed, steadyProduction: scheme.steadyProduction, resumedAfterLotIds: scheme.resumedAfterLotIds } : DEFAULT_SCHEME;
   return { state: nextInspectionState(switchingInputFor(decided, settings)), settings, decidedLots: decided.length };
@@ -35,7 +34,7 @@ export async function switchingStateFor(pair: Pair, tx: DbOrTx = db()): Promise<
 /** The lead's approvals: reduced inspection allowed, production steady, corrective action recorded. */
 export async function updateScheme(actor: SessionUser, input: SchemeUpdateInput) {
   const pair = { workspaceId: actor.workspaceId, supplierId: input.supplierId, partTypeId: input.partTypeId };
-  return db().transaction(async (tx) => {
+  return transaction(async (tx) => {
     await assertPair(pair, tx);
     const current = await switchingStateFor(pair, tx);
     const settings = { ...current.settings };
@@ -47,10 +46,7 @@ export async function updateScheme(actor: SessionUser, input: SchemeUpdateInput)
       settings.resumedAfterLotIds = [...settings.resumedAfterLotIds, decided[decided.length - 1].id];
     }
     const values = { ...settings, updatedBy: actor.id, updatedAt: new Date() };
-    await tx
-      .insert(inspectionSchemes)
-      .values({ ...pair, ...values })
-      .onConflictDoUpdate({ target: [inspectionSchemes.workspaceId, inspectionSchemes.supplierId, inspectionSchemes.partTypeId], set: values });
+    await upsertScheme(tx, pair, values);
     await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.id, action: "inspection_scheme.updated", subjectType: "supplier", subjectId: input.supplierId, detail: { partTypeId: input.partTypeId, ...settings } });
     return switchingStateFor(pair, tx);
   });

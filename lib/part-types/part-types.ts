@@ -1,9 +1,8 @@
 import "server-only";
-import { and, eq } from "drizzle-orm";
-import { db } from "@/db/client";
+import { transaction } from "@/db/client";
 import { isUniqueViolation } from "@/db/errors";
 import { logActivity } from "@/db/queries/activity";
-import { partTypes } from "@/db/schema";
+import { insertPartType, updatePartTypeFields } from "@/db/queries/part-types";
 import { slugify } from "@/lib/accounts/slugify";
 import type { SessionUser } from "@/lib/auth/require-user";
 import { AppError, notFound } from "@/lib/errors";
@@ -19,11 +18,8 @@ export function partTypeSlug(name: string): string {
 
 export async function createPartType(actor: SessionUser, input: PartTypeInput) {
   try {
-    return await db().transaction(async (tx) => {
-      const [row] = await tx
-        .insert(partTypes)
-        .values({ ...input, workspaceId: actor.workspaceId, slug: partTypeSlug(input.name) })
-        .returning();
+    return await transaction(async (tx) => {
+      const row = await insertPartType(tx, { ...input, workspaceId: actor.workspaceId, slug: partTypeSlug(input.name) });
       await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.id, action: "part_type.created", subjectType: "part_type", subjectId: row.id, detail: { name: row.name } });
       return row;
     });
@@ -39,12 +35,8 @@ export async function createPartType(actor: SessionUser, input: PartTypeInput) {
  */
 export async function updatePartType(actor: SessionUser, partTypeId: string, input: PartTypeUpdateInput) {
   try {
-    return await db().transaction(async (tx) => {
-      const [row] = await tx
-        .update(partTypes)
-        .set({ ...input, updatedAt: new Date() })
-        .where(and(eq(partTypes.workspaceId, actor.workspaceId), eq(partTypes.id, partTypeId)))
-        .returning();
+    return await transaction(async (tx) => {
+      const row = await updatePartTypeFields(tx, { workspaceId: actor.workspaceId, partTypeId, fields: input });
       if (!row) throw notFound("That part type");
       await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.id, action: "part_type.updated", subjectType: "part_type", subjectId: row.id, detail: { fields: Object.keys(input) } });
       return row;

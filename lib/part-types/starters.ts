@@ -6,11 +6,10 @@ import "server-only";
  * lead reviews the thresholds against the company's contracts and publishes it. Starters whose
  * slug or name the workspace already has are skipped, so adding them twice adds nothing.
  */
-import { and, eq, inArray, or, sql } from "drizzle-orm";
 import type { DbOrTx } from "@/db/client";
 import { logActivity } from "@/db/queries/activity";
+import { insertPartType, listPartTypesNamed } from "@/db/queries/part-types";
 import { insertRubricVersion } from "@/db/queries/rubrics";
-import { partTypes } from "@/db/schema";
 import { EXAMPLE_RUBRICS } from "@/lib/grading/example-rubrics";
 import { gradingContextOf } from "@/lib/grading/part-type-context";
 import { parseRubric } from "@/lib/grading/rubric-schema";
@@ -25,19 +24,13 @@ export const STARTER_CHOICES = PART_TYPE_CATALOGUE.map((p) => ({ slug: p.slug, n
 export async function addStarterPartTypes(tx: DbOrTx, input: { workspaceId: string; actorId: string; slugs: readonly string[] }) {
   const wanted = PART_TYPE_CATALOGUE.filter((p) => input.slugs.includes(p.slug));
   if (wanted.length === 0) return [];
-  const existing = await tx
-    .select({ slug: partTypes.slug, name: partTypes.name })
-    .from(partTypes)
-    .where(and(eq(partTypes.workspaceId, input.workspaceId), or(inArray(partTypes.slug, wanted.map((p) => p.slug)), inArray(sql`lower(${partTypes.name})`, wanted.map((p) => p.name.toLowerCase())))));
+  const existing = await listPartTypesNamed(tx, { workspaceId: input.workspaceId, slugs: wanted.map((p) => p.slug), names: wanted.map((p) => p.name) });
   const taken = new Set(existing.flatMap((e) => [e.slug, e.name.toLowerCase()]));
   const created: { id: string; slug: string; name: string }[] = [];
   for (const starter of wanted) {
     if (taken.has(starter.slug) || taken.has(starter.name.toLowerCase())) continue;
-    const [row] = await tx
-      .insert(partTypes)
-      // The demo's model family is invented: a company names its own.
-      .values({ ...starter, modelFamily: "", workspaceId: input.workspaceId })
-      .returning({ id: partTypes.id, slug: partTypes.slug, name: partTypes.name, views: partTypes.views, defectClasses: partTypes.defectClasses });
+    // The demo's model family is invented: a company names its own.
+    const row = await insertPartType(tx, { ...starter, modelFamily: "", workspaceId: input.workspaceId });
     // The example must fit its part type; a mismatch is a bug in the catalogue, so fail loudly.
     const parsed = parseRubric(EXAMPLE_RUBRICS[starter.slug], gradingContextOf(row).lists);
     if (!parsed.ok) throw new Error(`The example rubric for "${starter.slug}" does not fit its starter part type: ${parsed.errors.join(" ")}`);

@@ -3,7 +3,7 @@
  * /api/photos/:id/{thumbnail,preview,original}, which check the session every time.
  */
 import type { PhotoFailureCode, PhotoStatus } from "@/db/schema/photos";
-import type { PhotoWithContext } from "./queries";
+import type { PhotoWithContext } from "@/db/queries/photos";
 
 export type PhotoDto = {
   id: string;

@@ -15,11 +15,11 @@ import "server-only";
  *     A slower verdict answers 202; the photo's status then shows it.
  * Refusals throw PhotoRejectedError (mapped to 4xx by lib/photos/http.ts).
  */
-import { and, eq, isNull } from "drizzle-orm";
-import { db, type DbOrTx } from "@/db/client";
+import { transaction, type DbOrTx } from "@/db/client";
 import { isUniqueViolation } from "@/db/errors";
 import { logActivity } from "@/db/queries/activity";
-import { photos, type NewPhoto } from "@/db/schema";
+import { deleteRefusalNotice } from "@/db/queries/photo-processing";
+import type { NewPhoto } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/require-user";
 import { env } from "@/lib/env";
 import { AppError } from "@/lib/errors";
@@ -32,7 +32,7 @@ import { assertOpenForUploads, loadUnit, viewOf } from "./intents";
 import { originalKey, stagingKey, type PhotoKeyOwner } from "./object-keys";
 import { checkStoredUpload, emptyFile, lengthMismatch, tooLarge } from "./precheck";
 import { processPhoto } from "./process";
-import { findReuseCandidate, findUnitPhotoBySha, getPhoto, getPhotoWithContext, type PhotoWithContext } from "./queries";
+import { findReuseCandidate, findUnitPhotoBySha, getPhoto, getPhotoById, getPhotoWithContext, insertPhotoRow, type PhotoWithContext } from "@/db/queries/photos";
 import type { FinaliseInput } from "./schemas";
 import { verifyUploadTicket, type UploadTicket } from "./ticket";
 
@@ -118,7 +118,7 @@ export async function storeUpload(actor: SessionUser, target: UploadTarget, opti
   };
   try {
     if (dispatch === "queue") await transactionWithJobs((tx, jobs) => insertPhoto(tx, actor, row, reuse?.unitId ?? null, jobs));
-    else await db().transaction((tx) => insertPhoto(tx, actor, row, reuse?.unitId ?? null, null));
+    else await transaction((tx) => insertPhoto(tx, actor, row, reuse?.unitId ?? null, null));
   } catch (err) {
     if (isUniqueViolation(err, "photos_pkey")) return { kind: "replayed", photo: await withContext(actor, row.id) };
     if (unitId && isUniqueViolation(err, "photos_unit_sha256_key")) {
@@ -175,7 +175,7 @@ async function answerSameBytes(actor: SessionUser, store: ObjectStore, newOrigin
 }
 
 async function insertPhoto(tx: DbOrTx, actor: SessionUser, row: NewPhoto, reuseUnitId: string | null, jobs: JobSender | null) {
-  await tx.insert(photos).values(row);
+  await insertPhotoRow(tx, row);
   await logActivity(tx, {
     workspaceId: actor.workspaceId,
     actorId: actor.id,
@@ -192,7 +192,7 @@ const sleep = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
 async function waitForVerdict(photoId: string, waitMs: number) {
   const deadline = Date.now() + waitMs;
   while (Date.now() < deadline) {
-    const [row] = await db().select({ status: photos.status }).from(photos).where(eq(photos.id, photoId)).limit(1);
+    const row = await getPhotoById(photoId);
     if (!row || row.status === "ready" || row.status === "failed") return;
     await sleep(150);
   }
@@ -200,10 +200,8 @@ async function waitForVerdict(photoId: string, waitMs: number) {
 
 /** A file the decoder refused: its original is already gone; drop the notice too and answer 4xx. */
 async function dropIfRefused(photoId: string) {
-  const [row] = await db().select().from(photos).where(eq(photos.id, photoId)).limit(1);
+  const row = await getPhotoById(photoId);
   if (!row || row.status !== "failed" || row.failureCode === "processing_failed" || row.originalKey !== null) return;
-  await db()
-    .delete(photos)
-    .where(and(eq(photos.id, photoId), eq(photos.status, "failed"), isNull(photos.originalKey)));
+  await deleteRefusalNotice(photoId);
   throw new PhotoRejectedError(row.failureCode as PhotoRejectionCode, row.failureReason ?? "This file was refused.");
 }

@@ -5,7 +5,7 @@ import { notFound } from "@/lib/errors";
 import { getObjectStream, objectStore, presignGet } from "@/lib/storage/s3";
 import type { SessionUser } from "@/lib/auth/require-user";
 import { mimeForFormat } from "./precheck";
-import { getPhoto } from "./queries";
+import { getPhoto } from "@/db/queries/photos";
 
 /** 415 for formats, 413 for size, 422 for files that cannot be decoded or are too big in pixels. */
 export const REJECTION_STATUS: Record<PhotoRejectionCode, number> = { empty: 400, too_large: 413, unsupported_format: 415, too_many_pixels: 422, corrupt: 422 };

@@ -13,7 +13,7 @@ import { checkStore, objectStore, presignPut, type ObjectStore } from "@/lib/sto
 import { photoSettings } from "./config";
 import { stagingKey } from "./object-keys";
 import { checkDeclaredUpload } from "./precheck";
-import { getUnitForPhotos, type UnitForPhotos } from "./queries";
+import { getUnitForPhotos, type UnitForPhotos } from "@/db/queries/photos";
 import type { UploadIntentInput } from "./schemas";
 import { signUploadTicket } from "./ticket";
 
@@ -52,10 +52,11 @@ export type UploadIntent = {
 };
 
 /**
- * Upload intents per person and minute (PHOTO_UPLOAD_INTENTS_PER_MINUTE): each hands out a URL
- * that may store up to 40 MB, so one account cannot line up an unbounded amount of storage.
+ * Upload intents per person and minute (PHOTO_UPLOAD_INTENTS_PER_MINUTE), a unit's and the
+ * Gallery's together: each hands out a URL that may store up to 40 MB, so one account cannot line
+ * up an unbounded amount of storage.
  */
-async function limitUploadIntents(actor: SessionUser) {
+export async function limitUploadIntents(actor: SessionUser) {
   await enforceLimits([{ bucket: "upload-intent:user", key: actor.id, max: photoSettings().PHOTO_UPLOAD_INTENTS_PER_MINUTE, windowSeconds: 60 }], (s) =>
     `You have started too many uploads in the last minute. ${waitPhrase(s)} and add the rest; the photos already uploading carry on.`,
   );

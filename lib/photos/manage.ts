@@ -1,15 +1,14 @@
 import "server-only";
 /** What people do with a photo after upload: retry a failed processing, dismiss a failed upload. */
-import { and, eq } from "drizzle-orm";
-import { db } from "@/db/client";
+import { transaction } from "@/db/client";
 import { logActivity } from "@/db/queries/activity";
-import { photos } from "@/db/schema";
+import { deleteFailedPhoto, requeueFailedPhoto } from "@/db/queries/photo-processing";
 import type { SessionUser } from "@/lib/auth/require-user";
 import { AppError, notFound } from "@/lib/errors";
 import { transactionWithJobs } from "@/lib/jobs/send";
 import { deleteObject, objectStore, type ObjectStore } from "@/lib/storage/s3";
 import { assertOriginalDeletable } from "./deletion";
-import { getPhoto, getPhotoWithContext } from "./queries";
+import { getPhoto, getPhotoWithContext } from "@/db/queries/photos";
 
 const NOT_FOUND = "That photo";
 
@@ -21,12 +20,7 @@ export async function retryPhotoProcessing(actor: SessionUser, photoId: string) 
     throw new AppError("conflict", photo.status === "failed" ? "This file was refused, so there is nothing to retry; upload a good copy instead." : `This photo is ${photo.status}, so there is nothing to retry.`);
   }
   await transactionWithJobs(async (tx, jobs) => {
-    const [row] = await tx
-      .update(photos)
-      .set({ status: "queued", failureCode: null, failureReason: null, lastError: null, updatedAt: new Date() })
-      .where(and(eq(photos.workspaceId, actor.workspaceId), eq(photos.id, photoId), eq(photos.status, "failed")))
-      .returning({ id: photos.id });
-    if (!row) throw new AppError("conflict", "This photo changed meanwhile; reload and try again.");
+    if (!(await requeueFailedPhoto(tx, { workspaceId: actor.workspaceId, photoId }))) throw new AppError("conflict", "This photo changed meanwhile; reload and try again.");
     await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.id, action: "photo.retried", subjectType: "photo", subjectId: photoId, detail: { unitId: photo.unitId } });
     await jobs.sendPhotoProcessing(photoId);
   });
@@ -41,13 +35,9 @@ export async function dismissFailedPhoto(actor: SessionUser, photoId: string, { 
   const photo = await getPhoto({ workspaceId: actor.workspaceId, photoId });
   if (!photo) throw notFound(NOT_FOUND);
   if (photo.status !== "failed") throw new AppError("conflict", `This photo is ${photo.status}; only a failed upload can be dismissed. Ready photos stay as evidence.`);
-  await db().transaction(async (tx) => {
+  await transaction(async (tx) => {
     if (photo.originalKey) await assertOriginalDeletable(tx, { workspaceId: actor.workspaceId, photoId });
-    const [row] = await tx
-      .delete(photos)
-      .where(and(eq(photos.workspaceId, actor.workspaceId), eq(photos.id, photoId), eq(photos.status, "failed")))
-      .returning({ id: photos.id });
-    if (!row) throw new AppError("conflict", "This photo changed meanwhile; reload and try again.");
+    if (!(await deleteFailedPhoto(tx, { workspaceId: actor.workspaceId, photoId }))) throw new AppError("conflict", "This photo changed meanwhile; reload and try again.");
     await logActivity(tx, {
       workspaceId: actor.workspaceId,
       actorId: actor.id,

@@ -6,32 +6,23 @@ import "server-only";
  * stays as a failure notice with the reason); any other failure is retried by pg-boss with
  * backoff, and only the last attempt marks the photo failed (its original kept, so Retry works).
  */
-import { and, eq, inArray, sql } from "drizzle-orm";
-import { db } from "@/db/client";
+import { transaction } from "@/db/client";
 import { logActivity } from "@/db/queries/activity";
-import { photos, type Photo } from "@/db/schema";
+import { claimPhotoForProcessing, updateProcessingPhoto } from "@/db/queries/photo-processing";
+import type { Photo } from "@/db/schema";
 import { normalizePhoto, PhotoRejectedError, type NormalizedPhoto } from "@/lib/imaging/normalize";
 import { deleteObject, getObjectBuffer, ObjectStoreUnavailableError, objectStore, putObject, type ObjectStore } from "@/lib/storage/s3";
 import { assertOriginalDeletable } from "./deletion";
 import { previewKey, thumbnailKey } from "./object-keys";
-import { getPhotoById } from "./queries";
+import { getPhotoById } from "@/db/queries/photos";
 
 export type ProcessOutcome = "ready" | "rejected" | "gone" | "already_done";
 
 export type ProcessOptions = { store?: ObjectStore; /** No retry follows this attempt (pg-boss's last, or a direct call). */ isLastAttempt?: boolean };
 
-/** Takes the photo for processing; null when it is gone or already settled (a replayed job). */
-async function claim(photoId: string): Promise<Photo | null> {
-  const [row] = await db()
-    .update(photos)
-    .set({ status: "processing", attempts: sql`${photos.attempts} + 1`, updatedAt: new Date() })
-    .where(and(eq(photos.id, photoId), inArray(photos.status, ["queued", "processing"])))
-    .returning();
-  return row ?? null;
-}
-
 export async function processPhoto(photoId: string, { store = objectStore(), isLastAttempt = true }: ProcessOptions = {}): Promise<ProcessOutcome> {
-  const photo = await claim(photoId);
+  // Null when the photo is gone or already settled (a replayed job).
+  const photo = await claimPhotoForProcessing(photoId);
   if (!photo) return (await getPhotoById(photoId)) ? "already_done" : "gone";
   try {
     const original = await getObjectBuffer(store, photo.originalKey!);
@@ -54,12 +45,9 @@ export async function processPhoto(photoId: string, { store = objectStore(), isL
 
 async function reject(store: ObjectStore, photo: Photo, rejection: PhotoRejectedError): Promise<ProcessOutcome> {
   const ref = { workspaceId: photo.workspaceId, photoId: photo.id };
-  await db().transaction(async (tx) => {
+  await transaction(async (tx) => {
     await assertOriginalDeletable(tx, ref);
-    await tx
-      .update(photos)
-      .set({ status: "failed", failureCode: rejection.code, failureReason: rejection.message, originalKey: null, lastError: null, processedAt: new Date(), updatedAt: new Date() })
-      .where(and(eq(photos.id, photo.id), eq(photos.status, "processing")));
+    await updateProcessingPhoto(photo.id, { status: "failed", failureCode: rejection.code, failureReason: rejection.message, originalKey: null, lastError: null, processedAt: new Date() }, tx);
     await logActivity(tx, {
       workspaceId: photo.workspaceId,
       actorId: null,
@@ -80,30 +68,25 @@ async function markReady(store: ObjectStore, photo: Photo, n: NormalizedPhoto): 
   // Derivatives first: a row marked ready always has its objects. Same keys on a retry, so no duplicates.
   await putObject(store, keys.preview, n.preview, { contentType: "image/webp" });
   await putObject(store, keys.thumbnail, n.thumbnail, { contentType: "image/webp" });
-  const updated = await db().transaction(async (tx) => {
-    const [row] = await tx
-      .update(photos)
-      .set({
-        status: "ready",
-        previewKey: keys.preview,
-        thumbnailKey: keys.thumbnail,
-        format: n.format,
-        width: n.width,
-        height: n.height,
-        orientation: n.orientation,
-        previewWidth: n.previewWidth,
-        previewHeight: n.previewHeight,
-        thumbnailWidth: n.thumbnailWidth,
-        thumbnailHeight: n.thumbnailHeight,
-        captureTime: n.captureTime,
-        captureTimeOffset: n.captureTimeOffset,
-        lastError: null,
-        processedAt: new Date(),
-        updatedAt: new Date(),
-      })
-      .where(and(eq(photos.id, photo.id), eq(photos.status, "processing")))
-      .returning({ id: photos.id });
-    if (row) {
+  const updated = await transaction(async (tx) => {
+    const marked = await updateProcessingPhoto(photo.id, {
+      status: "ready",
+      previewKey: keys.preview,
+      thumbnailKey: keys.thumbnail,
+      format: n.format,
+      width: n.width,
+      height: n.height,
+      orientation: n.orientation,
+      previewWidth: n.previewWidth,
+      previewHeight: n.previewHeight,
+      thumbnailWidth: n.thumbnailWidth,
+      thumbnailHeight: n.thumbnailHeight,
+      captureTime: n.captureTime,
+      captureTimeOffset: n.captureTimeOffset,
+      lastError: null,
+      processedAt: new Date(),
+    }, tx);
+    if (marked) {
       await logActivity(tx, {
         workspaceId: photo.workspaceId,
         actorId: null,
@@ -113,7 +96,7 @@ async function markReady(store: ObjectStore, photo: Photo, n: NormalizedPhoto): 
         detail: { unitId: photo.unitId, format: n.format, width: n.width, height: n.height },
       });
     }
-    return Boolean(row);
+    return marked;
   });
   if (!updated) {
     // Dismissed while we worked: leave nothing behind.
@@ -138,13 +121,5 @@ function describe(err: unknown, isLastAttempt: boolean): { lastError: string; re
 
 async function markAttemptFailed(photo: Photo, err: unknown, isLastAttempt: boolean) {
   const { lastError, reason } = describe(err, isLastAttempt);
-  await db()
-    .update(photos)
-    .set(
-      isLastAttempt
-        ? { status: "failed", failureCode: "processing_failed", failureReason: reason, lastError, updatedAt: new Date() }
-        : { status: "queued", lastError, updatedAt: new Date() },
-    )
-    .where(and(eq(photos.id, photo.id), eq(photos.status, "processing")))
-    .catch((dbErr) => console.error(`Could not record the failed attempt on photo ${photo.id}`, dbErr));
+  await updateProcessingPhoto(photo.id, isLastAttempt ? { status: "failed", failureCode: "processing_failed", failureReason: reason, lastError } : { status: "queued", lastError }).catch((dbErr) => console.error(`Could not record the failed attempt on photo ${photo.id}`, dbErr));
 }

@@ -13,11 +13,9 @@ import "server-only";
  * Both count as work on the unit: refused once it is graded or its lot decided, or while another
  * person's lease runs; a unit still waiting in the queue is taken onto the worker's bench.
  */
-import { and, eq, isNull } from "drizzle-orm";
-import { db, type Tx } from "@/db/client";
+import { transaction, type Tx } from "@/db/client";
 import { logActivity } from "@/db/queries/activity";
 import { getUnitDetail, lockUnit } from "@/db/queries/units";
-import { photos } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/require-user";
 import { AppError, notFound } from "@/lib/errors";
 import { claimForWork, workClaimsUnit } from "@/lib/queue/claim-for-work";
@@ -26,7 +24,7 @@ import { deleteObject, objectStore, type ObjectStore } from "@/lib/storage/s3";
 import { STATUS_LABELS } from "@/lib/units/state-machine";
 import { originalDeletionBlockers } from "./deletion";
 import { viewOf } from "./intents";
-import { getPhoto, getUnitForPhotos } from "./queries";
+import { deleteCurrentPhoto, getPhoto, getUnitForPhotos, updatePhotoView, withdrawPhoto } from "@/db/queries/photos";
 
 /** A unit's photo (gallery uploads have no unit: this is not their way out). */
 type Photo = NonNullable<Awaited<ReturnType<typeof getPhoto>>> & { unitId: string };
@@ -54,18 +52,13 @@ async function loadCurrentPhoto(actor: SessionUser, photoId: string): Promise<Ph
 
 export async function reassignPhotoView(actor: SessionUser, photoId: string, viewKey: string) {
   const photo = await loadCurrentPhoto(actor, photoId);
-  await db().transaction(async (tx) => {
+  await transaction(async (tx) => {
     await openForWork(tx, actor, photo);
     const unit = await getUnitForPhotos({ workspaceId: actor.workspaceId, unitId: photo.unitId }, tx);
     if (!unit) throw notFound(NOT_FOUND);
     viewOf(unit, viewKey);
     if (photo.viewKey === viewKey) return;
-    const [row] = await tx
-      .update(photos)
-      .set({ viewKey, updatedAt: new Date() })
-      .where(and(eq(photos.workspaceId, actor.workspaceId), eq(photos.id, photoId), isNull(photos.removedAt)))
-      .returning({ id: photos.id });
-    if (!row) throw new AppError("conflict", "This photo changed meanwhile; reload and try again.");
+    if (!(await updatePhotoView(tx, { workspaceId: actor.workspaceId, photoId, viewKey }))) throw new AppError("conflict", "This photo changed meanwhile; reload and try again.");
     await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.id, action: "photo.view_changed", subjectType: "photo", subjectId: photoId, detail: { unitId: photo.unitId, from: photo.viewKey, to: viewKey, fileName: photo.fileName } });
   });
 }
@@ -77,19 +70,16 @@ export async function removePhoto(actor: SessionUser, photoId: string, reason: s
   if (photo.status !== "ready") {
     throw new AppError("conflict", photo.status === "failed" ? "This upload failed; dismiss it instead." : "This photo is still being processed; remove it once it is ready.");
   }
-  const result = await db().transaction(async (tx) => {
+  const result = await transaction(async (tx) => {
     await openForWork(tx, actor, photo);
     const blockers = await originalDeletionBlockers(tx, { workspaceId: actor.workspaceId, photoId });
     const detail = { unitId: photo.unitId, viewKey: photo.viewKey, fileName: photo.fileName, sha256: photo.sha256, reason };
-    const where = and(eq(photos.workspaceId, actor.workspaceId), eq(photos.id, photoId), isNull(photos.removedAt));
     if (blockers.length > 0) {
-      const [row] = await tx.update(photos).set({ removedAt: new Date(), removedBy: actor.id, removalReason: reason, updatedAt: new Date() }).where(where).returning({ id: photos.id });
-      if (!row) throw new AppError("conflict", "This photo changed meanwhile; reload and try again.");
+      if (!(await withdrawPhoto(tx, { workspaceId: actor.workspaceId, photoId, removedBy: actor.id, reason }))) throw new AppError("conflict", "This photo changed meanwhile; reload and try again.");
       await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.id, action: "photo.withdrawn", subjectType: "photo", subjectId: photoId, detail: { ...detail, kept: blockers } });
       return { outcome: "withdrawn" as const, message: `The photo was taken out of this unit and kept as a record, because ${blockers.map(lowerFirst).join(" ")}` };
     }
-    const [row] = await tx.delete(photos).where(where).returning({ id: photos.id });
-    if (!row) throw new AppError("conflict", "This photo changed meanwhile; reload and try again.");
+    if (!(await deleteCurrentPhoto(tx, { workspaceId: actor.workspaceId, photoId }))) throw new AppError("conflict", "This photo changed meanwhile; reload and try again.");
     await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.id, action: "photo.removed", subjectType: "photo", subjectId: photoId, detail });
     return { outcome: "deleted" as const, message: "The photo was removed; nothing referred to it yet. The activity log keeps what it was and why it went." };
   });

@@ -10,10 +10,9 @@ import "server-only";
  * are removed after the grace period too. Objects with keys this app never writes are left alone.
  * Every original goes through the deletion gate first (lib/photos/deletion.ts).
  */
-import { and, eq, inArray, isNull, lt } from "drizzle-orm";
-import { db } from "@/db/client";
+import { transaction } from "@/db/client";
 import { deleteUnusedGalleryPhoto, listUnusedGalleryPhotos } from "@/db/queries/gallery";
-import { photos } from "@/db/schema";
+import { deleteRefusalNoticesBefore, failStalledPhotos, listPhotoObjectKeys } from "@/db/queries/photo-processing";
 import { deleteObject, listObjects, objectStore, type ListedObject, type ObjectStore } from "@/lib/storage/s3";
 import { photoSettings } from "./config";
 import { ORIGINAL_DELETION_CHECKS, originalDeletionBlockers, type OriginalDeletionCheck } from "./deletion";
@@ -63,33 +62,19 @@ export async function sweepOrphans(options: SweepOptions = {}): Promise<SweepRep
   }
   if (batch.length) await sweepPhotoObjects(store, batch, checks, report);
 
-  const removed = await db()
-    .delete(photos)
-    .where(and(eq(photos.status, "failed"), isNull(photos.originalKey), lt(photos.updatedAt, new Date(now.getTime() - noticeRetentionMs))))
-    .returning({ id: photos.id });
-  report.noticesRemoved = removed.length;
-
-  const stalled = await db()
-    .update(photos)
-    .set({
-      status: "failed",
-      failureCode: "processing_failed",
-      failureReason: "Processing this photo did not finish. Press Retry; the original is kept.",
-      updatedAt: now,
-    })
-    .where(and(inArray(photos.status, ["queued", "processing"]), lt(photos.updatedAt, new Date(now.getTime() - stalledMs))))
-    .returning({ id: photos.id });
-  report.stalledMarked = stalled.length;
+  report.noticesRemoved = await deleteRefusalNoticesBefore(new Date(now.getTime() - noticeRetentionMs));
+  report.stalledMarked = await failStalledPhotos({
+    before: new Date(now.getTime() - stalledMs),
+    at: now,
+    reason: "Processing this photo did not finish. Press Retry; the original is kept.",
+  });
   return report;
 }
 
 async function sweepPhotoObjects(store: ObjectStore, objects: ListedObject[], checks: readonly OriginalDeletionCheck[], report: SweepReport) {
   const parsed = objects.map((o) => ({ object: o, key: parsePhotoKey(o.key)! }));
   const ids = [...new Set(parsed.map((p) => p.key.photoId))];
-  const rows = await db()
-    .select({ id: photos.id, workspaceId: photos.workspaceId, originalKey: photos.originalKey, previewKey: photos.previewKey, thumbnailKey: photos.thumbnailKey })
-    .from(photos)
-    .where(inArray(photos.id, ids));
+  const rows = await listPhotoObjectKeys(ids);
   const named = new Set(rows.flatMap((r) => [r.originalKey, r.previewKey, r.thumbnailKey]).filter((k): k is string => k !== null));
   for (const { object, key } of parsed) {
     if (named.has(object.key)) {
@@ -97,7 +82,7 @@ async function sweepPhotoObjects(store: ObjectStore, objects: ListedObject[], ch
       continue;
     }
     if (key.kind === "original") {
-      const reasons = await originalDeletionBlockers(db(), { workspaceId: key.workspaceId, photoId: key.photoId }, checks);
+      const reasons = await transaction((tx) => originalDeletionBlockers(tx, { workspaceId: key.workspaceId, photoId: key.photoId }, checks), { accessMode: "read only" });
       if (reasons.length) {
         report.blocked.push(object.key);
         continue;
@@ -112,7 +97,7 @@ async function sweepPhotoObjects(store: ObjectStore, objects: ListedObject[], ch
 async function sweepUnusedGalleryUploads(store: ObjectStore, before: Date, checks: readonly OriginalDeletionCheck[], report: SweepReport) {
   for (const photo of await listUnusedGalleryPhotos({ before, limit: BATCH })) {
     const ref = { workspaceId: photo.workspaceId, photoId: photo.id };
-    const keys = await db().transaction(async (tx) => {
+    const keys = await transaction(async (tx) => {
       if ((await originalDeletionBlockers(tx, ref, checks)).length) return null;
       // Deletes only while no item names it: an item made meanwhile keeps the photo (and its key lock waits for this).
       return deleteUnusedGalleryPhoto(tx, ref);

@@ -11,7 +11,8 @@ import { anythingWaiting } from "@/db/queries/queue";
 import { claimNextQueued, endLease, grantLease, markGraded, renewLease as renewLeaseRow, returnExpiredLeases, type ClaimedUnit } from "@/db/queries/unit-status";
 import { lockUnit, type LockedUnit } from "@/db/queries/units";
 import { getUserInWorkspace } from "@/db/queries/users";
-import { hasAnyRole, isRole } from "@/lib/auth/roles";
+import { can } from "@/lib/auth/permissions";
+import { isRole } from "@/lib/auth/roles";
 import type { SessionUser } from "@/lib/auth/require-user";
 import { env } from "@/lib/env";
 import { AppError, notFound } from "@/lib/errors";
@@ -78,8 +79,8 @@ export async function renewLease({ user, unitId }: { user: SessionUser; unitId: 
 export async function releaseUnit({ user, unitId }: { user: SessionUser; unitId: string }) {
   await transaction(async (tx) => {
     const unit = await lockForLease(tx, user, unitId);
-    const isLead = hasAnyRole(user.roles, "lead");
-    if (unit.status === ON_BENCH && unit.leaseHolderId !== user.id && !isLead) {
+    const managesLeases = can(user, "leases.manage");
+    if (unit.status === ON_BENCH && unit.leaseHolderId !== user.id && !managesLeases) {
       throw new AppError("forbidden", `This unit is on ${unit.leaseHolderName ?? "another inspector"}'s bench; only they or a lead can put it back.`);
     }
     await endLease(tx, { workspaceId: user.workspaceId, unitId, status: transition(unit.status, "release") });
@@ -92,7 +93,7 @@ export async function reassignUnit({ user, unitId, toUserId }: { user: SessionUs
   await transaction(async (tx) => {
     const unit = await lockForLease(tx, user, unitId);
     const person = await getUserInWorkspace({ workspaceId: user.workspaceId, userId: toUserId }, tx);
-    if (!person?.active || !hasAnyRole(person.roles.filter(isRole), "inspector")) {
+    if (!person?.active || !can({ roles: person.roles.filter(isRole) }, "queue.work")) {
       throw new AppError("bad_request", "Choose an active inspector of this workspace.", { fieldErrors: { userId: "Not an active inspector here." } });
     }
     if (unit.status !== ON_BENCH) transition(unit.status, "claim");

@@ -10,7 +10,7 @@ import "server-only";
  * blind recheck must not see the first grader's regions — the Recheck screen will need its own
  * read path that withholds them (this GET serves every role for now).
  */
-import { db, type DbOrTx } from "@/db/client";
+import { transaction, type DbOrTx } from "@/db/client";
 import { logActivity } from "@/db/queries/activity";
 import { lockUnit } from "@/db/queries/units";
 import { getPhotoForRegions, getRegionSetHead, listPhotoRegions, lockRegionSet, writeRegionSet, type PhotoForRegions } from "@/db/queries/regions";
@@ -52,7 +52,7 @@ export async function loadPhotoForRegions(actor: Actor, photoId: string): Promis
   return row;
 }
 
-export async function readRegionSet(actor: Actor, photoId: string, tx: DbOrTx = db()): Promise<RegionSetView> {
+export async function readRegionSet(actor: Actor, photoId: string, tx?: DbOrTx): Promise<RegionSetView> {
   const key = { workspaceId: actor.workspaceId, photoId };
   const [head, rows] = await Promise.all([getRegionSetHead(key, tx), listPhotoRegions(key, tx)]);
   return { photoId, version: head.version, regions: payloadFromRows(rows), updatedAt: head.updatedAt?.toISOString() ?? null, updatedByName: head.updatedByName };
@@ -82,7 +82,7 @@ export async function saveRegionSet(actor: SessionUser, photoId: string, input: 
   const photo = await loadPhotoForRegions(actor, photoId);
   const payload = validateRegions(photo, input.regions);
   const key = { workspaceId: actor.workspaceId, photoId };
-  return db().transaction(async (tx) => {
+  return transaction(async (tx) => {
     // The unit first (the same order as grading), so a grade and a save never deadlock.
     const unit = await lockUnit(tx, { workspaceId: actor.workspaceId, unitId: photo.unit.id });
     if (!unit) throw notFound("That photo");

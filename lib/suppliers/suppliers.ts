@@ -1,9 +1,8 @@
 import "server-only";
-import { and, eq } from "drizzle-orm";
-import { db } from "@/db/client";
+import { transaction } from "@/db/client";
 import { isUniqueViolation } from "@/db/errors";
 import { logActivity } from "@/db/queries/activity";
-import { suppliers } from "@/db/schema";
+import { insertSupplier, updateSupplierFields } from "@/db/queries/suppliers";
 import type { SessionUser } from "@/lib/auth/require-user";
 import { AppError, notFound } from "@/lib/errors";
 import type { SupplierInput, SupplierUpdateInput } from "./schemas";
@@ -13,8 +12,8 @@ const duplicate = () =>
 
 export async function createSupplier(actor: SessionUser, input: SupplierInput) {
   try {
-    return await db().transaction(async (tx) => {
-      const [row] = await tx.insert(suppliers).values({ ...input, workspaceId: actor.workspaceId }).returning();
+    return await transaction(async (tx) => {
+      const row = await insertSupplier(tx, { ...input, workspaceId: actor.workspaceId });
       await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.id, action: "supplier.created", subjectType: "supplier", subjectId: row.id, detail: { name: row.name } });
       return row;
     });
@@ -26,12 +25,8 @@ export async function createSupplier(actor: SessionUser, input: SupplierInput) {
 
 export async function updateSupplier(actor: SessionUser, supplierId: string, input: SupplierUpdateInput) {
   try {
-    return await db().transaction(async (tx) => {
-      const [row] = await tx
-        .update(suppliers)
-        .set({ ...input, updatedAt: new Date() })
-        .where(and(eq(suppliers.workspaceId, actor.workspaceId), eq(suppliers.id, supplierId)))
-        .returning();
+    return await transaction(async (tx) => {
+      const row = await updateSupplierFields(tx, { workspaceId: actor.workspaceId, supplierId, fields: input });
       if (!row) throw notFound("That supplier");
       await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.id, action: "supplier.updated", subjectType: "supplier", subjectId: row.id, detail: { ...input } });
       return row;

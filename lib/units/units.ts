@@ -6,8 +6,8 @@ import { logActivity } from "@/db/queries/activity";
 import { lockLot, setLotSampleDraw } from "@/db/queries/lots";
 import { countLotUnits, getUnitDetail, insertUnits, lockUnit, updateUnitSerial } from "@/db/queries/units";
 import type { SampleDraw } from "@/db/schema";
+import { can } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/require-user";
-import { hasAnyRole } from "@/lib/auth/roles";
 import { AppError, notFound } from "@/lib/errors";
 import { assertNotLeasedByOther } from "@/lib/queue/queue";
 import { DRAW_ALGORITHM, drawSample } from "./sample-draw";
@@ -93,7 +93,7 @@ export async function setUnitSerial(actor: SessionUser, unitId: string, serial: 
       if (detail.lot.status !== "open") throw new AppError("conflict", "This unit's lot is decided; its serial can no longer change.");
       if (!unit.placeholder) throw new AppError("conflict", "This unit's serial came from the supplier's list and cannot be edited here.", { fieldErrors: { serial: "Imported serials are fixed." } });
       if (unit.status !== "queued" && unit.status !== "on_bench") throw new AppError("conflict", "This unit is graded; its serial can no longer change.");
-      if (!hasAnyRole(actor.roles, "lead")) assertNotLeasedByOther(unit, actor);
+      if (!can(actor, "leases.manage")) assertNotLeasedByOther(unit, actor);
       const row = await updateUnitSerial(tx, { workspaceId: actor.workspaceId, unitId, serial });
       await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.id, action: "unit.serial_set", subjectType: "unit", subjectId: unitId, detail: { from: unit.serial, to: serial } });
       return row;

@@ -1,5 +1,5 @@
 import "server-only";
-import { db } from "@/db/client";
+import { transaction } from "@/db/client";
 import { logActivity } from "@/db/queries/activity";
 import { getWorkspace, setWorkspaceTimeZone } from "@/db/queries/workspaces";
 import type { SessionUser } from "@/lib/auth/require-user";
@@ -14,7 +14,7 @@ export async function workspaceSettings(actor: Pick<SessionUser, "workspaceId">)
 
 /** The lead sets the time zone every time in the workspace is shown in; logged with the old value. */
 export async function updateWorkspaceSettings(actor: SessionUser, input: WorkspaceSettingsInput) {
-  return db().transaction(async (tx) => {
+  return transaction(async (tx) => {
     const before = await getWorkspace({ workspaceId: actor.workspaceId }, tx);
     if (!before) throw notFound("That workspace");
     const row = await setWorkspaceTimeZone(tx, { workspaceId: actor.workspaceId, timeZone: input.timeZone });

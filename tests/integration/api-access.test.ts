@@ -1,39 +1,15 @@
-import fs from "node:fs";
-import path from "node:path";
 import { beforeAll, describe, expect, it } from "vitest";
+import { holders } from "@/lib/auth/permissions";
 import { ROLES, type Role } from "@/lib/auth/roles";
 import { api, signIn, type Session } from "../support/http";
 import { createUser, TEST_PASSWORD, uniqueEmail, workspaceBySlug } from "../support/db";
+import { galleryFixtureIds } from "../support/gallery-access";
 import { gradingFixtureIds } from "../support/grading-access";
 import { lotFixtureIds } from "../support/lot-access";
 import { photoFixtureIds } from "../support/photo-access";
 import { queueFixtureIds } from "../support/queue-access";
 import { regionFixtureIds } from "../support/region-access";
-import { NOT_IN_TABLE, ROUTES, type RouteAccess } from "./routes";
-
-/** Every route.ts under app/api with the HTTP methods it exports, as "/api/x/[id]" paths. */
-function discoverRoutes(): { path: string; method: string }[] {
-  const root = path.resolve("app/api");
-  const found: { path: string; method: string }[] = [];
-  const walk = (dir: string) => {
-    for (const entry of fs.readdirSync(dir, { withFileTypes: true })) {
-      const full = path.join(dir, entry.name);
-      if (entry.isDirectory()) walk(full);
-      else if (entry.name === "route.ts") {
-        const source = fs.readFileSync(full, "utf8");
-        const routePath = "/api/" + path.relative(root, dir).split(path.sep).join("/");
-        const methods = new Set([...source.matchAll(/export (?:const|async function) (GET|POST|PUT|PATCH|DELETE)\b/g)].map((m) => m[1]));
-        for (const m of source.matchAll(/export \{([^}]+)\}/g)) for (const name of m[1].matchAll(/as (GET|POST|PUT|PATCH|DELETE)/g)) methods.add(name[1]);
-        for (const method of methods) found.push({ path: routePath.replace(/\/$/, ""), method });
-      }
-    }
-  };
-  walk(root);
-  return found;
-}
-
-// A query string is not part of the route (GET /api/inspection-schemes?supplierId=…).
-const asTemplate = (p: string) => p.split("?")[0].replace(/:[a-zA-Z]+/g, "[id]");
+import { ROUTES, type RouteRow } from "./routes";
 
 type Ids = Record<string, string>;
 let own: Ids;
@@ -41,7 +17,7 @@ let foreign: Ids;
 const sessions = {} as Record<Role, Session>;
 let foreignLead: Session;
 
-function fill(route: RouteAccess, ids: Ids) {
+function fill(route: RouteRow, ids: Ids) {
   return route.path.replace(/:([a-zA-Z]+)/g, (_, key: string) => {
     if (!ids[key]) throw new Error(`No fixture id for :${key}`);
     return ids[key];
@@ -54,7 +30,7 @@ async function fixtureIds(lead: Session): Promise<Ids> {
   const emails = await api<{ emails: { id: string }[] }>(lead, "GET", "/api/outbox");
   const people = await api<{ people: { id: string; roles: string[] }[] }>(lead, "GET", "/api/people");
   const someone = people.body.people.find((p) => !p.roles.includes("lead"))!;
-  return { invitedPersonId: invited.body.person.id, personId: someone.id, supplierId: supplier.body.supplier.id, emailId: emails.body.emails[0].id, ...(await gradingFixtureIds(lead)), ...(await queueFixtureIds(lead)), ...(await photoFixtureIds(lead)), ...(await regionFixtureIds(lead)), ...(await lotFixtureIds(lead, supplier.body.supplier.id)) };
+  return { invitedPersonId: invited.body.person.id, personId: someone.id, supplierId: supplier.body.supplier.id, emailId: emails.body.emails[0].id, ...(await gradingFixtureIds(lead)), ...(await galleryFixtureIds(lead)), ...(await queueFixtureIds(lead)), ...(await photoFixtureIds(lead)), ...(await regionFixtureIds(lead)), ...(await lotFixtureIds(lead, supplier.body.supplier.id)) };
 }
 
 beforeAll(async () => {
@@ -69,21 +45,10 @@ beforeAll(async () => {
   foreign = await fixtureIds(foreignLead);
 });
 
-describe("the route table", () => {
-  it("lists every route handler and method in app/api", () => {
-    const listed = new Set(ROUTES.map((r) => `${r.method} ${asTemplate(r.path)}`));
-    const missing = discoverRoutes()
-      .filter((r) => !NOT_IN_TABLE.includes(r.path))
-      .map((r) => `${r.method} ${r.path}`)
-      .filter((key) => !listed.has(key));
-    expect(missing).toEqual([]);
-  });
-});
-
 describe.each(ROUTES.map((r) => [`${r.method} ${r.path}`, r] as const))("%s", (_name, route) => {
   const body = () => route.body?.(own);
 
-  if (route.access === "public") {
+  if (route.permission === "public") {
     it(`answers anyone (${route.allowedStatus})`, async () => {
       const res = await api(null, route.method, fill(route, own ?? {}), body());
       expect([route.allowedStatus].flat()).toContain(res.status);
@@ -98,7 +63,7 @@ describe.each(ROUTES.map((r) => [`${r.method} ${r.path}`, r] as const))("%s", (_
     expect(res.body.error.message).toMatch(/sign in/i);
   });
 
-  const allowed = route.access === "signed-in" ? [...ROLES] : ROLES.filter((r) => r === "lead" || (route.access as Role[]).includes(r));
+  const allowed = holders(route.permission);
   const denied = ROLES.filter((r) => !allowed.includes(r));
 
   for (const role of denied) {

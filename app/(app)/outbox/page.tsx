@@ -14,7 +14,7 @@ const statusText = (e: { status: "sent" | "queued" | "failed"; error: string | n
   e.status === "failed" ? `failed: ${e.error}` : e.status === "queued" ? `queued, retrying (${e.error})` : "delivered";
 
 export default async function OutboxPage() {
-  const user = await requirePageUser({ role: "lead", from: "/outbox" });
+  const user = await requirePageUser({ permission: "outbox.read", from: "/outbox" });
   if (!localInboxDir()) notFound();
   const emails = await listOutgoingEmails({ workspaceId: user.workspaceId });
   return (

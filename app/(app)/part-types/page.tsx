@@ -3,8 +3,8 @@ import Link from "next/link";
 import { AddStartersForm } from "@/components/part-types/add-starters-form";
 import { EmptyState } from "@/components/ui/empty-state";
 import { listPartTypes } from "@/db/queries/part-types";
+import { can } from "@/lib/auth/permissions";
 import { requirePageUser } from "@/lib/auth/require-user";
-import { hasAnyRole } from "@/lib/auth/roles";
 import { screenByHref } from "@/lib/nav";
 import { CATEGORY_LABELS, type PartCategory } from "@/lib/part-types/schemas";
 import { STARTER_CHOICES } from "@/lib/part-types/starters";
@@ -13,9 +13,9 @@ const screen = screenByHref("/part-types")!;
 export const metadata: Metadata = { title: screen.label };
 
 export default async function PartTypesPage() {
-  const user = await requirePageUser({ role: screen.roles, from: screen.href });
+  const user = await requirePageUser({ permission: screen.permission, from: screen.href });
   const partTypes = await listPartTypes({ workspaceId: user.workspaceId });
-  const isLead = hasAnyRole(user.roles, "lead");
+  const canEdit = can(user, "part-types.edit");
   return (
     <div className="max-w-5xl space-y-6">
       <div className="flex flex-wrap items-end justify-between gap-3">
@@ -23,16 +23,16 @@ export default async function PartTypesPage() {
           <h1 className="page-title">Part types</h1>
           <p className="text-gauge-700">{screen.summary}</p>
         </div>
-        {isLead && <Link href="/part-types/new" className="btn-primary">New part type</Link>}
+        {canEdit && <Link href="/part-types/new" className="btn-primary">New part type</Link>}
       </div>
       {partTypes.length === 0 && (
         <EmptyState title="No part types yet">
           <p className="mb-3">
             A part type says what the Bench asks for: the views to photograph and their zones, the defect classes and how serious each is, and the functional
             checklist.{" "}
-            {isLead ? "Start from the examples below (each with an example rubric as a draft, to adapt before you publish it), or make your own with New part type." : "A QC lead adds them."}
+            {canEdit ? "Start from the examples below (each with an example rubric as a draft, to adapt before you publish it), or make your own with New part type." : "A QC lead adds them."}
           </p>
-          {isLead && <AddStartersForm choices={STARTER_CHOICES} />}
+          {canEdit && <AddStartersForm choices={STARTER_CHOICES} />}
         </EmptyState>
       )}
       <div className="card overflow-x-auto">

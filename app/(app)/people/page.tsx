@@ -9,7 +9,7 @@ import { requirePageUser } from "@/lib/auth/require-user";
 export const metadata: Metadata = { title: "People" };
 
 export default async function PeoplePage() {
-  const user = await requirePageUser({ role: "lead", from: "/people" });
+  const user = await requirePageUser({ permission: "people.manage", from: "/people" });
   const counts = await getSetupCounts({ workspaceId: user.workspaceId });
   return (
     <div className="max-w-5xl space-y-6">

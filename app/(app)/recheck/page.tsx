@@ -7,7 +7,7 @@ const screen = screenByHref("/recheck")!;
 export const metadata: Metadata = { title: screen.label };
 
 export default async function RecheckPage() {
-  await requirePageUser({ role: screen.roles, from: screen.href });
+  await requirePageUser({ permission: screen.permission, from: screen.href });
   return (
     <PlannedScreen
       screen={screen}

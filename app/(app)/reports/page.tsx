@@ -7,7 +7,7 @@ const screen = screenByHref("/reports")!;
 export const metadata: Metadata = { title: screen.label };
 
 export default async function ReportsPage() {
-  await requirePageUser({ role: screen.roles, from: screen.href });
+  await requirePageUser({ permission: screen.permission, from: screen.href });
   return (
     <PlannedScreen
       screen={screen}

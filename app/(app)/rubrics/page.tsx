@@ -3,15 +3,15 @@ import Link from "next/link";
 import { RubricScreen } from "@/components/grading/rubric-screen";
 import { EmptyState } from "@/components/ui/empty-state";
 import { listPartTypesWithRubrics } from "@/db/queries/rubrics";
+import { can } from "@/lib/auth/permissions";
 import { requirePageUser } from "@/lib/auth/require-user";
-import { hasAnyRole } from "@/lib/auth/roles";
 import { screenByHref } from "@/lib/nav";
 
 const screen = screenByHref("/rubrics")!;
 export const metadata: Metadata = { title: screen.label };
 
 export default async function RubricsPage(props: PageProps<"/rubrics">) {
-  const user = await requirePageUser({ role: screen.roles, from: screen.href });
+  const user = await requirePageUser({ permission: screen.permission, from: screen.href });
   const { partType } = await props.searchParams;
   const partTypes = await listPartTypesWithRubrics({ workspaceId: user.workspaceId });
   const initial = partTypes.find((p) => p.id === partType)?.id ?? null;
@@ -43,8 +43,8 @@ export default async function RubricsPage(props: PageProps<"/rubrics">) {
       <RubricScreen
         partTypes={partTypes.map((p) => ({ id: p.id, name: p.name, publishedVersion: p.publishedVersion, draftVersion: p.draftVersion }))}
         initialPartTypeId={initial}
-        canDraft={hasAnyRole(user.roles, "trainer")}
-        canPublish={hasAnyRole(user.roles, "lead")}
+        canDraft={can(user, "rubrics.edit")}
+        canPublish={can(user, "rubrics.publish")}
       />
       <p className="max-w-3xl text-xs text-gauge-600">
         Grades are decision aids; company policy, supplier contracts and local regulations decide. The seeded rubrics are invented examples to adapt. ISO 13406-2 pixel-fault classes are summarised; the licensed standard governs.

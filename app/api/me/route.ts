@@ -1,7 +1,5 @@
-import { requireUser } from "@/lib/auth/require-user";
 import { handler } from "@/lib/http/route";
 
-export const GET = handler(async () => {
-  const user = await requireUser();
+export const GET = handler({ permission: "workspace.read" }, async (_req, _ctx, user) => {
   return Response.json({ user });
 });

@@ -1,12 +1,10 @@
 import { listOutgoingEmails } from "@/db/queries/emails";
-import { requireUser } from "@/lib/auth/require-user";
 import { localInboxDir } from "@/lib/env";
 import { notFound } from "@/lib/errors";
 import { handler } from "@/lib/http/route";
 
 /** Lead only, and only while mail goes to the local inbox (development and demo). */
-export const GET = handler(async () => {
-  const user = await requireUser({ role: "lead" });
+export const GET = handler({ permission: "outbox.read" }, async (_req, _ctx, user) => {
   if (!localInboxDir()) throw notFound("The Outbox (it exists only while mail goes to the local inbox)");
   return Response.json({ emails: await listOutgoingEmails({ workspaceId: user.workspaceId }) });
 });

@@ -10,14 +10,13 @@ import { UnitImport } from "@/components/lots/unit-import";
 import { BatteryCaution, StaticCaution } from "@/components/ui/cautions";
 import { getLot } from "@/db/queries/lots";
 import { listLotUnits } from "@/db/queries/units";
+import { can } from "@/lib/auth/permissions";
 import { requirePageUser } from "@/lib/auth/require-user";
 import { pageIdOrNotFound } from "@/lib/http/page-params";
-import { hasAnyRole, INSPECTION_READERS } from "@/lib/auth/roles";
 import { oneLotProgress, progressInput } from "@/lib/lots/progress";
 import { switchingStateFor } from "@/lib/lots/scheme";
 import { decidedVerdictView } from "@/lib/lots/verdict";
 import { DISPOSITION_LABELS } from "@/lib/lots/schemas";
-import { screenByHref } from "@/lib/nav";
 import { STATIC_SENSITIVE, type PartCategory } from "@/lib/part-types/schemas";
 import { formatDate } from "@/lib/time/format";
 
@@ -25,7 +24,7 @@ export const metadata: Metadata = { title: "Lot" };
 
 export default async function LotPage(props: PageProps<"/lots/[id]">) {
   const { id: rawId } = await props.params;
-  const user = await requirePageUser({ role: screenByHref("/lots")!.roles, from: `/lots/${rawId}` });
+  const user = await requirePageUser({ permission: "lots.read", from: `/lots/${rawId}` });
   const id = pageIdOrNotFound(rawId);
   const row = await getLot({ workspaceId: user.workspaceId, lotId: id });
   if (!row) notFound();
@@ -37,7 +36,8 @@ export default async function LotPage(props: PageProps<"/lots/[id]">) {
   ]);
   // A decided lot shows the counts its decision rested on, never a recount under a later rule.
   const verdict = lot.status === "decided" && lot.verdict && lot.decisionCounts ? decidedVerdictView(lot.plan, { verdict: lot.verdict, counts: lot.decisionCounts }, progress.verdict) : progress.verdict;
-  const isLead = hasAnyRole(user.roles, "lead");
+  const canDecide = can(user, "lots.decide");
+  const canManage = can(user, "lots.manage");
   const shownVerdict = lot.status === "decided" && lot.verdict ? lot.verdict : verdict.verdict;
   const percent = Math.round((100 * verdict.unitsInspected) / Math.max(1, lot.plan.sampleSize));
 
@@ -96,7 +96,7 @@ export default async function LotPage(props: PageProps<"/lots/[id]">) {
           </p>
         ) : verdict.verdict === "pending" ? (
           <p className="text-sm text-gauge-700">The lead records the disposition once the verdict is reached.</p>
-        ) : isLead ? (
+        ) : canDecide ? (
           <DispositionForm lotId={id} verdict={verdict.verdict} />
         ) : (
           <p className="text-sm text-gauge-700">Verdict reached ({verdict.verdict}); a QC lead records the disposition.</p>
@@ -106,7 +106,7 @@ export default async function LotPage(props: PageProps<"/lots/[id]">) {
       <section className="space-y-3" aria-labelledby="units-title">
         <h2 id="units-title" className="text-lg font-semibold">Units</h2>
         {lotUnits.length === 0 ? (
-          isLead && lot.status === "open" ? (
+          canManage && lot.status === "open" ? (
             <UnitImport lotId={id} sampleSize={lot.plan.sampleSize} quantity={lot.quantity} />
           ) : (
             <p className="card p-4 text-sm text-gauge-700">No sampled units yet; a QC lead creates them from the serial list or as placeholders.</p>
@@ -118,13 +118,13 @@ export default async function LotPage(props: PageProps<"/lots/[id]">) {
                 ? `Drawn at random from a list of ${lot.sampleDraw.poolSize} serials with seed ${lot.sampleDraw.seed} (${lot.sampleDraw.algorithm}); the same list and seed give the same sample.`
                 : "Numbered placeholders: inspectors scan each unit's serial on the bench."}
             </p>
-            <LotUnitsList units={lotUnits} checklistLength={row.checklistItemIds.length} defectsByUnit={progress.defectsByUnit} now={new Date()} benchLinks={hasAnyRole(user.roles, INSPECTION_READERS)} />
+            <LotUnitsList units={lotUnits} checklistLength={row.checklistItemIds.length} defectsByUnit={progress.defectsByUnit} now={new Date()} benchLinks={can(user, "inspection.read")} />
           </>
         )}
       </section>
 
 
-      <SwitchingBox supplierId={lot.supplierId} partTypeId={lot.partTypeId} view={next} canEdit={isLead} title={`Next lot of ${row.partTypeName} from ${row.supplierName}`} />
+      <SwitchingBox supplierId={lot.supplierId} partTypeId={lot.partTypeId} view={next} canEdit={canManage} title={`Next lot of ${row.partTypeName} from ${row.supplierName}`} />
     </div>
   );
 }

@@ -11,7 +11,7 @@ import { setupSteps } from "@/lib/workspace/setup";
 export const metadata: Metadata = { title: "Receive a lot" };
 
 export default async function NewLotPage() {
-  const user = await requirePageUser({ role: "lead", from: "/lots/new" });
+  const user = await requirePageUser({ permission: "lots.manage", from: "/lots/new" });
   const [suppliers, partTypes, counts] = await Promise.all([listSuppliers({ workspaceId: user.workspaceId }), listPartTypes({ workspaceId: user.workspaceId, active: true }), getSetupCounts({ workspaceId: user.workspaceId })]);
   const activeSuppliers = suppliers.filter((s) => s.active);
   // Without an active supplier and part type there is nothing to choose: say what to do instead.

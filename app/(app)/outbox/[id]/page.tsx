@@ -13,7 +13,7 @@ export const metadata: Metadata = { title: "Outbox message" };
 
 export default async function OutboxMessagePage(props: PageProps<"/outbox/[id]">) {
   const { id: rawId } = await props.params;
-  const user = await requirePageUser({ role: "lead", from: `/outbox/${rawId}` });
+  const user = await requirePageUser({ permission: "outbox.read", from: `/outbox/${rawId}` });
   const inbox = localInboxDir();
   if (!inbox) notFound();
   const id = pageIdOrNotFound(rawId);

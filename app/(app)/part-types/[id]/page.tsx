@@ -7,8 +7,7 @@ import { BatteryCaution, StaticCaution } from "@/components/ui/cautions";
 import { getPartType } from "@/db/queries/part-types";
 import { requirePageUser } from "@/lib/auth/require-user";
 import { pageIdOrNotFound } from "@/lib/http/page-params";
-import { hasAnyRole } from "@/lib/auth/roles";
-import { screenByHref } from "@/lib/nav";
+import { can } from "@/lib/auth/permissions";
 import { partTypeToForm } from "@/lib/part-types/form-model";
 import { CATEGORY_LABELS, STATIC_SENSITIVE, type PartCategory } from "@/lib/part-types/schemas";
 
@@ -16,7 +15,7 @@ export const metadata: Metadata = { title: "Part type" };
 
 export default async function PartTypePage(props: PageProps<"/part-types/[id]">) {
   const { id: rawId } = await props.params;
-  const user = await requirePageUser({ role: screenByHref("/part-types")!.roles, from: `/part-types/${rawId}` });
+  const user = await requirePageUser({ permission: "part-types.read", from: `/part-types/${rawId}` });
   const id = pageIdOrNotFound(rawId);
   const partType = await getPartType({ workspaceId: user.workspaceId, partTypeId: id });
   if (!partType) notFound();
@@ -38,7 +37,7 @@ export default async function PartTypePage(props: PageProps<"/part-types/[id]">)
       {category === "battery" && <BatteryCaution />}
       {STATIC_SENSITIVE.includes(category) && <StaticCaution />}
       <PartTypeDetails partType={partType} />
-      {hasAnyRole(user.roles, "lead") && <PartTypeForm partTypeId={partType.id} initial={partTypeToForm(partType)} />}
+      {can(user, "part-types.edit") && <PartTypeForm partTypeId={partType.id} initial={partTypeToForm(partType)} />}
     </div>
   );
 }

@@ -6,7 +6,7 @@ import { requirePageUser } from "@/lib/auth/require-user";
 export const metadata: Metadata = { title: "New part type" };
 
 export default async function NewPartTypePage() {
-  await requirePageUser({ role: "lead", from: "/part-types/new" });
+  await requirePageUser({ permission: "part-types.edit", from: "/part-types/new" });
   return (
     <div className="max-w-5xl space-y-6">
       <Link href="/part-types" className="text-sm text-gauge-600 underline">← Part types</Link>

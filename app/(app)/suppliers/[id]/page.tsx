@@ -5,14 +5,13 @@ import { getSupplier } from "@/db/queries/suppliers";
 import { SupplierForm } from "@/components/suppliers/supplier-form";
 import { requirePageUser } from "@/lib/auth/require-user";
 import { pageIdOrNotFound } from "@/lib/http/page-params";
-import { hasAnyRole } from "@/lib/auth/roles";
-import { screenByHref } from "@/lib/nav";
+import { can } from "@/lib/auth/permissions";
 
 export const metadata: Metadata = { title: "Supplier" };
 
 export default async function SupplierPage(props: PageProps<"/suppliers/[id]">) {
   const { id: rawId } = await props.params;
-  const user = await requirePageUser({ role: screenByHref("/suppliers")!.roles, from: `/suppliers/${rawId}` });
+  const user = await requirePageUser({ permission: "suppliers.review", from: `/suppliers/${rawId}` });
   const id = pageIdOrNotFound(rawId);
   const supplier = await getSupplier({ workspaceId: user.workspaceId, supplierId: id });
   if (!supplier) notFound();
@@ -29,7 +28,7 @@ export default async function SupplierPage(props: PageProps<"/suppliers/[id]">) 
         </p>
         {supplier.notes && <p className="mt-2 whitespace-pre-line text-sm">{supplier.notes}</p>}
       </div>
-      {hasAnyRole(user.roles, "lead") && (
+      {can(user, "suppliers.edit") && (
         <SupplierForm
           supplierId={supplier.id}
           initial={{ name: supplier.name, contactName: supplier.contactName ?? "", contactEmail: supplier.contactEmail, notes: supplier.notes, promisedGrade: supplier.promisedGrade }}

@@ -5,8 +5,8 @@ import type { UnitView } from "@/components/bench/use-unit";
 import { getUnitForGrading } from "@/db/queries/grading";
 import { listRubricVersions } from "@/db/queries/rubrics";
 import { getUnitDetail, listUnitResults } from "@/db/queries/units";
+import { can } from "@/lib/auth/permissions";
 import { requirePageUser } from "@/lib/auth/require-user";
-import { hasAnyRole, INSPECTION_READERS } from "@/lib/auth/roles";
 import { pageIdOrNotFound } from "@/lib/http/page-params";
 import { isUuid } from "@/lib/validation";
 
@@ -18,7 +18,7 @@ const uuidOrNull = (value: string | string[] | undefined) => (typeof value === "
 export default async function UnitPage(props: PageProps<"/units/[id]">) {
   const [{ id: rawId }, search] = await Promise.all([props.params, props.searchParams]);
   // Inspection work: auditors get 403 here (a blind recheck must not see the first grader's work).
-  const user = await requirePageUser({ role: INSPECTION_READERS, from: `/units/${rawId}` });
+  const user = await requirePageUser({ permission: "inspection.read", from: `/units/${rawId}` });
   const id = pageIdOrNotFound(rawId);
   const key = { workspaceId: user.workspaceId, unitId: id };
   const [detail, grading] = await Promise.all([getUnitDetail(key), getUnitForGrading(key)]);
@@ -26,13 +26,13 @@ export default async function UnitPage(props: PageProps<"/units/[id]">) {
   const [results, versions] = await Promise.all([listUnitResults({ workspaceId: user.workspaceId, unitIds: [id] }), listRubricVersions({ workspaceId: user.workspaceId, partTypeId: grading.partTypeId })]);
   // The same JSON the API sends, so the panels' queries start from what they will refetch.
   const initial = JSON.parse(JSON.stringify({ ...detail, results })) as UnitView;
-  const me = { id: user.id, isLead: hasAnyRole(user.roles, "lead"), canRecord: hasAnyRole(user.roles, "inspector"), timeZone: user.timeZone };
+  const me = { id: user.id, isLead: can(user, "leases.manage"), canRecord: can(user, "units.record"), timeZone: user.timeZone };
   const { views, defectClasses, panelResolution } = grading.partType;
   return (
     <BenchWorkspace
       initial={initial}
       me={me}
-      canCorrect={me.isLead}
+      canCorrect={can(user, "grades.override")}
       partType={{ views, defectClasses, panelResolution }}
       rubricVersions={versions.map((v) => ({ version: v.version, status: v.status }))}
       initialPhotoId={uuidOrNull(search.photo)}

@@ -1,17 +1,14 @@
 import { getLot } from "@/db/queries/lots";
-import { requireUser } from "@/lib/auth/require-user";
 import { notFound } from "@/lib/errors";
 import { handler } from "@/lib/http/route";
 import { lotSummary } from "@/lib/lots/dto";
 import { oneLotProgress, progressInput } from "@/lib/lots/progress";
 import { switchingStateFor } from "@/lib/lots/scheme";
 import { decidedVerdictView } from "@/lib/lots/verdict";
-import { screenByHref } from "@/lib/nav";
 import { parseId } from "@/lib/validation";
 
 /** The lot with its stored plan, running verdict per class, what each unit counts as, and where switching stands for the next lot. */
-export const GET = handler(async (_req, ctx: RouteContext<"/api/lots/[id]">) => {
-  const user = await requireUser({ role: screenByHref("/lots")!.roles });
+export const GET = handler({ permission: "lots.read" }, async (_req, ctx: RouteContext<"/api/lots/[id]">, user) => {
   const id = parseId((await ctx.params).id, "That lot");
   const row = await getLot({ workspaceId: user.workspaceId, lotId: id });
   if (!row) throw notFound("That lot");

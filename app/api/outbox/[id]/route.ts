@@ -1,13 +1,11 @@
 import { getOutgoingEmail } from "@/db/queries/emails";
-import { requireUser } from "@/lib/auth/require-user";
 import { localInboxDir } from "@/lib/env";
 import { notFound } from "@/lib/errors";
 import { handler } from "@/lib/http/route";
 import { readDeliveredMessage } from "@/lib/mail/inbox";
 import { parseId } from "@/lib/validation";
 
-export const GET = handler(async (_req, ctx: RouteContext<"/api/outbox/[id]">) => {
-  const user = await requireUser({ role: "lead" });
+export const GET = handler({ permission: "outbox.read" }, async (_req, ctx: RouteContext<"/api/outbox/[id]">, user) => {
   const inbox = localInboxDir();
   if (!inbox) throw notFound("The Outbox (it exists only while mail goes to the local inbox)");
   const id = parseId((await ctx.params).id, "That e-mail");

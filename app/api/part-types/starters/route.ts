@@ -1,5 +1,4 @@
-import { db } from "@/db/client";
-import { requireUser } from "@/lib/auth/require-user";
+import { transaction } from "@/db/client";
 import { handler, parseJson } from "@/lib/http/route";
 import { starterRequestSchema } from "@/lib/part-types/schemas";
 import { addStarterPartTypes } from "@/lib/part-types/starters";
@@ -8,9 +7,8 @@ import { addStarterPartTypes } from "@/lib/part-types/starters";
  * Adds starter part types (`{ slugs }`), each with a draft example rubric to adapt. Starters the
  * workspace already has (same slug or name) are skipped: 201 lists what was created.
  */
-export const POST = handler(async (req) => {
-  const user = await requireUser({ role: "lead" });
+export const POST = handler({ permission: "part-types.edit" }, async (req, _ctx, user) => {
   const { slugs } = await parseJson(req, starterRequestSchema);
-  const created = await db().transaction((tx) => addStarterPartTypes(tx, { workspaceId: user.workspaceId, actorId: user.id, slugs }));
+  const created = await transaction((tx) => addStarterPartTypes(tx, { workspaceId: user.workspaceId, actorId: user.id, slugs }));
   return Response.json({ created, skipped: slugs.length - created.length }, { status: 201 });
 });

@@ -1,6 +1,4 @@
 import { getUnitDetail, listUnitResults } from "@/db/queries/units";
-import { requireUser } from "@/lib/auth/require-user";
-import { INSPECTION_READERS } from "@/lib/auth/roles";
 import { notFound } from "@/lib/errors";
 import { handler, parseJson } from "@/lib/http/route";
 import { unitUpdateSchema } from "@/lib/units/schemas";
@@ -8,8 +6,7 @@ import { setUnitSerial } from "@/lib/units/units";
 import { parseId } from "@/lib/validation";
 
 /** The unit with its lot, part type checklist and recorded results (what the Bench shows; not for auditors). */
-export const GET = handler(async (_req, ctx: RouteContext<"/api/units/[id]">) => {
-  const user = await requireUser({ role: INSPECTION_READERS });
+export const GET = handler({ permission: "inspection.read" }, async (_req, ctx: RouteContext<"/api/units/[id]">, user) => {
   const id = parseId((await ctx.params).id, "That unit");
   const detail = await getUnitDetail({ workspaceId: user.workspaceId, unitId: id });
   if (!detail) throw notFound("That unit");
@@ -18,8 +15,7 @@ export const GET = handler(async (_req, ctx: RouteContext<"/api/units/[id]">) =>
 });
 
 /** Sets a placeholder unit's serial. */
-export const PATCH = handler(async (req, ctx: RouteContext<"/api/units/[id]">) => {
-  const user = await requireUser({ role: "inspector" });
+export const PATCH = handler({ permission: "units.record" }, async (req, ctx: RouteContext<"/api/units/[id]">, user) => {
   const id = parseId((await ctx.params).id, "That unit");
   const { serial } = await parseJson(req, unitUpdateSchema);
   return Response.json({ unit: await setUnitSerial(user, id, serial) });

@@ -1,23 +1,19 @@
 import { getLot } from "@/db/queries/lots";
 import { listLotUnits } from "@/db/queries/units";
-import { requireUser } from "@/lib/auth/require-user";
 import { notFound } from "@/lib/errors";
 import { handler, parseJson } from "@/lib/http/route";
-import { screenByHref } from "@/lib/nav";
 import { MAX_SERIAL_LIST_BYTES, unitsCreateSchema } from "@/lib/units/schemas";
 import { createLotUnits } from "@/lib/units/units";
 import { parseId } from "@/lib/validation";
 
-export const GET = handler(async (_req, ctx: RouteContext<"/api/lots/[id]/units">) => {
-  const user = await requireUser({ role: screenByHref("/lots")!.roles });
+export const GET = handler({ permission: "lots.read" }, async (_req, ctx: RouteContext<"/api/lots/[id]/units">, user) => {
   const id = parseId((await ctx.params).id, "That lot");
   if (!(await getLot({ workspaceId: user.workspaceId, lotId: id }))) throw notFound("That lot");
   return Response.json({ units: await listLotUnits({ workspaceId: user.workspaceId, lotId: id }) });
 });
 
 /** Creates the lot's sample once: drawn from a pasted/uploaded serial list, or numbered placeholders. */
-export const POST = handler(async (req, ctx: RouteContext<"/api/lots/[id]/units">) => {
-  const user = await requireUser({ role: "lead" });
+export const POST = handler({ permission: "lots.manage" }, async (req, ctx: RouteContext<"/api/lots/[id]/units">, user) => {
   const id = parseId((await ctx.params).id, "That lot");
   const input = await parseJson(req, unitsCreateSchema, { maxBytes: MAX_SERIAL_LIST_BYTES });
   return Response.json(await createLotUnits(user, id, input), { status: 201 });

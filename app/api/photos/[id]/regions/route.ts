@@ -1,13 +1,10 @@
-import { requireUser } from "@/lib/auth/require-user";
-import { INSPECTION_READERS } from "@/lib/auth/roles";
 import { handler, parseJson } from "@/lib/http/route";
 import { loadPhotoForRegions, readRegionSet, RegionVersionConflict, saveRegionSet } from "@/lib/regions/regions";
 import { REGION_SAVE_MAX_BYTES, saveRegionsSchema } from "@/lib/regions/schemas";
 import { parseId } from "@/lib/validation";
 
 /** The photo's region set and its version; inspection work, so not for auditors (blind recheck). */
-export const GET = handler(async (_req, ctx: RouteContext<"/api/photos/[id]/regions">) => {
-  const user = await requireUser({ role: INSPECTION_READERS });
+export const GET = handler({ permission: "inspection.read" }, async (_req, ctx: RouteContext<"/api/photos/[id]/regions">, user) => {
   const photoId = parseId((await ctx.params).id, "That photo");
   await loadPhotoForRegions(user, photoId);
   return Response.json(await readRegionSet(user, photoId));
@@ -18,8 +15,7 @@ export const GET = handler(async (_req, ctx: RouteContext<"/api/photos/[id]/regi
  * `current` (version and regions) when someone saved since `baseVersion`; 400 with the
  * validation sentences (nothing stored); 409 while another person's lease on the unit runs.
  */
-export const PUT = handler(async (req, ctx: RouteContext<"/api/photos/[id]/regions">) => {
-  const user = await requireUser({ role: "inspector" });
+export const PUT = handler({ permission: "regions.edit" }, async (req, ctx: RouteContext<"/api/photos/[id]/regions">, user) => {
   const photoId = parseId((await ctx.params).id, "That photo");
   const input = await parseJson(req, saveRegionsSchema, { maxBytes: REGION_SAVE_MAX_BYTES });
   try {

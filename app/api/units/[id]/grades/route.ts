@@ -1,5 +1,3 @@
-import { requireUser } from "@/lib/auth/require-user";
-import { INSPECTION_READERS } from "@/lib/auth/roles";
 import { gradeHistory, recordGrade } from "@/lib/grading/grades";
 import { recordGradeSchema } from "@/lib/grading/schemas";
 import { requireUnit } from "@/lib/grading/unit-grading";
@@ -7,8 +5,7 @@ import { handler, parseJson } from "@/lib/http/route";
 import { parseId } from "@/lib/validation";
 
 /** The unit's append-only grade history, oldest first, and its current grade. */
-export const GET = handler(async (_req, ctx: RouteContext<"/api/units/[id]/grades">) => {
-  const user = await requireUser({ role: INSPECTION_READERS });
+export const GET = handler({ permission: "inspection.read" }, async (_req, ctx: RouteContext<"/api/units/[id]/grades">, user) => {
   const unitId = parseId((await ctx.params).id, "That unit");
   return Response.json(await gradeHistory(user, unitId));
 });
@@ -19,8 +16,7 @@ export const GET = handler(async (_req, ctx: RouteContext<"/api/units/[id]/grade
  * when that is no longer current). A repeat with the same `idempotencyKey` answers 200 with the
  * row the first request made.
  */
-export const POST = handler(async (req, ctx: RouteContext<"/api/units/[id]/grades">) => {
-  const user = await requireUser({ role: "inspector" });
+export const POST = handler({ permission: "grades.record" }, async (req, ctx: RouteContext<"/api/units/[id]/grades">, user) => {
   const unitId = parseId((await ctx.params).id, "That unit");
   await requireUnit(user, unitId);
   const input = await parseJson(req, recordGradeSchema);

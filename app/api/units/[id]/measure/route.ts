@@ -1,5 +1,3 @@
-import { requireUser } from "@/lib/auth/require-user";
-import { INSPECTION_READERS } from "@/lib/auth/roles";
 import { ComputeBusy, ComputeTimeout } from "@/lib/compute/pool";
 import { DeadlineExceeded } from "@/lib/grading/grade-unit";
 import { MEASURE_INLINE_BUDGET_MS, measureQuerySchema, measureSchema } from "@/lib/grading/schemas";
@@ -14,8 +12,7 @@ import { parseId } from "@/lib/validation";
  * or when the threads are busy, or with `{ "mode": "queue" }` — queues a "measure-unit" job and
  * answers 202 with its id: poll GET ?jobId=… for the result. The body is optional.
  */
-export const POST = handler(async (req, ctx: RouteContext<"/api/units/[id]/measure">) => {
-  const user = await requireUser({ role: "inspector" });
+export const POST = handler({ permission: "regions.edit" }, async (req, ctx: RouteContext<"/api/units/[id]/measure">, user) => {
   const unitId = parseId((await ctx.params).id, "That unit");
   await requireUnit(user, unitId);
   const { mode = "auto" } = await parseJson(req, measureSchema, { allowEmpty: true, maxBytes: 1024 });
@@ -39,8 +36,7 @@ export const POST = handler(async (req, ctx: RouteContext<"/api/units/[id]/measu
 });
 
 /** The latest measurement with its staleness; with ?jobId= also the state of a queued measurement. */
-export const GET = handler(async (req, ctx: RouteContext<"/api/units/[id]/measure">) => {
-  const user = await requireUser({ role: INSPECTION_READERS });
+export const GET = handler({ permission: "inspection.read" }, async (req, ctx: RouteContext<"/api/units/[id]/measure">, user) => {
   const unitId = parseId((await ctx.params).id, "That unit");
   await requireUnit(user, unitId);
   const { jobId } = parseQuery(req, measureQuerySchema);

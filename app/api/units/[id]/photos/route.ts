@@ -1,17 +1,14 @@
-import { requireUser } from "@/lib/auth/require-user";
-import { INSPECTION_READERS } from "@/lib/auth/roles";
 import { handler, parseJson, parseQuery } from "@/lib/http/route";
 import { toPhotoDto } from "@/lib/photos/dto";
 import { finaliseUpload } from "@/lib/photos/finalise";
 import { answeringRejections } from "@/lib/photos/http";
 import { loadUnit } from "@/lib/photos/intents";
-import { listUnitPhotos } from "@/lib/photos/queries";
+import { listUnitPhotos } from "@/db/queries/photos";
 import { finaliseQuerySchema, finaliseSchema } from "@/lib/photos/schemas";
 import { parseId } from "@/lib/validation";
 
 /** The unit's photos with their status and uploader, and apart from them those taken out of it (inspection work: not for auditors). */
-export const GET = handler(async (_req, ctx: RouteContext<"/api/units/[id]/photos">) => {
-  const user = await requireUser({ role: INSPECTION_READERS });
+export const GET = handler({ permission: "inspection.read" }, async (_req, ctx: RouteContext<"/api/units/[id]/photos">, user) => {
   const unit = await loadUnit(user, parseId((await ctx.params).id, "That unit"));
   const key = { workspaceId: user.workspaceId, unitId: unit.id };
   const [photos, removed] = await Promise.all([listUnitPhotos(key), listUnitPhotos({ ...key, removed: true })]);
@@ -23,8 +20,7 @@ export const GET = handler(async (_req, ctx: RouteContext<"/api/units/[id]/photo
  * same photo (a repeated request, or the same bytes already on this unit), 4xx for refused files
  * (nothing is kept), 503 when the store is unreachable (retry later with the same ticket).
  */
-export const POST = handler(async (req, ctx: RouteContext<"/api/units/[id]/photos">) => {
-  const user = await requireUser({ role: "inspector" });
+export const POST = handler({ permission: "photos.capture" }, async (req, ctx: RouteContext<"/api/units/[id]/photos">, user) => {
   const unitId = parseId((await ctx.params).id, "That unit");
   await loadUnit(user, unitId);
   const query = parseQuery(req, finaliseQuerySchema);

@@ -1,11 +1,9 @@
-import { requireUser } from "@/lib/auth/require-user";
 import { handler, parseJson } from "@/lib/http/route";
 import { reassignUnit } from "@/lib/queue/queue";
 import { reassignSchema } from "@/lib/queue/schemas";
 import { parseId } from "@/lib/validation";
 
-export const POST = handler(async (req, ctx: RouteContext<"/api/units/[id]/lease/reassign">) => {
-  const user = await requireUser({ role: "lead" });
+export const POST = handler({ permission: "leases.manage" }, async (req, ctx: RouteContext<"/api/units/[id]/lease/reassign">, user) => {
   const unitId = parseId((await ctx.params).id, "That unit");
   const { userId } = await parseJson(req, reassignSchema);
   await reassignUnit({ user, unitId, toUserId: userId });

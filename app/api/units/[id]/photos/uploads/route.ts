@@ -1,4 +1,3 @@
-import { requireUser } from "@/lib/auth/require-user";
 import { handler, parseJson } from "@/lib/http/route";
 import { answeringRejections } from "@/lib/photos/http";
 import { createUploadIntent, loadUnit } from "@/lib/photos/intents";
@@ -6,8 +5,7 @@ import { uploadIntentSchema } from "@/lib/photos/schemas";
 import { parseId } from "@/lib/validation";
 
 /** Step 1 of an upload: a presigned PUT URL for one file and the ticket that finalises it. */
-export const POST = handler(async (req, ctx: RouteContext<"/api/units/[id]/photos/uploads">) => {
-  const user = await requireUser({ role: "inspector" });
+export const POST = handler({ permission: "photos.capture" }, async (req, ctx: RouteContext<"/api/units/[id]/photos/uploads">, user) => {
   const unitId = parseId((await ctx.params).id, "That unit");
   await loadUnit(user, unitId);
   const input = await parseJson(req, uploadIntentSchema);

@@ -1,9 +1,13 @@
 import "server-only";
-/** Reads for photo intake, always scoped by workspace in the WHERE clause. */
+/**
+ * Photo rows: the reads of intake and the Bench, and the writes people make (upload, view change,
+ * withdrawal, removal). Always scoped by workspace in the WHERE clause, except the worker's
+ * reads by id. The worker's and the sweep's writes are in ./photo-processing.ts.
+ */
 import { and, asc, eq, isNotNull, isNull, ne, sql } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
 import { db, type DbOrTx } from "@/db/client";
-import { lots, partTypes, photos, units, users, type Photo, type ViewDefinition } from "@/db/schema";
+import { lots, partTypes, photos, units, users, type NewPhoto, type Photo, type ViewDefinition } from "@/db/schema";
 
 export type UnitForPhotos = {
   id: string;
@@ -35,9 +39,6 @@ export async function getUnitForPhotos({ workspaceId, unitId }: { workspaceId: s
     .limit(1);
   return row ?? null;
 }
-
-export const unitLabel = (u: { serial: string | null; sampleIndex: number; purchaseRef: string }) =>
-  u.serial ? `${u.serial} (${u.purchaseRef})` : `Sample ${u.sampleIndex} of ${u.purchaseRef}`;
 
 const reusedPhoto = alias(photos, "reused_photo");
 const reusedUnit = alias(units, "reused_unit");
@@ -134,4 +135,34 @@ export async function findReuseCandidate({ workspaceId, unitId, sha256 }: { work
     .orderBy(asc(photos.createdAt))
     .limit(1);
   return row ?? null;
+}
+
+export async function insertPhotoRow(tx: DbOrTx, row: NewPhoto) {
+  await tx.insert(photos).values(row);
+}
+
+type PhotoKey = { workspaceId: string; photoId: string };
+/** Only photos still in their unit change; the rest are records. */
+const currentPhoto = ({ workspaceId, photoId }: PhotoKey) => and(eq(photos.workspaceId, workspaceId), eq(photos.id, photoId), isNull(photos.removedAt));
+
+/** Files the photo under another view; false when it was taken out meanwhile. */
+export async function updatePhotoView(tx: DbOrTx, { viewKey, ...key }: PhotoKey & { viewKey: string }): Promise<boolean> {
+  const rows = await tx.update(photos).set({ viewKey, updatedAt: new Date() }).where(currentPhoto(key)).returning({ id: photos.id });
+  return rows.length > 0;
+}
+
+/** Takes the photo out of its unit but keeps it (and its objects) as a record; false when already out. */
+export async function withdrawPhoto(tx: DbOrTx, { removedBy, reason, ...key }: PhotoKey & { removedBy: string; reason: string }): Promise<boolean> {
+  const rows = await tx
+    .update(photos)
+    .set({ removedAt: new Date(), removedBy, removalReason: reason, updatedAt: new Date() })
+    .where(currentPhoto(key))
+    .returning({ id: photos.id });
+  return rows.length > 0;
+}
+
+/** Deletes a photo still in its unit; false when it was taken out meanwhile. */
+export async function deleteCurrentPhoto(tx: DbOrTx, key: PhotoKey): Promise<boolean> {
+  const rows = await tx.delete(photos).where(currentPhoto(key)).returning({ id: photos.id });
+  return rows.length > 0;
 }
