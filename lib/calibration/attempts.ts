@@ -47,7 +47,8 @@ export async function openAttempt(taker: Taker, assignmentId: string): Promise<{
   return { attemptId };
 }
 
-async function ownAttempt(taker: Taker, attemptId: string) {
+/** One's own attempt; anyone else's answers 404, as a missing one. */
+export async function ownAttempt(taker: Taker, attemptId: string) {
   const attempt = await getAttempt({ workspaceId: taker.workspaceId, attemptId });
   if (!attempt || attempt.userId !== taker.id) throw notFound(ATTEMPT_NOT_FOUND);
   return attempt;
