@@ -131,6 +131,20 @@ describe("taking a set blind, then the score and the key", () => {
     const saved = await api(inspector, "PUT", `/api/calibration/attempts/${attemptId}/answers`, answer(1, SCRATCHED.regions, "C"));
     expect(saved.status, JSON.stringify(saved.body)).toBe(200);
     expectBlind("a saved answer", { ...(saved.body as object), answer: { ...(saved.body as { answer: object }).answer, regions: "(own)" } });
+    // The taker's own numbers, as on the Bench: their saved scratch (12 × 10 px, counted by hand) and nothing of the key.
+    type MeasurementBody = { measurement: { measurement: { photoId: string; byDefect: Record<string, { px: number; count: number }> }; rubric: { proposal: { grade: string } } | null; savedAt: string | null } };
+    const measured = await api<MeasurementBody>(inspector, "GET", `/api/calibration/attempts/${attemptId}/measurement?position=1`);
+    expect(measured.status, JSON.stringify(measured.body)).toBe(200);
+    expectBlind("the taker's measurement", measured.body);
+    expect(measured.body.measurement.measurement.photoId).toBe("item-1");
+    expect(measured.body.measurement.measurement.byDefect.scratch).toMatchObject({ px: 120, count: 1 });
+    expect(measured.body.measurement.savedAt).not.toBeNull();
+    const unsaved = await api<MeasurementBody>(inspector, "GET", `/api/calibration/attempts/${attemptId}/measurement?position=3`);
+    expect(unsaved.status).toBe(200);
+    expectBlind("an unsaved item's measurement", unsaved.body);
+    expect(unsaved.body.measurement).toMatchObject({ savedAt: null, measurement: { byDefect: {} } });
+    expect((await api<ErrorBody>(inspector, "GET", `/api/calibration/attempts/${attemptId}/measurement?position=x`)).status).toBe(400);
+    expect((await api<ErrorBody>(inspector, "GET", `/api/calibration/attempts/${attemptId}/measurement?position=9`)).status).toBe(404);
     const early = await api<ErrorBody>(inspector, "POST", `/api/calibration/attempts/${attemptId}/submit`);
     expect(early.status).toBe(409);
     expectBlind("a refused submission", early.body);
@@ -157,6 +171,7 @@ describe("taking a set blind, then the score and the key", () => {
     expect((await api(otherInspector, "GET", `/api/calibration/attempts/${attemptId}`)).status).toBe(404);
     expect((await api(otherInspector, "PUT", `/api/calibration/attempts/${attemptId}/answers`, answer(2, [], "A"))).status).toBe(404);
     expect((await api(otherInspector, "GET", `/api/calibration/attempts/${attemptId}/image?position=2`)).status).toBe(404);
+    expect((await api(otherInspector, "GET", `/api/calibration/attempts/${attemptId}/measurement?position=1`)).status).toBe(404);
   });
 
   it("refuses a bad answer with a 400, keeping the answers as they were", async () => {

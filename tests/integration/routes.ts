@@ -154,6 +154,7 @@ export const ROUTES: RouteRow[] = [
   { method: "GET", path: "/api/calibration/attempts/:calibrationAttemptId", permission: "calibration.take", allowedStatus: [200, 404] },
   { method: "PUT", path: "/api/calibration/attempts/:calibrationAttemptId/answers", permission: "calibration.take", body: () => ({ position: 1, grade: "C", regions: { regions: [], surfaces: [], ruler: null } }), allowedStatus: [200, 404] },
   { method: "GET", path: "/api/calibration/attempts/:calibrationAttemptId/image?position=1", permission: "calibration.take", allowedStatus: [200, 404] },
+  { method: "GET", path: "/api/calibration/attempts/:calibrationAttemptId/measurement?position=1", permission: "calibration.take", allowedStatus: [200, 404] },
   // Four items have no grade yet: the lead's submit is refused (409); scoring itself is in calibration.test.ts.
   { method: "POST", path: "/api/calibration/attempts/:calibrationAttemptId/submit", permission: "calibration.take", allowedStatus: [409, 404] },
 ];
