@@ -3,6 +3,7 @@ import { sql, type SQL } from "drizzle-orm";
 import { PgDialect } from "drizzle-orm/pg-core";
 import Cursor from "pg-cursor";
 import { pool } from "@/db/client";
+import type { Shape } from "@/lib/geometry/shape";
 import type { ExportKind, ReportFilter } from "@/lib/reports/filters";
 import { gradedUnitFilterSql, lotFilterSql } from "./reports";
 
@@ -29,7 +30,7 @@ export type GradeExportRow = {
 };
 export type DefectExportRow = {
   region_id: string; unit_id: string; serial: string | null; lot_id: string; purchase_ref: string; supplier: string; part_type: string; photo_id: string; view: string;
-  defect_class: string; shape: import("@/lib/geometry/shape").Shape; px_per_mm: number | null; calibration: string | null;
+  defect_class: string; shape: Shape; px_per_mm: number | null; calibration: string | null;
   class_px: number | null; class_share: number | null; class_count: number | null; class_area_mm2: number | null; class_max_length_mm: number | null; measured_at: string | null;
 };
 export type ExportRow = { lots: LotExportRow; units: UnitExportRow; grades: GradeExportRow; defects: DefectExportRow };
