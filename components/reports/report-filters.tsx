@@ -14,8 +14,8 @@ export function ReportFilters({ params, ignored, options }: { params: ReportPara
   return (
     <div className="space-y-3">
       <IgnoredParamsNote ignored={ignored} labels={REPORT_PARAM_LABELS} />
-      <Form action="/reports" className="card grid items-end gap-3 p-4 sm:grid-cols-2 lg:grid-cols-6" role="search" aria-label="Filter reports">
-        <label className="block lg:col-span-2">
+      <Form action="/reports" className="card grid items-end gap-3 p-4 sm:grid-cols-2 lg:grid-cols-3 xl:grid-cols-6" role="search" aria-label="Filter reports">
+        <label className="block xl:col-span-2">
           <span className="field-label">Supplier</span>
           <select name="supplierId" className="field-input" defaultValue={params.supplierId ?? ""}>
             <option value="">All suppliers</option>
@@ -52,8 +52,8 @@ export function ReportFilters({ params, ignored, options }: { params: ReportPara
             <option value="week">Week</option>
           </select>
         </label>
-        <p className="text-xs text-gauge-600 sm:col-span-2 lg:col-span-4">Lots count by the day they were received; grades and throughput by the day units were graded.</p>
-        <div className="flex gap-2 lg:col-span-2 lg:justify-end">
+        <p className="text-xs text-gauge-600 sm:col-span-2 xl:col-span-4">Lots count by the day they were received; grades and throughput by the day units were graded.</p>
+        <div className="flex gap-2 sm:justify-end lg:col-span-1 xl:col-span-2">
           <Link href="/reports" className="btn-secondary">
             Clear
           </Link>

@@ -101,7 +101,8 @@ export type ScorecardLotRow = {
  */
 export async function listScorecardLots({ workspaceId, filter }: { workspaceId: string; filter: ReportFilter }, tx: DbOrTx = db()): Promise<ScorecardLotRow[]> {
   const { rows } = await tx.execute<{ id: string; supplier_id: string; received_on: string; status: "open" | "decided"; verdict: "accept" | "reject" | null; decision_counts: LotDecisionCounts | null; inspected: number; classes: Record<string, { units: number; defects: number }> | null }>(sql`
-    WITH filtered AS (SELECT l.* FROM lots l WHERE ${lotFilterSql(workspaceId, filter)}),
+    -- A decided lot always has a verdict when the app decides it (lib/lots); rows written otherwise are left out.
+    WITH filtered AS (SELECT l.* FROM lots l WHERE ${lotFilterSql(workspaceId, filter)} AND (l.status = 'open' OR l.verdict IS NOT NULL)),
     current_grades AS (
       SELECT DISTINCT ON (g.unit_id) g.unit_id, u.lot_id, g.measurement_ids
       FROM grades g JOIN units u ON u.id = g.unit_id AND u.workspace_id = g.workspace_id
