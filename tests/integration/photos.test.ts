@@ -10,7 +10,7 @@ import { db } from "@/db/client";
 import { photos, units } from "@/db/schema";
 import { api, signIn, type Session } from "../support/http";
 import { createUser, TEST_PASSWORD, uniqueEmail, workspaceBySlug } from "../support/db";
-import { makePhotoLikeJpeg } from "../support/fixtures/make-photos";
+import { makePhotoLikeJpeg } from "@/support/fixtures/make-photos";
 import { createPhotoUnits, fetchBytes, finalise, photoRowsFor, putToStore, requestUpload, storedKeysFor, uploadPhoto, waitForPhoto, type PhotoJson } from "../support/photos";
 
 let inspector: Session;
