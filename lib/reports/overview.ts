@@ -26,7 +26,12 @@ export function scorecardInput(row: ScorecardLotRow): SupplierLotRow {
   const bySeverity = Object.fromEntries(
     SEVERITY_ORDER.map((severity) => {
       const counts = row.status === "decided" ? row.decisionCounts?.[severity] : undefined;
-      return [severity, { inspected: counts?.inspected ?? 0, defectives: counts?.found ?? 0 }];
+      // A unit with a nonconformity counts as defective before all its checks are done
+      // (lib/lots/verdict.ts), so a decision may record more defectives than fully inspected
+      // units; such units were examined, so they count as inspected too (the larger of the two:
+      // a lower bound of the units examined, which keeps the rate at most 100).
+      const defectives = counts?.found ?? 0;
+      return [severity, { inspected: Math.max(counts?.inspected ?? 0, defectives), defectives }];
     }),
   ) as Record<DefectSeverity, { inspected: number; defectives: number }>;
   return { supplierId: row.supplierId, receivedOn: row.receivedOn, status: row.status, verdict: row.verdict, bySeverity, inspected: row.inspected, classes: row.classes };

@@ -22,6 +22,10 @@ describe("scorecardInput", () => {
     expect(row.bySeverity).toEqual({ critical: { inspected: 5, defectives: 0 }, major: { inspected: 5, defectives: 2 }, minor: { inspected: 3, defectives: 1 } });
     expect(row.classes).toEqual(base.classes);
   });
+  it("defectives found before every check was done count as examined units (never more defectives than inspected)", () => {
+    const row = scorecardInput({ ...base, status: "decided", verdict: "reject", decisionCounts: { critical: { found: 1, inspected: 0, sampleSize: 5 }, major: { found: 0, inspected: 0, sampleSize: 5 }, minor: { found: 0, inspected: 0, sampleSize: 5 } } });
+    expect(row.bySeverity.critical).toEqual({ inspected: 1, defectives: 1 });
+  });
   it("an open lot adds nothing per severity yet, but its graded units' classes", () => {
     const row = scorecardInput({ ...base, status: "open", verdict: null, decisionCounts: null });
     expect(row.bySeverity.major).toEqual({ inspected: 0, defectives: 0 });
