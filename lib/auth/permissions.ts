@@ -50,10 +50,11 @@ export const PERMISSIONS = {
    * A unit's inspection work: its photos' details, regions, measurements, proposals, grades and
    * the Bench that shows them. Not auditors: a blind recheck must not see the first grader's
    * regions, grade, override reason or name; they will see graded work on the Recheck screens,
-   * after their own grade. Not trainers yet: nothing they do today reads a real unit (the Rubrics
-   * preview grades typed sample readings); the Gallery may add them.
+   * after their own grade. Trainers read it (view only): they promote a graded unit's photo into
+   * the Gallery from its Bench, so they must see its regions and grade; they are never blind
+   * re-checkers, and nothing they can do there changes a unit (no `units.record` or `regions.edit`).
    */
-  "inspection.read": { roles: ["inspector"], what: "read a unit's inspection work (the Bench)" },
+  "inspection.read": { roles: ["inspector", "trainer"], what: "read a unit's inspection work (the Bench)" },
   /** Only the image bytes; the photo's details and regions are `inspection.read`. */
   "photos.view": { roles: EVERYONE, what: "see photo images (thumbnail, preview, original)" },
   "photos.capture": { roles: ["inspector"], what: "upload, retry and remove a unit's photos" },
@@ -65,6 +66,8 @@ export const PERMISSIONS = {
   // Screens still planned: their permissions are named now so that the features use names.
   "gallery.read": { roles: EVERYONE, what: "browse the Gallery and its reference panel on the Bench" },
   "gallery.edit": { roles: ["trainer"], what: "add, edit, publish and retire Gallery items" },
+  /** Trainers curate what the model learns from (the Gallery), so they watch its figures and retrain it. */
+  "suggestions.manage": { roles: ["trainer"], what: "see the learned-suggestion models with their held-out figures, and start a training" },
   "calibration.read": { roles: ["inspector", "trainer"], what: "open the Calibration screen" },
   "calibration.take": { roles: ["inspector"], what: "take an assigned calibration set" },
   "calibration.manage": { roles: ["trainer"], what: "assemble calibration sets, assign them and see every attempt" },
