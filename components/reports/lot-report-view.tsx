@@ -1,7 +1,8 @@
 import { VerdictBadge } from "@/components/lots/badges";
-import { SEVERITY_ORDER } from "@/lib/lots/plan";
+import { DEFECT_SEVERITIES as SEVERITY_ORDER } from "@/lib/part-types/severity";
 import { DISPOSITION_LABELS } from "@/lib/lots/schemas";
-import { formatAql, formatShare, GRADE_CAUTION, SEVERITY_LABELS } from "@/lib/reports/format";
+import { formatAql, formatShare, GRADE_CAUTION } from "@/lib/reports/format";
+import { DEFECT_SEVERITY_LABELS as SEVERITY_LABELS } from "@/lib/part-types/severity";
 import type { LotReportData, LotReportPlanRow } from "@/lib/reports/lot-report-data";
 import { paretoRows } from "@/lib/reports/pareto";
 import { formatInstant } from "@/lib/time/format";

@@ -1,7 +1,8 @@
 import "server-only";
 import { sql, type SQL } from "drizzle-orm";
 import { db, type DbOrTx } from "@/db/client";
-import type { DefectSeverity, LotDecisionCounts } from "@/db/schema/lots";
+import type { LotDecisionCounts } from "@/db/schema/lots";
+import type { DefectSeverity } from "@/lib/part-types/severity";
 import type { Grade } from "@/lib/grading/rubric-schema";
 import type { ReportFilter } from "@/lib/reports/filters";
 

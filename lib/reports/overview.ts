@@ -11,8 +11,8 @@ import "server-only";
  * - Throughput's range is the filter's days, or the first to last day with a grade when none given.
  */
 import { countGradesByDay, listInspectionGrades, listScorecardLots, listUnitClaimEvents, type ScorecardLotRow } from "@/db/queries/reports";
-import type { DefectSeverity } from "@/db/schema/lots";
-import { SEVERITY_ORDER } from "@/lib/lots/plan";
+import type { DefectSeverity } from "@/lib/part-types/severity";
+import { DEFECT_SEVERITIES as SEVERITY_ORDER } from "@/lib/part-types/severity";
 import { localDate } from "@/lib/time/periods";
 import { benchTime, type BenchEvent } from "./bench-time";
 import type { ReportFilter } from "./filters";
