@@ -18,7 +18,12 @@ export function AnswerMeasurementPanel({ attemptId, position, savedAt, labels }:
     queryFn: () => apiFetch<{ measurement: AnswerMeasurement }>(`/api/calibration/attempts/${attemptId}/measurement?position=${position}`),
     staleTime: 60_000,
   });
-  if (query.isPending) return <p className="text-sm text-gauge-700" role="status">Measuring your regions…</p>;
+  if (query.isPending)
+    return (
+      <p className="text-sm text-gauge-700" role="status">
+        Measuring your regions…
+      </p>
+    );
   if (query.isError) return <p className="text-sm text-fault-700">Your regions could not be measured: {query.error.message}</p>;
   const { measurement, notes, rubric } = query.data.measurement;
   return (

@@ -37,7 +37,13 @@ export function AssignForm({ setId, people, defaultDue }: { setId: string; peopl
           {people.map((p) => (
             <li key={p.id}>
               <label className="flex items-center gap-2 text-sm">
-                <input type="checkbox" checked={chosen.includes(p.id)} onChange={() => setChosen((now) => (now.includes(p.id) ? now.filter((id) => id !== p.id) : [...now, p.id]))} data-testid="assign-person" data-name={p.name} />
+                <input
+                  type="checkbox"
+                  checked={chosen.includes(p.id)}
+                  onChange={() => setChosen((now) => (now.includes(p.id) ? now.filter((id) => id !== p.id) : [...now, p.id]))}
+                  data-testid="assign-person"
+                  data-name={p.name}
+                />
                 {p.name}
                 {p.assignedDue && <span className="text-xs text-gauge-600">(assigned, due {p.assignedDue})</span>}
               </label>

@@ -14,7 +14,18 @@ import { apiFetch } from "@/lib/http/client";
 import { AnswerMeasurementPanel } from "./answer-measurement";
 
 /** One item as a taker sees it before submitting: where it is and what to mark it with, nothing of the key. */
-export type BlindItem = { position: number; partTypeName: string; viewLabel: string; width: number | null; height: number | null; previewWidth: number | null; previewHeight: number | null; allowedDefects: AllowedDefect[]; zones: ZoneInput[]; labels: MeasurementLabels };
+export type BlindItem = {
+  position: number;
+  partTypeName: string;
+  viewLabel: string;
+  width: number | null;
+  height: number | null;
+  previewWidth: number | null;
+  previewHeight: number | null;
+  allowedDefects: AllowedDefect[];
+  zones: ZoneInput[];
+  labels: MeasurementLabels;
+};
 
 const EMPTY: RegionSetPayload = { regions: [], surfaces: [], ruler: null };
 /** Region edits are saved this long after the last one (a grade is saved at once). */
@@ -130,7 +141,15 @@ export function AttemptTaker({ attemptId, setName, items, initialAnswers }: { at
         {items.map((i) => {
           const done = Boolean(answers[String(i.position)]?.grade);
           return (
-            <button key={i.position} type="button" onClick={() => go(i.position)} aria-current={i.position === position ? "step" : undefined} className={`min-w-10 rounded-md border px-2 py-1 text-sm tabular-nums ${i.position === position ? "border-gauge-800 bg-gauge-800 text-white" : done ? "border-ok-600 bg-ok-50" : "border-gauge-300 bg-white"}`} data-testid="attempt-item-button" data-done={done}>
+            <button
+              key={i.position}
+              type="button"
+              onClick={() => go(i.position)}
+              aria-current={i.position === position ? "step" : undefined}
+              className={`min-w-10 rounded-md border px-2 py-1 text-sm tabular-nums ${i.position === position ? "border-gauge-800 bg-gauge-800 text-white" : done ? "border-ok-600 bg-ok-50" : "border-gauge-300 bg-white"}`}
+              data-testid="attempt-item-button"
+              data-done={done}
+            >
               {i.position}
               {done && <span className="sr-only"> (graded)</span>}
             </button>
@@ -152,7 +171,9 @@ export function AttemptTaker({ attemptId, setName, items, initialAnswers }: { at
               className="min-h-0 flex-1"
             />
           ) : (
-            <p className="flex flex-1 items-center justify-center rounded-lg border border-dashed border-gauge-300 p-6 text-sm text-gauge-700">This item&apos;s photo is not available; tell your trainer.</p>
+            <p className="flex flex-1 items-center justify-center rounded-lg border border-dashed border-gauge-300 p-6 text-sm text-gauge-700">
+              This item&apos;s photo is not available; tell your trainer.
+            </p>
           )}
         </div>
         <div className="card space-y-3 self-start p-4">
@@ -166,7 +187,10 @@ export function AttemptTaker({ attemptId, setName, items, initialAnswers }: { at
             <legend className="field-label">Your grade</legend>
             <div className="mt-1 grid grid-cols-4 gap-1">
               {GRADES.map((g) => (
-                <label key={g} className={`cursor-pointer rounded-md border px-2 py-1.5 text-center text-sm font-semibold ${answer?.grade === g ? "border-gauge-800 bg-gauge-800 text-white" : "border-gauge-300"}`}>
+                <label
+                  key={g}
+                  className={`cursor-pointer rounded-md border px-2 py-1.5 text-center text-sm font-semibold ${answer?.grade === g ? "border-gauge-800 bg-gauge-800 text-white" : "border-gauge-300"}`}
+                >
                   <input type="radio" name="grade" value={g} checked={answer?.grade === g} onChange={() => onGrade(g)} className="sr-only" data-testid={`answer-grade-${g}`} />
                   {g}
                 </label>

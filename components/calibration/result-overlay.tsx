@@ -48,13 +48,31 @@ function ShapeOutline({ shape, stroke, width, dash, minSpot }: { shape: Shape; s
   }
 }
 
-export function ResultOverlay({ id, original, keyRegions, mine, areas }: { id: string; original: { width: number; height: number }; keyRegions: RegionSetPayload; mine: RegionSetPayload; areas: Record<string, { missed: PixelRect[]; extra: PixelRect[] }> }) {
+export function ResultOverlay({
+  id,
+  original,
+  keyRegions,
+  mine,
+  areas,
+}: {
+  id: string;
+  original: { width: number; height: number };
+  keyRegions: RegionSetPayload;
+  mine: RegionSetPayload;
+  areas: Record<string, { missed: PixelRect[]; extra: PixelRect[] }>;
+}) {
   const minSpot = Math.max(original.width, original.height) / 150;
   // Hatching in photo pixels, sized so it reads at the preview's scale.
   const scale = Math.max(1, Math.max(original.width, original.height) / 800);
   const all = Object.values(areas);
   return (
-    <svg viewBox={`0 0 ${original.width} ${original.height}`} preserveAspectRatio="xMidYMid meet" className="pointer-events-none absolute inset-0 h-full w-full" aria-hidden data-testid="result-overlay">
+    <svg
+      viewBox={`0 0 ${original.width} ${original.height}`}
+      preserveAspectRatio="xMidYMid meet"
+      className="pointer-events-none absolute inset-0 h-full w-full"
+      aria-hidden
+      data-testid="result-overlay"
+    >
       <ResultPatterns id={id} scale={scale} />
       <g data-kind="missed">{all.flatMap((a, i) => a.missed.map((r, k) => <rect key={`${i}-${k}`} x={r.x} y={r.y} width={r.width} height={r.height} fill={`url(#${id}-missed)`} />))}</g>
       <g data-kind="extra">{all.flatMap((a, i) => a.extra.map((r, k) => <rect key={`${i}-${k}`} x={r.x} y={r.y} width={r.width} height={r.height} fill={`url(#${id}-extra)`} />))}</g>

@@ -3,7 +3,14 @@ import type { CalibrationItemScore } from "@/lib/calibration/score-item";
 import type { ItemDifficulty } from "@/lib/calibration/item-difficulty";
 import { percent, twoPlaces } from "@/lib/calibration/format";
 
-type AttemptRow = { id: string; userName: string; submittedAt: Date | null; passed: boolean | null; summary: CalibrationSummary | null; items: (Omit<CalibrationItemScore, "areas"> & { position: number })[] };
+type AttemptRow = {
+  id: string;
+  userName: string;
+  submittedAt: Date | null;
+  passed: boolean | null;
+  summary: CalibrationSummary | null;
+  items: (Omit<CalibrationItemScore, "areas"> & { position: number })[];
+};
 
 /**
  * The trainer's reading of a set's submitted attempts: one row per person with the verdict and
@@ -28,11 +35,21 @@ export function SetAttempts({ attempts, itemCount, mostMissed }: { attempts: Att
             <table className="min-w-full text-sm" data-testid="attempt-table">
               <thead className="bg-gauge-50 text-left text-xs uppercase tracking-wide text-gauge-600">
                 <tr>
-                  <th scope="col" className="px-3 py-2">Person</th>
-                  <th scope="col" className="px-3 py-2">Result</th>
-                  <th scope="col" className="px-3 py-2">Grades as key</th>
-                  <th scope="col" className="px-3 py-2">Weighted kappa</th>
-                  <th scope="col" className="px-3 py-2">Mean IoU by class</th>
+                  <th scope="col" className="px-3 py-2">
+                    Person
+                  </th>
+                  <th scope="col" className="px-3 py-2">
+                    Result
+                  </th>
+                  <th scope="col" className="px-3 py-2">
+                    Grades as key
+                  </th>
+                  <th scope="col" className="px-3 py-2">
+                    Weighted kappa
+                  </th>
+                  <th scope="col" className="px-3 py-2">
+                    Mean IoU by class
+                  </th>
                   {positions.map((p) => (
                     <th key={p} scope="col" className="px-2 py-2 text-center">
                       #{p}
@@ -62,10 +79,20 @@ export function SetAttempts({ attempts, itemCount, mostMissed }: { attempts: Att
                       </td>
                       {positions.map((p) => {
                         const item = byPosition.get(p);
-                        if (!item) return <td key={p} className="px-2 py-2 text-center">—</td>;
+                        if (!item)
+                          return (
+                            <td key={p} className="px-2 py-2 text-center">
+                              —
+                            </td>
+                          );
                         const tone = item.grade.exact && item.missed === 0 ? "bg-ok-50" : "bg-fault-50";
                         return (
-                          <td key={p} className={`px-2 py-2 text-center text-xs whitespace-nowrap ${tone}`} data-testid="attempt-cell" title={`Key ${item.grade.key}, given ${item.grade.given}; ${item.matched} found, ${item.missed} missed, ${item.extra} extra`}>
+                          <td
+                            key={p}
+                            className={`px-2 py-2 text-center text-xs whitespace-nowrap ${tone}`}
+                            data-testid="attempt-cell"
+                            title={`Key ${item.grade.key}, given ${item.grade.given}; ${item.matched} found, ${item.missed} missed, ${item.extra} extra`}
+                          >
                             {item.grade.given}
                             {item.grade.exact ? " ✓" : ` (key ${item.grade.key})`}
                             {(item.missed > 0 || item.extra > 0) && (

@@ -47,7 +47,15 @@ export function SetBuilder({ items, more }: { items: BuilderItem[]; more: boolea
           <label htmlFor={nameId} className="field-label">
             Name
           </label>
-          <input id={nameId} className="field-input" value={name} maxLength={120} onChange={(e) => setName(e.target.value)} placeholder="e.g. Camera modules, front view, spring round" data-testid="set-name" />
+          <input
+            id={nameId}
+            className="field-input"
+            value={name}
+            maxLength={120}
+            onChange={(e) => setName(e.target.value)}
+            placeholder="e.g. Camera modules, front view, spring round"
+            data-testid="set-name"
+          />
         </div>
         <label className="field-label">
           Pass: grades as the key (%)

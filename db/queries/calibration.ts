@@ -63,7 +63,11 @@ export function listSets({ workspaceId }: { workspaceId: string }) {
 }
 
 export async function getSet({ workspaceId, setId }: SetKey, tx: DbOrTx = db()) {
-  const [row] = await tx.select(setColumns).from(calibrationSets).where(and(eq(calibrationSets.workspaceId, workspaceId), eq(calibrationSets.id, setId))).limit(1);
+  const [row] = await tx
+    .select(setColumns)
+    .from(calibrationSets)
+    .where(and(eq(calibrationSets.workspaceId, workspaceId), eq(calibrationSets.id, setId)))
+    .limit(1);
   return row ?? null;
 }
 
@@ -174,7 +178,9 @@ export function listUserAssignments({ workspaceId, userId }: { workspaceId: stri
 }
 
 export async function getAssignment({ workspaceId, assignmentId }: { workspaceId: string; assignmentId: string }, tx: DbOrTx = db()) {
-  const [row] = await selectAssignments(tx).where(and(eq(calibrationAssignments.workspaceId, workspaceId), eq(calibrationAssignments.id, assignmentId))).limit(1);
+  const [row] = await selectAssignments(tx)
+    .where(and(eq(calibrationAssignments.workspaceId, workspaceId), eq(calibrationAssignments.id, assignmentId)))
+    .limit(1);
   return row ?? null;
 }
 
@@ -191,13 +197,21 @@ export async function startAttempt(tx: DbOrTx, row: { workspaceId: string; assig
 type AttemptKey = { workspaceId: string; attemptId: string };
 
 export async function getAttempt({ workspaceId, attemptId }: AttemptKey, tx: DbOrTx = db()) {
-  const [row] = await tx.select().from(calibrationAttempts).where(and(eq(calibrationAttempts.workspaceId, workspaceId), eq(calibrationAttempts.id, attemptId))).limit(1);
+  const [row] = await tx
+    .select()
+    .from(calibrationAttempts)
+    .where(and(eq(calibrationAttempts.workspaceId, workspaceId), eq(calibrationAttempts.id, attemptId)))
+    .limit(1);
   return row ?? null;
 }
 
 /** The attempt row, locked for the rest of the transaction (saves and the submission queue here). */
 export async function lockAttempt(tx: DbOrTx, { workspaceId, attemptId }: AttemptKey) {
-  const [row] = await tx.select().from(calibrationAttempts).where(and(eq(calibrationAttempts.workspaceId, workspaceId), eq(calibrationAttempts.id, attemptId))).for("update");
+  const [row] = await tx
+    .select()
+    .from(calibrationAttempts)
+    .where(and(eq(calibrationAttempts.workspaceId, workspaceId), eq(calibrationAttempts.id, attemptId)))
+    .for("update");
   return row ?? null;
 }
 
@@ -218,7 +232,14 @@ export async function storeSubmission(tx: DbOrTx, { workspaceId, attemptId, scor
 /** The submitted attempts of a set with their stored scores (the trainer's view). */
 export function listSubmittedAttempts({ workspaceId, setId }: SetKey) {
   return db()
-    .select({ id: calibrationAttempts.id, userId: calibrationAttempts.userId, userName: users.name, submittedAt: calibrationAttempts.submittedAt, passed: calibrationAttempts.passed, score: calibrationAttempts.score })
+    .select({
+      id: calibrationAttempts.id,
+      userId: calibrationAttempts.userId,
+      userName: users.name,
+      submittedAt: calibrationAttempts.submittedAt,
+      passed: calibrationAttempts.passed,
+      score: calibrationAttempts.score,
+    })
     .from(calibrationAttempts)
     .innerJoin(users, eq(users.id, calibrationAttempts.userId))
     .where(and(eq(calibrationAttempts.workspaceId, workspaceId), eq(calibrationAttempts.setId, setId), eq(calibrationAttempts.status, "submitted")))

@@ -112,7 +112,10 @@ export const calibrationAttempts = pgTable(
     setId: uuid().notNull(),
     userId: uuid().notNull(),
     status: text({ enum: ATTEMPT_STATUS_VALUES }).notNull().default("in_progress"),
-    answers: jsonb().$type<CalibrationAnswers>().notNull().default(sql`'{}'::jsonb`),
+    answers: jsonb()
+      .$type<CalibrationAnswers>()
+      .notNull()
+      .default(sql`'{}'::jsonb`),
     startedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
     submittedAt: timestamp({ withTimezone: true }),
@@ -124,7 +127,10 @@ export const calibrationAttempts = pgTable(
     index("calibration_attempts_set_idx").on(t.workspaceId, t.setId),
     unique("calibration_attempts_workspace_id_key").on(t.workspaceId, t.id),
     // Submitted exactly when it has a time, a verdict and a score.
-    check("calibration_attempts_submitted_fields", sql`(${t.status} = 'submitted') = (${t.submittedAt} IS NOT NULL) AND (${t.submittedAt} IS NULL) = (${t.score} IS NULL) AND (${t.score} IS NULL) = (${t.passed} IS NULL)`),
+    check(
+      "calibration_attempts_submitted_fields",
+      sql`(${t.status} = 'submitted') = (${t.submittedAt} IS NOT NULL) AND (${t.submittedAt} IS NULL) = (${t.score} IS NULL) AND (${t.score} IS NULL) = (${t.passed} IS NULL)`,
+    ),
     sameWorkspace("calibration_attempts_assignment_fk", t.workspaceId, t.assignmentId, calibrationAssignments),
     sameWorkspace("calibration_attempts_set_fk", t.workspaceId, t.setId, calibrationSets),
     sameWorkspace("calibration_attempts_user_fk", t.workspaceId, t.userId, users),

@@ -18,7 +18,19 @@ import "server-only";
  */
 import { transaction } from "@/db/client";
 import { logActivity } from "@/db/queries/activity";
-import { getAssignment, getAttempt, getSet, getSetItemPhotoId, listBlindSetItems, listKeyedSetItems, listUserAssignments, lockAttempt, saveAnswer, startAttempt, storeSubmission } from "@/db/queries/calibration";
+import {
+  getAssignment,
+  getAttempt,
+  getSet,
+  getSetItemPhotoId,
+  listBlindSetItems,
+  listKeyedSetItems,
+  listUserAssignments,
+  lockAttempt,
+  saveAnswer,
+  startAttempt,
+  storeSubmission,
+} from "@/db/queries/calibration";
 import { getGradingPartType } from "@/db/queries/rubrics";
 import type { SessionUser } from "@/lib/auth/require-user";
 import { COMPUTE_START_ALLOWANCE_MS, runInThread } from "@/lib/compute/pool";
@@ -36,7 +48,16 @@ const SCORING_TIMEOUT_MS = 60_000;
 
 export async function listMyAssignments(taker: Taker) {
   const rows = await listUserAssignments({ workspaceId: taker.workspaceId, userId: taker.id });
-  return rows.map((r) => ({ id: r.id, setName: r.setName, itemCount: r.itemCount, dueOn: r.dueOn, attemptId: r.attemptId, status: r.attemptStatus ?? "not_started", submittedAt: r.submittedAt, passed: r.passed }));
+  return rows.map((r) => ({
+    id: r.id,
+    setName: r.setName,
+    itemCount: r.itemCount,
+    dueOn: r.dueOn,
+    attemptId: r.attemptId,
+    status: r.attemptStatus ?? "not_started",
+    submittedAt: r.submittedAt,
+    passed: r.passed,
+  }));
 }
 
 /** Starts the assignment's attempt or finds the one started; its id. */
@@ -59,7 +80,14 @@ export async function readAttempt(taker: Taker, attemptId: string) {
   const attempt = await ownAttempt(taker, attemptId);
   const key = { workspaceId: taker.workspaceId, setId: attempt.setId };
   const set = await getSet(key);
-  const base = { id: attempt.id, status: attempt.status, setName: set!.name, thresholds: { minGradeAgreement: set!.minGradeAgreement, minMeanIou: set!.minMeanIou }, startedAt: attempt.startedAt, answers: attempt.answers };
+  const base = {
+    id: attempt.id,
+    status: attempt.status,
+    setName: set!.name,
+    thresholds: { minGradeAgreement: set!.minGradeAgreement, minMeanIou: set!.minMeanIou },
+    startedAt: attempt.startedAt,
+    answers: attempt.answers,
+  };
   if (attempt.status !== "submitted" || !attempt.score) {
     return { ...base, items: await listBlindSetItems(key), result: null };
   }
@@ -115,7 +143,9 @@ export async function submitAttempt(taker: Taker, attemptId: string, { scoreInli
     const answers: CalibrationAnswers = locked.answers;
     const ungraded = items.filter((i) => !answers[String(i.position)]?.grade).map((i) => i.position);
     if (ungraded.length) {
-      throw new AppError("conflict", `Grade every item before submitting; still without a grade: ${ungraded.map((p) => `item ${p}`).join(", ")}. Your answers are kept.`, { fieldErrors: { items: ungraded.join(",") } });
+      throw new AppError("conflict", `Grade every item before submitting; still without a grade: ${ungraded.map((p) => `item ${p}`).join(", ")}. Your answers are kept.`, {
+        fieldErrors: { items: ungraded.join(",") },
+      });
     }
     const input: ScoreSetInput = {
       thresholds: { minGradeAgreement: set!.minGradeAgreement, minMeanIou: set!.minMeanIou },
@@ -126,7 +156,14 @@ export async function submitAttempt(taker: Taker, attemptId: string, { scoreInli
     };
     const score = scoreInline ? await scoreCalibrationSet(input) : await runInThread("score-calibration", input, { timeoutMs: SCORING_TIMEOUT_MS + COMPUTE_START_ALLOWANCE_MS });
     await storeSubmission(tx, { workspaceId: taker.workspaceId, attemptId, score, passed: score.summary.passed });
-    await logActivity(tx, { workspaceId: taker.workspaceId, actorId: taker.id, action: "calibration.submitted", subjectType: "calibration_attempt", subjectId: attemptId, detail: { setId: attempt.setId, passed: score.summary.passed } });
+    await logActivity(tx, {
+      workspaceId: taker.workspaceId,
+      actorId: taker.id,
+      action: "calibration.submitted",
+      subjectType: "calibration_attempt",
+      subjectId: attemptId,
+      detail: { setId: attempt.setId, passed: score.summary.passed },
+    });
   });
   return readAttempt(taker, attemptId);
 }

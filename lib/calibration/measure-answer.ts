@@ -33,7 +33,10 @@ export async function measureAnswer(taker: Pick<SessionUser, "id" | "workspaceId
   const item = (await listBlindSetItems({ workspaceId: taker.workspaceId, setId: attempt.setId })).find((i) => i.position === position);
   if (!item) throw notFound("That item of the set");
   if (!item.width || !item.height) throw new AppError("conflict", "This item's photo is not available; tell your trainer.");
-  const [partType, published] = await Promise.all([getGradingPartType({ workspaceId: taker.workspaceId, partTypeId: item.partTypeId }), getLatestPublished({ workspaceId: taker.workspaceId, partTypeId: item.partTypeId })]);
+  const [partType, published] = await Promise.all([
+    getGradingPartType({ workspaceId: taker.workspaceId, partTypeId: item.partTypeId }),
+    getLatestPublished({ workspaceId: taker.workspaceId, partTypeId: item.partTypeId }),
+  ]);
   if (!partType) throw notFound("That item of the set");
   const answer = attempt.answers[String(position)];
   const regions = answer?.regions ?? { regions: [], surfaces: [], ruler: null };
@@ -43,7 +46,18 @@ export async function measureAnswer(taker: Pick<SessionUser, "id" | "workspaceId
     {
       partType,
       rubric: published?.rubric ?? NO_RULES,
-      photos: [{ photoId: `item-${position}`, viewKey: item.viewKey, width: item.width, height: item.height, regionsVersion: 0, defects: regions.regions, surfaces: regions.surfaces.map((s) => s.shape), rulers: regions.ruler ? [regions.ruler] : [] }],
+      photos: [
+        {
+          photoId: `item-${position}`,
+          viewKey: item.viewKey,
+          width: item.width,
+          height: item.height,
+          regionsVersion: 0,
+          defects: regions.regions,
+          surfaces: regions.surfaces.map((s) => s.shape),
+          rulers: regions.ruler ? [regions.ruler] : [],
+        },
+      ],
       functionalFailures: { critical: 0, major: 0, minor: 0 },
       budgetMs,
     },

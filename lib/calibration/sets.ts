@@ -15,7 +15,18 @@ import "server-only";
  */
 import { transaction } from "@/db/client";
 import { logActivity } from "@/db/queries/activity";
-import { getSet, insertSet, insertSetItems, listAssignableUsers, listKeyedSetItems, listSetAssignments, listSets, listSubmittedAttempts, lockItemsForSet, upsertAssignments } from "@/db/queries/calibration";
+import {
+  getSet,
+  insertSet,
+  insertSetItems,
+  listAssignableUsers,
+  listKeyedSetItems,
+  listSetAssignments,
+  listSets,
+  listSubmittedAttempts,
+  lockItemsForSet,
+  upsertAssignments,
+} from "@/db/queries/calibration";
 import { can } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/require-user";
 import type { Role } from "@/lib/auth/roles";
@@ -33,10 +44,15 @@ export async function createSet(trainer: Trainer, input: CreateSetInput): Promis
   const id = await transaction(async (tx) => {
     const found = new Map((await lockItemsForSet(tx, { workspaceId: trainer.workspaceId, itemIds: input.itemIds })).map((row) => [row.id, row]));
     const missing = input.itemIds.flatMap((itemId, i) => (found.has(itemId) ? [] : [i + 1]));
-    if (missing.length) throw new AppError("bad_request", `Items ${listOf(missing)} of the list are not gallery items of this workspace. Nothing was stored.`, { fieldErrors: { itemIds: "name gallery items of this workspace" } });
+    if (missing.length)
+      throw new AppError("bad_request", `Items ${listOf(missing)} of the list are not gallery items of this workspace. Nothing was stored.`, {
+        fieldErrors: { itemIds: "name gallery items of this workspace" },
+      });
     const unpublished = input.itemIds.flatMap((itemId, i) => (found.get(itemId)!.status === "published" ? [] : [i + 1]));
     if (unpublished.length) {
-      throw new AppError("bad_request", `Only published gallery items can be a key; items ${listOf(unpublished)} of the list are drafts or retired. Nothing was stored.`, { fieldErrors: { itemIds: "must all be published" } });
+      throw new AppError("bad_request", `Only published gallery items can be a key; items ${listOf(unpublished)} of the list are drafts or retired. Nothing was stored.`, {
+        fieldErrors: { itemIds: "must all be published" },
+      });
     }
     const setId = await insertSet(tx, {
       workspaceId: trainer.workspaceId,
@@ -50,10 +66,28 @@ export async function createSet(trainer: Trainer, input: CreateSetInput): Promis
       tx,
       input.itemIds.map((itemId, i) => {
         const item = found.get(itemId)!;
-        return { workspaceId: trainer.workspaceId, setId, position: i + 1, galleryItemId: item.id, photoId: item.photoId, partTypeId: item.partTypeId, viewKey: item.viewKey, keyRegions: item.regions, keyGrade: item.grade, keyCaption: item.caption };
+        return {
+          workspaceId: trainer.workspaceId,
+          setId,
+          position: i + 1,
+          galleryItemId: item.id,
+          photoId: item.photoId,
+          partTypeId: item.partTypeId,
+          viewKey: item.viewKey,
+          keyRegions: item.regions,
+          keyGrade: item.grade,
+          keyCaption: item.caption,
+        };
       }),
     );
-    await logActivity(tx, { workspaceId: trainer.workspaceId, actorId: trainer.id, action: "calibration.set_created", subjectType: "calibration_set", subjectId: setId, detail: { items: input.itemIds.length, thresholds: input.thresholds } });
+    await logActivity(tx, {
+      workspaceId: trainer.workspaceId,
+      actorId: trainer.id,
+      action: "calibration.set_created",
+      subjectType: "calibration_set",
+      subjectId: setId,
+      detail: { items: input.itemIds.length, thresholds: input.thresholds },
+    });
     return setId;
   });
   return { id };
@@ -65,13 +99,28 @@ export async function assignSet(trainer: Trainer, setId: string, input: AssignSe
     if (!set) throw notFound(SET_NOT_FOUND);
     const people = new Map((await listAssignableUsers(tx, { workspaceId: trainer.workspaceId, userIds: input.userIds })).map((u) => [u.id, u]));
     const unknown = input.userIds.filter((userId) => !people.has(userId));
-    if (unknown.length) throw new AppError("bad_request", `${unknown.length === 1 ? "One of the people is" : `${unknown.length} of the people are`} not in this workspace. Nothing was assigned.`, { fieldErrors: { userIds: "name people of this workspace" } });
+    if (unknown.length)
+      throw new AppError("bad_request", `${unknown.length === 1 ? "One of the people is" : `${unknown.length} of the people are`} not in this workspace. Nothing was assigned.`, {
+        fieldErrors: { userIds: "name people of this workspace" },
+      });
     const cannot = input.userIds.map((userId) => people.get(userId)!).filter((u) => !u.active || !can({ roles: u.roles as Role[] }, "calibration.take"));
     if (cannot.length) {
-      throw new AppError("bad_request", `${cannot.map((u) => u.name).join(", ")} cannot take calibration sets (only active inspectors and leads can). Nothing was assigned.`, { fieldErrors: { userIds: "must be active inspectors or leads" } });
+      throw new AppError("bad_request", `${cannot.map((u) => u.name).join(", ")} cannot take calibration sets (only active inspectors and leads can). Nothing was assigned.`, {
+        fieldErrors: { userIds: "must be active inspectors or leads" },
+      });
     }
-    await upsertAssignments(tx, input.userIds.map((userId) => ({ workspaceId: trainer.workspaceId, setId, userId, dueOn: input.dueOn, assignedBy: trainer.id })));
-    await logActivity(tx, { workspaceId: trainer.workspaceId, actorId: trainer.id, action: "calibration.assigned", subjectType: "calibration_set", subjectId: setId, detail: { people: input.userIds.length, dueOn: input.dueOn } });
+    await upsertAssignments(
+      tx,
+      input.userIds.map((userId) => ({ workspaceId: trainer.workspaceId, setId, userId, dueOn: input.dueOn, assignedBy: trainer.id })),
+    );
+    await logActivity(tx, {
+      workspaceId: trainer.workspaceId,
+      actorId: trainer.id,
+      action: "calibration.assigned",
+      subjectType: "calibration_set",
+      subjectId: setId,
+      detail: { people: input.userIds.length, dueOn: input.dueOn },
+    });
   });
   return { assigned: input.userIds.length };
 }
@@ -89,7 +138,15 @@ export async function readSetForTrainer(trainer: Pick<SessionUser, "workspaceId"
     set: { ...set, thresholds: { minGradeAgreement: set.minGradeAgreement, minMeanIou: set.minMeanIou } },
     items,
     assignments,
-    attempts: attempts.map((a) => ({ id: a.id, userId: a.userId, userName: a.userName, submittedAt: a.submittedAt, passed: a.passed, summary: a.score?.summary ?? null, items: a.score?.items.map(({ areas: _areas, ...rest }) => rest) ?? [] })),
+    attempts: attempts.map((a) => ({
+      id: a.id,
+      userId: a.userId,
+      userName: a.userName,
+      submittedAt: a.submittedAt,
+      passed: a.passed,
+      summary: a.score?.summary ?? null,
+      items: a.score?.items.map(({ areas: _areas, ...rest }) => rest) ?? [],
+    })),
     mostMissed: difficulty.map((d) => ({ ...d, position: Number(d.itemId) })),
   };
 }

@@ -14,8 +14,21 @@ import { SCRATCHED } from "../support/gallery";
 import { api, signIn, type Session } from "../support/http";
 
 type ErrorBody = { error: { code: string; message: string; fieldErrors?: Record<string, string> } };
-type AttemptBody = { attempt: { id: string; status: string; items: ({ keyCaption?: string; keyGrade?: string } & Record<string, unknown>)[]; answers: Record<string, { grade: string | null }>; result: null | { passed: boolean; summary: Summary; items: { position: number; missed: number; extra: number; classes: Record<string, { iou: number }> }[] } } };
-type Summary = { passed: boolean; grades: { exact: number; exactShare: number }; classes: Record<string, { meanIou: number; missed: number; extra: number; gates: boolean }>; checks: { check: string; defect?: string; passed: boolean }[] };
+type AttemptBody = {
+  attempt: {
+    id: string;
+    status: string;
+    items: ({ keyCaption?: string; keyGrade?: string } & Record<string, unknown>)[];
+    answers: Record<string, { grade: string | null }>;
+    result: null | { passed: boolean; summary: Summary; items: { position: number; missed: number; extra: number; classes: Record<string, { iou: number }> }[] };
+  };
+};
+type Summary = {
+  passed: boolean;
+  grades: { exact: number; exactShare: number };
+  classes: Record<string, { meanIou: number; missed: number; extra: number; gates: boolean }>;
+  checks: { check: string; defect?: string; passed: boolean }[];
+};
 
 let lead: Session;
 let trainer: Session;
@@ -26,7 +39,12 @@ let auditorId: string;
 let fixture: Awaited<ReturnType<typeof createCalibrationItems>>;
 let foreignItemId: string;
 
-const count = async (table: typeof calibrationSets | typeof calibrationAssignments) => (await db().select({ n: sql<number>`count(*)::int` }).from(table))[0].n;
+const count = async (table: typeof calibrationSets | typeof calibrationAssignments) =>
+  (
+    await db()
+      .select({ n: sql<number>`count(*)::int` })
+      .from(table)
+  )[0].n;
 const ids = () => fixture.published.map((p) => p.id);
 const answer = (position: number, regions: unknown[], grade: string | null) => ({ position, grade, regions: { regions, surfaces: [], ruler: null } });
 
@@ -132,7 +150,9 @@ describe("taking a set blind, then the score and the key", () => {
     expect(saved.status, JSON.stringify(saved.body)).toBe(200);
     expectBlind("a saved answer", { ...(saved.body as object), answer: { ...(saved.body as { answer: object }).answer, regions: "(own)" } });
     // The taker's own numbers, as on the Bench: their saved scratch (12 × 10 px, counted by hand) and nothing of the key.
-    type MeasurementBody = { measurement: { measurement: { photoId: string; byDefect: Record<string, { px: number; count: number }> }; rubric: { proposal: { grade: string } } | null; savedAt: string | null } };
+    type MeasurementBody = {
+      measurement: { measurement: { photoId: string; byDefect: Record<string, { px: number; count: number }> }; rubric: { proposal: { grade: string } } | null; savedAt: string | null };
+    };
     const measured = await api<MeasurementBody>(inspector, "GET", `/api/calibration/attempts/${attemptId}/measurement?position=1`);
     expect(measured.status, JSON.stringify(measured.body)).toBe(200);
     expectBlind("the taker's measurement", measured.body);
@@ -175,9 +195,19 @@ describe("taking a set blind, then the score and the key", () => {
   });
 
   it("refuses a bad answer with a 400, keeping the answers as they were", async () => {
-    const outside = await api<ErrorBody>(inspector, "PUT", `/api/calibration/attempts/${attemptId}/answers`, answer(2, [{ id: "x", defect: "scratch", shape: { kind: "rect", x: 290, y: 190, width: 40, height: 40 } }], "A"));
+    const outside = await api<ErrorBody>(
+      inspector,
+      "PUT",
+      `/api/calibration/attempts/${attemptId}/answers`,
+      answer(2, [{ id: "x", defect: "scratch", shape: { kind: "rect", x: 290, y: 190, width: 40, height: 40 } }], "A"),
+    );
     expect(outside.status).toBe(400);
-    const unknownClass = await api<ErrorBody>(inspector, "PUT", `/api/calibration/attempts/${attemptId}/answers`, answer(2, [{ id: "x", defect: "smudge", shape: { kind: "spot", x: 100, y: 100, radius: 4 } }], "A"));
+    const unknownClass = await api<ErrorBody>(
+      inspector,
+      "PUT",
+      `/api/calibration/attempts/${attemptId}/answers`,
+      answer(2, [{ id: "x", defect: "smudge", shape: { kind: "spot", x: 100, y: 100, radius: 4 } }], "A"),
+    );
     expect(unknownClass.status).toBe(400);
     expect(unknownClass.body.error.message).toMatch(/not allowed for this part type/);
     expect((await api(inspector, "PUT", `/api/calibration/attempts/${attemptId}/answers`, answer(2, [], "D"))).status).toBe(400);
@@ -227,7 +257,11 @@ describe("taking a set blind, then the score and the key", () => {
   });
 
   it("shows the trainer the attempt per person and the item most missed", async () => {
-    const res = await api<{ attempts: { userId: string; passed: boolean }[]; mostMissed: { position: number; missedAttempts: number }[]; items: { keyGrade: string }[] }>(trainer, "GET", `/api/calibration/sets/${setId}`);
+    const res = await api<{ attempts: { userId: string; passed: boolean }[]; mostMissed: { position: number; missedAttempts: number }[]; items: { keyGrade: string }[] }>(
+      trainer,
+      "GET",
+      `/api/calibration/sets/${setId}`,
+    );
     expect(res.status).toBe(200);
     expect(res.body.attempts).toEqual([expect.objectContaining({ userId: inspectorId, passed: false })]);
     expect(res.body.mostMissed[0]).toMatchObject({ position: 3, missedAttempts: 1 });

@@ -9,7 +9,11 @@ import { api, type Session } from "./http";
 
 export async function calibrationFixtureIds(lead: Session): Promise<Record<string, string>> {
   const { owner, published } = await createCalibrationItems(lead);
-  const { setId } = await createAssignedSet(lead, published.map((p) => p.id), (await workspaceIdOf(lead.email)).userId);
+  const { setId } = await createAssignedSet(
+    lead,
+    published.map((p) => p.id),
+    (await workspaceIdOf(lead.email)).userId,
+  );
   const mine = await api<{ assignments: { id: string; setName: string }[] }>(lead, "GET", "/api/calibration/assignments");
   const listed = await api<{ sets: { id: string; name: string }[] }>(lead, "GET", "/api/calibration/sets");
   const name = listed.body.sets.find((s) => s.id === setId)!.name;

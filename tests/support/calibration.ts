@@ -29,7 +29,9 @@ export const KEYS: { regions: RegionSetPayload; grade: Grade; caption: string }[
 export async function createCalibrationItems(lead: Session) {
   const owner = await workspaceIdOf(lead.email);
   const scene = await createMeasurableUnit(owner);
-  const preview = await sharp({ create: { width: 300, height: 200, channels: 3, background: { r: 120, g: 120, b: 130 } } }).webp().toBuffer();
+  const preview = await sharp({ create: { width: 300, height: 200, channels: 3, background: { r: 120, g: 120, b: 130 } } })
+    .webp()
+    .toBuffer();
   const published = [];
   for (const key of KEYS) {
     const photo = await createPhoto({ workspaceId: owner.workspaceId, unitId: scene.unit.id, uploadedBy: owner.userId });

@@ -12,7 +12,20 @@ import type { RegionSetPayload } from "@/lib/geometry/validate";
 const rect = (id: string, defect: string, x: number, y: number, width: number, height: number) => ({ id, defect, shape: { kind: "rect" as const, x, y, width, height } });
 const payload = (regions: RegionSetPayload["regions"], surfaces: RegionSetPayload["surfaces"] = []): RegionSetPayload => ({ regions, surfaces, ruler: null });
 /** The left half of a 20 × 10 photo. */
-const LEFT_HALF = [{ id: "s", shape: { kind: "polygon" as const, points: [[0, 0], [10, 0], [10, 10], [0, 10]] as [number, number][] } }];
+const LEFT_HALF = [
+  {
+    id: "s",
+    shape: {
+      kind: "polygon" as const,
+      points: [
+        [0, 0],
+        [10, 0],
+        [10, 10],
+        [0, 10],
+      ] as [number, number][],
+    },
+  },
+];
 
 describe("scoreCalibrationSet", () => {
   it("clips both sides to the key's Surface and ignores the taker's own Surface (HAND)", async () => {
@@ -26,7 +39,26 @@ describe("scoreCalibrationSet", () => {
           // Key: a 4 × 4 dent at (0,0). Taker: the same dent plus a 4 × 4 "dent" at (14,0), outside the key's Surface,
           // and a Surface of their own over the whole photo, which must not bring that mark back in.
           key: { grade: "B", regions: payload([rect("k", "dent", 0, 0, 4, 4)], LEFT_HALF) },
-          answer: { grade: "B", regions: payload([rect("a", "dent", 0, 0, 4, 4), rect("b", "dent", 14, 0, 4, 4)], [{ id: "t", shape: { kind: "polygon", points: [[0, 0], [20, 0], [20, 10], [0, 10]] } }]) },
+          answer: {
+            grade: "B",
+            regions: payload(
+              [rect("a", "dent", 0, 0, 4, 4), rect("b", "dent", 14, 0, 4, 4)],
+              [
+                {
+                  id: "t",
+                  shape: {
+                    kind: "polygon",
+                    points: [
+                      [0, 0],
+                      [20, 0],
+                      [20, 10],
+                      [0, 10],
+                    ],
+                  },
+                },
+              ],
+            ),
+          },
         },
       ],
     });

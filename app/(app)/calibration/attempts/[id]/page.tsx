@@ -58,5 +58,13 @@ export default async function CalibrationAttemptPage(props: PageProps<"/calibrat
     height: item.height,
     classLabels: Object.fromEntries(partTypes.get(item.partTypeId)?.defectClasses.map((d) => [d.key, d.label]) ?? []),
   }));
-  return <AttemptResult attemptId={attempt.id} setName={attempt.setName} items={items} answers={attempt.answers} result={{ passed: attempt.result.passed, summary: attempt.result.summary, items: attempt.result.items }} />;
+  return (
+    <AttemptResult
+      attemptId={attempt.id}
+      setName={attempt.setName}
+      items={items}
+      answers={attempt.answers}
+      result={{ passed: attempt.result.passed, summary: attempt.result.summary, items: attempt.result.items }}
+    />
+  );
 }

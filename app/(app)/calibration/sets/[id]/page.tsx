@@ -42,7 +42,8 @@ export default async function CalibrationSetPage(props: PageProps<"/calibration/
         </Link>
         <h1 className="page-title">{set.name}</h1>
         <p className="text-gauge-700">
-          {set.itemCount} items · passes at {percent(set.thresholds.minGradeAgreement)} of grades as the key and a mean IoU of {set.thresholds.minMeanIou.toFixed(2)} or more in every defect class the key marks.
+          {set.itemCount} items · passes at {percent(set.thresholds.minGradeAgreement)} of grades as the key and a mean IoU of {set.thresholds.minMeanIou.toFixed(2)} or more in every defect class the
+          key marks.
         </p>
       </div>
 
@@ -55,9 +56,15 @@ export default async function CalibrationSetPage(props: PageProps<"/calibration/
           <table className="min-w-full text-sm" data-testid="set-assignments">
             <thead className="text-left text-xs uppercase tracking-wide text-gauge-600">
               <tr>
-                <th scope="col" className="py-1 pr-4">Person</th>
-                <th scope="col" className="py-1 pr-4">Due</th>
-                <th scope="col" className="py-1">Status</th>
+                <th scope="col" className="py-1 pr-4">
+                  Person
+                </th>
+                <th scope="col" className="py-1 pr-4">
+                  Due
+                </th>
+                <th scope="col" className="py-1">
+                  Status
+                </th>
               </tr>
             </thead>
             <tbody className="divide-y divide-gauge-100">
@@ -65,7 +72,9 @@ export default async function CalibrationSetPage(props: PageProps<"/calibration/
                 <tr key={a.id} data-testid="set-assignment" data-name={a.userName}>
                   <td className="py-1 pr-4">{a.userName}</td>
                   <td className="py-1 pr-4 tabular-nums">{a.dueOn}</td>
-                  <td className="py-1">{a.attemptStatus === "submitted" ? (a.passed ? "Submitted: passed" : "Submitted: not passed") : a.attemptStatus === "in_progress" ? "Started" : "Not started"}</td>
+                  <td className="py-1">
+                    {a.attemptStatus === "submitted" ? (a.passed ? "Submitted: passed" : "Submitted: not passed") : a.attemptStatus === "in_progress" ? "Started" : "Not started"}
+                  </td>
                 </tr>
               ))}
             </tbody>
@@ -85,7 +94,14 @@ export default async function CalibrationSetPage(props: PageProps<"/calibration/
             const partType = partTypes.get(item.partTypeId);
             return (
               <li key={item.position} className="card overflow-hidden" data-testid="key-item">
-                <KeyThumbnail src={`/api/photos/${item.photoId}/thumbnail`} width={item.width} height={item.height} regions={item.keyRegions} classKeys={partType?.defectClasses.map((d) => d.key) ?? []} label={`Item ${item.position}`} />
+                <KeyThumbnail
+                  src={`/api/photos/${item.photoId}/thumbnail`}
+                  width={item.width}
+                  height={item.height}
+                  regions={item.keyRegions}
+                  classKeys={partType?.defectClasses.map((d) => d.key) ?? []}
+                  label={`Item ${item.position}`}
+                />
                 <div className="space-y-1 p-2 text-sm">
                   <p className="flex items-center gap-2 font-medium">
                     Item {item.position} <GradeBadge grade={item.keyGrade} size="sm" />

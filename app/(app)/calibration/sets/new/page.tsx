@@ -18,7 +18,12 @@ export default async function NewCalibrationSetPage() {
   const partTypes = new Map(partTypeRows.map((p) => [p.id, p]));
   const items: BuilderItem[] = page.items.map((item) => {
     const partType = partTypes.get(item.partType.id);
-    return { ...item, viewLabel: partType?.views.find((v) => v.key === item.viewKey)?.label ?? item.viewKey, classKeys: partType?.defectClasses.map((d) => d.key) ?? item.defectClasses, classLabels: Object.fromEntries(partType?.defectClasses.map((d) => [d.key, d.label]) ?? []) };
+    return {
+      ...item,
+      viewLabel: partType?.views.find((v) => v.key === item.viewKey)?.label ?? item.viewKey,
+      classKeys: partType?.defectClasses.map((d) => d.key) ?? item.defectClasses,
+      classLabels: Object.fromEntries(partType?.defectClasses.map((d) => [d.key, d.label]) ?? []),
+    };
   });
   return (
     <div className="max-w-7xl space-y-4">
@@ -27,11 +32,17 @@ export default async function NewCalibrationSetPage() {
           Calibration
         </Link>
         <h1 className="page-title">New calibration set</h1>
-        <p className="text-gauge-700">Choose 5–50 published examples in the order they are to be taken. Each example&apos;s regions and grade, as they are now, become the key; later edits in the Gallery do not change the set.</p>
+        <p className="text-gauge-700">
+          Choose 5–50 published examples in the order they are to be taken. Each example&apos;s regions and grade, as they are now, become the key; later edits in the Gallery do not change the set.
+        </p>
       </div>
       {items.length < 5 ? (
         <EmptyState title="Not enough published examples" testId="builder-empty">
-          A set needs at least 5 published gallery examples; this workspace has {items.length}. <Link href="/gallery" className="font-medium underline">Publish examples in the Gallery</Link> first.
+          A set needs at least 5 published gallery examples; this workspace has {items.length}.{" "}
+          <Link href="/gallery" className="font-medium underline">
+            Publish examples in the Gallery
+          </Link>{" "}
+          first.
         </EmptyState>
       ) : (
         <SetBuilder items={items} more={page.nextCursor !== null} />
