@@ -50,6 +50,7 @@ export function AttemptTaker({ attemptId, setName, items, initialAnswers }: { at
   const chain = useRef<Promise<void>>(Promise.resolve());
   const timer = useRef<ReturnType<typeof setTimeout> | null>(null);
   const pendingPosition = useRef<number | null>(null);
+  const inFlight = useRef(0);
 
   /** Changes item p's answer here (the ref at once, for saves queued before the next render). */
   const update = useCallback((p: number, change: Partial<CalibrationAnswer>) => {
@@ -58,18 +59,26 @@ export function AttemptTaker({ attemptId, setName, items, initialAnswers }: { at
     setAnswers(answersRef.current);
   }, []);
 
-  /** Queues a save of item p's current answer behind any save in flight. */
+  /**
+   * Queues a save of item p's current answer behind any save in flight. "Saving" shows from the
+   * moment it is queued, and "saved" only once nothing is queued or waiting: a test (or a person)
+   * that waits for "saved" knows every answer has reached the server.
+   */
   const send = useCallback(
     (p: number) => {
+      inFlight.current++;
+      setSaveState((now) => (now.kind === "failed" && now.position !== p ? now : { kind: "saving" }));
       chain.current = chain.current.then(async () => {
-        setSaveState({ kind: "saving" });
         const { grade, regions } = answersRef.current[String(p)] ?? { grade: null, regions: EMPTY };
         try {
           const saved = await apiFetch<{ answer: CalibrationAnswer }>(`/api/calibration/attempts/${attemptId}/answers`, { method: "PUT", body: { position: p, grade, regions } });
           // Only the time is taken from the server: newer edits made meanwhile stay as they are.
           update(p, { savedAt: saved.answer.savedAt });
-          setSaveState(pendingPosition.current === null ? { kind: "saved" } : { kind: "pending" });
+          inFlight.current--;
+          // A failed save of another item stays on show until that item is saved.
+          if (inFlight.current === 0) setSaveState((now) => (now.kind === "failed" && now.position !== p ? now : pendingPosition.current === null ? { kind: "saved" } : { kind: "pending" }));
         } catch (err) {
+          inFlight.current--;
           setSaveState({ kind: "failed", message: err instanceof Error ? err.message : "The answer was not saved.", position: p });
         }
       });
