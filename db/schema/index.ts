@@ -4,4 +4,5 @@ export * from "./photos";
 export * from "./regions";
 export * from "./grading";
 export * from "./gallery";
+export * from "./suggestions";
 export * from "./recheck";
