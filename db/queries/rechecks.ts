@@ -362,3 +362,37 @@ export function listDecidedLotAffected({ workspaceId, lotId }: Scope & { lotId: 
     .where(and(eq(rechecks.workspaceId, workspaceId), eq(units.lotId, lotId), eq(rechecks.decidedLotAffected, true)))
     .orderBy(asc(rechecks.adjudicatedAt));
 }
+
+// Scorecards.
+
+/** Local midnight of `date` in `timeZone`, as an SQL timestamptz. */
+const localMidnight = (date: string, timeZone: string) => sql`((${date}::date)::timestamp AT TIME ZONE ${timeZone})`;
+
+/** Inspection grades per grader and local day in [from, to] (local dates, both included). */
+export async function countGradesByGraderAndDay({ workspaceId, from, to, timeZone }: Scope & { from: string; to: string; timeZone: string }, tx: DbOrTx = db()) {
+  const { rows } = await tx.execute<{ grader_id: string; day: string; count: number }>(sql`
+    SELECT graded_by AS grader_id, to_char((created_at AT TIME ZONE ${timeZone})::date, 'YYYY-MM-DD') AS day, count(*)::int AS count
+    FROM grades
+    WHERE workspace_id = ${workspaceId} AND kind = 'inspection'
+      AND created_at >= ${localMidnight(from, timeZone)} AND created_at < ${localMidnight(to, timeZone)} + interval '1 day'
+    GROUP BY 1, 2`);
+  return rows.map((row) => ({ graderId: row.grader_id, day: row.day, count: row.count }));
+}
+
+/** Submitted rechecks whose rechecked grade falls in [from, to]: both grades, the blind mark, the unit-level class IoU, any adjudicated grade. */
+export async function listSubmittedRechecksForPeriod({ workspaceId, from, to, timeZone }: Scope & { from: string; to: string; timeZone: string }, tx: DbOrTx = db()) {
+  const { rows } = await tx.execute<{ grader_id: string; graded_at: Date; first_grade: string; recheck_grade: string; not_blind: boolean; classes: Record<string, { iou: number; unionPx: number }> | null; adjudicated_grade: string | null; unit_id: string }>(sql`
+    SELECT r.first_grader_id AS grader_id, g.created_at AS graded_at, g.final_grade AS first_grade, r.recheck_grade, r.not_blind,
+           r.comparison->'classes' AS classes, a.final_grade AS adjudicated_grade, r.unit_id
+    FROM rechecks r
+    JOIN grades g ON g.id = r.grade_id
+    LEFT JOIN grades a ON a.id = r.adjudication_grade_id
+    WHERE r.workspace_id = ${workspaceId} AND r.submitted_at IS NOT NULL
+      AND g.created_at >= ${localMidnight(from, timeZone)} AND g.created_at < ${localMidnight(to, timeZone)} + interval '1 day'`);
+  return rows;
+}
+
+export async function listWorkspaceUserNames({ workspaceId }: Scope, tx: DbOrTx = db()) {
+  const rows = await tx.select({ id: users.id, name: users.name }).from(users).where(eq(users.workspaceId, workspaceId));
+  return new Map(rows.map((row) => [row.id, row.name]));
+}
