@@ -4,9 +4,9 @@ import "server-only";
  * statements of ./leases.ts), the auditor's separate region sets, and who opened a unit's
  * inspection data. Every query is scoped by workspace; the decisions are in lib/recheck.
  */
-import { and, asc, desc, eq, gte, inArray, sql } from "drizzle-orm";
+import { and, asc, desc, eq, gte, inArray, isNull, sql } from "drizzle-orm";
 import { db, executePrepared, type DbOrTx } from "@/db/client";
-import { grades, recheckDraws, recheckRegionSets, rechecks, unitOpenings, units, users, workspaces, type NewRecheckRow } from "@/db/schema";
+import { checklistResults, grades, lots, partTypes, photos, recheckDraws, recheckRegionSets, rechecks, rubricVersions, unitOpenings, units, users, workspaces, type NewRecheckRow } from "@/db/schema";
 import type { RecheckDrawInputRecord, RecheckDrawOutcome } from "@/db/schema/recheck";
 import type { RegionSetPayload } from "@/lib/geometry/validate";
 import type { RecheckSettings } from "@/lib/recheck/settings";
@@ -133,6 +133,9 @@ export async function claimNextRecheckRow({ workspaceId, auditorId, leaseSeconds
       UPDATE rechecks r SET ${leaseColumns({ holderId: auditorId, leaseSeconds })}
       FROM next WHERE r.id = next.id
       RETURNING r.id, r.unit_id, r.lease_expires_at
+    ), cleared AS (
+      -- A holder whose lease ran out leaves their marks behind: the next auditor starts blind.
+      DELETE FROM recheck_region_sets s USING claimed WHERE s.recheck_id = claimed.id AND s.updated_by <> ${auditorId}
     ), claim_log AS (
       INSERT INTO activity_log (workspace_id, actor_id, action, subject_type, subject_id, detail)
       SELECT ${workspaceId}::uuid, ${auditorId}::uuid, 'recheck.claimed', 'recheck', claimed.id::text, '{}'::jsonb
@@ -197,6 +200,10 @@ export async function countWaitingRechecks({ workspaceId }: Scope, tx: DbOrTx = 
 
 // The auditor's region sets.
 
+export async function deleteRecheckRegionSets(tx: DbOrTx, { workspaceId, recheckId }: Scope & { recheckId: string }) {
+  await tx.delete(recheckRegionSets).where(and(eq(recheckRegionSets.workspaceId, workspaceId), eq(recheckRegionSets.recheckId, recheckId)));
+}
+
 export function listRecheckRegionSets({ workspaceId, recheckId }: Scope & { recheckId: string }, tx: DbOrTx = db()) {
   return tx
     .select({ photoId: recheckRegionSets.photoId, payload: recheckRegionSets.payload, version: recheckRegionSets.version })
@@ -223,4 +230,169 @@ export async function saveRecheckRegionSet(tx: DbOrTx, { workspaceId, recheckId,
     .where(and(eq(recheckRegionSets.workspaceId, workspaceId), eq(recheckRegionSets.recheckId, recheckId), eq(recheckRegionSets.photoId, photoId), eq(recheckRegionSets.version, baseVersion)))
     .returning({ version: recheckRegionSets.version });
   return rows[0]?.version ?? null;
+}
+
+// The blind read path: only what the auditor may see (no regions, measurements, grades or names).
+
+/** The unit and its part type as the auditor sees them (no status, no lease, nobody's name). */
+export async function getBlindUnit({ workspaceId, unitId }: Scope & { unitId: string }, tx: DbOrTx = db()) {
+  const [row] = await tx
+    .select({
+      id: units.id,
+      serial: units.serial,
+      partType: { id: partTypes.id, name: partTypes.name, category: partTypes.category, views: partTypes.views, defectClasses: partTypes.defectClasses, checklist: partTypes.checklist, nominalSizeMm: partTypes.nominalSizeMm, panelResolution: partTypes.panelResolution },
+    })
+    .from(units)
+    .innerJoin(partTypes, eq(partTypes.id, units.partTypeId))
+    .where(and(eq(units.workspaceId, workspaceId), eq(units.id, unitId)))
+    .limit(1);
+  return row;
+}
+
+/** The unit's ready photos (not withdrawn), in upload order: sizes and views only. */
+export function listBlindPhotos({ workspaceId, unitId }: Scope & { unitId: string }, tx: DbOrTx = db()) {
+  return tx
+    .select({ id: photos.id, viewKey: photos.viewKey, width: photos.width, height: photos.height, previewWidth: photos.previewWidth, previewHeight: photos.previewHeight })
+    .from(photos)
+    .where(and(eq(photos.workspaceId, workspaceId), eq(photos.unitId, unitId), eq(photos.status, "ready"), isNull(photos.removedAt)))
+    .orderBy(asc(photos.createdAt), asc(photos.id));
+}
+
+/** The checklist's readings (values only: no verdict, no note, no name). */
+export function listChecklistReadings({ workspaceId, unitId }: Scope & { unitId: string }, tx: DbOrTx = db()) {
+  return tx
+    .select({ itemId: checklistResults.itemId, value: checklistResults.value })
+    .from(checklistResults)
+    .where(and(eq(checklistResults.workspaceId, workspaceId), eq(checklistResults.unitId, unitId)))
+    .orderBy(asc(checklistResults.itemId));
+}
+
+export async function getRubricVersionNumber({ workspaceId, rubricVersionId }: Scope & { rubricVersionId: string }, tx: DbOrTx = db()) {
+  const [row] = await tx.select({ version: rubricVersions.version, rubric: rubricVersions.rubric }).from(rubricVersions).where(and(eq(rubricVersions.workspaceId, workspaceId), eq(rubricVersions.id, rubricVersionId))).limit(1);
+  return row;
+}
+
+/** The rechecked grade's final grade (read on submission, never shown before it). */
+export async function getFirstGradeOfRecheck({ workspaceId, gradeId }: Scope & { gradeId: string }, tx: DbOrTx = db()) {
+  const [row] = await tx.select({ id: grades.id, finalGrade: grades.finalGrade, gradedBy: grades.gradedBy }).from(grades).where(and(eq(grades.workspaceId, workspaceId), eq(grades.id, gradeId))).limit(1);
+  return row;
+}
+
+/** Stores the auditor's submission and ends their lease, in one statement. */
+export async function storeRecheckSubmission(
+  tx: DbOrTx,
+  input: Scope & Pick<NewRecheckRow, "auditorId" | "measurement" | "proposedGrade" | "recheckGrade" | "overrideReason" | "notBlind" | "comparison" | "adjudicationReasons"> & { recheckId: string; status: "adjudication" | "agreed" },
+) {
+  const { workspaceId, recheckId, ...fields } = input;
+  await tx
+    .update(rechecks)
+    .set({ ...fields, submittedAt: sql`now()`, leaseHolderId: null, leaseExpiresAt: null })
+    .where(and(eq(rechecks.workspaceId, workspaceId), eq(rechecks.id, recheckId)));
+}
+
+// Adjudication.
+
+/** A grade row with what the adjudication view shows beside it. */
+export async function getGradeForAdjudication({ workspaceId, gradeId }: Scope & { gradeId: string }, tx: DbOrTx = db()) {
+  const [row] = await tx
+    .select({
+      id: grades.id,
+      unitId: grades.unitId,
+      proposedGrade: grades.proposedGrade,
+      finalGrade: grades.finalGrade,
+      overrideReason: grades.overrideReason,
+      rubricVersionId: grades.rubricVersionId,
+      rubricVersion: rubricVersions.version,
+      measurementIds: grades.measurementIds,
+      explanation: grades.explanation,
+      regionsVersions: grades.regionsVersions,
+      gradedBy: grades.gradedBy,
+      createdAt: grades.createdAt,
+      serial: units.serial,
+      lotId: units.lotId,
+      purchaseRef: lots.purchaseRef,
+      partTypeName: partTypes.name,
+    })
+    .from(grades)
+    .innerJoin(units, eq(units.id, grades.unitId))
+    .innerJoin(lots, eq(lots.id, units.lotId))
+    .innerJoin(partTypes, eq(partTypes.id, units.partTypeId))
+    .innerJoin(rubricVersions, eq(rubricVersions.id, grades.rubricVersionId))
+    .where(and(eq(grades.workspaceId, workspaceId), eq(grades.id, gradeId)))
+    .limit(1);
+  return row;
+}
+
+export async function userNames({ workspaceId, ids }: Scope & { ids: string[] }, tx: DbOrTx = db()) {
+  if (ids.length === 0) return new Map<string, string>();
+  const rows = await tx.select({ id: users.id, name: users.name }).from(users).where(and(eq(users.workspaceId, workspaceId), inArray(users.id, ids)));
+  return new Map(rows.map((row) => [row.id, row.name]));
+}
+
+export async function getLotStatus({ workspaceId, lotId }: Scope & { lotId: string }, tx: DbOrTx = db()) {
+  const [row] = await tx.select({ status: lots.status }).from(lots).where(and(eq(lots.workspaceId, workspaceId), eq(lots.id, lotId))).limit(1);
+  return row;
+}
+
+export async function settleRecheck(tx: DbOrTx, { workspaceId, recheckId, adjudicatedBy, choice, reason, gradeId, decidedLotAffected }: Scope & { recheckId: string; adjudicatedBy: string; choice: "first" | "recheck" | "own"; reason: string; gradeId: string; decidedLotAffected: boolean }) {
+  await tx
+    .update(rechecks)
+    .set({ status: "settled", adjudicatedBy, adjudicationChoice: choice, adjudicationReason: reason, adjudicationGradeId: gradeId, adjudicatedAt: sql`now()`, decidedLotAffected })
+    .where(and(eq(rechecks.workspaceId, workspaceId), eq(rechecks.id, recheckId)));
+}
+
+/** Rechecks waiting for adjudication, oldest first, with the unit's serial and part type. */
+export function listWaitingAdjudications({ workspaceId }: Scope, tx: DbOrTx = db()) {
+  return tx
+    .select({ id: rechecks.id, unitId: rechecks.unitId, serial: units.serial, partTypeName: partTypes.name, firstGraderId: rechecks.firstGraderId, auditorId: rechecks.auditorId, submittedAt: rechecks.submittedAt, reasons: rechecks.adjudicationReasons })
+    .from(rechecks)
+    .innerJoin(units, eq(units.id, rechecks.unitId))
+    .innerJoin(partTypes, eq(partTypes.id, units.partTypeId))
+    .where(and(eq(rechecks.workspaceId, workspaceId), eq(rechecks.status, "adjudication")))
+    .orderBy(asc(rechecks.submittedAt), asc(rechecks.id))
+    .limit(200);
+}
+
+/** Rechecks of a lot's units whose adjudicated grade differs from the one the decided lot rests on. */
+export function listDecidedLotAffected({ workspaceId, lotId }: Scope & { lotId: string }, tx: DbOrTx = db()) {
+  return tx
+    .select({ recheckId: rechecks.id, unitId: rechecks.unitId, serial: units.serial, adjudicatedAt: rechecks.adjudicatedAt })
+    .from(rechecks)
+    .innerJoin(units, eq(units.id, rechecks.unitId))
+    .where(and(eq(rechecks.workspaceId, workspaceId), eq(units.lotId, lotId), eq(rechecks.decidedLotAffected, true)))
+    .orderBy(asc(rechecks.adjudicatedAt));
+}
+
+// Scorecards.
+
+/** Local midnight of `date` in `timeZone`, as an SQL timestamptz. */
+const localMidnight = (date: string, timeZone: string) => sql`((${date}::date)::timestamp AT TIME ZONE ${timeZone})`;
+
+/** Inspection grades per grader and local day in [from, to] (local dates, both included). */
+export async function countGradesByGraderAndDay({ workspaceId, from, to, timeZone }: Scope & { from: string; to: string; timeZone: string }, tx: DbOrTx = db()) {
+  const { rows } = await tx.execute<{ grader_id: string; day: string; count: number }>(sql`
+    SELECT graded_by AS grader_id, to_char((created_at AT TIME ZONE ${timeZone})::date, 'YYYY-MM-DD') AS day, count(*)::int AS count
+    FROM grades
+    WHERE workspace_id = ${workspaceId} AND kind = 'inspection'
+      AND created_at >= ${localMidnight(from, timeZone)} AND created_at < ${localMidnight(to, timeZone)} + interval '1 day'
+    GROUP BY 1, 2`);
+  return rows.map((row) => ({ graderId: row.grader_id, day: row.day, count: row.count }));
+}
+
+/** Submitted rechecks whose rechecked grade falls in [from, to]: both grades, the blind mark, the unit-level class IoU, any adjudicated grade. */
+export async function listSubmittedRechecksForPeriod({ workspaceId, from, to, timeZone }: Scope & { from: string; to: string; timeZone: string }, tx: DbOrTx = db()) {
+  const { rows } = await tx.execute<{ grader_id: string; graded_at: Date; first_grade: string; recheck_grade: string; not_blind: boolean; classes: Record<string, { iou: number; unionPx: number }> | null; adjudicated_grade: string | null; unit_id: string }>(sql`
+    SELECT r.first_grader_id AS grader_id, g.created_at AS graded_at, g.final_grade AS first_grade, r.recheck_grade, r.not_blind,
+           r.comparison->'classes' AS classes, a.final_grade AS adjudicated_grade, r.unit_id
+    FROM rechecks r
+    JOIN grades g ON g.id = r.grade_id
+    LEFT JOIN grades a ON a.id = r.adjudication_grade_id
+    WHERE r.workspace_id = ${workspaceId} AND r.submitted_at IS NOT NULL
+      AND g.created_at >= ${localMidnight(from, timeZone)} AND g.created_at < ${localMidnight(to, timeZone)} + interval '1 day'`);
+  return rows;
+}
+
+export async function listWorkspaceUserNames({ workspaceId }: Scope, tx: DbOrTx = db()) {
+  const rows = await tx.select({ id: users.id, name: users.name }).from(users).where(eq(users.workspaceId, workspaceId));
+  return new Map(rows.map((row) => [row.id, row.name]));
 }
