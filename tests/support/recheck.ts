@@ -28,9 +28,13 @@ export async function recheckWorld(settings?: Record<string, unknown>): Promise<
 
 export const RECHECK_DEFAULTS = { rate: 0.05, raisedRate: 0.2, minimumPerGrader: 1, iouThreshold: 0.5, meaningfulShare: 0.0005, meaningfulPx: 100, driftAgreement: 0.8, driftWeeks: 4, driftMinRechecks: 5 };
 
-/** A unit graded by `grader` through the API (measured, proposal accepted). */
+/**
+ * A unit graded by `grader` through the API (measured, proposal accepted). The rows around it
+ * (rubric, photo, regions) are the lead's: the grader's name then appears only where the grade's
+ * does, which is what the blindness test looks for.
+ */
 export async function gradedUnit(world: RecheckWorld, grader: Person, options: { regions?: FixtureRegion[] } = {}) {
-  const made = await createMeasurableUnit({ workspaceId: world.workspaceId, userId: grader.id }, options);
+  const made = await createMeasurableUnit({ workspaceId: world.workspaceId, userId: world.lead.id }, options);
   const measured = await api(grader, "POST", `/api/units/${made.unit.id}/measure`);
   expect(measured.status, JSON.stringify(measured.body)).toBe(200);
   const graded = await api<{ grade: { id: string; finalGrade: string } }>(grader, "POST", `/api/units/${made.unit.id}/grades`, { decision: "accept" });
