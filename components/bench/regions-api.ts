@@ -21,7 +21,7 @@ export function putRegionSet(photoId: string, request: SaveRequest): Promise<Sen
 }
 
 /** PUT a region set to `url` (a photo's regions, or an auditor's own set on a recheck) and sort the outcome. */
-export async function putRegionSetAt(url: string, request: SaveRequest): Promise<SendResult> {
+export async function putRegionSetAt(url: string, request: SaveRequest & { photoId?: string }): Promise<SendResult> {
   let res: Response;
   try {
     res = await fetch(url, { method: "PUT", headers: { "Content-Type": "application/json" }, body: JSON.stringify(request) });

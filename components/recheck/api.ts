@@ -11,7 +11,7 @@ export type Proposal = { rubricVersion: number; proposal: { grade: "A" | "B" | "
 
 export const recheckUrls = {
   view: (id: string) => `/api/rechecks/${id}`,
-  regions: (id: string, photoId: string) => `/api/rechecks/${id}/photos/${photoId}/regions`,
+  regions: (id: string) => `/api/rechecks/${id}/regions`,
   measure: (id: string) => `/api/rechecks/${id}/measure`,
   submission: (id: string) => `/api/rechecks/${id}/submission`,
   lease: (id: string) => `/api/rechecks/${id}/lease`,

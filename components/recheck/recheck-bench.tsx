@@ -36,7 +36,7 @@ export function RecheckBench({ view }: { view: BlindRecheckJson }) {
   const [regionSlot, setRegionSlot] = useState<HTMLElement | null>(null);
   const [statusSlot, setStatusSlot] = useState<HTMLElement | null>(null);
   const [submitted, setSubmitted] = useState(false);
-  const registry = useMemo(() => new SaverRegistry((photoId, request) => putRegionSetAt(recheckUrls.regions(recheckId, photoId), request)), [recheckId]);
+  const registry = useMemo(() => new SaverRegistry((photoId, request) => putRegionSetAt(recheckUrls.regions(recheckId), { ...request, photoId })), [recheckId]);
   const { partType } = view.unit;
   const classKeys = useMemo(() => benchClassOrder(partType.defectClasses).map((d) => d.key), [partType.defectClasses]);
   const { hand, setHand } = useToolInHand({ area: markingArea, classKeys, startingDefect: startingClass(partType.defectClasses), readOnly: submitted });

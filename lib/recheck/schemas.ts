@@ -1,6 +1,7 @@
 /** Request bodies of the Recheck API, shared by forms and handlers. */
 import { z } from "zod";
 import { GRADES } from "@/lib/grading/rubric-schema";
+import { saveRegionsSchema } from "@/lib/regions/schemas";
 import { isUuid } from "@/lib/validation";
 
 const uuid = (what: string) => z.string({ error: `${what} is required.` }).refine(isUuid, `${what} is not a valid id.`).transform((value) => value.toLowerCase());
@@ -54,3 +55,6 @@ export const scorecardQuerySchema = z
   .refine((q) => !q.from || !q.to || q.from <= q.to, { message: "The period starts after it ends.", path: ["from"] })
   .refine((q) => !q.from || !q.to || (Date.parse(q.to) - Date.parse(q.from)) / 86_400_000 <= 366, { message: "Choose a period of at most a year.", path: ["to"] });
 export type ScorecardQuery = z.infer<typeof scorecardQuerySchema>;
+
+/** The auditor's own set on one photo: the Bench's save envelope plus the photo it is for. */
+export const saveRecheckRegionsSchema = saveRegionsSchema.extend({ photoId: uuid("The photo") });

@@ -23,7 +23,7 @@ async function disagreement(world: RecheckWorld, grader: Person) {
   expect(taken.status).toBe(200);
   const id = taken.body.recheck.id;
   const regions = { regions: [{ id: "a1", defect: "scratch", shape: { kind: "rect", x: 60, y: 60, width: 10, height: 4 } }], surfaces: [SURFACE], ruler: null };
-  expect((await api(world.auditor, "PUT", `/api/rechecks/${id}/photos/${made.photo.id}/regions`, { baseVersion: 0, regions })).status).toBe(200);
+  expect((await api(world.auditor, "PUT", `/api/rechecks/${id}/regions`, { photoId: made.photo.id, baseVersion: 0, regions })).status).toBe(200);
   const submitted = await api<{ recheck: { status: string } }>(world.auditor, "POST", `/api/rechecks/${id}/submission`, { decision: "accept", proposedGrade: "A" });
   expect(submitted.body.recheck?.status, JSON.stringify(submitted.body)).toBe("adjudication");
   return { ...made, recheckId: id };

@@ -99,9 +99,9 @@ describe("marking, measuring and submitting", () => {
   it("the auditor marks their own regions, measures and grades; the comparison is stored and differing grades go to adjudication", async () => {
     // A smaller scratch than the first grader's 12 × 10: 10 × 4 = 40 px = 0.4 % of the lens window → A under v1 (first: C).
     const regions = { regions: [{ id: "audit-1", defect: "scratch", shape: { kind: "rect", x: 60, y: 60, width: 10, height: 4 } }], surfaces: [{ id: "audit-surface", shape: { kind: "polygon", points: [[50, 50], [250, 50], [250, 150], [50, 150]] } }], ruler: null };
-    const saved = await api(world.auditor, "PUT", `/api/rechecks/${recheckId}/photos/${made.photo.id}/regions`, { baseVersion: 0, regions });
+    const saved = await api(world.auditor, "PUT", `/api/rechecks/${recheckId}/regions`, { photoId: made.photo.id, baseVersion: 0, regions });
     expect(saved.status, JSON.stringify(saved.body)).toBe(200);
-    const stale = await api<ErrorBody>(world.auditor, "PUT", `/api/rechecks/${recheckId}/photos/${made.photo.id}/regions`, { baseVersion: 0, regions });
+    const stale = await api<ErrorBody>(world.auditor, "PUT", `/api/rechecks/${recheckId}/regions`, { photoId: made.photo.id, baseVersion: 0, regions });
     expect(stale.status).toBe(409);
     const measured = await api<{ proposal: { grade: string } }>(world.auditor, "POST", `/api/rechecks/${recheckId}/measure`);
     expect(measured.status, JSON.stringify(measured.body)).toBe(200);

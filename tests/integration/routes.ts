@@ -137,7 +137,7 @@ export const ROUTES: RouteRow[] = [
   { method: "GET", path: "/api/rechecks/:recheckId", permission: "recheck.perform", allowedStatus: 409 },
   { method: "PUT", path: "/api/rechecks/:recheckId/lease", permission: "recheck.perform", allowedStatus: 409 },
   { method: "DELETE", path: "/api/rechecks/:recheckId/lease", permission: "recheck.perform", allowedStatus: 409 },
-  { method: "PUT", path: "/api/rechecks/:recheckId/photos/:recheckPhotoId/regions", permission: "recheck.perform", body: () => ({ baseVersion: 0, regions: { regions: [], surfaces: [], ruler: null } }), allowedStatus: 409 },
+  { method: "PUT", path: "/api/rechecks/:recheckId/regions", permission: "recheck.perform", body: (ids) => ({ photoId: ids.recheckPhotoId, baseVersion: 0, regions: { regions: [], surfaces: [], ruler: null } }), allowedStatus: 409 },
   { method: "POST", path: "/api/rechecks/:recheckId/measure", permission: "recheck.perform", allowedStatus: 409 },
   { method: "POST", path: "/api/rechecks/:recheckId/submission", permission: "recheck.perform", body: () => ({ decision: "accept", proposedGrade: "A" }), allowedStatus: 409 },
   { method: "GET", path: "/api/rechecks/adjudications", permission: "recheck.adjudicate", allowedStatus: 200 },

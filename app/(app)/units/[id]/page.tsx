@@ -9,7 +9,6 @@ import { can } from "@/lib/auth/permissions";
 import { requirePageUser } from "@/lib/auth/require-user";
 import { pageIdOrNotFound } from "@/lib/http/page-params";
 import { isUuid } from "@/lib/validation";
-import { noteInspectionOpened } from "@/lib/recheck/openings";
 
 export const metadata: Metadata = { title: "Bench" };
 
@@ -24,7 +23,6 @@ export default async function UnitPage(props: PageProps<"/units/[id]">) {
   const key = { workspaceId: user.workspaceId, unitId: id };
   const [detail, grading] = await Promise.all([getUnitDetail(key), getUnitForGrading(key)]);
   if (!detail || !grading) notFound();
-  await noteInspectionOpened(user, id);
   const [results, versions] = await Promise.all([listUnitResults({ workspaceId: user.workspaceId, unitIds: [id] }), listRubricVersions({ workspaceId: user.workspaceId, partTypeId: grading.partTypeId })]);
   // The same JSON the API sends, so the panels' queries start from what they will refetch.
   const initial = JSON.parse(JSON.stringify({ ...detail, results })) as UnitView;
