@@ -71,6 +71,7 @@ CREATE TABLE "unit_openings" (
 );
 --> statement-breakpoint
 ALTER TABLE "workspaces" ADD COLUMN "recheck_settings" jsonb;--> statement-breakpoint
+ALTER TABLE "grades" ADD CONSTRAINT "grades_workspace_id_key" UNIQUE("workspace_id","id");--> statement-breakpoint
 ALTER TABLE "recheck_draws" ADD CONSTRAINT "recheck_draws_workspace_id_workspaces_id_fk" FOREIGN KEY ("workspace_id") REFERENCES "public"."workspaces"("id") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "recheck_region_sets" ADD CONSTRAINT "recheck_region_sets_workspace_id_workspaces_id_fk" FOREIGN KEY ("workspace_id") REFERENCES "public"."workspaces"("id") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "recheck_region_sets" ADD CONSTRAINT "recheck_region_sets_recheck_fk" FOREIGN KEY ("workspace_id","recheck_id") REFERENCES "public"."rechecks"("workspace_id","id") ON DELETE no action ON UPDATE no action;--> statement-breakpoint
@@ -96,5 +97,4 @@ CREATE UNIQUE INDEX "rechecks_grade_key" ON "rechecks" USING btree ("grade_id");
 CREATE INDEX "rechecks_waiting_idx" ON "rechecks" USING btree ("workspace_id","created_at","id") WHERE "rechecks"."status" = 'waiting';--> statement-breakpoint
 CREATE INDEX "rechecks_unit_idx" ON "rechecks" USING btree ("workspace_id","unit_id");--> statement-breakpoint
 CREATE INDEX "rechecks_grader_idx" ON "rechecks" USING btree ("workspace_id","first_grader_id","created_at");--> statement-breakpoint
-CREATE INDEX "grades_grader_idx" ON "grades" USING btree ("workspace_id","graded_by","created_at");--> statement-breakpoint
-ALTER TABLE "grades" ADD CONSTRAINT "grades_workspace_id_key" UNIQUE("workspace_id","id");
+CREATE INDEX "grades_grader_idx" ON "grades" USING btree ("workspace_id","graded_by","created_at");
