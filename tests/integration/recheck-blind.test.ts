@@ -24,11 +24,19 @@ const firstRegionId = `first-mark-${Date.now().toString(36)}`;
 let world: RecheckWorld;
 let made: Awaited<ReturnType<typeof gradedUnit>>;
 let recheckId: string;
+let galleryItemId: string;
 
 beforeAll(async () => {
   world = await recheckWorld({ ...RECHECK_DEFAULTS, rate: 1, raisedRate: 1 });
   await db().update(users).set({ name: marker }).where(eq(users.id, world.inspector.id));
   made = await gradedUnit(world, world.inspector, { regions: [FIXTURE_SURFACE, { clientId: firstRegionId, role: "defect", defect: "scratch", shape: { kind: "rect", x: 60, y: 60, width: 12, height: 10 } }] });
+  // A lead promotes the graded photo to the Gallery and publishes it: the item carries the first
+  // grader's regions and grade, so the auditor must not reach it while the recheck waits.
+  const promoted = await api<{ item: { id: string } }>(world.lead, "POST", "/api/gallery", { photoId: made.photo.id });
+  expect(promoted.status, JSON.stringify(promoted.body)).toBe(201);
+  galleryItemId = promoted.body.item.id;
+  expect((await api(world.lead, "PATCH", `/api/gallery/${galleryItemId}`, { revision: 0, caption: "A scratch across the lens window" })).status).toBe(200);
+  expect((await api(world.lead, "POST", `/api/gallery/${galleryItemId}/publish`, { revision: 1 })).status).toBe(200);
   const taken = await api<{ recheck: { id: string } }>(world.auditor, "POST", "/api/rechecks/next");
   expect(taken.status).toBe(200);
   recheckId = taken.body.recheck.id;
@@ -38,9 +46,10 @@ describe("blind at the API", () => {
   it("no route an auditor can call answers with anything of the first grade", async () => {
     const [grade] = await db().select().from(grades).where(eq(grades.id, made.grade.id));
     const [unit] = await db().select().from(units).where(eq(units.id, made.unit.id));
-    const secrets = [grade.id, world.inspector.id, marker, firstRegionId, ...grade.measurementIds];
+    const secrets = [grade.id, world.inspector.id, marker, firstRegionId, galleryItemId, ...grade.measurementIds];
     const ids: Record<string, string> = new Proxy({} as Record<string, string>, {
       get: (_t, key: string) => {
+        if (/galleryItem/i.test(key)) return galleryItemId;
         if (/unit/i.test(key)) return made.unit.id;
         if (/photo/i.test(key)) return made.photo.id;
         if (/lot/i.test(key) && !/PartType/.test(key)) return unit.lotId;
@@ -66,9 +75,13 @@ describe("blind at the API", () => {
       // The grade itself: no answer about this unit, its lot, photo or recheck names a grade (the
       // rubric and part type routes list rule grades, which are the rules, not this unit's grade).
       // (…/measure answers the auditor's own proposal from their own marks, which is theirs to see.)
-      const aboutUnit = [made.unit.id, unit.lotId, made.photo.id, recheckId].some((id) => call.path.includes(id)) && !call.path.endsWith("/measure");
+      const aboutUnit = [made.unit.id, unit.lotId, made.photo.id, recheckId, galleryItemId].some((id) => call.path.includes(id)) && !call.path.endsWith("/measure");
       if (aboutUnit) expect(text, `${call.method} ${call.path}`).not.toMatch(/"(finalGrade|proposedGrade|grade|overrideReason|gradedBy\w*)":\s*"/);
     }
+    // The Gallery item made from this unit is out of the auditor's reach until the recheck is submitted.
+    expect((await api(world.auditor, "GET", `/api/gallery/${galleryItemId}`)).status).toBe(404);
+    expect((await api(world.auditor, "GET", `/api/gallery/${galleryItemId}/measurement`)).status).toBe(404);
+    expect((await api(world.lead, "GET", `/api/gallery/${galleryItemId}`)).status).toBe(200);
     const view = await api<{ photos: { id: string }[]; regionSets: Record<string, unknown> }>(world.auditor, "GET", `/api/rechecks/${recheckId}`);
     expect(view.status).toBe(200);
     expect(view.body.photos.map((p) => p.id)).toEqual([made.photo.id]);
@@ -118,6 +131,8 @@ describe("marking, measuring and submitting", () => {
     expect(row.comparison!.classes.scratch.dice).toBeCloseTo(0.5, 10);
     expect(row.comparison!.grade).toMatchObject({ first: "C", recheck: "A", steps: 2 });
     expect(row.adjudicationReasons!.map((r) => r.kind)).toContain("grade_differs");
+    // Submitted: the Gallery item made from the unit is visible to auditors again.
+    expect((await api(world.auditor, "GET", `/api/gallery/${galleryItemId}`)).status).toBe(200);
     // Submitted: no second submission.
     expect((await api(world.auditor, "POST", `/api/rechecks/${recheckId}/submission`, { decision: "accept", proposedGrade: "A" })).status).toBe(409);
   });
