@@ -392,6 +392,22 @@ export async function listSubmittedRechecksForPeriod({ workspaceId, from, to, ti
   return rows;
 }
 
+/**
+ * Blind submitted rechecks whose rechecked grade was recorded from local `fromDay` up to `until`:
+ * counts per first grade and recheck grade, the grader's own apart from everyone else's (the
+ * raised-rate check, lib/recheck/raised-rate.ts). At most 2 × 4 × 4 rows.
+ */
+export async function countDriftWindow({ workspaceId, graderId, fromDay, until, timeZone }: Scope & { graderId: string; fromDay: string; until: Date; timeZone: string }, tx: DbOrTx = db()) {
+  const { rows } = await tx.execute<{ mine: boolean; first_grade: string; recheck_grade: string; count: number }>(sql`
+    SELECT r.first_grader_id = ${graderId} AS mine, g.final_grade AS first_grade, r.recheck_grade, count(*)::int AS count
+    FROM rechecks r
+    JOIN grades g ON g.id = r.grade_id
+    WHERE r.workspace_id = ${workspaceId} AND r.submitted_at IS NOT NULL AND NOT r.not_blind
+      AND g.created_at >= ${localMidnight(fromDay, timeZone)} AND g.created_at < ${until.toISOString()}::timestamptz
+    GROUP BY 1, 2, 3`);
+  return rows.map((row) => ({ mine: row.mine, firstGrade: row.first_grade, recheckGrade: row.recheck_grade, count: row.count }));
+}
+
 export async function listWorkspaceUserNames({ workspaceId }: Scope, tx: DbOrTx = db()) {
   const rows = await tx.select({ id: users.id, name: users.name }).from(users).where(eq(users.workspaceId, workspaceId));
   return new Map(rows.map((row) => [row.id, row.name]));

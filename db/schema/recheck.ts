@@ -22,6 +22,8 @@ export type RecheckDrawInputRecord = {
   minimumPerGrader: number;
   final: boolean;
   auditorIds: string[];
+  /** Why a grader's rate in `graderRates` is raised (lib/recheck/raised-rate.ts); older records lack it. */
+  raisedFor?: Record<string, { drifting: boolean; reasons: string[]; agreement: number | null; n: number; weeks: string[] }>;
 };
 export type RecheckDrawOutcome = { drawn: string[]; graders: GraderDraw[]; noOtherAuditor: string[] };
 

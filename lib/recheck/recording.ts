@@ -13,8 +13,10 @@ import "server-only";
  *   always drawn; later draws are random among the week's grades so far.
  * - Only runs that drew something are recorded (seed, algorithm and the whole input), like the
  *   lot's sample draw: the record is enough to run drawRechecks again and get the same grades.
- * - The raised rate (lib/recheck/draw.ts `recheckRateFor`) is not applied yet: it needs the
- *   drift flag of the scorecards and the Calibration attempts; every draw uses the normal rate.
+ * - The raised rate (draw.ts `recheckRateFor`) applies to a grader whose agreement drifts by the
+ *   scorecards' rule over the weeks up to the grade (raised-rate.ts); their rechecks are drawn
+ *   with reason "raised_rate" and the record says why (`input.raisedFor`). Calibration attempts
+ *   are not stored yet, so a failed calibration cannot raise it (raised-rate.ts says more).
  * - By hand: the unit's current grade is sent (an override or an adjudication too); a grade that
  *   already has a recheck is refused with 409, never doubled.
  */
@@ -27,7 +29,8 @@ import { holders } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/require-user";
 import { AppError, notFound } from "@/lib/errors";
 import { periodOf } from "@/lib/time/periods";
-import { drawRechecks, RECHECK_DRAW_ALGORITHM } from "./draw";
+import { drawRechecks, RECHECK_DRAW_ALGORITHM, recheckRateFor } from "./draw";
+import { graderDrift } from "./raised-rate";
 import { DEFAULT_RECHECK_SETTINGS, recheckSettingsSchema, type RecheckSettings } from "./settings";
 
 const DAY_MS = 86_400_000;
@@ -68,8 +71,11 @@ export async function drawOnGradeRecorded(tx: Tx, grade: { workspaceId: string; 
   const candidates = week.map(({ gradeId, graderId, partTypeId }) => ({ gradeId, graderId, partTypeId }));
   const alreadyDrawn = await listRecheckedGradeIds({ workspaceId, gradeIds: candidates.map((c) => c.gradeId) }, tx);
   const auditorIds = await listActiveUserIdsWithRoles({ workspaceId, roles: holders("recheck.perform") }, tx);
+  const drift = await graderDrift(tx, { workspaceId, graderId: grade.graderId, at: grade.gradedAt, settings, timeZone });
+  const graderRates = drift.flagged ? { [grade.graderId]: recheckRateFor(settings, { drifting: true }) } : {};
+  const raisedFor = drift.flagged ? { [grade.graderId]: { drifting: true, reasons: drift.reasons, agreement: Number.isNaN(drift.agreement.share) ? null : drift.agreement.share, n: drift.agreement.n, weeks: drift.weeks } } : {};
   const seed = newSeed();
-  const input = { period, candidates, alreadyDrawn, rate: settings.rate, graderRates: {}, minimumPerGrader: settings.minimumPerGrader, final: false, auditorIds };
+  const input = { period, candidates, alreadyDrawn, rate: settings.rate, graderRates, raisedFor, minimumPerGrader: settings.minimumPerGrader, final: false, auditorIds };
   const result = drawRechecks({ seed, ...input });
   if (result.drawn.length === 0) return [];
   const draw = await insertRecheckDraw(tx, {
@@ -81,14 +87,14 @@ export async function drawOnGradeRecorded(tx: Tx, grade: { workspaceId: string; 
     input,
     outcome: { drawn: result.drawn.map((d) => d.gradeId), graders: result.graders, noOtherAuditor: result.noOtherAuditor },
   });
-  const rows = await insertRecheckRowsForGrades(tx, workspaceId, result.drawn.map((d) => d.gradeId), { reason: "rate", drawId: draw.id });
+  const rows = await insertRecheckRowsForGrades(tx, workspaceId, result.drawn.map((d) => d.gradeId), { reason: drift.flagged ? "raised_rate" : "rate", drawId: draw.id });
   for (const row of rows) {
-    await logActivity(tx, { workspaceId, actorId: null, action: "recheck.drawn", subjectType: "unit", subjectId: row.unitId, detail: { recheckId: row.id, gradeId: row.gradeId, drawId: draw.id } });
+    await logActivity(tx, { workspaceId, actorId: null, action: "recheck.drawn", subjectType: "unit", subjectId: row.unitId, detail: { recheckId: row.id, gradeId: row.gradeId, drawId: draw.id, reason: drift.flagged ? "raised_rate" : "rate" } });
   }
   return rows;
 }
 
-async function insertRecheckRowsForGrades(tx: Tx, workspaceId: string, gradeIds: string[], how: { reason: "rate"; drawId: string }) {
+async function insertRecheckRowsForGrades(tx: Tx, workspaceId: string, gradeIds: string[], how: { reason: "rate" | "raised_rate"; drawId: string }) {
   const facts = await listGradeFacts({ workspaceId, gradeIds }, tx);
   return insertRechecks(tx, facts.map((grade) => ({ workspaceId, ...grade, reason: how.reason, drawId: how.drawId })));
 }
