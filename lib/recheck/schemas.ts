@@ -49,11 +49,17 @@ export type AdjudicateInput = z.infer<typeof adjudicateSchema>;
 
 const dateKey = (what: string) => z.string().regex(/^\d{4}-\d{2}-\d{2}$/, `${what} must be a date like 2026-11-30.`).refine((value) => !Number.isNaN(Date.parse(`${value}T00:00:00Z`)) && new Date(`${value}T00:00:00Z`).toISOString().startsWith(value), `${what} is not a calendar date.`);
 
-/** The scorecards' period: local dates, both included, at most a year; both optional (default: the last 12 weeks). */
-export const scorecardQuerySchema = z
-  .strictObject({ from: dateKey("The first day").optional(), to: dateKey("The last day").optional() })
-  .refine((q) => !q.from || !q.to || q.from <= q.to, { message: "The period starts after it ends.", path: ["from"] })
-  .refine((q) => !q.from || !q.to || (Date.parse(q.to) - Date.parse(q.from)) / 86_400_000 <= 366, { message: "Choose a period of at most a year.", path: ["to"] });
+/** The scorecards' period: local dates, both included; both optional (default: the last 12 weeks). */
+export const scorecardPeriodShape = { from: dateKey("The first day").optional(), to: dateKey("The last day").optional() };
+
+/** The period's rules across its two keys (the API's query and the screen's URL share them): in order, at most a year. */
+export function withPeriodRules<T extends z.ZodType<{ from?: string; to?: string }>>(schema: T) {
+  return schema
+    .refine((q) => !q.from || !q.to || q.from <= q.to, { message: "The period starts after it ends.", path: ["from"] })
+    .refine((q) => !q.from || !q.to || (Date.parse(q.to) - Date.parse(q.from)) / 86_400_000 <= 366, { message: "Choose a period of at most a year.", path: ["to"] });
+}
+
+export const scorecardQuerySchema = withPeriodRules(z.strictObject(scorecardPeriodShape));
 export type ScorecardQuery = z.infer<typeof scorecardQuerySchema>;
 
 /** The auditor's own set on one photo: the Bench's save envelope plus the photo it is for. */

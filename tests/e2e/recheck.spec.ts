@@ -6,8 +6,8 @@ import { signInAs } from "./support";
 /**
  * Issue 19's done-when path: an inspector grades a unit; it is drawn for recheck; the auditor
  * takes it, sees no trace of the first grade, marks and grades differently; a lead adjudicates;
- * the unit's grade and the lot page show the outcome. Screenshots of each new screen at 1440 × 900
- * and 1024 × 768 go to the test's output folder. (The scorecards screen is not built yet.)
+ * the unit's grade, the lot page and the inspector's scorecard show the outcome. Screenshots of each
+ * new screen at 1440 × 900 and 1024 × 768 go to the test's output folder.
  */
 test.describe.configure({ mode: "serial" });
 
@@ -29,10 +29,11 @@ async function shots(page: Page, name: string, outputPath: (name: string) => str
   await page.setViewportSize({ width: 1440, height: 900 });
 }
 
-test("a graded unit is drawn, rechecked blind, adjudicated by a lead, and the unit and lot show the outcome", async ({ page }, testInfo) => {
+test("a graded unit is drawn, rechecked blind, adjudicated by a lead, and the unit, lot and scorecard show the outcome", async ({ page }, testInfo) => {
   test.setTimeout(240_000);
   const pool = new pg.Pool({ connectionString: process.env.DATABASE_URL, max: 1 });
-  const inspectorName = (await pool.query<{ name: string }>("SELECT name FROM users WHERE email = 'inspector@vellmoor.example'")).rows[0].name;
+  const inspector = (await pool.query<{ id: string; name: string }>("SELECT id, name FROM users WHERE email = 'inspector@vellmoor.example'")).rows[0];
+  const inspectorName = inspector.name;
   try {
     // Every grade of the week is drawn while this test runs (restored at the end).
     await signInAs(page, "lead@vellmoor.example");
@@ -101,6 +102,22 @@ test("a graded unit is drawn, rechecked blind, adjudicated by a lead, and the un
     const lotId = (await pool.query<{ lot_id: string }>("SELECT lot_id FROM units WHERE id = $1", [fixture.unitId])).rows[0].lot_id;
     await page.goto(`/lots/${lotId}`);
     await expect(page.getByTestId("unit-grade-1")).toHaveText("A");
+
+    // The inspector's scorecard counts the recheck (graded B, rechecked A) in this week's row.
+    await page.goto("/recheck/scorecards");
+    await expect(page.getByTestId(`scorecard-row-${inspector.id}`)).toContainText(inspectorName);
+    await expect(page.getByTestId("scorecard-trend-chart").locator("svg.recharts-surface")).toBeVisible();
+    await shots(page, "scorecards-team", (n) => testInfo.outputPath(n));
+    await page.getByTestId(`scorecard-row-${inspector.id}`).getByRole("link", { name: inspectorName }).click();
+    await expect(page).toHaveURL(new RegExp(`grader=${inspector.id}`));
+    await expect(page.getByRole("heading", { name: `${inspectorName}: weekly trend` })).toBeVisible();
+    const thisWeek = page.getByTestId("scorecard-weeks").locator("tbody tr").last();
+    expect(Number(await thisWeek.locator("td").first().textContent())).toBeGreaterThanOrEqual(1);
+    await expect(page.getByTestId(`scorecard-row-${inspector.id}`).locator("td").nth(1)).not.toHaveText("0");
+    await shots(page, "scorecards-grader", (n) => testInfo.outputPath(n));
+    const csv = await page.request.get("/api/recheck/scorecards/csv");
+    expect(csv.headers()["content-type"]).toMatch(/^text\/csv/);
+    expect(await csv.text()).toContain(inspectorName);
   } finally {
     await page.request.put("/api/workspace/recheck-settings", { data: DEFAULTS }).catch(() => {});
     await pool.end();

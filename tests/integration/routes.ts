@@ -160,6 +160,7 @@ export const ROUTES: RouteRow[] = [
   { method: "GET", path: "/api/rechecks/:recheckId/adjudication", permission: "recheck.adjudicate", allowedStatus: 404 },
   { method: "POST", path: "/api/rechecks/:recheckId/adjudication", permission: "recheck.adjudicate", body: () => ({ choice: "first", reason: "Route check." }), allowedStatus: 409 },
   { method: "GET", path: "/api/recheck/scorecards", permission: "reports.read", allowedStatus: 200 },
+  { method: "GET", path: "/api/recheck/scorecards/csv", permission: "reports.read", allowedStatus: 200 },
   // Last of the recheck rows: the first allowed caller takes the fixture recheck (200), later ones find nothing for them (204).
   { method: "POST", path: "/api/rechecks/next", permission: "recheck.perform", allowedStatus: [200, 204] },
 ];

@@ -21,6 +21,14 @@ export default async function RecheckPage() {
       <header className="space-y-1">
         <h1 className="text-2xl font-semibold">Recheck</h1>
         <p className="text-gauge-700">Graded units drawn at random (or sent by hand) get a second, blind look: you see the photos and the functional readings, never the first grade, until you submit yours.</p>
+        {can(user, "reports.read") && (
+          <p className="text-sm">
+            <Link href="/recheck/scorecards" className="underline">
+              Grader scorecards
+            </Link>{" "}
+            — how often each grader&apos;s grades agree with the rechecks, week by week.
+          </p>
+        )}
       </header>
       <section className="card space-y-3 p-5" aria-label="Recheck queue">
         <h2 className="text-lg font-semibold">Queue</h2>
