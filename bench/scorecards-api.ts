@@ -1,8 +1,8 @@
 /**
  * The scorecards API under load, against the RUNNING production app (`npm start` first; loopback
  * only). Creates (or reuses) a workspace "Scorecards bench (generated)" in the demo database with
- * 100 000 graded units (20 graders over the last 12 weeks) and 5 000 submitted rechecks (every
- * 20th grade, three auditors, about one in seven a step apart, each with a class IoU), then 5
+ * 100 000 graded units (20 graders over the last 12 weeks) and 5 000 submitted rechecks (one
+ * grade in 20, 250 per grader, three auditors, about one in seven a step apart, each with a class IoU), then 5
  * keep-alive connections as a lead ask GET /api/recheck/scorecards for the default period (the
  * last 12 weeks: every grade and recheck) and for the last 4 weeks. Prints p50 / p95 / p99;
  * target p95 <= 200 ms at 5 connections. Without a running app it says so and measures nothing.
@@ -82,7 +82,7 @@ async function setUp() {
         [ws, rv, graders, GRADERS, UNITS],
       );
       const draw = (await c.query(`INSERT INTO recheck_draws (workspace_id, trigger, seed, algorithm, input, outcome) VALUES ($1, 'scheduled', '1', 'bench-generated', '{}', '{}') RETURNING id`, [ws])).rows[0].id as string;
-      // Every 20th grade is rechecked; one in seven a step apart (a step up, or down from Reject).
+      // One grade in 20 is rechecked, each grader's in turn; one in seven a step apart (a step up, or down from Reject).
       await c.query(
         `INSERT INTO rechecks (workspace_id, unit_id, grade_id, first_grader_id, part_type_id, rubric_version_id, reason, draw_id, status, auditor_id, measurement, proposed_grade, recheck_grade, comparison, adjudication_reasons, submitted_at, created_at)
          SELECT $1, g.unit_id, g.id, g.graded_by, $2, $3, 'rate', $4, CASE WHEN r.grade = g.final_grade THEN 'agreed' ELSE 'adjudication' END, ($5::uuid[])[1 + g.k % 3], '{}', r.grade, r.grade,
@@ -90,7 +90,7 @@ async function setUp() {
                 '[]', g.created_at + interval '1 day', g.created_at + interval '1 minute'
          FROM (SELECT id, unit_id, graded_by, final_grade, created_at, row_number() OVER (ORDER BY created_at, id) - 1 AS k FROM grades WHERE workspace_id = $1) g
          CROSS JOIN LATERAL (SELECT CASE WHEN (g.k / $6) % 7 <> 0 THEN g.final_grade WHEN g.final_grade = 'A' THEN 'B' WHEN g.final_grade = 'B' THEN 'C' WHEN g.final_grade = 'C' THEN 'Reject' ELSE 'C' END AS grade) r
-         WHERE g.k % $6 = 3`,
+         WHERE g.k % $6 = (g.k / $6) % $6`,
         [ws, pt, rv, draw, auditors, RECHECK_EVERY],
       );
     }

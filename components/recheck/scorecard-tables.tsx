@@ -25,7 +25,7 @@ export function GraderTable({ graders, names, team, linkFor, selected }: { grade
   const sorted = [...graders].sort((a, b) => (names[a.graderId] ?? "").localeCompare(names[b.graderId] ?? ""));
   const row = (key: string, name: React.ReactNode, counts: Counts, drift: DriftFlag | null, isSelected: boolean) => (
     <tr key={key} className={isSelected ? "bg-gauge-50" : undefined} data-testid={`scorecard-row-${key}`} aria-current={isSelected ? "true" : undefined}>
-      <th scope="row" className={`${td} text-left font-medium`}>
+      <th scope="row" className={`${td} whitespace-nowrap text-left font-medium`}>
         {name}
       </th>
       <td className={`${td} tabular-nums`}>{counts.graded}</td>
@@ -33,11 +33,11 @@ export function GraderTable({ graders, names, team, linkFor, selected }: { grade
         {counts.rechecked}
         {counts.notBlind > 0 && <span className="text-gauge-500"> ({counts.notBlind} not blind)</span>}
       </td>
-      <td className={`${td} tabular-nums`}>{formatShareInterval(counts.figures.exact)}</td>
+      <td className={`${td} whitespace-nowrap tabular-nums`}>{formatShareInterval(counts.figures.exact)}</td>
       <td className={`${td} tabular-nums`}>{formatPercent(counts.figures.withinOne)}</td>
-      <td className={`${td} tabular-nums`}>{formatKappaInterval(counts.figures.kappa)}</td>
+      <td className={`${td} whitespace-nowrap tabular-nums`}>{formatKappaInterval(counts.figures.kappa)}</td>
       <td className={td}>{bandLabel(counts.figures.kappa)}</td>
-      <td className={`${td} tabular-nums`}>{formatKappaInterval(counts.figures.quadraticKappa)}</td>
+      <td className={`${td} whitespace-nowrap tabular-nums`}>{formatKappaInterval(counts.figures.quadraticKappa)}</td>
       <td className={td} data-testid={`drift-${key}`}>
         {drift ? drift.flagged ? <span className="font-medium text-fault-700">⚑ {driftText(drift)}</span> : "No" : "—"}
       </td>
@@ -104,7 +104,7 @@ export function ScorecardWeekTable({ weeks, label }: { weeks: ({ week: string } 
         <tbody className="divide-y divide-gauge-100">
           {weeks.map((w) => (
             <tr key={w.week}>
-              <th scope="row" className={`${td} text-left font-normal tabular-nums`}>{w.week}</th>
+              <th scope="row" className={`${td} whitespace-nowrap text-left font-normal tabular-nums`}>{w.week}</th>
               <td className={`${td} tabular-nums`}>{w.figures.n}</td>
               <td className={`${td} tabular-nums`}>{formatPercent(w.figures.exact.share)}</td>
               <td className={`${td} tabular-nums`}>{formatKappa(w.figures.kappa.kappa)}</td>

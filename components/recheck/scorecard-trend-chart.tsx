@@ -30,6 +30,13 @@ function SquareDot(props: { cx?: number; cy?: number; value?: unknown }) {
 }
 
 export function ScorecardTrendChart({ points, driftThreshold, label }: { points: TrendPoint[]; driftThreshold: number; label: string }) {
+  if (!points.some((p) => p.n > 0)) {
+    return (
+      <p className="flex h-72 items-center justify-center rounded-md border border-dashed border-gauge-200 px-4 text-center text-sm text-gauge-700" data-testid="scorecard-trend-empty">
+        No blind rechecks of {label === "Team" ? "the team's" : `${label}'s`} grades in this period yet, so there is no trend to draw.
+      </p>
+    );
+  }
   const lowest = Math.min(0, ...points.map((p) => p.kappa ?? 0));
   const bottom = Math.floor(lowest * 5) / 5;
   return (

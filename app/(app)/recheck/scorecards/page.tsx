@@ -94,7 +94,7 @@ export default async function ScorecardsPage(props: PageProps<"/recheck/scorecar
               {selected && <p className={`text-sm ${selected.drift.flagged ? "font-medium text-fault-700" : "text-gauge-700"}`} data-testid="drift-detail">Drift: {driftText(selected.drift)}.</p>}
               {!selected && <p className="text-sm text-gauge-700">Everyone&apos;s rechecks together. Choose a grader above for their own card.</p>}
             </div>
-            <div className="grid gap-6 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
+            <div className="grid gap-6 xl:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
               <ScorecardTrendChart points={points} driftThreshold={threshold} label={cardLabel} />
               <ScorecardWeekTable weeks={card.weeks} label={cardLabel} />
             </div>
