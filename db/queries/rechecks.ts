@@ -39,6 +39,16 @@ export async function listRecheckedGradeIds({ workspaceId, gradeIds }: Scope & {
   return rows.map((row) => row.gradeId);
 }
 
+/** Of these units, the ones whose recheck still waits (not yet submitted): blind readers must not see their first grade. */
+export async function listUnitsAwaitingRecheck({ workspaceId, unitIds }: Scope & { unitIds: string[] }, tx: DbOrTx = db()) {
+  if (unitIds.length === 0) return new Set<string>();
+  const rows = await tx
+    .selectDistinct({ unitId: rechecks.unitId })
+    .from(rechecks)
+    .where(and(eq(rechecks.workspaceId, workspaceId), inArray(rechecks.unitId, unitIds), eq(rechecks.status, "waiting")));
+  return new Set(rows.map((row) => row.unitId));
+}
+
 /** Active people holding any of `roles` (who could take a recheck). */
 export async function listActiveUserIdsWithRoles({ workspaceId, roles }: Scope & { roles: string[] }, tx: DbOrTx = db()) {
   const rows = await tx

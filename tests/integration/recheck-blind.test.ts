@@ -12,7 +12,8 @@ import { db } from "@/db/client";
 import { grades, rechecks, units, users } from "@/db/schema";
 import { holders } from "@/lib/auth/permissions";
 import { FIXTURE_SURFACE } from "../support/grading";
-import { api } from "../support/http";
+import { api, BASE_URL } from "../support/http";
+import { flatText, pdfText } from "../support/pdf-text";
 import { gradedUnit, RECHECK_DEFAULTS, recheckWorld, type RecheckWorld } from "../support/recheck";
 import { ROUTES } from "./routes";
 
@@ -82,6 +83,21 @@ describe("blind at the API", () => {
     expect((await api(world.auditor, "GET", `/api/gallery/${galleryItemId}`)).status).toBe(404);
     expect((await api(world.auditor, "GET", `/api/gallery/${galleryItemId}/measurement`)).status).toBe(404);
     expect((await api(world.lead, "GET", `/api/gallery/${galleryItemId}`)).status).toBe(200);
+    // Reports: the auditor's exports leave the unit out (the lead's keep it); the auditor's lot
+    // report lists the unit with neither its grade nor its marked defects.
+    for (const kind of ["units", "grades", "defects"]) {
+      const forAuditor = await api<string>(world.auditor, "GET", `/api/reports/export?kind=${kind}`);
+      expect(forAuditor.status, kind).toBe(200);
+      expect(String(forAuditor.body), kind).not.toContain(made.unit.id);
+      expect(String((await api<string>(world.lead, "GET", `/api/reports/export?kind=${kind}`)).body), kind).toContain(made.unit.id);
+    }
+    const reportText = async (session: typeof world.lead) => {
+      const res = await fetch(`${BASE_URL}/api/lots/${unit.lotId}/report`, { headers: { cookie: session.cookie } });
+      expect(res.status).toBe(200);
+      return flatText(await pdfText(Buffer.from(await res.arrayBuffer())));
+    };
+    expect(await reportText(world.lead)).toContain("scratch");
+    expect(await reportText(world.auditor)).not.toContain("scratch");
     const view = await api<{ photos: { id: string }[]; regionSets: Record<string, unknown> }>(world.auditor, "GET", `/api/rechecks/${recheckId}`);
     expect(view.status).toBe(200);
     expect(view.body.photos.map((p) => p.id)).toEqual([made.photo.id]);
