@@ -1,6 +1,7 @@
 /** What the Bench records for learned ghosts (components/bench/learned-decisions.ts). */
 import { describe, expect, it } from "vitest";
 import type { GhostShape } from "@/components/annotate/types";
+import { ghostCaption } from "@/components/annotate/paint-ghosts";
 import { decisionRequests, isLearned } from "@/components/bench/learned-decisions";
 
 const spot = { kind: "spot", x: 10, y: 10, radius: 3 } as const;
@@ -25,5 +26,12 @@ describe("decisionRequests", () => {
   it("asks nothing when no learned ghost is among them", () => {
     expect(decisionRequests([surface, pixel], "accepted")).toEqual([]);
     expect([surface, pixel, learned("a", "m")].map(isLearned)).toEqual([false, false, true]);
+  });
+});
+
+describe("ghostCaption (the label painted under a ghost)", () => {
+  it("names class and score for a learned ghost, and only 'suggested' for the others", () => {
+    expect(ghostCaption({ ...learned("a", "m"), label: "Scratch 72 % (learned)" })).toBe("Scratch 72 % (learned)");
+    expect([surface, pixel].map(ghostCaption)).toEqual(["suggested", "suggested"]);
   });
 });
