@@ -52,7 +52,7 @@ export function describeRules(rules: SuggestionModelHistory["rules"]): string[] 
   return [
     `A suggestion counts as a hit when it overlaps an accepted region of the same class with IoU ≥ ${rules.iouThreshold}; recall = hits ÷ accepted regions, precision = hits ÷ suggestions, on photos the model never learned from.`,
     `A class is suggested only when the model learned it from at least ${r.minTrainingRegions} regions on ${r.minTrainingPhotos} photos, the held-out photos hold at least ${r.minTestRegions} of its regions, and there its recall is at least ${r.minRecall} and its precision at least ${r.minPrecision}.`,
-    "A new model is switched in only when its mean held-out F1 over the classes either model may suggest is at least that of the model in use, on the same held-out photos.",
+    "A new model is switched in only when its mean held-out F1 over the classes either model may suggest is at least that of the model in use, on the same held-out photos; on a tie, a model that may suggest nothing never replaces one.",
     `Training starts on its own once the workspace has ${rules.firstTrainingRegions} accepted regions, then after every ${rules.retrainAfterNewRegions} new ones; “Train now” starts one at once.`,
   ];
 }

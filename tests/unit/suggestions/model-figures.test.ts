@@ -48,6 +48,7 @@ describe("describeRules", () => {
     const lines = describeRules({ iouThreshold: EVALUATION_IOU, suggestion: SUGGESTION_RULE, firstTrainingRegions: 60, retrainAfterNewRegions: 50 });
     expect(lines[0]).toContain("IoU ≥ 0.3");
     expect(lines[1]).toBe("A class is suggested only when the model learned it from at least 30 regions on 10 photos, the held-out photos hold at least 8 of its regions, and there its recall is at least 0.6 and its precision at least 0.4.");
+    expect(lines[2]).toContain("on a tie, a model that may suggest nothing never replaces one");
     expect(lines[3]).toContain("60 accepted regions, then after every 50 new ones");
   });
 });
