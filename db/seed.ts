@@ -11,6 +11,7 @@ import { seedPartTypes } from "./seed/part-types";
 import { seedPeople } from "./seed/people";
 import { seedPhotos } from "./seed/photos";
 import { seedRubrics } from "./seed/rubrics";
+import { seedSuggestionModel } from "./seed/suggestion-model";
 
 export async function isDatabaseEmpty(): Promise<boolean> {
   const { rows } = await db().execute<{ n: number }>(sql`SELECT count(*)::int AS n FROM workspaces`);
@@ -31,7 +32,9 @@ export async function seedDemo() {
   const gallery = await seedGallery();
   // A calibration set of those examples with one passing and one failing attempt.
   const calibration = await seedCalibration();
-  return { seeded: true as const, people, partTypes, lots, rubrics, photos, gallery, calibration };
+  // So a newcomer's Bench shows learned ghosts (the demo has too few marked regions to train on).
+  const suggestionModel = await seedSuggestionModel();
+  return { seeded: true as const, people, partTypes, lots, rubrics, photos, gallery, calibration, suggestionModel };
 }
 
 if (import.meta.url === `file://${process.argv[1]}`) {
