@@ -9,7 +9,7 @@ export type Screen = {
    * may open it. API routes name their own permissions, so editing this table never changes them.
    */
   permission: Permission;
-  /** "planned" screens say what is coming and do nothing else yet. */
+  /** "planned" marks a screen in the navigation that is not built yet (none today). */
   status: "ready" | "planned";
   summary: string;
 };
