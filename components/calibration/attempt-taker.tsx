@@ -6,6 +6,7 @@ import { useCallback, useEffect, useRef, useState } from "react";
 import { AnnotationCanvasLazy } from "@/components/annotate/annotation-canvas-lazy";
 import type { AllowedDefect, ZoneInput } from "@/components/annotate/types";
 import type { MeasurementLabels } from "@/components/grading/measurement-table";
+import { BatteryCaution, StaticCaution } from "@/components/ui/cautions";
 import { FormMessage } from "@/components/ui/form-field";
 import type { CalibrationAnswer, CalibrationAnswers } from "@/lib/calibration/types";
 import type { RegionSetPayload } from "@/lib/geometry/validate";
@@ -17,6 +18,8 @@ import { AnswerMeasurementPanel } from "./answer-measurement";
 export type BlindItem = {
   position: number;
   partTypeName: string;
+  /** A battery or a static-sensitive part shows the Bench's cautions. */
+  cautions: { battery: boolean; staticSensitive: boolean };
   viewLabel: string;
   width: number | null;
   height: number | null;
@@ -192,6 +195,9 @@ export function AttemptTaker({ attemptId, setName, items, initialAnswers }: { at
           <p className="text-sm text-gauge-700">
             {item.partTypeName} · {item.viewLabel}
           </p>
+          {/* As on the Bench: what is learnt from the photo is what to do with such a part in hand. */}
+          {item.cautions.battery && <BatteryCaution className="text-xs" />}
+          {item.cautions.staticSensitive && <StaticCaution className="text-xs" />}
           <fieldset>
             <legend className="field-label">Your grade</legend>
             <div className="mt-1 grid grid-cols-4 gap-1">

@@ -8,6 +8,7 @@ import { requirePageUser } from "@/lib/auth/require-user";
 import { readAttempt } from "@/lib/calibration/attempts";
 import { AppError } from "@/lib/errors";
 import { pageIdOrNotFound } from "@/lib/http/page-params";
+import { isBatteryPart, STATIC_SENSITIVE, type PartCategory } from "@/lib/part-types/schemas";
 
 export const metadata: Metadata = { title: "Calibration attempt" };
 
@@ -34,6 +35,7 @@ export default async function CalibrationAttemptPage(props: PageProps<"/calibrat
       return {
         position: item.position,
         partTypeName: item.partTypeName,
+        cautions: { battery: partType ? isBatteryPart(partType) : false, staticSensitive: partType ? STATIC_SENSITIVE.includes(partType.category as PartCategory) : false },
         viewLabel: view?.label ?? item.viewKey,
         width: item.width,
         height: item.height,
