@@ -245,3 +245,18 @@ export function listSubmittedAttempts({ workspaceId, setId }: SetKey) {
     .where(and(eq(calibrationAttempts.workspaceId, workspaceId), eq(calibrationAttempts.setId, setId), eq(calibrationAttempts.status, "submitted")))
     .orderBy(asc(users.name));
 }
+
+/**
+ * A grader's last submitted calibration attempt up to `at` (the recheck draw raises the rate of
+ * graders whose last attempt failed, lib/recheck/raised-rate.ts). A person has one attempt per
+ * assignment, so this reads a handful of rows.
+ */
+export async function getLastSubmittedAttempt({ workspaceId, userId, at }: { workspaceId: string; userId: string; at: Date }, tx: DbOrTx = db()) {
+  const [row] = await tx
+    .select({ id: calibrationAttempts.id, setId: calibrationAttempts.setId, submittedAt: calibrationAttempts.submittedAt, passed: calibrationAttempts.passed })
+    .from(calibrationAttempts)
+    .where(and(eq(calibrationAttempts.workspaceId, workspaceId), eq(calibrationAttempts.userId, userId), eq(calibrationAttempts.status, "submitted"), sql`${calibrationAttempts.submittedAt} <= ${at.toISOString()}::timestamptz`))
+    .orderBy(desc(calibrationAttempts.submittedAt), desc(calibrationAttempts.id))
+    .limit(1);
+  return row;
+}
