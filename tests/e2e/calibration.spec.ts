@@ -71,6 +71,8 @@ test("a trainer builds and assigns a 5-item set; the inspector takes it blind, r
   await expect(page.getByTestId("attempt-taker")).toBeVisible();
   const html = await page.content();
   for (const caption of captions) expect(html).not.toContain(caption);
+  // The examples are of a battery part type: the taker sees the Bench's battery caution.
+  await expect(page.getByRole("note").filter({ hasText: "Lithium battery caution" })).toBeVisible();
 
   // Item 1: a box of the first class on the canvas, then a grade.
   const stage = page.getByTestId("annotation-stage");
