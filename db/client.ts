@@ -15,11 +15,37 @@ type Cache = { pool?: pg.Pool; preparedPool?: pg.Pool; db?: Database };
 // Cached on globalThis so dev reloads and route modules share one pool.
 const cache = globalThis as unknown as { __partproofDb?: Cache };
 
+const intFromEnv = (name: string, fallback: number) => {
+  const raw = process.env[name];
+  const value = raw === undefined || raw === "" ? fallback : Number(raw);
+  if (!Number.isInteger(value) || value < 0) throw new Error(`${name} must be a whole number of milliseconds (got "${raw}").`);
+  return value;
+};
+
+/**
+ * Time limits of every app connection, so one stuck query or forgotten transaction cannot hold a
+ * connection (and its locks) for good, and an unreachable server fails a request within seconds
+ * (answered 503 by lib/http/route.ts) instead of hanging it. The session settings travel as
+ * startup parameters, which a transaction-mode pooler may refuse: DATABASE_SESSION_SETTINGS=false
+ * leaves them out, and they are then set on the database role instead (README, "Running at scale").
+ */
+export function connectionLimits(): pg.PoolConfig {
+  const limits: pg.PoolConfig = { connectionTimeoutMillis: intFromEnv("DATABASE_CONNECT_TIMEOUT_MS", 5_000) };
+  if (sessionSettingsAllowed()) {
+    limits.statement_timeout = intFromEnv("DATABASE_STATEMENT_TIMEOUT_MS", 30_000);
+    limits.idle_in_transaction_session_timeout = intFromEnv("DATABASE_IDLE_IN_TRANSACTION_TIMEOUT_MS", 60_000);
+  }
+  return limits;
+}
+
+const sessionSettingsAllowed = () => process.env.DATABASE_SESSION_SETTINGS !== "false";
+
 function newPool(config: pg.PoolConfig): pg.Pool {
   const url = process.env.DATABASE_URL;
   if (!url) throw new Error("DATABASE_URL is not set; start the app with `npm start` or see .env.example.");
   const created = new pg.Pool({
     connectionString: url,
+    ...connectionLimits(),
     // A new connection costs about 20 ms here (SCRAM sign-in, a fresh backend with cold caches).
     // With pg's default of closing idle connections after 10 s, every burst above the last
     // burst's size paid that again, which showed as 200-700 ms stalls in the queue benchmark;
@@ -48,7 +74,10 @@ export function pool(): pg.Pool {
  */
 function preparedPool(): pg.Pool {
   const c = (cache.__partproofDb ??= {});
-  c.preparedPool ??= newPool({ max: Number(process.env.DATABASE_PREPARED_POOL_MAX ?? 10), options: "-c plan_cache_mode=force_generic_plan" });
+  c.preparedPool ??= newPool({
+    max: Number(process.env.DATABASE_PREPARED_POOL_MAX ?? 10),
+    ...(sessionSettingsAllowed() && { options: "-c plan_cache_mode=force_generic_plan" }),
+  });
   return c.preparedPool;
 }
 
@@ -67,6 +96,12 @@ export async function closeDb() {
 const dialect = new PgDialect({ casing: "snake_case" });
 
 /**
+ * Named prepared statements on the hot paths (DATABASE_PREPARED_STATEMENTS=false turns them
+ * off, for a pooler that cannot keep them: PgBouncer before 1.21, or with max_prepared_statements = 0).
+ */
+export const preparedStatementsAllowed = () => process.env.DATABASE_PREPARED_STATEMENTS !== "false";
+
+/**
  * Runs a raw SQL statement as a named prepared statement on its own pool (preparedPool): each
  * connection parses and plans it once, later runs only bind and execute. For the hot paths only,
  * and only for statements whose best plan does not depend on the parameter values (an index walk
@@ -76,6 +111,7 @@ const dialect = new PgDialect({ casing: "snake_case" });
  */
 export async function executePrepared<Row extends Record<string, unknown>>(query: SQL): Promise<{ rows: Row[] }> {
   const { sql: text, params } = dialect.sqlToQuery(query);
+  if (!preparedStatementsAllowed()) return { rows: (await pool().query<Row>({ text, values: params })).rows };
   const name = `pp_${createHash("sha256").update(text).digest("base64url").slice(0, 22)}`;
   const { rows } = await preparedPool().query<Row>({ name, text, values: params });
   return { rows };

@@ -14,9 +14,10 @@ export async function runMigrations(databaseUrl: string) {
 }
 
 if (import.meta.url === `file://${process.argv[1]}`) {
-  const url = process.env.DATABASE_URL;
+  // Migrations run as the tables' owner; the app's own role may not change the schema.
+  const url = process.env.MIGRATION_DATABASE_URL || process.env.DATABASE_URL;
   if (!url) {
-    console.error("DATABASE_URL is not set.");
+    console.error("MIGRATION_DATABASE_URL (or DATABASE_URL) is not set.");
     process.exit(1);
   }
   await runMigrations(url);

@@ -30,8 +30,10 @@ const envSchema = z.object({
   /** Set while the local inbox is the mail transport; enables the Outbox page. */
   MAIL_INBOX_DIR: z.string().optional(),
 
-  SIGNIN_MAX_FAILURES_PER_ACCOUNT: z.coerce.number().int().positive().default(5),
+  /** Sign-in limits in the window (lib/auth/rate-limit.ts): per account+address pair, per address, per account. */
+  SIGNIN_MAX_FAILURES_PER_ACCOUNT_ADDRESS: z.coerce.number().int().positive().default(5),
   SIGNIN_MAX_FAILURES_PER_IP: z.coerce.number().int().positive().default(20),
+  SIGNIN_MAX_FAILURES_PER_ACCOUNT: z.coerce.number().int().positive().default(50),
   SIGNIN_WINDOW_MINUTES: z.coerce.number().int().positive().default(15),
   /** How long Take next reserves a unit for the inspector; the Bench renews it while open. */
   QUEUE_LEASE_SECONDS: z.coerce.number().int().min(5).max(24 * 3600).default(20 * 60),

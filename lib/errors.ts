@@ -30,13 +30,16 @@ export class AppError extends Error {
   readonly status: number;
   /** Per-field messages for forms (field path → message). */
   readonly fieldErrors?: Record<string, string>;
+  /** For 429 and 503: when trying again makes sense (sent as Retry-After). */
+  readonly retryAfterSeconds?: number;
 
-  constructor(code: AppErrorCode, message: string, options?: { fieldErrors?: Record<string, string>; cause?: unknown }) {
+  constructor(code: AppErrorCode, message: string, options?: { fieldErrors?: Record<string, string>; cause?: unknown; retryAfterSeconds?: number }) {
     super(message, { cause: options?.cause });
     this.name = "AppError";
     this.code = code;
     this.status = statusByCode[code];
     this.fieldErrors = options?.fieldErrors;
+    this.retryAfterSeconds = options?.retryAfterSeconds;
   }
 }
 

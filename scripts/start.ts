@@ -1,14 +1,15 @@
 /**
  * `npm start`: local services → migrations → demo seed when the database is empty → production
- * build when missing or stale → `next start` on 127.0.0.1. Ctrl-C stops everything it started.
+ * build when missing or stale → the web server (scripts/serve.ts) on 127.0.0.1. Ctrl-C stops everything it started.
  * `--dev` runs `next dev` instead of a production build.
  */
 import fs from "node:fs";
 import http from "node:http";
 import { DEMO_PASSWORD, DEMO_WORKSPACES } from "../db/seed/demo-data";
 import { buildIfStale } from "./lib/build";
-import { killTree, run, start, tsxArgs, waitForExit } from "./lib/children";
+import { killTree, run, start, tsxArgs, waitForExit, webServerArgs } from "./lib/children";
 import { isPortFree, portTakenMessage, waitFor } from "./lib/ports";
+import { productionStartProblems } from "../lib/production-check";
 import { sessionSecret } from "./lib/secret";
 import { startServices } from "./lib/services";
 import { appEnvironment, demoSettings } from "./lib/settings";
@@ -92,6 +93,9 @@ async function main() {
     throw new Error(portTakenMessage(settings.app.port, "Partproof", "PORT"));
   }
 
+  // A production start must bring its own secret; only the local demo gets a generated one.
+  const problems = dev ? [] : productionStartProblems({ ...process.env, NODE_ENV: "production", APP_URL: process.env.APP_URL || settings.app.url });
+  if (problems.length) throw new Error(`Partproof will not start:\n${problems.map((p) => `  - ${p}`).join("\n")}`);
   const secret = sessionSecret(settings.dataDir);
   const env = appEnvironment(settings, secret);
   console.log("Starting PostgreSQL, the local S3 store and the mail inbox …");
@@ -129,8 +133,8 @@ async function main() {
 
   startWorker(env, children, () => stopping, shutdown);
 
-  const nextArgs = ["node_modules/next/dist/bin/next", dev ? "dev" : "start", "-H", "127.0.0.1", "-p", String(settings.app.port)];
-  const app = start(process.execPath, nextArgs, { env, label: "next" });
+  const [node, webArgs] = webServerArgs({ port: settings.app.port, dev });
+  const app = start(node, webArgs, { env: { ...env, PORT: String(settings.app.port), HOST: "127.0.0.1" }, label: "next" });
   children.push(app);
   app.on("exit", (code) => {
     if (!stopping) {

@@ -1,21 +1,17 @@
 /**
  * `npm test`: lint and typecheck, then unit tests, then integration and browser tests against
  * real services — PostgreSQL (fresh database), s3rver and the mail inbox on their own test ports
- * and folders — and a production build served by `next start`. Exits non-zero on any failure.
+ * and folders — and a production build served by scripts/serve.ts. Exits non-zero on any failure.
  *   --only unit|integration|e2e   run one layer (integration/e2e still start the services)
  */
-import { spawn, type ChildProcess } from "node:child_process";
 import fs from "node:fs";
-import http from "node:http";
-import path from "node:path";
 import { buildIfStale } from "./lib/build";
 import { ensureChromium } from "./lib/debian";
-import { killTree, run, start, tsxArgs, waitForExit } from "./lib/children";
+import { killTree, run, start, tsxArgs, waitForExit, webServerArgs } from "./lib/children";
 import { isPortFree, portTakenMessage, waitFor } from "./lib/ports";
-import S3rver from "s3rver";
-import { corsXml } from "./lib/local-s3";
 import { startServices, type Services } from "./lib/services";
-import { appEnvironment, projectRoot, testDistDir, testSettings, type ServiceSettings } from "./lib/settings";
+import { startTestControls, type TestControls } from "./lib/test-control";
+import { appEnvironment, testDistDir, testSettings } from "./lib/settings";
 
 const onlyIndex = process.argv.indexOf("--only");
 const only = onlyIndex > 0 ? process.argv[onlyIndex + 1] : undefined;
@@ -43,60 +39,6 @@ async function step(name: string, fn: () => Promise<void>) {
 
 const bin = (name: string) => `node_modules/.bin/${name}`;
 
-/** The photo worker, as `npm start` runs it, logging to <dataDir>/worker.log. */
-function startWorker(env: Record<string, string>, dataDir: string): ChildProcess {
-  fs.mkdirSync(dataDir, { recursive: true });
-  const log = fs.openSync(path.join(dataDir, "worker.log"), "w");
-  const [node, args] = tsxArgs("lib/jobs/worker.ts");
-  const worker = spawn(node, args, { cwd: projectRoot, env: { ...process.env, ...env, MALLOC_ARENA_MAX: "2" }, stdio: ["ignore", log, log], detached: true });
-  fs.closeSync(log);
-  return worker;
-}
-
-/**
- * The test object store, owned here (not by startServices) so the store-outage integration test
- * can take it down the hard way: POST /s3/stop drops every open connection and stops s3rver —
- * as a crash or network cut would; s3rver's own close() lets busy keep-alive connections carry
- * on — and POST /s3/start starts it again on the same port and folder, its data kept.
- */
-async function startTestS3(s: ServiceSettings) {
-  if (!(await isPortFree(s.s3.port))) throw new Error(portTakenMessage(s.s3.port, "the test S3 store", "TEST_S3_PORT"));
-  const origins = [s.app.url, s.app.url.replace("127.0.0.1", "localhost")];
-  fs.mkdirSync(s.s3.dir, { recursive: true });
-  let server: S3rver | null = null;
-  const up = async () => {
-    if (server) return;
-    const next = new S3rver({ address: "127.0.0.1", port: s.s3.port, directory: s.s3.dir, silent: true, configureBuckets: [{ name: s.s3.bucket, configs: [corsXml(origins)] }] });
-    await next.run();
-    server = next;
-  };
-  const down = async () => {
-    const running = server;
-    server = null;
-    if (!running) return;
-    const closed = running.close();
-    (running as unknown as { httpServer: http.Server }).httpServer.closeAllConnections();
-    await closed;
-  };
-  await up();
-  const control = http.createServer((req, res) => {
-    const action = req.method === "POST" && req.url === "/s3/stop" ? down : req.method === "POST" && req.url === "/s3/start" ? up : null;
-    if (!action) return void res.writeHead(404).end();
-    action().then(
-      () => res.writeHead(204).end(),
-      (err) => res.writeHead(500).end(String(err)),
-    );
-  });
-  await new Promise<void>((resolve) => control.listen(0, "127.0.0.1", resolve));
-  return {
-    controlUrl: `http://127.0.0.1:${(control.address() as { port: number }).port}`,
-    close: async () => {
-      control.close();
-      await down();
-    },
-  };
-}
-
 async function main() {
   const t0 = Date.now();
   if (!only) {
@@ -119,33 +61,46 @@ async function main() {
       NODE_ENV: "production",
       // Short backoff so the store-outage test's retries come within seconds (app and worker agree).
       PHOTO_JOB_RETRY_DELAY_SECONDS: "1",
+      // The same for mail the inbox did not take while it was down (mail-outage test).
+      MAIL_RETRY_DELAY_SECONDS: "1",
+      // A killed worker's jobs come back within seconds (worker-fault test), not minutes.
+      PHOTO_JOB_EXPIRE_SECONDS: "30",
+      MEASURE_JOB_EXPIRE_SECONDS: "30",
+      JOB_MAINTENANCE_SECONDS: "2",
+      // The tests play the reverse proxy: X-Forwarded-For names the client they act as, so
+      // per-address limits in one test never spill into another (the default of 0 hops, the
+      // socket's address, is tested with servers of its own in two-instances.test.ts).
+      TRUSTED_PROXY_HOPS: "1",
     };
     let services: Services | null = null;
     let app: ReturnType<typeof start> | null = null;
-    let worker: ChildProcess | null = null;
-    let testS3: Awaited<ReturnType<typeof startTestS3>> | null = null;
+    let controls: TestControls | null = null;
     const stopAll = async () => {
-      for (const child of [app, worker]) if (child) killTree(child);
-      await Promise.all([app, worker].map((child) => child && waitForExit(child, 10_000)));
+      if (app) killTree(app);
+      if (app) await waitForExit(app, 10_000);
+      await controls?.close();
       await services?.stop();
-      await testS3?.close();
     };
     process.on("SIGINT", () => void stopAll().then(() => process.exit(130)));
     try {
       console.log("\n━━ services ━━");
       services = await startServices(settings, { freshDatabase: true, localS3: false });
-      testS3 = await startTestS3(settings);
+      fs.mkdirSync(settings.dataDir, { recursive: true });
+      fs.writeFileSync(`${settings.dataDir}/worker.log`, "");
       const [node, seedArgs] = tsxArgs("db/seed.ts");
+      // The seed stores demo photos, so the object store must be up first (it starts with the controls).
+      controls = await startTestControls({ settings, env, postgres: services.pg, mail: services.mail });
       await run(node, seedArgs, { env, label: "seed" });
-      worker = startWorker(env, settings.dataDir);
+      await controls.startWorker();
       await buildIfStale({ distDir: testDistDir(), env: { ...env, NODE_ENV: "production" } });
-      app = start(process.execPath, ["node_modules/next/dist/bin/next", "start", "-H", "127.0.0.1", "-p", String(settings.app.port)], {
-        env: { ...env, NEXT_DIST_DIR: testDistDir() },
+      const [webNode, webArgs] = webServerArgs({ port: settings.app.port });
+      app = start(webNode, webArgs, {
+        env: { ...env, NEXT_DIST_DIR: testDistDir(), PORT: String(settings.app.port), HOST: "127.0.0.1" },
         label: "next",
-        quiet: true,
+        logFile: `${settings.dataDir}/web.log`,
       });
       await waitFor(async () => (await fetch(`${settings.app.url}/api/health`)).ok, { timeoutMs: 60_000, what: "The test web server" });
-      const testEnv = { ...env, NODE_ENV: "test", TEST_S3_CONTROL_URL: testS3.controlUrl };
+      const testEnv = { ...env, NODE_ENV: "test", TEST_CONTROL_URL: controls.url, TEST_DATA_DIR: settings.dataDir, TEST_DIST_DIR: testDistDir() };
       if (wants("integration")) await step("integration tests", () => run(bin("vitest"), ["run", "--project", "integration", ...passThrough], { env: testEnv, label: "integration" }));
       if (wants("e2e")) await step("browser tests", () => run(bin("playwright"), ["test", ...passThrough], { env: testEnv, label: "e2e" }));
     } catch (err) {

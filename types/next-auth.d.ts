@@ -17,5 +17,7 @@ declare module "next-auth/jwt" {
     workspaceId: string;
     roles: Role[];
     tokenVersion: number;
+    /** This sign-in's id, kept across next-auth's re-issued cookies; revoked at sign-out. */
+    sid?: string;
   }
 }

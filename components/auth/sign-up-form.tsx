@@ -2,8 +2,6 @@
 
 import { zodResolver } from "@hookform/resolvers/zod";
 import Link from "next/link";
-import { signIn } from "next-auth/react";
-import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { type z } from "zod";
@@ -15,8 +13,8 @@ import { ApiError, apiFetch } from "@/lib/http/client";
 type Values = z.input<typeof signUpSchema>;
 
 export function SignUpForm({ starters }: { starters: readonly StarterChoice[] }) {
-  const router = useRouter();
   const [serverError, setServerError] = useState<string | null>(null);
+  const [sent, setSent] = useState<string | null>(null);
   const { register, handleSubmit, formState, setError } = useForm<Values>({
     resolver: zodResolver(signUpSchema),
     defaultValues: { starterPartTypes: starters.map((s) => s.slug) as Values["starterPartTypes"] },
@@ -25,7 +23,8 @@ export function SignUpForm({ starters }: { starters: readonly StarterChoice[] })
   const onSubmit = handleSubmit(async (values) => {
     setServerError(null);
     try {
-      await apiFetch("/api/signup", { body: values });
+      const { message } = await apiFetch<{ message: string }>("/api/signup", { body: values });
+      setSent(message);
     } catch (err) {
       if (err instanceof ApiError) {
         for (const [field, message] of Object.entries(err.fieldErrors)) {
@@ -36,15 +35,22 @@ export function SignUpForm({ starters }: { starters: readonly StarterChoice[] })
       }
       throw err;
     }
-    const result = await signIn("credentials", { email: values.email, password: values.password, redirect: false });
-    if (result?.error) {
-      router.replace("/sign-in");
-      return;
-    }
-    // Home lists the first day's steps: what is set up and what to do next.
-    router.replace("/");
-    router.refresh();
   });
+
+  if (sent) {
+    return (
+      <div className="space-y-4" data-testid="sign-up-sent">
+        <h1 className="text-xl font-semibold">Confirm your e-mail address</h1>
+        <FormMessage kind="success">{sent}</FormMessage>
+        <p className="text-sm">
+          Already have an account?{" "}
+          <Link href="/sign-in" className="text-gauge-600 underline">
+            Sign in
+          </Link>
+        </p>
+      </div>
+    );
+  }
 
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4" aria-labelledby="sign-up-title">
@@ -52,13 +58,14 @@ export function SignUpForm({ starters }: { starters: readonly StarterChoice[] })
         <h1 id="sign-up-title" className="text-xl font-semibold">
           Set up your QC desk
         </h1>
-        <p className="text-sm text-gauge-700">This creates a workspace for your company. You become its QC lead and can invite your team.</p>
+        <p className="text-sm text-gauge-700">
+          This creates a workspace for your company. You become its QC lead and can invite your team. We first e-mail you a link to confirm the address and choose your password.
+        </p>
       </div>
       {serverError && <FormMessage kind="error">{serverError}</FormMessage>}
       <FormField id="companyName" label="Company" registration={register("companyName")} error={formState.errors.companyName} autoComplete="organization" />
       <FormField id="name" label="Your name" registration={register("name")} error={formState.errors.name} autoComplete="name" />
       <FormField id="email" label="Work e-mail" type="email" registration={register("email")} error={formState.errors.email} autoComplete="email" />
-      <FormField id="password" label="Password" type="password" registration={register("password")} error={formState.errors.password} hint="At least 10 characters." autoComplete="new-password" />
       <fieldset className="space-y-2" aria-describedby="starter-hint">
         <legend className="field-label">Start with example part types</legend>
         <p id="starter-hint" className="text-xs text-gauge-600">
@@ -68,7 +75,7 @@ export function SignUpForm({ starters }: { starters: readonly StarterChoice[] })
         <StarterChoices choices={starters} registration={register("starterPartTypes")} idPrefix="starter" />
       </fieldset>
       <button type="submit" className="btn-primary w-full" disabled={formState.isSubmitting}>
-        {formState.isSubmitting ? "Creating…" : "Create workspace"}
+        {formState.isSubmitting ? "Sending…" : "Create workspace"}
       </button>
       <p className="text-sm">
         Already have an account?{" "}

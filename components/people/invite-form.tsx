@@ -21,9 +21,9 @@ export function InviteForm() {
     defaultValues: { email: "", name: "", roles: ["inspector"] },
   });
   const invite = useMutation({
-    mutationFn: (values: Values) => apiFetch<{ message: string; emailSent: boolean }>("/api/people", { body: values }),
+    mutationFn: (values: Values) => apiFetch<{ message: string; emailSent: boolean; emailQueued: boolean }>("/api/people", { body: values }),
     onSuccess: (data) => {
-      setResult({ kind: data.emailSent ? "success" : "error", text: data.message });
+      setResult({ kind: data.emailSent || data.emailQueued ? "success" : "error", text: data.message });
       reset();
       void queryClient.invalidateQueries({ queryKey: peopleKeys.all });
     },

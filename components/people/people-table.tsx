@@ -10,13 +10,16 @@ import { apiFetch } from "@/lib/http/client";
 import { PEOPLE_SORTS, peopleListParamsSchema } from "@/lib/people/list-params";
 import { peopleKeys } from "@/lib/query-keys/people";
 
-type Person = { id: string; email: string; name: string; roles: Role[]; active: boolean; hasPassword: boolean; lastSignInAt: string | null };
+type Person = { id: string; email: string; name: string; roles: Role[]; active: boolean; hasPassword: boolean; lastSignInAt: string | null; invitationEmail: "sent" | "queued" | "failed" | null };
 
 const column = createColumnHelper<Person>();
 
 function status(p: Person) {
   if (!p.active) return "Deactivated";
-  return p.hasPassword ? "Active" : "Invited";
+  if (p.hasPassword) return "Active";
+  if (p.invitationEmail === "queued") return "Invited (e-mail pending: the mail server has not taken it yet)";
+  if (p.invitationEmail === "failed") return "Invited (e-mail not delivered: resend it)";
+  return "Invited";
 }
 
 export function PeopleTable({ currentUserId }: { currentUserId: string }) {

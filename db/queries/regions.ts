@@ -75,10 +75,10 @@ export function listPhotoRegions({ workspaceId, photoId }: PhotoKey, tx: DbOrTx 
  * concurrent saves of one photo queue here, so each compares against the version the previous
  * one committed (compare-and-swap).
  */
-export async function lockRegionSet(tx: DbOrTx, { workspaceId, photoId }: PhotoKey): Promise<{ version: number }> {
+export async function lockRegionSet(tx: DbOrTx, { workspaceId, photoId }: PhotoKey): Promise<{ version: number; updatedBy: string | null }> {
   await tx.insert(regionSets).values({ photoId, workspaceId, version: 0 }).onConflictDoNothing({ target: regionSets.photoId });
   const [row] = await tx
-    .select({ version: regionSets.version })
+    .select({ version: regionSets.version, updatedBy: regionSets.updatedBy })
     .from(regionSets)
     .where(and(eq(regionSets.workspaceId, workspaceId), eq(regionSets.photoId, photoId)))
     .for("update");

@@ -1,7 +1,7 @@
 import "server-only";
-import { and, asc, eq, sql } from "drizzle-orm";
-import { db, type DbOrTx } from "@/db/client";
-import { users, workspaces, type User } from "@/db/schema";
+import { and, asc, eq, sql, type Placeholder } from "drizzle-orm";
+import { db, preparedStatementsAllowed, type DbOrTx } from "@/db/client";
+import { outgoingEmails, revokedSessions, users, workspaces, type User } from "@/db/schema";
 import type { Role } from "@/lib/auth/roles";
 
 /** The columns safe to send to a browser (never the password hash). */
@@ -15,12 +15,36 @@ export const publicUserColumns = {
   hasPassword: sql<boolean>`${users.passwordHash} IS NOT NULL`.as("has_password"),
   lastSignInAt: users.lastSignInAt,
   createdAt: users.createdAt,
+  /** The newest invitation e-mail's delivery, for people who have not set a password yet. */
+  invitationEmail: sql<"sent" | "queued" | "failed" | null>`(CASE WHEN ${users.passwordHash} IS NULL THEN (
+    SELECT ${outgoingEmails.status} FROM ${outgoingEmails}
+    WHERE ${outgoingEmails.workspaceId} = ${users.workspaceId} AND ${outgoingEmails.kind} = 'invitation' AND ${outgoingEmails.toAddress} = ${users.email}
+    ORDER BY ${outgoingEmails.createdAt} DESC LIMIT 1) END)`.as("invitation_email"),
 };
-export type PublicUser = Omit<User, "passwordHash" | "tokenVersion" | "updatedAt" | "roles"> & { roles: Role[]; hasPassword: boolean };
+export type PublicUser = Omit<User, "passwordHash" | "tokenVersion" | "updatedAt" | "roles"> & { roles: Role[]; hasPassword: boolean; invitationEmail: "sent" | "queued" | "failed" | null };
 
+/**
+ * The account an e-mail address signs in to: the one with a password (there is at most one,
+ * users_email_key), else the oldest invitation that names the address.
+ */
 export async function getUserByEmail({ email }: { email: string }): Promise<User | undefined> {
-  const [row] = await db().select().from(users).where(eq(users.email, email.toLowerCase())).limit(1);
+  const [row] = await db()
+    .select()
+    .from(users)
+    .where(eq(users.email, email.toLowerCase()))
+    .orderBy(sql`${users.passwordHash} IS NULL`, asc(users.createdAt))
+    .limit(1);
   return row;
+}
+
+/** Whether the address already belongs to a member of the workspace (invited or not). */
+export async function emailInWorkspace({ workspaceId, email }: { workspaceId: string; email: string }): Promise<boolean> {
+  const [row] = await db()
+    .select({ id: users.id })
+    .from(users)
+    .where(and(eq(users.workspaceId, workspaceId), eq(users.email, email.toLowerCase())))
+    .limit(1);
+  return Boolean(row);
 }
 
 /** Scoped by workspace: a user id from another workspace is "not found". */
@@ -39,7 +63,7 @@ export async function getUserInWorkspace({ workspaceId, userId }: { workspaceId:
  */
 const sessionUserQueries = new WeakMap<object, ReturnType<typeof prepareSessionUserQuery>>();
 
-function prepareSessionUserQuery(database: ReturnType<typeof db>) {
+function sessionUserSelect(database: ReturnType<typeof db>, sessionId: Placeholder<"sessionId"> | string) {
   return database
     .select({
       id: users.id,
@@ -51,22 +75,29 @@ function prepareSessionUserQuery(database: ReturnType<typeof db>) {
       roles: users.roles,
       active: users.active,
       tokenVersion: users.tokenVersion,
+      sessionRevoked: sql<boolean>`EXISTS (SELECT 1 FROM ${revokedSessions} WHERE ${revokedSessions.sessionId} = ${sessionId})`,
     })
     .from(users)
-    .innerJoin(workspaces, eq(workspaces.id, users.workspaceId))
-    .where(eq(users.id, sql.placeholder("userId")))
-    .limit(1)
-    .prepare("session_user");
+    .innerJoin(workspaces, eq(workspaces.id, users.workspaceId));
 }
 
-/** What a request needs to know about its session's user, in one query. */
-export async function getSessionUser({ userId }: { userId: string }) {
+function prepareSessionUserQuery(database: ReturnType<typeof db>) {
+  return sessionUserSelect(database, sql.placeholder("sessionId")).where(eq(users.id, sql.placeholder("userId"))).limit(1).prepare("session_user");
+}
+
+/** What a request needs to know about its session's user (and whether it was signed out), in one query. */
+export async function getSessionUser({ userId, sessionId }: { userId: string; sessionId: string | null }) {
   const database = db();
+  // Sessions issued before session ids existed have none; a nil UUID matches no revoked row.
+  const sid = sessionId ?? NO_SESSION_ID;
+  if (!preparedStatementsAllowed()) return (await sessionUserSelect(database, sid).where(eq(users.id, userId)).limit(1))[0];
   let query = sessionUserQueries.get(database);
   if (!query) sessionUserQueries.set(database, (query = prepareSessionUserQuery(database)));
-  const [row] = await query.execute({ userId });
+  const [row] = await query.execute({ userId, sessionId: sid });
   return row;
 }
+
+const NO_SESSION_ID = "00000000-0000-0000-0000-000000000000";
 
 export function listPeople({ workspaceId }: { workspaceId: string }) {
   return db()
@@ -95,4 +126,9 @@ export async function countActiveLeads({ workspaceId }: { workspaceId: string },
 
 export async function recordSignIn({ userId }: { userId: string }) {
   await db().update(users).set({ lastSignInAt: new Date() }).where(eq(users.id, userId));
+}
+
+/** Sign-out: the session id stops working at once, everywhere its cookie may have been copied to. */
+export async function revokeSession({ sessionId, userId, expiresAt }: { sessionId: string; userId: string; expiresAt: Date }) {
+  await db().insert(revokedSessions).values({ sessionId, userId, expiresAt }).onConflictDoNothing();
 }

@@ -7,6 +7,7 @@ import {
   integer,
   jsonb,
   pgTable,
+  primaryKey,
   text,
   timestamp,
   unique,
@@ -32,7 +33,7 @@ export const users = pgTable(
     workspaceId: uuid()
       .notNull()
       .references(() => workspaces.id),
-    /** Stored lower-case; unique across workspaces because sign-in is by e-mail alone. */
+    /** Stored lower-case; see users_email_key for when an address may appear twice. */
     email: text().notNull(),
     name: text().notNull(),
     /** Null until an invited user sets a password. */
@@ -46,7 +47,11 @@ export const users = pgTable(
     updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [
-    uniqueIndex("users_email_key").on(t.email),
+    // Sign-in is by e-mail alone, so only one account per address may have a password. An
+    // invitation (no password yet) may name an address in use elsewhere: inviting answers the
+    // same for every address, and such an invitation simply cannot be accepted (lib/people).
+    uniqueIndex("users_email_key").on(t.email).where(sql`${t.passwordHash} IS NOT NULL`),
+    uniqueIndex("users_workspace_email_key").on(t.workspaceId, t.email),
     // The target of the composite (workspace_id, id) foreign keys: a row can only name a user of its own workspace.
     unique("users_workspace_id_key").on(t.workspaceId, t.id),
     index("users_workspace_idx").on(t.workspaceId),
@@ -75,20 +80,53 @@ export const authTokens = pgTable(
   },
   (t) => [
     index("auth_tokens_user_idx").on(t.userId),
+    // Only the newest link of a purpose works: issuing one voids the others (lib/auth/tokens.ts).
+    uniqueIndex("auth_tokens_live_key").on(t.userId, t.purpose).where(sql`${t.usedAt} IS NULL`),
     sameWorkspace("auth_tokens_user_fk", t.workspaceId, t.userId, users),
   ],
 );
 
-/** Failed sign-ins, read by the rate limit (per account and per client address). */
-export const signInFailures = pgTable(
-  "sign_in_failures",
+/**
+ * A company sign-up waiting for its e-mail address to be confirmed. Nothing else exists until the
+ * link is used: then the workspace and its lead are created with the password chosen there. Only
+ * a hash of the token is kept.
+ */
+export const signUpRequests = pgTable("sign_up_requests", {
+  id: uuid().primaryKey().defaultRandom(),
+  email: text().notNull(),
+  companyName: text().notNull(),
+  name: text().notNull(),
+  /** The starter part types chosen on the form, created with the workspace (lib/part-types/starters.ts). */
+  starterPartTypes: text().array().notNull().default(sql`'{}'::text[]`),
+  tokenHash: text().notNull().unique(),
+  expiresAt: timestamp({ withTimezone: true }).notNull(),
+  usedAt: timestamp({ withTimezone: true }),
+  createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+});
+
+/** Sessions ended by signing out, until their cookie would have expired anyway (then pruned). */
+export const revokedSessions = pgTable("revoked_sessions", {
+  sessionId: uuid().primaryKey(),
+  userId: uuid()
+    .notNull()
+    .references(() => users.id),
+  expiresAt: timestamp({ withTimezone: true }).notNull(),
+});
+
+/**
+ * The counters of the limits in lib/rate-limit (sign-in attempts, public account requests, upload
+ * intents): one row per bucket and key, whose window starts with the first request it counts;
+ * counted up by a single atomic upsert. Pruned by the worker once the window is long over.
+ */
+export const rateLimitCounters = pgTable(
+  "rate_limit_counters",
   {
-    id: bigserial({ mode: "number" }).primaryKey(),
-    email: text().notNull(),
-    ip: text().notNull(),
-    createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    bucket: text().notNull(),
+    key: text().notNull(),
+    windowStart: timestamp({ withTimezone: true }).notNull(),
+    count: integer().notNull(),
   },
-  (t) => [index("sign_in_failures_email_idx").on(t.email, t.createdAt), index("sign_in_failures_ip_idx").on(t.ip, t.createdAt)],
+  (t) => [primaryKey({ columns: [t.bucket, t.key] }), index("rate_limit_counters_window_idx").on(t.windowStart)],
 );
 
 /** Append-only record of who did what; a trigger (migration 0001) refuses UPDATE and DELETE. */
@@ -137,16 +175,18 @@ export const outgoingEmails = pgTable(
   "outgoing_emails",
   {
     id: uuid().primaryKey().defaultRandom(),
-    workspaceId: uuid()
-      .notNull()
-      .references(() => workspaces.id),
-    kind: text({ enum: ["invitation", "password_reset", "supplier_evidence"] }).notNull(),
+    /** Null for messages to people who have no workspace yet (sign-up confirmations). */
+    workspaceId: uuid().references(() => workspaces.id),
+    kind: text({ enum: ["invitation", "password_reset", "supplier_evidence", "sign_up"] }).notNull(),
     toAddress: text().notNull(),
     subject: text().notNull(),
     messageId: text(),
-    status: text({ enum: ["sent", "failed"] }).notNull(),
+    /** queued: the mail server did not take it yet; the worker retries (lib/mail/send.ts). */
+    status: text({ enum: ["sent", "queued", "failed"] }).notNull(),
     error: text(),
+    attempts: integer().notNull().default(1),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+    updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [index("outgoing_emails_workspace_idx").on(t.workspaceId, t.createdAt)],
 );
@@ -160,3 +200,4 @@ export type ActivityEntry = typeof activityLog.$inferSelect;
 export type Supplier = typeof suppliers.$inferSelect;
 export type NewSupplier = typeof suppliers.$inferInsert;
 export type OutgoingEmail = typeof outgoingEmails.$inferSelect;
+export type SignUpRequest = typeof signUpRequests.$inferSelect;

@@ -1,7 +1,7 @@
 /**
- * The client address for rate limiting. Next.js fills X-Forwarded-For with the socket address
- * when a request arrives without one; behind a reverse proxy, that proxy must overwrite it, or a
- * client could choose its own address (the per-account limit still holds either way).
+ * The client address for per-address limits. The web server (scripts/serve.ts) replaces every
+ * request's X-Forwarded-For with the one address it worked out from TRUSTED_PROXY_HOPS, so the
+ * header holds exactly that; whatever a client sent itself is gone by then.
  */
 export function clientIp(headers: Headers | Record<string, string | string[] | undefined>): string {
   const raw = headers instanceof Headers ? headers.get("x-forwarded-for") : headers["x-forwarded-for"];

@@ -3,7 +3,9 @@ import { cookies } from "next/headers";
 import { forbidden, redirect } from "next/navigation";
 import { cache } from "react";
 import { getSessionUser } from "@/db/queries/users";
+import { env } from "@/lib/env";
 import { AppError } from "@/lib/errors";
+import { servedOverHttps, sessionCookieName } from "./cookies";
 import { can, describeHolders, type Permission } from "./permissions";
 import type { Role } from "./roles";
 import { decodeSessionToken } from "./session-token";
@@ -21,13 +23,14 @@ export type SessionUser = {
 
 /**
  * The session's user, re-read from the database on every request so that deactivation, a
- * password change or a role change takes effect at once (the JWT alone would outlive them).
+ * password change, a role change or signing out takes effect at once (the JWT alone would
+ * outlive them).
  */
 const loadSessionUser = cache(async (): Promise<SessionUser | null> => {
   const claims = await sessionClaims();
   if (!claims?.sub) return null;
-  const row = await getSessionUser({ userId: claims.sub });
-  if (!row || !row.active || row.tokenVersion !== claims.tokenVersion || row.workspaceId !== claims.workspaceId) return null;
+  const row = await getSessionUser({ userId: claims.sub, sessionId: typeof claims.sid === "string" ? claims.sid : null });
+  if (!row || !row.active || row.sessionRevoked || row.tokenVersion !== claims.tokenVersion || row.workspaceId !== claims.workspaceId) return null;
   return {
     id: row.id,
     workspaceId: row.workspaceId,
@@ -43,22 +46,21 @@ const loadSessionUser = cache(async (): Promise<SessionUser | null> => {
  * The verified claims of next-auth's session cookie. Decoding the JWT directly (instead of
  * getServerSession, which runs next-auth's whole session endpoint) keeps every API request cheap;
  * next-auth still issues and encrypts the cookie. Large cookies are split into .0, .1, … chunks.
+ * Only the cookie name of the app's scheme counts (lib/auth/cookies.ts).
  */
 async function sessionClaims() {
   const jar = await cookies();
-  for (const name of ["__Secure-next-auth.session-token", "next-auth.session-token"]) {
-    const whole = jar.get(name)?.value;
-    const chunks = whole
-      ? [whole]
-      : jar
-          .getAll()
-          .filter((c) => c.name.startsWith(`${name}.`))
-          .sort((a, b) => Number(a.name.split(".").pop()) - Number(b.name.split(".").pop()))
-          .map((c) => c.value);
-    if (!chunks.length) continue;
-    return decodeSessionToken(chunks.join(""), process.env.NEXTAUTH_SECRET ?? "");
-  }
-  return null;
+  const name = sessionCookieName(servedOverHttps(env().APP_URL));
+  const whole = jar.get(name)?.value;
+  const chunks = whole
+    ? [whole]
+    : jar
+        .getAll()
+        .filter((c) => c.name.startsWith(`${name}.`))
+        .sort((a, b) => Number(a.name.split(".").pop()) - Number(b.name.split(".").pop()))
+        .map((c) => c.value);
+  if (!chunks.length) return null;
+  return decodeSessionToken(chunks.join(""), process.env.NEXTAUTH_SECRET ?? "");
 }
 
 /**

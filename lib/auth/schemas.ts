@@ -34,11 +34,11 @@ export const signInSchema = z.object({
   password: z.string({ error: "Enter your password." }).min(1, "Enter your password.").max(200, "That password is too long."),
 });
 
+/** The password is chosen through the confirmation link (lib/accounts/sign-up.ts). */
 export const signUpSchema = z.object({
   companyName: z.string({ error: "Enter the company name." }).trim().min(2, "Enter the company name.").max(120, "Keep the company name under 120 characters."),
   name: personNameSchema,
   email: emailSchema,
-  password: newPasswordSchema,
   /** Starter part types to create with the workspace (each with a draft example rubric). */
   starterPartTypes: z
     .array(z.enum(EXAMPLE_PART_TYPE_SLUGS, { error: `Starter part types are ${EXAMPLE_PART_TYPE_SLUGS.join(", ")}.` }), { error: "starterPartTypes is a list of starter part types." })

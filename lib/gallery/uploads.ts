@@ -26,6 +26,7 @@ import { AppError, notFound } from "@/lib/errors";
 import { GRADES } from "@/lib/grading/rubric-schema";
 import { photoSettings } from "@/lib/photos/config";
 import { storeUpload, type FinaliseOptions } from "@/lib/photos/finalise";
+import { limitUploadIntents } from "@/lib/photos/intents";
 import { stagingKey } from "@/lib/photos/object-keys";
 import { checkDeclaredUpload } from "@/lib/photos/precheck";
 import { getPhoto } from "@/db/queries/photos";
@@ -48,6 +49,8 @@ const ticketSchema = z.strictObject({
   uploaderId: z.uuid(),
   kind: z.enum(GALLERY_KINDS),
   grade: z.enum(GRADES),
+  /** The length the presigned PUT was signed for; finalise refuses anything else. */
+  bytes: z.number().int().positive(),
 });
 type GalleryTicket = z.infer<typeof ticketSchema>;
 
@@ -75,7 +78,8 @@ export async function createGalleryUploadIntent(actor: SessionUser, input: Galle
   const photoId = randomUUID();
   const contentType = input.contentType || "application/octet-stream";
   const urlSeconds = settings.PHOTO_UPLOAD_URL_MINUTES * 60;
-  const url = await presignPut(store, stagingKey({ workspaceId: actor.workspaceId, unitId: null, photoId }), { contentType, expiresInSeconds: urlSeconds });
+  await limitUploadIntents(actor);
+  const url = await presignPut(store, stagingKey({ workspaceId: actor.workspaceId, unitId: null, photoId }), { contentType, contentLength: input.bytes, expiresInSeconds: urlSeconds });
   const claims: GalleryTicket = {
     workspaceId: actor.workspaceId,
     partTypeId: input.partTypeId,
@@ -85,6 +89,7 @@ export async function createGalleryUploadIntent(actor: SessionUser, input: Galle
     uploaderId: actor.id,
     kind: input.kind,
     grade: input.grade,
+    bytes: input.bytes,
   };
   const ticket = signToken(PURPOSE, claims, { secret: env().NEXTAUTH_SECRET, expiresAt: new Date(now.getTime() + settings.PHOTO_TICKET_HOURS * 3_600_000) });
   return { photoId, ticket, upload: { method: "PUT", url, headers: { "Content-Type": contentType }, expiresAt: new Date(now.getTime() + urlSeconds * 1000).toISOString() } };
@@ -101,7 +106,7 @@ export async function finaliseGalleryUpload(actor: SessionUser, input: FinaliseI
   await partTypeWithView(actor, ticket.partTypeId, ticket.viewKey);
   const key = { workspaceId: actor.workspaceId, photoId: ticket.photoId };
   if (!(await getPhoto(key))) {
-    await storeUpload(actor, { unitId: null, photoId: ticket.photoId, viewKey: ticket.viewKey, fileName: ticket.fileName }, options);
+    await storeUpload(actor, { unitId: null, photoId: ticket.photoId, viewKey: ticket.viewKey, fileName: ticket.fileName, bytes: ticket.bytes }, options);
   }
   const photo = await getPhoto(key);
   if (!photo || photo.unitId !== null) throw new AppError("bad_request", BAD_TICKET);

@@ -1,9 +1,13 @@
 import "server-only";
 import type { z } from "zod";
+import { isDatabaseUnavailable } from "@/db/errors";
 import type { Permission } from "@/lib/auth/permissions";
 import { requireUser, type SessionUser } from "@/lib/auth/require-user";
 import { AppError } from "@/lib/errors";
 import { parseWith } from "@/lib/validation";
+import { guardedRoute } from "./api-guard";
+
+export const DATABASE_UNAVAILABLE_MESSAGE = "The database did not answer in time, so nothing was changed. Try again in a moment; your work on this page is kept.";
 
 export type ErrorBody = { error: { code: string; message: string; fieldErrors?: Record<string, string> } };
 
@@ -11,7 +15,14 @@ export type ErrorBody = { error: { code: string; message: string; fieldErrors?: 
 export function errorResponse(err: unknown): Response {
   if (err instanceof AppError) {
     const body: ErrorBody = { error: { code: err.code, message: err.message, fieldErrors: err.fieldErrors } };
-    return Response.json(body, { status: err.status });
+    const headers = err.retryAfterSeconds ? { "Retry-After": String(err.retryAfterSeconds) } : undefined;
+    return Response.json(body, { status: err.status, headers });
+  }
+  if (isDatabaseUnavailable(err)) {
+    // Logged in one line: during an outage every request lands here.
+    console.error(`Database unavailable: ${err instanceof Error ? err.message : String(err)}`);
+    const body: ErrorBody = { error: { code: "unavailable", message: DATABASE_UNAVAILABLE_MESSAGE } };
+    return Response.json(body, { status: 503, headers: { "Retry-After": "5" } });
   }
   console.error("Unexpected error in route handler", err);
   const body: ErrorBody = { error: { code: "internal", message: "Something went wrong on the server. Try again; if it keeps happening, tell your QC lead." } };
@@ -26,13 +37,14 @@ export function errorResponse(err: unknown): Response {
 export type RouteAccess = { permission: Permission } | { public: true };
 
 /**
- * Wraps a route handler: checks the session and the permission first (401 / 403), hands the user
- * to `fn`, and turns every failure into a JSON error with the right status.
+ * Wraps a route handler: refuses cross-site writes and non-JSON bodies first (lib/http/api-guard.ts),
+ * checks the session and the permission (401 / 403), hands the user to `fn`, and turns every
+ * failure into a JSON error with the right status.
  */
 export function handler<C>(access: { permission: Permission }, fn: (req: Request, ctx: C, user: SessionUser) => Promise<Response>): (req: Request, ctx: C) => Promise<Response>;
 export function handler<C>(access: { public: true }, fn: (req: Request, ctx: C) => Promise<Response>): (req: Request, ctx: C) => Promise<Response>;
 export function handler<C>(access: RouteAccess, fn: (req: Request, ctx: C, user: SessionUser) => Promise<Response>) {
-  return async (req: Request, ctx: C): Promise<Response> => {
+  return guardedRoute(async (req: Request, ctx: C): Promise<Response> => {
     try {
       if ("public" in access) return await (fn as (req: Request, ctx: C) => Promise<Response>)(req, ctx);
       const user = await requireUser({ permission: access.permission });
@@ -40,7 +52,7 @@ export function handler<C>(access: RouteAccess, fn: (req: Request, ctx: C, user:
     } catch (err) {
       return errorResponse(err);
     }
-  };
+  });
 }
 
 const DEFAULT_MAX_BODY = 1024 * 1024;

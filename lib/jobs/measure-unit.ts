@@ -27,7 +27,8 @@ export const measureUnitQueueOptions: PgBoss.Queue = {
   retryLimit: 2,
   retryDelay: 5,
   retryBackoff: true,
-  expireInSeconds: 600,
+  // A worker that died mid-measurement: its job is retried after this (MEASURE_JOB_EXPIRE_SECONDS).
+  expireInSeconds: Number(process.env.MEASURE_JOB_EXPIRE_SECONDS ?? 600) || 600,
   retentionMinutes: 24 * 60,
 };
 

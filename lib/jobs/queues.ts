@@ -9,6 +9,10 @@ import { photoSettings } from "@/lib/photos/config";
 
 export const PHOTO_PROCESS_QUEUE = "photo-process";
 export const PHOTO_SWEEP_QUEUE = "photo-sweep";
+/** Messages the mail server did not take at once (lib/mail/deliver.ts). */
+export const MAIL_SEND_QUEUE = "mail-send";
+/** Deletes rate-limit events, revoked sessions and spent tokens once they can matter no more. */
+export const PRUNE_QUEUE = "auth-prune";
 /** NOTIFY channel: the worker wakes at once instead of waiting for its next poll. */
 export const JOB_NOTIFY_CHANNEL = "partproof_jobs";
 
@@ -27,13 +31,20 @@ export function queueOptions(): Record<string, PgBoss.Queue> {
       retryLimit: s.PHOTO_JOB_RETRY_LIMIT,
       retryDelay: s.PHOTO_JOB_RETRY_DELAY_SECONDS,
       retryBackoff: true,
-      // A 40 MB, 50 MP photo takes seconds; five minutes means the worker died with it.
-      expireInSeconds: 300,
+      expireInSeconds: s.PHOTO_JOB_EXPIRE_SECONDS,
       retentionMinutes: 7 * 24 * 60,
     },
     // The sweep is idempotent and runs again on its schedule, so one retry is enough.
     [PHOTO_SWEEP_QUEUE]: { name: PHOTO_SWEEP_QUEUE, policy: "singleton", retryLimit: 1, retryDelay: 60, expireInSeconds: 3600 },
+    // About a day of retries with backoff (delay × 2^n): long enough for a mail server's outage.
+    [MAIL_SEND_QUEUE]: { name: MAIL_SEND_QUEUE, policy: "standard", retryLimit: 14, retryDelay: mailRetryDelaySeconds(), retryBackoff: true, expireInSeconds: 120, retentionMinutes: 7 * 24 * 60 },
+    [PRUNE_QUEUE]: { name: PRUNE_QUEUE, policy: "singleton", retryLimit: 1, retryDelay: 60, expireInSeconds: 600 },
   };
+}
+
+function mailRetryDelaySeconds(): number {
+  const raw = Number(process.env.MAIL_RETRY_DELAY_SECONDS ?? 10);
+  return Number.isInteger(raw) && raw > 0 ? raw : 10;
 }
 
 /**
@@ -45,4 +56,13 @@ export async function ensureQueues(boss: PgBoss, { apply = false }: { apply?: bo
     await boss.createQueue(name, options);
     if (apply) await boss.updateQueue(name, options);
   }
+}
+
+/**
+ * How often one of the workers (whichever gets there first; pg-boss takes turns through the
+ * database) looks for expired jobs of dead workers and puts them back for a retry.
+ */
+export function maintenanceIntervalSeconds(): number {
+  const raw = Number(process.env.JOB_MAINTENANCE_SECONDS ?? 60);
+  return Number.isInteger(raw) && raw >= 1 ? raw : 60;
 }

@@ -1,7 +1,8 @@
 import "server-only";
 /**
  * What the worker process runs: pg-boss workers for photo processing (several at once, each
- * with retries and exponential backoff from the queue options) and the scheduled orphan sweep.
+ * with retries and exponential backoff from the queue options), mail the server did not take at
+ * once, and the scheduled orphan sweep and account-record pruning.
  * A NOTIFY from finalise wakes the photo workers at once; polling every two seconds is the
  * fallback when the notification is missed.
  */
@@ -15,7 +16,9 @@ import { processPhoto } from "@/lib/photos/process";
 import { sweepOrphans } from "@/lib/photos/sweep";
 import { ObjectStoreUnavailableError } from "@/lib/storage/s3";
 import { handleMeasureUnitJobs, MEASURE_UNIT_QUEUE, measureUnitQueueOptions, type MeasureUnitJob } from "./measure-unit";
-import { ensureQueues, JOB_NOTIFY_CHANNEL, PHOTO_PROCESS_QUEUE, PHOTO_SWEEP_QUEUE, type PhotoProcessJob } from "./queues";
+import { retryQueuedMail, type MailDeliveryJob } from "@/lib/mail/deliver";
+import { pruneAccountRecords } from "@/lib/rate-limit/prune";
+import { ensureQueues, JOB_NOTIFY_CHANNEL, MAIL_SEND_QUEUE, maintenanceIntervalSeconds, PHOTO_PROCESS_QUEUE, PHOTO_SWEEP_QUEUE, PRUNE_QUEUE, type PhotoProcessJob } from "./queues";
 
 const jobDataSchema = z.object({ photoId: z.uuid() });
 
@@ -33,6 +36,17 @@ async function handlePhotoJob([job]: PgBoss.JobWithMetadata<PhotoProcessJob>[]) 
     console.error(`photo ${photoId}: attempt ${job.retryCount + 1} failed (${next}): ${cause}`);
     throw err;
   }
+}
+
+async function handleMailJob([job]: PgBoss.JobWithMetadata<MailDeliveryJob>[]) {
+  const outcome = await retryQueuedMail(job.data, { isLastAttempt: job.retryCount >= job.retryLimit });
+  console.log(`mail ${job.data.emailId}: ${outcome} (attempt ${job.retryCount + 1})`);
+}
+
+async function handlePrune() {
+  const report = await pruneAccountRecords();
+  console.log(`account records pruned: ${report.rateLimitCounters} rate-limit counters, ${report.revokedSessions} revoked sessions, ${report.authTokens} tokens, ${report.signUpRequests} sign-up requests`);
+  return report;
 }
 
 async function handleSweep() {
@@ -79,7 +93,7 @@ export async function runWorker(): Promise<void> {
   const settings = photoSettings();
   configureSharpForWorker();
 
-  const boss = new PgBoss({ connectionString, max: 4, application_name: "partproof-worker" });
+  const boss = new PgBoss({ connectionString, max: 4, application_name: "partproof-worker", maintenanceIntervalSeconds: maintenanceIntervalSeconds() });
   boss.on("error", (err) => console.error("pg-boss error:", err.message));
   await boss.start();
   await ensureQueues(boss, { apply: true });
@@ -94,6 +108,9 @@ export async function runWorker(): Promise<void> {
   await boss.updateQueue(MEASURE_UNIT_QUEUE, measureUnitQueueOptions);
   const measureWorker = await boss.work<MeasureUnitJob>(MEASURE_UNIT_QUEUE, { batchSize: 1, pollingIntervalSeconds: 2 }, handleMeasureUnitJobs);
   await boss.schedule(PHOTO_SWEEP_QUEUE, settings.PHOTO_SWEEP_CRON, {}, { tz: "UTC" });
+  await boss.work<MailDeliveryJob>(MAIL_SEND_QUEUE, { includeMetadata: true, batchSize: 1, pollingIntervalSeconds: 2 }, handleMailJob);
+  await boss.work(PRUNE_QUEUE, { pollingIntervalSeconds: 30 }, handlePrune);
+  await boss.schedule(PRUNE_QUEUE, "41 * * * *", {}, { tz: "UTC" });
   const stopListening = listenForJobs(connectionString, (queue) => {
     if (queue === PHOTO_PROCESS_QUEUE) photoWorkers.forEach((id) => boss.notifyWorker(id));
     if (queue === MEASURE_UNIT_QUEUE) boss.notifyWorker(measureWorker);

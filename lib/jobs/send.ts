@@ -8,7 +8,9 @@ import PgBoss from "pg-boss";
 import type pg from "pg";
 import { pool, type Database } from "@/db/client";
 import * as schema from "@/db/schema";
-import { ensureQueues, JOB_NOTIFY_CHANNEL, PHOTO_PROCESS_QUEUE, type PhotoProcessJob } from "./queues";
+import { mailDeliveryJob } from "@/lib/mail/deliver";
+import type { OutgoingMessage } from "@/lib/mail/send";
+import { ensureQueues, JOB_NOTIFY_CHANNEL, MAIL_SEND_QUEUE, PHOTO_PROCESS_QUEUE, type PhotoProcessJob } from "./queues";
 
 const cache = globalThis as unknown as { __partproofSender?: Promise<PgBoss> };
 
@@ -27,7 +29,10 @@ function sender(): Promise<PgBoss> {
   return cache.__partproofSender;
 }
 
-export type JobSender = { sendPhotoProcessing: (photoId: string) => Promise<void> };
+export type JobSender = {
+  sendPhotoProcessing: (photoId: string) => Promise<void>;
+  sendMailDelivery: (delivery: { emailId: string; message: OutgoingMessage }) => Promise<void>;
+};
 
 function jobSenderOn(client: pg.PoolClient, boss: PgBoss): JobSender {
   const db = { executeSql: (text: string, values: unknown[]) => client.query(text, values) };
@@ -37,6 +42,10 @@ function jobSenderOn(client: pg.PoolClient, boss: PgBoss): JobSender {
       const id = await boss.send(PHOTO_PROCESS_QUEUE, data, { db });
       if (!id) throw new Error(`pg-boss did not accept a ${PHOTO_PROCESS_QUEUE} job (does the queue exist?)`);
       await client.query("SELECT pg_notify($1, $2)", [JOB_NOTIFY_CHANNEL, PHOTO_PROCESS_QUEUE]);
+    },
+    async sendMailDelivery(delivery) {
+      const id = await boss.send(MAIL_SEND_QUEUE, mailDeliveryJob(delivery), { db });
+      if (!id) throw new Error(`pg-boss did not accept a ${MAIL_SEND_QUEUE} job (does the queue exist?)`);
     },
   };
 }

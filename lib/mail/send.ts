@@ -1,13 +1,21 @@
 import "server-only";
+/**
+ * Sending mail: one attempt at once, and when the mail server does not take the message, a
+ * queued row plus a retry job in one transaction (lib/mail/deliver.ts runs it in the worker with
+ * backoff). Every message is recorded for the workspace's Outbox: sent, queued (retrying) or
+ * failed (retries used up). Delivery is at least once: a worker that dies after the server took
+ * a message but before recording it sends that message again.
+ */
 import { db } from "@/db/client";
 import { outgoingEmails, type OutgoingEmail } from "@/db/schema";
-import { env } from "@/lib/env";
-import { mailTransport } from "./transport";
+import { transactionWithJobs } from "@/lib/jobs/send";
+import { deliverNow } from "./deliver";
 
 export type MailKind = OutgoingEmail["kind"];
 
 export type OutgoingMessage = {
-  workspaceId: string;
+  /** Null for people who have no workspace yet (sign-up confirmations). */
+  workspaceId: string | null;
   kind: MailKind;
   to: string;
   subject: string;
@@ -16,38 +24,22 @@ export type OutgoingMessage = {
   attachments?: { filename: string; content: Buffer; contentType?: string }[];
 };
 
-/**
- * Sends one message and records it (sent or failed) for the workspace's Outbox. Never throws for
- * a delivery failure: the caller decides what to tell the user from the returned status.
- */
+/** Sends one message or queues it for retry; never throws for a delivery failure (see status). */
 export async function sendMail(message: OutgoingMessage): Promise<OutgoingEmail> {
-  let messageId: string | null = null;
-  let error: string | null = null;
-  try {
-    const info = await mailTransport().sendMail({
-      from: env().MAIL_FROM,
-      to: message.to,
-      subject: message.subject,
-      text: message.text,
-      html: message.html,
-      attachments: message.attachments,
-    });
-    messageId = info.messageId ?? null;
-  } catch (err) {
-    error = err instanceof Error ? err.message : String(err);
-    console.error(`E-mail (${message.kind}) to ${message.to} failed`, err);
-  }
-  const [row] = await db()
-    .insert(outgoingEmails)
-    .values({
-      workspaceId: message.workspaceId,
-      kind: message.kind,
-      toAddress: message.to,
-      subject: message.subject,
-      messageId,
-      status: error ? "failed" : "sent",
-      error,
-    })
-    .returning();
-  return row;
+  const attempt = await deliverNow(message);
+  const values = {
+    workspaceId: message.workspaceId,
+    kind: message.kind,
+    toAddress: message.to,
+    subject: message.subject,
+    messageId: attempt.ok ? attempt.messageId : null,
+    status: attempt.ok ? ("sent" as const) : ("queued" as const),
+    error: attempt.ok ? null : attempt.error,
+  };
+  if (attempt.ok) return (await db().insert(outgoingEmails).values(values).returning())[0];
+  return transactionWithJobs(async (tx, jobs) => {
+    const [row] = await tx.insert(outgoingEmails).values(values).returning();
+    await jobs.sendMailDelivery({ emailId: row.id, message });
+    return row;
+  });
 }

@@ -3,47 +3,69 @@ import { and, eq, sql } from "drizzle-orm";
 import { db } from "@/db/client";
 import { isUniqueViolation } from "@/db/errors";
 import { logActivity } from "@/db/queries/activity";
-import { countActiveLeads, getPerson, getUserByEmail, getUserInWorkspace } from "@/db/queries/users";
+import { countActiveLeads, emailInWorkspace, getPerson, getUserByEmail, getUserInWorkspace } from "@/db/queries/users";
 import { users } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/require-user";
 import type { InviteInput, UpdatePersonInput } from "@/lib/auth/schemas";
 import { INVITE_TTL_HOURS, issueAuthToken } from "@/lib/auth/tokens";
 import { AppError, notFound } from "@/lib/errors";
 import { sendMail } from "@/lib/mail/send";
-import { invitationEmail } from "@/lib/mail/templates";
+import { invitationEmail, invitationToExistingAccountEmail } from "@/lib/mail/templates";
 import { setPasswordLink } from "@/lib/accounts/links";
 
-export const DUPLICATE_PERSON_MESSAGE = "Someone with this e-mail address already has a Partproof account.";
+export const DUPLICATE_PERSON_MESSAGE = "Someone in your workspace already uses this e-mail address.";
 
-async function sendInvitation(actor: SessionUser, user: { id: string; email: string }, token: string) {
-  const mail = invitationEmail({ inviterName: actor.name, workspaceName: actor.workspaceName, link: setPasswordLink(token), expiresHours: INVITE_TTL_HOURS });
+export type InvitationDelivery = { emailSent: boolean; emailQueued: boolean };
+
+const delivery = (status: "sent" | "queued" | "failed"): InvitationDelivery => ({ emailSent: status === "sent", emailQueued: status === "queued" });
+
+async function sendInvitation(actor: SessionUser, user: { id: string; email: string }, token: string | null): Promise<InvitationDelivery> {
+  const mail = token
+    ? invitationEmail({ inviterName: actor.name, workspaceName: actor.workspaceName, link: setPasswordLink(token), expiresHours: INVITE_TTL_HOURS })
+    : invitationToExistingAccountEmail({ inviterName: actor.name, workspaceName: actor.workspaceName });
   const sent = await sendMail({ workspaceId: actor.workspaceId, kind: "invitation", to: user.email, ...mail });
-  return sent.status === "sent";
+  return delivery(sent.status);
 }
 
 /**
  * Creates the account (without a password) and e-mails a one-time link to set one. The account
- * is committed before the e-mail goes out; if delivery fails the lead can resend.
+ * is committed before the e-mail goes out; if the mail server does not take it, it is queued and
+ * retried (lib/mail/send.ts) and People shows it pending.
+ *
+ * The answer is the same whether or not the address has an account in another workspace, so a
+ * lead cannot probe addresses: such an invitation is recorded like any other, but its e-mail
+ * tells the address's owner that it cannot be accepted with that address, and no link is made
+ * (users_email_key would refuse it anyway).
  */
 export async function invitePerson(actor: SessionUser, input: InviteInput) {
-  if (await getUserByEmail({ email: input.email })) throw new AppError("conflict", DUPLICATE_PERSON_MESSAGE, { fieldErrors: { email: DUPLICATE_PERSON_MESSAGE } });
-  let created: { id: string; email: string }, token: string;
+  if (await emailInWorkspace({ workspaceId: actor.workspaceId, email: input.email })) {
+    throw new AppError("conflict", DUPLICATE_PERSON_MESSAGE, { fieldErrors: { email: DUPLICATE_PERSON_MESSAGE } });
+  }
+  const takenElsewhere = Boolean((await getUserByEmail({ email: input.email }))?.passwordHash);
+  let created: { id: string; email: string }, token: string | null;
   try {
     ({ created, token } = await db().transaction(async (tx) => {
       const [row] = await tx
         .insert(users)
         .values({ workspaceId: actor.workspaceId, email: input.email, name: input.name, roles: input.roles, passwordHash: null })
         .returning({ id: users.id, email: users.email });
-      const t = await issueAuthToken(tx, { workspaceId: actor.workspaceId, userId: row.id, purpose: "invite", ttlMs: INVITE_TTL_HOURS * 3_600_000 });
+      const t = takenElsewhere ? null : await issueAuthToken(tx, { workspaceId: actor.workspaceId, userId: row.id, purpose: "invite", ttlMs: INVITE_TTL_HOURS * 3_600_000 });
       await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.id, action: "user.invited", subjectType: "user", subjectId: row.id, detail: { email: input.email, roles: input.roles } });
       return { created: row, token: t };
     }));
   } catch (err) {
-    if (isUniqueViolation(err, "users_email_key")) throw new AppError("conflict", DUPLICATE_PERSON_MESSAGE, { fieldErrors: { email: DUPLICATE_PERSON_MESSAGE } });
+    if (isUniqueViolation(err, "users_workspace_email_key")) throw new AppError("conflict", DUPLICATE_PERSON_MESSAGE, { fieldErrors: { email: DUPLICATE_PERSON_MESSAGE } });
     throw err;
   }
-  const emailSent = await sendInvitation(actor, created, token);
-  return { person: (await getPerson({ workspaceId: actor.workspaceId, userId: created.id }))!, emailSent };
+  const sent = await sendInvitation(actor, created, token);
+  return { person: (await getPerson({ workspaceId: actor.workspaceId, userId: created.id }))!, ...sent };
+}
+
+/** What the lead is told after inviting or re-sending. */
+export function invitationMessage(person: { name: string; email: string }, sent: InvitationDelivery): string {
+  if (sent.emailSent) return `Invitation sent to ${person.email}.`;
+  if (sent.emailQueued) return `The mail server did not take the invitation to ${person.email} yet, so it is queued and goes out by itself once the server answers. People shows it as pending until then.`;
+  return `${person.name} was added, but the invitation e-mail could not be sent. Use “Resend invitation” once mail works again.`;
 }
 
 export async function resendInvitation(actor: SessionUser, userId: string) {
@@ -51,8 +73,10 @@ export async function resendInvitation(actor: SessionUser, userId: string) {
   if (!user) throw notFound("That person");
   if (user.passwordHash) throw new AppError("conflict", "This person has already set a password; they can use “Forgot password” instead.");
   if (!user.active) throw new AppError("conflict", "This account is deactivated; reactivate it before sending a new invitation.");
-  const token = await issueAuthToken(db(), { workspaceId: actor.workspaceId, userId, purpose: "invite", ttlMs: INVITE_TTL_HOURS * 3_600_000 });
-  return { emailSent: await sendInvitation(actor, user, token) };
+  const takenElsewhere = Boolean((await getUserByEmail({ email: user.email }))?.passwordHash);
+  const token = takenElsewhere ? null : await issueAuthToken(db(), { workspaceId: actor.workspaceId, userId, purpose: "invite", ttlMs: INVITE_TTL_HOURS * 3_600_000 });
+  const sent = await sendInvitation(actor, user, token);
+  return { ...sent, message: invitationMessage(user, sent) };
 }
 
 /**

@@ -10,6 +10,8 @@ const schema = z
   .object({
     /** How long the browser's presigned PUT URL stays valid. */
     PHOTO_UPLOAD_URL_MINUTES: int(15, 1),
+    /** Upload intents (presigned URLs) one person may ask for per minute. */
+    PHOTO_UPLOAD_INTENTS_PER_MINUTE: int(60, 1),
     /** How long finalise accepts an upload ticket (covers a slow upload plus retries during an outage). */
     PHOTO_TICKET_HOURS: int(2, 1),
     /** Objects with no row are deleted by the sweep once they are older than this. */
@@ -25,6 +27,11 @@ const schema = z
     /** Processing retries after the first attempt, and the base delay of the exponential backoff. */
     PHOTO_JOB_RETRY_LIMIT: int(10, 0),
     PHOTO_JOB_RETRY_DELAY_SECONDS: int(5, 1),
+    /**
+     * A photo job still running after this long is taken for lost (its worker died) and retried.
+     * A 40 MB, 50 MP photo takes seconds, so five minutes means the worker is gone.
+     */
+    PHOTO_JOB_EXPIRE_SECONDS: int(300, 5),
     /** When the orphan sweep runs (cron, UTC). */
     PHOTO_SWEEP_CRON: z.string().default("17 * * * *"),
   })

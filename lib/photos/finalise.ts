@@ -30,7 +30,7 @@ import { formatDate } from "@/lib/time/format";
 import { photoSettings } from "./config";
 import { assertOpenForUploads, loadUnit, viewOf } from "./intents";
 import { originalKey, stagingKey, type PhotoKeyOwner } from "./object-keys";
-import { checkStoredUpload, emptyFile, tooLarge } from "./precheck";
+import { checkStoredUpload, emptyFile, lengthMismatch, tooLarge } from "./precheck";
 import { processPhoto } from "./process";
 import { findReuseCandidate, findUnitPhotoBySha, getPhoto, getPhotoById, getPhotoWithContext, insertPhotoRow, type PhotoWithContext } from "@/db/queries/photos";
 import type { FinaliseInput } from "./schemas";
@@ -72,11 +72,14 @@ export async function finaliseUpload(actor: SessionUser, unitId: string, input: 
   if (await getPhoto({ workspaceId: actor.workspaceId, photoId: ticket.photoId })) return { kind: "replayed", photo: await withContext(actor, ticket.photoId) };
   assertOpenForUploads(unit);
   viewOf(unit, ticket.viewKey);
-  return storeUpload(actor, { unitId, photoId: ticket.photoId, viewKey: ticket.viewKey, fileName: ticket.fileName }, options);
+  return storeUpload(actor, { unitId, photoId: ticket.photoId, viewKey: ticket.viewKey, fileName: ticket.fileName, bytes: ticket.bytes }, options);
 }
 
-/** What a checked ticket promised: where the staged bytes go. `unitId` null: a Gallery upload. */
-export type UploadTarget = { unitId: string | null; photoId: string; viewKey: string; fileName: string };
+/**
+ * What a checked ticket promised: where the staged bytes go (`unitId` null: a Gallery upload),
+ * and the length the presigned PUT was signed for (finalise refuses any other).
+ */
+export type UploadTarget = { unitId: string | null; photoId: string; viewKey: string; fileName: string; bytes?: number };
 
 /**
  * Steps 2–6 for a ticket the caller has checked (a unit's, or the Gallery's in lib/gallery/uploads.ts).
@@ -87,7 +90,7 @@ export async function storeUpload(actor: SessionUser, target: UploadTarget, opti
   const waitMs = options.waitMs ?? photoSettings().PHOTO_FINALISE_WAIT_MS;
   const { unitId } = target;
   const owner: PhotoKeyOwner = { workspaceId: actor.workspaceId, unitId, photoId: target.photoId };
-  const original = await moveToOriginal(store, owner);
+  const original = await moveToOriginal(store, owner, target.bytes);
   const digest = await digestObject(store, original);
   if (!digest) throw new AppError("conflict", NOT_ARRIVED);
   const stored = checkStoredUpload(digest);
@@ -133,8 +136,11 @@ export async function storeUpload(actor: SessionUser, target: UploadTarget, opti
   return { kind: "accepted", photo: await withContext(actor, row.id) };
 }
 
-/** HEAD, size limits, server-side copy to the original's key, staging deleted. Returns the key. */
-async function moveToOriginal(store: ObjectStore, owner: PhotoKeyOwner): Promise<string> {
+/**
+ * HEAD, size limits (and the length the upload was signed for), server-side copy to the
+ * original's key, staging deleted. Returns the key.
+ */
+async function moveToOriginal(store: ObjectStore, owner: PhotoKeyOwner, declaredBytes: number | undefined): Promise<string> {
   const staged = stagingKey(owner);
   const original = originalKey(owner);
   const head = await headObject(store, staged);
@@ -143,7 +149,8 @@ async function moveToOriginal(store: ObjectStore, owner: PhotoKeyOwner): Promise
     if (await headObject(store, original)) return original;
     throw new AppError("conflict", NOT_ARRIVED);
   }
-  const sizeRejection = head.bytes === 0 ? emptyFile() : head.bytes > MAX_PHOTO_BYTES ? tooLarge(head.bytes) : null;
+  const sizeRejection =
+    head.bytes === 0 ? emptyFile() : head.bytes > MAX_PHOTO_BYTES ? tooLarge(head.bytes) : declaredBytes !== undefined && head.bytes !== declaredBytes ? lengthMismatch(head.bytes, declaredBytes) : null;
   if (sizeRejection) {
     await deleteObject(store, staged);
     throw sizeRejection;

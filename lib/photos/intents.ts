@@ -8,6 +8,7 @@ import { randomUUID } from "node:crypto";
 import type { SessionUser } from "@/lib/auth/require-user";
 import { env } from "@/lib/env";
 import { AppError, notFound } from "@/lib/errors";
+import { enforceLimits, waitPhrase } from "@/lib/rate-limit/limits";
 import { checkStore, objectStore, presignPut, type ObjectStore } from "@/lib/storage/s3";
 import { photoSettings } from "./config";
 import { stagingKey } from "./object-keys";
@@ -50,6 +51,17 @@ export type UploadIntent = {
   upload: { method: "PUT"; url: string; headers: Record<string, string>; expiresAt: string };
 };
 
+/**
+ * Upload intents per person and minute (PHOTO_UPLOAD_INTENTS_PER_MINUTE), a unit's and the
+ * Gallery's together: each hands out a URL that may store up to 40 MB, so one account cannot line
+ * up an unbounded amount of storage.
+ */
+export async function limitUploadIntents(actor: SessionUser) {
+  await enforceLimits([{ bucket: "upload-intent:user", key: actor.id, max: photoSettings().PHOTO_UPLOAD_INTENTS_PER_MINUTE, windowSeconds: 60 }], (s) =>
+    `You have started too many uploads in the last minute. ${waitPhrase(s)} and add the rest; the photos already uploading carry on.`,
+  );
+}
+
 export async function createUploadIntent(actor: SessionUser, unitId: string, input: UploadIntentInput, { store = objectStore(), now = new Date() }: { store?: ObjectStore; now?: Date } = {}): Promise<UploadIntent> {
   const unit = await loadUnit(actor, unitId);
   assertOpenForUploads(unit);
@@ -64,9 +76,10 @@ export async function createUploadIntent(actor: SessionUser, unitId: string, inp
   const photoId = randomUUID();
   const contentType = input.contentType || "application/octet-stream";
   const urlSeconds = settings.PHOTO_UPLOAD_URL_MINUTES * 60;
-  const url = await presignPut(store, stagingKey({ workspaceId: actor.workspaceId, unitId: unit.id, photoId }), { contentType, expiresInSeconds: urlSeconds });
+  await limitUploadIntents(actor);
+  const url = await presignPut(store, stagingKey({ workspaceId: actor.workspaceId, unitId: unit.id, photoId }), { contentType, contentLength: input.bytes, expiresInSeconds: urlSeconds });
   const ticket = signUploadTicket(
-    { workspaceId: actor.workspaceId, unitId: unit.id, photoId, viewKey: input.viewKey, fileName: input.fileName, uploaderId: actor.id },
+    { workspaceId: actor.workspaceId, unitId: unit.id, photoId, viewKey: input.viewKey, fileName: input.fileName, uploaderId: actor.id, bytes: input.bytes },
     { secret: env().NEXTAUTH_SECRET, expiresAt: new Date(now.getTime() + settings.PHOTO_TICKET_HOURS * 3_600_000) },
   );
   return {

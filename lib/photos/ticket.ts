@@ -17,6 +17,8 @@ const ticketSchema = z
     viewKey: z.string().min(1).max(64),
     fileName: z.string().max(200),
     uploaderId: z.uuid(),
+    /** The length the presigned PUT was signed for; finalise refuses anything else. */
+    bytes: z.number().int().positive().optional(),
   })
   .strict();
 

@@ -20,7 +20,7 @@ import { parseRegionSet, type RegionSetPayload } from "@/lib/geometry/validate";
 import { claimForWork, workClaimsUnit } from "@/lib/queue/claim-for-work";
 import { assertNotLeasedByOther } from "@/lib/queue/queue";
 import { STATUS_LABELS } from "@/lib/units/state-machine";
-import { payloadFromRows, rowsForSave } from "./payload";
+import { payloadFromRows, rowsForSave, samePayload } from "./payload";
 import type { SaveRegionsInput } from "./schemas";
 
 type Actor = Pick<SessionUser, "id" | "workspaceId" | "roles">;
@@ -92,7 +92,13 @@ export async function saveRegionSet(actor: SessionUser, photoId: string, input: 
     }
     assertNotLeasedByOther(unit, actor);
     const set = await lockRegionSet(tx, key);
-    if (set.version !== input.baseVersion) throw new RegionVersionConflict(await readRegionSet(actor, photoId, tx), input.baseVersion);
+    if (set.version !== input.baseVersion) {
+      const current = await readRegionSet(actor, photoId, tx);
+      // A retry of this person's save that did go through (its answer was lost, e.g. in a
+      // database outage): the same set, one version on, by them. Answered as saved, not as a conflict.
+      if (current.version === input.baseVersion + 1 && set.updatedBy === actor.id && samePayload(current.regions, payload)) return current;
+      throw new RegionVersionConflict(current, input.baseVersion);
+    }
     // Marking a unit that waits in the queue (or whose lease ran out) takes it onto the marker's bench.
     if (workClaimsUnit(unit)) await claimForWork(tx, actor, unit, "regions");
     const version = set.version + 1;

@@ -113,8 +113,14 @@ export async function checkStore(store: ObjectStore): Promise<void> {
   await call(() => store.client.send(new HeadBucketCommand({ Bucket: store.bucket })));
 }
 
-export async function presignPut(store: ObjectStore, key: string, { contentType, expiresInSeconds }: { contentType: string; expiresInSeconds: number }) {
-  return getSignedUrl(store.client, new PutObjectCommand({ Bucket: store.bucket, Key: key, ContentType: contentType }), { expiresIn: expiresInSeconds });
+/**
+ * A presigned PUT for exactly `contentLength` bytes: the length is one of the signed headers
+ * (X-Amz-SignedHeaders=content-length;host), so S3 refuses a body of any other length with a
+ * signature mismatch. The browser sets Content-Length itself from the file it sends. (s3rver,
+ * the local store, does not check signatures at all; finalise checks the length it finds.)
+ */
+export async function presignPut(store: ObjectStore, key: string, { contentType, contentLength, expiresInSeconds }: { contentType: string; contentLength: number; expiresInSeconds: number }) {
+  return getSignedUrl(store.client, new PutObjectCommand({ Bucket: store.bucket, Key: key, ContentType: contentType, ContentLength: contentLength }), { expiresIn: expiresInSeconds });
 }
 
 export async function presignGet(

@@ -1,16 +1,20 @@
 import { spawn, type ChildProcess } from "node:child_process";
+import fs from "node:fs";
 import { projectRoot } from "./settings";
 
-type Options = { env?: Record<string, string>; label: string; quiet?: boolean };
+/** `logFile`: the child's output goes there (a long-running child whose stderr nobody reads would block on a full pipe). */
+type Options = { env?: Record<string, string>; label: string; quiet?: boolean; logFile?: string };
 
-function spawnWithOutput(cmd: string, args: string[], { env, label, quiet }: Options): ChildProcess {
+function spawnWithOutput(cmd: string, args: string[], { env, label, quiet, logFile }: Options): ChildProcess {
+  const fd = logFile ? fs.openSync(logFile, "w") : null;
   const child = spawn(cmd, args, {
     cwd: projectRoot,
     env: { ...process.env, ...env },
-    stdio: quiet ? ["ignore", "ignore", "pipe"] : ["ignore", "inherit", "inherit"],
+    stdio: fd !== null ? ["ignore", fd, fd] : quiet ? ["ignore", "ignore", "pipe"] : ["ignore", "inherit", "inherit"],
     // Own process group, so stopping it also stops what it started.
     detached: true,
   });
+  if (fd !== null) fs.closeSync(fd);
   child.on("error", (err) => console.error(`[${label}] could not start: ${err.message}`));
   return child;
 }
@@ -62,4 +66,14 @@ export function waitForExit(child: ChildProcess, timeoutMs: number): Promise<voi
 /** `tsx` with the react-server condition, so server-only modules load outside Next. */
 export function tsxArgs(script: string, extra: string[] = []): [string, string[]] {
   return [process.execPath, ["--conditions=react-server", "--import", "tsx", script, ...extra]];
+}
+
+/**
+ * The production web server (scripts/serve.ts: Next.js behind a server that sets the client
+ * address), or `next dev` for --dev. Plain `tsx`, without the react-server condition, which
+ * Next.js sets up for its own server code.
+ */
+export function webServerArgs({ port, dev = false }: { port: number; dev?: boolean }): [string, string[]] {
+  if (dev) return [process.execPath, ["node_modules/next/dist/bin/next", "dev", "-H", "127.0.0.1", "-p", String(port)]];
+  return [process.execPath, ["--import", "tsx", "scripts/serve.ts"]];
 }

@@ -65,7 +65,7 @@ function isRunning(bin: string, dataDir: string): boolean {
   return runPg(bin, "pg_ctl", ["-D", dataDir, "status"], { allowFail: true }).status === 0;
 }
 
-export type PostgresHandle = { stop: () => void; startedHere: boolean };
+export type PostgresHandle = { stop: () => void; startedHere: boolean; outage: { stop: () => void; start: () => void } };
 
 /**
  * Starts (or reuses) the cluster in settings.pg.dataDir and makes sure the role and database
@@ -99,20 +99,7 @@ export async function ensurePostgres(s: ServiceSettings, opts: { freshDatabase?:
   let startedHere = false;
   if (!isRunning(bin, dataDir)) {
     if (!(await isPortFree(s.pg.port))) throw new Error(portTakenMessage(s.pg.port, "PostgreSQL", s.name === "test" ? "TEST_PG_PORT" : "PG_PORT"));
-    const socketDir = path.join(clusterDir, "socket");
-    prepareDir(socketDir);
-    const logFile = path.join(clusterDir, "postgres.log");
-    if (isRoot && !fs.existsSync(logFile)) {
-      fs.writeFileSync(logFile, "");
-      execFileSync("chown", [`${osUser}:${osUser}`, logFile]);
-    }
-    runPg(bin, "pg_ctl", [
-      "-D", dataDir,
-      "-l", logFile,
-      "-o", `-p ${s.pg.port} -k ${socketDir} -c listen_addresses=127.0.0.1 -c max_connections=200 -c fsync=${s.name === "test" ? "off" : "on"}`,
-      "-w", "-t", "60",
-      "start",
-    ]);
+    startCluster(bin, s);
     startedHere = true;
   }
 
@@ -121,9 +108,36 @@ export async function ensurePostgres(s: ServiceSettings, opts: { freshDatabase?:
   return {
     startedHere,
     stop: () => {
-      if (startedHere) runPg(bin, "pg_ctl", ["-D", dataDir, "-m", "fast", "-w", "stop"], { allowFail: true });
+      if (startedHere) stopCluster(bin, dataDir);
+    },
+    // For outage tests: the server goes away (open connections cut) and comes back on the same data.
+    outage: {
+      stop: () => stopCluster(bin, dataDir),
+      start: () => startCluster(bin, s),
     },
   };
+}
+
+function stopCluster(bin: string, dataDir: string) {
+  runPg(bin, "pg_ctl", ["-D", dataDir, "-m", "fast", "-w", "stop"], { allowFail: true });
+}
+
+function startCluster(bin: string, s: ServiceSettings) {
+  const clusterDir = path.dirname(s.pg.dataDir);
+  const socketDir = path.join(clusterDir, "socket");
+  prepareDir(socketDir);
+  const logFile = path.join(clusterDir, "postgres.log");
+  if (isRoot && !fs.existsSync(logFile)) {
+    fs.writeFileSync(logFile, "");
+    execFileSync("chown", [`${osUser}:${osUser}`, logFile]);
+  }
+  runPg(bin, "pg_ctl", [
+    "-D", s.pg.dataDir,
+    "-l", logFile,
+    "-o", `-p ${s.pg.port} -k ${socketDir} -c listen_addresses=127.0.0.1 -c max_connections=200 -c fsync=${s.name === "test" ? "off" : "on"}`,
+    "-w", "-t", "60",
+    "start",
+  ]);
 }
 
 async function ensureDatabase(s: ServiceSettings, fresh: boolean) {
@@ -142,5 +156,20 @@ async function ensureDatabase(s: ServiceSettings, fresh: boolean) {
     if (!rowCount) await admin.query(`CREATE DATABASE ${quoted}`);
   } finally {
     await admin.end();
+  }
+}
+
+/**
+ * The local app role may sign in with its local password (migration 0018 creates it without
+ * one; a real deployment gives it, or a member role, a password of its own).
+ */
+export async function enableAppLogin(s: ServiceSettings) {
+  const owner = new pg.Client({ host: "127.0.0.1", port: s.pg.port, user: s.pg.user, password: s.pg.password, database: s.pg.database });
+  await owner.connect();
+  try {
+    const password = s.pg.appPassword.replace(/'/g, "''");
+    await owner.query(`ALTER ROLE "${s.pg.appUser.replace(/"/g, '""')}" WITH LOGIN PASSWORD '${password}'`);
+  } finally {
+    await owner.end();
   }
 }

@@ -2,7 +2,7 @@
 import { runMigrations } from "../../db/migrate";
 import { startLocalMail, type LocalMailHandle } from "./local-mail";
 import { startLocalS3, type LocalS3Handle } from "./local-s3";
-import { ensurePostgres, type PostgresHandle } from "./postgres";
+import { enableAppLogin, ensurePostgres, type PostgresHandle } from "./postgres";
 import { databaseUrl, type ServiceSettings } from "./settings";
 
 export type Services = { pg: PostgresHandle; s3: LocalS3Handle | null; mail: LocalMailHandle | null; stop: () => Promise<void> };
@@ -14,6 +14,7 @@ export async function startServices(s: ServiceSettings, opts: { freshDatabase?: 
   let mail: LocalMailHandle | null = null;
   try {
     await runMigrations(databaseUrl(s));
+    await enableAppLogin(s);
     if (opts.localS3 !== false) {
       const origins = [s.app.url, s.app.url.replace("127.0.0.1", "localhost")];
       s3 = await startLocalS3({ port: s.s3.port, dir: s.s3.dir, bucket: s.s3.bucket, allowedOrigins: origins }, test ? "TEST_S3_PORT" : "LOCAL_S3_PORT");

@@ -1,4 +1,5 @@
 import { expect, test } from "@playwright/test";
+import { latestLinkTo } from "../support/inbox";
 import { signInAs } from "./support";
 
 test("a wrong password shows a clear message and no session", async ({ page }) => {
@@ -18,17 +19,26 @@ test("the sign-in form checks input before sending", async ({ page }) => {
   await expect(page.getByText("Enter your password.")).toBeVisible();
 });
 
-test("sign-up creates a company workspace with its first lead, starter part types and a guided first day", async ({ page }) => {
+test("sign-up e-mails a link; following it creates a company workspace with its first lead, starter part types and a guided first day", async ({ page }) => {
   const email = `founder.${Date.now()}@e2e.example`;
   await page.goto("/sign-up");
   await page.getByLabel("Company").fill("Pellwick Refurb Desk");
   await page.getByLabel("Your name").fill("Pia Pellwick");
   await page.getByLabel("Work e-mail").fill(email);
-  await page.getByLabel("Password").fill("pellwick-password");
   // Every starter is ticked; this desk handles no loudspeakers.
   await expect(page.getByTestId("starter-choices").getByRole("checkbox")).toHaveCount(8);
   await page.getByLabel(/Loudspeaker/).uncheck();
   await page.getByRole("button", { name: "Create workspace" }).click();
+  await expect(page.getByTestId("sign-up-sent")).toContainText(`Check your inbox: we have sent a message to ${email}`);
+
+  // The confirmation reaches the local inbox (sign-up mail belongs to no workspace's Outbox yet).
+  await page.goto(await latestLinkTo(email, 10_000));
+  await page.getByLabel("New password").fill("pellwick-password");
+  await page.getByLabel("Repeat the password").fill("pellwick-password");
+  await page.getByRole("button", { name: "Set password" }).click();
+  await page.getByLabel("E-mail").fill(email);
+  await page.getByLabel("Password").fill("pellwick-password");
+  await page.getByRole("button", { name: "Sign in" }).click();
 
   // Home lists the first day's steps: part types done, rubrics still drafts, no supplier or lot yet.
   await expect(page.getByRole("heading", { level: 1, name: "Good to see you, Pia" })).toBeVisible();
@@ -102,5 +112,5 @@ test("duplicate e-mail on the invite form is reported beside the field", async (
   await form.getByLabel("Name").fill("Copy Person");
   await form.getByLabel("E-mail").fill("trainer@vellmoor.example");
   await form.getByRole("button", { name: "Send invitation" }).click();
-  await expect(form.locator("#invite-email-error")).toHaveText("Someone with this e-mail address already has a Partproof account.");
+  await expect(form.locator("#invite-email-error")).toHaveText("Someone in your workspace already uses this e-mail address.");
 });

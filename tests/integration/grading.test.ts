@@ -7,6 +7,7 @@
 import { eq, sql } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db/client";
+import { ownerDb } from "../support/owner-db";
 import { grades, measurements } from "@/db/schema";
 import { gradingEvidenceCheck } from "@/lib/grading/photo-evidence";
 import { handleMeasureUnitJobs } from "@/lib/jobs/measure-unit";
@@ -153,9 +154,10 @@ describe("recording grades", () => {
     const { unit } = await createMeasurableUnit(owner);
     await api(inspector, "POST", `/api/units/${unit.id}/measure`);
     await api(inspector, "POST", `/api/units/${unit.id}/grades`, { decision: "accept" });
-    const update = await db().execute(sql`UPDATE grades SET final_grade = 'A' WHERE unit_id = ${unit.id}`).then(() => "no error", refusal);
+    // As the tables' owner (the app's own role may not even try: db-role.test.ts).
+    const update = await ownerDb().execute(sql`UPDATE grades SET final_grade = 'A' WHERE unit_id = ${unit.id}`).then(() => "no error", refusal);
     expect(update).toMatch(/grades is append-only \(UPDATE refused\)/);
-    const remove = await db().execute(sql`DELETE FROM grades WHERE unit_id = ${unit.id}`).then(() => "no error", refusal);
+    const remove = await ownerDb().execute(sql`DELETE FROM grades WHERE unit_id = ${unit.id}`).then(() => "no error", refusal);
     expect(remove).toMatch(/grades is append-only \(DELETE refused\)/);
     const [row] = await db().select().from(grades).where(eq(grades.unitId, unit.id));
     const { id: _id, createdAt: _at, ...copy } = row;

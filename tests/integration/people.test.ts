@@ -4,7 +4,7 @@ import { db } from "@/db/client";
 import { authTokens, outgoingEmails, users } from "@/db/schema";
 import { api, signIn, trySignIn, type Session } from "../support/http";
 import { uniqueEmail } from "../support/db";
-import { latestLinkTo, linkInMessage, tokenFromLink } from "../support/inbox";
+import { latestLinkTo, linkInMessage, messagesTo, tokenFromLink } from "../support/inbox";
 
 let lead: Session;
 beforeAll(async () => {
@@ -34,6 +34,22 @@ describe("invitations", () => {
     const again = await api<{ error: { message: string } }>(null, "POST", "/api/password/set", { token, password: "another-password-1" });
     expect(again.status).toBe(400);
     expect(again.body.error.message).toMatch(/not valid any more/);
+  });
+
+  it("answers alike for an address with an account in another workspace; that invitation cannot be accepted", async () => {
+    const unknownEmail = uniqueEmail("stranger");
+    const unknown = await api<{ person: { email: string; hasPassword: boolean }; emailSent: boolean; message: string }>(lead, "POST", "/api/people", { email: unknownEmail, name: "Sam Stranger", roles: ["inspector"] });
+    const known = await api<{ person: { id: string; email: string; hasPassword: boolean }; emailSent: boolean; message: string }>(lead, "POST", "/api/people", { email: "Inspector@Quillfen.example", name: "Quinn Elsewhere", roles: ["inspector"] });
+    expect(known.status).toBe(unknown.status);
+    expect(Object.keys(known.body).sort()).toEqual(Object.keys(unknown.body).sort());
+    expect(known.body.message.replace("inspector@quillfen.example", "X")).toBe(unknown.body.message.replace(unknownEmail, "X"));
+    expect(known.body.person).toMatchObject({ email: "inspector@quillfen.example", hasPassword: false });
+    // The owner of the address is told, and gets no link; their own account is untouched.
+    const note = (await messagesTo("inspector@quillfen.example")).at(-1)!;
+    expect(note.text).toMatch(/cannot be accepted with it/);
+    expect(note.text).not.toMatch(/set-password/);
+    expect((await trySignIn("inspector@quillfen.example", "partproof-demo")).signedIn).toBe(true);
+    await api(lead, "PATCH", `/api/people/${known.body.person.id}`, { active: false });
   });
 
   it("is listed in the Outbox with the delivered message", async () => {
@@ -98,12 +114,12 @@ describe("bad input to People stores nothing", () => {
     expect(res.status).toBe(413);
   });
 
-  it("a duplicate e-mail (any workspace, any case) → 409 and no second account, no e-mail", async () => {
+  it("an address already in this workspace (any case) → 409 and no second account, no e-mail", async () => {
     const before = await countUsers();
     const mailsBefore = (await db().select().from(outgoingEmails)).length;
-    const res = await api<{ error: { message: string; fieldErrors: Record<string, string> } }>(lead, "POST", "/api/people", { email: "LEAD@quillfen.example", name: "Copy Cat", roles: ["inspector"] });
+    const res = await api<{ error: { message: string; fieldErrors: Record<string, string> } }>(lead, "POST", "/api/people", { email: "Trainer@Vellmoor.example", name: "Copy Cat", roles: ["inspector"] });
     expect(res.status).toBe(409);
-    expect(res.body.error.fieldErrors.email).toMatch(/already has a Partproof account/);
+    expect(res.body.error.fieldErrors.email).toMatch(/already uses this e-mail address/);
     expect(await countUsers()).toBe(before);
     expect((await db().select().from(outgoingEmails)).length).toBe(mailsBefore);
   });

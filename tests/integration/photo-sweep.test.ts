@@ -45,7 +45,8 @@ it("deletes unfinalised uploads and unnamed photo objects after the grace period
   await putObject(store, foreignKey, Buffer.from("not ours"), { contentType: "text/plain" });
 
   // A refused file's notice (finalise did not wait), two days old.
-  const { finalise: late } = await uploadPhoto(inspector, unit, bytes.subarray(0, 900), { wait: false });
+  const { intent: lateIntent, finalise: late } = await uploadPhoto(inspector, unit, bytes.subarray(0, 900), { wait: false });
+  expect(late?.status, JSON.stringify(late?.body ?? lateIntent.body)).toBe(202);
   await waitForPhoto(inspector, late!.body.photo.id, (p) => p.status === "failed");
   await db().update(photos).set({ updatedAt: new Date(Date.now() - 48 * HOUR) }).where(eq(photos.id, late!.body.photo.id));
 

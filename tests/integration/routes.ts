@@ -24,8 +24,9 @@ const unique = (p: string) => `${p}-${Date.now().toString(36)}-${++n}`;
 
 export const ROUTES: RouteRow[] = [
   { method: "GET", path: "/api/health", permission: "public", allowedStatus: 200 },
-  { method: "POST", path: "/api/signup", permission: "public", body: () => ({ companyName: unique("Route Check Works"), name: "Route Checker", email: `${unique("signup")}@tests.example`, password: "long-enough-password" }), allowedStatus: 201 },
-  { method: "POST", path: "/api/password/forgot", permission: "public", body: () => ({ email: "nobody@tests.example" }), allowedStatus: 200 },
+  // Sign-up only e-mails a confirmation link (202); the workspace comes when the link is used.
+  { method: "POST", path: "/api/signup", permission: "public", body: () => ({ companyName: unique("Route Check Works"), name: "Route Checker", email: `${unique("signup")}@tests.example` }), allowedStatus: 202 },
+  { method: "POST", path: "/api/password/forgot", permission: "public", body: () => ({ email: `${unique("nobody")}@tests.example` }), allowedStatus: 200 },
   // A well-formed but unknown token: the handler itself answers 400 "link not valid".
   { method: "POST", path: "/api/password/set", permission: "public", body: () => ({ token: "x".repeat(43), password: "long-enough-password" }), allowedStatus: 400 },
   { method: "GET", path: "/api/me", permission: "workspace.read", allowedStatus: 200 },

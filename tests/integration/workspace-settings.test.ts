@@ -6,11 +6,14 @@
 import { describe, expect, it } from "vitest";
 import { BASE_URL, api, signIn, trySignIn } from "../support/http";
 import { uniqueEmail } from "../support/db";
+import { latestLinkTo, tokenFromLink } from "../support/inbox";
 
 async function newLead() {
   const email = uniqueEmail("zone-lead");
-  const res = await api(null, "POST", "/api/signup", { companyName: `Zone Works ${Date.now().toString(36)}`, name: "Zia Zone", email, password: "zone-lead-password" });
-  expect(res.status).toBe(201);
+  const res = await api(null, "POST", "/api/signup", { companyName: `Zone Works ${Date.now().toString(36)}`, name: "Zia Zone", email });
+  expect(res.status).toBe(202);
+  const set = await api(null, "POST", "/api/password/set", { token: tokenFromLink(await latestLinkTo(email)), password: "zone-lead-password" });
+  expect(set.status).toBe(200);
   const { session } = await trySignIn(email, "zone-lead-password");
   return session!;
 }

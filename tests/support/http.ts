@@ -3,6 +3,15 @@ export const BASE_URL = process.env.TEST_BASE_URL ?? "http://127.0.0.1:3100";
 
 export type Session = { cookie: string; email: string };
 
+/**
+ * The client address this test file acts as. The test server trusts one proxy hop
+ * (TRUSTED_PROXY_HOPS=1 in scripts/test.ts), so X-Forwarded-For names the client, and each file
+ * gets its own address (from 198.18.0.0/15, the benchmarking range): the per-address limits of
+ * one file never spill into another. Tests of those limits pass addresses of their own.
+ */
+export const FILE_CLIENT_ADDRESS = `198.18.${Math.floor(Math.random() * 256)}.${1 + Math.floor(Math.random() * 254)}`;
+const asClient = (headers: Record<string, string>) => ({ "x-forwarded-for": FILE_CLIENT_ADDRESS, ...headers });
+
 function cookiesFrom(res: Response, jar: Map<string, string>) {
   for (const line of res.headers.getSetCookie()) {
     const [pair] = line.split(";");
@@ -15,13 +24,13 @@ const header = (jar: Map<string, string>) => [...jar].map(([k, v]) => `${k}=${v}
 /** Signs in through next-auth's credentials endpoint, as the browser form does. */
 export async function trySignIn(email: string, password: string, headers: Record<string, string> = {}) {
   const jar = new Map<string, string>();
-  const csrfRes = await fetch(`${BASE_URL}/api/auth/csrf`, { headers });
+  const csrfRes = await fetch(`${BASE_URL}/api/auth/csrf`, { headers: asClient(headers) });
   cookiesFrom(csrfRes, jar);
   const { csrfToken } = (await csrfRes.json()) as { csrfToken: string };
   const res = await fetch(`${BASE_URL}/api/auth/callback/credentials`, {
     method: "POST",
     redirect: "manual",
-    headers: { "content-type": "application/x-www-form-urlencoded", cookie: header(jar), ...headers },
+    headers: asClient({ "content-type": "application/x-www-form-urlencoded", cookie: header(jar), ...headers }),
     body: new URLSearchParams({ csrfToken, email, password, json: "true" }),
   });
   cookiesFrom(res, jar);
@@ -57,7 +66,7 @@ export async function api<T = Record<string, unknown>>(session: Session | null, 
     headers["content-type"] ??= "application/json";
     payload = typeof body === "string" ? body : JSON.stringify(body);
   }
-  const res = await fetch(`${BASE_URL}${path}`, { method, headers, body: payload, redirect: "manual" });
+  const res = await fetch(`${BASE_URL}${path}`, { method, headers: asClient(headers), body: payload, redirect: "manual" });
   const text = await res.text();
   let parsed: unknown = text;
   try {

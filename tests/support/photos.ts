@@ -9,6 +9,7 @@ import { asc, eq } from "drizzle-orm";
 import { db } from "@/db/client";
 import { lots, partTypes, photos, suppliers, units, users, workspaces, type StoredSamplingPlan, type ViewDefinition } from "@/db/schema";
 import { createObjectStore, listObjects } from "@/lib/storage/s3";
+import { serviceControl } from "./services";
 import { api, BASE_URL, type ApiResult, type Session } from "./http";
 
 export const PHOTO_VIEWS: ViewDefinition[] = [
@@ -143,10 +144,7 @@ export async function photoRowsFor(unitId: string) {
 
 /** Takes the test object store down or brings it back (scripts/test.ts runs the control endpoint). */
 export async function objectStoreControl(action: "stop" | "start") {
-  const url = process.env.TEST_S3_CONTROL_URL;
-  if (!url) throw new Error("TEST_S3_CONTROL_URL is not set; run the integration tests through `npm run test:integration`.");
-  const res = await fetch(`${url}/s3/${action}`, { method: "POST" });
-  if (res.status !== 204) throw new Error(`s3 ${action} failed: ${res.status} ${await res.text()}`);
+  await serviceControl("s3", action);
 }
 
 export async function waitForPhoto(session: Session, photoId: string, done: (p: PhotoJson) => boolean, timeoutMs = 45_000): Promise<PhotoJson> {

@@ -8,7 +8,10 @@ import { formatDateTime } from "@/lib/time/format";
 
 export const metadata: Metadata = { title: "Outbox" };
 
-const KIND_LABELS = { invitation: "Invitation", password_reset: "Password reset", supplier_evidence: "Supplier evidence" } as const;
+const KIND_LABELS = { invitation: "Invitation", password_reset: "Password reset", supplier_evidence: "Supplier evidence", sign_up: "Sign-up" } as const;
+
+const statusText = (e: { status: "sent" | "queued" | "failed"; error: string | null }) =>
+  e.status === "failed" ? `failed: ${e.error}` : e.status === "queued" ? `queued, retrying (${e.error})` : "delivered";
 
 export default async function OutboxPage() {
   const user = await requirePageUser({ permission: "outbox.read", from: "/outbox" });
@@ -44,7 +47,7 @@ export default async function OutboxPage() {
                     {e.subject}
                   </Link>
                 </td>
-                <td className={`px-4 py-2 ${e.status === "failed" ? "text-fault-700" : ""}`}>{e.status === "failed" ? `failed: ${e.error}` : "delivered"}</td>
+                <td className={`px-4 py-2 ${e.status === "sent" ? "" : "text-fault-700"}`}>{statusText(e)}</td>
               </tr>
             ))}
             {emails.length === 0 && (

@@ -1,7 +1,7 @@
 import { listPeople } from "@/db/queries/users";
 import { inviteSchema } from "@/lib/auth/schemas";
 import { handler, parseJson } from "@/lib/http/route";
-import { invitePerson } from "@/lib/people/people";
+import { invitationMessage, invitePerson } from "@/lib/people/people";
 
 export const GET = handler({ permission: "people.manage" }, async (_req, _ctx, user) => {
   return Response.json({ people: await listPeople({ workspaceId: user.workspaceId }) });
@@ -10,15 +10,6 @@ export const GET = handler({ permission: "people.manage" }, async (_req, _ctx, u
 /** Invites a person by e-mail; the account waits for them to set a password through the link. */
 export const POST = handler({ permission: "people.manage" }, async (req, _ctx, user) => {
   const input = await parseJson(req, inviteSchema.strict());
-  const { person, emailSent } = await invitePerson(user, input);
-  return Response.json(
-    {
-      person,
-      emailSent,
-      message: emailSent
-        ? `Invitation sent to ${person.email}.`
-        : `${person.name} was added, but the invitation e-mail could not be sent. Use “Resend invitation” once mail works again.`,
-    },
-    { status: 201 },
-  );
+  const { person, ...sent } = await invitePerson(user, input);
+  return Response.json({ person, ...sent, message: invitationMessage(person, sent) }, { status: 201 });
 });

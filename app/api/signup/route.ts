@@ -1,10 +1,12 @@
+import { requestSignUp } from "@/lib/accounts/sign-up";
+import { limitSignUp } from "@/lib/accounts/public-limits";
+import { clientIp } from "@/lib/auth/client-ip";
 import { signUpSchema } from "@/lib/auth/schemas";
-import { signUp } from "@/lib/accounts/sign-up";
 import { handler, parseJson, PUBLIC_MAX_BODY } from "@/lib/http/route";
 
-/** Public: creates a workspace and its first lead. */
+/** Public: e-mails a confirmation link (or, for a known address, a note); the same answer either way. */
 export const POST = handler({ public: true }, async (req) => {
   const input = await parseJson(req, signUpSchema.strict(), { maxBytes: PUBLIC_MAX_BODY });
-  const created = await signUp(input);
-  return Response.json({ workspaceId: created.workspaceId, email: created.email, starterPartTypes: created.starterPartTypes }, { status: 201 });
+  await limitSignUp({ ip: clientIp(req.headers), email: input.email });
+  return Response.json(await requestSignUp(input), { status: 202 });
 });

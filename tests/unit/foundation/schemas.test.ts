@@ -1,10 +1,10 @@
 import { describe, expect, it } from "vitest";
-import { inviteSchema, signUpSchema, updatePersonSchema } from "@/lib/auth/schemas";
+import { inviteSchema, setPasswordSchema, signUpSchema, updatePersonSchema } from "@/lib/auth/schemas";
 import { slugify } from "@/lib/accounts/slugify";
 import { clientIp } from "@/lib/auth/client-ip";
-import { minutesUntilRetry } from "@/lib/auth/retry";
 import { AppError } from "@/lib/errors";
 import { inboxFileName } from "@/lib/mail/inbox-file";
+import { waitPhrase } from "@/lib/rate-limit/limits";
 import { parseId, parseWith } from "@/lib/validation";
 
 describe("account schemas", () => {
@@ -13,10 +13,12 @@ describe("account schemas", () => {
     expect(parsed).toEqual({ email: "ana.lyst@example.com", name: "Ana", roles: ["auditor"] });
   });
   it("rejects short and oversized passwords with a reason", () => {
-    const short = signUpSchema.safeParse({ companyName: "Works", name: "A", email: "a@b.example", password: "123456789" });
+    const short = setPasswordSchema.safeParse({ token: "t".repeat(43), password: "123456789" });
     expect(short.success).toBe(false);
     expect(short.error?.issues[0].message).toBe("Use at least 10 characters for the password.");
-    expect(signUpSchema.safeParse({ companyName: "Works", name: "A", email: "a@b.example", password: "x".repeat(201) }).success).toBe(false);
+    expect(setPasswordSchema.safeParse({ token: "t".repeat(43), password: "x".repeat(201) }).success).toBe(false);
+    // Sign-up takes no password: it is chosen through the confirmation link.
+    expect(signUpSchema.strict().safeParse({ companyName: "Works", name: "A", email: "a@b.example", password: "long-enough-pw" }).success).toBe(false);
   });
   it("refuses an empty update", () => {
     expect(updatePersonSchema.safeParse({}).success).toBe(false);
@@ -48,11 +50,12 @@ describe("small pure helpers", () => {
     expect(slugify("Ølstrøm Ærø")).toBe("lstr-m-r");
     expect(slugify("!!!")).toBe("workspace");
   });
-  it("minutesUntilRetry counts from the oldest failure in the window", () => {
-    const now = new Date("2026-12-01T10:00:00Z");
-    expect(minutesUntilRetry(new Date("2026-12-01T09:50:00Z"), now, 15)).toBe(5);
-    expect(minutesUntilRetry(new Date("2026-12-01T09:45:30Z"), now, 15)).toBe(1);
-    expect(minutesUntilRetry(now, now, 15)).toBe(15);
+  it("waitPhrase says seconds under a minute and rounds minutes up", () => {
+    expect(waitPhrase(1)).toBe("Wait 1 second");
+    expect(waitPhrase(40)).toBe("Wait 40 seconds");
+    expect(waitPhrase(60)).toBe("Wait 1 minute");
+    expect(waitPhrase(61)).toBe("Wait 2 minutes");
+    expect(waitPhrase(900)).toBe("Wait 15 minutes");
   });
   it("clientIp takes the first X-Forwarded-For entry", () => {
     expect(clientIp(new Headers({ "x-forwarded-for": "198.51.100.4, 10.0.0.1" }))).toBe("198.51.100.4");
