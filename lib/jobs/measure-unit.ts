@@ -9,7 +9,7 @@ import "server-only";
  * measureUnitQueueOptions)` and `boss.work(MEASURE_UNIT_QUEUE, handleMeasureUnitJobs)`.
  */
 import PgBoss from "pg-boss";
-import { pool } from "@/db/client";
+import { jobDbOnPool, notifyJobs } from "@/db/jobs";
 import { AppError } from "@/lib/errors";
 import { DeadlineExceeded } from "@/lib/imaging/deadline";
 import { MEASURE_JOB_BUDGET_MS } from "@/lib/grading/schemas";
@@ -63,7 +63,7 @@ const cache = globalThis as unknown as { __partproofMeasureSender?: Promise<PgBo
 /** A send-only pg-boss on the app's pool (no maintenance or schedules in the web process). */
 function sender(): Promise<PgBoss> {
   cache.__partproofMeasureSender ??= (async () => {
-    const boss = new PgBoss({ db: { executeSql: (text, values) => pool().query(text, values) }, supervise: false, schedule: false, migrate: true });
+    const boss = new PgBoss({ db: jobDbOnPool(), supervise: false, schedule: false, migrate: true });
     boss.on("error", (err) => console.error("pg-boss (measure sender) error", err));
     await boss.start();
     await boss.createQueue(MEASURE_UNIT_QUEUE, measureUnitQueueOptions);
@@ -79,7 +79,7 @@ function sender(): Promise<PgBoss> {
 export async function enqueueMeasureUnit(job: MeasureUnitJob): Promise<{ jobId: string | null }> {
   const boss = await sender();
   const jobId = await boss.send(MEASURE_UNIT_QUEUE, job, { singletonKey: job.unitId });
-  if (jobId) await pool().query("SELECT pg_notify($1, $2)", [JOB_NOTIFY_CHANNEL, MEASURE_UNIT_QUEUE]);
+  if (jobId) await notifyJobs(JOB_NOTIFY_CHANNEL, MEASURE_UNIT_QUEUE);
   return { jobId };
 }
 
