@@ -35,22 +35,28 @@ const upgrade = app.getUpgradeHandler();
 
 /**
  * A route may answer before it has read the whole request body (413 while an oversized body is
- * still arriving, lib/http/route.ts). The rest of that body is still on its way over the
- * connection, so it cannot carry another request: the answer then says `Connection: close` and
- * the connection ends after it (RFC 9112, 9.6). Without this a client that reused the connection
- * hung on its next request.
+ * still arriving, lib/http/route.ts). The rest of that body is still coming over the connection,
+ * and nothing reads it any more (Next.js drops the request, and Node then stops reading the
+ * socket): left open, the connection stalled, and the client's next request on it hung. Closing
+ * it at once made a client that was still sending lose the answer to a reset (EPIPE before the
+ * 413 was read). So the connection gets a lingering close (RFC 9112, 9.6): the sending side is
+ * shut right after the answer, so the client sees the connection end and does not reuse it, and
+ * the socket itself is destroyed a little later, once the client has had time to read the answer.
  */
-function closeIfBodyUnread(req: http.IncomingMessage, res: http.ServerResponse) {
-  const writeHead = res.writeHead;
-  res.writeHead = function (this: http.ServerResponse, ...args: Parameters<typeof writeHead>) {
-    if (!req.complete && !this.headersSent) this.setHeader("Connection", "close");
-    return writeHead.apply(this, args);
-  } as typeof writeHead;
+const LINGER_MS = 2_000;
+
+function lingerCloseWhenAnsweredEarly(req: http.IncomingMessage, res: http.ServerResponse) {
+  const socket = req.socket;
+  res.once("finish", () => {
+    if (req.complete || socket.destroyed) return;
+    socket.end();
+    setTimeout(() => socket.destroy(), LINGER_MS).unref();
+  });
 }
 
 const server = http.createServer((req, res) => {
   normaliseForwarding(req);
-  closeIfBodyUnread(req, res);
+  lingerCloseWhenAnsweredEarly(req, res);
   void handle(req, res);
 });
 server.on("upgrade", (req, socket, head) => {
