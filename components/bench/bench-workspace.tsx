@@ -25,7 +25,8 @@ import { TakeNext } from "./take-next";
 import { useToolInHand } from "./tool-in-hand";
 import { UnitHeader } from "./unit-header";
 import { useBenchPhotos } from "./use-bench-photos";
-import { unitQueryKey, useUnit, type UnitView } from "./use-unit";
+import { useUnit, type UnitView } from "./use-unit";
+import { unitKeys } from "@/lib/query-keys/units";
 
 export type BenchPartType = {
   views: ViewDefinition[];
@@ -62,7 +63,7 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
   const [uploadOpen, setUploadOpen] = useState<boolean | null>(null);
   const [panels, setPanels] = usePanelState();
   const { photos, selected, select, registry, unsaved, switched } = useBenchPhotos({ unitId, initialPhotoId, keyArea: markingArea });
-  const grades = useQuery({ queryKey: ["unit-grades", unitId], queryFn: () => apiFetch<{ grades: GradeView[] }>(`/api/units/${unitId}/grades`) });
+  const grades = useQuery({ queryKey: unitKeys.grades(unitId), queryFn: () => apiFetch<{ grades: GradeView[] }>(`/api/units/${unitId}/grades`) });
 
   const lock = annotateLock(view, me);
   const notice = benchNotice(view, me);
@@ -118,7 +119,7 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
             labels={labels}
             unsavedRegions={unsaved.size > 0}
             beforeMeasure={() => registry.flushAll()}
-            onGraded={() => void queryClient.invalidateQueries({ queryKey: unitQueryKey(unitId) })}
+            onGraded={() => void queryClient.invalidateQueries({ queryKey: unitKeys.view(unitId) })}
             readOnlyReason={lock !== null && !(me.isLead && view.unit.status === "graded") ? lock : null}
             framed={false}
           />
@@ -137,7 +138,7 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
         me={me}
         end={
           <>
-            {holdsLease && <LeaseHeartbeat unitId={unitId} onRenewed={() => void queryClient.invalidateQueries({ queryKey: unitQueryKey(unitId) })} />}
+            {holdsLease && <LeaseHeartbeat unitId={unitId} onRenewed={() => void queryClient.invalidateQueries({ queryKey: unitKeys.view(unitId) })} />}
             {me.canRecord && view.unit.status === "graded" && <TakeNext lotId={view.lot.id} />}
           </>
         }

@@ -5,7 +5,8 @@ import Link from "next/link";
 import { useState, type ReactNode } from "react";
 import { apiFetch } from "@/lib/http/client";
 import { STATUS_LABELS } from "@/lib/units/state-machine";
-import { benchLock, unitQueryKey, useUnit, type UnitView } from "./use-unit";
+import { benchLock, useUnit, type UnitView } from "./use-unit";
+import { unitKeys } from "@/lib/query-keys/units";
 
 type Person = { id: string; isLead: boolean; canRecord: boolean };
 
@@ -24,7 +25,7 @@ function SerialForm({ view, editable }: { view: UnitView; editable: boolean }) {
   const [serial, setSerial] = useState(view.unit.serial ?? "");
   const save = useMutation({
     mutationFn: (value: string) => apiFetch(`/api/units/${view.unit.id}`, { method: "PATCH", body: { serial: value } }),
-    onSuccess: () => void queryClient.invalidateQueries({ queryKey: unitQueryKey(view.unit.id) }),
+    onSuccess: () => void queryClient.invalidateQueries({ queryKey: unitKeys.view(view.unit.id) }),
   });
   return (
     <form

@@ -160,7 +160,7 @@ async function ensureDatabase(s: ServiceSettings, fresh: boolean) {
 }
 
 /**
- * The local app role may sign in with its local password (migration 0018 creates it without
+ * The local app role may sign in with its local password (migration 0019 creates it without
  * one; a real deployment gives it, or a member role, a password of its own).
  */
 export async function enableAppLogin(s: ServiceSettings) {

@@ -10,7 +10,7 @@ export const projectRoot = path.resolve(import.meta.dirname, "../..");
 export type ServiceSettings = {
   name: string;
   dataDir: string;
-  /** `user` owns the tables and runs migrations; `appUser` is what the app connects as (migration 0018). */
+  /** `user` owns the tables and runs migrations; `appUser` is what the app connects as (migration 0019). */
   pg: { port: number; dataDir: string; user: string; password: string; database: string; appUser: string; appPassword: string };
   s3: { port: number; dir: string; bucket: string; accessKeyId: string; secretAccessKey: string };
   smtp: { port: number; inboxDir: string };

@@ -1,5 +1,5 @@
 /**
- * The app connects as a role that owns nothing (migration 0018): it cannot switch off the
+ * The app connects as a role that owns nothing (migration 0019): it cannot switch off the
  * triggers that keep the evidence append-only, cannot alter tables or grants, and on the
  * append-only tables (activity_log, grades) may only add and read rows. Checked with the app's
  * own connection (DATABASE_URL, as the web server and the worker use it).
