@@ -12,7 +12,7 @@ import { afterAll, beforeAll, expect, it } from "vitest";
 import { db } from "@/db/client";
 import { activityLog, measurements, photos } from "@/db/schema";
 import { enqueueMeasureUnit } from "@/lib/jobs/measure-unit";
-import { makePhotoLikeRaw } from "../support/fixtures/make-photos";
+import { makePhotoLikeRaw } from "@/support/fixtures/make-photos";
 import { createMeasurableUnit, createPhoto, saveRegions, workspaceIdOf, type FixtureRegion } from "../support/grading";
 import { signIn, type Session } from "../support/http";
 import { createUser, TEST_PASSWORD, uniqueEmail, workspaceBySlug } from "../support/db";

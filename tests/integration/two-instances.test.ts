@@ -16,7 +16,7 @@ import { createUser, createWorkspace, TEST_PASSWORD, uniqueEmail, workspaceBySlu
 import { BASE_URL } from "../support/http";
 import { startWebServer, startWorker, stopAll, logOf, type Instance } from "../support/instances";
 import { createLotWithUnits, createPartTypeAndSupplier } from "../support/lot-fixtures";
-import { makePhotoLikeJpeg } from "../support/fixtures/make-photos";
+import { makePhotoLikeJpeg } from "@/support/fixtures/make-photos";
 import { createPhotoUnits } from "../support/photos";
 import { serviceControl } from "../support/services";
 
