@@ -78,6 +78,19 @@ export function validateRegions(photo: PhotoForRegions, input: unknown): RegionS
   return result.value;
 }
 
+/**
+ * Whether the actor may mark regions on this unit's photos now (lot open, unit not yet graded, no
+ * one else's running lease); throws 409 with the reason. The save checks it under the unit's lock;
+ * learned suggestions check it unlocked, since they store nothing.
+ */
+export function assertUnitAnnotatable(lotStatus: PhotoForRegions["lotStatus"], unit: Parameters<typeof assertNotLeasedByOther>[0], actor: SessionUser): void {
+  if (lotStatus !== "open") throw new AppError("conflict", "This unit's lot is decided; its regions can no longer change.");
+  if (!(EDITABLE_STATUSES as readonly string[]).includes(unit.status)) {
+    throw new AppError("conflict", `This unit is ${STATUS_LABELS[unit.status]}, so its regions are part of the record and can no longer change.`);
+  }
+  assertNotLeasedByOther(unit, actor);
+}
+
 export async function saveRegionSet(actor: SessionUser, photoId: string, input: SaveRegionsInput): Promise<RegionSetView> {
   const photo = await loadPhotoForRegions(actor, photoId);
   const payload = validateRegions(photo, input.regions);
@@ -86,11 +99,7 @@ export async function saveRegionSet(actor: SessionUser, photoId: string, input: 
     // The unit first (the same order as grading), so a grade and a save never deadlock.
     const unit = await lockUnit(tx, { workspaceId: actor.workspaceId, unitId: photo.unit.id });
     if (!unit) throw notFound("That photo");
-    if (photo.lotStatus !== "open") throw new AppError("conflict", "This unit's lot is decided; its regions can no longer change.");
-    if (!(EDITABLE_STATUSES as readonly string[]).includes(unit.status)) {
-      throw new AppError("conflict", `This unit is ${STATUS_LABELS[unit.status]}, so its regions are part of the record and can no longer change.`);
-    }
-    assertNotLeasedByOther(unit, actor);
+    assertUnitAnnotatable(photo.lotStatus, unit, actor);
     const set = await lockRegionSet(tx, key);
     if (set.version !== input.baseVersion) {
       const current = await readRegionSet(actor, photoId, tx);

@@ -96,6 +96,16 @@ export const ROUTES: RouteRow[] = [
   // Every allowed caller sends version 0: the first one saves (200) and takes the unit onto their bench; the later ones meet that lease or its save (409).
   { method: "PUT", path: "/api/photos/:regionPhotoId/regions", permission: "regions.edit", body: () => ({ baseVersion: 0, regions: { regions: [{ id: "route-1", defect: "scratch", shape: { kind: "rect", x: 10, y: 10, width: 20, height: 10 } }], surfaces: [], ruler: null } }), allowedStatus: [200, 409] },
   { method: "POST", path: "/api/photos/:regionPhotoId/suggestions", permission: "regions.edit", body: () => ({ kind: "surface" }), allowedStatus: 200 },
+  // Learned ghosts and the record of decisions (tests/support/suggestion-access.ts): only where the caller may mark now,
+  // so a caller meeting the lease the region save above gave its first caller gets 409, as that save does.
+  { method: "POST", path: "/api/photos/:regionPhotoId/learned-suggestions", permission: "regions.edit", body: () => ({}), allowedStatus: [200, 409] },
+  {
+    method: "POST",
+    path: "/api/photos/:regionPhotoId/suggestion-decisions",
+    permission: "regions.edit",
+    body: (ids) => ({ modelId: ids.suggestionModelId, decisions: [{ defect: "scratch", shape: { kind: "spot", x: 40, y: 40, radius: 4 }, score: 0.5, decision: "dismissed" }] }),
+    allowedStatus: [201, 409],
+  },
   // Part types, lots, units and checklists (tests/support/lot-access.ts).
   { method: "GET", path: "/api/part-types", permission: "part-types.read", allowedStatus: 200 },
   { method: "POST", path: "/api/part-types", permission: "part-types.edit", body: () => ({ name: unique("Route part"), category: "other", views: [{ key: "front", label: "Front", required: true, zones: [] }], defectClasses: [{ key: "scratch", label: "Scratch", severity: "minor" }], checklist: [] }), allowedStatus: 201 },
@@ -119,6 +129,10 @@ export const ROUTES: RouteRow[] = [
   // The first allowed caller promotes the photo (201); the later ones find it already in the gallery (409).
   { method: "POST", path: "/api/gallery", permission: "gallery.edit", body: (ids) => ({ photoId: ids.promotablePhotoId }), allowedStatus: [201, 409] },
   { method: "GET", path: "/api/gallery/:galleryItemId", permission: "gallery.read", allowedStatus: 200 },
+  // Learned suggestions (tests/support/suggestion-access.ts: the workspace's latest training job).
+  { method: "GET", path: "/api/suggestion-models", permission: "suggestions.manage", allowedStatus: 200 },
+  { method: "POST", path: "/api/suggestion-models", permission: "suggestions.manage", body: () => ({}), allowedStatus: 202 },
+  { method: "GET", path: "/api/suggestion-models/jobs/:trainingJobId", permission: "suggestions.manage", allowedStatus: 200 },
   // Every allowed caller names revision 0: the first saves (200), the later ones meet its save (409).
   { method: "PATCH", path: "/api/gallery/:galleryDraftId", permission: "gallery.edit", body: () => ({ revision: 0, caption: unique("Route check caption") }), allowedStatus: [200, 409] },
   { method: "POST", path: "/api/gallery/:galleryPublishId/publish", permission: "gallery.edit", body: () => ({ revision: 0 }), allowedStatus: [200, 409] },
