@@ -17,9 +17,8 @@ import { getPhotoForRegions, getRegionSetHead, listPhotoRegions, lockRegionSet, 
 import type { SessionUser } from "@/lib/auth/require-user";
 import { AppError, notFound } from "@/lib/errors";
 import { parseRegionSet, type RegionSetPayload } from "@/lib/geometry/validate";
-import { claimForWork, workClaimsUnit } from "@/lib/queue/claim-for-work";
-import { assertNotLeasedByOther } from "@/lib/queue/queue";
-import { STATUS_LABELS } from "@/lib/units/state-machine";
+import { claimForWork } from "@/lib/queue/claim-for-work";
+import { assertUnitEditable } from "@/lib/units/editability";
 import { payloadFromRows, rowsForSave } from "./payload";
 import type { SaveRegionsInput } from "./schemas";
 
@@ -42,9 +41,6 @@ export class RegionVersionConflict extends AppError {
     );
   }
 }
-
-/** Units whose regions may still change: waiting or on a bench (graded evidence is fixed). */
-const EDITABLE_STATUSES = ["queued", "on_bench"] as const;
 
 export async function loadPhotoForRegions(actor: Actor, photoId: string): Promise<PhotoForRegions> {
   const row = await getPhotoForRegions({ workspaceId: actor.workspaceId, photoId });
@@ -86,15 +82,11 @@ export async function saveRegionSet(actor: SessionUser, photoId: string, input: 
     // The unit first (the same order as grading), so a grade and a save never deadlock.
     const unit = await lockUnit(tx, { workspaceId: actor.workspaceId, unitId: photo.unit.id });
     if (!unit) throw notFound("That photo");
-    if (photo.lotStatus !== "open") throw new AppError("conflict", "This unit's lot is decided; its regions can no longer change.");
-    if (!(EDITABLE_STATUSES as readonly string[]).includes(unit.status)) {
-      throw new AppError("conflict", `This unit is ${STATUS_LABELS[unit.status]}, so its regions are part of the record and can no longer change.`);
-    }
-    assertNotLeasedByOther(unit, actor);
+    const { claims } = assertUnitEditable({ work: "regions", actor, lotStatus: unit.lotStatus, unit, timeZone: actor.timeZone });
     const set = await lockRegionSet(tx, key);
     if (set.version !== input.baseVersion) throw new RegionVersionConflict(await readRegionSet(actor, photoId, tx), input.baseVersion);
     // Marking a unit that waits in the queue (or whose lease ran out) takes it onto the marker's bench.
-    if (workClaimsUnit(unit)) await claimForWork(tx, actor, unit, "regions");
+    if (claims) await claimForWork(tx, actor, unit, "regions");
     const version = set.version + 1;
     const previous = await listPhotoRegions(key, tx);
     const { rows, added, changed, removed } = rowsForSave(payload, previous, { authorId: actor.id, version });
