@@ -86,8 +86,8 @@ export function AnnotationCanvas(props: AnnotationCanvasProps) {
   const history = useCommittedChanges(state, onChange, onHistoryChange);
   const showShortcuts = useCallback(() => setSheetOpen(true), []);
   const focusStage = useCallback(() => containerRef.current?.focus({ preventScroll: true }), []);
-  const actions = useCanvasActions({ dispatch, stageSize, fittedRef, image: original, onShowShortcuts: showShortcuts, focusStage });
-  useCanvasKeys({ rootRef, alsoIn: [regionListContainer, keyArea], latestRef, dispatch, readOnly, onView: actions.view, spaceHeldRef, onShowShortcuts: showShortcuts });
+  const actions = useCanvasActions({ dispatch, stageSize, fittedRef, image: original, onShowShortcuts: showShortcuts, focusStage, latestRef, onHandChange: onToolChange });
+  useCanvasKeys({ rootRef, alsoIn: [regionListContainer, keyArea], latestRef, dispatch, readOnly, onView: actions.view, spaceHeldRef, onShowShortcuts: showShortcuts, onHandChange: onToolChange });
 
   // The photo being marked takes the keyboard when it opens (e.g. after a thumbnail click),
   // unless the inspector has moved on to another control meanwhile.
@@ -97,7 +97,8 @@ export function AnnotationCanvas(props: AnnotationCanvasProps) {
     if (!active || active === document.body || keyArea?.contains(active)) focusStage();
   }, [autoFocus, keyArea, focusStage]);
 
-  // Tell the page which tool and class are in hand, so the next photo opens with the same ones.
+  // Tell the page which tool and class are in hand, so the next photo opens with the same ones
+  // (keys and buttons also tell it at once, in their own event: hand.ts).
   const { activeTool, activeDefect } = state;
   useEffect(() => onToolChange?.({ tool: activeTool, defect: activeDefect }), [onToolChange, activeTool, activeDefect]);
   const pointer = usePointerInput({ containerRef, latestRef, dispatch, readOnly, spaceHeldRef });

@@ -11,7 +11,8 @@ import { activateTool, handleKey, type KeyInput } from "@/lib/annotate/tools";
 import type { AnnotationState, RegionId } from "@/lib/annotate/types";
 import { edit, type CanvasAction, type Edit } from "./canvas-store";
 import { revealBounds } from "./gestures";
-import type { ToolbarActions } from "./types";
+import { handChanged } from "./hand";
+import type { ToolbarActions, ToolInHand } from "./types";
 import { applyViewCommand, type ViewCommand } from "./view-commands";
 
 type CanvasActionOptions = {
@@ -22,6 +23,9 @@ type CanvasActionOptions = {
   image: Size;
   onShowShortcuts(): void;
   focusStage(): void;
+  /** The committed state, to tell the page about a new tool or class in the click's own event. */
+  latestRef: RefObject<AnnotationState>;
+  onHandChange?: (hand: ToolInHand) => void;
 };
 
 export type CanvasActions = ToolbarActions & {
@@ -46,9 +50,15 @@ function applyLineWidth(state: AnnotationState, width: number): AnnotationState 
   return model.setDefaultLineWidth(state, width);
 }
 
-export function useCanvasActions({ dispatch, stageSize, fittedRef, image, onShowShortcuts, focusStage }: CanvasActionOptions): CanvasActions {
+export function useCanvasActions({ dispatch, stageSize, fittedRef, image, onShowShortcuts, focusStage, latestRef, onHandChange }: CanvasActionOptions): CanvasActions {
   return useMemo(() => {
     const run = (change: Edit) => dispatch(edit(change));
+    // Commands that may change the tool or class in hand also say so at once (hand.ts).
+    const runInHand = (change: Edit) => {
+      run(change);
+      const hand = handChanged(latestRef.current, change(latestRef.current));
+      if (hand) onHandChange?.(hand);
+    };
     const key = (input: Pick<KeyInput, "key"> & Partial<KeyInput>) => run((s) => handleKey(s, { shift: false, alt: false, mod: false, ...input }).state);
     const view = (command: ViewCommand) => {
       if (!stageSize) return;
@@ -60,9 +70,9 @@ export function useCanvasActions({ dispatch, stageSize, fittedRef, image, onShow
       run((s) => model.setViewport(s, applyViewCommand(s.viewport, command, s.image, stageSize)));
     };
     return {
-      tool: (id) => run((s) => activateTool(s, id)),
+      tool: (id) => runInHand((s) => activateTool(s, id)),
       // Same as the number keys: also gives the selected region that class.
-      defect: (defectKey) => run((s) => model.chooseDefectByIndex(s, s.allowedDefects.indexOf(defectKey))),
+      defect: (defectKey) => runInHand((s) => model.chooseDefectByIndex(s, s.allowedDefects.indexOf(defectKey))),
       toggleHidden: (defectKey) => run((s) => model.toggleDefectHidden(s, defectKey)),
       lineWidth: (width) => run((s) => applyLineWidth(s, width)),
       view,
@@ -77,8 +87,8 @@ export function useCanvasActions({ dispatch, stageSize, fittedRef, image, onShow
         focusStage();
       },
       showShortcuts: onShowShortcuts,
-      select: (id) => run((s) => pickRegion(s, id, stageSize)),
+      select: (id) => runInHand((s) => pickRegion(s, id, stageSize)),
       remove: (id) => run((s) => model.deleteRegion(s, id)),
     };
-  }, [dispatch, stageSize, fittedRef, image, onShowShortcuts, focusStage]);
+  }, [dispatch, stageSize, fittedRef, image, onShowShortcuts, focusStage, latestRef, onHandChange]);
 }

@@ -11,7 +11,9 @@ import { useEffect, useRef } from "react";
 import { handleKey } from "@/lib/annotate/tools";
 import type { AnnotationState } from "@/lib/annotate/types";
 import { edit, type CanvasAction } from "./canvas-store";
+import { handChanged } from "./hand";
 import { canvasTakesKey, describeKeyTarget, keyInputOf } from "./key-scope";
+import type { ToolInHand } from "./types";
 import { viewCommandForKey, type ViewCommand } from "./view-commands";
 
 type CanvasKeyOptions = {
@@ -24,6 +26,8 @@ type CanvasKeyOptions = {
   onView(command: ViewCommand): void;
   spaceHeldRef: RefObject<boolean>;
   onShowShortcuts(): void;
+  /** Told at once, in the key's own event, when the key changes the tool or class in hand (hand.ts says why). */
+  onHandChange?: (hand: ToolInHand) => void;
 };
 
 function inScope(root: HTMLElement | null, target: EventTarget | null, alsoIn: readonly (HTMLElement | null)[] = []): boolean {
@@ -40,7 +44,7 @@ export function useCanvasKeys(options: CanvasKeyOptions): void {
 
   useEffect(() => {
     function onKeyDown(e: KeyboardEvent) {
-      const { rootRef, alsoIn, latestRef, dispatch, readOnly, onView, spaceHeldRef, onShowShortcuts } = optionsRef.current;
+      const { rootRef, alsoIn, latestRef, dispatch, readOnly, onView, spaceHeldRef, onShowShortcuts, onHandChange } = optionsRef.current;
       if (e.defaultPrevented || e.isComposing || !inScope(rootRef.current, e.target, alsoIn)) return;
       if (!canvasTakesKey(describeKeyTarget(e.target), e.key)) return;
       if (e.key === " ") {
@@ -52,7 +56,11 @@ export function useCanvasKeys(options: CanvasKeyOptions): void {
       if (!readOnly) {
         const result = handleKey(latestRef.current, input);
         if (result.handled) e.preventDefault();
-        if (result.state !== latestRef.current) dispatch(edit((s) => handleKey(s, input).state));
+        if (result.state !== latestRef.current) {
+          dispatch(edit((s) => handleKey(s, input).state));
+          const hand = handChanged(latestRef.current, result.state);
+          if (hand) onHandChange?.(hand);
+        }
         if (result.showShortcuts) onShowShortcuts();
         if (result.handled) return;
       } else if (input.key === "?") {

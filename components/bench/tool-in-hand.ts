@@ -5,7 +5,7 @@
  * through the same key registry, and the next canvas opens with its result: "click a thumbnail,
  * press B" always ends with Box in hand.
  */
-import { useEffect, useRef, useState } from "react";
+import { useCallback, useEffect, useRef, useState } from "react";
 import { canvasTakesKey, describeKeyTarget, keyInputOf } from "@/components/annotate/key-scope";
 import type { ToolInHand } from "@/components/annotate/types";
 import { createAnnotationState } from "@/lib/annotate/model";
@@ -50,5 +50,7 @@ export function useToolInHand({ area, classKeys, startingDefect, readOnly }: Opt
     document.addEventListener("keydown", onKeyDown);
     return () => document.removeEventListener("keydown", onKeyDown);
   }, []);
-  return { hand, setHand };
+  // A canvas reports a change twice (in the event, then from its effect): the second is a no-op.
+  const report = useCallback((next: ToolInHand) => setHand((h) => (h.tool === next.tool && h.defect === next.defect ? h : next)), []);
+  return { hand, setHand: report };
 }

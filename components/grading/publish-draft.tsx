@@ -4,6 +4,7 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { useState } from "react";
 import { FormMessage } from "@/components/ui/form-field";
 import { apiFetch } from "@/lib/http/client";
+import { rubricKeys } from "@/lib/query-keys/rubrics";
 
 /** The lead's publish action, with one confirmation step: publishing cannot be undone. */
 export function PublishDraft({ partTypeId, version, revision, blockedReason }: { partTypeId: string; version: number; revision: number; blockedReason: string | null }) {
@@ -13,7 +14,7 @@ export function PublishDraft({ partTypeId, version, revision, blockedReason }: {
     mutationFn: () => apiFetch<{ version: number }>(`/api/part-types/${partTypeId}/rubrics/draft/publish`, { method: "POST", body: { version, revision } }),
     onSuccess: () => {
       setConfirming(false);
-      void queryClient.invalidateQueries({ queryKey: ["rubrics", partTypeId] });
+      void queryClient.invalidateQueries({ queryKey: rubricKeys.versions(partTypeId) });
     },
   });
   if (!confirming) {

@@ -11,6 +11,7 @@ import { ApiError, apiFetch } from "@/lib/http/client";
 import { PublishDraft } from "./publish-draft";
 import { RuleRow } from "./rule-row";
 import { type PartTypeSummary, type RubricVersionView } from "./types";
+import { rubricKeys } from "@/lib/query-keys/rubrics";
 
 /** react-hook-form resolver: the rubric schema (with the part type's lists) decides what is valid. */
 function rubricResolver(lists: PartTypeSummary["lists"]): Resolver<RubricFormValues> {
@@ -67,7 +68,7 @@ export function RubricEditor({
       reset(fromRubric(saved.rubric));
       setBaseline(saved.rubric.rules.length);
       setMessage({ kind: "success", text: `Draft version ${saved.version} saved.` });
-      void queryClient.invalidateQueries({ queryKey: ["rubrics", partType.id] });
+      void queryClient.invalidateQueries({ queryKey: rubricKeys.versions(partType.id) });
     },
     onError: (err) => {
       if (err instanceof ApiError) {

@@ -12,6 +12,7 @@ import { RubricEditor } from "./rubric-editor";
 import { PreviewBar, RubricPreview, useSamplePreview } from "./rubric-preview";
 import { RubricRulesTable } from "./rubric-rules-table";
 import { type RubricVersionsResponse, type RubricVersionView } from "./types";
+import { rubricKeys } from "@/lib/query-keys/rubrics";
 
 const EMPTY_PART_TYPE: RubricVersionsResponse["partType"] = { id: "", slug: "", name: "", views: [], lists: { defects: [], zones: [], views: [] }, severities: {}, labels: { defects: {}, zones: {}, views: {} } };
 
@@ -58,14 +59,14 @@ export function RubricScreen({ partTypes, initialPartTypeId, canDraft, canPublis
   const [picked, setPicked] = useState<number | null>(null);
   const [liveRubric, setLiveRubric] = useState<Rubric | null>(null);
   const data = useQuery({
-    queryKey: ["rubrics", partTypeId],
+    queryKey: rubricKeys.versions(partTypeId),
     queryFn: () => apiFetch<RubricVersionsResponse>(`/api/part-types/${partTypeId}/rubrics`),
     enabled: partTypeId !== null,
   });
   const openDraft = useMutation({
     mutationFn: () => apiFetch<{ version: number }>(`/api/part-types/${partTypeId}/rubrics`, { method: "POST" }),
     onSuccess: async (draft) => {
-      await queryClient.invalidateQueries({ queryKey: ["rubrics", partTypeId] });
+      await queryClient.invalidateQueries({ queryKey: rubricKeys.versions(partTypeId) });
       setPicked(draft.version);
     },
   });

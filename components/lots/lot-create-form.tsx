@@ -13,6 +13,7 @@ import { lotCreateSchema, PROMISED_GRADES, type PromisedGrade } from "@/lib/lots
 import { INSPECTION_LEVELS, PREFERRED_AQLS } from "@/lib/sampling/iso2859";
 import { CountingNote, PlanTable } from "./plan-table";
 import { SwitchingBox, type SwitchingView } from "./switching-box";
+import { lotKeys } from "@/lib/query-keys/lots";
 
 type Values = z.input<typeof lotCreateSchema>;
 type Output = z.output<typeof lotCreateSchema>;
@@ -59,7 +60,7 @@ export function LotCreateForm({ suppliers, partTypes, canEditSwitching }: { supp
   }, [defaultGrade, gradeTouched, form]);
 
   const switching = useQuery({
-    queryKey: ["switching", supplierId, partTypeId],
+    queryKey: lotKeys.switching(supplierId, partTypeId),
     queryFn: () => apiFetch<SwitchingView>(`/api/inspection-schemes?supplierId=${supplierId}&partTypeId=${partTypeId}`),
     enabled: Boolean(supplierId && partTypeId),
   });

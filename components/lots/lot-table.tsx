@@ -1,20 +1,21 @@
 "use client";
 
 import { keepPreviousData, useQuery } from "@tanstack/react-query";
-import { createColumnHelper, flexRender, getCoreRowModel, useReactTable, type SortingState } from "@tanstack/react-table";
+import { createColumnHelper, flexRender, getCoreRowModel, useReactTable, type SortingState, type Updater } from "@tanstack/react-table";
 import Link from "next/link";
-import { useMemo, useState } from "react";
+import { useMemo } from "react";
 import { FormMessage } from "@/components/ui/form-field";
 import { apiFetch } from "@/lib/http/client";
 import type { LotSummary } from "@/lib/lots/dto";
+import type { LotPage } from "@/lib/lots/list";
+import { lotListParamsSchema } from "@/lib/lots/list-params";
 import { DISPOSITION_LABELS, LOT_PAGE_SIZES, type LotSort } from "@/lib/lots/schemas";
+import { lotKeys } from "@/lib/query-keys/lots";
+import { listParamsSearch } from "@/lib/url-state/list-params";
 import { InspectionSeverityBadge, VerdictBadge } from "./badges";
+import { useLotListParams, type LotFilterOptions } from "./use-lot-list-params";
 
-type Row = Omit<LotSummary, "createdAt"> & { createdAt: string };
-type Page = { lots: Row[]; total: number; page: number; pageSize: number };
-type Option = { id: string; name: string };
-
-const column = createColumnHelper<Row>();
+const column = createColumnHelper<LotSummary>();
 const columns = [
   column.accessor("purchaseRef", {
     id: "purchaseRef",
@@ -65,24 +66,26 @@ const SORTABLE = new Set<string>(["purchaseRef", "supplier", "partType", "quanti
 const WIDE_ONLY = new Set<string>(["quantity", "receivedOn"]);
 const cellClass = (id: string) => (WIDE_ONLY.has(id) ? "hidden lg:table-cell" : "");
 
-/** The Lots list: sorting, filters and pages are done by the server (GET /api/lots). */
-export function LotTable({ suppliers, partTypes }: { suppliers: Option[]; partTypes: Option[] }) {
-  const [sorting, setSorting] = useState<SortingState>([{ id: "dueOn", desc: false }]);
-  const [pagination, setPagination] = useState({ pageIndex: 0, pageSize: 20 });
-  const [filters, setFilters] = useState({ status: "all", supplierId: "", partTypeId: "", search: "" });
-  const params = useMemo(() => {
-    const p = new URLSearchParams({ page: String(pagination.pageIndex + 1), pageSize: String(pagination.pageSize), status: filters.status });
-    if (sorting[0]) {
-      p.set("sort", sorting[0].id as LotSort);
-      p.set("dir", sorting[0].desc ? "desc" : "asc");
-    }
-    if (filters.supplierId) p.set("supplierId", filters.supplierId);
-    if (filters.partTypeId) p.set("partTypeId", filters.partTypeId);
-    if (filters.search.trim()) p.set("search", filters.search.trim());
-    return p.toString();
-  }, [sorting, pagination, filters]);
-  const lots = useQuery({ queryKey: ["lots", params], queryFn: () => apiFetch<Page>(`/api/lots?${params}`), placeholderData: keepPreviousData });
+/**
+ * The Lots list: sorting, filters and pages are done by the server (GET /api/lots) and held in the
+ * URL. The Lots page renders the first page on the server into this query's cache (`Prefetched`).
+ */
+export function LotTable({ options }: { options: LotFilterOptions }) {
+  const { params, go } = useLotListParams(options);
+  const lots = useQuery({
+    queryKey: lotKeys.list(params),
+    queryFn: () => apiFetch<LotPage>(`/api/lots${listParamsSearch(lotListParamsSchema, params)}`),
+    placeholderData: keepPreviousData,
+  });
   const total = lots.data?.total ?? 0;
+  // Derived from the URL, and kept the same between renders: table state that changes identity on
+  // every render makes TanStack Table recompute (and, with its own row models, reset) each time.
+  const sorting: SortingState = useMemo(() => [{ id: params.sort, desc: params.dir === "desc" }], [params.sort, params.dir]);
+  const pagination = useMemo(() => ({ pageIndex: params.page - 1, pageSize: params.pageSize }), [params.page, params.pageSize]);
+  const onSortingChange = (updater: Updater<SortingState>) => {
+    const next = (typeof updater === "function" ? updater(sorting) : updater)[0];
+    if (next) go({ sort: next.id as LotSort, dir: next.desc ? "desc" : "asc", page: 1 });
+  };
   const table = useReactTable({
     data: lots.data?.lots ?? [],
     columns,
@@ -92,59 +95,17 @@ export function LotTable({ suppliers, partTypes }: { suppliers: Option[]; partTy
     manualFiltering: true,
     rowCount: total,
     enableSortingRemoval: false,
-    onSortingChange: (updater) => {
-      setSorting(updater);
-      setPagination((p) => ({ ...p, pageIndex: 0 }));
-    },
-    onPaginationChange: setPagination,
+    onSortingChange,
     getCoreRowModel: getCoreRowModel(),
   });
-  const setFilter = (key: keyof typeof filters, value: string) => {
-    setFilters((f) => ({ ...f, [key]: value }));
-    setPagination((p) => ({ ...p, pageIndex: 0 }));
-  };
+  const pageCount = Math.max(1, table.getPageCount());
+  const pastTheEnd = lots.isSuccess && total > 0 && params.page > pageCount;
 
   return (
     <div className="space-y-3">
-      <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4" role="search" aria-label="Filter lots">
-        <label className="block">
-          <span className="field-label">Purchase ref</span>
-          <input className="field-input" value={filters.search} onChange={(e) => setFilter("search", e.target.value)} placeholder="e.g. PO-24" />
-        </label>
-        <label className="block">
-          <span className="field-label">Status</span>
-          <select className="field-input" value={filters.status} onChange={(e) => setFilter("status", e.target.value)}>
-            <option value="all">All lots</option>
-            <option value="open">Open</option>
-            <option value="decided">Decided</option>
-          </select>
-        </label>
-        <label className="block">
-          <span className="field-label">Supplier</span>
-          <select className="field-input" value={filters.supplierId} onChange={(e) => setFilter("supplierId", e.target.value)}>
-            <option value="">All suppliers</option>
-            {suppliers.map((s) => (
-              <option key={s.id} value={s.id}>
-                {s.name}
-              </option>
-            ))}
-          </select>
-        </label>
-        <label className="block">
-          <span className="field-label">Part type</span>
-          <select className="field-input" value={filters.partTypeId} onChange={(e) => setFilter("partTypeId", e.target.value)}>
-            <option value="">All part types</option>
-            {partTypes.map((p) => (
-              <option key={p.id} value={p.id}>
-                {p.name}
-              </option>
-            ))}
-          </select>
-        </label>
-      </div>
       {lots.isError && <FormMessage kind="error">{lots.error.message}</FormMessage>}
       <div className="card overflow-x-auto">
-        <table className="min-w-full text-sm" data-testid="lot-table" aria-busy={lots.isFetching}>
+        <table className={`min-w-full text-sm ${lots.isPlaceholderData ? "opacity-60" : ""}`} data-testid="lot-table" aria-busy={lots.isFetching}>
           <thead className="bg-gauge-50 text-left text-xs uppercase tracking-wide text-gauge-600">
             {table.getHeaderGroups().map((group) => (
               <tr key={group.id}>
@@ -183,6 +144,16 @@ export function LotTable({ suppliers, partTypes }: { suppliers: Option[]; partTy
                 </td>
               </tr>
             )}
+            {pastTheEnd && (
+              <tr>
+                <td colSpan={columns.length} className="px-4 py-6 text-center text-gauge-600">
+                  This list has {pageCount} page{pageCount === 1 ? "" : "s"}; page {params.page} is past its end.{" "}
+                  <button type="button" className="font-medium text-gauge-700 underline" onClick={() => go({ page: 1 })}>
+                    Go to the first page
+                  </button>
+                </td>
+              </tr>
+            )}
             {lots.isPending && (
               <tr>
                 <td colSpan={columns.length} className="px-4 py-6 text-center text-gauge-600">
@@ -195,24 +166,24 @@ export function LotTable({ suppliers, partTypes }: { suppliers: Option[]; partTy
       </div>
       <nav className="flex flex-wrap items-center justify-between gap-3 text-sm" aria-label="Lot pages">
         <span className="text-gauge-700">
-          {total === 0 ? "0 lots" : `${pagination.pageIndex * pagination.pageSize + 1}–${Math.min(total, (pagination.pageIndex + 1) * pagination.pageSize)} of ${total} lots`}
+          {total === 0 || pastTheEnd ? `${total} lots` : `${pagination.pageIndex * pagination.pageSize + 1}–${Math.min(total, (pagination.pageIndex + 1) * pagination.pageSize)} of ${total} lots`}
         </span>
         <div className="flex items-center gap-2">
           <label className="flex items-center gap-1">
             <span className="text-gauge-700">Per page</span>
-            <select className="field-input w-20 py-1" value={pagination.pageSize} onChange={(e) => setPagination({ pageIndex: 0, pageSize: Number(e.target.value) })}>
+            <select className="field-input w-20 py-1" value={pagination.pageSize} onChange={(e) => go({ pageSize: Number(e.target.value), page: 1 })}>
               {LOT_PAGE_SIZES.map((n) => (
                 <option key={n}>{n}</option>
               ))}
             </select>
           </label>
-          <button type="button" className="btn-secondary py-1" onClick={() => table.previousPage()} disabled={!table.getCanPreviousPage()}>
+          <button type="button" className="btn-secondary py-1" onClick={() => go({ page: Math.min(params.page, pageCount + 1) - 1 })} disabled={params.page <= 1}>
             Previous
           </button>
           <span className="tabular-nums text-gauge-700">
-            Page {pagination.pageIndex + 1} of {Math.max(1, table.getPageCount())}
+            Page {params.page} of {pageCount}
           </span>
-          <button type="button" className="btn-secondary py-1" onClick={() => table.nextPage()} disabled={!table.getCanNextPage()}>
+          <button type="button" className="btn-secondary py-1" onClick={() => go({ page: params.page + 1 })} disabled={params.page >= pageCount}>
             Next
           </button>
         </div>

@@ -6,6 +6,7 @@ import { useState } from "react";
 import { FormMessage } from "@/components/ui/form-field";
 import { apiFetch } from "@/lib/http/client";
 import { InspectionSeverityBadge } from "./badges";
+import { lotKeys } from "@/lib/query-keys/lots";
 
 export type SwitchingView = {
   state: { severity: "normal" | "tightened" | "reduced"; reason: string; progress: string; discontinued: boolean; reducedEligible: boolean };
@@ -25,7 +26,7 @@ export function SwitchingBox({ supplierId, partTypeId, view, canEdit, title = "N
     mutationFn: (change: { reducedAllowed?: boolean; steadyProduction?: boolean; recordCorrectiveAction?: true }) =>
       apiFetch<SwitchingView>("/api/inspection-schemes", { method: "PUT", body: { supplierId, partTypeId, ...change } }),
     onSuccess: (next) => {
-      queryClient.setQueryData(["switching", supplierId, partTypeId], next);
+      queryClient.setQueryData(lotKeys.switching(supplierId, partTypeId), next);
       setMessage({ kind: "success", text: "Saved." });
       router.refresh();
     },

@@ -9,6 +9,7 @@ import { ApiError, apiFetch } from "@/lib/http/client";
 import { EMPTY_ITEM, EMPTY_PART_TYPE, formToInput, type PartTypeFormValues } from "@/lib/part-types/form-model";
 import { PROMISED_GRADES } from "@/lib/lots/schemas";
 import { CATEGORY_LABELS, DEFECT_SEVERITIES, PART_CATEGORIES, partTypeSchema, SEVERITY_LABELS } from "@/lib/part-types/schemas";
+import { partTypeKeys } from "@/lib/query-keys/part-types";
 
 const small = "field-input py-1";
 const severityOptions = DEFECT_SEVERITIES.map((s) => (
@@ -59,7 +60,7 @@ export function PartTypeForm({ partTypeId, initial = EMPTY_PART_TYPE }: { partTy
     mutationFn: (body: unknown) => apiFetch<{ partType: { id: string; name: string } }>(partTypeId ? `/api/part-types/${partTypeId}` : "/api/part-types", { method: partTypeId ? "PATCH" : "POST", body }),
     onSuccess: ({ partType }) => {
       setMessage({ kind: "success", text: `${partType.name} saved.` });
-      void queryClient.invalidateQueries({ queryKey: ["part-types"] });
+      void queryClient.invalidateQueries({ queryKey: partTypeKeys.all });
       if (partTypeId) router.refresh();
       else router.push(`/part-types/${partType.id}`);
     },

@@ -9,6 +9,7 @@ import { FormField, FormMessage } from "@/components/ui/form-field";
 import { ROLE_LABELS, ROLES } from "@/lib/auth/roles";
 import { inviteSchema } from "@/lib/auth/schemas";
 import { ApiError, apiFetch } from "@/lib/http/client";
+import { peopleKeys } from "@/lib/query-keys/people";
 
 type Values = z.input<typeof inviteSchema>;
 
@@ -24,7 +25,7 @@ export function InviteForm() {
     onSuccess: (data) => {
       setResult({ kind: data.emailSent ? "success" : "error", text: data.message });
       reset();
-      void queryClient.invalidateQueries({ queryKey: ["people"] });
+      void queryClient.invalidateQueries({ queryKey: peopleKeys.all });
     },
     onError: (err) => {
       if (err instanceof ApiError) {

@@ -1,11 +1,14 @@
 "use client";
 
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
-import { createColumnHelper, flexRender, getCoreRowModel, getSortedRowModel, useReactTable, type SortingState } from "@tanstack/react-table";
+import { createColumnHelper, flexRender, getCoreRowModel, getSortedRowModel, useReactTable, type SortingState, type Updater } from "@tanstack/react-table";
 import { useMemo, useState } from "react";
 import { FormMessage } from "@/components/ui/form-field";
+import { useListParams } from "@/components/ui/use-list-params";
 import { ROLE_LABELS, ROLES, type Role } from "@/lib/auth/roles";
 import { apiFetch } from "@/lib/http/client";
+import { PEOPLE_SORTS, peopleListParamsSchema } from "@/lib/people/list-params";
+import { peopleKeys } from "@/lib/query-keys/people";
 
 type Person = { id: string; email: string; name: string; roles: Role[]; active: boolean; hasPassword: boolean; lastSignInAt: string | null };
 
@@ -18,15 +21,24 @@ function status(p: Person) {
 
 export function PeopleTable({ currentUserId }: { currentUserId: string }) {
   const queryClient = useQueryClient();
-  const [sorting, setSorting] = useState<SortingState>([{ id: "name", desc: false }]);
+  // The sort is in the URL (back and a shared link keep it); the rows are sorted here.
+  const { params, go } = useListParams(peopleListParamsSchema);
+  // The same array between renders: a new one re-sorts the rows on every render, and TanStack Table
+  // then resets its page index after each sort, which renders again — after a click (a synchronous
+  // update) that loop froze the page (accounts.spec: invite someone, then open the Outbox).
+  const sorting: SortingState = useMemo(() => [{ id: params.sort, desc: params.dir === "desc" }], [params.sort, params.dir]);
+  const setSorting = (updater: Updater<SortingState>) => {
+    const next = (typeof updater === "function" ? updater(sorting) : updater)[0];
+    if (next && (PEOPLE_SORTS as readonly string[]).includes(next.id)) go({ sort: next.id as (typeof PEOPLE_SORTS)[number], dir: next.desc ? "desc" : "asc" });
+  };
   const [message, setMessage] = useState<{ kind: "error" | "success"; text: string } | null>(null);
-  const people = useQuery({ queryKey: ["people"], queryFn: () => apiFetch<{ people: Person[] }>("/api/people").then((d) => d.people) });
+  const people = useQuery({ queryKey: peopleKeys.list(), queryFn: () => apiFetch<{ people: Person[] }>("/api/people").then((d) => d.people) });
 
   const update = useMutation({
     mutationFn: ({ id, body }: { id: string; body: Partial<Pick<Person, "roles" | "active">> }) => apiFetch(`/api/people/${id}`, { method: "PATCH", body }),
     onSuccess: () => {
       setMessage({ kind: "success", text: "Saved." });
-      void queryClient.invalidateQueries({ queryKey: ["people"] });
+      void queryClient.invalidateQueries({ queryKey: peopleKeys.all });
     },
     onError: (err) => setMessage({ kind: "error", text: err.message }),
   });
@@ -95,7 +107,7 @@ export function PeopleTable({ currentUserId }: { currentUserId: string }) {
     [currentUserId, update, resend],
   );
 
-  const table = useReactTable({ data: people.data ?? [], columns, state: { sorting }, onSortingChange: setSorting, getCoreRowModel: getCoreRowModel(), getSortedRowModel: getSortedRowModel() });
+  const table = useReactTable({ data: people.data ?? [], columns, state: { sorting }, onSortingChange: setSorting, enableSortingRemoval: false, getCoreRowModel: getCoreRowModel(), getSortedRowModel: getSortedRowModel() });
 
   if (people.isPending) return <p className="text-sm text-gauge-600">Loading people…</p>;
   if (people.isError) return <FormMessage kind="error">{people.error.message}</FormMessage>;

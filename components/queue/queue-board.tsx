@@ -1,40 +1,32 @@
 "use client";
 
-import { useInfiniteQuery, useMutation, useQuery } from "@tanstack/react-query";
+import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { FormMessage } from "@/components/ui/form-field";
+import { IgnoredParamsNote } from "@/components/ui/ignored-params-note";
 import { apiFetch } from "@/lib/http/client";
-import type { QueueRow, QueueStats } from "@/lib/queue/list";
-import { QueueFiltersBar, type Filters, type FilterOptions } from "./queue-filters";
-import { QueueTable } from "./queue-table";
+import type { QueueStats } from "@/lib/queue/list";
+import { QUEUE_LIST_LABELS, type QueueFilterOptions } from "@/lib/queue/list-params";
+import { queueKeys } from "@/lib/query-keys/queue";
+import { QueueFiltersBar } from "./queue-filters";
+import { useQueueListParams } from "./use-queue-list-params";
 
-function queryString(filters: Filters, extra: Record<string, string> = {}) {
-  const params = new URLSearchParams({ ...Object.fromEntries(Object.entries(filters).filter(([, v]) => v)), ...extra });
-  const s = params.toString();
-  return s ? `?${s}` : "";
-}
-
-/** The Queue screen: depth and throughput, Take next (with the same filters), and the list. */
-export function QueueBoard({ options }: { options: FilterOptions }) {
+/** The Queue screen's controls: depth and throughput, the filters (in the URL) and Take next with the same filters. The list is QueueList. */
+export function QueueBoard({ options }: { options: QueueFilterOptions }) {
   const router = useRouter();
-  const [filters, setFilters] = useState<Filters>({});
+  const queryClient = useQueryClient();
+  const { params, ignored, setFilters } = useQueueListParams(options);
+  const filters = { partTypeId: params.partTypeId, supplierId: params.supplierId, lotId: params.lotId };
   const [message, setMessage] = useState<{ kind: "error" | "success"; text: string } | null>(null);
 
-  const stats = useQuery({ queryKey: ["queue-stats"], queryFn: () => apiFetch<QueueStats>("/api/queue/stats"), refetchInterval: 15_000 });
-  const list = useInfiniteQuery({
-    queryKey: ["queue", filters],
-    queryFn: ({ pageParam }) => apiFetch<{ units: QueueRow[]; nextCursor: string | null }>(`/api/queue${queryString(filters, pageParam ? { cursor: pageParam } : {})}`),
-    initialPageParam: "",
-    getNextPageParam: (last) => last.nextCursor ?? undefined,
-    refetchInterval: 15_000,
-  });
+  const stats = useQuery({ queryKey: queueKeys.stats(), queryFn: () => apiFetch<QueueStats>("/api/queue/stats"), refetchInterval: 15_000 });
   const takeNext = useMutation({
     mutationFn: () => apiFetch<{ unit: { id: string } } | undefined>("/api/queue/next", { method: "POST", body: Object.fromEntries(Object.entries(filters).filter(([, v]) => v)) }),
     onSuccess: (data) => {
       if (!data) {
         setMessage({ kind: "success", text: "Nothing is waiting for these filters. Well done." });
-        void list.refetch();
+        void queryClient.invalidateQueries({ queryKey: queueKeys.all });
         return;
       }
       router.push(`/units/${data.unit.id}`);
@@ -42,7 +34,6 @@ export function QueueBoard({ options }: { options: FilterOptions }) {
     onError: (err) => setMessage({ kind: "error", text: err.message }),
   });
 
-  const rows = list.data?.pages.flatMap((p) => p.units) ?? [];
   return (
     <div className="space-y-5">
       <section aria-label="Queue depth and throughput" className="grid gap-3 sm:grid-cols-3" data-testid="queue-stats">
@@ -58,8 +49,16 @@ export function QueueBoard({ options }: { options: FilterOptions }) {
         ))}
       </section>
 
-      <div className="card flex flex-wrap items-end gap-4 p-4">
-        <QueueFiltersBar options={options} filters={filters} onChange={setFilters} />
+      <IgnoredParamsNote ignored={ignored} labels={QUEUE_LIST_LABELS} />
+      <div className="card flex flex-wrap items-end gap-4 p-4" role="search" aria-label="Filter the queue">
+        <QueueFiltersBar
+          options={options}
+          filters={filters}
+          onChange={(patch) => {
+            setMessage(null);
+            setFilters(patch);
+          }}
+        />
         <button type="button" className="btn-primary px-6 py-3 text-base" onClick={() => takeNext.mutate()} disabled={takeNext.isPending} data-testid="take-next">
           {takeNext.isPending ? "Taking…" : "Take next"}
         </button>
@@ -92,14 +91,6 @@ export function QueueBoard({ options }: { options: FilterOptions }) {
             </tbody>
           </table>
         </section>
-      )}
-
-      {list.isError && <FormMessage kind="error">{list.error.message}</FormMessage>}
-      <QueueTable rows={rows} loading={list.isPending} />
-      {list.hasNextPage && (
-        <button type="button" className="btn-secondary" onClick={() => list.fetchNextPage()} disabled={list.isFetchingNextPage}>
-          {list.isFetchingNextPage ? "Loading…" : "Show more"}
-        </button>
       )}
     </div>
   );

@@ -6,7 +6,7 @@ function since(iso: string) {
   return minutes < 60 ? `${minutes} min` : `${Math.floor(minutes / 60)} h ${minutes % 60} min`;
 }
 
-export function QueueTable({ rows, loading }: { rows: QueueRow[]; loading: boolean }) {
+export function QueueTable({ rows, loading, emptyText = "No units are waiting in open lots." }: { rows: QueueRow[]; loading: boolean; emptyText?: string }) {
   return (
     <div className="card overflow-x-auto">
       <table className="min-w-full text-sm" data-testid="queue-table">
@@ -32,13 +32,16 @@ export function QueueTable({ rows, loading }: { rows: QueueRow[]; loading: boole
               <td className="px-4 py-2">{r.partTypeName}</td>
               <td className="px-4 py-2">{r.supplierName}</td>
               <td className="px-4 py-2 font-mono text-xs">{r.serial ?? `#${r.sampleIndex} (no serial yet)`}</td>
-              <td className="px-4 py-2">{r.holder ? `${r.holder.name}, for ${since(r.holder.since)}` : <span className="text-gauge-500">waiting</span>}</td>
+              <td className="px-4 py-2">
+                {/* The minutes are counted again in the browser; a minute may turn between the server's render and hydration. */}
+                {r.holder ? <span suppressHydrationWarning>{`${r.holder.name}, for ${since(r.holder.since)}`}</span> : <span className="text-gauge-500">waiting</span>}
+              </td>
             </tr>
           ))}
           {!loading && rows.length === 0 && (
             <tr>
               <td colSpan={6} className="px-4 py-6 text-center text-gauge-600">
-                No units are waiting in open lots.
+                {emptyText}
               </td>
             </tr>
           )}

@@ -12,13 +12,18 @@ import { ShellFrame } from "./shell-frame";
 /** The frame around every signed-in page: navigation for the user's roles, who is signed in. */
 export function AppShell({ user, screens, children }: { user: SessionUser; screens: Screen[]; children: React.ReactNode }) {
   const nav = screens.map(({ href, label, status }) => ({ href, label, planned: status === "planned" }));
-  const who = (
+  const zone = `Times in ${describeTimeZone(user.timeZone)}`;
+  // The zone is named once where the page shows it: in the sidebar beside the name, or in the slim
+  // top bar (phones, and the Bench, whose menu is closed while times are on screen).
+  const who = (withZone: boolean) => (
     <div className="text-sm" data-testid="signed-in-user">
       <div className="font-medium">{user.name}</div>
       <div className="text-gauge-300">{user.workspaceName}</div>
-      <div className="mt-1 text-xs text-gauge-300" data-testid="time-zone-note">
-        Times in {describeTimeZone(user.timeZone)}
-      </div>
+      {withZone && (
+        <div className="mt-1 text-xs text-gauge-300" data-testid="time-zone-note">
+          {zone}
+        </div>
+      )}
       <div className="mt-1 flex flex-wrap gap-1" aria-label="Your roles">
         {user.roles.map((r) => (
           <span key={r} className="rounded bg-gauge-800 px-1.5 py-0.5 text-xs text-gauge-100">
@@ -39,7 +44,7 @@ export function AppShell({ user, screens, children }: { user: SessionUser; scree
             <NavLinks items={nav} />
           </nav>
           <div className="space-y-3 border-t border-gauge-800 px-5 py-4">
-            {who}
+            {who(true)}
             <SignOutButton />
           </div>
         </aside>
@@ -49,7 +54,12 @@ export function AppShell({ user, screens, children }: { user: SessionUser; scree
           <Link href="/">
             <Wordmark />
           </Link>
-          <MobileMenu items={nav} footer={<>{who}<SignOutButton /></>} />
+          <div className="flex min-w-0 items-center gap-3">
+            <span className="truncate text-xs text-gauge-300" data-testid="time-zone-note">
+              {zone}
+            </span>
+            <MobileMenu items={nav} footer={<>{who(false)}<SignOutButton /></>} />
+          </div>
         </header>
       }
     >

@@ -10,6 +10,7 @@ import { FormField, FormMessage } from "@/components/ui/form-field";
 import { ApiError, apiFetch } from "@/lib/http/client";
 import { PROMISED_GRADES } from "@/lib/lots/schemas";
 import { supplierSchema } from "@/lib/suppliers/schemas";
+import { supplierKeys } from "@/lib/query-keys/suppliers";
 
 type Values = z.input<typeof supplierSchema>;
 type Output = z.output<typeof supplierSchema>;
@@ -30,7 +31,7 @@ export function SupplierForm({ supplierId, initial }: { supplierId?: string; ini
     onSuccess: ({ supplier }) => {
       setResult({ kind: "success", text: supplierId ? "Saved." : `${supplier.name} added.` });
       if (!supplierId) reset();
-      void queryClient.invalidateQueries({ queryKey: ["suppliers"] });
+      void queryClient.invalidateQueries({ queryKey: supplierKeys.all });
       router.refresh();
     },
     onError: (err) => {

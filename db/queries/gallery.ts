@@ -112,6 +112,9 @@ export type GalleryListFilters = {
 };
 export type GalleryListKey = { createdAt: string; id: string };
 
+/** created_at to the microsecond as ISO text: a JS Date keeps only milliseconds, and a cursor must not skip rows. */
+const createdAtText = sql<string>`to_char(${galleryItems.createdAt} AT TIME ZONE 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.US"Z"')`;
+
 /** A page of items, newest first; `after` is the last row of the previous page (keyset). One extra row tells whether more follow. */
 export function listGalleryItems({ workspaceId, filters, after, limit }: { workspaceId: string; filters: GalleryListFilters; after?: GalleryListKey; limit: number }) {
   const where: (SQL | undefined)[] = [eq(galleryItems.workspaceId, workspaceId), inArray(galleryItems.status, [...filters.statuses])];
@@ -121,10 +124,14 @@ export function listGalleryItems({ workspaceId, filters, after, limit }: { works
   if (filters.grade) where.push(eq(galleryItems.grade, filters.grade));
   if (filters.defectClass) where.push(sql`${galleryItems.defectClasses} @> ARRAY[${filters.defectClass}]::text[]`);
   if (after) {
-    const at = new Date(after.createdAt);
-    where.push(or(lt(galleryItems.createdAt, at), and(eq(galleryItems.createdAt, at), lt(galleryItems.id, after.id))));
+    const at = sql`${after.createdAt}::timestamptz`;
+    where.push(or(sql`${galleryItems.createdAt} < ${at}`, and(sql`${galleryItems.createdAt} = ${at}`, lt(galleryItems.id, after.id))));
   }
-  return selectCards(db())
+  return db()
+    .select({ ...cardColumns, cursorAt: createdAtText })
+    .from(galleryItems)
+    .innerJoin(photos, and(eq(photos.workspaceId, galleryItems.workspaceId), eq(photos.id, galleryItems.photoId)))
+    .innerJoin(partTypes, and(eq(partTypes.workspaceId, galleryItems.workspaceId), eq(partTypes.id, galleryItems.partTypeId)))
     .where(and(...where))
     .orderBy(desc(galleryItems.createdAt), desc(galleryItems.id))
     .limit(limit + 1);
@@ -163,6 +170,16 @@ export async function countItemsUsingPhoto(tx: DbOrTx, { workspaceId, photoId }:
   return row?.n ?? 0;
 }
 
+/** Locks the photo row: items are made from one photo one at a time, so a photo never gets two active items. */
+export async function lockPhotoForItems(tx: DbOrTx, { workspaceId, photoId }: { workspaceId: string; photoId: string }) {
+  const [row] = await tx
+    .select({ id: photos.id, status: photos.status })
+    .from(photos)
+    .where(and(eq(photos.workspaceId, workspaceId), eq(photos.id, photoId)))
+    .for("update");
+  return row ?? null;
+}
+
 /** A draft or published item that already shows this photo (promoting it twice makes no second item). */
 export async function findActiveItemForPhoto({ workspaceId, photoId }: { workspaceId: string; photoId: string }, tx: DbOrTx = db()) {
   const [row] = await tx
@@ -177,7 +194,7 @@ export async function findActiveItemForPhoto({ workspaceId, photoId }: { workspa
 export async function getUnitPhotoForPromotion({ workspaceId, photoId }: { workspaceId: string; photoId: string }, tx: DbOrTx = db()) {
   const [row] = await tx
     .select({
-      photo: { id: photos.id, status: photos.status, viewKey: photos.viewKey, width: photos.width, height: photos.height },
+      photo: { id: photos.id, status: photos.status, viewKey: photos.viewKey, removedAt: photos.removedAt },
       unit: { id: units.id, status: units.status, serial: units.serial, sampleIndex: units.sampleIndex },
       purchaseRef: lots.purchaseRef,
       partType: { id: partTypes.id, name: partTypes.name, views: partTypes.views, defectClasses: partTypes.defectClasses },

@@ -26,7 +26,8 @@ export function lotSummary(row: Pick<LotRow, "lot" | "supplierName" | "partTypeN
     verdict: lot.status === "decided" && lot.verdict ? lot.verdict : progress.verdict.verdict,
     status: lot.status,
     disposition: lot.disposition,
-    createdAt: lot.createdAt,
+    // An ISO string, as JSON carries it: the Lots page hands the same object to the browser's cache.
+    createdAt: lot.createdAt.toISOString(),
   };
 }
 export type LotSummary = ReturnType<typeof lotSummary>;

@@ -1,5 +1,5 @@
 import "server-only";
-import { listQueuePage, listQueueStats } from "@/db/queries/queue";
+import { listQueuePage, listQueueStats, type QueuePageRow } from "@/db/queries/queue";
 import { decodeCursor, encodeCursor, type QueueKey } from "./cursor";
 import type { QueueFilters } from "./schemas";
 
@@ -18,15 +18,25 @@ export type QueueRow = {
   holder: { id: string; name: string; since: string; leaseExpiresAt: string } | null;
 };
 
+export type QueuePage = { units: QueueRow[]; nextCursor: string | null; prevCursor: string | null };
+
+const keyOf = (r: QueuePageRow) => encodeCursor({ dueOn: r.lot_due_on, receivedOn: r.lot_received_on, lotCreatedAt: r.lot_created_at, lotId: r.lot_id, sampleIndex: r.sample_index, id: r.id });
+
 /**
  * One keyset page of the queue (waiting units and units on a bench, in open lots), in Take next
- * order. The cursor is the last row's sort key; one row more than the page tells whether a next
- * page exists.
+ * order: the units after `cursor`, or the units just before `before` (the page before a page, for
+ * Previous). A cursor is a row's sort key; one row more than the page tells whether more lie that
+ * way. `nextCursor` / `prevCursor` open the pages on either side (null when nothing is there; after
+ * a `before` page the page it came from is assumed to follow).
  */
-export async function listQueue({ workspaceId, filters, cursor, limit }: { workspaceId: string; filters: QueueFilters; cursor?: string; limit: number }) {
-  const after: QueueKey | null = cursor ? decodeCursor(cursor) : null;
-  const rows = await listQueuePage({ workspaceId, filters, after, limit: limit + 1 });
-  const page = rows.slice(0, limit);
+export async function listQueue({ workspaceId, filters, cursor, before, limit }: { workspaceId: string; filters: QueueFilters; cursor?: string; before?: string; limit: number }): Promise<QueuePage> {
+  const backwards = before !== undefined;
+  const from: QueueKey | null = before !== undefined ? decodeCursor(before) : cursor ? decodeCursor(cursor) : null;
+  const rows = await listQueuePage({ workspaceId, filters, from, backwards, limit: limit + 1 });
+  const more = rows.length > limit;
+  // The extra row is the farthest one from the cursor: the last going forwards, the first going back.
+  const page = more ? (backwards ? rows.slice(1) : rows.slice(0, limit)) : rows;
+  const first = page.at(0);
   const last = page.at(-1);
   return {
     units: page.map(
@@ -48,10 +58,8 @@ export async function listQueue({ workspaceId, filters, cursor, limit }: { works
             : null,
       }),
     ),
-    nextCursor:
-      rows.length > limit && last
-        ? encodeCursor({ dueOn: last.lot_due_on, receivedOn: last.lot_received_on, lotCreatedAt: last.lot_created_at, lotId: last.lot_id, sampleIndex: last.sample_index, id: last.id })
-        : null,
+    nextCursor: last && (backwards || more) ? keyOf(last) : null,
+    prevCursor: first && (backwards ? more : from !== null) ? keyOf(first) : null,
   };
 }
 

@@ -21,4 +21,6 @@ export const supplierUpdateSchema = supplierSchema
   .refine((v) => Object.keys(v).length > 0, "Nothing to change.");
 export type SupplierUpdateInput = z.infer<typeof supplierUpdateSchema>;
 
+/** GET /api/suppliers's query, and the Suppliers screen's URL (`/suppliers?search=…`). */
 export const supplierListQuerySchema = z.object({ search: z.string().trim().max(100).optional() }).strict();
+export type SupplierListParams = z.infer<typeof supplierListQuerySchema>;

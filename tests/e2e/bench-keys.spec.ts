@@ -73,3 +73,59 @@ test("a thumbnail click hands the keyboard to that photo; the tool in hand, Page
   expect(after.version).toBe(1);
   expect(after.regions.surfaces[0].shape.points).toEqual(before.regions.surfaces[0].shape.points);
 });
+
+test("a key or a rail click that lands while a thumbnail click is switching photos is not lost", async ({ page }) => {
+  // The switch renders a moment after the click (once the previous photo's save is flushed); a
+  // tool chosen in that moment reached the old canvas, which React could unmount before it told
+  // the page, so the next photo opened with the old tool (seen once in a full run, then made
+  // certain by choosing the tool a microtask, a task or a frame after the click).
+  test.setTimeout(120_000);
+  const fixture = await createBenchUnit();
+  await signInAs(page, "inspector@vellmoor.example");
+  const photos = [
+    await uploadThroughApi(page.request, fixture.unitId, await partPhoto(1600, 1200), "front"),
+    await uploadThroughApi(page.request, fixture.unitId, await partPhoto(1600, 1200), "back"),
+  ];
+  await page.setViewportSize({ width: 1024, height: 768 });
+  await page.goto(`/units/${fixture.unitId}?photo=${photos[0].id}`);
+  const stage = page.getByTestId("annotation-stage");
+  await expect(stage).toHaveAttribute("data-ready", "true", { timeout: 30_000 });
+  const tools = [
+    ["p", "spot"],
+    ["l", "line"],
+    ["o", "outline"],
+    ["b", "box"],
+  ] as const;
+  // Keys at three moments; a rail click only a microtask after (a frame later the old photo's rail is gone).
+  const cases = [
+    ["key", "microtask"],
+    ["key", "task"],
+    ["key", "frame"],
+    ["rail", "microtask"],
+  ] as const;
+  for (const [step, [how, when]] of cases.entries()) {
+    const [key, tool] = tools[step % tools.length];
+    const next = photos[(step + 1) % 2];
+    const chosen = await page.evaluate(
+      ({ id, key, tool, how, when }) =>
+        new Promise<boolean>((resolve) => {
+          const thumb = document.querySelector<HTMLButtonElement>(`[data-testid=photo-card][data-photo-id="${id}"] [data-testid=photo-select]`)!;
+          thumb.focus();
+          thumb.click();
+          const choose = () => {
+            const rail = document.querySelector<HTMLButtonElement>(`[data-testid=tool-${tool}]`);
+            if (how === "key") thumb.dispatchEvent(new KeyboardEvent("keydown", { key, bubbles: true, cancelable: true }));
+            else rail?.click();
+            resolve(how === "key" || rail !== null);
+          };
+          if (when === "microtask") queueMicrotask(() => queueMicrotask(choose));
+          else if (when === "task") setTimeout(choose, 0);
+          else requestAnimationFrame(choose);
+        }),
+      { id: next.id, key, tool, how, when },
+    );
+    expect(chosen, "the old photo's rail was still there to click").toBe(true);
+    await expect(page.getByTestId("photo-annotator"), `${how} a ${when} after the click`).toHaveAttribute("data-photo-id", next.id);
+    await expect(stage, `${how} a ${when} after the click`).toHaveAttribute("data-tool", tool, { timeout: 5000 });
+  }
+});

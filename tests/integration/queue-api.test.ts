@@ -66,6 +66,29 @@ describe("Take next", () => {
     expect(page3.body.nextCursor).toBeNull();
   });
 
+  it("pages back with `before`: Previous gives the same units as the page that led there", async () => {
+    type Page = { units: { id: string }[]; nextCursor: string | null; prevCursor: string | null };
+    const ids = (p: { body: Page }) => p.body.units.map((u) => u.id);
+    const page1 = await api<Page>(lead, "GET", "/api/queue?limit=2");
+    expect(page1.body.prevCursor).toBeNull();
+    const page2 = await api<Page>(lead, "GET", `/api/queue?limit=2&cursor=${page1.body.nextCursor}`);
+    const page3 = await api<Page>(lead, "GET", `/api/queue?limit=2&cursor=${page2.body.nextCursor}`);
+    expect(ids(page3)).toHaveLength(1);
+    // From page 3 back to page 2, then to page 1: the same units in the same order, and the
+    // cursors say what lies on either side.
+    const back2 = await api<Page>(lead, "GET", `/api/queue?limit=2&before=${page3.body.prevCursor}`);
+    expect(back2.status).toBe(200);
+    expect(ids(back2)).toEqual(ids(page2));
+    expect(back2.body.prevCursor).not.toBeNull();
+    expect(back2.body.nextCursor).toBe(page2.body.nextCursor);
+    const back1 = await api<Page>(lead, "GET", `/api/queue?limit=2&before=${back2.body.prevCursor}`);
+    expect(ids(back1)).toEqual(ids(page1));
+    expect(back1.body.prevCursor).toBeNull();
+    expect(back1.body.nextCursor).toBe(page1.body.nextCursor);
+    expect((await api(lead, "GET", `/api/queue?limit=2&cursor=${page1.body.nextCursor}&before=${page1.body.nextCursor}`)).status).toBe(400);
+    expect((await api(lead, "GET", "/api/queue?before=garbage")).status).toBe(400);
+  });
+
   it("a list filtered by part type shows that type's units on a bench and waiting, in order, by cursor", async () => {
     type Page = { units: { lotId: string; sampleIndex: number; status: string; holder: { id: string } | null }[]; nextCursor: string | null };
     const page1 = await api<Page>(lead, "GET", `/api/queue?limit=2&partTypeId=${partTypeId}`);

@@ -112,6 +112,21 @@ export const ROUTES: RouteRow[] = [
   { method: "PATCH", path: "/api/units/:serialUnitId", permission: "units.record", body: () => ({ serial: unique("SN-ROUTE") }), allowedStatus: 200 },
   // The inspector's first result takes the queued unit onto their bench; the lead may still correct it.
   { method: "POST", path: "/api/units/:benchUnitId/checklist", permission: "units.record", body: () => ({ itemId: "power", value: { pass: true } }), allowedStatus: 200 },
+  // Gallery (tests/support/gallery-access.ts: a graded unit's photo to promote, a published item, three drafts).
+  { method: "GET", path: "/api/gallery", permission: "gallery.read", allowedStatus: 200 },
+  // The first allowed caller promotes the photo (201); the later ones find it already in the gallery (409).
+  { method: "POST", path: "/api/gallery", permission: "gallery.edit", body: (ids) => ({ photoId: ids.promotablePhotoId }), allowedStatus: [201, 409] },
+  { method: "GET", path: "/api/gallery/:galleryItemId", permission: "gallery.read", allowedStatus: 200 },
+  // Every allowed caller names revision 0: the first saves (200), the later ones meet its save (409).
+  { method: "PATCH", path: "/api/gallery/:galleryDraftId", permission: "gallery.edit", body: () => ({ revision: 0, caption: unique("Route check caption") }), allowedStatus: [200, 409] },
+  { method: "POST", path: "/api/gallery/:galleryPublishId/publish", permission: "gallery.edit", body: () => ({ revision: 0 }), allowedStatus: [200, 409] },
+  { method: "POST", path: "/api/gallery/:galleryRetireId/retire", permission: "gallery.edit", body: () => ({ revision: 0 }), allowedStatus: [200, 409] },
+  { method: "GET", path: "/api/gallery/:galleryItemId/measurement", permission: "gallery.read", allowedStatus: 200 },
+  { method: "GET", path: "/api/gallery/reference?partType=:galleryPartTypeId&view=lens", permission: "gallery.read", allowedStatus: 200 },
+  // An intent stores nothing until the browser uploads and finalises.
+  { method: "POST", path: "/api/gallery/uploads", permission: "gallery.edit", body: (ids) => ({ partTypeId: ids.galleryPartTypeId, viewKey: "lens", kind: "normal", grade: "A", fileName: "route-check.jpg", contentType: "image/jpeg", bytes: 1000 }), allowedStatus: 201 },
+  // A well-formed but forged ticket: the handler itself answers 400 (real finalising is in gallery-uploads.test.ts).
+  { method: "POST", path: "/api/gallery/photos", permission: "gallery.edit", body: () => ({ ticket: `${"e30".repeat(8)}.${"x".repeat(43)}` }), allowedStatus: 400 },
 ];
 
 /** next-auth's own catch-all is public by nature and tested through sign-in. */

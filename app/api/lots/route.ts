@@ -1,16 +1,11 @@
-import { listLots } from "@/db/queries/lots";
 import { handler, parseJson, parseQuery } from "@/lib/http/route";
-import { lotSummary } from "@/lib/lots/dto";
+import { lotPage } from "@/lib/lots/list";
 import { createLot } from "@/lib/lots/lots";
-import { lotProgress, progressInput } from "@/lib/lots/progress";
 import { lotCreateSchema, lotListQuerySchema } from "@/lib/lots/schemas";
 
 /** One page of lots, sorted and filtered on the server. */
 export const GET = handler({ permission: "lots.read" }, async (req, _ctx, user) => {
-  const query = parseQuery(req, lotListQuerySchema);
-  const { rows, total } = await listLots({ workspaceId: user.workspaceId, query });
-  const progress = await lotProgress(user.workspaceId, rows.map(progressInput));
-  return Response.json({ lots: rows.map((r) => lotSummary(r, progress.get(r.lot.id)!)), total, page: query.page, pageSize: query.pageSize });
+  return Response.json(await lotPage({ workspaceId: user.workspaceId, query: parseQuery(req, lotListQuerySchema) }));
 });
 
 export const POST = handler({ permission: "lots.manage" }, async (req, _ctx, user) => {
