@@ -54,7 +54,7 @@ function newIdPrefix(): string {
 
 export function AnnotationCanvas(props: AnnotationCanvasProps) {
   const { handleRef, imageUrl, original, preview, allowedDefects, zones = NO_ZONES, initialRegions, onChange, onHistoryChange, readOnly = false, className = "" } = props;
-  const { ghosts = NO_GHOSTS, regionListContainer = null, keyArea = null, autoFocus = false, startWith, onToolChange, pageShortcuts = NO_SHORTCUTS, toolbarEnd = null } = props;
+  const { ghosts = NO_GHOSTS, regionListContainer = null, keyArea = null, autoFocus = false, startWith, onToolChange, pageShortcuts = NO_SHORTCUTS, toolbarEnd = null, classKind } = props;
   // Number keys follow the severity groups (least severe first); the look follows the class key.
   const ordered = useMemo(() => benchClassOrder(allowedDefects), [allowedDefects]);
   const defectKeys = useMemo(() => ordered.map((d) => d.key), [ordered]);
@@ -171,7 +171,7 @@ export function AnnotationCanvas(props: AnnotationCanvasProps) {
           <ToolRail activeTool={state.activeTool} lineWidth={lineWidth} enabledTools={enabledTools} classes={classes} hiddenDefects={state.hiddenDefects} history={history} readOnly={readOnly} actions={actions} />
         </div>
         <div className="flex min-h-8 min-w-0 items-start gap-3" data-testid="annotation-toolbar">
-          {!readOnly && <DefectClassPicker classes={classes} activeDefect={state.activeDefect} onPick={actions.defect} />}
+          {!readOnly && <DefectClassPicker classes={classes} activeDefect={state.activeDefect} onPick={actions.defect} kind={classKind} />}
           {toolbarEnd && <div className="ml-auto flex shrink-0 items-center">{toolbarEnd}</div>}
         </div>
         <div className="relative min-h-[320px] min-w-0">

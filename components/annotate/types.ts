@@ -57,6 +57,8 @@ export type AnnotationCanvasProps = {
   startWith?: ToolInHand | null;
   /** After the tool or class in hand changes. */
   onToolChange?: (inHand: ToolInHand) => void;
+  /** What the classes are when they are not defect classes (the part type editor's zones): named so, no severity groups. */
+  classKind?: string;
   /** Shown at the end of the class bar (the Bench puts the save status there). */
   toolbarEnd?: ReactNode;
   /** The page's own keys, listed in the `?` sheet after the canvas's. */

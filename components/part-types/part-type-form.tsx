@@ -3,48 +3,20 @@
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { useRouter } from "next/navigation";
 import { useState } from "react";
-import { useFieldArray, useForm, useWatch, type Control, type UseFormRegister } from "react-hook-form";
+import { useFieldArray, useForm } from "react-hook-form";
 import { FormMessage } from "@/components/ui/form-field";
 import { ApiError, apiFetch } from "@/lib/http/client";
-import { EMPTY_ITEM, EMPTY_PART_TYPE, formToInput, type PartTypeFormValues } from "@/lib/part-types/form-model";
 import { PROMISED_GRADES } from "@/lib/lots/schemas";
+import { EMPTY_ITEM, EMPTY_PART_TYPE, formToInput, type PartTypeFormValues } from "@/lib/part-types/form-model";
 import { CATEGORY_LABELS, DEFECT_SEVERITIES, PART_CATEGORIES, partTypeSchema, SEVERITY_LABELS } from "@/lib/part-types/schemas";
 import { partTypeKeys } from "@/lib/query-keys/part-types";
+import { ChecklistItemFields } from "./checklist-item-fields";
+import { ViewFields } from "./view-fields";
 
 const small = "field-input py-1";
 const severityOptions = DEFECT_SEVERITIES.map((s) => (
   <option key={s} value={s}>{SEVERITY_LABELS[s]}</option>
 ));
-
-function ItemFields({ index, control, register, onRemove }: { index: number; control: Control<PartTypeFormValues>; register: UseFormRegister<PartTypeFormValues>; onRemove: () => void }) {
-  const kind = useWatch({ control, name: `checklist.${index}.kind` });
-  const p = `checklist.${index}` as const;
-  return (
-    <li className="grid gap-2 rounded-md border border-gauge-100 p-3 sm:grid-cols-6" data-testid={`item-editor-${index}`}>
-      <input className={small} aria-label={`Item ${index + 1} id`} placeholder="id (e.g. ocv)" {...register(`${p}.id`)} />
-      <input className={`${small} sm:col-span-3`} aria-label={`Item ${index + 1} label`} placeholder="What the bench checks" {...register(`${p}.label`)} />
-      <select className={small} aria-label={`Item ${index + 1} kind`} {...register(`${p}.kind`)}>
-        <option value="pass_fail">Pass / fail</option>
-        <option value="numeric">Reading</option>
-        <option value="choice">Choice</option>
-      </select>
-      <select className={small} aria-label={`Item ${index + 1} severity when it fails`} {...register(`${p}.severityOnFail`)}>{severityOptions}</select>
-      {kind === "numeric" && (
-        <>
-          <input className={small} aria-label={`Item ${index + 1} unit`} placeholder="unit (V, %)" {...register(`${p}.unit`)} />
-          <input className={small} aria-label={`Item ${index + 1} minimum`} placeholder="min" inputMode="decimal" {...register(`${p}.min`)} />
-          <input className={small} aria-label={`Item ${index + 1} maximum`} placeholder="max" inputMode="decimal" {...register(`${p}.max`)} />
-          <input className={small} aria-label={`Item ${index + 1} decimals`} placeholder="decimals" inputMode="numeric" {...register(`${p}.decimals`)} />
-        </>
-      )}
-      {kind === "choice" && (
-        <textarea className={`${small} font-mono sm:col-span-4`} rows={3} aria-label={`Item ${index + 1} choices`} placeholder={"none | None | pass\nloud | Loud | fail"} {...register(`${p}.options`)} />
-      )}
-      <input className={`${small} sm:col-span-5`} aria-label={`Item ${index + 1} caution`} placeholder="Caution shown with the item (optional)" {...register(`${p}.caution`)} />
-      <button type="button" className="btn-secondary py-1 text-xs" onClick={onRemove}>Remove</button>
-    </li>
-  );
-}
 
 /** Create (no partTypeId) or edit a part type: views and zones, defect classes, checklist. */
 export function PartTypeForm({ partTypeId, initial = EMPTY_PART_TYPE }: { partTypeId?: string; initial?: PartTypeFormValues }) {
@@ -52,7 +24,7 @@ export function PartTypeForm({ partTypeId, initial = EMPTY_PART_TYPE }: { partTy
   const queryClient = useQueryClient();
   const [problems, setProblems] = useState<string[]>([]);
   const [message, setMessage] = useState<{ kind: "error" | "success"; text: string } | null>(null);
-  const { register, control, handleSubmit } = useForm<PartTypeFormValues>({ defaultValues: initial });
+  const { register, control, handleSubmit, setValue } = useForm<PartTypeFormValues>({ defaultValues: initial });
   const classes = useFieldArray({ control, name: "defectClasses" });
   const items = useFieldArray({ control, name: "checklist" });
   const views = useFieldArray({ control, name: "views" });
@@ -100,13 +72,13 @@ export function PartTypeForm({ partTypeId, initial = EMPTY_PART_TYPE }: { partTy
         <label className="block"><span className="field-label">Model family</span><input className="field-input" {...register("modelFamily")} /></label>
         <fieldset className="grid grid-cols-2 gap-2">
           <legend className="field-label">Nominal outline (mm, calibration fallback)</legend>
-          <input className="field-input" aria-label="Nominal width in mm" placeholder="width" inputMode="decimal" {...register("nominalWidth")} />
-          <input className="field-input" aria-label="Nominal height in mm" placeholder="height" inputMode="decimal" {...register("nominalHeight")} />
+          <label className="block"><span className="mb-0.5 block text-xs text-gauge-700">Width (mm)</span><input className="field-input" inputMode="decimal" {...register("nominalWidth")} /></label>
+          <label className="block"><span className="mb-0.5 block text-xs text-gauge-700">Height (mm)</span><input className="field-input" inputMode="decimal" {...register("nominalHeight")} /></label>
         </fieldset>
         <fieldset className="grid grid-cols-2 gap-2">
           <legend className="field-label">Panel resolution (display parts)</legend>
-          <input className="field-input" aria-label="Panel width in pixels" placeholder="width px" inputMode="numeric" {...register("panelWidth")} />
-          <input className="field-input" aria-label="Panel height in pixels" placeholder="height px" inputMode="numeric" {...register("panelHeight")} />
+          <label className="block"><span className="mb-0.5 block text-xs text-gauge-700">Width (pixels)</span><input className="field-input" inputMode="numeric" {...register("panelWidth")} /></label>
+          <label className="block"><span className="mb-0.5 block text-xs text-gauge-700">Height (pixels)</span><input className="field-input" inputMode="numeric" {...register("panelHeight")} /></label>
         </fieldset>
         <label className="block">
           <span className="field-label">Grade lots are bought at</span>
@@ -123,17 +95,10 @@ export function PartTypeForm({ partTypeId, initial = EMPTY_PART_TYPE }: { partTy
 
       <fieldset className="space-y-2">
         <legend className="text-sm font-semibold uppercase tracking-wide text-gauge-600">Views to photograph and their zones</legend>
-        <p className="text-xs text-gauge-600">Zones: one per line, “id | Label | x,y x,y x,y …” in 0..1 of the part&apos;s Surface bounding box.</p>
+        <p className="text-xs text-gauge-600">Zones are areas of a view graded on their own (a lens window, a connector). Draw them on a photo of the part type, or type their points.</p>
         <ul className="space-y-2">
           {views.fields.map((field, i) => (
-            <li key={field.id} className="grid gap-2 rounded-md border border-gauge-100 p-3 sm:grid-cols-6">
-              <input className={small} aria-label={`View ${i + 1} key`} placeholder="key" {...register(`views.${i}.key`)} />
-              <input className={`${small} sm:col-span-2`} aria-label={`View ${i + 1} label`} placeholder="Label" {...register(`views.${i}.label`)} />
-              <label className="flex items-center gap-1 text-sm"><input type="checkbox" {...register(`views.${i}.required`)} /> Required</label>
-              <input className={`${small} sm:col-span-2`} aria-label={`View ${i + 1} instructions`} placeholder="How to take it" {...register(`views.${i}.instructions`)} />
-              <textarea className={`${small} font-mono sm:col-span-5`} rows={2} aria-label={`View ${i + 1} zones`} {...register(`views.${i}.zones`)} />
-              <button type="button" className="btn-secondary py-1 text-xs" onClick={() => views.remove(i)}>Remove</button>
-            </li>
+            <ViewFields key={field.id} index={i} partTypeId={partTypeId} control={control} register={register} setValue={setValue} onRemove={() => views.remove(i)} />
           ))}
         </ul>
         <button type="button" className="btn-secondary py-1 text-xs" onClick={() => views.append({ key: "", label: "", required: true, instructions: "", zones: "" })}>Add view</button>
@@ -143,10 +108,10 @@ export function PartTypeForm({ partTypeId, initial = EMPTY_PART_TYPE }: { partTy
         <legend className="text-sm font-semibold uppercase tracking-wide text-gauge-600">Defect classes</legend>
         <ul className="grid gap-2 sm:grid-cols-2">
           {classes.fields.map((field, i) => (
-            <li key={field.id} className="flex gap-2">
-              <input className={small} aria-label={`Defect class ${i + 1} key`} placeholder="key" {...register(`defectClasses.${i}.key`)} />
-              <input className={small} aria-label={`Defect class ${i + 1} label`} placeholder="Label" {...register(`defectClasses.${i}.label`)} />
-              <select className={small} aria-label={`Defect class ${i + 1} severity`} {...register(`defectClasses.${i}.severity`)}>{severityOptions}</select>
+            <li key={field.id} className="flex items-end gap-2">
+              <label className="block w-28 shrink-0"><span className="mb-0.5 block text-xs text-gauge-700">Key</span><input className={small} {...register(`defectClasses.${i}.key`)} /></label>
+              <label className="block min-w-0 flex-1"><span className="mb-0.5 block text-xs text-gauge-700">Label</span><input className={small} {...register(`defectClasses.${i}.label`)} /></label>
+              <div className="w-28 shrink-0"><label htmlFor={`class-${i}-severity`} className="mb-0.5 block text-xs text-gauge-700">Severity</label><select id={`class-${i}-severity`} className={small} {...register(`defectClasses.${i}.severity`)}>{severityOptions}</select></div>
               <button type="button" className="btn-secondary py-1 text-xs" onClick={() => classes.remove(i)} aria-label={`Remove defect class ${i + 1}`}>×</button>
             </li>
           ))}
@@ -158,7 +123,7 @@ export function PartTypeForm({ partTypeId, initial = EMPTY_PART_TYPE }: { partTy
         <legend className="text-sm font-semibold uppercase tracking-wide text-gauge-600">Functional checklist</legend>
         <ol className="space-y-2">
           {items.fields.map((field, i) => (
-            <ItemFields key={field.id} index={i} control={control} register={register} onRemove={() => items.remove(i)} />
+            <ChecklistItemFields key={field.id} index={i} control={control} register={register} onRemove={() => items.remove(i)} />
           ))}
         </ol>
         <button type="button" className="btn-secondary py-1 text-xs" onClick={() => items.append({ ...EMPTY_ITEM })}>Add checklist item</button>

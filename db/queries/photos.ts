@@ -4,10 +4,10 @@ import "server-only";
  * withdrawal, removal). Always scoped by workspace in the WHERE clause, except the worker's
  * reads by id. The worker's and the sweep's writes are in ./photo-processing.ts.
  */
-import { and, asc, eq, isNotNull, isNull, ne, sql } from "drizzle-orm";
+import { and, asc, desc, eq, inArray, isNotNull, isNull, ne, sql } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
 import { db, type DbOrTx } from "@/db/client";
-import { lots, partTypes, photos, units, users, type NewPhoto, type Photo, type ViewDefinition } from "@/db/schema";
+import { lots, partTypes, photos, regions, units, users, type NewPhoto, type Photo, type ViewDefinition } from "@/db/schema";
 
 export type UnitForPhotos = {
   id: string;
@@ -167,4 +167,40 @@ export async function withdrawPhoto(tx: DbOrTx, { removedBy, reason, ...key }: P
 export async function deleteCurrentPhoto(tx: DbOrTx, key: PhotoKey): Promise<boolean> {
   const rows = await tx.delete(photos).where(currentPhoto(key)).returning({ id: photos.id });
   return rows.length > 0;
+}
+
+/**
+ * The newest processed photos of one view of a part type (with a preview to draw on; none taken
+ * out of its unit as a wrong photo), with their Surface outlines: samples a lead draws the view's
+ * zones on. Those with a Surface come first (the stored zones show on them at once), newest first
+ * within each. Scoped by workspace on every table.
+ */
+export async function listSamplePhotos({ workspaceId, partTypeId, viewKey, limit = 12 }: { workspaceId: string; partTypeId: string; viewKey: string; limit?: number }) {
+  const rows = await db()
+    .select({
+      id: photos.id,
+      width: photos.width,
+      height: photos.height,
+      previewWidth: photos.previewWidth,
+      previewHeight: photos.previewHeight,
+      createdAt: photos.createdAt,
+      serial: units.serial,
+      sampleIndex: units.sampleIndex,
+      purchaseRef: lots.purchaseRef,
+    })
+    .from(photos)
+    .innerJoin(units, and(eq(units.id, photos.unitId), eq(units.workspaceId, workspaceId)))
+    .innerJoin(lots, and(eq(lots.id, units.lotId), eq(lots.workspaceId, workspaceId)))
+    .where(and(eq(photos.workspaceId, workspaceId), eq(units.partTypeId, partTypeId), eq(photos.viewKey, viewKey), eq(photos.status, "ready"), isNotNull(photos.previewWidth), isNotNull(photos.previewHeight), isNull(photos.removedAt)))
+    .orderBy(desc(photos.createdAt), desc(photos.id))
+    .limit(limit);
+  const surfaces = rows.length
+    ? await db()
+        .select({ photoId: regions.photoId, id: regions.clientId, shape: regions.shape })
+        .from(regions)
+        .where(and(eq(regions.workspaceId, workspaceId), inArray(regions.photoId, rows.map((r) => r.id)), eq(regions.role, "surface")))
+    : [];
+  const samples = rows.map((row) => ({ ...row, surfaces: surfaces.filter((s) => s.photoId === row.id).map((s) => ({ id: s.id, shape: s.shape })) }));
+  // A stable sort: the newest-first order is kept within each group.
+  return samples.sort((a, b) => Number(b.surfaces.length > 0) - Number(a.surfaces.length > 0));
 }

@@ -116,11 +116,23 @@ function drawPart(kind: string, W: number, H: number, view: string): Drawn {
 
 const noiseCache = new Map<string, Promise<Buffer>>();
 
-/** A grain layer like a camera sensor's, so the photos do not compress like flat drawings (made once per size). */
+/**
+ * A grain layer like a camera sensor's, so the photos do not compress like flat drawings (made once
+ * per size). Gaussian, mean 128, sigma 10, from our seeded generator (Box–Muller): libvips' own
+ * noise is unseeded, which made every render differ and the tests that learn from them flaky.
+ */
 function sensorNoise(W: number, H: number): Promise<Buffer> {
   const key = `${W}x${H}`;
   if (!noiseCache.has(key)) {
-    noiseCache.set(key, sharp({ create: { width: W, height: H, channels: 3, background: "#808080", noise: { type: "gaussian", mean: 128, sigma: 10 } } }).png({ compressionLevel: 1 }).toBuffer());
+    const next = random(W * 7919 + H);
+    const raw = Buffer.alloc(W * H * 3);
+    for (let i = 0; i < raw.length; i += 2) {
+      const radius = Math.sqrt(-2 * Math.log(1 - next())) * 10;
+      const angle = 2 * Math.PI * next();
+      raw[i] = Math.max(0, Math.min(255, Math.round(128 + radius * Math.cos(angle))));
+      if (i + 1 < raw.length) raw[i + 1] = Math.max(0, Math.min(255, Math.round(128 + radius * Math.sin(angle))));
+    }
+    noiseCache.set(key, sharp(raw, { raw: { width: W, height: H, channels: 3 } }).png({ compressionLevel: 1 }).toBuffer());
   }
   return noiseCache.get(key)!;
 }

@@ -5,6 +5,10 @@
 import type { PhotoFailureCode, PhotoStatus } from "@/db/schema/photos";
 import type { PhotoWithContext } from "@/db/queries/photos";
 
+/** How a unit is named beside a photo: its serial, or its place in the lot's sample. */
+export const unitLabel = (u: { serial: string | null; sampleIndex: number; purchaseRef: string }) =>
+  u.serial ? `${u.serial} (${u.purchaseRef})` : `sample ${u.sampleIndex} of ${u.purchaseRef}`;
+
 export type PhotoDto = {
   id: string;
   /** Null for a photo uploaded straight into the Gallery. */
@@ -61,7 +65,7 @@ export function toPhotoDto(p: PhotoWithContext): PhotoDto {
       ? {
           photoId: p.reuse.photoId,
           unitId: p.reuse.unitId,
-          unitLabel: p.reuse.serial ? `${p.reuse.serial} (${p.reuse.purchaseRef})` : `sample ${p.reuse.sampleIndex} of ${p.reuse.purchaseRef}`,
+          unitLabel: unitLabel(p.reuse),
         }
       : null,
     uploadedBy: { id: p.uploadedBy, name: p.uploaderName },

@@ -5,4 +5,6 @@
  */
 export const partTypeKeys = {
   all: ["part-types"] as const,
+  /** Photos of one view a lead draws its zones on (the zone drawer). */
+  samplePhotos: (partTypeId: string, viewKey: string) => [...partTypeKeys.all, partTypeId, "sample-photos", viewKey] as const,
 };

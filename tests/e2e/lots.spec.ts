@@ -81,6 +81,8 @@ test("a lead receives a lot and imports serials; an inspector's out-of-limit bat
   // Who and when, with the date (a reading kept from an earlier day must not read as today's), in
   // the workspace's zone, which the page names once.
   await expect(bench.getByTestId("result-ocv")).toContainText(/, \d{4}-\d{2}-\d{2} \d{2}:\d{2}$/);
+  // The Bench fills the window without the sidebar: the zone is named in its top bar.
+  await expect(bench.getByTestId("time-zone-note").first()).toBeVisible();
   await expect(bench.getByTestId("time-zone-note").first()).toContainText("Times in UTC");
   // An ordinary out-of-limit reading is a failure; below 2.50 V the cell is set aside as suspect, a
   // stronger caution (protection cut-off about 2.5 V: a, Battery University BU-802c; handling: c).

@@ -32,6 +32,7 @@ export const ROUTES: RouteRow[] = [
   { method: "GET", path: "/api/workspace", permission: "workspace.read", allowedStatus: 200 },
   // The demo workspace has every starter already: nothing is created (201, created []).
   { method: "POST", path: "/api/part-types/starters", permission: "part-types.edit", body: () => ({ slugs: ["battery"] }), allowedStatus: 201 },
+  { method: "GET", path: "/api/part-types/:partTypeId/sample-photos?view=lens", permission: "part-types.edit", allowedStatus: 200 },
   // Sets the default again, so the other tests' times stay in UTC.
   { method: "PATCH", path: "/api/workspace", permission: "workspace.manage", body: () => ({ timeZone: "UTC" }), allowedStatus: 200 },
   { method: "GET", path: "/api/people", permission: "people.manage", allowedStatus: 200 },

