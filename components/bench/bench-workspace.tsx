@@ -26,7 +26,8 @@ import { useToolInHand } from "./tool-in-hand";
 import { UnitHeader } from "./unit-header";
 import { benchNotice, unitLock, type BenchPerson } from "./unit-lock";
 import { useBenchPhotos } from "./use-bench-photos";
-import { unitQueryKey, useUnit, type UnitView } from "./use-unit";
+import { useUnit, type UnitView } from "./use-unit";
+import { unitKeys } from "@/lib/query-keys/units";
 
 export type BenchPartType = {
   views: ViewDefinition[];
@@ -63,7 +64,7 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
   const [uploadOpen, setUploadOpen] = useState<boolean | null>(null);
   const [panels, setPanels] = usePanelState();
   const { photos, selected, select, registry, unsaved, switched } = useBenchPhotos({ unitId, initialPhotoId, keyArea: markingArea });
-  const grades = useQuery({ queryKey: ["unit-grades", unitId], queryFn: () => apiFetch<{ grades: GradeView[] }>(`/api/units/${unitId}/grades`) });
+  const grades = useQuery({ queryKey: unitKeys.grades(unitId), queryFn: () => apiFetch<{ grades: GradeView[] }>(`/api/units/${unitId}/grades`) });
 
   const lock = unitLock(view, me, "regions");
   const notice = benchNotice(view, me);
@@ -121,7 +122,7 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
             labels={labels}
             unsavedRegions={unsaved.size > 0}
             beforeMeasure={() => registry.flushAll()}
-            onGraded={() => void queryClient.invalidateQueries({ queryKey: unitQueryKey(unitId) })}
+            onGraded={() => void queryClient.invalidateQueries({ queryKey: unitKeys.view(unitId) })}
             readOnlyReason={gradeLock !== null && !(canCorrect && view.unit.status === "graded") ? gradeLock : null}
             framed={false}
           />
@@ -140,7 +141,7 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
         me={me}
         end={
           <>
-            {holdsLease && <LeaseHeartbeat unitId={unitId} onRenewed={() => void queryClient.invalidateQueries({ queryKey: unitQueryKey(unitId) })} />}
+            {holdsLease && <LeaseHeartbeat unitId={unitId} onRenewed={() => void queryClient.invalidateQueries({ queryKey: unitKeys.view(unitId) })} />}
             {can(me, "queue.work") && view.unit.status === "graded" && <TakeNext lotId={view.lot.id} />}
           </>
         }

@@ -9,7 +9,8 @@ import { apiFetch } from "@/lib/http/client";
 import { STATIC_SENSITIVE, type PartCategory } from "@/lib/part-types/schemas";
 import { ChecklistItemRow } from "./checklist-item-row";
 import { unitLock, type BenchPerson } from "./unit-lock";
-import { unitQueryKey, useUnit, type UnitView } from "./use-unit";
+import { useUnit, type UnitView } from "./use-unit";
+import { unitKeys } from "@/lib/query-keys/units";
 
 /** Items whose failure means a battery is unsafe to handle normally. */
 const BATTERY_HAZARD_ITEMS = ["swelling", "not-hot"];
@@ -35,7 +36,7 @@ export function ChecklistPanel({ initial, me, framed = true }: { initial: UnitVi
     mutationFn: (input: { itemId: string; value: ChecklistValue; note: string }) => apiFetch(`/api/units/${view.unit.id}/checklist`, { body: input }),
     onSuccess: () => {
       setError(null);
-      void queryClient.invalidateQueries({ queryKey: unitQueryKey(view.unit.id) });
+      void queryClient.invalidateQueries({ queryKey: unitKeys.view(view.unit.id) });
     },
     onError: (err) => setError(err.message),
   });

@@ -14,6 +14,7 @@ import { SaveProblem, SaveStatusLine } from "./save-status";
 import type { SaverRegistry } from "./saver-registry";
 import type { RegionSetPayload } from "@/lib/geometry/validate";
 import { SuggestionsBar } from "./suggestions-bar";
+import { unitSessionKeys } from "@/lib/query-keys/units";
 
 type PhotoAnnotatorProps = {
   photo: PhotoDto;
@@ -48,7 +49,7 @@ export function PhotoAnnotator({ photo, viewLabel, allowedDefects, zones, lock, 
   const canvasRef = useRef<AnnotationCanvasHandle>(null);
   const [ghosts, setGhosts] = useState<GhostShape[]>([]);
   const session = useQuery({
-    queryKey: ["bench-region-session", photo.id],
+    queryKey: unitSessionKeys.regionSession(photo.id),
     queryFn: async () => {
       const existing = registry.get(photo.id);
       if (existing?.hasUnsaved()) return { saver: existing, initial: existing.latestRegions() };

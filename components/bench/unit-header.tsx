@@ -7,7 +7,8 @@ import { apiFetch } from "@/lib/http/client";
 import { leaseRunningAt } from "@/lib/units/editability";
 import { STATUS_LABELS } from "@/lib/units/state-machine";
 import { unitLock, type BenchPerson } from "./unit-lock";
-import { unitQueryKey, useUnit, type UnitView } from "./use-unit";
+import { useUnit, type UnitView } from "./use-unit";
+import { unitKeys } from "@/lib/query-keys/units";
 
 /** Whose bench, in the status itself ("on your bench", not "on a bench — on your bench"). */
 function statusText(view: UnitView, me: BenchPerson): string {
@@ -23,7 +24,7 @@ function SerialForm({ view, editable }: { view: UnitView; editable: boolean }) {
   const [serial, setSerial] = useState(view.unit.serial ?? "");
   const save = useMutation({
     mutationFn: (value: string) => apiFetch(`/api/units/${view.unit.id}`, { method: "PATCH", body: { serial: value } }),
-    onSuccess: () => void queryClient.invalidateQueries({ queryKey: unitQueryKey(view.unit.id) }),
+    onSuccess: () => void queryClient.invalidateQueries({ queryKey: unitKeys.view(view.unit.id) }),
   });
   return (
     <form

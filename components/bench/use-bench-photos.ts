@@ -11,6 +11,7 @@ import type { PhotoDto } from "@/lib/photos/dto";
 import { usePhotoKeys } from "./photo-keys";
 import { putRegionSet } from "./regions-api";
 import { SaverRegistry } from "./saver-registry";
+import { unitKeys } from "@/lib/query-keys/units";
 
 /** A switch waits this long for the previous photo's save; past it the save goes on in the background. */
 const SWITCH_FLUSH_MS = 4000;
@@ -22,7 +23,7 @@ function useUnsavedPhotos(registry: SaverRegistry): ReadonlySet<string> {
 
 export function useBenchPhotos({ unitId, initialPhotoId, keyArea }: { unitId: string; initialPhotoId: string | null; keyArea: HTMLElement | null }) {
   const queryClient = useQueryClient();
-  const [registry] = useState(() => new SaverRegistry(putRegionSet, () => void queryClient.invalidateQueries({ queryKey: ["unit-measurement", unitId] })));
+  const [registry] = useState(() => new SaverRegistry(putRegionSet, () => void queryClient.invalidateQueries({ queryKey: unitKeys.measurement(unitId) })));
   const unsaved = useUnsavedPhotos(registry);
   const photos = usePhotos(unitId);
   const [selectedId, setSelectedId] = useState<string | null>(initialPhotoId);

@@ -4,6 +4,7 @@ import { useQuery } from "@tanstack/react-query";
 import type { ChecklistItem, UnitStatus } from "@/db/schema/lots";
 import type { ChecklistValue } from "@/lib/checklist/evaluate";
 import { apiFetch } from "@/lib/http/client";
+import { unitKeys } from "@/lib/query-keys/units";
 
 /** What GET /api/units/[id] answers (dates as ISO text). */
 export type UnitView = {
@@ -15,9 +16,7 @@ export type UnitView = {
   results: { id: string; itemId: string; value: ChecklistValue; passed: boolean; failureReason: string | null; severityOnFail: "critical" | "major" | "minor"; note: string; recordedAt: string; recordedByName: string }[];
 };
 
-export const unitQueryKey = (unitId: string) => ["unit", unitId] as const;
-
 /** The unit as the Bench shows it; header and panels share one query. */
 export function useUnit(unitId: string, initial: UnitView) {
-  return useQuery({ queryKey: unitQueryKey(unitId), queryFn: () => apiFetch<UnitView>(`/api/units/${unitId}`), initialData: initial });
+  return useQuery({ queryKey: unitKeys.view(unitId), queryFn: () => apiFetch<UnitView>(`/api/units/${unitId}`), initialData: initial });
 }

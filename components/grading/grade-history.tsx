@@ -7,13 +7,14 @@ import { apiFetch } from "@/lib/http/client";
 import { GradeBadge } from "./grade-badge";
 import { GradeLines } from "./grade-lines";
 import { type GradeView } from "./types";
+import { unitKeys } from "@/lib/query-keys/units";
 
 const KIND_LABEL: Record<GradeView["kind"], string> = { inspection: "Inspection", recheck: "Recheck", adjudication: "Adjudication", override: "Lead's correction" };
 
 /** The unit's append-only grade history, newest first; the top row is the current grade. */
 export function GradeHistory({ unitId, framed = true }: { unitId: string; framed?: boolean }) {
   const dateTime = useDateTime();
-  const history = useQuery({ queryKey: ["unit-grades", unitId], queryFn: () => apiFetch<{ grades: GradeView[]; current: GradeView | null }>(`/api/units/${unitId}/grades`) });
+  const history = useQuery({ queryKey: unitKeys.grades(unitId), queryFn: () => apiFetch<{ grades: GradeView[]; current: GradeView | null }>(`/api/units/${unitId}/grades`) });
   return (
     <section className={framed ? "card space-y-3 p-4 sm:p-5" : "space-y-2"} aria-labelledby="grade-history-title" data-testid="grade-history">
       <h2 id="grade-history-title" className={framed ? "text-lg font-semibold" : "text-sm font-semibold"}>

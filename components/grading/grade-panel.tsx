@@ -14,6 +14,7 @@ import { GradeBadge } from "./grade-badge";
 import { GradeLines } from "./grade-lines";
 import { MeasurementTable, type MeasurementLabels } from "./measurement-table";
 import { type GradeView, type MeasurementView } from "./types";
+import { unitKeys } from "@/lib/query-keys/units";
 
 export type { MeasurementLabels } from "./measurement-table";
 
@@ -60,20 +61,20 @@ export function GradePanel(props: GradePanelProps) {
   const [jobId, setJobId] = useState<string | null>(null);
   const [message, setMessage] = useState<{ kind: "error" | "success"; text: string } | null>(null);
   const state = useQuery({
-    queryKey: ["unit-measurement", unitId, jobId],
+    queryKey: unitKeys.measurement(unitId, jobId),
     queryFn: () => apiFetch<MeasureState>(`/api/units/${unitId}/measure${jobId ? `?jobId=${jobId}` : ""}`),
     // While a background measurement runs, look again every 2 s until the job is done.
     refetchInterval: (query) => (jobId && !["completed", "failed", "cancelled"].includes(query.state.data?.job?.state ?? "") ? 2000 : false),
   });
   // Shares its cache with GradeHistory: a lead may correct only a unit that already has a grade.
-  const history = useQuery({ queryKey: ["unit-grades", unitId], queryFn: () => apiFetch<{ grades: GradeView[] }>(`/api/units/${unitId}/grades`) });
+  const history = useQuery({ queryKey: unitKeys.grades(unitId), queryFn: () => apiFetch<{ grades: GradeView[] }>(`/api/units/${unitId}/grades`) });
   const current = history.data?.grades.at(-1) ?? null;
   // Once graded, the only new grade is a lead's correction naming the grade it replaces.
   const hasGrade = current !== null;
   const refresh = () => {
-    void queryClient.invalidateQueries({ queryKey: ["unit-measurement", unitId] });
-    void queryClient.invalidateQueries({ queryKey: ["unit-grades", unitId] });
-    void queryClient.invalidateQueries({ queryKey: ["grade-preview", unitId] });
+    void queryClient.invalidateQueries({ queryKey: unitKeys.measurement(unitId) });
+    void queryClient.invalidateQueries({ queryKey: unitKeys.grades(unitId) });
+    void queryClient.invalidateQueries({ queryKey: unitKeys.gradePreview(unitId) });
   };
   const measure = useMutation({
     mutationFn: async () => {

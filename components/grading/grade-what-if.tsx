@@ -7,6 +7,7 @@ import { apiFetch } from "@/lib/http/client";
 import { GradeBadge } from "./grade-badge";
 import { GradeLines } from "./grade-lines";
 import type { GradePreviewView } from "./types";
+import { unitKeys } from "@/lib/query-keys/units";
 
 /**
  * "What would version N say": the measurement behind the current grade, graded again by another
@@ -16,10 +17,10 @@ export function GradeWhatIf({ unitId, versions, framed = true }: { unitId: strin
   const published = versions.filter((v) => v.status === "published");
   const [version, setVersion] = useState<number | null>(published[0]?.version ?? versions[0]?.version ?? null);
   // The same query (and cache) as the grade panel's: ask for a preview only once there is a measurement to grade again.
-  const latest = useQuery({ queryKey: ["unit-measurement", unitId, null], queryFn: () => apiFetch<{ measurement: unknown }>(`/api/units/${unitId}/measure`) });
+  const latest = useQuery({ queryKey: unitKeys.measurement(unitId, null), queryFn: () => apiFetch<{ measurement: unknown }>(`/api/units/${unitId}/measure`) });
   const measured = Boolean(latest.data?.measurement);
   const preview = useQuery({
-    queryKey: ["grade-preview", unitId, version],
+    queryKey: unitKeys.gradePreview(unitId, version),
     queryFn: () => apiFetch<GradePreviewView>(`/api/units/${unitId}/grade-preview?rubricVersion=${version}`),
     enabled: version !== null && measured,
     retry: false,

@@ -3,8 +3,9 @@
 import { keepPreviousData, useQuery } from "@tanstack/react-query";
 import { createColumnHelper, flexRender, getCoreRowModel, useReactTable, type SortingState, type Updater } from "@tanstack/react-table";
 import Link from "next/link";
-import { useMemo } from "react";
+import { useMemo, useRef } from "react";
 import { FormMessage } from "@/components/ui/form-field";
+import { revealTop } from "@/components/ui/use-list-params";
 import { apiFetch } from "@/lib/http/client";
 import type { LotSummary } from "@/lib/lots/dto";
 import type { LotPage } from "@/lib/lots/list";
@@ -71,7 +72,13 @@ const cellClass = (id: string) => (WIDE_ONLY.has(id) ? "hidden lg:table-cell" : 
  * URL. The Lots page renders the first page on the server into this query's cache (`Prefetched`).
  */
 export function LotTable({ options }: { options: LotFilterOptions }) {
-  const { params, go } = useLotListParams(options);
+  const { params, go, isBehindUrl } = useLotListParams(options);
+  const top = useRef<HTMLDivElement>(null);
+  const turnTo = (page: number) => {
+    if (isBehindUrl()) return;
+    go({ page });
+    revealTop(top.current);
+  };
   const lots = useQuery({
     queryKey: lotKeys.list(params),
     queryFn: () => apiFetch<LotPage>(`/api/lots${listParamsSearch(lotListParamsSchema, params)}`),
@@ -99,10 +106,13 @@ export function LotTable({ options }: { options: LotFilterOptions }) {
     getCoreRowModel: getCoreRowModel(),
   });
   const pageCount = Math.max(1, table.getPageCount());
+  // While a new filter's page loads, or the URL has moved on and this render has not caught up,
+  // the count shown is the previous list's: no paging from it.
+  const settled = !lots.isPlaceholderData;
   const pastTheEnd = lots.isSuccess && total > 0 && params.page > pageCount;
 
   return (
-    <div className="space-y-3">
+    <div ref={top} className="scroll-mt-4 space-y-3">
       {lots.isError && <FormMessage kind="error">{lots.error.message}</FormMessage>}
       <div className="card overflow-x-auto">
         <table className={`min-w-full text-sm ${lots.isPlaceholderData ? "opacity-60" : ""}`} data-testid="lot-table" aria-busy={lots.isFetching}>
@@ -177,13 +187,13 @@ export function LotTable({ options }: { options: LotFilterOptions }) {
               ))}
             </select>
           </label>
-          <button type="button" className="btn-secondary py-1" onClick={() => go({ page: Math.min(params.page, pageCount + 1) - 1 })} disabled={params.page <= 1}>
+          <button type="button" className="btn-secondary py-1" onClick={() => turnTo(Math.min(params.page, pageCount + 1) - 1)} disabled={params.page <= 1 || !settled}>
             Previous
           </button>
           <span className="tabular-nums text-gauge-700">
             Page {params.page} of {pageCount}
           </span>
-          <button type="button" className="btn-secondary py-1" onClick={() => go({ page: params.page + 1 })} disabled={params.page >= pageCount}>
+          <button type="button" className="btn-secondary py-1" onClick={() => turnTo(params.page + 1)} disabled={params.page >= pageCount || !settled}>
             Next
           </button>
         </div>

@@ -15,7 +15,8 @@ import type { PhotoDto } from "@/lib/photos/dto";
 import type { ViewChoice } from "@/lib/photos/views";
 import { formatDate } from "@/lib/time/format";
 import { photosInViewOrder } from "./photo-strip";
-import { photosQueryKey, usePhotos } from "./use-photos";
+import { usePhotos } from "./use-photos";
+import { unitKeys } from "@/lib/query-keys/units";
 
 const STATUS = { queued: "Queued", processing: "Processing…", ready: "Ready", failed: "Failed" } as const;
 
@@ -33,7 +34,7 @@ export function PhotoList({ unitId, views, canManage, beforeRemove }: PhotoListP
   const timeZone = useTimeZone();
   const [message, setMessage] = useState<string | null>(null);
   const [notice, setNotice] = useState<string | null>(null);
-  const refresh = () => queryClient.invalidateQueries({ queryKey: photosQueryKey(unitId) });
+  const refresh = () => queryClient.invalidateQueries({ queryKey: unitKeys.photos(unitId) });
   const retry = useMutation({
     mutationFn: (id: string) => apiFetch(`/api/photos/${id}/retry`, { method: "POST" }),
     onSuccess: () => setMessage(null),

@@ -12,6 +12,7 @@ import type { PhotoDto } from "@/lib/photos/dto";
 import { suggestViews, type ViewChoice } from "@/lib/photos/views";
 import { batchProgress, isActive, usePhotoUploads, type UploadItem } from "./use-photo-uploads";
 import { ProgressBar } from "./progress-bar";
+import { unitKeys } from "@/lib/query-keys/units";
 
 const sizeText = (bytes: number) => (bytes >= 1024 * 1024 ? `${(bytes / (1024 * 1024)).toFixed(1)} MB` : `${Math.max(1, Math.round(bytes / 1024))} KB`);
 
@@ -36,7 +37,7 @@ export function PhotoUploader({ unitId, views }: { unitId: string; views: ViewCh
   const cameraRef = useRef<HTMLInputElement>(null);
   // The strip's data (shared query) says which views already have a photo.
   const existing = useQuery({
-    queryKey: ["unit-photos", unitId],
+    queryKey: unitKeys.photos(unitId),
     queryFn: () => apiFetch<{ photos: PhotoDto[] }>(`/api/units/${unitId}/photos`),
   });
   const covered = useMemo(() => {

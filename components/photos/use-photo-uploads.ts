@@ -9,6 +9,7 @@ import { useCallback, useEffect, useReducer, useRef } from "react";
 import { ApiError, apiFetch } from "@/lib/http/client";
 import type { PhotoDto } from "@/lib/photos/dto";
 import { putWithProgress, UploadError } from "./put-with-progress";
+import { unitKeys } from "@/lib/query-keys/units";
 
 export type UploadPhase = "selected" | "waiting" | "requesting" | "uploading" | "finalising" | "ready" | "processing" | "failed" | "cancelled";
 
@@ -129,7 +130,7 @@ export function usePhotoUploads(unitId: string) {
         }
       } finally {
         controllers.current.delete(item.id);
-        void queryClient.invalidateQueries({ queryKey: ["unit-photos", unitId] });
+        void queryClient.invalidateQueries({ queryKey: unitKeys.photos(unitId) });
       }
     },
     [patch, queryClient, unitId],

@@ -7,6 +7,7 @@ import { FormMessage } from "@/components/ui/form-field";
 import { useTimeZone } from "@/components/ui/time-zone";
 import { apiFetch } from "@/lib/http/client";
 import { formatTime } from "@/lib/time/format";
+import { unitSessionKeys } from "@/lib/query-keys/units";
 
 /**
  * Mounted on the Bench of a unit the user holds: renews the lease every minute while the page is
@@ -16,7 +17,7 @@ export function LeaseHeartbeat({ unitId, intervalMs = 60_000, onRenewed }: { uni
   const router = useRouter();
   const timeZone = useTimeZone();
   const heartbeat = useQuery({
-    queryKey: ["lease", unitId],
+    queryKey: unitSessionKeys.leaseHeartbeat(unitId),
     queryFn: () => apiFetch<{ leaseExpiresAt: string }>(`/api/units/${unitId}/lease`, { method: "PUT" }),
     refetchInterval: intervalMs,
     refetchIntervalInBackground: true,

@@ -4,3 +4,4 @@ export * from "./photos";
 export * from "./regions";
 export * from "./grading";
 export * from "./gallery";
+export * from "./suggestions";

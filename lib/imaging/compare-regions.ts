@@ -10,7 +10,7 @@
  *   exact pixel-centre rasteriser, measureCoverage's `regionRaster: "exact"`: it is about five
  *   times faster here than sharp's tiles (bench/compare-regions.ts; 20 items on 12 MP photos must
  *   score well under 2 s) and differs from them only by cairo's rounding (well under 0.1 % of the
- *   covered pixels, tests/unit/imaging/coverage-raster.test.ts), which does not matter to an
+ *   covered pixels, tests/unit/imaging/raster/spans.test.ts), which does not matter to an
  *   overlap score. With the same `regionRaster`, a class's `aPx` equals the `px` measureCoverage
  *   reports for the same regions (tested for both).
  * - Per class named by a region on either side: pixels of each side's union (aPx, bPx), of their

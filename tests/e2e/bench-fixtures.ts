@@ -8,6 +8,7 @@ import crypto from "node:crypto";
 import type { APIRequestContext } from "@playwright/test";
 import pg from "pg";
 import sharp from "sharp";
+import { fixturePlan } from "./db";
 
 let pool: pg.Pool | null = null;
 const db = () => (pool ??= new pg.Pool({ connectionString: process.env.DATABASE_URL, max: 2 }));
@@ -42,7 +43,7 @@ export async function createBenchUnit(holderEmail = "inspector@vellmoor.example"
   );
   await db().query(`INSERT INTO rubric_versions (workspace_id, part_type_id, version, status, rubric, created_by, published_by, published_at) VALUES ($1, $2, 1, 'published', $3, $4, $4, now())`, [ws, partType.id, JSON.stringify(RUBRIC), lead.id]);
   const supplier = await q<{ id: string }>("INSERT INTO suppliers (workspace_id, name, contact_email) VALUES ($1, $2, 'bench@supplier.example') RETURNING id", [ws, `E2E bench supplier ${t}`]);
-  const plan = { standard: "ISO 2859-1 single sampling", lotSize: 2, level: "II", severity: "normal", sampleSize: 2, hundredPercent: true, byDefectSeverity: {}, switchingReason: "e2e fixture" };
+  const plan = fixturePlan(2);
   const lot = await q<{ id: string; created_at: Date }>(
     `INSERT INTO lots (workspace_id, supplier_id, part_type_id, purchase_ref, quantity, received_on, due_on, inspection_level, aql_major, aql_minor, inspection_severity, plan, created_by)
      VALUES ($1, $2, $3, $4, 2, '2026-11-30', '2099-12-31', 'II', 1, 2.5, 'normal', $5, $6) RETURNING id, created_at`,

@@ -17,10 +17,23 @@ async function demoWorkspace() {
   return { workspaceId: rows[0].id as string, leadId: rows[0].lead as string };
 }
 
-/** A whole stored plan (100 %, Ac 0 / Re 1 per class), so the Lots list and the lot page can judge the lot like any other. */
-function fixturePlan(count: number) {
-  const cell = { aql: 1, codeLetter: "A", planLetter: "A", sampleSize: count, accept: 0, reject: 1 };
-  return { standard: "ISO 2859-1 single sampling", lotSize: count, level: "II", severity: "normal", sampleSize: count, hundredPercent: true, byDefectSeverity: { critical: cell, major: cell, minor: cell }, switchingReason: "e2e fixture" };
+/**
+ * A whole stored plan (Ac 0 / Re 1 per class) for lots the browser tests insert, so the Lots list
+ * and the lot page judge them like any other lot. Every fixture lot uses it: a plan without its
+ * per-class entries breaks the Lots list for everyone while that lot is open.
+ */
+export function fixturePlan(sampleSize: number, { lotSize = sampleSize, switchingReason = "e2e fixture" }: { lotSize?: number; switchingReason?: string } = {}) {
+  const cell = { aql: 1, codeLetter: "A", planLetter: "A", sampleSize, accept: 0, reject: 1 };
+  return {
+    standard: "ISO 2859-1 single sampling",
+    lotSize,
+    level: "II",
+    severity: "normal",
+    sampleSize,
+    hundredPercent: sampleSize >= lotSize,
+    byDefectSeverity: { critical: cell, major: cell, minor: cell },
+    switchingReason,
+  };
 }
 
 /** A lot of `count` queued units in the demo workspace, due before anything else. */

@@ -6,6 +6,7 @@
  */
 import crypto from "node:crypto";
 import pg from "pg";
+import { fixturePlan } from "./db";
 
 const hex = (n: number) => crypto.randomBytes(n).toString("hex");
 
@@ -21,7 +22,7 @@ const RUBRIC_V1 = {
     { id: "lens-scratch-c", metric: "share", defect: "scratch", zone: "lens-window", comparison: ">", threshold: 1, grade: "C" },
   ],
 };
-const PLAN = { standard: "ISO 2859-1 single sampling", lotSize: 10, level: "II", severity: "normal", sampleSize: 1, hundredPercent: false, byDefectSeverity: {}, switchingReason: "Browser test." };
+const PLAN = fixturePlan(1, { lotSize: 10, switchingReason: "Browser test." });
 
 export async function createGradableUnit(leadEmail: string) {
   const client = new pg.Client({ connectionString: process.env.DATABASE_URL });

@@ -5,6 +5,7 @@
 import crypto from "node:crypto";
 import pg from "pg";
 import sharp from "sharp";
+import { fixturePlan } from "./db";
 import { asCameraJpeg } from "@/db/seed/photo-art";
 
 let pool: pg.Pool | null = null;
@@ -27,7 +28,7 @@ export async function createPhotoBenchUnit(): Promise<string> {
     [ws[0].id, `e2e-photo-${t}`, `E2E camera module ${t}`, JSON.stringify(E2E_VIEWS)],
   );
   const { rows: sup } = await db().query("INSERT INTO suppliers (workspace_id, name, contact_email) VALUES ($1, $2, 'e2e@supplier.example') RETURNING id", [ws[0].id, `E2E photo supplier ${t}`]);
-  const plan = { standard: "ISO 2859-1 single sampling", lotSize: 1, level: "II", severity: "normal", sampleSize: 1, hundredPercent: true, byDefectSeverity: {}, switchingReason: "e2e fixture" };
+  const plan = fixturePlan(1);
   const { rows: lot } = await db().query(
     `INSERT INTO lots (workspace_id, supplier_id, part_type_id, purchase_ref, quantity, received_on, due_on, inspection_level, aql_major, aql_minor, inspection_severity, plan, created_by)
      VALUES ($1, $2, $3, $4, 1, '2026-11-30', '2099-12-31', 'II', 1, 2.5, 'normal', $5, $6) RETURNING id, created_at`,

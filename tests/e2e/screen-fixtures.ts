@@ -6,7 +6,7 @@
  */
 import crypto from "node:crypto";
 import sharp from "sharp";
-import { testDb } from "./db";
+import { fixturePlan, testDb } from "./db";
 
 const VIEWS = [{ key: "screen-white", label: "White screen", required: true, zones: [{ id: "screen-active", label: "Screen active", polygon: [[0.04, 0.03], [0.96, 0.03], [0.96, 0.97], [0.04, 0.97]] }] }];
 const DEFECTS = [
@@ -27,7 +27,7 @@ export async function createScreenBenchUnit(holderEmail = "inspector@vellmoor.ex
     [ws, `e2e-screen-${t}`, `E2E screen ${t}`, JSON.stringify(VIEWS), JSON.stringify(DEFECTS)],
   );
   const supplier = await one<{ id: string }>("INSERT INTO suppliers (workspace_id, name, contact_email) VALUES ($1, $2, 'screen@supplier.example') RETURNING id", [ws, `E2E screen supplier ${t}`]);
-  const plan = { standard: "ISO 2859-1 single sampling", lotSize: 1, level: "II", severity: "normal", sampleSize: 1, hundredPercent: true, byDefectSeverity: {}, switchingReason: "e2e fixture" };
+  const plan = fixturePlan(1);
   const lot = await one<{ id: string; created_at: Date }>(
     `INSERT INTO lots (workspace_id, supplier_id, part_type_id, purchase_ref, quantity, received_on, due_on, inspection_level, aql_major, aql_minor, inspection_severity, plan, created_by)
      VALUES ($1, $2, $3, $4, 1, '2026-11-30', '2099-12-31', 'II', 1, 2.5, 'normal', $5, $6) RETURNING id, created_at`,

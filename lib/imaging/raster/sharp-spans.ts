@@ -10,7 +10,7 @@
  * for the few pieces the image border cuts. Tiles are padded by 2 px so shapes in neighbouring
  * tiles stay >= 3 px apart and never interact.
  *
- * Pixel rule (measured against the exact pixel-centre rasteriser in tests/unit/imaging): cairo's
+ * Pixel rule (measured against the exact pixel-centre rasteriser in tests/unit/imaging/raster): cairo's
  * non-antialiased fill covers a pixel when its centre lies in the shape, except that coordinates
  * are snapped to 1/256 px, round caps and joins are flattened to within 0.1 px (spots are drawn
  * as equal-area polygons instead, see equalAreaCircle), and where two edges of one shape come

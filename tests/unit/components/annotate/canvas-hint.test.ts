@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { canvasHint } from "@/components/annotate/canvas-hint";
 import { TOOLS } from "@/lib/annotate/tools";
-import { makeState, withTool } from "../annotate/helpers";
+import { makeState, withTool } from "../../annotate/helpers";
 
 const words = (text: string) => text.toLowerCase().split(/[^a-z]+/).filter((w) => w.length >= 6);
 

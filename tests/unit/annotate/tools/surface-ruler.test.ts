@@ -3,7 +3,7 @@ import { redo, undo } from "@/lib/annotate/history";
 import { setRulerLength, setViewport } from "@/lib/annotate/model";
 import { draftHint } from "@/lib/annotate/tools";
 import { rulerPxPerMm } from "@/lib/geometry/ruler";
-import { dragSteps, drive, makeState, only, withTool } from "./helpers";
+import { dragSteps, drive, makeState, only, withTool } from "../helpers";
 
 describe("Surface tool", () => {
   it("draws the part outline as a surface region without a class", () => {

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { DEFAULT_SPOT_RADIUS_PX, MIN_SPOT_RADIUS } from "@/lib/annotate/constants";
 import { setViewport } from "@/lib/annotate/model";
-import { dragSteps, drive, makeState, only, withTool } from "./helpers";
+import { dragSteps, drive, makeState, only, withTool } from "../helpers";
 
 const spotState = (scale = 1) => setViewport(withTool(makeState(), "spot"), { scale, offsetX: 0, offsetY: 0 });
 

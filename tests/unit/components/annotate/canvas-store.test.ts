@@ -4,7 +4,7 @@ import { imagePoint } from "@/lib/annotate/coords";
 import { setViewport } from "@/lib/annotate/model";
 import { activateTool, pointerDown, pointerMove } from "@/lib/annotate/tools";
 import { NO_MODIFIERS } from "@/lib/annotate/types";
-import { makeState } from "../annotate/helpers";
+import { makeState } from "../../annotate/helpers";
 
 const storeOf = (state = makeState()): CanvasStore => ({ state, pressBase: null });
 

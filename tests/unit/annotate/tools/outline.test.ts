@@ -5,7 +5,7 @@ import { draftHint } from "@/lib/annotate/tools";
 import { distanceToPolyline } from "@/lib/geometry/distance";
 import { MAX_POINTS_PER_SHAPE } from "@/lib/geometry/limits";
 import type { Point } from "@/lib/geometry/shape";
-import { drive, makeState, only, withTool } from "./helpers";
+import { drive, makeState, only, withTool } from "../helpers";
 
 const outlineState = () => withTool(makeState(), "outline");
 const triangleClicks = [["click", 100, 100], ["click", 200, 100], ["click", 150, 180]] as const;

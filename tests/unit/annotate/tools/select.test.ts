@@ -3,7 +3,7 @@ import { undo } from "@/lib/annotate/history";
 import { handlesOf } from "@/lib/annotate/hit-test";
 import * as model from "@/lib/annotate/model";
 import type { AnnotationState, Region } from "@/lib/annotate/types";
-import { dragSteps, drive, makeState } from "./helpers";
+import { dragSteps, drive, makeState } from "../helpers";
 
 const box: Region = { id: "b1", role: "defect", defect: "dent", shape: { kind: "rect", x: 100, y: 100, width: 200, height: 100 } };
 const dust: Region = { id: "d1", role: "defect", defect: "dead-pixel", shape: { kind: "spot", x: 150, y: 150, radius: 4 } };

@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { selectRegion } from "@/lib/annotate/model";
 import { activateTool, handleKey, shortcutSheet, TOOLS } from "@/lib/annotate/tools";
 import type { Region } from "@/lib/annotate/types";
-import { dragSteps, drive, makeState } from "./helpers";
+import { dragSteps, drive, makeState } from "../helpers";
 
 const key = (k: string, mods: Partial<{ shift: boolean; alt: boolean; mod: boolean }> = {}) => ({ key: k, shift: false, alt: false, mod: false, ...mods });
 const box: Region = { id: "b1", role: "defect", defect: "dent", shape: { kind: "rect", x: 10, y: 10, width: 50, height: 50 } };

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { handChanged } from "@/components/annotate/hand";
-import { makeState, withTool } from "../annotate/helpers";
+import { makeState, withTool } from "../../annotate/helpers";
 
 describe("the hand a canvas reports in the event itself", () => {
   it("is the new tool and class when either changed, else nothing", () => {

@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { undo } from "@/lib/annotate/history";
 import { setViewport } from "@/lib/annotate/model";
 import { activateTool } from "@/lib/annotate/tools";
-import { dragSteps, drive, makeState, only, withTool } from "./helpers";
+import { dragSteps, drive, makeState, only, withTool } from "../helpers";
 
 const boxState = () => withTool(makeState(), "box");
 

@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { DEFAULT_LINE_WIDTH, LINE_WIDTH_STEPS, stepAlongLadder } from "@/lib/annotate/constants";
 import { draftHint } from "@/lib/annotate/tools";
 import type { LineShape } from "@/lib/geometry/shape";
-import { dragSteps, drive, makeState, only, withTool } from "./helpers";
+import { dragSteps, drive, makeState, only, withTool } from "../helpers";
 
 const lineState = () => withTool(makeState(), "line");
 

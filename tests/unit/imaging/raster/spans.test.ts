@@ -2,7 +2,7 @@
  * The rasterisers and the span algebra behind measureCoverage, checked against brute force.
  * These are internal-consistency checks of our own documented pixel rule (no outside source is
  * needed to say whether code follows its own definition); the outside-world checks are in
- * coverage.test.ts (closed-form geometry) and coverage-reference.test.ts (polygon-clipping).
+ * ../coverage.test.ts (closed-form geometry) and ../coverage-reference.test.ts (polygon-clipping).
  */
 import { describe, expect, it } from "vitest";
 import type { Point, Shape } from "@/lib/geometry/shape";
