@@ -59,6 +59,17 @@ export default defineConfig([
     rules: { "@typescript-eslint/no-restricted-imports": "off" },
   },
   {
+    // Benchmarks and the shared support/ folder (PRNG, synthetic photos, exact areas) never reach
+    // into tests/: what both need lives in support/ (DEVELOPERS.md, "Tests").
+    files: ["bench/**", "support/**"],
+    rules: {
+      "no-restricted-imports": [
+        "error",
+        { patterns: [{ regex: "^(@/|(\\.\\.?/)+)tests(/|$)", message: "bench/ and support/ do not import tests/: move what both need to support/." }] },
+      ],
+    },
+  },
+  {
     files: ["db/**"],
     ignores: ["db/seed/**", "db/seed.ts"],
     rules: { "@typescript-eslint/no-restricted-imports": dbUsesLibTypesOnly },

@@ -8,7 +8,7 @@
 import type { Point, Shape } from "@/lib/geometry/shape";
 import type { ComparedRegion, RegionSetComparisonInput } from "@/lib/imaging/compare-regions";
 import type { CoverageInput } from "@/lib/measure/types";
-import { mulberry32 as seededRandom } from "@/tests/support/prng";
+import { mulberry32 as seededRandom } from "@/support/prng";
 
 export const WIDTH = 4000;
 export const HEIGHT = 3000;

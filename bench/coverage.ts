@@ -15,7 +15,7 @@ import sharp from "sharp";
 import type { Shape } from "@/lib/geometry/shape";
 import type { CoverageInput } from "@/lib/measure/types";
 import { measureCoverage } from "@/lib/imaging/coverage";
-import { exactUnion, multiPolygonArea, polygonClipping } from "@/tests/support/exact-areas";
+import { exactUnion, multiPolygonArea, polygonClipping } from "@/support/exact-areas";
 import { buildPhotoScene, HEIGHT, WIDTH } from "@/bench/_photo-scene";
 
 const RUNS = 21;

@@ -24,7 +24,7 @@ import { MEASURE_INLINE_BUDGET_MS, MEASURE_JOB_BUDGET_MS } from "@/lib/grading/s
 import { measureCoverage } from "@/lib/imaging/coverage";
 import { rasterRows } from "@/lib/imaging/raster/cost";
 import type { CoverageInput } from "@/lib/measure/types";
-import { mulberry32 } from "@/tests/support/prng";
+import { mulberry32 } from "@/support/prng";
 
 const WIDTH = 4000;
 const HEIGHT = 3000;

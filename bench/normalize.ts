@@ -18,7 +18,7 @@ import { availableParallelism, tmpdir } from "node:os";
 import { join } from "node:path";
 import sharp from "sharp";
 import { configureSharpForWorker, normalizePhoto } from "@/lib/imaging/normalize";
-import { makePhotoLikeJpeg } from "@/tests/support/fixtures/make-photos";
+import { makePhotoLikeJpeg } from "@/support/fixtures/make-photos";
 
 const TIMED_RUNS = 11;
 // The first call loads the codecs; the next few grow the allocator's heap to a photo's working set

@@ -10,7 +10,7 @@
 import sharp from "sharp";
 import type { Point } from "@/lib/geometry/shape";
 import { suggestPixelCandidates, type PixelCandidateOptions } from "@/lib/imaging/pixel-candidates";
-import { mulberry32 as prng } from "@/tests/support/prng";
+import { mulberry32 as prng } from "@/support/prng";
 
 type Rect = { x0: number; y0: number; x1: number; y1: number };
 

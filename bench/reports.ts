@@ -19,8 +19,8 @@ import { renderCertificatePdf } from "@/lib/reports/certificate-pdf";
 import { csvStream, type CsvColumn } from "@/lib/reports/csv-stream";
 import { renderLotReportPdf } from "@/lib/reports/lot-report-pdf";
 import type { Shape } from "@/lib/geometry/shape";
-import { makePhotoLikeJpeg } from "@/tests/support/fixtures/make-photos";
-import { certificateFixture, lotReportFixture, REPORT_CLASSES } from "@/tests/support/fixtures/report-data";
+import { makePhotoLikeJpeg } from "@/support/fixtures/make-photos";
+import { certificateFixture, lotReportFixture, REPORT_CLASSES } from "@/support/fixtures/report-data";
 
 const mb = (bytes: number) => `${(bytes / (1024 * 1024)).toFixed(1)} MB`;
 const ms = (value: number) => `${value.toFixed(0)} ms`;

@@ -28,7 +28,7 @@ import { multiRaterAgreement } from "@/lib/recheck/team";
 import { gradeDistribution, type GradeCountRow } from "@/lib/reports/grade-distribution";
 import { supplierScorecards, type SupplierLotRow } from "@/lib/reports/supplier-scorecard";
 import { inspectorThroughput, type ThroughputRow } from "@/lib/reports/throughput";
-import { mulberry32 } from "@/tests/support/prng";
+import { mulberry32 } from "@/support/prng";
 
 const RUNS = 7;
 const DAY_MS = 86_400_000;

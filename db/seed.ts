@@ -4,6 +4,7 @@
  */
 import { sql } from "drizzle-orm";
 import { closeDb, db } from "./client";
+import { seedGallery } from "./seed/gallery";
 import { seedLots } from "./seed/lots";
 import { seedPartTypes } from "./seed/part-types";
 import { seedPeople } from "./seed/people";
@@ -25,7 +26,9 @@ export async function seedDemo() {
   const rubrics = await seedRubrics(db());
   // Last: photographs the units the steps above created, through the upload pipeline.
   const photos = await seedPhotos();
-  return { seeded: true as const, people, partTypes, lots, rubrics, photos };
+  // Needs the published rubrics (each example's grade is what its rubric says of its regions).
+  const gallery = await seedGallery();
+  return { seeded: true as const, people, partTypes, lots, rubrics, photos, gallery };
 }
 
 if (import.meta.url === `file://${process.argv[1]}`) {

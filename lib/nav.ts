@@ -17,7 +17,7 @@ export type Screen = {
 export const SCREENS: readonly Screen[] = [
   { href: "/queue", label: "Queue", permission: "queue.work", status: "ready", summary: "Take the next unit that matters most, with a lease so no one else gets it." },
   { href: "/lots", label: "Lots", permission: "lots.read", status: "ready", summary: "Lots received from suppliers, their sampling plans, verdicts and dispositions." },
-  { href: "/gallery", label: "Gallery", permission: "gallery.read", status: "planned", summary: "Reference examples of normal and abnormal parts per part type and defect class." },
+  { href: "/gallery", label: "Gallery", permission: "gallery.read", status: "ready", summary: "Reference examples of normal and abnormal parts per part type and defect class." },
   { href: "/calibration", label: "Calibration", permission: "calibration.read", status: "planned", summary: "Calibration sets that graders grade, scored against the key." },
   { href: "/recheck", label: "Recheck", permission: "recheck.perform", status: "planned", summary: "Blind re-grading of sampled units, agreement figures and adjudication." },
   { href: "/rubrics", label: "Rubrics", permission: "rubrics.review", status: "ready", summary: "Versioned grading rules per part type: drafts, publication, differences." },

@@ -1,13 +1,13 @@
 /**
  * The UI benchmark's scene: a generated 4000 × 3000 photo (sharp, an invented part on a light
  * card) and 1 000 defect regions of the four kinds — boxes, outlines, lines and spots — spread
- * over the whole photo, the same on every run (seeded mulberry32 from tests/support/prng.ts).
+ * over the whole photo, the same on every run (seeded mulberry32 from support/prng.ts).
  * Sizes are in original pixels and stay inside the photo, as the save validation requires.
  */
 import sharp from "sharp";
 import type { RegionSetPayload } from "@/lib/geometry/validate";
 import type { Point, Shape } from "@/lib/geometry/shape";
-import { mulberry32 } from "../../tests/support/prng";
+import { mulberry32 } from "../../support/prng";
 
 export const PHOTO = { width: 4000, height: 3000 } as const;
 export const REGION_COUNT = 1_000;

@@ -3,6 +3,10 @@
 import { useQuery, useQueryClient } from "@tanstack/react-query";
 import { useMemo, useState } from "react";
 import type { AllowedDefect } from "@/components/annotate/types";
+import { AddToGallery } from "@/components/gallery/add-to-gallery";
+import { ReferencePanel, type ReferenceChoice } from "@/components/gallery/reference-panel";
+import { ReferenceViewer } from "@/components/gallery/reference-viewer";
+import type { GalleryCardDto } from "@/lib/gallery/dto";
 import { GradeBadge } from "@/components/grading/grade-badge";
 import { GradeHistory } from "@/components/grading/grade-history";
 import { GradePanel, type MeasurementLabels } from "@/components/grading/grade-panel";
@@ -42,6 +46,8 @@ type BenchWorkspaceProps = {
   partType: BenchPartType;
   rubricVersions: { version: number; status: "draft" | "published" }[];
   initialPhotoId: string | null;
+  /** May add a graded unit's photo to the Gallery (trainers and leads). */
+  canPromote: boolean;
 };
 
 const BANNER_TONE = { held: "border-signal-500 bg-signal-50 text-signal-700", closed: "border-gauge-300 bg-gauge-50 text-gauge-800", "view-only": "border-gauge-300 bg-gauge-50 text-gauge-800" } as const;
@@ -53,7 +59,7 @@ const BANNER_TONE = { held: "border-signal-500 bg-signal-50 text-signal-700", cl
  * photos) in a column that folds. Landscape screens put the panels beside the canvas, portrait
  * ones below it. Owns the selected photo and the tool in hand; the panels own their own data.
  */
-export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersions, initialPhotoId }: BenchWorkspaceProps) {
+export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersions, initialPhotoId, canPromote }: BenchWorkspaceProps) {
   const unitId = initial.unit.id;
   const queryClient = useQueryClient();
   const { data: view } = useUnit(unitId, initial);
@@ -63,6 +69,8 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
   const [statusSlot, setStatusSlot] = useState<HTMLElement | null>(null);
   const [uploadOpen, setUploadOpen] = useState<boolean | null>(null);
   const [panels, setPanels] = usePanelState();
+  const [referenceChoice, setReferenceChoice] = useState<ReferenceChoice>("hand");
+  const [reference, setReference] = useState<GalleryCardDto | null>(null);
   const { photos, selected, select, registry, unsaved, switched } = useBenchPhotos({ unitId, initialPhotoId, keyArea: markingArea });
   const grades = useQuery({ queryKey: unitKeys.grades(unitId), queryFn: () => apiFetch<{ grades: GradeView[] }>(`/api/units/${unitId}/grades`) });
 
@@ -78,10 +86,14 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
     [partType, views],
   );
   const selectedView = selected ? partType.views.find((v) => v.key === selected.viewKey) : undefined;
+  const classLabels = labels.defects;
+  // A reference belongs to a view: switching to a photo of another view puts it away.
+  const shownReference = reference && selected && reference.viewKey === selected.viewKey ? reference : null;
   const canUpload = unitLock(view, me, "upload") === null;
   const canManagePhotos = unitLock(view, me, "photos") === null;
   const gradeLock = unitLock(view, me, "grade");
   const noPhotos = photos.isSuccess && photos.data.photos.length === 0;
+  const graded = view.unit.status === "graded" || view.unit.status === "in_recheck" || view.unit.status === "final";
   // A unit without photos opens with the uploader where the canvas will be; later it opens over the
   // canvas on demand. Decided once, when the photos first load, so the uploader does not close under
   // the inspector when the first upload turns into a photo.
@@ -106,6 +118,26 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
             {!selected && <p className="text-sm text-gauge-700">Regions are marked on a photo; open one from the strip.</p>}
           </div>
         </div>
+      ),
+    },
+    {
+      id: "references",
+      title: "Reference examples",
+      summary: shownReference ? "one open beside the photo" : undefined,
+      content: selected ? (
+        <ReferencePanel
+          partTypeId={view.partType.id}
+          viewKey={selected.viewKey}
+          viewLabel={selectedView?.label ?? selected.viewKey}
+          classInHand={hand.defect}
+          classes={partType.defectClasses}
+          choice={referenceChoice}
+          onChoice={setReferenceChoice}
+          openId={shownReference?.id ?? null}
+          onOpen={(item) => setReference((open) => (open?.id === item.id ? null : item))}
+        />
+      ) : (
+        <p className="text-sm text-gauge-700">Open a photo: the examples shown are those of its view.</p>
       ),
     },
     { id: "checklist", title: "Functional checklist", summary: checklistSummary(view), content: <ChecklistPanel initial={initial} me={me} framed={false} /> },
@@ -174,6 +206,7 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
                 {photos.isPending ? "Loading photos…" : "No processed photo yet. Add photos of the required views; each opens here for marking once it is ready."}
               </p>
             )}
+            {shownReference && <ReferenceViewer item={shownReference} classLabels={classLabels} classKeys={classKeys} onClose={() => setReference(null)} />}
             {canUpload && (
               // Hidden, not unmounted, so uploads in flight carry on while the uploader is out of the way.
               <div id="bench-uploader" hidden={!uploaderShown} className="absolute inset-0 z-20 overflow-y-auto rounded-lg border border-gauge-200 bg-white p-4 shadow-lg">
@@ -202,6 +235,7 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
                     </button>
                   </div>
                 )}
+                {canPromote && graded && selected && <AddToGallery key={selected.id} photoId={selected.id} />}
                 <div ref={setStatusSlot} className="text-xs" />
               </div>
             }

@@ -3,14 +3,14 @@
 import { useCallback, useMemo, useSyncExternalStore, type ReactNode } from "react";
 import { Glyph } from "@/components/annotate/tool-glyphs";
 
-export type PanelId = "regions" | "checklist" | "grade" | "photos";
+export type PanelId = "regions" | "references" | "checklist" | "grade" | "photos";
 
 export type PanelSection = { id: PanelId; title: string; summary?: ReactNode; content: ReactNode };
 
 type PanelState = { folded: boolean; closed: PanelId[] };
 
 const STORAGE_KEY = "partproof.bench.panels";
-const DEFAULT_STATE: PanelState = { folded: false, closed: ["photos"] };
+const DEFAULT_STATE: PanelState = { folded: false, closed: ["references", "photos"] };
 
 function parsePanelState(raw: string | null): PanelState {
   try {
@@ -48,7 +48,7 @@ export function usePanelState(): [PanelState, (change: (s: PanelState) => PanelS
 }
 
 /**
- * The Bench's side column: regions, checklist, measurement and grade, photos — each folds on its
+ * The Bench's side column: regions, reference examples, checklist, measurement and grade, photos — each folds on its
  * header, and the whole column folds away so the photo gets the room: to a narrow strip of
  * section buttons beside it (landscape), or to one row of them under it (portrait, where that row
  * is always there and jumps to a section, since the panels below the photo are short). Panels

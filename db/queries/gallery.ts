@@ -6,7 +6,7 @@ import "server-only";
  */
 import { and, desc, eq, inArray, isNull, lt, or, sql, type SQL } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
-import { db, type DbOrTx } from "@/db/client";
+import { db, executePrepared, type DbOrTx } from "@/db/client";
 import { galleryItems, grades, lots, partTypes, photos, rubricVersions, units, users, type NewGalleryItemRow } from "@/db/schema";
 import type { GalleryKind, GalleryStatus } from "@/lib/gallery/rules";
 import type { Grade } from "@/lib/grading/rubric-schema";
@@ -112,29 +112,84 @@ export type GalleryListFilters = {
 };
 export type GalleryListKey = { createdAt: string; id: string };
 
-/** created_at to the microsecond as ISO text: a JS Date keeps only milliseconds, and a cursor must not skip rows. */
-const createdAtText = sql<string>`to_char(${galleryItems.createdAt} AT TIME ZONE 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.US"Z"')`;
+/** A status as a literal: a generic plan cannot read a parameter's value, and these are fixed words. */
+const STATUS_LITERALS: Record<GalleryStatus, SQL> = { draft: sql.raw("'draft'"), published: sql.raw("'published'"), retired: sql.raw("'retired'") };
 
-/** A page of items, newest first; `after` is the last row of the previous page (keyset). One extra row tells whether more follow. */
-export function listGalleryItems({ workspaceId, filters, after, limit }: { workspaceId: string; filters: GalleryListFilters; after?: GalleryListKey; limit: number }) {
-  const where: (SQL | undefined)[] = [eq(galleryItems.workspaceId, workspaceId), inArray(galleryItems.status, [...filters.statuses])];
-  if (filters.partTypeId) where.push(eq(galleryItems.partTypeId, filters.partTypeId));
-  if (filters.viewKey) where.push(eq(galleryItems.viewKey, filters.viewKey));
-  if (filters.kind) where.push(eq(galleryItems.kind, filters.kind));
-  if (filters.grade) where.push(eq(galleryItems.grade, filters.grade));
-  if (filters.defectClass) where.push(sql`${galleryItems.defectClasses} @> ARRAY[${filters.defectClass}]::text[]`);
-  if (after) {
-    const at = sql`${after.createdAt}::timestamptz`;
-    where.push(or(sql`${galleryItems.createdAt} < ${at}`, and(sql`${galleryItems.createdAt} = ${at}`, lt(galleryItems.id, after.id))));
-  }
-  return db()
-    .select({ ...cardColumns, cursorAt: createdAtText })
-    .from(galleryItems)
-    .innerJoin(photos, and(eq(photos.workspaceId, galleryItems.workspaceId), eq(photos.id, galleryItems.photoId)))
-    .innerJoin(partTypes, and(eq(partTypes.workspaceId, galleryItems.workspaceId), eq(partTypes.id, galleryItems.partTypeId)))
-    .where(and(...where))
-    .orderBy(desc(galleryItems.createdAt), desc(galleryItems.id))
-    .limit(limit + 1);
+type ListRow = {
+  id: string;
+  status: GalleryStatus;
+  kind: GalleryKind;
+  part_type_id: string;
+  part_type_name: string;
+  view_key: string;
+  grade: Grade;
+  defect_classes: string[];
+  caption: string;
+  regions: GalleryCardRow["regions"];
+  revision: number;
+  created_at: Date;
+  updated_at: Date;
+  /** created_at to the microsecond as ISO text: a JS Date keeps only milliseconds, and a cursor must not skip rows. */
+  cursor_at: string;
+  photo_id: string;
+  photo_status: GalleryCardRow["photo"]["status"];
+  width: number | null;
+  height: number | null;
+  preview_width: number | null;
+  preview_height: number | null;
+  thumbnail_width: number | null;
+  thumbnail_height: number | null;
+};
+
+/**
+ * A page of items, newest first; `after` is the last row of the previous page (keyset). One extra
+ * row tells whether more follow. The hot read of the Gallery, so a prepared statement (planned
+ * once per connection, see executePrepared) of the queue list's shape: the page is cut from
+ * gallery_items alone by walking gallery_items_list_idx in its order — the keyset a row
+ * comparison, an index condition; the ORDER BY with the index's NULLS LAST, or PostgreSQL sorts
+ * every item of the workspace for each page — and only those rows are joined.
+ */
+export async function listGalleryItems({ workspaceId, filters, after, limit }: { workspaceId: string; filters: GalleryListFilters; after?: GalleryListKey; limit: number }) {
+  const statuses = sql.join(filters.statuses.map((s) => STATUS_LITERALS[s]), sql`, `);
+  const conditions = [
+    filters.partTypeId ? sql`AND g.part_type_id = ${filters.partTypeId}::uuid` : sql``,
+    filters.viewKey ? sql`AND g.view_key = ${filters.viewKey}` : sql``,
+    filters.kind ? sql`AND g.kind = ${filters.kind}` : sql``,
+    filters.grade ? sql`AND g.grade = ${filters.grade}` : sql``,
+    filters.defectClass ? sql`AND g.defect_classes @> ARRAY[${filters.defectClass}]::text[]` : sql``,
+    after ? sql`AND (g.created_at, g.id) < (${after.createdAt}::timestamptz, ${after.id}::uuid)` : sql``,
+  ];
+  const { rows } = await executePrepared<ListRow>(sql`
+    WITH page AS MATERIALIZED (
+      SELECT g.* FROM gallery_items g
+      WHERE g.workspace_id = ${workspaceId}::uuid AND g.status IN (${statuses}) ${sql.join(conditions, sql` `)}
+      ORDER BY g.created_at DESC NULLS LAST, g.id DESC NULLS LAST
+      LIMIT ${limit + 1}
+    )
+    SELECT g.id, g.status, g.kind, g.part_type_id, pt.name AS part_type_name, g.view_key, g.grade, g.defect_classes, g.caption, g.regions,
+           g.revision, g.created_at, g.updated_at, to_char(g.created_at AT TIME ZONE 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.US"Z"') AS cursor_at,
+           p.id AS photo_id, p.status AS photo_status, p.width, p.height, p.preview_width, p.preview_height, p.thumbnail_width, p.thumbnail_height
+    FROM page g
+    JOIN photos p ON p.workspace_id = g.workspace_id AND p.id = g.photo_id
+    JOIN part_types pt ON pt.workspace_id = g.workspace_id AND pt.id = g.part_type_id
+    ORDER BY g.created_at DESC NULLS LAST, g.id DESC NULLS LAST`);
+  return rows.map((r) => ({
+    id: r.id,
+    status: r.status,
+    kind: r.kind,
+    partTypeId: r.part_type_id,
+    partTypeName: r.part_type_name,
+    viewKey: r.view_key,
+    grade: r.grade,
+    defectClasses: r.defect_classes,
+    caption: r.caption,
+    regions: r.regions,
+    revision: r.revision,
+    createdAt: r.created_at,
+    updatedAt: r.updated_at,
+    cursorAt: r.cursor_at,
+    photo: { id: r.photo_id, status: r.photo_status, width: r.width, height: r.height, previewWidth: r.preview_width, previewHeight: r.preview_height, thumbnailWidth: r.thumbnail_width, thumbnailHeight: r.thumbnail_height },
+  })) satisfies (GalleryCardRow & { cursorAt: string })[];
 }
 
 /**
@@ -259,4 +314,23 @@ export async function deleteUnusedGalleryPhoto(tx: DbOrTx, { workspaceId, photoI
     )
     .returning({ originalKey: photos.originalKey, previewKey: photos.previewKey, thumbnailKey: photos.thumbnailKey });
   return row ?? null;
+}
+
+/** Recently graded units (with their current grade), newest grade first: where trainers find photos to promote. */
+export function listRecentlyGradedUnits({ workspaceId, limit }: { workspaceId: string; limit: number }) {
+  const latest = db()
+    .selectDistinctOn([grades.unitId], { unitId: grades.unitId, finalGrade: grades.finalGrade, gradedAt: grades.createdAt })
+    .from(grades)
+    .where(eq(grades.workspaceId, workspaceId))
+    .orderBy(grades.unitId, desc(grades.createdAt), desc(grades.id))
+    .as("latest_grade");
+  return db()
+    .select({ id: units.id, serial: units.serial, sampleIndex: units.sampleIndex, purchaseRef: lots.purchaseRef, partTypeName: partTypes.name, grade: latest.finalGrade, gradedAt: latest.gradedAt })
+    .from(units)
+    .innerJoin(latest, eq(latest.unitId, units.id))
+    .innerJoin(lots, eq(lots.id, units.lotId))
+    .innerJoin(partTypes, eq(partTypes.id, units.partTypeId))
+    .where(and(eq(units.workspaceId, workspaceId), inArray(units.status, ["graded", "in_recheck", "final"])))
+    .orderBy(desc(latest.gradedAt))
+    .limit(limit);
 }

@@ -50,10 +50,11 @@ export const PERMISSIONS = {
    * A unit's inspection work: its photos' details, regions, measurements, proposals, grades and
    * the Bench that shows them. Not auditors: a blind recheck must not see the first grader's
    * regions, grade, override reason or name; they will see graded work on the Recheck screens,
-   * after their own grade. Not trainers yet: nothing they do today reads a real unit (the Rubrics
-   * preview grades typed sample readings); the Gallery may add them.
+   * after their own grade. Trainers read it (view only): they promote a graded unit's photo into
+   * the Gallery from its Bench, so they must see its regions and grade; they are never blind
+   * re-checkers, and nothing they can do there changes a unit (no `units.record` or `regions.edit`).
    */
-  "inspection.read": { roles: ["inspector"], what: "read a unit's inspection work (the Bench)" },
+  "inspection.read": { roles: ["inspector", "trainer"], what: "read a unit's inspection work (the Bench)" },
   /** Only the image bytes; the photo's details and regions are `inspection.read`. */
   "photos.view": { roles: EVERYONE, what: "see photo images (thumbnail, preview, original)" },
   "photos.capture": { roles: ["inspector"], what: "upload, retry and remove a unit's photos" },

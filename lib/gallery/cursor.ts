@@ -19,3 +19,12 @@ export function decodeGalleryCursor(cursor: string): GalleryCursor {
     throw new AppError("bad_request", "The page link is not valid; start again from the first page.");
   }
 }
+
+export const isGalleryCursor = (cursor: string): boolean => {
+  try {
+    decodeGalleryCursor(cursor);
+    return true;
+  } catch {
+    return false;
+  }
+};

@@ -36,7 +36,7 @@ test("a screen outside the role shows the 403 page, and sign-out ends the sessio
 
 test("planned screens say they do nothing yet", async ({ page }) => {
   await signInAs(page, "inspector@vellmoor.example");
-  await page.goto("/gallery");
+  await page.goto("/calibration");
   await expect(page.getByTestId("planned-screen")).toContainText("Not available yet");
 });
 

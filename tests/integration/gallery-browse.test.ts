@@ -10,7 +10,7 @@ import { galleryItems, photos } from "@/db/schema";
 import type { GalleryCardDto, GalleryItemDto } from "@/lib/gallery/dto";
 import type { GalleryMeasurement } from "@/lib/gallery/measure";
 import { createUser, TEST_PASSWORD, uniqueEmail, workspaceBySlug } from "../support/db";
-import { makePhotoLikeJpeg } from "../support/fixtures/make-photos";
+import { makePhotoLikeJpeg } from "@/support/fixtures/make-photos";
 import { createGradedPhoto, insertItem, SCRATCHED } from "../support/gallery";
 import { api, signIn, type Session } from "../support/http";
 import { putToStore, testStore, type IntentBody } from "../support/photos";

@@ -16,7 +16,7 @@ import { stagingKey } from "@/lib/photos/object-keys";
 import { sweepOrphans } from "@/lib/photos/sweep";
 import { headObject, listObjects, putObject } from "@/lib/storage/s3";
 import { createUser, uniqueEmail, workspaceBySlug } from "../support/db";
-import { makePhotoLikeJpeg } from "../support/fixtures/make-photos";
+import { makePhotoLikeJpeg } from "@/support/fixtures/make-photos";
 import { createPhotoUnits, testStore } from "../support/photos";
 
 const HOUR = 3_600_000;

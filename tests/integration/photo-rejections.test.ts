@@ -1,13 +1,13 @@
 /**
  * Every kind of file photo intake refuses answers a clear 4xx and leaves nothing behind: no row
  * in photos and no object in the bucket (staging or accepted) for the unit. Fixtures are made at
- * test time (tests/support/fixtures/make-photos.ts).
+ * test time (support/fixtures/make-photos.ts).
  */
 import { beforeAll, describe, expect, it } from "vitest";
 import { canDecodeHeic } from "@/lib/imaging/normalize";
 import { signIn, type Session } from "../support/http";
 import { createUser, TEST_PASSWORD, uniqueEmail, workspaceBySlug } from "../support/db";
-import { garbleMiddle, makeFtypFile, makePhotoLikeJpeg, makePngBomb } from "../support/fixtures/make-photos";
+import { garbleMiddle, makeFtypFile, makePhotoLikeJpeg, makePngBomb } from "@/support/fixtures/make-photos";
 import { createPhotoUnits, photoRowsFor, storedKeysFor, uploadPhoto } from "../support/photos";
 
 const MiB = 1024 * 1024;

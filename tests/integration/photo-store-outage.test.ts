@@ -9,7 +9,7 @@ import sharp from "sharp";
 import { afterAll, beforeAll, expect, it } from "vitest";
 import { signIn, type Session } from "../support/http";
 import { createUser, TEST_PASSWORD, uniqueEmail, workspaceBySlug } from "../support/db";
-import { makePhotoLikeRaw } from "../support/fixtures/make-photos";
+import { makePhotoLikeRaw } from "@/support/fixtures/make-photos";
 import { createPhotoUnits, fetchBytes, finalise, objectStoreControl, photoRowsFor, putToStore, requestUpload, storedKeysFor, uploadPhoto, waitForPhoto, type IntentBody, type PhotoJson } from "../support/photos";
 
 const sha256 = (bytes: Buffer) => createHash("sha256").update(bytes).digest("hex");

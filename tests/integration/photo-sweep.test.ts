@@ -12,7 +12,7 @@ import { sweepOrphans } from "@/lib/photos/sweep";
 import { headObject, putObject } from "@/lib/storage/s3";
 import { api, signIn, type Session } from "../support/http";
 import { createUser, TEST_PASSWORD, uniqueEmail, workspaceBySlug } from "../support/db";
-import { makePhotoLikeJpeg } from "../support/fixtures/make-photos";
+import { makePhotoLikeJpeg } from "@/support/fixtures/make-photos";
 import { createPhotoUnits, photoRowsFor, putToStore, requestUpload, storedKeysFor, testStore, uploadPhoto, waitForPhoto } from "../support/photos";
 
 const HOUR = 3_600_000;

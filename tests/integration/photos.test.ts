@@ -10,7 +10,7 @@ import { db } from "@/db/client";
 import { photos, units } from "@/db/schema";
 import { api, signIn, type Session } from "../support/http";
 import { createUser, TEST_PASSWORD, uniqueEmail, workspaceBySlug } from "../support/db";
-import { makePhotoLikeJpeg } from "../support/fixtures/make-photos";
+import { makePhotoLikeJpeg } from "@/support/fixtures/make-photos";
 import { createPhotoUnits, fetchBytes, finalise, photoRowsFor, putToStore, requestUpload, storedKeysFor, uploadPhoto, waitForPhoto, type PhotoJson } from "../support/photos";
 
 let inspector: Session;
@@ -141,10 +141,12 @@ describe("an accepted photo", () => {
     expect(list.body.photos.find((p) => p.id === photo.id)?.possibleReuse).toBeNull();
   });
 
-  it("the photo list and details (with the uploader) are inspection work; the images are for every role; only inspectors and leads upload", async () => {
+  it("the photo list and details (with the uploader) are inspection work, which trainers read and auditors do not; the images are for every role; only inspectors and leads upload", async () => {
     for (const viewer of [trainer, auditor]) {
-      expect((await api(viewer, "GET", `/api/units/${unitA}/photos`)).status).toBe(403);
-      expect((await api(viewer, "GET", `/api/photos/${photo.id}`)).status).toBe(403);
+      // Trainers read inspection work (view only) to promote graded photos into the Gallery; auditors stay blind.
+      const expected = viewer === trainer ? 200 : 403;
+      expect((await api(viewer, "GET", `/api/units/${unitA}/photos`)).status).toBe(expected);
+      expect((await api(viewer, "GET", `/api/photos/${photo.id}`)).status).toBe(expected);
       expect((await fetchBytes(viewer, photo.urls!.thumbnail)).status).toBe(200);
       expect((await requestUpload(viewer, unitA, { bytes: 1000 })).status).toBe(403);
     }

@@ -16,7 +16,7 @@
  */
 import { describe, expect, it } from "vitest";
 import { krippendorffAlpha, type AlphaMetric, type AlphaValue } from "@/lib/agreement";
-import { mulberry32 } from "@/tests/support/prng";
+import { mulberry32 } from "@/support/prng";
 
 const parseRow = (text: string) => text.split(" ").map((value) => (value === "." ? null : Number(value)));
 const round = (value: number, digits: number) => Number(value.toFixed(digits));

@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { distanceToPolyline } from "@/lib/geometry/distance";
 import type { Point } from "@/lib/geometry/shape";
 import { simplifyPolyline, simplifyRing, simplifyToLimit } from "@/lib/geometry/simplify";
-import { mulberry32 as random } from "@/tests/support/prng";
+import { mulberry32 as random } from "@/support/prng";
 
 
 function noisyStroke(n: number, seed = 7): Point[] {

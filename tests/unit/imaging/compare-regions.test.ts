@@ -7,7 +7,7 @@
  *       intersection 4, union 28, IoU 1/7, Dice 0.25 (a); "Areas and images": a rectangle with
  *       corners on pixel corners counts exactly its area (a).
  * PC    polygon-clipping 0.15.7 (npm, general-purpose exact polygon booleans) with shoelace areas
- *       (tests/support/exact-areas.ts); tolerance 1 % of the exact area, the coverage contract's
+ *       (support/exact-areas.ts); tolerance 1 % of the exact area, the coverage contract's
  *       accuracy target, and 0.01 on IoU.
  * RULE  the matching rule stated in lib/imaging/compare-regions.ts (our decision, c).
  */
@@ -18,8 +18,8 @@ import { AppError } from "@/lib/errors";
 import { measureCoverage } from "@/lib/imaging/coverage";
 import { compareRegionSets, type ComparedRegion, type RegionSetComparisonInput } from "@/lib/imaging/compare-regions";
 import type { RegionRaster } from "@/lib/imaging/raster/region-masks";
-import { exactUnion, multiPolygonArea, polygonClipping, starPolygon } from "@/tests/support/exact-areas";
-import { mulberry32 } from "@/tests/support/prng";
+import { exactUnion, multiPolygonArea, polygonClipping, starPolygon } from "@/support/exact-areas";
+import { mulberry32 } from "@/support/prng";
 
 const rect = (x: number, y: number, width: number, height: number): Shape => ({ kind: "rect", x, y, width, height });
 const region = (id: string, defect: string, shape: Shape): ComparedRegion => ({ id, defect, shape });

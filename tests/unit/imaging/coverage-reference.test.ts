@@ -11,8 +11,8 @@ import type { MultiPolygon } from "polygon-clipping";
 import type { Shape } from "@/lib/geometry/shape";
 import type { CoverageInput } from "@/lib/measure/types";
 import { measureCoverage, type CoverageOptions } from "@/lib/imaging/coverage";
-import { exactUnion, multiPolygonArea, polygonClipping, starPolygon } from "@/tests/support/exact-areas";
-import { mulberry32 as seededRandom } from "@/tests/support/prng";
+import { exactUnion, multiPolygonArea, polygonClipping, starPolygon } from "@/support/exact-areas";
+import { mulberry32 as seededRandom } from "@/support/prng";
 
 function referenceCoverage(input: CoverageInput) {
   const image = exactUnion([{ kind: "rect", x: 0, y: 0, width: input.width, height: input.height }]);

@@ -26,7 +26,7 @@ import {
   makePngBomb,
   seededRandom,
   type Rgb,
-} from "@/tests/support/fixtures/make-photos";
+} from "@/support/fixtures/make-photos";
 
 async function rejectionOf(input: Buffer): Promise<PhotoRejectedError> {
   const error = await normalizePhoto(input).then(

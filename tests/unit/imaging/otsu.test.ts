@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import sharp from "sharp";
 import { Image } from "image-js";
 import { greyscaleHistogram, histogramOfBytes, otsuSplit, otsuThreshold } from "@/lib/imaging/otsu";
-import { mulberry32 as prng } from "@/tests/support/prng";
+import { mulberry32 as prng } from "@/support/prng";
 
 
 function gaussian(random: () => number): number {

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import sharp from "sharp";
 import { suggestPixelCandidates, type PixelCandidate, type PixelCandidateResult } from "@/lib/imaging/pixel-candidates";
-import { mulberry32 as prng } from "@/tests/support/prng";
+import { mulberry32 as prng } from "@/support/prng";
 
 /*
  * Generated test screens. "Planted" faults are written into raw RGB before encoding; a planted

@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import sharp from "sharp";
 import type { Point } from "@/lib/geometry/shape";
 import { simplifyRing, suggestSurface, traceOuterBoundary } from "@/lib/imaging/suggest-surface";
-import { mulberry32 as prng } from "@/tests/support/prng";
+import { mulberry32 as prng } from "@/support/prng";
 
 /** Shoelace formula (a: the standard surveyor's area formula for a simple polygon). */
 function shoelace(points: Point[]): number {

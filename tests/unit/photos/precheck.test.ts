@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { canDecodeHeic, MAX_PHOTO_BYTES } from "@/lib/imaging/normalize";
 import { checkDeclaredUpload, checkStoredUpload } from "@/lib/photos/precheck";
-import { makeFtypFile, makePhotoLikeJpeg } from "@/tests/support/fixtures/make-photos";
+import { makeFtypFile, makePhotoLikeJpeg } from "@/support/fixtures/make-photos";
 
 const declared = (bytes: number, contentType = "image/jpeg") => checkDeclaredUpload({ bytes, contentType })?.code ?? null;
 

@@ -8,7 +8,7 @@ import { describe, expect, it } from "vitest";
 import { certificateHash, groupedHash } from "@/lib/reports/certificate-content";
 import { renderCertificatePdf } from "@/lib/reports/certificate-pdf";
 import { flatText, pdfText } from "@/tests/support/pdf-text";
-import { certificateFixture } from "@/tests/support/fixtures/report-data";
+import { certificateFixture } from "@/support/fixtures/report-data";
 
 const thumbnail = await sharp({ create: { width: 320, height: 240, channels: 3, background: { r: 120, g: 130, b: 140 } } }).jpeg().toBuffer();
 

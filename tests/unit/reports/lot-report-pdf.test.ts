@@ -9,7 +9,7 @@ import { renderAnnotatedPhoto } from "@/lib/imaging/annotated-photo";
 import { paretoRows } from "@/lib/reports/pareto";
 import { renderLotReportPdf } from "@/lib/reports/lot-report-pdf";
 import { flatText, pdfText } from "@/tests/support/pdf-text";
-import { lotReportFixture, PEOPLE, REPORT_CLASSES, SUPPLIER } from "@/tests/support/fixtures/report-data";
+import { lotReportFixture, PEOPLE, REPORT_CLASSES, SUPPLIER } from "@/support/fixtures/report-data";
 
 async function photo(i: number) {
   const image = await sharp({ create: { width: 640, height: 480, channels: 3, background: { r: 90 + i, g: 110, b: 120 } } }).jpeg().toBuffer();

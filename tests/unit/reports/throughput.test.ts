@@ -11,7 +11,7 @@
 import { median as d3Median } from "d3-array";
 import { describe, expect, it } from "vitest";
 import { inspectorThroughput, median, type ThroughputRow } from "@/lib/reports/throughput";
-import { mulberry32 } from "@/tests/support/prng";
+import { mulberry32 } from "@/support/prng";
 
 const row = (graderId: string, partTypeId: string, gradedAt: string, minutes: number | null, graderMinutes: number | null = minutes): ThroughputRow => ({ graderId, partTypeId, gradedAt, minutes, graderMinutes });
 

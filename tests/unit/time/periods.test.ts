@@ -11,7 +11,7 @@
 import { describe, expect, it } from "vitest";
 import { formatDate } from "@/lib/time/format";
 import { localDate, nextPeriod, parseDateKey, periodOf, periodOfDate, periodsBetween } from "@/lib/time/periods";
-import { mulberry32 } from "@/tests/support/prng";
+import { mulberry32 } from "@/support/prng";
 
 describe("localDate", () => {
   it("gives the local calendar date on both sides of midnight (INTL)", () => {

@@ -36,6 +36,7 @@ export default async function UnitPage(props: PageProps<"/units/[id]">) {
       partType={{ views, defectClasses, panelResolution }}
       rubricVersions={versions.map((v) => ({ version: v.version, status: v.status }))}
       initialPhotoId={uuidOrNull(search.photo)}
+      canPromote={can(user, "gallery.edit")}
     />
   );
 }

@@ -13,7 +13,7 @@ import { FEATURE_COUNT, FEATURE_NAMES } from "@/lib/imaging/learned/features";
 import { leafOf, scoreRows, trainForest } from "@/lib/imaging/learned/forest";
 import { trainHistogramForest } from "@/lib/imaging/learned/histogram-forest";
 import { convexHull } from "@/lib/imaging/learned/proposals";
-import { mulberry32 } from "@/tests/support/prng";
+import { mulberry32 } from "@/support/prng";
 
 /** Three classes in 6 features: two informative (overlapping Gaussian blobs), four noise. */
 function blobs(count: number, seed: number) {

@@ -10,7 +10,7 @@ import { DeadlineExceeded, deadlineCheck } from "@/lib/imaging/deadline";
 import { shapeSpans } from "@/lib/imaging/raster/exact-spans";
 import { countSeparateRegions } from "@/lib/imaging/raster/separate";
 import { emptySpanSet, spanSetsOverlap, type SpanSet } from "@/lib/imaging/raster/spans";
-import { mulberry32 } from "@/tests/support/prng";
+import { mulberry32 } from "@/support/prng";
 
 const frame = { width: 400, height: 300 };
 

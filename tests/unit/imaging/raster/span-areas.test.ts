@@ -10,7 +10,7 @@ import { compareRegionSets } from "@/lib/imaging/compare-regions";
 import { shapeSpans } from "@/lib/imaging/raster/exact-spans";
 import { spanRects, subtractSpanSets, type PixelRect } from "@/lib/imaging/raster/span-areas";
 import { countSpans, emptySpanSet, unionSpanSets, type SpanSet } from "@/lib/imaging/raster/spans";
-import { mulberry32 } from "@/tests/support/prng";
+import { mulberry32 } from "@/support/prng";
 
 const frame = { width: 160, height: 120 };
 

@@ -18,7 +18,7 @@ import {
   unionSpanSets,
   type SpanSet,
 } from "@/lib/imaging/raster/spans";
-import { mulberry32 as seededRandom } from "@/tests/support/prng";
+import { mulberry32 as seededRandom } from "@/support/prng";
 
 
 /** Nonzero winding number test at one point (the textbook crossing rule). */
