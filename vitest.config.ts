@@ -10,6 +10,17 @@ export default defineConfig({
     alias: { "server-only": emptyModule },
   },
   test: {
+    // `npm run coverage` (unit project): what the unit tests exercise in lib/. Not part of
+    // `npm test` (DEVELOPERS.md, "Tests"). Thresholds sit a little under the figures measured
+    // when they were set; raise them when coverage grows, never lower them to make a run pass.
+    coverage: {
+      provider: "v8",
+      include: ["lib/**/*.ts"],
+      reporter: [["text", { skipFull: true }], "text-summary"],
+      // Measured 2026-12-03 with the unit project: statements 79.2 %, branches 71.3 %,
+      // functions 77.8 %, lines 79.5 % (files no unit test loads count as 0 %).
+      thresholds: { statements: 77, branches: 69, functions: 75, lines: 77 },
+    },
     projects: [
       {
         extends: true,

@@ -3,6 +3,8 @@
  * real services — PostgreSQL (fresh database), s3rver and the mail inbox on their own test ports
  * and folders — and a production build served by `next start`. Exits non-zero on any failure.
  *   --only unit|integration|e2e   run one layer (integration/e2e still start the services)
+ *   --coverage                    unit tests with coverage of lib/ and its thresholds (vitest.config.ts);
+ *                                 `npm run check` is this whole run with --coverage, each step once
  */
 import { spawn, type ChildProcess } from "node:child_process";
 import fs from "node:fs";
@@ -24,8 +26,9 @@ if (only && !["unit", "integration", "e2e"].includes(only)) {
   process.exit(2);
 }
 const wants = (layer: string) => !only || only === layer;
+const coverage = process.argv.includes("--coverage");
 // With --only, further arguments go to the runner: `npm run test:integration -- tests/integration/queue-api.test.ts`.
-const passThrough = only ? process.argv.slice(onlyIndex + 2) : [];
+const passThrough = only ? process.argv.slice(onlyIndex + 2).filter((arg) => arg !== "--coverage") : [];
 const failures: string[] = [];
 const timings: string[] = [];
 
@@ -103,7 +106,10 @@ async function main() {
     await step("lint", () => run(bin("eslint"), ["--max-warnings", "0", "."], { label: "lint" }));
     await step("typecheck", () => run("npm", ["run", "--silent", "typecheck"], { label: "typecheck" }));
   }
-  if (wants("unit")) await step("unit tests", () => run(bin("vitest"), ["run", "--project", "unit"], { label: "unit" }));
+  if (wants("unit")) {
+    const args = ["run", "--project", "unit", ...(coverage ? ["--coverage"] : [])];
+    await step(coverage ? "unit tests with coverage" : "unit tests", () => run(bin("vitest"), args, { label: "unit" }));
+  }
 
   if (wants("integration") || wants("e2e")) {
     if (wants("e2e")) ensureChromium();

@@ -1,11 +1,11 @@
 "use client";
 
 import { memo } from "react";
-import { SEVERITY_GROUPS, type ClassSeverity } from "@/lib/annotate/class-order";
+import { DEFECT_SEVERITIES_MILDEST_FIRST, type DefectSeverity } from "@/lib/part-types/severity";
 import { ClassSwatch } from "./class-swatch";
 import type { ClassEntry } from "./types";
 
-const GROUP: Record<ClassSeverity, { label: string; tone: string; pressed: string }> = {
+const GROUP: Record<DefectSeverity, { label: string; tone: string; pressed: string }> = {
   minor: { label: "Minor", tone: "text-gauge-600", pressed: "aria-pressed:border-gauge-800 aria-pressed:bg-gauge-800 aria-pressed:text-white" },
   major: { label: "Major", tone: "text-signal-700", pressed: "aria-pressed:border-signal-700 aria-pressed:bg-signal-700 aria-pressed:text-white" },
   critical: { label: "Critical", tone: "text-fault-700", pressed: "aria-pressed:border-fault-700 aria-pressed:bg-fault-700 aria-pressed:text-white" },
@@ -23,7 +23,7 @@ type Group = { key: string; label: string; tone: string; pressed: string; member
 export const DefectClassPicker = memo(function DefectClassPicker({ classes, activeDefect, onPick, kind }: { classes: readonly ClassEntry[]; activeDefect: string | null; onPick(key: string): void; kind?: string }) {
   const groups: Group[] = kind
     ? [{ key: "all", label: kind, tone: GROUP.minor.tone, pressed: GROUP.minor.pressed, members: classes }]
-    : SEVERITY_GROUPS.filter((severity) => classes.some((c) => c.severity === severity)).map((severity) => ({ key: severity, ...GROUP[severity], members: classes.filter((c) => c.severity === severity) }));
+    : DEFECT_SEVERITIES_MILDEST_FIRST.filter((severity) => classes.some((c) => c.severity === severity)).map((severity) => ({ key: severity, ...GROUP[severity], members: classes.filter((c) => c.severity === severity) }));
   return (
     <div role="group" aria-label={kind ?? "Defect class"} className="flex min-w-0 flex-wrap items-center gap-1" data-testid="class-bar">
       {groups.map(({ key: severity, members, ...group }, i) => {

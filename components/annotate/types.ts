@@ -5,6 +5,7 @@ import type { Size } from "@/lib/annotate/coords";
 import type { ShortcutGroup } from "@/lib/annotate/tools";
 import type { ToolId } from "@/lib/annotate/types";
 import type { PolygonShape, Shape } from "@/lib/geometry/shape";
+import type { DefectSeverity } from "@/lib/part-types/severity";
 import type { RegionSetPayload } from "@/lib/geometry/validate";
 import type { RegionStyle } from "@/lib/annotate/defect-styles";
 import type { HistoryAvailability } from "./use-committed-changes";
@@ -15,7 +16,7 @@ export type { HistoryAvailability } from "./use-committed-changes";
 export type { ZoneInput } from "./zones";
 
 /** A defect class of the part type (the canvas orders them by severity for the number keys). */
-export type AllowedDefect = Readonly<{ key: string; label: string; severity: "critical" | "major" | "minor" }>;
+export type AllowedDefect = Readonly<{ key: string; label: string; severity: DefectSeverity }>;
 
 /** A class with the style it is drawn in. */
 export type ClassEntry = AllowedDefect & Readonly<{ style: RegionStyle; index: number }>;

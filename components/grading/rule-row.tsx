@@ -3,7 +3,8 @@
 import { useState } from "react";
 import { useWatch, type Control, type FieldErrors, type UseFormRegister } from "react-hook-form";
 import { takesDefect, takesView, takesZone, type RubricFormValues } from "@/lib/grading/rule-form";
-import { FAILURE_SEVERITIES, METRICS, RULE_GRADES, parseRubric, type Metric } from "@/lib/grading/rubric-schema";
+import { METRICS, RULE_GRADES, parseRubric, type Metric } from "@/lib/grading/rubric-schema";
+import { DEFECT_SEVERITIES } from "@/lib/part-types/severity";
 import { describeRule } from "@/lib/grading/rule-text";
 import { toRule } from "@/lib/grading/rule-form";
 import { GradeBadge } from "./grade-badge";
@@ -143,7 +144,7 @@ export function RuleRow({
         {metric === "functionalFailures" ? (
           <Field id={id("severity")} label="Severity" error={rowErrors?.severity?.message}>
             <select id={id("severity")} className={inputClass} {...register(`rules.${index}.severity`)}>
-              {FAILURE_SEVERITIES.map((s) => (
+              {DEFECT_SEVERITIES.map((s) => (
                 <option key={s} value={s}>
                   {s}
                 </option>

@@ -1,4 +1,4 @@
-import type { DefectSeverity } from "@/db/schema/lots";
+import { DEFECT_SEVERITY_LABELS, type DefectSeverity } from "@/lib/part-types/severity";
 
 const tone = {
   ok: "bg-ok-50 text-ok-600 ring-ok-600/30",
@@ -29,5 +29,5 @@ export function InspectionSeverityBadge({ severity }: { severity: "normal" | "ti
 }
 
 export function DefectSeverityBadge({ severity }: { severity: DefectSeverity }) {
-  return <Badge kind={severity === "critical" ? "fault" : severity === "major" ? "signal" : "neutral"}>{severity[0].toUpperCase() + severity.slice(1)}</Badge>;
+  return <Badge kind={severity === "critical" ? "fault" : severity === "major" ? "signal" : "neutral"}>{DEFECT_SEVERITY_LABELS[severity]}</Badge>;
 }

@@ -1,6 +1,7 @@
 import Link from "next/link";
 import type { UnitStatus } from "@/db/schema/lots";
 import type { FindingDefect } from "@/lib/lots/verdict";
+import type { DefectSeverity } from "@/lib/part-types/severity";
 import { STATUS_LABELS } from "@/lib/units/state-machine";
 import { DefectSeverityBadge } from "./badges";
 
@@ -14,7 +15,7 @@ export type LotUnitRow = {
   leaseExpiresAt: Date | null;
   recorded: number;
   failed: number;
-  worstFailure: "critical" | "major" | "minor" | null;
+  worstFailure: DefectSeverity | null;
   /** The current grade (last of the unit's grade history), null until graded. */
   grade: "A" | "B" | "C" | "Reject" | null;
 };

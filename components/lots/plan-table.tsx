@@ -1,7 +1,7 @@
 import type { StoredSamplingPlan } from "@/db/schema/lots";
-import { aqlLabel, judgedOnText, SEVERITY_ORDER } from "@/lib/lots/plan";
+import { aqlLabel, judgedOnText } from "@/lib/lots/plan";
+import { DEFECT_SEVERITIES, DEFECT_SEVERITY_LABELS } from "@/lib/part-types/severity";
 import type { LotVerdict } from "@/lib/lots/verdict";
-import { SEVERITY_LABELS } from "@/lib/part-types/schemas";
 import { VerdictBadge } from "./badges";
 
 /** The stored plan per defect severity; with a verdict, also what was found against Ac/Re. */
@@ -27,12 +27,12 @@ export function PlanTable({ plan, verdict }: { plan: StoredSamplingPlan; verdict
           </tr>
         </thead>
         <tbody className="divide-y divide-gauge-100">
-          {SEVERITY_ORDER.map((severity) => {
+          {DEFECT_SEVERITIES.map((severity) => {
             const entry = plan.byDefectSeverity[severity];
             const judged = verdict?.classes[severity];
             return (
               <tr key={severity} data-testid={`plan-${severity}`}>
-                <th scope="row" className="py-1.5 pr-3 text-left font-medium">{SEVERITY_LABELS[severity]}</th>
+                <th scope="row" className="py-1.5 pr-3 text-left font-medium">{DEFECT_SEVERITY_LABELS[severity]}</th>
                 <td className="py-1.5 pr-3">{aqlLabel(entry.aql)}</td>
                 <td className="py-1.5 pr-3" data-testid={`code-letter-${severity}`}>{entry.codeLetter}</td>
                 <td className="py-1.5 pr-3">{entry.aql === null ? "zero acceptance" : entry.planLetter}</td>
@@ -76,7 +76,7 @@ export function CountingNote({ plan, lot }: { plan: StoredSamplingPlan; lot?: { 
     <ul className="list-disc space-y-0.5 pl-5 text-xs text-gauge-600">
       <li>
         {plan.hundredPercent ? `Every unit of the lot (${plan.sampleSize}) is inspected.` : `${plan.sampleSize} units are inspected (the largest sample of the three classes).`} Each class is judged on its own
-        sample: {SEVERITY_ORDER.map((s) => `${s} on ${judgedOnText(plan, s)}`).join("; ")}.
+        sample: {DEFECT_SEVERITIES.map((s) => `${s} on ${judgedOnText(plan, s)}`).join("; ")}.
       </li>
       <li data-testid="counting-rule">
         A unit counts once per class in which it has a nonconformity: a failed checklist item of that severity, or a grade worse than {promised}, counted in the severity

@@ -2,7 +2,7 @@
 
 import { useWatch, type Control, type UseFormRegister } from "react-hook-form";
 import type { PartTypeFormValues } from "@/lib/part-types/form-model";
-import { DEFECT_SEVERITIES, SEVERITY_LABELS } from "@/lib/part-types/schemas";
+import { DEFECT_SEVERITIES, DEFECT_SEVERITY_LABELS } from "@/lib/part-types/severity";
 
 const small = "field-input py-1";
 
@@ -36,7 +36,7 @@ export function ChecklistItemFields({ index, control, register, onRemove }: { in
       </Field>
       <Field id={`${p}-fails-as`} label="Fails as">
         <select id={`${p}-fails-as`} className={small} {...register(`${p}.severityOnFail`)}>
-          {DEFECT_SEVERITIES.map((s) => <option key={s} value={s}>{SEVERITY_LABELS[s]}</option>)}
+          {DEFECT_SEVERITIES.map((s) => <option key={s} value={s}>{DEFECT_SEVERITY_LABELS[s]}</option>)}
         </select>
       </Field>
       {kind === "numeric" && (

@@ -8,14 +8,15 @@ import { FormMessage } from "@/components/ui/form-field";
 import { ApiError, apiFetch } from "@/lib/http/client";
 import { PROMISED_GRADES } from "@/lib/lots/schemas";
 import { EMPTY_ITEM, EMPTY_PART_TYPE, formToInput, type PartTypeFormValues } from "@/lib/part-types/form-model";
-import { CATEGORY_LABELS, DEFECT_SEVERITIES, PART_CATEGORIES, partTypeSchema, SEVERITY_LABELS } from "@/lib/part-types/schemas";
+import { CATEGORY_LABELS, PART_CATEGORIES, partTypeSchema } from "@/lib/part-types/schemas";
+import { DEFECT_SEVERITIES, DEFECT_SEVERITY_LABELS } from "@/lib/part-types/severity";
 import { partTypeKeys } from "@/lib/query-keys/part-types";
 import { ChecklistItemFields } from "./checklist-item-fields";
 import { ViewFields } from "./view-fields";
 
 const small = "field-input py-1";
 const severityOptions = DEFECT_SEVERITIES.map((s) => (
-  <option key={s} value={s}>{SEVERITY_LABELS[s]}</option>
+  <option key={s} value={s}>{DEFECT_SEVERITY_LABELS[s]}</option>
 ));
 
 /** Create (no partTypeId) or edit a part type: views and zones, defect classes, checklist. */

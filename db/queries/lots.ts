@@ -2,7 +2,8 @@ import "server-only";
 import { and, asc, desc, eq, ilike, inArray, isNotNull, sql, type SQL } from "drizzle-orm";
 import { db, type DbOrTx } from "@/db/client";
 import { checklistResults, grades, inspectionSchemes, lots, measurements, partTypes, rubricVersions, suppliers, units, users } from "@/db/schema";
-import type { DefectSeverity, InspectionScheme, Lot, NewLot, SampleDraw } from "@/db/schema/lots";
+import type { InspectionScheme, Lot, NewLot, SampleDraw } from "@/db/schema/lots";
+import type { DefectSeverity } from "@/lib/part-types/severity";
 import type { Grade, Rule } from "@/lib/grading/rubric-schema";
 import type { LotListQuery } from "@/lib/lots/schemas";
 

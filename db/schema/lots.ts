@@ -1,13 +1,13 @@
 import { sql } from "drizzle-orm";
 import { boolean, check, date, index, integer, jsonb, pgTable, real, text, timestamp, unique, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import { suppliers, users, workspaces } from "./core";
+import type { DefectSeverity } from "@/lib/part-types/severity";
 import { sameWorkspace } from "./workspace-keys";
 
 /**
  * Shapes of the JSON columns. Their zod schemas (the source of truth for validation) live in
  * lib/part-types and lib/lots; these types keep the columns honest in TypeScript.
  */
-export type DefectSeverity = "critical" | "major" | "minor";
 export type ZoneDefinition = { id: string; label: string; /** Polygon in 0..1 coordinates of the Surface bounding box. */ polygon: [number, number][] };
 export type ViewDefinition = { key: string; label: string; required: boolean; instructions?: string; zones: ZoneDefinition[] };
 export type DefectClassDefinition = { key: string; label: string; severity: DefectSeverity };
@@ -236,7 +236,7 @@ export const checklistResults = pgTable(
     passed: boolean().notNull(),
     /** Why it failed, in words ("3.12 V is below the minimum 3.40 V"). */
     failureReason: text(),
-    severityOnFail: text({ enum: ["critical", "major", "minor"] }).notNull(),
+    severityOnFail: text().$type<DefectSeverity>().notNull(),
     note: text().notNull().default(""),
     recordedBy: uuid().notNull(),
     recordedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),

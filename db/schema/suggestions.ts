@@ -3,6 +3,7 @@ import { boolean, check, index, integer, jsonb, pgTable, real, text, timestamp, 
 import type { Shape } from "@/lib/geometry/shape";
 import type { ClassDecision, Evaluation } from "@/lib/imaging/learned-eval";
 import type { RegionModel } from "@/lib/imaging/learned";
+import type { SuggestionDecision } from "@/lib/suggestions/schemas";
 import { users, workspaces } from "./core";
 import { photos } from "./photos";
 import { sameWorkspace } from "./workspace-keys";
@@ -51,8 +52,8 @@ export const suggestionModels = pgTable(
   ],
 );
 
-export const SUGGESTION_DECISIONS = ["accepted", "dismissed"] as const;
-export type SuggestionDecision = (typeof SUGGESTION_DECISIONS)[number];
+// The list lives in lib/suggestions/schemas.ts; this only types the column.
+const DECISION_VALUES = ["accepted", "dismissed"] as const satisfies readonly SuggestionDecision[];
 
 /**
  * What an inspector did with one learned suggestion on a photo. Accepted ones also became ordinary
@@ -71,7 +72,7 @@ export const suggestionDecisions = pgTable(
     /** The suggested shape in the photo's upright original pixels. */
     shape: jsonb().$type<Shape>().notNull(),
     score: real().notNull(),
-    decision: text({ enum: SUGGESTION_DECISIONS }).notNull(),
+    decision: text({ enum: DECISION_VALUES }).notNull(),
     decidedBy: uuid().notNull(),
     decidedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
   },

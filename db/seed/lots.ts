@@ -9,7 +9,8 @@ import type { Database } from "@/db/client";
 import { activityLog, checklistResults, lots, units, type ChecklistItem, type LotDecisionCounts, type PartType } from "@/db/schema";
 import { evaluateChecklistItem, type ChecklistValue } from "@/lib/checklist/evaluate";
 import { unitFindings } from "@/lib/lots/findings";
-import { buildLotPlan, DEFAULT_AQLS, SEVERITY_ORDER } from "@/lib/lots/plan";
+import { buildLotPlan, DEFAULT_AQLS } from "@/lib/lots/plan";
+import { DEFECT_SEVERITIES } from "@/lib/part-types/severity";
 import { switchingInputFor, type DecidedLotRow } from "@/lib/lots/switching-history";
 import { lotVerdict } from "@/lib/lots/verdict";
 import { nextInspectionState } from "@/lib/sampling/switching";
@@ -97,7 +98,7 @@ export async function seedLots(database: Database, people: People) {
       await tx.insert(activityLog).values({ workspaceId: ws.workspaceId, actorId: lead, action: "lot.created", subjectType: "lot", subjectId: lot.id, detail: { demo: true, severity: state.severity, sampleSize: plan.sampleSize, switchingReason: state.reason }, createdAt });
       if (spec.decision) {
         if (verdict.verdict !== spec.decision.expect) throw new Error(`Seed lot ${spec.purchaseRef}: expected ${spec.decision.expect}, the verdict is ${verdict.verdict} (${verdict.summary})`);
-        const decisionCounts = Object.fromEntries(SEVERITY_ORDER.map((s) => [s, { found: verdict.classes[s].found, inspected: verdict.classes[s].inspected, sampleSize: verdict.classes[s].sampleSize }])) as LotDecisionCounts;
+        const decisionCounts = Object.fromEntries(DEFECT_SEVERITIES.map((s) => [s, { found: verdict.classes[s].found, inspected: verdict.classes[s].inspected, sampleSize: verdict.classes[s].sampleSize }])) as LotDecisionCounts;
         const decidedAt = new Date(createdAt.getTime() + 2 * DAY);
         await tx.update(lots).set({ status: "decided", verdict: verdict.verdict, disposition: spec.decision.disposition, dispositionReason: spec.decision.reason, decisionCounts, decidedBy: lead, decidedAt }).where(eq(lots.id, lot.id));
         await closeLotUnits(tx, { workspaceId: ws.workspaceId, lotId: lot.id, at: decidedAt });

@@ -6,15 +6,13 @@
  * class is always a deliberate choice. With only critical classes there is no starting class:
  * the inspector picks one before drawing. Pure.
  */
-export type ClassSeverity = "critical" | "major" | "minor";
+import { DEFECT_SEVERITIES_MILDEST_FIRST, type DefectSeverity } from "@/lib/part-types/severity";
 
-export const SEVERITY_GROUPS: readonly ClassSeverity[] = ["minor", "major", "critical"];
-
-export function benchClassOrder<T extends { severity: ClassSeverity }>(classes: readonly T[]): T[] {
-  return SEVERITY_GROUPS.flatMap((severity) => classes.filter((c) => c.severity === severity));
+export function benchClassOrder<T extends { severity: DefectSeverity }>(classes: readonly T[]): T[] {
+  return DEFECT_SEVERITIES_MILDEST_FIRST.flatMap((severity) => classes.filter((c) => c.severity === severity));
 }
 
 /** The class a fresh canvas draws with: the first non-critical one in bench order, else none. */
-export function startingClass<T extends { key: string; severity: ClassSeverity }>(classes: readonly T[]): string | null {
+export function startingClass<T extends { key: string; severity: DefectSeverity }>(classes: readonly T[]): string | null {
   return benchClassOrder(classes).find((c) => c.severity !== "critical")?.key ?? null;
 }

@@ -66,6 +66,8 @@ export const PERMISSIONS = {
   // Screens still planned: their permissions are named now so that the features use names.
   "gallery.read": { roles: EVERYONE, what: "browse the Gallery and its reference panel on the Bench" },
   "gallery.edit": { roles: ["trainer"], what: "add, edit, publish and retire Gallery items" },
+  /** Trainers curate what the model learns from (the Gallery), so they watch its figures and retrain it. */
+  "suggestions.manage": { roles: ["trainer"], what: "see the learned-suggestion models with their held-out figures, and start a training" },
   "calibration.read": { roles: ["inspector", "trainer"], what: "open the Calibration screen" },
   "calibration.take": { roles: ["inspector"], what: "take an assigned calibration set" },
   "calibration.manage": { roles: ["trainer"], what: "assemble calibration sets, assign them and see every attempt" },

@@ -7,7 +7,9 @@ import { AppError } from "@/lib/errors";
 import { measureUnit, type UnitMeasureInput } from "@/lib/grading/grade-unit";
 import { DeadlineExceeded } from "@/lib/imaging/deadline";
 import { suggestPixelCandidates, type PixelCandidateOptions } from "@/lib/imaging/pixel-candidates";
+import { suggestRegions, type RegionModel, type SuggestOptions } from "@/lib/imaging/learned";
 import { suggestSurface, type SuggestSurfaceOptions } from "@/lib/imaging/suggest-surface";
+import { trainAndJudge, type TrainAndJudgeInput } from "@/lib/suggestions/train-and-judge";
 
 const bufferOf = (bytes: Uint8Array) => Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
 
@@ -15,6 +17,14 @@ export const TASKS = {
   "measure-unit": (input: UnitMeasureInput) => measureUnit(input),
   "suggest-surface": ({ image, options }: { image: Uint8Array; options?: SuggestSurfaceOptions }) => suggestSurface(bufferOf(image), options),
   "pixel-candidates": ({ image, options }: { image: Uint8Array; options?: PixelCandidateOptions }) => suggestPixelCandidates(bufferOf(image), options),
+  // Buffers arrive as Uint8Array (structured clone); the learned core checks for Buffers.
+  "train-suggestion-model": (input: TrainAndJudgeInput) =>
+    trainAndJudge({
+      ...input,
+      train: input.train.map((e) => ({ ...e, image: bufferOf(e.image) })),
+      test: input.test.map((p) => ({ ...p, image: bufferOf(p.image) })),
+    }),
+  "suggest-learned": ({ model, image, options }: { model: RegionModel; image: Uint8Array; options?: SuggestOptions }) => suggestRegions(model, bufferOf(image), options),
 };
 
 export type TaskName = keyof typeof TASKS;

@@ -12,12 +12,11 @@
  * computed as 7/100 equals a 7 % threshold despite binary rounding.
  */
 import { AppError } from "@/lib/errors";
+import type { DefectSeverity } from "@/lib/part-types/severity";
 import type { PixelFaultClass } from "@/lib/measure/types";
 import { formatRubricIssues, gradeRank, pixelClassRank, rubricSchema, ruleZone, worseGrade, type Grade, type Rule, type Rubric } from "./rubric-schema";
 import { describeRule, explainCriticalDefect, explainFiredRule, viewLabel, zoneLabel, type GradingLabels } from "./rule-text";
 import { readMetric, totalDefectCount, type MetricReading, type UnitMetrics } from "./unit-metrics";
-
-export type DefectSeverity = "critical" | "major" | "minor";
 
 export type GradeLine = {
   /** The rubric rule's id, or "builtin:critical:<defect>" / "builtin:none". */

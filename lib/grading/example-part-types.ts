@@ -4,7 +4,7 @@
  * examples to adapt ((c) common practice), kept here so the example rubrics can be validated;
  * the part-type seed should use the same keys.
  */
-import type { DefectSeverity } from "./evaluate";
+import type { DefectSeverity } from "@/lib/part-types/severity";
 import type { PartTypeLists } from "./rubric-schema";
 import type { GradingLabels } from "./rule-text";
 

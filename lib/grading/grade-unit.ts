@@ -15,7 +15,8 @@ import type { PhotoMeasurement } from "@/lib/measure/types";
 import { evaluateRubric, type GradeResult } from "./evaluate";
 import { measurePhoto, panelFor, type PhotoMeasurementResult } from "./measure-photo";
 import { gradingContextOf } from "./part-type-context";
-import type { FailureSeverity, Rubric } from "./rubric-schema";
+import type { DefectSeverity } from "@/lib/part-types/severity";
+import type { Rubric } from "./rubric-schema";
 import type { StoredUnitResult } from "./stored-measurement";
 import { buildUnitMetrics, type FunctionalFailureCounts } from "./unit-metrics";
 
@@ -58,7 +59,7 @@ export type UnitMeasureOutcome = {
 export { DeadlineExceeded };
 
 /** Failed checklist items counted per severity (what functionalFailures rules read). */
-export function functionalFailureCounts(results: readonly { passed: boolean; severityOnFail: FailureSeverity }[]): FunctionalFailureCounts {
+export function functionalFailureCounts(results: readonly { passed: boolean; severityOnFail: DefectSeverity }[]): FunctionalFailureCounts {
   const counts: FunctionalFailureCounts = { critical: 0, major: 0, minor: 0 };
   for (const result of results) if (!result.passed) counts[result.severityOnFail] += 1;
   return counts;

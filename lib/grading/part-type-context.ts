@@ -4,7 +4,7 @@
  * rule, and human labels for explanation lines.
  */
 import type { DefectClassDefinition, ViewDefinition } from "@/db/schema/lots";
-import type { DefectSeverity } from "./evaluate";
+import type { DefectSeverity } from "@/lib/part-types/severity";
 import type { PartTypeLists } from "./rubric-schema";
 import type { GradingLabels } from "./rule-text";
 

@@ -16,6 +16,7 @@
  */
 import { z } from "zod";
 import type { PixelFaultClass } from "@/lib/measure/types";
+import { DEFECT_SEVERITIES } from "@/lib/part-types/severity";
 
 export const GRADES = ["A", "B", "C", "Reject"] as const;
 export type Grade = (typeof GRADES)[number];
@@ -24,8 +25,6 @@ export const RULE_GRADES = ["B", "C", "Reject"] as const;
 export type RuleGrade = (typeof RULE_GRADES)[number];
 
 export const PIXEL_FAULT_CLASSES = ["I", "II", "III", "IV", "beyond"] as const satisfies readonly PixelFaultClass[];
-export const FAILURE_SEVERITIES = ["critical", "major", "minor"] as const;
-export type FailureSeverity = (typeof FAILURE_SEVERITIES)[number];
 
 /** Metrics read per defect class; only share and areaMm2 exist per zone (zones record area). */
 export const DEFECT_METRICS = ["share", "count", "maxLengthMm", "totalLengthMm", "areaMm2", "maxDiameterMm"] as const;
@@ -143,7 +142,7 @@ const functionalRule = z.strictObject(
   {
     id: ruleIdField,
     metric: z.literal("functionalFailures"),
-    severity: z.enum(FAILURE_SEVERITIES, {
+    severity: z.enum(DEFECT_SEVERITIES, {
       error: requiredOr((input) => `must be critical, major or minor, not ${describeInput(input)}`),
     }),
     comparison: comparisonField,

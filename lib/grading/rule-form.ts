@@ -9,13 +9,13 @@ import {
   DEFECT_METRICS,
   ZONED_METRICS,
   parseRubric,
-  type FailureSeverity,
   type Metric,
   type PartTypeLists,
   type Rubric,
   type Rule,
   type RuleGrade,
 } from "./rubric-schema";
+import type { DefectSeverity } from "@/lib/part-types/severity";
 
 export type RuleFormValues = {
   id: string;
@@ -25,7 +25,7 @@ export type RuleFormValues = {
   view: string;
   /** "" = the whole surface. */
   zone: string;
-  severity: FailureSeverity;
+  severity: DefectSeverity;
   comparison: ">" | ">=";
   /** A number as text; a class I–IV for pixelFaultClass rules. */
   threshold: string;

@@ -12,7 +12,8 @@
  */
 import type { ViewDefinition } from "@/db/schema/lots";
 import type { DefectMeasure, PhotoMeasurement, PixelFaultClass } from "@/lib/measure/types";
-import { ruleZone, type FailureSeverity, type Rubric } from "./rubric-schema";
+import type { DefectSeverity } from "@/lib/part-types/severity";
+import { ruleZone, type Rubric } from "./rubric-schema";
 import type { FunctionalFailureCounts } from "./unit-metrics";
 
 export const ANY_VIEW = "(any view)";
@@ -38,10 +39,10 @@ export type SampleValues = {
 export const readingKey = (r: Omit<SampleReading, "key">) => [r.metric, r.defect, r.view ?? "", r.zone ?? ""].join("|");
 
 /** What a rubric reads, once per distinct selector, in rubric order. */
-export function sampleReadingsFor(rubric: Rubric): { readings: SampleReading[]; pixels: PixelReading[]; severities: FailureSeverity[] } {
+export function sampleReadingsFor(rubric: Rubric): { readings: SampleReading[]; pixels: PixelReading[]; severities: DefectSeverity[] } {
   const readings = new Map<string, SampleReading>();
   const pixels = new Map<string, PixelReading>();
-  const severities = new Set<FailureSeverity>();
+  const severities = new Set<DefectSeverity>();
   for (const rule of rubric.rules) {
     if (rule.metric === "functionalFailures") severities.add(rule.severity);
     else if (rule.metric === "pixelFaultClass") pixels.set(rule.view ?? "", { key: rule.view ?? "", view: rule.view ?? null });

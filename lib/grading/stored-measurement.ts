@@ -6,7 +6,8 @@
  * same rows can be graded again under any other version ("what would version N say").
  */
 import type { PhotoMeasurement } from "@/lib/measure/types";
-import type { DefectSeverity, GradeResult } from "./evaluate";
+import type { DefectSeverity } from "@/lib/part-types/severity";
+import type { GradeResult } from "./evaluate";
 import type { GradingLabels } from "./rule-text";
 import type { FunctionalFailureCounts } from "./unit-metrics";
 

@@ -18,9 +18,10 @@
 import { z } from "zod";
 import { AppError } from "@/lib/errors";
 import type { PhotoMeasurement, PixelFaultClass } from "@/lib/measure/types";
-import { PIXEL_FAULT_CLASSES, isDefectRule, pixelClassRank, ruleZone, type FailureSeverity, type Rule } from "./rubric-schema";
+import type { DefectSeverity } from "@/lib/part-types/severity";
+import { PIXEL_FAULT_CLASSES, isDefectRule, pixelClassRank, ruleZone, type Rule } from "./rubric-schema";
 
-export type FunctionalFailureCounts = Record<FailureSeverity, number>;
+export type FunctionalFailureCounts = Record<DefectSeverity, number>;
 
 export type DefectValues = {
   /** Percent (0–100) of the photo's surface. */

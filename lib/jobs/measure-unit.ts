@@ -8,13 +8,14 @@ import "server-only";
  * Wiring: the worker (lib/jobs/worker.ts) calls `boss.createQueue(MEASURE_UNIT_QUEUE,
  * measureUnitQueueOptions)` and `boss.work(MEASURE_UNIT_QUEUE, handleMeasureUnitJobs)`.
  */
-import PgBoss from "pg-boss";
+import type PgBoss from "pg-boss";
 import { pool } from "@/db/client";
 import { AppError } from "@/lib/errors";
 import { DeadlineExceeded } from "@/lib/imaging/deadline";
 import { MEASURE_JOB_BUDGET_MS } from "@/lib/grading/schemas";
 import { measureAndStore } from "@/lib/grading/unit-grading";
 import { JOB_NOTIFY_CHANNEL } from "./queues";
+import { queueSender } from "./send-only";
 
 export const MEASURE_UNIT_QUEUE = "measure-unit";
 
@@ -57,22 +58,8 @@ export async function handleMeasureUnitJobs(jobs: PgBoss.Job<MeasureUnitJob>[]):
   return output;
 }
 
-const cache = globalThis as unknown as { __partproofMeasureSender?: Promise<PgBoss> };
-
 /** A send-only pg-boss on the app's pool (no maintenance or schedules in the web process). */
-function sender(): Promise<PgBoss> {
-  cache.__partproofMeasureSender ??= (async () => {
-    const boss = new PgBoss({ db: { executeSql: (text, values) => pool().query(text, values) }, supervise: false, schedule: false, migrate: true });
-    boss.on("error", (err) => console.error("pg-boss (measure sender) error", err));
-    await boss.start();
-    await boss.createQueue(MEASURE_UNIT_QUEUE, measureUnitQueueOptions);
-    return boss;
-  })().catch((err) => {
-    cache.__partproofMeasureSender = undefined;
-    throw err;
-  });
-  return cache.__partproofMeasureSender;
-}
+const sender = () => queueSender(measureUnitQueueOptions);
 
 /** Queues a measurement; null when one for this unit is already waiting (the stately policy). */
 export async function enqueueMeasureUnit(job: MeasureUnitJob): Promise<{ jobId: string | null }> {

@@ -15,6 +15,16 @@ import { processPhoto } from "@/lib/photos/process";
 import { sweepOrphans } from "@/lib/photos/sweep";
 import { ObjectStoreUnavailableError } from "@/lib/storage/s3";
 import { handleMeasureUnitJobs, MEASURE_UNIT_QUEUE, measureUnitQueueOptions, type MeasureUnitJob } from "./measure-unit";
+import {
+  handleSuggestionTrainingJobs,
+  queueDueTrainings,
+  SUGGESTION_CHECK_CRON,
+  SUGGESTION_CHECK_QUEUE,
+  SUGGESTION_TRAINING_QUEUE,
+  suggestionCheckQueueOptions,
+  suggestionTrainingQueueOptions,
+  type SuggestionTrainingJob,
+} from "./suggestion-training";
 import { ensureQueues, JOB_NOTIFY_CHANNEL, PHOTO_PROCESS_QUEUE, PHOTO_SWEEP_QUEUE, type PhotoProcessJob } from "./queues";
 
 const jobDataSchema = z.object({ photoId: z.uuid() });
@@ -93,14 +103,23 @@ export async function runWorker(): Promise<void> {
   await boss.createQueue(MEASURE_UNIT_QUEUE, measureUnitQueueOptions);
   await boss.updateQueue(MEASURE_UNIT_QUEUE, measureUnitQueueOptions);
   const measureWorker = await boss.work<MeasureUnitJob>(MEASURE_UNIT_QUEUE, { batchSize: 1, pollingIntervalSeconds: 2 }, handleMeasureUnitJobs);
+  // Learned-suggestion training (lib/jobs/suggestion-training.ts): one job at a time in this process.
+  for (const options of [suggestionTrainingQueueOptions, suggestionCheckQueueOptions]) {
+    await boss.createQueue(options.name, options);
+    await boss.updateQueue(options.name, options);
+  }
+  const trainingWorker = await boss.work<SuggestionTrainingJob>(SUGGESTION_TRAINING_QUEUE, { batchSize: 1, pollingIntervalSeconds: 5 }, handleSuggestionTrainingJobs);
+  await boss.work(SUGGESTION_CHECK_QUEUE, { pollingIntervalSeconds: 30 }, () => queueDueTrainings(boss));
+  await boss.schedule(SUGGESTION_CHECK_QUEUE, SUGGESTION_CHECK_CRON, {}, { tz: "UTC" });
   await boss.schedule(PHOTO_SWEEP_QUEUE, settings.PHOTO_SWEEP_CRON, {}, { tz: "UTC" });
   const stopListening = listenForJobs(connectionString, (queue) => {
     if (queue === PHOTO_PROCESS_QUEUE) photoWorkers.forEach((id) => boss.notifyWorker(id));
     if (queue === MEASURE_UNIT_QUEUE) boss.notifyWorker(measureWorker);
+    if (queue === SUGGESTION_TRAINING_QUEUE) boss.notifyWorker(trainingWorker);
   });
 
   console.log(
-    `Worker ready: ${photoWorkers.length} photo workers, 1 measurement worker, up to ${settings.PHOTO_JOB_RETRY_LIMIT} retries with backoff from ${settings.PHOTO_JOB_RETRY_DELAY_SECONDS} s, orphan sweep "${settings.PHOTO_SWEEP_CRON}" (UTC), MALLOC_ARENA_MAX=${process.env.MALLOC_ARENA_MAX ?? "unset"}.`,
+    `Worker ready: ${photoWorkers.length} photo workers, 1 measurement worker, 1 suggestion-training worker (check "${SUGGESTION_CHECK_CRON}"), up to ${settings.PHOTO_JOB_RETRY_LIMIT} retries with backoff from ${settings.PHOTO_JOB_RETRY_DELAY_SECONDS} s, orphan sweep "${settings.PHOTO_SWEEP_CRON}" (UTC), MALLOC_ARENA_MAX=${process.env.MALLOC_ARENA_MAX ?? "unset"}.`,
   );
 
   let stopping = false;

@@ -29,14 +29,13 @@
  * class, follows lib/lots/verdict.ts: it can only raise a count (ISO 2859-1 practice for classified
  * nonconformities, from memory, b; common practice, c).
  */
-import type { DefectSeverity } from "@/db/schema/lots";
+import { DEFECT_SEVERITIES, severityRank, type DefectSeverity } from "@/lib/part-types/severity";
 import { gradeRank, type Grade, type Rule } from "@/lib/grading/rubric-schema";
 import { PIXEL_FAULT_DEFECTS } from "@/lib/measure/pixel-faults";
 import type { PromisedGrade } from "./schemas";
 import type { FindingDefect } from "./verdict";
 
 
-const SEVERITY_RANK: Record<DefectSeverity, number> = { minor: 0, major: 1, critical: 2 };
 
 export type GradeEvidence = {
   finalGrade: Grade;
@@ -59,8 +58,8 @@ export function lineDefectClasses(ruleId: string, rules: ReadonlyMap<string, Rul
   if (!rule || rule.metric === "functionalFailures") return [];
   if (rule.metric === "pixelFaultClass") {
     const pixelClasses = PIXEL_FAULT_DEFECTS.filter((key) => severities[key] !== undefined);
-    const worst = Math.max(...pixelClasses.map((key) => SEVERITY_RANK[severities[key]]));
-    return pixelClasses.filter((key) => SEVERITY_RANK[severities[key]] === worst);
+    const worst = Math.min(...pixelClasses.map((key) => severityRank(severities[key])));
+    return pixelClasses.filter((key) => severityRank(severities[key]) === worst);
   }
   return [rule.defect];
 }
@@ -94,7 +93,7 @@ export function cosmeticNonconformities(promised: PromisedGrade, grade: GradeEvi
   }
 
   const defects: FindingDefect[] = [];
-  for (const severity of ["critical", "major", "minor"] as const) {
+  for (const severity of DEFECT_SEVERITIES) {
     const keys = bySeverity.get(severity);
     if (keys) defects.push({ severity, source: "cosmetic", label: `grade ${grade.finalGrade} (promised ${promised}): ${[...keys].map(label).join(", ")}` });
   }

@@ -11,7 +11,8 @@
  * Defects: every failed checklist item (items since removed from the checklist still count: they
  * were found), plus the unit's cosmetic nonconformities (lib/lots/cosmetic.ts) in `cosmeticDefects`.
  */
-import type { DefectSeverity, UnitStatus } from "@/db/schema/lots";
+import type { UnitStatus } from "@/db/schema/lots";
+import type { DefectSeverity } from "@/lib/part-types/severity";
 import type { FindingDefect, UnitFinding } from "./verdict";
 
 export type FindingUnit = { id: string; sampleIndex: number; status: UnitStatus };

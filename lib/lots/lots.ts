@@ -7,7 +7,8 @@ import type { SessionUser } from "@/lib/auth/require-user";
 import { AppError, notFound } from "@/lib/errors";
 import { SamplingInputError } from "@/lib/sampling/iso2859";
 import { closeLotUnits } from "@/lib/units/lot-closing";
-import { buildLotPlan, SEVERITY_ORDER } from "./plan";
+import { buildLotPlan } from "./plan";
+import { DEFECT_SEVERITIES } from "@/lib/part-types/severity";
 import { oneLotProgress, progressInput } from "./progress";
 import { assertPair, switchingStateFor } from "./scheme";
 import { DISPOSITION_LABELS, DISPOSITIONS_FOR_VERDICT, MAX_UNITS_PER_LOT, type DispositionInput, type LotCreateInput } from "./schemas";
@@ -95,7 +96,7 @@ export async function decideLot(actor: SessionUser, lotId: string, input: Dispos
       throw new AppError("bad_request", message, { fieldErrors: { disposition: message } });
     }
     const decisionCounts = Object.fromEntries(
-      SEVERITY_ORDER.map((s) => [s, { found: verdict.classes[s].found, inspected: verdict.classes[s].inspected, sampleSize: verdict.classes[s].sampleSize }]),
+      DEFECT_SEVERITIES.map((s) => [s, { found: verdict.classes[s].found, inspected: verdict.classes[s].inspected, sampleSize: verdict.classes[s].sampleSize }]),
     ) as LotDecisionCounts;
     const now = new Date();
     const row = await recordLotDecision(tx, {

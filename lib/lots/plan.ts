@@ -13,13 +13,13 @@
  *   a random sample and the plan's Ac/Re keep their meaning. Parts inspected 100 % are sorted unit
  *   by unit; their lot verdict still uses each class's own n, so it means the same as for sampled lots.
  */
-import type { DefectSeverity, StoredSamplingPlan } from "@/db/schema/lots";
+import type { StoredSamplingPlan } from "@/db/schema/lots";
+import type { DefectSeverity } from "@/lib/part-types/severity";
 import { singleSamplingPlan, type InspectionLevel, type InspectionSeverity } from "@/lib/sampling/iso2859";
 
 export type LotAqls = { critical: number | null; major: number; minor: number };
 export const DEFAULT_AQLS: LotAqls = { critical: null, major: 1.0, minor: 2.5 };
 export const DEFAULT_LEVEL: InspectionLevel = "II";
-export const SEVERITY_ORDER: readonly DefectSeverity[] = ["critical", "major", "minor"];
 
 export type LotPlanInput = {
   lotSize: number;

@@ -5,7 +5,7 @@
  */
 import type { LotDecisionCounts, StoredSamplingPlan } from "@/db/schema/lots";
 import type { DecidedLot, SwitchingInput } from "@/lib/sampling/switching";
-import { SEVERITY_ORDER } from "./plan";
+import { DEFECT_SEVERITIES } from "@/lib/part-types/severity";
 
 export type DecidedLotRow = {
   id: string;
@@ -23,7 +23,7 @@ export function decidedLotForSwitching(lot: DecidedLotRow, label: string = lot.p
     lotId: label,
     severity: lot.inspectionSeverity,
     accepted: lot.verdict === "accept",
-    classes: SEVERITY_ORDER.map((severity) => {
+    classes: DEFECT_SEVERITIES.map((severity) => {
       const entry = lot.plan.byDefectSeverity[severity];
       return {
         defectClass: severity,

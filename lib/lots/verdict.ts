@@ -15,9 +15,9 @@
  *   class's sample inspected and found <= Ac; with a reduced plan's gap (Ac < found < Re) the lot is
  *   accepted and normal inspection is reinstated (judgeLot, Z1.4 §10.1.4).
  */
-import type { DefectSeverity, LotDecisionCounts, StoredSamplingPlan } from "@/db/schema/lots";
+import type { LotDecisionCounts, StoredSamplingPlan } from "@/db/schema/lots";
 import { judgeLot } from "@/lib/sampling/iso2859";
-import { SEVERITY_ORDER } from "./plan";
+import { DEFECT_SEVERITIES, type DefectSeverity } from "@/lib/part-types/severity";
 
 export type FindingDefect = { severity: DefectSeverity; source?: "functional" | "cosmetic"; label?: string };
 export type UnitFinding = {
@@ -95,8 +95,8 @@ function judgeClass(plan: PlanPart, severity: DefectSeverity, findings: readonly
 
 export function lotVerdict(plan: PlanPart, findings: readonly UnitFinding[]): LotVerdict {
   validate(plan, findings);
-  const classes = Object.fromEntries(SEVERITY_ORDER.map((s) => [s, judgeClass(plan, s, findings)])) as Record<DefectSeverity, ClassVerdict>;
-  const list = SEVERITY_ORDER.map((s) => classes[s]);
+  const classes = Object.fromEntries(DEFECT_SEVERITIES.map((s) => [s, judgeClass(plan, s, findings)])) as Record<DefectSeverity, ClassVerdict>;
+  const list = DEFECT_SEVERITIES.map((s) => classes[s]);
   const rejected = list.filter((c) => c.status === "reject");
   const verdict: VerdictStatus = rejected.length ? "reject" : list.every((c) => c.status === "accept") ? "accept" : "pending";
   const reinstateNormal = verdict === "accept" && list.some((c) => c.reinstateNormal);
@@ -121,12 +121,12 @@ export function lotVerdict(plan: PlanPart, findings: readonly UnitFinding[]): Lo
  */
 export function decidedVerdictView(plan: PlanPart, decided: { verdict: "accept" | "reject"; counts: LotDecisionCounts }, live: LotVerdict): LotVerdict {
   const classes = { ...live.classes };
-  for (const severity of SEVERITY_ORDER) {
+  for (const severity of DEFECT_SEVERITIES) {
     const entry = plan.byDefectSeverity[severity];
     const { found, inspected } = decided.counts[severity];
     const judgement = judgeLot(entry, found);
     classes[severity] = { ...classes[severity], found, inspected, foundOutsideSample: 0, status: judgement === "not-accepted" ? "reject" : "accept", reinstateNormal: judgement === "accept-reinstate-normal" };
   }
   const summary = `Decided: ${decided.verdict}, on the counts recorded with the decision.`;
-  return { ...live, verdict: decided.verdict, reinstateNormal: SEVERITY_ORDER.some((s) => classes[s].reinstateNormal), classes, summary };
+  return { ...live, verdict: decided.verdict, reinstateNormal: DEFECT_SEVERITIES.some((s) => classes[s].reinstateNormal), classes, summary };
 }

@@ -4,13 +4,11 @@
  * form and the API; `.strict()` so unknown fields are refused.
  */
 import { z } from "zod";
-import type { ChecklistItem, DefectSeverity, PartType } from "@/db/schema/lots";
+import type { ChecklistItem, PartType } from "@/db/schema/lots";
 import { decimalPlaces } from "@/lib/checklist/evaluate";
 import { EXAMPLE_PART_TYPE_SLUGS } from "@/lib/grading/example-part-types";
 import { promisedGradeSchema } from "@/lib/lots/schemas";
-
-export const DEFECT_SEVERITIES = ["critical", "major", "minor"] as const satisfies readonly DefectSeverity[];
-export const SEVERITY_LABELS: Record<DefectSeverity, string> = { critical: "Critical", major: "Major", minor: "Minor" };
+import { DEFECT_SEVERITIES } from "./severity";
 
 export const PART_CATEGORIES = ["camera", "battery", "housing", "display", "flex", "speaker", "other"] as const;
 export type PartCategory = (typeof PART_CATEGORIES)[number];

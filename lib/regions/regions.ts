@@ -18,7 +18,7 @@ import type { SessionUser } from "@/lib/auth/require-user";
 import { AppError, notFound } from "@/lib/errors";
 import { parseRegionSet, type RegionSetPayload } from "@/lib/geometry/validate";
 import { claimForWork } from "@/lib/queue/claim-for-work";
-import { assertUnitEditable } from "@/lib/units/editability";
+import { assertUnitEditable, type UnitLeaseState } from "@/lib/units/editability";
 import { payloadFromRows, rowsForSave } from "./payload";
 import type { SaveRegionsInput } from "./schemas";
 
@@ -74,6 +74,16 @@ export function validateRegions(photo: PhotoForRegions, input: unknown): RegionS
   return result.value;
 }
 
+/**
+ * Whether the actor may mark regions on this unit's photos now, and whether marking takes the unit
+ * onto their bench: lib/units/editability.ts ("regions": lot open, unit waiting or on a bench, no
+ * one else's running lease), thrown as the 403/409 with its sentence. The save checks it under the
+ * unit's lock; learned suggestions may check it unlocked, since they store nothing.
+ */
+export function assertUnitAnnotatable(lotStatus: "open" | "decided", unit: UnitLeaseState, actor: Actor & Partial<Pick<SessionUser, "timeZone">>): { claims: boolean } {
+  return assertUnitEditable({ work: "regions", actor, lotStatus, unit, timeZone: actor.timeZone });
+}
+
 export async function saveRegionSet(actor: SessionUser, photoId: string, input: SaveRegionsInput): Promise<RegionSetView> {
   const photo = await loadPhotoForRegions(actor, photoId);
   const payload = validateRegions(photo, input.regions);
@@ -82,7 +92,7 @@ export async function saveRegionSet(actor: SessionUser, photoId: string, input: 
     // The unit first (the same order as grading), so a grade and a save never deadlock.
     const unit = await lockUnit(tx, { workspaceId: actor.workspaceId, unitId: photo.unit.id });
     if (!unit) throw notFound("That photo");
-    const { claims } = assertUnitEditable({ work: "regions", actor, lotStatus: unit.lotStatus, unit, timeZone: actor.timeZone });
+    const { claims } = assertUnitAnnotatable(unit.lotStatus, unit, actor);
     const set = await lockRegionSet(tx, key);
     if (set.version !== input.baseVersion) throw new RegionVersionConflict(await readRegionSet(actor, photoId, tx), input.baseVersion);
     // Marking a unit that waits in the queue (or whose lease ran out) takes it onto the marker's bench.

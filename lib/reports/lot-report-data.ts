@@ -2,7 +2,7 @@
  * What a lot inspection report shows, as plain data the DB layer fills (no database access here).
  * Dates are Date objects for instants and "YYYY-MM-DD" strings for calendar days, as stored.
  */
-import type { DefectSeverity } from "@/db/schema/lots";
+import type { DefectSeverity } from "@/lib/part-types/severity";
 import type { Grade } from "@/lib/grading/rubric-schema";
 import type { Disposition } from "@/lib/lots/schemas";
 import type { ParetoInput } from "./pareto";

@@ -5,12 +5,12 @@
  * annotated photos of defective units (two a page). Page n of N on every page.
  */
 import { DISPOSITION_LABELS } from "@/lib/lots/schemas";
-import { SEVERITY_ORDER } from "@/lib/lots/plan";
+import { DEFECT_SEVERITIES, DEFECT_SEVERITY_LABELS } from "@/lib/part-types/severity";
 import { createPdf, pdfBuffer, stampFooters, type PdfDoc } from "@/lib/pdf/document";
 import { PDF_FONT } from "@/lib/pdf/fonts";
 import { drawParetoChart } from "@/lib/pdf/pareto-chart";
 import { drawTable, type PdfColumn } from "@/lib/pdf/table";
-import { formatAql, formatInstant, formatShare, GRADE_CAUTION, SEVERITY_LABELS } from "./format";
+import { formatAql, formatInstant, formatShare, GRADE_CAUTION } from "./format";
 import type { LotReportData, LotReportPhoto, LotReportPlanRow, LotReportUnit } from "./lot-report-data";
 import { paretoRows, type ParetoRow } from "./pareto";
 
@@ -135,7 +135,7 @@ export async function renderLotReportPdf(data: LotReportData, options: LotReport
   ]);
 
   heading(doc, "Sampling plan per severity (ISO 2859-1 single sampling)");
-  const planRows = SEVERITY_ORDER.map((severity) => [SEVERITY_LABELS[severity], data.plan[severity]] as [string, LotReportPlanRow]);
+  const planRows = DEFECT_SEVERITIES.map((severity) => [DEFECT_SEVERITY_LABELS[severity], data.plan[severity]] as [string, LotReportPlanRow]);
   drawTable(doc, planColumns, planRows, { x: left, y: doc.y });
   doc.font(PDF_FONT.regular).fontSize(7.5).fillColor(MUTED).text("A unit counts once per severity in which it has a nonconformity; a lot is rejected in a class when the defectives found reach Re.", left, doc.y + 4);
 

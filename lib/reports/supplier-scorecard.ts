@@ -24,8 +24,7 @@
  * - Months run from the first to the last month with a lot, gaps included (zero lots), so a
  *   trend chart's x axis has no holes.
  */
-import type { DefectSeverity } from "@/db/schema/lots";
-import { SEVERITY_ORDER } from "@/lib/lots/plan";
+import { DEFECT_SEVERITIES, type DefectSeverity } from "@/lib/part-types/severity";
 import { periodOfDate, periodsBetween } from "@/lib/time/periods";
 import { paretoRows, type ParetoRow } from "./pareto";
 
@@ -69,7 +68,7 @@ class FiguresSum {
   rejected = 0;
   open = 0;
   inspected = 0;
-  severity = Object.fromEntries(SEVERITY_ORDER.map((s) => [s, { inspected: 0, defectives: 0 }])) as Record<DefectSeverity, { inspected: number; defectives: number }>;
+  severity = Object.fromEntries(DEFECT_SEVERITIES.map((s) => [s, { inspected: 0, defectives: 0 }])) as Record<DefectSeverity, { inspected: number; defectives: number }>;
   classes = new Map<string, { units: number; defects: number }>();
 
   add(lot: SupplierLotRow) {
@@ -79,7 +78,7 @@ class FiguresSum {
     else if (lot.verdict === "reject") this.rejected++;
     else throw new RangeError(`A decided lot has a verdict (accept or reject); a lot of ${lot.supplierId} received ${lot.receivedOn} has none.`);
     this.inspected += lot.inspected;
-    for (const severity of SEVERITY_ORDER) {
+    for (const severity of DEFECT_SEVERITIES) {
       const counts = lot.bySeverity[severity];
       if (counts.defectives > counts.inspected) throw new RangeError(`More ${severity} defectives (${counts.defectives}) than units inspected (${counts.inspected}).`);
       this.severity[severity].inspected += counts.inspected;
@@ -101,7 +100,7 @@ class FiguresSum {
       rejected: this.rejected,
       open: this.open,
       inspected: this.inspected,
-      bySeverity: Object.fromEntries(SEVERITY_ORDER.map((s) => [s, { ...this.severity[s], per100: per100(this.severity[s].defectives, this.severity[s].inspected) }])) as SupplierFigures["bySeverity"],
+      bySeverity: Object.fromEntries(DEFECT_SEVERITIES.map((s) => [s, { ...this.severity[s], per100: per100(this.severity[s].defectives, this.severity[s].inspected) }])) as SupplierFigures["bySeverity"],
       classes: Object.fromEntries([...this.classes].map(([defect, c]) => [defect, { ...c, unitsPer100: per100(c.units, this.inspected), defectsPer100: per100(c.defects, this.inspected) }])),
     };
   }
@@ -110,7 +109,7 @@ class FiguresSum {
 function checkLot(lot: SupplierLotRow) {
   periodOfDate(lot.receivedOn, "month");
   checkCount(lot.inspected, "Units inspected");
-  for (const severity of SEVERITY_ORDER) {
+  for (const severity of DEFECT_SEVERITIES) {
     const counts = lot.bySeverity?.[severity];
     if (!counts) throw new RangeError(`Counts for ${severity} defects are missing.`);
     checkCount(counts.inspected, `Units inspected for ${severity} defects`);

@@ -116,6 +116,38 @@ describe("the lot list", () => {
   });
 });
 
+describe("a lot's unit list", () => {
+  it("shows each unit's worst failed checklist severity (critical before major before minor)", async () => {
+    const items = [
+      { id: "lens-clean", severity: "minor" },
+      { id: "power", severity: "critical" },
+      { id: "focus", severity: "major" },
+    ];
+    const partType = await api<{ partType: { id: string } }>(lead, "POST", "/api/part-types", {
+      name: `Worst failure flex ${Date.now().toString(36)}`,
+      category: "flex",
+      views: [{ key: "front", label: "Front", required: true, zones: [] }],
+      defectClasses: [{ key: "scratch", label: "Scratch", severity: "minor" }],
+      checklist: items.map(({ id, severity }) => ({ id, label: `${id} passes`, kind: "pass_fail", severityOnFail: severity })),
+    });
+    expect(partType.status, JSON.stringify(partType.body)).toBe(201);
+    const { lot } = (await api<{ lot: { id: string } }>(lead, "POST", "/api/lots", lotBody({ supplierId: await newSupplier(), partTypeId: partType.body.partType.id }, 3))).body;
+    await api(lead, "POST", `/api/lots/${lot.id}/units`, { source: "placeholders" });
+    const { units } = (await api<{ units: { id: string }[] }>(lead, "GET", `/api/lots/${lot.id}/units`)).body;
+    // Unit 1 fails every item (the critical one is recorded second), unit 2 fails the minor and the major item, unit 3 passes all.
+    const fails = [["lens-clean", "power", "focus"], ["lens-clean", "focus"], []];
+    for (const [i, unit] of units.entries()) {
+      await api(inspector, "PATCH", `/api/units/${unit.id}`, { serial: `WF-${lot.id.slice(0, 8)}-${i}` });
+      for (const { id } of items) {
+        const res = await api(inspector, "POST", `/api/units/${unit.id}/checklist`, { itemId: id, value: { pass: !fails[i].includes(id) } });
+        expect(res.status, JSON.stringify(res.body)).toBe(200);
+      }
+    }
+    const listed = (await api<{ units: { failed: number; worstFailure: string | null }[] }>(lead, "GET", `/api/lots/${lot.id}/units`)).body.units;
+    expect(listed.map((u) => [u.failed, u.worstFailure])).toEqual([[3, "critical"], [2, "major"], [0, null]]);
+  });
+});
+
 describe("switching rules across lots", () => {
   /**
    * A flex part type like the seeded button flex but without a published rubric: its units count

@@ -118,6 +118,10 @@ export const ROUTES: RouteRow[] = [
   // The first allowed caller promotes the photo (201); the later ones find it already in the gallery (409).
   { method: "POST", path: "/api/gallery", permission: "gallery.edit", body: (ids) => ({ photoId: ids.promotablePhotoId }), allowedStatus: [201, 409] },
   { method: "GET", path: "/api/gallery/:galleryItemId", permission: "gallery.read", allowedStatus: 200 },
+  // Learned suggestions (tests/support/suggestion-access.ts: the workspace's latest training job).
+  { method: "GET", path: "/api/suggestion-models", permission: "suggestions.manage", allowedStatus: 200 },
+  { method: "POST", path: "/api/suggestion-models", permission: "suggestions.manage", body: () => ({}), allowedStatus: 202 },
+  { method: "GET", path: "/api/suggestion-models/jobs/:trainingJobId", permission: "suggestions.manage", allowedStatus: 200 },
   // Every allowed caller names revision 0: the first saves (200), the later ones meet its save (409).
   { method: "PATCH", path: "/api/gallery/:galleryDraftId", permission: "gallery.edit", body: () => ({ revision: 0, caption: unique("Route check caption") }), allowedStatus: [200, 409] },
   { method: "POST", path: "/api/gallery/:galleryPublishId/publish", permission: "gallery.edit", body: () => ({ revision: 0 }), allowedStatus: [200, 409] },

@@ -9,11 +9,12 @@
 import { describe, expect, it } from "vitest";
 import { buildLotPlan } from "@/lib/lots/plan";
 import { lotVerdict, type UnitFinding } from "@/lib/lots/verdict";
+import type { DefectSeverity } from "@/lib/part-types/severity";
 
 const plan = buildLotPlan({ lotSize: 120, level: "II", aqls: { critical: null, major: 1.0, minor: 2.5 }, severity: "normal", inspectAll: false, switchingReason: "" });
 
 /** Units 1..inspected done; `defects` maps sample position → severities found there. */
-function findings(inspected: number, defects: Record<number, ("critical" | "major" | "minor")[]> = {}, total = 20): UnitFinding[] {
+function findings(inspected: number, defects: Record<number, DefectSeverity[]> = {}, total = 20): UnitFinding[] {
   return Array.from({ length: total }, (_, i) => ({
     unitId: `u${i + 1}`,
     sampleIndex: i + 1,
