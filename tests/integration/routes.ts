@@ -95,6 +95,16 @@ export const ROUTES: RouteRow[] = [
   // Every allowed caller sends version 0: the first one saves (200) and takes the unit onto their bench; the later ones meet that lease or its save (409).
   { method: "PUT", path: "/api/photos/:regionPhotoId/regions", permission: "regions.edit", body: () => ({ baseVersion: 0, regions: { regions: [{ id: "route-1", defect: "scratch", shape: { kind: "rect", x: 10, y: 10, width: 20, height: 10 } }], surfaces: [], ruler: null } }), allowedStatus: [200, 409] },
   { method: "POST", path: "/api/photos/:regionPhotoId/suggestions", permission: "regions.edit", body: () => ({ kind: "surface" }), allowedStatus: 200 },
+  // Learned ghosts and the record of decisions (tests/support/suggestion-access.ts): only where the caller may mark now,
+  // so a caller meeting the lease the region save above gave its first caller gets 409, as that save does.
+  { method: "POST", path: "/api/photos/:regionPhotoId/learned-suggestions", permission: "regions.edit", body: () => ({}), allowedStatus: [200, 409] },
+  {
+    method: "POST",
+    path: "/api/photos/:regionPhotoId/suggestion-decisions",
+    permission: "regions.edit",
+    body: (ids) => ({ modelId: ids.suggestionModelId, decisions: [{ defect: "scratch", shape: { kind: "spot", x: 40, y: 40, radius: 4 }, score: 0.5, decision: "dismissed" }] }),
+    allowedStatus: [201, 409],
+  },
   // Part types, lots, units and checklists (tests/support/lot-access.ts).
   { method: "GET", path: "/api/part-types", permission: "part-types.read", allowedStatus: 200 },
   { method: "POST", path: "/api/part-types", permission: "part-types.edit", body: () => ({ name: unique("Route part"), category: "other", views: [{ key: "front", label: "Front", required: true, zones: [] }], defectClasses: [{ key: "scratch", label: "Scratch", severity: "minor" }], checklist: [] }), allowedStatus: 201 },

@@ -1,6 +1,11 @@
-/** Fixture id for the training-job route in the access matrix: the workspace's latest training job. */
+/**
+ * Fixture ids for the learned-suggestion routes in the access matrix: the workspace's latest
+ * training job, and a stored model (not in use, so the Bench never runs it) that decisions can name.
+ */
 import { db } from "@/db/client";
 import { sql } from "drizzle-orm";
+import { suggestionModels } from "@/db/schema";
+import type { RegionModel } from "@/lib/imaging/learned";
 import { api, type Session } from "./http";
 
 export async function suggestionFixtureIds(lead: Session): Promise<Record<string, string>> {
@@ -11,5 +16,19 @@ export async function suggestionFixtureIds(lead: Session): Promise<Record<string
   const result = await db().execute<{ id: string }>(sql`SELECT id FROM pgboss.job WHERE name = 'suggestion-training' AND data->>'workspaceId' = ${me.body.user.workspaceId} ORDER BY created_on DESC LIMIT 1`);
   const trainingJobId = queued.body.jobId ?? result.rows[0]?.id;
   if (!trainingJobId) throw new Error("No training job found for the fixture workspace.");
-  return { trainingJobId };
+  const [model] = await db()
+    .insert(suggestionModels)
+    .values({
+      workspaceId: me.body.user.workspaceId,
+      version: sql`(SELECT coalesce(max(version), 0) + 1 FROM suggestion_models WHERE workspace_id = ${me.body.user.workspaceId})`,
+      model: {} as RegionModel,
+      classCounts: {},
+      sources: { unitPhotos: 0, galleryPhotos: 0, dismissalPhotos: 0, testPhotos: 0, acceptedRegions: 0 },
+      evaluation: { iouThreshold: 0.3, photos: 0, byClass: {} },
+      suggestable: [],
+      decision: "Access-matrix fixture.",
+      trainingMs: 0,
+    })
+    .returning({ id: suggestionModels.id });
+  return { trainingJobId, suggestionModelId: model.id };
 }

@@ -21,13 +21,13 @@ export const isTestPhoto = (photoId: string) => splitByPhoto([photoId], (id) => 
 export type PlantedPhoto = { photoId: string; held: boolean; regions: { defect: string; shape: Shape }[] };
 
 /**
- * A graded unit with `train` training-side and `held` held-out photos, rendered from `firstIndex`.
+ * A unit (graded unless `status` says otherwise) with `train` training-side and `held` held-out photos, rendered from `firstIndex`.
  * `rename` maps a planted class to the class name stored (another workspace's own names).
  */
-export async function createPlantedPhotos(owner: { workspaceId: string; userId: string }, { train, held, firstIndex = 0, width = 960, rename = (d: string) => d }: { train: number; held: number; firstIndex?: number; width?: number; rename?: (defect: string) => string }) {
+export async function createPlantedPhotos(owner: { workspaceId: string; userId: string }, { train, held, firstIndex = 0, width = 960, rename = (d: string) => d, status = "graded" }: { train: number; held: number; firstIndex?: number; width?: number; rename?: (defect: string) => string; status?: "graded" | "on_bench" }) {
   const partType = await createPartType(owner.workspaceId);
   const unit = await createUnit({ workspaceId: owner.workspaceId, partTypeId: partType.id, createdBy: owner.userId });
-  await db().update(units).set({ status: "graded" }).where(eq(units.id, unit.id));
+  if (status !== "on_bench") await db().update(units).set({ status }).where(eq(units.id, unit.id));
   const store = testStore();
   const planted: PlantedPhoto[] = [];
   let wantTrain = train;
