@@ -16,6 +16,7 @@ export type UnitForPhotos = {
   serial: string | null;
   sampleIndex: number;
   lotId: string;
+  lotStatus: (typeof lots.$inferSelect)["status"];
   purchaseRef: string;
   partType: { id: string; name: string; slug: string; category: string; views: ViewDefinition[] };
 };
@@ -29,6 +30,7 @@ export async function getUnitForPhotos({ workspaceId, unitId }: { workspaceId: s
       serial: units.serial,
       sampleIndex: units.sampleIndex,
       lotId: units.lotId,
+      lotStatus: lots.status,
       purchaseRef: lots.purchaseRef,
       partType: { id: partTypes.id, name: partTypes.name, slug: partTypes.slug, category: partTypes.category, views: partTypes.views },
     })

@@ -26,7 +26,7 @@ export default async function UnitPage(props: PageProps<"/units/[id]">) {
   const [results, versions] = await Promise.all([listUnitResults({ workspaceId: user.workspaceId, unitIds: [id] }), listRubricVersions({ workspaceId: user.workspaceId, partTypeId: grading.partTypeId })]);
   // The same JSON the API sends, so the panels' queries start from what they will refetch.
   const initial = JSON.parse(JSON.stringify({ ...detail, results })) as UnitView;
-  const me = { id: user.id, isLead: can(user, "leases.manage"), canRecord: can(user, "units.record"), timeZone: user.timeZone };
+  const me = { id: user.id, roles: user.roles, timeZone: user.timeZone };
   const { views, defectClasses, panelResolution } = grading.partType;
   return (
     <BenchWorkspace
