@@ -7,7 +7,7 @@
  */
 import { DEFAULT_TIME_ZONE, formatTime } from "@/lib/time/format";
 import { STATUS_LABELS } from "@/lib/units/state-machine";
-import type { UnitView } from "./use-unit";
+import type { UnitView } from "@/lib/units/dto";
 
 /** Who looks at the Bench; `timeZone` is the workspace's (times are shown in it). */
 export type BenchPerson = { id: string; isLead: boolean; canRecord: boolean; timeZone?: string };

@@ -16,7 +16,6 @@ import { PhotoList } from "@/components/photos/photo-list";
 import { PhotoStrip } from "@/components/photos/photo-strip";
 import { PhotoUploader } from "@/components/photos/photo-uploader";
 import { LeaseHeartbeat } from "@/components/queue/lease-heartbeat";
-import type { DefectClassDefinition, ViewDefinition } from "@/db/schema/lots";
 import { benchClassOrder, startingClass } from "@/lib/annotate/class-order";
 import { apiFetch } from "@/lib/http/client";
 import { isScreenView } from "@/lib/regions/suggestion-mapping";
@@ -29,8 +28,10 @@ import { TakeNext } from "./take-next";
 import { useToolInHand } from "./tool-in-hand";
 import { UnitHeader } from "./unit-header";
 import { useBenchPhotos } from "./use-bench-photos";
-import { useUnit, type UnitView } from "./use-unit";
+import type { UnitView } from "@/lib/units/dto";
+import { useUnit } from "./use-unit";
 import { unitKeys } from "@/lib/query-keys/units";
+import type { DefectClassDefinition, ViewDefinition } from "@/lib/part-types/schemas";
 
 export type BenchPartType = {
   views: ViewDefinition[];

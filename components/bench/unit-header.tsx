@@ -5,7 +5,8 @@ import Link from "next/link";
 import { useState, type ReactNode } from "react";
 import { apiFetch } from "@/lib/http/client";
 import { STATUS_LABELS } from "@/lib/units/state-machine";
-import { benchLock, useUnit, type UnitView } from "./use-unit";
+import type { UnitView } from "@/lib/units/dto";
+import { benchLock, useUnit } from "./use-unit";
 import { unitKeys } from "@/lib/query-keys/units";
 
 type Person = { id: string; isLead: boolean; canRecord: boolean };

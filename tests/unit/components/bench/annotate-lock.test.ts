@@ -1,7 +1,7 @@
 /** Who may mark regions on the Bench right now (mirrors lib/regions/regions.ts). */
 import { describe, expect, it } from "vitest";
 import { annotateLock, benchNotice, otherHolder } from "@/components/bench/annotate-lock";
-import type { UnitView } from "@/components/bench/use-unit";
+import type { UnitView } from "@/lib/units/dto";
 
 const now = new Date("2026-12-02T10:00:00Z");
 function view(unit: Partial<UnitView["unit"]> = {}, lot: Partial<UnitView["lot"]> = {}): UnitView {
