@@ -16,7 +16,6 @@ import { PhotoList } from "@/components/photos/photo-list";
 import { PhotoStrip } from "@/components/photos/photo-strip";
 import { PhotoUploader } from "@/components/photos/photo-uploader";
 import { LeaseHeartbeat } from "@/components/queue/lease-heartbeat";
-import type { DefectClassDefinition, ViewDefinition } from "@/db/schema/lots";
 import { benchClassOrder, startingClass } from "@/lib/annotate/class-order";
 import { can } from "@/lib/auth/permissions";
 import { apiFetch } from "@/lib/http/client";
@@ -30,8 +29,10 @@ import { useToolInHand } from "./tool-in-hand";
 import { UnitHeader } from "./unit-header";
 import { benchNotice, unitLock, type BenchPerson } from "./unit-lock";
 import { useBenchPhotos } from "./use-bench-photos";
-import { useUnit, type UnitView } from "./use-unit";
+import type { UnitView } from "@/lib/units/dto";
+import { useUnit } from "./use-unit";
 import { unitKeys } from "@/lib/query-keys/units";
+import type { DefectClassDefinition, ViewDefinition } from "@/lib/part-types/schemas";
 
 export type BenchPartType = {
   views: ViewDefinition[];

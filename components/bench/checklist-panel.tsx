@@ -4,13 +4,15 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { useState } from "react";
 import { BatteryCaution, StaticCaution, SuspectCaution } from "@/components/ui/cautions";
 import { FormMessage } from "@/components/ui/form-field";
-import { suspectReading, type ChecklistValue } from "@/lib/checklist/evaluate";
+import { suspectReading } from "@/lib/checklist/evaluate";
 import { apiFetch } from "@/lib/http/client";
 import { STATIC_SENSITIVE, type PartCategory } from "@/lib/part-types/schemas";
 import { ChecklistItemRow } from "./checklist-item-row";
+import type { UnitView } from "@/lib/units/dto";
 import { unitLock, type BenchPerson } from "./unit-lock";
-import { useUnit, type UnitView } from "./use-unit";
+import { useUnit } from "./use-unit";
 import { unitKeys } from "@/lib/query-keys/units";
+import type { ChecklistValue } from "@/lib/units/schemas";
 
 /** Items whose failure means a battery is unsafe to handle normally. */
 const BATTERY_HAZARD_ITEMS = ["swelling", "not-hot"];

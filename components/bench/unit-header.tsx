@@ -6,8 +6,9 @@ import { useState, type ReactNode } from "react";
 import { apiFetch } from "@/lib/http/client";
 import { leaseRunningAt } from "@/lib/units/editability";
 import { STATUS_LABELS } from "@/lib/units/state-machine";
+import type { UnitView } from "@/lib/units/dto";
 import { unitLock, type BenchPerson } from "./unit-lock";
-import { useUnit, type UnitView } from "./use-unit";
+import { useUnit } from "./use-unit";
 import { unitKeys } from "@/lib/query-keys/units";
 
 /** Whose bench, in the status itself ("on your bench", not "on a bench — on your bench"). */

@@ -7,7 +7,7 @@
  */
 import type { Role } from "@/lib/auth/roles";
 import { leaseRunningAt, unitEditability, type UnitEditability, type UnitWork } from "@/lib/units/editability";
-import type { UnitView } from "./use-unit";
+import type { UnitView } from "@/lib/units/dto";
 
 /** Who looks at the Bench; `timeZone` is the workspace's (times are shown in it). */
 export type BenchPerson = { id: string; roles: readonly Role[]; timeZone?: string };

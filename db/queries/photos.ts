@@ -7,7 +7,8 @@ import "server-only";
 import { and, asc, desc, eq, inArray, isNotNull, isNull, ne, sql } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
 import { db, type DbOrTx } from "@/db/client";
-import { lots, partTypes, photos, regions, units, users, type NewPhoto, type Photo, type ViewDefinition } from "@/db/schema";
+import { lots, partTypes, photos, regions, units, users, type NewPhoto, type Photo } from "@/db/schema";
+import type { ViewDefinition } from "@/lib/part-types/schemas";
 
 export type UnitForPhotos = {
   id: string;

@@ -31,6 +31,9 @@ export function listLotUnits({ workspaceId, lotId }: { workspaceId: string; lotI
     .orderBy(asc(units.sampleIndex));
 }
 
+/** One row of a lot's unit list (the Lot screen's table reads this type). */
+export type LotUnitRow = Awaited<ReturnType<typeof listLotUnits>>[number];
+
 export async function countLotUnits({ workspaceId, lotId }: { workspaceId: string; lotId: string }, tx: DbOrTx = db()) {
   const [row] = await tx
     .select({ n: sql<number>`count(*)::int` })

@@ -4,7 +4,7 @@
  */
 import { describe, expect, it } from "vitest";
 import { benchNotice, unitLock, type BenchPerson } from "@/components/bench/unit-lock";
-import type { UnitView } from "@/components/bench/use-unit";
+import type { UnitView } from "@/lib/units/dto";
 
 const now = new Date("2026-12-02T10:00:00Z");
 function view(unit: Partial<UnitView["unit"]> = {}, lot: Partial<UnitView["lot"]> = {}): UnitView {
