@@ -115,6 +115,9 @@ export const ROUTES: RouteRow[] = [
   { method: "POST", path: "/api/lots", permission: "lots.manage", body: (ids) => ({ supplierId: ids.supplierId, partTypeId: ids.lotPartTypeId, purchaseRef: unique("PO-ROUTE"), quantity: 40, receivedOn: "2026-11-20", dueOn: "2026-11-25", inspectionLevel: "II", aqlCritical: null, aqlMajor: 1.0, aqlMinor: 2.5 }), allowedStatus: 201 },
   { method: "GET", path: "/api/lots/:lotId", permission: "lots.read", allowedStatus: 200 },
   { method: "GET", path: "/api/lots/:lotId/units", permission: "lots.read", allowedStatus: 200 },
+  // Reports (issue 17): the lot report PDF and the CSV exports (a filter naming another workspace's supplier is a 404).
+  { method: "GET", path: "/api/lots/:lotId/report", permission: "reports.read", allowedStatus: 200 },
+  { method: "GET", path: "/api/reports/export?kind=defects&supplierId=:supplierId", permission: "reports.read", allowedStatus: 200 },
   { method: "POST", path: "/api/lots/:emptyLotId/units", permission: "lots.manage", body: () => ({ source: "placeholders" }), allowedStatus: 201 },
   // The fixture battery lot has a swollen cell (critical, Re 1): rejected, so it may be returned.
   { method: "POST", path: "/api/lots/:decidableLotId/disposition", permission: "lots.decide", body: () => ({ disposition: "return_to_vendor", reason: "Route check: swollen cell." }), allowedStatus: 200 },
