@@ -1,3 +1,4 @@
+import { hidesUnitsAwaitingRecheck } from "@/lib/gallery/access";
 import { handler, parseQuery } from "@/lib/http/route";
 import { checkReportFilter } from "@/lib/reports/filter-scope";
 import { exportCsv, exportFileName } from "@/lib/reports/exports";
@@ -11,7 +12,7 @@ import { localDate } from "@/lib/time/periods";
 export const GET = handler({ permission: "reports.read" }, async (req, _ctx, user) => {
   const { kind, ...filter } = parseQuery(req, exportQuerySchema);
   await checkReportFilter(user.workspaceId, filter);
-  const body = exportCsv(kind, { workspaceId: user.workspaceId, filter, timeZone: user.timeZone });
+  const body = exportCsv(kind, { workspaceId: user.workspaceId, filter, timeZone: user.timeZone, hideUnitsAwaitingRecheck: hidesUnitsAwaitingRecheck(user.roles) });
   return new Response(body, {
     headers: {
       "Content-Type": "text/csv; charset=utf-8; header=present",
