@@ -55,11 +55,12 @@ async function setUp() {
          ON CONFLICT (workspace_id, slug) DO UPDATE SET name = EXCLUDED.name RETURNING id`,
         [ws, JSON.stringify([{ key: "front", label: "Front", required: true, zones: [] }]), JSON.stringify([{ key: "scratch", label: "Scratch", severity: "minor" }, { key: "dent", label: "Dent", severity: "minor" }])],
       )).rows[0].id as string;
-      const rv = (await c.query(
-        `INSERT INTO rubric_versions (workspace_id, part_type_id, version, status, rubric, published_at, published_by) VALUES ($1, $2, 1, 'published', '{"rules":[],"notes":[]}', now(), $3)
-         ON CONFLICT (part_type_id, version) DO UPDATE SET version = 1 RETURNING id`,
+      // A published version is immutable (a trigger refuses any UPDATE, even a no-op upsert): reuse it when it is there.
+      const existing = (await c.query("SELECT id FROM rubric_versions WHERE part_type_id = $1 AND version = 1", [pt])).rows[0];
+      const rv = (existing ?? (await c.query(
+        `INSERT INTO rubric_versions (workspace_id, part_type_id, version, status, rubric, published_at, published_by) VALUES ($1, $2, 1, 'published', '{"rules":[],"notes":[]}', now(), $3) RETURNING id`,
         [ws, pt, lead],
-      )).rows[0].id as string;
+      )).rows[0]).id as string;
       const sup = (await c.query(`INSERT INTO suppliers (workspace_id, name, contact_email) VALUES ($1, 'Bench supplier (generated)', 'bench@scorecards-bench.example') RETURNING id`, [ws])).rows[0].id as string;
       // 100 lots of 1 000 units each (one transaction: a run either made all of it or nothing).
       await c.query(
