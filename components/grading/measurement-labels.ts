@@ -1,4 +1,4 @@
-import type { DefectClassDefinition, ViewDefinition } from "@/db/schema/lots";
+import type { DefectClassDefinition, ViewDefinition } from "@/lib/part-types/schemas";
 import type { MeasurementLabels } from "./measurement-table";
 
 /** The names a measurement table shows for a part type's defect classes, zones and views (server or browser). */
