@@ -255,7 +255,14 @@ export async function getLastSubmittedAttempt({ workspaceId, userId, at }: { wor
   const [row] = await tx
     .select({ id: calibrationAttempts.id, setId: calibrationAttempts.setId, submittedAt: calibrationAttempts.submittedAt, passed: calibrationAttempts.passed })
     .from(calibrationAttempts)
-    .where(and(eq(calibrationAttempts.workspaceId, workspaceId), eq(calibrationAttempts.userId, userId), eq(calibrationAttempts.status, "submitted"), sql`${calibrationAttempts.submittedAt} <= ${at.toISOString()}::timestamptz`))
+    .where(
+      and(
+        eq(calibrationAttempts.workspaceId, workspaceId),
+        eq(calibrationAttempts.userId, userId),
+        eq(calibrationAttempts.status, "submitted"),
+        sql`${calibrationAttempts.submittedAt} <= ${at.toISOString()}::timestamptz`,
+      ),
+    )
     .orderBy(desc(calibrationAttempts.submittedAt), desc(calibrationAttempts.id))
     .limit(1);
   return row;

@@ -41,11 +41,21 @@ export default async function CalibrationPage() {
               <table className="min-w-full text-sm" data-testid="my-assignments">
                 <thead className="bg-gauge-50 text-left text-xs uppercase tracking-wide text-gauge-600">
                   <tr>
-                    <th scope="col" className="px-4 py-2">Set</th>
-                    <th scope="col" className="px-4 py-2">Items</th>
-                    <th scope="col" className="px-4 py-2">Due</th>
-                    <th scope="col" className="px-4 py-2">Status</th>
-                    <th scope="col" className="px-4 py-2"><span className="sr-only">Action</span></th>
+                    <th scope="col" className="px-4 py-2">
+                      Set
+                    </th>
+                    <th scope="col" className="px-4 py-2">
+                      Items
+                    </th>
+                    <th scope="col" className="px-4 py-2">
+                      Due
+                    </th>
+                    <th scope="col" className="px-4 py-2">
+                      Status
+                    </th>
+                    <th scope="col" className="px-4 py-2">
+                      <span className="sr-only">Action</span>
+                    </th>
                   </tr>
                 </thead>
                 <tbody className="divide-y divide-gauge-100">
@@ -54,7 +64,9 @@ export default async function CalibrationPage() {
                       <td className="px-4 py-2 font-medium">{a.setName}</td>
                       <td className="px-4 py-2 tabular-nums">{a.itemCount}</td>
                       <td className="whitespace-nowrap px-4 py-2 tabular-nums">{a.dueOn}</td>
-                      <td className="px-4 py-2">{a.status === "submitted" ? (a.passed ? "Submitted: passed" : "Submitted: not passed") : a.status === "in_progress" ? "Started (paused)" : "Not started"}</td>
+                      <td className="px-4 py-2">
+                        {a.status === "submitted" ? (a.passed ? "Submitted: passed" : "Submitted: not passed") : a.status === "in_progress" ? "Started (paused)" : "Not started"}
+                      </td>
                       <td className="px-4 py-2 text-right">
                         {a.status === "submitted" && a.attemptId ? (
                           <Link href={`/calibration/attempts/${a.attemptId}`} className="btn-secondary" data-testid="see-result">
@@ -84,19 +96,35 @@ export default async function CalibrationPage() {
           </div>
           {sets.length === 0 ? (
             <EmptyState title="No calibration sets yet" testId="no-sets">
-              A set is 5–50 published gallery examples; each example&apos;s regions and grade are the key. Make one with <Link href="/calibration/sets/new" className="font-medium underline">New set</Link>, then assign it to inspectors with a due date.
+              A set is 5–50 published gallery examples; each example&apos;s regions and grade are the key. Make one with{" "}
+              <Link href="/calibration/sets/new" className="font-medium underline">
+                New set
+              </Link>
+              , then assign it to inspectors with a due date.
             </EmptyState>
           ) : (
             <div className="card overflow-x-auto">
               <table className="min-w-full text-sm" data-testid="set-table">
                 <thead className="bg-gauge-50 text-left text-xs uppercase tracking-wide text-gauge-600">
                   <tr>
-                    <th scope="col" className="px-4 py-2">Set</th>
-                    <th scope="col" className="px-4 py-2">Items</th>
-                    <th scope="col" className="px-4 py-2">Pass at</th>
-                    <th scope="col" className="px-4 py-2">Assigned</th>
-                    <th scope="col" className="px-4 py-2">Submitted</th>
-                    <th scope="col" className="px-4 py-2">Passed</th>
+                    <th scope="col" className="px-4 py-2">
+                      Set
+                    </th>
+                    <th scope="col" className="px-4 py-2">
+                      Items
+                    </th>
+                    <th scope="col" className="px-4 py-2">
+                      Pass at
+                    </th>
+                    <th scope="col" className="px-4 py-2">
+                      Assigned
+                    </th>
+                    <th scope="col" className="px-4 py-2">
+                      Submitted
+                    </th>
+                    <th scope="col" className="px-4 py-2">
+                      Passed
+                    </th>
                   </tr>
                 </thead>
                 <tbody className="divide-y divide-gauge-100">
@@ -108,7 +136,9 @@ export default async function CalibrationPage() {
                         </Link>
                       </td>
                       <td className="px-4 py-2 tabular-nums">{s.itemCount}</td>
-                      <td className="px-4 py-2">grades {percent(s.minGradeAgreement)}, IoU {s.minMeanIou.toFixed(2)}</td>
+                      <td className="px-4 py-2">
+                        grades {percent(s.minGradeAgreement)}, IoU {s.minMeanIou.toFixed(2)}
+                      </td>
                       <td className="px-4 py-2 tabular-nums">{s.assigned}</td>
                       <td className="px-4 py-2 tabular-nums">{s.submitted}</td>
                       <td className="px-4 py-2 tabular-nums">{s.passed}</td>
