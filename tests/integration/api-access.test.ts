@@ -32,7 +32,20 @@ async function fixtureIds(lead: Session): Promise<Ids> {
   const emails = await api<{ emails: { id: string }[] }>(lead, "GET", "/api/outbox");
   const people = await api<{ people: { id: string; roles: string[] }[] }>(lead, "GET", "/api/people");
   const someone = people.body.people.find((p) => !p.roles.includes("lead"))!;
-  return { invitedPersonId: invited.body.person.id, personId: someone.id, supplierId: supplier.body.supplier.id, emailId: emails.body.emails[0].id, ...(await gradingFixtureIds(lead)), ...(await galleryFixtureIds(lead)), ...(await queueFixtureIds(lead)), ...(await recheckFixtureIds(lead)), ...(await photoFixtureIds(lead)), ...(await regionFixtureIds(lead)), ...(await suggestionFixtureIds(lead)), ...(await lotFixtureIds(lead, supplier.body.supplier.id)) };
+  return {
+    invitedPersonId: invited.body.person.id,
+    personId: someone.id,
+    supplierId: supplier.body.supplier.id,
+    emailId: emails.body.emails[0].id,
+    ...(await gradingFixtureIds(lead)),
+    ...(await galleryFixtureIds(lead)),
+    ...(await queueFixtureIds(lead)),
+    ...(await recheckFixtureIds(lead)),
+    ...(await photoFixtureIds(lead)),
+    ...(await regionFixtureIds(lead)),
+    ...(await suggestionFixtureIds(lead)),
+    ...(await lotFixtureIds(lead, supplier.body.supplier.id)),
+  };
 }
 
 beforeAll(async () => {
