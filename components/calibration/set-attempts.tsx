@@ -2,6 +2,7 @@ import type { CalibrationSummary } from "@/lib/calibration/score-attempt";
 import type { CalibrationItemScore } from "@/lib/calibration/score-item";
 import type { ItemDifficulty } from "@/lib/calibration/item-difficulty";
 import { percent, twoPlaces } from "@/lib/calibration/format";
+import { TableHead } from "@/components/ui/table-head";
 
 type AttemptRow = {
   id: string;
@@ -33,30 +34,13 @@ export function SetAttempts({ attempts, itemCount, mostMissed }: { attempts: Att
         <>
           <div className="card overflow-x-auto">
             <table className="min-w-full text-sm" data-testid="attempt-table">
-              <thead className="bg-gauge-50 text-left text-xs uppercase tracking-wide text-gauge-600">
-                <tr>
-                  <th scope="col" className="px-3 py-2">
-                    Person
+              <TableHead columns={["Person", "Result", "Grades as key", "Weighted kappa", "Mean IoU by class"]} cellClassName="px-3 py-2">
+                {positions.map((p) => (
+                  <th key={p} scope="col" className="px-2 py-2 text-center">
+                    #{p}
                   </th>
-                  <th scope="col" className="px-3 py-2">
-                    Result
-                  </th>
-                  <th scope="col" className="px-3 py-2">
-                    Grades as key
-                  </th>
-                  <th scope="col" className="px-3 py-2">
-                    Weighted kappa
-                  </th>
-                  <th scope="col" className="px-3 py-2">
-                    Mean IoU by class
-                  </th>
-                  {positions.map((p) => (
-                    <th key={p} scope="col" className="px-2 py-2 text-center">
-                      #{p}
-                    </th>
-                  ))}
-                </tr>
-              </thead>
+                ))}
+              </TableHead>
               <tbody className="divide-y divide-gauge-100">
                 {attempts.map((a) => {
                   const byPosition = new Map(a.items.map((i) => [i.position, i]));

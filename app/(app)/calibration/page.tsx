@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { StartAttemptButton } from "@/components/calibration/start-attempt-button";
 import { EmptyState } from "@/components/ui/empty-state";
+import { TableHead } from "@/components/ui/table-head";
 import { can } from "@/lib/auth/permissions";
 import { requirePageUser } from "@/lib/auth/require-user";
 import { listMyAssignments } from "@/lib/calibration/attempts";
@@ -39,25 +40,17 @@ export default async function CalibrationPage() {
           ) : (
             <div className="card overflow-x-auto">
               <table className="min-w-full text-sm" data-testid="my-assignments">
-                <thead className="bg-gauge-50 text-left text-xs uppercase tracking-wide text-gauge-600">
-                  <tr>
-                    <th scope="col" className="px-4 py-2">
-                      Set
-                    </th>
-                    <th scope="col" className="px-4 py-2">
-                      Items
-                    </th>
-                    <th scope="col" className="px-4 py-2">
-                      Due
-                    </th>
-                    <th scope="col" className="px-4 py-2">
-                      Status
-                    </th>
-                    <th scope="col" className="px-4 py-2">
-                      <span className="sr-only">Action</span>
-                    </th>
-                  </tr>
-                </thead>
+                <TableHead
+                  columns={[
+                    "Set",
+                    "Items",
+                    "Due",
+                    "Status",
+                    <span key="action" className="sr-only">
+                      Action
+                    </span>,
+                  ]}
+                />
                 <tbody className="divide-y divide-gauge-100">
                   {assignments.map((a) => (
                     <tr key={a.id} data-testid="assignment-row" data-set-name={a.setName} data-status={a.status}>
@@ -105,28 +98,7 @@ export default async function CalibrationPage() {
           ) : (
             <div className="card overflow-x-auto">
               <table className="min-w-full text-sm" data-testid="set-table">
-                <thead className="bg-gauge-50 text-left text-xs uppercase tracking-wide text-gauge-600">
-                  <tr>
-                    <th scope="col" className="px-4 py-2">
-                      Set
-                    </th>
-                    <th scope="col" className="px-4 py-2">
-                      Items
-                    </th>
-                    <th scope="col" className="px-4 py-2">
-                      Pass at
-                    </th>
-                    <th scope="col" className="px-4 py-2">
-                      Assigned
-                    </th>
-                    <th scope="col" className="px-4 py-2">
-                      Submitted
-                    </th>
-                    <th scope="col" className="px-4 py-2">
-                      Passed
-                    </th>
-                  </tr>
-                </thead>
+                <TableHead columns={["Set", "Items", "Pass at", "Assigned", "Submitted", "Passed"]} />
                 <tbody className="divide-y divide-gauge-100">
                   {sets.map((s) => (
                     <tr key={s.id} data-testid="set-row">
