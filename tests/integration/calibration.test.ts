@@ -256,6 +256,20 @@ describe("taking a set blind, then the score and the key", () => {
     expect((await api(inspector, "POST", `/api/calibration/attempts/${attemptId}/submit`)).status).toBe(409);
   });
 
+  it("touches no real unit, lot or queue: the taker's attempt leaves nothing outside Calibration", async () => {
+    // The taker is a fresh account that did nothing but this attempt: anything written in their name
+    // outside the calibration tables came from taking the set.
+    const [row] = (
+      await db().execute<{ grades: number; measurements: number; regionSets: number; leases: number; activity: string[] }>(sql`SELECT
+        (SELECT count(*)::int FROM grades WHERE graded_by = ${inspectorId}) AS "grades",
+        (SELECT count(*)::int FROM measurements WHERE created_by = ${inspectorId}) AS "measurements",
+        (SELECT count(*)::int FROM region_sets WHERE updated_by = ${inspectorId}) AS "regionSets",
+        (SELECT count(*)::int FROM units WHERE lease_holder_id = ${inspectorId}) AS "leases",
+        (SELECT coalesce(array_agg(DISTINCT subject_type), '{}') FROM activity_log WHERE actor_id = ${inspectorId}) AS "activity"`)
+    ).rows;
+    expect(row).toEqual({ grades: 0, measurements: 0, regionSets: 0, leases: 0, activity: ["calibration_attempt"] });
+  });
+
   it("shows the trainer the attempt per person and the item most missed", async () => {
     const res = await api<{ attempts: { userId: string; passed: boolean }[]; mostMissed: { position: number; missedAttempts: number }[]; items: { keyGrade: string }[] }>(
       trainer,
