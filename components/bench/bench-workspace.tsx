@@ -1,6 +1,7 @@
 "use client";
 
 import { useQuery, useQueryClient } from "@tanstack/react-query";
+import { UnitCertificates } from "@/components/certificates/unit-certificates";
 import { useMemo, useState } from "react";
 import type { AllowedDefect } from "@/components/annotate/types";
 import { AddToGallery } from "@/components/gallery/add-to-gallery";
@@ -47,6 +48,8 @@ type BenchWorkspaceProps = {
   initialPhotoId: string | null;
   /** May add a graded unit's photo to the Gallery (trainers and leads). */
   canPromote: boolean;
+  /** May issue and revoke condition certificates (leads). */
+  canCertify?: boolean;
 };
 
 const BANNER_TONE = { held: "border-signal-500 bg-signal-50 text-signal-700", closed: "border-gauge-300 bg-gauge-50 text-gauge-800", "view-only": "border-gauge-300 bg-gauge-50 text-gauge-800" } as const;
@@ -58,7 +61,7 @@ const BANNER_TONE = { held: "border-signal-500 bg-signal-50 text-signal-700", cl
  * photos) in a column that folds. Landscape screens put the panels beside the canvas, portrait
  * ones below it. Owns the selected photo and the tool in hand; the panels own their own data.
  */
-export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersions, initialPhotoId, canPromote }: BenchWorkspaceProps) {
+export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersions, initialPhotoId, canPromote, canCertify = false }: BenchWorkspaceProps) {
   const unitId = initial.unit.id;
   const queryClient = useQueryClient();
   const { data: view } = useUnit(unitId, initial);
@@ -156,6 +159,7 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
             framed={false}
           />
           <GradeHistory unitId={unitId} framed={false} />
+          {canCertify && <UnitCertificates unitId={unitId} graded={current !== null && current !== undefined} />}
           <GradeWhatIf unitId={unitId} versions={rubricVersions} framed={false} />
         </div>
       ),

@@ -5,3 +5,4 @@ export * from "./regions";
 export * from "./grading";
 export * from "./gallery";
 export * from "./suggestions";
+export * from "./certificates";
