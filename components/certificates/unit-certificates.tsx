@@ -3,17 +3,16 @@
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { useState } from "react";
 import { useDateTime } from "@/components/ui/time-zone";
-import { apiFetch, ApiError } from "@/lib/http/client";
+import { apiFetch, type ApiError } from "@/lib/http/client";
 import { unitKeys } from "@/lib/query-keys/units";
-import { groupedHash } from "@/lib/reports/certificate-content";
 
-type CertificateRow = { id: string; shortCode: string; contentHash: string; issuedAt: string; issuedByName: string; revokedAt: string | null; revokeReason: string | null; grade: string };
+type CertificateRow = { id: string; shortCode: string; contentHash: string; issuedAt: string; issuedByName: string; revokedAt: string | null; revokeReason: string | null; grade: string; verificationUrl: string };
 
 /** A lead's condition certificates of the unit: issue one for the current grade, download, revoke with a reason. */
 export function UnitCertificates({ unitId, graded }: { unitId: string; graded: boolean }) {
   const queryClient = useQueryClient();
   const formatDateTime = useDateTime();
-  const key = [...unitKeys.one(unitId), "certificates"] as const;
+  const key = unitKeys.certificates(unitId);
   const list = useQuery({ queryKey: key, queryFn: () => apiFetch<{ certificates: CertificateRow[] }>(`/api/units/${unitId}/certificates`) });
   const [revoking, setRevoking] = useState<string | null>(null);
   const [reason, setReason] = useState("");
@@ -52,12 +51,16 @@ export function UnitCertificates({ unitId, graded }: { unitId: string; graded: b
               {c.revokedAt ? <span className="text-fault-700">revoked</span> : <span className="text-ok-600">valid</span>}
             </div>
             <p className="text-xs text-gauge-600">
-              {formatDateTime(c.issuedAt)} by {c.issuedByName} · hash <span className="font-mono">{groupedHash(c.contentHash).slice(0, 17)}…</span>
+              {formatDateTime(c.issuedAt)} by {c.issuedByName} · hash <span className="font-mono">{c.contentHash.slice(0, 8)} {c.contentHash.slice(8, 16)}…</span>
             </p>
             {c.revokeReason && <p className="text-xs">Revoked: {c.revokeReason}</p>}
             <div className="mt-1 flex gap-3">
               <a className="text-gauge-700 underline" href={`/api/certificates/${c.id}/pdf`} download>
                 PDF
+              </a>
+              {/* The address the QR code holds: what a buyer's phone opens, signed out. */}
+              <a className="text-gauge-700 underline" href={c.verificationUrl} target="_blank" rel="noreferrer" data-testid="verification-link">
+                Verification page
               </a>
               {!c.revokedAt && revoking !== c.id && (
                 <button type="button" className="text-fault-700 underline" onClick={() => setRevoking(c.id)}>

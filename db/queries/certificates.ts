@@ -42,7 +42,7 @@ export async function insertCertificate(tx: DbOrTx, row: NewCertificate) {
 
 export function listUnitCertificates({ workspaceId, unitId }: UnitKey, tx: DbOrTx = db()) {
   return tx
-    .select({ id: certificates.id, shortCode: certificates.shortCode, contentHash: certificates.contentHash, issuedAt: certificates.issuedAt, issuedByName: users.name, revokedAt: certificates.revokedAt, revokeReason: certificates.revokeReason, grade: sql<string>`${certificates.content}->>'grade'` })
+    .select({ id: certificates.id, shortCode: certificates.shortCode, contentHash: certificates.contentHash, issuedAt: certificates.issuedAt, issuedByName: users.name, linkExpiresAt: certificates.linkExpiresAt, revokedAt: certificates.revokedAt, revokeReason: certificates.revokeReason, grade: sql<string>`${certificates.content}->>'grade'` })
     .from(certificates)
     .innerJoin(users, eq(users.id, certificates.issuedBy))
     .where(and(eq(certificates.workspaceId, workspaceId), eq(certificates.unitId, unitId)))

@@ -15,7 +15,7 @@ import "server-only";
 import { randomUUID } from "node:crypto";
 import { transaction } from "@/db/client";
 import { logActivity } from "@/db/queries/activity";
-import { getCertificate, getUnitForCertificate, insertCertificate, revokeCertificateRow } from "@/db/queries/certificates";
+import { getCertificate, getUnitForCertificate, insertCertificate, listUnitCertificates, revokeCertificateRow } from "@/db/queries/certificates";
 import { lockUnit } from "@/db/queries/units";
 import { listRegionsOfPhotos } from "@/db/queries/grading";
 import type { Certificate } from "@/db/schema";
@@ -37,6 +37,13 @@ export const CERTIFICATE_LINK_YEARS = 10;
 export function verificationUrl(certificate: Pick<Certificate, "id" | "linkExpiresAt">): string {
   const token = signPublicLink("certificate", certificate.id, { secret: env().NEXTAUTH_SECRET, expiresAt: certificate.linkExpiresAt });
   return `${env().APP_URL.replace(/\/$/, "")}/verify/${token}`;
+}
+
+/** The unit's certificates, newest first, each with the address its QR code holds (404 for another workspace's unit). */
+export async function listCertificatesOfUnit(user: SessionUser, unitId: string) {
+  if (!(await getUnitForCertificate({ workspaceId: user.workspaceId, unitId }))) throw notFound("That unit");
+  const rows = await listUnitCertificates({ workspaceId: user.workspaceId, unitId });
+  return rows.map(({ linkExpiresAt, ...row }) => ({ ...row, verificationUrl: verificationUrl({ id: row.id, linkExpiresAt }) }));
 }
 
 type UnitFacts = NonNullable<Awaited<ReturnType<typeof getUnitForCertificate>>>;

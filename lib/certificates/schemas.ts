@@ -12,3 +12,6 @@ export const revokeCertificateSchema = z
       .max(REVOKE_REASON_MAX, `Keep the reason under ${REVOKE_REASON_MAX} characters.`),
   })
   .strict();
+
+/** Issuing takes nothing from the request: the certificate states the unit as it stands. */
+export const issueCertificateSchema = z.object({}).strict();

@@ -13,15 +13,19 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db/client";
 import { certificates } from "@/db/schema";
 import { signPublicLink } from "@/lib/reports/public-links";
+import { putObject } from "@/lib/storage/s3";
+import sharp from "sharp";
 import { createPhoto, insertRubricVersion, saveRegions, workspaceIdOf, type FixtureRegion } from "../support/grading";
 import { api, BASE_URL, signIn, type Session } from "../support/http";
 import { flatText, pdfText } from "../support/pdf-text";
+import { testStore } from "../support/photos";
 
 const SURFACE: FixtureRegion = { clientId: "surface", role: "surface", shape: { kind: "polygon", points: [[50, 50], [250, 50], [250, 150], [50, 150]] } };
 const SCRATCH: FixtureRegion = { clientId: "scratch", role: "defect", defect: "scratch", shape: { kind: "rect", x: 60, y: 60, width: 30, height: 10 } };
 
 let lead: Session;
 let inspector: Session;
+let foreignLead: Session;
 let owner: { workspaceId: string; userId: string };
 const tag = Date.now().toString(36);
 let unitIds: string[] = [];
@@ -41,6 +45,7 @@ async function publicPage(path: string) {
 beforeAll(async () => {
   lead = await signIn("lead@vellmoor.example");
   inspector = await signIn("inspector@vellmoor.example");
+  foreignLead = await signIn("lead@quillfen.example");
   owner = await workspaceIdOf("lead@vellmoor.example");
   const { partType } = await ok(
     api<{ partType: { id: string } }>(lead, "POST", "/api/part-types", {
@@ -70,6 +75,9 @@ beforeAll(async () => {
   await ok(api(inspector, "POST", `/api/units/${unitId}/checklist`, { itemId: "power", value: { pass: true } }), "checklist");
   const photo = await createPhoto({ workspaceId: owner.workspaceId, unitId, uploadedBy: owner.userId, viewKey: "back" });
   await saveRegions({ workspaceId: owner.workspaceId, photoId: photo.id, authorId: owner.userId, regions: [SURFACE, SCRATCH] });
+  // A real thumbnail in the store, so the certificate draws the view with its regions.
+  const thumbnail = await sharp({ create: { width: 300, height: 200, channels: 3, background: "#8a9199" } }).webp().toBuffer();
+  await putObject(testStore(), photo.thumbnailKey!, thumbnail, { contentType: "image/webp" });
   const measured = await ok(api<{ measurement: { id: string } }>(inspector, "POST", `/api/units/${unitId}/measure`), "measure");
   await ok(api(inspector, "POST", `/api/units/${unitId}/grades`, { measurementId: measured.measurement.id, decision: "accept" }), "grade", 201);
 });
@@ -88,6 +96,32 @@ describe("condition certificates", () => {
     expect(text).toContain(`CRT-${tag}`);
     expect(text).toContain(certificate.shortCode);
     expect(text).toContain(row.contentHash.slice(0, 8));
+    expect(text).not.toContain("Photo not available"); // the view was drawn from its thumbnail
+
+    // The unit's list gives the address the QR code holds; it opens the page signed out.
+    const list = await ok(api<{ certificates: { id: string; verificationUrl: string; revokedAt: string | null }[] }>(lead, "GET", `/api/units/${unitIds[0]}/certificates`), "list");
+    const listed = list.certificates.find((c) => c.id === certificate.id)!;
+    expect(listed.revokedAt).toBeNull();
+    const qrPath = new URL(listed.verificationUrl).pathname;
+    expect(qrPath).toMatch(/^\/verify\/[^/]+$/);
+    const page = await publicPage(qrPath);
+    expect(page.status).toBe(200);
+    expect(page.html).toContain(row.contentHash.slice(0, 8));
+  });
+
+  it("another workspace's lead gets 404 for the unit, the PDF and revoking; an issue request with fields is a 400 and stores nothing", async () => {
+    const { certificate } = await ok(api<{ certificate: { id: string } }>(lead, "POST", `/api/units/${unitIds[0]}/certificates`, {}), "issue", 201);
+    expect((await api(foreignLead, "GET", `/api/units/${unitIds[0]}/certificates`)).status).toBe(404);
+    expect((await api(foreignLead, "POST", `/api/units/${unitIds[0]}/certificates`, {})).status).toBe(404);
+    expect((await api(foreignLead, "GET", `/api/certificates/${certificate.id}/pdf`)).status).toBe(404);
+    expect((await api(foreignLead, "POST", `/api/certificates/${certificate.id}/revoke`, { reason: "Not mine to revoke." })).status).toBe(404);
+    const [stillValid] = await db().select().from(certificates).where(eq(certificates.id, certificate.id));
+    expect(stillValid.revokedAt).toBeNull();
+
+    const before = await db().select({ id: certificates.id }).from(certificates).where(eq(certificates.unitId, unitIds[0]));
+    const extra = await api<{ error: { message: string } }>(lead, "POST", `/api/units/${unitIds[0]}/certificates`, { grade: "A" });
+    expect(extra.status).toBe(400);
+    expect(await db().select({ id: certificates.id }).from(certificates).where(eq(certificates.unitId, unitIds[0]))).toHaveLength(before.length);
   });
 
   it("the verification page, signed out, shows the facts and the hash by token and by code; tampered or expired tokens are refused", async () => {

@@ -123,7 +123,7 @@ beforeAll(async () => {
 
 describe("CSV exports", () => {
   it("units: one row per sampled unit, equal to the database row by row", async () => {
-    const { fields, rows } = await csv(auditor, `kind=units&supplierId=${ids.supplierId}`);
+    const { fields, rows } = await csv(lead, `kind=units&supplierId=${ids.supplierId}`);
     expect(fields.slice(0, 4)).toEqual(["unit_id", "lot_id", "purchase_ref", "supplier"]);
     const dbUnits = await db().select().from(units).where(eq(units.lotId, ids.lotId)).orderBy(asc(units.sampleIndex));
     expect(rows.map((r) => r.unit_id)).toEqual(dbUnits.map((u) => u.id));
@@ -178,6 +178,17 @@ describe("CSV exports", () => {
     expect(empty.fields[0]).toBe("unit_id");
   });
 
+  it("auditors (who recheck blind) get the lots export and a clear 403 for unit by unit exports and lot reports", async () => {
+    const { rows: lotRows } = await csv(auditor, `kind=lots&supplierId=${ids.supplierId}`);
+    expect(lotRows.map((r) => r.lot_id)).toEqual([ids.lotId]);
+    for (const kind of ["units", "grades", "defects"]) {
+      const refused = await api<{ error: { message: string } }>(auditor, "GET", `/api/reports/export?kind=${kind}&supplierId=${ids.supplierId}`);
+      expect(refused.status).toBe(403);
+      expect(refused.body.error.message).toMatch(/rechecks graded units blind/);
+    }
+    expect((await api(auditor, "GET", `/api/lots/${ids.lotId}/report`)).status).toBe(403);
+  });
+
   it("bad filters get a clear 400; another workspace's supplier a 404", async () => {
     const unknownKind = await api<{ error: { message: string } }>(lead, "GET", "/api/reports/export?kind=invoices");
     expect(unknownKind.status).toBe(400);
@@ -194,7 +205,7 @@ describe("CSV exports", () => {
 
 describe("the lot inspection report (PDF)", () => {
   it("states the lot, the decision and every sampled unit as the database has them, with the annotated photo", async () => {
-    const res = await download(auditor, `/api/lots/${ids.lotId}/report`);
+    const res = await download(lead, `/api/lots/${ids.lotId}/report`);
     expect(res.status).toBe(200);
     expect(res.headers.get("content-type")).toBe("application/pdf");
     const pages = await pdfText(res.bytes);

@@ -116,14 +116,16 @@ export const ROUTES: RouteRow[] = [
   { method: "GET", path: "/api/lots/:lotId", permission: "lots.read", allowedStatus: 200 },
   { method: "GET", path: "/api/lots/:lotId/units", permission: "lots.read", allowedStatus: 200 },
   // Reports (issue 17): the lot report PDF and the CSV exports (a filter naming another workspace's supplier is a 404).
-  { method: "GET", path: "/api/lots/:lotId/report", permission: "reports.read", allowedStatus: 200 },
+  { method: "GET", path: "/api/lots/:lotId/report", permission: "reports.units", allowedStatus: 200 },
   // Condition certificates: the fixture unit is graded; issuing answers 201, or 409 while its serial is missing.
   { method: "GET", path: "/api/units/:unitId/certificates", permission: "certificates.manage", allowedStatus: 200 },
   { method: "POST", path: "/api/units/:unitId/certificates", permission: "certificates.manage", body: () => ({}), allowedStatus: [201, 409] },
   // No certificate fixture: an allowed caller gets the not-found answer (certificates.test.ts covers the rest).
   { method: "GET", path: "/api/certificates/00000000-0000-4000-8000-000000000001/pdf", permission: "certificates.manage", allowedStatus: 404 },
   { method: "POST", path: "/api/certificates/00000000-0000-4000-8000-000000000001/revoke", permission: "certificates.manage", body: () => ({ reason: "Route check." }), allowedStatus: 404 },
-  { method: "GET", path: "/api/reports/export?kind=defects&supplierId=:supplierId", permission: "reports.read", allowedStatus: 200 },
+  // Unit by unit exports are for leads (auditors recheck blind); the lots export for every report reader.
+  { method: "GET", path: "/api/reports/export?kind=defects&supplierId=:supplierId", permission: "reports.units", allowedStatus: 200 },
+  { method: "GET", path: "/api/reports/export?kind=lots&supplierId=:supplierId", permission: "reports.read", allowedStatus: 200 },
   { method: "POST", path: "/api/lots/:emptyLotId/units", permission: "lots.manage", body: () => ({ source: "placeholders" }), allowedStatus: 201 },
   // The fixture battery lot has a swollen cell (critical, Re 1): rejected, so it may be returned.
   { method: "POST", path: "/api/lots/:decidableLotId/disposition", permission: "lots.decide", body: () => ({ disposition: "return_to_vendor", reason: "Route check: swollen cell." }), allowedStatus: 200 },
