@@ -12,7 +12,8 @@ export default defineConfig({
   retries: 0,
   timeout: 60_000,
   expect: { timeout: 10_000 },
-  reporter: [["list"]],
+  // scripts/test.ts also asks for a JSON report, to name the failed tests in its closing summary.
+  reporter: process.env.TEST_E2E_REPORT ? [["list"], ["json", { outputFile: process.env.TEST_E2E_REPORT }]] : [["list"]],
   outputDir: process.env.TEST_OUTPUT_DIR ?? ".data/test/playwright",
   use: {
     baseURL,

@@ -8,6 +8,7 @@
  */
 import fs from "node:fs";
 import { buildIfStale } from "./lib/build";
+import { playwrightFailures, vitestFailures } from "./lib/failures";
 import { ensureChromium } from "./lib/debian";
 import { killTree, run, start, tsxArgs, waitForExit, webServerArgs } from "./lib/children";
 import { isPortFree, portTakenMessage, waitFor } from "./lib/ports";
@@ -26,9 +27,10 @@ const coverage = process.argv.includes("--coverage");
 // With --only, further arguments go to the runner: `npm run test:integration -- tests/integration/queue-api.test.ts`.
 const passThrough = only ? process.argv.slice(onlyIndex + 2).filter((arg) => arg !== "--coverage") : [];
 const failures: string[] = [];
+const failedTests: string[] = [];
 const timings: string[] = [];
 
-async function step(name: string, fn: () => Promise<void>) {
+async function step(name: string, fn: () => Promise<void>, failedTestsOf?: () => string[]) {
   const t0 = Date.now();
   console.log(`\n━━ ${name} ━━`);
   try {
@@ -36,11 +38,17 @@ async function step(name: string, fn: () => Promise<void>) {
   } catch (err) {
     failures.push(name);
     console.error(`✗ ${name}: ${err instanceof Error ? err.message.split("\n")[0] : err}`);
+    if (failedTestsOf) failedTests.push(...failedTestsOf().map((line) => `${name}: ${line}`));
   }
   timings.push(`${name}: ${((Date.now() - t0) / 1000).toFixed(1)} s`);
 }
 
 const bin = (name: string) => `node_modules/.bin/${name}`;
+/** The usual console output plus a JSON report the summary reads the failed tests from (an old one is removed first, so it is never read by mistake). */
+function vitestReportArgs(reportFile: string) {
+  fs.rmSync(reportFile, { force: true });
+  return ["--reporter=default", "--reporter=json", `--outputFile.json=${reportFile}`];
+}
 
 async function main() {
   const t0 = Date.now();
@@ -49,8 +57,9 @@ async function main() {
     await step("typecheck", () => run("npm", ["run", "--silent", "typecheck"], { label: "typecheck" }));
   }
   if (wants("unit")) {
-    const args = ["run", "--project", "unit", ...(coverage ? ["--coverage"] : [])];
-    await step(coverage ? "unit tests with coverage" : "unit tests", () => run(bin("vitest"), args, { label: "unit" }));
+    const report = `${testSettings().dataDir}/unit-report.json`;
+    const args = ["run", "--project", "unit", ...(coverage ? ["--coverage"] : []), ...vitestReportArgs(report)];
+    await step(coverage ? "unit tests with coverage" : "unit tests", () => run(bin("vitest"), args, { label: "unit" }), () => vitestFailures(report));
   }
 
   if (wants("integration") || wants("e2e")) {
@@ -107,8 +116,17 @@ async function main() {
       });
       await waitFor(async () => (await fetch(`${settings.app.url}/api/health`)).ok, { timeoutMs: 60_000, what: "The test web server" });
       const testEnv = { ...env, NODE_ENV: "test", TEST_CONTROL_URL: controls.url, TEST_DATA_DIR: settings.dataDir, TEST_DIST_DIR: testDistDir() };
-      if (wants("integration")) await step("integration tests", () => run(bin("vitest"), ["run", "--project", "integration", ...passThrough], { env: testEnv, label: "integration" }));
-      if (wants("e2e")) await step("browser tests", () => run(bin("playwright"), ["test", ...passThrough], { env: testEnv, label: "e2e" }));
+      const integrationReport = `${settings.dataDir}/integration-report.json`;
+      const e2eReport = `${settings.dataDir}/e2e-report.json`;
+      if (wants("integration")) {
+        const args = ["run", "--project", "integration", ...vitestReportArgs(integrationReport), ...passThrough];
+        await step("integration tests", () => run(bin("vitest"), args, { env: testEnv, label: "integration" }), () => vitestFailures(integrationReport));
+      }
+      if (wants("e2e")) {
+        fs.rmSync(e2eReport, { force: true });
+        const env = { ...testEnv, TEST_E2E_REPORT: e2eReport };
+        await step("browser tests", () => run(bin("playwright"), ["test", ...passThrough], { env, label: "e2e" }), () => playwrightFailures(e2eReport));
+      }
     } catch (err) {
       failures.push("test services");
       console.error(err instanceof Error ? err.message : err);
@@ -119,6 +137,7 @@ async function main() {
 
   console.log(`\n━━ summary (${((Date.now() - t0) / 1000).toFixed(0)} s) ━━\n${timings.join("\n")}`);
   if (failures.length) {
+    if (failedTests.length) console.error(`\nFailed tests:\n${failedTests.map((line) => `  ${line}`).join("\n")}`);
     console.error(`\nFAILED: ${failures.join(", ")}`);
     process.exit(1);
   }

@@ -1,14 +1,2 @@
-/**
- * mulberry32: a small deterministic PRNG (uniform in [0, 1)), so generated test images, shapes
- * and benchmark scenes are the same on every run and a failure can be reproduced from its seed.
- */
-export function mulberry32(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+/** The seeded generator tests and benches share; it lives in lib/random.ts with the others. */
+export { mulberry32 } from "@/lib/random";

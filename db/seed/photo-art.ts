@@ -8,6 +8,7 @@
  */
 import sharp from "sharp";
 import type { Shape } from "@/lib/geometry/shape";
+import { xorshift32 } from "@/lib/random";
 import { plantDefect, type Box, type Drawn, type PlantedDefect, type PlantedRegion } from "./photo-defects";
 
 export type { PlantedDefect, PlantedRegion } from "./photo-defects";
@@ -23,17 +24,8 @@ export type PartPhotoSpec = {
 };
 
 
-function random(seed: number): () => number {
-  let state = seed >>> 0 || 1;
-  return () => {
-    state ^= state << 13;
-    state >>>= 0;
-    state ^= state >>> 17;
-    state ^= state << 5;
-    state >>>= 0;
-    return state / 0x1_0000_0000;
-  };
-}
+/** The renders' generator: xorshift32, as the seed has always drawn with. */
+const random = xorshift32;
 
 const box = (W: number, H: number, wShare: number, aspect: number): Box => {
   const w = W * wShare;

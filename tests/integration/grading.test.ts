@@ -99,7 +99,8 @@ describe("measuring a unit", () => {
     expect((await api(other, "GET", `/api/units/${unit.id}/measure?jobId=${queued.body.jobId}`)).status).toBe(404);
     // The worker process started by the test run picks the job up (pg-boss + NOTIFY).
     let done: { measurement: Measured["measurement"] | null; job?: { state: string } } = { measurement: null };
-    for (let i = 0; i < 150 && !done.measurement; i++) {
+    // The worker stores the result before pg-boss marks the job completed, so wait for both.
+    for (let i = 0; i < 150 && !(done.measurement && done.job?.state === "completed"); i++) {
       await new Promise((r) => setTimeout(r, 200));
       done = (await api<typeof done>(inspector, "GET", `/api/units/${unit.id}/measure?jobId=${queued.body.jobId}`)).body;
     }

@@ -21,17 +21,8 @@ const MIN_COVER_SHARE = 0.25;
 const MIN_REGION_SHARE = 0.5;
 const MIN_INSIDE = 0.5;
 
-/** mulberry32: a small seeded generator, so training is reproducible from its seed. */
-export function seededRandom(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+/** mulberry32 (lib/random.ts), so training is reproducible from its seed. */
+export { mulberry32 as seededRandom } from "@/lib/random";
 
 export function shuffled<T>(items: readonly T[], random: () => number): T[] {
   const copy = items.slice();
