@@ -52,6 +52,7 @@ export function VerificationView({ answer }: { answer: VerificationAnswer }) {
       )}
       <section>
         <h2 className="text-sm font-semibold">Functional checks</h2>
+        {c.checklist.length === 0 && <p className="text-sm text-gauge-700">This part type has no functional checks.</p>}
         <ul className="text-sm">
           {c.checklist.map((item, i) => (
             <li key={i}>

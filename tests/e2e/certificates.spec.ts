@@ -63,7 +63,7 @@ test("a lead certifies a graded unit; the QR link and the short code verify it s
   await shoot(phone, "verify-valid");
 
   await phone.goto("/verify");
-  await phone.getByLabel("Certificate code").fill(shortCode.toLowerCase().replaceAll("-", " "));
+  await phone.getByRole("textbox", { name: "Certificate code" }).fill(shortCode.toLowerCase().replaceAll("-", " "));
   await phone.getByRole("button", { name: "Check" }).click();
   await expect(phone).toHaveURL(/\/verify\?code=/);
   await expect(phone.getByTestId("verified-grade")).toHaveText("C");
