@@ -3,6 +3,7 @@ import { holders } from "@/lib/auth/permissions";
 import { ROLES, type Role } from "@/lib/auth/roles";
 import { api, signIn, type Session } from "../support/http";
 import { createUser, TEST_PASSWORD, uniqueEmail, workspaceBySlug } from "../support/db";
+import { certificateFixtureIds } from "../support/certificate-access";
 import { galleryFixtureIds } from "../support/gallery-access";
 import { gradingFixtureIds } from "../support/grading-access";
 import { lotFixtureIds } from "../support/lot-access";
@@ -31,7 +32,8 @@ async function fixtureIds(lead: Session): Promise<Ids> {
   const emails = await api<{ emails: { id: string }[] }>(lead, "GET", "/api/outbox");
   const people = await api<{ people: { id: string; roles: string[] }[] }>(lead, "GET", "/api/people");
   const someone = people.body.people.find((p) => !p.roles.includes("lead"))!;
-  return { invitedPersonId: invited.body.person.id, personId: someone.id, supplierId: supplier.body.supplier.id, emailId: emails.body.emails[0].id, ...(await gradingFixtureIds(lead)), ...(await galleryFixtureIds(lead)), ...(await queueFixtureIds(lead)), ...(await photoFixtureIds(lead)), ...(await regionFixtureIds(lead)), ...(await suggestionFixtureIds(lead)), ...(await lotFixtureIds(lead, supplier.body.supplier.id)) };
+  const grading = await gradingFixtureIds(lead);
+  return { invitedPersonId: invited.body.person.id, personId: someone.id, supplierId: supplier.body.supplier.id, emailId: emails.body.emails[0].id, ...grading, ...(await certificateFixtureIds(lead, grading.unitId)), ...(await galleryFixtureIds(lead)), ...(await queueFixtureIds(lead)), ...(await photoFixtureIds(lead)), ...(await regionFixtureIds(lead)), ...(await suggestionFixtureIds(lead)), ...(await lotFixtureIds(lead, supplier.body.supplier.id)) };
 }
 
 beforeAll(async () => {

@@ -120,11 +120,11 @@ export const ROUTES: RouteRow[] = [
   // Condition certificates: the fixture unit is graded; issuing answers 201, or 409 while its serial is missing.
   { method: "GET", path: "/api/units/:unitId/certificates", permission: "certificates.manage", allowedStatus: 200 },
   { method: "POST", path: "/api/units/:unitId/certificates", permission: "certificates.manage", body: () => ({}), allowedStatus: [201, 409] },
-  // No certificate fixture: an allowed caller gets the not-found answer (certificates.test.ts covers the rest).
-  { method: "GET", path: "/api/certificates/00000000-0000-4000-8000-000000000001/pdf", permission: "certificates.manage", allowedStatus: 404 },
-  { method: "POST", path: "/api/certificates/00000000-0000-4000-8000-000000000001/revoke", permission: "certificates.manage", body: () => ({ reason: "Route check." }), allowedStatus: 404 },
-  // Unit by unit exports are for leads (auditors recheck blind); the lots export for every report reader.
-  { method: "GET", path: "/api/reports/export?kind=defects&supplierId=:supplierId", permission: "reports.units", allowedStatus: 200 },
+  // The fixture certificate (tests/support/certificate-access.ts); revoking it twice answers 409.
+  { method: "GET", path: "/api/certificates/:certificateId/pdf", permission: "certificates.manage", allowedStatus: 200 },
+  { method: "POST", path: "/api/certificates/:certificateId/revoke", permission: "certificates.manage", body: () => ({ reason: "Route check." }), allowedStatus: [200, 409] },
+  // The lots export, for every report reader. Unit by unit kinds also need reports.units (leads; auditors recheck
+  // blind): the handler checks that after parsing the kind, and reports.test.ts shows auditors their 403.
   { method: "GET", path: "/api/reports/export?kind=lots&supplierId=:supplierId", permission: "reports.read", allowedStatus: 200 },
   { method: "POST", path: "/api/lots/:emptyLotId/units", permission: "lots.manage", body: () => ({ source: "placeholders" }), allowedStatus: 201 },
   // The fixture battery lot has a swollen cell (critical, Re 1): rejected, so it may be returned.
