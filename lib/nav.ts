@@ -19,7 +19,7 @@ export const SCREENS: readonly Screen[] = [
   { href: "/lots", label: "Lots", permission: "lots.read", status: "ready", summary: "Lots received from suppliers, their sampling plans, verdicts and dispositions." },
   { href: "/gallery", label: "Gallery", permission: "gallery.read", status: "ready", summary: "Reference examples of normal and abnormal parts per part type and defect class." },
   { href: "/calibration", label: "Calibration", permission: "calibration.read", status: "planned", summary: "Calibration sets that graders grade, scored against the key." },
-  { href: "/recheck", label: "Recheck", permission: "recheck.perform", status: "planned", summary: "Blind re-grading of sampled units, agreement figures and adjudication." },
+  { href: "/recheck", label: "Recheck", permission: "recheck.perform", status: "ready", summary: "Blind re-grading of sampled units, agreement figures and adjudication." },
   { href: "/rubrics", label: "Rubrics", permission: "rubrics.review", status: "ready", summary: "Versioned grading rules per part type: drafts, publication, differences." },
   { href: "/suppliers", label: "Suppliers", permission: "suppliers.review", status: "ready", summary: "Who sends the parts and where evidence goes." },
   { href: "/part-types", label: "Part types", permission: "part-types.read", status: "ready", summary: "What each kind of part needs: views and zones to photograph, defect classes, the functional checklist." },

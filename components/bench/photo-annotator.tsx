@@ -8,7 +8,7 @@ import type { AllowedDefect, GhostShape, ZoneInput } from "@/components/annotate
 import { FormMessage } from "@/components/ui/form-field";
 import type { PhotoDto } from "@/lib/photos/dto";
 import { ConflictDialog, type ConflictChoice } from "./conflict-dialog";
-import type { RegionAutosaver, SaveStatus } from "./region-autosaver";
+import type { RegionAutosaver, SaveStatus, ServerSet } from "./region-autosaver";
 import { fetchRegionSet } from "./regions-api";
 import { SaveProblem, SaveStatusLine } from "./save-status";
 import type { SaverRegistry } from "./saver-registry";
@@ -16,8 +16,15 @@ import type { RegionSetPayload } from "@/lib/geometry/validate";
 import { SuggestionsBar } from "./suggestions-bar";
 import { unitSessionKeys } from "@/lib/query-keys/units";
 
+/** What the canvas needs of a photo (the Bench passes its PhotoDto; the recheck a blind subset). */
+export type AnnotatablePhoto = Pick<PhotoDto, "id" | "fileName" | "width" | "height" | "preview" | "urls">;
+
 type PhotoAnnotatorProps = {
-  photo: PhotoDto;
+  photo: AnnotatablePhoto;
+  /** Loads the photo's saved set (default: the photo's own regions, GET /api/photos/:id/regions). */
+  loadSet?: (photoId: string) => Promise<ServerSet>;
+  /** Keeps the region sessions of different sets of one photo apart (the recheck's from the Bench's). */
+  sessionScope?: "bench" | "recheck";
   viewLabel: string;
   allowedDefects: readonly AllowedDefect[];
   zones: readonly ZoneInput[];
@@ -45,15 +52,15 @@ function useSaverStatus(saver: RegionAutosaver | null): SaveStatus {
  * this visit), the canvas, autosave with its status line, the conflict dialog and suggestions.
  * Give it a `key` per photo: switching photos starts a fresh canvas.
  */
-export function PhotoAnnotator({ photo, viewLabel, allowedDefects, zones, lock, screenView, registry, slots, link }: PhotoAnnotatorProps) {
+export function PhotoAnnotator({ photo, loadSet = fetchRegionSet, sessionScope = "bench", viewLabel, allowedDefects, zones, lock, screenView, registry, slots, link }: PhotoAnnotatorProps) {
   const canvasRef = useRef<AnnotationCanvasHandle>(null);
   const [ghosts, setGhosts] = useState<GhostShape[]>([]);
   const session = useQuery({
-    queryKey: unitSessionKeys.regionSession(photo.id),
+    queryKey: [...unitSessionKeys.regionSession(photo.id), sessionScope],
     queryFn: async () => {
       const existing = registry.get(photo.id);
       if (existing?.hasUnsaved()) return { saver: existing, initial: existing.latestRegions() };
-      const set = await fetchRegionSet(photo.id);
+      const set = await loadSet(photo.id);
       return { saver: registry.open(photo.id, set), initial: set.regions };
     },
     // Loaded once per visit of the photo; the saver owns the state from then on.

@@ -16,10 +16,15 @@ export function fetchRegionSet(photoId: string, signal?: AbortSignal): Promise<R
   return apiFetch<RegionSetJson>(`/api/photos/${photoId}/regions`, { signal });
 }
 
-export async function putRegionSet(photoId: string, request: SaveRequest): Promise<SendResult> {
+export function putRegionSet(photoId: string, request: SaveRequest): Promise<SendResult> {
+  return putRegionSetAt(`/api/photos/${photoId}/regions`, request);
+}
+
+/** PUT a region set to `url` (a photo's regions, or an auditor's own set on a recheck) and sort the outcome. */
+export async function putRegionSetAt(url: string, request: SaveRequest & { photoId?: string }): Promise<SendResult> {
   let res: Response;
   try {
-    res = await fetch(`/api/photos/${photoId}/regions`, { method: "PUT", headers: { "Content-Type": "application/json" }, body: JSON.stringify(request) });
+    res = await fetch(url, { method: "PUT", headers: { "Content-Type": "application/json" }, body: JSON.stringify(request) });
   } catch {
     return { kind: "retryable", message: OFFLINE };
   }

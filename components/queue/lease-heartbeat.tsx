@@ -13,12 +13,12 @@ import { unitSessionKeys } from "@/lib/query-keys/units";
  * Mounted on the Bench of a unit the user holds: renews the lease every minute while the page is
  * open (so a closed tab lets it expire), and offers to put the unit back in the queue.
  */
-export function LeaseHeartbeat({ unitId, intervalMs = 60_000, onRenewed }: { unitId: string; intervalMs?: number; onRenewed?: () => void }) {
+export function LeaseHeartbeat({ unitId, leaseUrl = `/api/units/${unitId}/lease`, intervalMs = 60_000, onRenewed, showPutBack = true }: { unitId: string; leaseUrl?: string; intervalMs?: number; onRenewed?: () => void; showPutBack?: boolean }) {
   const router = useRouter();
   const timeZone = useTimeZone();
   const heartbeat = useQuery({
     queryKey: unitSessionKeys.leaseHeartbeat(unitId),
-    queryFn: () => apiFetch<{ leaseExpiresAt: string }>(`/api/units/${unitId}/lease`, { method: "PUT" }),
+    queryFn: () => apiFetch<{ leaseExpiresAt: string }>(leaseUrl, { method: "PUT" }),
     refetchInterval: intervalMs,
     refetchIntervalInBackground: true,
     retry: 1,
@@ -49,9 +49,9 @@ export function LeaseHeartbeat({ unitId, intervalMs = 60_000, onRenewed }: { uni
           {until ? `until ${until}` : <span className="lg:sr-only">reserved for you</span>}
         </span>
       )}
-      <button type="button" className="btn-secondary h-8 py-0 text-sm" onClick={() => release.mutate()} disabled={release.isPending} title="Put the unit back in the queue for someone else">
+      {showPutBack && <button type="button" className="btn-secondary h-8 py-0 text-sm" onClick={() => release.mutate()} disabled={release.isPending} title="Put the unit back in the queue for someone else">
         Put back
-      </button>
+      </button>}
       {release.isError && <FormMessage kind="error">{release.error.message}</FormMessage>}
     </div>
   );

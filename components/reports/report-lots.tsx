@@ -5,24 +5,8 @@ import { DISPOSITION_LABELS, type Disposition } from "@/lib/lots/schemas";
 import { REPORT_LOTS_PAGE_SIZE, type ReportFilter } from "@/lib/reports/filters";
 import { ReportTable } from "./report-table";
 
-type ReportLot = Awaited<ReturnType<typeof listReportLots>>["lots"][number];
-
-const REPORT_COLUMN = {
-  header: "Report",
-  cell: (l: ReportLot) => (
-    <span className="flex flex-wrap gap-x-3 gap-y-1 whitespace-nowrap">
-      <Link href={`/reports/lots/${l.id}`} className="font-medium text-gauge-700 underline" aria-label={`Report of lot ${l.purchaseRef}`}>
-        View
-      </Link>
-      <a href={`/api/lots/${l.id}/report`} className="font-medium text-gauge-700 underline" aria-label={`PDF report of lot ${l.purchaseRef}`} download>
-        PDF
-      </a>
-    </span>
-  ),
-};
-
-/** The filtered lots, each with its inspection report (web view and PDF) for leads, a page at a time. */
-export async function ReportLots({ workspaceId, filter, page, pageHref, withReports }: { workspaceId: string; filter: ReportFilter; page: number; pageHref: (page: number) => string; withReports: boolean }) {
+/** The filtered lots, each with its inspection report (web view and PDF), a page at a time. */
+export async function ReportLots({ workspaceId, filter, page, pageHref }: { workspaceId: string; filter: ReportFilter; page: number; pageHref: (page: number) => string }) {
   const { lots, total } = await listReportLots({ workspaceId, filter, page, pageSize: REPORT_LOTS_PAGE_SIZE });
   const pages = Math.max(1, Math.ceil(total / REPORT_LOTS_PAGE_SIZE));
   if (total === 0) return <p className="text-sm text-gauge-700">No lots were received in this filter. Widen the dates or choose another supplier.</p>;
@@ -51,7 +35,19 @@ export async function ReportLots({ workspaceId, filter, page, pageHref, withRepo
                 <span className="text-xs text-gauge-500">open</span>
               ),
           },
-          ...(withReports ? [REPORT_COLUMN] : []),
+          {
+            header: "Report",
+            cell: (l) => (
+              <span className="flex flex-wrap gap-x-3 gap-y-1 whitespace-nowrap">
+                <Link href={`/reports/lots/${l.id}`} className="font-medium text-gauge-700 underline" aria-label={`Report of lot ${l.purchaseRef}`}>
+                  View
+                </Link>
+                <a href={`/api/lots/${l.id}/report`} className="font-medium text-gauge-700 underline" aria-label={`PDF report of lot ${l.purchaseRef}`} download>
+                  PDF
+                </a>
+              </span>
+            ),
+          },
         ]}
       />
       {pages > 1 && (

@@ -4,7 +4,7 @@ import { usePathname } from "next/navigation";
 
 /** Screens that are workspaces: they fill the window and keep the navigation behind the menu. */
 export function isWorkspacePath(pathname: string): boolean {
-  return /^\/units\/[^/]+\/?$/.test(pathname);
+  return /^\/units\/[^/]+\/?$/.test(pathname) || /^\/recheck\/[0-9a-f]{8}-[0-9a-f-]{27}\/?$/i.test(pathname);
 }
 
 /**

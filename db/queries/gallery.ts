@@ -59,6 +59,7 @@ export async function getGalleryItem({ workspaceId, itemId }: ItemKey, tx: DbOrT
       rubricVersionId: galleryItems.rubricVersionId,
       rubricVersion: rubricVersions.version,
       sourceUnitId: galleryItems.sourceUnitId,
+      sourceUnitAwaitsRecheck: sql<boolean>`EXISTS (SELECT 1 FROM rechecks r WHERE r.workspace_id = ${galleryItems.workspaceId} AND r.unit_id = ${galleryItems.sourceUnitId} AND r.status = 'waiting')`,
       createdByName: creators.name,
       publishedAt: galleryItems.publishedAt,
       retiredAt: galleryItems.retiredAt,
@@ -109,6 +110,8 @@ export type GalleryListFilters = {
   defectClass?: string;
   kind?: GalleryKind;
   grade?: Grade;
+  /** Leave out items promoted from a unit whose recheck is still waiting (blind readers, lib/gallery/access.ts). */
+  hideUnitsAwaitingRecheck?: boolean;
 };
 export type GalleryListKey = { createdAt: string; id: string };
 
@@ -157,6 +160,7 @@ export async function listGalleryItems({ workspaceId, filters, after, limit }: {
     filters.kind ? sql`AND g.kind = ${filters.kind}` : sql``,
     filters.grade ? sql`AND g.grade = ${filters.grade}` : sql``,
     filters.defectClass ? sql`AND g.defect_classes @> ARRAY[${filters.defectClass}]::text[]` : sql``,
+    filters.hideUnitsAwaitingRecheck ? sql`AND NOT EXISTS (SELECT 1 FROM rechecks r WHERE r.workspace_id = g.workspace_id AND r.unit_id = g.source_unit_id AND r.status = 'waiting')` : sql``,
     after ? sql`AND (g.created_at, g.id) < (${after.createdAt}::timestamptz, ${after.id}::uuid)` : sql``,
   ];
   const { rows } = await executePrepared<ListRow>(sql`
@@ -196,7 +200,7 @@ export async function listGalleryItems({ workspaceId, filters, after, limit }: {
  * Published items of one part type and view for the Bench's reference panel, in the panel's
  * order (lib/gallery/rules.ts compareForReference): normal first, then A → Reject, then newest.
  */
-export function listReferenceItems({ workspaceId, partTypeId, viewKey, defectClass, limit }: { workspaceId: string; partTypeId: string; viewKey: string; defectClass?: string; limit: number }) {
+export function listReferenceItems({ workspaceId, partTypeId, viewKey, defectClass, limit, hideUnitsAwaitingRecheck }: { workspaceId: string; partTypeId: string; viewKey: string; defectClass?: string; limit: number; hideUnitsAwaitingRecheck?: boolean }) {
   const where: (SQL | undefined)[] = [
     eq(galleryItems.workspaceId, workspaceId),
     eq(galleryItems.status, "published"),
@@ -205,6 +209,7 @@ export function listReferenceItems({ workspaceId, partTypeId, viewKey, defectCla
   ];
   // A class narrows the abnormal items to those showing it; normal items stay as the comparison.
   if (defectClass) where.push(or(eq(galleryItems.kind, "normal"), sql`${galleryItems.defectClasses} @> ARRAY[${defectClass}]::text[]`));
+  if (hideUnitsAwaitingRecheck) where.push(sql`NOT EXISTS (SELECT 1 FROM rechecks r WHERE r.workspace_id = ${galleryItems.workspaceId} AND r.unit_id = ${galleryItems.sourceUnitId} AND r.status = 'waiting')`);
   return selectCards(db())
     .where(and(...where))
     .orderBy(

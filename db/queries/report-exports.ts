@@ -39,8 +39,12 @@ const currentGrade = (unit: SQL) => sql`
   SELECT g.id, g.final_grade, g.kind, g.graded_by, g.created_at, g.measurement_ids, g.rubric_version_id FROM grades g
   WHERE g.workspace_id = ${unit}.workspace_id AND g.unit_id = ${unit}.id ORDER BY g.created_at DESC, g.id DESC LIMIT 1`;
 
-function exportQuery(kind: ExportKind, workspaceId: string, filter: ReportFilter, timeZone: string): SQL {
+/** For blind readers (lib/gallery/access.ts's rule, issue 19): no row of a unit whose recheck still waits. */
+const notAwaitingRecheck = (hide: boolean) => (hide ? sql` AND NOT EXISTS (SELECT 1 FROM rechecks rc WHERE rc.workspace_id = u.workspace_id AND rc.unit_id = u.id AND rc.status = 'waiting')` : sql``);
+
+function exportQuery(kind: ExportKind, workspaceId: string, filter: ReportFilter, timeZone: string, hideUnitsAwaitingRecheck: boolean): SQL {
   const lotWhere = lotFilterSql(workspaceId, filter);
+  const blind = notAwaitingRecheck(hideUnitsAwaitingRecheck);
   switch (kind) {
     case "lots":
       return sql`
@@ -62,7 +66,7 @@ function exportQuery(kind: ExportKind, workspaceId: string, filter: ReportFilter
         JOIN suppliers s ON s.id = l.supplier_id JOIN part_types pt ON pt.id = l.part_type_id
         LEFT JOIN LATERAL (${currentGrade(sql`u`)}) cur ON true
         LEFT JOIN rubric_versions rv ON rv.id = cur.rubric_version_id LEFT JOIN users gb ON gb.id = cur.graded_by
-        WHERE ${lotWhere}
+        WHERE ${lotWhere}${blind}
         ORDER BY l.received_on, l.created_at, l.id, u.sample_index`;
     case "grades":
       return sql`
@@ -71,7 +75,7 @@ function exportQuery(kind: ExportKind, workspaceId: string, filter: ReportFilter
         FROM units u JOIN lots l ON l.id = u.lot_id JOIN part_types pt ON pt.id = u.part_type_id
         JOIN grades g ON g.workspace_id = u.workspace_id AND g.unit_id = u.id
         JOIN rubric_versions rv ON rv.id = g.rubric_version_id JOIN users gb ON gb.id = g.graded_by
-        WHERE ${gradedUnitFilterSql(workspaceId, filter, timeZone)}
+        WHERE ${gradedUnitFilterSql(workspaceId, filter, timeZone)}${blind}
         ORDER BY u.graded_at, u.id, g.created_at, g.id`;
     case "defects":
       // The photo's figures of the class come from the measurement the unit's current grade rests on.
@@ -88,7 +92,7 @@ function exportQuery(kind: ExportKind, workspaceId: string, filter: ReportFilter
         JOIN regions r ON r.workspace_id = p.workspace_id AND r.photo_id = p.id AND r.role = 'defect'
         LEFT JOIN LATERAL (${currentGrade(sql`u`)}) cur ON true
         LEFT JOIN measurements m ON m.workspace_id = u.workspace_id AND m.id = ANY(cur.measurement_ids) AND m.photo_id = p.id
-        WHERE ${lotWhere}
+        WHERE ${lotWhere}${blind}
         ORDER BY l.received_on, l.created_at, l.id, u.sample_index, p.created_at, p.id, r.position, r.id`;
   }
 }
@@ -99,8 +103,8 @@ const dialect = new PgDialect({ casing: "snake_case" });
  * The export's rows, `batchSize` at a time from a cursor on a connection of its own. Stopping the
  * iteration early (a download cancelled) closes the cursor and gives the connection back.
  */
-export async function* exportRows<K extends ExportKind>(kind: K, scope: { workspaceId: string; filter: ReportFilter; timeZone: string }, batchSize = 500): AsyncGenerator<ExportRow[K]> {
-  const { sql: text, params } = dialect.sqlToQuery(exportQuery(kind, scope.workspaceId, scope.filter, scope.timeZone));
+export async function* exportRows<K extends ExportKind>(kind: K, scope: { workspaceId: string; filter: ReportFilter; timeZone: string; hideUnitsAwaitingRecheck?: boolean }, batchSize = 500): AsyncGenerator<ExportRow[K]> {
+  const { sql: text, params } = dialect.sqlToQuery(exportQuery(kind, scope.workspaceId, scope.filter, scope.timeZone, scope.hideUnitsAwaitingRecheck ?? false));
   const client = await pool().connect();
   const cursor = client.query(new Cursor<ExportRow[K]>(text, params as unknown[]));
   let failure: Error | undefined;

@@ -14,24 +14,14 @@ import { executePrepared, type DbOrTx } from "@/db/client";
 import { units } from "@/db/schema";
 import type { UnitStatus } from "@/db/schema/lots";
 import type { QueueFilters } from "@/lib/queue/schemas";
+import { ASYNC_COMMIT, leaseColumns, leaseEnd } from "./leases";
 import { ON_BENCH_LITERAL, queuedInTakeNextOrder } from "./queue";
 
 type UnitKey = { workspaceId: string; unitId: string };
 
-/** The end of a lease that starts now: the database's clock plus `leaseSeconds`. */
-const leaseEnd = (leaseSeconds: number): SQL => sql`now() + make_interval(secs => ${leaseSeconds})`;
-
 /** The SET list of a lease grant: `holderId` holds the unit from now for `leaseSeconds`. */
 const leaseGrant = ({ status, holderId, leaseSeconds }: { status: UnitStatus; holderId: string; leaseSeconds: number }): SQL =>
-  sql`status = ${status}, lease_holder_id = ${holderId}, lease_expires_at = ${leaseEnd(leaseSeconds)}, claimed_at = now(), updated_at = now()`;
-
-/**
- * A claim lost in a crash only puts the unit back in the queue, so these statements' commits need
- * not wait for the WAL flush: `set_config(…, true)` turns synchronous_commit off for the
- * statement's own transaction. It sits in the first CTE's WHERE as a one-time filter, which runs
- * before that scan whatever it finds, so it is in force at commit.
- */
-const ASYNC_COMMIT = sql`(SELECT set_config('synchronous_commit', 'off', true)) IS NOT NULL`;
+  sql`status = ${status}, ${leaseColumns({ holderId, leaseSeconds })}, updated_at = now()`;
 
 /**
  * Expired leases of the workspace go back to the queue (as `status`) and are logged, in one

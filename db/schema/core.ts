@@ -14,6 +14,7 @@ import {
   uniqueIndex,
   uuid,
 } from "drizzle-orm/pg-core";
+import type { RecheckSettings } from "@/lib/recheck/settings";
 import { sameWorkspace } from "./workspace-keys";
 
 /** A company using Partproof. Every row of company data points at one. */
@@ -23,6 +24,8 @@ export const workspaces = pgTable("workspaces", {
   slug: text().notNull().unique(),
   /** IANA time zone every time in the app is shown in (one rule for the whole workspace). */
   timeZone: text().notNull().default("UTC"),
+  /** Recheck rate, adjudication threshold, drift flag (lib/recheck/settings.ts); null = the defaults. */
+  recheckSettings: jsonb().$type<RecheckSettings>(),
   createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
 });
 

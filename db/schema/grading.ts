@@ -129,6 +129,10 @@ export const grades = pgTable(
   },
   (t) => [
     index("grades_unit_idx").on(t.workspaceId, t.unitId, t.createdAt),
+    // Rechecks name a grade of their own workspace (db/schema/recheck.ts).
+    unique("grades_workspace_id_key").on(t.workspaceId, t.id),
+    // The recheck draw reads one grader's grades of the week as each grade is recorded.
+    index("grades_grader_idx").on(t.workspaceId, t.gradedBy, t.createdAt),
     uniqueIndex("grades_unit_idempotency_key").on(t.unitId, t.idempotencyKey).where(sql`${t.idempotencyKey} IS NOT NULL`),
     sameWorkspace("grades_unit_fk", t.workspaceId, t.unitId, units),
     sameWorkspace("grades_rubric_version_fk", t.workspaceId, t.rubricVersionId, rubricVersions),

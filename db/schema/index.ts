@@ -6,3 +6,4 @@ export * from "./grading";
 export * from "./gallery";
 export * from "./suggestions";
 export * from "./certificates";
+export * from "./recheck";

@@ -74,12 +74,6 @@ export const PERMISSIONS = {
   "recheck.perform": { roles: ["auditor"], what: "take and submit blind rechecks" },
   "recheck.adjudicate": { roles: ["auditor"], what: "settle a disagreement between a grade and its recheck" },
   "reports.read": { roles: ["auditor"], what: "read reports, scorecards and exports" },
-  /**
-   * Unit by unit grades, regions and measurements (lot reports, the units/grades/defects exports):
-   * leads only. An auditor rechecks graded units blind, so reading a unit's first grade here would
-   * break the recheck; auditors keep the aggregate reports and the lots export.
-   */
-  "reports.units": { roles: LEADS, what: "read lot inspection reports and the unit, grade and defect exports" },
   "evidence.send": { roles: LEADS, what: "send a supplier evidence pack and follow its claim" },
   /** A certificate vouches to a buyer for a unit's condition in the workspace's name: leads only. */
   "certificates.manage": { roles: LEADS, what: "issue, download and revoke condition certificates of graded units" },

@@ -8,7 +8,7 @@ import { getGalleryItem, getSourceUnitLabel, listGalleryItems, listReferenceItem
 import { getGradingPartType } from "@/db/queries/rubrics";
 import type { SessionUser } from "@/lib/auth/require-user";
 import { AppError, notFound } from "@/lib/errors";
-import { canEditGallery, canSeeItem } from "./access";
+import { canEditGallery, canOpenItem, hidesUnitsAwaitingRecheck } from "./access";
 import { decodeGalleryCursor, encodeGalleryCursor } from "./cursor";
 import { toGalleryCardDto, toGalleryItemDto, type GalleryCardDto, type GalleryItemDto } from "./dto";
 import type { GalleryStatus } from "./rules";
@@ -35,6 +35,7 @@ export async function listGallery(reader: Reader, query: GalleryListQuery): Prom
     defectClass: query.defect,
     kind: query.kind,
     grade: query.grade,
+    hideUnitsAwaitingRecheck: hidesUnitsAwaitingRecheck(reader.roles),
   };
   const after = query.cursor ? decodeGalleryCursor(query.cursor) : undefined;
   const rows = await listGalleryItems({ workspaceId: reader.workspaceId, filters, after, limit: query.limit });
@@ -49,7 +50,7 @@ export async function listGallery(reader: Reader, query: GalleryListQuery): Prom
 /** The item as its page shows it; 404 when the reader may not see it. */
 export async function readGalleryItem(reader: Reader, itemId: string): Promise<GalleryItemDto> {
   const row = await getGalleryItem({ workspaceId: reader.workspaceId, itemId });
-  if (!row || !canSeeItem(reader.roles, row.status)) throw notFound(ITEM_NOT_FOUND);
+  if (!row || !canOpenItem(reader.roles, row)) throw notFound(ITEM_NOT_FOUND);
   const source = row.sourceUnitId ? await getSourceUnitLabel({ workspaceId: reader.workspaceId, unitId: row.sourceUnitId }) : null;
   const label = source ? (source.serial ? `${source.serial} (${source.purchaseRef})` : `Sample ${source.sampleIndex} of ${source.purchaseRef}`) : null;
   return toGalleryItemDto(row, label);
@@ -65,6 +66,6 @@ export async function listReference(reader: Reader, query: ReferenceQuery): Prom
   if (!partType.views.some((v) => v.key === query.view)) {
     throw new AppError("bad_request", `“${query.view}” is not a view of ${partType.name}.`, { fieldErrors: { view: "is not a view of this part type" } });
   }
-  const rows = await listReferenceItems({ workspaceId: reader.workspaceId, partTypeId: query.partType, viewKey: query.view, defectClass: query.defect, limit: REFERENCE_LIMIT });
+  const rows = await listReferenceItems({ workspaceId: reader.workspaceId, partTypeId: query.partType, viewKey: query.view, defectClass: query.defect, limit: REFERENCE_LIMIT, hideUnitsAwaitingRecheck: hidesUnitsAwaitingRecheck(reader.roles) });
   return rows.map(toGalleryCardDto);
 }

@@ -16,7 +16,7 @@ import { notFound } from "@/lib/errors";
 import type { GradeResult } from "@/lib/grading/evaluate";
 import { MEASURE_INLINE_BUDGET_MS } from "@/lib/grading/schemas";
 import type { PhotoMeasurement } from "@/lib/measure/types";
-import { canSeeItem } from "./access";
+import { canOpenItem } from "./access";
 import { ITEM_NOT_FOUND } from "./items";
 
 export type GalleryMeasurement = {
@@ -32,7 +32,7 @@ const NO_RULES = { rules: [], notes: [] };
 
 export async function measureGalleryItem(reader: Pick<SessionUser, "workspaceId" | "roles">, itemId: string): Promise<GalleryMeasurement | null> {
   const item = await getGalleryItem({ workspaceId: reader.workspaceId, itemId });
-  if (!item || !canSeeItem(reader.roles, item.status)) throw notFound(ITEM_NOT_FOUND);
+  if (!item || !canOpenItem(reader.roles, item)) throw notFound(ITEM_NOT_FOUND);
   if (item.photo.status !== "ready" || !item.photo.width || !item.photo.height) return null;
   const published = await getLatestPublished({ workspaceId: reader.workspaceId, partTypeId: item.partTypeId });
   const budgetMs = MEASURE_INLINE_BUDGET_MS;

@@ -7,6 +7,7 @@ import { lockUnit } from "@/db/queries/units";
 import type { SessionUser } from "@/lib/auth/require-user";
 import { finishInspection } from "@/lib/queue/queue";
 import { AppError, notFound } from "@/lib/errors";
+import { drawOnGradeRecorded } from "@/lib/recheck/recording";
 import { regradeStored } from "./grade-unit";
 import { assertMayRecord, replayOf } from "./grade-rules";
 import type { RecordGradeInput } from "./schemas";
@@ -74,6 +75,8 @@ export async function recordGrade(actor: Actor, unitId: string, input: RecordGra
       gradedBy: actor.id,
       idempotencyKey: input.idempotencyKey ?? null,
     });
+    // Drawn for recheck (or not) in the grade's own transaction: a grade and its draw commit together.
+    if (kind === "inspection") await drawOnGradeRecorded(tx, { workspaceId: actor.workspaceId, gradeId: row.id, graderId: actor.id, gradedAt: row.createdAt });
     await logActivity(tx, {
       workspaceId: actor.workspaceId,
       actorId: actor.id,

@@ -47,10 +47,19 @@ async function claimOnce(user: SessionUser, filters: QueueFilters): Promise<Clai
  * means nothing is waiting.
  */
 export async function claimNextUnit({ user, filters }: { user: SessionUser; filters: QueueFilters }): Promise<ClaimedUnit | null> {
+  return claimWithRetry(() => claimOnce(user, filters), () => anythingWaiting({ workspaceId: user.workspaceId, filters }));
+}
+
+/**
+ * Take next's loop, for every queue that hands work out with a lease (units here, rechecks in
+ * lib/recheck/queue.ts): one SKIP LOCKED claim attempt; when it comes back empty while something
+ * is still waiting (rows other claimers are busy with), look again after a short pause.
+ */
+export async function claimWithRetry<T>(claimOnce: () => Promise<T | null>, anythingWaiting: () => Promise<boolean>): Promise<T | null> {
   for (let attempt = 0; attempt < 50; attempt++) {
-    const claimed = await claimOnce(user, filters);
+    const claimed = await claimOnce();
     if (claimed) return claimed;
-    if (!(await anythingWaiting({ workspaceId: user.workspaceId, filters }))) return null;
+    if (!(await anythingWaiting())) return null;
     await new Promise((r) => setTimeout(r, 2 + Math.random() * 8));
   }
   throw new AppError("unavailable", "The queue is very busy right now; press Take next again.");

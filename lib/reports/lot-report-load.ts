@@ -11,6 +11,7 @@ import "server-only";
  *   them out (the web view shows the unit list and links the PDF instead of decoding images).
  */
 import { getLot } from "@/db/queries/lots";
+import { listUnitsAwaitingRecheck } from "@/db/queries/rechecks";
 import { listLotReportPhotos, listLotUnitDefects } from "@/db/queries/lot-report";
 import { getPartType } from "@/db/queries/part-types";
 import { userNames } from "@/db/queries/reports";
@@ -18,7 +19,9 @@ import { listLotUnits, listUnitResults } from "@/db/queries/units";
 import { getWorkspace } from "@/db/queries/workspaces";
 import type { ChecklistItem } from "@/db/schema/lots";
 import type { DefectSeverity } from "@/lib/part-types/severity";
+import type { Role } from "@/lib/auth/roles";
 import { notFound } from "@/lib/errors";
+import { hidesUnitsAwaitingRecheck } from "@/lib/gallery/access";
 import type { Shape } from "@/lib/geometry/shape";
 import { ANNOTATED_EDGE, renderAnnotatedPhoto } from "@/lib/imaging/annotated-photo";
 import { DEFECT_SEVERITIES as SEVERITY_ORDER } from "@/lib/part-types/severity";
@@ -27,7 +30,8 @@ import { decidedVerdictView } from "@/lib/lots/verdict";
 import { getObjectBuffer, objectStore } from "@/lib/storage/s3";
 import type { LotReportData, LotReportPhoto, LotReportPlanRow, LotReportUnit } from "./lot-report-data";
 
-type Reader = { workspaceId: string; name: string };
+/** `roles`: readers without inspection.read see no grade or defect of a unit whose blind recheck still waits (issue 19). */
+type Reader = { workspaceId: string; name: string; roles: readonly Role[] };
 
 /** "Battery voltage 2.9 V", "Camera focus", "Housing colour: Slate". */
 export function failureLabel(item: ChecklistItem | undefined, itemId: string, value: unknown): string {
@@ -43,13 +47,17 @@ export async function loadLotReport(reader: Reader, lotId: string, { photos = tr
   const row = await getLot({ workspaceId, lotId });
   if (!row) throw notFound("That lot");
   const { lot } = row;
-  const [partType, workspace, progress, unitRows, unitDefects] = await Promise.all([
+  const [partType, workspace, progress, allUnitRows, allUnitDefects] = await Promise.all([
     getPartType({ workspaceId, partTypeId: lot.partTypeId }),
     getWorkspace({ workspaceId }),
     oneLotProgress(workspaceId, progressInput(row)),
     listLotUnits({ workspaceId, lotId }),
     listLotUnitDefects({ workspaceId, lotId }),
   ]);
+  // A blind reader gets such units' checklist readings, never their grade or marked defects.
+  const awaiting = hidesUnitsAwaitingRecheck(reader.roles) ? await listUnitsAwaitingRecheck({ workspaceId, unitIds: allUnitRows.map((u) => u.id) }) : new Set<string>();
+  const unitRows = allUnitRows.map((u) => (awaiting.has(u.id) ? { ...u, grade: null } : u));
+  const unitDefects = allUnitDefects.filter((d) => !awaiting.has(d.unitId));
   const classes = partType?.defectClasses ?? [];
   const severityOf = new Map(classes.map((c) => [c.key, c.severity]));
   const labelOf = (key: string) => classes.find((c) => c.key === key)?.label ?? key;

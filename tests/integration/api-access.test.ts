@@ -9,6 +9,7 @@ import { gradingFixtureIds } from "../support/grading-access";
 import { lotFixtureIds } from "../support/lot-access";
 import { photoFixtureIds } from "../support/photo-access";
 import { queueFixtureIds } from "../support/queue-access";
+import { recheckFixtureIds } from "../support/recheck-access";
 import { regionFixtureIds } from "../support/region-access";
 import { suggestionFixtureIds } from "../support/suggestion-access";
 import { ROUTES, type RouteRow } from "./routes";
@@ -33,7 +34,7 @@ async function fixtureIds(lead: Session): Promise<Ids> {
   const people = await api<{ people: { id: string; roles: string[] }[] }>(lead, "GET", "/api/people");
   const someone = people.body.people.find((p) => !p.roles.includes("lead"))!;
   const grading = await gradingFixtureIds(lead);
-  return { invitedPersonId: invited.body.person.id, personId: someone.id, supplierId: supplier.body.supplier.id, emailId: emails.body.emails[0].id, ...grading, ...(await certificateFixtureIds(lead, grading.unitId)), ...(await galleryFixtureIds(lead)), ...(await queueFixtureIds(lead)), ...(await photoFixtureIds(lead)), ...(await regionFixtureIds(lead)), ...(await suggestionFixtureIds(lead)), ...(await lotFixtureIds(lead, supplier.body.supplier.id)) };
+  return { invitedPersonId: invited.body.person.id, personId: someone.id, supplierId: supplier.body.supplier.id, emailId: emails.body.emails[0].id, ...grading, ...(await certificateFixtureIds(lead, grading.unitId)), ...(await galleryFixtureIds(lead)), ...(await queueFixtureIds(lead)), ...(await recheckFixtureIds(lead)), ...(await photoFixtureIds(lead)), ...(await regionFixtureIds(lead)), ...(await suggestionFixtureIds(lead)), ...(await lotFixtureIds(lead, supplier.body.supplier.id)) };
 }
 
 beforeAll(async () => {

@@ -6,7 +6,7 @@
 import { eq, sql } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db/client";
-import { galleryItems, regions } from "@/db/schema";
+import { galleryItems, rechecks, regions } from "@/db/schema";
 import type { GalleryItemDto } from "@/lib/gallery/dto";
 import { createUser, TEST_PASSWORD, uniqueEmail, workspaceBySlug } from "../support/db";
 import { createGradedPhoto, SCRATCHED } from "../support/gallery";
@@ -80,10 +80,16 @@ describe("promoting a graded unit's photo", () => {
     expect(published.status, JSON.stringify(published.body)).toBe(200);
     expect(published.body.item.status).toBe("published");
     for (const reader of [inspector, auditor]) {
-      expect((await api<ItemBody>(reader, "GET", `/api/gallery/${item.id}`)).body.item.caption).toMatch(/lens window/);
       const edit = await api<ErrorBody>(reader, "PATCH", `/api/gallery/${item.id}`, { revision: 3, caption: "mine" });
       expect(edit.status).toBe(403);
     }
+    expect((await api<ItemBody>(inspector, "GET", `/api/gallery/${item.id}`)).body.item.caption).toMatch(/lens window/);
+    // The item shows the unit's first grade and regions: while the unit waits for its blind
+    // recheck (drawn when it was graded, or sent now: 409 says it already waits), auditors do not see it.
+    expect([201, 409]).toContain((await api(lead, "POST", "/api/rechecks", { unitId: scene.unit.id })).status);
+    expect((await db().select({ status: rechecks.status }).from(rechecks).where(eq(rechecks.unitId, scene.unit.id))).map((r) => r.status)).toEqual(["waiting"]);
+    expect((await api(auditor, "GET", `/api/gallery/${item.id}`)).status).toBe(404);
+    expect(JSON.stringify((await api(auditor, "GET", "/api/gallery?limit=100")).body)).not.toContain(item.id);
     expect((await api(inspector, "POST", `/api/gallery/${item.id}/retire`, { revision: 3 })).status).toBe(403);
     item = published.body.item;
   });

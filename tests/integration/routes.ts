@@ -116,16 +116,14 @@ export const ROUTES: RouteRow[] = [
   { method: "GET", path: "/api/lots/:lotId", permission: "lots.read", allowedStatus: 200 },
   { method: "GET", path: "/api/lots/:lotId/units", permission: "lots.read", allowedStatus: 200 },
   // Reports (issue 17): the lot report PDF and the CSV exports (a filter naming another workspace's supplier is a 404).
-  { method: "GET", path: "/api/lots/:lotId/report", permission: "reports.units", allowedStatus: 200 },
+  { method: "GET", path: "/api/lots/:lotId/report", permission: "reports.read", allowedStatus: 200 },
   // Condition certificates: the fixture unit is graded; issuing answers 201, or 409 while its serial is missing.
   { method: "GET", path: "/api/units/:unitId/certificates", permission: "certificates.manage", allowedStatus: 200 },
   { method: "POST", path: "/api/units/:unitId/certificates", permission: "certificates.manage", body: () => ({}), allowedStatus: [201, 409] },
   // The fixture certificate (tests/support/certificate-access.ts); revoking it twice answers 409.
   { method: "GET", path: "/api/certificates/:certificateId/pdf", permission: "certificates.manage", allowedStatus: 200 },
   { method: "POST", path: "/api/certificates/:certificateId/revoke", permission: "certificates.manage", body: () => ({ reason: "Route check." }), allowedStatus: [200, 409] },
-  // The lots export, for every report reader. Unit by unit kinds also need reports.units (leads; auditors recheck
-  // blind): the handler checks that after parsing the kind, and reports.test.ts shows auditors their 403.
-  { method: "GET", path: "/api/reports/export?kind=lots&supplierId=:supplierId", permission: "reports.read", allowedStatus: 200 },
+  { method: "GET", path: "/api/reports/export?kind=defects&supplierId=:supplierId", permission: "reports.read", allowedStatus: 200 },
   { method: "POST", path: "/api/lots/:emptyLotId/units", permission: "lots.manage", body: () => ({ source: "placeholders" }), allowedStatus: 201 },
   // The fixture battery lot has a swollen cell (critical, Re 1): rejected, so it may be returned.
   { method: "POST", path: "/api/lots/:decidableLotId/disposition", permission: "lots.decide", body: () => ({ disposition: "return_to_vendor", reason: "Route check: swollen cell." }), allowedStatus: 200 },
@@ -154,6 +152,26 @@ export const ROUTES: RouteRow[] = [
   { method: "POST", path: "/api/gallery/uploads", permission: "gallery.edit", body: (ids) => ({ partTypeId: ids.galleryPartTypeId, viewKey: "lens", kind: "normal", grade: "A", fileName: "route-check.jpg", contentType: "image/jpeg", bytes: 1000 }), allowedStatus: 201 },
   // A well-formed but forged ticket: the handler itself answers 400 (real finalising is in gallery-uploads.test.ts).
   { method: "POST", path: "/api/gallery/photos", permission: "gallery.edit", body: () => ({ ticket: `${"e30".repeat(8)}.${"x".repeat(43)}` }), allowedStatus: 400 },
+  // Recheck (issue 19). The grading fixture unit is graded: the first allowed caller sends it (201), later ones find it sent (409).
+  { method: "POST", path: "/api/rechecks", permission: "recheck.perform", body: (ids) => ({ unitId: ids.unitId }), allowedStatus: [201, 409] },
+  { method: "GET", path: "/api/workspace/recheck-settings", permission: "workspace.read", allowedStatus: 200 },
+  // The defaults again, so other tests draw as usual.
+  { method: "PUT", path: "/api/workspace/recheck-settings", permission: "workspace.manage", body: () => ({ rate: 0.05, raisedRate: 0.2, minimumPerGrader: 1, iouThreshold: 0.5, meaningfulShare: 0.0005, meaningfulPx: 100, driftAgreement: 0.8, driftWeeks: 4, driftMinRechecks: 5 }), allowedStatus: 200 },
+  // The recheck fixture (tests/support/recheck-access.ts) waits, held by nobody: work on it is 409 for anyone allowed.
+  { method: "GET", path: "/api/rechecks/:recheckId", permission: "recheck.perform", allowedStatus: 409 },
+  { method: "PUT", path: "/api/rechecks/:recheckId/lease", permission: "recheck.perform", allowedStatus: 409 },
+  { method: "DELETE", path: "/api/rechecks/:recheckId/lease", permission: "recheck.perform", allowedStatus: 409 },
+  { method: "PUT", path: "/api/rechecks/:recheckId/regions", permission: "recheck.perform", body: (ids) => ({ photoId: ids.recheckPhotoId, baseVersion: 0, regions: { regions: [], surfaces: [], ruler: null } }), allowedStatus: 409 },
+  { method: "POST", path: "/api/rechecks/:recheckId/measure", permission: "recheck.perform", allowedStatus: 409 },
+  { method: "POST", path: "/api/rechecks/:recheckId/submission", permission: "recheck.perform", body: () => ({ decision: "accept", proposedGrade: "A" }), allowedStatus: 409 },
+  { method: "GET", path: "/api/rechecks/adjudications", permission: "recheck.adjudicate", allowedStatus: 200 },
+  // Not submitted yet: nothing to settle (404 to look at, 409 to decide).
+  { method: "GET", path: "/api/rechecks/:recheckId/adjudication", permission: "recheck.adjudicate", allowedStatus: 404 },
+  { method: "POST", path: "/api/rechecks/:recheckId/adjudication", permission: "recheck.adjudicate", body: () => ({ choice: "first", reason: "Route check." }), allowedStatus: 409 },
+  { method: "GET", path: "/api/recheck/scorecards", permission: "reports.read", allowedStatus: 200 },
+  { method: "GET", path: "/api/recheck/scorecards/csv", permission: "reports.read", allowedStatus: 200 },
+  // Last of the recheck rows: the first allowed caller takes the fixture recheck (200), later ones find nothing for them (204).
+  { method: "POST", path: "/api/rechecks/next", permission: "recheck.perform", allowedStatus: [200, 204] },
 ];
 
 /** next-auth's own catch-all is public by nature and tested through sign-in. */

@@ -9,7 +9,6 @@ import { TableSkeleton } from "@/components/ui/table-skeleton";
 import { listPartTypes } from "@/db/queries/part-types";
 import { userNames } from "@/db/queries/reports";
 import { listSuppliers } from "@/db/queries/suppliers";
-import { can } from "@/lib/auth/permissions";
 import { requirePageUser } from "@/lib/auth/require-user";
 import { screenByHref } from "@/lib/nav";
 import { EXPORT_KINDS, EXPORT_LABELS, exportHref, REPORT_PAGE_KEYS, reportAllowed, reportParamsSchema, type ReportFilter, type ReportParams } from "@/lib/reports/filters";
@@ -63,9 +62,6 @@ export default async function ReportsPage(props: PageProps<"/reports">) {
   const partTypeNames = new Map(partTypes.map((p) => [p.id, p.name]));
   const classLabels: Record<string, string> = {};
   for (const p of partTypes) for (const c of p.defectClasses) classLabels[c.key] ??= c.label;
-  // Auditors recheck blind: unit by unit exports and lot reports are for leads (permissions.ts).
-  const unitLevel = can(user, "reports.units");
-  const exportKinds = EXPORT_KINDS.filter((kind) => unitLevel || kind === "lots");
   const pageHref = (page: number) => `/reports${listParamsSearch(reportParamsSchema, { ...params, page })}#lots`;
 
   return (
@@ -78,9 +74,8 @@ export default async function ReportsPage(props: PageProps<"/reports">) {
 
       <Section id="exports" title="CSV exports">
         <p className="text-sm text-gauge-700">For the filter above: UTF-8 with a header row, dates in ISO 8601 (UTC). Large exports stream as they download.</p>
-        {!unitLevel && <p className="text-sm text-gauge-700">Unit by unit grades, regions and lot reports are for leads: you recheck graded units blind.</p>}
         <ul className="grid gap-2 text-sm sm:grid-cols-2">
-          {exportKinds.map((kind) => (
+          {EXPORT_KINDS.map((kind) => (
             <li key={kind}>
               <a className="font-medium text-gauge-700 underline" href={exportHref(kind, filter)} download data-testid={`export-${kind}`}>
                 {EXPORT_LABELS[kind]}
@@ -93,7 +88,7 @@ export default async function ReportsPage(props: PageProps<"/reports">) {
       <div id="lots">
         <Section id="lot-reports" title="Lot inspection reports">
           <Suspense fallback={<TableSkeleton columns={7} rows={6} label="Loading lots…" />}>
-            <ReportLots workspaceId={user.workspaceId} filter={filter} page={params.page} pageHref={pageHref} withReports={unitLevel} />
+            <ReportLots workspaceId={user.workspaceId} filter={filter} page={params.page} pageHref={pageHref} />
           </Suspense>
         </Section>
       </div>

@@ -9,7 +9,9 @@ import { SwitchingBox } from "@/components/lots/switching-box";
 import { UnitImport } from "@/components/lots/unit-import";
 import { BatteryCaution, StaticCaution } from "@/components/ui/cautions";
 import { getLot } from "@/db/queries/lots";
+import { listDecidedLotAffected } from "@/db/queries/rechecks";
 import { listLotUnits } from "@/db/queries/units";
+import { unitsForReader } from "@/lib/lots/blind-units";
 import { can } from "@/lib/auth/permissions";
 import { requirePageUser } from "@/lib/auth/require-user";
 import { pageIdOrNotFound } from "@/lib/http/page-params";
@@ -29,10 +31,11 @@ export default async function LotPage(props: PageProps<"/lots/[id]">) {
   const row = await getLot({ workspaceId: user.workspaceId, lotId: id });
   if (!row) notFound();
   const { lot } = row;
-  const [progress, lotUnits, next] = await Promise.all([
+  const [progress, lotUnits, next, affected] = await Promise.all([
     oneLotProgress(user.workspaceId, progressInput(row)),
-    listLotUnits({ workspaceId: user.workspaceId, lotId: id }),
+    listLotUnits({ workspaceId: user.workspaceId, lotId: id }).then((rows) => unitsForReader(rows, user)),
     switchingStateFor({ workspaceId: user.workspaceId, supplierId: lot.supplierId, partTypeId: lot.partTypeId }),
+    lot.status === "decided" ? listDecidedLotAffected({ workspaceId: user.workspaceId, lotId: id }) : Promise.resolve([]),
   ]);
   // A decided lot shows the counts its decision rested on, never a recount under a later rule.
   const verdict = lot.status === "decided" && lot.verdict && lot.decisionCounts ? decidedVerdictView(lot.plan, { verdict: lot.verdict, counts: lot.decisionCounts }, progress.verdict) : progress.verdict;
@@ -46,6 +49,11 @@ export default async function LotPage(props: PageProps<"/lots/[id]">) {
       <Link href="/lots" className="text-sm text-gauge-600 underline">
         ← Lots
       </Link>
+      {affected.length > 0 && (
+        <div role="alert" className="rounded-md border-2 border-signal-500 bg-signal-50 p-3 text-sm text-signal-800" data-testid="decided-lot-affected">
+          This lot was decided before {affected.length === 1 ? "an adjudication" : `${affected.length} adjudications`} changed a unit&apos;s grade ({affected.map((a) => a.serial ?? "a unit").join(", ")}). The decision and its counts stay as recorded; review whether the lot needs a follow-up.
+        </div>
+      )}
       <div className="flex flex-wrap items-start justify-between gap-3">
         <div>
           <h1 className="page-title">Lot {lot.purchaseRef}</h1>
@@ -118,7 +126,7 @@ export default async function LotPage(props: PageProps<"/lots/[id]">) {
                 ? `Drawn at random from a list of ${lot.sampleDraw.poolSize} serials with seed ${lot.sampleDraw.seed} (${lot.sampleDraw.algorithm}); the same list and seed give the same sample.`
                 : "Numbered placeholders: inspectors scan each unit's serial on the bench."}
             </p>
-            <LotUnitsList units={lotUnits} checklistLength={row.checklistItemIds.length} defectsByUnit={progress.defectsByUnit} now={new Date()} benchLinks={can(user, "inspection.read")} />
+            <LotUnitsList units={lotUnits} checklistLength={row.checklistItemIds.length} defectsByUnit={can(user, "inspection.read") ? progress.defectsByUnit : new Map()} now={new Date()} benchLinks={can(user, "inspection.read")} />
           </>
         )}
       </section>

@@ -4,6 +4,7 @@ import { handler, parseJson } from "@/lib/http/route";
 import { unitUpdateSchema } from "@/lib/units/schemas";
 import { setUnitSerial } from "@/lib/units/units";
 import { parseId } from "@/lib/validation";
+import { noteInspectionOpened } from "@/lib/recheck/openings";
 
 /** The unit with its lot, part type checklist and recorded results (what the Bench shows; not for auditors). */
 export const GET = handler({ permission: "inspection.read" }, async (_req, ctx: RouteContext<"/api/units/[id]">, user) => {
@@ -11,6 +12,7 @@ export const GET = handler({ permission: "inspection.read" }, async (_req, ctx: 
   const detail = await getUnitDetail({ workspaceId: user.workspaceId, unitId: id });
   if (!detail) throw notFound("That unit");
   const results = await listUnitResults({ workspaceId: user.workspaceId, unitIds: [id] });
+  await noteInspectionOpened(user, id);
   return Response.json({ ...detail, results });
 });
 

@@ -12,9 +12,9 @@ export const metadata: Metadata = { title: "Lot report" };
 /** The lot inspection report as a web page: the PDF's content without the photos, and the PDF to download. */
 export default async function LotReportPage(props: PageProps<"/reports/lots/[id]">) {
   const { id: rawId } = await props.params;
-  const user = await requirePageUser({ permission: "reports.units", from: `/reports/lots/${rawId}` });
+  const user = await requirePageUser({ permission: "reports.read", from: `/reports/lots/${rawId}` });
   const id = pageIdOrNotFound(rawId);
-  const data = await loadLotReport({ workspaceId: user.workspaceId, name: user.name }, id, { photos: false }).catch((error: unknown) => {
+  const data = await loadLotReport({ workspaceId: user.workspaceId, name: user.name, roles: user.roles }, id, { photos: false }).catch((error: unknown) => {
     if (error instanceof AppError && error.code === "not_found") notFound();
     throw error;
   });

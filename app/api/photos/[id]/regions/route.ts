@@ -1,13 +1,16 @@
 import { handler, parseJson } from "@/lib/http/route";
 import { loadPhotoForRegions, readRegionSet, RegionVersionConflict, saveRegionSet } from "@/lib/regions/regions";
 import { REGION_SAVE_MAX_BYTES, saveRegionsSchema } from "@/lib/regions/schemas";
+import { noteInspectionOpened } from "@/lib/recheck/openings";
 import { parseId } from "@/lib/validation";
 
 /** The photo's region set and its version; inspection work, so not for auditors (blind recheck). */
 export const GET = handler({ permission: "inspection.read" }, async (_req, ctx: RouteContext<"/api/photos/[id]/regions">, user) => {
   const photoId = parseId((await ctx.params).id, "That photo");
-  await loadPhotoForRegions(user, photoId);
-  return Response.json(await readRegionSet(user, photoId));
+  const photo = await loadPhotoForRegions(user, photoId);
+  const regionSet = await readRegionSet(user, photoId);
+  await noteInspectionOpened(user, photo.unit.id);
+  return Response.json(regionSet);
 });
 
 /**

@@ -3,11 +3,14 @@ import { recordGradeSchema } from "@/lib/grading/schemas";
 import { requireUnit } from "@/lib/grading/unit-grading";
 import { handler, parseJson } from "@/lib/http/route";
 import { parseId } from "@/lib/validation";
+import { noteInspectionOpened } from "@/lib/recheck/openings";
 
 /** The unit's append-only grade history, oldest first, and its current grade. */
 export const GET = handler({ permission: "inspection.read" }, async (_req, ctx: RouteContext<"/api/units/[id]/grades">, user) => {
   const unitId = parseId((await ctx.params).id, "That unit");
-  return Response.json(await gradeHistory(user, unitId));
+  const history = await gradeHistory(user, unitId);
+  await noteInspectionOpened(user, unitId);
+  return Response.json(history);
 });
 
 /**

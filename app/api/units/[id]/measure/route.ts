@@ -5,6 +5,7 @@ import { latestMeasurement, measureAndStore, requireUnit } from "@/lib/grading/u
 import { handler, parseJson, parseQuery } from "@/lib/http/route";
 import { enqueueMeasureUnit, measureJobState } from "@/lib/jobs/measure-unit";
 import { parseId } from "@/lib/validation";
+import { noteInspectionOpened } from "@/lib/recheck/openings";
 
 /**
  * Measures the unit under the latest published rubric, in a compute thread (never on this one).
@@ -42,5 +43,7 @@ export const GET = handler({ permission: "inspection.read" }, async (req, ctx: R
   const { jobId } = parseQuery(req, measureQuerySchema);
   const job = jobId ? await measureJobState(jobId) : null;
   const ownJob = job && job.data.workspaceId === user.workspaceId && job.data.unitId === unitId ? { id: job.id, state: job.state, notMeasured: job.notMeasured } : null;
-  return Response.json({ measurement: await latestMeasurement(user, unitId), job: ownJob });
+  const measurement = await latestMeasurement(user, unitId);
+  await noteInspectionOpened(user, unitId);
+  return Response.json({ measurement, job: ownJob });
 });

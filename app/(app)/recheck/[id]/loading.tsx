@@ -1,0 +1,5 @@
+import { DetailSkeleton } from "@/components/ui/segment-states";
+
+export default function Loading() {
+  return <DetailSkeleton label="Loading the recheck…" cards={[10, 40, 24]} maxWidth="max-w-6xl" />;
+}

@@ -1,0 +1,5 @@
+import { DetailNotFound } from "@/components/ui/segment-states";
+
+export default function RecheckNotFound() {
+  return <DetailNotFound what="recheck" backHref="/recheck" backLabel="Back to Recheck" />;
+}

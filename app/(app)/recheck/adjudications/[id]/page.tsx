@@ -1,0 +1,16 @@
+import type { Metadata } from "next";
+import { AdjudicationScreen } from "@/components/recheck/adjudication-screen";
+import type { AdjudicationJson } from "@/components/recheck/api";
+import { requirePageUser } from "@/lib/auth/require-user";
+import { pageIdOrNotFound } from "@/lib/http/page-params";
+import { adjudicationView } from "@/lib/recheck/adjudication-view";
+
+export const metadata: Metadata = { title: "Settle a disagreement" };
+
+/** A disagreement between a grade and its recheck, for a lead or an auditor who graded neither side. */
+export default async function AdjudicationPage(props: PageProps<"/recheck/adjudications/[id]">) {
+  const { id: rawId } = await props.params;
+  const user = await requirePageUser({ permission: "recheck.adjudicate", from: `/recheck/adjudications/${rawId}` });
+  const view = await adjudicationView(user, pageIdOrNotFound(rawId));
+  return <AdjudicationScreen view={JSON.parse(JSON.stringify(view)) as AdjudicationJson} />;
+}

@@ -1,0 +1,106 @@
+/**
+ * Issue 19, item 6: the scorecards API and its CSV against the test server and its PostgreSQL.
+ * Grades go through the real API (so the SQL counts real grade rows per grader and day); the
+ * auditors' submissions are stored directly (their steps are recheck-blind.test.ts's subject).
+ * Figures by hand (HAND); kappa itself is checked against published examples in the unit tests.
+ */
+import { eq } from "drizzle-orm";
+import { beforeAll, describe, expect, it } from "vitest";
+import { db } from "@/db/client";
+import { rechecks } from "@/db/schema";
+import { gradeAgreement, gradeSteps } from "@/lib/grading/grade-steps";
+import type { Grade } from "@/lib/grading/rubric-schema";
+import { api } from "../support/http";
+import { gradedUnit, RECHECK_DEFAULTS, recheckWorld, type RecheckWorld } from "../support/recheck";
+
+type ErrorBody = { error: { code: string; message: string; fieldErrors?: Record<string, string> } };
+type Counts = { graded: number; rechecked: number; notBlind: number; figures: { n: number; exact: { share: number | null }; withinOne: number | null } };
+type View = { from: string; to: string; weeks: string[]; graders: (Counts & { graderId: string; drift: { flagged: boolean } })[]; team: Counts; names: Record<string, string>; multiRater: { units: number } };
+
+let world: RecheckWorld;
+const firstGrades: Grade[] = [];
+
+/** Stores the auditor's grade on the recheck of `gradeId` as if submitted. */
+async function submit(gradeId: string, firstGrade: Grade, recheckGrade: Grade, notBlind = false) {
+  const steps = gradeSteps(firstGrade, recheckGrade);
+  await db()
+    .update(rechecks)
+    .set({ status: steps === 0 ? "agreed" : "adjudication", submittedAt: new Date(), auditorId: world.auditor.id, proposedGrade: recheckGrade, recheckGrade, notBlind, comparison: { photos: [], classes: {}, grade: { first: firstGrade, recheck: recheckGrade, steps, agreement: gradeAgreement(firstGrade, recheckGrade) } }, adjudicationReasons: [] })
+    .where(eq(rechecks.gradeId, gradeId));
+}
+
+beforeAll(async () => {
+  // Every grade drawn, so each of the three grades below has a recheck to submit.
+  world = await recheckWorld({ ...RECHECK_DEFAULTS, rate: 1, raisedRate: 1 });
+  const made = [await gradedUnit(world, world.inspector), await gradedUnit(world, world.inspector), await gradedUnit(world, world.inspector)];
+  for (const m of made) firstGrades.push(m.grade.finalGrade as Grade);
+  const other = (g: Grade): Grade => (g === "Reject" ? "C" : g === "C" ? "Reject" : g === "B" ? "C" : "B");
+  // HAND: the first agrees, the second is one step off, the third agrees but was not blind.
+  await submit(made[0].grade.id, firstGrades[0], firstGrades[0]);
+  await submit(made[1].grade.id, firstGrades[1], other(firstGrades[1]));
+  await submit(made[2].grade.id, firstGrades[2], firstGrades[2], true);
+});
+
+describe("GET /api/recheck/scorecards", () => {
+  it("counts the grader's grades and blind rechecks of the period; not-blind rechecks are counted apart", async () => {
+    const res = await api<View>(world.lead, "GET", "/api/recheck/scorecards");
+    expect(res.status, JSON.stringify(res.body)).toBe(200);
+    expect(res.body.weeks).toHaveLength(12);
+    const card = res.body.graders.find((g) => g.graderId === world.inspector.id)!;
+    expect(card).toBeDefined();
+    expect(res.body.names[world.inspector.id]).toBeTruthy();
+    // HAND: 3 graded, 3 rechecked of which 1 not blind; 2 blind, 1 the same grade → 0.5, both within one step → 1.
+    expect(card).toMatchObject({ graded: 3, rechecked: 3, notBlind: 1 });
+    expect(card.figures.n).toBe(2);
+    expect(card.figures.exact.share).toBeCloseTo(0.5, 10);
+    expect(card.figures.withinOne).toBeCloseTo(1, 10);
+    // The week in progress holds them all.
+    const lastWeek = (card as unknown as { weeks: Counts[] }).weeks.at(-1)!;
+    expect(lastWeek).toMatchObject({ graded: 3, rechecked: 3, notBlind: 1 });
+    // The team is this one grader here; alpha and AC1 over the two blind units.
+    expect(res.body.team).toMatchObject({ graded: 3, rechecked: 3 });
+    expect(res.body.multiRater.units).toBe(2);
+  });
+
+  it("a period without the grades has no scorecards for them", async () => {
+    const res = await api<View>(world.auditor, "GET", "/api/recheck/scorecards?from=2020-01-06&to=2020-02-02");
+    expect(res.status).toBe(200);
+    expect(res.body.weeks).toEqual(["2020-01-06", "2020-01-13", "2020-01-20", "2020-01-27"]);
+    expect(res.body.graders).toEqual([]);
+  });
+
+  it("refuses a bad period with a message a person understands", async () => {
+    const cases: [string, RegExp][] = [
+      ["from=2026-02-30", /not a calendar date/],
+      ["from=yesterday", /must be a date like/],
+      ["from=2026-03-01&to=2026-02-01", /starts after it ends/],
+      ["from=2020-01-01&to=2026-01-01", /at most a year/],
+      ["grader=x", /grader/i],
+    ];
+    for (const [query, message] of cases) {
+      const res = await api<ErrorBody>(world.lead, "GET", `/api/recheck/scorecards?${query}`);
+      expect(res.status, query).toBe(400);
+      expect(JSON.stringify(res.body.error), query).toMatch(message);
+    }
+  });
+
+  it("is for auditors and leads only", async () => {
+    expect((await api(world.inspector, "GET", "/api/recheck/scorecards")).status).toBe(403);
+    expect((await api(world.inspector, "GET", "/api/recheck/scorecards/csv")).status).toBe(403);
+  });
+});
+
+describe("GET /api/recheck/scorecards/csv", () => {
+  it("answers a CSV download with a row per grader and week, their period and the team", async () => {
+    const res = await api<string>(world.auditor, "GET", "/api/recheck/scorecards/csv");
+    expect(res.status).toBe(200);
+    expect(res.headers.get("content-type")).toMatch(/^text\/csv/);
+    expect(res.headers.get("content-disposition")).toMatch(/^attachment; filename="scorecards-\d{4}-\d{2}-\d{2}-to-\d{4}-\d{2}-\d{2}\.csv"$/);
+    const lines = String(res.body).replace(/^\uFEFF/, "").trim().split("\r\n");
+    expect(lines[0].split(",").slice(0, 7)).toEqual(["grader", "grader_id", "period", "graded", "rechecked", "not_blind", "n"]);
+    // 12 weeks + the period, for the one grader and for the team.
+    expect(lines).toHaveLength(1 + 2 * 13);
+    const period = lines.find((line) => line.includes(`,${world.inspector.id},`) && !line.includes("week of"))!;
+    expect(period.split(",").slice(3, 8)).toEqual(["3", "3", "1", "2", "0.5"]);
+  });
+});
