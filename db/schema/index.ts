@@ -7,3 +7,4 @@ export * from "./gallery";
 export * from "./suggestions";
 export * from "./certificates";
 export * from "./recheck";
+export * from "./evidence";

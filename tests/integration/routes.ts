@@ -124,6 +124,12 @@ export const ROUTES: RouteRow[] = [
   { method: "GET", path: "/api/certificates/:certificateId/pdf", permission: "certificates.manage", allowedStatus: 200 },
   { method: "POST", path: "/api/certificates/:certificateId/revoke", permission: "certificates.manage", body: () => ({ reason: "Route check." }), allowedStatus: [200, 409] },
   { method: "GET", path: "/api/reports/export?kind=defects&supplierId=:supplierId", permission: "reports.read", allowedStatus: 200 },
+  // Evidence packs and claims: the fixture lot is open, so preview and send answer 409 (nothing is sent); evidence.test.ts covers the rest.
+  { method: "GET", path: "/api/lots/:lotId/evidence", permission: "evidence.send", allowedStatus: 200 },
+  { method: "POST", path: "/api/lots/:lotId/evidence/preview", permission: "evidence.send", body: () => ({ subject: "Lot {{lot}}", body: "Route check." }), allowedStatus: 409 },
+  { method: "POST", path: "/api/lots/:lotId/evidence", permission: "evidence.send", body: () => ({ subject: "Lot {{lot}}", body: "Route check." }), allowedStatus: 409 },
+  { method: "GET", path: "/api/suppliers/:supplierId/evidence", permission: "evidence.send", allowedStatus: 200 },
+  { method: "PATCH", path: "/api/claims/00000000-0000-4000-8000-000000000001", permission: "evidence.send", body: () => ({ status: "closed", note: "Route check.", version: 1 }), allowedStatus: 404 },
   { method: "POST", path: "/api/lots/:emptyLotId/units", permission: "lots.manage", body: () => ({ source: "placeholders" }), allowedStatus: 201 },
   // The fixture battery lot has a swollen cell (critical, Re 1): rejected, so it may be returned.
   { method: "POST", path: "/api/lots/:decidableLotId/disposition", permission: "lots.decide", body: () => ({ disposition: "return_to_vendor", reason: "Route check: swollen cell." }), allowedStatus: 200 },

@@ -1,0 +1,197 @@
+/**
+ * Evidence packs and claims over HTTP against the test server, its PostgreSQL, its worker and the
+ * local SMTP inbox (no mocks): a lead previews and sends evidence about a returned lot; the worker
+ * delivers it; the message read back with mailparser carries the lot report PDF (text via pdf.js,
+ * checked against the database), the annotated photo (a JPEG, read by sharp) and the CSV of the
+ * sampled units (parsed with papaparse, row by row against the database). The claim opens on the
+ * supplier and moves with a note. Bad input and an undecided lot send and store nothing.
+ */
+import { and, desc, eq } from "drizzle-orm";
+import Papa from "papaparse";
+import sharp from "sharp";
+import { beforeAll, describe, expect, it } from "vitest";
+import { db } from "@/db/client";
+import { claims, evidencePacks, grades, outgoingEmails, units } from "@/db/schema";
+import { putObject } from "@/lib/storage/s3";
+import { createPhoto, insertRubricVersion, saveRegions, workspaceIdOf, type FixtureRegion } from "../support/grading";
+import { api, signIn, type Session } from "../support/http";
+import { parsedMessagesTo } from "../support/inbox-parsed";
+import { flatText, pdfText } from "../support/pdf-text";
+import { testStore } from "../support/photos";
+
+const SURFACE: FixtureRegion = { clientId: "surface", role: "surface", shape: { kind: "polygon", points: [[50, 50], [250, 50], [250, 150], [50, 150]] } };
+const SCRATCH: FixtureRegion = { clientId: "scratch", role: "defect", defect: "scratch", shape: { kind: "rect", x: 60, y: 60, width: 30, height: 10 } };
+const REASON = "Scratched housings far over the contract's limit.";
+
+let lead: Session;
+let inspector: Session;
+let foreignLead: Session;
+let owner: { workspaceId: string; userId: string };
+const tag = Date.now().toString(36);
+const contact = `evidence-${tag}@supplier.example`;
+let ids: { lotId: string; openLotId: string; supplierId: string; purchaseRef: string; unitIds: string[] };
+
+async function ok<T>(res: Promise<{ status: number; body: T }>, what: string, status = 200): Promise<T> {
+  const r = await res;
+  if (r.status !== status) throw new Error(`${what} → ${r.status}: ${JSON.stringify(r.body)}`);
+  return r.body;
+}
+
+/** Polls until `read` gives a value, or fails with `what` after the deadline (waits for states, not for time). */
+async function until<T>(what: string, read: () => Promise<T | undefined>, timeoutMs = 60_000): Promise<T> {
+  const deadline = Date.now() + timeoutMs;
+  for (;;) {
+    const value = await read();
+    if (value !== undefined) return value;
+    if (Date.now() > deadline) throw new Error(`Timed out waiting for ${what}`);
+    await new Promise((r) => setTimeout(r, 250));
+  }
+}
+
+const draft = (overrides: Record<string, unknown> = {}) => ({ subject: "Lot {{lot}}: {{decision}} (claim {{claimRef}})", body: "Hello,\n\nlot {{lot}} was {{decision}}.\nPlan: {{plan}}\nDefectives: {{defectives}}\nReason: {{reason}}\n\n{{workspace}}", ...overrides });
+
+async function lotWithUnits(purchaseRef: string, partTypeId: string, supplierId: string) {
+  const { lot } = await ok(
+    api<{ lot: { id: string } }>(lead, "POST", "/api/lots", { supplierId, partTypeId, purchaseRef, quantity: 10, receivedOn: "2026-11-18", dueOn: "2026-11-27", inspectionLevel: "II", aqlCritical: null, aqlMajor: 4.0, aqlMinor: 4.0 }),
+    "lot",
+    201,
+  );
+  await ok(api(lead, "POST", `/api/lots/${lot.id}/units`, { source: "placeholders" }), "units", 201);
+  const { units: list } = await ok(api<{ units: { id: string }[] }>(lead, "GET", `/api/lots/${lot.id}/units`), "unit list");
+  return { lotId: lot.id, unitIds: list.map((u) => u.id) };
+}
+
+async function inspect(unitId: string, serial: string, regions: FixtureRegion[]) {
+  await ok(api(inspector, "PATCH", `/api/units/${unitId}`, { serial }), "serial");
+  await ok(api(inspector, "POST", `/api/units/${unitId}/checklist`, { itemId: "power", value: { pass: true } }), "checklist");
+  const photo = await createPhoto({ workspaceId: owner.workspaceId, unitId, uploadedBy: owner.userId, viewKey: "back" });
+  await saveRegions({ workspaceId: owner.workspaceId, photoId: photo.id, authorId: owner.userId, regions: [SURFACE, ...regions] });
+  const measured = await ok(api<{ measurement: { id: string } }>(inspector, "POST", `/api/units/${unitId}/measure`), "measure");
+  await ok(api(inspector, "POST", `/api/units/${unitId}/grades`, { measurementId: measured.measurement.id, decision: "accept" }), "grade", 201);
+  return photo;
+}
+
+const countRows = async () => ({
+  packs: (await db().select({ id: evidencePacks.id }).from(evidencePacks).where(eq(evidencePacks.supplierId, ids.supplierId))).length,
+  emails: (await db().select({ id: outgoingEmails.id }).from(outgoingEmails).where(eq(outgoingEmails.toAddress, contact))).length,
+  mail: (await parsedMessagesTo(contact)).length,
+});
+
+beforeAll(async () => {
+  lead = await signIn("lead@vellmoor.example");
+  inspector = await signIn("inspector@vellmoor.example");
+  foreignLead = await signIn("lead@quillfen.example");
+  owner = await workspaceIdOf("lead@vellmoor.example");
+  const { partType } = await ok(
+    api<{ partType: { id: string } }>(lead, "POST", "/api/part-types", {
+      name: `Evidence part ${tag}`,
+      category: "housing",
+      views: [{ key: "back", label: "Back", required: true, zones: [] }],
+      defectClasses: [{ key: "scratch", label: "Scratch", severity: "major" }],
+      checklist: [{ id: "power", label: "Powers on", kind: "pass_fail", severityOnFail: "major" }],
+      nominalSizeMm: { width: 20, height: 10 },
+    }),
+    "part type",
+    201,
+  );
+  await insertRubricVersion({ workspaceId: owner.workspaceId, partTypeId: partType.id, version: 1, status: "published", rubric: { rules: [{ id: "scratch-c", metric: "share", defect: "scratch", comparison: ">", threshold: 1, grade: "C" }] }, actorId: owner.userId });
+  const { supplier } = await ok(api<{ supplier: { id: string } }>(lead, "POST", "/api/suppliers", { name: `Evidence Dodavatel Ořech ${tag}`, contactEmail: contact }), "supplier", 201);
+  const purchaseRef = `PO-EVD-${tag}`;
+  const decided = await lotWithUnits(purchaseRef, partType.id, supplier.id);
+  const scratched = await inspect(decided.unitIds[0], `EVD-${tag}-1`, [SCRATCH]);
+  await inspect(decided.unitIds[1], `EVD-${tag}-2`, []);
+  await inspect(decided.unitIds[2], `EVD-${tag}-3`, []);
+  const preview = await sharp({ create: { width: 300, height: 200, channels: 3, background: "#8a9199" } }).webp().toBuffer();
+  await putObject(testStore(), scratched.previewKey!, preview, { contentType: "image/webp" });
+  await ok(api(lead, "POST", `/api/lots/${decided.lotId}/disposition`, { disposition: "return_to_vendor", reason: REASON }), "decision");
+  const open = await lotWithUnits(`PO-EVD-OPEN-${tag}`, partType.id, supplier.id);
+  ids = { lotId: decided.lotId, openLotId: open.lotId, supplierId: supplier.id, purchaseRef, unitIds: decided.unitIds };
+});
+
+describe("evidence packs", () => {
+  it("the preview fills the template and lists the files; nothing is stored or sent", async () => {
+    const before = await countRows();
+    const { preview } = await ok(api<{ preview: { to: string; subject: string; text: string; claimRef: string; delivery: string; attachments: { filename: string; bytes: number }[] } }>(lead, "POST", `/api/lots/${ids.lotId}/evidence/preview`, draft()), "preview");
+    expect(preview.to).toBe(contact);
+    expect(preview.claimRef).toMatch(/^CLM-\d{4}-\d{4}$/);
+    expect(preview.subject).toBe(`Lot ${ids.purchaseRef}: rejected — return to vendor (claim ${preview.claimRef})`);
+    expect(preview.text).toContain(`Reason: ${REASON}`);
+    expect(preview.delivery).toBe("attached");
+    expect(preview.attachments.map((a) => a.filename.replace(/-[^-]*$/, ""))).toEqual(["lot-report-PO-EVD", "photo-01-Unit_EVD", "sampled-units-PO-EVD"]);
+    expect(await countRows()).toEqual(before);
+  });
+
+  it("sending queues the e-mail; the worker delivers it with the PDF, the annotated photo and the CSV; the claim opens on the supplier", async () => {
+    const sent = await ok(api<{ evidencePack: { id: string }; claim: { id: string; reference: string; status: string }; email: { id: string; status: string } }>(lead, "POST", `/api/lots/${ids.lotId}/evidence`, draft({ claimRef: `RMA-${tag}` })), "send", 202);
+    expect(sent.claim).toMatchObject({ reference: `RMA-${tag}`, status: "open" });
+    const email = await until("the worker to deliver the evidence", async () => {
+      const [row] = await db().select().from(outgoingEmails).where(eq(outgoingEmails.id, sent.email.id));
+      return row.status === "sent" ? row : undefined;
+    });
+    expect(email.kind).toBe("supplier_evidence");
+    const message = await until("the message in the inbox", async () => (await parsedMessagesTo(contact)).find((m) => m.subject.includes(`RMA-${tag}`)));
+    const byType = (type: string) => message.attachments.filter((a) => a.contentType.startsWith(type));
+    const [pdf] = byType("application/pdf");
+    const text = flatText(await pdfText(pdf.content));
+    expect(text).toContain(ids.purchaseRef);
+    expect(text).toContain(REASON);
+    const [photo] = byType("image/jpeg");
+    expect((await sharp(photo.content).metadata()).format).toBe("jpeg");
+    const [csvFile] = byType("text/csv");
+    const parsed = Papa.parse<Record<string, string>>(csvFile.content.toString("utf8").replace(/^\uFEFF/, ""), { header: true, skipEmptyLines: true });
+    expect(parsed.errors).toEqual([]);
+    const dbUnits = await db().select().from(units).where(eq(units.lotId, ids.lotId)).orderBy(units.sampleIndex);
+    expect(parsed.data.map((r) => r.serial)).toEqual(dbUnits.map((u) => u.serial ?? ""));
+    for (const [i, unit] of dbUnits.entries()) {
+      const [current] = await db().select().from(grades).where(eq(grades.unitId, unit.id)).orderBy(desc(grades.createdAt), desc(grades.id)).limit(1);
+      expect(parsed.data[i].grade).toBe(current?.finalGrade ?? "");
+    }
+    // The stored pack says what was sent, sizes included.
+    const [pack] = await db().select().from(evidencePacks).where(eq(evidencePacks.id, sent.evidencePack.id));
+    expect(pack.attachments.map((a) => a.bytes).sort()).toEqual(message.attachments.map((a) => a.size).sort());
+
+    const { packs } = await ok(api<{ packs: { claimReference: string; claimStatus: string; emailStatus: string }[] }>(lead, "GET", `/api/suppliers/${ids.supplierId}/evidence`), "supplier list");
+    expect(packs.find((p) => p.claimReference === `RMA-${tag}`)).toMatchObject({ claimStatus: "open", emailStatus: "sent" });
+  });
+
+  it("a claim moves with a note; an unknown status or a stale version is refused and changes nothing", async () => {
+    const sent = await ok(api<{ claim: { id: string; version: number } }>(lead, "POST", `/api/lots/${ids.lotId}/evidence`, draft()), "send", 202);
+    const unknown = await api<{ error: { message: string } }>(lead, "PATCH", `/api/claims/${sent.claim.id}`, { status: "paid", note: "", version: sent.claim.version });
+    expect(unknown.status).toBe(400);
+    expect(unknown.body.error.message).toMatch(/Choose a claim status: open, credited, replaced, refused, closed/);
+    const moved = await ok(api<{ claim: { status: string; note: string; version: number } }>(lead, "PATCH", `/api/claims/${sent.claim.id}`, { status: "credited", note: "Credit note 118 received.", version: sent.claim.version }), "credit");
+    expect(moved.claim).toMatchObject({ status: "credited", note: "Credit note 118 received." });
+    const stale = await api(lead, "PATCH", `/api/claims/${sent.claim.id}`, { status: "refused", note: "", version: sent.claim.version });
+    expect(stale.status).toBe(409);
+    const [row] = await db().select().from(claims).where(eq(claims.id, sent.claim.id));
+    expect(row).toMatchObject({ status: "credited", version: moved.claim.version });
+  });
+
+  it("bad input, an undecided lot and another workspace get a clear 4xx and nothing is stored or sent", async () => {
+    const before = await countRows();
+    const long = await api<{ error: { message: string } }>(lead, "POST", `/api/lots/${ids.lotId}/evidence`, draft({ body: "x".repeat(5001) }));
+    expect(long.status).toBe(400);
+    expect(long.body.error.message).toMatch(/Keep the message under 5000 characters/);
+    const unknown = await api<{ error: { message: string } }>(lead, "POST", `/api/lots/${ids.lotId}/evidence`, draft({ body: "Dear {{contactName}}" }));
+    expect(unknown.status).toBe(400);
+    expect(unknown.body.error.message).toMatch(/names \{\{contactName\}\}, which is not a placeholder/);
+    const open = await api<{ error: { message: string } }>(lead, "POST", `/api/lots/${ids.openLotId}/evidence`, draft());
+    expect(open.status).toBe(409);
+    expect(open.body.error.message).toMatch(/not decided yet/);
+    expect((await api(lead, "POST", `/api/lots/${ids.openLotId}/evidence/preview`, draft())).status).toBe(409);
+    const taken = await api<{ error: { message: string } }>(lead, "POST", `/api/lots/${ids.lotId}/evidence`, draft({ claimRef: `rma-${tag}` }));
+    expect(taken.status).toBe(409);
+    expect(taken.body.error.message).toMatch(/already used/);
+    for (const [method, path] of [
+      ["GET", `/api/lots/${ids.lotId}/evidence`],
+      ["POST", `/api/lots/${ids.lotId}/evidence`],
+      ["POST", `/api/lots/${ids.lotId}/evidence/preview`],
+      ["GET", `/api/suppliers/${ids.supplierId}/evidence`],
+    ] as const) {
+      expect((await api(foreignLead, method, path, method === "POST" ? draft() : undefined)).status, `${method} ${path}`).toBe(404);
+    }
+    const [anyClaim] = await db().select().from(claims).where(and(eq(claims.supplierId, ids.supplierId)));
+    expect((await api(foreignLead, "PATCH", `/api/claims/${anyClaim.id}`, { status: "closed", note: "", version: anyClaim.version })).status).toBe(404);
+    expect(await countRows()).toEqual(before);
+  });
+});
