@@ -117,7 +117,7 @@ describe("evidence packs", () => {
     expect(preview.subject).toBe(`Lot ${ids.purchaseRef}: rejected — return to vendor (claim ${preview.claimRef})`);
     expect(preview.text).toContain(`Reason: ${REASON}`);
     expect(preview.delivery).toBe("attached");
-    expect(preview.attachments.map((a) => a.filename.replace(/-[^-]*$/, ""))).toEqual(["lot-report-PO-EVD", "photo-01-Unit_EVD", "sampled-units-PO-EVD"]);
+    expect(preview.attachments.map((a) => a.filename)).toEqual([`lot-report-PO-EVD-${tag}.pdf`, `photo-01-Unit_EVD-${tag}-1_Back_grade_C.jpg`, `sampled-units-PO-EVD-${tag}.csv`]);
     expect(await countRows()).toEqual(before);
   });
 
