@@ -1,6 +1,6 @@
 import { Wordmark } from "@/components/ui/logo";
 
-/** Signed-out public pages (certificate verification): no navigation, nothing of any workspace. */
+/** Signed-out public pages (certificate verification, evidence links): no navigation, nothing of any workspace. */
 export default function PublicLayout({ children }: { children: React.ReactNode }) {
   return (
     <div className="flex min-h-screen flex-col items-center bg-gauge-100 px-4 py-10">

@@ -29,6 +29,10 @@ export function EvidencePackItem({ pack, showLot = false }: { pack: EvidencePack
     mutationFn: () => apiFetch(`/api/claims/${pack.claimId}`, { method: "PATCH", body: { status, note, version: pack.claimVersion } }),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: evidenceKeys.all }),
   });
+  const withdraw = useMutation<unknown, ApiError>({
+    mutationFn: () => apiFetch(`/api/evidence-packs/${pack.id}/revoke`, { body: {} }),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: evidenceKeys.all }),
+  });
   const total = pack.attachments.reduce((sum, a) => sum + a.bytes, 0);
   return (
     <li className="space-y-2 rounded-md border border-gauge-200 p-3 text-sm" data-testid={`evidence-${pack.claimReference}`}>
@@ -56,8 +60,40 @@ export function EvidencePackItem({ pack, showLot = false }: { pack: EvidencePack
         E-mail {deliveryText(pack)}
       </p>
       <p className="text-xs text-gauge-600">
-        {pack.attachments.length} files, {formatBytes(total)}: {pack.attachments.map((a) => a.filename).join(", ")}
+        {pack.attachments.length} files, {formatBytes(total)}
+        {pack.delivery === "link" ? " behind an evidence link" : " attached"}: {pack.attachments.map((a) => a.filename).join(", ")}
       </p>
+      {pack.delivery === "link" && (
+        <div className="flex flex-wrap items-center gap-2 text-xs" data-testid="evidence-link-state">
+          {pack.revokedAt ? (
+            <span className="text-gauge-700">Evidence link withdrawn {formatDateTime(pack.revokedAt)}.</span>
+          ) : (
+            <>
+              <span>
+                Evidence link open until {pack.linkExpiresAt ? formatDateTime(pack.linkExpiresAt) : "—"}
+                {pack.linkUrl && (
+                  <>
+                    {" "}
+                    (
+                    <a className="underline" href={pack.linkUrl} target="_blank" rel="noreferrer">
+                      open
+                    </a>
+                    )
+                  </>
+                )}
+              </span>
+              <button type="button" className="btn-secondary px-2 py-0.5 text-xs" disabled={withdraw.isPending} onClick={() => withdraw.mutate()}>
+                Withdraw link
+              </button>
+            </>
+          )}
+          {withdraw.error && (
+            <span role="alert" className="text-fault-700">
+              {withdraw.error.message}
+            </span>
+          )}
+        </div>
+      )}
       <form
         className="flex flex-wrap items-end gap-2"
         onSubmit={(e) => {

@@ -86,6 +86,11 @@ export function EvidencePanel({ lotId }: { lotId: string }) {
             <span className="font-medium">Subject:</span> {preview.subject}
           </p>
           <pre className="whitespace-pre-wrap font-sans">{preview.text}</pre>
+          {preview.delivery === "link" && (
+            <p className="text-xs text-signal-700" data-testid="evidence-link-note">
+              The files come to {formatBytes(preview.totalBytes)}, over what an e-mail may carry: they go behind an expiring evidence link you can withdraw.
+            </p>
+          )}
           <ul className="text-xs text-gauge-700">
             {preview.attachments.map((a) => (
               <li key={a.filename}>

@@ -9,6 +9,10 @@ export type EvidencePackView = {
   subject: string;
   attachments: { filename: string; contentType: string; bytes: number }[];
   delivery: "attached" | "link";
+  /** Packs sent by link: the link's address and expiry, and when the lead withdrew it. */
+  linkUrl: string | null;
+  linkExpiresAt: string | null;
+  revokedAt: string | null;
   createdAt: string;
   createdByName: string;
   emailId: string;

@@ -1,7 +1,7 @@
 import "server-only";
-import { and, desc, eq, sql } from "drizzle-orm";
+import { and, desc, eq, isNull, sql } from "drizzle-orm";
 import { db, type DbOrTx } from "@/db/client";
-import { claims, evidencePacks, lots, outgoingEmails, suppliers, users, type NewEvidencePack } from "@/db/schema";
+import { claims, evidencePacks, lots, outgoingEmails, suppliers, users, workspaces, type NewEvidencePack } from "@/db/schema";
 import type { ClaimStatus } from "@/lib/evidence/claim-status";
 
 /** The supplier's contact for a lot's evidence (scoped to the workspace). */
@@ -106,5 +106,49 @@ export async function updateClaimRow(
 
 export async function getClaim({ workspaceId, claimId }: { workspaceId: string; claimId: string }, tx: DbOrTx = db()) {
   const [row] = await tx.select().from(claims).where(and(eq(claims.workspaceId, workspaceId), eq(claims.id, claimId))).limit(1);
+  return row;
+}
+
+/**
+ * A pack as its public evidence link shows it (signed out, found by the id in a verified token):
+ * what the supplier was sent and by which workspace, nothing else. Undefined for an unknown id or
+ * a pack whose files were attached (those have no link).
+ */
+export async function findEvidencePackForLink({ id }: { id: string }, tx: DbOrTx = db()) {
+  const [row] = await tx
+    .select({
+      id: evidencePacks.id,
+      workspaceId: evidencePacks.workspaceId,
+      workspaceName: workspaces.name,
+      purchaseRef: lots.purchaseRef,
+      subject: evidencePacks.subject,
+      body: evidencePacks.body,
+      attachments: evidencePacks.attachments,
+      createdAt: evidencePacks.createdAt,
+      linkExpiresAt: evidencePacks.linkExpiresAt,
+      revokedAt: evidencePacks.revokedAt,
+      claimReference: claims.reference,
+    })
+    .from(evidencePacks)
+    .innerJoin(workspaces, eq(workspaces.id, evidencePacks.workspaceId))
+    .innerJoin(lots, and(eq(lots.workspaceId, evidencePacks.workspaceId), eq(lots.id, evidencePacks.lotId)))
+    .innerJoin(claims, eq(claims.evidencePackId, evidencePacks.id))
+    .where(and(eq(evidencePacks.id, id), eq(evidencePacks.delivery, "link")))
+    .limit(1);
+  return row;
+}
+
+/** Withdraws a pack's evidence link; undefined when the pack is not the workspace's, has no link or is already withdrawn. */
+export async function revokeEvidenceLinkRow(tx: DbOrTx, { workspaceId, packId, revokedBy, at }: { workspaceId: string; packId: string; revokedBy: string; at: Date }) {
+  const [row] = await tx
+    .update(evidencePacks)
+    .set({ revokedAt: at, revokedBy })
+    .where(and(eq(evidencePacks.workspaceId, workspaceId), eq(evidencePacks.id, packId), eq(evidencePacks.delivery, "link"), isNull(evidencePacks.revokedAt)))
+    .returning();
+  return row;
+}
+
+export async function getEvidencePack({ workspaceId, packId }: { workspaceId: string; packId: string }, tx: DbOrTx = db()) {
+  const [row] = await tx.select().from(evidencePacks).where(and(eq(evidencePacks.workspaceId, workspaceId), eq(evidencePacks.id, packId))).limit(1);
   return row;
 }

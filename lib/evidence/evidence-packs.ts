@@ -18,7 +18,7 @@ import "server-only";
 import { randomUUID } from "node:crypto";
 import { transaction } from "@/db/client";
 import { logActivity } from "@/db/queries/activity";
-import { countNumberedClaims, getClaim, insertQueuedEvidenceEmail, getLotSupplierContact, insertClaim, insertEvidencePack, listLotEvidencePacks, listSupplierEvidencePacks, updateClaimRow } from "@/db/queries/evidence";
+import { type EvidencePackRow, countNumberedClaims, getClaim, insertQueuedEvidenceEmail, getLotSupplierContact, insertClaim, insertEvidencePack, listLotEvidencePacks, listSupplierEvidencePacks, updateClaimRow } from "@/db/queries/evidence";
 import { getSupplier } from "@/db/queries/suppliers";
 import { getLot, lockLot } from "@/db/queries/lots";
 import type { Lot } from "@/db/schema";
@@ -27,7 +27,9 @@ import type { SessionUser } from "@/lib/auth/require-user";
 import { AppError, notFound } from "@/lib/errors";
 import { transactionWithJobs } from "@/lib/jobs/send";
 import { loadLotReport } from "@/lib/reports/lot-report-load";
+import { formatInstant } from "@/lib/reports/format";
 import { DEFAULT_EVIDENCE_LIMIT_BYTES, evidenceFiles, totalBytes, type EvidenceFile } from "./attachments";
+import { evidenceLinkExpiry, evidenceLinkParagraph, evidenceLinkUrl, removeEvidenceFiles, storeEvidenceFiles } from "./evidence-link";
 import type { EvidenceDraft } from "./schemas";
 import { EVIDENCE_BODY_MAX, EVIDENCE_SUBJECT_MAX, evidenceValues, fillTemplate } from "./template";
 
@@ -84,6 +86,13 @@ export async function prepareEvidence(user: SessionUser, lotId: string, draft: E
   return { to: contact.contactEmail, supplierId: contact.supplierId, subject, text, claimRef, files, totalBytes: total, delivery: total > evidenceLimitBytes() ? "link" : "attached" };
 }
 
+/** The preview's text: for a pack sent by link, the paragraph the e-mail will carry (its address is made when it is sent). */
+export function previewText(prepared: PreparedEvidence, timeZone: string): string {
+  if (prepared.delivery === "attached") return prepared.text;
+  const paragraph = evidenceLinkParagraph({ url: "[the evidence link, made when you send]", files: prepared.files.length, totalBytes: prepared.totalBytes, expiresAt: formatInstant(evidenceLinkExpiry(new Date()), timeZone) });
+  return `${prepared.text.trimEnd()}\n\n${paragraph}`;
+}
+
 const escapeHtml = (s: string) => s.replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" })[c]!);
 const htmlOf = (text: string) =>
   `<!doctype html><html><body style="font-family:sans-serif;color:#1f2933">${text
@@ -94,11 +103,24 @@ const htmlOf = (text: string) =>
 /** Stores the pack, its claim and the queued e-mail with its delivery job, all or nothing. */
 export async function sendEvidence(user: SessionUser, lotId: string, draft: EvidenceDraft) {
   const prepared = await prepareEvidence(user, lotId, draft);
-  if (prepared.delivery === "link") {
-    // The evidence link and its public page are the next step of issue 17; until they exist, say so plainly.
-    throw new AppError("payload_too_large", `The attachments come to ${(prepared.totalBytes / 1048576).toFixed(1)} MB, over the ${(evidenceLimitBytes() / 1048576).toFixed(0)} MB an e-mail may carry, and evidence links are not available yet. Nothing was sent.`);
-  }
   const packId = randomUUID();
+  const byLink = prepared.delivery === "link";
+  const linkExpiresAt = byLink ? evidenceLinkExpiry(new Date()) : null;
+  let text = prepared.text;
+  if (linkExpiresAt) {
+    const url = evidenceLinkUrl({ id: packId, linkExpiresAt });
+    text = `${text.trimEnd()}\n\n${evidenceLinkParagraph({ url, files: prepared.files.length, totalBytes: prepared.totalBytes, expiresAt: formatInstant(linkExpiresAt, user.timeZone) })}`;
+    await storeEvidenceFiles(user.workspaceId, packId, prepared.files);
+  }
+  try {
+    return await storePack(user, lotId, packId, { ...prepared, text }, linkExpiresAt);
+  } catch (err) {
+    if (byLink) await removeEvidenceFiles(user.workspaceId, packId, prepared.files.length);
+    throw err;
+  }
+}
+
+async function storePack(user: SessionUser, lotId: string, packId: string, prepared: PreparedEvidence, linkExpiresAt: Date | null) {
   return transactionWithJobs(async (tx, jobs) => {
     const lot = await lockLot(tx, { workspaceId: user.workspaceId, lotId });
     if (!lot) throw notFound("That lot");
@@ -115,12 +137,13 @@ export async function sendEvidence(user: SessionUser, lotId: string, draft: Evid
       subject: prepared.subject,
       body: prepared.text,
       attachments: prepared.files.map(({ filename, contentType, bytes }) => ({ filename, contentType, bytes })),
-      delivery: "attached",
+      delivery: prepared.delivery,
+      linkExpiresAt,
       createdBy: user.id,
     });
     const claim = await insertClaim(tx, { workspaceId: user.workspaceId, evidencePackId: pack.id, supplierId: prepared.supplierId, lotId, reference: prepared.claimRef, updatedBy: user.id });
     if (!claim) throw new AppError("conflict", `Claim reference ${prepared.claimRef} is already used in this workspace; type another or leave it empty to have one numbered.`, { fieldErrors: { claimRef: "Already used." } });
-    await logActivity(tx, { workspaceId: user.workspaceId, actorId: user.id, action: "evidence.sent", subjectType: "lot", subjectId: lotId, detail: { evidencePackId: pack.id, claimId: claim.id, claimRef: claim.reference, to: prepared.to, bytes: prepared.totalBytes } });
+    await logActivity(tx, { workspaceId: user.workspaceId, actorId: user.id, action: "evidence.sent", subjectType: "lot", subjectId: lotId, detail: { evidencePackId: pack.id, claimId: claim.id, claimRef: claim.reference, to: prepared.to, bytes: prepared.totalBytes, delivery: prepared.delivery } });
     await jobs.sendMailDelivery({
       emailId: email.id,
       message: {
@@ -130,22 +153,26 @@ export async function sendEvidence(user: SessionUser, lotId: string, draft: Evid
         subject: prepared.subject,
         text: prepared.text,
         html: htmlOf(prepared.text),
-        attachments: prepared.files.map((f) => ({ filename: f.filename, content: f.content, contentType: f.contentType })),
+        // Behind a link the files stay in the store; the message carries the link instead.
+        attachments: prepared.delivery === "link" ? [] : prepared.files.map((f) => ({ filename: f.filename, content: f.content, contentType: f.contentType })),
       },
     });
     return { pack, claim, email };
   });
 }
 
+/** Each pack sent by link with the address its e-mail carried (for the lead to copy or check). */
+const withLinks = (packs: EvidencePackRow[]) => packs.map((p) => ({ ...p, linkUrl: p.linkExpiresAt ? evidenceLinkUrl({ id: p.id, linkExpiresAt: p.linkExpiresAt }) : null }));
+
 export async function listEvidenceOfLot(user: SessionUser, lotId: string) {
   const row = await getLot({ workspaceId: user.workspaceId, lotId });
   if (!row) throw notFound("That lot");
-  return { packs: await listLotEvidencePacks({ workspaceId: user.workspaceId, lotId }), refusal: evidenceRefusal(row.lot) };
+  return { packs: withLinks(await listLotEvidencePacks({ workspaceId: user.workspaceId, lotId })), refusal: evidenceRefusal(row.lot) };
 }
 
 export async function listEvidenceOfSupplier(user: SessionUser, supplierId: string) {
   if (!(await getSupplier({ workspaceId: user.workspaceId, supplierId }))) throw notFound("That supplier");
-  return listSupplierEvidencePacks({ workspaceId: user.workspaceId, supplierId });
+  return withLinks(await listSupplierEvidencePacks({ workspaceId: user.workspaceId, supplierId }));
 }
 
 export async function updateClaim(user: SessionUser, claimId: string, update: { status: ClaimStatus; note: string; version: number }) {

@@ -12,64 +12,18 @@ import sharp from "sharp";
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db/client";
 import { claims, evidencePacks, grades, outgoingEmails, units } from "@/db/schema";
-import { putObject } from "@/lib/storage/s3";
-import { createPhoto, insertRubricVersion, saveRegions, workspaceIdOf, type FixtureRegion } from "../support/grading";
+import { evidenceDraft as draft, evidenceWorld, inspectUnit, lotWithUnits, ok, SCRATCH, until } from "../support/evidence";
 import { api, signIn, type Session } from "../support/http";
 import { parsedMessagesTo } from "../support/inbox-parsed";
 import { flatText, pdfText } from "../support/pdf-text";
-import { testStore } from "../support/photos";
 
-const SURFACE: FixtureRegion = { clientId: "surface", role: "surface", shape: { kind: "polygon", points: [[50, 50], [250, 50], [250, 150], [50, 150]] } };
-const SCRATCH: FixtureRegion = { clientId: "scratch", role: "defect", defect: "scratch", shape: { kind: "rect", x: 60, y: 60, width: 30, height: 10 } };
 const REASON = "Scratched housings far over the contract's limit.";
 
 let lead: Session;
-let inspector: Session;
 let foreignLead: Session;
-let owner: { workspaceId: string; userId: string };
 const tag = Date.now().toString(36);
 const contact = `evidence-${tag}@supplier.example`;
 let ids: { lotId: string; openLotId: string; supplierId: string; purchaseRef: string; unitIds: string[] };
-
-async function ok<T>(res: Promise<{ status: number; body: T }>, what: string, status = 200): Promise<T> {
-  const r = await res;
-  if (r.status !== status) throw new Error(`${what} → ${r.status}: ${JSON.stringify(r.body)}`);
-  return r.body;
-}
-
-/** Polls until `read` gives a value, or fails with `what` after the deadline (waits for states, not for time). */
-async function until<T>(what: string, read: () => Promise<T | undefined>, timeoutMs = 60_000): Promise<T> {
-  const deadline = Date.now() + timeoutMs;
-  for (;;) {
-    const value = await read();
-    if (value !== undefined) return value;
-    if (Date.now() > deadline) throw new Error(`Timed out waiting for ${what}`);
-    await new Promise((r) => setTimeout(r, 250));
-  }
-}
-
-const draft = (overrides: Record<string, unknown> = {}) => ({ subject: "Lot {{lot}}: {{decision}} (claim {{claimRef}})", body: "Hello,\n\nlot {{lot}} was {{decision}}.\nPlan: {{plan}}\nDefectives: {{defectives}}\nReason: {{reason}}\n\n{{workspace}}", ...overrides });
-
-async function lotWithUnits(purchaseRef: string, partTypeId: string, supplierId: string) {
-  const { lot } = await ok(
-    api<{ lot: { id: string } }>(lead, "POST", "/api/lots", { supplierId, partTypeId, purchaseRef, quantity: 10, receivedOn: "2026-11-18", dueOn: "2026-11-27", inspectionLevel: "II", aqlCritical: null, aqlMajor: 4.0, aqlMinor: 4.0 }),
-    "lot",
-    201,
-  );
-  await ok(api(lead, "POST", `/api/lots/${lot.id}/units`, { source: "placeholders" }), "units", 201);
-  const { units: list } = await ok(api<{ units: { id: string }[] }>(lead, "GET", `/api/lots/${lot.id}/units`), "unit list");
-  return { lotId: lot.id, unitIds: list.map((u) => u.id) };
-}
-
-async function inspect(unitId: string, serial: string, regions: FixtureRegion[]) {
-  await ok(api(inspector, "PATCH", `/api/units/${unitId}`, { serial }), "serial");
-  await ok(api(inspector, "POST", `/api/units/${unitId}/checklist`, { itemId: "power", value: { pass: true } }), "checklist");
-  const photo = await createPhoto({ workspaceId: owner.workspaceId, unitId, uploadedBy: owner.userId, viewKey: "back" });
-  await saveRegions({ workspaceId: owner.workspaceId, photoId: photo.id, authorId: owner.userId, regions: [SURFACE, ...regions] });
-  const measured = await ok(api<{ measurement: { id: string } }>(inspector, "POST", `/api/units/${unitId}/measure`), "measure");
-  await ok(api(inspector, "POST", `/api/units/${unitId}/grades`, { measurementId: measured.measurement.id, decision: "accept" }), "grade", 201);
-  return photo;
-}
 
 const countRows = async () => ({
   packs: (await db().select({ id: evidencePacks.id }).from(evidencePacks).where(eq(evidencePacks.supplierId, ids.supplierId))).length,
@@ -79,33 +33,16 @@ const countRows = async () => ({
 
 beforeAll(async () => {
   lead = await signIn("lead@vellmoor.example");
-  inspector = await signIn("inspector@vellmoor.example");
   foreignLead = await signIn("lead@quillfen.example");
-  owner = await workspaceIdOf("lead@vellmoor.example");
-  const { partType } = await ok(
-    api<{ partType: { id: string } }>(lead, "POST", "/api/part-types", {
-      name: `Evidence part ${tag}`,
-      category: "housing",
-      views: [{ key: "back", label: "Back", required: true, zones: [] }],
-      defectClasses: [{ key: "scratch", label: "Scratch", severity: "major" }],
-      checklist: [{ id: "power", label: "Powers on", kind: "pass_fail", severityOnFail: "major" }],
-      nominalSizeMm: { width: 20, height: 10 },
-    }),
-    "part type",
-    201,
-  );
-  await insertRubricVersion({ workspaceId: owner.workspaceId, partTypeId: partType.id, version: 1, status: "published", rubric: { rules: [{ id: "scratch-c", metric: "share", defect: "scratch", comparison: ">", threshold: 1, grade: "C" }] }, actorId: owner.userId });
-  const { supplier } = await ok(api<{ supplier: { id: string } }>(lead, "POST", "/api/suppliers", { name: `Evidence Dodavatel Ořech ${tag}`, contactEmail: contact }), "supplier", 201);
+  const world = await evidenceWorld(lead, await signIn("inspector@vellmoor.example"), { tag, contact, supplierName: `Evidence Dodavatel Ořech ${tag}` });
   const purchaseRef = `PO-EVD-${tag}`;
-  const decided = await lotWithUnits(purchaseRef, partType.id, supplier.id);
-  const scratched = await inspect(decided.unitIds[0], `EVD-${tag}-1`, [SCRATCH]);
-  await inspect(decided.unitIds[1], `EVD-${tag}-2`, []);
-  await inspect(decided.unitIds[2], `EVD-${tag}-3`, []);
-  const preview = await sharp({ create: { width: 300, height: 200, channels: 3, background: "#8a9199" } }).webp().toBuffer();
-  await putObject(testStore(), scratched.previewKey!, preview, { contentType: "image/webp" });
+  const decided = await lotWithUnits(world, purchaseRef);
+  await inspectUnit(world, decided.unitIds[0], `EVD-${tag}-1`, [SCRATCH]);
+  await inspectUnit(world, decided.unitIds[1], `EVD-${tag}-2`, []);
+  await inspectUnit(world, decided.unitIds[2], `EVD-${tag}-3`, []);
   await ok(api(lead, "POST", `/api/lots/${decided.lotId}/disposition`, { disposition: "return_to_vendor", reason: REASON }), "decision");
-  const open = await lotWithUnits(`PO-EVD-OPEN-${tag}`, partType.id, supplier.id);
-  ids = { lotId: decided.lotId, openLotId: open.lotId, supplierId: supplier.id, purchaseRef, unitIds: decided.unitIds };
+  const open = await lotWithUnits(world, `PO-EVD-OPEN-${tag}`);
+  ids = { lotId: decided.lotId, openLotId: open.lotId, supplierId: world.supplierId, purchaseRef, unitIds: decided.unitIds };
 });
 
 describe("evidence packs", () => {
@@ -168,7 +105,11 @@ describe("evidence packs", () => {
   });
 
   it("bad input, an undecided lot and another workspace get a clear 4xx and nothing is stored or sent", async () => {
-    const before = await countRows();
+    // The worker may still be delivering the previous test's pack: count once the inbox has caught up.
+    const before = await until("earlier evidence delivered", async () => {
+      const rows = await countRows();
+      return rows.mail === rows.emails ? rows : undefined;
+    });
     const long = await api<{ error: { message: string } }>(lead, "POST", `/api/lots/${ids.lotId}/evidence`, draft({ body: "x".repeat(5001) }));
     expect(long.status).toBe(400);
     expect(long.body.error.message).toMatch(/Keep the message under 5000 characters/);
