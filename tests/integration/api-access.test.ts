@@ -4,6 +4,7 @@ import { ROLES, type Role } from "@/lib/auth/roles";
 import { api, signIn, type Session } from "../support/http";
 import { createUser, TEST_PASSWORD, uniqueEmail, workspaceBySlug } from "../support/db";
 import { certificateFixtureIds } from "../support/certificate-access";
+import { evidenceFixtureIds } from "../support/evidence-access";
 import { galleryFixtureIds } from "../support/gallery-access";
 import { gradingFixtureIds } from "../support/grading-access";
 import { lotFixtureIds } from "../support/lot-access";
@@ -34,7 +35,8 @@ async function fixtureIds(lead: Session): Promise<Ids> {
   const people = await api<{ people: { id: string; roles: string[] }[] }>(lead, "GET", "/api/people");
   const someone = people.body.people.find((p) => !p.roles.includes("lead"))!;
   const grading = await gradingFixtureIds(lead);
-  return { invitedPersonId: invited.body.person.id, personId: someone.id, supplierId: supplier.body.supplier.id, emailId: emails.body.emails[0].id, ...grading, ...(await certificateFixtureIds(lead, grading.unitId)), ...(await galleryFixtureIds(lead)), ...(await queueFixtureIds(lead)), ...(await recheckFixtureIds(lead)), ...(await photoFixtureIds(lead)), ...(await regionFixtureIds(lead)), ...(await suggestionFixtureIds(lead)), ...(await lotFixtureIds(lead, supplier.body.supplier.id)) };
+  const ids: Ids = { invitedPersonId: invited.body.person.id, personId: someone.id, supplierId: supplier.body.supplier.id, emailId: emails.body.emails[0].id, ...grading, ...(await certificateFixtureIds(lead, grading.unitId)), ...(await galleryFixtureIds(lead)), ...(await queueFixtureIds(lead)), ...(await recheckFixtureIds(lead)), ...(await photoFixtureIds(lead)), ...(await regionFixtureIds(lead)), ...(await suggestionFixtureIds(lead)), ...(await lotFixtureIds(lead, supplier.body.supplier.id)) };
+  return { ...ids, ...(await evidenceFixtureIds(lead, { lotId: ids.lotId, supplierId: ids.supplierId })) };
 }
 
 beforeAll(async () => {

@@ -129,11 +129,11 @@ export const ROUTES: RouteRow[] = [
   { method: "POST", path: "/api/lots/:lotId/evidence/preview", permission: "evidence.send", body: () => ({ subject: "Lot {{lot}}", body: "Route check." }), allowedStatus: 409 },
   { method: "POST", path: "/api/lots/:lotId/evidence", permission: "evidence.send", body: () => ({ subject: "Lot {{lot}}", body: "Route check." }), allowedStatus: 409 },
   { method: "GET", path: "/api/suppliers/:supplierId/evidence", permission: "evidence.send", allowedStatus: 200 },
-  { method: "PATCH", path: "/api/claims/00000000-0000-4000-8000-000000000001", permission: "evidence.send", body: () => ({ status: "closed", note: "Route check.", version: 1 }), allowedStatus: 404 },
-  // No fixture pack exists: withdrawing an unknown pack's link is 404 for anyone allowed; evidence.test.ts withdraws a real one.
-  { method: "POST", path: "/api/evidence-packs/00000000-0000-4000-8000-000000000001/revoke", permission: "evidence.send", body: () => ({}), allowedStatus: 404 },
+  // The fixture pack (tests/support/evidence-access.ts): its claim at version 1 moves once (a later caller's version is stale: 409); its link is withdrawn once (then 409).
+  { method: "PATCH", path: "/api/claims/:claimId", permission: "evidence.send", body: () => ({ status: "closed", note: "Route check.", version: 1 }), allowedStatus: [200, 409] },
+  { method: "POST", path: "/api/evidence-packs/:evidencePackId/revoke", permission: "evidence.send", body: () => ({}), allowedStatus: [200, 409] },
   // Public: a file behind an evidence link; a token that is not one gets the plain refusal (404). evidence-link.test.ts opens real ones.
-  { method: "GET", path: "/api/evidence-links/not-a-signed-token?file=0", permission: "public", allowedStatus: 404 },
+  { method: "GET", path: "/api/evidence-links/:evidenceLinkToken?file=0", permission: "public", allowedStatus: 404 },
   { method: "POST", path: "/api/lots/:emptyLotId/units", permission: "lots.manage", body: () => ({ source: "placeholders" }), allowedStatus: 201 },
   // The fixture battery lot has a swollen cell (critical, Re 1): rejected, so it may be returned.
   { method: "POST", path: "/api/lots/:decidableLotId/disposition", permission: "lots.decide", body: () => ({ disposition: "return_to_vendor", reason: "Route check: swollen cell." }), allowedStatus: 200 },
