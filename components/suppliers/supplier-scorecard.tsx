@@ -2,17 +2,24 @@ import { ParetoChart } from "@/components/reports/pareto-chart";
 import { figure, percent, ReportTable } from "@/components/reports/report-table";
 import { listPartTypes } from "@/db/queries/part-types";
 import { loadSupplierScorecards } from "@/lib/reports/overview";
+import { formatInstant } from "@/lib/reports/format";
+import { loadOpenClaims, loadSupplierSwitching } from "@/lib/reports/supplier-follow-up";
 
 /**
  * The full scorecard of one supplier (all its lots): lots received, accepted and rejected per
  * month, defectives per 100 inspected units per severity, and the Pareto of defect classes with
- * the numbers in a table beside the chart. Figures: lib/reports/supplier-scorecard.ts.
+ * the numbers in a table beside the chart, the switching state per part type with the switches
+ * that led there, and the claims still open. Figures: lib/reports/supplier-scorecard.ts.
  */
 export async function SupplierScorecardSection({ workspaceId, supplierId, timeZone }: { workspaceId: string; supplierId: string; timeZone: string }) {
   const partTypes = await listPartTypes({ workspaceId });
   const labels: Record<string, string> = {};
   for (const p of partTypes) for (const c of p.defectClasses) labels[c.key] ??= c.label;
-  const [card] = await loadSupplierScorecards({ workspaceId, filter: { supplierId }, timeZone }, labels);
+  const [[card], switching, openClaims] = await Promise.all([
+    loadSupplierScorecards({ workspaceId, filter: { supplierId }, timeZone }, labels),
+    loadSupplierSwitching({ workspaceId, supplierId }),
+    loadOpenClaims({ workspaceId, supplierId }),
+  ]);
   return (
     <section className="card space-y-4 p-5" aria-labelledby="scorecard-title" data-testid="supplier-scorecard">
       <h2 id="scorecard-title" className="text-lg font-semibold">
@@ -59,7 +66,54 @@ export async function SupplierScorecardSection({ workspaceId, supplierId, timeZo
               ]}
             />
           </div>
+          <h3 className="text-base font-semibold">Inspection per part type (switching rules)</h3>
+          <ReportTable
+            caption="Switching state per part type, with its history"
+            testId="scorecard-switching"
+            rows={switching}
+            rowKey={(r) => r.partTypeId}
+            columns={[
+              { header: "Part type", rowHeader: true, cell: (r) => r.partType },
+              { header: "Next lot", cell: (r) => (r.discontinued ? "discontinued" : r.severity) },
+              { header: "Why", cell: (r) => `${r.reason} ${r.progress}` },
+              {
+                header: "Switches so far",
+                cell: (r) =>
+                  r.transitions.length === 0 ? (
+                    `none (${r.decidedLots} decided lots)`
+                  ) : (
+                    <ol className="list-decimal pl-4">
+                      {r.transitions.map((t, i) => (
+                        <li key={i}>
+                          {t.afterLotId ? `after ${t.afterLotId}: ` : ""}
+                          {t.from} → {t.to} <span className="text-xs text-gauge-600">({t.reason})</span>
+                        </li>
+                      ))}
+                    </ol>
+                  ),
+              },
+            ]}
+          />
         </>
+      )}
+      <h3 className="text-base font-semibold">Open claims</h3>
+      {openClaims.length === 0 ? (
+        <p className="text-sm text-gauge-700" data-testid="scorecard-open-claims">
+          No open claims with this supplier.
+        </p>
+      ) : (
+        <ReportTable
+          caption="Claims still open with this supplier"
+          testId="scorecard-open-claims"
+          rows={openClaims}
+          rowKey={(c) => c.id}
+          columns={[
+            { header: "Claim", rowHeader: true, cell: (c) => c.reference },
+            { header: "Lot", cell: (c) => c.purchaseRef },
+            { header: "Opened", cell: (c) => formatInstant(c.createdAt, timeZone) },
+            { header: "Note", cell: (c) => c.note || "—" },
+          ]}
+        />
       )}
     </section>
   );

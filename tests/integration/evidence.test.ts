@@ -13,7 +13,7 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db/client";
 import { claims, evidencePacks, grades, outgoingEmails, units } from "@/db/schema";
 import { evidenceDraft as draft, evidenceWorld, inspectUnit, lotWithUnits, ok, SCRATCH, until } from "../support/evidence";
-import { api, signIn, type Session } from "../support/http";
+import { api, BASE_URL, signIn, type Session } from "../support/http";
 import { parsedMessagesTo } from "../support/inbox-parsed";
 import { flatText, pdfText } from "../support/pdf-text";
 
@@ -89,6 +89,13 @@ describe("evidence packs", () => {
 
     const { packs } = await ok(api<{ packs: { claimReference: string; claimStatus: string; emailStatus: string }[] }>(lead, "GET", `/api/suppliers/${ids.supplierId}/evidence`), "supplier list");
     expect(packs.find((p) => p.claimReference === `RMA-${tag}`)).toMatchObject({ claimStatus: "open", emailStatus: "sent" });
+    // The supplier page's scorecard lists the open claim and the part type's switching state.
+    const page = await fetch(`${BASE_URL}/suppliers/${ids.supplierId}`, { headers: { cookie: lead.cookie } });
+    const html = await page.text();
+    const openClaims = html.slice(html.indexOf('data-testid="scorecard-open-claims"'));
+    expect(openClaims).toContain(`RMA-${tag}`);
+    const switching = html.slice(html.indexOf('data-testid="scorecard-switching"'), html.indexOf('data-testid="scorecard-open-claims"'));
+    expect(switching).toContain(`Evidence part ${tag}`);
   });
 
   it("a claim moves with a note; an unknown status or a stale version is refused and changes nothing", async () => {
