@@ -46,7 +46,7 @@ export async function SupplierScorecardSection({ workspaceId, supplierId, timeZo
               { header: "Minor /100", numeric: true, cell: (m) => figure(m.bySeverity.minor.per100) },
             ]}
           />
-          <div className="grid gap-4 lg:grid-cols-2">
+          <div className="grid gap-4 xl:grid-cols-2">
             {card.pareto.length === 0 ? (
               <p className="text-sm text-gauge-700">No cosmetic defects recorded on this supplier&apos;s units.</p>
             ) : (

@@ -18,7 +18,7 @@ export default async function SupplierPage(props: PageProps<"/suppliers/[id]">) 
   const supplier = await getSupplier({ workspaceId: user.workspaceId, supplierId: id });
   if (!supplier) notFound();
   return (
-    <div className="max-w-4xl space-y-6">
+    <div className="max-w-6xl space-y-6">
       <Link href="/suppliers" className="text-sm text-gauge-600 underline">
         ← Suppliers
       </Link>
