@@ -41,9 +41,16 @@ const benchPhoto = () =>
     .jpeg({ quality: 90 })
     .toBuffer();
 
+/** Noise, 1500 × 1000 px: JPEG cannot squeeze it, so three such photos pass the test server's 1.5 MB e-mail limit. */
+async function noisyPhoto(): Promise<Buffer> {
+  const raw = Buffer.alloc(1500 * 1000 * 3);
+  for (let i = 0; i < raw.length; i++) raw[i] = Math.imul(i, 2654435761) >>> 24;
+  return sharp(raw, { raw: { width: 1500, height: 1000, channels: 3 } }).jpeg({ quality: 90 }).toBuffer();
+}
+
 /** Upload intent → PUT to the presigned URL → finalise, as the Bench's uploader does; waits until processed. */
-async function uploadPhoto(request: APIRequestContext, unitId: string): Promise<string> {
-  const bytes = await benchPhoto();
+async function uploadPhoto(request: APIRequestContext, unitId: string, noisy: boolean): Promise<string> {
+  const bytes = noisy ? await noisyPhoto() : await benchPhoto();
   const intent = await ok<{ photoId: string; ticket: string; upload: { url: string; headers: Record<string, string> } }>(
     await request.post(`/api/units/${unitId}/photos/uploads`, { data: { viewKey: "back", fileName: "back.jpg", contentType: "image/jpeg", bytes: bytes.length } }),
   );
@@ -55,10 +62,10 @@ async function uploadPhoto(request: APIRequestContext, unitId: string): Promise<
 }
 
 /** Serial, checklist, a photo with its Surface and regions, measure, grade — as on the Bench. */
-async function inspect(request: APIRequestContext, unitId: string, serial: string, { power, scratch }: { power: boolean; scratch: boolean }) {
+async function inspect(request: APIRequestContext, unitId: string, serial: string, { power, scratch, noisy = false }: { power: boolean; scratch: boolean; noisy?: boolean }) {
   await ok(await request.patch(`/api/units/${unitId}`, { data: { serial } }));
   await ok(await request.post(`/api/units/${unitId}/checklist`, { data: { itemId: "power", value: { pass: power } } }));
-  const photoId = await uploadPhoto(request, unitId);
+  const photoId = await uploadPhoto(request, unitId, noisy);
   const surface = { id: "surface", shape: { kind: "polygon", points: [[100, 100], [500, 100], [500, 300], [100, 300]] } };
   const regions = scratch ? [{ id: "scratch", defect: "scratch", shape: { kind: "line", points: [[140, 150], [420, 240]], width: 8 } }] : [];
   await ok(await request.put(`/api/photos/${photoId}/regions`, { data: { baseVersion: 0, regions: { surfaces: [surface], regions, ruler: null } } }));
@@ -66,15 +73,16 @@ async function inspect(request: APIRequestContext, unitId: string, serial: strin
   await ok(await request.post(`/api/units/${unitId}/grades`, { data: { decision: "accept", measurementId: measurement.id } }));
 }
 
-test("a lead rejects a lot, previews and sends the evidence; the inbox has the files; the claim and the Pareto chart show on the supplier page", async ({ page }) => {
-  await signInAs(page, "lead@vellmoor.example");
-  const request = page.request;
-
-  // A housing part type with a published rubric (scratch over 1 % of the Surface → C), a supplier, a lot of 10.
+/**
+ * A housing part type with a published rubric (scratch over 1 % of the Surface → C), a supplier
+ * whose contact is `contact`, and a lot of 10 whose 3 sampled units are inspected: the first fails
+ * its power check and is scratched (photos `noisy` on every unit when asked), the others are clean.
+ */
+async function inspectedLot(request: APIRequestContext, { tag, contact, noisy = false }: { tag: string; contact: string; noisy?: boolean }) {
   const { partType } = await ok<{ partType: { id: string } }>(
     await request.post("/api/part-types", {
       data: {
-        name: `Evidence housing ${stamp}`,
+        name: `Evidence housing ${tag}`,
         category: "housing",
         views: [{ key: "back", label: "Back", required: true, zones: [] }],
         defectClasses: [{ key: "scratch", label: "Scratch", severity: "major" }],
@@ -88,9 +96,9 @@ test("a lead rejects a lot, previews and sends the evidence; the inbox has the f
      SELECT u.workspace_id, $1, 1, 'published', $2, u.id, u.id, now() FROM users u WHERE u.email = 'lead@vellmoor.example'`,
     [partType.id, JSON.stringify({ rules: [{ id: "scratch-c", metric: "share", defect: "scratch", comparison: ">", threshold: 1, grade: "C" }] })],
   );
-  const supplierName = `Harrowgate Spares ${stamp}`;
+  const supplierName = `Harrowgate Spares ${tag}`;
   const { supplier } = await ok<{ supplier: { id: string } }>(await request.post("/api/suppliers", { data: { name: supplierName, contactEmail: contact } }));
-  const purchaseRef = `PO-EVI-${stamp}`;
+  const purchaseRef = `PO-EVI-${tag}`;
   const { lot } = await ok<{ lot: { id: string } }>(
     await request.post("/api/lots", {
       data: { supplierId: supplier.id, partTypeId: partType.id, purchaseRef, quantity: 10, receivedOn: "2026-11-24", dueOn: "2026-12-01", inspectionLevel: "II", aqlCritical: null, aqlMajor: 4.0, aqlMinor: 4.0 },
@@ -99,10 +107,18 @@ test("a lead rejects a lot, previews and sends the evidence; the inbox has the f
   await ok(await request.post(`/api/lots/${lot.id}/units`, { data: { source: "placeholders" } }));
   const { units } = await ok<{ units: { id: string }[] }>(await request.get(`/api/lots/${lot.id}/units`));
   expect(units).toHaveLength(3);
-  const serials = units.map((_, i) => `EVI-${stamp}-${i + 1}`);
-  await inspect(request, units[0].id, serials[0], { power: false, scratch: true });
-  await inspect(request, units[1].id, serials[1], { power: true, scratch: false });
-  await inspect(request, units[2].id, serials[2], { power: true, scratch: false });
+  const serials = units.map((_, i) => `EVI-${tag}-${i + 1}`);
+  await inspect(request, units[0].id, serials[0], { power: false, scratch: true, noisy });
+  await inspect(request, units[1].id, serials[1], { power: true, scratch: noisy, noisy });
+  await inspect(request, units[2].id, serials[2], { power: true, scratch: noisy, noisy });
+  return { supplier, lot, purchaseRef, serials };
+}
+
+test("a lead rejects a lot, previews and sends the evidence; the inbox has the files; the claim and the Pareto chart show on the supplier page", async ({ page }) => {
+  await signInAs(page, "lead@vellmoor.example");
+  const request = page.request;
+
+  const { supplier, lot, purchaseRef, serials } = await inspectedLot(request, { tag: stamp, contact });
 
   // The lead rejects it on the lot page: a major defective against Re 1.
   await page.goto(`/lots/${lot.id}`);
@@ -160,8 +176,51 @@ test("a lead rejects a lot, previews and sends the evidence; the inbox has the f
   await shoot(page, "supplier-scorecard-claims");
   await claim.getByLabel("Claim status").selectOption("credited");
   await claim.getByLabel("Note").fill("Credit note for the lot received.");
+  // Wait for the save's answer: the scorecard is drawn on the server when the page loads.
+  const saved = page.waitForResponse((res) => res.url().includes("/api/claims/") && res.request().method() === "PATCH");
   await claim.getByRole("button", { name: "Save claim" }).click();
+  expect((await saved).status()).toBe(200);
   await page.reload();
   await expect(page.getByTestId("supplier-claims").getByTestId(`evidence-RMA-${stamp}`).getByLabel("Claim status")).toHaveValue("credited");
   await expect(page.getByTestId("scorecard-open-claims")).not.toContainText(`RMA-${stamp}`);
+});
+
+test("evidence over the e-mail limit goes behind a link: the supplier opens it signed out; the lead withdraws it and the page says so", async ({ page, browser }) => {
+  await signInAs(page, "lead@vellmoor.example");
+  const tag = `${stamp}l`;
+  const linkContact = `links-${tag}@e2e-supplier.example`;
+  const { lot, purchaseRef } = await inspectedLot(page.request, { tag, contact: linkContact, noisy: true });
+  await ok(await page.request.post(`/api/lots/${lot.id}/disposition`, { data: { disposition: "return_to_vendor", reason: "Scratched housings throughout the sample." } }));
+
+  await page.goto(`/lots/${lot.id}`);
+  const panel = page.getByTestId("evidence-panel");
+  await panel.getByRole("button", { name: "Preview" }).click();
+  await expect(panel.getByTestId("evidence-link-note")).toContainText("expiring evidence link");
+  await panel.getByTestId("evidence-preview").getByRole("button", { name: `Send to ${linkContact}` }).click();
+  const state = panel.getByTestId("evidence-link-state");
+  await expect(state).toContainText("Evidence link open until");
+  await expect.poll(async () => (await parsedMessagesTo(linkContact)).length, { timeout: 60_000 }).toBe(1);
+  const [message] = await parsedMessagesTo(linkContact);
+  expect(message.attachments).toEqual([]);
+  const url = message.text.match(/https?:\/\/\S+\/evidence\/\S+/)![0];
+
+  // The supplier: no session at all.
+  const supplierSide = await browser.newContext();
+  const visitor = await supplierSide.newPage();
+  await visitor.goto(new URL(url).pathname);
+  await expect(visitor.getByTestId("evidence-link-ok")).toContainText(purchaseRef);
+  await expect(visitor.getByRole("navigation")).toHaveCount(0);
+  const pdfLink = visitor.getByRole("link", { name: `lot-report-${purchaseRef}.pdf` });
+  const pdf = await visitor.request.get((await pdfLink.getAttribute("href"))!);
+  expect(pdf.status()).toBe(200);
+  expect(pdf.headers()["content-type"]).toBe("application/pdf");
+  await shoot(visitor, "evidence-link-page");
+
+  await state.getByRole("button", { name: "Withdraw link" }).click();
+  await expect(state).toContainText("Evidence link withdrawn");
+  await visitor.reload();
+  await expect(visitor.getByTestId("evidence-link-refused")).toHaveAttribute("data-reason", "revoked");
+  await expect(visitor.getByText("This evidence link was withdrawn by the sender.")).toBeVisible();
+  await shoot(visitor, "evidence-link-withdrawn");
+  await supplierSide.close();
 });
