@@ -33,12 +33,12 @@ export function EvidenceLinkView({ answer }: { answer: EvidenceLinkAnswer }) {
         <dt className="font-medium text-gauge-700">Open until</dt>
         <dd>{pack.linkExpiresAt ? formatInstant(pack.linkExpiresAt) : "—"}</dd>
       </dl>
-      <pre className="whitespace-pre-wrap rounded-md bg-gauge-50 p-3 font-sans text-sm">{pack.body}</pre>
+      <pre className="whitespace-pre-wrap wrap-anywhere rounded-md bg-gauge-50 p-3 font-sans text-sm">{pack.body}</pre>
       <section>
         <h2 className="text-sm font-semibold">
           Files ({pack.attachments.length}, {formatBytes(total)})
         </h2>
-        <ul className="mt-1 space-y-1 text-sm">
+        <ul className="mt-1 space-y-1 text-sm wrap-anywhere">
           {pack.attachments.map((file, index) => (
             <li key={index}>
               <a className="underline" href={`/api/evidence-links/${encodeURIComponent(token)}?file=${index}`} download={file.filename}>

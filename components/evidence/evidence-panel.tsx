@@ -85,7 +85,7 @@ export function EvidencePanel({ lotId }: { lotId: string }) {
           <p>
             <span className="font-medium">Subject:</span> {preview.subject}
           </p>
-          <pre className="whitespace-pre-wrap font-sans">{preview.text}</pre>
+          <pre className="whitespace-pre-wrap wrap-anywhere font-sans">{preview.text}</pre>
           {preview.delivery === "link" && (
             <p className="text-xs text-signal-700" data-testid="evidence-link-note">
               The files come to {formatBytes(preview.totalBytes)}, over what an e-mail may carry: they go behind an expiring evidence link you can withdraw.

@@ -41,7 +41,7 @@ const benchPhoto = () =>
     .jpeg({ quality: 90 })
     .toBuffer();
 
-/** Noise, 1500 × 1000 px: JPEG cannot squeeze it, so three such photos pass the test server's 1.5 MB e-mail limit. */
+/** Noise, 1500 × 1000 px: JPEG cannot squeeze it, so three such photos pass the test server's 1 MB e-mail limit. */
 async function noisyPhoto(): Promise<Buffer> {
   const raw = Buffer.alloc(1500 * 1000 * 3);
   for (let i = 0; i < raw.length; i++) raw[i] = Math.imul(i, 2654435761) >>> 24;

@@ -1,6 +1,6 @@
 /**
  * Evidence links over HTTP against the test server, its PostgreSQL, object store, worker and the
- * local SMTP inbox (no mocks). The test server's limit is 1.5 MB (scripts/test.ts), so a lot whose
+ * local SMTP inbox (no mocks). The test server's limit is 1 MB (scripts/test.ts), so a lot whose
  * three defective units have noisy photos goes behind a link: the e-mail carries the link and no
  * files; the public page (signed out) shows that pack and its files, which download byte for byte
  * as stored; a tampered, expired or wrong-purpose token and a withdrawn link get a plain refusal;
@@ -30,7 +30,7 @@ let lotId: string;
 let sent: { evidencePack: { id: string; delivery: string; attachments: { filename: string; bytes: number }[] }; claim: { reference: string } };
 let linkUrl: string;
 
-/** A picture of noise: JPEG cannot squeeze it, so three of them pass the test server's 1.5 MB limit. */
+/** A picture of noise: JPEG cannot squeeze it, so three of them pass the test server's 1 MB limit. */
 async function noisyPreview(seed: number): Promise<Buffer> {
   const width = 1500;
   const height = 1000;
@@ -73,7 +73,7 @@ describe("evidence links", () => {
   it("the preview says the files go behind a link; sending e-mails the link and no files", async () => {
     const { preview } = await ok(api<{ preview: { delivery: string; text: string; totalBytes: number } }>(lead, "POST", `/api/lots/${lotId}/evidence/preview`, draft()), "preview");
     expect(preview.delivery).toBe("link");
-    expect(preview.totalBytes).toBeGreaterThan(1_500_000);
+    expect(preview.totalBytes).toBeGreaterThan(1_000_000);
     expect(preview.text).toContain("[the evidence link, made when you send]");
 
     sent = await ok(api(lead, "POST", `/api/lots/${lotId}/evidence`, draft({ claimRef: `LNK-${tag}` })), "send", 202);
