@@ -8,9 +8,9 @@
  * Without a running app it says so and measures nothing.
  */
 import crypto from "node:crypto";
-import http from "node:http";
 import { hash } from "@node-rs/argon2";
 import pg from "pg";
+import { benchClient, signIn as signInAs } from "../scripts/lib/bench-http";
 import { databaseUrl, demoSettings } from "../scripts/lib/settings";
 
 const settings = demoSettings();
@@ -90,37 +90,9 @@ async function setUp() {
   }
 }
 
-async function signIn(email: string): Promise<string> {
-  const csrfRes = await fetch(`${BASE}/api/auth/csrf`);
-  const jar = csrfRes.headers.getSetCookie().map((c) => c.split(";")[0]);
-  const { csrfToken } = (await csrfRes.json()) as { csrfToken: string };
-  const res = await fetch(`${BASE}/api/auth/callback/credentials`, {
-    method: "POST",
-    redirect: "manual",
-    headers: { "content-type": "application/x-www-form-urlencoded", cookie: jar.join("; ") },
-    body: new URLSearchParams({ csrfToken, email, password: PASSWORD, json: "true" }),
-  });
-  const cookies = [...jar, ...res.headers.getSetCookie().map((c) => c.split(";")[0])];
-  if (!cookies.some((c) => c.includes("session-token"))) throw new Error(`Sign-in failed for ${email}`);
-  return cookies.join("; ");
-}
-
-const agent = new http.Agent({ keepAlive: true, maxSockets: CONNECTIONS });
-const base = new URL(BASE);
-
-function get(pathname: string, cookie: string): Promise<{ status: number; text: string }> {
-  return new Promise((resolve, reject) => {
-    const req = http.request({ host: base.hostname, port: base.port, path: pathname, method: "GET", agent, headers: { cookie } }, (res) => {
-      let text = "";
-      res.setEncoding("utf8");
-      res.on("data", (chunk) => (text += chunk));
-      res.on("end", () => resolve({ status: res.statusCode ?? 0, text }));
-      res.on("error", reject);
-    });
-    req.on("error", reject);
-    req.end();
-  });
-}
+const signIn = (email: string) => signInAs(BASE, email, PASSWORD);
+const { request, close: closeClient } = benchClient(BASE, CONNECTIONS);
+const get = (pathname: string, cookie: string) => request("GET", pathname, { cookie });
 
 /** CONNECTIONS clients each walk the whole list PASSES times; returns every page's latency and the items seen per walk. */
 async function walk(cookie: string, query: string) {
@@ -175,6 +147,6 @@ async function main() {
 }
 
 await main().finally(() => {
-  agent.destroy();
+  closeClient();
   return pool.end();
 });

@@ -8,9 +8,9 @@
  * target p95 <= 200 ms at 5 connections. Without a running app it says so and measures nothing.
  * Rows are made in SQL (generate_series), not through the app: the bench measures the read.
  */
-import http from "node:http";
 import { hash } from "@node-rs/argon2";
 import pg from "pg";
+import { benchClient, signIn as signInAs } from "../scripts/lib/bench-http";
 import { databaseUrl, demoSettings } from "../scripts/lib/settings";
 
 const settings = demoSettings();
@@ -55,11 +55,12 @@ async function setUp() {
          ON CONFLICT (workspace_id, slug) DO UPDATE SET name = EXCLUDED.name RETURNING id`,
         [ws, JSON.stringify([{ key: "front", label: "Front", required: true, zones: [] }]), JSON.stringify([{ key: "scratch", label: "Scratch", severity: "minor" }, { key: "dent", label: "Dent", severity: "minor" }])],
       )).rows[0].id as string;
-      const rv = (await c.query(
-        `INSERT INTO rubric_versions (workspace_id, part_type_id, version, status, rubric, published_at, published_by) VALUES ($1, $2, 1, 'published', '{"rules":[],"notes":[]}', now(), $3)
-         ON CONFLICT (part_type_id, version) DO UPDATE SET version = 1 RETURNING id`,
+      // A published version is immutable (a trigger refuses any UPDATE, even a no-op upsert): reuse it when it is there.
+      const existing = (await c.query("SELECT id FROM rubric_versions WHERE part_type_id = $1 AND version = 1", [pt])).rows[0];
+      const rv = (existing ?? (await c.query(
+        `INSERT INTO rubric_versions (workspace_id, part_type_id, version, status, rubric, published_at, published_by) VALUES ($1, $2, 1, 'published', '{"rules":[],"notes":[]}', now(), $3) RETURNING id`,
         [ws, pt, lead],
-      )).rows[0].id as string;
+      )).rows[0]).id as string;
       const sup = (await c.query(`INSERT INTO suppliers (workspace_id, name, contact_email) VALUES ($1, 'Bench supplier (generated)', 'bench@scorecards-bench.example') RETURNING id`, [ws])).rows[0].id as string;
       // 100 lots of 1 000 units each (one transaction: a run either made all of it or nothing).
       await c.query(
@@ -106,37 +107,9 @@ async function setUp() {
   }
 }
 
-async function signIn(email: string): Promise<string> {
-  const csrfRes = await fetch(`${BASE}/api/auth/csrf`);
-  const jar = csrfRes.headers.getSetCookie().map((c) => c.split(";")[0]);
-  const { csrfToken } = (await csrfRes.json()) as { csrfToken: string };
-  const res = await fetch(`${BASE}/api/auth/callback/credentials`, {
-    method: "POST",
-    redirect: "manual",
-    headers: { "content-type": "application/x-www-form-urlencoded", cookie: jar.join("; ") },
-    body: new URLSearchParams({ csrfToken, email, password: PASSWORD, json: "true" }),
-  });
-  const cookies = [...jar, ...res.headers.getSetCookie().map((c) => c.split(";")[0])];
-  if (!cookies.some((c) => c.includes("session-token"))) throw new Error(`Sign-in failed for ${email}`);
-  return cookies.join("; ");
-}
-
-const agent = new http.Agent({ keepAlive: true, maxSockets: CONNECTIONS });
-const base = new URL(BASE);
-
-function get(pathname: string, cookie: string): Promise<{ status: number; text: string }> {
-  return new Promise((resolve, reject) => {
-    const req = http.request({ host: base.hostname, port: base.port, path: pathname, method: "GET", agent, headers: { cookie } }, (res) => {
-      let text = "";
-      res.setEncoding("utf8");
-      res.on("data", (chunk) => (text += chunk));
-      res.on("end", () => resolve({ status: res.statusCode ?? 0, text }));
-      res.on("error", reject);
-    });
-    req.on("error", reject);
-    req.end();
-  });
-}
+const signIn = (email: string) => signInAs(BASE, email, PASSWORD);
+const { request, close: closeClient } = benchClient(BASE, CONNECTIONS);
+const get = (pathname: string, cookie: string) => request("GET", pathname, { cookie });
 
 /** CONNECTIONS clients each ask REQUESTS times; every answer's latency. */
 async function load(cookie: string, path: string) {
@@ -190,6 +163,6 @@ async function main() {
 }
 
 await main().finally(() => {
-  agent.destroy();
+  closeClient();
   return pool.end();
 });

@@ -11,6 +11,7 @@ import { seedPartTypes } from "./seed/part-types";
 import { seedPeople } from "./seed/people";
 import { seedPhotos } from "./seed/photos";
 import { seedRubrics } from "./seed/rubrics";
+import { seedSuggestionModel } from "./seed/suggestion-model";
 
 export async function isDatabaseEmpty(): Promise<boolean> {
   const { rows } = await db().execute<{ n: number }>(sql`SELECT count(*)::int AS n FROM workspaces`);
@@ -31,7 +32,9 @@ export async function seedDemo() {
   const photos = await seedPhotos();
   // Needs the published rubrics (each example's grade is what its rubric says of its regions).
   const gallery = await seedGallery();
-  return { seeded: true as const, people, partTypes, lots, rubrics, evidence, photos, gallery };
+  // So a newcomer's Bench shows learned ghosts (the demo has too few marked regions to train on).
+  const suggestionModel = await seedSuggestionModel();
+  return { seeded: true as const, people, partTypes, lots, rubrics, evidence, photos, gallery, suggestionModel };
 }
 
 if (import.meta.url === `file://${process.argv[1]}`) {

@@ -11,10 +11,10 @@
  * before the next one starts, so each figure is the phase's own.
  */
 import fs from "node:fs";
-import http from "node:http";
 import path from "node:path";
 import { hash } from "@node-rs/argon2";
 import pg from "pg";
+import { benchClient, signIn as signInAs } from "./lib/bench-http";
 import { databaseUrl, demoSettings, projectRoot } from "./lib/settings";
 
 const settings = demoSettings();
@@ -132,42 +132,8 @@ async function setUp() {
   }
 }
 
-async function signIn(email: string): Promise<string> {
-  const csrfRes = await fetch(`${BASE}/api/auth/csrf`);
-  const jar = csrfRes.headers.getSetCookie().map((c) => c.split(";")[0]);
-  const { csrfToken } = (await csrfRes.json()) as { csrfToken: string };
-  const res = await fetch(`${BASE}/api/auth/callback/credentials`, {
-    method: "POST",
-    redirect: "manual",
-    headers: { "content-type": "application/x-www-form-urlencoded", cookie: jar.join("; ") },
-    body: new URLSearchParams({ csrfToken, email, password: PASSWORD, json: "true" }),
-  });
-  const cookies = [...jar, ...res.headers.getSetCookie().map((c) => c.split(";")[0])];
-  if (!cookies.some((c) => c.includes("session-token"))) throw new Error(`Sign-in failed for ${email}`);
-  return cookies.join("; ");
-}
-
-// The timed requests use node:http with keep-alive sockets: fetch (undici) cost about a third of a
-// core at these rates, CPU that the app and PostgreSQL on the same 2 cores then lacked.
-const agent = new http.Agent({ keepAlive: true, maxSockets: INSPECTORS });
-const base = new URL(BASE);
-
-function request(method: string, pathname: string, { cookie, json }: { cookie: string; json?: unknown }): Promise<{ status: number; text: string }> {
-  const body = json === undefined ? undefined : JSON.stringify(json);
-  const headers: Record<string, string> = { cookie };
-  if (body !== undefined) Object.assign(headers, { "content-type": "application/json", "content-length": String(Buffer.byteLength(body)) });
-  return new Promise((resolve, reject) => {
-    const req = http.request({ host: base.hostname, port: base.port, path: pathname, method, agent, headers }, (res) => {
-      let text = "";
-      res.setEncoding("utf8");
-      res.on("data", (chunk) => (text += chunk));
-      res.on("end", () => resolve({ status: res.statusCode ?? 0, text }));
-      res.on("error", reject);
-    });
-    req.on("error", reject);
-    req.end(body);
-  });
-}
+const signIn = (email: string) => signInAs(BASE, email, PASSWORD);
+const { request, close: closeClient } = benchClient(BASE, INSPECTORS);
 
 async function timed<T>(fn: () => Promise<T>): Promise<[T, number]> {
   const t0 = performance.now();
@@ -295,7 +261,7 @@ async function main() {
     await listing(cookies[0], listLot);
   }
   await pool.end();
-  agent.destroy();
+  closeClient();
   if (duplicates) process.exit(1);
 }
 

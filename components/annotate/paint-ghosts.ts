@@ -17,6 +17,8 @@ function ghostStyle(ghost: GhostShape, styles: ReadonlyMap<string, RegionStyle>)
   return { ...base, stroke: { name: "suggestion", dash: GHOST_DASH, lineCap: "butt" }, fill: "none", tintOpacity: 0 };
 }
 
+export const ghostCaption = (ghost: GhostShape): string => (ghost.role === "defect" && ghost.learned ? ghost.label : "suggested");
+
 export function paintGhosts(ctx: CanvasRenderingContext2D, ghosts: readonly GhostShape[], styles: ReadonlyMap<string, RegionStyle>, view: PaintView): void {
   for (const ghost of ghosts) {
     const box = boundsOfShape(ghost.shape, { includeStroke: true });
@@ -28,7 +30,8 @@ export function paintGhosts(ctx: CanvasRenderingContext2D, ghosts: readonly Ghos
       ring.arc(ghost.shape.x, ghost.shape.y, MIN_RING_PX / view.scale, 0, Math.PI * 2);
       strokeStyled(ctx, ring, style, view.scale, 1.5);
     }
-    if (ghosts.length <= 20) paintLabel(ctx, "suggested", box.minX, box.maxY + 4 / view.scale, view.scale);
+    // A learned ghost says its class and score on the photo; the others only that they are suggestions.
+    if (ghosts.length <= 20) paintLabel(ctx, ghostCaption(ghost), box.minX, box.maxY + 4 / view.scale, view.scale);
   }
   ctx.setLineDash([]);
 }

@@ -69,8 +69,12 @@ export type AnnotationCanvasProps = {
 
 export type ToolInHand = Readonly<{ tool: ToolId; defect: string | null }>;
 
-/** A suggestion shown on the canvas: dashed, unfilled, never hit-tested or saved. */
-export type GhostShape = Readonly<{ id: string; label: string } & ({ role: "surface"; shape: PolygonShape } | { role: "defect"; defect: string; shape: Shape })>;
+/**
+ * A suggestion shown on the canvas: dashed, unfilled, never hit-tested or saved. A learned one
+ * (lib/suggestions) carries the model that made it and its score, so the Bench can record what
+ * the inspector did with it.
+ */
+export type GhostShape = Readonly<{ id: string; label: string } & ({ role: "surface"; shape: PolygonShape } | { role: "defect"; defect: string; shape: Shape; learned?: { modelId: string; score: number } })>;
 
 /** Imperative handle (via the `handleRef` prop) for a page's own buttons or tests. */
 export type AnnotationCanvasHandle = {

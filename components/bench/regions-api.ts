@@ -6,6 +6,8 @@
 import type { SuggestionKind } from "@/lib/regions/schemas";
 import type { SuggestionResponse } from "@/lib/regions/suggestion-mapping";
 import { apiFetch } from "@/lib/http/client";
+import type { LearnedSuggestionResponse } from "@/lib/suggestions/dto";
+import type { DecisionsInput } from "@/lib/suggestions/schemas";
 import type { SaveRequest, SendResult, ServerSet } from "./region-autosaver";
 
 export type RegionSetJson = ServerSet & { photoId: string; updatedAt: string | null; updatedByName: string | null };
@@ -39,4 +41,12 @@ export async function putRegionSetAt(url: string, request: SaveRequest & { photo
 
 export function requestSuggestions(photoId: string, kind: SuggestionKind): Promise<SuggestionResponse> {
   return apiFetch<SuggestionResponse>(`/api/photos/${photoId}/suggestions`, { body: { kind } });
+}
+
+export function requestLearnedSuggestions(photoId: string): Promise<LearnedSuggestionResponse> {
+  return apiFetch<LearnedSuggestionResponse>(`/api/photos/${photoId}/learned-suggestions`, { body: {} });
+}
+
+export function recordSuggestionDecisions(photoId: string, input: DecisionsInput): Promise<{ recorded: number }> {
+  return apiFetch<{ recorded: number }>(`/api/photos/${photoId}/suggestion-decisions`, { body: input });
 }

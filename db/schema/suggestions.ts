@@ -11,7 +11,15 @@ import { sameWorkspace } from "./workspace-keys";
 /** What the model saw of one class: accepted regions and the photos they were on (training side only). */
 export type ClassCounts = Record<string, { regions: number; photos: number }>;
 /** Where the training examples came from, for the trainers' panel. */
-export type TrainingSources = { unitPhotos: number; galleryPhotos: number; dismissalPhotos: number; testPhotos: number; acceptedRegions: number };
+export type TrainingSources = {
+  unitPhotos: number;
+  galleryPhotos: number;
+  dismissalPhotos: number;
+  testPhotos: number;
+  acceptedRegions: number;
+  /** Only the demo seed's model (db/seed/suggestion-model.ts): synthetic photos it rendered, none of the workspace's. */
+  syntheticPhotos?: number;
+};
 
 /**
  * One trained region model of a workspace (lib/imaging/learned.ts), kept whether or not it was

@@ -19,7 +19,7 @@ const MAX_UNITS_PER_LOT = 2;
 const MAX_PHOTOS = 30;
 
 /** Defects planted on the first (flawed) unit of a lot, by part kind and view; the second unit is clean. */
-function plantedDefects(kind: string, viewKey: string): PlantedDefect[] {
+export function plantedDefects(kind: string, viewKey: string): PlantedDefect[] {
   const table: [RegExp, Record<string, PlantedDefect[]>][] = [
     [/camera/, { front: ["scratch", "dust"], lens: ["dust"], back: ["corrosion"], connector: [] }],
     [/battery/, { front: ["dent"], back: ["scratch", "swelling"], connector: ["torn-flex"] }],

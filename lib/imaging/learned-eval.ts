@@ -16,7 +16,9 @@
  *   more of than precision; below these figures the ghosts would waste more time than they save.
  * - Switching models: the candidate replaces the model in use when its mean F1 over the classes
  *   either model may suggest (a class it may not suggest counts 0) is at least the current one's,
- *   both measured on the same test photos; with no model in use, any candidate is switched in.
+ *   both measured on the same test photos, except that a candidate that may suggest no class
+ *   never replaces one on a tie (at 0, the model in use could not be judged on these photos
+ *   either); with no model in use, any candidate is switched in.
  */
 import type { Shape } from "@/lib/geometry/shape";
 import { suggestRegions, type RegionModel } from "./learned";
@@ -122,7 +124,10 @@ export function compareModels(candidate: ModelStanding, current: ModelStanding |
   const classes = [...new Set([...candidate.suggestable, ...current.suggestable].filter((c) => c.suggest).map((c) => c.defect))].sort();
   const candidateScore = round(meanF1(candidate, classes));
   const currentScore = round(meanF1(current, classes));
-  const switchIn = candidateScore >= currentScore;
+  // A tie switches the fresher model in, unless it may suggest nothing: a tie at 0 (neither can be
+  // shown to work on these photos) must not turn suggestions off.
+  const candidateSuggests = candidate.suggestable.some((c) => c.suggest);
+  const switchIn = candidateScore > currentScore || (candidateScore === currentScore && candidateSuggests);
   const over = classes.length ? `over ${classes.join(", ")}` : "(no class may be suggested by either)";
   return { switchIn, candidateScore, currentScore, reason: `Mean held-out F1 ${over}: new ${candidateScore}, in use ${currentScore}; ${switchIn ? "the new model is switched in" : "the model in use stays"}.` };
 }

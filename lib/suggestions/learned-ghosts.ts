@@ -2,7 +2,8 @@ import "server-only";
 /**
  * Learned suggestions on the Bench: the workspace's model in use run on a photo's preview (in a
  * compute thread), limited to the classes its held-out figures allow (SUGGESTION_RULE) that the
- * part type has, inside the photo's Surface, mapped back to original pixels. Nothing is stored
+ * part type has, inside the photo's Surface (or, with none marked yet, the one "Suggest Surface" would
+ * find), mapped back to original pixels. Nothing is stored
  * here: an accepted ghost becomes a region through the normal region save (its author is the
  * inspector), and each accept or dismiss is recorded by recordDecisions.
  * Only for photos the caller may mark now (the Bench's rule, assertUnitAnnotatable): never on a
@@ -56,7 +57,15 @@ export async function learnedSuggestionsForPhoto(actor: SessionUser, photoId: st
   const previewSize = { width: context.photo.previewWidth ?? context.size.width, height: context.photo.previewHeight ?? context.size.height };
   const [toPreviewX, toPreviewY] = [previewSize.width / context.size.width, previewSize.height / context.size.height];
   const { regions } = await readRegionSet(actor, photoId);
-  const surface = regions.surfaces.map((s) => scaleShape(s.shape, toPreviewX, toPreviewY));
+  let surface = regions.surfaces.map((s) => scaleShape(s.shape, toPreviewX, toPreviewY));
+  let where = "inside the Surface";
+  if (surface.length === 0) {
+    // The model learned inside Surfaces, and off the part it mistakes backdrop shading for marks:
+    // with none marked yet, it looks inside the Surface Partproof finds (as "Suggest Surface" does).
+    const found = await runInThread("suggest-surface", { image: preview, options: { limitInputPixels: previewSize.width * previewSize.height } });
+    surface = found.shape ? [found.shape] : [];
+    where = found.shape ? "inside the part's outline as Partproof found it (mark the Surface to set it yourself)" : "over the whole photo (mark the Surface to narrow it)";
+  }
   const found = await runInThread("suggest-learned", { model: model.model, image: preview, options: { surface: surface.length ? surface : undefined, defects: allowed, maxSuggestions: MAX_LEARNED_GHOSTS } });
   const ghosts: LearnedGhost[] = [];
   for (const [k, s] of found.entries()) {
@@ -64,7 +73,6 @@ export async function learnedSuggestionsForPhoto(actor: SessionUser, photoId: st
     if (describeShapeProblem(shape)) continue;
     ghosts.push({ id: `learned-${model.version}-${k}`, role: "defect", defect: s.defect, shape, score: s.score, label: `${labels.get(s.defect)} ${Math.round(s.score * 100)} %` });
   }
-  const where = surface.length ? "inside the Surface" : "over the whole photo (mark the Surface to narrow it)";
   return { ...base, ghosts, note: `${ghosts.length} learned suggestion${ghosts.length === 1 ? "" : "s"} ${where}, from model ${model.version}.` };
 }
 

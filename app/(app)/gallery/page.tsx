@@ -4,6 +4,7 @@ import { GalleryCard } from "@/components/gallery/gallery-card";
 import { GalleryFilters, type FilterPartType } from "@/components/gallery/gallery-filters";
 import { EmptyState } from "@/components/ui/empty-state";
 import { listPartTypes } from "@/db/queries/part-types";
+import { can } from "@/lib/auth/permissions";
 import { requirePageUser } from "@/lib/auth/require-user";
 import { canEditGallery } from "@/lib/gallery/access";
 import { isGalleryCursor } from "@/lib/gallery/cursor";
@@ -27,6 +28,7 @@ export default async function GalleryPage(props: PageProps<"/gallery">) {
   // A cursor that does not decode (an old or edited link) opens the first page rather than an error.
   if (filters.cursor && !isGalleryCursor(filters.cursor)) delete filters.cursor;
   const canEdit = canEditGallery(user.roles);
+  const canManageSuggestions = can(user, "suggestions.manage");
   const page = await listGallery(user, { ...filters, limit: GALLERY_PAGE_DEFAULT });
   const partTypes: FilterPartType[] = partTypeRows.map((p) => ({ id: p.id, name: p.name, views: p.views.map((v) => ({ key: v.key, label: v.label })), defectClasses: p.defectClasses.map((d) => ({ key: d.key, label: d.label })) }));
   const byId = new Map(partTypes.map((p) => [p.id, p]));
@@ -38,11 +40,18 @@ export default async function GalleryPage(props: PageProps<"/gallery">) {
           <h1 className="page-title">Gallery</h1>
           <p className="text-gauge-700">{screen.summary}</p>
         </div>
-        {canEdit && (
-          <Link href="/gallery/new" className="btn-primary" data-testid="gallery-add">
-            Add an example
-          </Link>
-        )}
+        <div className="flex flex-wrap gap-2">
+          {canManageSuggestions && (
+            <Link href="/gallery/suggestions" className="btn-secondary" data-testid="gallery-suggestions">
+              Suggestions
+            </Link>
+          )}
+          {canEdit && (
+            <Link href="/gallery/new" className="btn-primary" data-testid="gallery-add">
+              Add an example
+            </Link>
+          )}
+        </div>
       </div>
       <GalleryFilters filters={filters} partTypes={partTypes} canEdit={canEdit} />
       {page.items.length === 0 ? (

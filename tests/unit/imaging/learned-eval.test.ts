@@ -122,4 +122,16 @@ describe("the suggestion rule and the model switch", () => {
     expect(compareModels(standing({ scratch: [10, 10, 5] }), current).switchIn).toBe(false);
     expect(compareModels(standing({ scratch: [10, 10, 2] }), null)).toMatchObject({ switchIn: true, reason: "No model is in use yet." });
   });
+
+  it("on a tie switches the new model in, unless it may suggest nothing (a tie at 0 keeps the model in use)", () => {
+    const standing = (byClass: Record<string, [number, number, number]>) => {
+      const e = evaluation(byClass);
+      return { evaluation: e, suggestable: suggestableClasses({ classes } as never, e) };
+    };
+    expect(compareModels(standing({ scratch: [10, 10, 8] }), standing({ scratch: [10, 10, 8] }))).toMatchObject({ switchIn: true, candidateScore: 0.8, currentScore: 0.8 });
+    // Too few held-out regions to judge either (7 < 8): both score 0; the new one may suggest nothing.
+    const unjudged = standing({ scratch: [7, 7, 7] });
+    expect(unjudged.suggestable.some((c) => c.suggest)).toBe(false);
+    expect(compareModels(unjudged, standing({ scratch: [7, 7, 2] }))).toMatchObject({ switchIn: false, candidateScore: 0, currentScore: 0 });
+  });
 });
