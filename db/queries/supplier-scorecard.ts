@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, desc, eq } from "drizzle-orm";
+import { and, asc, desc, eq, sql } from "drizzle-orm";
 import { db, type DbOrTx } from "@/db/client";
 import { claims, lots, partTypes } from "@/db/schema";
 
@@ -21,4 +21,14 @@ export function listOpenClaims({ workspaceId, supplierId }: { workspaceId: strin
     .innerJoin(lots, and(eq(lots.workspaceId, claims.workspaceId), eq(lots.id, claims.lotId)))
     .where(and(eq(claims.workspaceId, workspaceId), eq(claims.supplierId, supplierId), eq(claims.status, "open")))
     .orderBy(asc(claims.createdAt), desc(claims.id));
+}
+
+/** Open claims per supplier of the workspace (the Reports screen's scorecards). */
+export async function countOpenClaimsBySupplier({ workspaceId }: { workspaceId: string }, tx: DbOrTx = db()): Promise<Map<string, number>> {
+  const rows = await tx
+    .select({ supplierId: claims.supplierId, n: sql<number>`count(*)::int` })
+    .from(claims)
+    .where(and(eq(claims.workspaceId, workspaceId), eq(claims.status, "open")))
+    .groupBy(claims.supplierId);
+  return new Map(rows.map((r) => [r.supplierId, r.n]));
 }

@@ -4,7 +4,7 @@ import "server-only";
  * stand for each part type it delivers (with the switches that led there, lib/lots/scheme.ts), and
  * its claims still open.
  */
-import { listOpenClaims, listSupplierPartTypes } from "@/db/queries/supplier-scorecard";
+import { countOpenClaimsBySupplier, listOpenClaims, listSupplierPartTypes } from "@/db/queries/supplier-scorecard";
 import { switchingStateFor } from "@/lib/lots/scheme";
 
 export async function loadSupplierSwitching({ workspaceId, supplierId }: { workspaceId: string; supplierId: string }) {
@@ -18,3 +18,4 @@ export async function loadSupplierSwitching({ workspaceId, supplierId }: { works
 }
 
 export const loadOpenClaims = listOpenClaims;
+export const loadOpenClaimCounts = countOpenClaimsBySupplier;

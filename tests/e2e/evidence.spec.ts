@@ -174,6 +174,12 @@ test("a lead rejects a lot, previews and sends the evidence; the inbox has the f
   const claim = page.getByTestId("supplier-claims").getByTestId(`evidence-RMA-${stamp}`);
   await expect(claim).toContainText(purchaseRef);
   await shoot(page, "supplier-scorecard-claims");
+  // The Reports screen's scorecards count the open claim and link to this page.
+  await page.goto(`/reports?supplierId=${supplier.id}`);
+  const row = page.getByTestId("report-scorecards").locator("tbody tr", { hasText: `Harrowgate Spares ${stamp}` });
+  await expect(row.locator("td").last()).toHaveText("1");
+  await expect(row.getByRole("link", { name: `Harrowgate Spares ${stamp}` })).toHaveAttribute("href", `/suppliers/${supplier.id}`);
+  await page.goto(`/suppliers/${supplier.id}`);
   await claim.getByLabel("Claim status").selectOption("credited");
   await claim.getByLabel("Note").fill("Credit note for the lot received.");
   // Wait for the save's answer: the scorecard is drawn on the server when the page loads.
