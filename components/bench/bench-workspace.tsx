@@ -17,11 +17,10 @@ import { PhotoList } from "@/components/photos/photo-list";
 import { PhotoStrip } from "@/components/photos/photo-strip";
 import { PhotoUploader } from "@/components/photos/photo-uploader";
 import { LeaseHeartbeat } from "@/components/queue/lease-heartbeat";
-import type { DefectClassDefinition, ViewDefinition } from "@/db/schema/lots";
 import { benchClassOrder, startingClass } from "@/lib/annotate/class-order";
+import { can } from "@/lib/auth/permissions";
 import { apiFetch } from "@/lib/http/client";
 import { isScreenView } from "@/lib/regions/suggestion-mapping";
-import { annotateLock, benchNotice, type BenchPerson } from "./annotate-lock";
 import { checklistSummary, ChecklistPanel } from "./checklist-panel";
 import { PhotoAnnotator, type CanvasLink } from "./photo-annotator";
 import { PHOTO_SHORTCUTS } from "./photo-keys";
@@ -29,9 +28,12 @@ import { openSection, SidePanels, usePanelState, type PanelSection } from "./sid
 import { TakeNext } from "./take-next";
 import { useToolInHand } from "./tool-in-hand";
 import { UnitHeader } from "./unit-header";
+import { benchNotice, unitLock, type BenchPerson } from "./unit-lock";
 import { useBenchPhotos } from "./use-bench-photos";
-import { useUnit, type UnitView } from "./use-unit";
+import type { UnitView } from "@/lib/units/dto";
+import { useUnit } from "./use-unit";
 import { unitKeys } from "@/lib/query-keys/units";
+import type { DefectClassDefinition, ViewDefinition } from "@/lib/part-types/schemas";
 
 export type BenchPartType = {
   views: ViewDefinition[];
@@ -76,7 +78,7 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
   const { photos, selected, select, registry, unsaved, switched } = useBenchPhotos({ unitId, initialPhotoId, keyArea: markingArea });
   const grades = useQuery({ queryKey: unitKeys.grades(unitId), queryFn: () => apiFetch<{ grades: GradeView[] }>(`/api/units/${unitId}/grades`) });
 
-  const lock = annotateLock(view, me);
+  const lock = unitLock(view, me, "regions");
   const notice = benchNotice(view, me);
   const holdsLease = view.unit.status === "on_bench" && view.unit.leaseHolderId === me.id;
   const classKeys = useMemo(() => benchClassOrder(partType.defectClasses).map((d) => d.key), [partType.defectClasses]);
@@ -91,7 +93,9 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
   const classLabels = labels.defects;
   // A reference belongs to a view: switching to a photo of another view puts it away.
   const shownReference = reference && selected && reference.viewKey === selected.viewKey ? reference : null;
-  const canUpload = me.canRecord && (view.unit.status === "queued" || view.unit.status === "on_bench");
+  const canUpload = unitLock(view, me, "upload") === null;
+  const canManagePhotos = unitLock(view, me, "photos") === null;
+  const gradeLock = unitLock(view, me, "grade");
   const noPhotos = photos.isSuccess && photos.data.photos.length === 0;
   const graded = view.unit.status === "graded" || view.unit.status === "in_recheck" || view.unit.status === "final";
   // A unit without photos opens with the uploader where the canvas will be; later it opens over the
@@ -149,13 +153,13 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
         <div id="grade" className="space-y-4">
           <GradePanel
             unitId={unitId}
-            canGrade={me.canRecord}
+            canGrade={can(me, "grades.record")}
             canCorrect={canCorrect}
             labels={labels}
             unsavedRegions={unsaved.size > 0}
             beforeMeasure={() => registry.flushAll()}
             onGraded={() => void queryClient.invalidateQueries({ queryKey: unitKeys.view(unitId) })}
-            readOnlyReason={lock !== null && !(me.isLead && view.unit.status === "graded") ? lock : null}
+            readOnlyReason={gradeLock !== null && !(canCorrect && view.unit.status === "graded") ? gradeLock : null}
             framed={false}
           />
           <GradeHistory unitId={unitId} framed={false} />
@@ -164,7 +168,7 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
         </div>
       ),
     },
-    { id: "photos", title: "Photos", summary: `${photos.data?.photos.length ?? 0}`, content: <PhotoList unitId={unitId} views={views} canManage={canUpload} beforeRemove={(id) => registry.get(id)?.flush() ?? Promise.resolve(true)} /> },
+    { id: "photos", title: "Photos", summary: `${photos.data?.photos.length ?? 0}`, content: <PhotoList unitId={unitId} views={views} canManage={canManagePhotos} beforeRemove={(id) => registry.get(id)?.flush() ?? Promise.resolve(true)} /> },
   ];
 
   return (
@@ -175,7 +179,7 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
         end={
           <>
             {holdsLease && <LeaseHeartbeat unitId={unitId} onRenewed={() => void queryClient.invalidateQueries({ queryKey: unitKeys.view(unitId) })} />}
-            {me.canRecord && view.unit.status === "graded" && <TakeNext lotId={view.lot.id} />}
+            {can(me, "queue.work") && view.unit.status === "graded" && <TakeNext lotId={view.lot.id} />}
           </>
         }
       />

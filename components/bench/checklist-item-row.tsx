@@ -3,9 +3,10 @@
 import { useState } from "react";
 import { DefectSeverityBadge } from "@/components/lots/badges";
 import { useDateTime } from "@/components/ui/time-zone";
-import type { ChecklistItem } from "@/db/schema/lots";
-import { describeLimits, evaluateChecklistItem, formatReading, suspectReading, type ChecklistValue } from "@/lib/checklist/evaluate";
-import type { UnitView } from "./use-unit";
+import { describeLimits, evaluateChecklistItem, formatReading, suspectReading } from "@/lib/checklist/evaluate";
+import type { UnitView } from "@/lib/units/dto";
+import type { ChecklistItem } from "@/lib/part-types/schemas";
+import type { ChecklistValue } from "@/lib/units/schemas";
 
 type Result = UnitView["results"][number];
 

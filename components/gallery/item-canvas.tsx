@@ -3,9 +3,9 @@
 import { useMemo } from "react";
 import { AnnotationCanvasLazy } from "@/components/annotate/annotation-canvas-lazy";
 import type { AllowedDefect } from "@/components/annotate/types";
-import type { DefectClassDefinition, ViewDefinition } from "@/db/schema/lots";
 import type { GalleryCardDto } from "@/lib/gallery/dto";
 import type { RegionSetPayload } from "@/lib/geometry/validate";
+import type { DefectClassDefinition, ViewDefinition } from "@/lib/part-types/schemas";
 
 export type ItemPartType = { views: ViewDefinition[]; defectClasses: DefectClassDefinition[] };
 

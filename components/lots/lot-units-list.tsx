@@ -1,24 +1,9 @@
 import Link from "next/link";
-import type { UnitStatus } from "@/db/schema/lots";
+import type { LotUnitRow } from "@/db/queries/units";
 import type { FindingDefect } from "@/lib/lots/verdict";
-import type { DefectSeverity } from "@/lib/part-types/severity";
 import { STATUS_LABELS } from "@/lib/units/state-machine";
 import { DefectSeverityBadge } from "./badges";
 
-export type LotUnitRow = {
-  id: string;
-  sampleIndex: number;
-  serial: string | null;
-  placeholder: boolean;
-  status: UnitStatus;
-  leaseHolderName: string | null;
-  leaseExpiresAt: Date | null;
-  recorded: number;
-  failed: number;
-  worstFailure: DefectSeverity | null;
-  /** The current grade (last of the unit's grade history), null until graded. */
-  grade: "A" | "B" | "C" | "Reject" | null;
-};
 
 /** "on Ines's bench" only while the lease runs; an expired lease means the unit is waiting again. */
 export function unitStatusText(u: Pick<LotUnitRow, "status" | "leaseHolderName" | "leaseExpiresAt">, now: Date): string {

@@ -2,9 +2,9 @@
 
 import { useState } from "react";
 import { useWatch, type Control, type UseFormRegister, type UseFormSetValue } from "react-hook-form";
-import type { ZoneDefinition } from "@/db/schema/lots";
 import { textToZones, zonesToText, type PartTypeFormValues } from "@/lib/part-types/form-model";
 import { ZoneDrawer } from "./zone-drawer";
+import type { ZoneDefinition } from "@/lib/part-types/schemas";
 
 const small = "field-input py-1";
 

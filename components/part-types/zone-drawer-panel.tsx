@@ -1,7 +1,7 @@
 "use client";
 
 import { useState } from "react";
-import type { ZoneDefinition } from "@/db/schema/lots";
+import type { ZoneDefinition } from "@/lib/part-types/schemas";
 
 /**
  * The side panel of the zone drawer: how zones are drawn, the view's zones (each removable), a

@@ -6,13 +6,13 @@ import { createPortal } from "react-dom";
 import { AnnotationCanvasLazy, type AnnotationCanvasHandle } from "@/components/annotate/annotation-canvas-lazy";
 import { requestSuggestions } from "@/components/bench/regions-api";
 import { FormMessage } from "@/components/ui/form-field";
-import type { ZoneDefinition } from "@/db/schema/lots";
 import type { PolygonShape } from "@/lib/geometry/shape";
 import type { RegionSetPayload } from "@/lib/geometry/validate";
 import { apiFetch } from "@/lib/http/client";
 import { drawingFromZones, zonesFromDrawing, zonesToPlace } from "@/lib/part-types/zone-drawing";
 import { partTypeKeys } from "@/lib/query-keys/part-types";
 import { ZoneDrawerPanel } from "./zone-drawer-panel";
+import type { ZoneDefinition } from "@/lib/part-types/schemas";
 
 type SamplePhoto = {
   id: string;

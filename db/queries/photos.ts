@@ -7,7 +7,8 @@ import "server-only";
 import { and, asc, desc, eq, inArray, isNotNull, isNull, ne, sql } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
 import { db, type DbOrTx } from "@/db/client";
-import { lots, partTypes, photos, regions, units, users, type NewPhoto, type Photo, type ViewDefinition } from "@/db/schema";
+import { lots, partTypes, photos, regions, units, users, type NewPhoto, type Photo } from "@/db/schema";
+import type { ViewDefinition } from "@/lib/part-types/schemas";
 
 export type UnitForPhotos = {
   id: string;
@@ -16,6 +17,7 @@ export type UnitForPhotos = {
   serial: string | null;
   sampleIndex: number;
   lotId: string;
+  lotStatus: (typeof lots.$inferSelect)["status"];
   purchaseRef: string;
   partType: { id: string; name: string; slug: string; category: string; views: ViewDefinition[] };
 };
@@ -29,6 +31,7 @@ export async function getUnitForPhotos({ workspaceId, unitId }: { workspaceId: s
       serial: units.serial,
       sampleIndex: units.sampleIndex,
       lotId: units.lotId,
+      lotStatus: lots.status,
       purchaseRef: lots.purchaseRef,
       partType: { id: partTypes.id, name: partTypes.name, slug: partTypes.slug, category: partTypes.category, views: partTypes.views },
     })

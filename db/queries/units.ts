@@ -31,6 +31,9 @@ export function listLotUnits({ workspaceId, lotId }: { workspaceId: string; lotI
     .orderBy(asc(units.sampleIndex));
 }
 
+/** One row of a lot's unit list (the Lot screen's table reads this type). */
+export type LotUnitRow = Awaited<ReturnType<typeof listLotUnits>>[number];
+
 export async function countLotUnits({ workspaceId, lotId }: { workspaceId: string; lotId: string }, tx: DbOrTx = db()) {
   const [row] = await tx
     .select({ n: sql<number>`count(*)::int` })
@@ -62,18 +65,19 @@ export async function getUnitDetail({ workspaceId, unitId }: { workspaceId: stri
 /**
  * The unit row, locked for the rest of the transaction: the one lock every change of a unit takes
  * first (status, lease, checklist, regions, serial, grades), so they serialise and never
- * deadlock. With the lease holder's name, and whether the lease is still running by the
- * database's clock (the clock every lease is granted by: ./unit-status.ts). Undefined when the
+ * deadlock. With its lot's status, the lease holder's name, and whether the lease is still running by the
+ * database's clock (what lib/units/editability.ts reads) (the clock every lease is granted by: ./unit-status.ts). Undefined when the
  * unit is not in this workspace.
  */
 export async function lockUnit(tx: DbOrTx, { workspaceId, unitId }: { workspaceId: string; unitId: string }) {
   const [row] = await tx
-    .select({ unit: units, leaseHolderName: holders.name, leaseRunning: sql<boolean>`coalesce(${units.leaseExpiresAt} > now(), false)` })
+    .select({ unit: units, lotStatus: lots.status, leaseHolderName: holders.name, leaseRunning: sql<boolean>`coalesce(${units.leaseExpiresAt} > now(), false)` })
     .from(units)
+    .innerJoin(lots, and(eq(lots.workspaceId, units.workspaceId), eq(lots.id, units.lotId)))
     .leftJoin(holders, eq(holders.id, units.leaseHolderId))
     .where(and(eq(units.workspaceId, workspaceId), eq(units.id, unitId)))
     .for("update", { of: units });
-  return row && { ...row.unit, leaseHolderName: row.leaseHolderName, leaseRunning: row.leaseRunning };
+  return row && { ...row.unit, lotStatus: row.lotStatus, leaseHolderName: row.leaseHolderName, leaseRunning: row.leaseRunning };
 }
 export type LockedUnit = NonNullable<Awaited<ReturnType<typeof lockUnit>>>;
 

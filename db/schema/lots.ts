@@ -1,21 +1,17 @@
 import { sql } from "drizzle-orm";
 import { boolean, check, date, index, integer, jsonb, pgTable, real, text, timestamp, unique, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import { suppliers, users, workspaces } from "./core";
+import type { ChecklistItem, DefectClassDefinition, ViewDefinition } from "@/lib/part-types/schemas";
 import type { DefectSeverity } from "@/lib/part-types/severity";
+import type { ChecklistValue } from "@/lib/units/schemas";
 import { sameWorkspace } from "./workspace-keys";
 
 /**
- * Shapes of the JSON columns. Their zod schemas (the source of truth for validation) live in
- * lib/part-types and lib/lots; these types keep the columns honest in TypeScript.
+ * Shapes of the JSON columns. Where a request writes the column, its type is read from the zod
+ * schema that validates the request (lib/part-types/schemas.ts, lib/units/schemas.ts), so the row
+ * and the API speak one type. The plan, the decision counts and the draw are computed by the
+ * server (lib/lots), never sent, so they are declared here.
  */
-export type ZoneDefinition = { id: string; label: string; /** Polygon in 0..1 coordinates of the Surface bounding box. */ polygon: [number, number][] };
-export type ViewDefinition = { key: string; label: string; required: boolean; instructions?: string; zones: ZoneDefinition[] };
-export type DefectClassDefinition = { key: string; label: string; severity: DefectSeverity };
-export type ChecklistItem =
-  | { id: string; label: string; kind: "pass_fail"; severityOnFail: DefectSeverity; caution?: string }
-  | { id: string; label: string; kind: "numeric"; unit: string; min: number | null; max: number | null; decimals: number; severityOnFail: DefectSeverity; caution?: string; /** A reading below this sets the part aside as suspect (stronger than failing). */ suspectBelow?: number | null }
-  | { id: string; label: string; kind: "choice"; options: { value: string; label: string; passes: boolean }[]; severityOnFail: DefectSeverity; caution?: string };
-
 /** What a lot's sampling decided, stored with the lot so later table changes never rewrite it. */
 export type StoredSamplingPlan = {
   standard: "ISO 2859-1 single sampling";
@@ -232,7 +228,7 @@ export const checklistResults = pgTable(
     unitId: uuid().notNull(),
     itemId: text().notNull(),
     /** { pass: boolean } | { reading: number } | { choice: string } */
-    value: jsonb().$type<{ pass: boolean } | { reading: number } | { choice: string }>().notNull(),
+    value: jsonb().$type<ChecklistValue>().notNull(),
     passed: boolean().notNull(),
     /** Why it failed, in words ("3.12 V is below the minimum 3.40 V"). */
     failureReason: text(),

@@ -5,8 +5,8 @@
  * value); every other recorded item passes. `recorded` is how many units (in sample order) have a
  * complete checklist; `expect` is the verdict the seed must reach (it checks itself).
  */
-import type { ChecklistValue } from "@/lib/checklist/evaluate";
 import type { Disposition } from "@/lib/lots/schemas";
+import type { ChecklistValue } from "@/lib/units/schemas";
 
 export type LotSpec = {
   supplier: string;

@@ -6,8 +6,8 @@
 import crypto from "node:crypto";
 import { eq } from "drizzle-orm";
 import type { Database } from "@/db/client";
-import { activityLog, checklistResults, lots, units, type ChecklistItem, type LotDecisionCounts, type PartType } from "@/db/schema";
-import { evaluateChecklistItem, type ChecklistValue } from "@/lib/checklist/evaluate";
+import { activityLog, checklistResults, lots, units, type LotDecisionCounts, type PartType } from "@/db/schema";
+import { evaluateChecklistItem } from "@/lib/checklist/evaluate";
 import { unitFindings } from "@/lib/lots/findings";
 import { buildLotPlan, DEFAULT_AQLS } from "@/lib/lots/plan";
 import { DEFECT_SEVERITIES } from "@/lib/part-types/severity";
@@ -18,6 +18,8 @@ import { closeLotUnits } from "@/lib/units/lot-closing";
 import { DRAW_ALGORITHM, drawSample } from "@/lib/units/sample-draw";
 import { LOT_SCENARIO } from "./lot-scenario";
 import type { seedPeople } from "./people";
+import type { ChecklistItem } from "@/lib/part-types/schemas";
+import type { ChecklistValue } from "@/lib/units/schemas";
 
 type People = Awaited<ReturnType<typeof seedPeople>>;
 const DAY = 86_400_000;

@@ -6,7 +6,6 @@
  * Measuring never depends on the rubric, so stored measurements can be graded again under any
  * other version (`regradeStored`) without measuring anything again.
  */
-import type { DefectClassDefinition, ViewDefinition } from "@/db/schema/lots";
 import { AppError } from "@/lib/errors";
 import { assertBeforeDeadline, DeadlineExceeded } from "@/lib/imaging/deadline";
 import type { Shape } from "@/lib/geometry/shape";
@@ -19,6 +18,7 @@ import type { DefectSeverity } from "@/lib/part-types/severity";
 import type { Rubric } from "./rubric-schema";
 import type { StoredUnitResult } from "./stored-measurement";
 import { buildUnitMetrics, type FunctionalFailureCounts } from "./unit-metrics";
+import type { DefectClassDefinition, ViewDefinition } from "@/lib/part-types/schemas";
 
 export type UnitPhotoInput = {
   photoId: string;

@@ -10,11 +10,11 @@
  * - the sample photos are calibrated at 10 px/mm and their surface is 1 000 000 px;
  * - a class with any non-zero reading on a photo is present there (count at least 1).
  */
-import type { ViewDefinition } from "@/db/schema/lots";
 import type { DefectMeasure, PhotoMeasurement, PixelFaultClass } from "@/lib/measure/types";
 import type { DefectSeverity } from "@/lib/part-types/severity";
 import { ruleZone, type Rubric } from "./rubric-schema";
 import type { FunctionalFailureCounts } from "./unit-metrics";
+import type { ViewDefinition } from "@/lib/part-types/schemas";
 
 export const ANY_VIEW = "(any view)";
 const SURFACE_PX = 1_000_000;

@@ -9,7 +9,7 @@ import "server-only";
  * measureUnitQueueOptions)` and `boss.work(MEASURE_UNIT_QUEUE, handleMeasureUnitJobs)`.
  */
 import type PgBoss from "pg-boss";
-import { pool } from "@/db/client";
+import { notifyJobs } from "@/db/jobs";
 import { AppError } from "@/lib/errors";
 import { DeadlineExceeded } from "@/lib/imaging/deadline";
 import { MEASURE_JOB_BUDGET_MS } from "@/lib/grading/schemas";
@@ -66,7 +66,7 @@ const sender = () => queueSender(measureUnitQueueOptions);
 export async function enqueueMeasureUnit(job: MeasureUnitJob): Promise<{ jobId: string | null }> {
   const boss = await sender();
   const jobId = await boss.send(MEASURE_UNIT_QUEUE, job, { singletonKey: job.unitId });
-  if (jobId) await pool().query("SELECT pg_notify($1, $2)", [JOB_NOTIFY_CHANNEL, MEASURE_UNIT_QUEUE]);
+  if (jobId) await notifyJobs(JOB_NOTIFY_CHANNEL, MEASURE_UNIT_QUEUE);
   return { jobId };
 }
 

@@ -7,9 +7,9 @@ import "server-only";
  * fallback when the notification is missed.
  */
 import PgBoss from "pg-boss";
-import pg from "pg";
 import { z } from "zod";
 import { closeDb } from "@/db/client";
+import { listenForJobs } from "@/db/jobs";
 import { configureSharpForWorker } from "@/lib/imaging/normalize";
 import { photoSettings } from "@/lib/photos/config";
 import { processPhoto } from "@/lib/photos/process";
@@ -67,36 +67,6 @@ async function handleSweep() {
   return { deleted: report.deleted.length, blocked: report.blocked.length, noticesRemoved: report.noticesRemoved, stalledMarked: report.stalledMarked };
 }
 
-/** LISTEN on its own connection; reconnects after a database restart. */
-function listenForJobs(connectionString: string, onJob: (queue: string) => void): () => Promise<void> {
-  let client: pg.Client | null = null;
-  let stopped = false;
-  const connect = async () => {
-    if (stopped) return;
-    const next = new pg.Client({ connectionString, application_name: "partproof-worker-listen" });
-    next.on("notification", (message) => {
-      if (message.payload) onJob(message.payload);
-    });
-    next.on("error", () => {
-      next.end().catch(() => {});
-      if (!stopped) setTimeout(() => void connect(), 5_000);
-    });
-    try {
-      await next.connect();
-      await next.query(`LISTEN ${JOB_NOTIFY_CHANNEL}`);
-      client = next;
-    } catch {
-      next.end().catch(() => {});
-      if (!stopped) setTimeout(() => void connect(), 5_000);
-    }
-  };
-  void connect();
-  return async () => {
-    stopped = true;
-    await client?.end().catch(() => {});
-  };
-}
-
 export async function runWorker(): Promise<void> {
   const connectionString = process.env.DATABASE_URL;
   if (!connectionString) throw new Error("DATABASE_URL is not set; start the worker with `npm start` or see .env.example.");
@@ -129,7 +99,7 @@ export async function runWorker(): Promise<void> {
   await boss.work<MailDeliveryJob>(MAIL_SEND_QUEUE, { includeMetadata: true, batchSize: 1, pollingIntervalSeconds: 2 }, handleMailJob);
   await boss.work(PRUNE_QUEUE, { pollingIntervalSeconds: 30 }, handlePrune);
   await boss.schedule(PRUNE_QUEUE, "41 * * * *", {}, { tz: "UTC" });
-  const stopListening = listenForJobs(connectionString, (queue) => {
+  const stopListening = listenForJobs(connectionString, JOB_NOTIFY_CHANNEL, (queue) => {
     if (queue === PHOTO_PROCESS_QUEUE) photoWorkers.forEach((id) => boss.notifyWorker(id));
     if (queue === MEASURE_UNIT_QUEUE) boss.notifyWorker(measureWorker);
     if (queue === SUGGESTION_TRAINING_QUEUE) boss.notifyWorker(trainingWorker);

@@ -17,6 +17,7 @@
 import { z } from "zod";
 import { AppError } from "@/lib/errors";
 import type { Point, Shape } from "@/lib/geometry/shape";
+import { SHAPE_KINDS, spotShapeSchema } from "@/lib/geometry/shape-schemas";
 import type { PixelFaultClass, PixelFaultCounts } from "@/lib/measure/types";
 
 export const PIXEL_LIT = "pixel-lit";
@@ -85,8 +86,8 @@ const inputSchema = z.object({
       defect: z.string(),
       // Only Spots are read; other kinds just need their tag.
       shape: z.union([
-        z.object({ kind: z.literal("spot"), x: z.number().finite(), y: z.number().finite(), radius: z.number().finite().nonnegative() }),
-        z.object({ kind: z.enum(["rect", "polygon", "line"]) }).passthrough(),
+        spotShapeSchema.extend({ radius: spotShapeSchema.shape.radius.nonnegative() }),
+        z.object({ kind: z.enum(SHAPE_KINDS).exclude(["spot"]) }).passthrough(),
       ]),
     }),
   ),

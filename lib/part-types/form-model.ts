@@ -5,9 +5,10 @@
  * Text formats: zones one per line "id | Label | x,y x,y x,y" (0..1 of the Surface's bounding box);
  * choices one per line "value | Label | pass" (or "fail").
  */
-import type { ChecklistItem, PartType } from "@/db/schema/lots";
+import type { PartType } from "@/db/schema/lots";
 import type { PromisedGrade } from "@/lib/lots/schemas";
 import type { PartCategory } from "./schemas";
+import type { ChecklistItem } from "@/lib/part-types/schemas";
 
 export type ItemForm = { id: string; label: string; kind: ChecklistItem["kind"]; severityOnFail: ChecklistItem["severityOnFail"]; caution: string; unit: string; min: string; max: string; decimals: string; suspectBelow: string; options: string };
 export type PartTypeFormValues = {

@@ -4,7 +4,7 @@
  * form and the API; `.strict()` so unknown fields are refused.
  */
 import { z } from "zod";
-import type { ChecklistItem, PartType } from "@/db/schema/lots";
+import type { PartType } from "@/db/schema/lots";
 import { decimalPlaces } from "@/lib/checklist/evaluate";
 import { EXAMPLE_PART_TYPE_SLUGS } from "@/lib/grading/example-part-types";
 import { promisedGradeSchema } from "@/lib/lots/schemas";
@@ -48,6 +48,7 @@ export const zoneSchema = z
   .object({
     id: key("zone"),
     label: label("zone"),
+    /** Polygon in 0..1 coordinates of the Surface bounding box. */
     polygon: z.array(z.tuple([unitInterval, unitInterval]), { error: "A zone needs a polygon." }).min(3, "A zone polygon needs at least 3 points.").max(64, "Keep zone polygons to 64 points."),
   })
   .strict();
@@ -115,6 +116,12 @@ const choiceItem = z
   .strict();
 
 export const checklistItemSchema = z.discriminatedUnion("kind", [passFailItem, numericItem, choiceItem], { error: "Item kind must be pass_fail, numeric or choice." });
+
+/** The shapes of the part type's JSON columns (db/schema/lots.ts), read from the schemas that validate them. */
+export type ZoneDefinition = z.infer<typeof zoneSchema>;
+export type ViewDefinition = z.infer<typeof viewSchema>;
+export type DefectClassDefinition = z.infer<typeof defectClassSchema>;
+export type ChecklistItem = z.infer<typeof checklistItemSchema>;
 
 const size = (max: number, integer: boolean) => {
   const dimension = integer ? z.number().int("Use whole pixels.").positive("Sizes are positive.").max(max) : z.number().positive("Sizes are positive.").max(max);
@@ -185,4 +192,3 @@ export function isBatteryPart(partType: { category: string }): boolean {
   return partType.category === "battery";
 }
 
-export type { ChecklistItem };

@@ -5,9 +5,9 @@
  * are examples to adapt. Checklist limits are marked beside each: (a) read in a public source,
  * (c) common practice. Model families are invented.
  */
-import type { ChecklistItem, DefectClassDefinition, ViewDefinition, ZoneDefinition } from "@/db/schema/lots";
 import { EXAMPLE_LABELS, EXAMPLE_PART_TYPES, type ExamplePartTypeSlug } from "@/lib/grading/example-part-types";
 import type { PartCategory } from "@/lib/part-types/schemas";
+import type { ChecklistItem, DefectClassDefinition, ViewDefinition, ZoneDefinition } from "@/lib/part-types/schemas";
 
 type Point = [number, number];
 const rect = (x0: number, y0: number, x1: number, y1: number): Point[] => [[x0, y0], [x1, y0], [x1, y1], [x0, y1]];

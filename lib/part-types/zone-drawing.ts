@@ -15,10 +15,10 @@
  * A photo without a Surface shows no stored zone (there is no box to place them in); once a Surface
  * is drawn or suggested, `zonesToPlace` puts the stored zones not drawn yet into its box.
  */
-import type { ZoneDefinition } from "@/db/schema/lots";
 import { boundsOfShape, type Bounds } from "@/lib/geometry/bounds";
 import type { Point, PolygonShape, Shape } from "@/lib/geometry/shape";
 import type { RegionSetPayload } from "@/lib/geometry/validate";
+import type { ZoneDefinition } from "@/lib/part-types/schemas";
 
 export type DrawnZones = { zones: ZoneDefinition[]; problems: string[]; unchanged: string[] };
 

@@ -70,7 +70,7 @@ export async function finaliseUpload(actor: SessionUser, unitId: string, input: 
   const unit = await loadUnit(actor, unitId);
   const ticket = readTicket(actor, unitId, input.ticket, options.now ?? new Date());
   if (await getPhoto({ workspaceId: actor.workspaceId, photoId: ticket.photoId })) return { kind: "replayed", photo: await withContext(actor, ticket.photoId) };
-  assertOpenForUploads(unit);
+  assertOpenForUploads(actor, unit);
   viewOf(unit, ticket.viewKey);
   return storeUpload(actor, { unitId, photoId: ticket.photoId, viewKey: ticket.viewKey, fileName: ticket.fileName, bytes: ticket.bytes }, options);
 }

@@ -6,11 +6,11 @@
  * corners, the lit edge's glow against the bezel and the median window's reach beyond the area
  * (our choice, c). Pure.
  */
-import type { ZoneDefinition } from "@/db/schema/lots";
 import { boundsOfShape } from "@/lib/geometry/bounds";
 import type { PolygonShape } from "@/lib/geometry/shape";
 import { zonesToPixels } from "@/lib/grading/measure-photo";
 import type { PixelSearchArea } from "@/lib/imaging/pixel-search-area";
+import type { ZoneDefinition } from "@/lib/part-types/schemas";
 
 export const EDGE_BAND_SHARE = 0.02;
 export const MIN_EDGE_BAND_PX = 16;

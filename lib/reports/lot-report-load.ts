@@ -17,7 +17,7 @@ import { getPartType } from "@/db/queries/part-types";
 import { userNames } from "@/db/queries/reports";
 import { listLotUnits, listUnitResults } from "@/db/queries/units";
 import { getWorkspace } from "@/db/queries/workspaces";
-import type { ChecklistItem } from "@/db/schema/lots";
+import type { ChecklistItem } from "@/lib/part-types/schemas";
 import type { DefectSeverity } from "@/lib/part-types/severity";
 import type { Role } from "@/lib/auth/roles";
 import { notFound } from "@/lib/errors";

@@ -41,6 +41,8 @@ export const checklistValueSchema = z.union(
   [z.object({ pass: z.boolean() }).strict(), z.object({ reading: z.number().finite() }).strict(), z.object({ choice: z.string().min(1).max(40) }).strict()],
   { error: "value is { pass: true|false }, { reading: number } or { choice: string }." },
 );
+/** One recorded checklist value (also the type of checklist_results.value). */
+export type ChecklistValue = z.infer<typeof checklistValueSchema>;
 export const checklistRecordSchema = z
   .object({
     itemId: z.string({ error: "Say which checklist item this is." }).min(1, "Say which checklist item this is.").max(40),

@@ -7,10 +7,11 @@ import crypto from "node:crypto";
 import { eq, sql } from "drizzle-orm";
 import { db } from "@/db/client";
 import { lots, partTypes, photos, regions, regionSets, rubricVersions, suppliers, units, users } from "@/db/schema";
-import type { DefectClassDefinition, StoredSamplingPlan, ViewDefinition } from "@/db/schema/lots";
+import type { StoredSamplingPlan } from "@/db/schema/lots";
 import type { Shape } from "@/lib/geometry/shape";
 import type { RulerMark } from "@/lib/geometry/ruler";
 import type { Rubric } from "@/lib/grading/rubric-schema";
+import type { DefectClassDefinition, ViewDefinition } from "@/lib/part-types/schemas";
 
 const hex = (n: number) => crypto.randomBytes(n).toString("hex");
 

@@ -7,10 +7,11 @@
 import crypto from "node:crypto";
 import { asc, eq } from "drizzle-orm";
 import { db } from "@/db/client";
-import { lots, partTypes, photos, suppliers, units, users, workspaces, type StoredSamplingPlan, type ViewDefinition } from "@/db/schema";
+import { lots, partTypes, photos, suppliers, units, users, workspaces, type StoredSamplingPlan } from "@/db/schema";
 import { createObjectStore, listObjects } from "@/lib/storage/s3";
 import { serviceControl } from "./services";
 import { api, BASE_URL, type ApiResult, type Session } from "./http";
+import type { ViewDefinition } from "@/lib/part-types/schemas";
 
 export const PHOTO_VIEWS: ViewDefinition[] = [
   { key: "front", label: "Front", required: true, zones: [] },

@@ -8,6 +8,7 @@ import { z } from "zod";
 import { AppError } from "@/lib/errors";
 import { maxLineWidthFor, maxSpotRadiusFor } from "@/lib/geometry/clamp";
 import { MAX_RASTER_ROWS_PER_PHOTO } from "@/lib/geometry/limits";
+import { lineShapeSchema, polygonShapeSchema, rectShapeSchema, spotShapeSchema } from "@/lib/geometry/shape-schemas";
 import { describeRasterBudget } from "@/lib/geometry/validate";
 import type { CoverageInput } from "@/lib/measure/types";
 import { rasterRows } from "./cost";
@@ -27,17 +28,17 @@ const coordinate = z
 const size = coordinate.min(0, "must not be negative");
 const point = z.tuple([coordinate, coordinate]);
 
+/** The measuring variant of the base shapes (lib/geometry/shape-schemas.ts): bounded numbers, shapes with an area. */
 const shapeSchema = z.discriminatedUnion(
   "kind",
   [
-    z.object({ kind: z.literal("rect"), x: coordinate, y: coordinate, width: size, height: size }),
-    z.object({ kind: z.literal("polygon"), points: z.array(point).min(3, "a polygon needs at least 3 points").max(MAX_POINTS) }),
-    z.object({
-      kind: z.literal("line"),
+    rectShapeSchema.extend({ x: coordinate, y: coordinate, width: size, height: size }),
+    polygonShapeSchema.extend({ points: z.array(point).min(3, "a polygon needs at least 3 points").max(MAX_POINTS) }),
+    lineShapeSchema.extend({
       points: z.array(point).min(1, "a line needs at least 1 point").max(MAX_POINTS),
       width: size.positive("a line's width must be greater than 0"),
     }),
-    z.object({ kind: z.literal("spot"), x: coordinate, y: coordinate, radius: size }),
+    spotShapeSchema.extend({ x: coordinate, y: coordinate, radius: size }),
   ],
   { error: 'kind must be one of "rect", "polygon", "line", "spot"' },
 );

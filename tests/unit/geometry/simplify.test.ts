@@ -58,6 +58,11 @@ describe("ring simplification", () => {
     expect(worst).toBeLessThanOrEqual(0.5 + 1e-9);
   });
 
+  it("keeps a rectangle's corners and drops the points on its sides (moved from the Surface suggestion's own copy)", () => {
+    const ring: Point[] = [[0, 0], [5, 0], [10, 0], [10, 3], [10, 6], [5, 6], [0, 6], [0, 3]];
+    expect(simplifyRing(ring, 0.5)).toEqual([[0, 0], [10, 0], [10, 6], [0, 6]]);
+  });
+
   it("never collapses below a triangle", () => {
     const ring = simplifyRing(circle, 1_000);
     expect(ring).toHaveLength(3);

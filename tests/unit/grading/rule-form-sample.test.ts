@@ -4,7 +4,6 @@
  * evaluation (lib/grading/evaluate.ts), so a wrong mapping shows up as a wrong grade.
  */
 import { describe, expect, it } from "vitest";
-import type { ViewDefinition } from "@/db/schema/lots";
 import { evaluateRubric } from "@/lib/grading/evaluate";
 import { EXAMPLE_PART_TYPES } from "@/lib/grading/example-part-types";
 import { EXAMPLE_RUBRICS } from "@/lib/grading/example-rubrics";
@@ -12,6 +11,7 @@ import { fromRubric, newRule, rubricFormErrors, toRubric, type RuleFormValues } 
 import type { Rubric } from "@/lib/grading/rubric-schema";
 import { buildSampleUnit, readingKey, sampleReadingsFor } from "@/lib/grading/sample-unit";
 import { buildUnitMetrics } from "@/lib/grading/unit-metrics";
+import type { ViewDefinition } from "@/lib/part-types/schemas";
 
 const lists = { defects: ["scratch", "dent", "crack"], zones: ["lens-window", "body"], views: ["lens", "back"] };
 const row = (over: Partial<RuleFormValues>): RuleFormValues => ({ id: "r1", metric: "count", defect: "dent", view: "", zone: "", severity: "major", comparison: ">", threshold: "0", grade: "B", ...over });

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import sharp from "sharp";
 import type { Point } from "@/lib/geometry/shape";
-import { simplifyRing, suggestSurface, traceOuterBoundary } from "@/lib/imaging/suggest-surface";
+import { suggestSurface, traceOuterBoundary } from "@/lib/imaging/suggest-surface";
 import { mulberry32 as prng } from "@/support/prng";
 
 /** Shoelace formula (a: the standard surveyor's area formula for a simple polygon). */
@@ -148,10 +148,5 @@ describe("boundary tracing and simplification", () => {
       expect(shoelace(corners)).toBe(count);
       for (const [x, y] of corners) expect(Number.isInteger(x) && Number.isInteger(y)).toBe(true);
     }
-  });
-
-  it("Douglas–Peucker keeps a rectangle's corners and drops collinear points", () => {
-    const ring: Point[] = [[0, 0], [5, 0], [10, 0], [10, 3], [10, 6], [5, 6], [0, 6], [0, 3]];
-    expect(simplifyRing(ring, 0.5)).toEqual([[0, 0], [10, 0], [10, 6], [0, 6]]);
   });
 });

@@ -3,9 +3,9 @@
  * same mapping as components/annotate/zones.ts). Expected values are hand computations.
  */
 import { describe, expect, it } from "vitest";
-import type { ZoneDefinition } from "@/db/schema/lots";
 import type { PolygonShape } from "@/lib/geometry/shape";
 import { drawingFromZones, surfaceBox, zonesFromDrawing, zonesToPlace } from "@/lib/part-types/zone-drawing";
+import type { ZoneDefinition } from "@/lib/part-types/schemas";
 
 // Surface box x 100–500, y 50–250 (400 × 200 px).
 const surface: PolygonShape = { kind: "polygon", points: [[100, 50], [500, 50], [500, 250], [100, 250]] };
