@@ -57,10 +57,7 @@ export default defineConfig([
     // into tests/: what both need lives in support/ (DEVELOPERS.md, "Tests").
     files: ["bench/**", "support/**"],
     rules: {
-      "no-restricted-imports": [
-        "error",
-        { patterns: [{ regex: "^(@/|(\\.\\.?/)+)tests(/|$)", message: "bench/ and support/ do not import tests/: move what both need to support/." }] },
-      ],
+      "no-restricted-imports": ["error", { patterns: [{ regex: "^(@/|(\\.\\.?/)+)tests(/|$)", message: "bench/ and support/ do not import tests/: move what both need to support/." }] }],
     },
   },
   {

@@ -54,7 +54,11 @@ type BenchWorkspaceProps = {
   canCertify?: boolean;
 };
 
-const BANNER_TONE = { held: "border-signal-500 bg-signal-50 text-signal-700", closed: "border-gauge-300 bg-gauge-50 text-gauge-800", "view-only": "border-gauge-300 bg-gauge-50 text-gauge-800" } as const;
+const BANNER_TONE = {
+  held: "border-signal-500 bg-signal-50 text-signal-700",
+  closed: "border-gauge-300 bg-gauge-50 text-gauge-800",
+  "view-only": "border-gauge-300 bg-gauge-50 text-gauge-800",
+} as const;
 
 /**
  * The Bench for one unit, as a workspace that fills the window: the unit in one header line, the
@@ -86,7 +90,11 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
   const views = useMemo(() => partType.views.map((v) => ({ key: v.key, label: v.label, required: v.required })), [partType.views]);
   const allowedDefects = useMemo<AllowedDefect[]>(() => partType.defectClasses.map((d) => ({ key: d.key, label: d.label, severity: d.severity })), [partType.defectClasses]);
   const labels = useMemo<MeasurementLabels>(
-    () => ({ defects: Object.fromEntries(partType.defectClasses.map((d) => [d.key, d.label])), zones: Object.fromEntries(partType.views.flatMap((v) => v.zones.map((z) => [z.id, z.label]))), views: Object.fromEntries(views.map((v) => [v.key, v.label])) }),
+    () => ({
+      defects: Object.fromEntries(partType.defectClasses.map((d) => [d.key, d.label])),
+      zones: Object.fromEntries(partType.views.flatMap((v) => v.zones.map((z) => [z.id, z.label]))),
+      views: Object.fromEntries(views.map((v) => [v.key, v.label])),
+    }),
     [partType, views],
   );
   const selectedView = selected ? partType.views.find((v) => v.key === selected.viewKey) : undefined;
@@ -168,7 +176,12 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
         </div>
       ),
     },
-    { id: "photos", title: "Photos", summary: `${photos.data?.photos.length ?? 0}`, content: <PhotoList unitId={unitId} views={views} canManage={canManagePhotos} beforeRemove={(id) => registry.get(id)?.flush() ?? Promise.resolve(true)} /> },
+    {
+      id: "photos",
+      title: "Photos",
+      summary: `${photos.data?.photos.length ?? 0}`,
+      content: <PhotoList unitId={unitId} views={views} canManage={canManagePhotos} beforeRemove={(id) => registry.get(id)?.flush() ?? Promise.resolve(true)} />,
+    },
   ];
 
   return (
@@ -191,7 +204,11 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
       <div className="flex min-h-0 flex-1 flex-col gap-2 lg:flex-row">
         {/* Portrait: the marking area keeps a fixed share of the height (never the panels' content
             size, which changes while marking) and takes all of it once the panels are folded. */}
-        <div ref={setMarkingArea} className={`flex min-h-[26rem] min-w-0 flex-col gap-2 lg:min-h-0 lg:flex-1 lg:basis-auto ${panels.folded ? "flex-1" : "shrink-0 basis-[74%]"}`} data-testid="marking-area">
+        <div
+          ref={setMarkingArea}
+          className={`flex min-h-[26rem] min-w-0 flex-col gap-2 lg:min-h-0 lg:flex-1 lg:basis-auto ${panels.folded ? "flex-1" : "shrink-0 basis-[74%]"}`}
+          data-testid="marking-area"
+        >
           <div className="relative flex min-h-0 flex-1 flex-col">
             {selected ? (
               <PhotoAnnotator
@@ -232,10 +249,23 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
               <div className="flex shrink-0 flex-col items-end gap-1">
                 {canUpload && !noPhotos && (
                   <div className="flex gap-1">
-                    <button type="button" className="btn-secondary h-8 px-2 py-0 text-sm" onClick={showPhotoPanel} title="File a photo under the right view, or remove a wrong one" data-testid="manage-photos">
+                    <button
+                      type="button"
+                      className="btn-secondary h-8 px-2 py-0 text-sm"
+                      onClick={showPhotoPanel}
+                      title="File a photo under the right view, or remove a wrong one"
+                      data-testid="manage-photos"
+                    >
                       View or remove…
                     </button>
-                    <button type="button" className="btn-secondary h-8 py-0 text-sm" aria-expanded={uploaderShown} aria-controls="bench-uploader" onClick={() => setUploadOpen((open) => !open)} data-testid="add-photos-toggle">
+                    <button
+                      type="button"
+                      className="btn-secondary h-8 py-0 text-sm"
+                      aria-expanded={uploaderShown}
+                      aria-controls="bench-uploader"
+                      onClick={() => setUploadOpen((open) => !open)}
+                      data-testid="add-photos-toggle"
+                    >
                       {uploaderShown ? "Hide the uploader" : "Add photos"}
                     </button>
                   </div>

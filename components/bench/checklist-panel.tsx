@@ -80,7 +80,14 @@ export function ChecklistPanel({ initial, me, framed = true }: { initial: UnitVi
       ) : (
         <ol className="divide-y divide-gauge-100">
           {items.map((item) => (
-            <ChecklistItemRow key={item.id} item={item} result={byItem.get(item.id)} disabled={lock !== null} saving={record.isPending} onRecord={(value, note) => record.mutate({ itemId: item.id, value, note })} />
+            <ChecklistItemRow
+              key={item.id}
+              item={item}
+              result={byItem.get(item.id)}
+              disabled={lock !== null}
+              saving={record.isPending}
+              onRecord={(value, note) => record.mutate({ itemId: item.id, value, note })}
+            />
           ))}
         </ol>
       )}

@@ -38,7 +38,15 @@ function SerialForm({ view, editable }: { view: UnitView; editable: boolean }) {
       <label htmlFor="unit-serial" className="text-xs font-medium text-gauge-700">
         Serial (scan or type)
       </label>
-      <input id="unit-serial" className="field-input h-8 w-44 py-0 font-mono" value={serial} onChange={(e) => setSerial(e.target.value)} disabled={!editable} autoComplete="off" aria-describedby="unit-serial-message" />
+      <input
+        id="unit-serial"
+        className="field-input h-8 w-44 py-0 font-mono"
+        value={serial}
+        onChange={(e) => setSerial(e.target.value)}
+        disabled={!editable}
+        autoComplete="off"
+        aria-describedby="unit-serial-message"
+      />
       <button type="submit" className="btn-secondary h-8 py-0 text-sm" disabled={!editable || save.isPending || serial.trim() === "" || serial.trim() === view.unit.serial}>
         Save serial
       </button>

@@ -6,7 +6,17 @@ import { useDateTime } from "@/components/ui/time-zone";
 import { apiFetch, type ApiError } from "@/lib/http/client";
 import { unitKeys } from "@/lib/query-keys/units";
 
-type CertificateRow = { id: string; shortCode: string; contentHash: string; issuedAt: string; issuedByName: string; revokedAt: string | null; revokeReason: string | null; grade: string; verificationUrl: string };
+type CertificateRow = {
+  id: string;
+  shortCode: string;
+  contentHash: string;
+  issuedAt: string;
+  issuedByName: string;
+  revokedAt: string | null;
+  revokeReason: string | null;
+  grade: string;
+  verificationUrl: string;
+};
 
 /** A lead's condition certificates of the unit: issue one for the current grade, download, revoke with a reason. */
 export function UnitCertificates({ unitId, graded }: { unitId: string; graded: boolean }) {
@@ -51,7 +61,10 @@ export function UnitCertificates({ unitId, graded }: { unitId: string; graded: b
               {c.revokedAt ? <span className="text-fault-700">revoked</span> : <span className="text-ok-600">valid</span>}
             </div>
             <p className="text-xs text-gauge-600">
-              {formatDateTime(c.issuedAt)} by {c.issuedByName} · hash <span className="font-mono">{c.contentHash.slice(0, 8)} {c.contentHash.slice(8, 16)}…</span>
+              {formatDateTime(c.issuedAt)} by {c.issuedByName} · hash{" "}
+              <span className="font-mono">
+                {c.contentHash.slice(0, 8)} {c.contentHash.slice(8, 16)}…
+              </span>
             </p>
             {c.revokeReason && <p className="text-xs">Revoked: {c.revokeReason}</p>}
             <div className="mt-1 flex gap-3">

@@ -16,7 +16,11 @@ type Preview = { to: string; subject: string; text: string; claimRef: string; de
  */
 export function EvidencePanel({ lotId }: { lotId: string }) {
   const queryClient = useQueryClient();
-  const data = useQuery({ queryKey: evidenceKeys.lot(lotId), queryFn: () => apiFetch<LotEvidence>(`/api/lots/${lotId}/evidence`), refetchInterval: (q) => (q.state.data?.packs.some((p) => p.emailStatus === "queued") ? 3000 : false) });
+  const data = useQuery({
+    queryKey: evidenceKeys.lot(lotId),
+    queryFn: () => apiFetch<LotEvidence>(`/api/lots/${lotId}/evidence`),
+    refetchInterval: (q) => (q.state.data?.packs.some((p) => p.emailStatus === "queued") ? 3000 : false),
+  });
   const [draft, setDraft] = useState<{ subject: string; body: string; claimRef: string } | null>(null);
   const form = draft ?? (data.data ? { subject: data.data.template.subject, body: data.data.template.body, claimRef: "" } : null);
   const [preview, setPreview] = useState<Preview | null>(null);
@@ -61,7 +65,12 @@ export function EvidencePanel({ lotId }: { lotId: string }) {
               <span className="field-label">Message</span>
               <textarea className="field-input font-mono text-xs" rows={12} value={form.body} onChange={(e) => edit({ body: e.target.value })} />
             </label>
-            <p className="text-xs text-gauge-600">Placeholders: {Object.entries(template.placeholders).map(([name, what]) => `{{${name}}} ${what}`).join(" · ")}</p>
+            <p className="text-xs text-gauge-600">
+              Placeholders:{" "}
+              {Object.entries(template.placeholders)
+                .map(([name, what]) => `{{${name}}} ${what}`)
+                .join(" · ")}
+            </p>
             <label className="block max-w-xs">
               <span className="field-label">Claim / RMA reference (empty: numbered for you)</span>
               <input className="field-input font-mono" value={form.claimRef} maxLength={40} onChange={(e) => edit({ claimRef: e.target.value })} />

@@ -14,7 +14,12 @@ export function SupplierEvidence({ supplierId }: { supplierId: string }) {
   return (
     <section className="card space-y-3 p-5" aria-labelledby="claims-title" data-testid="supplier-claims">
       <h2 id="claims-title" className="text-lg font-semibold">
-        Claims {packs.length > 0 && <span className="text-sm font-normal text-gauge-600">({open} open of {packs.length})</span>}
+        Claims{" "}
+        {packs.length > 0 && (
+          <span className="text-sm font-normal text-gauge-600">
+            ({open} open of {packs.length})
+          </span>
+        )}
       </h2>
       {data.isPending && <p className="text-sm text-gauge-600">Loading claims…</p>}
       {data.error && <p className="text-sm text-fault-700">{data.error.message}</p>}

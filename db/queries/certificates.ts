@@ -42,7 +42,17 @@ export async function insertCertificate(tx: DbOrTx, row: NewCertificate) {
 
 export function listUnitCertificates({ workspaceId, unitId }: UnitKey, tx: DbOrTx = db()) {
   return tx
-    .select({ id: certificates.id, shortCode: certificates.shortCode, contentHash: certificates.contentHash, issuedAt: certificates.issuedAt, issuedByName: users.name, linkExpiresAt: certificates.linkExpiresAt, revokedAt: certificates.revokedAt, revokeReason: certificates.revokeReason, grade: sql<string>`${certificates.content}->>'grade'` })
+    .select({
+      id: certificates.id,
+      shortCode: certificates.shortCode,
+      contentHash: certificates.contentHash,
+      issuedAt: certificates.issuedAt,
+      issuedByName: users.name,
+      linkExpiresAt: certificates.linkExpiresAt,
+      revokedAt: certificates.revokedAt,
+      revokeReason: certificates.revokeReason,
+      grade: sql<string>`${certificates.content}->>'grade'`,
+    })
     .from(certificates)
     .innerJoin(users, eq(users.id, certificates.issuedBy))
     .where(and(eq(certificates.workspaceId, workspaceId), eq(certificates.unitId, unitId)))
@@ -50,7 +60,11 @@ export function listUnitCertificates({ workspaceId, unitId }: UnitKey, tx: DbOrT
 }
 
 export async function getCertificate({ workspaceId, certificateId }: { workspaceId: string; certificateId: string }, tx: DbOrTx = db()) {
-  const [row] = await tx.select().from(certificates).where(and(eq(certificates.workspaceId, workspaceId), eq(certificates.id, certificateId))).limit(1);
+  const [row] = await tx
+    .select()
+    .from(certificates)
+    .where(and(eq(certificates.workspaceId, workspaceId), eq(certificates.id, certificateId)))
+    .limit(1);
   return row;
 }
 
@@ -65,7 +79,10 @@ export async function findCertificateForVerification(by: { id: string } | { shor
 }
 
 /** Revokes a certificate once; undefined when it is not this workspace's or already revoked. */
-export async function revokeCertificateRow(tx: DbOrTx, { workspaceId, certificateId, revokedBy, reason, at }: { workspaceId: string; certificateId: string; revokedBy: string; reason: string; at: Date }) {
+export async function revokeCertificateRow(
+  tx: DbOrTx,
+  { workspaceId, certificateId, revokedBy, reason, at }: { workspaceId: string; certificateId: string; revokedBy: string; reason: string; at: Date },
+) {
   const [row] = await tx
     .update(certificates)
     .set({ revokedAt: at, revokedBy, revokeReason: reason })

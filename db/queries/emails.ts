@@ -4,12 +4,7 @@ import { db, type DbOrTx } from "@/db/client";
 import { outgoingEmails, type OutgoingEmail } from "@/db/schema";
 
 export function listOutgoingEmails({ workspaceId, limit = 200 }: { workspaceId: string; limit?: number }) {
-  return db()
-    .select()
-    .from(outgoingEmails)
-    .where(eq(outgoingEmails.workspaceId, workspaceId))
-    .orderBy(desc(outgoingEmails.createdAt))
-    .limit(limit);
+  return db().select().from(outgoingEmails).where(eq(outgoingEmails.workspaceId, workspaceId)).orderBy(desc(outgoingEmails.createdAt)).limit(limit);
 }
 
 export async function getOutgoingEmail({ workspaceId, emailId }: { workspaceId: string; emailId: string }) {

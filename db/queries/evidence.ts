@@ -105,7 +105,11 @@ export async function updateClaimRow(
 }
 
 export async function getClaim({ workspaceId, claimId }: { workspaceId: string; claimId: string }, tx: DbOrTx = db()) {
-  const [row] = await tx.select().from(claims).where(and(eq(claims.workspaceId, workspaceId), eq(claims.id, claimId))).limit(1);
+  const [row] = await tx
+    .select()
+    .from(claims)
+    .where(and(eq(claims.workspaceId, workspaceId), eq(claims.id, claimId)))
+    .limit(1);
   return row;
 }
 
@@ -149,6 +153,10 @@ export async function revokeEvidenceLinkRow(tx: DbOrTx, { workspaceId, packId, r
 }
 
 export async function getEvidencePack({ workspaceId, packId }: { workspaceId: string; packId: string }, tx: DbOrTx = db()) {
-  const [row] = await tx.select().from(evidencePacks).where(and(eq(evidencePacks.workspaceId, workspaceId), eq(evidencePacks.id, packId))).limit(1);
+  const [row] = await tx
+    .select()
+    .from(evidencePacks)
+    .where(and(eq(evidencePacks.workspaceId, workspaceId), eq(evidencePacks.id, packId)))
+    .limit(1);
   return row;
 }

@@ -44,7 +44,9 @@ export async function giveCountBack({ bucket, key, windowStart }: Counter & { wi
 /** Forgets every count of a bucket and key, or of every key starting with keyPrefix. */
 export async function deleteCounts({ bucket, key, keyPrefix }: { bucket: string; key?: string; keyPrefix?: string }): Promise<void> {
   const match = key !== undefined ? eq(rateLimitCounters.key, key) : sql`starts_with(${rateLimitCounters.key}, ${keyPrefix ?? ""})`;
-  await db().delete(rateLimitCounters).where(and(eq(rateLimitCounters.bucket, bucket), match));
+  await db()
+    .delete(rateLimitCounters)
+    .where(and(eq(rateLimitCounters.bucket, bucket), match));
 }
 
 /** Counters whose window began before `before`; returns how many went. */

@@ -7,7 +7,10 @@ import type { DEFECT_SEVERITIES, DefectSeverity } from "@/lib/part-types/severit
 const holders = aliasedTable(users, "lease_holders");
 /** db/ takes lib's values only as types: this copy must equal lib/part-types/severity.ts (order included) or it does not compile. */
 const SEVERITIES_WORST_FIRST = ["critical", "major", "minor"] as const satisfies typeof DEFECT_SEVERITIES;
-const severityRankSql = sql`ARRAY[${sql.join(SEVERITIES_WORST_FIRST.map((s) => sql`${s}`), sql`, `)}]::text[]`;
+const severityRankSql = sql`ARRAY[${sql.join(
+  SEVERITIES_WORST_FIRST.map((s) => sql`${s}`),
+  sql`, `,
+)}]::text[]`;
 
 /** A lot's units in sample order, with how far each checklist got. */
 export function listLotUnits({ workspaceId, lotId }: { workspaceId: string; lotId: string }) {
@@ -23,7 +26,9 @@ export function listLotUnits({ workspaceId, lotId }: { workspaceId: string; lotI
       recorded: sql<number>`(SELECT count(*)::int FROM ${checklistResults} WHERE ${checklistResults.unitId} = ${units.id})`,
       failed: sql<number>`(SELECT count(*)::int FROM ${checklistResults} WHERE ${checklistResults.unitId} = ${units.id} AND NOT ${checklistResults.passed})`,
       worstFailure: sql<DefectSeverity | null>`(SELECT ${checklistResults.severityOnFail} FROM ${checklistResults} WHERE ${checklistResults.unitId} = ${units.id} AND NOT ${checklistResults.passed} ORDER BY array_position(${severityRankSql}, ${checklistResults.severityOnFail}) LIMIT 1)`,
-      grade: sql<"A" | "B" | "C" | "Reject" | null>`(SELECT ${grades.finalGrade} FROM ${grades} WHERE ${grades.unitId} = ${units.id} AND ${grades.workspaceId} = ${units.workspaceId} ORDER BY ${grades.createdAt} DESC, ${grades.id} DESC LIMIT 1)`,
+      grade: sql<
+        "A" | "B" | "C" | "Reject" | null
+      >`(SELECT ${grades.finalGrade} FROM ${grades} WHERE ${grades.unitId} = ${units.id} AND ${grades.workspaceId} = ${units.workspaceId} ORDER BY ${grades.createdAt} DESC, ${grades.id} DESC LIMIT 1)`,
     })
     .from(units)
     .leftJoin(holders, eq(holders.id, units.leaseHolderId))

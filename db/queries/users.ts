@@ -82,7 +82,10 @@ function sessionUserSelect(database: ReturnType<typeof db>, sessionId: Placehold
 }
 
 function prepareSessionUserQuery(database: ReturnType<typeof db>) {
-  return sessionUserSelect(database, sql.placeholder("sessionId")).where(eq(users.id, sql.placeholder("userId"))).limit(1).prepare("session_user");
+  return sessionUserSelect(database, sql.placeholder("sessionId"))
+    .where(eq(users.id, sql.placeholder("userId")))
+    .limit(1)
+    .prepare("session_user");
 }
 
 /** What a request needs to know about its session's user (and whether it was signed out), in one query. */
@@ -100,11 +103,7 @@ export async function getSessionUser({ userId, sessionId }: { userId: string; se
 const NO_SESSION_ID = "00000000-0000-0000-0000-000000000000";
 
 export function listPeople({ workspaceId }: { workspaceId: string }) {
-  return db()
-    .select(publicUserColumns)
-    .from(users)
-    .where(eq(users.workspaceId, workspaceId))
-    .orderBy(asc(users.name)) as unknown as Promise<PublicUser[]>;
+  return db().select(publicUserColumns).from(users).where(eq(users.workspaceId, workspaceId)).orderBy(asc(users.name)) as unknown as Promise<PublicUser[]>;
 }
 
 export async function getPerson({ workspaceId, userId }: { workspaceId: string; userId: string }): Promise<PublicUser | undefined> {

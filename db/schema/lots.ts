@@ -32,8 +32,7 @@ export type LotDecisionCounts = Record<DefectSeverity, { found: number; inspecte
 
 /** How the lot's sampled units were made: drawn from a serial list (reproducible) or numbered placeholders. */
 export type SampleDraw =
-  | { source: "serials"; poolSize: number; poolSha256: string; seed: string; algorithm: string; drawnAt: string; drawnBy: string }
-  | { source: "placeholders"; drawnAt: string; drawnBy: string };
+  { source: "serials"; poolSize: number; poolSha256: string; seed: string; algorithm: string; drawnAt: string; drawnBy: string } | { source: "placeholders"; drawnAt: string; drawnBy: string };
 
 export const partTypes = pgTable(
   "part_types",
@@ -57,7 +56,9 @@ export const partTypes = pgTable(
     /** High-value parts: every unit is inspected. */
     inspectAll: boolean().notNull().default(false),
     /** The cosmetic grade lots of this part type are bought at unless the supplier says otherwise. */
-    promisedGrade: text({ enum: ["A", "B", "C"] }).notNull().default("A"),
+    promisedGrade: text({ enum: ["A", "B", "C"] })
+      .notNull()
+      .default("A"),
     active: boolean().notNull().default(true),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
@@ -93,13 +94,17 @@ export const lots = pgTable(
      * The cosmetic grade the purchase promised: a unit graded worse is a cosmetic nonconformity.
      * Receiving a lot always sets it (lib/lots/lots.ts); the default only serves direct inserts.
      */
-    promisedGrade: text({ enum: ["A", "B", "C"] }).notNull().default("A"),
+    promisedGrade: text({ enum: ["A", "B", "C"] })
+      .notNull()
+      .default("A"),
     plan: jsonb().$type<StoredSamplingPlan>().notNull(),
     /** Seed of the random draw of sampled serials, so the draw can be reproduced. */
     sampleSeed: text(),
     /** Where the units came from (set once, when they are created). */
     sampleDraw: jsonb().$type<SampleDraw>(),
-    status: text({ enum: ["open", "decided"] }).notNull().default("open"),
+    status: text({ enum: ["open", "decided"] })
+      .notNull()
+      .default("open"),
     verdict: text({ enum: ["accept", "reject"] }),
     disposition: text({ enum: ["to_stock", "downgrade", "sort", "return_to_vendor"] }),
     dispositionReason: text(),
@@ -156,7 +161,9 @@ export const units = pgTable(
   },
   (t) => [
     uniqueIndex("units_lot_sample_key").on(t.lotId, t.sampleIndex),
-    uniqueIndex("units_lot_serial_key").on(t.lotId, t.serial).where(sql`${t.serial} IS NOT NULL`),
+    uniqueIndex("units_lot_serial_key")
+      .on(t.lotId, t.serial)
+      .where(sql`${t.serial} IS NOT NULL`),
     index("units_queue_idx").on(t.workspaceId, t.status, t.lotDueOn, t.lotReceivedOn, t.lotCreatedAt, t.lotId, t.sampleIndex, t.id),
     index("units_lot_idx").on(t.lotId, t.sampleIndex),
     // The queue list walks waiting and on-bench units in Take next order (keyset pages).
@@ -178,9 +185,13 @@ export const units = pgTable(
       .on(t.workspaceId, t.supplierId, t.lotDueOn, t.lotReceivedOn, t.lotCreatedAt, t.lotId, t.sampleIndex, t.id)
       .where(sql`${t.status} IN ('queued', 'on_bench')`),
     // Take next finds expired leases without walking every running one.
-    index("units_lease_expiry_idx").on(t.workspaceId, t.leaseExpiresAt).where(sql`${t.status} = 'on_bench'`),
+    index("units_lease_expiry_idx")
+      .on(t.workspaceId, t.leaseExpiresAt)
+      .where(sql`${t.status} = 'on_bench'`),
     // The queue's "graded today" and 30-day median read recent grades only, not the whole history.
-    index("units_graded_idx").on(t.workspaceId, t.gradedAt).where(sql`${t.gradedAt} IS NOT NULL`),
+    index("units_graded_idx")
+      .on(t.workspaceId, t.gradedAt)
+      .where(sql`${t.gradedAt} IS NOT NULL`),
     unique("units_workspace_id_key").on(t.workspaceId, t.id),
     sameWorkspace("units_lot_fk", t.workspaceId, t.lotId, lots),
     sameWorkspace("units_part_type_fk", t.workspaceId, t.partTypeId, partTypes),

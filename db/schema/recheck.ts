@@ -115,7 +115,9 @@ export const rechecks = pgTable(
   (t) => [
     uniqueIndex("rechecks_grade_key").on(t.gradeId),
     // Take next for rechecks walks the waiting ones oldest first.
-    index("rechecks_waiting_idx").on(t.workspaceId, t.createdAt, t.id).where(sql`${t.status} = 'waiting'`),
+    index("rechecks_waiting_idx")
+      .on(t.workspaceId, t.createdAt, t.id)
+      .where(sql`${t.status} = 'waiting'`),
     index("rechecks_unit_idx").on(t.workspaceId, t.unitId),
     index("rechecks_grader_idx").on(t.workspaceId, t.firstGraderId, t.createdAt),
     unique("rechecks_workspace_id_key").on(t.workspaceId, t.id),

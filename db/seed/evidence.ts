@@ -26,7 +26,13 @@ const DAY = 24 * HOUR;
 /** Which scenario lot, the claim reference the lead typed, and where the claim stands now. */
 const PACKS: { purchaseRef: string; claimRef: string | null; status: ClaimStatus; note: string; answeredAfterDays: number }[] = [
   { purchaseRef: "PO-24-0640", claimRef: "RMA-OV-3318", status: "credited", note: "Credit note CN-2291 received for the returned lot.", answeredAfterDays: 9 },
-  { purchaseRef: "PO-24-0702", claimRef: "RMA-OV-3342", status: "refused", note: "Supplier says the current was read on a different charger; we sent our test set-up, awaiting reply.", answeredAfterDays: 6 },
+  {
+    purchaseRef: "PO-24-0702",
+    claimRef: "RMA-OV-3342",
+    status: "refused",
+    note: "Supplier says the current was read on a different charger; we sent our test set-up, awaiting reply.",
+    answeredAfterDays: 6,
+  },
   // null: numbered by the app's rule (CLM-<year>-<n>), as when the lead leaves the field empty.
   { purchaseRef: "PO-24-0733", claimRef: null, status: "open", note: "", answeredAfterDays: 0 },
 ];
@@ -54,7 +60,10 @@ export async function seedEvidence(people: People) {
     const files = await evidenceFiles(report, { timeZone: "UTC" });
     const answeredAt = new Date(sentAt.getTime() + spec.answeredAfterDays * DAY);
     await db().transaction(async (tx) => {
-      const [email] = await tx.insert(outgoingEmails).values({ workspaceId: ws.workspaceId, kind: "supplier_evidence", toAddress: lot.contact, subject, status: "sent", attempts: 1, createdAt: sentAt, updatedAt: sentAt }).returning();
+      const [email] = await tx
+        .insert(outgoingEmails)
+        .values({ workspaceId: ws.workspaceId, kind: "supplier_evidence", toAddress: lot.contact, subject, status: "sent", attempts: 1, createdAt: sentAt, updatedAt: sentAt })
+        .returning();
       const packId = randomUUID();
       await tx.insert(evidencePacks).values({
         id: packId,
@@ -73,10 +82,43 @@ export async function seedEvidence(people: People) {
       const moved = spec.status !== "open";
       const [claim] = await tx
         .insert(claims)
-        .values({ workspaceId: ws.workspaceId, evidencePackId: packId, supplierId: lot.supplierId, lotId: lot.id, reference: claimRef, status: spec.status, note: spec.note, version: moved ? 2 : 1, updatedBy: lead, createdAt: sentAt, updatedAt: moved ? answeredAt : sentAt })
+        .values({
+          workspaceId: ws.workspaceId,
+          evidencePackId: packId,
+          supplierId: lot.supplierId,
+          lotId: lot.id,
+          reference: claimRef,
+          status: spec.status,
+          note: spec.note,
+          version: moved ? 2 : 1,
+          updatedBy: lead,
+          createdAt: sentAt,
+          updatedAt: moved ? answeredAt : sentAt,
+        })
         .returning();
-      await tx.insert(activityLog).values({ workspaceId: ws.workspaceId, actorId: lead, action: "evidence.sent", subjectType: "lot", subjectId: lot.id, detail: { demo: true, evidencePackId: packId, claimId: claim.id, claimRef, to: lot.contact }, createdAt: sentAt });
-      if (moved) await tx.insert(activityLog).values({ workspaceId: ws.workspaceId, actorId: lead, action: "claim.updated", subjectType: "lot", subjectId: lot.id, detail: { demo: true, claimId: claim.id, status: spec.status, note: spec.note }, createdAt: answeredAt });
+      await tx
+        .insert(activityLog)
+        .values({
+          workspaceId: ws.workspaceId,
+          actorId: lead,
+          action: "evidence.sent",
+          subjectType: "lot",
+          subjectId: lot.id,
+          detail: { demo: true, evidencePackId: packId, claimId: claim.id, claimRef, to: lot.contact },
+          createdAt: sentAt,
+        });
+      if (moved)
+        await tx
+          .insert(activityLog)
+          .values({
+            workspaceId: ws.workspaceId,
+            actorId: lead,
+            action: "claim.updated",
+            subjectType: "lot",
+            subjectId: lot.id,
+            detail: { demo: true, claimId: claim.id, status: spec.status, note: spec.note },
+            createdAt: answeredAt,
+          });
     });
     seeded.push({ purchaseRef: spec.purchaseRef, claim: claimRef, status: spec.status });
   }

@@ -41,7 +41,12 @@ export async function requestSignUp(input: SignUpInput): Promise<{ message: stri
     tokenHash: hashToken(token),
     expiresAt: new Date(Date.now() + SIGN_UP_TTL_HOURS * 3_600_000),
   });
-  await sendMail({ workspaceId: null, kind: "sign_up", to: input.email, ...signUpConfirmationEmail({ companyName: input.companyName, link: setPasswordLink(token), expiresHours: SIGN_UP_TTL_HOURS }) });
+  await sendMail({
+    workspaceId: null,
+    kind: "sign_up",
+    to: input.email,
+    ...signUpConfirmationEmail({ companyName: input.companyName, link: setPasswordLink(token), expiresHours: SIGN_UP_TTL_HOURS }),
+  });
   return { message: signUpReply(input.email) };
 }
 

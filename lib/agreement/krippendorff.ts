@@ -45,7 +45,10 @@ export function krippendorffAlpha(data: readonly (readonly AlphaValue[])[], opti
   // Pairable units as lists of scale positions; value counts n_c over pairable values.
   const units: number[][] = [];
   for (let unit = 0; unit < unitCount; unit++) {
-    const values = data.map((row) => row[unit]).filter(present).map(scale.indexOf);
+    const values = data
+      .map((row) => row[unit])
+      .filter(present)
+      .map(scale.indexOf);
     if (values.length >= 2) units.push(values);
   }
   const counts = new Array<number>(scale.categories.length).fill(0);

@@ -15,10 +15,7 @@ export function hashToken(token: string): string {
  * earlier unused links of the same purpose stop working (db/queries/accounts.ts replaceAuthToken):
  * only the newest link works. Inside `tx` when given.
  */
-export async function issueAuthToken(
-  { workspaceId, userId, purpose, ttlMs }: { workspaceId: string; userId: string; purpose: "invite" | "reset"; ttlMs: number },
-  tx?: DbOrTx,
-): Promise<string> {
+export async function issueAuthToken({ workspaceId, userId, purpose, ttlMs }: { workspaceId: string; userId: string; purpose: "invite" | "reset"; ttlMs: number }, tx?: DbOrTx): Promise<string> {
   const token = crypto.randomBytes(32).toString("base64url");
   await replaceAuthToken({ workspaceId, userId, purpose, tokenHash: hashToken(token), expiresAt: new Date(Date.now() + ttlMs) }, tx);
   return token;

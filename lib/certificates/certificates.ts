@@ -99,7 +99,14 @@ export async function issueCertificate(user: SessionUser, unitId: string) {
         issuedAt,
       });
       if (!row) continue;
-      await logActivity(tx, { workspaceId: user.workspaceId, actorId: user.id, action: "certificate.issued", subjectType: "unit", subjectId: unitId, detail: { certificateId: row.id, shortCode: row.shortCode, grade: data.grade } });
+      await logActivity(tx, {
+        workspaceId: user.workspaceId,
+        actorId: user.id,
+        action: "certificate.issued",
+        subjectType: "unit",
+        subjectId: unitId,
+        detail: { certificateId: row.id, shortCode: row.shortCode, grade: data.grade },
+      });
       return row;
     }
     throw new AppError("conflict", "No free certificate code was found; try again.");

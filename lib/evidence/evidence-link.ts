@@ -86,7 +86,10 @@ export async function revokeEvidenceLink(user: SessionUser, packId: string) {
     if (!row) {
       const existing = await getEvidencePack({ workspaceId: user.workspaceId, packId }, tx);
       if (!existing) throw notFound("That evidence pack");
-      throw new AppError("conflict", existing.delivery === "link" ? "This evidence link is already withdrawn." : "This evidence pack's files were attached to the e-mail; there is no link to withdraw.");
+      throw new AppError(
+        "conflict",
+        existing.delivery === "link" ? "This evidence link is already withdrawn." : "This evidence pack's files were attached to the e-mail; there is no link to withdraw.",
+      );
     }
     await logActivity(tx, { workspaceId: user.workspaceId, actorId: user.id, action: "evidence.link_revoked", subjectType: "lot", subjectId: row.lotId, detail: { evidencePackId: row.id } });
     return row;

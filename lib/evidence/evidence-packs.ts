@@ -18,7 +18,18 @@ import "server-only";
 import { randomUUID } from "node:crypto";
 import { transaction } from "@/db/client";
 import { logActivity } from "@/db/queries/activity";
-import { type EvidencePackRow, countNumberedClaims, getClaim, insertQueuedEvidenceEmail, getLotSupplierContact, insertClaim, insertEvidencePack, listLotEvidencePacks, listSupplierEvidencePacks, updateClaimRow } from "@/db/queries/evidence";
+import {
+  type EvidencePackRow,
+  countNumberedClaims,
+  getClaim,
+  insertQueuedEvidenceEmail,
+  getLotSupplierContact,
+  insertClaim,
+  insertEvidencePack,
+  listLotEvidencePacks,
+  listSupplierEvidencePacks,
+  updateClaimRow,
+} from "@/db/queries/evidence";
 import { getSupplier } from "@/db/queries/suppliers";
 import { getLot, lockLot } from "@/db/queries/lots";
 import type { Lot } from "@/db/schema";
@@ -79,8 +90,10 @@ export async function prepareEvidence(user: SessionUser, lotId: string, draft: E
   const values = evidenceValues(report, claimRef);
   const subject = fillTemplate(draft.subject, values).replace(/\s+/g, " ").trim();
   const text = fillTemplate(draft.body, values);
-  if (subject.length > EVIDENCE_SUBJECT_MAX) throw new AppError("bad_request", `Filled in, the subject is ${subject.length} characters; keep it under ${EVIDENCE_SUBJECT_MAX}.`, { fieldErrors: { subject: "Too long once filled in." } });
-  if (text.length > EVIDENCE_BODY_MAX) throw new AppError("bad_request", `Filled in, the message is ${text.length} characters; keep it under ${EVIDENCE_BODY_MAX}.`, { fieldErrors: { body: "Too long once filled in." } });
+  if (subject.length > EVIDENCE_SUBJECT_MAX)
+    throw new AppError("bad_request", `Filled in, the subject is ${subject.length} characters; keep it under ${EVIDENCE_SUBJECT_MAX}.`, { fieldErrors: { subject: "Too long once filled in." } });
+  if (text.length > EVIDENCE_BODY_MAX)
+    throw new AppError("bad_request", `Filled in, the message is ${text.length} characters; keep it under ${EVIDENCE_BODY_MAX}.`, { fieldErrors: { body: "Too long once filled in." } });
   const files = await evidenceFiles(report, { timeZone: user.timeZone });
   const total = totalBytes(files);
   return { to: contact.contactEmail, supplierId: contact.supplierId, subject, text, claimRef, files, totalBytes: total, delivery: total > evidenceLimitBytes() ? "link" : "attached" };
@@ -89,7 +102,12 @@ export async function prepareEvidence(user: SessionUser, lotId: string, draft: E
 /** The preview's text: for a pack sent by link, the paragraph the e-mail will carry (its address is made when it is sent). */
 export function previewText(prepared: PreparedEvidence, timeZone: string): string {
   if (prepared.delivery === "attached") return prepared.text;
-  const paragraph = evidenceLinkParagraph({ url: "[the evidence link, made when you send]", files: prepared.files.length, totalBytes: prepared.totalBytes, expiresAt: formatInstant(evidenceLinkExpiry(new Date()), timeZone) });
+  const paragraph = evidenceLinkParagraph({
+    url: "[the evidence link, made when you send]",
+    files: prepared.files.length,
+    totalBytes: prepared.totalBytes,
+    expiresAt: formatInstant(evidenceLinkExpiry(new Date()), timeZone),
+  });
   return `${prepared.text.trimEnd()}\n\n${paragraph}`;
 }
 
@@ -142,8 +160,18 @@ async function storePack(user: SessionUser, lotId: string, packId: string, prepa
       createdBy: user.id,
     });
     const claim = await insertClaim(tx, { workspaceId: user.workspaceId, evidencePackId: pack.id, supplierId: prepared.supplierId, lotId, reference: prepared.claimRef, updatedBy: user.id });
-    if (!claim) throw new AppError("conflict", `Claim reference ${prepared.claimRef} is already used in this workspace; type another or leave it empty to have one numbered.`, { fieldErrors: { claimRef: "Already used." } });
-    await logActivity(tx, { workspaceId: user.workspaceId, actorId: user.id, action: "evidence.sent", subjectType: "lot", subjectId: lotId, detail: { evidencePackId: pack.id, claimId: claim.id, claimRef: claim.reference, to: prepared.to, bytes: prepared.totalBytes, delivery: prepared.delivery } });
+    if (!claim)
+      throw new AppError("conflict", `Claim reference ${prepared.claimRef} is already used in this workspace; type another or leave it empty to have one numbered.`, {
+        fieldErrors: { claimRef: "Already used." },
+      });
+    await logActivity(tx, {
+      workspaceId: user.workspaceId,
+      actorId: user.id,
+      action: "evidence.sent",
+      subjectType: "lot",
+      subjectId: lotId,
+      detail: { evidencePackId: pack.id, claimId: claim.id, claimRef: claim.reference, to: prepared.to, bytes: prepared.totalBytes, delivery: prepared.delivery },
+    });
     await jobs.sendMailDelivery({
       emailId: email.id,
       message: {
@@ -183,7 +211,14 @@ export async function updateClaim(user: SessionUser, claimId: string, update: { 
       if (!existing) throw notFound("That claim");
       throw new AppError("conflict", "Someone changed this claim since you opened it; reload to see its current status.");
     }
-    await logActivity(tx, { workspaceId: user.workspaceId, actorId: user.id, action: "claim.updated", subjectType: "lot", subjectId: row.lotId, detail: { claimId, status: update.status, note: update.note } });
+    await logActivity(tx, {
+      workspaceId: user.workspaceId,
+      actorId: user.id,
+      action: "claim.updated",
+      subjectType: "lot",
+      subjectId: row.lotId,
+      detail: { claimId, status: update.status, note: update.note },
+    });
     return row;
   });
 }

@@ -103,7 +103,9 @@ export function checkTemplate(template: string): { used: EvidencePlaceholder[]; 
 export function templateProblemMessage(what: "subject" | "body", template: string): string | null {
   const [problem] = checkTemplate(template).problems;
   if (!problem) return null;
-  const known = Object.keys(EVIDENCE_PLACEHOLDERS).map((n) => `{{${n}}}`).join(", ");
+  const known = Object.keys(EVIDENCE_PLACEHOLDERS)
+    .map((n) => `{{${n}}}`)
+    .join(", ");
   if (problem.kind === "unclosed") return `The ${what} has a "{{" without its closing "}}" (at character ${problem.at + 1}).`;
   return `The ${what} names {{${problem.name}}}, which is not a placeholder. Use one of ${known}.`;
 }

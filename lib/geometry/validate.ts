@@ -13,15 +13,7 @@
 import { z } from "zod";
 import type { ImageSize } from "./clamp";
 import { describeOutsideImage, describeShapeProblem, pointInsideImage } from "./degenerate";
-import {
-  MAX_ID_LENGTH,
-  MAX_POINTS_PER_SHAPE,
-  MAX_RASTER_ROWS_PER_PHOTO,
-  MAX_REGIONS_PER_PHOTO,
-  MAX_RULER_LENGTH_MM,
-  MAX_SURFACES_PER_PHOTO,
-  MAX_TOTAL_POINTS_PER_PHOTO,
-} from "./limits";
+import { MAX_ID_LENGTH, MAX_POINTS_PER_SHAPE, MAX_RASTER_ROWS_PER_PHOTO, MAX_REGIONS_PER_PHOTO, MAX_RULER_LENGTH_MM, MAX_SURFACES_PER_PHOTO, MAX_TOTAL_POINTS_PER_PHOTO } from "./limits";
 import { rasterRows } from "@/lib/imaging/raster/cost";
 import { pointsEqual } from "./points";
 import type { Shape, ShapeKind } from "./shape";
@@ -37,12 +29,9 @@ export const TOOL_NAME_BY_KIND: Record<ShapeKind, string> = { rect: "Box", polyg
 
 const finite = coordinateSchema;
 const point = pointSchema;
-const points = z
-  .array(point, { error: "must be a list of [x, y] points" })
-  .max(MAX_POINTS_PER_SHAPE, `may hold at most ${MAX_POINTS_PER_SHAPE} points`);
+const points = z.array(point, { error: "must be a list of [x, y] points" }).max(MAX_POINTS_PER_SHAPE, `may hold at most ${MAX_POINTS_PER_SHAPE} points`);
 const objectError = (what: string) => ({
-  error: (issue: { code?: string; keys?: string[] }) =>
-    issue.code === "unrecognized_keys" ? `has unknown field(s) ${issue.keys?.join(", ")}` : `must be ${what}`,
+  error: (issue: { code?: string; keys?: string[] }) => (issue.code === "unrecognized_keys" ? `has unknown field(s) ${issue.keys?.join(", ")}` : `must be ${what}`),
 });
 const id = z
   .string({ error: "must be text" })
@@ -87,12 +76,12 @@ export function regionSetSchema(context: RegionSetContext) {
     }
   });
   const region = z.strictObject({ id, defect, shape }, objectError("an object with id, defect and shape"));
-  const surface = z.strictObject(
-    { id, shape: polygonSchema.superRefine(geometryCheck(size)) },
-    objectError("an object with id and a polygon shape"),
-  );
+  const surface = z.strictObject({ id, shape: polygonSchema.superRefine(geometryCheck(size)) }, objectError("an object with id and a polygon shape"));
   const ruler = z
-    .strictObject({ id, a: point, b: point, lengthMm: finite.gt(0, "must be more than 0 mm").max(MAX_RULER_LENGTH_MM, `must be at most ${MAX_RULER_LENGTH_MM} mm`) }, objectError("an object with id, a, b and lengthMm"))
+    .strictObject(
+      { id, a: point, b: point, lengthMm: finite.gt(0, "must be more than 0 mm").max(MAX_RULER_LENGTH_MM, `must be at most ${MAX_RULER_LENGTH_MM} mm`) },
+      objectError("an object with id, a, b and lengthMm"),
+    )
     .superRefine((value, ctx) => {
       if (pointsEqual(value.a, value.b)) ctx.addIssue({ code: "custom", message: "a ruler needs two different end points." });
       for (const end of ["a", "b"] as const) {
@@ -124,7 +113,10 @@ export function regionSetSchema(context: RegionSetContext) {
         return;
       }
       // What measuring these shapes would cost (lib/imaging/raster/cost.ts), refused before it is stored.
-      const rows = rasterRows([...set.regions, ...set.surfaces].map((r) => r.shape), size);
+      const rows = rasterRows(
+        [...set.regions, ...set.surfaces].map((r) => r.shape),
+        size,
+      );
       if (rows > MAX_RASTER_ROWS_PER_PHOTO) ctx.addIssue({ code: "custom", message: describeRasterBudget(rows) });
     });
 }

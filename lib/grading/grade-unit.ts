@@ -76,20 +76,24 @@ export async function measureUnit(input: UnitMeasureInput): Promise<UnitMeasureO
   for (const [index, photo] of input.photos.entries()) {
     assertBeforeDeadline(deadline);
     const view = views.get(photo.viewKey);
-    const result = await measurePhoto({
-      photoId: photo.photoId,
-      viewKey: photo.viewKey,
-      width: photo.width,
-      height: photo.height,
-      defects: photo.defects,
-      surfaces: photo.surfaces,
-      rulers: photo.rulers,
-      zones: view?.zones.map((zone) => ({ id: zone.id, polygon: zone.polygon })) ?? [],
-      nominalSizeMm: input.partType.nominalSizeMm,
-      panel: panelFor({ panelResolution: input.partType.panelResolution, viewKey: photo.viewKey, defects: photo.defects }),
-    }, { deadline }).catch((err: unknown) => {
+    const result = await measurePhoto(
+      {
+        photoId: photo.photoId,
+        viewKey: photo.viewKey,
+        width: photo.width,
+        height: photo.height,
+        defects: photo.defects,
+        surfaces: photo.surfaces,
+        rulers: photo.rulers,
+        zones: view?.zones.map((zone) => ({ id: zone.id, polygon: zone.polygon })) ?? [],
+        nominalSizeMm: input.partType.nominalSizeMm,
+        panel: panelFor({ panelResolution: input.partType.panelResolution, viewKey: photo.viewKey, defects: photo.defects }),
+      },
+      { deadline },
+    ).catch((err: unknown) => {
       // Stored regions that cannot be measured (e.g. saved before today's caps): say which photo.
-      if (err instanceof AppError && err.code === "bad_request") throw new AppError("conflict", `Photo ${index + 1} (${view?.label ?? photo.viewKey}) cannot be measured: ${err.message} Change its regions, then measure again.`);
+      if (err instanceof AppError && err.code === "bad_request")
+        throw new AppError("conflict", `Photo ${index + 1} (${view?.label ?? photo.viewKey}) cannot be measured: ${err.message} Change its regions, then measure again.`);
       throw err;
     });
     if (!view) result.notes.push(`View "${photo.viewKey}" is not one of this part type's views: no zones were measured on this photo.`);

@@ -188,8 +188,7 @@ function judge(separability: number, share: number, touchesBorder: boolean, main
   if (touchesBorder) doubts.push("the outline touches the photo edge (part cut off, or backdrop not plain)");
   if (share < 0.02 || share > 0.9) doubts.push(`the part covers ${(share * 100).toFixed(1)} % of the photo`);
   if (mainShare < 0.9) doubts.push(`only ${(mainShare * 100).toFixed(0)} % of the part-coloured pixels are in the outline (clutter or a split part)`);
-  const confidence: "high" | "medium" | "low" =
-    doubts.length === 0 ? "high" : separability < 0.5 || doubts.length >= 2 ? "low" : "medium";
+  const confidence: "high" | "medium" | "low" = doubts.length === 0 ? "high" : separability < 0.5 || doubts.length >= 2 ? "low" : "medium";
   return { confidence, doubts };
 }
 
@@ -227,8 +226,7 @@ export async function suggestSurface(input: Buffer, options: SuggestSurfaceOptio
   const lighter = new Uint8Array(width * height);
   for (let i = 0; i < lighter.length; i++) lighter[i] = grey.data[i] >= split.threshold ? 1 : 0;
   const border = countBorder(lighter, width, height);
-  const partSide: "darker" | "lighter" =
-    part !== "auto" ? part : border.lighter * 2 < border.all ? "lighter" : "darker";
+  const partSide: "darker" | "lighter" = part !== "auto" ? part : border.lighter * 2 < border.all ? "lighter" : "darker";
   const partMask = partSide === "lighter" ? lighter : lighter.map((v) => 1 - v);
 
   const { component, size, candidateTotal } = largestComponent({ width, height, data: partMask });

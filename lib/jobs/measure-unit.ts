@@ -50,7 +50,12 @@ export async function handleMeasureUnitJobs(jobs: PgBoss.Job<MeasureUnitJob>[]):
     try {
       await measureAndStore({ id: requestedBy, workspaceId }, unitId);
     } catch (err) {
-      const reason = err instanceof DeadlineExceeded ? `Measuring took longer than ${MEASURE_JOB_BUDGET_MS / 1000} s and was stopped; nothing was stored. Use fewer or simpler regions.` : err instanceof AppError ? err.message : null;
+      const reason =
+        err instanceof DeadlineExceeded
+          ? `Measuring took longer than ${MEASURE_JOB_BUDGET_MS / 1000} s and was stopped; nothing was stored. Use fewer or simpler regions.`
+          : err instanceof AppError
+            ? err.message
+            : null;
       if (reason === null) throw err;
       console.warn(`measure-unit job ${job.id}: unit ${unitId} was not measured: ${reason}`);
       output = { notMeasured: reason };

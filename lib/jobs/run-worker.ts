@@ -42,7 +42,8 @@ async function handlePhotoJob([job]: PgBoss.JobWithMetadata<PhotoProcessJob>[]) 
     return { outcome };
   } catch (err) {
     const next = isLastAttempt ? "no retries left" : `retry ${job.retryCount + 1} of ${job.retryLimit} follows`;
-    const cause = err instanceof ObjectStoreUnavailableError ? `photo store unreachable (${(err.cause as Error | undefined)?.message ?? "no answer"})` : err instanceof Error ? err.message : String(err);
+    const cause =
+      err instanceof ObjectStoreUnavailableError ? `photo store unreachable (${(err.cause as Error | undefined)?.message ?? "no answer"})` : err instanceof Error ? err.message : String(err);
     console.error(`photo ${photoId}: attempt ${job.retryCount + 1} failed (${next}): ${cause}`);
     throw err;
   }
@@ -55,7 +56,9 @@ async function handleMailJob([job]: PgBoss.JobWithMetadata<MailDeliveryJob>[]) {
 
 async function handlePrune() {
   const report = await pruneAccountRecords();
-  console.log(`account records pruned: ${report.rateLimitCounters} rate-limit counters, ${report.revokedSessions} revoked sessions, ${report.authTokens} tokens, ${report.signUpRequests} sign-up requests`);
+  console.log(
+    `account records pruned: ${report.rateLimitCounters} rate-limit counters, ${report.revokedSessions} revoked sessions, ${report.authTokens} tokens, ${report.signUpRequests} sign-up requests`,
+  );
   return report;
 }
 

@@ -38,7 +38,9 @@ export async function handleSuggestionTrainingJobs(jobs: PgBoss.Job<SuggestionTr
     const started = performance.now();
     outcome = await trainWorkspaceModel(job.data.workspaceId, job.data.requestedBy);
     const took = `${((performance.now() - started) / 1000).toFixed(1)} s`;
-    console.log(`suggestion-training ${job.id} (workspace ${job.data.workspaceId}, ${took}): ${outcome.trained ? `version ${outcome.version}, ${outcome.decision}` : `not trained: ${outcome.reason}`}`);
+    console.log(
+      `suggestion-training ${job.id} (workspace ${job.data.workspaceId}, ${took}): ${outcome.trained ? `version ${outcome.version}, ${outcome.decision}` : `not trained: ${outcome.reason}`}`,
+    );
   }
   return outcome;
 }

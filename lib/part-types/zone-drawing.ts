@@ -33,7 +33,13 @@ export function surfaceBox(surfaces: readonly PolygonShape[]): Bounds | null {
 }
 
 function pointsOf(shape: Shape): Point[] | null {
-  if (shape.kind === "rect") return [[shape.x, shape.y], [shape.x + shape.width, shape.y], [shape.x + shape.width, shape.y + shape.height], [shape.x, shape.y + shape.height]];
+  if (shape.kind === "rect")
+    return [
+      [shape.x, shape.y],
+      [shape.x + shape.width, shape.y],
+      [shape.x + shape.width, shape.y + shape.height],
+      [shape.x, shape.y + shape.height],
+    ];
   if (shape.kind === "polygon") return shape.points;
   return null;
 }

@@ -59,7 +59,8 @@ export async function invitePerson(actor: SessionUser, input: InviteInput) {
 /** What the lead is told after inviting or re-sending. */
 export function invitationMessage(person: { name: string; email: string }, sent: InvitationDelivery): string {
   if (sent.emailSent) return `Invitation sent to ${person.email}.`;
-  if (sent.emailQueued) return `The mail server did not take the invitation to ${person.email} yet, so it is queued and goes out by itself once the server answers. People shows it as pending until then.`;
+  if (sent.emailQueued)
+    return `The mail server did not take the invitation to ${person.email} yet, so it is queued and goes out by itself once the server answers. People shows it as pending until then.`;
   return `${person.name} was added, but the invitation e-mail could not be sent. Use “Resend invitation” once mail works again.`;
 }
 

@@ -150,7 +150,13 @@ async function moveToOriginal(store: ObjectStore, owner: PhotoKeyOwner, declared
     throw new AppError("conflict", NOT_ARRIVED);
   }
   const sizeRejection =
-    head.bytes === 0 ? emptyFile() : head.bytes > MAX_PHOTO_BYTES ? tooLarge(head.bytes) : declaredBytes !== undefined && head.bytes !== declaredBytes ? lengthMismatch(head.bytes, declaredBytes) : null;
+    head.bytes === 0
+      ? emptyFile()
+      : head.bytes > MAX_PHOTO_BYTES
+        ? tooLarge(head.bytes)
+        : declaredBytes !== undefined && head.bytes !== declaredBytes
+          ? lengthMismatch(head.bytes, declaredBytes)
+          : null;
   if (sizeRejection) {
     await deleteObject(store, staged);
     throw sizeRejection;
@@ -169,7 +175,10 @@ async function answerSameBytes(actor: SessionUser, store: ObjectStore, newOrigin
   }
   // The same file was taken out of this unit before: it does not come back in by the side door.
   if (existing.removedAt) {
-    throw new AppError("conflict", `This exact file was taken out of this unit on ${formatDate(existing.removedAt, actor.timeZone)} (“${existing.removalReason ?? ""}”) and is kept only as a record. Upload a different photo.`);
+    throw new AppError(
+      "conflict",
+      `This exact file was taken out of this unit on ${formatDate(existing.removedAt, actor.timeZone)} (“${existing.removalReason ?? ""}”) and is kept only as a record. Upload a different photo.`,
+    );
   }
   return { kind: "duplicate", photo: existing };
 }

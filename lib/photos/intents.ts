@@ -56,12 +56,18 @@ export type UploadIntent = {
  * up an unbounded amount of storage.
  */
 export async function limitUploadIntents(actor: SessionUser) {
-  await enforceLimits([{ bucket: "upload-intent:user", key: actor.id, max: photoSettings().PHOTO_UPLOAD_INTENTS_PER_MINUTE, windowSeconds: 60 }], (s) =>
-    `You have started too many uploads in the last minute. ${waitPhrase(s)} and add the rest; the photos already uploading carry on.`,
+  await enforceLimits(
+    [{ bucket: "upload-intent:user", key: actor.id, max: photoSettings().PHOTO_UPLOAD_INTENTS_PER_MINUTE, windowSeconds: 60 }],
+    (s) => `You have started too many uploads in the last minute. ${waitPhrase(s)} and add the rest; the photos already uploading carry on.`,
   );
 }
 
-export async function createUploadIntent(actor: SessionUser, unitId: string, input: UploadIntentInput, { store = objectStore(), now = new Date() }: { store?: ObjectStore; now?: Date } = {}): Promise<UploadIntent> {
+export async function createUploadIntent(
+  actor: SessionUser,
+  unitId: string,
+  input: UploadIntentInput,
+  { store = objectStore(), now = new Date() }: { store?: ObjectStore; now?: Date } = {},
+): Promise<UploadIntent> {
   const unit = await loadUnit(actor, unitId);
   assertOpenForUploads(actor, unit);
   viewOf(unit, input.viewKey);

@@ -54,7 +54,14 @@ export async function reassignPhotoView(actor: SessionUser, photoId: string, vie
     viewOf(unit, viewKey);
     if (photo.viewKey === viewKey) return;
     if (!(await updatePhotoView(tx, { workspaceId: actor.workspaceId, photoId, viewKey }))) throw new AppError("conflict", "This photo changed meanwhile; reload and try again.");
-    await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.id, action: "photo.view_changed", subjectType: "photo", subjectId: photoId, detail: { unitId: photo.unitId, from: photo.viewKey, to: viewKey, fileName: photo.fileName } });
+    await logActivity(tx, {
+      workspaceId: actor.workspaceId,
+      actorId: actor.id,
+      action: "photo.view_changed",
+      subjectType: "photo",
+      subjectId: photoId,
+      detail: { unitId: photo.unitId, from: photo.viewKey, to: viewKey, fileName: photo.fileName },
+    });
   });
 }
 

@@ -47,7 +47,10 @@ async function claimOnce(user: SessionUser, filters: QueueFilters): Promise<Clai
  * means nothing is waiting.
  */
 export async function claimNextUnit({ user, filters }: { user: SessionUser; filters: QueueFilters }): Promise<ClaimedUnit | null> {
-  return claimWithRetry(() => claimOnce(user, filters), () => anythingWaiting({ workspaceId: user.workspaceId, filters }));
+  return claimWithRetry(
+    () => claimOnce(user, filters),
+    () => anythingWaiting({ workspaceId: user.workspaceId, filters }),
+  );
 }
 
 /**

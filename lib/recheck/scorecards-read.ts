@@ -44,9 +44,23 @@ export async function readScorecards(actor: Pick<SessionUser, "workspaceId">, qu
     timeZone,
     graded,
     settings,
-    rechecks: rows.map((row) => ({ graderId: row.grader_id, gradedAt: row.graded_at, firstGrade: row.first_grade as Grade, recheckGrade: row.recheck_grade as Grade, blind: !row.not_blind, classes: row.classes ?? undefined })),
+    rechecks: rows.map((row) => ({
+      graderId: row.grader_id,
+      gradedAt: row.graded_at,
+      firstGrade: row.first_grade as Grade,
+      recheckGrade: row.recheck_grade as Grade,
+      blind: !row.not_blind,
+      classes: row.classes ?? undefined,
+    })),
   });
   const team = multiRaterAgreement(rows.filter((row) => !row.not_blind).map((row) => [row.first_grade, row.recheck_grade, ...(row.adjudicated_grade ? [row.adjudicated_grade] : [])] as Grade[]));
-  return { ...cards, settings, names: Object.fromEntries(cards.graders.map((g) => [g.graderId, names.get(g.graderId) ?? "someone no longer listed"])), multiRater: team, timeZone, nextWeek: nextPeriod(periodOfDate(to, "week"), "week") };
+  return {
+    ...cards,
+    settings,
+    names: Object.fromEntries(cards.graders.map((g) => [g.graderId, names.get(g.graderId) ?? "someone no longer listed"])),
+    multiRater: team,
+    timeZone,
+    nextWeek: nextPeriod(periodOfDate(to, "week"), "week"),
+  };
 }
 export type ScorecardsView = Awaited<ReturnType<typeof readScorecards>>;

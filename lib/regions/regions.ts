@@ -34,7 +34,10 @@ export type RegionSetView = {
 
 /** Another save came first: the Bench gets the current state to merge with. */
 export class RegionVersionConflict extends AppError {
-  constructor(readonly current: RegionSetView, baseVersion: number) {
+  constructor(
+    readonly current: RegionSetView,
+    baseVersion: number,
+  ) {
     super(
       "conflict",
       `These regions were changed elsewhere${current.updatedByName ? ` by ${current.updatedByName}` : ""} (now version ${current.version}; this edit started from version ${baseVersion}). Nothing was saved; reload or merge, then save again.`,

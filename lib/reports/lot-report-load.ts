@@ -69,7 +69,16 @@ export async function loadLotReport(reader: Reader, lotId: string, { photos = tr
     SEVERITY_ORDER.map((severity) => {
       const p = lot.plan.byDefectSeverity[severity];
       const v = verdict.classes[severity];
-      const planRow: LotReportPlanRow = { aql: p.aql, codeLetter: p.codeLetter, planLetter: p.planLetter, sampleSize: p.sampleSize, accept: p.accept, reject: p.reject, inspected: v.inspected, found: v.found };
+      const planRow: LotReportPlanRow = {
+        aql: p.aql,
+        codeLetter: p.codeLetter,
+        planLetter: p.planLetter,
+        sampleSize: p.sampleSize,
+        accept: p.accept,
+        reject: p.reject,
+        inspected: v.inspected,
+        found: v.found,
+      };
       return [severity, planRow];
     }),
   ) as Record<DefectSeverity, LotReportPlanRow>;

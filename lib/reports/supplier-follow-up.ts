@@ -12,7 +12,16 @@ export async function loadSupplierSwitching({ workspaceId, supplierId }: { works
   return Promise.all(
     types.map(async (partType) => {
       const { state, decidedLots } = await switchingStateFor({ workspaceId, supplierId, partTypeId: partType.id });
-      return { partTypeId: partType.id, partType: partType.name, decidedLots, severity: state.severity, discontinued: state.discontinued, reason: state.reason, progress: state.progress, transitions: state.transitions };
+      return {
+        partTypeId: partType.id,
+        partType: partType.name,
+        decidedLots,
+        severity: state.severity,
+        discontinued: state.discontinued,
+        reason: state.reason,
+        progress: state.progress,
+        transitions: state.transitions,
+      };
     }),
   );
 }

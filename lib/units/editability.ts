@@ -52,7 +52,15 @@ const RULES: Record<UnitWork, WorkRule> = {
   serial: { permission: "units.record", doing: "Setting the serial", what: "its serial is", closed: RECORD, leaseManagerPasses: true, heldByLease: true, claims: "never" },
   regions: { permission: "regions.edit", doing: "Marking regions", what: "its regions are", closed: RECORD, leaseManagerPasses: false, heldByLease: true, claims: "when-free" },
   photos: { permission: "photos.capture", doing: "Changing photos", what: "its photos are", closed: RECORD, leaseManagerPasses: false, heldByLease: true, claims: "when-free" },
-  upload: { permission: "photos.capture", doing: "Adding photos", what: "its photos are", closed: "part of the record and no more can be added", leaseManagerPasses: false, heldByLease: false, claims: "never" },
+  upload: {
+    permission: "photos.capture",
+    doing: "Adding photos",
+    what: "its photos are",
+    closed: "part of the record and no more can be added",
+    leaseManagerPasses: false,
+    heldByLease: false,
+    claims: "never",
+  },
   grade: { permission: "grades.record", doing: "Grading", what: "its grade is", closed: RECORD, leaseManagerPasses: false, heldByLease: true, claims: "never" },
 };
 
@@ -76,8 +84,7 @@ export type EditabilityInput = {
 };
 
 export type UnitEditability =
-  | { editable: true; claims: boolean }
-  | { editable: false; code: "forbidden" | "conflict"; cause: "permission" | "lot" | "status" | "held"; reason: string; holderName?: string };
+  { editable: true; claims: boolean } | { editable: false; code: "forbidden" | "conflict"; cause: "permission" | "lot" | "status" | "held"; reason: string; holderName?: string };
 
 const OPEN_STATUSES: readonly UnitStatus[] = ["queued", "on_bench"];
 

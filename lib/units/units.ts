@@ -46,14 +46,22 @@ export async function createLotUnits(actor: SessionUser, lotId: string, input: U
       if (hasSerialProblems(parsed)) throw serialListError(describeSerialProblems(parsed));
       const pool = parsed.serials.map((s) => s.serial);
       if (pool.length > lot.quantity) {
-        throw new AppError("bad_request", `The list has ${pool.length.toLocaleString("en-GB")} serials but the lot has ${lot.quantity.toLocaleString("en-GB")} units; check that this is the right list. Nothing was stored.`, {
-          fieldErrors: { csv: "More serials than units in the lot." },
-        });
+        throw new AppError(
+          "bad_request",
+          `The list has ${pool.length.toLocaleString("en-GB")} serials but the lot has ${lot.quantity.toLocaleString("en-GB")} units; check that this is the right list. Nothing was stored.`,
+          {
+            fieldErrors: { csv: "More serials than units in the lot." },
+          },
+        );
       }
       if (pool.length < sampleSize) {
-        throw new AppError("bad_request", `The plan needs ${sampleSize} units but the list has ${pool.length} serials. Import the full list, or use numbered placeholders and scan serials on the bench. Nothing was stored.`, {
-          fieldErrors: { csv: `At least ${sampleSize} serials are needed.` },
-        });
+        throw new AppError(
+          "bad_request",
+          `The plan needs ${sampleSize} units but the list has ${pool.length} serials. Import the full list, or use numbered placeholders and scan serials on the bench. Nothing was stored.`,
+          {
+            fieldErrors: { csv: `At least ${sampleSize} serials are needed.` },
+          },
+        );
       }
       seed = input.seed ?? newDrawSeed();
       serials = drawSample(pool, sampleSize, seed);

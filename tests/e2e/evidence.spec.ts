@@ -45,7 +45,9 @@ const benchPhoto = () =>
 async function noisyPhoto(): Promise<Buffer> {
   const raw = Buffer.alloc(1500 * 1000 * 3);
   for (let i = 0; i < raw.length; i++) raw[i] = Math.imul(i, 2654435761) >>> 24;
-  return sharp(raw, { raw: { width: 1500, height: 1000, channels: 3 } }).jpeg({ quality: 90 }).toBuffer();
+  return sharp(raw, { raw: { width: 1500, height: 1000, channels: 3 } })
+    .jpeg({ quality: 90 })
+    .toBuffer();
 }
 
 /** Upload intent → PUT to the presigned URL → finalise, as the Bench's uploader does; waits until processed. */
@@ -66,8 +68,34 @@ async function inspect(request: APIRequestContext, unitId: string, serial: strin
   await ok(await request.patch(`/api/units/${unitId}`, { data: { serial } }));
   await ok(await request.post(`/api/units/${unitId}/checklist`, { data: { itemId: "power", value: { pass: power } } }));
   const photoId = await uploadPhoto(request, unitId, noisy);
-  const surface = { id: "surface", shape: { kind: "polygon", points: [[100, 100], [500, 100], [500, 300], [100, 300]] } };
-  const regions = scratch ? [{ id: "scratch", defect: "scratch", shape: { kind: "line", points: [[140, 150], [420, 240]], width: 8 } }] : [];
+  const surface = {
+    id: "surface",
+    shape: {
+      kind: "polygon",
+      points: [
+        [100, 100],
+        [500, 100],
+        [500, 300],
+        [100, 300],
+      ],
+    },
+  };
+  const regions = scratch
+    ? [
+        {
+          id: "scratch",
+          defect: "scratch",
+          shape: {
+            kind: "line",
+            points: [
+              [140, 150],
+              [420, 240],
+            ],
+            width: 8,
+          },
+        },
+      ]
+    : [];
   await ok(await request.put(`/api/photos/${photoId}/regions`, { data: { baseVersion: 0, regions: { surfaces: [surface], regions, ruler: null } } }));
   const { measurement } = await ok<{ measurement: { id: string } }>(await request.post(`/api/units/${unitId}/measure`));
   await ok(await request.post(`/api/units/${unitId}/grades`, { data: { decision: "accept", measurementId: measurement.id } }));
@@ -101,7 +129,18 @@ async function inspectedLot(request: APIRequestContext, { tag, contact, noisy = 
   const purchaseRef = `PO-EVI-${tag}`;
   const { lot } = await ok<{ lot: { id: string } }>(
     await request.post("/api/lots", {
-      data: { supplierId: supplier.id, partTypeId: partType.id, purchaseRef, quantity: 10, receivedOn: "2026-11-24", dueOn: "2026-12-01", inspectionLevel: "II", aqlCritical: null, aqlMajor: 4.0, aqlMinor: 4.0 },
+      data: {
+        supplierId: supplier.id,
+        partTypeId: partType.id,
+        purchaseRef,
+        quantity: 10,
+        receivedOn: "2026-11-24",
+        dueOn: "2026-12-01",
+        inspectionLevel: "II",
+        aqlCritical: null,
+        aqlMajor: 4.0,
+        aqlMinor: 4.0,
+      },
     }),
   );
   await ok(await request.post(`/api/lots/${lot.id}/units`, { data: { source: "placeholders" } }));
@@ -202,7 +241,10 @@ test("evidence over the e-mail limit goes behind a link: the supplier opens it s
   const panel = page.getByTestId("evidence-panel");
   await panel.getByRole("button", { name: "Preview" }).click();
   await expect(panel.getByTestId("evidence-link-note")).toContainText("expiring evidence link");
-  await panel.getByTestId("evidence-preview").getByRole("button", { name: `Send to ${linkContact}` }).click();
+  await panel
+    .getByTestId("evidence-preview")
+    .getByRole("button", { name: `Send to ${linkContact}` })
+    .click();
   const state = panel.getByTestId("evidence-link-state");
   await expect(state).toContainText("Evidence link open until");
   await expect.poll(async () => (await parsedMessagesTo(linkContact)).length, { timeout: 60_000 }).toBe(1);

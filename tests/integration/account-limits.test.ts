@@ -97,7 +97,9 @@ describe("one-time links", () => {
       .from(authTokens)
       .where(and(eq(authTokens.userId, user.id), eq(authTokens.purpose, "reset"), isNull(authTokens.usedAt)));
     expect(live).toHaveLength(1);
-    const working = await Promise.all(tokens.map(async (token) => (await api(null, "POST", "/api/password/set", { token, password: "one-of-twenty-pass" }, from(`198.51.100.${tokens.indexOf(token) + 100}`))).status));
+    const working = await Promise.all(
+      tokens.map(async (token) => (await api(null, "POST", "/api/password/set", { token, password: "one-of-twenty-pass" }, from(`198.51.100.${tokens.indexOf(token) + 100}`))).status),
+    );
     expect(working.filter((s) => s === 200)).toHaveLength(1);
   });
 });

@@ -35,7 +35,21 @@ async function fixtureIds(lead: Session): Promise<Ids> {
   const people = await api<{ people: { id: string; roles: string[] }[] }>(lead, "GET", "/api/people");
   const someone = people.body.people.find((p) => !p.roles.includes("lead"))!;
   const grading = await gradingFixtureIds(lead);
-  const ids: Ids = { invitedPersonId: invited.body.person.id, personId: someone.id, supplierId: supplier.body.supplier.id, emailId: emails.body.emails[0].id, ...grading, ...(await certificateFixtureIds(lead, grading.unitId)), ...(await galleryFixtureIds(lead)), ...(await queueFixtureIds(lead)), ...(await recheckFixtureIds(lead)), ...(await photoFixtureIds(lead)), ...(await regionFixtureIds(lead)), ...(await suggestionFixtureIds(lead)), ...(await lotFixtureIds(lead, supplier.body.supplier.id)) };
+  const ids: Ids = {
+    invitedPersonId: invited.body.person.id,
+    personId: someone.id,
+    supplierId: supplier.body.supplier.id,
+    emailId: emails.body.emails[0].id,
+    ...grading,
+    ...(await certificateFixtureIds(lead, grading.unitId)),
+    ...(await galleryFixtureIds(lead)),
+    ...(await queueFixtureIds(lead)),
+    ...(await recheckFixtureIds(lead)),
+    ...(await photoFixtureIds(lead)),
+    ...(await regionFixtureIds(lead)),
+    ...(await suggestionFixtureIds(lead)),
+    ...(await lotFixtureIds(lead, supplier.body.supplier.id)),
+  };
   return { ...ids, ...(await evidenceFixtureIds(lead, { lotId: ids.lotId, supplierId: ids.supplierId })) };
 }
 

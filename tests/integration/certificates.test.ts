@@ -20,7 +20,19 @@ import { api, BASE_URL, signIn, type Session } from "../support/http";
 import { flatText, pdfText } from "../support/pdf-text";
 import { testStore } from "../support/photos";
 
-const SURFACE: FixtureRegion = { clientId: "surface", role: "surface", shape: { kind: "polygon", points: [[50, 50], [250, 50], [250, 150], [50, 150]] } };
+const SURFACE: FixtureRegion = {
+  clientId: "surface",
+  role: "surface",
+  shape: {
+    kind: "polygon",
+    points: [
+      [50, 50],
+      [250, 50],
+      [250, 150],
+      [50, 150],
+    ],
+  },
+};
 const SCRATCH: FixtureRegion = { clientId: "scratch", role: "defect", defect: "scratch", shape: { kind: "rect", x: 60, y: 60, width: 30, height: 10 } };
 
 let lead: Session;
@@ -60,10 +72,28 @@ beforeAll(async () => {
     "part type",
     201,
   );
-  await insertRubricVersion({ workspaceId: owner.workspaceId, partTypeId: partType.id, version: 1, status: "published", rubric: { rules: [{ id: "scratch-b", metric: "share", defect: "scratch", comparison: ">", threshold: 1, grade: "B" }] }, actorId: owner.userId });
+  await insertRubricVersion({
+    workspaceId: owner.workspaceId,
+    partTypeId: partType.id,
+    version: 1,
+    status: "published",
+    rubric: { rules: [{ id: "scratch-b", metric: "share", defect: "scratch", comparison: ">", threshold: 1, grade: "B" }] },
+    actorId: owner.userId,
+  });
   const { supplier } = await ok(api<{ supplier: { id: string } }>(lead, "POST", "/api/suppliers", { name: `Certificate Supplier ${tag}`, contactEmail: "cert@supplier.example" }), "supplier", 201);
   const { lot } = await ok(
-    api<{ lot: { id: string } }>(lead, "POST", "/api/lots", { supplierId: supplier.id, partTypeId: partType.id, purchaseRef: `PO-CERT-${tag}`, quantity: 10, receivedOn: "2026-11-20", dueOn: "2026-11-27", inspectionLevel: "II", aqlCritical: null, aqlMajor: 4.0, aqlMinor: 4.0 }),
+    api<{ lot: { id: string } }>(lead, "POST", "/api/lots", {
+      supplierId: supplier.id,
+      partTypeId: partType.id,
+      purchaseRef: `PO-CERT-${tag}`,
+      quantity: 10,
+      receivedOn: "2026-11-20",
+      dueOn: "2026-11-27",
+      inspectionLevel: "II",
+      aqlCritical: null,
+      aqlMajor: 4.0,
+      aqlMinor: 4.0,
+    }),
     "lot",
     201,
   );
@@ -76,7 +106,9 @@ beforeAll(async () => {
   const photo = await createPhoto({ workspaceId: owner.workspaceId, unitId, uploadedBy: owner.userId, viewKey: "back" });
   await saveRegions({ workspaceId: owner.workspaceId, photoId: photo.id, authorId: owner.userId, regions: [SURFACE, SCRATCH] });
   // A real thumbnail in the store, so the certificate draws the view with its regions.
-  const thumbnail = await sharp({ create: { width: 300, height: 200, channels: 3, background: "#8a9199" } }).webp().toBuffer();
+  const thumbnail = await sharp({ create: { width: 300, height: 200, channels: 3, background: "#8a9199" } })
+    .webp()
+    .toBuffer();
   await putObject(testStore(), photo.thumbnailKey!, thumbnail, { contentType: "image/webp" });
   const measured = await ok(api<{ measurement: { id: string } }>(inspector, "POST", `/api/units/${unitId}/measure`), "measure");
   await ok(api(inspector, "POST", `/api/units/${unitId}/grades`, { measurementId: measured.measurement.id, decision: "accept" }), "grade", 201);

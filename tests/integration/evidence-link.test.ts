@@ -40,7 +40,9 @@ async function noisyPreview(seed: number): Promise<Buffer> {
     x = (x * 1103515245 + 12345) >>> 0;
     raw[i] = x >>> 24;
   }
-  return sharp(raw, { raw: { width, height, channels: 3 } }).webp({ quality: 90 }).toBuffer();
+  return sharp(raw, { raw: { width, height, channels: 3 } })
+    .webp({ quality: 90 })
+    .toBuffer();
 }
 
 const page = async (url: string) => {

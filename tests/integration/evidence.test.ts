@@ -48,7 +48,15 @@ beforeAll(async () => {
 describe("evidence packs", () => {
   it("the preview fills the template and lists the files; nothing is stored or sent", async () => {
     const before = await countRows();
-    const { preview } = await ok(api<{ preview: { to: string; subject: string; text: string; claimRef: string; delivery: string; attachments: { filename: string; bytes: number }[] } }>(lead, "POST", `/api/lots/${ids.lotId}/evidence/preview`, draft()), "preview");
+    const { preview } = await ok(
+      api<{ preview: { to: string; subject: string; text: string; claimRef: string; delivery: string; attachments: { filename: string; bytes: number }[] } }>(
+        lead,
+        "POST",
+        `/api/lots/${ids.lotId}/evidence/preview`,
+        draft(),
+      ),
+      "preview",
+    );
     expect(preview.to).toBe(contact);
     expect(preview.claimRef).toMatch(/^CLM-\d{4}-\d{4}$/);
     expect(preview.subject).toBe(`Lot ${ids.purchaseRef}: rejected — return to vendor (claim ${preview.claimRef})`);
@@ -59,7 +67,16 @@ describe("evidence packs", () => {
   });
 
   it("sending queues the e-mail; the worker delivers it with the PDF, the annotated photo and the CSV; the claim opens on the supplier", async () => {
-    const sent = await ok(api<{ evidencePack: { id: string }; claim: { id: string; reference: string; status: string }; email: { id: string; status: string } }>(lead, "POST", `/api/lots/${ids.lotId}/evidence`, draft({ claimRef: `RMA-${tag}` })), "send", 202);
+    const sent = await ok(
+      api<{ evidencePack: { id: string }; claim: { id: string; reference: string; status: string }; email: { id: string; status: string } }>(
+        lead,
+        "POST",
+        `/api/lots/${ids.lotId}/evidence`,
+        draft({ claimRef: `RMA-${tag}` }),
+      ),
+      "send",
+      202,
+    );
     expect(sent.claim).toMatchObject({ reference: `RMA-${tag}`, status: "open" });
     const email = await until("the worker to deliver the evidence", async () => {
       const [row] = await db().select().from(outgoingEmails).where(eq(outgoingEmails.id, sent.email.id));
@@ -103,7 +120,14 @@ describe("evidence packs", () => {
     const unknown = await api<{ error: { message: string } }>(lead, "PATCH", `/api/claims/${sent.claim.id}`, { status: "paid", note: "", version: sent.claim.version });
     expect(unknown.status).toBe(400);
     expect(unknown.body.error.message).toMatch(/Choose a claim status: open, credited, replaced, refused, closed/);
-    const moved = await ok(api<{ claim: { status: string; note: string; version: number } }>(lead, "PATCH", `/api/claims/${sent.claim.id}`, { status: "credited", note: "Credit note 118 received.", version: sent.claim.version }), "credit");
+    const moved = await ok(
+      api<{ claim: { status: string; note: string; version: number } }>(lead, "PATCH", `/api/claims/${sent.claim.id}`, {
+        status: "credited",
+        note: "Credit note 118 received.",
+        version: sent.claim.version,
+      }),
+      "credit",
+    );
     expect(moved.claim).toMatchObject({ status: "credited", note: "Credit note 118 received." });
     const stale = await api(lead, "PATCH", `/api/claims/${sent.claim.id}`, { status: "refused", note: "", version: sent.claim.version });
     expect(stale.status).toBe(409);
@@ -138,7 +162,10 @@ describe("evidence packs", () => {
     ] as const) {
       expect((await api(foreignLead, method, path, method === "POST" ? draft() : undefined)).status, `${method} ${path}`).toBe(404);
     }
-    const [anyClaim] = await db().select().from(claims).where(and(eq(claims.supplierId, ids.supplierId)));
+    const [anyClaim] = await db()
+      .select()
+      .from(claims)
+      .where(and(eq(claims.supplierId, ids.supplierId)));
     expect((await api(foreignLead, "PATCH", `/api/claims/${anyClaim.id}`, { status: "closed", note: "", version: anyClaim.version })).status).toBe(404);
     expect(await countRows()).toEqual(before);
   });

@@ -16,8 +16,24 @@ export async function evidenceFixtureIds(lead: Session, { lotId, supplierId }: {
   const packId = randomUUID();
   await db()
     .insert(evidencePacks)
-    .values({ id: packId, workspaceId, lotId, supplierId, emailId: email.id, toAddress: to, subject: "Fixture evidence", body: "Fixture.", attachments: [], delivery: "link", linkExpiresAt: new Date(Date.now() + 86_400_000), createdBy: userId });
-  const [claim] = await db().insert(claims).values({ workspaceId, evidencePackId: packId, supplierId, lotId, reference: `FX-${packId.slice(0, 8)}`, updatedBy: userId }).returning();
+    .values({
+      id: packId,
+      workspaceId,
+      lotId,
+      supplierId,
+      emailId: email.id,
+      toAddress: to,
+      subject: "Fixture evidence",
+      body: "Fixture.",
+      attachments: [],
+      delivery: "link",
+      linkExpiresAt: new Date(Date.now() + 86_400_000),
+      createdBy: userId,
+    });
+  const [claim] = await db()
+    .insert(claims)
+    .values({ workspaceId, evidencePackId: packId, supplierId, lotId, reference: `FX-${packId.slice(0, 8)}`, updatedBy: userId })
+    .returning();
   // Not a signed token: the public file route answers anyone with the plain refusal.
   return { evidencePackId: packId, claimId: claim.id, evidenceLinkToken: "not-a-signed-token" };
 }

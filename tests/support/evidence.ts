@@ -9,7 +9,19 @@ import { createPhoto, insertRubricVersion, saveRegions, workspaceIdOf, type Fixt
 import { api, type Session } from "./http";
 import { testStore } from "./photos";
 
-export const SURFACE: FixtureRegion = { clientId: "surface", role: "surface", shape: { kind: "polygon", points: [[50, 50], [250, 50], [250, 150], [50, 150]] } };
+export const SURFACE: FixtureRegion = {
+  clientId: "surface",
+  role: "surface",
+  shape: {
+    kind: "polygon",
+    points: [
+      [50, 50],
+      [250, 50],
+      [250, 150],
+      [50, 150],
+    ],
+  },
+};
 export const SCRATCH: FixtureRegion = { clientId: "scratch", role: "defect", defect: "scratch", shape: { kind: "rect", x: 60, y: 60, width: 30, height: 10 } };
 
 export async function ok<T>(res: Promise<{ status: number; body: T }>, what: string, status = 200): Promise<T> {
@@ -52,7 +64,14 @@ export async function evidenceWorld(lead: Session, inspector: Session, { tag, co
     "part type",
     201,
   );
-  await insertRubricVersion({ workspaceId: owner.workspaceId, partTypeId: partType.id, version: 1, status: "published", rubric: { rules: [{ id: "scratch-c", metric: "share", defect: "scratch", comparison: ">", threshold: 1, grade: "C" }] }, actorId: owner.userId });
+  await insertRubricVersion({
+    workspaceId: owner.workspaceId,
+    partTypeId: partType.id,
+    version: 1,
+    status: "published",
+    rubric: { rules: [{ id: "scratch-c", metric: "share", defect: "scratch", comparison: ">", threshold: 1, grade: "C" }] },
+    actorId: owner.userId,
+  });
   const { supplier } = await ok(api<{ supplier: { id: string } }>(lead, "POST", "/api/suppliers", { name: supplierName, contactEmail: contact }), "supplier", 201);
   return { lead, inspector, owner, partTypeId: partType.id, supplierId: supplier.id };
 }
@@ -60,7 +79,18 @@ export async function evidenceWorld(lead: Session, inspector: Session, { tag, co
 /** A lot of 10 with its sampled units as placeholders. */
 export async function lotWithUnits(world: EvidenceWorld, purchaseRef: string) {
   const { lot } = await ok(
-    api<{ lot: { id: string } }>(world.lead, "POST", "/api/lots", { supplierId: world.supplierId, partTypeId: world.partTypeId, purchaseRef, quantity: 10, receivedOn: "2026-11-18", dueOn: "2026-11-27", inspectionLevel: "II", aqlCritical: null, aqlMajor: 4.0, aqlMinor: 4.0 }),
+    api<{ lot: { id: string } }>(world.lead, "POST", "/api/lots", {
+      supplierId: world.supplierId,
+      partTypeId: world.partTypeId,
+      purchaseRef,
+      quantity: 10,
+      receivedOn: "2026-11-18",
+      dueOn: "2026-11-27",
+      inspectionLevel: "II",
+      aqlCritical: null,
+      aqlMajor: 4.0,
+      aqlMinor: 4.0,
+    }),
     "lot",
     201,
   );
@@ -83,7 +113,11 @@ export async function inspectUnit(world: EvidenceWorld, unitId: string, serial: 
   const measured = await ok(api<{ measurement: { id: string } }>(inspector, "POST", `/api/units/${unitId}/measure`), "measure");
   await ok(api(inspector, "POST", `/api/units/${unitId}/grades`, { measurementId: measured.measurement.id, decision: "accept" }), "grade", 201);
   if (regions.length > 0) {
-    const image = preview ?? (await sharp({ create: { width: 300, height: 200, channels: 3, background: "#8a9199" } }).webp().toBuffer());
+    const image =
+      preview ??
+      (await sharp({ create: { width: 300, height: 200, channels: 3, background: "#8a9199" } })
+        .webp()
+        .toBuffer());
     await putObject(testStore(), photo.previewKey!, image, { contentType: "image/webp" });
   }
   return photo;

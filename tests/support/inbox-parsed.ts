@@ -12,7 +12,11 @@ export async function parsedMessagesTo(address: string) {
     const parsed = await simpleParser(fs.readFileSync(path.join(dir, file)));
     const to = Array.isArray(parsed.to) ? parsed.to.map((t) => t.text).join(",") : (parsed.to?.text ?? "");
     if (!to.toLowerCase().includes(address.toLowerCase())) continue;
-    found.push({ subject: parsed.subject ?? "", text: parsed.text ?? "", attachments: parsed.attachments.map((a) => ({ filename: a.filename ?? "", contentType: a.contentType, size: a.size, content: a.content })) });
+    found.push({
+      subject: parsed.subject ?? "",
+      text: parsed.text ?? "",
+      attachments: parsed.attachments.map((a) => ({ filename: a.filename ?? "", contentType: a.contentType, size: a.size, content: a.content })),
+    });
   }
   return found;
 }

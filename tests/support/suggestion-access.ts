@@ -13,7 +13,9 @@ export async function suggestionFixtureIds(lead: Session): Promise<Record<string
   const queued = await api<{ jobId: string | null }>(lead, "POST", "/api/suggestion-models", {});
   if (queued.status !== 202) throw new Error(`Fixture training request failed: ${JSON.stringify(queued.body)}`);
   // null when one was already waiting (stately queue): take the newest job of this workspace.
-  const result = await db().execute<{ id: string }>(sql`SELECT id FROM pgboss.job WHERE name = 'suggestion-training' AND data->>'workspaceId' = ${me.body.user.workspaceId} ORDER BY created_on DESC LIMIT 1`);
+  const result = await db().execute<{ id: string }>(
+    sql`SELECT id FROM pgboss.job WHERE name = 'suggestion-training' AND data->>'workspaceId' = ${me.body.user.workspaceId} ORDER BY created_on DESC LIMIT 1`,
+  );
   const trainingJobId = queued.body.jobId ?? result.rows[0]?.id;
   if (!trainingJobId) throw new Error("No training job found for the fixture workspace.");
   const [model] = await db()

@@ -24,7 +24,17 @@ export type PlantedPhoto = { photoId: string; held: boolean; regions: { defect: 
  * A unit (graded unless `status` says otherwise) with `train` training-side and `held` held-out photos, rendered from `firstIndex`.
  * `rename` maps a planted class to the class name stored (another workspace's own names).
  */
-export async function createPlantedPhotos(owner: { workspaceId: string; userId: string }, { train, held, firstIndex = 0, width = 960, rename = (d: string) => d, status = "graded" }: { train: number; held: number; firstIndex?: number; width?: number; rename?: (defect: string) => string; status?: "graded" | "on_bench" }) {
+export async function createPlantedPhotos(
+  owner: { workspaceId: string; userId: string },
+  {
+    train,
+    held,
+    firstIndex = 0,
+    width = 960,
+    rename = (d: string) => d,
+    status = "graded",
+  }: { train: number; held: number; firstIndex?: number; width?: number; rename?: (defect: string) => string; status?: "graded" | "on_bench" },
+) {
   const partType = await createPartType(owner.workspaceId);
   const unit = await createUnit({ workspaceId: owner.workspaceId, partTypeId: partType.id, createdBy: owner.userId });
   if (status !== "on_bench") await db().update(units).set({ status }).where(eq(units.id, unit.id));
@@ -43,7 +53,26 @@ export async function createPlantedPhotos(owner: { workspaceId: string; userId: 
     await putObject(store, previewKey, art.jpeg, { contentType: "image/jpeg" });
     await db()
       .insert(photos)
-      .values({ id, workspaceId: owner.workspaceId, unitId: unit.id, viewKey: "lens", status: "ready", originalKey: `fixtures/${id}/original.jpg`, previewKey, thumbnailKey: `fixtures/${id}/thumb.webp`, contentType: "image/jpeg", fileName: "planted.jpg", bytes: art.jpeg.length, sha256: crypto.randomBytes(32).toString("hex"), format: "jpeg", width: art.width, height: art.height, previewWidth: art.width, previewHeight: art.height, uploadedBy: owner.userId });
+      .values({
+        id,
+        workspaceId: owner.workspaceId,
+        unitId: unit.id,
+        viewKey: "lens",
+        status: "ready",
+        originalKey: `fixtures/${id}/original.jpg`,
+        previewKey,
+        thumbnailKey: `fixtures/${id}/thumb.webp`,
+        contentType: "image/jpeg",
+        fileName: "planted.jpg",
+        bytes: art.jpeg.length,
+        sha256: crypto.randomBytes(32).toString("hex"),
+        format: "jpeg",
+        width: art.width,
+        height: art.height,
+        previewWidth: art.width,
+        previewHeight: art.height,
+        uploadedBy: owner.userId,
+      });
     const regions = art.regions.map((r) => ({ defect: rename(r.defect), shape: r.shape }));
     await saveRegions({
       workspaceId: owner.workspaceId,

@@ -21,10 +21,7 @@ const MAX_PIXELS = 268_402_689;
 const MAX_REGIONS = 10_000;
 const MAX_POINTS = 100_000;
 
-const coordinate = z
-  .number({ error: "must be a finite number" })
-  .min(-COORDINATE_LIMIT, `must be >= ${-COORDINATE_LIMIT}`)
-  .max(COORDINATE_LIMIT, `must be <= ${COORDINATE_LIMIT}`);
+const coordinate = z.number({ error: "must be a finite number" }).min(-COORDINATE_LIMIT, `must be >= ${-COORDINATE_LIMIT}`).max(COORDINATE_LIMIT, `must be <= ${COORDINATE_LIMIT}`);
 const size = coordinate.min(0, "must not be negative");
 const point = z.tuple([coordinate, coordinate]);
 
@@ -43,11 +40,7 @@ const shapeSchema = z.discriminatedUnion(
   { error: 'kind must be one of "rect", "polygon", "line", "spot"' },
 );
 
-export const photoSide = z
-  .number({ error: "must be a number" })
-  .int("must be a whole number of pixels")
-  .min(1, "must be at least 1 pixel")
-  .max(MAX_SIDE, `must be at most ${MAX_SIDE} pixels`);
+export const photoSide = z.number({ error: "must be a number" }).int("must be a whole number of pixels").min(1, "must be at least 1 pixel").max(MAX_SIDE, `must be at most ${MAX_SIDE} pixels`);
 
 /** A photo's region list (also one side of a region-set comparison, lib/imaging/compare-regions.ts). */
 export const regionListSchema = z
@@ -94,8 +87,10 @@ export function checkMeasuringCost(input: CoverageInput, context: z.RefinementCt
   const lineCap = maxLineWidthFor(input);
   const spotCap = maxSpotRadiusFor(input);
   input.regions.forEach(({ shape }, index) => {
-    if (shape.kind === "line" && shape.width > lineCap) context.addIssue({ code: "custom", path: ["regions", index, "shape", "width"], message: `must be at most ${lineCap} px (5 % of the photo's long edge)` });
-    if (shape.kind === "spot" && shape.radius > spotCap) context.addIssue({ code: "custom", path: ["regions", index, "shape", "radius"], message: `must be at most ${spotCap} px (10 % of the photo's long edge)` });
+    if (shape.kind === "line" && shape.width > lineCap)
+      context.addIssue({ code: "custom", path: ["regions", index, "shape", "width"], message: `must be at most ${lineCap} px (5 % of the photo's long edge)` });
+    if (shape.kind === "spot" && shape.radius > spotCap)
+      context.addIssue({ code: "custom", path: ["regions", index, "shape", "radius"], message: `must be at most ${spotCap} px (10 % of the photo's long edge)` });
   });
   const shapes = [...input.regions.map((r) => r.shape), ...(input.surface ?? []), ...(input.zones ?? []).map((z) => z.shape)];
   const rows = rasterRows(shapes, input);

@@ -18,7 +18,6 @@ function shoelace(points: Point[]): number {
 /** Area of a w × h rectangle with corner radius r: w·h − (4 − π)·r² (a: elementary geometry). */
 const roundedRectArea = (w: number, h: number, r: number) => w * h - (4 - Math.PI) * r * r;
 
-
 type Part = { x: number; y: number; w: number; h: number; r: number; rotate?: number; grey: number };
 
 /** A part (rounded rectangle, optionally rotated, optional extra SVG) on a plain backdrop plus noise. */
@@ -119,7 +118,9 @@ describe("suggestSurface on generated parts", () => {
   });
 
   it("says so when the photo is one flat level, and rejects what is not an image", async () => {
-    const flat = await sharp({ create: { width: 300, height: 200, channels: 3, background: "#777777" } }).png().toBuffer();
+    const flat = await sharp({ create: { width: 300, height: 200, channels: 3, background: "#777777" } })
+      .png()
+      .toBuffer();
     const result = await suggestSurface(flat);
     expect(result).toMatchObject({ shape: null, confidence: "none" });
     await expect(suggestSurface(Buffer.from("nope"))).rejects.toThrow(/could not be decoded/);
@@ -131,7 +132,12 @@ describe("boundary tracing and simplification", () => {
   const mask = (rows: string[]) => ({
     width: rows[0].length,
     height: rows.length,
-    data: Uint8Array.from(rows.join("").split("").map((c) => (c === "#" ? 1 : 0))),
+    data: Uint8Array.from(
+      rows
+        .join("")
+        .split("")
+        .map((c) => (c === "#" ? 1 : 0)),
+    ),
   });
 
   it("traces pixel edges so the shoelace area equals the pixel count (L shape, notch)", () => {

@@ -23,7 +23,10 @@ export default async function UnitPage(props: PageProps<"/units/[id]">) {
   const key = { workspaceId: user.workspaceId, unitId: id };
   const [detail, grading] = await Promise.all([getUnitDetail(key), getUnitForGrading(key)]);
   if (!detail || !grading) notFound();
-  const [results, versions] = await Promise.all([listUnitResults({ workspaceId: user.workspaceId, unitIds: [id] }), listRubricVersions({ workspaceId: user.workspaceId, partTypeId: grading.partTypeId })]);
+  const [results, versions] = await Promise.all([
+    listUnitResults({ workspaceId: user.workspaceId, unitIds: [id] }),
+    listRubricVersions({ workspaceId: user.workspaceId, partTypeId: grading.partTypeId }),
+  ]);
   // The same value the API sends, so the panels' queries start from what they will refetch.
   const initial = toUnitView(detail, results);
   const me = { id: user.id, roles: user.roles, timeZone: user.timeZone };

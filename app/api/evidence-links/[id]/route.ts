@@ -2,7 +2,9 @@ import { z } from "zod";
 import { evidenceLinkFile } from "@/lib/evidence/evidence-link";
 import { handler, parseQuery } from "@/lib/http/route";
 
-const fileQuery = z.object({ file: z.coerce.number({ error: "Name the file by its number." }).int("Name the file by its number.").min(0, "Name the file by its number.").max(999, "Name the file by its number.") });
+const fileQuery = z.object({
+  file: z.coerce.number({ error: "Name the file by its number." }).int("Name the file by its number.").min(0, "Name the file by its number.").max(999, "Name the file by its number."),
+});
 
 /**
  * Public: one file of an evidence pack behind its link (the path segment is the link's signed

@@ -14,6 +14,8 @@ describe("how a failed checklist result reads", () => {
   });
 
   it("keeps 'automatically' for a reading judged against the item's limits", () => {
-    expect(failureText(ocv, { failureReason: "2.87 V is below the minimum 3.00 V.", severityOnFail: "major" })).toBe("Failed automatically — 2.87 V is below the minimum 3.00 V. Adds a major functional defect.");
+    expect(failureText(ocv, { failureReason: "2.87 V is below the minimum 3.00 V.", severityOnFail: "major" })).toBe(
+      "Failed automatically — 2.87 V is below the minimum 3.00 V. Adds a major functional defect.",
+    );
   });
 });

@@ -17,7 +17,11 @@ export const POST = handler({ permission: "evidence.send" }, async (req, ctx: Ro
   const draft = await parseJson(req, evidenceDraftSchema, { maxBytes: 32 * 1024 });
   const { pack, claim, email } = await sendEvidence(user, lotId, draft);
   return Response.json(
-    { evidencePack: { id: pack.id, delivery: pack.delivery, attachments: pack.attachments }, claim: { id: claim.id, reference: claim.reference, status: claim.status, version: claim.version }, email: { id: email.id, status: email.status } },
+    {
+      evidencePack: { id: pack.id, delivery: pack.delivery, attachments: pack.attachments },
+      claim: { id: claim.id, reference: claim.reference, status: claim.status, version: claim.version },
+      email: { id: email.id, status: email.status },
+    },
     { status: 202 },
   );
 });

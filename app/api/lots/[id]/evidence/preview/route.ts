@@ -9,6 +9,14 @@ export const POST = handler({ permission: "evidence.send" }, async (req, ctx: Ro
   const draft = await parseJson(req, evidenceDraftSchema, { maxBytes: 32 * 1024 });
   const p = await prepareEvidence(user, lotId, draft);
   return Response.json({
-    preview: { to: p.to, subject: p.subject, text: previewText(p, user.timeZone), claimRef: p.claimRef, delivery: p.delivery, totalBytes: p.totalBytes, attachments: p.files.map(({ filename, contentType, bytes }) => ({ filename, contentType, bytes })) },
+    preview: {
+      to: p.to,
+      subject: p.subject,
+      text: previewText(p, user.timeZone),
+      claimRef: p.claimRef,
+      delivery: p.delivery,
+      totalBytes: p.totalBytes,
+      attachments: p.files.map(({ filename, contentType, bytes }) => ({ filename, contentType, bytes })),
+    },
   });
 });
