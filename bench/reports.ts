@@ -134,19 +134,17 @@ async function benchCertificate(label: string, sources: Buffer[]) {
   const run = async () => {
     const thumbs = await timed(() =>
       Promise.all(
-        sources
-          .slice(0, 3)
-          .map((image, i) =>
-            renderAnnotatedPhoto({
-              image,
-              regionSpace: { width: 4000, height: 3000 },
-              regions: regionsFor(i),
-              surface: SURFACE,
-              classes: REPORT_CLASSES,
-              legend: false,
-              maxEdge: ANNOTATED_EDGE.certificate,
-            }),
-          ),
+        sources.slice(0, 3).map((image, i) =>
+          renderAnnotatedPhoto({
+            image,
+            regionSpace: { width: 4000, height: 3000 },
+            regions: regionsFor(i),
+            surface: SURFACE,
+            classes: REPORT_CLASSES,
+            legend: false,
+            maxEdge: ANNOTATED_EDGE.certificate,
+          }),
+        ),
       ),
     );
     const views = thumbs.value.map((t, i) => ({ label: ["Front", "Back", "Lens"][i], photoSha256: "ab".repeat(32), thumbnail: t.jpeg }));

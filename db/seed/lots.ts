@@ -148,17 +148,15 @@ export async function seedLots(database: Database, people: People) {
       // The demo's history has no photos or grades: its lots are judged on their checklists alone, as
       // lots were before cosmetic grades counted; the app judges the open ones live.
       const verdict = lotVerdict(plan, unitFindings({ units: insertedUnits, results, checklistItemIds: partType.checklist.map((i) => i.id), cosmeticGrading: false }));
-      await tx
-        .insert(activityLog)
-        .values({
-          workspaceId: ws.workspaceId,
-          actorId: lead,
-          action: "lot.created",
-          subjectType: "lot",
-          subjectId: lot.id,
-          detail: { demo: true, severity: state.severity, sampleSize: plan.sampleSize, switchingReason: state.reason },
-          createdAt,
-        });
+      await tx.insert(activityLog).values({
+        workspaceId: ws.workspaceId,
+        actorId: lead,
+        action: "lot.created",
+        subjectType: "lot",
+        subjectId: lot.id,
+        detail: { demo: true, severity: state.severity, sampleSize: plan.sampleSize, switchingReason: state.reason },
+        createdAt,
+      });
       if (spec.decision) {
         if (verdict.verdict !== spec.decision.expect) throw new Error(`Seed lot ${spec.purchaseRef}: expected ${spec.decision.expect}, the verdict is ${verdict.verdict} (${verdict.summary})`);
         const decisionCounts = Object.fromEntries(
@@ -170,17 +168,15 @@ export async function seedLots(database: Database, people: People) {
           .set({ status: "decided", verdict: verdict.verdict, disposition: spec.decision.disposition, dispositionReason: spec.decision.reason, decisionCounts, decidedBy: lead, decidedAt })
           .where(eq(lots.id, lot.id));
         await closeLotUnits(tx, { workspaceId: ws.workspaceId, lotId: lot.id, at: decidedAt });
-        await tx
-          .insert(activityLog)
-          .values({
-            workspaceId: ws.workspaceId,
-            actorId: lead,
-            action: "lot.decided",
-            subjectType: "lot",
-            subjectId: lot.id,
-            detail: { demo: true, verdict: verdict.verdict, disposition: spec.decision.disposition },
-            createdAt: decidedAt,
-          });
+        await tx.insert(activityLog).values({
+          workspaceId: ws.workspaceId,
+          actorId: lead,
+          action: "lot.decided",
+          subjectType: "lot",
+          subjectId: lot.id,
+          detail: { demo: true, verdict: verdict.verdict, disposition: spec.decision.disposition },
+          createdAt: decidedAt,
+        });
         history.set(key, [...(history.get(key) ?? []), { id: lot.id, purchaseRef: lot.purchaseRef, inspectionSeverity: state.severity, verdict: verdict.verdict, plan, decisionCounts }]);
       }
       created.push({ purchaseRef: spec.purchaseRef, id: lot.id, verdict: spec.decision ? verdict.verdict : `open (${verdict.verdict})` });

@@ -62,10 +62,10 @@ export async function adjudicationView(actor: Actor, recheckId: string) {
       status: recheck.status,
       reasons: recheck.adjudicationReasons ?? [],
       notBlind: recheck.notBlind,
-      submittedAt: recheck.submittedAt,
+      submittedAt: recheck.submittedAt?.toISOString() ?? null,
       decidedLotAffected: recheck.decidedLotAffected,
       adjudication: recheck.adjudicatedAt
-        ? { choice: recheck.adjudicationChoice, reason: recheck.adjudicationReason, byName: names.get(recheck.adjudicatedBy!) ?? null, at: recheck.adjudicatedAt }
+        ? { choice: recheck.adjudicationChoice, reason: recheck.adjudicationReason, byName: names.get(recheck.adjudicatedBy!) ?? null, at: recheck.adjudicatedAt.toISOString() }
         : null,
     },
     unit: { id: recheck.unitId, serial: first.serial, lotId: first.lotId, purchaseRef: first.purchaseRef, partTypeName: first.partTypeName, rubricVersion: first.rubricVersion },
@@ -76,7 +76,7 @@ export async function adjudicationView(actor: Actor, recheckId: string) {
       lines: first.explanation.lines,
       notes: first.explanation.notes,
       byName: names.get(first.gradedBy) ?? null,
-      at: first.createdAt,
+      at: first.createdAt.toISOString(),
     },
     second: {
       grade: recheck.recheckGrade!,
@@ -85,11 +85,12 @@ export async function adjudicationView(actor: Actor, recheckId: string) {
       lines: recheck.measurement.proposal.lines,
       notes: recheck.measurement.proposal.notes,
       byName: names.get(recheck.auditorId!) ?? null,
-      at: recheck.submittedAt!,
+      at: recheck.submittedAt!.toISOString(),
     },
     photos: sides.map((side) => ({ ...side, comparison: withAreas.photos.find((p) => p.photoId === side.photo.id) ?? null })),
     classes: recheck.comparison.classes,
     grades: recheck.comparison.grade,
   };
 }
+/** JSON-ready (times as ISO text): the API answers it and the page hands it to the client as it is. */
 export type AdjudicationView = Awaited<ReturnType<typeof adjudicationView>>;

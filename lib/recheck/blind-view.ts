@@ -31,7 +31,7 @@ export async function blindRecheckView(user: Actor, recheckId: string) {
   if (!unit || !rubric) throw notFound("That recheck");
   const byItem = new Map(readings.map((r) => [r.itemId, r.value]));
   return {
-    recheck: { id: recheck.id, leaseExpiresAt: recheck.leaseExpiresAt, rubricVersion: rubric.version },
+    recheck: { id: recheck.id, leaseExpiresAt: recheck.leaseExpiresAt?.toISOString() ?? null, rubricVersion: rubric.version },
     unit: {
       serial: unit.serial,
       partType: {
@@ -54,4 +54,5 @@ export async function blindRecheckView(user: Actor, recheckId: string) {
     regionSets: Object.fromEntries(sets.map((set) => [set.photoId, { version: set.version, regions: set.payload }])),
   };
 }
+/** JSON-ready (times as ISO text): the API answers it and the page hands it to the client as it is. */
 export type BlindRecheckView = Awaited<ReturnType<typeof blindRecheckView>>;

@@ -1,4 +1,4 @@
-import { beforeAll, describe, expect, it } from "vitest";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { holders } from "@/lib/auth/permissions";
 import { ROLES, type Role } from "@/lib/auth/roles";
 import { api, signIn, type Session } from "../support/http";
@@ -12,7 +12,7 @@ import { photoFixtureIds } from "../support/photo-access";
 import { queueFixtureIds } from "../support/queue-access";
 import { recheckFixtureIds } from "../support/recheck-access";
 import { regionFixtureIds } from "../support/region-access";
-import { suggestionFixtureIds } from "../support/suggestion-access";
+import { suggestionFixtureIds, waitForTrainingsToFinish } from "../support/suggestion-access";
 import { ROUTES, type RouteRow } from "./routes";
 
 type Ids = Record<string, string>;
@@ -64,6 +64,9 @@ beforeAll(async () => {
   own = await fixtureIds(sessions.lead);
   foreign = await fixtureIds(foreignLead);
 });
+
+// The matrix asks for trainings; they must not finish under the next file's feet.
+afterAll(() => waitForTrainingsToFinish(), 300_000);
 
 describe.each(ROUTES.map((r) => [`${r.method} ${r.path}`, r] as const))("%s", (_name, route) => {
   const body = () => route.body?.(own);
