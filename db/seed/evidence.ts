@@ -96,29 +96,25 @@ export async function seedEvidence(people: People) {
           updatedAt: moved ? answeredAt : sentAt,
         })
         .returning();
-      await tx
-        .insert(activityLog)
-        .values({
+      await tx.insert(activityLog).values({
+        workspaceId: ws.workspaceId,
+        actorId: lead,
+        action: "evidence.sent",
+        subjectType: "lot",
+        subjectId: lot.id,
+        detail: { demo: true, evidencePackId: packId, claimId: claim.id, claimRef, to: lot.contact },
+        createdAt: sentAt,
+      });
+      if (moved)
+        await tx.insert(activityLog).values({
           workspaceId: ws.workspaceId,
           actorId: lead,
-          action: "evidence.sent",
+          action: "claim.updated",
           subjectType: "lot",
           subjectId: lot.id,
-          detail: { demo: true, evidencePackId: packId, claimId: claim.id, claimRef, to: lot.contact },
-          createdAt: sentAt,
+          detail: { demo: true, claimId: claim.id, status: spec.status, note: spec.note },
+          createdAt: answeredAt,
         });
-      if (moved)
-        await tx
-          .insert(activityLog)
-          .values({
-            workspaceId: ws.workspaceId,
-            actorId: lead,
-            action: "claim.updated",
-            subjectType: "lot",
-            subjectId: lot.id,
-            detail: { demo: true, claimId: claim.id, status: spec.status, note: spec.note },
-            createdAt: answeredAt,
-          });
     });
     seeded.push({ purchaseRef: spec.purchaseRef, claim: claimRef, status: spec.status });
   }
