@@ -4,6 +4,7 @@
  */
 import { sql } from "drizzle-orm";
 import { closeDb, db } from "./client";
+import { seedCalibration } from "./seed/calibration";
 import { seedEvidence } from "./seed/evidence";
 import { seedGallery } from "./seed/gallery";
 import { seedLots } from "./seed/lots";
@@ -32,9 +33,22 @@ export async function seedDemo() {
   const photos = await seedPhotos();
   // Needs the published rubrics (each example's grade is what its rubric says of its regions).
   const gallery = await seedGallery();
+  // A calibration set of those examples with one passing and one failing attempt.
+  const calibration = await seedCalibration();
   // So a newcomer's Bench shows learned ghosts (the demo has too few marked regions to train on).
   const suggestionModel = await seedSuggestionModel();
-  return { seeded: true as const, people, partTypes, lots, rubrics, evidence, photos, gallery, suggestionModel };
+  return {
+    seeded: true as const,
+    people,
+    partTypes,
+    lots,
+    rubrics,
+    evidence,
+    photos,
+    gallery,
+    calibration,
+    suggestionModel,
+  };
 }
 
 if (import.meta.url === `file://${process.argv[1]}`) {

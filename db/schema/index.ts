@@ -6,5 +6,6 @@ export * from "./grading";
 export * from "./gallery";
 export * from "./suggestions";
 export * from "./certificates";
+export * from "./calibration";
 export * from "./recheck";
 export * from "./evidence";

@@ -12,6 +12,21 @@ import { partTypes, units } from "./lots";
 import { photos } from "./photos";
 import { sameWorkspace } from "./workspace-keys";
 
+/**
+ * Why a grader's rate was raised: their drift over `weeks` (reasons "below_threshold" /
+ * "below_team") and/or their last submitted calibration attempt failing (reason
+ * "calibration_failed", with that attempt). Records made before calibration counted lack
+ * `lastCalibration`.
+ */
+export type RaisedRateReason = {
+  drifting: boolean;
+  reasons: string[];
+  agreement: number | null;
+  n: number;
+  weeks: string[];
+  lastCalibration?: { attemptId: string; setId: string; submittedAt: string; passed: boolean };
+};
+
 /** What a recorded draw ran on: everything drawRechecks needs to give the same answer again. */
 export type RecheckDrawInputRecord = {
   period: string;
@@ -23,7 +38,7 @@ export type RecheckDrawInputRecord = {
   final: boolean;
   auditorIds: string[];
   /** Why a grader's rate in `graderRates` is raised (lib/recheck/raised-rate.ts); older records lack it. */
-  raisedFor?: Record<string, { drifting: boolean; reasons: string[]; agreement: number | null; n: number; weeks: string[] }>;
+  raisedFor?: Record<string, RaisedRateReason>;
 };
 export type RecheckDrawOutcome = { drawn: string[]; graders: GraderDraw[]; noOtherAuditor: string[] };
 

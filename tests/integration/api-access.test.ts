@@ -3,6 +3,7 @@ import { holders } from "@/lib/auth/permissions";
 import { ROLES, type Role } from "@/lib/auth/roles";
 import { api, signIn, type Session } from "../support/http";
 import { createUser, TEST_PASSWORD, uniqueEmail, workspaceBySlug } from "../support/db";
+import { calibrationFixtureIds } from "../support/calibration-access";
 import { certificateFixtureIds } from "../support/certificate-access";
 import { evidenceFixtureIds } from "../support/evidence-access";
 import { galleryFixtureIds } from "../support/gallery-access";
@@ -43,6 +44,7 @@ async function fixtureIds(lead: Session): Promise<Ids> {
     ...grading,
     ...(await certificateFixtureIds(lead, grading.unitId)),
     ...(await galleryFixtureIds(lead)),
+    ...(await calibrationFixtureIds(lead)),
     ...(await queueFixtureIds(lead)),
     ...(await recheckFixtureIds(lead)),
     ...(await photoFixtureIds(lead)),
