@@ -4,12 +4,13 @@ import "server-only";
  * statements of ./leases.ts), the auditor's separate region sets, and who opened a unit's
  * inspection data. Every query is scoped by workspace; the decisions are in lib/recheck.
  */
-import { and, asc, desc, eq, gte, inArray, isNull, sql } from "drizzle-orm";
+import { and, asc, desc, eq, gte, inArray, isNull, lte, sql } from "drizzle-orm";
 import { db, executePrepared, type DbOrTx } from "@/db/client";
-import { checklistResults, grades, lots, partTypes, photos, recheckDraws, recheckRegionSets, rechecks, rubricVersions, unitOpenings, units, users, workspaces, type NewRecheckRow } from "@/db/schema";
+import { checklistResults, graderDayCounts, grades, lots, partTypes, photos, recheckDraws, recheckRegionSets, rechecks, rubricVersions, unitOpenings, units, users, workspaces, type NewRecheckRow } from "@/db/schema";
 import type { RecheckDrawInputRecord, RecheckDrawOutcome } from "@/db/schema/recheck";
 import type { RegionSetPayload } from "@/lib/geometry/validate";
 import type { RecheckSettings } from "@/lib/recheck/settings";
+import type { Grade } from "@/lib/grading/rubric-schema";
 import { ASYNC_COMMIT, leaseColumns, leaseEnd, noLease } from "./leases";
 
 type Scope = { workspaceId: string };
@@ -77,7 +78,7 @@ export function getRecheckDraw({ workspaceId, drawId }: Scope & { drawId: string
 /** The unit's current grade row (the last one) with its grader; undefined when ungraded. */
 export async function getCurrentGrade({ workspaceId, unitId }: Scope & { unitId: string }, tx: DbOrTx = db()) {
   const [row] = await tx
-    .select({ id: grades.id, kind: grades.kind, gradedBy: grades.gradedBy, rubricVersionId: grades.rubricVersionId, finalGrade: grades.finalGrade, partTypeId: units.partTypeId })
+    .select({ id: grades.id, kind: grades.kind, gradedBy: grades.gradedBy, rubricVersionId: grades.rubricVersionId, finalGrade: grades.finalGrade, createdAt: grades.createdAt, partTypeId: units.partTypeId })
     .from(grades)
     .innerJoin(units, eq(units.id, grades.unitId))
     .where(and(eq(grades.workspaceId, workspaceId), eq(grades.unitId, unitId)))
@@ -90,7 +91,7 @@ export async function getCurrentGrade({ workspaceId, unitId }: Scope & { unitId:
 export function listGradeFacts({ workspaceId, gradeIds }: Scope & { gradeIds: string[] }, tx: DbOrTx = db()) {
   if (gradeIds.length === 0) return Promise.resolve([]);
   return tx
-    .select({ gradeId: grades.id, unitId: grades.unitId, firstGraderId: grades.gradedBy, partTypeId: units.partTypeId, rubricVersionId: grades.rubricVersionId })
+    .select({ gradeId: grades.id, unitId: grades.unitId, firstGraderId: grades.gradedBy, firstGrade: grades.finalGrade, firstGradedAt: grades.createdAt, partTypeId: units.partTypeId, rubricVersionId: grades.rubricVersionId })
     .from(grades)
     .innerJoin(units, eq(units.id, grades.unitId))
     .where(and(eq(grades.workspaceId, workspaceId), inArray(grades.id, gradeIds)))
@@ -344,10 +345,13 @@ export async function getLotStatus({ workspaceId, lotId }: Scope & { lotId: stri
   return row;
 }
 
-export async function settleRecheck(tx: DbOrTx, { workspaceId, recheckId, adjudicatedBy, choice, reason, gradeId, decidedLotAffected }: Scope & { recheckId: string; adjudicatedBy: string; choice: "first" | "recheck" | "own"; reason: string; gradeId: string; decidedLotAffected: boolean }) {
+export async function settleRecheck(
+  tx: DbOrTx,
+  { workspaceId, recheckId, adjudicatedBy, choice, reason, gradeId, grade, decidedLotAffected }: Scope & { recheckId: string; adjudicatedBy: string; choice: "first" | "recheck" | "own"; reason: string; gradeId: string; grade: Grade; decidedLotAffected: boolean },
+) {
   await tx
     .update(rechecks)
-    .set({ status: "settled", adjudicatedBy, adjudicationChoice: choice, adjudicationReason: reason, adjudicationGradeId: gradeId, adjudicatedAt: sql`now()`, decidedLotAffected })
+    .set({ status: "settled", adjudicatedBy, adjudicationChoice: choice, adjudicationReason: reason, adjudicationGradeId: gradeId, adjudicatedGrade: grade, adjudicatedAt: sql`now()`, decidedLotAffected })
     .where(and(eq(rechecks.workspaceId, workspaceId), eq(rechecks.id, recheckId)));
 }
 
@@ -373,32 +377,33 @@ export function listDecidedLotAffected({ workspaceId, lotId }: Scope & { lotId: 
     .orderBy(asc(rechecks.adjudicatedAt));
 }
 
-// Scorecards.
+// Scorecards. Both reads touch only rows made for them (migration 0021): the per-day counts and
+// the recheck rows, which carry their grade's facts; neither scans the period's grades.
 
 /** Local midnight of `date` in `timeZone`, as an SQL timestamptz. */
 const localMidnight = (date: string, timeZone: string) => sql`((${date}::date)::timestamp AT TIME ZONE ${timeZone})`;
 
-/** Inspection grades per grader and local day in [from, to] (local dates, both included). */
-export async function countGradesByGraderAndDay({ workspaceId, from, to, timeZone }: Scope & { from: string; to: string; timeZone: string }, tx: DbOrTx = db()) {
-  const { rows } = await tx.execute<{ grader_id: string; day: string; count: number }>(sql`
-    SELECT graded_by AS grader_id, to_char((created_at AT TIME ZONE ${timeZone})::date, 'YYYY-MM-DD') AS day, count(*)::int AS count
-    FROM grades
-    WHERE workspace_id = ${workspaceId} AND kind = 'inspection'
-      AND created_at >= ${localMidnight(from, timeZone)} AND created_at < ${localMidnight(to, timeZone)} + interval '1 day'
-    GROUP BY 1, 2`);
-  return rows.map((row) => ({ graderId: row.grader_id, day: row.day, count: row.count }));
+/**
+ * Inspection grades per grader and local day in [from, to] (local dates, both included), from
+ * grader_day_counts (kept by triggers in the workspace's current time zone, which is the one
+ * the scorecards use).
+ */
+export async function countGradesByGraderAndDay({ workspaceId, from, to }: Scope & { from: string; to: string }, tx: DbOrTx = db()) {
+  const rows = await tx
+    .select({ graderId: graderDayCounts.graderId, day: graderDayCounts.day, count: graderDayCounts.graded })
+    .from(graderDayCounts)
+    .where(and(eq(graderDayCounts.workspaceId, workspaceId), gte(graderDayCounts.day, from), lte(graderDayCounts.day, to)));
+  return rows;
 }
 
 /** Submitted rechecks whose rechecked grade falls in [from, to]: both grades, the blind mark, the unit-level class IoU, any adjudicated grade. */
 export async function listSubmittedRechecksForPeriod({ workspaceId, from, to, timeZone }: Scope & { from: string; to: string; timeZone: string }, tx: DbOrTx = db()) {
   const { rows } = await tx.execute<{ grader_id: string; graded_at: Date; first_grade: string; recheck_grade: string; not_blind: boolean; classes: Record<string, { iou: number; unionPx: number }> | null; adjudicated_grade: string | null; unit_id: string }>(sql`
-    SELECT r.first_grader_id AS grader_id, g.created_at AS graded_at, g.final_grade AS first_grade, r.recheck_grade, r.not_blind,
-           r.comparison->'classes' AS classes, a.final_grade AS adjudicated_grade, r.unit_id
+    SELECT r.first_grader_id AS grader_id, r.first_graded_at AS graded_at, r.first_grade, r.recheck_grade, r.not_blind,
+           r.comparison->'classes' AS classes, r.adjudicated_grade, r.unit_id
     FROM rechecks r
-    JOIN grades g ON g.id = r.grade_id
-    LEFT JOIN grades a ON a.id = r.adjudication_grade_id
     WHERE r.workspace_id = ${workspaceId} AND r.submitted_at IS NOT NULL
-      AND g.created_at >= ${localMidnight(from, timeZone)} AND g.created_at < ${localMidnight(to, timeZone)} + interval '1 day'`);
+      AND r.first_graded_at >= ${localMidnight(from, timeZone)} AND r.first_graded_at < ${localMidnight(to, timeZone)} + interval '1 day'`);
   return rows;
 }
 
@@ -409,11 +414,10 @@ export async function listSubmittedRechecksForPeriod({ workspaceId, from, to, ti
  */
 export async function countDriftWindow({ workspaceId, graderId, fromDay, until, timeZone }: Scope & { graderId: string; fromDay: string; until: Date; timeZone: string }, tx: DbOrTx = db()) {
   const { rows } = await tx.execute<{ mine: boolean; first_grade: string; recheck_grade: string; count: number }>(sql`
-    SELECT r.first_grader_id = ${graderId} AS mine, g.final_grade AS first_grade, r.recheck_grade, count(*)::int AS count
+    SELECT r.first_grader_id = ${graderId} AS mine, r.first_grade, r.recheck_grade, count(*)::int AS count
     FROM rechecks r
-    JOIN grades g ON g.id = r.grade_id
     WHERE r.workspace_id = ${workspaceId} AND r.submitted_at IS NOT NULL AND NOT r.not_blind
-      AND g.created_at >= ${localMidnight(fromDay, timeZone)} AND g.created_at < ${until.toISOString()}::timestamptz
+      AND r.first_graded_at >= ${localMidnight(fromDay, timeZone)} AND r.first_graded_at < ${until.toISOString()}::timestamptz
     GROUP BY 1, 2, 3`);
   return rows.map((row) => ({ mine: row.mine, firstGrade: row.first_grade, recheckGrade: row.recheck_grade, count: row.count }));
 }

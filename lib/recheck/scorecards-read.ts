@@ -37,7 +37,7 @@ export async function readScorecards(actor: Pick<SessionUser, "workspaceId">, qu
   const from = query.from ?? (query.to ? periodOfDate(query.to, "week") : fallback.from);
   const to = query.to ?? fallback.to;
   const key = { workspaceId: actor.workspaceId, from, to, timeZone };
-  const [graded, rows, names] = await Promise.all([countGradesByGraderAndDay(key), listSubmittedRechecksForPeriod(key), listWorkspaceUserNames(actor)]);
+  const [graded, rows, names] = await Promise.all([countGradesByGraderAndDay({ workspaceId: actor.workspaceId, from, to }), listSubmittedRechecksForPeriod(key), listWorkspaceUserNames(actor)]);
   const cards = buildScorecards({
     from,
     to,

@@ -94,6 +94,7 @@ describe("adjudication", () => {
     const [entry] = await db().select().from(activityLog).where(and(eq(activityLog.subjectType, "lot"), eq(activityLog.subjectId, row.lotId))).orderBy(desc(activityLog.createdAt)).limit(1);
     expect(entry).toMatchObject({ action: "lot.decided_lot_affected" });
     const [recheck] = await db().select().from(rechecks).where(eq(rechecks.id, recheckId));
-    expect(recheck).toMatchObject({ status: "settled", adjudicationChoice: "own", decidedLotAffected: true });
+    // The scorecards read the adjudicated grade from the recheck row (migration 0021).
+    expect(recheck).toMatchObject({ status: "settled", adjudicationChoice: "own", adjudicatedGrade: "B", decidedLotAffected: true });
   });
 });
