@@ -396,15 +396,48 @@ export async function countGradesByGraderAndDay({ workspaceId, from, to }: Scope
   return rows;
 }
 
-/** Submitted rechecks whose rechecked grade falls in [from, to]: both grades, the blind mark, the unit-level class IoU, any adjudicated grade. */
-export async function listSubmittedRechecksForPeriod({ workspaceId, from, to, timeZone }: Scope & { from: string; to: string; timeZone: string }, tx: DbOrTx = db()) {
-  const { rows } = await tx.execute<{ grader_id: string; graded_at: Date; first_grade: string; recheck_grade: string; not_blind: boolean; classes: Record<string, { iou: number; unionPx: number }> | null; adjudicated_grade: string | null; unit_id: string }>(sql`
-    SELECT r.first_grader_id AS grader_id, r.first_graded_at AS graded_at, r.first_grade, r.recheck_grade, r.not_blind,
-           r.comparison->'classes' AS classes, r.adjudicated_grade, r.unit_id
+/** The period's submitted rechecks: those whose rechecked grade was recorded on a local day in [from, to]. */
+const submittedInPeriod = (workspaceId: string, from: string, to: string, timeZone: string) => sql`
+    r.workspace_id = ${workspaceId} AND r.submitted_at IS NOT NULL
+    AND r.first_graded_at >= ${localMidnight(from, timeZone)} AND r.first_graded_at < ${localMidnight(to, timeZone)} + interval '1 day'`;
+/** The local week (its Monday, as lib/time/periods.ts counts weeks) of the rechecked grade. */
+const localWeek = (timeZone: string) => sql`to_char(date_trunc('week', r.first_graded_at AT TIME ZONE ${timeZone}), 'YYYY-MM-DD')`;
+
+/**
+ * The period's submitted rechecks counted per grader, local week, first grade, recheck grade and
+ * blind mark (lib/recheck/scorecard.ts `RecheckCount`): about a thousand rows for 5 000 rechecks.
+ */
+export async function countRechecksByGraderAndWeek({ workspaceId, from, to, timeZone }: Scope & { from: string; to: string; timeZone: string }, tx: DbOrTx = db()) {
+  const { rows } = await tx.execute<{ grader_id: string; week: string; first_grade: Grade; recheck_grade: Grade; not_blind: boolean; count: number }>(sql`
+    SELECT r.first_grader_id AS grader_id, ${localWeek(timeZone)} AS week, r.first_grade, r.recheck_grade, r.not_blind, count(*)::int AS count
     FROM rechecks r
-    WHERE r.workspace_id = ${workspaceId} AND r.submitted_at IS NOT NULL
-      AND r.first_graded_at >= ${localMidnight(from, timeZone)} AND r.first_graded_at < ${localMidnight(to, timeZone)} + interval '1 day'`);
-  return rows;
+    WHERE ${submittedInPeriod(workspaceId, from, to, timeZone)}
+    GROUP BY 1, 2, 3, 4, 5`);
+  return rows.map((row) => ({ graderId: row.grader_id, week: row.week, firstGrade: row.first_grade, recheckGrade: row.recheck_grade, blind: !row.not_blind, count: row.count }));
+}
+
+/**
+ * Per grader, local week and defect class, the class IoU of the period's blind rechecks where the
+ * class was in play (union > 0 in the stored comparison), summed, and how many
+ * (lib/recheck/scorecard.ts `ClassIouSum`).
+ */
+export async function sumClassIouByGraderAndWeek({ workspaceId, from, to, timeZone }: Scope & { from: string; to: string; timeZone: string }, tx: DbOrTx = db()) {
+  const { rows } = await tx.execute<{ grader_id: string; week: string; defect: string; sum: number; n: number }>(sql`
+    SELECT r.first_grader_id AS grader_id, ${localWeek(timeZone)} AS week, c.key AS defect, sum((c.value->>'iou')::float8) AS sum, count(*)::int AS n
+    FROM rechecks r CROSS JOIN LATERAL jsonb_each(r.comparison->'classes') c
+    WHERE ${submittedInPeriod(workspaceId, from, to, timeZone)} AND NOT r.not_blind AND (c.value->>'unionPx')::float8 > 0
+    GROUP BY 1, 2, 3`);
+  return rows.map((row) => ({ graderId: row.grader_id, week: row.week, defect: row.defect, sum: Number(row.sum), n: row.n }));
+}
+
+/** The period's blind rechecks counted per grade set (first, recheck, adjudicated or null): at most 4 × 4 × 5 rows, for alpha and AC1. */
+export async function countRecheckGradeSets({ workspaceId, from, to, timeZone }: Scope & { from: string; to: string; timeZone: string }, tx: DbOrTx = db()) {
+  const { rows } = await tx.execute<{ first_grade: Grade; recheck_grade: Grade; adjudicated_grade: Grade | null; count: number }>(sql`
+    SELECT r.first_grade, r.recheck_grade, r.adjudicated_grade, count(*)::int AS count
+    FROM rechecks r
+    WHERE ${submittedInPeriod(workspaceId, from, to, timeZone)} AND NOT r.not_blind
+    GROUP BY 1, 2, 3`);
+  return rows.map((row) => ({ firstGrade: row.first_grade, recheckGrade: row.recheck_grade, adjudicatedGrade: row.adjudicated_grade, count: row.count }));
 }
 
 /**
