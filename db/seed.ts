@@ -9,6 +9,7 @@ import { seedLots } from "./seed/lots";
 import { seedPartTypes } from "./seed/part-types";
 import { seedPeople } from "./seed/people";
 import { seedPhotos } from "./seed/photos";
+import { seedRechecks } from "./seed/rechecks";
 import { seedRubrics } from "./seed/rubrics";
 import { seedSuggestionModel } from "./seed/suggestion-model";
 
@@ -29,9 +30,11 @@ export async function seedDemo() {
   const photos = await seedPhotos();
   // Needs the published rubrics (each example's grade is what its rubric says of its regions).
   const gallery = await seedGallery();
+  // Needs the photos' planted marks and the rubrics: recheck history for the scorecards, a recheck to do, a disagreement to settle.
+  const rechecks = await seedRechecks("vellmoor", photos.planted);
   // So a newcomer's Bench shows learned ghosts (the demo has too few marked regions to train on).
   const suggestionModel = await seedSuggestionModel();
-  return { seeded: true as const, people, partTypes, lots, rubrics, photos, gallery, suggestionModel };
+  return { seeded: true as const, people, partTypes, lots, rubrics, photos: { photos: photos.photos, units: photos.units, reused: photos.reused }, gallery, rechecks, suggestionModel };
 }
 
 if (import.meta.url === `file://${process.argv[1]}`) {

@@ -65,10 +65,20 @@ export async function insertRecheckDraw(tx: DbOrTx, row: { workspaceId: string; 
   return inserted;
 }
 
+/** The rechecked grade's final grade and time, copied by the database itself (a timestamp through JavaScript would lose its microseconds). */
+export const firstGradeFacts = (gradeId: string) => ({
+  firstGrade: sql<Grade>`(SELECT g.final_grade FROM grades g WHERE g.id = ${gradeId})`,
+  firstGradedAt: sql<Date>`(SELECT g.created_at FROM grades g WHERE g.id = ${gradeId})`,
+});
+
 /** Adds rechecks; a grade that already has one is skipped (rechecks_grade_key), never doubled. Returns the rows made. */
-export function insertRechecks(tx: DbOrTx, rows: NewRecheckRow[]) {
+export function insertRechecks(tx: DbOrTx, rows: Omit<NewRecheckRow, "firstGrade" | "firstGradedAt">[]) {
   if (rows.length === 0) return Promise.resolve([]);
-  return tx.insert(rechecks).values(rows).onConflictDoNothing({ target: rechecks.gradeId }).returning({ id: rechecks.id, gradeId: rechecks.gradeId, unitId: rechecks.unitId });
+  return tx
+    .insert(rechecks)
+    .values(rows.map((row) => ({ ...row, ...firstGradeFacts(row.gradeId) })))
+    .onConflictDoNothing({ target: rechecks.gradeId })
+    .returning({ id: rechecks.id, gradeId: rechecks.gradeId, unitId: rechecks.unitId });
 }
 
 export function getRecheckDraw({ workspaceId, drawId }: Scope & { drawId: string }, tx: DbOrTx = db()) {
@@ -78,7 +88,7 @@ export function getRecheckDraw({ workspaceId, drawId }: Scope & { drawId: string
 /** The unit's current grade row (the last one) with its grader; undefined when ungraded. */
 export async function getCurrentGrade({ workspaceId, unitId }: Scope & { unitId: string }, tx: DbOrTx = db()) {
   const [row] = await tx
-    .select({ id: grades.id, kind: grades.kind, gradedBy: grades.gradedBy, rubricVersionId: grades.rubricVersionId, finalGrade: grades.finalGrade, createdAt: grades.createdAt, partTypeId: units.partTypeId })
+    .select({ id: grades.id, kind: grades.kind, gradedBy: grades.gradedBy, rubricVersionId: grades.rubricVersionId, finalGrade: grades.finalGrade, partTypeId: units.partTypeId })
     .from(grades)
     .innerJoin(units, eq(units.id, grades.unitId))
     .where(and(eq(grades.workspaceId, workspaceId), eq(grades.unitId, unitId)))
@@ -91,7 +101,7 @@ export async function getCurrentGrade({ workspaceId, unitId }: Scope & { unitId:
 export function listGradeFacts({ workspaceId, gradeIds }: Scope & { gradeIds: string[] }, tx: DbOrTx = db()) {
   if (gradeIds.length === 0) return Promise.resolve([]);
   return tx
-    .select({ gradeId: grades.id, unitId: grades.unitId, firstGraderId: grades.gradedBy, firstGrade: grades.finalGrade, firstGradedAt: grades.createdAt, partTypeId: units.partTypeId, rubricVersionId: grades.rubricVersionId })
+    .select({ gradeId: grades.id, unitId: grades.unitId, firstGraderId: grades.gradedBy, partTypeId: units.partTypeId, rubricVersionId: grades.rubricVersionId })
     .from(grades)
     .innerJoin(units, eq(units.id, grades.unitId))
     .where(and(eq(grades.workspaceId, workspaceId), inArray(grades.id, gradeIds)))

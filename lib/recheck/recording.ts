@@ -107,7 +107,7 @@ export async function sendToRecheck(actor: Pick<SessionUser, "id" | "workspaceId
     const grade = await getCurrentGrade({ workspaceId: actor.workspaceId, unitId: input.unitId }, tx);
     if (!grade) throw new AppError("conflict", "This unit has no grade yet, so there is nothing to recheck. Send it once it is graded.");
     const [made] = await insertRechecks(tx, [
-      { workspaceId: actor.workspaceId, unitId: input.unitId, gradeId: grade.id, firstGraderId: grade.gradedBy, firstGrade: grade.finalGrade, firstGradedAt: grade.createdAt, partTypeId: grade.partTypeId, rubricVersionId: grade.rubricVersionId, reason: "by_hand", sentBy: actor.id, sentNote: input.note ?? null },
+      { workspaceId: actor.workspaceId, unitId: input.unitId, gradeId: grade.id, firstGraderId: grade.gradedBy, partTypeId: grade.partTypeId, rubricVersionId: grade.rubricVersionId, reason: "by_hand", sentBy: actor.id, sentNote: input.note ?? null },
     ]);
     if (!made) throw new AppError("conflict", "This unit's current grade is already in recheck (or was rechecked); a grade is rechecked once.");
     await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.id, action: "recheck.sent", subjectType: "unit", subjectId: input.unitId, detail: { recheckId: made.id, gradeId: grade.id, note: input.note ?? null } });
