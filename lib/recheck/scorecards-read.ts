@@ -17,7 +17,6 @@ import "server-only";
  */
 import { countGradesByGraderAndDay, countRecheckGradeSets, countRechecksByGraderAndWeek, listWorkspaceUserNames, sumClassIouByGraderAndWeek } from "@/db/queries/rechecks";
 import type { SessionUser } from "@/lib/auth/require-user";
-import type { Grade } from "@/lib/grading/rubric-schema";
 import { localDate, nextPeriod, periodOfDate } from "@/lib/time/periods";
 import { recheckSettings } from "./recording";
 import type { ScorecardQuery } from "./schemas";
@@ -39,7 +38,8 @@ export async function readScorecards(actor: Pick<SessionUser, "workspaceId">, qu
   const from = query.from ?? (query.to ? periodOfDate(query.to, "week") : fallback.from);
   const to = query.to ?? fallback.to;
   const key = { workspaceId: actor.workspaceId, from, to, timeZone };
-  // Counted in SQL (db/queries/rechecks.ts): hundreds of rows come back, not one per grade or recheck.
+  // Counted in SQL (db/queries/rechecks.ts): hundreds of rows come back, not one per grade or recheck,
+  // so the work here does not grow with the period's grades and rechecks.
   const [graded, recheckCounts, classIouSums, gradeSets, names] = await Promise.all([
     countGradesByGraderAndDay(key),
     countRechecksByGraderAndWeek(key),
@@ -48,13 +48,11 @@ export async function readScorecards(actor: Pick<SessionUser, "workspaceId">, qu
     listWorkspaceUserNames(actor),
   ]);
   const cards = buildScorecards({ from, to, timeZone, graded, settings, recheckCounts, classIouSums });
-  // Alpha and AC1 take one entry per unit (lib/agreement has no weights): each counted grade set is repeated `count` times.
-  const units: Grade[][] = [];
-  for (const set of gradeSets) {
-    const grades = [set.firstGrade, set.recheckGrade, ...(set.adjudicatedGrade ? [set.adjudicatedGrade] : [])];
-    for (let i = 0; i < set.count; i++) units.push(grades);
-  }
-  const team = multiRaterAgreement(units);
+  // Each counted grade set stands for `count` units graded alike (alpha and AC1 take the counts as weights).
+  const team = multiRaterAgreement(
+    gradeSets.map((set) => [set.firstGrade, set.recheckGrade, ...(set.adjudicatedGrade ? [set.adjudicatedGrade] : [])]),
+    { counts: gradeSets.map((set) => set.count) },
+  );
   return { ...cards, settings, names: Object.fromEntries(cards.graders.map((g) => [g.graderId, names.get(g.graderId) ?? "someone no longer listed"])), multiRater: team, timeZone, nextWeek: nextPeriod(periodOfDate(to, "week"), "week") };
 }
 export type ScorecardsView = Awaited<ReturnType<typeof readScorecards>>;

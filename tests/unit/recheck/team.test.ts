@@ -76,4 +76,24 @@ describe("multiRaterAgreement", () => {
     expect(allA.alphaOrdinal).toBeNaN();
     expect(allA.ac1).toBeCloseTo(1, 12);
   });
+
+  it("counted units give the figures of the units written out (the scorecards pass grade sets with counts)", () => {
+    // THREE_CODERS and FIVE_OBSERVERS with each unit repeated 1, 2, 3, … times, against the same units counted.
+    for (const data of [THREE_CODERS, FIVE_OBSERVERS]) {
+      const counts = data.map((_, index) => (index % 4) + 1);
+      const written = multiRaterAgreement(data.flatMap((unit, index) => Array.from({ length: counts[index] }, () => unit)));
+      const counted = multiRaterAgreement(data, { counts });
+      expect(counted.units).toBe(written.units);
+      expect(counted.unitsWithMoreThanTwo).toBe(written.unitsWithMoreThanTwo);
+      expect(counted.grades).toBe(written.grades);
+      expect(counted.alphaOrdinal).toBeCloseTo(written.alphaOrdinal, 12);
+      expect(counted.ac1).toBeCloseTo(written.ac1, 12);
+      // And not the figures of the units counted once (the counts change them).
+      expect(Math.abs(counted.alphaOrdinal - multiRaterAgreement(data).alphaOrdinal)).toBeGreaterThan(1e-6);
+    }
+    // A count of 0 leaves the unit out; a count that is not a whole number is refused.
+    expect(multiRaterAgreement([["A", "B"], ["A", "A"]], { counts: [0, 3] }).units).toBe(3);
+    expect(() => multiRaterAgreement([["A", "B"]], { counts: [1.5] })).toThrow(/whole number/);
+    expect(() => multiRaterAgreement([["A", "B"]], { counts: [1, 2] })).toThrow(/one entry per unit/);
+  });
 });
