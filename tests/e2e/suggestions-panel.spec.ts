@@ -71,9 +71,9 @@ test("Train now queues a training in the worker and the panel shows how it ended
 
   // Queued for this workspace, asked for by this trainer, in the worker's training queue.
   const queued = async () =>
-    (await db.query<{ state: string }>("SELECT state FROM pgboss.job WHERE name = 'suggestion-training' AND data->>'workspaceId' = $1 AND data->>'requestedBy' = $2", [ws[0].id, people[0].id])).rows.map(
-      (row) => row.state,
-    );
+    (
+      await db.query<{ state: string }>("SELECT state FROM pgboss.job WHERE name = 'suggestion-training' AND data->>'workspaceId' = $1 AND data->>'requestedBy' = $2", [ws[0].id, people[0].id])
+    ).rows.map((row) => row.state);
   await expect.poll(queued, { timeout: 15_000 }).toHaveLength(1);
   // The worker takes it; with no accepted regions it trains nothing, and says why.
   await expect.poll(queued, { timeout: 150_000 }).toEqual(["completed"]);
