@@ -53,20 +53,11 @@ export default defineConfig([
     rules: { "@typescript-eslint/no-restricted-imports": outsideDb },
   },
   {
-    // Not moved yet: these files are being rewritten on the branch of issue 14 part B (accounts,
-    // sign-in limits, mail, jobs); their SQL moves to db/queries once that lands. Do not add more.
-    files: ["lib/accounts/**", "lib/auth/**", "lib/jobs/**", "lib/mail/**", "lib/people/**", "lib/rate-limit/**"],
-    rules: { "@typescript-eslint/no-restricted-imports": "off" },
-  },
-  {
     // Benchmarks and the shared support/ folder (PRNG, synthetic photos, exact areas) never reach
     // into tests/: what both need lives in support/ (DEVELOPERS.md, "Tests").
     files: ["bench/**", "support/**"],
     rules: {
-      "no-restricted-imports": [
-        "error",
-        { patterns: [{ regex: "^(@/|(\\.\\.?/)+)tests(/|$)", message: "bench/ and support/ do not import tests/: move what both need to support/." }] },
-      ],
+      "no-restricted-imports": ["error", { patterns: [{ regex: "^(@/|(\\.\\.?/)+)tests(/|$)", message: "bench/ and support/ do not import tests/: move what both need to support/." }] }],
     },
   },
   {

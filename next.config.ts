@@ -24,7 +24,12 @@ const nextConfig: NextConfig = {
   async headers() {
     const headers = Object.entries(staticSecurityHeaders({ https: false })).map(([key, value]) => ({ key, value }));
     const api = [...headers, { key: "Content-Security-Policy", value: API_CONTENT_SECURITY_POLICY }];
-    return [{ source: "/_next/static/:path*", headers }, { source: "/favicon.ico", headers }, { source: "/icon.svg", headers }, { source: "/api/:path*", headers: api }];
+    return [
+      { source: "/_next/static/:path*", headers },
+      { source: "/favicon.ico", headers },
+      { source: "/icon.svg", headers },
+      { source: "/api/:path*", headers: api },
+    ];
   },
 };
 

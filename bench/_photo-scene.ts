@@ -102,7 +102,11 @@ export function buildComparedPair(index: number): RegionSetComparisonInput {
   for (let k = 0; k < 4; k++) {
     const x = 400 + random() * 3200;
     const y = 300 + random() * 2400;
-    b.push(k % 2 === 0 ? { id: `extra${k}`, defect: "dust", shape: { kind: "spot", x, y, radius: 5 + random() * 15 } } : { id: `extra${k}`, defect: "dent", shape: { kind: "rect", x, y, width: 40 + random() * 80, height: 30 + random() * 60 } });
+    b.push(
+      k % 2 === 0
+        ? { id: `extra${k}`, defect: "dust", shape: { kind: "spot", x, y, radius: 5 + random() * 15 } }
+        : { id: `extra${k}`, defect: "dent", shape: { kind: "rect", x, y, width: 40 + random() * 80, height: 30 + random() * 60 } },
+    );
   }
   return { width: scene.width, height: scene.height, a: scene.regions, b, surface: scene.surface };
 }

@@ -110,10 +110,10 @@ for (const defect of Object.keys(measured.byDefect)) {
   const px = measured.byDefect[defect].px;
   const error = Math.abs(px - exact) / exact;
   worstError = Math.max(worstError, error);
-  console.log(
-    `  ${defect.padEnd(8)} px ${px} (baseline ${naive.result[defect].px}) exact ${exact.toFixed(1)} → error ${(error * 100).toFixed(3)} %, count ${measured.byDefect[defect].count}`,
-  );
+  console.log(`  ${defect.padEnd(8)} px ${px} (baseline ${naive.result[defect].px}) exact ${exact.toFixed(1)} → error ${(error * 100).toFixed(3)} %, count ${measured.byDefect[defect].count}`);
 }
 const exactSurface = multiPolygonArea(exactUnion(scene.surface ?? []));
-console.log(`  surface  px ${measured.surfacePx} (baseline ${naive.surfacePx}) exact ${exactSurface.toFixed(1)} → error ${((Math.abs(measured.surfacePx - exactSurface) / exactSurface) * 100).toFixed(4)} %`);
+console.log(
+  `  surface  px ${measured.surfacePx} (baseline ${naive.surfacePx}) exact ${exactSurface.toFixed(1)} → error ${((Math.abs(measured.surfacePx - exactSurface) / exactSurface) * 100).toFixed(4)} %`,
+);
 console.log(`relative area error vs exact (worst class): ${(worstError * 100).toFixed(3)} % (target <= 1 %)`);

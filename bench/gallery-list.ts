@@ -30,11 +30,56 @@ const ms = (v: number) => `${v.toFixed(1)} ms`;
 function regionsOf(i: number) {
   const x = 800 + (i % 7) * 100;
   const regions = [
-    { id: "d1", defect: "scratch", shape: { kind: "line", points: [[x, 900], [x + 600, 1200], [x + 900, 1300]], width: 12 } },
+    {
+      id: "d1",
+      defect: "scratch",
+      shape: {
+        kind: "line",
+        points: [
+          [x, 900],
+          [x + 600, 1200],
+          [x + 900, 1300],
+        ],
+        width: 12,
+      },
+    },
     { id: "d2", defect: "dent", shape: { kind: "spot", x: 2400, y: 1600 + (i % 5) * 40, radius: 60 } },
-    ...(i % 3 === 0 ? [{ id: "d3", defect: "stain", shape: { kind: "polygon", points: [[2800, 1000], [3100, 1050], [3050, 1300], [2780, 1250]] } }] : []),
+    ...(i % 3 === 0
+      ? [
+          {
+            id: "d3",
+            defect: "stain",
+            shape: {
+              kind: "polygon",
+              points: [
+                [2800, 1000],
+                [3100, 1050],
+                [3050, 1300],
+                [2780, 1250],
+              ],
+            },
+          },
+        ]
+      : []),
   ];
-  return { regions, surfaces: [{ id: "s", shape: { kind: "polygon", points: [[600, 500], [3400, 500], [3400, 2500], [600, 2500]] } }], ruler: null };
+  return {
+    regions,
+    surfaces: [
+      {
+        id: "s",
+        shape: {
+          kind: "polygon",
+          points: [
+            [600, 500],
+            [3400, 500],
+            [3400, 2500],
+            [600, 2500],
+          ],
+        },
+      },
+    ],
+    ruler: null,
+  };
 }
 
 async function setUp() {
@@ -45,7 +90,10 @@ async function setUp() {
     if (!rows[0]) ({ rows } = await c.query("INSERT INTO workspaces (name, slug) VALUES ('Gallery bench (generated)', 'gallery-bench') RETURNING id"));
     const ws = rows[0].id as string;
     const passwordHash = await hash(PASSWORD);
-    for (const [email, role] of [["bench-trainer@gallery-bench.example", "trainer"], ["bench-inspector@gallery-bench.example", "inspector"]]) {
+    for (const [email, role] of [
+      ["bench-trainer@gallery-bench.example", "trainer"],
+      ["bench-inspector@gallery-bench.example", "inspector"],
+    ]) {
       await c.query(
         `INSERT INTO users (workspace_id, email, name, password_hash, roles) VALUES ($1, $2, $3, $4, $5) ON CONFLICT (email) DO UPDATE SET password_hash = EXCLUDED.password_hash, active = true`,
         [ws, email, `Bench ${role}`, passwordHash, [role]],
@@ -57,7 +105,18 @@ async function setUp() {
       pt = (
         await c.query(
           `INSERT INTO part_types (workspace_id, slug, name, category, views, defect_classes, checklist) VALUES ($1, 'gallery-bench-part', 'Gallery bench part', 'housing', $2, $3, '[]') RETURNING id`,
-          [ws, JSON.stringify([{ key: "front", label: "Front", required: true, zones: [] }, { key: "back", label: "Back", required: true, zones: [] }]), JSON.stringify([{ key: "scratch", label: "Scratch", severity: "minor" }, { key: "dent", label: "Dent", severity: "minor" }, { key: "stain", label: "Stain", severity: "minor" }])],
+          [
+            ws,
+            JSON.stringify([
+              { key: "front", label: "Front", required: true, zones: [] },
+              { key: "back", label: "Back", required: true, zones: [] },
+            ]),
+            JSON.stringify([
+              { key: "scratch", label: "Scratch", severity: "minor" },
+              { key: "dent", label: "Dent", severity: "minor" },
+              { key: "stain", label: "Stain", severity: "minor" },
+            ]),
+          ],
         )
       ).rows[0];
     }
@@ -76,7 +135,20 @@ async function setUp() {
       await c.query(
         `INSERT INTO gallery_items (workspace_id, part_type_id, view_key, status, kind, photo_id, regions, defect_classes, grade, caption, created_by, published_by, published_at, created_at)
          VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9, $10, $11, CASE WHEN $4 = 'draft' THEN NULL ELSE $11::uuid END, CASE WHEN $4 = 'draft' THEN NULL ELSE now() END, now() - ($12 || ' seconds')::interval)`,
-        [ws, pt.id, i % 4 === 0 ? "back" : "front", i % 50 === 0 ? "draft" : "published", normal ? "normal" : "abnormal", photoId, JSON.stringify(regions), classes, normal ? "A" : GRADES[1 + (i % 3)], `Generated example ${i + 1}: a scratch and a dent on the housing, graded by the bench.`, trainer, String(i)],
+        [
+          ws,
+          pt.id,
+          i % 4 === 0 ? "back" : "front",
+          i % 50 === 0 ? "draft" : "published",
+          normal ? "normal" : "abnormal",
+          photoId,
+          JSON.stringify(regions),
+          classes,
+          normal ? "A" : GRADES[1 + (i % 3)],
+          `Generated example ${i + 1}: a scratch and a dent on the housing, graded by the bench.`,
+          trainer,
+          String(i),
+        ],
       );
     }
     await c.query("COMMIT");
@@ -123,7 +195,9 @@ async function walk(cookie: string, query: string) {
 }
 
 async function main() {
-  const health = await fetch(`${BASE}/api/health`).then((r) => r.json()).catch(() => null);
+  const health = await fetch(`${BASE}/api/health`)
+    .then((r) => r.json())
+    .catch(() => null);
   if (health?.app !== "partproof") {
     console.log(`No Partproof app answers at ${BASE}: not measured. Start it with \`npm start\` (or set BENCH_BASE_URL), then run \`npm run bench -- gallery-list\`.`);
     return;
@@ -140,9 +214,14 @@ async function main() {
   for (const [label, cookie, query] of runs) {
     const { latencies, perWalk, seconds, bytesPerPage } = await walk(cookie, query);
     console.log(`${label}: ${CONNECTIONS} connections × ${PASSES} walks, ${perWalk} items per walk, ${latencies.length} keyset pages of 48 (${(bytesPerPage / 1024).toFixed(0)} KiB each)`);
-    console.log(`   page latency p50 ${ms(percentile(latencies, 50))}, p95 ${ms(percentile(latencies, 95))} (target p95 <= 50 ms), p99 ${ms(percentile(latencies, 99))}; ${(latencies.length / seconds).toFixed(0)} pages/s`);
+    console.log(
+      `   page latency p50 ${ms(percentile(latencies, 50))}, p95 ${ms(percentile(latencies, 95))} (target p95 <= 50 ms), p99 ${ms(percentile(latencies, 99))}; ${(latencies.length / seconds).toFixed(0)} pages/s`,
+    );
   }
-  const load = (await import("node:os")).loadavg().map((l) => l.toFixed(2)).join(" ");
+  const load = (await import("node:os"))
+    .loadavg()
+    .map((l) => l.toFixed(2))
+    .join(" ");
   console.log(`load average (1, 5, 15 min): ${load}`);
 }
 

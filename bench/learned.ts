@@ -20,7 +20,10 @@ const cpuSeconds = () => {
   const { user, system } = process.cpuUsage();
   return (user + system) / 1e6;
 };
-const load = () => loadavg().map((v) => v.toFixed(1)).join(" ");
+const load = () =>
+  loadavg()
+    .map((v) => v.toFixed(1))
+    .join(" ");
 const asExample = (p: AnnotatedPartPhoto) => ({ image: p.jpeg, regions: p.regions, surface: [p.surface] });
 
 async function timedTraining(photos: AnnotatedPartPhoto[], options: TrainingOptions = {}) {
@@ -30,7 +33,10 @@ async function timedTraining(photos: AnnotatedPartPhoto[], options: TrainingOpti
 }
 
 async function heldOut(model: RegionModel, photos: AnnotatedPartPhoto[]): Promise<string> {
-  const evaluation = await evaluateRegionModel(model, photos.map((p) => ({ image: p.jpeg, width: p.width, height: p.height, regions: p.regions, surface: [p.surface] })));
+  const evaluation = await evaluateRegionModel(
+    model,
+    photos.map((p) => ({ image: p.jpeg, width: p.width, height: p.height, regions: p.regions, surface: [p.surface] })),
+  );
   return Object.entries(evaluation.byClass)
     .map(([defect, f]) => `${defect} recall ${f.recall.toFixed(2)} (${f.hits}/${f.accepted}) precision ${f.precision.toFixed(2)} (${f.hits}/${f.suggested})`)
     .join("; ");
@@ -59,13 +65,18 @@ for (let run = 0; run < 5; run++) {
   times.push(performance.now() - started);
 }
 times.sort((a, b) => a - b);
-console.log(`suggestions on a ${photo12mp.width} × ${photo12mp.height} JPEG (${(photo12mp.jpeg.length / 1e6).toFixed(1)} MB): median ${times[2].toFixed(0)} ms, min ${times[0].toFixed(0)} ms (target <= 1 000 ms), ${found} suggestions`);
+console.log(
+  `suggestions on a ${photo12mp.width} × ${photo12mp.height} JPEG (${(photo12mp.jpeg.length / 1e6).toFixed(1)} MB): median ${times[2].toFixed(0)} ms, min ${times[0].toFixed(0)} ms (target <= 1 000 ms), ${found} suggestions`,
+);
 
 // The same 40 training photos and forest size for both trainers; ml-random-forest gets a sample it
 // can train on in minutes (its split search grows with the square of the sample).
 const small = training.slice(0, 40);
 const shared = { trees: 15, refit: false } as const;
-for (const [name, options] of [["histogram forest", shared], ["ml-random-forest", { ...shared, trainer: "ml-random-forest", maxCellsPerClass: 200, maxNegativeCells: 500 }]] as const) {
+for (const [name, options] of [
+  ["histogram forest", shared],
+  ["ml-random-forest", { ...shared, trainer: "ml-random-forest", maxCellsPerClass: 200, maxNegativeCells: 500 }],
+] as const) {
   const run = await timedTraining(small, options);
   console.log(`${name} on 40 photos: ${run.wallS.toFixed(1)} s wall, ${run.cpuS.toFixed(1)} s CPU; held-out: ${await heldOut(run.model, test)}`);
 }

@@ -69,18 +69,46 @@ function worstCaseScene(rows: number): CoverageInput {
   const lines = Math.floor(rows / 2 / lineRows);
   for (let k = 0; k < lines; k++) {
     const x = (k * 7) % WIDTH;
-    regions.push({ id: `l${k}`, defect: "scratch", shape: { kind: "line", points: [[x, 0], [WIDTH - x, HEIGHT]], width: 200 } });
+    regions.push({
+      id: `l${k}`,
+      defect: "scratch",
+      shape: {
+        kind: "line",
+        points: [
+          [x, 0],
+          [WIDTH - x, HEIGHT],
+        ],
+        width: 200,
+      },
+    });
   }
   // Combs of 200 teeth across all rows (201 points, closed along the top edge, so they enclose
   // area and would pass the save validation), x decreasing: each row's crossings come in reverse order.
-  let left = rows - rasterRows(regions.map((r) => r.shape), frame);
+  let left =
+    rows -
+    rasterRows(
+      regions.map((r) => r.shape),
+      frame,
+    );
   for (let k = 0; left > 0; k++) {
     const points: Point[] = Array.from({ length: 201 }, (_, i) => [WIDTH - 1 - i * 15 - (k % 15), i % 2 ? HEIGHT : 0]);
     const shape: Shape = { kind: "polygon", points };
     const cost = rasterRows([shape], frame);
     if (cost > left) {
       // Top up with full-height Lines, then a box of exactly the rows still left.
-      for (let j = 0; left >= lineRows; j++, left -= lineRows) regions.push({ id: `t${j}`, defect: "scratch", shape: { kind: "line", points: [[j * 11, 0], [j * 11 + 5, HEIGHT]], width: 200 } });
+      for (let j = 0; left >= lineRows; j++, left -= lineRows)
+        regions.push({
+          id: `t${j}`,
+          defect: "scratch",
+          shape: {
+            kind: "line",
+            points: [
+              [j * 11, 0],
+              [j * 11 + 5, HEIGHT],
+            ],
+            width: 200,
+          },
+        });
       if (left > 0) regions.push({ id: `b${k}`, defect: "chip", shape: { kind: "rect", x: 10, y: 0, width: 50, height: left } });
       break;
     }
@@ -98,8 +126,18 @@ const sharpOrdinary = await time(51, () => measureCoverage(ordinary, { regionRas
 console.log(`ordinary: 50 forty-vertex polygons, no Surface`);
 console.log(`  default path (exact scanline), 201 runs: ${exactOrdinary.label}  (targets: median < 20 ms, p95 < 40 ms)`);
 console.log(`  sharp tiles (option), 51 runs: ${sharpOrdinary.label}`);
-const partType = { views: [{ key: "front", label: "Front", required: true, zones: [] }], defectClasses: ["scratch", "dent", "chip"].map((key) => ({ key, label: key, severity: "minor" as const })), nominalSizeMm: null, panelResolution: null };
-const unitInput = { partType, rubric: { rules: [] }, functionalFailures: { critical: 0, major: 0, minor: 0 }, photos: [{ photoId: "p", viewKey: "front", width: WIDTH, height: HEIGHT, regionsVersion: 1, defects: ordinary.regions, surfaces: [], rulers: [] }] };
+const partType = {
+  views: [{ key: "front", label: "Front", required: true, zones: [] }],
+  defectClasses: ["scratch", "dent", "chip"].map((key) => ({ key, label: key, severity: "minor" as const })),
+  nominalSizeMm: null,
+  panelResolution: null,
+};
+const unitInput = {
+  partType,
+  rubric: { rules: [] },
+  functionalFailures: { critical: 0, major: 0, minor: 0 },
+  photos: [{ photoId: "p", viewKey: "front", width: WIDTH, height: HEIGHT, regionsVersion: 1, defects: ordinary.regions, surfaces: [], rulers: [] }],
+};
 const pooled = await time(101, () => runInThread("measure-unit", unitInput));
 console.log(`  as the app runs it (measureUnit in a compute thread, round trip), 101 runs: ${pooled.label}`);
 
@@ -113,10 +151,30 @@ console.log(`  in a compute thread, 3 runs: ${worstPooled.label}`);
 
 async function refusal(label: string, input: CoverageInput) {
   const start = performance.now();
-  const outcome = await measureCoverage(input).then(() => "measured (not refused!)", (err: Error) => err.message);
+  const outcome = await measureCoverage(input).then(
+    () => "measured (not refused!)",
+    (err: Error) => err.message,
+  );
   console.log(`beyond the caps — ${label}: ${(performance.now() - start).toFixed(1)} ms → ${outcome.slice(0, 220)}`);
 }
-await refusal("a 4 000 px wide 2-point Line", { width: WIDTH, height: HEIGHT, regions: [{ id: "w", defect: "scratch", shape: { kind: "line", points: [[0, 1500], [4000, 1500]], width: 4000 } }] });
+await refusal("a 4 000 px wide 2-point Line", {
+  width: WIDTH,
+  height: HEIGHT,
+  regions: [
+    {
+      id: "w",
+      defect: "scratch",
+      shape: {
+        kind: "line",
+        points: [
+          [0, 1500],
+          [4000, 1500],
+        ],
+        width: 4000,
+      },
+    },
+  ],
+});
 await refusal("the worst-case set plus one row", { ...worst, regions: [...worst.regions, { id: "extra", defect: "chip", shape: { kind: "rect", x: 0, y: 0, width: 5, height: 1 } }] });
 console.log(`load average (1 min) at the end: ${loadavg()[0].toFixed(2)}`);
 await closeCompute();

@@ -101,8 +101,7 @@ async function measure(folder: string): Promise<void> {
 async function main(): Promise<void> {
   const folder = await mkdtemp(join(tmpdir(), "partproof-bench-normalize-"));
   try {
-    const photo = (seed: number, orientation?: number) =>
-      makePhotoLikeJpeg({ width: 4000, height: 3000, seed, orientation, icc: orientation ? "p3" : undefined });
+    const photo = (seed: number, orientation?: number) => makePhotoLikeJpeg({ width: 4000, height: 3000, seed, orientation, icc: orientation ? "p3" : undefined });
     await writeFile(join(folder, "upright.jpg"), await photo(1));
     await writeFile(join(folder, "portrait.jpg"), await photo(1, 6));
     for (let i = 0; i < DISTINCT_PHOTOS; i++) await writeFile(join(folder, `batch-${i}.jpg`), await photo(10 + i, 6));

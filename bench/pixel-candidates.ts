@@ -24,11 +24,18 @@ function inRounded(x: number, y: number, r: Rect, radius: number): boolean {
 
 /** A rounded rectangle as a polygon (8 points per corner). */
 function roundedPolygon(r: Rect, radius: number): Point[] {
-  const corners: [number, number, number][] = [[r.x1 - radius, r.y0 + radius, -90], [r.x1 - radius, r.y1 - radius, 0], [r.x0 + radius, r.y1 - radius, 90], [r.x0 + radius, r.y0 + radius, 180]];
-  return corners.flatMap(([cx, cy, start]) => Array.from({ length: 8 }, (_, k): Point => {
-    const a = ((start + (k * 90) / 7) * Math.PI) / 180;
-    return [cx + radius * Math.cos(a), cy + radius * Math.sin(a)];
-  }));
+  const corners: [number, number, number][] = [
+    [r.x1 - radius, r.y0 + radius, -90],
+    [r.x1 - radius, r.y1 - radius, 0],
+    [r.x0 + radius, r.y1 - radius, 90],
+    [r.x0 + radius, r.y0 + radius, 180],
+  ];
+  return corners.flatMap(([cx, cy, start]) =>
+    Array.from({ length: 8 }, (_, k): Point => {
+      const a = ((start + (k * 90) / 7) * Math.PI) / 180;
+      return [cx + radius * Math.cos(a), cy + radius * Math.sin(a)];
+    }),
+  );
 }
 
 async function screenPhoto(width: number, height: number) {
@@ -55,14 +62,26 @@ async function screenPhoto(width: number, height: number) {
     const size = 1 + (k % 3);
     const x = Math.floor(zone.x0 + 80 * s + ((k % 6) + 0.5) * ((zone.x1 - zone.x0 - 160 * s) / 6));
     const y = Math.floor(zone.y0 + 80 * s + (Math.floor(k / 6) + 0.5) * ((zone.y1 - zone.y0 - 160 * s) / 4));
-    const colour = [[255, 255, 255], [0, 0, 0], [255, null, null], [null, 0, null]][k % 4];
+    const colour = [
+      [255, 255, 255],
+      [0, 0, 0],
+      [255, null, null],
+      [null, 0, null],
+    ][k % 4];
     for (let yy = y; yy < y + size; yy++) {
       for (let xx = x; xx < x + size; xx++) colour.forEach((v, c) => v !== null && (data[(yy * width + xx) * 3 + c] = v));
     }
     planted.push([x + size / 2, y + size / 2]);
   }
-  const jpeg = await sharp(data, { raw: { width, height, channels: 3 } }).jpeg({ quality: 90, chromaSubsampling: "4:4:4" }).toBuffer();
-  const rect = (r: Rect): Point[] => [[r.x0, r.y0], [r.x1, r.y0], [r.x1, r.y1], [r.x0, r.y1]];
+  const jpeg = await sharp(data, { raw: { width, height, channels: 3 } })
+    .jpeg({ quality: 90, chromaSubsampling: "4:4:4" })
+    .toBuffer();
+  const rect = (r: Rect): Point[] => [
+    [r.x0, r.y0],
+    [r.x1, r.y0],
+    [r.x1, r.y1],
+    [r.x0, r.y1],
+  ];
   const edgeBandPx = Math.max(16, Math.round(0.02 * Math.min(zone.x1 - zone.x0, zone.y1 - zone.y0)));
   const area = { regions: [{ polygons: [roundedPolygon(body, 140 * s)] }, { polygons: [rect(zone)] }], edgeBandPx };
   return { jpeg, planted, area };
@@ -94,7 +113,10 @@ async function run(label: string, jpeg: Buffer, planted: [number, number][], opt
   );
 }
 
-for (const [width, height] of [[2000, 1500], [4000, 3000]]) {
+for (const [width, height] of [
+  [2000, 1500],
+  [4000, 3000],
+]) {
   const { jpeg, planted, area } = await screenPhoto(width, height);
   console.log(`${width} × ${height} (${((width * height) / 1e6).toFixed(1)} MP), edge band ${area.edgeBandPx} px:`);
   await run("whole frame", jpeg, planted, {});

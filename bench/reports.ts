@@ -91,8 +91,30 @@ async function benchCsv(rows: number) {
 function regionsFor(i: number): { defect: string; shape: Shape }[] {
   const dx = (i % 5) * 300;
   return [
-    { defect: "scratch", shape: { kind: "line", points: [[600 + dx, 700], [1400 + dx, 1100], [1900 + dx, 1150]], width: 6 } },
-    { defect: "crack", shape: { kind: "polygon", points: [[2200, 900 + dx], [2700, 1000 + dx], [2500, 1500 + dx], [2150, 1300 + dx]] } },
+    {
+      defect: "scratch",
+      shape: {
+        kind: "line",
+        points: [
+          [600 + dx, 700],
+          [1400 + dx, 1100],
+          [1900 + dx, 1150],
+        ],
+        width: 6,
+      },
+    },
+    {
+      defect: "crack",
+      shape: {
+        kind: "polygon",
+        points: [
+          [2200, 900 + dx],
+          [2700, 1000 + dx],
+          [2500, 1500 + dx],
+          [2150, 1300 + dx],
+        ],
+      },
+    },
     { defect: "dent", shape: { kind: "rect", x: 900, y: 1800, width: 500, height: 380 } },
     { defect: "dust", shape: { kind: "spot", x: 3100, y: 2200 - dx / 2, radius: 14 } },
   ];
@@ -113,7 +135,15 @@ async function benchCertificate(label: string, sources: Buffer[]) {
     const thumbs = await timed(() =>
       Promise.all(
         sources.slice(0, 3).map((image, i) =>
-          renderAnnotatedPhoto({ image, regionSpace: { width: 4000, height: 3000 }, regions: regionsFor(i), surface: SURFACE, classes: REPORT_CLASSES, legend: false, maxEdge: ANNOTATED_EDGE.certificate }),
+          renderAnnotatedPhoto({
+            image,
+            regionSpace: { width: 4000, height: 3000 },
+            regions: regionsFor(i),
+            surface: SURFACE,
+            classes: REPORT_CLASSES,
+            legend: false,
+            maxEdge: ANNOTATED_EDGE.certificate,
+          }),
         ),
       ),
     );
@@ -134,7 +164,15 @@ async function benchCertificate(label: string, sources: Buffer[]) {
 async function benchLotReport(label: string, photos: Buffer[]) {
   const caption = (n: number) => `Unit OV-CAM-24-${1000 + n} · Front`;
   const annotate = (n: number) =>
-    renderAnnotatedPhoto({ image: photos[n % photos.length], regionSpace: { width: 4000, height: 3000 }, regions: regionsFor(n), surface: SURFACE, classes: REPORT_CLASSES, caption: caption(n), maxEdge: ANNOTATED_EDGE.report });
+    renderAnnotatedPhoto({
+      image: photos[n % photos.length],
+      regionSpace: { width: 4000, height: 3000 },
+      regions: regionsFor(n),
+      surface: SURFACE,
+      classes: REPORT_CLASSES,
+      caption: caption(n),
+      maxEdge: ANNOTATED_EDGE.report,
+    });
   const annotating = await timed(async () => {
     const done = [];
     // Two at a time: one per core.
@@ -162,4 +200,8 @@ console.log("  target: median <= 300 ms");
 await benchLotReport("the 12 MP originals (4000 × 3000 JPEG)", originals);
 await benchLotReport("their stored 2 560 px previews (WebP)", previews);
 console.log(`  target: lot report <= 5 s (report photos ${ANNOTATED_EDGE.report} px on the long edge)`);
-console.log(`load average while measuring: ${loadavg().map((l) => l.toFixed(1)).join(" ")} on ${availableParallelism()} CPUs`);
+console.log(
+  `load average while measuring: ${loadavg()
+    .map((l) => l.toFixed(1))
+    .join(" ")} on ${availableParallelism()} CPUs`,
+);

@@ -42,7 +42,10 @@ async function setUp() {
       ...Array.from({ length: GRADERS }, (_, i): [string, string, null] => [`bench-grader-${String(i + 1).padStart(2, "0")}@scorecards-bench.example`, "inspector", null]),
     ];
     for (const [email, role, pw] of people) {
-      await c.query(`INSERT INTO users (workspace_id, email, name, password_hash, roles) VALUES ($1, $2, $3, $4, $5) ON CONFLICT (workspace_id, email) DO UPDATE SET password_hash = EXCLUDED.password_hash, active = true`, [ws, email, `Bench ${email.split("@")[0].slice(6)}`, pw, [role]]);
+      await c.query(
+        `INSERT INTO users (workspace_id, email, name, password_hash, roles) VALUES ($1, $2, $3, $4, $5) ON CONFLICT (workspace_id, email) DO UPDATE SET password_hash = EXCLUDED.password_hash, active = true`,
+        [ws, email, `Bench ${email.split("@")[0].slice(6)}`, pw, [role]],
+      );
     }
     const ids = async (role: string) => (await c.query("SELECT id FROM users WHERE workspace_id = $1 AND $2 = ANY(roles) ORDER BY email", [ws, role])).rows.map((r) => r.id as string);
     const [lead] = await ids("lead");
@@ -50,18 +53,33 @@ async function setUp() {
     const auditors = await ids("auditor");
     const have = Number((await c.query("SELECT count(*) FROM grades WHERE workspace_id = $1", [ws])).rows[0].count);
     if (have === 0) {
-      const pt = (await c.query(
-        `INSERT INTO part_types (workspace_id, slug, name, category, views, defect_classes, checklist) VALUES ($1, 'scorecards-bench-part', 'Scorecards bench part', 'housing', $2, $3, '[]')
+      const pt = (
+        await c.query(
+          `INSERT INTO part_types (workspace_id, slug, name, category, views, defect_classes, checklist) VALUES ($1, 'scorecards-bench-part', 'Scorecards bench part', 'housing', $2, $3, '[]')
          ON CONFLICT (workspace_id, slug) DO UPDATE SET name = EXCLUDED.name RETURNING id`,
-        [ws, JSON.stringify([{ key: "front", label: "Front", required: true, zones: [] }]), JSON.stringify([{ key: "scratch", label: "Scratch", severity: "minor" }, { key: "dent", label: "Dent", severity: "minor" }])],
-      )).rows[0].id as string;
+          [
+            ws,
+            JSON.stringify([{ key: "front", label: "Front", required: true, zones: [] }]),
+            JSON.stringify([
+              { key: "scratch", label: "Scratch", severity: "minor" },
+              { key: "dent", label: "Dent", severity: "minor" },
+            ]),
+          ],
+        )
+      ).rows[0].id as string;
       // A published version is immutable (a trigger refuses any UPDATE, even a no-op upsert): reuse it when it is there.
       const existing = (await c.query("SELECT id FROM rubric_versions WHERE part_type_id = $1 AND version = 1", [pt])).rows[0];
-      const rv = (existing ?? (await c.query(
-        `INSERT INTO rubric_versions (workspace_id, part_type_id, version, status, rubric, published_at, published_by) VALUES ($1, $2, 1, 'published', '{"rules":[],"notes":[]}', now(), $3) RETURNING id`,
-        [ws, pt, lead],
-      )).rows[0]).id as string;
-      const sup = (await c.query(`INSERT INTO suppliers (workspace_id, name, contact_email) VALUES ($1, 'Bench supplier (generated)', 'bench@scorecards-bench.example') RETURNING id`, [ws])).rows[0].id as string;
+      const rv = (
+        existing ??
+        (
+          await c.query(
+            `INSERT INTO rubric_versions (workspace_id, part_type_id, version, status, rubric, published_at, published_by) VALUES ($1, $2, 1, 'published', '{"rules":[],"notes":[]}', now(), $3) RETURNING id`,
+            [ws, pt, lead],
+          )
+        ).rows[0]
+      ).id as string;
+      const sup = (await c.query(`INSERT INTO suppliers (workspace_id, name, contact_email) VALUES ($1, 'Bench supplier (generated)', 'bench@scorecards-bench.example') RETURNING id`, [ws])).rows[0]
+        .id as string;
       // 100 lots of 1 000 units each (one transaction: a run either made all of it or nothing).
       await c.query(
         `INSERT INTO lots (workspace_id, supplier_id, part_type_id, purchase_ref, quantity, received_on, due_on, inspection_level, aql_major, aql_minor, inspection_severity, plan, created_by)
@@ -82,7 +100,8 @@ async function setUp() {
          CROSS JOIN LATERAL (SELECT CASE WHEN (u.k * 7 + u.k / 20) % 20 < 12 THEN 'A' WHEN (u.k * 7 + u.k / 20) % 20 < 17 THEN 'B' WHEN (u.k * 7 + u.k / 20) % 20 < 19 THEN 'C' ELSE 'Reject' END AS grade) g`,
         [ws, rv, graders, GRADERS, UNITS],
       );
-      const draw = (await c.query(`INSERT INTO recheck_draws (workspace_id, trigger, seed, algorithm, input, outcome) VALUES ($1, 'scheduled', '1', 'bench-generated', '{}', '{}') RETURNING id`, [ws])).rows[0].id as string;
+      const draw = (await c.query(`INSERT INTO recheck_draws (workspace_id, trigger, seed, algorithm, input, outcome) VALUES ($1, 'scheduled', '1', 'bench-generated', '{}', '{}') RETURNING id`, [ws]))
+        .rows[0].id as string;
       // One grade in 20 is rechecked, each grader's in turn; one in seven a step apart (a step up, or down from Reject).
       await c.query(
         `INSERT INTO rechecks (workspace_id, unit_id, grade_id, first_grader_id, first_grade, first_graded_at, part_type_id, rubric_version_id, reason, draw_id, status, auditor_id, measurement, proposed_grade, recheck_grade, comparison, adjudication_reasons, submitted_at, created_at)
@@ -138,7 +157,9 @@ async function load(cookie: string, path: string) {
 const isoDate = (ms: number) => new Date(ms).toISOString().slice(0, 10);
 
 async function main() {
-  const health = await fetch(`${BASE}/api/health`).then((r) => r.json()).catch(() => null);
+  const health = await fetch(`${BASE}/api/health`)
+    .then((r) => r.json())
+    .catch(() => null);
   if (health?.app !== "partproof") {
     console.log(`No Partproof app answers at ${BASE}: not measured. Start it with \`npm start\` (or set BENCH_BASE_URL), then run \`npm run bench -- scorecards-api\`.`);
     return;
@@ -156,9 +177,14 @@ async function main() {
   for (const [label, path] of runs) {
     const { latencies, seconds, bytes, summary } = await load(lead, path);
     console.log(`${label}: ${CONNECTIONS} connections × ${REQUESTS} requests (${summary}; ${(bytes / 1024).toFixed(0)} KiB per answer)`);
-    console.log(`   latency p50 ${ms(percentile(latencies, 50))}, p95 ${ms(percentile(latencies, 95))} (target p95 <= 200 ms), p99 ${ms(percentile(latencies, 99))}; ${(latencies.length / seconds).toFixed(1)} requests/s`);
+    console.log(
+      `   latency p50 ${ms(percentile(latencies, 50))}, p95 ${ms(percentile(latencies, 95))} (target p95 <= 200 ms), p99 ${ms(percentile(latencies, 99))}; ${(latencies.length / seconds).toFixed(1)} requests/s`,
+    );
   }
-  const load1 = (await import("node:os")).loadavg().map((l) => l.toFixed(2)).join(" ");
+  const load1 = (await import("node:os"))
+    .loadavg()
+    .map((l) => l.toFixed(2))
+    .join(" ");
   console.log(`load average (1, 5, 15 min): ${load1}`);
 }
 

@@ -69,7 +69,16 @@ const pairs = Array.from({ length: 20 }, (_, index) => buildComparedPair(index))
 const scoreAttempt = async () => {
   const items: CalibrationItemScore[] = [];
   for (const [index, pair] of pairs.entries()) {
-    items.push(await scoreCalibrationItem({ itemId: `item-${index}`, width: pair.width, height: pair.height, surface: pair.surface, key: { grade: "B", regions: pair.a }, attempt: { grade: index % 5 === 0 ? "C" : "B", regions: pair.b } }));
+    items.push(
+      await scoreCalibrationItem({
+        itemId: `item-${index}`,
+        width: pair.width,
+        height: pair.height,
+        surface: pair.surface,
+        key: { grade: "B", regions: pair.a },
+        attempt: { grade: index % 5 === 0 ? "C" : "B", regions: pair.b },
+      }),
+    );
   }
   return summariseAttempt(items, DEFAULT_CALIBRATION_THRESHOLDS);
 };
@@ -114,7 +123,13 @@ const weekDraw = await timeRuns(() => drawRechecks({ seed: "4242", candidates: w
 const bigDraw = await timeRuns(() => drawRechecks({ seed: "4242", candidates, rate: 0.05 }));
 
 // 5. Reports.
-const throughputRows: ThroughputRow[] = gradedAt.map((ms, i) => ({ graderId: graderOf[i], partTypeId: candidates[i].partTypeId, gradedAt: ms, minutes: random() < 0.05 ? null : 2 + random() * 20, graderMinutes: random() < 0.05 ? null : 2 + random() * 18 }));
+const throughputRows: ThroughputRow[] = gradedAt.map((ms, i) => ({
+  graderId: graderOf[i],
+  partTypeId: candidates[i].partTypeId,
+  gradedAt: ms,
+  minutes: random() < 0.05 ? null : 2 + random() * 20,
+  graderMinutes: random() < 0.05 ? null : 2 + random() * 18,
+}));
 const throughput = await timeRuns(() => inspectorThroughput(throughputRows, { from: "2026-03-30", to: "2026-06-28", timeZone: "Europe/Berlin" }));
 const distributionRows: GradeCountRow[] = PART_TYPES.flatMap((partTypeId) =>
   Array.from({ length: 365 }, (_, day) => GRADES.map((grade) => ({ partTypeId, day: new Date(START + day * DAY_MS).toISOString().slice(0, 10), grade, count: Math.floor(random() * 30) }))).flat(),
@@ -131,10 +146,12 @@ const lots: SupplierLotRow[] = Array.from({ length: 3_000 }, (_, i) => {
     verdict: decided ? (random() < 0.85 ? "accept" : "reject") : null,
     bySeverity: { critical: severity(), major: severity(), minor: severity() },
     inspected,
-    classes: Object.fromEntries(CLASSES.map((defect) => {
-      const units = Math.floor(random() * inspected * 0.1);
-      return [defect, { units, defects: units + Math.floor(random() * 3) }];
-    })),
+    classes: Object.fromEntries(
+      CLASSES.map((defect) => {
+        const units = Math.floor(random() * inspected * 0.1);
+        return [defect, { units, defects: units + Math.floor(random() * 3) }];
+      }),
+    ),
   };
 });
 const suppliers = await timeRuns(() => supplierScorecards(lots));
@@ -160,9 +177,17 @@ const difficulty = await timeRuns(() => itemDifficulty(attempts));
 
 console.log(`load average (1 min) at the end: ${loadavg()[0].toFixed(2)}; medians of ${RUNS} runs after a warm-up`);
 console.log(`1. calibration: score a 20-item attempt on ${pairs[0].width}×${pairs[0].height} photos with missed/extra areas, and summarise: ${calibration}  (target <= 2000 ms)`);
-console.log(`   (attempt ${summary.passed ? "passes" : "fails"}: exact ${summary.grades.exact}/20, mean IoU ${Object.entries(summary.classes).map(([d, c]) => `${d} ${c.meanIou.toFixed(3)}`).join(", ")})`);
-console.log(`2. scorecards: ${graded.length} graded-count rows (100 000 units), ${rechecks.length} rechecks, ${cards.weeks.length} weeks, ${cards.graders.length} graders: ${scorecards}  (API target p95 <= 200 ms in all)`);
-console.log(`   (team exact ${(cards.team.figures.exact.share * 100).toFixed(1)} %, κ ${cards.team.figures.kappa.kappa.toFixed(3)}, quadratic κ ${cards.team.figures.quadraticKappa.kappa.toFixed(3)}, drift flags ${cards.graders.filter((c) => c.drift.flagged).length})`);
+console.log(
+  `   (attempt ${summary.passed ? "passes" : "fails"}: exact ${summary.grades.exact}/20, mean IoU ${Object.entries(summary.classes)
+    .map(([d, c]) => `${d} ${c.meanIou.toFixed(3)}`)
+    .join(", ")})`,
+);
+console.log(
+  `2. scorecards: ${graded.length} graded-count rows (100 000 units), ${rechecks.length} rechecks, ${cards.weeks.length} weeks, ${cards.graders.length} graders: ${scorecards}  (API target p95 <= 200 ms in all)`,
+);
+console.log(
+  `   (team exact ${(cards.team.figures.exact.share * 100).toFixed(1)} %, κ ${cards.team.figures.kappa.kappa.toFixed(3)}, quadratic κ ${cards.team.figures.quadraticKappa.kappa.toFixed(3)}, drift flags ${cards.graders.filter((c) => c.drift.flagged).length})`,
+);
 console.log(`3. team alpha (ordinal) and AC1 over ${teamUnits.length} units: ${team}`);
 console.log(`4. recheck draw over one week (${week.length} grades): ${weekDraw}; over ${candidates.length} grades: ${bigDraw}`);
 console.log(`5. throughput over ${throughputRows.length} graded units: ${throughput}`);

@@ -14,16 +14,7 @@
  * Per-class comparison of two region sets (masks, matched defects): lib/imaging/compare-regions.ts.
  */
 export type { Label, LabelPair } from "@/lib/agreement/labels";
-export {
-  cohenKappa,
-  cohenKappaInterval,
-  gwetAc1,
-  kappaFromTable,
-  kappaIntervalFromTable,
-  type KappaInterval,
-  type KappaOptions,
-  type KappaWeights,
-} from "@/lib/agreement/kappa";
+export { cohenKappa, cohenKappaInterval, gwetAc1, kappaFromTable, kappaIntervalFromTable, type KappaInterval, type KappaOptions, type KappaWeights } from "@/lib/agreement/kappa";
 export { krippendorffAlpha, type AlphaMetric, type AlphaValue } from "@/lib/agreement/krippendorff";
 export { dice, diceOf, iou, iouOf, maskOverlap, type FlatMask, type Mask, type MaskOverlap } from "@/lib/agreement/masks";
 export { LANDIS_KOCH_BANDS, landisKochBand, withBand, type KappaWithBand, type LandisKochBand } from "@/lib/agreement/bands";

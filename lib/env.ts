@@ -36,7 +36,12 @@ const envSchema = z.object({
   SIGNIN_MAX_FAILURES_PER_ACCOUNT: z.coerce.number().int().positive().default(50),
   SIGNIN_WINDOW_MINUTES: z.coerce.number().int().positive().default(15),
   /** How long Take next reserves a unit for the inspector; the Bench renews it while open. */
-  QUEUE_LEASE_SECONDS: z.coerce.number().int().min(5).max(24 * 3600).default(20 * 60),
+  QUEUE_LEASE_SECONDS: z.coerce
+    .number()
+    .int()
+    .min(5)
+    .max(24 * 3600)
+    .default(20 * 60),
 });
 
 export type Env = z.infer<typeof envSchema>;

@@ -2,16 +2,7 @@
  * The one error type the app throws on purpose. Each code maps to an HTTP status and a message a
  * person can act on; anything else is logged and answered with a generic 500.
  */
-export type AppErrorCode =
-  | "bad_request"
-  | "unauthorized"
-  | "forbidden"
-  | "not_found"
-  | "conflict"
-  | "payload_too_large"
-  | "unsupported_media_type"
-  | "too_many_requests"
-  | "unavailable";
+export type AppErrorCode = "bad_request" | "unauthorized" | "forbidden" | "not_found" | "conflict" | "payload_too_large" | "unsupported_media_type" | "too_many_requests" | "unavailable";
 
 const statusByCode: Record<AppErrorCode, number> = {
   bad_request: 400,

@@ -22,7 +22,13 @@ export const SCREENS: readonly Screen[] = [
   { href: "/recheck", label: "Recheck", permission: "recheck.perform", status: "ready", summary: "Blind re-grading of sampled units, agreement figures and adjudication." },
   { href: "/rubrics", label: "Rubrics", permission: "rubrics.review", status: "ready", summary: "Versioned grading rules per part type: drafts, publication, differences." },
   { href: "/suppliers", label: "Suppliers", permission: "suppliers.review", status: "ready", summary: "Who sends the parts and where evidence goes." },
-  { href: "/part-types", label: "Part types", permission: "part-types.read", status: "ready", summary: "What each kind of part needs: views and zones to photograph, defect classes, the functional checklist." },
+  {
+    href: "/part-types",
+    label: "Part types",
+    permission: "part-types.read",
+    status: "ready",
+    summary: "What each kind of part needs: views and zones to photograph, defect classes, the functional checklist.",
+  },
   { href: "/reports", label: "Reports", permission: "reports.read", status: "ready", summary: "Lot reports, supplier scorecards, grade distribution, throughput and CSV exports." },
   { href: "/people", label: "People", permission: "people.manage", status: "ready", summary: "Invite colleagues, give them roles, deactivate accounts." },
 ];

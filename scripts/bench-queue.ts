@@ -81,7 +81,8 @@ async function setUp() {
     );
     let sup = (await c.query("SELECT id FROM suppliers WHERE workspace_id = $1", [ws])).rows[0];
     if (!sup) sup = (await c.query("INSERT INTO suppliers (workspace_id, name, contact_email) VALUES ($1, 'Bench supplier', 'bench@supplier.example') RETURNING id", [ws])).rows[0];
-    const plan = (n: number) => JSON.stringify({ standard: "ISO 2859-1 single sampling", lotSize: n, level: "II", severity: "normal", sampleSize: n, hundredPercent: true, byDefectSeverity: {}, switchingReason: "bench" });
+    const plan = (n: number) =>
+      JSON.stringify({ standard: "ISO 2859-1 single sampling", lotSize: n, level: "II", severity: "normal", sampleSize: n, hundredPercent: true, byDefectSeverity: {}, switchingReason: "bench" });
     async function lotWithUnits(ref: string, n: number, due: string) {
       const lot = (
         await c.query(
@@ -224,7 +225,9 @@ async function listing(cookie: string, lotId: string) {
 }
 
 async function main() {
-  const health = await fetch(`${BASE}/api/health`).then((r) => r.json()).catch(() => null);
+  const health = await fetch(`${BASE}/api/health`)
+    .then((r) => r.json())
+    .catch(() => null);
   if (health?.app !== "partproof") throw new Error(`No Partproof app answers at ${BASE}; start it with \`npm start\` first.`);
   if (!fs.existsSync(path.join(projectRoot, ".next", "BUILD_ID"))) console.warn("warning: no production build found in .next");
   console.log("Setting up the bench workspace …");

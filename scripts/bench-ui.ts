@@ -52,7 +52,11 @@ const started = performance.now();
 const f1 = (v: number) => (Number.isFinite(v) ? v.toFixed(1) : "n/a");
 const since = (t0: number) => `${((performance.now() - t0) / 1000).toFixed(1)} s`;
 const log = (message: string) => console.log(message);
-const loadavg = () => os.loadavg().map((v) => v.toFixed(2)).join(", ");
+const loadavg = () =>
+  os
+    .loadavg()
+    .map((v) => v.toFixed(2))
+    .join(", ");
 
 async function fixture(): Promise<{ session: Session; unitId: string; photoId: string }> {
   const fx = await prepareFixture(pool);
@@ -66,11 +70,16 @@ async function fixture(): Promise<{ session: Session; unitId: string; photoId: s
     log(`  photo uploaded (${(bytes.length / 1e6).toFixed(1)} MB JPEG: intent, PUT to the store, finalise, worker preview) in ${since(t0)}`);
   } else log(`  photo reused from an earlier run (${(fx.photo!.bytes / 1e6).toFixed(1)} MB JPEG)`);
   const photo = await getPhoto(session, photoId);
-  if (photo.width !== PHOTO.width || photo.height !== PHOTO.height || !photo.preview) throw new Error(`The bench photo is ${photo.width} × ${photo.height} without a preview; expected ${PHOTO.width} × ${PHOTO.height}.`);
+  if (photo.width !== PHOTO.width || photo.height !== PHOTO.height || !photo.preview)
+    throw new Error(`The bench photo is ${photo.width} × ${photo.height} without a preview; expected ${PHOTO.width} × ${PHOTO.height}.`);
   log(`  photo ${photo.width} × ${photo.height} px (${((photo.width * photo.height) / 1e6).toFixed(0)} MP); the canvas draws its ${photo.preview.width} × ${photo.preview.height} preview`);
   const t0 = performance.now();
   const saved = await ensureRegions(session, photoId, benchRegions());
-  log(saved.saved ? `  ${REGION_COUNT} regions saved through the API as version ${saved.version} in ${since(t0)}` : `  ${REGION_COUNT} regions already stored (version ${saved.version}), not saved again`);
+  log(
+    saved.saved
+      ? `  ${REGION_COUNT} regions saved through the API as version ${saved.version} in ${since(t0)}`
+      : `  ${REGION_COUNT} regions already stored (version ${saved.version}), not saved again`,
+  );
   return { session, unitId: fx.unitId, photoId };
 }
 
@@ -78,7 +87,9 @@ const PART_ORDER = ["input", "hit test", "other JS", "rAF (Konva draw)", "style+
 
 function report(label: string, s: Summary, displayMs: number, capped: boolean): void {
   log(`  ${label}: ${s.drawing} frames drew (of ${s.frames}; ${s.traced} found in the trace)`);
-  log(`    rAF interval         median ${f1(s.median)} ms, p95 ${f1(s.p95)} ms, max ${f1(s.max)} ms; ${s.missed} frames missed (> 1.5 × ${f1(displayMs)} ms)${capped ? " [capped at the display rate]" : ""}`);
+  log(
+    `    rAF interval         median ${f1(s.median)} ms, p95 ${f1(s.p95)} ms, max ${f1(s.max)} ms; ${s.missed} frames missed (> 1.5 × ${f1(displayMs)} ms)${capped ? " [capped at the display rate]" : ""}`,
+  );
   log(`    main-thread CPU      median ${f1(s.cpuMedian)} ms, p95 ${f1(s.cpuP95)} ms per frame; ${s.cpuOver} frames over ${TARGET_MS} ms`);
   log(`    main-thread in tasks median ${f1(s.wallMedian)} ms, p95 ${f1(s.wallP95)} ms per frame (wall clock: CPU plus waiting for a CPU)`);
   const parts = PART_ORDER.filter((k) => s.parts[k] !== undefined).map((k) => `${k} ${f1(s.parts[k])}`);
@@ -91,15 +102,15 @@ function verdict(name: string, runs: { run: CanvasRun; unthrottled: boolean }[],
   const paced = runs.find((r) => !r.unthrottled)!.run[key];
   const free = runs.find((r) => r.unthrottled)?.run[key];
   const judged = free ? free.median : paced.cpuMedian;
-  const basis = free
-    ? `unthrottled rAF interval median ${f1(free.median)} ms, p95 ${f1(free.p95)} ms`
-    : `main-thread CPU per frame median ${f1(paced.cpuMedian)} ms, p95 ${f1(paced.cpuP95)} ms`;
+  const basis = free ? `unthrottled rAF interval median ${f1(free.median)} ms, p95 ${f1(free.p95)} ms` : `main-thread CPU per frame median ${f1(paced.cpuMedian)} ms, p95 ${f1(paced.cpuP95)} ms`;
   const ok = Number.isFinite(judged) && judged <= TARGET_MS;
   log(`  ${name}: ${ok ? "MET" : "NOT MET"} (${basis}); on this machine at 60 Hz ${paced.missed} of ${paced.drawing} frames were missed, wall-clock median ${f1(paced.wallMedian)} ms`);
 }
 
 async function main() {
-  const health = await fetch(`${BASE}/api/health`).then((r) => r.json()).catch(() => null);
+  const health = await fetch(`${BASE}/api/health`)
+    .then((r) => r.json())
+    .catch(() => null);
   if (health?.app !== "partproof") throw new Error(`No Partproof app answers at ${BASE}. Start it with \`npm start\` in another terminal, then run \`npm run bench:ui\` again.`);
   if (health.ok === false) throw new Error(`The app at ${BASE} answers but its database does not; check the \`npm start\` window.`);
   if (!fs.existsSync(CHROMIUM)) throw new Error(`${CHROMIUM} is missing: sudo apt-get update && sudo apt-get install -y chromium fonts-dejavu-core`);
@@ -109,7 +120,9 @@ async function main() {
   // Whether the flags lift the frame-rate cap, checked on an empty page while the fixture is prepared.
   const [{ session, unitId, photoId }, freeIdle] = await Promise.all([fixture(), idleFrameInterval(UNTHROTTLE_FLAGS)]);
   const lifted = freeIdle < 12;
-  log(`With ${UNTHROTTLE_FLAGS.join(" ")} an empty page's rAF interval is ${f1(freeIdle)} ms: ${lifted ? "the cap is lifted, measuring in both modes" : "the flags do not lift the display-rate cap in this headless Chromium, so the figure for the target is the main-thread work per frame"}.`);
+  log(
+    `With ${UNTHROTTLE_FLAGS.join(" ")} an empty page's rAF interval is ${f1(freeIdle)} ms: ${lifted ? "the cap is lifted, measuring in both modes" : "the flags do not lift the display-rate cap in this headless Chromium, so the figure for the target is the main-thread work per frame"}.`,
+  );
   const modes = [{ unthrottled: false, flags: [] as string[] }, ...(lifted ? [{ unthrottled: true, flags: UNTHROTTLE_FLAGS }] : [])];
   const runs: { run: CanvasRun; unthrottled: boolean }[] = [];
   try {
@@ -128,7 +141,11 @@ async function main() {
   const first = runs[0].run;
   const kinds = benchRegions().regions.reduce<Record<string, number>>((acc, r) => ((acc[r.shape.kind] = (acc[r.shape.kind] ?? 0) + 1), acc), {});
   log("");
-  log(`Regions: ${REGION_COUNT} (${Object.entries(kinds).map(([k, n]) => `${n} ${k}`).join(", ")}; 4 classes) on a ${PHOTO.width} × ${PHOTO.height} photo (12 MP)`);
+  log(
+    `Regions: ${REGION_COUNT} (${Object.entries(kinds)
+      .map(([k, n]) => `${n} ${k}`)
+      .join(", ")}; 4 classes) on a ${PHOTO.width} × ${PHOTO.height} photo (12 MP)`,
+  );
   log(`Browser: Chromium ${first.version}, headless, ${BASE_FLAGS.join(" ")} (software rendering)`);
   log(`Viewport ${VIEWPORT.width} × ${VIEWPORT.height} CSS px, DPR ${DPR}, canvas stage ${first.stage.width} × ${first.stage.height} CSS px`);
   log(`Machine: ${os.cpus().length} CPUs, load average ${loadAtStart} at the start, ${loadavg()} at the end (1, 5, 15 min)`);

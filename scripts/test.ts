@@ -59,7 +59,11 @@ async function main() {
   if (wants("unit")) {
     const report = `${testSettings().dataDir}/unit-report.json`;
     const args = ["run", "--project", "unit", ...(coverage ? ["--coverage"] : []), ...vitestReportArgs(report)];
-    await step(coverage ? "unit tests with coverage" : "unit tests", () => run(bin("vitest"), args, { label: "unit" }), () => vitestFailures(report));
+    await step(
+      coverage ? "unit tests with coverage" : "unit tests",
+      () => run(bin("vitest"), args, { label: "unit" }),
+      () => vitestFailures(report),
+    );
   }
 
   if (wants("integration") || wants("e2e")) {
@@ -120,12 +124,20 @@ async function main() {
       const e2eReport = `${settings.dataDir}/e2e-report.json`;
       if (wants("integration")) {
         const args = ["run", "--project", "integration", ...vitestReportArgs(integrationReport), ...passThrough];
-        await step("integration tests", () => run(bin("vitest"), args, { env: testEnv, label: "integration" }), () => vitestFailures(integrationReport));
+        await step(
+          "integration tests",
+          () => run(bin("vitest"), args, { env: testEnv, label: "integration" }),
+          () => vitestFailures(integrationReport),
+        );
       }
       if (wants("e2e")) {
         fs.rmSync(e2eReport, { force: true });
         const env = { ...testEnv, TEST_E2E_REPORT: e2eReport };
-        await step("browser tests", () => run(bin("playwright"), ["test", ...passThrough], { env, label: "e2e" }), () => playwrightFailures(e2eReport));
+        await step(
+          "browser tests",
+          () => run(bin("playwright"), ["test", ...passThrough], { env, label: "e2e" }),
+          () => playwrightFailures(e2eReport),
+        );
       }
     } catch (err) {
       failures.push("test services");

@@ -10,8 +10,7 @@ import type { Point, Shape } from "@/lib/geometry/shape";
 import { shapeRings } from "@/lib/imaging/raster/shape-geometry";
 
 // The package's runtime export is one default object; its typings declare named functions.
-export const polygonClipping =
-  (polygonClippingModule as unknown as { default?: typeof polygonClippingModule }).default ?? polygonClippingModule;
+export const polygonClipping = (polygonClippingModule as unknown as { default?: typeof polygonClippingModule }).default ?? polygonClippingModule;
 
 /** Shoelace area of a MultiPolygon: each polygon's outer ring minus its holes. */
 export function multiPolygonArea(shape: MultiPolygon): number {
@@ -28,8 +27,7 @@ export function multiPolygonArea(shape: MultiPolygon): number {
 }
 
 /** Exact union of shapes as a MultiPolygon. */
-export const exactUnion = (shapes: Shape[]): MultiPolygon =>
-  polygonClipping.union(shapes.flatMap((shape) => shapeRings(shape)).map((ring) => [ring]) as unknown as MultiPolygon);
+export const exactUnion = (shapes: Shape[]): MultiPolygon => polygonClipping.union(shapes.flatMap((shape) => shapeRings(shape)).map((ring) => [ring]) as unknown as MultiPolygon);
 
 /**
  * A simple polygon around (cx, cy): evenly spaced, jittered angles (so it surrounds its centre),

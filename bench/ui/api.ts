@@ -27,11 +27,12 @@ async function failure(what: string, res: Response): Promise<Error> {
 export async function signIn(base: string, email: string, password: string): Promise<Session> {
   const csrfRes = await fetch(`${base}/api/auth/csrf`);
   const jar = new Map<string, string>();
-  const keep = (res: Response) => res.headers.getSetCookie().forEach((c) => {
-    const [pair] = c.split(";");
-    const at = pair.indexOf("=");
-    jar.set(pair.slice(0, at), pair.slice(at + 1));
-  });
+  const keep = (res: Response) =>
+    res.headers.getSetCookie().forEach((c) => {
+      const [pair] = c.split(";");
+      const at = pair.indexOf("=");
+      jar.set(pair.slice(0, at), pair.slice(at + 1));
+    });
   keep(csrfRes);
   const { csrfToken } = (await csrfRes.json()) as { csrfToken: string };
   const res = await fetch(`${base}/api/auth/callback/credentials`, {

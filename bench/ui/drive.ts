@@ -18,7 +18,16 @@ export const VIEWPORT = { width: 1440, height: 900 };
 export const TARGET_MS = 16;
 
 /** Wheel: notches in, then as many out, around each anchor (stage fractions). 100 px is one notch of a common mouse. */
-export const ZOOM = { anchors: [[0.3, 0.3], [0.7, 0.35], [0.5, 0.62], [0.35, 0.7]] as const, notches: 14, delta: 100 };
+export const ZOOM = {
+  anchors: [
+    [0.3, 0.3],
+    [0.7, 0.35],
+    [0.5, 0.62],
+    [0.35, 0.7],
+  ] as const,
+  notches: 14,
+  delta: 100,
+};
 /** Middle-button drags at 1:1: one stroke per letter, each `moves` moves of `step` px. */
 export const PAN = { strokes: "LLURRRRDLL", moves: 20, step: 16 };
 /** A phase stops early after this long (a very slow machine), and says so. */
@@ -72,7 +81,10 @@ const stageData = (page: Page) => page.getByTestId("annotation-stage").evaluate(
 
 async function openBench(browser: Browser, o: Options, errors: string[]): Promise<Page> {
   const context = await browser.newContext({ viewport: VIEWPORT, deviceScaleFactor: o.dpr });
-  await context.route((url) => !LOOPBACK.test(url.href) && !["data:", "blob:"].includes(url.protocol), (route) => route.abort("blockedbyclient"));
+  await context.route(
+    (url) => !LOOPBACK.test(url.href) && !["data:", "blob:"].includes(url.protocol),
+    (route) => route.abort("blockedbyclient"),
+  );
   await context.addCookies(o.session.cookies.map((c) => ({ ...c, url: o.base })));
   const page = await context.newPage();
   page.on("pageerror", (e) => errors.push(e.message));
@@ -82,7 +94,9 @@ async function openBench(browser: Browser, o: Options, errors: string[]): Promis
     const data = await stageData(page).catch(() => null);
     if (data?.ready === "true" && data.regionCount === String(REGION_COUNT)) break;
     if (Date.now() > deadline) {
-      throw new Error(`The canvas did not become ready with ${REGION_COUNT} regions within 45 s (ready=${data?.ready}, regions=${data?.regionCount}); is the unit still on the demo inspector's bench?`);
+      throw new Error(
+        `The canvas did not become ready with ${REGION_COUNT} regions within 45 s (ready=${data?.ready}, regions=${data?.regionCount}); is the unit still on the demo inspector's bench?`,
+      );
     }
     await sleep(250);
   }
@@ -161,7 +175,10 @@ export async function measureCanvas(o: Options): Promise<CanvasRun> {
     if (o.traceFile) fs.writeFileSync(o.traceFile, trace);
     const frames = (await page.evaluate("window.__uiBench.running = false, window.__uiBench.frames")) as RawFrame[];
     const intervals = intervalsOf(frames, frameWork(trace));
-    const displayMs = percentile(intervals.filter((f) => f.phase === "idle").map((f) => f.ms), 50);
+    const displayMs = percentile(
+      intervals.filter((f) => f.phase === "idle").map((f) => f.ms),
+      50,
+    );
     const box = await stageBox(page);
     return {
       version: browser.version(),

@@ -49,9 +49,21 @@ export async function prepareFixture(pool: pg.Pool): Promise<UiBenchFixture> {
       supplier = await one<{ id: string }>("INSERT INTO suppliers (workspace_id, name, contact_email) VALUES ($1, 'UI bench supplier (generated)', 'ui-bench@supplier.example') RETURNING id", [ws]);
       created.push("supplier");
     }
-    let lot = await one<{ id: string; created_at: Date }>("SELECT id, created_at FROM lots WHERE workspace_id = $1 AND purchase_ref = $2 AND part_type_id = $3 AND status = 'open' ORDER BY created_at LIMIT 1", [ws, LOT_REF, partType!.id]);
+    let lot = await one<{ id: string; created_at: Date }>(
+      "SELECT id, created_at FROM lots WHERE workspace_id = $1 AND purchase_ref = $2 AND part_type_id = $3 AND status = 'open' ORDER BY created_at LIMIT 1",
+      [ws, LOT_REF, partType!.id],
+    );
     if (!lot) {
-      const plan = { standard: "ISO 2859-1 single sampling", lotSize: 1, level: "II", severity: "normal", sampleSize: 1, hundredPercent: true, byDefectSeverity: {}, switchingReason: "UI benchmark fixture" };
+      const plan = {
+        standard: "ISO 2859-1 single sampling",
+        lotSize: 1,
+        level: "II",
+        severity: "normal",
+        sampleSize: 1,
+        hundredPercent: true,
+        byDefectSeverity: {},
+        switchingReason: "UI benchmark fixture",
+      };
       lot = await one<{ id: string; created_at: Date }>(
         `INSERT INTO lots (workspace_id, supplier_id, part_type_id, purchase_ref, quantity, received_on, due_on, inspection_level, aql_major, aql_minor, inspection_severity, plan, created_by)
          VALUES ($1, $2, $3, $4, 1, '2026-12-01', '2099-12-31', 'II', 1, 2.5, 'normal', $5, $6) RETURNING id, created_at`,

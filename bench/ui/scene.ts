@@ -41,7 +41,9 @@ export async function benchPhoto(): Promise<Buffer> {
   const { data, info } = await sharp(Buffer.from(svg)).removeAlpha().raw().toBuffer({ resolveWithObject: true });
   const rnd = mulberry32(SCENE_SEED);
   for (let i = 0; i < data.length; i++) data[i] = clamp(data[i] + Math.round((rnd() - 0.5) * 18), 0, 255);
-  return sharp(data, { raw: { width: info.width, height: info.height, channels: info.channels } }).jpeg({ quality: 88 }).toBuffer();
+  return sharp(data, { raw: { width: info.width, height: info.height, channels: info.channels } })
+    .jpeg({ quality: 88 })
+    .toBuffer();
 }
 
 /**
@@ -108,7 +110,11 @@ export function canonicalRegions(set: RegionSetPayload): string {
     Array.isArray(value)
       ? value.map(sortKeys)
       : value && typeof value === "object"
-        ? Object.fromEntries(Object.entries(value as Record<string, unknown>).sort(([a], [b]) => a.localeCompare(b)).map(([k, v]) => [k, sortKeys(v)]))
+        ? Object.fromEntries(
+            Object.entries(value as Record<string, unknown>)
+              .sort(([a], [b]) => a.localeCompare(b))
+              .map(([k, v]) => [k, sortKeys(v)]),
+          )
         : value;
   const regions = [...set.regions].sort((a, b) => a.id.localeCompare(b.id));
   return JSON.stringify(sortKeys({ regions, surfaces: set.surfaces, ruler: set.ruler }));

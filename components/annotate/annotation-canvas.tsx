@@ -76,7 +76,16 @@ export function AnnotationCanvas(props: AnnotationCanvasProps) {
   const classes = useMemo<ClassEntry[]>(() => ordered.map((d, index) => ({ ...d, index, style: styles.get(d.key) ?? UNKNOWN_DEFECT_STYLE })), [ordered, styles]);
   const classByKey = useMemo(() => new Map(classes.map((c) => [c.key, c])), [classes]);
   // Keyed on the box's numbers, not on the regions, so a drag that leaves the surfaces alone keeps the zones object.
-  const { minX, minY, maxX, maxY, source: zoneSource } = zoneBox(state.regions.flatMap((r): PolygonShape[] => (r.role === "surface" ? [r.shape] : [])), original);
+  const {
+    minX,
+    minY,
+    maxX,
+    maxY,
+    source: zoneSource,
+  } = zoneBox(
+    state.regions.flatMap((r): PolygonShape[] => (r.role === "surface" ? [r.shape] : [])),
+    original,
+  );
   // Zones hang on the Surface: before one is traced they would only cover the backdrop.
   const imageZones = useMemo(() => (zoneSource === "surface" ? zonesToImage(zones, { minX, minY, maxX, maxY }) : []), [zones, zoneSource, minX, minY, maxX, maxY]);
   // Regions stay inside the photo; labels and halos may reach a little past its edge.
@@ -131,7 +140,9 @@ export function AnnotationCanvas(props: AnnotationCanvasProps) {
     [actions, focusStage, latestRef, dispatch],
   );
 
-  const enabledKey = TOOLS.filter((t) => !readOnly && t.isEnabled(state)).map((t) => t.id).join(" ");
+  const enabledKey = TOOLS.filter((t) => !readOnly && t.isEnabled(state))
+    .map((t) => t.id)
+    .join(" ");
   const enabledTools = useMemo(() => new Set(enabledKey.split(" ") as ToolId[]), [enabledKey]);
   const selected = selectedRegion(state) ?? null;
   const visibleSelection = selected && isRegionVisible(state, selected) ? selected : null;
@@ -142,11 +153,7 @@ export function AnnotationCanvas(props: AnnotationCanvasProps) {
   const selectedRuler = selected?.role === "ruler" ? selected : null;
   const ruler = useMemo(
     () =>
-      rulerWaiting
-        ? ({ id: "draft", mode: "draft", lengthMm: null } as const)
-        : selectedRuler
-          ? ({ id: selectedRuler.id, mode: "selected", lengthMm: selectedRuler.ruler.lengthMm } as const)
-          : null,
+      rulerWaiting ? ({ id: "draft", mode: "draft", lengthMm: null } as const) : selectedRuler ? ({ id: selectedRuler.id, mode: "selected", lengthMm: selectedRuler.ruler.lengthMm } as const) : null,
     [rulerWaiting, selectedRuler],
   );
   const cursor = pointer.panning ? "grabbing" : readOnly ? "grab" : state.activeTool === "select" ? "default" : "crosshair";
@@ -157,18 +164,36 @@ export function AnnotationCanvas(props: AnnotationCanvasProps) {
       <h3 id={`${statusId}-regions`} className="mb-1.5 text-xs font-medium text-gauge-700">
         {state.regions.length === 1 ? "1 region" : `${state.regions.length} regions`} on this photo
       </h3>
-      <RegionList regions={state.regions} selectedId={state.selectedId} classes={classByKey} hiddenDefects={state.hiddenDefects} readOnly={readOnly} onSelect={actions.select} onDelete={actions.remove} />
+      <RegionList
+        regions={state.regions}
+        selectedId={state.selectedId}
+        classes={classByKey}
+        hiddenDefects={state.hiddenDefects}
+        readOnly={readOnly}
+        onSelect={actions.select}
+        onDelete={actions.remove}
+      />
     </section>
   );
 
   const inHand = readOnly ? null : { id: state.activeTool, label: TOOLS_BY_ID[state.activeTool].label };
-  const entryInHand = !readOnly && state.activeDefect && state.activeTool !== "surface" && state.activeTool !== "ruler" && state.activeTool !== "select" ? (classByKey.get(state.activeDefect) ?? null) : null;
+  const entryInHand =
+    !readOnly && state.activeDefect && state.activeTool !== "surface" && state.activeTool !== "ruler" && state.activeTool !== "select" ? (classByKey.get(state.activeDefect) ?? null) : null;
 
   return (
     <div ref={rootRef} className={`flex min-h-0 flex-col gap-2 ${className}`} data-testid="annotation-canvas">
       <div className="grid min-h-0 flex-1 grid-cols-[auto_minmax(0,1fr)] grid-rows-[auto_minmax(0,1fr)] gap-x-2 gap-y-1.5">
         <div className="row-span-2">
-          <ToolRail activeTool={state.activeTool} lineWidth={lineWidth} enabledTools={enabledTools} classes={classes} hiddenDefects={state.hiddenDefects} history={history} readOnly={readOnly} actions={actions} />
+          <ToolRail
+            activeTool={state.activeTool}
+            lineWidth={lineWidth}
+            enabledTools={enabledTools}
+            classes={classes}
+            hiddenDefects={state.hiddenDefects}
+            history={history}
+            readOnly={readOnly}
+            actions={actions}
+          />
         </div>
         <div className="flex min-h-8 min-w-0 items-start gap-3" data-testid="annotation-toolbar">
           {!readOnly && <DefectClassPicker classes={classes} activeDefect={state.activeDefect} onPick={actions.defect} kind={classKind} />}

@@ -27,7 +27,9 @@ export function canvasHint(state: AnnotationState, imageStatus: ImageStatus, rea
   if (imageStatus === "loading") return "Loading the photo…";
   if (readOnly) return "View only. Drag to pan, scroll or pinch to zoom. ? lists the keys.";
   if (state.activeDefect === null && state.activeTool !== "surface" && state.activeTool !== "ruler") {
-    return state.allowedDefects.length === 0 ? "This part type has no defect classes: only Surface and Ruler can be drawn." : "Choose a defect class to draw with: every class here is critical, so none is chosen for you.";
+    return state.allowedDefects.length === 0
+      ? "This part type has no defect classes: only Surface and Ruler can be drawn."
+      : "Choose a defect class to draw with: every class here is critical, so none is chosen for you.";
   }
   const tool = TOOLS_BY_ID[state.activeTool];
   return `${tool.description} ${TOOL_KEYS[state.activeTool]} · ? all keys`;

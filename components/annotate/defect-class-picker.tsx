@@ -20,10 +20,24 @@ type Group = { key: string; label: string; tone: string; pressed: string; member
  * With `kind` (classes that are not defects: the part type editor's zones) they form one group
  * of that name, with no severity.
  */
-export const DefectClassPicker = memo(function DefectClassPicker({ classes, activeDefect, onPick, kind }: { classes: readonly ClassEntry[]; activeDefect: string | null; onPick(key: string): void; kind?: string }) {
+export const DefectClassPicker = memo(function DefectClassPicker({
+  classes,
+  activeDefect,
+  onPick,
+  kind,
+}: {
+  classes: readonly ClassEntry[];
+  activeDefect: string | null;
+  onPick(key: string): void;
+  kind?: string;
+}) {
   const groups: Group[] = kind
     ? [{ key: "all", label: kind, tone: GROUP.minor.tone, pressed: GROUP.minor.pressed, members: classes }]
-    : DEFECT_SEVERITIES_MILDEST_FIRST.filter((severity) => classes.some((c) => c.severity === severity)).map((severity) => ({ key: severity, ...GROUP[severity], members: classes.filter((c) => c.severity === severity) }));
+    : DEFECT_SEVERITIES_MILDEST_FIRST.filter((severity) => classes.some((c) => c.severity === severity)).map((severity) => ({
+        key: severity,
+        ...GROUP[severity],
+        members: classes.filter((c) => c.severity === severity),
+      }));
   return (
     <div role="group" aria-label={kind ?? "Defect class"} className="flex min-w-0 flex-wrap items-center gap-1" data-testid="class-bar">
       {groups.map(({ key: severity, members, ...group }, i) => {

@@ -4,19 +4,7 @@
  * Points are stage (CSS) pixels.
  */
 import type { Bounds } from "@/lib/geometry/bounds";
-import {
-  clampScale,
-  DEFAULT_SCALE_LIMITS,
-  pan,
-  stagePoint,
-  toImage,
-  wheelZoomFactor,
-  zoomAround,
-  type ScaleLimits,
-  type Size,
-  type StagePoint,
-  type Viewport,
-} from "@/lib/annotate/coords";
+import { clampScale, DEFAULT_SCALE_LIMITS, pan, stagePoint, toImage, wheelZoomFactor, zoomAround, type ScaleLimits, type Size, type StagePoint, type Viewport } from "@/lib/annotate/coords";
 
 export type PinchStart = Readonly<{ viewport: Viewport; a: StagePoint; b: StagePoint }>;
 
@@ -76,8 +64,7 @@ export const DOUBLE_CLICK_PX = 6;
  * counts itself; this also gives touch and pen a double-tap.
  */
 export function nextClick(previous: ClickRecord | null, time: number, at: StagePoint): ClickRecord {
-  const continues =
-    previous !== null && time - previous.time <= DOUBLE_CLICK_MS && time >= previous.time && Math.hypot(at.x - previous.x, at.y - previous.y) <= DOUBLE_CLICK_PX;
+  const continues = previous !== null && time - previous.time <= DOUBLE_CLICK_MS && time >= previous.time && Math.hypot(at.x - previous.x, at.y - previous.y) <= DOUBLE_CLICK_PX;
   return { time, x: at.x, y: at.y, count: continues ? previous.count + 1 : 1 };
 }
 

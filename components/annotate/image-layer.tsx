@@ -27,9 +27,7 @@ export const ImageLayer = memo(function ImageLayer({ viewport, image, original, 
   return (
     <Layer listening={false} imageSmoothingEnabled={!magnified} {...layerTransform(viewport)}>
       <Rect width={original.width} height={original.height} fill="#17302f" listening={false} perfectDrawEnabled={false} />
-      {image && (
-        <KonvaImage image={image} width={bitmap.width} height={bitmap.height} scaleX={scaleX} scaleY={scaleY} listening={false} perfectDrawEnabled={false} />
-      )}
+      {image && <KonvaImage image={image} width={bitmap.width} height={bitmap.height} scaleX={scaleX} scaleY={scaleY} listening={false} perfectDrawEnabled={false} />}
     </Layer>
   );
 });

@@ -74,12 +74,8 @@ function DraftShape({ draft, style, lineWidth, scale }: { draft: Draft; style: R
         <Line points={points} stroke={style.colour} opacity={0.35} strokeWidth={lineWidth} lineCap="round" lineJoin="round" listening={false} perfectDrawEnabled={false} />
       )}
       <HaloLine points={points} style={style} />
-      {draft.hover && last && !draft.pressed && (
-        <Line points={[last.x, last.y, draft.hover.x, draft.hover.y]} {...screenStroke(style.colour, 1.5, [4, 4])} />
-      )}
-      {closes && (
-        <Circle x={draft.points[0].x} y={draft.points[0].y} radius={CLOSE_TOLERANCE_PX / scale} {...screenStroke(style.colour, 1.5, [2, 3])} />
-      )}
+      {draft.hover && last && !draft.pressed && <Line points={[last.x, last.y, draft.hover.x, draft.hover.y]} {...screenStroke(style.colour, 1.5, [4, 4])} />}
+      {closes && <Circle x={draft.points[0].x} y={draft.points[0].y} radius={CLOSE_TOLERANCE_PX / scale} {...screenStroke(style.colour, 1.5, [2, 3])} />}
     </>
   );
 }
@@ -103,7 +99,12 @@ export const InteractionLayer = memo(function InteractionLayer({ viewport, draft
       if (!view || !selected) return;
       const ctx = nativeContext(context);
       paintSelection(ctx, selected, view);
-      if (showHandles) paintHandles(ctx, handlesOf(selected).map((h) => h.point), view);
+      if (showHandles)
+        paintHandles(
+          ctx,
+          handlesOf(selected).map((h) => h.point),
+          view,
+        );
     },
     [selected, showHandles],
   );
@@ -115,10 +116,7 @@ export const InteractionLayer = memo(function InteractionLayer({ viewport, draft
     },
     [draft],
   );
-  const vertices = useMemo(
-    () => (draft && (draft.tool === "outline" || draft.tool === "surface" || draft.tool === "line") ? draft.points.map(toShapePoint) : null),
-    [draft],
-  );
+  const vertices = useMemo(() => (draft && (draft.tool === "outline" || draft.tool === "surface" || draft.tool === "line") ? draft.points.map(toShapePoint) : null), [draft]);
   const vertexFunc = useCallback(
     (context: Konva.Context, shape: Konva.Shape) => {
       const view = paintViewOf(shape);

@@ -11,7 +11,12 @@ const PATHS: Record<ToolId | "undo" | "redo" | "keys" | "eye" | "fold", React.Re
   select: (
     <>
       <rect x="6" y="6" width="12" height="12" strokeDasharray="2.5 2" />
-      {[[6, 6], [18, 6], [6, 18], [18, 18]].map(([x, y]) => (
+      {[
+        [6, 6],
+        [18, 6],
+        [6, 18],
+        [18, 18],
+      ].map(([x, y]) => (
         <rect key={`${x}-${y}`} x={x - 1.75} y={y - 1.75} width="3.5" height="3.5" fill="currentColor" stroke="none" />
       ))}
     </>
@@ -25,7 +30,13 @@ const PATHS: Record<ToolId | "undo" | "redo" | "keys" | "eye" | "fold", React.Re
   outline: (
     <>
       <path d="M5 9.5L10.5 5L19 8.5L17 17.5L8 19Z" />
-      {[[5, 9.5], [10.5, 5], [19, 8.5], [17, 17.5], [8, 19]].map(([x, y]) => (
+      {[
+        [5, 9.5],
+        [10.5, 5],
+        [19, 8.5],
+        [17, 17.5],
+        [8, 19],
+      ].map(([x, y]) => (
         <circle key={`${x}-${y}`} cx={x} cy={y} r="1.5" fill="currentColor" stroke="none" />
       ))}
     </>

@@ -33,7 +33,12 @@ function ClassVisibility({ classes, hiddenDefects, onToggle }: { classes: readon
   const hiddenCount = classes.filter((c) => hiddenDefects.includes(c.key)).length;
   return (
     <details className="relative">
-      <summary className={`${railButton} cursor-pointer list-none`} title="Show or hide classes on the photo" aria-label={`Shown classes${hiddenCount ? ` (${hiddenCount} hidden)` : ""}`} data-testid="class-visibility">
+      <summary
+        className={`${railButton} cursor-pointer list-none`}
+        title="Show or hide classes on the photo"
+        aria-label={`Shown classes${hiddenCount ? ` (${hiddenCount} hidden)` : ""}`}
+        data-testid="class-visibility"
+      >
         <Glyph name="eye" />
         {hiddenCount > 0 && <span className="absolute top-0.5 right-0.5 rounded bg-signal-300 px-1 text-[10px] font-semibold text-gauge-950">{hiddenCount}</span>}
       </summary>
@@ -83,10 +88,28 @@ export const ToolRail = memo(function ToolRail({ activeTool, lineWidth, enabledT
         })}
       {!readOnly && (
         <div className="my-0.5 flex flex-col items-center gap-0.5 border-t border-gauge-700 pt-1">
-          <button type="button" className={railButton} onClick={actions.undo} disabled={!history.canUndo} aria-label="Undo" aria-keyshortcuts="Control+Z Meta+Z" title="Undo (Ctrl+Z)" data-testid="undo">
+          <button
+            type="button"
+            className={railButton}
+            onClick={actions.undo}
+            disabled={!history.canUndo}
+            aria-label="Undo"
+            aria-keyshortcuts="Control+Z Meta+Z"
+            title="Undo (Ctrl+Z)"
+            data-testid="undo"
+          >
             <Glyph name="undo" />
           </button>
-          <button type="button" className={railButton} onClick={actions.redo} disabled={!history.canRedo} aria-label="Redo" aria-keyshortcuts="Shift+Control+Z Shift+Meta+Z" title="Redo (Shift+Ctrl+Z)" data-testid="redo">
+          <button
+            type="button"
+            className={railButton}
+            onClick={actions.redo}
+            disabled={!history.canRedo}
+            aria-label="Redo"
+            aria-keyshortcuts="Shift+Control+Z Shift+Meta+Z"
+            title="Redo (Shift+Ctrl+Z)"
+            data-testid="redo"
+          >
             <Glyph name="redo" />
           </button>
           <LineWidthControl value={lineWidth.value} target={lineWidth.target} onChange={actions.lineWidth} />

@@ -74,7 +74,9 @@ export type ToolInHand = Readonly<{ tool: ToolId; defect: string | null }>;
  * (lib/suggestions) carries the model that made it and its score, so the Bench can record what
  * the inspector did with it.
  */
-export type GhostShape = Readonly<{ id: string; label: string } & ({ role: "surface"; shape: PolygonShape } | { role: "defect"; defect: string; shape: Shape; learned?: { modelId: string; score: number } })>;
+export type GhostShape = Readonly<
+  { id: string; label: string } & ({ role: "surface"; shape: PolygonShape } | { role: "defect"; defect: string; shape: Shape; learned?: { modelId: string; score: number } })
+>;
 
 /** Imperative handle (via the `handleRef` prop) for a page's own buttons or tests. */
 export type AnnotationCanvasHandle = {

@@ -10,9 +10,7 @@ import { FormField, FormMessage } from "@/components/ui/form-field";
 import { newPasswordSchema } from "@/lib/auth/schemas";
 import { ApiError, apiFetch } from "@/lib/http/client";
 
-const formSchema = z
-  .object({ password: newPasswordSchema, confirm: z.string() })
-  .refine((v) => v.password === v.confirm, { message: "The two passwords are not the same.", path: ["confirm"] });
+const formSchema = z.object({ password: newPasswordSchema, confirm: z.string() }).refine((v) => v.password === v.confirm, { message: "The two passwords are not the same.", path: ["confirm"] });
 type Values = z.input<typeof formSchema>;
 
 export function SetPasswordForm({ token }: { token: string }) {

@@ -69,8 +69,8 @@ export function SignUpForm({ starters }: { starters: readonly StarterChoice[] })
       <fieldset className="space-y-2" aria-describedby="starter-hint">
         <legend className="field-label">Start with example part types</legend>
         <p id="starter-hint" className="text-xs text-gauge-600">
-          Each comes with its views and zones, defect classes and functional checklist, and an example rubric as a draft. They are examples to adapt: change
-          anything on the Part types and Rubrics screens, and publish a rubric once its thresholds suit your contracts. Untick what you do not handle.
+          Each comes with its views and zones, defect classes and functional checklist, and an example rubric as a draft. They are examples to adapt: change anything on the Part types and Rubrics
+          screens, and publish a rubric once its thresholds suit your contracts. Untick what you do not handle.
         </p>
         <StarterChoices choices={starters} registration={register("starterPartTypes")} idPrefix="starter" />
       </fieldset>

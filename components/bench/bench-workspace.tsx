@@ -16,11 +16,10 @@ import { PhotoList } from "@/components/photos/photo-list";
 import { PhotoStrip } from "@/components/photos/photo-strip";
 import { PhotoUploader } from "@/components/photos/photo-uploader";
 import { LeaseHeartbeat } from "@/components/queue/lease-heartbeat";
-import type { DefectClassDefinition, ViewDefinition } from "@/db/schema/lots";
 import { benchClassOrder, startingClass } from "@/lib/annotate/class-order";
+import { can } from "@/lib/auth/permissions";
 import { apiFetch } from "@/lib/http/client";
 import { isScreenView } from "@/lib/regions/suggestion-mapping";
-import { annotateLock, benchNotice, type BenchPerson } from "./annotate-lock";
 import { checklistSummary, ChecklistPanel } from "./checklist-panel";
 import { PhotoAnnotator, type CanvasLink } from "./photo-annotator";
 import { PHOTO_SHORTCUTS } from "./photo-keys";
@@ -28,9 +27,12 @@ import { openSection, SidePanels, usePanelState, type PanelSection } from "./sid
 import { TakeNext } from "./take-next";
 import { useToolInHand } from "./tool-in-hand";
 import { UnitHeader } from "./unit-header";
+import { benchNotice, unitLock, type BenchPerson } from "./unit-lock";
 import { useBenchPhotos } from "./use-bench-photos";
-import { useUnit, type UnitView } from "./use-unit";
+import type { UnitView } from "@/lib/units/dto";
+import { useUnit } from "./use-unit";
 import { unitKeys } from "@/lib/query-keys/units";
+import type { DefectClassDefinition, ViewDefinition } from "@/lib/part-types/schemas";
 
 export type BenchPartType = {
   views: ViewDefinition[];
@@ -49,7 +51,11 @@ type BenchWorkspaceProps = {
   canPromote: boolean;
 };
 
-const BANNER_TONE = { held: "border-signal-500 bg-signal-50 text-signal-700", closed: "border-gauge-300 bg-gauge-50 text-gauge-800", "view-only": "border-gauge-300 bg-gauge-50 text-gauge-800" } as const;
+const BANNER_TONE = {
+  held: "border-signal-500 bg-signal-50 text-signal-700",
+  closed: "border-gauge-300 bg-gauge-50 text-gauge-800",
+  "view-only": "border-gauge-300 bg-gauge-50 text-gauge-800",
+} as const;
 
 /**
  * The Bench for one unit, as a workspace that fills the window: the unit in one header line, the
@@ -73,7 +79,7 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
   const { photos, selected, select, registry, unsaved, switched } = useBenchPhotos({ unitId, initialPhotoId, keyArea: markingArea });
   const grades = useQuery({ queryKey: unitKeys.grades(unitId), queryFn: () => apiFetch<{ grades: GradeView[] }>(`/api/units/${unitId}/grades`) });
 
-  const lock = annotateLock(view, me);
+  const lock = unitLock(view, me, "regions");
   const notice = benchNotice(view, me);
   const holdsLease = view.unit.status === "on_bench" && view.unit.leaseHolderId === me.id;
   const classKeys = useMemo(() => benchClassOrder(partType.defectClasses).map((d) => d.key), [partType.defectClasses]);
@@ -81,14 +87,20 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
   const views = useMemo(() => partType.views.map((v) => ({ key: v.key, label: v.label, required: v.required })), [partType.views]);
   const allowedDefects = useMemo<AllowedDefect[]>(() => partType.defectClasses.map((d) => ({ key: d.key, label: d.label, severity: d.severity })), [partType.defectClasses]);
   const labels = useMemo<MeasurementLabels>(
-    () => ({ defects: Object.fromEntries(partType.defectClasses.map((d) => [d.key, d.label])), zones: Object.fromEntries(partType.views.flatMap((v) => v.zones.map((z) => [z.id, z.label]))), views: Object.fromEntries(views.map((v) => [v.key, v.label])) }),
+    () => ({
+      defects: Object.fromEntries(partType.defectClasses.map((d) => [d.key, d.label])),
+      zones: Object.fromEntries(partType.views.flatMap((v) => v.zones.map((z) => [z.id, z.label]))),
+      views: Object.fromEntries(views.map((v) => [v.key, v.label])),
+    }),
     [partType, views],
   );
   const selectedView = selected ? partType.views.find((v) => v.key === selected.viewKey) : undefined;
   const classLabels = labels.defects;
   // A reference belongs to a view: switching to a photo of another view puts it away.
   const shownReference = reference && selected && reference.viewKey === selected.viewKey ? reference : null;
-  const canUpload = me.canRecord && (view.unit.status === "queued" || view.unit.status === "on_bench");
+  const canUpload = unitLock(view, me, "upload") === null;
+  const canManagePhotos = unitLock(view, me, "photos") === null;
+  const gradeLock = unitLock(view, me, "grade");
   const noPhotos = photos.isSuccess && photos.data.photos.length === 0;
   const graded = view.unit.status === "graded" || view.unit.status === "in_recheck" || view.unit.status === "final";
   // A unit without photos opens with the uploader where the canvas will be; later it opens over the
@@ -146,13 +158,13 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
         <div id="grade" className="space-y-4">
           <GradePanel
             unitId={unitId}
-            canGrade={me.canRecord}
+            canGrade={can(me, "grades.record")}
             canCorrect={canCorrect}
             labels={labels}
             unsavedRegions={unsaved.size > 0}
             beforeMeasure={() => registry.flushAll()}
             onGraded={() => void queryClient.invalidateQueries({ queryKey: unitKeys.view(unitId) })}
-            readOnlyReason={lock !== null && !(me.isLead && view.unit.status === "graded") ? lock : null}
+            readOnlyReason={gradeLock !== null && !(canCorrect && view.unit.status === "graded") ? gradeLock : null}
             framed={false}
           />
           <GradeHistory unitId={unitId} framed={false} />
@@ -160,7 +172,12 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
         </div>
       ),
     },
-    { id: "photos", title: "Photos", summary: `${photos.data?.photos.length ?? 0}`, content: <PhotoList unitId={unitId} views={views} canManage={canUpload} beforeRemove={(id) => registry.get(id)?.flush() ?? Promise.resolve(true)} /> },
+    {
+      id: "photos",
+      title: "Photos",
+      summary: `${photos.data?.photos.length ?? 0}`,
+      content: <PhotoList unitId={unitId} views={views} canManage={canManagePhotos} beforeRemove={(id) => registry.get(id)?.flush() ?? Promise.resolve(true)} />,
+    },
   ];
 
   return (
@@ -171,7 +188,7 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
         end={
           <>
             {holdsLease && <LeaseHeartbeat unitId={unitId} onRenewed={() => void queryClient.invalidateQueries({ queryKey: unitKeys.view(unitId) })} />}
-            {me.canRecord && view.unit.status === "graded" && <TakeNext lotId={view.lot.id} />}
+            {can(me, "queue.work") && view.unit.status === "graded" && <TakeNext lotId={view.lot.id} />}
           </>
         }
       />
@@ -183,7 +200,11 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
       <div className="flex min-h-0 flex-1 flex-col gap-2 lg:flex-row">
         {/* Portrait: the marking area keeps a fixed share of the height (never the panels' content
             size, which changes while marking) and takes all of it once the panels are folded. */}
-        <div ref={setMarkingArea} className={`flex min-h-[26rem] min-w-0 flex-col gap-2 lg:min-h-0 lg:flex-1 lg:basis-auto ${panels.folded ? "flex-1" : "shrink-0 basis-[74%]"}`} data-testid="marking-area">
+        <div
+          ref={setMarkingArea}
+          className={`flex min-h-[26rem] min-w-0 flex-col gap-2 lg:min-h-0 lg:flex-1 lg:basis-auto ${panels.folded ? "flex-1" : "shrink-0 basis-[74%]"}`}
+          data-testid="marking-area"
+        >
           <div className="relative flex min-h-0 flex-1 flex-col">
             {selected ? (
               <PhotoAnnotator
@@ -224,10 +245,23 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
               <div className="flex shrink-0 flex-col items-end gap-1">
                 {canUpload && !noPhotos && (
                   <div className="flex gap-1">
-                    <button type="button" className="btn-secondary h-8 px-2 py-0 text-sm" onClick={showPhotoPanel} title="File a photo under the right view, or remove a wrong one" data-testid="manage-photos">
+                    <button
+                      type="button"
+                      className="btn-secondary h-8 px-2 py-0 text-sm"
+                      onClick={showPhotoPanel}
+                      title="File a photo under the right view, or remove a wrong one"
+                      data-testid="manage-photos"
+                    >
                       View or remove…
                     </button>
-                    <button type="button" className="btn-secondary h-8 py-0 text-sm" aria-expanded={uploaderShown} aria-controls="bench-uploader" onClick={() => setUploadOpen((open) => !open)} data-testid="add-photos-toggle">
+                    <button
+                      type="button"
+                      className="btn-secondary h-8 py-0 text-sm"
+                      aria-expanded={uploaderShown}
+                      aria-controls="bench-uploader"
+                      onClick={() => setUploadOpen((open) => !open)}
+                      data-testid="add-photos-toggle"
+                    >
                       {uploaderShown ? "Hide the uploader" : "Add photos"}
                     </button>
                   </div>

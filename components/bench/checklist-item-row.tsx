@@ -3,9 +3,10 @@
 import { useState } from "react";
 import { DefectSeverityBadge } from "@/components/lots/badges";
 import { useDateTime } from "@/components/ui/time-zone";
-import type { ChecklistItem } from "@/db/schema/lots";
-import { describeLimits, evaluateChecklistItem, formatReading, suspectReading, type ChecklistValue } from "@/lib/checklist/evaluate";
-import type { UnitView } from "./use-unit";
+import { describeLimits, evaluateChecklistItem, formatReading, suspectReading } from "@/lib/checklist/evaluate";
+import type { UnitView } from "@/lib/units/dto";
+import type { ChecklistItem } from "@/lib/part-types/schemas";
+import type { ChecklistValue } from "@/lib/units/schemas";
 
 type Result = UnitView["results"][number];
 
@@ -23,7 +24,6 @@ function shownValue(item: ChecklistItem, value: ChecklistValue): string {
   return "";
 }
 
-
 /**
  * How a failed result reads: a reading is judged against the limits automatically; a Fail button
  * or a failing choice is the inspector's own call and says so.
@@ -36,7 +36,19 @@ export function failureText(item: ChecklistItem, result: Pick<Result, "failureRe
 }
 
 /** One checklist item: its control, the live check against limits, a note, and the recorded result. */
-export function ChecklistItemRow({ item, result, disabled, saving, onRecord }: { item: ChecklistItem; result?: Result; disabled: boolean; saving: boolean; onRecord: (value: ChecklistValue, note: string) => void }) {
+export function ChecklistItemRow({
+  item,
+  result,
+  disabled,
+  saving,
+  onRecord,
+}: {
+  item: ChecklistItem;
+  result?: Result;
+  disabled: boolean;
+  saving: boolean;
+  onRecord: (value: ChecklistValue, note: string) => void;
+}) {
   const [text, setText] = useState(result && "reading" in result.value ? String(result.value.reading) : "");
   const [note, setNote] = useState(result?.note ?? "");
   const record = (value: ChecklistValue) => onRecord(value, note.trim());
@@ -50,7 +62,9 @@ export function ChecklistItemRow({ item, result, disabled, saving, onRecord }: {
   return (
     <li className="space-y-1.5 py-2 text-sm" data-testid={`checklist-item-${item.id}`}>
       <div className="flex flex-wrap items-center gap-x-2 gap-y-0.5">
-        <span className="font-medium" id={`${inputId}-label`}>{item.label}</span>
+        <span className="font-medium" id={`${inputId}-label`}>
+          {item.label}
+        </span>
         <span className="text-xs text-gauge-600">fails as</span>
         <DefectSeverityBadge severity={item.severityOnFail} />
         {item.kind === "numeric" && <span className="text-xs text-gauge-600">limits {describeLimits(item)}</span>}
@@ -66,7 +80,14 @@ export function ChecklistItemRow({ item, result, disabled, saving, onRecord }: {
             {[true, false].map((pass) => {
               const current = result && "pass" in result.value && result.value.pass === pass;
               return (
-                <button key={String(pass)} type="button" aria-pressed={current} disabled={disabled || saving} onClick={() => record({ pass })} className={`${current ? (pass ? "btn-primary" : "btn-danger") : "btn-secondary"} h-8 py-0`}>
+                <button
+                  key={String(pass)}
+                  type="button"
+                  aria-pressed={current}
+                  disabled={disabled || saving}
+                  onClick={() => record({ pass })}
+                  className={`${current ? (pass ? "btn-primary" : "btn-danger") : "btn-secondary"} h-8 py-0`}
+                >
                   {pass ? "Pass" : "Fail"}
                 </button>
               );
@@ -84,13 +105,27 @@ export function ChecklistItemRow({ item, result, disabled, saving, onRecord }: {
             <label htmlFor={inputId} className="sr-only">
               {item.label} reading{item.unit ? ` (${item.unit})` : ""}
             </label>
-            <input id={inputId} inputMode="decimal" className="field-input h-8 w-28 py-0 font-mono" value={text} disabled={disabled} onChange={(e) => setText(e.target.value)} aria-describedby={`${inputId}-hint`} />
+            <input
+              id={inputId}
+              inputMode="decimal"
+              className="field-input h-8 w-28 py-0 font-mono"
+              value={text}
+              disabled={disabled}
+              onChange={(e) => setText(e.target.value)}
+              aria-describedby={`${inputId}-hint`}
+            />
             <span className="text-sm text-gauge-700">{item.unit}</span>
             <button type="submit" className="btn-secondary h-8 py-0" disabled={disabled || saving || reading === null}>
               Save reading
             </button>
             <span id={`${inputId}-hint`} className="text-xs text-gauge-600">
-              {text.trim() === "" ? "" : reading === null ? "Enter a number." : hint?.passed ? "Within limits." : `Will fail: ${hint?.failureReason}${suspect ? ` Below ${suspect.level}: set it aside as suspect.` : ""}`}
+              {text.trim() === ""
+                ? ""
+                : reading === null
+                  ? "Enter a number."
+                  : hint?.passed
+                    ? "Within limits."
+                    : `Will fail: ${hint?.failureReason}${suspect ? ` Below ${suspect.level}: set it aside as suspect.` : ""}`}
             </span>
           </form>
         )}
@@ -128,9 +163,7 @@ export function ChecklistItemRow({ item, result, disabled, saving, onRecord }: {
       </div>
       {result && (
         <p role="status" data-testid={`result-${item.id}`} className={`text-sm ${result.passed ? "text-ok-600" : "font-medium text-fault-700"}`}>
-          {result.passed
-            ? item.kind === "pass_fail" ? "Passed." : `Passed: ${shownValue(item, result.value)}.`
-            : failureText(item, result)}
+          {result.passed ? (item.kind === "pass_fail" ? "Passed." : `Passed: ${shownValue(item, result.value)}.`) : failureText(item, result)}
           <span className="ml-2 text-xs font-normal text-gauge-600">
             {/* With the date, since a reading from an earlier day must not read as today's. */}
             {result.recordedByName}, {dateTime(result.recordedAt)}

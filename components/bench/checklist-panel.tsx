@@ -4,12 +4,15 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { useState } from "react";
 import { BatteryCaution, StaticCaution, SuspectCaution } from "@/components/ui/cautions";
 import { FormMessage } from "@/components/ui/form-field";
-import { suspectReading, type ChecklistValue } from "@/lib/checklist/evaluate";
+import { suspectReading } from "@/lib/checklist/evaluate";
 import { apiFetch } from "@/lib/http/client";
 import { STATIC_SENSITIVE, type PartCategory } from "@/lib/part-types/schemas";
 import { ChecklistItemRow } from "./checklist-item-row";
-import { benchLock, useUnit, type UnitView } from "./use-unit";
+import type { UnitView } from "@/lib/units/dto";
+import { unitLock, type BenchPerson } from "./unit-lock";
+import { useUnit } from "./use-unit";
 import { unitKeys } from "@/lib/query-keys/units";
+import type { ChecklistValue } from "@/lib/units/schemas";
 
 /** Items whose failure means a battery is unsafe to handle normally. */
 const BATTERY_HAZARD_ITEMS = ["swelling", "not-hot"];
@@ -27,7 +30,7 @@ export function checklistSummary(view: UnitView): string {
  * limits; a failed item becomes a functional defect of its severity (it counts toward the lot's
  * verdict at once).
  */
-export function ChecklistPanel({ initial, me, framed = true }: { initial: UnitView; me: { id: string; isLead: boolean; canRecord: boolean }; framed?: boolean }) {
+export function ChecklistPanel({ initial, me, framed = true }: { initial: UnitView; me: BenchPerson; framed?: boolean }) {
   const { data: view } = useUnit(initial.unit.id, initial);
   const queryClient = useQueryClient();
   const [error, setError] = useState<string | null>(null);
@@ -43,7 +46,7 @@ export function ChecklistPanel({ initial, me, framed = true }: { initial: UnitVi
   const byItem = new Map(view.results.map((r) => [r.itemId, r]));
   const failed = items.map((i) => byItem.get(i.id)).filter((r) => r && !r.passed);
   // Why it is closed is said once, in the Bench's banner; only the serial is this panel's own hint.
-  const closed = benchLock(view, me);
+  const closed = unitLock(view, me, "checklist");
   const needsSerial = closed === null && view.unit.serial === null;
   const lock = closed ?? (needsSerial ? "Scan or type the serial first." : null);
   const battery = view.partType.category === "battery";
@@ -77,7 +80,14 @@ export function ChecklistPanel({ initial, me, framed = true }: { initial: UnitVi
       ) : (
         <ol className="divide-y divide-gauge-100">
           {items.map((item) => (
-            <ChecklistItemRow key={item.id} item={item} result={byItem.get(item.id)} disabled={lock !== null} saving={record.isPending} onRecord={(value, note) => record.mutate({ itemId: item.id, value, note })} />
+            <ChecklistItemRow
+              key={item.id}
+              item={item}
+              result={byItem.get(item.id)}
+              disabled={lock !== null}
+              saving={record.isPending}
+              onRecord={(value, note) => record.mutate({ itemId: item.id, value, note })}
+            />
           ))}
         </ol>
       )}

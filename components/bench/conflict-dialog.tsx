@@ -16,7 +16,17 @@ const regionsText = (n: number) => `${n} region${n === 1 ? "" : "s"}`;
  * one Undo away; "mine" saves over theirs only after the person has seen what that replaces.
  * A modal dialog: focus moves in, Tab stays inside; Escape merges nothing and keeps it open.
  */
-export function ConflictDialog({ current, base, mine, onChoose }: { current: ServerSet; base: RegionSetPayload; mine: RegionSetPayload; onChoose(choice: ConflictChoice, keep: RegionSetPayload): void }) {
+export function ConflictDialog({
+  current,
+  base,
+  mine,
+  onChoose,
+}: {
+  current: ServerSet;
+  base: RegionSetPayload;
+  mine: RegionSetPayload;
+  onChoose(choice: ConflictChoice, keep: RegionSetPayload): void;
+}) {
   const merged = useMemo(() => mergeRegionSets({ base, mine, theirs: current.regions }), [base, mine, current]);
   const dialogRef = useRef<HTMLDivElement>(null);
   const firstRef = useRef<HTMLButtonElement>(null);
@@ -39,16 +49,27 @@ export function ConflictDialog({ current, base, mine, onChoose }: { current: Ser
   const who = current.updatedByName ? `${current.updatedByName} (or you, in another tab)` : "Someone (or you, in another tab)";
   return (
     <div className="fixed inset-0 z-50 flex items-center justify-center bg-gauge-950/50 p-4">
-      <div ref={dialogRef} role="alertdialog" aria-modal="true" aria-labelledby="conflict-title" aria-describedby="conflict-text" className="card max-h-[85vh] w-full max-w-xl space-y-4 overflow-y-auto p-5" onKeyDown={onKeyDown} data-testid="conflict-dialog">
+      <div
+        ref={dialogRef}
+        role="alertdialog"
+        aria-modal="true"
+        aria-labelledby="conflict-title"
+        aria-describedby="conflict-text"
+        className="card max-h-[85vh] w-full max-w-xl space-y-4 overflow-y-auto p-5"
+        onKeyDown={onKeyDown}
+        data-testid="conflict-dialog"
+      >
         <h2 id="conflict-title" className="text-lg font-semibold">
           These regions were changed elsewhere
         </h2>
         <div id="conflict-text" className="space-y-2 text-sm">
           <p>
-            {who} saved this photo&rsquo;s regions while you were editing (now version {current.version}, {regionsText(count(current.regions))}). Your {regionsText(count(mine))} are still here and nothing has been lost.
+            {who} saved this photo&rsquo;s regions while you were editing (now version {current.version}, {regionsText(count(current.regions))}). Your {regionsText(count(mine))} are still here and
+            nothing has been lost.
           </p>
           <p>
-            Merging keeps both: {merged.takenFromTheirs > 0 ? `${regionsText(merged.takenFromTheirs)} from the other session are taken over` : "nothing of theirs differs from yours"}, the result has {regionsText(count(merged.payload))}.
+            Merging keeps both: {merged.takenFromTheirs > 0 ? `${regionsText(merged.takenFromTheirs)} from the other session are taken over` : "nothing of theirs differs from yours"}, the result has{" "}
+            {regionsText(count(merged.payload))}.
           </p>
           {merged.conflicts.length > 0 && (
             <ul className="list-disc space-y-0.5 pl-5 text-signal-700" data-testid="conflict-list">

@@ -86,7 +86,11 @@ export function PhotoAnnotator({ photo, loadSet = fetchRegionSet, sessionScope =
   return (
     <section className="relative flex h-full min-h-0 flex-col" aria-label={`Annotate the ${viewLabel} photo ${photo.fileName}`} data-testid="photo-annotator" data-photo-id={photo.id}>
       {session.isError && <FormMessage kind="error">The saved regions could not be loaded: {session.error.message} Reload the page to try again.</FormMessage>}
-      {session.isPending && <div className="flex min-h-0 flex-1 items-center justify-center rounded-lg bg-gauge-900 text-sm text-gauge-100" role="status">Loading the regions…</div>}
+      {session.isPending && (
+        <div className="flex min-h-0 flex-1 items-center justify-center rounded-lg bg-gauge-900 text-sm text-gauge-100" role="status">
+          Loading the regions…
+        </div>
+      )}
       {session.data && (
         <AnnotationCanvasLazy
           key={`${photo.id}-${session.dataUpdatedAt}`}
@@ -112,7 +116,10 @@ export function PhotoAnnotator({ photo, loadSet = fetchRegionSet, sessionScope =
         </div>
       )}
       {!readOnly && saver && slots.status && createPortal(<SaveStatusLine status={status} onRetry={() => saver.retryNow()} />, slots.status)}
-      {!readOnly && session.data && slots.suggestions && createPortal(<SuggestionsBar photoId={photo.id} screenView={screenView} ghosts={ghosts} onGhosts={setGhosts} onAccept={accept} />, slots.suggestions)}
+      {!readOnly &&
+        session.data &&
+        slots.suggestions &&
+        createPortal(<SuggestionsBar photoId={photo.id} screenView={screenView} ghosts={ghosts} onGhosts={setGhosts} onAccept={accept} />, slots.suggestions)}
       {saver && status.kind === "conflict" && <ConflictDialog current={status.current} base={saver.lastSaved()} mine={saver.latestRegions()} onChoose={resolve} />}
     </section>
   );

@@ -18,11 +18,7 @@ import type { RegionSetPayload } from "@/lib/geometry/validate";
 export type SaveRequest = { baseVersion: number; regions: RegionSetPayload };
 export type ServerSet = { version: number; regions: RegionSetPayload; updatedByName?: string | null };
 
-export type SendResult =
-  | { kind: "saved"; set: ServerSet }
-  | { kind: "conflict"; current: ServerSet; message: string }
-  | { kind: "retryable"; message: string }
-  | { kind: "refused"; message: string };
+export type SendResult = { kind: "saved"; set: ServerSet } | { kind: "conflict"; current: ServerSet; message: string } | { kind: "retryable"; message: string } | { kind: "refused"; message: string };
 
 export type SaveStatus =
   | { kind: "saved"; version: number; at: number | null }

@@ -34,7 +34,8 @@ export async function putRegionSetAt(url: string, request: SaveRequest & { photo
   if (res.ok && body) return { kind: "saved", set: body };
   const message = body?.error?.message ?? `The server answered ${res.status}.`;
   if (res.status === 409 && body?.current) return { kind: "conflict", current: body.current, message };
-  if (res.status >= 500 || res.status === 429 || res.status === 408 || !body) return { kind: "retryable", message: res.status >= 500 ? `The server had a problem (${res.status}); saving again shortly.` : message };
+  if (res.status >= 500 || res.status === 429 || res.status === 408 || !body)
+    return { kind: "retryable", message: res.status >= 500 ? `The server had a problem (${res.status}); saving again shortly.` : message };
   if (res.status === 401) return { kind: "refused", message: "Your session has ended. Sign in again in another tab, then press Try again: your edits are kept here." };
   return { kind: "refused", message };
 }

@@ -10,7 +10,11 @@ type SaveStatusWords = { text: string; detail: string | null; tone: "ok" | "busy
 function describeSaveStatus(status: SaveStatus, timeZone: string): SaveStatusWords {
   switch (status.kind) {
     case "saved":
-      return { text: status.at ? `Saved (version ${status.version}, ${formatTime(status.at, timeZone, { seconds: true })})` : status.version ? `Saved (version ${status.version})` : "No regions saved yet", detail: null, tone: "ok" };
+      return {
+        text: status.at ? `Saved (version ${status.version}, ${formatTime(status.at, timeZone, { seconds: true })})` : status.version ? `Saved (version ${status.version})` : "No regions saved yet",
+        detail: null,
+        tone: "ok",
+      };
     case "pending":
       return { text: "Unsaved — saving…", detail: null, tone: "busy" };
     case "saving":
@@ -53,7 +57,10 @@ export function SaveProblem({ status }: { status: SaveStatus }) {
   const { detail, tone } = describeSaveStatus(status, useTimeZone());
   if (!detail) return null;
   return (
-    <p className={`rounded-md border px-3 py-2 text-sm ${tone === "fault" ? "border-fault-600 bg-fault-50 text-fault-700" : "border-signal-500 bg-signal-50 text-signal-700"}`} data-testid="save-problem">
+    <p
+      className={`rounded-md border px-3 py-2 text-sm ${tone === "fault" ? "border-fault-600 bg-fault-50 text-fault-700" : "border-signal-500 bg-signal-50 text-signal-700"}`}
+      data-testid="save-problem"
+    >
       Your edits are kept in this tab and have not reached the server: {detail}
     </p>
   );

@@ -28,7 +28,10 @@ export class SaverRegistry {
     this.unsubscribers.get(photoId)?.();
     const saver = new RegionAutosaver({ initial: set, send: (request) => this.send(photoId, request), onSaved: (saved) => this.onSaved(photoId, saved) });
     this.savers.set(photoId, saver);
-    this.unsubscribers.set(photoId, saver.subscribe(() => this.changed()));
+    this.unsubscribers.set(
+      photoId,
+      saver.subscribe(() => this.changed()),
+    );
     this.changed();
     return saver;
   }
@@ -57,7 +60,11 @@ export class SaverRegistry {
   };
 
   private changed(): void {
-    const key = [...this.savers.entries()].filter(([, s]) => s.hasUnsaved()).map(([id]) => id).sort().join(" ");
+    const key = [...this.savers.entries()]
+      .filter(([, s]) => s.hasUnsaved())
+      .map(([id]) => id)
+      .sort()
+      .join(" ");
     if (key === this.unsavedKey) return;
     this.unsavedKey = key;
     for (const listener of this.listeners) listener();

@@ -63,7 +63,13 @@ export function SidePanels({ sections, state, onChange, className = "" }: { sect
       <div className={`flex shrink-0 items-center gap-1 ${state.folded ? "lg:flex-col lg:items-stretch" : "lg:justify-end"}`}>
         <nav aria-label="Panels" className={`flex min-w-0 flex-1 gap-1 overflow-x-auto ${state.folded ? "lg:flex-none lg:flex-col" : "lg:hidden"}`}>
           {sections.map((s) => (
-            <button key={s.id} type="button" className="shrink-0 rounded-md border border-gauge-200 bg-white px-2 py-1 text-xs font-medium text-gauge-800 hover:bg-gauge-100 lg:border-0 lg:px-1 lg:py-2 lg:text-[11px] lg:shadow-xs lg:[writing-mode:vertical-rl]" onClick={() => open(s.id)} data-testid={`jump-${s.id}`}>
+            <button
+              key={s.id}
+              type="button"
+              className="shrink-0 rounded-md border border-gauge-200 bg-white px-2 py-1 text-xs font-medium text-gauge-800 hover:bg-gauge-100 lg:border-0 lg:px-1 lg:py-2 lg:text-[11px] lg:shadow-xs lg:[writing-mode:vertical-rl]"
+              onClick={() => open(s.id)}
+              data-testid={`jump-${s.id}`}
+            >
               {s.title}
             </button>
           ))}
@@ -86,7 +92,14 @@ export function SidePanels({ sections, state, onChange, className = "" }: { sect
           return (
             <section key={s.id} className="rounded-lg border border-gauge-200 bg-white" aria-labelledby={`panel-${s.id}`} data-testid={`panel-${s.id}`} data-section={s.id}>
               <h2 className="text-sm">
-                <button type="button" id={`panel-${s.id}`} className="flex w-full items-center gap-2 px-3 py-2 text-left font-semibold text-gauge-900 hover:bg-gauge-50" aria-expanded={isOpen} aria-controls={`panel-${s.id}-body`} onClick={() => toggle(s.id)}>
+                <button
+                  type="button"
+                  id={`panel-${s.id}`}
+                  className="flex w-full items-center gap-2 px-3 py-2 text-left font-semibold text-gauge-900 hover:bg-gauge-50"
+                  aria-expanded={isOpen}
+                  aria-controls={`panel-${s.id}-body`}
+                  onClick={() => toggle(s.id)}
+                >
                   <Glyph name="fold" className={`h-3.5 w-3.5 shrink-0 transition-transform ${isOpen ? "rotate-90" : ""}`} />
                   <span>{s.title}</span>
                   {s.summary && <span className="ml-auto min-w-0 truncate text-xs font-normal text-gauge-700">{s.summary}</span>}

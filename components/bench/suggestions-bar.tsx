@@ -20,7 +20,19 @@ const SHOWN = 8;
  * never saved on their own. What is done with a learned ghost is recorded (dismissed ones teach
  * the next training "no defect").
  */
-export function SuggestionsBar({ photoId, screenView, ghosts, onGhosts, onAccept }: { photoId: string; screenView: boolean; ghosts: readonly GhostShape[]; onGhosts(ghosts: GhostShape[]): void; onAccept(ghosts: readonly GhostShape[]): AcceptOutcome | undefined }) {
+export function SuggestionsBar({
+  photoId,
+  screenView,
+  ghosts,
+  onGhosts,
+  onAccept,
+}: {
+  photoId: string;
+  screenView: boolean;
+  ghosts: readonly GhostShape[];
+  onGhosts(ghosts: GhostShape[]): void;
+  onAccept(ghosts: readonly GhostShape[]): AcceptOutcome | undefined;
+}) {
   const [note, setNote] = useState<string | null>(null);
   const [accepted, setAccepted] = useState<string | null>(null);
   const suggest = useMutation({
@@ -70,7 +82,14 @@ export function SuggestionsBar({ photoId, screenView, ghosts, onGhosts, onAccept
         <button type="button" className="btn-secondary px-2.5 py-1.5" onClick={() => suggest.mutate("surface")} disabled={busy} data-testid="suggest-surface">
           Suggest Surface
         </button>
-        <button type="button" className="btn-secondary px-2.5 py-1.5" onClick={() => learn.mutate()} disabled={busy} data-testid="suggest-learned" title="Defects the workspace's own accepted regions taught the model">
+        <button
+          type="button"
+          className="btn-secondary px-2.5 py-1.5"
+          onClick={() => learn.mutate()}
+          disabled={busy}
+          data-testid="suggest-learned"
+          title="Defects the workspace's own accepted regions taught the model"
+        >
           Suggest defects
         </button>
         {screenView && (
@@ -78,7 +97,11 @@ export function SuggestionsBar({ photoId, screenView, ghosts, onGhosts, onAccept
             Find pixel faults
           </button>
         )}
-        {busy && <span className="text-sm text-gauge-700" role="status">Looking…</span>}
+        {busy && (
+          <span className="text-sm text-gauge-700" role="status">
+            Looking…
+          </span>
+        )}
         {ghosts.length > 0 && (
           <>
             <button type="button" className="btn-primary px-2.5 py-1.5" onClick={() => accept(ghosts)} data-testid="accept-all-suggestions">
@@ -93,8 +116,16 @@ export function SuggestionsBar({ photoId, screenView, ghosts, onGhosts, onAccept
       {suggest.isError && <FormMessage kind="error">{suggest.error.message}</FormMessage>}
       {learn.isError && <FormMessage kind="error">{learn.error.message}</FormMessage>}
       {record.isError && <FormMessage kind="error">Your choice on a learned suggestion was not recorded: {record.error.message}</FormMessage>}
-      {accepted && <p className="text-xs text-gauge-800" role="status" data-testid="suggestions-accepted">{accepted}</p>}
-      {note && <p className="text-xs text-gauge-700" data-testid="suggestion-note">{note} Suggestions are dashed until accepted and are never saved on their own.</p>}
+      {accepted && (
+        <p className="text-xs text-gauge-800" role="status" data-testid="suggestions-accepted">
+          {accepted}
+        </p>
+      )}
+      {note && (
+        <p className="text-xs text-gauge-700" data-testid="suggestion-note">
+          {note} Suggestions are dashed until accepted and are never saved on their own.
+        </p>
+      )}
       {ghosts.length > 0 && (
         <ul className="flex flex-wrap gap-2" aria-label="Suggested shapes">
           {ghosts.slice(0, SHOWN).map((ghost) => (

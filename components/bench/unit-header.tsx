@@ -4,18 +4,18 @@ import { useMutation, useQueryClient } from "@tanstack/react-query";
 import Link from "next/link";
 import { useState, type ReactNode } from "react";
 import { apiFetch } from "@/lib/http/client";
+import { leaseRunningAt } from "@/lib/units/editability";
 import { STATUS_LABELS } from "@/lib/units/state-machine";
-import { benchLock, useUnit, type UnitView } from "./use-unit";
+import type { UnitView } from "@/lib/units/dto";
+import { unitLock, type BenchPerson } from "./unit-lock";
+import { useUnit } from "./use-unit";
 import { unitKeys } from "@/lib/query-keys/units";
 
-type Person = { id: string; isLead: boolean; canRecord: boolean };
-
 /** Whose bench, in the status itself ("on your bench", not "on a bench — on your bench"). */
-function statusText(view: UnitView, me: Person): string {
+function statusText(view: UnitView, me: BenchPerson): string {
   const { unit } = view;
   if (unit.status !== "on_bench") return STATUS_LABELS[unit.status];
-  const leaseRunning = unit.leaseExpiresAt !== null && new Date(unit.leaseExpiresAt) > new Date();
-  if (!leaseRunning) return `${STATUS_LABELS.on_bench} — the lease ran out; it is free to take`;
+  if (!leaseRunningAt(unit)) return `${STATUS_LABELS.on_bench} — the lease ran out; it is free to take`;
   return unit.leaseHolderId === me.id ? "on your bench" : `on ${view.leaseHolderName ?? "another inspector"}'s bench`;
 }
 
@@ -38,7 +38,15 @@ function SerialForm({ view, editable }: { view: UnitView; editable: boolean }) {
       <label htmlFor="unit-serial" className="text-xs font-medium text-gauge-700">
         Serial (scan or type)
       </label>
-      <input id="unit-serial" className="field-input h-8 w-44 py-0 font-mono" value={serial} onChange={(e) => setSerial(e.target.value)} disabled={!editable} autoComplete="off" aria-describedby="unit-serial-message" />
+      <input
+        id="unit-serial"
+        className="field-input h-8 w-44 py-0 font-mono"
+        value={serial}
+        onChange={(e) => setSerial(e.target.value)}
+        disabled={!editable}
+        autoComplete="off"
+        aria-describedby="unit-serial-message"
+      />
       <button type="submit" className="btn-secondary h-8 py-0 text-sm" disabled={!editable || save.isPending || serial.trim() === "" || serial.trim() === view.unit.serial}>
         Save serial
       </button>
@@ -54,9 +62,9 @@ function SerialForm({ view, editable }: { view: UnitView; editable: boolean }) {
  * the status, then the page's own controls (the lease, Take next) at the end. Long text is cut,
  * never wrapped, so the workspace below keeps its place.
  */
-export function UnitHeader({ initial, me, end }: { initial: UnitView; me: Person; end?: ReactNode }) {
+export function UnitHeader({ initial, me, end }: { initial: UnitView; me: BenchPerson; end?: ReactNode }) {
   const { data: view } = useUnit(initial.unit.id, initial);
-  const editable = view.unit.placeholder && benchLock(view, me) === null;
+  const editable = view.unit.placeholder && unitLock(view, me, "serial") === null;
   const title = `${view.partType.name} · ${view.supplierName} · unit ${view.unit.sampleIndex} of ${view.lot.sampleSize} in the sample`;
   return (
     <header className={`flex min-h-10 shrink-0 items-center gap-x-4 gap-y-1 ${view.unit.placeholder ? "flex-wrap" : ""}`} data-testid="unit-header">

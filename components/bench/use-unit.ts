@@ -1,33 +1,11 @@
 "use client";
 
 import { useQuery } from "@tanstack/react-query";
-import type { ChecklistItem, UnitStatus } from "@/db/schema/lots";
-import type { ChecklistValue } from "@/lib/checklist/evaluate";
 import { apiFetch } from "@/lib/http/client";
-import type { DefectSeverity } from "@/lib/part-types/severity";
 import { unitKeys } from "@/lib/query-keys/units";
-
-/** What GET /api/units/[id] answers (dates as ISO text). */
-export type UnitView = {
-  unit: { id: string; sampleIndex: number; serial: string | null; placeholder: boolean; status: UnitStatus; leaseHolderId: string | null; leaseExpiresAt: string | null };
-  leaseHolderName: string | null;
-  lot: { id: string; purchaseRef: string; status: "open" | "decided"; sampleSize: number; quantity: number };
-  supplierName: string;
-  partType: { id: string; name: string; category: string; checklist: ChecklistItem[] };
-  results: { id: string; itemId: string; value: ChecklistValue; passed: boolean; failureReason: string | null; severityOnFail: DefectSeverity; note: string; recordedAt: string; recordedByName: string }[];
-};
+import type { UnitView } from "@/lib/units/dto";
 
 /** The unit as the Bench shows it; header and panels share one query. */
 export function useUnit(unitId: string, initial: UnitView) {
   return useQuery({ queryKey: unitKeys.view(unitId), queryFn: () => apiFetch<UnitView>(`/api/units/${unitId}`), initialData: initial });
-}
-
-/** Whether the signed-in person can change this unit now, and if not, why. */
-export function benchLock(view: UnitView, me: { id: string; isLead: boolean; canRecord: boolean }): string | null {
-  if (!me.canRecord) return "Only inspectors and leads record checklist results.";
-  if (view.lot.status !== "open") return "The lot is decided; this unit is closed.";
-  if (view.unit.status !== "queued" && view.unit.status !== "on_bench") return "This unit is graded; its checklist is closed.";
-  const leasedByOther = view.unit.status === "on_bench" && view.unit.leaseHolderId !== me.id && view.unit.leaseExpiresAt !== null && new Date(view.unit.leaseExpiresAt) > new Date();
-  if (leasedByOther && !me.isLead) return `${view.leaseHolderName ?? "Another inspector"} has this unit on their bench; it is read-only for you.`;
-  return null;
 }

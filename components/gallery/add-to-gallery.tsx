@@ -34,8 +34,19 @@ export function AddToGallery({ photoId }: { photoId: string }) {
   }
   return (
     <span className="flex items-center gap-2">
-      {promote.error && <span className="text-xs text-fault-700" role="alert">{promote.error.message}</span>}
-      <button type="button" className="btn-secondary h-8 py-0 text-sm" disabled={promote.isPending} onClick={() => promote.mutate()} title="Copy this photo's regions and the unit's grade into a draft gallery item" data-testid="add-to-gallery">
+      {promote.error && (
+        <span className="text-xs text-fault-700" role="alert">
+          {promote.error.message}
+        </span>
+      )}
+      <button
+        type="button"
+        className="btn-secondary h-8 py-0 text-sm"
+        disabled={promote.isPending}
+        onClick={() => promote.mutate()}
+        title="Copy this photo's regions and the unit's grade into a draft gallery item"
+        data-testid="add-to-gallery"
+      >
         {promote.isPending ? "Adding…" : "Add to gallery"}
       </button>
     </span>

@@ -9,12 +9,32 @@ export type ClassLabels = Readonly<Record<string, string>>;
  * One item in a grid: its thumbnail with the regions drawn over it (the whole photo, letterboxed,
  * never cropped, so every region stays on the part), grade, normal/abnormal, classes and caption.
  */
-export function GalleryCard({ item, viewLabel, classLabels, classKeys, showStatus, href, action }: { item: GalleryCardDto; viewLabel: string; classLabels: ClassLabels; classKeys: readonly string[]; showStatus: boolean; href: string; action?: React.ReactNode }) {
+export function GalleryCard({
+  item,
+  viewLabel,
+  classLabels,
+  classKeys,
+  showStatus,
+  href,
+  action,
+}: {
+  item: GalleryCardDto;
+  viewLabel: string;
+  classLabels: ClassLabels;
+  classKeys: readonly string[];
+  showStatus: boolean;
+  href: string;
+  action?: React.ReactNode;
+}) {
   const { photo } = item;
   const classes = item.defectClasses.map((c) => classLabels[c] ?? c).join(", ");
   return (
     <article className="card flex flex-col overflow-hidden" data-testid="gallery-card" data-item-id={item.id} data-kind={item.kind} data-grade={item.grade}>
-      <Link href={href} className="group block focus-visible:outline-offset-[-2px]" aria-label={`${item.partType.name}, ${viewLabel}: ${item.kind}, grade ${item.grade}${classes ? `, ${classes}` : ""}`}>
+      <Link
+        href={href}
+        className="group block focus-visible:outline-offset-[-2px]"
+        aria-label={`${item.partType.name}, ${viewLabel}: ${item.kind}, grade ${item.grade}${classes ? `, ${classes}` : ""}`}
+      >
         <div className="relative flex aspect-[4/3] items-center justify-center bg-gauge-900">
           {photo.urls && photo.original && photo.thumbnail ? (
             <>

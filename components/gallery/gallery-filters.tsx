@@ -33,12 +33,45 @@ export function GalleryFilters({ filters, partTypes, canEdit }: { filters: Galle
   );
   return (
     <form role="search" aria-label="Gallery filters" className="grid grid-cols-2 gap-2 sm:grid-cols-3 lg:grid-cols-6" aria-busy={pending} onSubmit={(e) => e.preventDefault()}>
-      {select("partType", "Part type", partTypes.map((p) => ({ value: p.id, label: p.name })), "Every part type")}
+      {select(
+        "partType",
+        "Part type",
+        partTypes.map((p) => ({ value: p.id, label: p.name })),
+        "Every part type",
+      )}
       {select("view", "View", partType?.views.map((v) => ({ value: v.key, label: v.label })) ?? [], partType ? "Every view" : "Choose a part type first", !partType)}
-      {select("defect", "Defect class", classes.map((d) => ({ value: d.key, label: d.label })), "Every class")}
-      {select("kind", "Normal or abnormal", [{ value: "normal", label: "Normal" }, { value: "abnormal", label: "Abnormal" }], "Both")}
-      {select("grade", "Grade", GRADES.map((g) => ({ value: g, label: g })), "Every grade")}
-      {canEdit && select("status", "Status", [{ value: "draft", label: "Drafts" }, { value: "published", label: "Published" }, { value: "retired", label: "Retired" }], "Drafts and published")}
+      {select(
+        "defect",
+        "Defect class",
+        classes.map((d) => ({ value: d.key, label: d.label })),
+        "Every class",
+      )}
+      {select(
+        "kind",
+        "Normal or abnormal",
+        [
+          { value: "normal", label: "Normal" },
+          { value: "abnormal", label: "Abnormal" },
+        ],
+        "Both",
+      )}
+      {select(
+        "grade",
+        "Grade",
+        GRADES.map((g) => ({ value: g, label: g })),
+        "Every grade",
+      )}
+      {canEdit &&
+        select(
+          "status",
+          "Status",
+          [
+            { value: "draft", label: "Drafts" },
+            { value: "published", label: "Published" },
+            { value: "retired", label: "Retired" },
+          ],
+          "Drafts and published",
+        )}
     </form>
   );
 }

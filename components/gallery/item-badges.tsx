@@ -13,7 +13,9 @@ export function ItemBadges({ grade, kind, status, showStatus }: { grade: Grade; 
   return (
     <span className="inline-flex flex-wrap items-center gap-1">
       <GradeBadge grade={grade} size="sm" />
-      <span className={`rounded-md border px-1.5 text-xs font-medium ${kind === "normal" ? "border-ok-600 text-ok-600" : "border-gauge-400 text-gauge-800"}`}>{kind === "normal" ? "Normal" : "Abnormal"}</span>
+      <span className={`rounded-md border px-1.5 text-xs font-medium ${kind === "normal" ? "border-ok-600 text-ok-600" : "border-gauge-400 text-gauge-800"}`}>
+        {kind === "normal" ? "Normal" : "Abnormal"}
+      </span>
       {showStatus && status !== "published" && <span className={`rounded-md border px-1.5 text-xs font-medium ${STATUS_STYLE[status]}`}>{status === "draft" ? "Draft" : "Retired"}</span>}
     </span>
   );

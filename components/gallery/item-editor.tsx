@@ -65,7 +65,15 @@ export function ItemEditor({ item, partType, onDone }: { item: GalleryItemDto; p
           <label htmlFor={captionId} className="field-label">
             Caption: why it has its grade
           </label>
-          <textarea id={captionId} className="field-input min-h-28" maxLength={CAPTION_MAX} value={caption} onChange={(e) => setCaption(e.target.value)} placeholder="e.g. Hairline across the lens window, about 0.6 % of the window: B" data-testid="caption-input" />
+          <textarea
+            id={captionId}
+            className="field-input min-h-28"
+            maxLength={CAPTION_MAX}
+            value={caption}
+            onChange={(e) => setCaption(e.target.value)}
+            placeholder="e.g. Hairline across the lens window, about 0.6 % of the window: B"
+            data-testid="caption-input"
+          />
           <p className="mt-0.5 text-right text-xs text-gauge-600">
             {caption.length} / {CAPTION_MAX}
           </p>
@@ -87,7 +95,9 @@ export function ItemEditor({ item, partType, onDone }: { item: GalleryItemDto; p
             </select>
           </label>
         </div>
-        <p className="text-xs text-gauge-700">Mark the defects on the photo with the tools beside it; a normal item needs no defect regions (a Surface is fine). A changed grade is recorded as judged under the rubric published now.</p>
+        <p className="text-xs text-gauge-700">
+          Mark the defects on the photo with the tools beside it; a normal item needs no defect regions (a Surface is fine). A changed grade is recorded as judged under the rubric published now.
+        </p>
         {save.error && (
           <FormMessage kind="error">
             {save.error.message}{" "}

@@ -20,7 +20,12 @@ export function ItemMeasurement({ itemId, revision, grade, labels }: { itemId: s
     queryFn: () => apiFetch<{ measurement: GalleryMeasurement | null }>(`/api/gallery/${itemId}/measurement`),
     staleTime: 60_000,
   });
-  if (query.isPending) return <p className="text-sm text-gauge-700" role="status">Measuring the regions…</p>;
+  if (query.isPending)
+    return (
+      <p className="text-sm text-gauge-700" role="status">
+        Measuring the regions…
+      </p>
+    );
   if (query.isError) return <p className="text-sm text-fault-700">The numbers could not be measured: {query.error.message}</p>;
   const result = query.data.measurement;
   if (!result) return <p className="text-sm text-gauge-700">The photo is still being processed; its numbers follow once it is ready.</p>;
@@ -33,7 +38,11 @@ export function ItemMeasurement({ itemId, revision, grade, labels }: { itemId: s
           <>
             <p className="flex flex-wrap items-center gap-1.5 font-medium">
               The published rubric (v{result.rubric.version}) says <GradeBadge grade={proposal.grade} size="sm" testId="rubric-grade" />
-              {proposal.grade === grade ? <span className="font-normal text-ok-600">— the grade this item gives.</span> : <span className="font-normal text-signal-700">— this item gives {grade}; the caption should say why.</span>}
+              {proposal.grade === grade ? (
+                <span className="font-normal text-ok-600">— the grade this item gives.</span>
+              ) : (
+                <span className="font-normal text-signal-700">— this item gives {grade}; the caption should say why.</span>
+              )}
             </p>
             <div className="mt-1">
               <GradeLines lines={proposal.lines} notes={proposal.notes} />

@@ -20,7 +20,17 @@ export type ReferenceChoice = "hand" | string;
  * (ReferenceViewer); the list itself lives in a side panel, so opening or closing it never moves
  * the canvas.
  */
-export function ReferencePanel({ partTypeId, viewKey, viewLabel, classInHand, classes, choice, onChoice, openId, onOpen }: {
+export function ReferencePanel({
+  partTypeId,
+  viewKey,
+  viewLabel,
+  classInHand,
+  classes,
+  choice,
+  onChoice,
+  openId,
+  onOpen,
+}: {
   partTypeId: string;
   viewKey: string;
   viewLabel: string;
@@ -56,7 +66,11 @@ export function ReferencePanel({ partTypeId, viewKey, viewLabel, classInHand, cl
           ))}
         </select>
       </div>
-      {query.isPending && <p className="text-sm text-gauge-700" role="status">Loading the examples…</p>}
+      {query.isPending && (
+        <p className="text-sm text-gauge-700" role="status">
+          Loading the examples…
+        </p>
+      )}
       {query.isError && <p className="text-sm text-fault-700">The examples could not be loaded: {query.error.message}</p>}
       {query.data && query.data.items.length === 0 && (
         <p className="text-sm text-gauge-700">No published example of this view{defect ? ` shows ${label(defect).toLowerCase()}` : ""} yet. Trainers add them in the Gallery.</p>

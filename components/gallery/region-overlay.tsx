@@ -10,7 +10,19 @@ import type { RegionSetPayload } from "@/lib/geometry/validate";
  * its measured width as a translucent band under the dashed centre line, and a Spot never shrinks
  * below a few screen pixels, so a dead pixel stays findable on a thumbnail.
  */
-export function RegionOverlay({ regions, original, classKeys, showSurface = false, className = "" }: { regions: RegionSetPayload; original: { width: number; height: number }; classKeys: readonly string[]; showSurface?: boolean; className?: string }) {
+export function RegionOverlay({
+  regions,
+  original,
+  classKeys,
+  showSurface = false,
+  className = "",
+}: {
+  regions: RegionSetPayload;
+  original: { width: number; height: number };
+  classKeys: readonly string[];
+  showSurface?: boolean;
+  className?: string;
+}) {
   const styles = defectStyleMap(classKeys);
   const minSpot = Math.max(original.width, original.height) / 90;
   return (
@@ -24,21 +36,47 @@ export function RegionOverlay({ regions, original, classKeys, showSurface = fals
 }
 
 function ShapeMark({ shape, style, minSpot }: { shape: Shape; style: RegionStyle; minSpot: number }) {
-  const outline = { fill: "none", stroke: style.colour, strokeWidth: style.strokeWidth, strokeDasharray: style.stroke.dash.join(" ") || undefined, strokeLinecap: style.stroke.lineCap, strokeLinejoin: "round" as const, vectorEffect: "non-scaling-stroke" as const };
+  const outline = {
+    fill: "none",
+    stroke: style.colour,
+    strokeWidth: style.strokeWidth,
+    strokeDasharray: style.stroke.dash.join(" ") || undefined,
+    strokeLinecap: style.stroke.lineCap,
+    strokeLinejoin: "round" as const,
+    vectorEffect: "non-scaling-stroke" as const,
+  };
   const halo = { fill: "none", stroke: style.halo, strokeWidth: style.strokeWidth + 2, strokeLinejoin: "round" as const, vectorEffect: "non-scaling-stroke" as const };
   const tint = { fill: style.colour, fillOpacity: Math.max(style.tintOpacity, 0.18), stroke: "none" };
   switch (shape.kind) {
     case "rect": {
       const g = { x: shape.x, y: shape.y, width: shape.width, height: shape.height };
-      return <g><rect {...g} {...tint} /><rect {...g} {...halo} /><rect {...g} {...outline} /></g>;
+      return (
+        <g>
+          <rect {...g} {...tint} />
+          <rect {...g} {...halo} />
+          <rect {...g} {...outline} />
+        </g>
+      );
     }
     case "polygon": {
       const points = shape.points.map((p) => p.join(",")).join(" ");
-      return <g><polygon points={points} {...tint} /><polygon points={points} {...halo} /><polygon points={points} {...outline} /></g>;
+      return (
+        <g>
+          <polygon points={points} {...tint} />
+          <polygon points={points} {...halo} />
+          <polygon points={points} {...outline} />
+        </g>
+      );
     }
     case "spot": {
       const g = { cx: shape.x, cy: shape.y, r: Math.max(shape.radius, minSpot) };
-      return <g><circle {...g} {...tint} /><circle {...g} {...halo} /><circle {...g} {...outline} /></g>;
+      return (
+        <g>
+          <circle {...g} {...tint} />
+          <circle {...g} {...halo} />
+          <circle {...g} {...outline} />
+        </g>
+      );
     }
     case "line": {
       const points = shape.points.map((p) => p.join(",")).join(" ");

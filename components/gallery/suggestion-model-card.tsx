@@ -36,18 +36,32 @@ export function SuggestionModelCard({ model, labels, timeZone }: { model: Sugges
           <caption className="sr-only">Per class: what model {model.version} learned from and its held-out figures</caption>
           <thead>
             <tr className="border-b border-gauge-200 text-left text-xs uppercase tracking-wide text-gauge-700">
-              <th scope="col" className="py-1.5 pr-3 font-medium">Class</th>
-              <th scope="col" className="py-1.5 pr-3 text-right font-medium">Learned from</th>
-              <th scope="col" className="py-1.5 pr-3 text-right font-medium">Held-out regions</th>
-              <th scope="col" className="py-1.5 pr-3 text-right font-medium">Recall</th>
-              <th scope="col" className="py-1.5 pr-3 text-right font-medium">Precision</th>
-              <th scope="col" className="py-1.5 font-medium">Suggested on the Bench</th>
+              <th scope="col" className="py-1.5 pr-3 font-medium">
+                Class
+              </th>
+              <th scope="col" className="py-1.5 pr-3 text-right font-medium">
+                Learned from
+              </th>
+              <th scope="col" className="py-1.5 pr-3 text-right font-medium">
+                Held-out regions
+              </th>
+              <th scope="col" className="py-1.5 pr-3 text-right font-medium">
+                Recall
+              </th>
+              <th scope="col" className="py-1.5 pr-3 text-right font-medium">
+                Precision
+              </th>
+              <th scope="col" className="py-1.5 font-medium">
+                Suggested on the Bench
+              </th>
             </tr>
           </thead>
           <tbody>
             {rows.map((row) => (
               <tr key={row.defect} className="border-b border-gauge-100 align-top" data-testid="model-class" data-defect={row.defect}>
-                <th scope="row" className="py-1.5 pr-3 text-left font-medium">{row.label}</th>
+                <th scope="row" className="py-1.5 pr-3 text-left font-medium">
+                  {row.label}
+                </th>
                 <td className="py-1.5 pr-3 text-right tabular-nums">
                   {row.learnedRegions} regions on {row.learnedPhotos} photos
                 </td>

@@ -41,7 +41,11 @@ export function GalleryUploadForm({ partTypes }: { partTypes: Choice[] }) {
     try {
       setProgress(0);
       const intent = await apiFetch<Intent>("/api/gallery/uploads", { body: { partTypeId, viewKey, kind, grade, fileName: file.name, contentType: file.type, bytes: file.size } });
-      await putWithProgress(intent.upload.url, file, { headers: intent.upload.headers, onProgress: (loaded, total) => setProgress(total ? (100 * loaded) / total : 0), signal: new AbortController().signal });
+      await putWithProgress(intent.upload.url, file, {
+        headers: intent.upload.headers,
+        onProgress: (loaded, total) => setProgress(total ? (100 * loaded) / total : 0),
+        signal: new AbortController().signal,
+      });
       for (let attempt = 0; attempt < 40; attempt++) {
         const res = await fetch("/api/gallery/photos", { method: "POST", headers: { "Content-Type": "application/json" }, body: JSON.stringify({ ticket: intent.ticket }) });
         const body = (await res.json().catch(() => null)) as { item?: GalleryItemDto; error?: { message: string } } | null;
@@ -65,15 +69,35 @@ export function GalleryUploadForm({ partTypes }: { partTypes: Choice[] }) {
     <form className="card space-y-3 p-4" onSubmit={(e) => void submit(e)} data-testid="gallery-upload-form">
       <div className="grid gap-3 sm:grid-cols-2">
         <div>
-          <label htmlFor={ids.partType} className="field-label">Part type</label>
-          <select id={ids.partType} className="field-input" value={partTypeId} onChange={(e) => { setPartTypeId(e.target.value); setViewKey(partTypes.find((p) => p.id === e.target.value)?.views[0]?.key ?? ""); }}>
-            {partTypes.map((p) => <option key={p.id} value={p.id}>{p.name}</option>)}
+          <label htmlFor={ids.partType} className="field-label">
+            Part type
+          </label>
+          <select
+            id={ids.partType}
+            className="field-input"
+            value={partTypeId}
+            onChange={(e) => {
+              setPartTypeId(e.target.value);
+              setViewKey(partTypes.find((p) => p.id === e.target.value)?.views[0]?.key ?? "");
+            }}
+          >
+            {partTypes.map((p) => (
+              <option key={p.id} value={p.id}>
+                {p.name}
+              </option>
+            ))}
           </select>
         </div>
         <div>
-          <label htmlFor={ids.view} className="field-label">View</label>
+          <label htmlFor={ids.view} className="field-label">
+            View
+          </label>
           <select id={ids.view} className="field-input" value={viewKey} onChange={(e) => setViewKey(e.target.value)}>
-            {views.map((v) => <option key={v.key} value={v.key}>{v.label}</option>)}
+            {views.map((v) => (
+              <option key={v.key} value={v.key}>
+                {v.label}
+              </option>
+            ))}
           </select>
         </div>
         <fieldset>
@@ -81,7 +105,16 @@ export function GalleryUploadForm({ partTypes }: { partTypes: Choice[] }) {
           <div className="flex gap-4 text-sm">
             {(["normal", "abnormal"] as const).map((k) => (
               <label key={k} className="flex items-center gap-1.5">
-                <input type="radio" name="kind" value={k} checked={kind === k} onChange={() => { setKind(k); if (k === "normal") setGrade("A"); }} />
+                <input
+                  type="radio"
+                  name="kind"
+                  value={k}
+                  checked={kind === k}
+                  onChange={() => {
+                    setKind(k);
+                    if (k === "normal") setGrade("A");
+                  }}
+                />
                 {k === "normal" ? "A normal part" : "Defects"}
               </label>
             ))}
@@ -90,17 +123,23 @@ export function GalleryUploadForm({ partTypes }: { partTypes: Choice[] }) {
         <label className="field-label">
           Grade it deserves
           <select className="field-input mt-1" value={grade} onChange={(e) => setGrade(e.target.value as Grade)}>
-            {GRADES.map((g) => <option key={g}>{g}</option>)}
+            {GRADES.map((g) => (
+              <option key={g}>{g}</option>
+            ))}
           </select>
         </label>
       </div>
       <div>
-        <label htmlFor={ids.file} className="field-label">Photo</label>
+        <label htmlFor={ids.file} className="field-label">
+          Photo
+        </label>
         <input id={ids.file} type="file" accept="image/*" className="block text-sm" disabled={!hydrated || busy} onChange={(e) => setFile(e.target.files?.[0] ?? null)} data-testid="gallery-file" />
       </div>
       {progress !== null && (
         <div className="space-y-1">
-          <p className="text-sm text-gauge-700" role="status">{progress < 100 ? "Uploading…" : "Processing the photo…"}</p>
+          <p className="text-sm text-gauge-700" role="status">
+            {progress < 100 ? "Uploading…" : "Processing the photo…"}
+          </p>
           <ProgressBar label="Upload" value={progress} />
         </div>
       )}

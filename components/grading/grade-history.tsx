@@ -41,9 +41,7 @@ export function GradeHistory({ unitId, framed = true }: { unitId: string; framed
                   Proposed {g.proposedGrade}, overridden to {g.finalGrade}: <q className="italic">{g.overrideReason}</q>
                 </p>
               ) : (
-                <p className="mt-1 text-sm text-gauge-700">
-                  Proposed grade accepted.{g.overrideReason ? ` Reason: ${g.overrideReason}` : ""}
-                </p>
+                <p className="mt-1 text-sm text-gauge-700">Proposed grade accepted.{g.overrideReason ? ` Reason: ${g.overrideReason}` : ""}</p>
               )}
               <details className="mt-2">
                 <summary className="cursor-pointer text-sm text-gauge-700">Why {g.proposedGrade} was proposed</summary>

@@ -15,7 +15,9 @@ export function GradeLines({ lines, notes = [], testId }: { lines: GradeLine[]; 
       </ul>
       {notes.length > 0 && (
         <details className="text-xs text-gauge-700">
-          <summary className="cursor-pointer">{notes.length} note{notes.length === 1 ? "" : "s"} on rules that could not be evaluated</summary>
+          <summary className="cursor-pointer">
+            {notes.length} note{notes.length === 1 ? "" : "s"} on rules that could not be evaluated
+          </summary>
           <ul className="mt-1 list-disc space-y-0.5 pl-5">
             {notes.map((note, i) => (
               <li key={i}>{note}</li>

@@ -42,7 +42,11 @@ type FormValues = z.input<typeof recordGradeSchema>;
 /** Inputs that are hidden or left empty are absent, not "" (an accept needs no final grade). */
 function cleaned(values: FormValues): FormValues {
   const { finalGrade, reason, ...rest } = values as FormValues & { finalGrade?: string; reason?: string };
-  return { ...rest, ...(values.decision === "override" && finalGrade ? { finalGrade } : {}), ...(reason?.trim() ? { reason } : values.decision === "override" ? { reason: reason ?? "" } : {}) } as FormValues;
+  return {
+    ...rest,
+    ...(values.decision === "override" && finalGrade ? { finalGrade } : {}),
+    ...(reason?.trim() ? { reason } : values.decision === "override" ? { reason: reason ?? "" } : {}),
+  } as FormValues;
 }
 const schemaResolver = zodResolver(recordGradeSchema);
 
@@ -78,7 +82,8 @@ export function GradePanel(props: GradePanelProps) {
   };
   const measure = useMutation({
     mutationFn: async () => {
-      if (beforeMeasure && !(await beforeMeasure())) throw new Error("Some region edits could not be saved yet, so measuring now would use older regions. Wait until they are saved (see the status above the photo), then measure.");
+      if (beforeMeasure && !(await beforeMeasure()))
+        throw new Error("Some region edits could not be saved yet, so measuring now would use older regions. Wait until they are saved (see the status above the photo), then measure.");
       return apiFetch<{ status: "measured" | "queued"; jobId?: string | null; message?: string }>(`/api/units/${unitId}/measure`, { method: "POST" });
     },
     onSuccess: (res) => {
@@ -100,7 +105,9 @@ export function GradePanel(props: GradePanelProps) {
     mutationFn: (values: FormValues) => {
       submissionKey.current ??= crypto.randomUUID();
       const replaces = correction ? { kind: "override" as const, expectedCurrentGradeId: current?.id } : { expectedCurrentGradeId: null };
-      return apiFetch<{ grade: GradeView }>(`/api/units/${unitId}/grades`, { body: { ...cleaned(values), measurementId: state.data?.measurement?.id, ...replaces, idempotencyKey: submissionKey.current } });
+      return apiFetch<{ grade: GradeView }>(`/api/units/${unitId}/grades`, {
+        body: { ...cleaned(values), measurementId: state.data?.measurement?.id, ...replaces, idempotencyKey: submissionKey.current },
+      });
     },
     onSuccess: (res) => {
       submissionKey.current = null;
@@ -201,7 +208,15 @@ export function GradePanel(props: GradePanelProps) {
                 <label htmlFor="override-reason" className="field-label">
                   Reason (required)
                 </label>
-                <textarea id="override-reason" rows={3} maxLength={MAX_REASON_LENGTH} className="field-input" aria-invalid={errors.reason ? true : undefined} aria-describedby={errors.reason ? "override-reason-error" : undefined} {...register("reason")} />
+                <textarea
+                  id="override-reason"
+                  rows={3}
+                  maxLength={MAX_REASON_LENGTH}
+                  className="field-input"
+                  aria-invalid={errors.reason ? true : undefined}
+                  aria-describedby={errors.reason ? "override-reason-error" : undefined}
+                  {...register("reason")}
+                />
                 {errors.reason?.message && (
                   <p id="override-reason-error" className="field-error" aria-live="polite">
                     {errors.reason.message}

@@ -53,7 +53,8 @@ export function GradeWhatIf({ unitId, versions, framed = true }: { unitId: strin
         </p>
       )}
       {preview.isPending && measured && version !== null && <p className="text-sm text-gauge-700">Grading again…</p>}
-      {preview.isError && (preview.error.message.includes("not been measured") ? <p className="text-sm text-gauge-700">{preview.error.message}</p> : <FormMessage kind="error">{preview.error.message}</FormMessage>)}
+      {preview.isError &&
+        (preview.error.message.includes("not been measured") ? <p className="text-sm text-gauge-700">{preview.error.message}</p> : <FormMessage kind="error">{preview.error.message}</FormMessage>)}
       {preview.isSuccess && basis && (
         <div className="space-y-3">
           <p className="text-sm">

@@ -47,15 +47,23 @@ export function MeasurementTable({ photos, labels }: { photos: StoredPhotoResult
                 <caption className="sr-only">Defect classes on photo {i + 1}</caption>
                 <thead>
                   <tr className="text-left text-gauge-600">
-                    <th scope="col" className="py-0.5 pr-2 font-medium">Class · zone</th>
-                    <th scope="col" className="py-0.5 pr-2 text-right font-medium">Share</th>
-                    <th scope="col" className="py-0.5 font-medium">Details</th>
+                    <th scope="col" className="py-0.5 pr-2 font-medium">
+                      Class · zone
+                    </th>
+                    <th scope="col" className="py-0.5 pr-2 text-right font-medium">
+                      Share
+                    </th>
+                    <th scope="col" className="py-0.5 font-medium">
+                      Details
+                    </th>
                   </tr>
                 </thead>
                 <tbody>
                   {classes.map(([defect, measure]) => (
                     <tr key={defect} className="border-t border-gauge-100 align-top" data-testid={`measure-${defect}`}>
-                      <th scope="row" className="py-0.5 pr-2 text-left font-medium">{name(defect, labels.defects)}</th>
+                      <th scope="row" className="py-0.5 pr-2 text-left font-medium">
+                        {name(defect, labels.defects)}
+                      </th>
                       <td className="py-0.5 pr-2 text-right tabular-nums">{pct(measure.share)}</td>
                       <td className="py-0.5 tabular-nums">{details(measure)}</td>
                     </tr>
@@ -81,7 +89,9 @@ export function MeasurementTable({ photos, labels }: { photos: StoredPhotoResult
             )}
             {notes.length > 0 && (
               <details className="mt-1 text-xs text-gauge-700">
-                <summary className="cursor-pointer">How it was measured ({notes.length} note{notes.length === 1 ? "" : "s"})</summary>
+                <summary className="cursor-pointer">
+                  How it was measured ({notes.length} note{notes.length === 1 ? "" : "s"})
+                </summary>
                 <ul className="mt-1 list-disc space-y-0.5 pl-4">
                   {notes.map((note, k) => (
                     <li key={k}>{note}</li>

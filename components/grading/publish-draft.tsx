@@ -33,9 +33,7 @@ export function PublishDraft({ partTypeId, version, revision, blockedReason }: {
   }
   return (
     <div role="group" aria-label="Confirm publishing" className="w-full space-y-2 rounded-md border border-signal-500 bg-signal-50 p-3 text-sm sm:w-auto sm:max-w-md">
-      <p>
-        Publishing freezes version {version} for good. Units measured from now on are graded by it; grades already recorded keep the version they were graded under.
-      </p>
+      <p>Publishing freezes version {version} for good. Units measured from now on are graded by it; grades already recorded keep the version they were graded under.</p>
       {publish.isError && <FormMessage kind="error">{publish.error.message}</FormMessage>}
       <div className="flex gap-2">
         <button type="button" className="btn-primary" onClick={() => publish.mutate()} disabled={publish.isPending}>

@@ -62,7 +62,10 @@ export function RubricEditor({
 
   const save = useMutation({
     mutationFn: (values: RubricFormValues) =>
-      apiFetch<{ version: number; revision: number; rubric: Rubric }>(`/api/part-types/${partType.id}/rubrics/draft`, { method: "PATCH", body: { rubric: toRubric(values), version: draft.version, revision } }),
+      apiFetch<{ version: number; revision: number; rubric: Rubric }>(`/api/part-types/${partType.id}/rubrics/draft`, {
+        method: "PATCH",
+        body: { rubric: toRubric(values), version: draft.version, revision },
+      }),
     onSuccess: (saved) => {
       setRevision(saved.revision);
       reset(fromRubric(saved.rubric));
@@ -100,7 +103,14 @@ export function RubricEditor({
           <button type="submit" className="btn-primary" disabled={save.isPending || !formState.isDirty}>
             {save.isPending ? "Saving…" : formState.isDirty ? "Save draft" : "Saved"}
           </button>
-          {canPublish && <PublishDraft partTypeId={partType.id} version={draft.version} revision={revision} blockedReason={formState.isDirty ? "Save the draft before publishing it." : invalidCount > 0 ? "Fix the rules marked in red first." : null} />}
+          {canPublish && (
+            <PublishDraft
+              partTypeId={partType.id}
+              version={draft.version}
+              revision={revision}
+              blockedReason={formState.isDirty ? "Save the draft before publishing it." : invalidCount > 0 ? "Fix the rules marked in red first." : null}
+            />
+          )}
         </div>
       </div>
       {message && <FormMessage kind={message.kind}>{message.text}</FormMessage>}
@@ -150,13 +160,7 @@ export function RubricEditor({
         <legend className="text-sm font-semibold">Notes shown with the rubric</legend>
         {notes.fields.map((field, index) => (
           <div key={field.id} className="flex items-start gap-2">
-            <textarea
-              aria-label={`Note ${index + 1}`}
-              rows={2}
-              className="field-input"
-              aria-invalid={formState.errors.notes?.[index]?.text ? true : undefined}
-              {...register(`notes.${index}.text`)}
-            />
+            <textarea aria-label={`Note ${index + 1}`} rows={2} className="field-input" aria-invalid={formState.errors.notes?.[index]?.text ? true : undefined} {...register(`notes.${index}.text`)} />
             <button type="button" className="btn-secondary px-2 py-1 text-xs" onClick={() => notes.remove(index)}>
               Remove
             </button>

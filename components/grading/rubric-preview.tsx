@@ -45,7 +45,10 @@ export function PreviewBar({ preview }: { preview: SamplePreview }) {
   if (!preview.result) return null;
   const first = preview.result.lines[0];
   return (
-    <div className="sticky bottom-0 z-10 -mx-4 -mb-4 mt-4 flex items-center gap-3 border-t border-gauge-200 bg-white/95 px-4 py-2 shadow-[0_-2px_6px_rgba(0,0,0,0.06)] sm:-mx-5 sm:-mb-5 sm:px-5 xl:hidden" aria-hidden="true">
+    <div
+      className="sticky bottom-0 z-10 -mx-4 -mb-4 mt-4 flex items-center gap-3 border-t border-gauge-200 bg-white/95 px-4 py-2 shadow-[0_-2px_6px_rgba(0,0,0,0.06)] sm:-mx-5 sm:-mb-5 sm:px-5 xl:hidden"
+      aria-hidden="true"
+    >
       <span className="text-sm font-medium">Sample grade</span>
       <GradeBadge grade={preview.result.grade} />
       <span className="min-w-0 flex-1 truncate text-xs text-gauge-700">{first?.text}</span>
@@ -69,73 +72,73 @@ export function RubricPreview({ rubric, partType, preview }: { rubric: Rubric | 
   const setReading = (key: string, text: string) => setValues((v) => ({ ...v, readings: { ...v.readings, [key]: text === "" ? 0 : Number(text) } }));
   return (
     <div className="@container" data-testid="rubric-preview">
-    <div className="grid gap-4 @3xl:grid-cols-2">
-      <div className="space-y-3">
-        <p className="text-sm text-gauge-700">Sample unit: type what a unit might measure. Values start at 0 (a clean unit).</p>
-        <div className="grid gap-3 @md:grid-cols-2">
-          {wanted.readings.map((reading, i) => (
-            <div key={reading.key} className="min-w-0">
-              <label htmlFor={`sample-${i}`} className="mb-0.5 block text-xs font-medium text-gauge-700">
-                {readingLabel(reading, partType.labels)}
-              </label>
-              <input
-                id={`sample-${i}`}
-                type="number"
-                min={0}
-                max={reading.metric === "share" ? 100 : undefined}
-                step="any"
-                className="field-input py-1.5"
-                value={values.readings[reading.key] ?? 0}
-                onChange={(e) => setReading(reading.key, e.target.value)}
-              />
-            </div>
-          ))}
-          {wanted.pixels.map((pixel, i) => (
-            <div key={`px-${pixel.key}`} className="min-w-0">
-              <label htmlFor={`sample-px-${i}`} className="mb-0.5 block text-xs font-medium text-gauge-700">
-                Pixel-fault class{pixel.view ? ` (${partType.labels.views[pixel.view] ?? pixel.view} view)` : ""}
-              </label>
-              <select
-                id={`sample-px-${i}`}
-                className="field-input py-1.5"
-                value={values.pixelClasses[pixel.key] ?? "I"}
-                onChange={(e) => setValues((v) => ({ ...v, pixelClasses: { ...v.pixelClasses, [pixel.key]: e.target.value as PixelFaultClass } }))}
-              >
-                {PIXEL_OPTIONS.map((c) => (
-                  <option key={c} value={c}>
-                    {c === "beyond" ? "beyond class IV" : `class ${c}`}
-                  </option>
-                ))}
-              </select>
-            </div>
-          ))}
-          {wanted.severities.map((severity) => (
-            <div key={severity} className="min-w-0">
-              <label htmlFor={`sample-fail-${severity}`} className="mb-0.5 block text-xs font-medium text-gauge-700">
-                Failed {severity} checklist items
-              </label>
-              <input
-                id={`sample-fail-${severity}`}
-                type="number"
-                min={0}
-                step={1}
-                className="field-input py-1.5"
-                value={values.functionalFailures[severity]}
-                onChange={(e) => setValues((v) => ({ ...v, functionalFailures: { ...v.functionalFailures, [severity]: Math.max(0, Math.round(Number(e.target.value) || 0)) } }))}
-              />
-            </div>
-          ))}
+      <div className="grid gap-4 @3xl:grid-cols-2">
+        <div className="space-y-3">
+          <p className="text-sm text-gauge-700">Sample unit: type what a unit might measure. Values start at 0 (a clean unit).</p>
+          <div className="grid gap-3 @md:grid-cols-2">
+            {wanted.readings.map((reading, i) => (
+              <div key={reading.key} className="min-w-0">
+                <label htmlFor={`sample-${i}`} className="mb-0.5 block text-xs font-medium text-gauge-700">
+                  {readingLabel(reading, partType.labels)}
+                </label>
+                <input
+                  id={`sample-${i}`}
+                  type="number"
+                  min={0}
+                  max={reading.metric === "share" ? 100 : undefined}
+                  step="any"
+                  className="field-input py-1.5"
+                  value={values.readings[reading.key] ?? 0}
+                  onChange={(e) => setReading(reading.key, e.target.value)}
+                />
+              </div>
+            ))}
+            {wanted.pixels.map((pixel, i) => (
+              <div key={`px-${pixel.key}`} className="min-w-0">
+                <label htmlFor={`sample-px-${i}`} className="mb-0.5 block text-xs font-medium text-gauge-700">
+                  Pixel-fault class{pixel.view ? ` (${partType.labels.views[pixel.view] ?? pixel.view} view)` : ""}
+                </label>
+                <select
+                  id={`sample-px-${i}`}
+                  className="field-input py-1.5"
+                  value={values.pixelClasses[pixel.key] ?? "I"}
+                  onChange={(e) => setValues((v) => ({ ...v, pixelClasses: { ...v.pixelClasses, [pixel.key]: e.target.value as PixelFaultClass } }))}
+                >
+                  {PIXEL_OPTIONS.map((c) => (
+                    <option key={c} value={c}>
+                      {c === "beyond" ? "beyond class IV" : `class ${c}`}
+                    </option>
+                  ))}
+                </select>
+              </div>
+            ))}
+            {wanted.severities.map((severity) => (
+              <div key={severity} className="min-w-0">
+                <label htmlFor={`sample-fail-${severity}`} className="mb-0.5 block text-xs font-medium text-gauge-700">
+                  Failed {severity} checklist items
+                </label>
+                <input
+                  id={`sample-fail-${severity}`}
+                  type="number"
+                  min={0}
+                  step={1}
+                  className="field-input py-1.5"
+                  value={values.functionalFailures[severity]}
+                  onChange={(e) => setValues((v) => ({ ...v, functionalFailures: { ...v.functionalFailures, [severity]: Math.max(0, Math.round(Number(e.target.value) || 0)) } }))}
+                />
+              </div>
+            ))}
+          </div>
+          {wanted.readings.length + wanted.pixels.length + wanted.severities.length === 0 && <p className="text-sm text-gauge-700">Add rules to have something to try.</p>}
         </div>
-        {wanted.readings.length + wanted.pixels.length + wanted.severities.length === 0 && <p className="text-sm text-gauge-700">Add rules to have something to try.</p>}
-      </div>
-      <div className="order-first space-y-3 self-start rounded-md border border-gauge-200 bg-gauge-50 p-3 @3xl:order-last" aria-live="polite">
-        <div className="flex items-center gap-3">
-          <span className="text-sm font-medium">Grade for this sample</span>
-          <GradeBadge grade={result.grade} size="lg" testId="preview-grade" />
+        <div className="order-first space-y-3 self-start rounded-md border border-gauge-200 bg-gauge-50 p-3 @3xl:order-last" aria-live="polite">
+          <div className="flex items-center gap-3">
+            <span className="text-sm font-medium">Grade for this sample</span>
+            <GradeBadge grade={result.grade} size="lg" testId="preview-grade" />
+          </div>
+          <GradeLines lines={result.lines} notes={result.notes} testId="preview-lines" />
         </div>
-        <GradeLines lines={result.lines} notes={result.notes} testId="preview-lines" />
       </div>
-    </div>
     </div>
   );
 }

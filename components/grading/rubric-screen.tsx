@@ -14,7 +14,15 @@ import { RubricRulesTable } from "./rubric-rules-table";
 import { type RubricVersionsResponse, type RubricVersionView } from "./types";
 import { rubricKeys } from "@/lib/query-keys/rubrics";
 
-const EMPTY_PART_TYPE: RubricVersionsResponse["partType"] = { id: "", slug: "", name: "", views: [], lists: { defects: [], zones: [], views: [] }, severities: {}, labels: { defects: {}, zones: {}, views: {} } };
+const EMPTY_PART_TYPE: RubricVersionsResponse["partType"] = {
+  id: "",
+  slug: "",
+  name: "",
+  views: [],
+  lists: { defects: [], zones: [], views: [] },
+  severities: {},
+  labels: { defects: {}, zones: {}, views: {} },
+};
 
 export type PartTypeOption = { id: string; name: string; publishedVersion: number | null; draftVersion: number | null };
 
@@ -24,7 +32,10 @@ function VersionList({ versions, selected, onSelect }: { versions: RubricVersion
     <ul className="flex flex-wrap gap-2" aria-label="Versions" data-testid="rubric-versions">
       {versions.map((v) => {
         const active = v.version === selected;
-        const when = v.status === "published" ? `Published ${dateTime(v.publishedAt)}${v.publishedByName ? ` by ${v.publishedByName}` : ""}` : `Edited ${dateTime(v.updatedAt)}${v.updatedByName ? ` by ${v.updatedByName}` : ""}`;
+        const when =
+          v.status === "published"
+            ? `Published ${dateTime(v.publishedAt)}${v.publishedByName ? ` by ${v.publishedByName}` : ""}`
+            : `Edited ${dateTime(v.updatedAt)}${v.updatedByName ? ` by ${v.updatedByName}` : ""}`;
         return (
           <li key={v.version}>
             <button
@@ -36,7 +47,9 @@ function VersionList({ versions, selected, onSelect }: { versions: RubricVersion
             >
               <span className="flex items-center gap-2">
                 <span className="font-semibold">Version {v.version}</span>
-                <span className={`rounded px-1.5 py-0.5 text-xs ${v.status === "draft" ? "bg-signal-100 text-signal-700" : "bg-ok-50 text-ok-600"}`}>{v.status === "draft" ? "draft" : "published"}</span>
+                <span className={`rounded px-1.5 py-0.5 text-xs ${v.status === "draft" ? "bg-signal-100 text-signal-700" : "bg-ok-50 text-ok-600"}`}>
+                  {v.status === "draft" ? "draft" : "published"}
+                </span>
               </span>
               <span className="block text-xs text-gauge-700">
                 {v.status === "published" ? `Published ${dateTime(v.publishedAt)}` : `Edited ${dateTime(v.updatedAt)}`} · {v.rubric.rules.length} rule{v.rubric.rules.length === 1 ? "" : "s"}
@@ -116,7 +129,14 @@ export function RubricScreen({ partTypes, initialPartTypeId, canDraft, canPublis
         <div className="space-y-4">
           <div>
             <h2 className="mb-2 text-sm font-semibold uppercase tracking-wide text-gauge-700">Versions</h2>
-            <VersionList versions={versions} selected={selected.version} onSelect={(v) => { setPicked(v); setLiveRubric(null); }} />
+            <VersionList
+              versions={versions}
+              selected={selected.version}
+              onSelect={(v) => {
+                setPicked(v);
+                setLiveRubric(null);
+              }}
+            />
           </div>
           {/* A rubric's notes travel with it: an example says so here, whoever opens it. */}
           {(selected.rubric.notes?.length ?? 0) > 0 && (

@@ -133,7 +133,13 @@ export function RuleRow({
           <input id={id("id")} className={inputClass} aria-invalid={invalid("id")} aria-describedby={describedBy("id")} {...register(`rules.${index}.id`)} />
         </Field>
         <Field id={id("metric")} label="Measure" error={rowErrors?.metric?.message}>
-          <select id={id("metric")} className={inputClass} aria-invalid={invalid("metric")} aria-describedby={describedBy("metric")} {...register(`rules.${index}.metric`, { onChange: (e: { target: { value: Metric } }) => onMetricChange(e.target.value) })}>
+          <select
+            id={id("metric")}
+            className={inputClass}
+            aria-invalid={invalid("metric")}
+            aria-describedby={describedBy("metric")}
+            {...register(`rules.${index}.metric`, { onChange: (e: { target: { value: Metric } }) => onMetricChange(e.target.value) })}
+          >
             {METRICS.map((m) => (
               <option key={m} value={m}>
                 {METRIC_LABELS[m]}
@@ -215,7 +221,14 @@ export function RuleRow({
               ))}
             </select>
           ) : (
-            <input id={id("threshold")} inputMode="decimal" className={inputClass} aria-invalid={invalid("threshold")} aria-describedby={describedBy("threshold")} {...register(`rules.${index}.threshold`)} />
+            <input
+              id={id("threshold")}
+              inputMode="decimal"
+              className={inputClass}
+              aria-invalid={invalid("threshold")}
+              aria-describedby={describedBy("threshold")}
+              {...register(`rules.${index}.threshold`)}
+            />
           )}
         </Field>
         <Field id={id("grade")} label="Grade" error={rowErrors?.grade?.message}>

@@ -1,10 +1,10 @@
 /** Shapes of the grading API's JSON as the browser receives them (dates as ISO text). */
-import type { ViewDefinition } from "@/db/schema/lots";
 import type { GradeLine, GradeResult } from "@/lib/grading/evaluate";
 import type { DefectSeverity } from "@/lib/part-types/severity";
 import type { Grade, Rubric } from "@/lib/grading/rubric-schema";
 import type { GradingLabels } from "@/lib/grading/rule-text";
 import type { StoredPhotoResult } from "@/lib/grading/stored-measurement";
+import type { ViewDefinition } from "@/lib/part-types/schemas";
 
 export type RubricVersionView = {
   id: string;

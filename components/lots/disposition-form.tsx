@@ -38,7 +38,9 @@ export function DispositionForm({ lotId, verdict }: { lotId: string; verdict: "a
         </div>
       </fieldset>
       <div>
-        <label htmlFor="disposition-reason" className="field-label">Reason</label>
+        <label htmlFor="disposition-reason" className="field-label">
+          Reason
+        </label>
         <textarea id="disposition-reason" rows={2} className="field-input" aria-invalid={formState.errors.reason ? true : undefined} {...register("reason")} />
         {formState.errors.reason && <p className="field-error">{formState.errors.reason.message}</p>}
       </div>

@@ -48,7 +48,10 @@ export function LotCreateForm({ suppliers, partTypes, canEditSwitching }: { supp
     },
   });
   const { register, handleSubmit, formState, control } = form;
-  const [supplierId, partTypeId, quantity, level, aqlCritical, aqlMajor, aqlMinor] = useWatch({ control, name: ["supplierId", "partTypeId", "quantity", "inspectionLevel", "aqlCritical", "aqlMajor", "aqlMinor"] });
+  const [supplierId, partTypeId, quantity, level, aqlCritical, aqlMajor, aqlMinor] = useWatch({
+    control,
+    name: ["supplierId", "partTypeId", "quantity", "inspectionLevel", "aqlCritical", "aqlMajor", "aqlMinor"],
+  });
   const partType = partTypes.find((p) => p.id === partTypeId);
   const supplier = suppliers.find((s) => s.id === supplierId);
   const defaultGrade = supplier?.promisedGrade ?? partType?.promisedGrade ?? "A";
@@ -104,30 +107,43 @@ export function LotCreateForm({ suppliers, partTypes, canEditSwitching }: { supp
       {error && <FormMessage kind="error">{error}</FormMessage>}
       <div className="card grid gap-4 p-5 sm:grid-cols-2 lg:grid-cols-3">
         <div>
-          <label htmlFor="lot-supplier" className="field-label">Supplier</label>
+          <label htmlFor="lot-supplier" className="field-label">
+            Supplier
+          </label>
           <select id="lot-supplier" className="field-input" aria-invalid={e.supplierId ? true : undefined} {...register("supplierId")}>
             <option value="">Choose…</option>
             {suppliers.map((s) => (
-              <option key={s.id} value={s.id}>{s.name}</option>
+              <option key={s.id} value={s.id}>
+                {s.name}
+              </option>
             ))}
           </select>
           {e.supplierId && <p className="field-error">{e.supplierId.message}</p>}
         </div>
         <div>
-          <label htmlFor="lot-part-type" className="field-label">Part type</label>
+          <label htmlFor="lot-part-type" className="field-label">
+            Part type
+          </label>
           <select id="lot-part-type" className="field-input" aria-invalid={e.partTypeId ? true : undefined} {...register("partTypeId")}>
             <option value="">Choose…</option>
             {partTypes.map((p) => (
-              <option key={p.id} value={p.id}>{p.name}{p.inspectAll ? " (100 %)" : ""}</option>
+              <option key={p.id} value={p.id}>
+                {p.name}
+                {p.inspectAll ? " (100 %)" : ""}
+              </option>
             ))}
           </select>
           {e.partTypeId && <p className="field-error">{e.partTypeId.message}</p>}
         </div>
         <div>
-          <label htmlFor="lot-promised-grade" className="field-label">Grade the purchase promised</label>
+          <label htmlFor="lot-promised-grade" className="field-label">
+            Grade the purchase promised
+          </label>
           <select id="lot-promised-grade" className="field-input" aria-describedby="lot-promised-grade-hint" {...register("promisedGrade", { setValueAs: (v) => v })}>
             {PROMISED_GRADES.map((g) => (
-              <option key={g} value={g}>{g}</option>
+              <option key={g} value={g}>
+                {g}
+              </option>
             ))}
           </select>
           <p id="lot-promised-grade-hint" className="mt-1 text-xs text-gauge-600" data-testid="promised-grade-source">
@@ -142,15 +158,21 @@ export function LotCreateForm({ suppliers, partTypes, canEditSwitching }: { supp
           <FormField id="lot-due" label="Due" type="date" registration={register("dueOn")} error={e.dueOn} hint="Earlier due dates come first in the queue." />
         </div>
         <div>
-          <label htmlFor="lot-level" className="field-label">Inspection level</label>
+          <label htmlFor="lot-level" className="field-label">
+            Inspection level
+          </label>
           <select id="lot-level" className="field-input" {...register("inspectionLevel")}>
             {INSPECTION_LEVELS.map((l) => (
-              <option key={l} value={l}>{l === "II" ? "II (general, usual)" : l}</option>
+              <option key={l} value={l}>
+                {l === "II" ? "II (general, usual)" : l}
+              </option>
             ))}
           </select>
         </div>
         <div>
-          <label htmlFor="lot-aql-critical" className="field-label">AQL critical</label>
+          <label htmlFor="lot-aql-critical" className="field-label">
+            AQL critical
+          </label>
           <select id="lot-aql-critical" className="field-input" {...register("aqlCritical", { setValueAs: (v) => (v === "" || v === null ? null : Number(v)) })}>
             <option value="">{aqlLabel(null)}</option>
             {aqlOptions}
@@ -158,13 +180,21 @@ export function LotCreateForm({ suppliers, partTypes, canEditSwitching }: { supp
         </div>
         <div className="grid grid-cols-2 gap-3">
           <div>
-            <label htmlFor="lot-aql-major" className="field-label">AQL major</label>
-            <select id="lot-aql-major" className="field-input" {...register("aqlMajor", { setValueAs: toNumber })}>{aqlOptions}</select>
+            <label htmlFor="lot-aql-major" className="field-label">
+              AQL major
+            </label>
+            <select id="lot-aql-major" className="field-input" {...register("aqlMajor", { setValueAs: toNumber })}>
+              {aqlOptions}
+            </select>
             {e.aqlMajor && <p className="field-error">{e.aqlMajor.message}</p>}
           </div>
           <div>
-            <label htmlFor="lot-aql-minor" className="field-label">AQL minor</label>
-            <select id="lot-aql-minor" className="field-input" {...register("aqlMinor", { setValueAs: toNumber })}>{aqlOptions}</select>
+            <label htmlFor="lot-aql-minor" className="field-label">
+              AQL minor
+            </label>
+            <select id="lot-aql-minor" className="field-input" {...register("aqlMinor", { setValueAs: toNumber })}>
+              {aqlOptions}
+            </select>
             {e.aqlMinor && <p className="field-error">{e.aqlMinor.message}</p>}
           </div>
         </div>

@@ -122,7 +122,12 @@ export function LotTable({ options }: { options: LotFilterOptions }) {
                 {group.headers.map((header) => {
                   const sorted = header.column.getIsSorted();
                   return (
-                    <th key={header.id} scope="col" className={`whitespace-nowrap px-2 py-2 font-medium lg:px-3 ${cellClass(header.id)}`} aria-sort={sorted ? (sorted === "asc" ? "ascending" : "descending") : undefined}>
+                    <th
+                      key={header.id}
+                      scope="col"
+                      className={`whitespace-nowrap px-2 py-2 font-medium lg:px-3 ${cellClass(header.id)}`}
+                      aria-sort={sorted ? (sorted === "asc" ? "ascending" : "descending") : undefined}
+                    >
                       {SORTABLE.has(header.id) ? (
                         <button type="button" onClick={header.column.getToggleSortingHandler()} className="uppercase">
                           {flexRender(header.column.columnDef.header, header.getContext())}

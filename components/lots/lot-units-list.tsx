@@ -1,24 +1,8 @@
 import Link from "next/link";
-import type { UnitStatus } from "@/db/schema/lots";
+import type { LotUnitRow } from "@/db/queries/units";
 import type { FindingDefect } from "@/lib/lots/verdict";
-import type { DefectSeverity } from "@/lib/part-types/severity";
 import { STATUS_LABELS } from "@/lib/units/state-machine";
 import { DefectSeverityBadge } from "./badges";
-
-export type LotUnitRow = {
-  id: string;
-  sampleIndex: number;
-  serial: string | null;
-  placeholder: boolean;
-  status: UnitStatus;
-  leaseHolderName: string | null;
-  leaseExpiresAt: Date | null;
-  recorded: number;
-  failed: number;
-  worstFailure: DefectSeverity | null;
-  /** The current grade (last of the unit's grade history), null until graded. */
-  grade: "A" | "B" | "C" | "Reject" | null;
-};
 
 /** "on Ines's bench" only while the lease runs; an expired lease means the unit is waiting again. */
 export function unitStatusText(u: Pick<LotUnitRow, "status" | "leaseHolderName" | "leaseExpiresAt">, now: Date): string {
@@ -44,19 +28,45 @@ function CosmeticCell({ defects }: { defects: readonly FindingDefect[] }) {
 }
 
 /** The lot's sampled units in sample order, each linking to its Bench page for those who may open it. */
-export function LotUnitsList({ units, checklistLength, defectsByUnit, now, benchLinks }: { units: LotUnitRow[]; checklistLength: number; defectsByUnit: ReadonlyMap<string, FindingDefect[]>; now: Date; benchLinks: boolean }) {
+export function LotUnitsList({
+  units,
+  checklistLength,
+  defectsByUnit,
+  now,
+  benchLinks,
+}: {
+  units: LotUnitRow[];
+  checklistLength: number;
+  defectsByUnit: ReadonlyMap<string, FindingDefect[]>;
+  now: Date;
+  benchLinks: boolean;
+}) {
   return (
     <div className="card overflow-x-auto">
       <table className="min-w-full text-sm" data-testid="lot-units">
         <thead className="bg-gauge-50 text-left text-xs uppercase tracking-wide text-gauge-600">
           <tr>
-            <th scope="col" className="px-3 py-2">#</th>
-            <th scope="col" className="px-3 py-2">Serial</th>
-            <th scope="col" className="px-3 py-2">Status</th>
-            <th scope="col" className="px-3 py-2">Checklist</th>
-            <th scope="col" className="px-3 py-2">Failures</th>
-            <th scope="col" className="px-3 py-2">Grade</th>
-            <th scope="col" className="px-3 py-2">Cosmetic count</th>
+            <th scope="col" className="px-3 py-2">
+              #
+            </th>
+            <th scope="col" className="px-3 py-2">
+              Serial
+            </th>
+            <th scope="col" className="px-3 py-2">
+              Status
+            </th>
+            <th scope="col" className="px-3 py-2">
+              Checklist
+            </th>
+            <th scope="col" className="px-3 py-2">
+              Failures
+            </th>
+            <th scope="col" className="px-3 py-2">
+              Grade
+            </th>
+            <th scope="col" className="px-3 py-2">
+              Cosmetic count
+            </th>
           </tr>
         </thead>
         <tbody className="divide-y divide-gauge-100">
@@ -76,8 +86,18 @@ export function LotUnitsList({ units, checklistLength, defectsByUnit, now, bench
               <td className="px-3 py-1.5 tabular-nums">
                 {Math.min(u.recorded, checklistLength)} / {checklistLength}
               </td>
-              <td className="px-3 py-1.5">{u.failed > 0 && u.worstFailure ? <span className="flex items-center gap-1">{u.failed} <DefectSeverityBadge severity={u.worstFailure} /></span> : <span className="text-gauge-500">—</span>}</td>
-              <td className="px-3 py-1.5 font-medium" data-testid={`unit-grade-${u.sampleIndex}`}>{u.grade ?? <span className="font-normal text-gauge-500">—</span>}</td>
+              <td className="px-3 py-1.5">
+                {u.failed > 0 && u.worstFailure ? (
+                  <span className="flex items-center gap-1">
+                    {u.failed} <DefectSeverityBadge severity={u.worstFailure} />
+                  </span>
+                ) : (
+                  <span className="text-gauge-500">—</span>
+                )}
+              </td>
+              <td className="px-3 py-1.5 font-medium" data-testid={`unit-grade-${u.sampleIndex}`}>
+                {u.grade ?? <span className="font-normal text-gauge-500">—</span>}
+              </td>
               <td className="px-3 py-1.5" data-testid={`unit-cosmetic-${u.sampleIndex}`}>
                 <CosmeticCell defects={defectsByUnit.get(u.id) ?? []} />
               </td>

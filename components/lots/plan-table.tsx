@@ -11,17 +11,35 @@ export function PlanTable({ plan, verdict }: { plan: StoredSamplingPlan; verdict
       <table className="min-w-full text-sm" data-testid="plan-table">
         <thead className="text-left text-xs uppercase tracking-wide text-gauge-600">
           <tr>
-            <th scope="col" className="py-1.5 pr-3">Class</th>
-            <th scope="col" className="py-1.5 pr-3">AQL</th>
-            <th scope="col" className="py-1.5 pr-3">Code letter</th>
-            <th scope="col" className="py-1.5 pr-3">Plan</th>
-            <th scope="col" className="py-1.5 pr-3">Sample</th>
-            <th scope="col" className="whitespace-nowrap py-1.5 pr-3">Ac / Re</th>
+            <th scope="col" className="py-1.5 pr-3">
+              Class
+            </th>
+            <th scope="col" className="py-1.5 pr-3">
+              AQL
+            </th>
+            <th scope="col" className="py-1.5 pr-3">
+              Code letter
+            </th>
+            <th scope="col" className="py-1.5 pr-3">
+              Plan
+            </th>
+            <th scope="col" className="py-1.5 pr-3">
+              Sample
+            </th>
+            <th scope="col" className="whitespace-nowrap py-1.5 pr-3">
+              Ac / Re
+            </th>
             {verdict && (
               <>
-                <th scope="col" className="py-1.5 pr-3">Inspected</th>
-                <th scope="col" className="py-1.5 pr-3">Defectives</th>
-                <th scope="col" className="py-1.5 pr-3">Class verdict</th>
+                <th scope="col" className="py-1.5 pr-3">
+                  Inspected
+                </th>
+                <th scope="col" className="py-1.5 pr-3">
+                  Defectives
+                </th>
+                <th scope="col" className="py-1.5 pr-3">
+                  Class verdict
+                </th>
               </>
             )}
           </tr>
@@ -32,9 +50,13 @@ export function PlanTable({ plan, verdict }: { plan: StoredSamplingPlan; verdict
             const judged = verdict?.classes[severity];
             return (
               <tr key={severity} data-testid={`plan-${severity}`}>
-                <th scope="row" className="py-1.5 pr-3 text-left font-medium">{DEFECT_SEVERITY_LABELS[severity]}</th>
+                <th scope="row" className="py-1.5 pr-3 text-left font-medium">
+                  {DEFECT_SEVERITY_LABELS[severity]}
+                </th>
                 <td className="py-1.5 pr-3">{aqlLabel(entry.aql)}</td>
-                <td className="py-1.5 pr-3" data-testid={`code-letter-${severity}`}>{entry.codeLetter}</td>
+                <td className="py-1.5 pr-3" data-testid={`code-letter-${severity}`}>
+                  {entry.codeLetter}
+                </td>
                 <td className="py-1.5 pr-3">{entry.aql === null ? "zero acceptance" : entry.planLetter}</td>
                 <td className="py-1.5 pr-3 tabular-nums" data-testid={`sample-size-${severity}`} title={`Judged on ${judgedOnText(plan, severity)}`}>
                   {entry.sampleSize}
@@ -75,13 +97,12 @@ export function CountingNote({ plan, lot }: { plan: StoredSamplingPlan; lot?: { 
   return (
     <ul className="list-disc space-y-0.5 pl-5 text-xs text-gauge-600">
       <li>
-        {plan.hundredPercent ? `Every unit of the lot (${plan.sampleSize}) is inspected.` : `${plan.sampleSize} units are inspected (the largest sample of the three classes).`} Each class is judged on its own
-        sample: {DEFECT_SEVERITIES.map((s) => `${s} on ${judgedOnText(plan, s)}`).join("; ")}.
+        {plan.hundredPercent ? `Every unit of the lot (${plan.sampleSize}) is inspected.` : `${plan.sampleSize} units are inspected (the largest sample of the three classes).`} Each class is judged on
+        its own sample: {DEFECT_SEVERITIES.map((s) => `${s} on ${judgedOnText(plan, s)}`).join("; ")}.
       </li>
       <li data-testid="counting-rule">
-        A unit counts once per class in which it has a nonconformity: a failed checklist item of that severity, or a grade worse than {promised}, counted in the severity
-        of each defect class whose fired rule made it worse. A critical defect class always counts as critical; a grade overridden below the promise with no class to
-        go by counts as major.
+        A unit counts once per class in which it has a nonconformity: a failed checklist item of that severity, or a grade worse than {promised}, counted in the severity of each defect class whose
+        fired rule made it worse. A critical defect class always counts as critical; a grade overridden below the promise with no class to go by counts as major.
       </li>
       {lot && (
         <li data-testid="inspected-rule">
@@ -91,7 +112,9 @@ export function CountingNote({ plan, lot }: { plan: StoredSamplingPlan; lot?: { 
         </li>
       )}
       <li>Reaching Re rejects the lot at once; accepting needs the whole sample of each class inspected with at most Ac defectives.</li>
-      <li>ISO 2859-1 single sampling ({plan.level}, {plan.severity} inspection). Tables are summarised; the licensed standard governs.</li>
+      <li>
+        ISO 2859-1 single sampling ({plan.level}, {plan.severity} inspection). Tables are summarised; the licensed standard governs.
+      </li>
     </ul>
   );
 }

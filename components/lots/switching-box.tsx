@@ -18,7 +18,19 @@ export type SwitchingView = {
  * Where the ISO 2859-1 switching rules stand for the next lot of a supplier + part type, and why;
  * a lead can allow reduced inspection, mark production as not steady, or record corrective action.
  */
-export function SwitchingBox({ supplierId, partTypeId, view, canEdit, title = "Next lot's inspection" }: { supplierId: string; partTypeId: string; view: SwitchingView; canEdit: boolean; title?: string }) {
+export function SwitchingBox({
+  supplierId,
+  partTypeId,
+  view,
+  canEdit,
+  title = "Next lot's inspection",
+}: {
+  supplierId: string;
+  partTypeId: string;
+  view: SwitchingView;
+  canEdit: boolean;
+  title?: string;
+}) {
   const router = useRouter();
   const queryClient = useQueryClient();
   const [message, setMessage] = useState<{ kind: "error" | "success"; text: string } | null>(null);

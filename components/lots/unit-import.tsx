@@ -20,7 +20,14 @@ export function UnitImport({ lotId, sampleSize, quantity }: { lotId: string; sam
   const parsed = useMemo(() => (csv.trim() ? parseSerialCsv(csv) : null), [csv]);
   const localProblems = parsed && hasSerialProblems(parsed) ? describeSerialProblems(parsed) : [];
   const count = parsed?.serials.length ?? 0;
-  const countProblem = parsed && !hasSerialProblems(parsed) ? (count > quantity ? `The list has ${count} serials but the lot has ${quantity} units.` : count < sampleSize ? `The plan needs ${sampleSize} units; the list has ${count}.` : null) : null;
+  const countProblem =
+    parsed && !hasSerialProblems(parsed)
+      ? count > quantity
+        ? `The list has ${count} serials but the lot has ${quantity} units.`
+        : count < sampleSize
+          ? `The plan needs ${sampleSize} units; the list has ${count}.`
+          : null
+      : null;
 
   const create = useMutation({
     mutationFn: (body: { source: "serials"; csv: string } | { source: "placeholders" }) => apiFetch<{ created: number; draw: { seed?: string } }>(`/api/lots/${lotId}/units`, { body }),
@@ -29,7 +36,13 @@ export function UnitImport({ lotId, sampleSize, quantity }: { lotId: string; sam
       router.refresh();
     },
     onError: (err) => {
-      setProblems(err instanceof ApiError ? Object.entries(err.fieldErrors).filter(([k]) => k.startsWith("csv.")).map(([, v]) => v) : []);
+      setProblems(
+        err instanceof ApiError
+          ? Object.entries(err.fieldErrors)
+              .filter(([k]) => k.startsWith("csv."))
+              .map(([, v]) => v)
+          : [],
+      );
       setMessage({ kind: "error", text: err.message });
     },
   });
@@ -45,7 +58,9 @@ export function UnitImport({ lotId, sampleSize, quantity }: { lotId: string; sam
       </div>
       {message && <FormMessage kind={message.kind}>{message.text}</FormMessage>}
       <div className="space-y-2">
-        <label htmlFor="serial-csv" className="field-label">Serials (CSV, or one a line; a “serial” header column is found by name)</label>
+        <label htmlFor="serial-csv" className="field-label">
+          Serials (CSV, or one a line; a “serial” header column is found by name)
+        </label>
         <textarea id="serial-csv" rows={6} className="field-input font-mono" value={csv} onChange={(e) => setCsv(e.target.value)} placeholder={"serial\nOV-CAM-24-000123\nOV-CAM-24-000124"} />
         <label className="block text-sm">
           <span className="text-gauge-700">…or upload a file: </span>
@@ -66,7 +81,12 @@ export function UnitImport({ lotId, sampleSize, quantity }: { lotId: string; sam
         {countProblem && <p className="field-error">{countProblem}</p>}
       </div>
       <div className="flex flex-wrap gap-3">
-        <button type="button" className="btn-primary" disabled={!parsed || localProblems.length > 0 || countProblem !== null || create.isPending} onClick={() => create.mutate({ source: "serials", csv })}>
+        <button
+          type="button"
+          className="btn-primary"
+          disabled={!parsed || localProblems.length > 0 || countProblem !== null || create.isPending}
+          onClick={() => create.mutate({ source: "serials", csv })}
+        >
           Draw {sampleSize} from the list
         </button>
         <button type="button" className="btn-secondary" disabled={create.isPending} onClick={() => create.mutate({ source: "placeholders" })}>

@@ -6,13 +6,13 @@ import { createPortal } from "react-dom";
 import { AnnotationCanvasLazy, type AnnotationCanvasHandle } from "@/components/annotate/annotation-canvas-lazy";
 import { requestSuggestions } from "@/components/bench/regions-api";
 import { FormMessage } from "@/components/ui/form-field";
-import type { ZoneDefinition } from "@/db/schema/lots";
 import type { PolygonShape } from "@/lib/geometry/shape";
 import type { RegionSetPayload } from "@/lib/geometry/validate";
 import { apiFetch } from "@/lib/http/client";
 import { drawingFromZones, zonesFromDrawing, zonesToPlace } from "@/lib/part-types/zone-drawing";
 import { partTypeKeys } from "@/lib/query-keys/part-types";
 import { ZoneDrawerPanel } from "./zone-drawer-panel";
+import type { ZoneDefinition } from "@/lib/part-types/schemas";
 
 type SamplePhoto = {
   id: string;
@@ -35,7 +35,19 @@ const EMPTY: RegionSetPayload = { surfaces: [], regions: [], ruler: null };
  * here is saved on the photo. A full-window dialog, put on document.body so that it is not inside
  * the part type's <form> (Enter in its fields would submit the part type).
  */
-export function ZoneDrawer({ partTypeId, view, zones, onApply, onClose }: { partTypeId: string; view: { key: string; label: string }; zones: ZoneDefinition[]; onApply(zones: ZoneDefinition[]): void; onClose(): void }) {
+export function ZoneDrawer({
+  partTypeId,
+  view,
+  zones,
+  onApply,
+  onClose,
+}: {
+  partTypeId: string;
+  view: { key: string; label: string };
+  zones: ZoneDefinition[];
+  onApply(zones: ZoneDefinition[]): void;
+  onClose(): void;
+}) {
   const canvas = useRef<AnnotationCanvasHandle>(null);
   const dialog = useRef<HTMLDivElement>(null);
   const [photoIndex, setPhotoIndex] = useState(0);
@@ -55,7 +67,14 @@ export function ZoneDrawer({ partTypeId, view, zones, onApply, onClose }: { part
     queryFn: () => apiFetch<{ photos: SamplePhoto[] }>(`/api/part-types/${partTypeId}/sample-photos?view=${encodeURIComponent(view.key)}`),
   });
   const photo = samples.data?.photos[photoIndex] ?? null;
-  const initial = drawing ?? (photo ? drawingFromZones(working.filter((z) => z.polygon.length >= 3), photo.surfaces) : null);
+  const initial =
+    drawing ??
+    (photo
+      ? drawingFromZones(
+          working.filter((z) => z.polygon.length >= 3),
+          photo.surfaces,
+        )
+      : null);
   const hasSurface = surfaceDrawn ?? (initial?.surfaces.length ?? 0) > 0;
 
   // Focus moves into the dialog and back to the button that opened it.
@@ -135,23 +154,45 @@ export function ZoneDrawer({ partTypeId, view, zones, onApply, onClose }: { part
   return createPortal(
     <div ref={dialog} tabIndex={-1} className="fixed inset-0 z-50 flex flex-col bg-white outline-none" role="dialog" aria-modal="true" aria-labelledby="zone-drawer-title" data-testid="zone-drawer">
       <header className="flex flex-wrap items-center justify-between gap-x-3 gap-y-2 border-b border-gauge-100 px-4 py-2">
-        <h2 id="zone-drawer-title" className="text-lg font-semibold">Zones of the {view.label} view</h2>
+        <h2 id="zone-drawer-title" className="text-lg font-semibold">
+          Zones of the {view.label} view
+        </h2>
         <div className="flex flex-wrap items-center gap-2">
           {samples.data && samples.data.photos.length > 1 && (
             <label className="flex items-center gap-2 text-sm">
               <span>Sample photo</span>
-              <select className="field-input py-1" value={photoIndex} onChange={(e) => { setPhotoIndex(Number(e.target.value)); remount(null); }}>
-                {samples.data.photos.map((p, i) => <option key={p.id} value={i}>{p.unitLabel}{p.surfaces.length ? "" : " (no Surface)"}</option>)}
+              <select
+                className="field-input py-1"
+                value={photoIndex}
+                onChange={(e) => {
+                  setPhotoIndex(Number(e.target.value));
+                  remount(null);
+                }}
+              >
+                {samples.data.photos.map((p, i) => (
+                  <option key={p.id} value={i}>
+                    {p.unitLabel}
+                    {p.surfaces.length ? "" : " (no Surface)"}
+                  </option>
+                ))}
               </select>
             </label>
           )}
-          <button type="button" className="btn-primary" onClick={apply} disabled={!photo}>Use these zones</button>
-          <button type="button" className="btn-secondary" onClick={close}>{closing ? "Close without using" : "Close"}</button>
+          <button type="button" className="btn-primary" onClick={apply} disabled={!photo}>
+            Use these zones
+          </button>
+          <button type="button" className="btn-secondary" onClick={close}>
+            {closing ? "Close without using" : "Close"}
+          </button>
         </div>
       </header>
       <div className="flex min-h-0 flex-1 flex-col gap-3 overflow-y-auto p-4">
         {message && !photo && notice}
-        {samples.isPending && <p className="text-sm text-gauge-700" role="status">Looking for photos of this view…</p>}
+        {samples.isPending && (
+          <p className="text-sm text-gauge-700" role="status">
+            Looking for photos of this view…
+          </p>
+        )}
         {samples.isError && <FormMessage kind="error">{samples.error.message}</FormMessage>}
         {samples.data && !photo && (
           <p className="text-sm text-gauge-700" data-testid="zone-drawer-no-photo">
@@ -173,7 +214,16 @@ export function ZoneDrawer({ partTypeId, view, zones, onApply, onClose }: { part
               classKind="Zones"
               className="min-h-0"
             />
-            <ZoneDrawerPanel notice={notice} zones={working} hasSurface={hasSurface} suggesting={suggest.isPending} onSuggestSurface={() => suggest.mutate(photo.id)} onAdd={addZone} onRemove={removeZone} listRef={setShapeList} />
+            <ZoneDrawerPanel
+              notice={notice}
+              zones={working}
+              hasSurface={hasSurface}
+              suggesting={suggest.isPending}
+              onSuggestSurface={() => suggest.mutate(photo.id)}
+              onAdd={addZone}
+              onRemove={removeZone}
+              listRef={setShapeList}
+            />
           </div>
         )}
       </div>

@@ -94,11 +94,7 @@ export function PeopleTable({ currentUserId }: { currentUserId: string }) {
                 </button>
               )}
               {p.id !== currentUserId && (
-                <button
-                  type="button"
-                  className={p.active ? "btn-danger py-1 text-xs" : "btn-secondary py-1 text-xs"}
-                  onClick={() => update.mutate({ id: p.id, body: { active: !p.active } })}
-                >
+                <button type="button" className={p.active ? "btn-danger py-1 text-xs" : "btn-secondary py-1 text-xs"} onClick={() => update.mutate({ id: p.id, body: { active: !p.active } })}>
                   {p.active ? "Deactivate" : "Reactivate"}
                 </button>
               )}
@@ -110,7 +106,15 @@ export function PeopleTable({ currentUserId }: { currentUserId: string }) {
     [currentUserId, update, resend],
   );
 
-  const table = useReactTable({ data: people.data ?? [], columns, state: { sorting }, onSortingChange: setSorting, enableSortingRemoval: false, getCoreRowModel: getCoreRowModel(), getSortedRowModel: getSortedRowModel() });
+  const table = useReactTable({
+    data: people.data ?? [],
+    columns,
+    state: { sorting },
+    onSortingChange: setSorting,
+    enableSortingRemoval: false,
+    getCoreRowModel: getCoreRowModel(),
+    getSortedRowModel: getSortedRowModel(),
+  });
 
   if (people.isPending) return <p className="text-sm text-gauge-600">Loading people…</p>;
   if (people.isError) return <FormMessage kind="error">{people.error.message}</FormMessage>;

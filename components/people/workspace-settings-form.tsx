@@ -35,14 +35,20 @@ export function WorkspaceSettingsForm({ timeZone }: { timeZone: string }) {
       data-testid="workspace-settings"
       id="workspace"
     >
-      <h2 id="workspace-settings-title" className="text-lg font-semibold">Workspace</h2>
+      <h2 id="workspace-settings-title" className="text-lg font-semibold">
+        Workspace
+      </h2>
       {result && <FormMessage kind={result.kind}>{result.text}</FormMessage>}
       <div className="flex flex-wrap items-end gap-3">
         <div>
-          <label htmlFor="workspace-time-zone" className="field-label">Time zone</label>
+          <label htmlFor="workspace-time-zone" className="field-label">
+            Time zone
+          </label>
           <select id="workspace-time-zone" className="field-input" value={chosen} onChange={(e) => setChosen(e.target.value)} aria-describedby="workspace-time-zone-hint">
             {zones.map((z) => (
-              <option key={z} value={z}>{z}</option>
+              <option key={z} value={z}>
+                {z}
+              </option>
             ))}
           </select>
         </div>
@@ -50,7 +56,9 @@ export function WorkspaceSettingsForm({ timeZone }: { timeZone: string }) {
           Save time zone
         </button>
       </div>
-      <p id="workspace-time-zone-hint" className="text-xs text-gauge-600">Every time in Partproof is shown in this zone, for everyone in the workspace; the zone is named once, beside your name.</p>
+      <p id="workspace-time-zone-hint" className="text-xs text-gauge-600">
+        Every time in Partproof is shown in this zone, for everyone in the workspace; the zone is named once, beside your name.
+      </p>
     </form>
   );
 }

@@ -72,7 +72,9 @@ export function PhotoList({ unitId, views, canManage, beforeRemove }: PhotoListP
               <span className="min-w-0 truncate font-medium text-gauge-900" title={photo.fileName}>
                 {labelOf(photo.viewKey)} · {photo.fileName}
               </span>
-              <span className={`shrink-0 rounded px-1.5 py-0.5 font-medium ${photo.status === "failed" ? "bg-fault-50 text-fault-700" : photo.status === "ready" ? "bg-ok-50 text-ok-600" : "bg-signal-100 text-signal-700"}`}>
+              <span
+                className={`shrink-0 rounded px-1.5 py-0.5 font-medium ${photo.status === "failed" ? "bg-fault-50 text-fault-700" : photo.status === "ready" ? "bg-ok-50 text-ok-600" : "bg-signal-100 text-signal-700"}`}
+              >
                 {STATUS[photo.status]}
               </span>
             </div>
@@ -182,7 +184,15 @@ function RemovePhoto({ photo, beforeRemove, onDone }: { photo: PhotoDto; beforeR
       <label htmlFor={`remove-${photo.id}`} className="block font-medium text-gauge-800">
         Why is this photo wrong?
       </label>
-      <input id={`remove-${photo.id}`} className="field-input h-7 py-0 text-xs" value={reason} maxLength={500} onChange={(e) => setReason(e.target.value)} placeholder="e.g. another unit's back" autoFocus />
+      <input
+        id={`remove-${photo.id}`}
+        className="field-input h-7 py-0 text-xs"
+        value={reason}
+        maxLength={500}
+        onChange={(e) => setReason(e.target.value)}
+        placeholder="e.g. another unit's back"
+        autoFocus
+      />
       {remove.isError && <p className="text-fault-700">{remove.error.message}</p>}
       <p className="text-gauge-600">A photo with regions or a measurement is kept as a record, out of the unit; otherwise it is deleted. Either way the reason is logged.</p>
       <div className="flex gap-1">

@@ -24,7 +24,10 @@ type PhotoStripProps = {
 /** Photos ordered by the part type's views (unknown views last), each view's in upload order. */
 export function photosInViewOrder(photos: readonly PhotoDto[], views: readonly ViewChoice[]): PhotoDto[] {
   const rank = new Map(views.map((v, i) => [v.key, i]));
-  return photos.map((p, i) => ({ p, i })).sort((a, b) => (rank.get(a.p.viewKey) ?? views.length) - (rank.get(b.p.viewKey) ?? views.length) || a.i - b.i).map(({ p }) => p);
+  return photos
+    .map((p, i) => ({ p, i }))
+    .sort((a, b) => (rank.get(a.p.viewKey) ?? views.length) - (rank.get(b.p.viewKey) ?? views.length) || a.i - b.i)
+    .map(({ p }) => p);
 }
 
 const STATUS_TEXT: Record<PhotoDto["status"], string> = { queued: "Queued", processing: "Processing…", ready: "Ready", failed: "Failed" };
@@ -56,7 +59,12 @@ export function PhotoStrip({ unitId, views, selection, end }: PhotoStripProps) {
           />
         ))}
         {missing.map((view) => (
-          <li key={view.key} className="flex h-14 w-24 shrink-0 flex-col items-center justify-center rounded border border-dashed border-signal-500 bg-signal-50 px-1 text-center text-[11px] leading-tight font-medium text-signal-700" data-testid="missing-view" data-view={view.key}>
+          <li
+            key={view.key}
+            className="flex h-14 w-24 shrink-0 flex-col items-center justify-center rounded border border-dashed border-signal-500 bg-signal-50 px-1 text-center text-[11px] leading-tight font-medium text-signal-700"
+            data-testid="missing-view"
+            data-view={view.key}
+          >
             {view.label}
             <span className="font-normal">Missing — photograph this view</span>
           </li>
@@ -72,7 +80,14 @@ function PhotoTile({ photo, viewLabel, selected, unsaved, onSelect }: { photo: P
   const image =
     photo.urls && photo.thumbnail ? (
       // eslint-disable-next-line @next/next/no-img-element -- served by our own access-checked route
-      <img src={photo.urls.thumbnail} width={photo.thumbnail.width} height={photo.thumbnail.height} alt={`${viewLabel} photo, ${photo.fileName}`} className="h-full w-full object-cover" data-testid="photo-thumbnail" />
+      <img
+        src={photo.urls.thumbnail}
+        width={photo.thumbnail.width}
+        height={photo.thumbnail.height}
+        alt={`${viewLabel} photo, ${photo.fileName}`}
+        className="h-full w-full object-cover"
+        data-testid="photo-thumbnail"
+      />
     ) : (
       <span className="px-1 text-center text-[11px] text-gauge-600">{photo.status === "failed" ? "No image" : "Processing…"}</span>
     );
@@ -81,7 +96,10 @@ function PhotoTile({ photo, viewLabel, selected, unsaved, onSelect }: { photo: P
       {image}
       <span className="absolute inset-x-0 bottom-0 truncate bg-gauge-950/70 px-1 text-left text-[11px] leading-4 text-white">{viewLabel}</span>
       {photo.status !== "ready" && (
-        <span className={`absolute top-0.5 left-0.5 rounded px-1 text-[10px] font-semibold ${photo.status === "failed" ? "bg-fault-600 text-white" : "bg-signal-100 text-signal-700"}`} data-testid="photo-status">
+        <span
+          className={`absolute top-0.5 left-0.5 rounded px-1 text-[10px] font-semibold ${photo.status === "failed" ? "bg-fault-600 text-white" : "bg-signal-100 text-signal-700"}`}
+          data-testid="photo-status"
+        >
           {STATUS_TEXT[photo.status]}
         </span>
       )}
@@ -94,9 +112,23 @@ function PhotoTile({ photo, viewLabel, selected, unsaved, onSelect }: { photo: P
   );
   const frame = `relative flex h-14 w-20 items-center justify-center overflow-hidden rounded bg-gauge-100 ${selected ? "ring-3 ring-signal-500" : "ring-1 ring-gauge-200"}`;
   return (
-    <li className="shrink-0" data-testid="photo-card" data-photo-id={photo.id} data-status={photo.status} data-selected={selected ? "true" : "false"} title={`${viewLabel} · ${photo.fileName}${photo.width ? ` · ${photo.width} × ${photo.height} px` : ""}`}>
+    <li
+      className="shrink-0"
+      data-testid="photo-card"
+      data-photo-id={photo.id}
+      data-status={photo.status}
+      data-selected={selected ? "true" : "false"}
+      title={`${viewLabel} · ${photo.fileName}${photo.width ? ` · ${photo.width} × ${photo.height} px` : ""}`}
+    >
       {onSelect && photo.status === "ready" ? (
-        <button type="button" className={`${frame} hover:opacity-90`} aria-pressed={selected} aria-label={`Open the ${viewLabel} photo ${photo.fileName} on the canvas`} onClick={onSelect} data-testid="photo-select">
+        <button
+          type="button"
+          className={`${frame} hover:opacity-90`}
+          aria-pressed={selected}
+          aria-label={`Open the ${viewLabel} photo ${photo.fileName} on the canvas`}
+          onClick={onSelect}
+          data-testid="photo-select"
+        >
           {body}
         </button>
       ) : (

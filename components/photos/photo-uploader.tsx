@@ -87,8 +87,33 @@ export function PhotoUploader({ unitId, views }: { unitId: string; views: ViewCh
             Use camera
           </button>
         </div>
-        <input ref={pickerRef} type="file" accept="image/*" multiple className="sr-only" aria-label="Choose photos" data-testid="photo-file-input" disabled={!hydrated} onChange={(e) => { addFiles(e.target.files); e.target.value = ""; }} />
-        <input ref={cameraRef} type="file" accept="image/*" capture="environment" className="sr-only" aria-label="Take a photo with the camera" disabled={!hydrated} onChange={(e) => { addFiles(e.target.files); e.target.value = ""; }} />
+        <input
+          ref={pickerRef}
+          type="file"
+          accept="image/*"
+          multiple
+          className="sr-only"
+          aria-label="Choose photos"
+          data-testid="photo-file-input"
+          disabled={!hydrated}
+          onChange={(e) => {
+            addFiles(e.target.files);
+            e.target.value = "";
+          }}
+        />
+        <input
+          ref={cameraRef}
+          type="file"
+          accept="image/*"
+          capture="environment"
+          className="sr-only"
+          aria-label="Take a photo with the camera"
+          disabled={!hydrated}
+          onChange={(e) => {
+            addFiles(e.target.files);
+            e.target.value = "";
+          }}
+        />
       </div>
 
       {progress.total > 0 && (
@@ -176,7 +201,13 @@ function UploadRow({
         <label htmlFor={selectId} className="sr-only">
           View of {item.file.name}
         </label>
-        <select id={selectId} className="field-input min-w-36 flex-1 py-1.5 sm:w-auto sm:flex-none" value={item.viewKey} disabled={item.phase !== "selected"} onChange={(e) => onView(item.id, e.target.value)}>
+        <select
+          id={selectId}
+          className="field-input min-w-36 flex-1 py-1.5 sm:w-auto sm:flex-none"
+          value={item.viewKey}
+          disabled={item.phase !== "selected"}
+          onChange={(e) => onView(item.id, e.target.value)}
+        >
           {!item.viewKey && <option value="">Choose the view</option>}
           {views.map((v) => (
             <option key={v.key} value={v.key}>

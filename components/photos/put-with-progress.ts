@@ -13,8 +13,7 @@ export class UploadError extends Error {
   }
 }
 
-export const STORE_UNREACHABLE =
-  "The photo store is not reachable, so the file was not uploaded. It is still on your device; press Retry in a moment.";
+export const STORE_UNREACHABLE = "The photo store is not reachable, so the file was not uploaded. It is still on your device; press Retry in a moment.";
 
 export function putWithProgress(
   url: string,

@@ -33,11 +33,7 @@ type IntentResponse = { photoId: string; ticket: string; upload: { url: string; 
 type FinaliseResponse = { photo: PhotoDto; outcome: "accepted" | "replayed" | "duplicate" };
 
 type Action =
-  | { type: "add"; files: File[]; viewKeys: string[] }
-  | { type: "patch"; id: string; patch: Partial<UploadItem> }
-  | { type: "remove"; id: string }
-  | { type: "start" }
-  | { type: "clearFinished" };
+  { type: "add"; files: File[]; viewKeys: string[] } | { type: "patch"; id: string; patch: Partial<UploadItem> } | { type: "remove"; id: string } | { type: "start" } | { type: "clearFinished" };
 
 const ACTIVE: UploadPhase[] = ["requesting", "uploading", "finalising"];
 export const isActive = (item: UploadItem) => ACTIVE.includes(item.phase);

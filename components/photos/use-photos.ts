@@ -7,7 +7,6 @@ import { unitKeys } from "@/lib/query-keys/units";
 
 const POLL_MS = 1500;
 
-
 /** The unit's photos (every status), polled while any is queued or processing so each turns ready or failed without a reload. */
 export function usePhotos(unitId: string) {
   return useQuery({

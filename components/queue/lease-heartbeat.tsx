@@ -13,7 +13,19 @@ import { unitSessionKeys } from "@/lib/query-keys/units";
  * Mounted on the Bench of a unit the user holds: renews the lease every minute while the page is
  * open (so a closed tab lets it expire), and offers to put the unit back in the queue.
  */
-export function LeaseHeartbeat({ unitId, leaseUrl = `/api/units/${unitId}/lease`, intervalMs = 60_000, onRenewed, showPutBack = true }: { unitId: string; leaseUrl?: string; intervalMs?: number; onRenewed?: () => void; showPutBack?: boolean }) {
+export function LeaseHeartbeat({
+  unitId,
+  leaseUrl = `/api/units/${unitId}/lease`,
+  intervalMs = 60_000,
+  onRenewed,
+  showPutBack = true,
+}: {
+  unitId: string;
+  leaseUrl?: string;
+  intervalMs?: number;
+  onRenewed?: () => void;
+  showPutBack?: boolean;
+}) {
   const router = useRouter();
   const timeZone = useTimeZone();
   const heartbeat = useQuery({
@@ -49,9 +61,11 @@ export function LeaseHeartbeat({ unitId, leaseUrl = `/api/units/${unitId}/lease`
           {until ? `until ${until}` : <span className="lg:sr-only">reserved for you</span>}
         </span>
       )}
-      {showPutBack && <button type="button" className="btn-secondary h-8 py-0 text-sm" onClick={() => release.mutate()} disabled={release.isPending} title="Put the unit back in the queue for someone else">
-        Put back
-      </button>}
+      {showPutBack && (
+        <button type="button" className="btn-secondary h-8 py-0 text-sm" onClick={() => release.mutate()} disabled={release.isPending} title="Put the unit back in the queue for someone else">
+          Put back
+        </button>
+      )}
       {release.isError && <FormMessage kind="error">{release.error.message}</FormMessage>}
     </div>
   );

@@ -73,10 +73,18 @@ export function QueueBoard({ options }: { options: QueueFilterOptions }) {
           <table className="min-w-full text-sm">
             <thead className="text-left text-xs uppercase tracking-wide text-gauge-600">
               <tr>
-                <th scope="col" className="px-4 py-2">Part type</th>
-                <th scope="col" className="px-4 py-2">Waiting</th>
-                <th scope="col" className="px-4 py-2">On a bench</th>
-                <th scope="col" className="px-4 py-2">Median minutes per unit (30 days)</th>
+                <th scope="col" className="px-4 py-2">
+                  Part type
+                </th>
+                <th scope="col" className="px-4 py-2">
+                  Waiting
+                </th>
+                <th scope="col" className="px-4 py-2">
+                  On a bench
+                </th>
+                <th scope="col" className="px-4 py-2">
+                  Median minutes per unit (30 days)
+                </th>
               </tr>
             </thead>
             <tbody className="divide-y divide-gauge-100">

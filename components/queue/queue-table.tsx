@@ -12,12 +12,24 @@ export function QueueTable({ rows, loading, emptyText = "No units are waiting in
       <table className="min-w-full text-sm" data-testid="queue-table">
         <thead className="bg-gauge-50 text-left text-xs uppercase tracking-wide text-gauge-600">
           <tr>
-            <th scope="col" className="px-4 py-2">Due</th>
-            <th scope="col" className="px-4 py-2">Lot</th>
-            <th scope="col" className="px-4 py-2">Part type</th>
-            <th scope="col" className="px-4 py-2">Supplier</th>
-            <th scope="col" className="px-4 py-2">Unit</th>
-            <th scope="col" className="px-4 py-2">On the bench of</th>
+            <th scope="col" className="px-4 py-2">
+              Due
+            </th>
+            <th scope="col" className="px-4 py-2">
+              Lot
+            </th>
+            <th scope="col" className="px-4 py-2">
+              Part type
+            </th>
+            <th scope="col" className="px-4 py-2">
+              Supplier
+            </th>
+            <th scope="col" className="px-4 py-2">
+              Unit
+            </th>
+            <th scope="col" className="px-4 py-2">
+              On the bench of
+            </th>
           </tr>
         </thead>
         <tbody className="divide-y divide-gauge-100">

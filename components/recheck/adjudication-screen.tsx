@@ -42,7 +42,10 @@ export function AdjudicationScreen({ view }: { view: AdjudicationJson }) {
   const [own, setOwn] = useState<Grade>("A");
   const [reason, setReason] = useState("");
   const decide = useMutation({
-    mutationFn: () => apiFetch<{ adjudication: { finalGrade: Grade; decidedLotAffected: boolean } }>(recheckUrls.adjudication(view.recheck.id), { body: choice === "own" ? { choice, finalGrade: own, reason } : { choice, reason } }),
+    mutationFn: () =>
+      apiFetch<{ adjudication: { finalGrade: Grade; decidedLotAffected: boolean } }>(recheckUrls.adjudication(view.recheck.id), {
+        body: choice === "own" ? { choice, finalGrade: own, reason } : { choice, reason },
+      }),
   });
   const settled = view.recheck.adjudication;
   return (
@@ -53,7 +56,9 @@ export function AdjudicationScreen({ view }: { view: AdjudicationJson }) {
         </h1>
         <p className="text-sm text-gauge-700">
           Lot <a href={`/lots/${view.unit.lotId}`}>{view.unit.purchaseRef}</a> · rubric version {view.unit.rubricVersion} · why:{" "}
-          {view.recheck.reasons.map((r) => (r.kind === "grade_differs" ? `the grades differ by ${r.steps} step${r.steps === 1 ? "" : "s"}` : `${r.defect} overlaps ${percent(r.iou)} on one photo`)).join("; ")}
+          {view.recheck.reasons
+            .map((r) => (r.kind === "grade_differs" ? `the grades differ by ${r.steps} step${r.steps === 1 ? "" : "s"}` : `${r.defect} overlaps ${percent(r.iou)} on one photo`))
+            .join("; ")}
         </p>
       </header>
       <div className="grid gap-3 md:grid-cols-2">
@@ -73,7 +78,13 @@ export function AdjudicationScreen({ view }: { view: AdjudicationJson }) {
               <figcaption className="text-sm text-gauge-700">Recheck&apos;s regions ({p.recheck.length})</figcaption>
             </figure>
             <figure>
-              <OverlayOnPhoto photoId={p.photo.id} width={p.photo.width} height={p.photo.height} areas={p.comparison?.areas ?? {}} label="Both overlaid: hatched only first, dotted only recheck, pale both" />
+              <OverlayOnPhoto
+                photoId={p.photo.id}
+                width={p.photo.width}
+                height={p.photo.height}
+                areas={p.comparison?.areas ?? {}}
+                label="Both overlaid: hatched only first, dotted only recheck, pale both"
+              />
               <figcaption className="text-sm text-gauge-700">Overlaid</figcaption>
             </figure>
           </div>
@@ -90,17 +101,27 @@ export function AdjudicationScreen({ view }: { view: AdjudicationJson }) {
         <caption className="text-left font-semibold">Overlap per defect class (whole unit)</caption>
         <thead>
           <tr className="text-left">
-            <th scope="col" className="pr-4">Class</th>
-            <th scope="col" className="pr-4">First px</th>
-            <th scope="col" className="pr-4">Recheck px</th>
-            <th scope="col" className="pr-4">IoU</th>
+            <th scope="col" className="pr-4">
+              Class
+            </th>
+            <th scope="col" className="pr-4">
+              First px
+            </th>
+            <th scope="col" className="pr-4">
+              Recheck px
+            </th>
+            <th scope="col" className="pr-4">
+              IoU
+            </th>
             <th scope="col">Dice</th>
           </tr>
         </thead>
         <tbody>
           {Object.entries(view.classes).map(([defect, c]) => (
             <tr key={defect}>
-              <th scope="row" className="pr-4 font-normal">{defect}</th>
+              <th scope="row" className="pr-4 font-normal">
+                {defect}
+              </th>
               <td className="pr-4">{c.firstPx}</td>
               <td className="pr-4">{c.recheckPx}</td>
               <td className="pr-4">{percent(c.iou)}</td>

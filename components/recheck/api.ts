@@ -2,11 +2,11 @@
 import type { AdjudicationView } from "@/lib/recheck/adjudication-view";
 import type { BlindRecheckView } from "@/lib/recheck/blind-view";
 import { apiFetch } from "@/lib/http/client";
-import type { Jsonified } from "@/lib/http/json-type";
 import { EMPTY_PAYLOAD } from "@/lib/regions/payload";
 
-export type BlindRecheckJson = Jsonified<BlindRecheckView>;
-export type AdjudicationJson = Jsonified<AdjudicationView>;
+// The server's views are JSON-ready (times as ISO text), so the API's answer has their type.
+export type BlindRecheckJson = BlindRecheckView;
+export type AdjudicationJson = AdjudicationView;
 export type Proposal = { rubricVersion: number; proposal: { grade: "A" | "B" | "C" | "Reject"; lines: { text: string }[]; notes: string[] } };
 
 export const recheckUrls = {

@@ -60,7 +60,13 @@ export function RecheckBench({ view }: { view: BlindRecheckJson }) {
         {!submitted && (
           <div className="flex items-center gap-2">
             <LeaseHeartbeat unitId={recheckId} leaseUrl={recheckUrls.lease(recheckId)} showPutBack={false} />
-            <button type="button" className="btn-secondary h-8 py-0 text-sm" onClick={() => release.mutate()} disabled={release.isPending} title="Put the recheck back for another auditor; your marks on it are dropped">
+            <button
+              type="button"
+              className="btn-secondary h-8 py-0 text-sm"
+              onClick={() => release.mutate()}
+              disabled={release.isPending}
+              title="Put the recheck back for another auditor; your marks on it are dropped"
+            >
               Put back
             </button>
           </div>
@@ -73,7 +79,14 @@ export function RecheckBench({ view }: { view: BlindRecheckJson }) {
               <PhotoAnnotator
                 key={selected.id}
                 sessionScope="recheck"
-                photo={{ id: selected.id, fileName: viewLabel(selected.viewKey), width: selected.width, height: selected.height, preview: selected.preview, urls: { thumbnail: `/api/photos/${selected.id}/thumbnail`, preview: `/api/photos/${selected.id}/preview`, original: `/api/photos/${selected.id}/original` } }}
+                photo={{
+                  id: selected.id,
+                  fileName: viewLabel(selected.viewKey),
+                  width: selected.width,
+                  height: selected.height,
+                  preview: selected.preview,
+                  urls: { thumbnail: `/api/photos/${selected.id}/thumbnail`, preview: `/api/photos/${selected.id}/preview`, original: `/api/photos/${selected.id}/original` },
+                }}
                 loadSet={(photoId) => fetchOwnSet(recheckId, photoId)}
                 viewLabel={viewLabel(selected.viewKey)}
                 allowedDefects={allowedDefects}
@@ -90,7 +103,13 @@ export function RecheckBench({ view }: { view: BlindRecheckJson }) {
           </div>
           <nav aria-label="Photos of the unit" className="flex shrink-0 gap-2 overflow-x-auto">
             {view.photos.map((photo) => (
-              <button key={photo.id} type="button" aria-pressed={photo.id === selectedId} className={`shrink-0 rounded-md border-2 p-0.5 ${photo.id === selectedId ? "border-signal-600" : "border-transparent"}`} onClick={() => setSelectedId(photo.id)}>
+              <button
+                key={photo.id}
+                type="button"
+                aria-pressed={photo.id === selectedId}
+                className={`shrink-0 rounded-md border-2 p-0.5 ${photo.id === selectedId ? "border-signal-600" : "border-transparent"}`}
+                onClick={() => setSelectedId(photo.id)}
+              >
                 {/* eslint-disable-next-line @next/next/no-img-element -- a same-origin API image, sized by CSS */}
                 <img src={`/api/photos/${photo.id}/thumbnail`} alt={`${viewLabel(photo.viewKey)} photo`} className="h-14 w-auto rounded" />
               </button>

@@ -59,7 +59,9 @@ export function RecheckGradePanel({ recheckId, beforeMeasure, onSubmitted }: { r
           <tbody>
             {Object.entries(outcome.comparison.classes).map(([defect, c]) => (
               <tr key={defect}>
-                <th scope="row" className="font-normal">{defect}</th>
+                <th scope="row" className="font-normal">
+                  {defect}
+                </th>
                 <td>{percent(c.iou)}</td>
                 <td>{percent(c.dice)}</td>
                 <td>

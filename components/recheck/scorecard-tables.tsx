@@ -17,11 +17,25 @@ const td = "px-3 py-1.5";
 /** What a drift flag says, in words. */
 export function driftText(drift: DriftFlag): string {
   if (!drift.flagged) return "No";
-  const parts = drift.reasons.map((reason) => (reason === "below_threshold" ? `below the ${Math.round(drift.threshold * 100)} % threshold` : `clearly below the rest of the team (${formatPercent(drift.others.share)})`));
+  const parts = drift.reasons.map((reason) =>
+    reason === "below_threshold" ? `below the ${Math.round(drift.threshold * 100)} % threshold` : `clearly below the rest of the team (${formatPercent(drift.others.share)})`,
+  );
   return `Yes: ${formatPercent(drift.agreement.share)} over the last ${drift.weeks.length} weeks, ${parts.join(" and ")}`;
 }
 
-export function GraderTable({ graders, names, team, linkFor, selected }: { graders: GraderRow[]; names: Record<string, string>; team: Counts; linkFor: (graderId: string | null) => string; selected: string | null }) {
+export function GraderTable({
+  graders,
+  names,
+  team,
+  linkFor,
+  selected,
+}: {
+  graders: GraderRow[];
+  names: Record<string, string>;
+  team: Counts;
+  linkFor: (graderId: string | null) => string;
+  selected: string | null;
+}) {
   const sorted = [...graders].sort((a, b) => (names[a.graderId] ?? "").localeCompare(names[b.graderId] ?? ""));
   const row = (key: string, name: React.ReactNode, counts: Counts, drift: DriftFlag | null, isSelected: boolean) => (
     <tr key={key} className={isSelected ? "bg-gauge-50" : undefined} data-testid={`scorecard-row-${key}`} aria-current={isSelected ? "true" : undefined}>
@@ -49,15 +63,33 @@ export function GraderTable({ graders, names, team, linkFor, selected }: { grade
         <caption className="sr-only">Agreement of each grader&apos;s grades with the blind rechecks over the period</caption>
         <thead className="bg-gauge-50 text-left text-xs uppercase tracking-wide text-gauge-600">
           <tr>
-            <th scope="col" className={th}>Grader</th>
-            <th scope="col" className={th}>Graded</th>
-            <th scope="col" className={th}>Rechecked</th>
-            <th scope="col" className={th}>Exact agreement (95 %)</th>
-            <th scope="col" className={th}>Within one</th>
-            <th scope="col" className={th}>Kappa (95 %)</th>
-            <th scope="col" className={th}>Band</th>
-            <th scope="col" className={th}>Weighted kappa (95 %)</th>
-            <th scope="col" className={th}>Drift</th>
+            <th scope="col" className={th}>
+              Grader
+            </th>
+            <th scope="col" className={th}>
+              Graded
+            </th>
+            <th scope="col" className={th}>
+              Rechecked
+            </th>
+            <th scope="col" className={th}>
+              Exact agreement (95 %)
+            </th>
+            <th scope="col" className={th}>
+              Within one
+            </th>
+            <th scope="col" className={th}>
+              Kappa (95 %)
+            </th>
+            <th scope="col" className={th}>
+              Band
+            </th>
+            <th scope="col" className={th}>
+              Weighted kappa (95 %)
+            </th>
+            <th scope="col" className={th}>
+              Drift
+            </th>
           </tr>
         </thead>
         <tbody className="divide-y divide-gauge-100">
@@ -94,17 +126,29 @@ export function ScorecardWeekTable({ weeks, label }: { weeks: ({ week: string } 
         <caption className="pb-1 text-left text-xs text-gauge-600">{label}, week by week (weeks start on Monday)</caption>
         <thead className="bg-gauge-50 text-left text-xs uppercase tracking-wide text-gauge-600">
           <tr>
-            <th scope="col" className={th}>Week of</th>
-            <th scope="col" className={th}>Rechecks</th>
-            <th scope="col" className={th}>Exact</th>
-            <th scope="col" className={th}>Kappa</th>
-            <th scope="col" className={th}>Band</th>
+            <th scope="col" className={th}>
+              Week of
+            </th>
+            <th scope="col" className={th}>
+              Rechecks
+            </th>
+            <th scope="col" className={th}>
+              Exact
+            </th>
+            <th scope="col" className={th}>
+              Kappa
+            </th>
+            <th scope="col" className={th}>
+              Band
+            </th>
           </tr>
         </thead>
         <tbody className="divide-y divide-gauge-100">
           {weeks.map((w) => (
             <tr key={w.week}>
-              <th scope="row" className={`${td} whitespace-nowrap text-left font-normal tabular-nums`}>{w.week}</th>
+              <th scope="row" className={`${td} whitespace-nowrap text-left font-normal tabular-nums`}>
+                {w.week}
+              </th>
               <td className={`${td} tabular-nums`}>{w.figures.n}</td>
               <td className={`${td} tabular-nums`}>{formatPercent(w.figures.exact.share)}</td>
               <td className={`${td} tabular-nums`}>{formatKappa(w.figures.kappa.kappa)}</td>
@@ -124,15 +168,23 @@ export function MeanIouTable({ meanIou, classLabels }: { meanIou: AgreementFigur
     <table className="text-sm" data-testid="scorecard-iou">
       <thead className="text-left text-xs uppercase tracking-wide text-gauge-600">
         <tr>
-          <th scope="col" className={th}>Defect class</th>
-          <th scope="col" className={th}>Mean IoU</th>
-          <th scope="col" className={th}>Rechecks</th>
+          <th scope="col" className={th}>
+            Defect class
+          </th>
+          <th scope="col" className={th}>
+            Mean IoU
+          </th>
+          <th scope="col" className={th}>
+            Rechecks
+          </th>
         </tr>
       </thead>
       <tbody className="divide-y divide-gauge-100">
         {entries.map(([defect, { mean, n }]) => (
           <tr key={defect}>
-            <th scope="row" className={`${td} text-left font-normal`}>{classLabels[defect] ?? defect}</th>
+            <th scope="row" className={`${td} text-left font-normal`}>
+              {classLabels[defect] ?? defect}
+            </th>
             <td className={`${td} tabular-nums`}>{mean.toFixed(2)}</td>
             <td className={`${td} tabular-nums`}>{n}</td>
           </tr>

@@ -45,12 +45,26 @@ export function ScorecardTrendChart({ points, driftThreshold, label }: { points:
         <ResponsiveContainer width="100%" height="100%">
           <LineChart data={points} margin={{ top: 8, right: 96, bottom: 8, left: 0 }}>
             {BANDS.map((band, index) => (
-              <ReferenceArea key={band.name} y1={band.from} y2={band.to} fill={index % 2 ? "#eef6f6" : "#ffffff"} fillOpacity={1} ifOverflow="hidden" label={{ value: band.name, position: "right", fontSize: 11, fill: "#357b82" }} />
+              <ReferenceArea
+                key={band.name}
+                y1={band.from}
+                y2={band.to}
+                fill={index % 2 ? "#eef6f6" : "#ffffff"}
+                fillOpacity={1}
+                ifOverflow="hidden"
+                label={{ value: band.name, position: "right", fontSize: 11, fill: "#357b82" }}
+              />
             ))}
             <CartesianGrid strokeDasharray="2 4" vertical={false} stroke="#d5e9ea" />
             <XAxis dataKey="week" tickFormatter={weekLabel} fontSize={11} />
             <YAxis domain={[bottom, 1]} ticks={[bottom, 0, 0.2, 0.4, 0.6, 0.8, 1].filter((t, i, all) => all.indexOf(t) === i)} fontSize={11} width={40} />
-            <ReferenceLine y={driftThreshold} stroke="#b4352a" strokeDasharray="1 3" strokeWidth={2} label={{ value: "drift threshold", position: "insideBottomLeft", fontSize: 11, fill: "#8f2a22" }} />
+            <ReferenceLine
+              y={driftThreshold}
+              stroke="#b4352a"
+              strokeDasharray="1 3"
+              strokeWidth={2}
+              label={{ value: "drift threshold", position: "insideBottomLeft", fontSize: 11, fill: "#8f2a22" }}
+            />
             <Tooltip formatter={tooltipValue} labelFormatter={(week) => `Week of ${week}`} />
             <Line type="linear" dataKey="exact" name="Exact agreement" stroke={EXACT_COLOUR} strokeWidth={2} dot={{ r: 3.5, fill: EXACT_COLOUR }} connectNulls={false} isAnimationActive={false} />
             <Line type="linear" dataKey="kappa" name="Cohen's kappa" stroke={KAPPA_COLOUR} strokeWidth={2} strokeDasharray="6 4" dot={<SquareDot />} connectNulls={false} isAnimationActive={false} />

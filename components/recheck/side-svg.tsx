@@ -14,7 +14,8 @@ function ShapeSvg({ shape, colour, width }: { shape: Shape; colour: string; widt
   const common = { fill: "none", stroke: colour, strokeWidth: width, vectorEffect: "non-scaling-stroke" as const };
   if (shape.kind === "rect") return <rect x={shape.x} y={shape.y} width={shape.width} height={shape.height} {...common} />;
   if (shape.kind === "polygon") return <polygon points={shape.points.map((p) => p.join(",")).join(" ")} {...common} />;
-  if (shape.kind === "line") return <polyline points={shape.points.map((p) => p.join(",")).join(" ")} {...common} strokeWidth={Math.max(shape.width, 1)} vectorEffect={undefined} strokeOpacity={0.7} />;
+  if (shape.kind === "line")
+    return <polyline points={shape.points.map((p) => p.join(",")).join(" ")} {...common} strokeWidth={Math.max(shape.width, 1)} vectorEffect={undefined} strokeOpacity={0.7} />;
   return <circle cx={shape.x} cy={shape.y} r={shape.radius} {...common} />;
 }
 

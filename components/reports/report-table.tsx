@@ -4,7 +4,19 @@
  */
 export type ReportColumn<Row> = { header: string; cell: (row: Row) => React.ReactNode; numeric?: boolean; rowHeader?: boolean };
 
-export function ReportTable<Row>({ caption, columns, rows, rowKey, testId }: { caption: string; columns: readonly ReportColumn<Row>[]; rows: readonly Row[]; rowKey: (row: Row) => string; testId?: string }) {
+export function ReportTable<Row>({
+  caption,
+  columns,
+  rows,
+  rowKey,
+  testId,
+}: {
+  caption: string;
+  columns: readonly ReportColumn<Row>[];
+  rows: readonly Row[];
+  rowKey: (row: Row) => string;
+  testId?: string;
+}) {
   return (
     <div className="overflow-x-auto">
       <table className="min-w-full text-sm" data-testid={testId}>

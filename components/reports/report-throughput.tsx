@@ -36,7 +36,8 @@ export function ReportThroughput({ report, userNames, partTypeNames }: { report:
         ]}
       />
       <p className="text-xs text-gauge-600">
-        Minutes run from taking a unit onto the bench to its grade, pauses in the queue left out. {untimed > 0 ? `${untimed} units could not be timed (a lapsed lease, or graded without a bench session) and are left out of the medians.` : ""}
+        Minutes run from taking a unit onto the bench to its grade, pauses in the queue left out.{" "}
+        {untimed > 0 ? `${untimed} units could not be timed (a lapsed lease, or graded without a bench session) and are left out of the medians.` : ""}
       </p>
     </div>
   );

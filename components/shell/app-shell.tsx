@@ -58,7 +58,15 @@ export function AppShell({ user, screens, children }: { user: SessionUser; scree
             <span className="truncate text-xs text-gauge-300" data-testid="time-zone-note">
               {zone}
             </span>
-            <MobileMenu items={nav} footer={<>{who(false)}<SignOutButton /></>} />
+            <MobileMenu
+              items={nav}
+              footer={
+                <>
+                  {who(false)}
+                  <SignOutButton />
+                </>
+              }
+            />
           </div>
         </header>
       }

@@ -57,13 +57,22 @@ export function SupplierForm({ supplierId, initial }: { supplierId?: string; ini
         <label htmlFor="supplier-promised-grade" className="field-label">
           Grade lots are bought at
         </label>
-        <select id="supplier-promised-grade" className="field-input" aria-describedby="supplier-promised-grade-hint" {...register("promisedGrade", { setValueAs: (v) => (v === "" || v === null ? null : v) })}>
+        <select
+          id="supplier-promised-grade"
+          className="field-input"
+          aria-describedby="supplier-promised-grade-hint"
+          {...register("promisedGrade", { setValueAs: (v) => (v === "" || v === null ? null : v) })}
+        >
           <option value="">The part type&apos;s default</option>
           {PROMISED_GRADES.map((g) => (
-            <option key={g} value={g}>{g}</option>
+            <option key={g} value={g}>
+              {g}
+            </option>
           ))}
         </select>
-        <p id="supplier-promised-grade-hint" className="mt-1 text-xs text-gauge-600">E.g. A for new stock, B for refurbished pulls. New lots start from it.</p>
+        <p id="supplier-promised-grade-hint" className="mt-1 text-xs text-gauge-600">
+          E.g. A for new stock, B for refurbished pulls. New lots start from it.
+        </p>
       </div>
       <div>
         <label htmlFor="supplier-notes" className="field-label">

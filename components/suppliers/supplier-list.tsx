@@ -38,10 +38,18 @@ export function SupplierList() {
         <table className="min-w-full text-sm" data-testid="supplier-table">
           <thead className="bg-gauge-50 text-left text-xs uppercase tracking-wide text-gauge-600">
             <tr>
-              <th scope="col" className="px-4 py-2">Supplier</th>
-              <th scope="col" className="px-4 py-2">Contact</th>
-              <th scope="col" className="px-4 py-2">E-mail</th>
-              <th scope="col" className="px-4 py-2">Status</th>
+              <th scope="col" className="px-4 py-2">
+                Supplier
+              </th>
+              <th scope="col" className="px-4 py-2">
+                Contact
+              </th>
+              <th scope="col" className="px-4 py-2">
+                E-mail
+              </th>
+              <th scope="col" className="px-4 py-2">
+                Status
+              </th>
             </tr>
           </thead>
           <tbody className="divide-y divide-gauge-100">

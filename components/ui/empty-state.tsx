@@ -14,7 +14,10 @@ export function EmptyState({ title, children, steps = [], testId = "empty-state"
         <ol className="space-y-2">
           {steps.map((step, i) => (
             <li key={step.key} className="flex gap-3 text-sm" data-testid={`setup-step-${step.key}`} data-done={step.done}>
-              <span aria-hidden className={`flex h-6 w-6 shrink-0 items-center justify-center rounded-full text-xs font-semibold ${step.done ? "bg-ok-50 text-ok-600" : "bg-gauge-100 text-gauge-700"}`}>
+              <span
+                aria-hidden
+                className={`flex h-6 w-6 shrink-0 items-center justify-center rounded-full text-xs font-semibold ${step.done ? "bg-ok-50 text-ok-600" : "bg-gauge-100 text-gauge-700"}`}
+              >
                 {step.done ? "✓" : i + 1}
               </span>
               <div>

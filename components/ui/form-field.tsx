@@ -42,10 +42,7 @@ export function FormField({
 /** A form-level message (success or failure), announced politely. */
 export function FormMessage({ kind, children }: { kind: "error" | "success"; children: React.ReactNode }) {
   return (
-    <div
-      role={kind === "error" ? "alert" : "status"}
-      className={`rounded-md px-3 py-2 text-sm ${kind === "error" ? "bg-fault-50 text-fault-700" : "bg-ok-50 text-ok-600"}`}
-    >
+    <div role={kind === "error" ? "alert" : "status"} className={`rounded-md px-3 py-2 text-sm ${kind === "error" ? "bg-fault-50 text-fault-700" : "bg-ok-50 text-ok-600"}`}>
       {children}
     </div>
   );

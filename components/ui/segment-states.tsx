@@ -10,9 +10,7 @@ export function DetailNotFound({ what, backHref, backLabel }: { what: string; ba
     <div className="card max-w-xl space-y-3 p-6" data-testid="detail-not-found">
       <p className="text-sm font-medium uppercase tracking-wide text-gauge-500">Not found</p>
       <h1 className="page-title">No such {what}</h1>
-      <p className="text-gauge-700">
-        The link may be mistyped or out of date, or the {what} belongs to another workspace. Nothing has changed.
-      </p>
+      <p className="text-gauge-700">The link may be mistyped or out of date, or the {what} belongs to another workspace. Nothing has changed.</p>
       <Link href={backHref} className="btn-primary inline-block">
         {backLabel}
       </Link>

@@ -10,5 +10,9 @@ const noSubscription = () => () => {};
  * disabled until it turns true.
  */
 export function useHydrated(): boolean {
-  return useSyncExternalStore(noSubscription, () => true, () => false);
+  return useSyncExternalStore(
+    noSubscription,
+    () => true,
+    () => false,
+  );
 }

@@ -21,5 +21,10 @@ export function listActivity({ workspaceId, subjectType, subjectId, limit = 50 }
   const where = [eq(activityLog.workspaceId, workspaceId)];
   if (subjectType) where.push(eq(activityLog.subjectType, subjectType));
   if (subjectId) where.push(eq(activityLog.subjectId, subjectId));
-  return db().select().from(activityLog).where(and(...where)).orderBy(desc(activityLog.id)).limit(limit);
+  return db()
+    .select()
+    .from(activityLog)
+    .where(and(...where))
+    .orderBy(desc(activityLog.id))
+    .limit(limit);
 }

@@ -91,7 +91,9 @@ export async function insertGalleryItem(tx: DbOrTx, row: NewGalleryItemRow): Pro
   return inserted.id;
 }
 
-export type GalleryItemPatch = Partial<Pick<NewGalleryItemRow, "caption" | "regions" | "defectClasses" | "grade" | "kind" | "rubricVersionId" | "status" | "publishedBy" | "publishedAt" | "retiredAt">>;
+export type GalleryItemPatch = Partial<
+  Pick<NewGalleryItemRow, "caption" | "regions" | "defectClasses" | "grade" | "kind" | "rubricVersionId" | "status" | "publishedBy" | "publishedAt" | "retiredAt">
+>;
 
 /** Writes `patch`, bumps the revision and stamps who and when (the caller holds the lock). */
 export async function updateGalleryItem(tx: DbOrTx, { workspaceId, itemId, actorId, patch }: ItemKey & { actorId: string; patch: GalleryItemPatch }) {
@@ -153,7 +155,10 @@ type ListRow = {
  * every item of the workspace for each page — and only those rows are joined.
  */
 export async function listGalleryItems({ workspaceId, filters, after, limit }: { workspaceId: string; filters: GalleryListFilters; after?: GalleryListKey; limit: number }) {
-  const statuses = sql.join(filters.statuses.map((s) => STATUS_LITERALS[s]), sql`, `);
+  const statuses = sql.join(
+    filters.statuses.map((s) => STATUS_LITERALS[s]),
+    sql`, `,
+  );
   const conditions = [
     filters.partTypeId ? sql`AND g.part_type_id = ${filters.partTypeId}::uuid` : sql``,
     filters.viewKey ? sql`AND g.view_key = ${filters.viewKey}` : sql``,
@@ -192,7 +197,16 @@ export async function listGalleryItems({ workspaceId, filters, after, limit }: {
     createdAt: r.created_at,
     updatedAt: r.updated_at,
     cursorAt: r.cursor_at,
-    photo: { id: r.photo_id, status: r.photo_status, width: r.width, height: r.height, previewWidth: r.preview_width, previewHeight: r.preview_height, thumbnailWidth: r.thumbnail_width, thumbnailHeight: r.thumbnail_height },
+    photo: {
+      id: r.photo_id,
+      status: r.photo_status,
+      width: r.width,
+      height: r.height,
+      previewWidth: r.preview_width,
+      previewHeight: r.preview_height,
+      thumbnailWidth: r.thumbnail_width,
+      thumbnailHeight: r.thumbnail_height,
+    },
   })) satisfies (GalleryCardRow & { cursorAt: string })[];
 }
 
@@ -200,16 +214,26 @@ export async function listGalleryItems({ workspaceId, filters, after, limit }: {
  * Published items of one part type and view for the Bench's reference panel, in the panel's
  * order (lib/gallery/rules.ts compareForReference): normal first, then A → Reject, then newest.
  */
-export function listReferenceItems({ workspaceId, partTypeId, viewKey, defectClass, limit, hideUnitsAwaitingRecheck }: { workspaceId: string; partTypeId: string; viewKey: string; defectClass?: string; limit: number; hideUnitsAwaitingRecheck?: boolean }) {
-  const where: (SQL | undefined)[] = [
-    eq(galleryItems.workspaceId, workspaceId),
-    eq(galleryItems.status, "published"),
-    eq(galleryItems.partTypeId, partTypeId),
-    eq(galleryItems.viewKey, viewKey),
-  ];
+export function listReferenceItems({
+  workspaceId,
+  partTypeId,
+  viewKey,
+  defectClass,
+  limit,
+  hideUnitsAwaitingRecheck,
+}: {
+  workspaceId: string;
+  partTypeId: string;
+  viewKey: string;
+  defectClass?: string;
+  limit: number;
+  hideUnitsAwaitingRecheck?: boolean;
+}) {
+  const where: (SQL | undefined)[] = [eq(galleryItems.workspaceId, workspaceId), eq(galleryItems.status, "published"), eq(galleryItems.partTypeId, partTypeId), eq(galleryItems.viewKey, viewKey)];
   // A class narrows the abnormal items to those showing it; normal items stay as the comparison.
   if (defectClass) where.push(or(eq(galleryItems.kind, "normal"), sql`${galleryItems.defectClasses} @> ARRAY[${defectClass}]::text[]`));
-  if (hideUnitsAwaitingRecheck) where.push(sql`NOT EXISTS (SELECT 1 FROM rechecks r WHERE r.workspace_id = ${galleryItems.workspaceId} AND r.unit_id = ${galleryItems.sourceUnitId} AND r.status = 'waiting')`);
+  if (hideUnitsAwaitingRecheck)
+    where.push(sql`NOT EXISTS (SELECT 1 FROM rechecks r WHERE r.workspace_id = ${galleryItems.workspaceId} AND r.unit_id = ${galleryItems.sourceUnitId} AND r.status = 'waiting')`);
   return selectCards(db())
     .where(and(...where))
     .orderBy(

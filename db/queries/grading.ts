@@ -36,22 +36,24 @@ export type GradingUnit = NonNullable<Awaited<ReturnType<typeof getUnitForGradin
 
 /** The unit's photos with their current region set versions (0 for a photo never annotated). */
 export function listUnitPhotoVersions({ workspaceId, unitId }: UnitKey, tx: DbOrTx = db()) {
-  return tx
-    .select({
-      photoId: photos.id,
-      viewKey: photos.viewKey,
-      status: photos.status,
-      width: photos.width,
-      height: photos.height,
-      fileName: photos.fileName,
-      createdAt: photos.createdAt,
-      regionsVersion: regionSets.version,
-    })
-    .from(photos)
-    .leftJoin(regionSets, and(eq(regionSets.photoId, photos.id), eq(regionSets.workspaceId, workspaceId)))
-    // A photo taken out of the unit (lib/photos/removal.ts) is no longer measured.
-    .where(and(eq(photos.workspaceId, workspaceId), eq(photos.unitId, unitId), isNull(photos.removedAt)))
-    .orderBy(asc(photos.createdAt), asc(photos.id));
+  return (
+    tx
+      .select({
+        photoId: photos.id,
+        viewKey: photos.viewKey,
+        status: photos.status,
+        width: photos.width,
+        height: photos.height,
+        fileName: photos.fileName,
+        createdAt: photos.createdAt,
+        regionsVersion: regionSets.version,
+      })
+      .from(photos)
+      .leftJoin(regionSets, and(eq(regionSets.photoId, photos.id), eq(regionSets.workspaceId, workspaceId)))
+      // A photo taken out of the unit (lib/photos/removal.ts) is no longer measured.
+      .where(and(eq(photos.workspaceId, workspaceId), eq(photos.unitId, unitId), isNull(photos.removedAt)))
+      .orderBy(asc(photos.createdAt), asc(photos.id))
+  );
 }
 
 export function listRegionsOfPhotos({ workspaceId, photoIds }: { workspaceId: string; photoIds: string[] }, tx: DbOrTx = db()) {
@@ -89,7 +91,15 @@ export async function insertMeasurementSet(
 ) {
   const [unitRow] = await tx
     .insert(measurements)
-    .values({ workspaceId: input.workspaceId, unitId: input.unitId, photoId: null, rubricVersionId: input.rubricVersionId, regionsVersions: input.regionsVersions, result: input.unit, createdBy: input.actorId })
+    .values({
+      workspaceId: input.workspaceId,
+      unitId: input.unitId,
+      photoId: null,
+      rubricVersionId: input.rubricVersionId,
+      regionsVersions: input.regionsVersions,
+      result: input.unit,
+      createdBy: input.actorId,
+    })
     .returning({ id: measurements.id, createdAt: measurements.createdAt });
   const photoRows = input.photos.length
     ? await tx
@@ -123,11 +133,7 @@ const unitMeasurementColumns = {
 };
 
 function selectUnitMeasurements(tx: DbOrTx) {
-  return tx
-    .select(unitMeasurementColumns)
-    .from(measurements)
-    .innerJoin(rubricVersions, eq(rubricVersions.id, measurements.rubricVersionId))
-    .leftJoin(users, eq(users.id, measurements.createdBy));
+  return tx.select(unitMeasurementColumns).from(measurements).innerJoin(rubricVersions, eq(rubricVersions.id, measurements.rubricVersionId)).leftJoin(users, eq(users.id, measurements.createdBy));
 }
 
 export async function getLatestUnitMeasurement({ workspaceId, unitId }: UnitKey, tx: DbOrTx = db()) {

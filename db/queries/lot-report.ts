@@ -41,7 +41,10 @@ export async function listLotReportPhotos({ workspaceId, lotId, unitIds }: LotKe
          FROM regions r WHERE r.workspace_id = p.workspace_id AND r.photo_id = p.id AND r.role IN ('defect', 'surface')) AS regions
     FROM photos p JOIN units u ON u.id = p.unit_id AND u.workspace_id = p.workspace_id
     WHERE p.workspace_id = ${workspaceId} AND u.lot_id = ${lotId} AND p.removed_at IS NULL AND p.status = 'ready'
-      AND p.unit_id IN (${sql.join(unitIds.map((id) => sql`${id}`), sql`, `)})
+      AND p.unit_id IN (${sql.join(
+        unitIds.map((id) => sql`${id}`),
+        sql`, `,
+      )})
       AND EXISTS (SELECT 1 FROM regions r WHERE r.workspace_id = p.workspace_id AND r.photo_id = p.id AND r.role = 'defect')
     ORDER BY u.sample_index, p.created_at, p.id`);
   return rows.map((r) => ({ photoId: r.id, unitId: r.unit_id, viewKey: r.view_key, previewKey: r.preview_key, width: r.width, height: r.height, regions: r.regions ?? [] }));

@@ -41,7 +41,10 @@ export async function lockLot(tx: DbOrTx, { workspaceId, lotId }: { workspaceId:
 
 /** Stores how the lot's sample was drawn (once, with its units). */
 export async function setLotSampleDraw(tx: DbOrTx, { workspaceId, lotId, seed, draw }: { workspaceId: string; lotId: string; seed: string | null; draw: SampleDraw }) {
-  await tx.update(lots).set({ sampleSeed: seed, sampleDraw: draw, updatedAt: new Date() }).where(and(eq(lots.workspaceId, workspaceId), eq(lots.id, lotId)));
+  await tx
+    .update(lots)
+    .set({ sampleSeed: seed, sampleDraw: draw, updatedAt: new Date() })
+    .where(and(eq(lots.workspaceId, workspaceId), eq(lots.id, lotId)));
 }
 
 export async function insertLot(tx: DbOrTx, values: NewLot) {
@@ -119,13 +122,23 @@ export async function loadLotEvidence({ workspaceId, lotIds }: { workspaceId: st
       .from(checklistResults)
       .innerJoin(units, eq(units.id, checklistResults.unitId))
       .where(and(eq(checklistResults.workspaceId, workspaceId), inArray(units.lotId, lotIds))),
-    tx.execute<{ unit_id: string; final_grade: Grade; lines: { ruleId: string; grade: Grade }[]; rubric_version_id: string; severities: Record<string, DefectSeverity> | null; labels: Record<string, string> | null }>(sql`
+    tx.execute<{
+      unit_id: string;
+      final_grade: Grade;
+      lines: { ruleId: string; grade: Grade }[];
+      rubric_version_id: string;
+      severities: Record<string, DefectSeverity> | null;
+      labels: Record<string, string> | null;
+    }>(sql`
       SELECT DISTINCT ON (g.unit_id) g.unit_id, g.final_grade, g.explanation->'lines' AS lines, g.rubric_version_id,
         m.result->'defectSeverities' AS severities, m.result->'labels'->'defects' AS labels
       FROM ${grades} g
       JOIN ${units} u ON u.id = g.unit_id
       LEFT JOIN ${measurements} m ON m.id = g.measurement_ids[1] AND m.workspace_id = g.workspace_id
-      WHERE g.workspace_id = ${workspaceId} AND u.workspace_id = ${workspaceId} AND u.lot_id IN (${sql.join(lotIds.map((id) => sql`${id}`), sql`, `)})
+      WHERE g.workspace_id = ${workspaceId} AND u.workspace_id = ${workspaceId} AND u.lot_id IN (${sql.join(
+        lotIds.map((id) => sql`${id}`),
+        sql`, `,
+      )})
       ORDER BY g.unit_id, g.created_at DESC, g.id DESC`),
     tx
       .selectDistinct({ partTypeId: rubricVersions.partTypeId })
@@ -135,12 +148,22 @@ export async function loadLotEvidence({ workspaceId, lotIds }: { workspaceId: st
   ]);
   const versionIds = [...new Set(gradeRows.rows.map((g) => g.rubric_version_id))];
   const versions = versionIds.length
-    ? await tx.select({ id: rubricVersions.id, rubric: rubricVersions.rubric }).from(rubricVersions).where(and(eq(rubricVersions.workspaceId, workspaceId), inArray(rubricVersions.id, versionIds)))
+    ? await tx
+        .select({ id: rubricVersions.id, rubric: rubricVersions.rubric })
+        .from(rubricVersions)
+        .where(and(eq(rubricVersions.workspaceId, workspaceId), inArray(rubricVersions.id, versionIds)))
     : [];
   return {
     units: unitRows,
     results: resultRows,
-    grades: gradeRows.rows.map((g) => ({ unitId: g.unit_id, finalGrade: g.final_grade, lines: g.lines ?? [], rubricVersionId: g.rubric_version_id, severities: g.severities ?? {}, labels: g.labels ?? {} })),
+    grades: gradeRows.rows.map((g) => ({
+      unitId: g.unit_id,
+      finalGrade: g.final_grade,
+      lines: g.lines ?? [],
+      rubricVersionId: g.rubric_version_id,
+      severities: g.severities ?? {},
+      labels: g.labels ?? {},
+    })),
     rubricRules: new Map(versions.map((v) => [v.id, v.rubric.rules])),
     gradedPartTypeIds: new Set(published.map((p) => p.partTypeId)),
   };
@@ -149,7 +172,15 @@ export async function loadLotEvidence({ workspaceId, lotIds }: { workspaceId: st
 /** A supplier + part type's decided lots in the order their verdicts were recorded. */
 export function listDecidedLots({ workspaceId, supplierId, partTypeId }: { workspaceId: string; supplierId: string; partTypeId: string }, tx: DbOrTx = db()) {
   return tx
-    .select({ id: lots.id, purchaseRef: lots.purchaseRef, inspectionSeverity: lots.inspectionSeverity, verdict: lots.verdict, plan: lots.plan, decisionCounts: lots.decisionCounts, decidedAt: lots.decidedAt })
+    .select({
+      id: lots.id,
+      purchaseRef: lots.purchaseRef,
+      inspectionSeverity: lots.inspectionSeverity,
+      verdict: lots.verdict,
+      plan: lots.plan,
+      decisionCounts: lots.decisionCounts,
+      decidedAt: lots.decidedAt,
+    })
     .from(lots)
     .where(and(eq(lots.workspaceId, workspaceId), eq(lots.supplierId, supplierId), eq(lots.partTypeId, partTypeId), eq(lots.status, "decided"), isNotNull(lots.verdict)))
     .orderBy(asc(lots.decidedAt), asc(lots.createdAt), asc(lots.id));

@@ -6,7 +6,11 @@ import { partTypes, type NewPartType } from "@/db/schema";
 export function listPartTypes({ workspaceId, active }: { workspaceId: string; active?: boolean }) {
   const where = [eq(partTypes.workspaceId, workspaceId)];
   if (active !== undefined) where.push(eq(partTypes.active, active));
-  return db().select().from(partTypes).where(and(...where)).orderBy(asc(partTypes.name));
+  return db()
+    .select()
+    .from(partTypes)
+    .where(and(...where))
+    .orderBy(asc(partTypes.name));
 }
 
 export async function getPartType({ workspaceId, partTypeId }: { workspaceId: string; partTypeId: string }, tx: DbOrTx = db()) {
@@ -24,7 +28,10 @@ export async function insertPartType(tx: DbOrTx, values: NewPartType) {
 }
 
 /** Undefined when the part type is not in this workspace. */
-export async function updatePartTypeFields(tx: DbOrTx, { workspaceId, partTypeId, fields }: { workspaceId: string; partTypeId: string; fields: Partial<Omit<NewPartType, "id" | "workspaceId" | "slug">> }) {
+export async function updatePartTypeFields(
+  tx: DbOrTx,
+  { workspaceId, partTypeId, fields }: { workspaceId: string; partTypeId: string; fields: Partial<Omit<NewPartType, "id" | "workspaceId" | "slug">> },
+) {
   const [row] = await tx
     .update(partTypes)
     .set({ ...fields, updatedAt: new Date() })
@@ -38,5 +45,16 @@ export function listPartTypesNamed(tx: DbOrTx, { workspaceId, slugs, names }: { 
   return tx
     .select({ slug: partTypes.slug, name: partTypes.name })
     .from(partTypes)
-    .where(and(eq(partTypes.workspaceId, workspaceId), or(inArray(partTypes.slug, slugs), inArray(sql`lower(${partTypes.name})`, names.map((n) => n.toLowerCase())))));
+    .where(
+      and(
+        eq(partTypes.workspaceId, workspaceId),
+        or(
+          inArray(partTypes.slug, slugs),
+          inArray(
+            sql`lower(${partTypes.name})`,
+            names.map((n) => n.toLowerCase()),
+          ),
+        ),
+      ),
+    );
 }

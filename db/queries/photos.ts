@@ -7,7 +7,8 @@ import "server-only";
 import { and, asc, desc, eq, inArray, isNotNull, isNull, ne, sql } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
 import { db, type DbOrTx } from "@/db/client";
-import { lots, partTypes, photos, regions, units, users, type NewPhoto, type Photo, type ViewDefinition } from "@/db/schema";
+import { lots, partTypes, photos, regions, units, users, type NewPhoto, type Photo } from "@/db/schema";
+import type { ViewDefinition } from "@/lib/part-types/schemas";
 
 export type UnitForPhotos = {
   id: string;
@@ -16,6 +17,7 @@ export type UnitForPhotos = {
   serial: string | null;
   sampleIndex: number;
   lotId: string;
+  lotStatus: (typeof lots.$inferSelect)["status"];
   purchaseRef: string;
   partType: { id: string; name: string; slug: string; category: string; views: ViewDefinition[] };
 };
@@ -29,6 +31,7 @@ export async function getUnitForPhotos({ workspaceId, unitId }: { workspaceId: s
       serial: units.serial,
       sampleIndex: units.sampleIndex,
       lotId: units.lotId,
+      lotStatus: lots.status,
       purchaseRef: lots.purchaseRef,
       partType: { id: partTypes.id, name: partTypes.name, slug: partTypes.slug, category: partTypes.category, views: partTypes.views },
     })
@@ -92,12 +95,18 @@ export async function listUnitPhotos({ workspaceId, unitId, removed = false }: {
 }
 
 export async function getPhotoWithContext({ workspaceId, photoId }: { workspaceId: string; photoId: string }, tx: DbOrTx = db()): Promise<PhotoWithContext | null> {
-  const [row] = await selectPhotos(tx).where(and(eq(photos.workspaceId, workspaceId), eq(photos.id, photoId))).limit(1);
+  const [row] = await selectPhotos(tx)
+    .where(and(eq(photos.workspaceId, workspaceId), eq(photos.id, photoId)))
+    .limit(1);
   return row ? withContext(row) : null;
 }
 
 export async function getPhoto({ workspaceId, photoId }: { workspaceId: string; photoId: string }, tx: DbOrTx = db()): Promise<Photo | null> {
-  const [row] = await tx.select().from(photos).where(and(eq(photos.workspaceId, workspaceId), eq(photos.id, photoId))).limit(1);
+  const [row] = await tx
+    .select()
+    .from(photos)
+    .where(and(eq(photos.workspaceId, workspaceId), eq(photos.id, photoId)))
+    .limit(1);
   return row ?? null;
 }
 
@@ -124,14 +133,7 @@ export async function findReuseCandidate({ workspaceId, unitId, sha256 }: { work
   const [row] = await tx
     .select({ id: photos.id, unitId: photos.unitId })
     .from(photos)
-    .where(
-      and(
-        eq(photos.workspaceId, workspaceId),
-        eq(photos.sha256, sha256),
-        ne(photos.unitId, unitId),
-        sql`${photos.originalKey} IS NOT NULL`,
-      ),
-    )
+    .where(and(eq(photos.workspaceId, workspaceId), eq(photos.sha256, sha256), ne(photos.unitId, unitId), sql`${photos.originalKey} IS NOT NULL`))
     .orderBy(asc(photos.createdAt))
     .limit(1);
   return row ?? null;
@@ -153,11 +155,7 @@ export async function updatePhotoView(tx: DbOrTx, { viewKey, ...key }: PhotoKey 
 
 /** Takes the photo out of its unit but keeps it (and its objects) as a record; false when already out. */
 export async function withdrawPhoto(tx: DbOrTx, { removedBy, reason, ...key }: PhotoKey & { removedBy: string; reason: string }): Promise<boolean> {
-  const rows = await tx
-    .update(photos)
-    .set({ removedAt: new Date(), removedBy, removalReason: reason, updatedAt: new Date() })
-    .where(currentPhoto(key))
-    .returning({ id: photos.id });
+  const rows = await tx.update(photos).set({ removedAt: new Date(), removedBy, removalReason: reason, updatedAt: new Date() }).where(currentPhoto(key)).returning({ id: photos.id });
   return rows.length > 0;
 }
 
@@ -189,14 +187,33 @@ export async function listSamplePhotos({ workspaceId, partTypeId, viewKey, limit
     .from(photos)
     .innerJoin(units, and(eq(units.id, photos.unitId), eq(units.workspaceId, workspaceId)))
     .innerJoin(lots, and(eq(lots.id, units.lotId), eq(lots.workspaceId, workspaceId)))
-    .where(and(eq(photos.workspaceId, workspaceId), eq(units.partTypeId, partTypeId), eq(photos.viewKey, viewKey), eq(photos.status, "ready"), isNotNull(photos.previewWidth), isNotNull(photos.previewHeight), isNull(photos.removedAt)))
+    .where(
+      and(
+        eq(photos.workspaceId, workspaceId),
+        eq(units.partTypeId, partTypeId),
+        eq(photos.viewKey, viewKey),
+        eq(photos.status, "ready"),
+        isNotNull(photos.previewWidth),
+        isNotNull(photos.previewHeight),
+        isNull(photos.removedAt),
+      ),
+    )
     .orderBy(desc(photos.createdAt), desc(photos.id))
     .limit(limit);
   const surfaces = rows.length
     ? await db()
         .select({ photoId: regions.photoId, id: regions.clientId, shape: regions.shape })
         .from(regions)
-        .where(and(eq(regions.workspaceId, workspaceId), inArray(regions.photoId, rows.map((r) => r.id)), eq(regions.role, "surface")))
+        .where(
+          and(
+            eq(regions.workspaceId, workspaceId),
+            inArray(
+              regions.photoId,
+              rows.map((r) => r.id),
+            ),
+            eq(regions.role, "surface"),
+          ),
+        )
     : [];
   const samples = rows.map((row) => ({ ...row, surfaces: surfaces.filter((s) => s.photoId === row.id).map((s) => ({ id: s.id, shape: s.shape })) }));
   // A stable sort: the newest-first order is kept within each group.

@@ -95,7 +95,19 @@ export type QueuePageRow = {
  * sort key `from`: after it, or, `backwards`, the ones just before it (for a previous page). Rows
  * come back in Take next order either way. No OFFSET, so deep pages cost the same as the first.
  */
-export async function listQueuePage({ workspaceId, filters, from, backwards = false, limit }: { workspaceId: string; filters: QueueFilters; from: QueueKey | null; backwards?: boolean; limit: number }): Promise<QueuePageRow[]> {
+export async function listQueuePage({
+  workspaceId,
+  filters,
+  from,
+  backwards = false,
+  limit,
+}: {
+  workspaceId: string;
+  filters: QueueFilters;
+  from: QueueKey | null;
+  backwards?: boolean;
+  limit: number;
+}): Promise<QueuePageRow[]> {
   const keyset = from
     ? sql`AND (u.lot_due_on, u.lot_received_on, u.lot_created_at, u.lot_id, u.sample_index, u.id)
           ${sql.raw(backwards ? "<" : ">")} (${from.dueOn}::date, ${from.receivedOn}::date, ${from.lotCreatedAt}::timestamptz, ${from.lotId}::uuid, ${from.sampleIndex}, ${from.id}::uuid)`

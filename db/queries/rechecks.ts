@@ -6,7 +6,23 @@ import "server-only";
  */
 import { and, asc, desc, eq, gte, inArray, isNull, lte, sql } from "drizzle-orm";
 import { db, executePrepared, type DbOrTx } from "@/db/client";
-import { checklistResults, graderDayCounts, grades, lots, partTypes, photos, recheckDraws, recheckRegionSets, rechecks, rubricVersions, unitOpenings, units, users, workspaces, type NewRecheckRow } from "@/db/schema";
+import {
+  checklistResults,
+  graderDayCounts,
+  grades,
+  lots,
+  partTypes,
+  photos,
+  recheckDraws,
+  recheckRegionSets,
+  rechecks,
+  rubricVersions,
+  unitOpenings,
+  units,
+  users,
+  workspaces,
+  type NewRecheckRow,
+} from "@/db/schema";
 import type { RecheckDrawInputRecord, RecheckDrawOutcome } from "@/db/schema/recheck";
 import type { RegionSetPayload } from "@/lib/geometry/validate";
 import type { RecheckSettings } from "@/lib/recheck/settings";
@@ -36,7 +52,10 @@ export function listGraderInspectionGrades({ workspaceId, graderId, since }: Sco
 /** Of these grades, the ones that already have a recheck (drawn or sent by hand). */
 export async function listRecheckedGradeIds({ workspaceId, gradeIds }: Scope & { gradeIds: string[] }, tx: DbOrTx = db()) {
   if (gradeIds.length === 0) return [];
-  const rows = await tx.select({ gradeId: rechecks.gradeId }).from(rechecks).where(and(eq(rechecks.workspaceId, workspaceId), inArray(rechecks.gradeId, gradeIds)));
+  const rows = await tx
+    .select({ gradeId: rechecks.gradeId })
+    .from(rechecks)
+    .where(and(eq(rechecks.workspaceId, workspaceId), inArray(rechecks.gradeId, gradeIds)));
   return rows.map((row) => row.gradeId);
 }
 
@@ -55,12 +74,24 @@ export async function listActiveUserIdsWithRoles({ workspaceId, roles }: Scope &
   const rows = await tx
     .select({ id: users.id })
     .from(users)
-    .where(and(eq(users.workspaceId, workspaceId), eq(users.active, true), sql`${users.roles} && ${sql`ARRAY[${sql.join(roles.map((r) => sql`${r}`), sql`, `)}]::text[]`}`))
+    .where(
+      and(
+        eq(users.workspaceId, workspaceId),
+        eq(users.active, true),
+        sql`${users.roles} && ${sql`ARRAY[${sql.join(
+          roles.map((r) => sql`${r}`),
+          sql`, `,
+        )}]::text[]`}`,
+      ),
+    )
     .orderBy(asc(users.id));
   return rows.map((row) => row.id);
 }
 
-export async function insertRecheckDraw(tx: DbOrTx, row: { workspaceId: string; trigger: "grade_recorded" | "scheduled"; triggerGradeId: string | null; seed: string; algorithm: string; input: RecheckDrawInputRecord; outcome: RecheckDrawOutcome }) {
+export async function insertRecheckDraw(
+  tx: DbOrTx,
+  row: { workspaceId: string; trigger: "grade_recorded" | "scheduled"; triggerGradeId: string | null; seed: string; algorithm: string; input: RecheckDrawInputRecord; outcome: RecheckDrawOutcome },
+) {
   const [inserted] = await tx.insert(recheckDraws).values(row).returning({ id: recheckDraws.id });
   return inserted;
 }
@@ -82,7 +113,12 @@ export function insertRechecks(tx: DbOrTx, rows: Omit<NewRecheckRow, "firstGrade
 }
 
 export function getRecheckDraw({ workspaceId, drawId }: Scope & { drawId: string }, tx: DbOrTx = db()) {
-  return tx.select().from(recheckDraws).where(and(eq(recheckDraws.workspaceId, workspaceId), eq(recheckDraws.id, drawId))).limit(1).then((rows) => rows[0]);
+  return tx
+    .select()
+    .from(recheckDraws)
+    .where(and(eq(recheckDraws.workspaceId, workspaceId), eq(recheckDraws.id, drawId)))
+    .limit(1)
+    .then((rows) => rows[0]);
 }
 
 /** The unit's current grade row (the last one) with its grader; undefined when ungraded. */
@@ -215,7 +251,10 @@ export function listHeldRechecks({ workspaceId, auditorId }: Scope & { auditorId
 }
 
 export async function countWaitingRechecks({ workspaceId }: Scope, tx: DbOrTx = db()) {
-  const [row] = await tx.select({ n: sql<number>`count(*)::int` }).from(rechecks).where(and(eq(rechecks.workspaceId, workspaceId), eq(rechecks.status, "waiting")));
+  const [row] = await tx
+    .select({ n: sql<number>`count(*)::int` })
+    .from(rechecks)
+    .where(and(eq(rechecks.workspaceId, workspaceId), eq(rechecks.status, "waiting")));
   return row.n;
 }
 
@@ -236,7 +275,10 @@ export function listRecheckRegionSets({ workspaceId, recheckId }: Scope & { rech
  * Saves the auditor's set on one photo when it is still at `baseVersion` (0: none yet). Returns
  * the new version, or null when another save came first.
  */
-export async function saveRecheckRegionSet(tx: DbOrTx, { workspaceId, recheckId, photoId, payload, baseVersion, userId }: Scope & { recheckId: string; photoId: string; payload: RegionSetPayload; baseVersion: number; userId: string }) {
+export async function saveRecheckRegionSet(
+  tx: DbOrTx,
+  { workspaceId, recheckId, photoId, payload, baseVersion, userId }: Scope & { recheckId: string; photoId: string; payload: RegionSetPayload; baseVersion: number; userId: string },
+) {
   if (baseVersion === 0) {
     const rows = await tx
       .insert(recheckRegionSets)
@@ -261,7 +303,16 @@ export async function getBlindUnit({ workspaceId, unitId }: Scope & { unitId: st
     .select({
       id: units.id,
       serial: units.serial,
-      partType: { id: partTypes.id, name: partTypes.name, category: partTypes.category, views: partTypes.views, defectClasses: partTypes.defectClasses, checklist: partTypes.checklist, nominalSizeMm: partTypes.nominalSizeMm, panelResolution: partTypes.panelResolution },
+      partType: {
+        id: partTypes.id,
+        name: partTypes.name,
+        category: partTypes.category,
+        views: partTypes.views,
+        defectClasses: partTypes.defectClasses,
+        checklist: partTypes.checklist,
+        nominalSizeMm: partTypes.nominalSizeMm,
+        panelResolution: partTypes.panelResolution,
+      },
     })
     .from(units)
     .innerJoin(partTypes, eq(partTypes.id, units.partTypeId))
@@ -289,20 +340,32 @@ export function listChecklistReadings({ workspaceId, unitId }: Scope & { unitId:
 }
 
 export async function getRubricVersionNumber({ workspaceId, rubricVersionId }: Scope & { rubricVersionId: string }, tx: DbOrTx = db()) {
-  const [row] = await tx.select({ version: rubricVersions.version, rubric: rubricVersions.rubric }).from(rubricVersions).where(and(eq(rubricVersions.workspaceId, workspaceId), eq(rubricVersions.id, rubricVersionId))).limit(1);
+  const [row] = await tx
+    .select({ version: rubricVersions.version, rubric: rubricVersions.rubric })
+    .from(rubricVersions)
+    .where(and(eq(rubricVersions.workspaceId, workspaceId), eq(rubricVersions.id, rubricVersionId)))
+    .limit(1);
   return row;
 }
 
 /** The rechecked grade's final grade (read on submission, never shown before it). */
 export async function getFirstGradeOfRecheck({ workspaceId, gradeId }: Scope & { gradeId: string }, tx: DbOrTx = db()) {
-  const [row] = await tx.select({ id: grades.id, finalGrade: grades.finalGrade, gradedBy: grades.gradedBy }).from(grades).where(and(eq(grades.workspaceId, workspaceId), eq(grades.id, gradeId))).limit(1);
+  const [row] = await tx
+    .select({ id: grades.id, finalGrade: grades.finalGrade, gradedBy: grades.gradedBy })
+    .from(grades)
+    .where(and(eq(grades.workspaceId, workspaceId), eq(grades.id, gradeId)))
+    .limit(1);
   return row;
 }
 
 /** Stores the auditor's submission and ends their lease, in one statement. */
 export async function storeRecheckSubmission(
   tx: DbOrTx,
-  input: Scope & Pick<NewRecheckRow, "auditorId" | "measurement" | "proposedGrade" | "recheckGrade" | "overrideReason" | "notBlind" | "comparison" | "adjudicationReasons"> & { recheckId: string; status: "adjudication" | "agreed" },
+  input: Scope &
+    Pick<NewRecheckRow, "auditorId" | "measurement" | "proposedGrade" | "recheckGrade" | "overrideReason" | "notBlind" | "comparison" | "adjudicationReasons"> & {
+      recheckId: string;
+      status: "adjudication" | "agreed";
+    },
 ) {
   const { workspaceId, recheckId, ...fields } = input;
   await tx
@@ -346,29 +409,63 @@ export async function getGradeForAdjudication({ workspaceId, gradeId }: Scope & 
 
 export async function userNames({ workspaceId, ids }: Scope & { ids: string[] }, tx: DbOrTx = db()) {
   if (ids.length === 0) return new Map<string, string>();
-  const rows = await tx.select({ id: users.id, name: users.name }).from(users).where(and(eq(users.workspaceId, workspaceId), inArray(users.id, ids)));
+  const rows = await tx
+    .select({ id: users.id, name: users.name })
+    .from(users)
+    .where(and(eq(users.workspaceId, workspaceId), inArray(users.id, ids)));
   return new Map(rows.map((row) => [row.id, row.name]));
 }
 
 export async function getLotStatus({ workspaceId, lotId }: Scope & { lotId: string }, tx: DbOrTx = db()) {
-  const [row] = await tx.select({ status: lots.status }).from(lots).where(and(eq(lots.workspaceId, workspaceId), eq(lots.id, lotId))).limit(1);
+  const [row] = await tx
+    .select({ status: lots.status })
+    .from(lots)
+    .where(and(eq(lots.workspaceId, workspaceId), eq(lots.id, lotId)))
+    .limit(1);
   return row;
 }
 
 export async function settleRecheck(
   tx: DbOrTx,
-  { workspaceId, recheckId, adjudicatedBy, choice, reason, gradeId, grade, decidedLotAffected }: Scope & { recheckId: string; adjudicatedBy: string; choice: "first" | "recheck" | "own"; reason: string; gradeId: string; grade: Grade; decidedLotAffected: boolean },
+  {
+    workspaceId,
+    recheckId,
+    adjudicatedBy,
+    choice,
+    reason,
+    gradeId,
+    grade,
+    decidedLotAffected,
+  }: Scope & { recheckId: string; adjudicatedBy: string; choice: "first" | "recheck" | "own"; reason: string; gradeId: string; grade: Grade; decidedLotAffected: boolean },
 ) {
   await tx
     .update(rechecks)
-    .set({ status: "settled", adjudicatedBy, adjudicationChoice: choice, adjudicationReason: reason, adjudicationGradeId: gradeId, adjudicatedGrade: grade, adjudicatedAt: sql`now()`, decidedLotAffected })
+    .set({
+      status: "settled",
+      adjudicatedBy,
+      adjudicationChoice: choice,
+      adjudicationReason: reason,
+      adjudicationGradeId: gradeId,
+      adjudicatedGrade: grade,
+      adjudicatedAt: sql`now()`,
+      decidedLotAffected,
+    })
     .where(and(eq(rechecks.workspaceId, workspaceId), eq(rechecks.id, recheckId)));
 }
 
 /** Rechecks waiting for adjudication, oldest first, with the unit's serial and part type. */
 export function listWaitingAdjudications({ workspaceId }: Scope, tx: DbOrTx = db()) {
   return tx
-    .select({ id: rechecks.id, unitId: rechecks.unitId, serial: units.serial, partTypeName: partTypes.name, firstGraderId: rechecks.firstGraderId, auditorId: rechecks.auditorId, submittedAt: rechecks.submittedAt, reasons: rechecks.adjudicationReasons })
+    .select({
+      id: rechecks.id,
+      unitId: rechecks.unitId,
+      serial: units.serial,
+      partTypeName: partTypes.name,
+      firstGraderId: rechecks.firstGraderId,
+      auditorId: rechecks.auditorId,
+      submittedAt: rechecks.submittedAt,
+      reasons: rechecks.adjudicationReasons,
+    })
     .from(rechecks)
     .innerJoin(units, eq(units.id, rechecks.unitId))
     .innerJoin(partTypes, eq(partTypes.id, units.partTypeId))

@@ -16,22 +16,77 @@ import { gradedUnitFilterSql, lotFilterSql } from "./reports";
  */
 
 export type LotExportRow = {
-  lot_id: string; purchase_ref: string; supplier: string; part_type: string; model_family: string; quantity: number; received_on: string; due_on: string;
-  inspection_level: string; inspection_severity: string; sample_size: number; promised_grade: string; status: string; verdict: string | null; disposition: string | null;
-  disposition_reason: string | null; decided_by: string | null; decided_at: string | null; units_sampled: number; units_graded: number;
+  lot_id: string;
+  purchase_ref: string;
+  supplier: string;
+  part_type: string;
+  model_family: string;
+  quantity: number;
+  received_on: string;
+  due_on: string;
+  inspection_level: string;
+  inspection_severity: string;
+  sample_size: number;
+  promised_grade: string;
+  status: string;
+  verdict: string | null;
+  disposition: string | null;
+  disposition_reason: string | null;
+  decided_by: string | null;
+  decided_at: string | null;
+  units_sampled: number;
+  units_graded: number;
 };
 export type UnitExportRow = {
-  unit_id: string; lot_id: string; purchase_ref: string; supplier: string; part_type: string; sample_index: number; serial: string | null; status: string;
-  grade: string | null; grade_kind: string | null; rubric_version: number | null; graded_by: string | null; graded_at: string | null; checklist_failed: number;
+  unit_id: string;
+  lot_id: string;
+  purchase_ref: string;
+  supplier: string;
+  part_type: string;
+  sample_index: number;
+  serial: string | null;
+  status: string;
+  grade: string | null;
+  grade_kind: string | null;
+  rubric_version: number | null;
+  graded_by: string | null;
+  graded_at: string | null;
+  checklist_failed: number;
 };
 export type GradeExportRow = {
-  grade_id: string; unit_id: string; serial: string | null; purchase_ref: string; part_type: string; kind: string; proposed_grade: string; final_grade: string;
-  override_reason: string | null; rubric_version: number; graded_by: string; created_at: string;
+  grade_id: string;
+  unit_id: string;
+  serial: string | null;
+  purchase_ref: string;
+  part_type: string;
+  kind: string;
+  proposed_grade: string;
+  final_grade: string;
+  override_reason: string | null;
+  rubric_version: number;
+  graded_by: string;
+  created_at: string;
 };
 export type DefectExportRow = {
-  region_id: string; unit_id: string; serial: string | null; lot_id: string; purchase_ref: string; supplier: string; part_type: string; photo_id: string; view: string;
-  defect_class: string; shape: Shape; px_per_mm: number | null; calibration: string | null;
-  class_px: number | null; class_share: number | null; class_count: number | null; class_area_mm2: number | null; class_max_length_mm: number | null; measured_at: string | null;
+  region_id: string;
+  unit_id: string;
+  serial: string | null;
+  lot_id: string;
+  purchase_ref: string;
+  supplier: string;
+  part_type: string;
+  photo_id: string;
+  view: string;
+  defect_class: string;
+  shape: Shape;
+  px_per_mm: number | null;
+  calibration: string | null;
+  class_px: number | null;
+  class_share: number | null;
+  class_count: number | null;
+  class_area_mm2: number | null;
+  class_max_length_mm: number | null;
+  measured_at: string | null;
 };
 export type ExportRow = { lots: LotExportRow; units: UnitExportRow; grades: GradeExportRow; defects: DefectExportRow };
 
@@ -103,7 +158,11 @@ const dialect = new PgDialect({ casing: "snake_case" });
  * The export's rows, `batchSize` at a time from a cursor on a connection of its own. Stopping the
  * iteration early (a download cancelled) closes the cursor and gives the connection back.
  */
-export async function* exportRows<K extends ExportKind>(kind: K, scope: { workspaceId: string; filter: ReportFilter; timeZone: string; hideUnitsAwaitingRecheck?: boolean }, batchSize = 500): AsyncGenerator<ExportRow[K]> {
+export async function* exportRows<K extends ExportKind>(
+  kind: K,
+  scope: { workspaceId: string; filter: ReportFilter; timeZone: string; hideUnitsAwaitingRecheck?: boolean },
+  batchSize = 500,
+): AsyncGenerator<ExportRow[K]> {
   const { sql: text, params } = dialect.sqlToQuery(exportQuery(kind, scope.workspaceId, scope.filter, scope.timeZone, scope.hideUnitsAwaitingRecheck ?? false));
   const client = await pool().connect();
   const cursor = client.query(new Cursor<ExportRow[K]>(text, params as unknown[]));

@@ -56,7 +56,19 @@ export type ReportLotRow = {
 export async function listReportLots({ workspaceId, filter, page, pageSize }: { workspaceId: string; filter: ReportFilter; page: number; pageSize: number }, tx: DbOrTx = db()) {
   const where = lotFilterSql(workspaceId, filter);
   const [{ rows }, { rows: counted }] = await Promise.all([
-    tx.execute<{ id: string; purchase_ref: string; supplier_name: string; part_type_name: string; received_on: string; quantity: number; sample_size: number; status: "open" | "decided"; verdict: "accept" | "reject" | null; disposition: string | null; units_graded: number }>(sql`
+    tx.execute<{
+      id: string;
+      purchase_ref: string;
+      supplier_name: string;
+      part_type_name: string;
+      received_on: string;
+      quantity: number;
+      sample_size: number;
+      status: "open" | "decided";
+      verdict: "accept" | "reject" | null;
+      disposition: string | null;
+      units_graded: number;
+    }>(sql`
       SELECT l.id, l.purchase_ref, s.name AS supplier_name, pt.name AS part_type_name, l.received_on::text AS received_on, l.quantity,
         (l.plan->>'sampleSize')::int AS sample_size, l.status, l.verdict, l.disposition,
         (SELECT count(*)::int FROM units u WHERE u.workspace_id = l.workspace_id AND u.lot_id = l.id AND u.graded_at IS NOT NULL) AS units_graded
@@ -101,7 +113,16 @@ export type ScorecardLotRow = {
  * after merging overlaps, the measurement's own count), so a redrawn region never counts twice.
  */
 export async function listScorecardLots({ workspaceId, filter }: { workspaceId: string; filter: ReportFilter }, tx: DbOrTx = db()): Promise<ScorecardLotRow[]> {
-  const { rows } = await tx.execute<{ id: string; supplier_id: string; received_on: string; status: "open" | "decided"; verdict: "accept" | "reject" | null; decision_counts: LotDecisionCounts | null; inspected: number; classes: Record<string, { units: number; defects: number }> | null }>(sql`
+  const { rows } = await tx.execute<{
+    id: string;
+    supplier_id: string;
+    received_on: string;
+    status: "open" | "decided";
+    verdict: "accept" | "reject" | null;
+    decision_counts: LotDecisionCounts | null;
+    inspected: number;
+    classes: Record<string, { units: number; defects: number }> | null;
+  }>(sql`
     -- A decided lot always has a verdict when the app decides it (lib/lots); rows written otherwise are left out.
     WITH filtered AS (SELECT l.* FROM lots l WHERE ${lotFilterSql(workspaceId, filter)} AND (l.status = 'open' OR l.verdict IS NOT NULL)),
     current_grades AS (

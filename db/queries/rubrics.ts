@@ -108,10 +108,7 @@ export async function lockPartType(tx: DbOrTx, { workspaceId, partTypeId }: Part
   return row;
 }
 
-export async function insertRubricVersion(
-  tx: DbOrTx,
-  row: PartTypeKey & { version: number; rubric: Rubric; basedOnVersion: number | null; actorId: string | null; status?: "draft" | "published" },
-) {
+export async function insertRubricVersion(tx: DbOrTx, row: PartTypeKey & { version: number; rubric: Rubric; basedOnVersion: number | null; actorId: string | null; status?: "draft" | "published" }) {
   const published = row.status === "published";
   const [inserted] = await tx
     .insert(rubricVersions)

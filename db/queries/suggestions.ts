@@ -130,8 +130,15 @@ export type NewModel = Omit<typeof suggestionModels.$inferInsert, "id" | "versio
  * use (the previous one is switched out first: the partial unique index allows one).
  */
 export async function insertModel(tx: DbOrTx, workspaceId: string, values: NewModel, switchIn: boolean) {
-  const [{ latest }] = await tx.select({ latest: max(suggestionModels.version) }).from(suggestionModels).where(eq(suggestionModels.workspaceId, workspaceId));
-  if (switchIn) await tx.update(suggestionModels).set({ inUse: false }).where(and(eq(suggestionModels.workspaceId, workspaceId), eq(suggestionModels.inUse, true)));
+  const [{ latest }] = await tx
+    .select({ latest: max(suggestionModels.version) })
+    .from(suggestionModels)
+    .where(eq(suggestionModels.workspaceId, workspaceId));
+  if (switchIn)
+    await tx
+      .update(suggestionModels)
+      .set({ inUse: false })
+      .where(and(eq(suggestionModels.workspaceId, workspaceId), eq(suggestionModels.inUse, true)));
   const [row] = await tx
     .insert(suggestionModels)
     .values({ ...values, workspaceId, version: (latest ?? 0) + 1, inUse: switchIn })

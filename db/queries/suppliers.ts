@@ -9,7 +9,11 @@ export function listSuppliers({ workspaceId, search }: { workspaceId: string; se
     const pattern = `%${search.replace(/[%_\\]/g, (c) => `\\${c}`)}%`;
     where.push(or(ilike(suppliers.name, pattern), ilike(suppliers.contactEmail, pattern))!);
   }
-  return db().select().from(suppliers).where(and(...where)).orderBy(asc(sql`lower(${suppliers.name})`));
+  return db()
+    .select()
+    .from(suppliers)
+    .where(and(...where))
+    .orderBy(asc(sql`lower(${suppliers.name})`));
 }
 
 export async function getSupplier({ workspaceId, supplierId }: { workspaceId: string; supplierId: string }, tx: DbOrTx = db()) {

@@ -51,7 +51,19 @@ export type ClaimedUnit = { id: string; lotId: string; serial: string | null; sa
  * given `holderId`'s lease (as `status`) and logged — one statement, atomic on its own. Null when
  * no free row was found (the caller decides whether to look again). A prepared statement.
  */
-export async function claimNextQueued({ workspaceId, holderId, filters, status, leaseSeconds }: { workspaceId: string; holderId: string; filters: QueueFilters; status: UnitStatus; leaseSeconds: number }): Promise<ClaimedUnit | null> {
+export async function claimNextQueued({
+  workspaceId,
+  holderId,
+  filters,
+  status,
+  leaseSeconds,
+}: {
+  workspaceId: string;
+  holderId: string;
+  filters: QueueFilters;
+  status: UnitStatus;
+  leaseSeconds: number;
+}): Promise<ClaimedUnit | null> {
   const { rows } = await executePrepared<{ id: string; lot_id: string; serial: string | null; sample_index: number; part_type_id: string; lease_expires_at: Date }>(sql`
     WITH next AS (${queuedInTakeNextOrder(workspaceId, filters, sql`AND ${ASYNC_COMMIT}`)}
       FOR UPDATE OF u SKIP LOCKED

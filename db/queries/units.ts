@@ -7,7 +7,10 @@ import type { DEFECT_SEVERITIES, DefectSeverity } from "@/lib/part-types/severit
 const holders = aliasedTable(users, "lease_holders");
 /** db/ takes lib's values only as types: this copy must equal lib/part-types/severity.ts (order included) or it does not compile. */
 const SEVERITIES_WORST_FIRST = ["critical", "major", "minor"] as const satisfies typeof DEFECT_SEVERITIES;
-const severityRankSql = sql`ARRAY[${sql.join(SEVERITIES_WORST_FIRST.map((s) => sql`${s}`), sql`, `)}]::text[]`;
+const severityRankSql = sql`ARRAY[${sql.join(
+  SEVERITIES_WORST_FIRST.map((s) => sql`${s}`),
+  sql`, `,
+)}]::text[]`;
 
 /** A lot's units in sample order, with how far each checklist got. */
 export function listLotUnits({ workspaceId, lotId }: { workspaceId: string; lotId: string }) {
@@ -23,13 +26,18 @@ export function listLotUnits({ workspaceId, lotId }: { workspaceId: string; lotI
       recorded: sql<number>`(SELECT count(*)::int FROM ${checklistResults} WHERE ${checklistResults.unitId} = ${units.id})`,
       failed: sql<number>`(SELECT count(*)::int FROM ${checklistResults} WHERE ${checklistResults.unitId} = ${units.id} AND NOT ${checklistResults.passed})`,
       worstFailure: sql<DefectSeverity | null>`(SELECT ${checklistResults.severityOnFail} FROM ${checklistResults} WHERE ${checklistResults.unitId} = ${units.id} AND NOT ${checklistResults.passed} ORDER BY array_position(${severityRankSql}, ${checklistResults.severityOnFail}) LIMIT 1)`,
-      grade: sql<"A" | "B" | "C" | "Reject" | null>`(SELECT ${grades.finalGrade} FROM ${grades} WHERE ${grades.unitId} = ${units.id} AND ${grades.workspaceId} = ${units.workspaceId} ORDER BY ${grades.createdAt} DESC, ${grades.id} DESC LIMIT 1)`,
+      grade: sql<
+        "A" | "B" | "C" | "Reject" | null
+      >`(SELECT ${grades.finalGrade} FROM ${grades} WHERE ${grades.unitId} = ${units.id} AND ${grades.workspaceId} = ${units.workspaceId} ORDER BY ${grades.createdAt} DESC, ${grades.id} DESC LIMIT 1)`,
     })
     .from(units)
     .leftJoin(holders, eq(holders.id, units.leaseHolderId))
     .where(and(eq(units.workspaceId, workspaceId), eq(units.lotId, lotId)))
     .orderBy(asc(units.sampleIndex));
 }
+
+/** One row of a lot's unit list (the Lot screen's table reads this type). */
+export type LotUnitRow = Awaited<ReturnType<typeof listLotUnits>>[number];
 
 export async function countLotUnits({ workspaceId, lotId }: { workspaceId: string; lotId: string }, tx: DbOrTx = db()) {
   const [row] = await tx
@@ -62,18 +70,19 @@ export async function getUnitDetail({ workspaceId, unitId }: { workspaceId: stri
 /**
  * The unit row, locked for the rest of the transaction: the one lock every change of a unit takes
  * first (status, lease, checklist, regions, serial, grades), so they serialise and never
- * deadlock. With the lease holder's name, and whether the lease is still running by the
- * database's clock (the clock every lease is granted by: ./unit-status.ts). Undefined when the
+ * deadlock. With its lot's status, the lease holder's name, and whether the lease is still running by the
+ * database's clock (what lib/units/editability.ts reads) (the clock every lease is granted by: ./unit-status.ts). Undefined when the
  * unit is not in this workspace.
  */
 export async function lockUnit(tx: DbOrTx, { workspaceId, unitId }: { workspaceId: string; unitId: string }) {
   const [row] = await tx
-    .select({ unit: units, leaseHolderName: holders.name, leaseRunning: sql<boolean>`coalesce(${units.leaseExpiresAt} > now(), false)` })
+    .select({ unit: units, lotStatus: lots.status, leaseHolderName: holders.name, leaseRunning: sql<boolean>`coalesce(${units.leaseExpiresAt} > now(), false)` })
     .from(units)
+    .innerJoin(lots, and(eq(lots.workspaceId, units.workspaceId), eq(lots.id, units.lotId)))
     .leftJoin(holders, eq(holders.id, units.leaseHolderId))
     .where(and(eq(units.workspaceId, workspaceId), eq(units.id, unitId)))
     .for("update", { of: units });
-  return row && { ...row.unit, leaseHolderName: row.leaseHolderName, leaseRunning: row.leaseRunning };
+  return row && { ...row.unit, lotStatus: row.lotStatus, leaseHolderName: row.leaseHolderName, leaseRunning: row.leaseRunning };
 }
 export type LockedUnit = NonNullable<Awaited<ReturnType<typeof lockUnit>>>;
 

@@ -1,7 +1,7 @@
 import "server-only";
-import { and, asc, eq, sql, type Placeholder } from "drizzle-orm";
+import { and, asc, eq, lt, sql, type Placeholder } from "drizzle-orm";
 import { db, preparedStatementsAllowed, type DbOrTx } from "@/db/client";
-import { outgoingEmails, revokedSessions, users, workspaces, type User } from "@/db/schema";
+import { outgoingEmails, revokedSessions, users, workspaces, type NewUser, type User } from "@/db/schema";
 import type { Role } from "@/lib/auth/roles";
 
 /** The columns safe to send to a browser (never the password hash). */
@@ -82,7 +82,10 @@ function sessionUserSelect(database: ReturnType<typeof db>, sessionId: Placehold
 }
 
 function prepareSessionUserQuery(database: ReturnType<typeof db>) {
-  return sessionUserSelect(database, sql.placeholder("sessionId")).where(eq(users.id, sql.placeholder("userId"))).limit(1).prepare("session_user");
+  return sessionUserSelect(database, sql.placeholder("sessionId"))
+    .where(eq(users.id, sql.placeholder("userId")))
+    .limit(1)
+    .prepare("session_user");
 }
 
 /** What a request needs to know about its session's user (and whether it was signed out), in one query. */
@@ -100,11 +103,7 @@ export async function getSessionUser({ userId, sessionId }: { userId: string; se
 const NO_SESSION_ID = "00000000-0000-0000-0000-000000000000";
 
 export function listPeople({ workspaceId }: { workspaceId: string }) {
-  return db()
-    .select(publicUserColumns)
-    .from(users)
-    .where(eq(users.workspaceId, workspaceId))
-    .orderBy(asc(users.name)) as unknown as Promise<PublicUser[]>;
+  return db().select(publicUserColumns).from(users).where(eq(users.workspaceId, workspaceId)).orderBy(asc(users.name)) as unknown as Promise<PublicUser[]>;
 }
 
 export async function getPerson({ workspaceId, userId }: { workspaceId: string; userId: string }): Promise<PublicUser | undefined> {
@@ -131,4 +130,50 @@ export async function recordSignIn({ userId }: { userId: string }) {
 /** Sign-out: the session id stops working at once, everywhere its cookie may have been copied to. */
 export async function revokeSession({ sessionId, userId, expiresAt }: { sessionId: string; userId: string; expiresAt: Date }) {
   await db().insert(revokedSessions).values({ sessionId, userId, expiresAt }).onConflictDoNothing();
+}
+
+export async function insertUser(tx: DbOrTx, values: NewUser) {
+  const [row] = await tx.insert(users).values(values).returning({ id: users.id, email: users.email });
+  return row;
+}
+
+/** Sets the password and ends the account's other sessions (their token version no longer matches). */
+export async function setUserPassword(tx: DbOrTx, { userId, passwordHash }: { userId: string; passwordHash: string }) {
+  await tx
+    .update(users)
+    .set({ passwordHash, tokenVersion: sql`${users.tokenVersion} + 1`, updatedAt: new Date() })
+    .where(eq(users.id, userId));
+}
+
+/** The member's row, locked for the rest of the transaction (undefined when not in the workspace). */
+export async function lockUserInWorkspace(tx: DbOrTx, { workspaceId, userId }: { workspaceId: string; userId: string }) {
+  const [row] = await tx
+    .select()
+    .from(users)
+    .where(and(eq(users.workspaceId, workspaceId), eq(users.id, userId)))
+    .for("update")
+    .limit(1);
+  return row;
+}
+
+/** Locks every lead row of the workspace, so two leads demoting each other cannot both succeed. */
+export async function lockWorkspaceLeads(tx: DbOrTx, { workspaceId }: { workspaceId: string }) {
+  await tx.execute(sql`SELECT id FROM users WHERE workspace_id = ${workspaceId} AND 'lead' = ANY(roles) FOR UPDATE`);
+}
+
+/** Edits a member; `endSessions` bumps the token version so their open sessions end on the next request. */
+export async function updateUserFields(
+  tx: DbOrTx,
+  { workspaceId, userId, fields, endSessions }: { workspaceId: string; userId: string; fields: Partial<Pick<NewUser, "name" | "roles" | "active">>; endSessions: boolean },
+) {
+  await tx
+    .update(users)
+    .set({ ...fields, ...(endSessions && { tokenVersion: sql`${users.tokenVersion} + 1` }), updatedAt: new Date() })
+    .where(and(eq(users.workspaceId, workspaceId), eq(users.id, userId)));
+}
+
+/** Revocations whose cookie has expired anyway; returns how many went. */
+export async function deleteRevokedSessionsExpiredBefore(before: Date): Promise<number> {
+  const rows = await db().delete(revokedSessions).where(lt(revokedSessions.expiresAt, before)).returning({ id: revokedSessions.sessionId });
+  return rows.length;
 }

@@ -1,7 +1,7 @@
 import "server-only";
 import { eq, sql } from "drizzle-orm";
 import { db, type DbOrTx } from "@/db/client";
-import { workspaces } from "@/db/schema";
+import { workspaces, type NewWorkspace } from "@/db/schema";
 
 export async function getWorkspace({ workspaceId }: { workspaceId: string }, tx: DbOrTx = db()) {
   const [row] = await tx.select({ id: workspaces.id, name: workspaces.name, timeZone: workspaces.timeZone }).from(workspaces).where(eq(workspaces.id, workspaceId)).limit(1);
@@ -28,3 +28,8 @@ export async function getSetupCounts({ workspaceId }: { workspaceId: string }, t
   return { partTypes: r.part_types, publishedRubrics: r.published_rubrics, draftRubrics: r.draft_rubrics, suppliers: r.suppliers, people: r.people, lots: r.lots, units: r.units };
 }
 export type SetupCounts = Awaited<ReturnType<typeof getSetupCounts>>;
+
+export async function insertWorkspace(tx: DbOrTx, values: NewWorkspace) {
+  const [row] = await tx.insert(workspaces).values(values).returning();
+  return row;
+}

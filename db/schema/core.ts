@@ -1,19 +1,5 @@
 import { sql } from "drizzle-orm";
-import {
-  bigserial,
-  boolean,
-  check,
-  index,
-  integer,
-  jsonb,
-  pgTable,
-  primaryKey,
-  text,
-  timestamp,
-  unique,
-  uniqueIndex,
-  uuid,
-} from "drizzle-orm/pg-core";
+import { bigserial, boolean, check, index, integer, jsonb, pgTable, primaryKey, text, timestamp, unique, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import type { RecheckSettings } from "@/lib/recheck/settings";
 import { sameWorkspace } from "./workspace-keys";
 
@@ -53,16 +39,15 @@ export const users = pgTable(
     // Sign-in is by e-mail alone, so only one account per address may have a password. An
     // invitation (no password yet) may name an address in use elsewhere: inviting answers the
     // same for every address, and such an invitation simply cannot be accepted (lib/people).
-    uniqueIndex("users_email_key").on(t.email).where(sql`${t.passwordHash} IS NOT NULL`),
+    uniqueIndex("users_email_key")
+      .on(t.email)
+      .where(sql`${t.passwordHash} IS NOT NULL`),
     uniqueIndex("users_workspace_email_key").on(t.workspaceId, t.email),
     // The target of the composite (workspace_id, id) foreign keys: a row can only name a user of its own workspace.
     unique("users_workspace_id_key").on(t.workspaceId, t.id),
     index("users_workspace_idx").on(t.workspaceId),
     check("users_email_lower", sql`${t.email} = lower(${t.email})`),
-    check(
-      "users_roles_valid",
-      sql`cardinality(${t.roles}) > 0 AND ${t.roles} <@ ARRAY['inspector','trainer','auditor','lead']::text[]`,
-    ),
+    check("users_roles_valid", sql`cardinality(${t.roles}) > 0 AND ${t.roles} <@ ARRAY['inspector','trainer','auditor','lead']::text[]`),
   ],
 );
 
@@ -84,7 +69,9 @@ export const authTokens = pgTable(
   (t) => [
     index("auth_tokens_user_idx").on(t.userId),
     // Only the newest link of a purpose works: issuing one voids the others (lib/auth/tokens.ts).
-    uniqueIndex("auth_tokens_live_key").on(t.userId, t.purpose).where(sql`${t.usedAt} IS NULL`),
+    uniqueIndex("auth_tokens_live_key")
+      .on(t.userId, t.purpose)
+      .where(sql`${t.usedAt} IS NULL`),
     sameWorkspace("auth_tokens_user_fk", t.workspaceId, t.userId, users),
   ],
 );
@@ -100,7 +87,10 @@ export const signUpRequests = pgTable("sign_up_requests", {
   companyName: text().notNull(),
   name: text().notNull(),
   /** The starter part types chosen on the form, created with the workspace (lib/part-types/starters.ts). */
-  starterPartTypes: text().array().notNull().default(sql`'{}'::text[]`),
+  starterPartTypes: text()
+    .array()
+    .notNull()
+    .default(sql`'{}'::text[]`),
   tokenHash: text().notNull().unique(),
   expiresAt: timestamp({ withTimezone: true }).notNull(),
   usedAt: timestamp({ withTimezone: true }),
@@ -147,10 +137,7 @@ export const activityLog = pgTable(
     detail: jsonb().$type<Record<string, unknown>>().notNull().default({}),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [
-    index("activity_log_workspace_idx").on(t.workspaceId, t.createdAt),
-    sameWorkspace("activity_log_actor_fk", t.workspaceId, t.actorId, users),
-  ],
+  (t) => [index("activity_log_workspace_idx").on(t.workspaceId, t.createdAt), sameWorkspace("activity_log_actor_fk", t.workspaceId, t.actorId, users)],
 );
 
 export const suppliers = pgTable(

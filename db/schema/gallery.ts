@@ -40,7 +40,10 @@ export const galleryItems = pgTable(
     /** The item's own regions, in the photo's upright original pixels (the canvas's payload). */
     regions: jsonb().$type<RegionSetPayload>().notNull(),
     /** The defect classes its regions show, kept in step by every save (for the filters). */
-    defectClasses: text().array().notNull().default(sql`'{}'::text[]`),
+    defectClasses: text()
+      .array()
+      .notNull()
+      .default(sql`'{}'::text[]`),
     grade: text({ enum: GRADE_VALUES }).notNull(),
     /** The published rubric version the grade was judged under (null: none was published then). */
     rubricVersionId: uuid(),
@@ -59,7 +62,9 @@ export const galleryItems = pgTable(
     // The browsing list: newest first within a workspace, keyset on (created_at, id); filters are checked on the way.
     index("gallery_items_list_idx").on(t.workspaceId, t.createdAt.desc(), t.id.desc()),
     // The Bench's reference panel: published items of one part type and view.
-    index("gallery_items_reference_idx").on(t.workspaceId, t.partTypeId, t.viewKey).where(sql`${t.status} = 'published'`),
+    index("gallery_items_reference_idx")
+      .on(t.workspaceId, t.partTypeId, t.viewKey)
+      .where(sql`${t.status} = 'published'`),
     index("gallery_items_defect_classes_idx").using("gin", t.defectClasses),
     index("gallery_items_photo_idx").on(t.workspaceId, t.photoId),
     check("gallery_items_revision_nonnegative", sql`${t.revision} >= 0`),

@@ -44,13 +44,12 @@ export const rubricVersions = pgTable(
   (t) => [
     uniqueIndex("rubric_versions_part_type_version_key").on(t.partTypeId, t.version),
     // One draft per part type at a time: trainers share it, so nobody edits a stale copy.
-    uniqueIndex("rubric_versions_one_draft_key").on(t.partTypeId).where(sql`${t.status} = 'draft'`),
+    uniqueIndex("rubric_versions_one_draft_key")
+      .on(t.partTypeId)
+      .where(sql`${t.status} = 'draft'`),
     index("rubric_versions_workspace_idx").on(t.workspaceId, t.partTypeId),
     check("rubric_versions_version_positive", sql`${t.version} >= 1`),
-    check(
-      "rubric_versions_published_fields",
-      sql`(${t.status} = 'published') = (${t.publishedAt} IS NOT NULL)`,
-    ),
+    check("rubric_versions_published_fields", sql`(${t.status} = 'published') = (${t.publishedAt} IS NOT NULL)`),
     unique("rubric_versions_workspace_id_key").on(t.workspaceId, t.id),
     sameWorkspace("rubric_versions_part_type_fk", t.workspaceId, t.partTypeId, partTypes),
     sameWorkspace("rubric_versions_created_by_fk", t.workspaceId, t.createdBy, users),
@@ -133,14 +132,13 @@ export const grades = pgTable(
     unique("grades_workspace_id_key").on(t.workspaceId, t.id),
     // The recheck draw reads one grader's grades of the week as each grade is recorded.
     index("grades_grader_idx").on(t.workspaceId, t.gradedBy, t.createdAt),
-    uniqueIndex("grades_unit_idempotency_key").on(t.unitId, t.idempotencyKey).where(sql`${t.idempotencyKey} IS NOT NULL`),
+    uniqueIndex("grades_unit_idempotency_key")
+      .on(t.unitId, t.idempotencyKey)
+      .where(sql`${t.idempotencyKey} IS NOT NULL`),
     sameWorkspace("grades_unit_fk", t.workspaceId, t.unitId, units),
     sameWorkspace("grades_rubric_version_fk", t.workspaceId, t.rubricVersionId, rubricVersions),
     sameWorkspace("grades_graded_by_fk", t.workspaceId, t.gradedBy, users),
-    check(
-      "grades_override_reason",
-      sql`${t.finalGrade} = ${t.proposedGrade} OR (${t.overrideReason} IS NOT NULL AND length(btrim(${t.overrideReason})) > 0)`,
-    ),
+    check("grades_override_reason", sql`${t.finalGrade} = ${t.proposedGrade} OR (${t.overrideReason} IS NOT NULL AND length(btrim(${t.overrideReason})) > 0)`),
     check("grades_override_kind_reason", sql`${t.kind} <> 'override' OR (${t.overrideReason} IS NOT NULL AND length(btrim(${t.overrideReason})) > 0)`),
   ],
 );

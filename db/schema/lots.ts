@@ -1,21 +1,17 @@
 import { sql } from "drizzle-orm";
 import { boolean, check, date, index, integer, jsonb, pgTable, real, text, timestamp, unique, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import { suppliers, users, workspaces } from "./core";
+import type { ChecklistItem, DefectClassDefinition, ViewDefinition } from "@/lib/part-types/schemas";
 import type { DefectSeverity } from "@/lib/part-types/severity";
+import type { ChecklistValue } from "@/lib/units/schemas";
 import { sameWorkspace } from "./workspace-keys";
 
 /**
- * Shapes of the JSON columns. Their zod schemas (the source of truth for validation) live in
- * lib/part-types and lib/lots; these types keep the columns honest in TypeScript.
+ * Shapes of the JSON columns. Where a request writes the column, its type is read from the zod
+ * schema that validates the request (lib/part-types/schemas.ts, lib/units/schemas.ts), so the row
+ * and the API speak one type. The plan, the decision counts and the draw are computed by the
+ * server (lib/lots), never sent, so they are declared here.
  */
-export type ZoneDefinition = { id: string; label: string; /** Polygon in 0..1 coordinates of the Surface bounding box. */ polygon: [number, number][] };
-export type ViewDefinition = { key: string; label: string; required: boolean; instructions?: string; zones: ZoneDefinition[] };
-export type DefectClassDefinition = { key: string; label: string; severity: DefectSeverity };
-export type ChecklistItem =
-  | { id: string; label: string; kind: "pass_fail"; severityOnFail: DefectSeverity; caution?: string }
-  | { id: string; label: string; kind: "numeric"; unit: string; min: number | null; max: number | null; decimals: number; severityOnFail: DefectSeverity; caution?: string; /** A reading below this sets the part aside as suspect (stronger than failing). */ suspectBelow?: number | null }
-  | { id: string; label: string; kind: "choice"; options: { value: string; label: string; passes: boolean }[]; severityOnFail: DefectSeverity; caution?: string };
-
 /** What a lot's sampling decided, stored with the lot so later table changes never rewrite it. */
 export type StoredSamplingPlan = {
   standard: "ISO 2859-1 single sampling";
@@ -36,8 +32,7 @@ export type LotDecisionCounts = Record<DefectSeverity, { found: number; inspecte
 
 /** How the lot's sampled units were made: drawn from a serial list (reproducible) or numbered placeholders. */
 export type SampleDraw =
-  | { source: "serials"; poolSize: number; poolSha256: string; seed: string; algorithm: string; drawnAt: string; drawnBy: string }
-  | { source: "placeholders"; drawnAt: string; drawnBy: string };
+  { source: "serials"; poolSize: number; poolSha256: string; seed: string; algorithm: string; drawnAt: string; drawnBy: string } | { source: "placeholders"; drawnAt: string; drawnBy: string };
 
 export const partTypes = pgTable(
   "part_types",
@@ -61,7 +56,9 @@ export const partTypes = pgTable(
     /** High-value parts: every unit is inspected. */
     inspectAll: boolean().notNull().default(false),
     /** The cosmetic grade lots of this part type are bought at unless the supplier says otherwise. */
-    promisedGrade: text({ enum: ["A", "B", "C"] }).notNull().default("A"),
+    promisedGrade: text({ enum: ["A", "B", "C"] })
+      .notNull()
+      .default("A"),
     active: boolean().notNull().default(true),
     createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
@@ -97,13 +94,17 @@ export const lots = pgTable(
      * The cosmetic grade the purchase promised: a unit graded worse is a cosmetic nonconformity.
      * Receiving a lot always sets it (lib/lots/lots.ts); the default only serves direct inserts.
      */
-    promisedGrade: text({ enum: ["A", "B", "C"] }).notNull().default("A"),
+    promisedGrade: text({ enum: ["A", "B", "C"] })
+      .notNull()
+      .default("A"),
     plan: jsonb().$type<StoredSamplingPlan>().notNull(),
     /** Seed of the random draw of sampled serials, so the draw can be reproduced. */
     sampleSeed: text(),
     /** Where the units came from (set once, when they are created). */
     sampleDraw: jsonb().$type<SampleDraw>(),
-    status: text({ enum: ["open", "decided"] }).notNull().default("open"),
+    status: text({ enum: ["open", "decided"] })
+      .notNull()
+      .default("open"),
     verdict: text({ enum: ["accept", "reject"] }),
     disposition: text({ enum: ["to_stock", "downgrade", "sort", "return_to_vendor"] }),
     dispositionReason: text(),
@@ -160,7 +161,9 @@ export const units = pgTable(
   },
   (t) => [
     uniqueIndex("units_lot_sample_key").on(t.lotId, t.sampleIndex),
-    uniqueIndex("units_lot_serial_key").on(t.lotId, t.serial).where(sql`${t.serial} IS NOT NULL`),
+    uniqueIndex("units_lot_serial_key")
+      .on(t.lotId, t.serial)
+      .where(sql`${t.serial} IS NOT NULL`),
     index("units_queue_idx").on(t.workspaceId, t.status, t.lotDueOn, t.lotReceivedOn, t.lotCreatedAt, t.lotId, t.sampleIndex, t.id),
     index("units_lot_idx").on(t.lotId, t.sampleIndex),
     // The queue list walks waiting and on-bench units in Take next order (keyset pages).
@@ -182,9 +185,13 @@ export const units = pgTable(
       .on(t.workspaceId, t.supplierId, t.lotDueOn, t.lotReceivedOn, t.lotCreatedAt, t.lotId, t.sampleIndex, t.id)
       .where(sql`${t.status} IN ('queued', 'on_bench')`),
     // Take next finds expired leases without walking every running one.
-    index("units_lease_expiry_idx").on(t.workspaceId, t.leaseExpiresAt).where(sql`${t.status} = 'on_bench'`),
+    index("units_lease_expiry_idx")
+      .on(t.workspaceId, t.leaseExpiresAt)
+      .where(sql`${t.status} = 'on_bench'`),
     // The queue's "graded today" and 30-day median read recent grades only, not the whole history.
-    index("units_graded_idx").on(t.workspaceId, t.gradedAt).where(sql`${t.gradedAt} IS NOT NULL`),
+    index("units_graded_idx")
+      .on(t.workspaceId, t.gradedAt)
+      .where(sql`${t.gradedAt} IS NOT NULL`),
     unique("units_workspace_id_key").on(t.workspaceId, t.id),
     sameWorkspace("units_lot_fk", t.workspaceId, t.lotId, lots),
     sameWorkspace("units_part_type_fk", t.workspaceId, t.partTypeId, partTypes),
@@ -232,7 +239,7 @@ export const checklistResults = pgTable(
     unitId: uuid().notNull(),
     itemId: text().notNull(),
     /** { pass: boolean } | { reading: number } | { choice: string } */
-    value: jsonb().$type<{ pass: boolean } | { reading: number } | { choice: string }>().notNull(),
+    value: jsonb().$type<ChecklistValue>().notNull(),
     passed: boolean().notNull(),
     /** Why it failed, in words ("3.12 V is below the minimum 3.40 V"). */
     failureReason: text(),

@@ -121,7 +121,9 @@ export const rechecks = pgTable(
   (t) => [
     uniqueIndex("rechecks_grade_key").on(t.gradeId),
     // Take next for rechecks walks the waiting ones oldest first.
-    index("rechecks_waiting_idx").on(t.workspaceId, t.createdAt, t.id).where(sql`${t.status} = 'waiting'`),
+    index("rechecks_waiting_idx")
+      .on(t.workspaceId, t.createdAt, t.id)
+      .where(sql`${t.status} = 'waiting'`),
     index("rechecks_unit_idx").on(t.workspaceId, t.unitId),
     index("rechecks_grader_idx").on(t.workspaceId, t.firstGraderId, t.createdAt),
     // The scorecards read a period's submitted rechecks by when the rechecked grade was recorded.

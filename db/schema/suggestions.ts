@@ -54,7 +54,9 @@ export const suggestionModels = pgTable(
   (t) => [
     unique("suggestion_models_workspace_id_key").on(t.workspaceId, t.id),
     unique("suggestion_models_workspace_version_key").on(t.workspaceId, t.version),
-    uniqueIndex("suggestion_models_one_in_use_idx").on(t.workspaceId).where(sql`${t.inUse}`),
+    uniqueIndex("suggestion_models_one_in_use_idx")
+      .on(t.workspaceId)
+      .where(sql`${t.inUse}`),
     check("suggestion_models_version_positive", sql`${t.version} >= 1`),
     sameWorkspace("suggestion_models_requested_by_fk", t.workspaceId, t.requestedBy, users),
   ],
@@ -86,7 +88,9 @@ export const suggestionDecisions = pgTable(
   },
   (t) => [
     index("suggestion_decisions_photo_idx").on(t.workspaceId, t.photoId),
-    index("suggestion_decisions_dismissed_idx").on(t.workspaceId, t.decidedAt).where(sql`${t.decision} = 'dismissed'`),
+    index("suggestion_decisions_dismissed_idx")
+      .on(t.workspaceId, t.decidedAt)
+      .where(sql`${t.decision} = 'dismissed'`),
     check("suggestion_decisions_score_range", sql`${t.score} >= 0 AND ${t.score} <= 1`),
     // A photo that is deleted (never marked, so the deletion gate let it go) takes its decisions with it: nothing is left to learn from.
     sameWorkspace("suggestion_decisions_photo_fk", t.workspaceId, t.photoId, photos).onDelete("cascade"),

@@ -25,14 +25,48 @@ import { renderAnnotatedPartPhoto, type PlantedDefect } from "./photo-art";
 
 /** Per part type: the examples to make, as [view, planted defects]; the first is the normal one. */
 const EXAMPLES: Record<string, [string, PlantedDefect[]][]> = {
-  "rear-camera": [["front", []], ["front", ["scratch"]], ["front", ["dust"]], ["lens", ["dust"]]],
-  "front-camera": [["front", []], ["front", ["scratch"]], ["front", ["chip"]]],
-  battery: [["front", []], ["front", ["dent"]], ["back", ["swelling"]]],
-  "back-housing": [["front", []], ["front", ["crack"]], ["front", ["scratch"]], ["back", ["stain"]]],
-  display: [["front", []], ["front", ["scratch"]], ["screen-white", ["dead-pixel"]]],
-  "charging-flex": [["front", []], ["front", ["corrosion"]], ["back", ["torn-flex"]]],
-  "button-flex": [["front", []], ["front", ["torn-flex"]], ["front", ["stain"]]],
-  loudspeaker: [["front", []], ["front", ["dent"]], ["front", ["dust"]]],
+  "rear-camera": [
+    ["front", []],
+    ["front", ["scratch"]],
+    ["front", ["dust"]],
+    ["lens", ["dust"]],
+  ],
+  "front-camera": [
+    ["front", []],
+    ["front", ["scratch"]],
+    ["front", ["chip"]],
+  ],
+  battery: [
+    ["front", []],
+    ["front", ["dent"]],
+    ["back", ["swelling"]],
+  ],
+  "back-housing": [
+    ["front", []],
+    ["front", ["crack"]],
+    ["front", ["scratch"]],
+    ["back", ["stain"]],
+  ],
+  display: [
+    ["front", []],
+    ["front", ["scratch"]],
+    ["screen-white", ["dead-pixel"]],
+  ],
+  "charging-flex": [
+    ["front", []],
+    ["front", ["corrosion"]],
+    ["back", ["torn-flex"]],
+  ],
+  "button-flex": [
+    ["front", []],
+    ["front", ["torn-flex"]],
+    ["front", ["stain"]],
+  ],
+  loudspeaker: [
+    ["front", []],
+    ["front", ["dent"]],
+    ["front", ["dust"]],
+  ],
 };
 
 /** Planted marks named as the part types name their classes. */
@@ -59,7 +93,15 @@ async function judge(partType: SeedPartType, viewKey: string, photo: Awaited<Ret
   const known = new Set(partType.defectClasses.map((d) => d.key));
   const defects = photo.regions.map((r, i) => ({ id: `d${i + 1}`, defect: CLASS_OF[r.defect] ?? r.defect, shape: r.shape })).filter((r) => known.has(r.defect));
   const box = photo.surface as Extract<Shape, { kind: "rect" }>;
-  const surface: PolygonShape = { kind: "polygon", points: [[box.x, box.y], [box.x + box.width, box.y], [box.x + box.width, box.y + box.height], [box.x, box.y + box.height]] };
+  const surface: PolygonShape = {
+    kind: "polygon",
+    points: [
+      [box.x, box.y],
+      [box.x + box.width, box.y],
+      [box.x + box.width, box.y + box.height],
+      [box.x, box.y + box.height],
+    ],
+  };
   const regions: RegionSetPayload = { regions: defects, surfaces: [{ id: "surface", shape: surface }], ruler: null };
   const measured = await measureUnit({
     partType: { views: partType.views, defectClasses: partType.defectClasses, nominalSizeMm: partType.nominalSizeMm, panelResolution: partType.panelResolution },
@@ -101,7 +143,15 @@ export async function seedGallery({ workspaceSlugs = ["vellmoor"] }: { workspace
         const photo = await renderAnnotatedPartPhoto({ kind: `${partType.slug} ${partType.category}`, viewKey, defects: planted, seed: 4242 + items * 37 });
         const { regions, grade, caption } = await judge(partType, viewKey, photo, rubric);
         const kind = regions.regions.length ? "abnormal" : "normal";
-        const intent = await createGalleryUploadIntent(trainer, { partTypeId: partType.id, viewKey, kind, grade, fileName: `gallery-${partType.slug}-${index + 1}.jpg`, contentType: "image/jpeg", bytes: photo.jpeg.length });
+        const intent = await createGalleryUploadIntent(trainer, {
+          partTypeId: partType.id,
+          viewKey,
+          kind,
+          grade,
+          fileName: `gallery-${partType.slug}-${index + 1}.jpg`,
+          contentType: "image/jpeg",
+          bytes: photo.jpeg.length,
+        });
         const put = await fetch(intent.upload.url, { method: "PUT", headers: intent.upload.headers, body: new Uint8Array(photo.jpeg) });
         if (!put.ok) throw new Error(`the photo store refused the demo gallery upload (${put.status})`);
         const done = await finaliseGalleryUpload(trainer, { ticket: intent.ticket }, { dispatch: "inline" });

@@ -15,7 +15,9 @@ export async function seedPartTypes(database: Database, people: People): Promise
         .insert(partTypes)
         .values(PART_TYPE_CATALOGUE.map((p) => ({ ...p, workspaceId: ws.workspaceId })))
         .returning({ id: partTypes.id, slug: partTypes.slug });
-      await tx.insert(activityLog).values({ workspaceId: ws.workspaceId, actorId: null, action: "part_types.seeded", subjectType: "workspace", subjectId: ws.workspaceId, detail: { demo: true, count: rows.length } });
+      await tx
+        .insert(activityLog)
+        .values({ workspaceId: ws.workspaceId, actorId: null, action: "part_types.seeded", subjectType: "workspace", subjectId: ws.workspaceId, detail: { demo: true, count: rows.length } });
       result[workspaceSlug] = Object.fromEntries(rows.map((r) => [r.slug, r.id]));
     }
   });

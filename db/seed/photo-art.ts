@@ -23,7 +23,6 @@ export type PartPhotoSpec = {
   height?: number;
 };
 
-
 /** The renders' generator: xorshift32, as the seed has always drawn with. */
 const random = xorshift32;
 
@@ -48,21 +47,30 @@ function drawCamera(W: number, H: number, view: string): Drawn {
   const b = box(W, H, view === "lens" ? 0.5 : 0.32, 0.8);
   const cx = b.x + b.w / 2;
   const cy = b.y + b.h * 0.45;
-  const lens = view === "back" ? "" : `<circle cx="${cx}" cy="${cy}" r="${b.w * 0.3}" fill="#111" stroke="#777" stroke-width="${b.w * 0.03}"/><circle cx="${cx}" cy="${cy}" r="${b.w * 0.18}" fill="url(#glass)"/><circle cx="${cx - b.w * 0.07}" cy="${cy - b.w * 0.07}" r="${b.w * 0.04}" fill="#fff" opacity="0.5"/>`;
+  const lens =
+    view === "back"
+      ? ""
+      : `<circle cx="${cx}" cy="${cy}" r="${b.w * 0.3}" fill="#111" stroke="#777" stroke-width="${b.w * 0.03}"/><circle cx="${cx}" cy="${cy}" r="${b.w * 0.18}" fill="url(#glass)"/><circle cx="${cx - b.w * 0.07}" cy="${cy - b.w * 0.07}" r="${b.w * 0.04}" fill="#fff" opacity="0.5"/>`;
   const tail = view === "connector" || view === "back" ? flexTail(cx - b.w * 0.1, b.y + b.h, b.w * 0.2, H * 0.12) : "";
   return { svg: `${tail}${rect(b, b.w * 0.06, 'fill="#3d4147" stroke="#1d1f22" stroke-width="4"')}${lens}`, surface: b };
 }
 
 function drawBattery(W: number, H: number, view: string): Drawn {
   const b = box(W, H, 0.36, 1.45);
-  const label = view === "front" ? `<rect x="${b.x + b.w * 0.12}" y="${b.y + b.h * 0.3}" width="${b.w * 0.76}" height="${b.h * 0.25}" fill="#e8e4da"/><text x="${b.x + b.w / 2}" y="${b.y + b.h * 0.45}" font-family="sans-serif" font-size="${b.w * 0.08}" text-anchor="middle" fill="#333">Li-ion 3.85 V</text>` : "";
+  const label =
+    view === "front"
+      ? `<rect x="${b.x + b.w * 0.12}" y="${b.y + b.h * 0.3}" width="${b.w * 0.76}" height="${b.h * 0.25}" fill="#e8e4da"/><text x="${b.x + b.w / 2}" y="${b.y + b.h * 0.45}" font-family="sans-serif" font-size="${b.w * 0.08}" text-anchor="middle" fill="#333">Li-ion 3.85 V</text>`
+      : "";
   const tab = view === "connector" || view === "front" ? flexTail(b.x + b.w * 0.62, b.y - H * 0.09, b.w * 0.14, H * 0.09) : "";
   return { svg: `${rect(b, b.w * 0.05, 'fill="#23252a" stroke="#111" stroke-width="4"')}${label}${tab}`, surface: b };
 }
 
 function drawHousing(W: number, H: number, view: string): Drawn {
   const b = box(W, H, 0.34, 2.0);
-  const bump = view === "back" ? "" : `<rect x="${b.x + b.w * 0.08}" y="${b.y + b.h * 0.04}" width="${b.w * 0.34}" height="${b.w * 0.34}" rx="${b.w * 0.06}" fill="#50535a"/><circle cx="${b.x + b.w * 0.25}" cy="${b.y + b.h * 0.04 + b.w * 0.17}" r="${b.w * 0.08}" fill="#111"/>`;
+  const bump =
+    view === "back"
+      ? ""
+      : `<rect x="${b.x + b.w * 0.08}" y="${b.y + b.h * 0.04}" width="${b.w * 0.34}" height="${b.w * 0.34}" rx="${b.w * 0.06}" fill="#50535a"/><circle cx="${b.x + b.w * 0.25}" cy="${b.y + b.h * 0.04 + b.w * 0.17}" r="${b.w * 0.08}" fill="#111"/>`;
   return { svg: `${rect(b, b.w * 0.14, `fill="${view === "back" ? "#8d9299" : "#5f7d94"}" stroke="#2c3a45" stroke-width="5"`)}${bump}`, surface: b };
 }
 
@@ -78,21 +86,39 @@ function drawDisplay(W: number, H: number, view: string): Drawn {
   const b = box(W, H, 0.34, 2.05);
   const screen = { x: b.x + b.w * 0.05, y: b.y + b.h * 0.035, w: b.w * 0.9, h: b.h * 0.93 };
   if (view === "back") return { svg: `${rect(b, b.w * 0.12, 'fill="#9aa0a6" stroke="#55595e" stroke-width="5"')}${flexTail(b.x + b.w * 0.4, b.y + b.h * 0.55, b.w * 0.2, b.h * 0.5)}`, surface: b };
-  if (view === "connector") return { svg: `${rect(b, b.w * 0.12, 'fill="#9aa0a6" stroke="#55595e" stroke-width="5"')}${flexTail(b.x + b.w * 0.4, b.y + b.h * 0.7, b.w * 0.2, b.h * 0.35)}`, surface: b };
-  const fill = view === "screen-white" ? `<rect x="${screen.x}" y="${screen.y}" width="${screen.w}" height="${screen.h}" fill="#f7f7f5"/>` : view === "screen-black" ? `<rect x="${screen.x}" y="${screen.y}" width="${screen.w}" height="${screen.h}" fill="#050505"/>` : testPattern(screen);
+  if (view === "connector")
+    return { svg: `${rect(b, b.w * 0.12, 'fill="#9aa0a6" stroke="#55595e" stroke-width="5"')}${flexTail(b.x + b.w * 0.4, b.y + b.h * 0.7, b.w * 0.2, b.h * 0.35)}`, surface: b };
+  const fill =
+    view === "screen-white"
+      ? `<rect x="${screen.x}" y="${screen.y}" width="${screen.w}" height="${screen.h}" fill="#f7f7f5"/>`
+      : view === "screen-black"
+        ? `<rect x="${screen.x}" y="${screen.y}" width="${screen.w}" height="${screen.h}" fill="#050505"/>`
+        : testPattern(screen);
   return { svg: `${rect(b, b.w * 0.12, 'fill="#0c0d0f" stroke="#333" stroke-width="5"')}${fill}`, surface: b, screen };
 }
 
 function drawFlex(W: number, H: number, view: string): Drawn {
   const b = { x: W * 0.18, y: H * 0.42, w: W * 0.64, h: H * 0.12 };
-  const port = view === "back" ? "" : `<rect x="${b.x - b.h * 0.9}" y="${b.y - b.h * 0.2}" width="${b.h * 1.1}" height="${b.h * 1.4}" rx="10" fill="#b8bcc2" stroke="#666" stroke-width="3"/><rect x="${b.x - b.h * 0.65}" y="${b.y + b.h * 0.25}" width="${b.h * 0.6}" height="${b.h * 0.5}" rx="6" fill="#222"/>`;
-  return { svg: `<rect x="${b.x}" y="${b.y}" width="${b.w}" height="${b.h}" rx="12" fill="#d98b1f" stroke="#a8650d" stroke-width="3"/>${port}${connector(b.x + b.w - b.h * 0.2, b.y - b.h * 0.1, b.h * 1.6, b.h * 1.2)}`, surface: b };
+  const port =
+    view === "back"
+      ? ""
+      : `<rect x="${b.x - b.h * 0.9}" y="${b.y - b.h * 0.2}" width="${b.h * 1.1}" height="${b.h * 1.4}" rx="10" fill="#b8bcc2" stroke="#666" stroke-width="3"/><rect x="${b.x - b.h * 0.65}" y="${b.y + b.h * 0.25}" width="${b.h * 0.6}" height="${b.h * 0.5}" rx="6" fill="#222"/>`;
+  return {
+    svg: `<rect x="${b.x}" y="${b.y}" width="${b.w}" height="${b.h}" rx="12" fill="#d98b1f" stroke="#a8650d" stroke-width="3"/>${port}${connector(b.x + b.w - b.h * 0.2, b.y - b.h * 0.1, b.h * 1.6, b.h * 1.2)}`,
+    surface: b,
+  };
 }
 
 function drawSpeaker(W: number, H: number, view: string): Drawn {
   const b = box(W, H, 0.4, 0.55);
-  const holes = view === "front" ? Array.from({ length: 60 }, (_, i) => `<circle cx="${b.x + b.w * (0.1 + (i % 15) * 0.057)}" cy="${b.y + b.h * (0.3 + Math.floor(i / 15) * 0.13)}" r="${b.w * 0.012}" fill="#111"/>`).join("") : "";
-  const pads = view !== "front" ? `<rect x="${b.x + b.w * 0.1}" y="${b.y + b.h * 0.7}" width="${b.w * 0.12}" height="${b.h * 0.15}" fill="#c9a227"/><rect x="${b.x + b.w * 0.78}" y="${b.y + b.h * 0.7}" width="${b.w * 0.12}" height="${b.h * 0.15}" fill="#c9a227"/>` : "";
+  const holes =
+    view === "front"
+      ? Array.from({ length: 60 }, (_, i) => `<circle cx="${b.x + b.w * (0.1 + (i % 15) * 0.057)}" cy="${b.y + b.h * (0.3 + Math.floor(i / 15) * 0.13)}" r="${b.w * 0.012}" fill="#111"/>`).join("")
+      : "";
+  const pads =
+    view !== "front"
+      ? `<rect x="${b.x + b.w * 0.1}" y="${b.y + b.h * 0.7}" width="${b.w * 0.12}" height="${b.h * 0.15}" fill="#c9a227"/><rect x="${b.x + b.w * 0.78}" y="${b.y + b.h * 0.7}" width="${b.w * 0.12}" height="${b.h * 0.15}" fill="#c9a227"/>`
+      : "";
   return { svg: `${rect(b, b.w * 0.06, 'fill="#2e3136" stroke="#15171a" stroke-width="4"')}${holes}${pads}`, surface: b };
 }
 
@@ -124,7 +150,12 @@ function sensorNoise(W: number, H: number): Promise<Buffer> {
       raw[i] = Math.max(0, Math.min(255, Math.round(128 + radius * Math.cos(angle))));
       if (i + 1 < raw.length) raw[i + 1] = Math.max(0, Math.min(255, Math.round(128 + radius * Math.sin(angle))));
     }
-    noiseCache.set(key, sharp(raw, { raw: { width: W, height: H, channels: 3 } }).png({ compressionLevel: 1 }).toBuffer());
+    noiseCache.set(
+      key,
+      sharp(raw, { raw: { width: W, height: H, channels: 3 } })
+        .png({ compressionLevel: 1 })
+        .toBuffer(),
+    );
   }
   return noiseCache.get(key)!;
 }
@@ -162,7 +193,11 @@ export async function renderAnnotatedPartPhoto(spec: PartPhotoSpec): Promise<Ann
     <rect width="${W}" height="${H}" fill="url(#backdrop)"/>${shadow}${drawn.svg}${planted.map((d) => d.svg).join("")}
   </svg>`;
   const noise = await sensorNoise(W, H);
-  const jpeg = await sharp(Buffer.from(svg)).flatten({ background: "#c0c6cc" }).composite([{ input: noise, blend: "soft-light" }]).jpeg({ quality: 88 }).toBuffer();
+  const jpeg = await sharp(Buffer.from(svg))
+    .flatten({ background: "#c0c6cc" })
+    .composite([{ input: noise, blend: "soft-light" }])
+    .jpeg({ quality: 88 })
+    .toBuffer();
   const { x, y, w, h } = drawn.surface;
   return { jpeg, width: W, height: H, surface: { kind: "rect", x, y, width: w, height: h }, regions: planted.flatMap((d) => d.regions) };
 }

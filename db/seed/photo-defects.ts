@@ -60,13 +60,22 @@ export function plantDefect(defect: PlantedDefect, drawn: Drawn, next: () => num
         d += ` L${x.toFixed(1)} ${y.toFixed(1)}`;
         main.push(pt(x, y));
       }
-      const [b1, b2] = [[-s.w * 0.06, s.h * 0.05], [-s.w * 0.03, s.h * 0.06]];
+      const [b1, b2] = [
+        [-s.w * 0.06, s.h * 0.05],
+        [-s.w * 0.03, s.h * 0.06],
+      ];
       const branch = `M${p.x} ${p.y} l${b1[0]} ${b1[1]} l${b2[0]} ${b2[1]}`;
       const svg = `<path d="${d} ${branch}" stroke="#f2f4f5" stroke-width="${3 * u}" fill="none" opacity="0.9"/><path d="${d}" stroke="#1a1a1a" stroke-width="${u}" fill="none" opacity="0.6" transform="translate(${2 * u} ${2 * u})"/>`;
       // The shadow sits 2 px below-right of the bright line: the Line covers both.
       const width = round((3 + 2 + LINE_MARGIN) * u);
       const branchPoints = [pt(p.x, p.y), pt(p.x + b1[0], p.y + b1[1]), pt(p.x + b1[0] + b2[0], p.y + b1[1] + b2[1])];
-      return { svg, regions: [{ defect, shape: { kind: "line", points: main, width } }, { defect, shape: { kind: "line", points: branchPoints, width } }] };
+      return {
+        svg,
+        regions: [
+          { defect, shape: { kind: "line", points: main, width } },
+          { defect, shape: { kind: "line", points: branchPoints, width } },
+        ],
+      };
     }
     case "stain": {
       const [rx, ry] = [s.w * 0.09, s.w * 0.06];
@@ -105,7 +114,11 @@ export function plantDefect(defect: PlantedDefect, drawn: Drawn, next: () => num
       const strip = s.w > 3 * s.h;
       const x = strip ? s.x + s.w * (0.3 + next() * 0.4) : s.x + s.w * 0.69;
       const [top, len] = strip ? [s.y - 2, s.h + 4] : [s.y - s.h * 0.105, s.h * 0.05];
-      const steps: Point[] = [[len * 0.15, len * 0.4], [-len * 0.12, len * 0.25], [len * 0.1, len * 0.35]];
+      const steps: Point[] = [
+        [len * 0.15, len * 0.4],
+        [-len * 0.12, len * 0.25],
+        [len * 0.1, len * 0.35],
+      ];
       const points: Point[] = [pt(x, top)];
       for (const [dx, dy] of steps) points.push(pt(points[points.length - 1][0] + dx, points[points.length - 1][1] + dy));
       const svg = `<path d="M${x} ${top} ${steps.map(([dx, dy]) => `l${dx} ${dy}`).join(" ")}" stroke="#3a2a1a" stroke-width="${5 * u}" fill="none"/>`;

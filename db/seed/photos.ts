@@ -37,7 +37,14 @@ type SeedUnit = { unitId: string; workspaceId: string; lotId: string; receivedOn
 
 async function openUnits(lotIds?: string[]): Promise<SeedUnit[]> {
   return db()
-    .select({ unitId: units.id, workspaceId: units.workspaceId, lotId: units.lotId, receivedOn: lots.receivedOn, kind: sql<string>`${partTypes.slug} || ' ' || ${partTypes.category}`, views: partTypes.views })
+    .select({
+      unitId: units.id,
+      workspaceId: units.workspaceId,
+      lotId: units.lotId,
+      receivedOn: lots.receivedOn,
+      kind: sql<string>`${partTypes.slug} || ' ' || ${partTypes.category}`,
+      views: partTypes.views,
+    })
     .from(units)
     .innerJoin(lots, eq(lots.id, units.lotId))
     .innerJoin(partTypes, eq(partTypes.id, units.partTypeId))

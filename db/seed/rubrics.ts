@@ -46,7 +46,14 @@ export async function seedRubrics(database: Database) {
           publishedAt: new Date(),
         })
         .returning({ id: rubricVersions.id });
-      await tx.insert(activityLog).values({ workspaceId: partType.workspaceId, actorId: null, action: "rubric.seeded", subjectType: "part_type", subjectId: partType.id, detail: { version: 1, example: true, partType: partType.name } });
+      await tx.insert(activityLog).values({
+        workspaceId: partType.workspaceId,
+        actorId: null,
+        action: "rubric.seeded",
+        subjectType: "part_type",
+        subjectId: partType.id,
+        detail: { version: 1, example: true, partType: partType.name },
+      });
       seeded.push({ workspaceId: partType.workspaceId, slug: partType.slug, rubricVersionId: row.id });
     }
   });

@@ -48,7 +48,8 @@ const PER_BENCH_VIEW = 3;
 async function benchLikePhotos(): Promise<AnnotatedPartPhoto[]> {
   const photos: AnnotatedPartPhoto[] = [];
   for (const [k, [kind, viewKey]] of BENCH_VIEWS.entries()) {
-    for (let s = 0; s < PER_BENCH_VIEW; s++) photos.push(await renderAnnotatedPartPhoto({ kind, viewKey, defects: plantedDefects(kind, viewKey), seed: 90_001 + k * 101 + s * 7, width: WIDTH, height: (WIDTH * 3) / 4 }));
+    for (let s = 0; s < PER_BENCH_VIEW; s++)
+      photos.push(await renderAnnotatedPartPhoto({ kind, viewKey, defects: plantedDefects(kind, viewKey), seed: 90_001 + k * 101 + s * 7, width: WIDTH, height: (WIDTH * 3) / 4 }));
   }
   return photos;
 }
@@ -82,10 +83,19 @@ export async function seedSuggestionModel({ workspaceSlug = "vellmoor" }: { work
       },
       result.switchIn,
     );
-    await logActivity(tx, { workspaceId: ws.id, actorId: null, action: "suggestions.model_switched_in", subjectType: "suggestion_model", subjectId: stored.id, detail: { version: stored.version, decision: "demo seed", demo: true } });
+    await logActivity(tx, {
+      workspaceId: ws.id,
+      actorId: null,
+      action: "suggestions.model_switched_in",
+      subjectType: "suggestion_model",
+      subjectId: stored.id,
+      detail: { version: stored.version, decision: "demo seed", demo: true },
+    });
     return stored;
   });
   const seconds = Math.round((performance.now() - started) / 100) / 10;
-  console.log(`Demo learned-suggestion model: version ${row.version}, suggests ${suggests.join(" and ") || "no class"} (trained on ${train.length} synthetic photos, judged on ${test.length}; ${seconds} s).`);
+  console.log(
+    `Demo learned-suggestion model: version ${row.version}, suggests ${suggests.join(" and ") || "no class"} (trained on ${train.length} synthetic photos, judged on ${test.length}; ${seconds} s).`,
+  );
   return { version: row.version, suggests, seconds };
 }

@@ -1,10 +1,9 @@
 import "server-only";
-import { and, eq, gt, isNull, sql } from "drizzle-orm";
-import { db } from "@/db/client";
+import { transaction } from "@/db/client";
 import { isUniqueViolation } from "@/db/errors";
+import { findLiveAuthToken, takeAuthToken } from "@/db/queries/accounts";
 import { logActivity } from "@/db/queries/activity";
-import { getUserByEmail } from "@/db/queries/users";
-import { authTokens, users } from "@/db/schema";
+import { getUserByEmail, setUserPassword } from "@/db/queries/users";
 import { hashPassword } from "@/lib/auth/password";
 import { unlockAccount } from "@/lib/auth/rate-limit";
 import { hashToken, issueAuthToken, RESET_TTL_MINUTES } from "@/lib/auth/tokens";
@@ -25,7 +24,7 @@ export async function requestPasswordReset({ email, ip }: { email: string; ip: s
   await limitForgotPassword({ ip, email });
   const user = await getUserByEmail({ email });
   if (!user || !user.active) return { message: FORGOT_PASSWORD_REPLY };
-  const token = await issueAuthToken(db(), { workspaceId: user.workspaceId, userId: user.id, purpose: "reset", ttlMs: RESET_TTL_MINUTES * 60_000 });
+  const token = await issueAuthToken({ workspaceId: user.workspaceId, userId: user.id, purpose: "reset", ttlMs: RESET_TTL_MINUTES * 60_000 });
   const mail = passwordResetEmail({ link: setPasswordLink(token), expiresMinutes: RESET_TTL_MINUTES });
   await sendMail({ workspaceId: user.workspaceId, kind: "password_reset", to: user.email, ...mail });
   return { message: FORGOT_PASSWORD_REPLY };
@@ -37,15 +36,6 @@ export const ADDRESS_TAKEN_MESSAGE =
 
 const invalidLink = () => new AppError("bad_request", INVALID_LINK_MESSAGE, { fieldErrors: { token: INVALID_LINK_MESSAGE } });
 
-async function findAuthToken(token: string) {
-  const [row] = await db()
-    .select({ id: authTokens.id, userId: authTokens.userId })
-    .from(authTokens)
-    .where(and(eq(authTokens.tokenHash, hashToken(token)), isNull(authTokens.usedAt), gt(authTokens.expiresAt, sql`now()`)))
-    .limit(1);
-  return row ?? null;
-}
-
 /**
  * Sets a password from an invitation, reset or sign-up link; the link works once. The token is
  * looked up before the (deliberately slow) password hash is computed, so unknown tokens cost
@@ -54,14 +44,14 @@ async function findAuthToken(token: string) {
  */
 export async function setPasswordWithToken({ token, password, ip }: { token: string; password: string; ip: string }) {
   await limitSetPasswordByAddress({ ip });
-  const authToken = await findAuthToken(token);
+  const authToken = await findLiveAuthToken({ tokenHash: hashToken(token) });
   const signUp = authToken ? null : await findSignUpRequest(token);
   if (!authToken && !signUp) throw invalidLink();
   await limitSetPasswordByAccount({ key: authToken ? authToken.userId : signUp!.email });
   const passwordHash = await hashPassword(password);
 
   if (signUp) {
-    const created = await db().transaction((tx) => completeSignUp(tx, { requestId: signUp.id, passwordHash }));
+    const created = await transaction((tx) => completeSignUp(tx, { requestId: signUp.id, passwordHash }));
     if (!created) throw invalidLink();
     return { email: created.email, message: "Your workspace is ready and your password is set. Sign in with it now." };
   }
@@ -72,21 +62,12 @@ export async function setPasswordWithToken({ token, password, ip }: { token: str
 
 async function setAccountPassword({ token, passwordHash }: { token: string; passwordHash: string }) {
   try {
-    return await db().transaction(async (tx) => {
-      const [row] = await tx
-        .select({ id: authTokens.id, userId: authTokens.userId, workspaceId: authTokens.workspaceId, purpose: authTokens.purpose, email: users.email, active: users.active })
-        .from(authTokens)
-        .innerJoin(users, eq(users.id, authTokens.userId))
-        .where(and(eq(authTokens.tokenHash, hashToken(token)), isNull(authTokens.usedAt), gt(authTokens.expiresAt, sql`now()`)))
-        .for("update")
-        .limit(1);
+    return await transaction(async (tx) => {
+      const row = await takeAuthToken(tx, { tokenHash: hashToken(token) });
       if (!row) throw invalidLink();
+      // Throwing rolls back the link's use too: a deactivated account's link stays as it was.
       if (!row.active) throw new AppError("forbidden", "This account has been deactivated. Ask your QC lead to reactivate it.");
-      await tx.update(authTokens).set({ usedAt: new Date() }).where(eq(authTokens.id, row.id));
-      await tx
-        .update(users)
-        .set({ passwordHash, tokenVersion: sql`${users.tokenVersion} + 1`, updatedAt: new Date() })
-        .where(eq(users.id, row.userId));
+      await setUserPassword(tx, { userId: row.userId, passwordHash });
       await logActivity(tx, {
         workspaceId: row.workspaceId,
         actorId: row.userId,

@@ -22,8 +22,9 @@ export const PUBLIC_LIMITS = {
 const limit = (bucket: string, key: string, l: { max: number; windowSeconds: number }): Limit => ({ bucket, key, ...l });
 
 export function limitForgotPassword({ ip, email }: { ip: string; email: string }) {
-  return enforceLimits([limit("forgot:address", ip, PUBLIC_LIMITS.forgotPerAddress), limit("forgot:email", email, PUBLIC_LIMITS.forgotPerEmail)], (s) =>
-    `Too many password-reset requests. ${waitPhrase(s)} and try again; a link already sent keeps working until it expires.`,
+  return enforceLimits(
+    [limit("forgot:address", ip, PUBLIC_LIMITS.forgotPerAddress), limit("forgot:email", email, PUBLIC_LIMITS.forgotPerEmail)],
+    (s) => `Too many password-reset requests. ${waitPhrase(s)} and try again; a link already sent keeps working until it expires.`,
   );
 }
 
@@ -36,7 +37,8 @@ export function limitSetPasswordByAccount({ key }: { key: string }) {
 }
 
 export function limitSignUp({ ip, email }: { ip: string; email: string }) {
-  return enforceLimits([limit("sign-up:address", ip, PUBLIC_LIMITS.signUpPerAddress), limit("sign-up:email", email, PUBLIC_LIMITS.signUpPerEmail)], (s) =>
-    `Too many sign-ups. ${waitPhrase(s)} and try again; a confirmation link already sent keeps working until it expires.`,
+  return enforceLimits(
+    [limit("sign-up:address", ip, PUBLIC_LIMITS.signUpPerAddress), limit("sign-up:email", email, PUBLIC_LIMITS.signUpPerEmail)],
+    (s) => `Too many sign-ups. ${waitPhrase(s)} and try again; a confirmation link already sent keeps working until it expires.`,
   );
 }

@@ -6,12 +6,12 @@ import "server-only";
  * its lead are created when the link is used, with the password chosen there (passwords.ts).
  */
 import crypto from "node:crypto";
-import { and, eq, gt, isNull, sql } from "drizzle-orm";
-import { db, type Tx } from "@/db/client";
+import type { Tx } from "@/db/client";
 import { isUniqueViolation } from "@/db/errors";
+import { findLiveSignUpRequest, insertSignUpRequest, takeSignUpRequest } from "@/db/queries/accounts";
 import { logActivity } from "@/db/queries/activity";
-import { getUserByEmail } from "@/db/queries/users";
-import { signUpRequests, users, workspaces } from "@/db/schema";
+import { getUserByEmail, insertUser } from "@/db/queries/users";
+import { insertWorkspace } from "@/db/queries/workspaces";
 import type { SignUpInput } from "@/lib/auth/schemas";
 import { hashToken } from "@/lib/auth/tokens";
 import { AppError } from "@/lib/errors";
@@ -33,46 +33,39 @@ export async function requestSignUp(input: SignUpInput): Promise<{ message: stri
     return { message: signUpReply(input.email) };
   }
   const token = crypto.randomBytes(32).toString("base64url");
-  await db()
-    .insert(signUpRequests)
-    .values({
-      email: input.email,
-      companyName: input.companyName,
-      name: input.name,
-      starterPartTypes: input.starterPartTypes,
-      tokenHash: hashToken(token),
-      expiresAt: new Date(Date.now() + SIGN_UP_TTL_HOURS * 3_600_000),
-    });
-  await sendMail({ workspaceId: null, kind: "sign_up", to: input.email, ...signUpConfirmationEmail({ companyName: input.companyName, link: setPasswordLink(token), expiresHours: SIGN_UP_TTL_HOURS }) });
+  await insertSignUpRequest({
+    email: input.email,
+    companyName: input.companyName,
+    name: input.name,
+    starterPartTypes: input.starterPartTypes,
+    tokenHash: hashToken(token),
+    expiresAt: new Date(Date.now() + SIGN_UP_TTL_HOURS * 3_600_000),
+  });
+  await sendMail({
+    workspaceId: null,
+    kind: "sign_up",
+    to: input.email,
+    ...signUpConfirmationEmail({ companyName: input.companyName, link: setPasswordLink(token), expiresHours: SIGN_UP_TTL_HOURS }),
+  });
   return { message: signUpReply(input.email) };
 }
 
 export const ACCOUNT_EXISTS_MESSAGE = "An account with this e-mail address already exists. Sign in, or reset your password.";
 
 /** The live sign-up request of a token, if any (no lock; for checking a token before hashing). */
-export async function findSignUpRequest(token: string) {
-  const [row] = await db()
-    .select({ id: signUpRequests.id, email: signUpRequests.email })
-    .from(signUpRequests)
-    .where(and(eq(signUpRequests.tokenHash, hashToken(token)), isNull(signUpRequests.usedAt), gt(signUpRequests.expiresAt, sql`now()`)))
-    .limit(1);
-  return row ?? null;
+export function findSignUpRequest(token: string) {
+  return findLiveSignUpRequest({ tokenHash: hashToken(token) });
 }
 
 /** Creates the workspace and its lead from a confirmed sign-up, inside the caller's transaction. */
 export async function completeSignUp(tx: Tx, { requestId, passwordHash }: { requestId: string; passwordHash: string }): Promise<{ email: string } | null> {
-  const [request] = await tx
-    .select()
-    .from(signUpRequests)
-    .where(and(eq(signUpRequests.id, requestId), isNull(signUpRequests.usedAt), gt(signUpRequests.expiresAt, sql`now()`)))
-    .for("update");
+  const request = await takeSignUpRequest(tx, { requestId });
   if (!request) return null;
-  await tx.update(signUpRequests).set({ usedAt: new Date() }).where(eq(signUpRequests.id, request.id));
   const slug = `${slugify(request.companyName)}-${crypto.randomBytes(3).toString("hex")}`;
-  const [workspace] = await tx.insert(workspaces).values({ name: request.companyName, slug }).returning();
+  const workspace = await insertWorkspace(tx, { name: request.companyName, slug });
   let user: { id: string };
   try {
-    [user] = await tx.insert(users).values({ workspaceId: workspace.id, email: request.email, name: request.name, passwordHash, roles: ["lead"] }).returning({ id: users.id });
+    user = await insertUser(tx, { workspaceId: workspace.id, email: request.email, name: request.name, passwordHash, roles: ["lead"] });
   } catch (err) {
     // The address got a password account since the request (another sign-up, an accepted
     // invitation); throwing rolls the whole confirmation back, the request stays unused.

@@ -128,9 +128,11 @@ export function gwetAc1(pairs: readonly LabelPair[], options: { categories: read
   const { rows, columns, total } = margins(table, "gwetAc1");
   if (total === 0) return Number.NaN;
   const observed = table.reduce((sum, row, k) => sum + row[k], 0) / total;
-  const chance = rows.reduce((sum, rowCount, k) => {
-    const share = (rowCount + columns[k]) / (2 * total);
-    return sum + share * (1 - share);
-  }, 0) / (size - 1);
+  const chance =
+    rows.reduce((sum, rowCount, k) => {
+      const share = (rowCount + columns[k]) / (2 * total);
+      return sum + share * (1 - share);
+    }, 0) /
+    (size - 1);
   return (observed - chance) / (1 - chance);
 }

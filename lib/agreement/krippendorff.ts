@@ -49,7 +49,10 @@ export function krippendorffAlpha(data: readonly (readonly AlphaValue[])[], opti
   // Pairable units as lists of scale positions; value counts n_c over pairable values.
   const units: { values: number[]; weight: number }[] = [];
   for (let unit = 0; unit < unitCount; unit++) {
-    const values = data.map((row) => row[unit]).filter(present).map(scale.indexOf);
+    const values = data
+      .map((row) => row[unit])
+      .filter(present)
+      .map(scale.indexOf);
     if (values.length >= 2) units.push({ values, weight: weightOf(unit) });
   }
   const counts = new Array<number>(scale.categories.length).fill(0);
@@ -94,7 +97,8 @@ function distanceFunction(metric: AlphaMetric, scale: Label[], counts: number[],
 /** Each unit's weight (1 without weights); refuses a list of the wrong length or a weight that is not a whole number ≥ 0. */
 export function checkedWeights(weights: readonly number[] | undefined, unitCount: number, where: string): (unit: number) => number {
   if (weights === undefined) return () => 1;
-  if (!Array.isArray(weights) || weights.length !== unitCount) throw new RangeError(`${where}: weights must have one entry per unit (${unitCount}), got ${Array.isArray(weights) ? weights.length : typeof weights}.`);
+  if (!Array.isArray(weights) || weights.length !== unitCount)
+    throw new RangeError(`${where}: weights must have one entry per unit (${unitCount}), got ${Array.isArray(weights) ? weights.length : typeof weights}.`);
   weights.forEach((weight, unit) => {
     if (!Number.isInteger(weight) || weight < 0) throw new RangeError(`${where}: the weight of unit ${unit} must be a whole number >= 0, got ${weight}.`);
   });

@@ -35,11 +35,7 @@ function restore(state: AnnotationState, snapshot: Snapshot, history: History): 
  * The one way regions change. Returns `state` itself when nothing changed, so callers and React
  * can tell a no-op by reference.
  */
-export function applyEdit(
-  state: AnnotationState,
-  regions: readonly Region[],
-  selectedId: RegionId | null = state.selectedId,
-): AnnotationState {
+export function applyEdit(state: AnnotationState, regions: readonly Region[], selectedId: RegionId | null = state.selectedId): AnnotationState {
   if (regions === state.regions && selectedId === state.selectedId) return state;
   const history = state.history.pending ? state.history : pushPast(state.history, snapshotOf(state));
   return { ...state, regions, selectedId, history };

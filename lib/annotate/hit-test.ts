@@ -69,8 +69,14 @@ export function handlesOf(region: Region): { handle: Handle; point: Point }[] {
     case "rect": {
       const { x, y, width, height } = shape;
       const at: Record<RectHandle, Point> = {
-        nw: [x, y], n: [x + width / 2, y], ne: [x + width, y], e: [x + width, y + height / 2],
-        se: [x + width, y + height], s: [x + width / 2, y + height], sw: [x, y + height], w: [x, y + height / 2],
+        nw: [x, y],
+        n: [x + width / 2, y],
+        ne: [x + width, y],
+        e: [x + width, y + height / 2],
+        se: [x + width, y + height],
+        s: [x + width / 2, y + height],
+        sw: [x, y + height],
+        w: [x, y + height / 2],
       };
       return RECT_HANDLES.map((corner) => ({ handle: { kind: "rect", corner }, point: at[corner] }));
     }

@@ -76,7 +76,10 @@ export function replaceRegion(state: AnnotationState, next: Region): AnnotationS
   const index = state.regions.findIndex((r) => r.id === next.id);
   if (index < 0 || state.regions[index] === next) return state;
   if (!state.history.pending && edits.regionProblem(next, state.image)) return state;
-  return applyEdit(state, state.regions.map((r, i) => (i === index ? next : r)));
+  return applyEdit(
+    state,
+    state.regions.map((r, i) => (i === index ? next : r)),
+  );
 }
 
 /** Applies `change` to a region's shape; a surface stays a polygon. */
@@ -171,7 +174,11 @@ export function moveRulerEnd(state: AnnotationState, id: RegionId, end: "a" | "b
 
 export function deleteRegion(state: AnnotationState, id: RegionId): AnnotationState {
   if (!regionById(state, id)) return state;
-  return applyEdit(state, state.regions.filter((r) => r.id !== id), state.selectedId === id ? null : state.selectedId);
+  return applyEdit(
+    state,
+    state.regions.filter((r) => r.id !== id),
+    state.selectedId === id ? null : state.selectedId,
+  );
 }
 
 export function setRegionDefect(state: AnnotationState, id: RegionId, defect: string): AnnotationState {

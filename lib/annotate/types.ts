@@ -64,11 +64,7 @@ export type Draft =
     }>;
 
 /** A grip on the selected region that can be dragged. */
-export type Handle =
-  | Readonly<{ kind: "rect"; corner: RectHandle }>
-  | Readonly<{ kind: "vertex"; index: number }>
-  | Readonly<{ kind: "radius" }>
-  | Readonly<{ kind: "ruler-end"; end: "a" | "b" }>;
+export type Handle = Readonly<{ kind: "rect"; corner: RectHandle }> | Readonly<{ kind: "vertex"; index: number }> | Readonly<{ kind: "radius" }> | Readonly<{ kind: "ruler-end"; end: "a" | "b" }>;
 
 export type RectHandle = "nw" | "n" | "ne" | "e" | "se" | "s" | "sw" | "w";
 

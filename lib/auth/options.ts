@@ -75,7 +75,8 @@ export const authOptions: NextAuthOptions = {
     // stops working too (require-user checks the session id against revoked_sessions). The
     // person's sessions on other devices carry on.
     async signOut({ token }) {
-      if (token?.sid && token.sub) await revokeSession({ sessionId: token.sid, userId: token.sub, expiresAt: new Date(((token.exp as number | undefined) ?? Date.now() / 1000 + SESSION_MAX_AGE) * 1000) });
+      if (token?.sid && token.sub)
+        await revokeSession({ sessionId: token.sid, userId: token.sub, expiresAt: new Date(((token.exp as number | undefined) ?? Date.now() / 1000 + SESSION_MAX_AGE) * 1000) });
     },
   },
   callbacks: {

@@ -11,17 +11,10 @@ export const emailSchema = z
   .email("Enter a valid e-mail address, like name@company.example.")
   .transform((v) => v.toLowerCase());
 
-export const personNameSchema = z
-  .string({ error: "Enter a name." })
-  .trim()
-  .min(1, "Enter a name.")
-  .max(120, "Keep the name under 120 characters.");
+export const personNameSchema = z.string({ error: "Enter a name." }).trim().min(1, "Enter a name.").max(120, "Keep the name under 120 characters.");
 
 // Upper bound keeps hashing cheap for absurd inputs; 10 characters is our minimum.
-export const newPasswordSchema = z
-  .string({ error: "Enter a password." })
-  .min(10, "Use at least 10 characters for the password.")
-  .max(200, "Keep the password under 200 characters.");
+export const newPasswordSchema = z.string({ error: "Enter a password." }).min(10, "Use at least 10 characters for the password.").max(200, "Keep the password under 200 characters.");
 
 export const rolesSchema = z
   .array(z.enum(ROLES, { error: "Unknown role; choose inspector, trainer, auditor or lead." }), { error: "Choose at least one role." })

@@ -5,7 +5,10 @@
 import { z } from "zod";
 
 const fraction = (what: string) =>
-  z.number({ error: `${what} must be a number from 0 to 1.` }).min(0, `${what} must be at least 0.`).max(1, `${what} must be at most 1 (100 %).`);
+  z
+    .number({ error: `${what} must be a number from 0 to 1.` })
+    .min(0, `${what} must be at least 0.`)
+    .max(1, `${what} must be at most 1 (100 %).`);
 
 export const calibrationThresholdsSchema = z
   .object({

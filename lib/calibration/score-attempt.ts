@@ -45,8 +45,7 @@ export type CalibrationClassSummary = {
 };
 
 export type CalibrationCheck =
-  | { check: "grade_agreement"; value: number; threshold: number; passed: boolean }
-  | { check: "mean_iou"; defect: string; value: number; threshold: number; passed: boolean };
+  { check: "grade_agreement"; value: number; threshold: number; passed: boolean } | { check: "mean_iou"; defect: string; value: number; threshold: number; passed: boolean };
 
 export type CalibrationSummary = {
   items: number;
@@ -97,7 +96,13 @@ export function summariseAttempt(items: readonly CalibrationItemScore[], thresho
     { check: "grade_agreement", value: grades.exactShare, threshold: thresholds.minGradeAgreement, passed: grades.exactShare >= thresholds.minGradeAgreement - TOLERANCE },
     ...classEntries
       .filter(([, summary]) => summary.gates)
-      .map(([defect, summary]): CalibrationCheck => ({ check: "mean_iou", defect, value: summary.meanIou, threshold: thresholds.minMeanIou, passed: summary.meanIou >= thresholds.minMeanIou - TOLERANCE })),
+      .map(([defect, summary]): CalibrationCheck => ({
+        check: "mean_iou",
+        defect,
+        value: summary.meanIou,
+        threshold: thresholds.minMeanIou,
+        passed: summary.meanIou >= thresholds.minMeanIou - TOLERANCE,
+      })),
   ];
   return { items: items.length, grades, classes: Object.fromEntries(classEntries), checks, passed: checks.every((check) => check.passed) };
 }

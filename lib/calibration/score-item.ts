@@ -71,10 +71,7 @@ export function scoreGrades(key: Grade, given: Grade): CalibrationGradeScore {
   return { key, given, steps, exact: steps === 0, withinOne: steps <= 1 };
 }
 
-export async function scoreCalibrationItem(
-  input: CalibrationItemInput,
-  options: { areas?: boolean; regionRaster?: RegionRaster } = {},
-): Promise<CalibrationItemScore> {
+export async function scoreCalibrationItem(input: CalibrationItemInput, options: { areas?: boolean; regionRaster?: RegionRaster } = {}): Promise<CalibrationItemScore> {
   const keepAreas = options.areas ?? true;
   const grade = scoreGrades(input.key.grade, input.attempt.grade);
   const comparison = await compareRegionSets(
@@ -85,19 +82,22 @@ export async function scoreCalibrationItem(
   const areaEntries: [string, { missed: PixelRect[]; extra: PixelRect[] }][] = [];
   for (const [defect, compared] of Object.entries(comparison.byDefect)) {
     if (compared.unionPx === 0) continue;
-    classEntries.push([defect, {
-      keyPx: compared.aPx,
-      attemptPx: compared.bPx,
-      sharedPx: compared.intersectionPx,
-      unionPx: compared.unionPx,
-      iou: compared.iou,
-      dice: compared.dice,
-      keyDefects: compared.aDefects.length,
-      attemptDefects: compared.bDefects.length,
-      matched: compared.matchedA,
-      missed: compared.onlyA,
-      extra: compared.onlyB,
-    }]);
+    classEntries.push([
+      defect,
+      {
+        keyPx: compared.aPx,
+        attemptPx: compared.bPx,
+        sharedPx: compared.intersectionPx,
+        unionPx: compared.unionPx,
+        iou: compared.iou,
+        dice: compared.dice,
+        keyDefects: compared.aDefects.length,
+        attemptDefects: compared.bDefects.length,
+        matched: compared.matchedA,
+        missed: compared.onlyA,
+        extra: compared.onlyB,
+      },
+    ]);
     if (compared.areas) areaEntries.push([defect, { missed: spanRects(compared.areas.onlyA), extra: spanRects(compared.areas.onlyB) }]);
   }
   // Object.fromEntries defines own keys, so a class named "__proto__" stays plain data.

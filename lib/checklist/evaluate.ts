@@ -10,10 +10,9 @@
  * - An item without `min` and `max` records the reading and always passes.
  * - A failed item becomes a functional defect of the item's `severityOnFail`.
  */
-import type { ChecklistItem } from "@/db/schema/lots";
 import { AppError } from "@/lib/errors";
-
-export type ChecklistValue = { pass: boolean } | { reading: number } | { choice: string };
+import type { ChecklistValue } from "@/lib/units/schemas";
+import type { ChecklistItem } from "@/lib/part-types/schemas";
 
 export type ItemEvaluation = {
   passed: boolean;

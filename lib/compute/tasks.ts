@@ -32,9 +32,7 @@ export type TaskInput<N extends TaskName> = Parameters<(typeof TASKS)[N]>[0];
 export type TaskOutput<N extends TaskName> = Awaited<ReturnType<(typeof TASKS)[N]>>;
 
 export type SerialisedError =
-  | { kind: "app"; code: AppError["code"]; message: string; fieldErrors?: Record<string, string> }
-  | { kind: "deadline" }
-  | { kind: "other"; message: string; stack?: string };
+  { kind: "app"; code: AppError["code"]; message: string; fieldErrors?: Record<string, string> } | { kind: "deadline" } | { kind: "other"; message: string; stack?: string };
 export type TaskResult<T> = { ok: true; value: T } | { ok: false; error: SerialisedError };
 
 export async function runTask<N extends TaskName>(name: N, input: TaskInput<N>): Promise<TaskResult<TaskOutput<N>>> {

@@ -20,4 +20,5 @@ export const canSeeItem = (roles: readonly Role[], status: GalleryStatus): boole
 export const hidesUnitsAwaitingRecheck = (roles: readonly Role[]): boolean => !can({ roles }, "inspection.read");
 
 /** Whether someone with these roles may open this item: its status, and the blind-recheck rule above. */
-export const canOpenItem = (roles: readonly Role[], item: { status: GalleryStatus; sourceUnitAwaitsRecheck: boolean }): boolean => canSeeItem(roles, item.status) && !(item.sourceUnitAwaitsRecheck && hidesUnitsAwaitingRecheck(roles));
+export const canOpenItem = (roles: readonly Role[], item: { status: GalleryStatus; sourceUnitAwaitsRecheck: boolean }): boolean =>
+  canSeeItem(roles, item.status) && !(item.sourceUnitAwaitsRecheck && hidesUnitsAwaitingRecheck(roles));

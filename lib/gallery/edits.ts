@@ -73,7 +73,14 @@ export async function promotePhoto(editor: Editor, input: PromoteInput): Promise
       rubricVersionId: currentGrade.rubricVersionId,
       createdBy: editor.id,
     });
-    await logActivity(tx, { workspaceId: editor.workspaceId, actorId: editor.id, action: "gallery.promoted", subjectType: "gallery_item", subjectId: id, detail: { photoId: photo.id, unitId: unit.id, grade: currentGrade.finalGrade, regions: regions.regions.length } });
+    await logActivity(tx, {
+      workspaceId: editor.workspaceId,
+      actorId: editor.id,
+      action: "gallery.promoted",
+      subjectType: "gallery_item",
+      subjectId: id,
+      detail: { photoId: photo.id, unitId: unit.id, grade: currentGrade.finalGrade, regions: regions.regions.length },
+    });
     return id;
   });
   return readGalleryItem(editor, itemId);
@@ -128,7 +135,14 @@ export async function editItem(editor: Editor, itemId: string, input: EditItemIn
     }
     await updateGalleryItem(tx, { workspaceId: editor.workspaceId, itemId, actorId: editor.id, patch });
     const changed = Object.keys(patch).filter((k) => k !== "defectClasses" && k !== "rubricVersionId");
-    await logActivity(tx, { workspaceId: editor.workspaceId, actorId: editor.id, action: "gallery.edited", subjectType: "gallery_item", subjectId: itemId, detail: { changed, revision: input.revision + 1 } });
+    await logActivity(tx, {
+      workspaceId: editor.workspaceId,
+      actorId: editor.id,
+      action: "gallery.edited",
+      subjectType: "gallery_item",
+      subjectId: itemId,
+      detail: { changed, revision: input.revision + 1 },
+    });
   });
   return readGalleryItem(editor, itemId);
 }
@@ -140,7 +154,14 @@ export async function publishItem(editor: Editor, itemId: string, input: Transit
     const problems = publishProblems({ kind: item.kind, grade: item.grade, caption: item.caption, regions: item.regions, photoReady: photo?.status === "ready" });
     if (problems.length) throw new AppError("conflict", `Not published yet: ${problems.join(" ")}`);
     await updateGalleryItem(tx, { workspaceId: editor.workspaceId, itemId, actorId: editor.id, patch: { status: "published", publishedBy: editor.id, publishedAt: new Date() } });
-    await logActivity(tx, { workspaceId: editor.workspaceId, actorId: editor.id, action: "gallery.published", subjectType: "gallery_item", subjectId: itemId, detail: { grade: item.grade, kind: item.kind } });
+    await logActivity(tx, {
+      workspaceId: editor.workspaceId,
+      actorId: editor.id,
+      action: "gallery.published",
+      subjectType: "gallery_item",
+      subjectId: itemId,
+      detail: { grade: item.grade, kind: item.kind },
+    });
   });
   return readGalleryItem(editor, itemId);
 }

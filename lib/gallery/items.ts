@@ -66,6 +66,13 @@ export async function listReference(reader: Reader, query: ReferenceQuery): Prom
   if (!partType.views.some((v) => v.key === query.view)) {
     throw new AppError("bad_request", `“${query.view}” is not a view of ${partType.name}.`, { fieldErrors: { view: "is not a view of this part type" } });
   }
-  const rows = await listReferenceItems({ workspaceId: reader.workspaceId, partTypeId: query.partType, viewKey: query.view, defectClass: query.defect, limit: REFERENCE_LIMIT, hideUnitsAwaitingRecheck: hidesUnitsAwaitingRecheck(reader.roles) });
+  const rows = await listReferenceItems({
+    workspaceId: reader.workspaceId,
+    partTypeId: query.partType,
+    viewKey: query.view,
+    defectClass: query.defect,
+    limit: REFERENCE_LIMIT,
+    hideUnitsAwaitingRecheck: hidesUnitsAwaitingRecheck(reader.roles),
+  });
   return rows.map(toGalleryCardDto);
 }

@@ -50,8 +50,7 @@ export function defectClassesOf(payload: RegionSetPayload): string[] {
   return [...new Set(payload.regions.map((r) => r.defect))].sort();
 }
 
-const pointsOf = (payload: RegionSetPayload) =>
-  [...payload.regions, ...payload.surfaces].reduce((sum, r) => sum + ("points" in r.shape ? r.shape.points.length : 1), 0);
+const pointsOf = (payload: RegionSetPayload) => [...payload.regions, ...payload.surfaces].reduce((sum, r) => sum + ("points" in r.shape ? r.shape.points.length : 1), 0);
 
 /** Null when the set fits a gallery item, else the sentence (the Bench's own limits are checked separately). */
 export function regionBudgetProblem(payload: RegionSetPayload): string | null {

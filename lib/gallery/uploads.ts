@@ -69,7 +69,11 @@ async function partTypeWithView(actor: SessionUser, partTypeId: string, viewKey:
 
 export type GalleryUploadIntent = { photoId: string; ticket: string; upload: { method: "PUT"; url: string; headers: Record<string, string>; expiresAt: string } };
 
-export async function createGalleryUploadIntent(actor: SessionUser, input: GalleryUploadIntentInput, { store = objectStore(), now = new Date() }: { store?: ObjectStore; now?: Date } = {}): Promise<GalleryUploadIntent> {
+export async function createGalleryUploadIntent(
+  actor: SessionUser,
+  input: GalleryUploadIntentInput,
+  { store = objectStore(), now = new Date() }: { store?: ObjectStore; now?: Date } = {},
+): Promise<GalleryUploadIntent> {
   await partTypeWithView(actor, input.partTypeId, input.viewKey);
   const rejection = checkDeclaredUpload(input);
   if (rejection) throw rejection;
@@ -135,7 +139,14 @@ async function ensureItem(actor: SessionUser, ticket: GalleryTicket): Promise<{ 
       rubricVersionId: rubric?.id ?? null,
       createdBy: actor.id,
     });
-    await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.id, action: "gallery.uploaded", subjectType: "gallery_item", subjectId: id, detail: { photoId: ticket.photoId, viewKey: ticket.viewKey, grade: ticket.grade, kind: ticket.kind } });
+    await logActivity(tx, {
+      workspaceId: actor.workspaceId,
+      actorId: actor.id,
+      action: "gallery.uploaded",
+      subjectType: "gallery_item",
+      subjectId: id,
+      detail: { photoId: ticket.photoId, viewKey: ticket.viewKey, grade: ticket.grade, kind: ticket.kind },
+    });
     return { id, created: true };
   });
 }

@@ -101,7 +101,10 @@ export function describeOutsideImage(shape: Shape, size: ImageSize): string | nu
   const where = `outside the ${size.width} × ${size.height} px photo`;
   switch (shape.kind) {
     case "rect": {
-      const corners: Point[] = [[shape.x, shape.y], [shape.x + shape.width, shape.y + shape.height]];
+      const corners: Point[] = [
+        [shape.x, shape.y],
+        [shape.x + shape.width, shape.y + shape.height],
+      ];
       return corners.some((p) => pointOutside(p, size)) ? `the box reaches ${where}.` : null;
     }
     case "polygon":

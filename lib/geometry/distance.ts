@@ -29,11 +29,7 @@ export function distanceToSegment(p: Point, a: Point, b: Point): number {
  * the first). `segmentIndex` i means the segment from points[i] to points[i + 1] (wrapping to 0
  * for the closing segment). A single point is a polyline of zero length.
  */
-export function closestPointOnPolyline(
-  p: Point,
-  points: readonly Point[],
-  closed = false,
-): ClosestPoint & { segmentIndex: number } {
+export function closestPointOnPolyline(p: Point, points: readonly Point[], closed = false): ClosestPoint & { segmentIndex: number } {
   if (points.length === 0) throw new RangeError("closestPointOnPolyline needs at least one point");
   if (points.length === 1) {
     return { point: points[0], distance: Math.hypot(p[0] - points[0][0], p[1] - points[0][1]), segmentIndex: 0 };

@@ -78,11 +78,7 @@ export function simplifyRing(points: readonly Point[], tolerance: number): Point
  * until the result fits, then bisect between the last two tolerances so as much detail as the
  * limit allows survives. Returns the input unchanged when it already fits.
  */
-export function simplifyToLimit(
-  points: readonly Point[],
-  maxPoints: number,
-  options: { closed: boolean; startTolerance?: number },
-): Point[] {
+export function simplifyToLimit(points: readonly Point[], maxPoints: number, options: { closed: boolean; startTolerance?: number }): Point[] {
   if (points.length <= maxPoints) return points.slice();
   const simplify = options.closed ? simplifyRing : simplifyPolyline;
   let low = 0;

@@ -13,39 +13,25 @@
 import { z } from "zod";
 import type { ImageSize } from "./clamp";
 import { describeOutsideImage, describeShapeProblem, pointInsideImage } from "./degenerate";
-import {
-  MAX_ID_LENGTH,
-  MAX_POINTS_PER_SHAPE,
-  MAX_RASTER_ROWS_PER_PHOTO,
-  MAX_REGIONS_PER_PHOTO,
-  MAX_RULER_LENGTH_MM,
-  MAX_SURFACES_PER_PHOTO,
-  MAX_TOTAL_POINTS_PER_PHOTO,
-} from "./limits";
+import { MAX_ID_LENGTH, MAX_POINTS_PER_SHAPE, MAX_RASTER_ROWS_PER_PHOTO, MAX_REGIONS_PER_PHOTO, MAX_RULER_LENGTH_MM, MAX_SURFACES_PER_PHOTO, MAX_TOTAL_POINTS_PER_PHOTO } from "./limits";
 import { rasterRows } from "@/lib/imaging/raster/cost";
 import { pointsEqual } from "./points";
-import type { RulerMark } from "./ruler";
-import type { PolygonShape, Shape, ShapeKind } from "./shape";
+import type { Shape, ShapeKind } from "./shape";
+import { coordinateSchema, lineShapeSchema, pointSchema, polygonShapeSchema, rectShapeSchema, spotShapeSchema } from "./shape-schemas";
 
 export type RegionSetContext = ImageSize & { allowedDefects: readonly string[] };
 
-export type RegionSetPayload = {
-  regions: { id: string; defect: string; shape: Shape }[];
-  surfaces: { id: string; shape: PolygonShape }[];
-  ruler: ({ id: string } & RulerMark) | null;
-};
+/** One photo's saved regions, surface outlines and ruler: what regionSetSchema returns. */
+export type RegionSetPayload = z.output<ReturnType<typeof regionSetSchema>>;
 
 /** The tool names of docs/contracts.md, used to name a region in messages. */
 export const TOOL_NAME_BY_KIND: Record<ShapeKind, string> = { rect: "Box", polygon: "Outline", line: "Line", spot: "Spot" };
 
-const finite = z.number({ error: "must be a finite number" }); // zod 4 numbers reject NaN and ±Infinity
-const point = z.tuple([finite, finite], { error: "must be a pair [x, y]" });
-const points = z
-  .array(point, { error: "must be a list of [x, y] points" })
-  .max(MAX_POINTS_PER_SHAPE, `may hold at most ${MAX_POINTS_PER_SHAPE} points`);
+const finite = coordinateSchema;
+const point = pointSchema;
+const points = z.array(point, { error: "must be a list of [x, y] points" }).max(MAX_POINTS_PER_SHAPE, `may hold at most ${MAX_POINTS_PER_SHAPE} points`);
 const objectError = (what: string) => ({
-  error: (issue: { code?: string; keys?: string[] }) =>
-    issue.code === "unrecognized_keys" ? `has unknown field(s) ${issue.keys?.join(", ")}` : `must be ${what}`,
+  error: (issue: { code?: string; keys?: string[] }) => (issue.code === "unrecognized_keys" ? `has unknown field(s) ${issue.keys?.join(", ")}` : `must be ${what}`),
 });
 const id = z
   .string({ error: "must be text" })
@@ -53,10 +39,11 @@ const id = z
   .max(MAX_ID_LENGTH, `must be at most ${MAX_ID_LENGTH} characters`)
   .regex(/^[A-Za-z0-9_-]*$/, "may only use letters, digits, - and _");
 
-const rectSchema = z.strictObject({ kind: z.literal("rect"), x: finite, y: finite, width: finite, height: finite }, objectError("a box"));
-const polygonSchema = z.strictObject({ kind: z.literal("polygon"), points }, objectError("an outline"));
-const lineSchema = z.strictObject({ kind: z.literal("line"), points, width: finite }, objectError("a line"));
-const spotSchema = z.strictObject({ kind: z.literal("spot"), x: finite, y: finite, radius: finite }, objectError("a spot"));
+// The saved variant of the base shapes (shape-schemas.ts): unknown fields refused, point budgets.
+const rectSchema = z.strictObject(rectShapeSchema.shape, objectError("a box"));
+const polygonSchema = z.strictObject({ ...polygonShapeSchema.shape, points }, objectError("an outline"));
+const lineSchema = z.strictObject({ ...lineShapeSchema.shape, points }, objectError("a line"));
+const spotSchema = z.strictObject(spotShapeSchema.shape, objectError("a spot"));
 
 /** Any region shape, structure only (a known kind, finite numbers); geometry is checked separately. */
 export const shapeStructureSchema = z.discriminatedUnion("kind", [rectSchema, polygonSchema, lineSchema, spotSchema], {
@@ -89,12 +76,12 @@ export function regionSetSchema(context: RegionSetContext) {
     }
   });
   const region = z.strictObject({ id, defect, shape }, objectError("an object with id, defect and shape"));
-  const surface = z.strictObject(
-    { id, shape: polygonSchema.superRefine(geometryCheck(size)) },
-    objectError("an object with id and a polygon shape"),
-  );
+  const surface = z.strictObject({ id, shape: polygonSchema.superRefine(geometryCheck(size)) }, objectError("an object with id and a polygon shape"));
   const ruler = z
-    .strictObject({ id, a: point, b: point, lengthMm: finite.gt(0, "must be more than 0 mm").max(MAX_RULER_LENGTH_MM, `must be at most ${MAX_RULER_LENGTH_MM} mm`) }, objectError("an object with id, a, b and lengthMm"))
+    .strictObject(
+      { id, a: point, b: point, lengthMm: finite.gt(0, "must be more than 0 mm").max(MAX_RULER_LENGTH_MM, `must be at most ${MAX_RULER_LENGTH_MM} mm`) },
+      objectError("an object with id, a, b and lengthMm"),
+    )
     .superRefine((value, ctx) => {
       if (pointsEqual(value.a, value.b)) ctx.addIssue({ code: "custom", message: "a ruler needs two different end points." });
       for (const end of ["a", "b"] as const) {
@@ -126,15 +113,13 @@ export function regionSetSchema(context: RegionSetContext) {
         return;
       }
       // What measuring these shapes would cost (lib/imaging/raster/cost.ts), refused before it is stored.
-      const rows = rasterRows([...set.regions, ...set.surfaces].map((r) => r.shape), size);
+      const rows = rasterRows(
+        [...set.regions, ...set.surfaces].map((r) => r.shape),
+        size,
+      );
       if (rows > MAX_RASTER_ROWS_PER_PHOTO) ctx.addIssue({ code: "custom", message: describeRasterBudget(rows) });
     });
 }
-
-// The schema's output must stay the payload type the rest of the app uses.
-type SchemaOutput = z.output<ReturnType<typeof regionSetSchema>>;
-const _payloadMatches: [SchemaOutput] extends [RegionSetPayload] ? ([RegionSetPayload] extends [SchemaOutput] ? true : false) : false = true;
-void _payloadMatches;
 
 /** The sentence for a region set that would cost too much to measure (also used when measuring). */
 export function describeRasterBudget(rows: number): string {

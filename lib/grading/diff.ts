@@ -57,9 +57,7 @@ function ruleChangeSentences(before: Rule, after: Rule, labels: GradingLabels): 
     sentences.push(`${subject}: condition for ${after.grade} changed from ${conditionValue(before)} to ${conditionValue(after)}`);
   } else if (before.threshold !== after.threshold) {
     const unit = unitOf(after);
-    sentences.push(
-      `${subject}: threshold for ${after.grade} changed from ${formatValue(unit, before.threshold)} to ${formatValue(unit, after.threshold)}`,
-    );
+    sentences.push(`${subject}: threshold for ${after.grade} changed from ${formatValue(unit, before.threshold)} to ${formatValue(unit, after.threshold)}`);
   }
   return sentences;
 }

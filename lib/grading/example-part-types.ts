@@ -8,16 +8,7 @@ import type { DefectSeverity } from "@/lib/part-types/severity";
 import type { PartTypeLists } from "./rubric-schema";
 import type { GradingLabels } from "./rule-text";
 
-export const EXAMPLE_PART_TYPE_SLUGS = [
-  "rear-camera",
-  "front-camera",
-  "battery",
-  "back-housing",
-  "display",
-  "charging-flex",
-  "button-flex",
-  "loudspeaker",
-] as const;
+export const EXAMPLE_PART_TYPE_SLUGS = ["rear-camera", "front-camera", "battery", "back-housing", "display", "charging-flex", "button-flex", "loudspeaker"] as const;
 export type ExamplePartTypeSlug = (typeof EXAMPLE_PART_TYPE_SLUGS)[number];
 
 export type ExamplePartType = PartTypeLists & { defectSeverities: Record<string, DefectSeverity> };
@@ -54,7 +45,19 @@ export const EXAMPLE_PART_TYPES: Record<ExamplePartTypeSlug, ExamplePartType> = 
     defects: ["scratch", "crack", "chip", "dent", "pixel-lit", "pixel-dark", "pixel-subpixel", "dust", "stain", "moisture", "torn-flex"],
     zones: ["screen-active", "bezel", "connector"],
     views: ["front", "back", "screen-white", "screen-black", "connector"],
-    defectSeverities: { crack: "critical", moisture: "critical", "torn-flex": "critical", chip: "major", scratch: "major", "pixel-lit": "major", "pixel-dark": "major", "pixel-subpixel": "minor", dust: "minor", stain: "minor", dent: "minor" },
+    defectSeverities: {
+      crack: "critical",
+      moisture: "critical",
+      "torn-flex": "critical",
+      chip: "major",
+      scratch: "major",
+      "pixel-lit": "major",
+      "pixel-dark": "major",
+      "pixel-subpixel": "minor",
+      dust: "minor",
+      stain: "minor",
+      dent: "minor",
+    },
   },
   "charging-flex": {
     defects: flexDefects,

@@ -11,8 +11,7 @@ import type { Rubric, Rule } from "./rubric-schema";
 
 const EXAMPLE_NOTE = "Example rubric to adapt: thresholds are (c) common practice / invented examples, not from a standard.";
 const STATIC_NOTE = "Static-sensitive part: handle on an ESD-safe mat with a grounded wrist strap.";
-export const BATTERY_CAUTION =
-  "Swollen, punctured or hot lithium cells are a fire risk: isolate in a fire-safe container, do not charge or press; follow local hazardous-waste and transport rules.";
+export const BATTERY_CAUTION = "Swollen, punctured or hot lithium cells are a fire risk: isolate in a fire-safe container, do not charge or press; follow local hazardous-waste and transport rules.";
 const DEFER_NOTE = "Grades are decision aids; company policy, supplier contracts and local regulations decide.";
 
 /** Functional checklist failures, the same ladder on every example (c). */

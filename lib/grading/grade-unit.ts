@@ -6,7 +6,6 @@
  * Measuring never depends on the rubric, so stored measurements can be graded again under any
  * other version (`regradeStored`) without measuring anything again.
  */
-import type { DefectClassDefinition, ViewDefinition } from "@/db/schema/lots";
 import { AppError } from "@/lib/errors";
 import { assertBeforeDeadline, DeadlineExceeded } from "@/lib/imaging/deadline";
 import type { Shape } from "@/lib/geometry/shape";
@@ -19,6 +18,7 @@ import type { DefectSeverity } from "@/lib/part-types/severity";
 import type { Rubric } from "./rubric-schema";
 import type { StoredUnitResult } from "./stored-measurement";
 import { buildUnitMetrics, type FunctionalFailureCounts } from "./unit-metrics";
+import type { DefectClassDefinition, ViewDefinition } from "@/lib/part-types/schemas";
 
 export type UnitPhotoInput = {
   photoId: string;
@@ -76,20 +76,24 @@ export async function measureUnit(input: UnitMeasureInput): Promise<UnitMeasureO
   for (const [index, photo] of input.photos.entries()) {
     assertBeforeDeadline(deadline);
     const view = views.get(photo.viewKey);
-    const result = await measurePhoto({
-      photoId: photo.photoId,
-      viewKey: photo.viewKey,
-      width: photo.width,
-      height: photo.height,
-      defects: photo.defects,
-      surfaces: photo.surfaces,
-      rulers: photo.rulers,
-      zones: view?.zones.map((zone) => ({ id: zone.id, polygon: zone.polygon })) ?? [],
-      nominalSizeMm: input.partType.nominalSizeMm,
-      panel: panelFor({ panelResolution: input.partType.panelResolution, viewKey: photo.viewKey, defects: photo.defects }),
-    }, { deadline }).catch((err: unknown) => {
+    const result = await measurePhoto(
+      {
+        photoId: photo.photoId,
+        viewKey: photo.viewKey,
+        width: photo.width,
+        height: photo.height,
+        defects: photo.defects,
+        surfaces: photo.surfaces,
+        rulers: photo.rulers,
+        zones: view?.zones.map((zone) => ({ id: zone.id, polygon: zone.polygon })) ?? [],
+        nominalSizeMm: input.partType.nominalSizeMm,
+        panel: panelFor({ panelResolution: input.partType.panelResolution, viewKey: photo.viewKey, defects: photo.defects }),
+      },
+      { deadline },
+    ).catch((err: unknown) => {
       // Stored regions that cannot be measured (e.g. saved before today's caps): say which photo.
-      if (err instanceof AppError && err.code === "bad_request") throw new AppError("conflict", `Photo ${index + 1} (${view?.label ?? photo.viewKey}) cannot be measured: ${err.message} Change its regions, then measure again.`);
+      if (err instanceof AppError && err.code === "bad_request")
+        throw new AppError("conflict", `Photo ${index + 1} (${view?.label ?? photo.viewKey}) cannot be measured: ${err.message} Change its regions, then measure again.`);
       throw err;
     });
     if (!view) result.notes.push(`View "${photo.viewKey}" is not one of this part type's views: no zones were measured on this photo.`);

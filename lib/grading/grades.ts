@@ -39,7 +39,8 @@ export async function recordGrade(actor: Actor, unitId: string, input: RecordGra
     if (!locked) throw notFound("That unit");
     const previous = await listGrades({ workspaceId: actor.workspaceId, unitId }, tx);
     const repeated = input.idempotencyKey ? await getGradeByIdempotencyKey({ workspaceId: actor.workspaceId, unitId, key: input.idempotencyKey }, tx) : undefined;
-    if (repeated) return { id: replayOf(repeated, { kind, decision: input.decision, finalGrade: input.decision === "override" ? input.finalGrade : undefined, reason: input.reason }).id, replayed: true };
+    if (repeated)
+      return { id: replayOf(repeated, { kind, decision: input.decision, finalGrade: input.decision === "override" ? input.finalGrade : undefined, reason: input.reason }).id, replayed: true };
     assertMayRecord({ kind, reason: input.reason, expectedCurrentGradeId: input.expectedCurrentGradeId }, previous.at(-1) ?? null, actor.roles, actor.timeZone);
     // An inspection grade moves the unit on (on bench → graded) and ends its lease.
     if (kind === "inspection") await finishInspection(tx, actor, locked);
@@ -47,18 +48,22 @@ export async function recordGrade(actor: Actor, unitId: string, input: RecordGra
       ? await getUnitMeasurement({ workspaceId: actor.workspaceId, unitId, measurementId: input.measurementId }, tx)
       : await getLatestUnitMeasurement({ workspaceId: actor.workspaceId, unitId }, tx);
     if (!measurement) {
-      throw new AppError(input.measurementId ? "not_found" : "conflict", input.measurementId ? "That measurement of this unit was not found." : "This unit has not been measured yet. Measure it, then grade.");
+      throw new AppError(
+        input.measurementId ? "not_found" : "conflict",
+        input.measurementId ? "That measurement of this unit was not found." : "This unit has not been measured yet. Measure it, then grade.",
+      );
     }
     const stored = measurement.result as StoredUnitResult;
     const current = await currentInputs(actor, unitId, tx);
     const staleness = measurementStaleness({ regionsVersions: measurement.regionsVersions, checklistStamp: stored.checklistStamp, views: stored.views }, current.inputs, photoNamer(current.photoRows));
     if (staleness.stale) throw new AppError("conflict", `The measurement is out of date: ${staleness.reasons.join(" ")} Measure again before grading.`);
 
-
     const proposed = stored.proposal.grade;
     const finalGrade = input.decision === "accept" ? proposed : input.finalGrade;
     if (input.decision === "override" && finalGrade === proposed) {
-      throw new AppError("bad_request", `The proposed grade is already ${proposed}; accept it instead of overriding.`, { fieldErrors: { finalGrade: `Choose a grade other than the proposed ${proposed}, or accept.` } });
+      throw new AppError("bad_request", `The proposed grade is already ${proposed}; accept it instead of overriding.`, {
+        fieldErrors: { finalGrade: `Choose a grade other than the proposed ${proposed}, or accept.` },
+      });
     }
     const photoRows = await listPhotoMeasurements({ workspaceId: actor.workspaceId, unitMeasurementId: measurement.id }, tx);
     const row = await insertGrade(tx, {
@@ -98,9 +103,10 @@ export async function recordGrade(actor: Actor, unitId: string, input: RecordGra
  */
 export async function gradePreview(actor: Actor, unitId: string, version?: number) {
   const unit = await requireUnit(actor, unitId);
-  const rubric = version === undefined
-    ? await getLatestPublished({ workspaceId: actor.workspaceId, partTypeId: unit.partTypeId })
-    : await getRubricVersion({ workspaceId: actor.workspaceId, partTypeId: unit.partTypeId, version });
+  const rubric =
+    version === undefined
+      ? await getLatestPublished({ workspaceId: actor.workspaceId, partTypeId: unit.partTypeId })
+      : await getRubricVersion({ workspaceId: actor.workspaceId, partTypeId: unit.partTypeId, version });
   if (!rubric) {
     throw new AppError("not_found", version === undefined ? `${unit.partType.name} has no published rubric yet.` : `Rubric version ${version} of ${unit.partType.name} was not found.`);
   }

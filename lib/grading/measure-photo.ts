@@ -49,7 +49,11 @@ export type MeasurePhotoInput = {
 
 export type PhotoMeasurementResult = { measurement: PhotoMeasurement; notes: string[] };
 
-const unit = z.number({ error: "must be a number" }).finite("must be a finite number").min(-0.5, "lies far outside the Surface box (below -0.5)").max(1.5, "lies far outside the Surface box (above 1.5)");
+const unit = z
+  .number({ error: "must be a number" })
+  .finite("must be a finite number")
+  .min(-0.5, "lies far outside the Surface box (below -0.5)")
+  .max(1.5, "lies far outside the Surface box (above 1.5)");
 const zonesSchema = z.array(
   z.object({
     id: z.string().min(1, "must not be empty"),
@@ -114,10 +118,7 @@ export async function measurePhoto(input: MeasurePhotoInput, options: CoverageOp
     notes.push("No Surface is marked: zones were placed on the whole image instead of the part's outline.");
   }
 
-  const coverage = await measureCoverage(
-    { width: input.width, height: input.height, regions: input.defects, surface: input.surfaces, zones },
-    options,
-  );
+  const coverage = await measureCoverage({ width: input.width, height: input.height, regions: input.defects, surface: input.surfaces, zones }, options);
   const calibration = calibratePhoto({ rulers: input.rulers, surface: input.surfaces, nominalSizeMm: input.nominalSizeMm });
   notes.push(calibration.detail);
 
@@ -148,9 +149,7 @@ export async function measurePhoto(input: MeasurePhotoInput, options: CoverageOp
   for (const [zoneId, zone] of Object.entries(coverage.byZone)) {
     byZone[zoneId] = {
       zonePx: zone.zonePx,
-      byDefect: Object.fromEntries(
-        Object.entries(zone.byDefect).map(([defect, m]) => [defect, { px: m.px, share: m.share, areaMm2: areaPxToMm2(m.px, calibration) }]),
-      ),
+      byDefect: Object.fromEntries(Object.entries(zone.byDefect).map(([defect, m]) => [defect, { px: m.px, share: m.share, areaMm2: areaPxToMm2(m.px, calibration) }])),
     };
     if (zone.zonePx === 0) notes.push(`Zone "${zoneId}" falls outside the Surface on this photo; its rules do not apply here.`);
   }

@@ -3,10 +3,10 @@
  * checked against (defect classes, zones, views), the severities behind the built-in critical
  * rule, and human labels for explanation lines.
  */
-import type { DefectClassDefinition, ViewDefinition } from "@/db/schema/lots";
 import type { DefectSeverity } from "@/lib/part-types/severity";
 import type { PartTypeLists } from "./rubric-schema";
 import type { GradingLabels } from "./rule-text";
+import type { DefectClassDefinition, ViewDefinition } from "@/lib/part-types/schemas";
 
 export type GradingPartType = { views: ViewDefinition[]; defectClasses: DefectClassDefinition[] };
 

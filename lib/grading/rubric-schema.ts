@@ -45,11 +45,9 @@ const KEY_PATTERN = /^[a-z0-9][a-z0-9-]{0,63}$/;
 /** Rule ids are stable across versions (the diff matches on them); ":" is reserved for built-ins. */
 const RULE_ID_PATTERN = /^[a-z0-9][a-z0-9._-]{0,63}$/;
 
-const describeInput = (input: unknown): string =>
-  typeof input === "string" ? JSON.stringify(input) : String(input);
+const describeInput = (input: unknown): string => (typeof input === "string" ? JSON.stringify(input) : String(input));
 /** zod error callback: "is required" for a missing field, else the given message. */
-const requiredOr = (message: (input: unknown) => string) => (iss: { input?: unknown }) =>
-  iss.input === undefined ? "is required" : message(iss.input);
+const requiredOr = (message: (input: unknown) => string) => (iss: { input?: unknown }) => (iss.input === undefined ? "is required" : message(iss.input));
 
 const keyField = (what: string) =>
   z
@@ -61,11 +59,7 @@ const ruleIdField = z
   .regex(RULE_ID_PATTERN, 'must be 1–64 characters of lower-case letters, digits, ".", "_" or "-", starting with a letter or digit');
 
 const gradeField = z.enum(RULE_GRADES, {
-  error: requiredOr((input) =>
-    input === "A"
-      ? "cannot be A: A is the default grade, a rule can only lower it to B, C or Reject"
-      : `must be B, C or Reject, not ${describeInput(input)}`,
-  ),
+  error: requiredOr((input) => (input === "A" ? "cannot be A: A is the default grade, a rule can only lower it to B, C or Reject" : `must be B, C or Reject, not ${describeInput(input)}`)),
 });
 
 const comparisonField = z.enum([">", ">="], {
@@ -74,21 +68,14 @@ const comparisonField = z.enum([">", ">="], {
 
 const numberField = z
   .number({
-    error: (iss) =>
-      iss.input === undefined
-        ? "is required"
-        : typeof iss.input === "number"
-          ? `must be a finite number, not ${iss.input}`
-          : `must be a number, not ${describeInput(iss.input)}`,
+    error: (iss) => (iss.input === undefined ? "is required" : typeof iss.input === "number" ? `must be a finite number, not ${iss.input}` : `must be a number, not ${describeInput(iss.input)}`),
   })
   .min(0, "cannot be negative");
 
 const unknownFieldError = (metric: string) => (iss: { code?: string; keys?: string[] }) => {
   if (iss.code !== "unrecognized_keys") return undefined;
   const keys = (iss.keys ?? []).map((key) => `"${key}"`).join(", ");
-  const zoneHint = iss.keys?.includes("zone")
-    ? " Zones record covered area only, so only share and areaMm2 rules take a zone."
-    : "";
+  const zoneHint = iss.keys?.includes("zone") ? " Zones record covered area only, so only share and areaMm2 rules take a zone." : "";
   return `unknown field ${keys} for a ${metric} rule.${zoneHint}`;
 };
 
@@ -111,10 +98,7 @@ const shareRule = z.strictObject(
   },
   { error: unknownFieldError("share") },
 );
-const areaRule = z.strictObject(
-  { ...defectRuleShape("areaMm2", numberField), zone: keyField("zone").optional() },
-  { error: unknownFieldError("areaMm2") },
-);
+const areaRule = z.strictObject({ ...defectRuleShape("areaMm2", numberField), zone: keyField("zone").optional() }, { error: unknownFieldError("areaMm2") });
 const countRule = z.strictObject(defectRuleShape("count", wholeNumber), { error: unknownFieldError("count") });
 const maxLengthRule = z.strictObject(defectRuleShape("maxLengthMm", numberField), { error: unknownFieldError("maxLengthMm") });
 const totalLengthRule = z.strictObject(defectRuleShape("totalLengthMm", numberField), { error: unknownFieldError("totalLengthMm") });
@@ -128,9 +112,7 @@ const pixelFaultRule = z.strictObject(
     comparison: z.literal("worse-than", { error: requiredOr(() => 'must be "worse-than" for a pixelFaultClass rule') }),
     threshold: z.enum(["I", "II", "III", "IV"], {
       error: requiredOr((input) =>
-        input === "beyond"
-          ? 'cannot be "beyond": no class is worse; use "IV" to mean "beyond class IV"'
-          : `must be an ISO 13406-2 class I, II, III or IV, not ${describeInput(input)}`,
+        input === "beyond" ? 'cannot be "beyond": no class is worse; use "IV" to mean "beyond class IV"' : `must be an ISO 13406-2 class I, II, III or IV, not ${describeInput(input)}`,
       ),
     }),
     grade: gradeField,
@@ -153,16 +135,9 @@ const functionalRule = z.strictObject(
 );
 
 export const ruleSchema = z
-  .discriminatedUnion(
-    "metric",
-    [shareRule, countRule, maxLengthRule, totalLengthRule, areaRule, maxDiameterRule, pixelFaultRule, functionalRule],
-    {
-      error: (iss) =>
-        iss.code === "invalid_union"
-          ? `unknown metric ${describeInput((iss.input as { metric?: unknown } | undefined)?.metric)}; use one of ${METRICS.join(", ")}`
-          : undefined,
-    },
-  )
+  .discriminatedUnion("metric", [shareRule, countRule, maxLengthRule, totalLengthRule, areaRule, maxDiameterRule, pixelFaultRule, functionalRule], {
+    error: (iss) => (iss.code === "invalid_union" ? `unknown metric ${describeInput((iss.input as { metric?: unknown } | undefined)?.metric)}; use one of ${METRICS.join(", ")}` : undefined),
+  })
   .superRefine((rule, ctx) => {
     // ">= 0" holds for every unit, clean ones included: certainly a mistake for "> 0".
     if (rule.comparison === ">=" && rule.threshold === 0) {
@@ -179,17 +154,14 @@ export type DefectRule = Extract<Rule, { metric: DefectMetric }>;
 export type PixelFaultRule = Extract<Rule, { metric: "pixelFaultClass" }>;
 export type FunctionalRule = Extract<Rule, { metric: "functionalFailures" }>;
 
-export const isDefectRule = (rule: Rule): rule is DefectRule =>
-  (DEFECT_METRICS as readonly string[]).includes(rule.metric);
+export const isDefectRule = (rule: Rule): rule is DefectRule => (DEFECT_METRICS as readonly string[]).includes(rule.metric);
 /** The zone of a share/areaMm2 rule, undefined otherwise. */
 export const ruleZone = (rule: Rule): string | undefined => ("zone" in rule ? rule.zone : undefined);
 
 export const rubricSchema = z
   .strictObject(
     {
-      rules: z
-        .array(ruleSchema, { error: requiredOr(() => "must be a list of rules") })
-        .max(MAX_RULES, `has too many rules: at most ${MAX_RULES} are allowed`),
+      rules: z.array(ruleSchema, { error: requiredOr(() => "must be a list of rules") }).max(MAX_RULES, `has too many rules: at most ${MAX_RULES} are allowed`),
       notes: z
         .array(z.string({ error: "must be text" }).trim().min(1, "cannot be empty").max(1000, "is longer than 1000 characters"), {
           error: "must be a list of texts",
@@ -221,8 +193,7 @@ export type Rubric = z.infer<typeof rubricSchema>;
 export type PartTypeLists = { defects: readonly string[]; zones?: readonly string[]; views?: readonly string[] };
 export type RubricIssue = { path: (string | number)[]; message: string };
 
-const allowedList = (values: readonly string[]) =>
-  values.length === 0 ? "this part type has none" : `allowed: ${values.slice(0, 20).join(", ")}${values.length > 20 ? ", …" : ""}`;
+const allowedList = (values: readonly string[]) => (values.length === 0 ? "this part type has none" : `allowed: ${values.slice(0, 20).join(", ")}${values.length > 20 ? ", …" : ""}`);
 
 /** Checks a (structurally valid) rubric's defect classes, zones and views against a part type. */
 export function validateRubricAgainstPartType(rubric: Rubric, partType: PartTypeLists): RubricIssue[] {
@@ -260,9 +231,7 @@ export function formatRubricIssues(issues: readonly { path: PropertyKey[]; messa
   });
 }
 
-export type ParseRubricResult =
-  | { ok: true; rubric: Rubric }
-  | { ok: false; errors: string[]; fieldErrors: Record<string, string> };
+export type ParseRubricResult = { ok: true; rubric: Rubric } | { ok: false; errors: string[]; fieldErrors: Record<string, string> };
 
 /** Validates unknown input (e.g. a trainer's JSON) into a rubric, with human error sentences. */
 export function parseRubric(input: unknown, partType?: PartTypeLists): ParseRubricResult {

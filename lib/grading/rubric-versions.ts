@@ -62,7 +62,14 @@ export async function openDraft(actor: Actor, partTypeId: string): Promise<{ cre
       const plan = planDraft(versions);
       if (plan.kind === "existing") return { created: false, version: plan.version };
       await insertRubricVersion(tx, { workspaceId: actor.workspaceId, partTypeId, version: plan.version, rubric: plan.rubric, basedOnVersion: plan.basedOnVersion, actorId: actor.id });
-      await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.id, action: "rubric.draft_opened", subjectType: "part_type", subjectId: partTypeId, detail: { version: plan.version, basedOnVersion: plan.basedOnVersion, partType: partType.name } });
+      await logActivity(tx, {
+        workspaceId: actor.workspaceId,
+        actorId: actor.id,
+        action: "rubric.draft_opened",
+        subjectType: "part_type",
+        subjectId: partTypeId,
+        detail: { version: plan.version, basedOnVersion: plan.basedOnVersion, partType: partType.name },
+      });
       return { created: true, version: plan.version };
     });
   } catch (err) {
@@ -93,7 +100,14 @@ export async function saveDraft(actor: Actor, partTypeId: string, input: unknown
     assertEditable(draft);
     assertDraftUnchanged(draft, seen, "saved", actor.timeZone);
     const updated = await updateDraftRubric(tx, { workspaceId: actor.workspaceId, partTypeId, rubric, actorId: actor.id, revision: seen.revision });
-    await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.id, action: "rubric.draft_saved", subjectType: "part_type", subjectId: partTypeId, detail: { version: draft.version, revision: updated.revision, rules: rubric.rules.length } });
+    await logActivity(tx, {
+      workspaceId: actor.workspaceId,
+      actorId: actor.id,
+      action: "rubric.draft_saved",
+      subjectType: "part_type",
+      subjectId: partTypeId,
+      detail: { version: draft.version, revision: updated.revision, rules: rubric.rules.length },
+    });
     return { version: updated.version, revision: updated.revision, rubric };
   });
 }
@@ -109,7 +123,14 @@ export async function publishDraft(actor: Actor, partTypeId: string, seen: Draft
     // The part type may have changed since the draft was saved: check its lists again.
     rubricOrThrow(draft.rubric, gradingContextOf(partType).lists);
     const published = await markDraftPublished(tx, { workspaceId: actor.workspaceId, partTypeId, actorId: actor.id });
-    await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.id, action: "rubric.published", subjectType: "part_type", subjectId: partTypeId, detail: { version: published.version, partType: partType.name } });
+    await logActivity(tx, {
+      workspaceId: actor.workspaceId,
+      actorId: actor.id,
+      action: "rubric.published",
+      subjectType: "part_type",
+      subjectId: partTypeId,
+      detail: { version: published.version, partType: partType.name },
+    });
     return { version: published.version };
   });
 }

@@ -5,16 +5,7 @@
  * message ("must be a number, not "abc"") reaches the person. `rubricFormErrors` places the
  * schema's messages on the fields they are about, for react-hook-form.
  */
-import {
-  DEFECT_METRICS,
-  ZONED_METRICS,
-  parseRubric,
-  type Metric,
-  type PartTypeLists,
-  type Rubric,
-  type Rule,
-  type RuleGrade,
-} from "./rubric-schema";
+import { DEFECT_METRICS, ZONED_METRICS, parseRubric, type Metric, type PartTypeLists, type Rubric, type Rule, type RuleGrade } from "./rubric-schema";
 import type { DefectSeverity } from "@/lib/part-types/severity";
 
 export type RuleFormValues = {

@@ -74,8 +74,7 @@ export function formatPair(unit: Unit, value: number | string, threshold: number
   return [formatValue(unit, value, 4), formatValue(unit, threshold, 4)];
 }
 
-const inView = (rule: Rule, labels: GradingLabels) =>
-  rule.metric !== "functionalFailures" && rule.view !== undefined ? ` in the ${label(labels.views, rule.view)} view` : "";
+const inView = (rule: Rule, labels: GradingLabels) => (rule.metric !== "functionalFailures" && rule.view !== undefined ? ` in the ${label(labels.views, rule.view)} view` : "");
 
 /** Who a rule is about, without numbers: "scratch on lens window", "pixel faults in the Screen white view". */
 export function ruleSubject(rule: Rule, labels: GradingLabels = {}): string {
@@ -100,13 +99,10 @@ const opText = (comparison: string) => (comparison === ">=" ? "≥" : comparison
 
 /** The condition alone: "share > 0.5 %", "longest ≥ 3.0 mm", "worse than class II". */
 export const ruleCondition = (rule: Rule): string =>
-  rule.metric === "pixelFaultClass"
-    ? `worse than ${classText(rule.threshold)}`
-    : `${metricWord[rule.metric]} ${opText(rule.comparison)} ${formatValue(unitOf(rule), rule.threshold)}`;
+  rule.metric === "pixelFaultClass" ? `worse than ${classText(rule.threshold)}` : `${metricWord[rule.metric]} ${opText(rule.comparison)} ${formatValue(unitOf(rule), rule.threshold)}`;
 
 /** A whole rule in one phrase: "scratch on lens window, share > 0.5 % → B". */
-export const describeRule = (rule: Rule, labels: GradingLabels = {}): string =>
-  `${ruleSubject(rule, labels)}, ${ruleCondition(rule)} → ${rule.grade}`;
+export const describeRule = (rule: Rule, labels: GradingLabels = {}): string => `${ruleSubject(rule, labels)}, ${ruleCondition(rule)} → ${rule.grade}`;
 
 /** The explanation line of a fired rule, e.g. "scratch covers 0.8 % of lens window > 0.5 % allowed for A → B". */
 export function explainFiredRule(rule: Rule, value: number | PixelFaultClass, labels: GradingLabels = {}): string {

@@ -10,11 +10,11 @@
  * - the sample photos are calibrated at 10 px/mm and their surface is 1 000 000 px;
  * - a class with any non-zero reading on a photo is present there (count at least 1).
  */
-import type { ViewDefinition } from "@/db/schema/lots";
 import type { DefectMeasure, PhotoMeasurement, PixelFaultClass } from "@/lib/measure/types";
 import type { DefectSeverity } from "@/lib/part-types/severity";
 import { ruleZone, type Rubric } from "./rubric-schema";
 import type { FunctionalFailureCounts } from "./unit-metrics";
+import type { ViewDefinition } from "@/lib/part-types/schemas";
 
 export const ANY_VIEW = "(any view)";
 const SURFACE_PX = 1_000_000;
@@ -103,7 +103,16 @@ function applyReading(photo: PhotoMeasurement, reading: SampleReading, value: nu
 
 /** Sample photo measurements and failure counts from the typed values (missing values are 0). */
 export function buildSampleUnit(views: readonly ViewDefinition[], rubric: Rubric, values: SampleValues): { photos: PhotoMeasurement[]; functionalFailures: FunctionalFailureCounts } {
-  const photos = new Map<string, PhotoMeasurement>(views.map((view, i) => [view.key, samplePhoto(`sample-${i + 1}`, view.key, view.zones.map((z) => z.id))]));
+  const photos = new Map<string, PhotoMeasurement>(
+    views.map((view, i) => [
+      view.key,
+      samplePhoto(
+        `sample-${i + 1}`,
+        view.key,
+        view.zones.map((z) => z.id),
+      ),
+    ]),
+  );
   const anyView = samplePhoto("sample-any", ANY_VIEW, []);
   const photoFor = (view: string | null, zone: string | null) => {
     if (view !== null) return photos.get(view) ?? null;
@@ -118,7 +127,8 @@ export function buildSampleUnit(views: readonly ViewDefinition[], rubric: Rubric
   }
   for (const pixel of pixels) {
     const photo = photoFor(pixel.view, null);
-    if (photo) photo.pixelFaults = { panelPixels: 1_000_000, counts: { alwaysLit: 0, alwaysDark: 0, subPixel: 0, clustersLitOrDark: 0, clustersSubPixel: 0 }, isoClass: values.pixelClasses[pixel.key] ?? "I" };
+    if (photo)
+      photo.pixelFaults = { panelPixels: 1_000_000, counts: { alwaysLit: 0, alwaysDark: 0, subPixel: 0, clustersLitOrDark: 0, clustersSubPixel: 0 }, isoClass: values.pixelClasses[pixel.key] ?? "I" };
   }
   return { photos: [...photos.values(), anyView], functionalFailures: values.functionalFailures };
 }

@@ -17,18 +17,15 @@ export type MeasuredInputs = {
 export type Staleness = { stale: boolean; reasons: string[] };
 
 /** Reasons why `measured` is not `current`, as sentences; none means current. */
-export function measurementStaleness(
-  measured: MeasuredInputs,
-  current: MeasuredInputs,
-  photoName: (photoId: string) => string = (id) => `Photo ${id.slice(0, 8)}`,
-): Staleness {
+export function measurementStaleness(measured: MeasuredInputs, current: MeasuredInputs, photoName: (photoId: string) => string = (id) => `Photo ${id.slice(0, 8)}`): Staleness {
   const reasons: string[] = [];
   for (const [photoId, version] of Object.entries(measured.regionsVersions)) {
     const now = current.regionsVersions[photoId];
     if (now === undefined) reasons.push(`${photoName(photoId)} was measured but is no longer part of the unit.`);
     else if (now !== version) reasons.push(`${photoName(photoId)}: regions changed since measuring (version ${version} → ${now}).`);
     const [viewThen, viewNow] = [measured.views?.[photoId], current.views?.[photoId]];
-    if (now !== undefined && viewThen !== undefined && viewNow !== undefined && viewThen !== viewNow) reasons.push(`${photoName(photoId)}: filed under another view since measuring (${viewThen} → ${viewNow}).`);
+    if (now !== undefined && viewThen !== undefined && viewNow !== undefined && viewThen !== viewNow)
+      reasons.push(`${photoName(photoId)}: filed under another view since measuring (${viewThen} → ${viewNow}).`);
   }
   for (const photoId of Object.keys(current.regionsVersions)) {
     if (!(photoId in measured.regionsVersions)) reasons.push(`${photoName(photoId)} was added after measuring.`);
@@ -38,5 +35,4 @@ export function measurementStaleness(
 }
 
 /** Time stamps compare as ISO strings; Date values from the database are normalised here. */
-export const checklistStampOf = (latest: Date | string | null | undefined): string | null =>
-  latest === null || latest === undefined ? null : new Date(latest).toISOString();
+export const checklistStampOf = (latest: Date | string | null | undefined): string | null => (latest === null || latest === undefined ? null : new Date(latest).toISOString());

@@ -135,7 +135,14 @@ export async function measureAndStore(actor: GradingActor, unitId: string, optio
       photos: outcome.photos.map((p) => ({ kind: "photo", ...p })),
       actorId: actor.id,
     });
-    await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.id, action: "unit.measured", subjectType: "unit", subjectId: unitId, detail: { measurementId: ids.unitMeasurementId, rubricVersion: loaded.rubric.version, proposed: outcome.unit.proposal.grade } });
+    await logActivity(tx, {
+      workspaceId: actor.workspaceId,
+      actorId: actor.id,
+      action: "unit.measured",
+      subjectType: "unit",
+      subjectId: unitId,
+      detail: { measurementId: ids.unitMeasurementId, rubricVersion: loaded.rubric.version, proposed: outcome.unit.proposal.grade },
+    });
     return ids;
   });
   const row = await getUnitMeasurement({ workspaceId: actor.workspaceId, unitId, measurementId: stored.unitMeasurementId });

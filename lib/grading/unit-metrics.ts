@@ -52,20 +52,13 @@ const measurementSchema = z.object({
   photoId: z.string().min(1),
   viewKey: z.string().min(1),
   calibration: z.object({ pxPerMm: z.number().positive().nullable() }),
-  byDefect: z.record(
-    z.string(),
-    z.object({ share: fraction, count, areaMm2: optionalMm, maxLengthMm: optionalMm, totalLengthMm: optionalMm, maxDiameterMm: optionalMm }),
-  ),
-  byZone: z.record(
-    z.string(),
-    z.object({ zonePx: z.number().min(0), byDefect: z.record(z.string(), z.object({ px: z.number().min(0), share: fraction, areaMm2: optionalMm })) }),
-  ),
+  byDefect: z.record(z.string(), z.object({ share: fraction, count, areaMm2: optionalMm, maxLengthMm: optionalMm, totalLengthMm: optionalMm, maxDiameterMm: optionalMm })),
+  byZone: z.record(z.string(), z.object({ zonePx: z.number().min(0), byDefect: z.record(z.string(), z.object({ px: z.number().min(0), share: fraction, areaMm2: optionalMm })) })),
   pixelFaults: z.object({ isoClass: z.enum(PIXEL_FAULT_CLASSES) }).nullable(),
 });
 const failuresSchema = z.strictObject({ critical: count, major: count, minor: count });
 
-const invalid = (what: string, issue: z.core.$ZodIssue) =>
-  new AppError("bad_request", `Invalid ${what}: ${issue.path.map(String).join(".") || "value"}: ${issue.message}`);
+const invalid = (what: string, issue: z.core.$ZodIssue) => new AppError("bad_request", `Invalid ${what}: ${issue.path.map(String).join(".") || "value"}: ${issue.message}`);
 
 /** Validates a unit's photo measurements and failure counts into the form rules read. */
 export function buildUnitMetrics(input: { photos: readonly PhotoMeasurement[]; functionalFailures: FunctionalFailureCounts }): UnitMetrics {
@@ -86,9 +79,7 @@ export function buildUnitMetrics(input: { photos: readonly PhotoMeasurement[]; f
     const byZone: PhotoMetrics["byZone"] = {};
     for (const [zone, zoneMeasure] of Object.entries(photo.byZone)) {
       if (zoneMeasure.zonePx <= 0) continue; // zone outside the surface on this photo: not applicable
-      byZone[zone] = Object.fromEntries(
-        Object.entries(zoneMeasure.byDefect).map(([defect, m]) => [defect, { sharePercent: m.share * 100, px: m.px, areaMm2: m.areaMm2 }]),
-      );
+      byZone[zone] = Object.fromEntries(Object.entries(zoneMeasure.byDefect).map(([defect, m]) => [defect, { sharePercent: m.share * 100, px: m.px, areaMm2: m.areaMm2 }]));
     }
     return {
       photoId: photo.photoId,
@@ -117,8 +108,7 @@ const maxOf = (values: number[]) => values.reduce((a, b) => Math.max(a, b), 0);
 const sumOf = (values: number[]) => values.reduce((a, b) => a + b, 0);
 
 /** Total count of a defect class over all photos (used by the built-in critical-defect rule). */
-export const totalDefectCount = (metrics: UnitMetrics, defect: string): number =>
-  sumOf(metrics.photos.map((photo) => photo.byDefect[defect]?.count ?? 0));
+export const totalDefectCount = (metrics: UnitMetrics, defect: string): number => sumOf(metrics.photos.map((photo) => photo.byDefect[defect]?.count ?? 0));
 
 /** Reads the value a rule compares, aggregated over the photos the rule applies to. */
 export function readMetric(metrics: UnitMetrics, rule: Rule): MetricReading {

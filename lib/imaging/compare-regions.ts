@@ -72,9 +72,7 @@ export type ClassAreas = { onlyA: SpanSet; onlyB: SpanSet; both: SpanSet };
 export type CompareOptions = { regionRaster?: RegionRaster; keepAreas?: boolean };
 export type RegionSetComparison = { surfacePx: number; byDefect: Record<string, ClassComparison> };
 
-const comparisonSchema = z
-  .object({ width: photoSide, height: photoSide, a: regionListSchema, b: regionListSchema, surface: surfaceSchema.optional() })
-  .superRefine(checkPhotoSize);
+const comparisonSchema = z.object({ width: photoSide, height: photoSide, a: regionListSchema, b: regionListSchema, surface: surfaceSchema.optional() }).superRefine(checkPhotoSize);
 
 type Group = { regionIds: string[]; mask: SpanSet; px: number; matched: boolean };
 
@@ -83,7 +81,11 @@ export async function compareRegionSets(input: RegionSetComparisonInput, options
   const frame = { width, height };
   const surfaceSpans = surfaceMask(surface, frame);
   // Both sides in one call (with sharp: one render per atlas instead of two).
-  const rawMasks = await regionMasks([...a, ...b].map((region) => region.shape), frame, options.regionRaster ?? "exact");
+  const rawMasks = await regionMasks(
+    [...a, ...b].map((region) => region.shape),
+    frame,
+    options.regionRaster ?? "exact",
+  );
   const clipped = rawMasks.map((mask) => intersectSpanSets(mask, surfaceSpans));
   const sideA = { regions: a, masks: clipped.slice(0, a.length) };
   const sideB = { regions: b, masks: clipped.slice(a.length) };

@@ -91,9 +91,7 @@ export async function measureCoverage(input: CoverageInput, options: CoverageOpt
   return {
     surfacePx,
     byDefect: Object.fromEntries(byDefect),
-    byZone: Object.fromEntries(
-      zoneMeasures.map((zone, zoneIndex) => [zone.id, { zonePx: zone.zonePx, byDefect: Object.fromEntries(zoneRows[zoneIndex]) }]),
-    ),
+    byZone: Object.fromEntries(zoneMeasures.map((zone, zoneIndex) => [zone.id, { zonePx: zone.zonePx, byDefect: Object.fromEntries(zoneRows[zoneIndex]) }])),
   };
 }
 

@@ -69,10 +69,12 @@ export function evaluateSuggestions(photos: readonly EvaluationPhoto[], { iouThr
   for (const photo of photos) addCounts(total, matchPhoto(photo, photo.accepted, photo.suggested, iouThreshold));
   // Object.fromEntries defines own keys, so a class named "__proto__" stays plain data.
   const byClass: Record<string, ClassFigures> = Object.fromEntries(
-    [...total].sort(([a], [b]) => a.localeCompare(b)).map(([defect, counts]) => {
-      const { recall, precision, f1 } = rates(counts);
-      return [defect, { ...counts, recall: round(recall), precision: round(precision), f1: round(f1) }];
-    }),
+    [...total]
+      .sort(([a], [b]) => a.localeCompare(b))
+      .map(([defect, counts]) => {
+        const { recall, precision, f1 } = rates(counts);
+        return [defect, { ...counts, recall: round(recall), precision: round(precision), f1: round(f1) }];
+      }),
   );
   return { iouThreshold, photos: photos.length, byClass };
 }
@@ -120,7 +122,18 @@ function meanF1(standing: ModelStanding, classes: readonly string[]): number {
 
 /** Whether `candidate` replaces `current` (both evaluated on the same test photos). */
 export function compareModels(candidate: ModelStanding, current: ModelStanding | null): { switchIn: boolean; candidateScore: number; currentScore: number | null; reason: string } {
-  if (!current) return { switchIn: true, candidateScore: round(meanF1(candidate, candidate.suggestable.filter((c) => c.suggest).map((c) => c.defect))), currentScore: null, reason: "No model is in use yet." };
+  if (!current)
+    return {
+      switchIn: true,
+      candidateScore: round(
+        meanF1(
+          candidate,
+          candidate.suggestable.filter((c) => c.suggest).map((c) => c.defect),
+        ),
+      ),
+      currentScore: null,
+      reason: "No model is in use yet.",
+    };
   const classes = [...new Set([...candidate.suggestable, ...current.suggestable].filter((c) => c.suggest).map((c) => c.defect))].sort();
   const candidateScore = round(meanF1(candidate, classes));
   const currentScore = round(meanF1(current, classes));
@@ -129,5 +142,10 @@ export function compareModels(candidate: ModelStanding, current: ModelStanding |
   const candidateSuggests = candidate.suggestable.some((c) => c.suggest);
   const switchIn = candidateScore > currentScore || (candidateScore === currentScore && candidateSuggests);
   const over = classes.length ? `over ${classes.join(", ")}` : "(no class may be suggested by either)";
-  return { switchIn, candidateScore, currentScore, reason: `Mean held-out F1 ${over}: new ${candidateScore}, in use ${currentScore}; ${switchIn ? "the new model is switched in" : "the model in use stays"}.` };
+  return {
+    switchIn,
+    candidateScore,
+    currentScore,
+    reason: `Mean held-out F1 ${over}: new ${candidateScore}, in use ${currentScore}; ${switchIn ? "the new model is switched in" : "the model in use stays"}.`,
+  };
 }

@@ -1,6 +1,6 @@
 /**
  * Learned suggestions: a workspace's own accepted regions teach a model that proposes defect
- * regions and classes on new photos. Contract: PRODUCT.md, "Computation contracts". Pure
+ * regions and classes on new photos. Contract: docs/contracts.md, "lib/imaging/learned.ts". Pure
  * functions over buffers: no database, no globals, plain data in and out, so training can run in
  * a worker thread or the job worker and the model goes into a jsonb column as it is.
  *

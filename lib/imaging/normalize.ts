@@ -68,8 +68,7 @@ export function configureSharpForWorker(options: { concurrency?: number } = {}):
 /** Whether the installed libvips/libheif decodes these (prebuilt sharp: AV1 yes, HEVC no). */
 export const canDecodeAvif = () => sharp.format.heif.input.buffer && hasSuffix(".avif");
 export const canDecodeHeic = () => sharp.format.heif.input.buffer && hasSuffix(".heic");
-const hasSuffix = (suffix: string) =>
-  ((sharp.format.heif.input as { fileSuffix?: string[] }).fileSuffix ?? []).includes(suffix);
+const hasSuffix = (suffix: string) => ((sharp.format.heif.input as { fileSuffix?: string[] }).fileSuffix ?? []).includes(suffix);
 
 const megabytes = (bytes: number) => (bytes / (1024 * 1024)).toFixed(1);
 
@@ -78,10 +77,7 @@ export async function normalizePhoto(input: Buffer): Promise<NormalizedPhoto> {
     throw new PhotoRejectedError("empty", "The file is empty (0 bytes); choose the photo again.");
   }
   if (input.length > MAX_PHOTO_BYTES) {
-    throw new PhotoRejectedError(
-      "too_large",
-      `This file is ${megabytes(input.length)} MB; a photo may be at most ${megabytes(MAX_PHOTO_BYTES)} MB.`,
-    );
+    throw new PhotoRejectedError("too_large", `This file is ${megabytes(input.length)} MB; a photo may be at most ${megabytes(MAX_PHOTO_BYTES)} MB.`);
   }
   const sniffed = sniffPhotoFormat(input);
   if (sniffed.kind === "refused") throw new PhotoRejectedError("unsupported_format", sniffed.message);
@@ -103,10 +99,7 @@ export async function normalizePhoto(input: Buffer): Promise<NormalizedPhoto> {
     throw isPixelLimitError(error) ? await tooManyPixels(input, error) : corrupt(error);
   }
   // The intermediate is our own well-formed pixels: a failure from here on is a fault, not bad input.
-  const [preview, thumbnail] = await Promise.all([
-    encodeWebp(upright, null, PREVIEW_WEBP),
-    encodeWebp(upright, THUMBNAIL_LONG_EDGE, THUMBNAIL_WEBP),
-  ]);
+  const [preview, thumbnail] = await Promise.all([encodeWebp(upright, null, PREVIEW_WEBP), encodeWebp(upright, THUMBNAIL_LONG_EDGE, THUMBNAIL_WEBP)]);
 
   const capture = readExifCaptureTime(header.exif);
   return {
@@ -128,11 +121,7 @@ export async function normalizePhoto(input: Buffer): Promise<NormalizedPhoto> {
 }
 
 const corrupt = (cause: unknown) =>
-  new PhotoRejectedError(
-    "corrupt",
-    "This photo could not be read: the file is damaged or incomplete (perhaps the upload was cut off). Export or take it again.",
-    { cause },
-  );
+  new PhotoRejectedError("corrupt", "This photo could not be read: the file is damaged or incomplete (perhaps the upload was cut off). Export or take it again.", { cause });
 
 const isPixelLimitError = (error: unknown) => error instanceof Error && /exceeds pixel limit/i.test(error.message);
 
@@ -156,11 +145,7 @@ async function tooManyPixels(input: Buffer, cause: unknown): Promise<PhotoReject
     // Reading the header without the limit is safe: metadata() never decodes pixels.
     const { width, height } = await sharp(input, { limitInputPixels: false }).metadata();
     const megapixels = ((width * height) / 1_000_000).toFixed(1);
-    return new PhotoRejectedError(
-      "too_many_pixels",
-      `This photo is ${width} × ${height} pixels (${megapixels} megapixels); ${limit}. Reduce its size and upload again.`,
-      { cause },
-    );
+    return new PhotoRejectedError("too_many_pixels", `This photo is ${width} × ${height} pixels (${megapixels} megapixels); ${limit}. Reduce its size and upload again.`, { cause });
   } catch {
     return new PhotoRejectedError("too_many_pixels", `This photo has too many pixels; ${limit}.`, { cause });
   }

@@ -135,10 +135,7 @@ export function imagingError(error: unknown): AppError {
  * 256-level histogram of the upright photo in greyscale (libvips' sRGB → B-W conversion), counted
  * from raw bytes because sharp's `stats()` reports no histogram.
  */
-export async function greyscaleHistogram(
-  input: Buffer,
-  options: { limitInputPixels?: number } = {},
-): Promise<{ width: number; height: number; histogram: number[] }> {
+export async function greyscaleHistogram(input: Buffer, options: { limitInputPixels?: number } = {}): Promise<{ width: number; height: number; histogram: number[] }> {
   try {
     const { data, info } = await sharp(input, { limitInputPixels: options.limitInputPixels ?? 100_000_000, autoOrient: true })
       .greyscale()

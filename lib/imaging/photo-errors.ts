@@ -26,24 +26,18 @@ export type AcceptedPhotoFormat = "jpeg" | "png" | "webp" | "avif" | "heic";
  * What the first bytes say. `heif` is an ISO-BMFF image whose brands name no codec we can tell
  * apart (plain `mif1`); the decoder's metadata settles it. `heic` is HEVC-coded HEIF.
  */
-export type SniffedFormat =
-  | { kind: "accepted"; format: AcceptedPhotoFormat }
-  | { kind: "heif" }
-  | { kind: "heic" }
-  | { kind: "refused"; message: string };
+export type SniffedFormat = { kind: "accepted"; format: AcceptedPhotoFormat } | { kind: "heif" } | { kind: "heic" } | { kind: "refused"; message: string };
 
 const ACCEPTED_LIST = "JPEG, PNG, WebP or AVIF";
 
-export const heicMessage = () =>
-  "This file is a HEIC photo, which this server cannot read; convert it to JPEG and upload again.";
+export const heicMessage = () => "This file is a HEIC photo, which this server cannot read; convert it to JPEG and upload again.";
 
 const refusedNamed = (what: string): SniffedFormat => ({
   kind: "refused",
   message: `This file is ${what}, which is not accepted as a photo; upload it as ${ACCEPTED_LIST}.`,
 });
 
-const startsWith = (bytes: Buffer, signature: number[], at = 0) =>
-  bytes.length >= at + signature.length && signature.every((byte, i) => bytes[at + i] === byte);
+const startsWith = (bytes: Buffer, signature: number[], at = 0) => bytes.length >= at + signature.length && signature.every((byte, i) => bytes[at + i] === byte);
 
 const ascii = (bytes: Buffer, start: number, end: number) => bytes.toString("latin1", start, end);
 
@@ -71,7 +65,11 @@ function sniffIsoBmff(bytes: Buffer): SniffedFormat | null {
 
 /** Text (SVG, HTML, CSV…) is recognised by its first non-blank characters being printable. */
 function sniffText(bytes: Buffer): SniffedFormat | null {
-  const head = bytes.subarray(0, 1024).toString("utf8").replace(/^\uFEFF/, "").trimStart();
+  const head = bytes
+    .subarray(0, 1024)
+    .toString("utf8")
+    .replace(/^\uFEFF/, "")
+    .trimStart();
   if (head.length === 0) return null;
   // An SVG may open with an XML declaration, a doctype or comments before its <svg> element.
   if (head.startsWith("<") && /<svg[\s>]/i.test(head)) return refusedNamed("an SVG drawing");

@@ -48,7 +48,13 @@ import { compileSearchArea, searchableTiles, type Box, type CompiledArea, type P
 
 const pointSchema = z.tuple([z.number().finite(), z.number().finite()]);
 const optionsSchema = z.object({
-  medianSize: z.number().int().min(3).max(25).refine((v) => v % 2 === 1, "medianSize must be odd.").default(9),
+  medianSize: z
+    .number()
+    .int()
+    .min(3)
+    .max(25)
+    .refine((v) => v % 2 === 1, "medianSize must be odd.")
+    .default(9),
   sigmas: z.number().positive().default(6),
   minContrast: z.number().min(1).max(255).default(24),
   lowRatio: z.number().gt(0).max(1).default(0.5),
@@ -58,7 +64,13 @@ const optionsSchema = z.object({
   within: z.object({ x: z.number().int().min(0), y: z.number().int().min(0), width: z.number().int().positive(), height: z.number().int().positive() }).optional(),
   /** Search only inside these regions, an edge band in from their edges (see pixel-search-area.ts). */
   area: z
-    .object({ regions: z.array(z.object({ polygons: z.array(z.array(pointSchema).min(3)).min(1) })).min(1).max(8), edgeBandPx: z.number().min(0).max(2000) })
+    .object({
+      regions: z
+        .array(z.object({ polygons: z.array(z.array(pointSchema).min(3)).min(1) }))
+        .min(1)
+        .max(8),
+      edgeBandPx: z.number().min(0).max(2000),
+    })
     .optional(),
   maxCandidates: z.number().int().positive().default(500),
   /** Raw RGB plus a mask costs about 4 bytes per pixel. */
@@ -143,7 +155,16 @@ export async function suggestPixelCandidates(input: Buffer, options: PixelCandid
     area = parsed.data.area ? compileSearchArea(parsed.data.area, size) : null;
     return searchBox(area, within, size);
   });
-  const empty = { searched: box, candidates: [], noiseSigma: [0, 0, 0] as [number, number, number], seedThreshold: [0, 0, 0] as [number, number, number], largeGroups: 0, droppedAsRinging: 0, droppedNearEdge: 0, truncated: false };
+  const empty = {
+    searched: box,
+    candidates: [],
+    noiseSigma: [0, 0, 0] as [number, number, number],
+    seedThreshold: [0, 0, 0] as [number, number, number],
+    largeGroups: 0,
+    droppedAsRinging: 0,
+    droppedNearEdge: 0,
+    truncated: false,
+  };
   if (box.width === 0 || box.height === 0) return empty;
   const compiled = area as CompiledArea | null;
   const tiles = compiled
@@ -153,7 +174,11 @@ export async function suggestPixelCandidates(input: Buffer, options: PixelCandid
   const sigma = await residualSigma(rgb, medianSize, usableAt);
   const high = sigma.map((s) => Math.max(sigmas * s, minContrast));
   const low = high.map((h) => lowRatio * h);
-  const suspect = suspectTiles(rgb, tiles, high.map((h) => PREFILTER_RATIO * h));
+  const suspect = suspectTiles(
+    rgb,
+    tiles,
+    high.map((h) => PREFILTER_RATIO * h),
+  );
   let boxes = workBoxes(suspect, tiles.columns, tiles.rows, rgb);
   const work = boxes.reduce((sum, b) => sum + b.width * b.height, 0);
   if (work > MAX_WORK_SHARE * rgb.width * rgb.height) boxes = [{ x: 0, y: 0, width: rgb.width, height: rgb.height }];

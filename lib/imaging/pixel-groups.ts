@@ -55,11 +55,17 @@ function shareOfRoom(deviation: number, background: number): number {
  */
 export function describeGroup(rgb: Rgb, members: number[], seeds: number[], medianSize: number, offsetX: number, offsetY: number): PixelCandidate {
   const { data, width, height } = rgb;
-  let minX = width, minY = height, maxX = 0, maxY = 0;
+  let minX = width,
+    minY = height,
+    maxX = 0,
+    maxY = 0;
   for (const index of members) {
     const x = index % width;
     const y = (index - x) / width;
-    minX = Math.min(minX, x); maxX = Math.max(maxX, x); minY = Math.min(minY, y); maxY = Math.max(maxY, y);
+    minX = Math.min(minX, x);
+    maxX = Math.max(maxX, x);
+    minY = Math.min(minY, y);
+    maxY = Math.max(maxY, y);
   }
   const half = (medianSize - 1) / 2;
   const background = boxMedian(rgb, Math.max(0, minX - half), Math.max(0, minY - half), Math.min(width - 1, maxX + half), Math.min(height - 1, maxY + half));
@@ -70,7 +76,10 @@ export function describeGroup(rgb: Rgb, members: number[], seeds: number[], medi
     }
   }
   const strength = (index: number) => Math.max(...[0, 1, 2].map((c) => shareOfRoom(data[index * 3 + c] - background[c], background[c])));
-  let weight = 0, sumX = 0, sumY = 0, score = 0;
+  let weight = 0,
+    sumX = 0,
+    sumY = 0,
+    score = 0;
   for (const index of seeds) {
     const w = strength(index);
     const x = index % width;
@@ -107,9 +116,7 @@ export function dropRinging(sorted: PixelCandidate[]): PixelCandidate[] {
     let ringing = false;
     for (let gy = cy - 1; gy <= cy + 1 && !ringing; gy++) {
       for (let gx = cx - 1; gx <= cx + 1 && !ringing; gx++) {
-        ringing = (grid.get(`${gx},${gy}`) ?? []).some(
-          (strong) => candidate.score < RINGING_RATIO * strong.score && Math.hypot(strong.x - candidate.x, strong.y - candidate.y) <= RINGING_DISTANCE,
-        );
+        ringing = (grid.get(`${gx},${gy}`) ?? []).some((strong) => candidate.score < RINGING_RATIO * strong.score && Math.hypot(strong.x - candidate.x, strong.y - candidate.y) <= RINGING_DISTANCE);
       }
     }
     if (ringing) continue;

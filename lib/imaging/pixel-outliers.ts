@@ -40,7 +40,10 @@ async function medianOfBoxes(rgb: Rgb, medianSize: number, boxes: readonly Box[]
       for (let x = x1; x < outer.x + outer.width; x++) data.copy(packed, (target + x - outer.x) * 3, (source + width - 1) * 3, (source + width) * 3);
     }
   }
-  const strip = await sharp(packed, { raw: { width: stripWidth, height: rows, channels: 3 }, limitInputPixels: false }).median(medianSize).raw().toBuffer();
+  const strip = await sharp(packed, { raw: { width: stripWidth, height: rows, channels: 3 }, limitInputPixels: false })
+    .median(medianSize)
+    .raw()
+    .toBuffer();
   return { strip, stripWidth, placed };
 }
 
@@ -109,15 +112,24 @@ export function suspectTiles(rgb: Rgb, tiles: { columns: number; rows: number; u
       if (!tiles.usable[t]) continue;
       const x0 = tx * TILE;
       const span = (Math.min(width, x0 + TILE) - x0) * 3;
-      let s0 = 0, s1 = 0, s2 = 0;
-      let lo0 = 255, lo1 = 255, lo2 = 255, hi0 = 0, hi1 = 0, hi2 = 0;
+      let s0 = 0,
+        s1 = 0,
+        s2 = 0;
+      let lo0 = 255,
+        lo1 = 255,
+        lo2 = 255,
+        hi0 = 0,
+        hi1 = 0,
+        hi2 = 0;
       for (let y = y0; y < y1; y++) {
         const end = (y * width + x0) * 3 + span;
         for (let i = (y * width + x0) * 3; i < end; i += 3) {
           const v0 = data[i];
           const v1 = data[i + 1];
           const v2 = data[i + 2];
-          s0 += v0; s1 += v1; s2 += v2;
+          s0 += v0;
+          s1 += v1;
+          s2 += v2;
           if (v0 < lo0) lo0 = v0;
           if (v0 > hi0) hi0 = v0;
           if (v1 < lo1) lo1 = v1;
@@ -127,7 +139,9 @@ export function suspectTiles(rgb: Rgb, tiles: { columns: number; rows: number; u
         }
       }
       const n = ((y1 - y0) * span) / 3;
-      const m0 = s0 / n, m1 = s1 / n, m2 = s2 / n;
+      const m0 = s0 / n,
+        m1 = s1 / n,
+        m2 = s2 / n;
       if (hi0 - m0 >= l0 || m0 - lo0 >= l0 || hi1 - m1 >= l1 || m1 - lo1 >= l1 || hi2 - m2 >= l2 || m2 - lo2 >= l2) suspect[t] = 1;
     }
   }
@@ -140,14 +154,20 @@ export function workBoxes(suspect: Uint8Array, columns: number, rows: number, im
   const boxes: Box[] = [];
   for (let start = 0; start < suspect.length; start++) {
     if (!suspect[start] || seen[start]) continue;
-    let minX = columns, minY = rows, maxX = 0, maxY = 0;
+    let minX = columns,
+      minY = rows,
+      maxX = 0,
+      maxY = 0;
     const stack = [start];
     seen[start] = 1;
     while (stack.length > 0) {
       const t = stack.pop()!;
       const tx = t % columns;
       const ty = (t - tx) / columns;
-      minX = Math.min(minX, tx); maxX = Math.max(maxX, tx); minY = Math.min(minY, ty); maxY = Math.max(maxY, ty);
+      minX = Math.min(minX, tx);
+      maxX = Math.max(maxX, tx);
+      minY = Math.min(minY, ty);
+      maxY = Math.max(maxY, ty);
       // Neighbours two tiles away join too: their grown boxes would touch.
       for (let ny = Math.max(0, ty - 2); ny <= Math.min(rows - 1, ty + 2); ny++) {
         for (let nx = Math.max(0, tx - 2); nx <= Math.min(columns - 1, tx + 2); nx++) {

@@ -12,6 +12,7 @@ import sharp from "sharp";
 import { z } from "zod";
 import { AppError } from "@/lib/errors";
 import type { Point, PolygonShape } from "@/lib/geometry/shape";
+import { simplifyRing } from "@/lib/geometry/simplify";
 import { histogramOfBytes, imagingError, otsuSplit } from "@/lib/imaging/otsu";
 
 const optionsSchema = z.object({
@@ -168,45 +169,6 @@ function edgeMidpointRing(corners: Point[]): Point[] {
   return ring;
 }
 
-function distanceToSegment([px, py]: Point, [ax, ay]: Point, [bx, by]: Point): number {
-  const vx = bx - ax;
-  const vy = by - ay;
-  const lengthSquared = vx * vx + vy * vy;
-  const t = lengthSquared === 0 ? 0 : Math.max(0, Math.min(1, ((px - ax) * vx + (py - ay) * vy) / lengthSquared));
-  return Math.hypot(px - (ax + t * vx), py - (ay + t * vy));
-}
-
-/** Douglas–Peucker on a closed ring: split at point 0 and the point farthest from it. */
-export function simplifyRing(ring: Point[], tolerance: number): Point[] {
-  if (ring.length <= 4) return ring.slice();
-  let far = 0;
-  let farDistance = -1;
-  for (let i = 1; i < ring.length; i++) {
-    const d = Math.hypot(ring[i][0] - ring[0][0], ring[i][1] - ring[0][1]);
-    if (d > farDistance) [far, farDistance] = [i, d];
-  }
-  const keep = new Uint8Array(ring.length + 1);
-  keep[0] = keep[far] = keep[ring.length] = 1;
-  const at = (i: number) => ring[i % ring.length];
-  const stack: [number, number][] = [[0, far], [far, ring.length]];
-  while (stack.length > 0) {
-    const [from, to] = stack.pop()!;
-    let worst = -1;
-    let worstDistance = tolerance;
-    for (let i = from + 1; i < to; i++) {
-      const d = distanceToSegment(at(i), at(from), at(to));
-      if (d > worstDistance) [worst, worstDistance] = [i, d];
-    }
-    if (worst >= 0) {
-      keep[worst] = 1;
-      stack.push([from, worst], [worst, to]);
-    }
-  }
-  const simplified: Point[] = [];
-  for (let i = 0; i < ring.length; i++) if (keep[i]) simplified.push(ring[i]);
-  return simplified;
-}
-
 function countBorder(mask: Uint8Array, width: number, height: number): { lighter: number; all: number } {
   let lighter = 0;
   let all = 0;
@@ -226,8 +188,7 @@ function judge(separability: number, share: number, touchesBorder: boolean, main
   if (touchesBorder) doubts.push("the outline touches the photo edge (part cut off, or backdrop not plain)");
   if (share < 0.02 || share > 0.9) doubts.push(`the part covers ${(share * 100).toFixed(1)} % of the photo`);
   if (mainShare < 0.9) doubts.push(`only ${(mainShare * 100).toFixed(0)} % of the part-coloured pixels are in the outline (clutter or a split part)`);
-  const confidence: "high" | "medium" | "low" =
-    doubts.length === 0 ? "high" : separability < 0.5 || doubts.length >= 2 ? "low" : "medium";
+  const confidence: "high" | "medium" | "low" = doubts.length === 0 ? "high" : separability < 0.5 || doubts.length >= 2 ? "low" : "medium";
   return { confidence, doubts };
 }
 
@@ -265,8 +226,7 @@ export async function suggestSurface(input: Buffer, options: SuggestSurfaceOptio
   const lighter = new Uint8Array(width * height);
   for (let i = 0; i < lighter.length; i++) lighter[i] = grey.data[i] >= split.threshold ? 1 : 0;
   const border = countBorder(lighter, width, height);
-  const partSide: "darker" | "lighter" =
-    part !== "auto" ? part : border.lighter * 2 < border.all ? "lighter" : "darker";
+  const partSide: "darker" | "lighter" = part !== "auto" ? part : border.lighter * 2 < border.all ? "lighter" : "darker";
   const partMask = partSide === "lighter" ? lighter : lighter.map((v) => 1 - v);
 
   const { component, size, candidateTotal } = largestComponent({ width, height, data: partMask });

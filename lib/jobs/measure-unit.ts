@@ -9,7 +9,7 @@ import "server-only";
  * measureUnitQueueOptions)` and `boss.work(MEASURE_UNIT_QUEUE, handleMeasureUnitJobs)`.
  */
 import type PgBoss from "pg-boss";
-import { pool } from "@/db/client";
+import { notifyJobs } from "@/db/jobs";
 import { AppError } from "@/lib/errors";
 import { DeadlineExceeded } from "@/lib/imaging/deadline";
 import { MEASURE_JOB_BUDGET_MS } from "@/lib/grading/schemas";
@@ -50,7 +50,12 @@ export async function handleMeasureUnitJobs(jobs: PgBoss.Job<MeasureUnitJob>[]):
     try {
       await measureAndStore({ id: requestedBy, workspaceId }, unitId);
     } catch (err) {
-      const reason = err instanceof DeadlineExceeded ? `Measuring took longer than ${MEASURE_JOB_BUDGET_MS / 1000} s and was stopped; nothing was stored. Use fewer or simpler regions.` : err instanceof AppError ? err.message : null;
+      const reason =
+        err instanceof DeadlineExceeded
+          ? `Measuring took longer than ${MEASURE_JOB_BUDGET_MS / 1000} s and was stopped; nothing was stored. Use fewer or simpler regions.`
+          : err instanceof AppError
+            ? err.message
+            : null;
       if (reason === null) throw err;
       console.warn(`measure-unit job ${job.id}: unit ${unitId} was not measured: ${reason}`);
       output = { notMeasured: reason };
@@ -66,7 +71,7 @@ const sender = () => queueSender(measureUnitQueueOptions);
 export async function enqueueMeasureUnit(job: MeasureUnitJob): Promise<{ jobId: string | null }> {
   const boss = await sender();
   const jobId = await boss.send(MEASURE_UNIT_QUEUE, job, { singletonKey: job.unitId });
-  if (jobId) await pool().query("SELECT pg_notify($1, $2)", [JOB_NOTIFY_CHANNEL, MEASURE_UNIT_QUEUE]);
+  if (jobId) await notifyJobs(JOB_NOTIFY_CHANNEL, MEASURE_UNIT_QUEUE);
   return { jobId };
 }
 

@@ -7,9 +7,9 @@ import "server-only";
  * fallback when the notification is missed.
  */
 import PgBoss from "pg-boss";
-import pg from "pg";
 import { z } from "zod";
 import { closeDb } from "@/db/client";
+import { listenForJobs } from "@/db/jobs";
 import { configureSharpForWorker } from "@/lib/imaging/normalize";
 import { photoSettings } from "@/lib/photos/config";
 import { processPhoto } from "@/lib/photos/process";
@@ -42,7 +42,8 @@ async function handlePhotoJob([job]: PgBoss.JobWithMetadata<PhotoProcessJob>[]) 
     return { outcome };
   } catch (err) {
     const next = isLastAttempt ? "no retries left" : `retry ${job.retryCount + 1} of ${job.retryLimit} follows`;
-    const cause = err instanceof ObjectStoreUnavailableError ? `photo store unreachable (${(err.cause as Error | undefined)?.message ?? "no answer"})` : err instanceof Error ? err.message : String(err);
+    const cause =
+      err instanceof ObjectStoreUnavailableError ? `photo store unreachable (${(err.cause as Error | undefined)?.message ?? "no answer"})` : err instanceof Error ? err.message : String(err);
     console.error(`photo ${photoId}: attempt ${job.retryCount + 1} failed (${next}): ${cause}`);
     throw err;
   }
@@ -55,7 +56,9 @@ async function handleMailJob([job]: PgBoss.JobWithMetadata<MailDeliveryJob>[]) {
 
 async function handlePrune() {
   const report = await pruneAccountRecords();
-  console.log(`account records pruned: ${report.rateLimitCounters} rate-limit counters, ${report.revokedSessions} revoked sessions, ${report.authTokens} tokens, ${report.signUpRequests} sign-up requests`);
+  console.log(
+    `account records pruned: ${report.rateLimitCounters} rate-limit counters, ${report.revokedSessions} revoked sessions, ${report.authTokens} tokens, ${report.signUpRequests} sign-up requests`,
+  );
   return report;
 }
 
@@ -65,36 +68,6 @@ async function handleSweep() {
     `orphan sweep: ${report.scanned} objects scanned, ${report.deleted.length} deleted, ${report.blocked.length} kept by the deletion gate, ${report.noticesRemoved} old failure notices removed, ${report.stalledMarked} stalled photos marked failed`,
   );
   return { deleted: report.deleted.length, blocked: report.blocked.length, noticesRemoved: report.noticesRemoved, stalledMarked: report.stalledMarked };
-}
-
-/** LISTEN on its own connection; reconnects after a database restart. */
-function listenForJobs(connectionString: string, onJob: (queue: string) => void): () => Promise<void> {
-  let client: pg.Client | null = null;
-  let stopped = false;
-  const connect = async () => {
-    if (stopped) return;
-    const next = new pg.Client({ connectionString, application_name: "partproof-worker-listen" });
-    next.on("notification", (message) => {
-      if (message.payload) onJob(message.payload);
-    });
-    next.on("error", () => {
-      next.end().catch(() => {});
-      if (!stopped) setTimeout(() => void connect(), 5_000);
-    });
-    try {
-      await next.connect();
-      await next.query(`LISTEN ${JOB_NOTIFY_CHANNEL}`);
-      client = next;
-    } catch {
-      next.end().catch(() => {});
-      if (!stopped) setTimeout(() => void connect(), 5_000);
-    }
-  };
-  void connect();
-  return async () => {
-    stopped = true;
-    await client?.end().catch(() => {});
-  };
 }
 
 export async function runWorker(): Promise<void> {
@@ -129,7 +102,7 @@ export async function runWorker(): Promise<void> {
   await boss.work<MailDeliveryJob>(MAIL_SEND_QUEUE, { includeMetadata: true, batchSize: 1, pollingIntervalSeconds: 2 }, handleMailJob);
   await boss.work(PRUNE_QUEUE, { pollingIntervalSeconds: 30 }, handlePrune);
   await boss.schedule(PRUNE_QUEUE, "41 * * * *", {}, { tz: "UTC" });
-  const stopListening = listenForJobs(connectionString, (queue) => {
+  const stopListening = listenForJobs(connectionString, JOB_NOTIFY_CHANNEL, (queue) => {
     if (queue === PHOTO_PROCESS_QUEUE) photoWorkers.forEach((id) => boss.notifyWorker(id));
     if (queue === MEASURE_UNIT_QUEUE) boss.notifyWorker(measureWorker);
     if (queue === SUGGESTION_TRAINING_QUEUE) boss.notifyWorker(trainingWorker);

@@ -5,7 +5,7 @@ import "server-only";
  * sent to a missing queue). The queues of background work the web app asks for use it.
  */
 import PgBoss from "pg-boss";
-import { pool } from "@/db/client";
+import { jobDbOnPool } from "@/db/jobs";
 
 const cache = globalThis as unknown as { __partproofQueueSenders?: Map<string, Promise<PgBoss>> };
 
@@ -14,7 +14,7 @@ export function queueSender(queue: PgBoss.Queue): Promise<PgBoss> {
   let sender = senders.get(queue.name);
   if (!sender) {
     sender = (async () => {
-      const boss = new PgBoss({ db: { executeSql: (text, values) => pool().query(text, values) }, supervise: false, schedule: false, migrate: true });
+      const boss = new PgBoss({ db: jobDbOnPool(), supervise: false, schedule: false, migrate: true });
       boss.on("error", (err) => console.error(`pg-boss (${queue.name} sender) error`, err));
       await boss.start();
       await boss.createQueue(queue.name, queue);

@@ -3,11 +3,9 @@ import "server-only";
  * Sending jobs from the web app, inside a database transaction: pg-boss inserts the job through
  * the transaction's own connection, so it commits or rolls back with the row it is about.
  */
-import { drizzle } from "drizzle-orm/node-postgres";
 import PgBoss from "pg-boss";
-import type pg from "pg";
-import { pool, type Database } from "@/db/client";
-import * as schema from "@/db/schema";
+import type { Database } from "@/db/client";
+import { jobDbOnPool, notifyJobs, transactionWithJobDb, type JobDb } from "@/db/jobs";
 import { mailDeliveryJob } from "@/lib/mail/deliver";
 import type { OutgoingMessage } from "@/lib/mail/send";
 import { ensureQueues, JOB_NOTIFY_CHANNEL, MAIL_SEND_QUEUE, PHOTO_PROCESS_QUEUE, type PhotoProcessJob } from "./queues";
@@ -17,7 +15,7 @@ const cache = globalThis as unknown as { __partproofSender?: Promise<PgBoss> };
 /** A started pg-boss that only sends: no maintenance, no schedules, no workers in this process. */
 function sender(): Promise<PgBoss> {
   cache.__partproofSender ??= (async () => {
-    const boss = new PgBoss({ db: { executeSql: (text, values) => pool().query(text, values) }, supervise: false, schedule: false, migrate: true });
+    const boss = new PgBoss({ db: jobDbOnPool(), supervise: false, schedule: false, migrate: true });
     boss.on("error", (err) => console.error("pg-boss (sender) error", err));
     await boss.start();
     await ensureQueues(boss);
@@ -34,14 +32,13 @@ export type JobSender = {
   sendMailDelivery: (delivery: { emailId: string; message: OutgoingMessage }) => Promise<void>;
 };
 
-function jobSenderOn(client: pg.PoolClient, boss: PgBoss): JobSender {
-  const db = { executeSql: (text: string, values: unknown[]) => client.query(text, values) };
+function jobSenderOn(db: JobDb, boss: PgBoss): JobSender {
   return {
     async sendPhotoProcessing(photoId) {
       const data: PhotoProcessJob = { photoId };
       const id = await boss.send(PHOTO_PROCESS_QUEUE, data, { db });
       if (!id) throw new Error(`pg-boss did not accept a ${PHOTO_PROCESS_QUEUE} job (does the queue exist?)`);
-      await client.query("SELECT pg_notify($1, $2)", [JOB_NOTIFY_CHANNEL, PHOTO_PROCESS_QUEUE]);
+      await notifyJobs(JOB_NOTIFY_CHANNEL, PHOTO_PROCESS_QUEUE, db);
     },
     async sendMailDelivery(delivery) {
       const id = await boss.send(MAIL_SEND_QUEUE, mailDeliveryJob(delivery), { db });
@@ -53,17 +50,5 @@ function jobSenderOn(client: pg.PoolClient, boss: PgBoss): JobSender {
 /** Runs `work` in one transaction whose jobs are sent through the same connection. */
 export async function transactionWithJobs<T>(work: (tx: Database, jobs: JobSender) => Promise<T>): Promise<T> {
   const boss = await sender();
-  const client = await pool().connect();
-  try {
-    await client.query("BEGIN");
-    const tx = drizzle(client, { schema, casing: "snake_case" }) as unknown as Database;
-    const result = await work(tx, jobSenderOn(client, boss));
-    await client.query("COMMIT");
-    return result;
-  } catch (err) {
-    await client.query("ROLLBACK").catch(() => {});
-    throw err;
-  } finally {
-    client.release();
-  }
+  return transactionWithJobDb((tx, db) => work(tx, jobSenderOn(db, boss)));
 }

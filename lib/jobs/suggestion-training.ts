@@ -8,7 +8,7 @@ import "server-only";
  *   the worker runs on SUGGESTION_CHECK_CRON, for every workspace `trainingDue` (training-set.ts).
  */
 import type PgBoss from "pg-boss";
-import { pool } from "@/db/client";
+import { notifyJobs } from "@/db/jobs";
 import { acceptedRegionTotals } from "@/db/queries/suggestions";
 import { trainWorkspaceModel, type TrainingOutcome } from "@/lib/suggestions/training";
 import { ACCEPTED_UNIT_STATUSES, trainingDue } from "@/lib/suggestions/training-set";
@@ -38,7 +38,9 @@ export async function handleSuggestionTrainingJobs(jobs: PgBoss.Job<SuggestionTr
     const started = performance.now();
     outcome = await trainWorkspaceModel(job.data.workspaceId, job.data.requestedBy);
     const took = `${((performance.now() - started) / 1000).toFixed(1)} s`;
-    console.log(`suggestion-training ${job.id} (workspace ${job.data.workspaceId}, ${took}): ${outcome.trained ? `version ${outcome.version}, ${outcome.decision}` : `not trained: ${outcome.reason}`}`);
+    console.log(
+      `suggestion-training ${job.id} (workspace ${job.data.workspaceId}, ${took}): ${outcome.trained ? `version ${outcome.version}, ${outcome.decision}` : `not trained: ${outcome.reason}`}`,
+    );
   }
   return outcome;
 }
@@ -48,7 +50,7 @@ const sender = () => queueSender(suggestionTrainingQueueOptions);
 /** Queues a training; jobId null when one for this workspace is already waiting. */
 export async function enqueueSuggestionTraining(job: SuggestionTrainingJob, boss?: PgBoss): Promise<{ jobId: string | null }> {
   const jobId = await (boss ?? (await sender())).send(SUGGESTION_TRAINING_QUEUE, job, { singletonKey: job.workspaceId });
-  if (jobId) await pool().query("SELECT pg_notify($1, $2)", [JOB_NOTIFY_CHANNEL, SUGGESTION_TRAINING_QUEUE]);
+  if (jobId) await notifyJobs(JOB_NOTIFY_CHANNEL, SUGGESTION_TRAINING_QUEUE);
   return { jobId };
 }
 

@@ -35,8 +35,6 @@ import { PIXEL_FAULT_DEFECTS } from "@/lib/measure/pixel-faults";
 import type { PromisedGrade } from "./schemas";
 import type { FindingDefect } from "./verdict";
 
-
-
 export type GradeEvidence = {
   finalGrade: Grade;
   /** The grade's explanation lines (rule id and the grade each fired rule gave). */

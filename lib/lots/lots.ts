@@ -22,8 +22,10 @@ export async function createLot(actor: SessionUser, input: LotCreateInput) {
   const pair = { workspaceId: actor.workspaceId, supplierId: input.supplierId, partTypeId: input.partTypeId };
   return transaction(async (tx) => {
     const { supplier, partType } = await assertPair(pair, tx);
-    if (!supplier.active) throw new AppError("conflict", `${supplier.name} is marked inactive; reactivate the supplier before receiving a lot.`, { fieldErrors: { supplierId: "This supplier is inactive." } });
-    if (!partType.active) throw new AppError("conflict", `${partType.name} is retired; reactivate the part type before receiving a lot.`, { fieldErrors: { partTypeId: "This part type is retired." } });
+    if (!supplier.active)
+      throw new AppError("conflict", `${supplier.name} is marked inactive; reactivate the supplier before receiving a lot.`, { fieldErrors: { supplierId: "This supplier is inactive." } });
+    if (!partType.active)
+      throw new AppError("conflict", `${partType.name} is retired; reactivate the part type before receiving a lot.`, { fieldErrors: { partTypeId: "This part type is retired." } });
     const { state } = await switchingStateFor(pair, tx);
     if (state.discontinued) {
       throw new AppError("conflict", `Inspection of ${partType.name} from ${supplier.name} is discontinued: ${state.reason} A lead records the supplier's corrective action before the next lot.`);
@@ -44,9 +46,13 @@ export async function createLot(actor: SessionUser, input: LotCreateInput) {
       throw err;
     }
     if (plan.sampleSize > MAX_UNITS_PER_LOT) {
-      throw new AppError("bad_request", `This lot would need ${plan.sampleSize.toLocaleString("en-GB")} units inspected (${partType.name} is inspected 100 %); at most ${MAX_UNITS_PER_LOT.toLocaleString("en-GB")} fit one lot. Split the delivery.`, {
-        fieldErrors: { quantity: `At most ${MAX_UNITS_PER_LOT.toLocaleString("en-GB")} for a part type inspected 100 %.` },
-      });
+      throw new AppError(
+        "bad_request",
+        `This lot would need ${plan.sampleSize.toLocaleString("en-GB")} units inspected (${partType.name} is inspected 100 %); at most ${MAX_UNITS_PER_LOT.toLocaleString("en-GB")} fit one lot. Split the delivery.`,
+        {
+          fieldErrors: { quantity: `At most ${MAX_UNITS_PER_LOT.toLocaleString("en-GB")} for a part type inspected 100 %.` },
+        },
+      );
     }
     const row = await insertLot(tx, {
       workspaceId: actor.workspaceId,

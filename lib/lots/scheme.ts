@@ -47,7 +47,14 @@ export async function updateScheme(actor: SessionUser, input: SchemeUpdateInput)
     }
     const values = { ...settings, updatedBy: actor.id, updatedAt: new Date() };
     await upsertScheme(tx, pair, values);
-    await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.id, action: "inspection_scheme.updated", subjectType: "supplier", subjectId: input.supplierId, detail: { partTypeId: input.partTypeId, ...settings } });
+    await logActivity(tx, {
+      workspaceId: actor.workspaceId,
+      actorId: actor.id,
+      action: "inspection_scheme.updated",
+      subjectType: "supplier",
+      subjectId: input.supplierId,
+      detail: { partTypeId: input.partTypeId, ...settings },
+    });
     return switchingStateFor(pair, tx);
   });
 }

@@ -36,10 +36,7 @@ export function decidedLotForSwitching(lot: DecidedLotRow, label: string = lot.p
   };
 }
 
-export function switchingInputFor(
-  decided: readonly DecidedLotRow[],
-  scheme: { reducedAllowed: boolean; steadyProduction: boolean; resumedAfterLotIds: string[] } | null,
-): SwitchingInput {
+export function switchingInputFor(decided: readonly DecidedLotRow[], scheme: { reducedAllowed: boolean; steadyProduction: boolean; resumedAfterLotIds: string[] } | null): SwitchingInput {
   const labels = lotLabels(decided);
   return {
     history: decided.map((lot) => decidedLotForSwitching(lot, labels.get(lot.id))),

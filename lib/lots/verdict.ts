@@ -106,9 +106,7 @@ export function lotVerdict(plan: PlanPart, findings: readonly UnitFinding[]): Lo
   if (verdict === "reject") {
     summary = `Reject: ${rejected.map((c) => `${c.found} ${c.severity} defective${c.found === 1 ? "" : "s"} in the first ${c.sampleSize} units reach${c.found === 1 ? "es" : ""} Re ${c.reject}`).join("; ")}.`;
   } else if (verdict === "accept") {
-    summary = reinstateNormal
-      ? "Accept, with a count between Ac and Re on reduced inspection: the next lot returns to normal inspection."
-      : "Accept: every class is within its acceptance number.";
+    summary = reinstateNormal ? "Accept, with a count between Ac and Re on reduced inspection: the next lot returns to normal inspection." : "Accept: every class is within its acceptance number.";
   } else {
     summary = `Pending: ${unitsInspected} of ${plan.sampleSize} units inspected; no class has reached its rejection number.`;
   }
@@ -125,7 +123,14 @@ export function decidedVerdictView(plan: PlanPart, decided: { verdict: "accept" 
     const entry = plan.byDefectSeverity[severity];
     const { found, inspected } = decided.counts[severity];
     const judgement = judgeLot(entry, found);
-    classes[severity] = { ...classes[severity], found, inspected, foundOutsideSample: 0, status: judgement === "not-accepted" ? "reject" : "accept", reinstateNormal: judgement === "accept-reinstate-normal" };
+    classes[severity] = {
+      ...classes[severity],
+      found,
+      inspected,
+      foundOutsideSample: 0,
+      status: judgement === "not-accepted" ? "reject" : "accept",
+      reinstateNormal: judgement === "accept-reinstate-normal",
+    };
   }
   const summary = `Decided: ${decided.verdict}, on the counts recorded with the decision.`;
   return { ...live, verdict: decided.verdict, reinstateNormal: DEFECT_SEVERITIES.some((s) => classes[s].reinstateNormal), classes, summary };

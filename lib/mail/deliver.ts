@@ -8,9 +8,7 @@ import "server-only";
  * password (auth_tokens keeps only its hash), so the job carries it sealed with a key derived
  * from NEXTAUTH_SECRET (lib/signing/sealed-box.ts): whoever can read the database cannot read it.
  */
-import { eq, sql } from "drizzle-orm";
-import { db } from "@/db/client";
-import { outgoingEmails } from "@/db/schema";
+import { getOutgoingEmailStatus, recordDeliveryAttempt } from "@/db/queries/emails";
 import { env } from "@/lib/env";
 import { open, seal } from "@/lib/signing/sealed-box";
 import type { OutgoingMessage } from "./send";
@@ -58,17 +56,14 @@ const UNREADABLE = "The queued message could not be read back (NEXTAUTH_SECRET d
  * tries again later; on the last attempt the row is marked failed instead.
  */
 export async function retryQueuedMail(job: MailDeliveryJob, { isLastAttempt }: { isLastAttempt: boolean }): Promise<"sent" | "already sent" | "failed"> {
-  const [row] = await db().select({ status: outgoingEmails.status }).from(outgoingEmails).where(eq(outgoingEmails.id, job.emailId));
-  if (!row || row.status === "sent") return "already sent";
+  const current = await getOutgoingEmailStatus({ emailId: job.emailId });
+  if (!current || current === "sent") return "already sent";
   const message = open<QueuedMessage>(SEAL_PURPOSE, job.sealed, { secret: env().NEXTAUTH_SECRET });
   const attempt: DeliveryAttempt = message
     ? await deliverNow({ ...message, attachments: message.attachments?.map((a) => ({ filename: a.filename, contentType: a.contentType, content: Buffer.from(a.contentBase64, "base64") })) })
     : { ok: false, error: UNREADABLE };
   const status = attempt.ok ? "sent" : isLastAttempt || !message ? "failed" : "queued";
-  await db()
-    .update(outgoingEmails)
-    .set({ status, messageId: attempt.ok ? attempt.messageId : null, error: attempt.ok ? null : attempt.error, attempts: sql`${outgoingEmails.attempts} + 1`, updatedAt: new Date() })
-    .where(eq(outgoingEmails.id, job.emailId));
+  await recordDeliveryAttempt({ emailId: job.emailId, status, messageId: attempt.ok ? attempt.messageId : null, error: attempt.ok ? null : attempt.error });
   if (status === "queued") throw new Error(`mail server still refuses: ${attempt.ok ? "" : attempt.error}`);
   return status;
 }

@@ -6,8 +6,8 @@ import "server-only";
  * failed (retries used up). Delivery is at least once: a worker that dies after the server took
  * a message but before recording it sends that message again.
  */
-import { db } from "@/db/client";
-import { outgoingEmails, type OutgoingEmail } from "@/db/schema";
+import { insertOutgoingEmail } from "@/db/queries/emails";
+import type { OutgoingEmail } from "@/db/schema";
 import { transactionWithJobs } from "@/lib/jobs/send";
 import { deliverNow } from "./deliver";
 
@@ -36,9 +36,9 @@ export async function sendMail(message: OutgoingMessage): Promise<OutgoingEmail>
     status: attempt.ok ? ("sent" as const) : ("queued" as const),
     error: attempt.ok ? null : attempt.error,
   };
-  if (attempt.ok) return (await db().insert(outgoingEmails).values(values).returning())[0];
+  if (attempt.ok) return insertOutgoingEmail(values);
   return transactionWithJobs(async (tx, jobs) => {
-    const [row] = await tx.insert(outgoingEmails).values(values).returning();
+    const row = await insertOutgoingEmail(values, tx);
     await jobs.sendMailDelivery({ emailId: row.id, message });
     return row;
   });

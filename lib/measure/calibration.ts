@@ -39,7 +39,10 @@ export function calibrationFromRuler(ruler: RulerInput): number {
 
 /** Axis-aligned bounding box of shapes (lines include half their width, spots their radius). */
 export function shapesBoundingBox(shapes: Shape[]): { minX: number; minY: number; maxX: number; maxY: number } | null {
-  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
+  let minX = Infinity,
+    minY = Infinity,
+    maxX = -Infinity,
+    maxY = -Infinity;
   const include = (x: number, y: number, pad = 0) => {
     minX = Math.min(minX, x - pad);
     minY = Math.min(minY, y - pad);
@@ -121,11 +124,7 @@ function fromNominal(surface: Shape[], nominal: { width: number; height: number 
 }
 
 /** The photo's calibration: Ruler(s) first, then nominal size vs Surface, else none. */
-export function calibratePhoto(input: {
-  rulers: RulerInput[];
-  surface?: Shape[];
-  nominalSizeMm?: { width: number; height: number } | null;
-}): Calibration {
+export function calibratePhoto(input: { rulers: RulerInput[]; surface?: Shape[]; nominalSizeMm?: { width: number; height: number } | null }): Calibration {
   if (!Array.isArray(input.rulers)) throw new AppError("bad_request", "Rulers must be a list (it may be empty).");
   if (input.rulers.length > 0) return fromRulers(input.rulers);
   const surface = input.surface ?? [];

@@ -17,6 +17,7 @@
 import { z } from "zod";
 import { AppError } from "@/lib/errors";
 import type { Point, Shape } from "@/lib/geometry/shape";
+import { SHAPE_KINDS, spotShapeSchema } from "@/lib/geometry/shape-schemas";
 import type { PixelFaultClass, PixelFaultCounts } from "@/lib/measure/types";
 
 export const PIXEL_LIT = "pixel-lit";
@@ -69,9 +70,7 @@ export function pixelFaultClass(counts: PixelFaultCounts, panelPixels: number): 
  * - `corners`: photo positions of the active area's outer corners, in panel order top-left,
  *   top-right, bottom-right, bottom-left (any rotation or perspective); exact indices follow.
  */
-export type PanelMapping =
-  | { kind: "scale"; photoPxPerPanelPx: number }
-  | { kind: "corners"; corners: [Point, Point, Point, Point] };
+export type PanelMapping = { kind: "scale"; photoPxPerPanelPx: number } | { kind: "corners"; corners: [Point, Point, Point, Point] };
 
 const pointSchema = z.tuple([z.number().finite(), z.number().finite()]);
 const inputSchema = z.object({
@@ -84,10 +83,7 @@ const inputSchema = z.object({
       id: z.string(),
       defect: z.string(),
       // Only Spots are read; other kinds just need their tag.
-      shape: z.union([
-        z.object({ kind: z.literal("spot"), x: z.number().finite(), y: z.number().finite(), radius: z.number().finite().nonnegative() }),
-        z.object({ kind: z.enum(["rect", "polygon", "line"]) }).passthrough(),
-      ]),
+      shape: z.union([spotShapeSchema.extend({ radius: spotShapeSchema.shape.radius.nonnegative() }), z.object({ kind: z.enum(SHAPE_KINDS).exclude(["spot"]) }).passthrough()]),
     }),
   ),
   mapping: z
@@ -124,7 +120,10 @@ export function squareToQuad(corners: [Point, Point, Point, Point]): Mat3 {
   let g = 0;
   let h = 0;
   if (Math.abs(sx) > 1e-9 || Math.abs(sy) > 1e-9) {
-    const dx1 = x1 - x2, dx2 = x3 - x2, dy1 = y1 - y2, dy2 = y3 - y2;
+    const dx1 = x1 - x2,
+      dx2 = x3 - x2,
+      dy1 = y1 - y2,
+      dy2 = y3 - y2;
     const den = dx1 * dy2 - dx2 * dy1;
     if (Math.abs(den) < 1e-12) throw new AppError("bad_request", "The panel corners are degenerate (three in a line).");
     g = (sx * dy2 - dx2 * sy) / den;
@@ -134,7 +133,9 @@ export function squareToQuad(corners: [Point, Point, Point, Point]): Mat3 {
 }
 
 function invert3([a, b, c, d, e, f, g, h, i]: Mat3): Mat3 {
-  const A = e * i - f * h, B = -(d * i - f * g), C = d * h - e * g;
+  const A = e * i - f * h,
+    B = -(d * i - f * g),
+    C = d * h - e * g;
   const det = a * A + b * B + c * C;
   if (Math.abs(det) < 1e-12) throw new AppError("bad_request", "The panel corners do not span an area.");
   return [A / det, -(b * i - c * h) / det, (b * f - c * e) / det, B / det, (a * i - c * g) / det, -(a * f - c * d) / det, C / det, -(a * h - b * g) / det, (a * e - b * d) / det];
@@ -210,8 +211,14 @@ export function assessPixelFaults(input: PixelFaultInput): PixelFaultAssessment 
 
   const faults = indexFaults(spots, data, assumptions);
   const rounded = data.mapping?.kind !== "corners";
-  const litOrDark = clusterGroups(faults.filter((f) => f.type !== 3), rounded);
-  const subPixel = clusterGroups(faults.filter((f) => f.type === 3), rounded);
+  const litOrDark = clusterGroups(
+    faults.filter((f) => f.type !== 3),
+    rounded,
+  );
+  const subPixel = clusterGroups(
+    faults.filter((f) => f.type === 3),
+    rounded,
+  );
 
   const counts: PixelFaultCounts = {
     alwaysLit: faults.filter((f) => f.type === 1).length,
@@ -225,10 +232,7 @@ export function assessPixelFaults(input: PixelFaultInput): PixelFaultAssessment 
     counts,
     isoClass: pixelFaultClass(counts, panelPixels),
     limits: pixelFaultLimits(panelPixels),
-    clusters: [
-      ...litOrDark.map((regionIds) => ({ kind: "lit-or-dark" as const, regionIds })),
-      ...subPixel.map((regionIds) => ({ kind: "sub-pixel" as const, regionIds })),
-    ],
+    clusters: [...litOrDark.map((regionIds) => ({ kind: "lit-or-dark" as const, regionIds })), ...subPixel.map((regionIds) => ({ kind: "sub-pixel" as const, regionIds }))],
     assumptions,
   };
 }

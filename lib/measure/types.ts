@@ -22,10 +22,7 @@ export type CoverageResult = {
 };
 
 /** How a photo's pixel → millimetre scale was found. */
-export type Calibration =
-  | { method: "ruler"; pxPerMm: number; detail: string }
-  | { method: "nominal"; pxPerMm: number; detail: string }
-  | { method: "none"; pxPerMm: null; detail: string };
+export type Calibration = { method: "ruler"; pxPerMm: number; detail: string } | { method: "nominal"; pxPerMm: number; detail: string } | { method: "none"; pxPerMm: null; detail: string };
 
 /** ISO 13406-2 pixel-fault classes; "beyond" means worse than class IV allows. */
 export type PixelFaultClass = "I" | "II" | "III" | "IV" | "beyond";

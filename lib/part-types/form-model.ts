@@ -5,11 +5,24 @@
  * Text formats: zones one per line "id | Label | x,y x,y x,y" (0..1 of the Surface's bounding box);
  * choices one per line "value | Label | pass" (or "fail").
  */
-import type { ChecklistItem, PartType } from "@/db/schema/lots";
+import type { PartType } from "@/db/schema/lots";
 import type { PromisedGrade } from "@/lib/lots/schemas";
 import type { PartCategory } from "./schemas";
+import type { ChecklistItem } from "@/lib/part-types/schemas";
 
-export type ItemForm = { id: string; label: string; kind: ChecklistItem["kind"]; severityOnFail: ChecklistItem["severityOnFail"]; caution: string; unit: string; min: string; max: string; decimals: string; suspectBelow: string; options: string };
+export type ItemForm = {
+  id: string;
+  label: string;
+  kind: ChecklistItem["kind"];
+  severityOnFail: ChecklistItem["severityOnFail"];
+  caution: string;
+  unit: string;
+  min: string;
+  max: string;
+  decimals: string;
+  suspectBelow: string;
+  options: string;
+};
 export type PartTypeFormValues = {
   name: string;
   category: PartCategory;
@@ -54,7 +67,11 @@ const size = (w: string, h: string) => {
   const height = num(h);
   return width === null && height === null ? null : { width, height };
 };
-const splitLines = (text: string) => text.split(/\r?\n/).map((l) => l.trim()).filter(Boolean);
+const splitLines = (text: string) =>
+  text
+    .split(/\r?\n/)
+    .map((l) => l.trim())
+    .filter(Boolean);
 
 export function zonesToText(zones: PartType["views"][number]["zones"]): string {
   return zones.map((z) => `${z.id} | ${z.label} | ${z.polygon.map(([x, y]) => `${x},${y}`).join(" ")}`).join("\n");
@@ -63,7 +80,10 @@ export function zonesToText(zones: PartType["views"][number]["zones"]): string {
 export function textToZones(text: string) {
   return splitLines(text).map((line) => {
     const [id = "", label = "", points = ""] = line.split("|").map((p) => p.trim());
-    const polygon = points.split(/\s+/).filter(Boolean).map((pair) => pair.split(",").map((v) => num(v)));
+    const polygon = points
+      .split(/\s+/)
+      .filter(Boolean)
+      .map((pair) => pair.split(",").map((v) => num(v)));
     return { id, label, polygon };
   });
 }
@@ -106,7 +126,9 @@ export function formToInput(values: PartTypeFormValues): unknown {
   };
 }
 
-export function partTypeToForm(p: Pick<PartType, "name" | "category" | "modelFamily" | "inspectAll" | "promisedGrade" | "active" | "nominalSizeMm" | "panelResolution" | "defectClasses" | "checklist" | "views">): PartTypeFormValues {
+export function partTypeToForm(
+  p: Pick<PartType, "name" | "category" | "modelFamily" | "inspectAll" | "promisedGrade" | "active" | "nominalSizeMm" | "panelResolution" | "defectClasses" | "checklist" | "views">,
+): PartTypeFormValues {
   const text = (v: number | undefined) => (v === undefined ? "" : String(v));
   return {
     name: p.name,
@@ -127,7 +149,15 @@ export function partTypeToForm(p: Pick<PartType, "name" | "category" | "modelFam
       kind: i.kind,
       severityOnFail: i.severityOnFail,
       caution: i.caution ?? "",
-      ...(i.kind === "numeric" ? { unit: i.unit, min: i.min === null ? "" : String(i.min), max: i.max === null ? "" : String(i.max), decimals: String(i.decimals), suspectBelow: i.suspectBelow == null ? "" : String(i.suspectBelow) } : {}),
+      ...(i.kind === "numeric"
+        ? {
+            unit: i.unit,
+            min: i.min === null ? "" : String(i.min),
+            max: i.max === null ? "" : String(i.max),
+            decimals: String(i.decimals),
+            suspectBelow: i.suspectBelow == null ? "" : String(i.suspectBelow),
+          }
+        : {}),
       ...(i.kind === "choice" ? { options: optionsToText(i.options) } : {}),
     })),
     views: p.views.map((v) => ({ key: v.key, label: v.label, required: v.required, instructions: v.instructions ?? "", zones: zonesToText(v.zones) })),

@@ -8,8 +8,7 @@ import type { SessionUser } from "@/lib/auth/require-user";
 import { AppError, notFound } from "@/lib/errors";
 import type { PartTypeInput, PartTypeUpdateInput } from "./schemas";
 
-const duplicate = () =>
-  new AppError("conflict", "A part type with this name already exists in your workspace.", { fieldErrors: { name: "A part type with this name already exists." } });
+const duplicate = () => new AppError("conflict", "A part type with this name already exists in your workspace.", { fieldErrors: { name: "A part type with this name already exists." } });
 
 export function partTypeSlug(name: string): string {
   const slug = slugify(name);

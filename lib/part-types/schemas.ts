@@ -4,7 +4,7 @@
  * form and the API; `.strict()` so unknown fields are refused.
  */
 import { z } from "zod";
-import type { ChecklistItem, PartType } from "@/db/schema/lots";
+import type { PartType } from "@/db/schema/lots";
 import { decimalPlaces } from "@/lib/checklist/evaluate";
 import { EXAMPLE_PART_TYPE_SLUGS } from "@/lib/grading/example-part-types";
 import { promisedGradeSchema } from "@/lib/lots/schemas";
@@ -31,7 +31,12 @@ const key = (what: string) =>
     .min(1, `Enter a key for the ${what}.`)
     .max(40, "Keep keys under 40 characters.")
     .regex(/^[a-z0-9]+(-[a-z0-9]+)*$/, "Use lower-case letters, digits and single hyphens (e.g. lens-window).");
-const label = (what: string) => z.string({ error: `Enter a label for the ${what}.` }).trim().min(1, `Enter a label for the ${what}.`).max(80, "Keep labels under 80 characters.");
+const label = (what: string) =>
+  z
+    .string({ error: `Enter a label for the ${what}.` })
+    .trim()
+    .min(1, `Enter a label for the ${what}.`)
+    .max(80, "Keep labels under 80 characters.");
 const severity = z.enum(DEFECT_SEVERITIES, { error: "Severity must be critical, major or minor." });
 
 function uniqueBy<T>(items: T[], pick: (item: T) => string, ctx: z.RefinementCtx, what: string, field: string) {
@@ -48,7 +53,11 @@ export const zoneSchema = z
   .object({
     id: key("zone"),
     label: label("zone"),
-    polygon: z.array(z.tuple([unitInterval, unitInterval]), { error: "A zone needs a polygon." }).min(3, "A zone polygon needs at least 3 points.").max(64, "Keep zone polygons to 64 points."),
+    /** Polygon in 0..1 coordinates of the Surface bounding box. */
+    polygon: z
+      .array(z.tuple([unitInterval, unitInterval]), { error: "A zone needs a polygon." })
+      .min(3, "A zone polygon needs at least 3 points.")
+      .max(64, "Keep zone polygons to 64 points."),
   })
   .strict();
 
@@ -58,7 +67,10 @@ export const viewSchema = z
     label: label("view"),
     required: z.boolean({ error: "Say whether the view is required." }),
     instructions: z.string().trim().max(500, "Keep instructions under 500 characters.").optional(),
-    zones: z.array(zoneSchema).max(12, "Keep to 12 zones per view.").superRefine((zones, ctx) => uniqueBy(zones, (z) => z.id, ctx, "zone", "id")),
+    zones: z
+      .array(zoneSchema)
+      .max(12, "Keep to 12 zones per view.")
+      .superRefine((zones, ctx) => uniqueBy(zones, (z) => z.id, ctx, "zone", "id")),
   })
   .strict();
 
@@ -116,6 +128,12 @@ const choiceItem = z
 
 export const checklistItemSchema = z.discriminatedUnion("kind", [passFailItem, numericItem, choiceItem], { error: "Item kind must be pass_fail, numeric or choice." });
 
+/** The shapes of the part type's JSON columns (db/schema/lots.ts), read from the schemas that validate them. */
+export type ZoneDefinition = z.infer<typeof zoneSchema>;
+export type ViewDefinition = z.infer<typeof viewSchema>;
+export type DefectClassDefinition = z.infer<typeof defectClassSchema>;
+export type ChecklistItem = z.infer<typeof checklistItemSchema>;
+
 const size = (max: number, integer: boolean) => {
   const dimension = integer ? z.number().int("Use whole pixels.").positive("Sizes are positive.").max(max) : z.number().positive("Sizes are positive.").max(max);
   return z.object({ width: dimension, height: dimension }).strict().nullable();
@@ -130,13 +148,20 @@ const partTypeFields = {
   name: z.string({ error: "Enter a name." }).trim().min(2, "Enter a name.").max(80, "Keep the name under 80 characters."),
   category: z.enum(PART_CATEGORIES, { error: `Category must be one of ${PART_CATEGORIES.join(", ")}.` }),
   modelFamily,
-  views: z.array(viewSchema).min(1, "A part type needs at least one view to photograph.").max(12, "Keep to 12 views.").superRefine((views, ctx) => uniqueBy(views, (v) => v.key, ctx, "view", "key")),
+  views: z
+    .array(viewSchema)
+    .min(1, "A part type needs at least one view to photograph.")
+    .max(12, "Keep to 12 views.")
+    .superRefine((views, ctx) => uniqueBy(views, (v) => v.key, ctx, "view", "key")),
   defectClasses: z
     .array(defectClassSchema)
     .min(1, "A part type needs at least one defect class.")
     .max(40, "Keep to 40 defect classes.")
     .superRefine((classes, ctx) => uniqueBy(classes, (c) => c.key, ctx, "defect class", "key")),
-  checklist: z.array(checklistItemSchema).max(60, "Keep to 60 checklist items.").superRefine((items, ctx) => uniqueBy(items, (i) => i.id, ctx, "checklist item", "id")),
+  checklist: z
+    .array(checklistItemSchema)
+    .max(60, "Keep to 60 checklist items.")
+    .superRefine((items, ctx) => uniqueBy(items, (i) => i.id, ctx, "checklist item", "id")),
   nominalSizeMm,
   panelResolution,
   inspectAll: z.boolean({ error: "inspectAll must be true or false." }),
@@ -184,5 +209,3 @@ export function partTypeLists(partType: Pick<PartType, "views" | "defectClasses"
 export function isBatteryPart(partType: { category: string }): boolean {
   return partType.category === "battery";
 }
-
-export type { ChecklistItem };

@@ -38,7 +38,14 @@ export async function addStarterPartTypes(tx: DbOrTx, input: { workspaceId: stri
     created.push({ id: row.id, slug: row.slug, name: row.name });
   }
   if (created.length > 0) {
-    await logActivity(tx, { workspaceId: input.workspaceId, actorId: input.actorId, action: "part_types.starters_added", subjectType: "workspace", subjectId: input.workspaceId, detail: { slugs: created.map((c) => c.slug), rubrics: "draft examples" } });
+    await logActivity(tx, {
+      workspaceId: input.workspaceId,
+      actorId: input.actorId,
+      action: "part_types.starters_added",
+      subjectType: "workspace",
+      subjectId: input.workspaceId,
+      detail: { slugs: created.map((c) => c.slug), rubrics: "draft examples" },
+    });
   }
   return created;
 }

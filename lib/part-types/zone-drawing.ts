@@ -15,10 +15,10 @@
  * A photo without a Surface shows no stored zone (there is no box to place them in); once a Surface
  * is drawn or suggested, `zonesToPlace` puts the stored zones not drawn yet into its box.
  */
-import type { ZoneDefinition } from "@/db/schema/lots";
 import { boundsOfShape, type Bounds } from "@/lib/geometry/bounds";
 import type { Point, PolygonShape, Shape } from "@/lib/geometry/shape";
 import type { RegionSetPayload } from "@/lib/geometry/validate";
+import type { ZoneDefinition } from "@/lib/part-types/schemas";
 
 export type DrawnZones = { zones: ZoneDefinition[]; problems: string[]; unchanged: string[] };
 
@@ -33,7 +33,13 @@ export function surfaceBox(surfaces: readonly PolygonShape[]): Bounds | null {
 }
 
 function pointsOf(shape: Shape): Point[] | null {
-  if (shape.kind === "rect") return [[shape.x, shape.y], [shape.x + shape.width, shape.y], [shape.x + shape.width, shape.y + shape.height], [shape.x, shape.y + shape.height]];
+  if (shape.kind === "rect")
+    return [
+      [shape.x, shape.y],
+      [shape.x + shape.width, shape.y],
+      [shape.x + shape.width, shape.y + shape.height],
+      [shape.x, shape.y + shape.height],
+    ];
   if (shape.kind === "polygon") return shape.points;
   return null;
 }

@@ -22,7 +22,12 @@ export function drawParetoChart(doc: PdfDoc, rows: readonly ParetoRow[], box: { 
   doc.font(PDF_FONT.regular).fontSize(6.5).fillColor(AXIS);
 
   for (const tick of g.countTicks) {
-    doc.moveTo(plot.x, tick.y).lineTo(plot.x + plot.width, tick.y).lineWidth(0.3).strokeColor("#DDDDDD").stroke();
+    doc
+      .moveTo(plot.x, tick.y)
+      .lineTo(plot.x + plot.width, tick.y)
+      .lineWidth(0.3)
+      .strokeColor("#DDDDDD")
+      .stroke();
     doc.fillColor(AXIS).text(String(tick.value), 0, tick.y - 3.5, { width: plot.x - 4, align: "right", lineBreak: false });
   }
   for (const tick of g.shareTicks) {
@@ -33,7 +38,14 @@ export function drawParetoChart(doc: PdfDoc, rows: readonly ParetoRow[], box: { 
     doc.fillColor("#111111").text(bar.label, bar.x - 2, plot.y + plot.height + 4, { width: bar.width + 4, align: "center", height: 26, ellipsis: true });
   }
   if (g.cutoff) {
-    doc.moveTo(plot.x, g.cutoff.y).lineTo(plot.x + plot.width, g.cutoff.y).lineWidth(0.6).dash(3, { space: 2 }).strokeColor(LINE).stroke().undash();
+    doc
+      .moveTo(plot.x, g.cutoff.y)
+      .lineTo(plot.x + plot.width, g.cutoff.y)
+      .lineWidth(0.6)
+      .dash(3, { space: 2 })
+      .strokeColor(LINE)
+      .stroke()
+      .undash();
   }
   if (g.line.length) {
     doc.moveTo(g.line[0].x, g.line[0].y);
@@ -41,8 +53,18 @@ export function drawParetoChart(doc: PdfDoc, rows: readonly ParetoRow[], box: { 
     doc.lineWidth(1.2).strokeColor(LINE).stroke();
     for (const point of g.line) doc.circle(point.x, point.y, 1.8).fill(LINE);
   }
-  doc.moveTo(plot.x, plot.y).lineTo(plot.x, plot.y + plot.height).lineTo(plot.x + plot.width, plot.y + plot.height).lineTo(plot.x + plot.width, plot.y).lineWidth(0.6).strokeColor(AXIS).stroke();
-  doc.fontSize(6.5).fillColor(AXIS).text("Defects", 0, plot.y - 14, { width: plot.x + 30, lineBreak: false });
+  doc
+    .moveTo(plot.x, plot.y)
+    .lineTo(plot.x, plot.y + plot.height)
+    .lineTo(plot.x + plot.width, plot.y + plot.height)
+    .lineTo(plot.x + plot.width, plot.y)
+    .lineWidth(0.6)
+    .strokeColor(AXIS)
+    .stroke();
+  doc
+    .fontSize(6.5)
+    .fillColor(AXIS)
+    .text("Defects", 0, plot.y - 14, { width: plot.x + 30, lineBreak: false });
   doc.fillColor(LINE).text("Cumulative share", plot.x + plot.width - 60, plot.y - 14, { width: 92, align: "right", lineBreak: false });
   doc.restore();
 }

@@ -1,10 +1,8 @@
 import "server-only";
-import { and, eq, sql } from "drizzle-orm";
-import { db } from "@/db/client";
+import { transaction } from "@/db/client";
 import { isUniqueViolation } from "@/db/errors";
 import { logActivity } from "@/db/queries/activity";
-import { countActiveLeads, emailInWorkspace, getPerson, getUserByEmail, getUserInWorkspace } from "@/db/queries/users";
-import { users } from "@/db/schema";
+import { countActiveLeads, emailInWorkspace, getPerson, getUserByEmail, getUserInWorkspace, insertUser, lockUserInWorkspace, lockWorkspaceLeads, updateUserFields } from "@/db/queries/users";
 import type { SessionUser } from "@/lib/auth/require-user";
 import type { InviteInput, UpdatePersonInput } from "@/lib/auth/schemas";
 import { INVITE_TTL_HOURS, issueAuthToken } from "@/lib/auth/tokens";
@@ -44,12 +42,9 @@ export async function invitePerson(actor: SessionUser, input: InviteInput) {
   const takenElsewhere = Boolean((await getUserByEmail({ email: input.email }))?.passwordHash);
   let created: { id: string; email: string }, token: string | null;
   try {
-    ({ created, token } = await db().transaction(async (tx) => {
-      const [row] = await tx
-        .insert(users)
-        .values({ workspaceId: actor.workspaceId, email: input.email, name: input.name, roles: input.roles, passwordHash: null })
-        .returning({ id: users.id, email: users.email });
-      const t = takenElsewhere ? null : await issueAuthToken(tx, { workspaceId: actor.workspaceId, userId: row.id, purpose: "invite", ttlMs: INVITE_TTL_HOURS * 3_600_000 });
+    ({ created, token } = await transaction(async (tx) => {
+      const row = await insertUser(tx, { workspaceId: actor.workspaceId, email: input.email, name: input.name, roles: input.roles, passwordHash: null });
+      const t = takenElsewhere ? null : await issueAuthToken({ workspaceId: actor.workspaceId, userId: row.id, purpose: "invite", ttlMs: INVITE_TTL_HOURS * 3_600_000 }, tx);
       await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.id, action: "user.invited", subjectType: "user", subjectId: row.id, detail: { email: input.email, roles: input.roles } });
       return { created: row, token: t };
     }));
@@ -64,7 +59,8 @@ export async function invitePerson(actor: SessionUser, input: InviteInput) {
 /** What the lead is told after inviting or re-sending. */
 export function invitationMessage(person: { name: string; email: string }, sent: InvitationDelivery): string {
   if (sent.emailSent) return `Invitation sent to ${person.email}.`;
-  if (sent.emailQueued) return `The mail server did not take the invitation to ${person.email} yet, so it is queued and goes out by itself once the server answers. People shows it as pending until then.`;
+  if (sent.emailQueued)
+    return `The mail server did not take the invitation to ${person.email} yet, so it is queued and goes out by itself once the server answers. People shows it as pending until then.`;
   return `${person.name} was added, but the invitation e-mail could not be sent. Use “Resend invitation” once mail works again.`;
 }
 
@@ -74,7 +70,7 @@ export async function resendInvitation(actor: SessionUser, userId: string) {
   if (user.passwordHash) throw new AppError("conflict", "This person has already set a password; they can use “Forgot password” instead.");
   if (!user.active) throw new AppError("conflict", "This account is deactivated; reactivate it before sending a new invitation.");
   const takenElsewhere = Boolean((await getUserByEmail({ email: user.email }))?.passwordHash);
-  const token = takenElsewhere ? null : await issueAuthToken(db(), { workspaceId: actor.workspaceId, userId, purpose: "invite", ttlMs: INVITE_TTL_HOURS * 3_600_000 });
+  const token = takenElsewhere ? null : await issueAuthToken({ workspaceId: actor.workspaceId, userId, purpose: "invite", ttlMs: INVITE_TTL_HOURS * 3_600_000 });
   const sent = await sendInvitation(actor, user, token);
   return { ...sent, message: invitationMessage(user, sent) };
 }
@@ -84,34 +80,29 @@ export async function resendInvitation(actor: SessionUser, userId: string) {
  * open sessions end on their next request. A workspace always keeps one active lead.
  */
 export async function updatePerson(actor: SessionUser, userId: string, input: UpdatePersonInput) {
-  await db().transaction(async (tx) => {
-    const [user] = await tx
-      .select()
-      .from(users)
-      .where(and(eq(users.workspaceId, actor.workspaceId), eq(users.id, userId)))
-      .for("update")
-      .limit(1);
+  await transaction(async (tx) => {
+    const user = await lockUserInWorkspace(tx, { workspaceId: actor.workspaceId, userId });
     if (!user) throw notFound("That person");
     if (userId === actor.id && input.active === false) throw new AppError("conflict", "You cannot deactivate your own account.");
     const losesLead = user.roles.includes("lead") && ((input.roles && !input.roles.includes("lead")) || input.active === false);
     if (losesLead && user.active) {
       // Lock the workspace's lead rows so two leads demoting each other can't both succeed.
-      await tx.execute(sql`SELECT id FROM users WHERE workspace_id = ${actor.workspaceId} AND 'lead' = ANY(roles) FOR UPDATE`);
+      await lockWorkspaceLeads(tx, { workspaceId: actor.workspaceId });
       if ((await countActiveLeads({ workspaceId: actor.workspaceId }, tx)) <= 1) {
         throw new AppError("conflict", "A workspace needs at least one active lead. Make someone else a lead first.");
       }
     }
     const deactivating = input.active === false && user.active;
-    await tx
-      .update(users)
-      .set({
+    await updateUserFields(tx, {
+      workspaceId: actor.workspaceId,
+      userId,
+      fields: {
         ...(input.name !== undefined && { name: input.name }),
         ...(input.roles !== undefined && { roles: input.roles }),
         ...(input.active !== undefined && { active: input.active }),
-        ...(deactivating && { tokenVersion: sql`${users.tokenVersion} + 1` }),
-        updatedAt: new Date(),
-      })
-      .where(and(eq(users.workspaceId, actor.workspaceId), eq(users.id, userId)));
+      },
+      endSessions: deactivating,
+    });
     await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.id, action: "user.updated", subjectType: "user", subjectId: userId, detail: { ...input } });
   });
   return getPerson({ workspaceId: actor.workspaceId, userId });

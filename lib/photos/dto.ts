@@ -6,8 +6,7 @@ import type { PhotoFailureCode, PhotoStatus } from "@/db/schema/photos";
 import type { PhotoWithContext } from "@/db/queries/photos";
 
 /** How a unit is named beside a photo: its serial, or its place in the lot's sample. */
-export const unitLabel = (u: { serial: string | null; sampleIndex: number; purchaseRef: string }) =>
-  u.serial ? `${u.serial} (${u.purchaseRef})` : `sample ${u.sampleIndex} of ${u.purchaseRef}`;
+export const unitLabel = (u: { serial: string | null; sampleIndex: number; purchaseRef: string }) => (u.serial ? `${u.serial} (${u.purchaseRef})` : `sample ${u.sampleIndex} of ${u.purchaseRef}`);
 
 export type PhotoDto = {
   id: string;

@@ -70,7 +70,7 @@ export async function finaliseUpload(actor: SessionUser, unitId: string, input: 
   const unit = await loadUnit(actor, unitId);
   const ticket = readTicket(actor, unitId, input.ticket, options.now ?? new Date());
   if (await getPhoto({ workspaceId: actor.workspaceId, photoId: ticket.photoId })) return { kind: "replayed", photo: await withContext(actor, ticket.photoId) };
-  assertOpenForUploads(unit);
+  assertOpenForUploads(actor, unit);
   viewOf(unit, ticket.viewKey);
   return storeUpload(actor, { unitId, photoId: ticket.photoId, viewKey: ticket.viewKey, fileName: ticket.fileName, bytes: ticket.bytes }, options);
 }
@@ -150,7 +150,13 @@ async function moveToOriginal(store: ObjectStore, owner: PhotoKeyOwner, declared
     throw new AppError("conflict", NOT_ARRIVED);
   }
   const sizeRejection =
-    head.bytes === 0 ? emptyFile() : head.bytes > MAX_PHOTO_BYTES ? tooLarge(head.bytes) : declaredBytes !== undefined && head.bytes !== declaredBytes ? lengthMismatch(head.bytes, declaredBytes) : null;
+    head.bytes === 0
+      ? emptyFile()
+      : head.bytes > MAX_PHOTO_BYTES
+        ? tooLarge(head.bytes)
+        : declaredBytes !== undefined && head.bytes !== declaredBytes
+          ? lengthMismatch(head.bytes, declaredBytes)
+          : null;
   if (sizeRejection) {
     await deleteObject(store, staged);
     throw sizeRejection;
@@ -169,7 +175,10 @@ async function answerSameBytes(actor: SessionUser, store: ObjectStore, newOrigin
   }
   // The same file was taken out of this unit before: it does not come back in by the side door.
   if (existing.removedAt) {
-    throw new AppError("conflict", `This exact file was taken out of this unit on ${formatDate(existing.removedAt, actor.timeZone)} (“${existing.removalReason ?? ""}”) and is kept only as a record. Upload a different photo.`);
+    throw new AppError(
+      "conflict",
+      `This exact file was taken out of this unit on ${formatDate(existing.removedAt, actor.timeZone)} (“${existing.removalReason ?? ""}”) and is kept only as a record. Upload a different photo.`,
+    );
   }
   return { kind: "duplicate", photo: existing };
 }

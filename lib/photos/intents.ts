@@ -9,6 +9,7 @@ import type { SessionUser } from "@/lib/auth/require-user";
 import { env } from "@/lib/env";
 import { AppError, notFound } from "@/lib/errors";
 import { enforceLimits, waitPhrase } from "@/lib/rate-limit/limits";
+import { assertUnitEditable } from "@/lib/units/editability";
 import { checkStore, objectStore, presignPut, type ObjectStore } from "@/lib/storage/s3";
 import { photoSettings } from "./config";
 import { stagingKey } from "./object-keys";
@@ -17,9 +18,6 @@ import { getUnitForPhotos, type UnitForPhotos } from "@/db/queries/photos";
 import type { UploadIntentInput } from "./schemas";
 import { signUploadTicket } from "./ticket";
 
-/** Photos can be added while the unit waits or is on the bench; after grading the evidence is fixed. */
-const UPLOAD_STATUSES: readonly UnitForPhotos["status"][] = ["queued", "on_bench"];
-
 /** The unit in the caller's workspace (404 for any other, exactly like a missing one). */
 export async function loadUnit(actor: SessionUser, unitId: string): Promise<UnitForPhotos> {
   const unit = await getUnitForPhotos({ workspaceId: actor.workspaceId, unitId });
@@ -27,12 +25,13 @@ export async function loadUnit(actor: SessionUser, unitId: string): Promise<Unit
   return unit;
 }
 
-export const canAddPhotos = (unit: Pick<UnitForPhotos, "status">) => UPLOAD_STATUSES.includes(unit.status);
-
-export function assertOpenForUploads(unit: UnitForPhotos): void {
-  if (!canAddPhotos(unit)) {
-    throw new AppError("conflict", "This unit has been graded, so its photos are part of the record and no more can be added. A lead can reopen it.");
-  }
+/**
+ * Photos can be added while the unit waits or is on a bench of an open lot; after grading the
+ * evidence is fixed (lib/units/editability.ts, "upload": an upload only adds, so no lease holds it).
+ */
+export function assertOpenForUploads(actor: SessionUser, unit: UnitForPhotos): void {
+  const lease = { leaseHolderId: null, leaseHolderName: null, leaseExpiresAt: null, leaseRunning: false };
+  assertUnitEditable({ work: "upload", actor, lotStatus: unit.lotStatus, unit: { status: unit.status, ...lease }, timeZone: actor.timeZone });
 }
 
 export function viewOf(unit: UnitForPhotos, viewKey: string) {
@@ -57,14 +56,20 @@ export type UploadIntent = {
  * up an unbounded amount of storage.
  */
 export async function limitUploadIntents(actor: SessionUser) {
-  await enforceLimits([{ bucket: "upload-intent:user", key: actor.id, max: photoSettings().PHOTO_UPLOAD_INTENTS_PER_MINUTE, windowSeconds: 60 }], (s) =>
-    `You have started too many uploads in the last minute. ${waitPhrase(s)} and add the rest; the photos already uploading carry on.`,
+  await enforceLimits(
+    [{ bucket: "upload-intent:user", key: actor.id, max: photoSettings().PHOTO_UPLOAD_INTENTS_PER_MINUTE, windowSeconds: 60 }],
+    (s) => `You have started too many uploads in the last minute. ${waitPhrase(s)} and add the rest; the photos already uploading carry on.`,
   );
 }
 
-export async function createUploadIntent(actor: SessionUser, unitId: string, input: UploadIntentInput, { store = objectStore(), now = new Date() }: { store?: ObjectStore; now?: Date } = {}): Promise<UploadIntent> {
+export async function createUploadIntent(
+  actor: SessionUser,
+  unitId: string,
+  input: UploadIntentInput,
+  { store = objectStore(), now = new Date() }: { store?: ObjectStore; now?: Date } = {},
+): Promise<UploadIntent> {
   const unit = await loadUnit(actor, unitId);
-  assertOpenForUploads(unit);
+  assertOpenForUploads(actor, unit);
   viewOf(unit, input.viewKey);
   const rejection = checkDeclaredUpload(input);
   if (rejection) throw rejection;

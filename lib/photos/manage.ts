@@ -17,7 +17,10 @@ export async function retryPhotoProcessing(actor: SessionUser, photoId: string) 
   const photo = await getPhoto({ workspaceId: actor.workspaceId, photoId });
   if (!photo) throw notFound(NOT_FOUND);
   if (photo.status !== "failed" || photo.failureCode !== "processing_failed") {
-    throw new AppError("conflict", photo.status === "failed" ? "This file was refused, so there is nothing to retry; upload a good copy instead." : `This photo is ${photo.status}, so there is nothing to retry.`);
+    throw new AppError(
+      "conflict",
+      photo.status === "failed" ? "This file was refused, so there is nothing to retry; upload a good copy instead." : `This photo is ${photo.status}, so there is nothing to retry.`,
+    );
   }
   await transactionWithJobs(async (tx, jobs) => {
     if (!(await requeueFailedPhoto(tx, { workspaceId: actor.workspaceId, photoId }))) throw new AppError("conflict", "This photo changed meanwhile; reload and try again.");

@@ -11,8 +11,7 @@ const megabytes = (bytes: number) => (bytes / (1024 * 1024)).toFixed(1);
 const acceptedList = () => (canDecodeAvif() ? "JPEG, PNG, WebP or AVIF" : "JPEG, PNG or WebP");
 
 export const emptyFile = () => new PhotoRejectedError("empty", "The file is empty (0 bytes); choose the photo again.");
-export const tooLarge = (bytes: number) =>
-  new PhotoRejectedError("too_large", `This file is ${megabytes(bytes)} MB; a photo may be at most ${megabytes(MAX_PHOTO_BYTES)} MB.`);
+export const tooLarge = (bytes: number) => new PhotoRejectedError("too_large", `This file is ${megabytes(bytes)} MB; a photo may be at most ${megabytes(MAX_PHOTO_BYTES)} MB.`);
 /** What arrived is not the length the upload was announced (and signed) with. */
 export const lengthMismatch = (arrived: number, declared: number) =>
   new PhotoRejectedError("corrupt", `The file that arrived has ${arrived} bytes, not the ${declared} announced for this upload; choose the photo again.`);

@@ -69,23 +69,27 @@ async function markReady(store: ObjectStore, photo: Photo, n: NormalizedPhoto): 
   await putObject(store, keys.preview, n.preview, { contentType: "image/webp" });
   await putObject(store, keys.thumbnail, n.thumbnail, { contentType: "image/webp" });
   const updated = await transaction(async (tx) => {
-    const marked = await updateProcessingPhoto(photo.id, {
-      status: "ready",
-      previewKey: keys.preview,
-      thumbnailKey: keys.thumbnail,
-      format: n.format,
-      width: n.width,
-      height: n.height,
-      orientation: n.orientation,
-      previewWidth: n.previewWidth,
-      previewHeight: n.previewHeight,
-      thumbnailWidth: n.thumbnailWidth,
-      thumbnailHeight: n.thumbnailHeight,
-      captureTime: n.captureTime,
-      captureTimeOffset: n.captureTimeOffset,
-      lastError: null,
-      processedAt: new Date(),
-    }, tx);
+    const marked = await updateProcessingPhoto(
+      photo.id,
+      {
+        status: "ready",
+        previewKey: keys.preview,
+        thumbnailKey: keys.thumbnail,
+        format: n.format,
+        width: n.width,
+        height: n.height,
+        orientation: n.orientation,
+        previewWidth: n.previewWidth,
+        previewHeight: n.previewHeight,
+        thumbnailWidth: n.thumbnailWidth,
+        thumbnailHeight: n.thumbnailHeight,
+        captureTime: n.captureTime,
+        captureTimeOffset: n.captureTimeOffset,
+        lastError: null,
+        processedAt: new Date(),
+      },
+      tx,
+    );
     if (marked) {
       await logActivity(tx, {
         workspaceId: photo.workspaceId,
@@ -121,5 +125,7 @@ function describe(err: unknown, isLastAttempt: boolean): { lastError: string; re
 
 async function markAttemptFailed(photo: Photo, err: unknown, isLastAttempt: boolean) {
   const { lastError, reason } = describe(err, isLastAttempt);
-  await updateProcessingPhoto(photo.id, isLastAttempt ? { status: "failed", failureCode: "processing_failed", failureReason: reason, lastError } : { status: "queued", lastError }).catch((dbErr) => console.error(`Could not record the failed attempt on photo ${photo.id}`, dbErr));
+  await updateProcessingPhoto(photo.id, isLastAttempt ? { status: "failed", failureCode: "processing_failed", failureReason: reason, lastError } : { status: "queued", lastError }).catch((dbErr) =>
+    console.error(`Could not record the failed attempt on photo ${photo.id}`, dbErr),
+  );
 }

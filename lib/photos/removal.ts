@@ -15,13 +15,12 @@ import "server-only";
  */
 import { transaction, type Tx } from "@/db/client";
 import { logActivity } from "@/db/queries/activity";
-import { getUnitDetail, lockUnit } from "@/db/queries/units";
+import { lockUnit } from "@/db/queries/units";
 import type { SessionUser } from "@/lib/auth/require-user";
 import { AppError, notFound } from "@/lib/errors";
-import { claimForWork, workClaimsUnit } from "@/lib/queue/claim-for-work";
-import { assertNotLeasedByOther } from "@/lib/queue/queue";
+import { claimForWork } from "@/lib/queue/claim-for-work";
 import { deleteObject, objectStore, type ObjectStore } from "@/lib/storage/s3";
-import { STATUS_LABELS } from "@/lib/units/state-machine";
+import { assertUnitEditable } from "@/lib/units/editability";
 import { originalDeletionBlockers } from "./deletion";
 import { viewOf } from "./intents";
 import { deleteCurrentPhoto, getPhoto, getUnitForPhotos, updatePhotoView, withdrawPhoto } from "@/db/queries/photos";
@@ -34,13 +33,9 @@ const NOT_FOUND = "That photo";
 /** Locks the photo's unit and checks that it may still change; claims a waiting unit. */
 async function openForWork(tx: Tx, actor: SessionUser, photo: Photo) {
   const unit = await lockUnit(tx, { workspaceId: actor.workspaceId, unitId: photo.unitId });
-  const detail = unit && (await getUnitDetail({ workspaceId: actor.workspaceId, unitId: photo.unitId }, tx));
-  if (!unit || !detail) throw notFound(NOT_FOUND);
-  if (detail.lot.status !== "open") throw new AppError("conflict", "This unit's lot is decided; its photos are part of the record and can no longer change.");
-  if (unit.status !== "queued" && unit.status !== "on_bench") throw new AppError("conflict", `This unit is ${STATUS_LABELS[unit.status]}, so its photos are part of the record and can no longer change.`);
-  assertNotLeasedByOther(unit, actor);
-  if (workClaimsUnit(unit)) await claimForWork(tx, actor, unit, "photos");
-  return detail;
+  if (!unit) throw notFound(NOT_FOUND);
+  const { claims } = assertUnitEditable({ work: "photos", actor, lotStatus: unit.lotStatus, unit, timeZone: actor.timeZone });
+  if (claims) await claimForWork(tx, actor, unit, "photos");
 }
 
 async function loadCurrentPhoto(actor: SessionUser, photoId: string): Promise<Photo> {
@@ -59,7 +54,14 @@ export async function reassignPhotoView(actor: SessionUser, photoId: string, vie
     viewOf(unit, viewKey);
     if (photo.viewKey === viewKey) return;
     if (!(await updatePhotoView(tx, { workspaceId: actor.workspaceId, photoId, viewKey }))) throw new AppError("conflict", "This photo changed meanwhile; reload and try again.");
-    await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.id, action: "photo.view_changed", subjectType: "photo", subjectId: photoId, detail: { unitId: photo.unitId, from: photo.viewKey, to: viewKey, fileName: photo.fileName } });
+    await logActivity(tx, {
+      workspaceId: actor.workspaceId,
+      actorId: actor.id,
+      action: "photo.view_changed",
+      subjectType: "photo",
+      subjectId: photoId,
+      detail: { unitId: photo.unitId, from: photo.viewKey, to: viewKey, fileName: photo.fileName },
+    });
   });
 }
 

@@ -17,17 +17,13 @@ export const uploadIntentSchema = z
   .strict();
 export type UploadIntentInput = z.infer<typeof uploadIntentSchema>;
 
-export const finaliseSchema = z
-  .object({ ticket: z.string({ error: "Send the upload ticket you were given." }).min(1, "Send the upload ticket you were given.").max(4000) })
-  .strict();
+export const finaliseSchema = z.object({ ticket: z.string({ error: "Send the upload ticket you were given." }).min(1, "Send the upload ticket you were given.").max(4000) }).strict();
 export type FinaliseInput = z.infer<typeof finaliseSchema>;
 
 /** `?wait=0` answers at once (202) instead of waiting for the worker's verdict. */
 export const finaliseQuerySchema = z.object({ wait: z.enum(["0", "1"]).optional() }).strict();
 
-export const photoViewSchema = z
-  .object({ viewKey: z.string({ error: "Choose the view this photo shows." }).trim().min(1, "Choose the view this photo shows.").max(64) })
-  .strict();
+export const photoViewSchema = z.object({ viewKey: z.string({ error: "Choose the view this photo shows." }).trim().min(1, "Choose the view this photo shows.").max(64) }).strict();
 
 export const photoRemovalSchema = z
   .object({

@@ -3,7 +3,8 @@ import "server-only";
  * Work that changes a unit nobody holds — a checklist result, a saved region set — takes the unit
  * onto the worker's bench with the queue's lease, as Take next would: a unit still waiting in the
  * queue never gathers evidence without an owner, and the queue stops offering it to others.
- * Call inside the transaction, with the unit row locked (db/queries/units.ts lockUnit).
+ * Call inside the transaction, with the unit row locked (db/queries/units.ts lockUnit), when
+ * lib/units/editability.ts says the work `claims` the unit.
  */
 import type { Tx } from "@/db/client";
 import { logActivity } from "@/db/queries/activity";
@@ -14,16 +15,6 @@ import { env } from "@/lib/env";
 import { transition } from "@/lib/units/state-machine";
 
 type UnitLease = Pick<LockedUnit, "id" | "status" | "leaseHolderId" | "leaseRunning">;
-
-/** On a bench under a lease that has not run out (lockUnit reads it from the database's clock). */
-export function leaseRunning(unit: UnitLease): boolean {
-  return unit.status === "on_bench" && unit.leaseRunning;
-}
-
-/** Whether the actor's work claims the unit: it is waiting, or on a bench whose lease ran out (the actor's own included). */
-export function workClaimsUnit(unit: UnitLease): boolean {
-  return unit.status === "queued" || (unit.status === "on_bench" && !leaseRunning(unit));
-}
 
 /** Claims the unit for the actor (release first if an expired lease is still recorded) and logs it. */
 export async function claimForWork(tx: Tx, actor: Pick<SessionUser, "id" | "workspaceId">, unit: UnitLease, via: "checklist" | "regions" | "photos"): Promise<void> {

@@ -39,25 +39,23 @@ export async function listQueue({ workspaceId, filters, cursor, before, limit }:
   const first = page.at(0);
   const last = page.at(-1);
   return {
-    units: page.map(
-      (r): QueueRow => ({
-        id: r.id,
-        serial: r.serial,
-        sampleIndex: r.sample_index,
-        status: r.status === "on_bench" && r.lease_active ? "on_bench" : "waiting",
-        lotId: r.lot_id,
-        purchaseRef: r.purchase_ref,
-        partTypeId: r.part_type_id,
-        partTypeName: r.part_type_name,
-        supplierName: r.supplier_name,
-        dueOn: r.lot_due_on,
-        receivedOn: r.lot_received_on,
-        holder:
-          r.status === "on_bench" && r.lease_active && r.holder_id
-            ? { id: r.holder_id, name: r.holder_name ?? "", since: new Date(r.claimed_at!).toISOString(), leaseExpiresAt: new Date(r.lease_expires_at!).toISOString() }
-            : null,
-      }),
-    ),
+    units: page.map((r): QueueRow => ({
+      id: r.id,
+      serial: r.serial,
+      sampleIndex: r.sample_index,
+      status: r.status === "on_bench" && r.lease_active ? "on_bench" : "waiting",
+      lotId: r.lot_id,
+      purchaseRef: r.purchase_ref,
+      partTypeId: r.part_type_id,
+      partTypeName: r.part_type_name,
+      supplierName: r.supplier_name,
+      dueOn: r.lot_due_on,
+      receivedOn: r.lot_received_on,
+      holder:
+        r.status === "on_bench" && r.lease_active && r.holder_id
+          ? { id: r.holder_id, name: r.holder_name ?? "", since: new Date(r.claimed_at!).toISOString(), leaseExpiresAt: new Date(r.lease_expires_at!).toISOString() }
+          : null,
+    })),
     nextCursor: last && (backwards || more) ? keyOf(last) : null,
     prevCursor: first && (backwards ? more : from !== null) ? keyOf(first) : null,
   };
@@ -74,7 +72,14 @@ export type QueueStats = {
 export async function queueStats({ workspaceId }: { workspaceId: string }): Promise<QueueStats> {
   const rows = await listQueueStats({ workspaceId });
   const byPartType = rows
-    .map((r) => ({ partTypeId: r.part_type_id, name: r.name, waiting: r.waiting, onBench: r.on_bench, gradedToday: r.graded_today, medianMinutes: r.median_minutes === null ? null : Math.round(Number(r.median_minutes) * 10) / 10 }))
+    .map((r) => ({
+      partTypeId: r.part_type_id,
+      name: r.name,
+      waiting: r.waiting,
+      onBench: r.on_bench,
+      gradedToday: r.graded_today,
+      medianMinutes: r.median_minutes === null ? null : Math.round(Number(r.median_minutes) * 10) / 10,
+    }))
     .filter((r) => r.waiting + r.onBench + r.gradedToday > 0 || r.medianMinutes !== null);
   return {
     waiting: byPartType.reduce((n, r) => n + r.waiting, 0),

@@ -16,9 +16,9 @@ import { isRole } from "@/lib/auth/roles";
 import type { SessionUser } from "@/lib/auth/require-user";
 import { env } from "@/lib/env";
 import { AppError, notFound } from "@/lib/errors";
+import { assertUnitEditable } from "@/lib/units/editability";
 import { transition } from "@/lib/units/state-machine";
 import type { QueueFilters } from "./schemas";
-import { formatTime } from "@/lib/time/format";
 
 // Statuses come from the state machine, so the queue can't drift from it.
 const ON_BENCH = transition("queued", "claim");
@@ -47,7 +47,10 @@ async function claimOnce(user: SessionUser, filters: QueueFilters): Promise<Clai
  * means nothing is waiting.
  */
 export async function claimNextUnit({ user, filters }: { user: SessionUser; filters: QueueFilters }): Promise<ClaimedUnit | null> {
-  return claimWithRetry(() => claimOnce(user, filters), () => anythingWaiting({ workspaceId: user.workspaceId, filters }));
+  return claimWithRetry(
+    () => claimOnce(user, filters),
+    () => anythingWaiting({ workspaceId: user.workspaceId, filters }),
+  );
 }
 
 /**
@@ -116,23 +119,9 @@ export async function reassignUnit({ user, unitId, toUserId }: { user: SessionUs
  * bench as graded and its lease ends. Grading a waiting unit straight from its lot takes it onto
  * the grader's bench first; a correction of an already graded unit leaves it graded.
  */
-export async function finishInspection(tx: Tx, user: Pick<SessionUser, "id" | "workspaceId">, unit: LockedUnit) {
-  if (unit.status === ON_BENCH && unit.leaseHolderId !== user.id && unit.leaseRunning) {
-    throw new AppError("conflict", `${unit.leaseHolderName ?? "Another inspector"} has this unit on their bench, so it is read-only for you.`);
-  }
+export async function finishInspection(tx: Tx, user: Pick<SessionUser, "id" | "workspaceId" | "roles"> & Partial<Pick<SessionUser, "timeZone">>, unit: LockedUnit) {
   if (unit.status === "graded") return;
+  assertUnitEditable({ work: "grade", actor: user, lotStatus: unit.lotStatus, unit, timeZone: user.timeZone });
   const onBench = unit.status === QUEUED ? transition(unit.status, "claim") : unit.status;
   await markGraded(tx, { workspaceId: user.workspaceId, unitId: unit.id, status: transition(onBench, "submit_grade") });
-}
-
-/**
- * Work on a unit (checklist, photos, regions, grade) is refused while another person's lease on
- * it is running (lockUnit's `leaseRunning`, by the database's clock): the unit is read-only for
- * everybody else.
- */
-export function assertNotLeasedByOther(unit: Pick<LockedUnit, "status" | "leaseHolderId" | "leaseExpiresAt" | "leaseRunning" | "leaseHolderName">, user: SessionUser) {
-  if (unit.status === ON_BENCH && unit.leaseHolderId && unit.leaseHolderId !== user.id && unit.leaseRunning && unit.leaseExpiresAt) {
-    const until = formatTime(unit.leaseExpiresAt, user.timeZone);
-    throw new AppError("conflict", `${unit.leaseHolderName ?? "Another inspector"} has this unit on their bench (lease until ${until}), so it is read-only for you.`);
-  }
 }

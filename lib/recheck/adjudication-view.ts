@@ -49,17 +49,48 @@ export async function adjudicationView(actor: Actor, recheckId: string) {
   });
   // The areas only one side marked, as rectangles for the overlay (compare.ts keepAreas); the stored comparison has no areas.
   const withAreas = await compareRecheck(
-    { photos: sides.map((s) => ({ photoId: s.photo.id, width: s.photo.width, height: s.photo.height, surface: s.surface.length ? s.surface : undefined, first: s.first, recheck: s.recheck })), firstGrade: first.finalGrade as Grade, recheckGrade: recheck.recheckGrade! },
+    {
+      photos: sides.map((s) => ({ photoId: s.photo.id, width: s.photo.width, height: s.photo.height, surface: s.surface.length ? s.surface : undefined, first: s.first, recheck: s.recheck })),
+      firstGrade: first.finalGrade as Grade,
+      recheckGrade: recheck.recheckGrade!,
+    },
     { keepAreas: true },
   );
   return {
-    recheck: { id: recheck.id, status: recheck.status, reasons: recheck.adjudicationReasons ?? [], notBlind: recheck.notBlind, submittedAt: recheck.submittedAt, decidedLotAffected: recheck.decidedLotAffected, adjudication: recheck.adjudicatedAt ? { choice: recheck.adjudicationChoice, reason: recheck.adjudicationReason, byName: names.get(recheck.adjudicatedBy!) ?? null, at: recheck.adjudicatedAt } : null },
+    recheck: {
+      id: recheck.id,
+      status: recheck.status,
+      reasons: recheck.adjudicationReasons ?? [],
+      notBlind: recheck.notBlind,
+      submittedAt: recheck.submittedAt?.toISOString() ?? null,
+      decidedLotAffected: recheck.decidedLotAffected,
+      adjudication: recheck.adjudicatedAt
+        ? { choice: recheck.adjudicationChoice, reason: recheck.adjudicationReason, byName: names.get(recheck.adjudicatedBy!) ?? null, at: recheck.adjudicatedAt.toISOString() }
+        : null,
+    },
     unit: { id: recheck.unitId, serial: first.serial, lotId: first.lotId, purchaseRef: first.purchaseRef, partTypeName: first.partTypeName, rubricVersion: first.rubricVersion },
-    first: { grade: first.finalGrade, proposed: first.proposedGrade, overrideReason: first.overrideReason, lines: first.explanation.lines, notes: first.explanation.notes, byName: names.get(first.gradedBy) ?? null, at: first.createdAt },
-    second: { grade: recheck.recheckGrade!, proposed: recheck.proposedGrade!, overrideReason: recheck.overrideReason, lines: recheck.measurement.proposal.lines, notes: recheck.measurement.proposal.notes, byName: names.get(recheck.auditorId!) ?? null, at: recheck.submittedAt! },
+    first: {
+      grade: first.finalGrade,
+      proposed: first.proposedGrade,
+      overrideReason: first.overrideReason,
+      lines: first.explanation.lines,
+      notes: first.explanation.notes,
+      byName: names.get(first.gradedBy) ?? null,
+      at: first.createdAt.toISOString(),
+    },
+    second: {
+      grade: recheck.recheckGrade!,
+      proposed: recheck.proposedGrade!,
+      overrideReason: recheck.overrideReason,
+      lines: recheck.measurement.proposal.lines,
+      notes: recheck.measurement.proposal.notes,
+      byName: names.get(recheck.auditorId!) ?? null,
+      at: recheck.submittedAt!.toISOString(),
+    },
     photos: sides.map((side) => ({ ...side, comparison: withAreas.photos.find((p) => p.photoId === side.photo.id) ?? null })),
     classes: recheck.comparison.classes,
     grades: recheck.comparison.grade,
   };
 }
+/** JSON-ready (times as ISO text): the API answers it and the page hands it to the client as it is. */
 export type AdjudicationView = Awaited<ReturnType<typeof adjudicationView>>;

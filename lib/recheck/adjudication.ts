@@ -17,8 +17,7 @@ import type { RecheckComparison } from "./compare";
 import type { RecheckSettings } from "./settings";
 
 export type AdjudicationReason =
-  | { kind: "grade_differs"; first: string; recheck: string; steps: number }
-  | { kind: "regions_differ"; photoId: string; defect: string; iou: number; largerPx: number; meaningfulPx: number };
+  { kind: "grade_differs"; first: string; recheck: string; steps: number } | { kind: "regions_differ"; photoId: string; defect: string; iou: number; largerPx: number; meaningfulPx: number };
 
 export type AdjudicationDecision = { required: boolean; reasons: AdjudicationReason[] };
 

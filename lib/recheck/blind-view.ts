@@ -31,14 +31,28 @@ export async function blindRecheckView(user: Actor, recheckId: string) {
   if (!unit || !rubric) throw notFound("That recheck");
   const byItem = new Map(readings.map((r) => [r.itemId, r.value]));
   return {
-    recheck: { id: recheck.id, leaseExpiresAt: recheck.leaseExpiresAt, rubricVersion: rubric.version },
+    recheck: { id: recheck.id, leaseExpiresAt: recheck.leaseExpiresAt?.toISOString() ?? null, rubricVersion: rubric.version },
     unit: {
       serial: unit.serial,
-      partType: { id: unit.partType.id, name: unit.partType.name, category: unit.partType.category, views: unit.partType.views, defectClasses: unit.partType.defectClasses, panelResolution: unit.partType.panelResolution },
+      partType: {
+        id: unit.partType.id,
+        name: unit.partType.name,
+        category: unit.partType.category,
+        views: unit.partType.views,
+        defectClasses: unit.partType.defectClasses,
+        panelResolution: unit.partType.panelResolution,
+      },
     },
-    photos: photos.map((p) => ({ id: p.id, viewKey: p.viewKey, width: p.width!, height: p.height!, preview: p.previewWidth && p.previewHeight ? { width: p.previewWidth, height: p.previewHeight } : null })),
+    photos: photos.map((p) => ({
+      id: p.id,
+      viewKey: p.viewKey,
+      width: p.width!,
+      height: p.height!,
+      preview: p.previewWidth && p.previewHeight ? { width: p.previewWidth, height: p.previewHeight } : null,
+    })),
     checklist: unit.partType.checklist.map((item) => ({ item, value: byItem.get(item.id) ?? null })),
     regionSets: Object.fromEntries(sets.map((set) => [set.photoId, { version: set.version, regions: set.payload }])),
   };
 }
+/** JSON-ready (times as ISO text): the API answers it and the page hands it to the client as it is. */
 export type BlindRecheckView = Awaited<ReturnType<typeof blindRecheckView>>;

@@ -27,7 +27,10 @@ export function driftWeeksUpTo(at: Date, count: number, timeZone: string): strin
   return Array.from({ length: count }, (_, i) => new Date(last - (count - 1 - i) * 7 * DAY_MS).toISOString().slice(0, 10));
 }
 
-export async function graderDrift(tx: Tx, { workspaceId, graderId, at, settings, timeZone }: { workspaceId: string; graderId: string; at: Date; settings: RecheckSettings; timeZone: string }): Promise<DriftFlag> {
+export async function graderDrift(
+  tx: Tx,
+  { workspaceId, graderId, at, settings, timeZone }: { workspaceId: string; graderId: string; at: Date; settings: RecheckSettings; timeZone: string },
+): Promise<DriftFlag> {
   const weeks = driftWeeksUpTo(at, settings.driftWeeks, timeZone);
   const rows = await countDriftWindow({ workspaceId, graderId, fromDay: weeks[0], until: at, timeZone }, tx);
   const mine = new AgreementTally();

@@ -34,7 +34,10 @@ export async function saveRecheckRegions(user: Actor, recheckId: string, photoId
     const version = await saveRecheckRegionSet(tx, { workspaceId: user.workspaceId, recheckId, photoId, payload: result.value, baseVersion: input.baseVersion, userId: user.id });
     if (version === null) {
       const current = (await listRecheckRegionSets({ workspaceId: user.workspaceId, recheckId }, tx)).find((set) => set.photoId === photoId);
-      throw new AppError("conflict", `Your regions on this photo were saved elsewhere (now version ${current?.version ?? 0}; this edit started from version ${input.baseVersion}). Reload, then save again.`);
+      throw new AppError(
+        "conflict",
+        `Your regions on this photo were saved elsewhere (now version ${current?.version ?? 0}; this edit started from version ${input.baseVersion}). Reload, then save again.`,
+      );
     }
     return { photoId, version, regions: result.value };
   });

@@ -23,7 +23,17 @@ import "server-only";
 import crypto from "node:crypto";
 import { transaction, type Tx } from "@/db/client";
 import { logActivity } from "@/db/queries/activity";
-import { getCurrentGrade, listGradeFacts, getRecheckSettingsRow, insertRecheckDraw, insertRechecks, listActiveUserIdsWithRoles, listGraderInspectionGrades, listRecheckedGradeIds, setRecheckSettings } from "@/db/queries/rechecks";
+import {
+  getCurrentGrade,
+  listGradeFacts,
+  getRecheckSettingsRow,
+  insertRecheckDraw,
+  insertRechecks,
+  listActiveUserIdsWithRoles,
+  listGraderInspectionGrades,
+  listRecheckedGradeIds,
+  setRecheckSettings,
+} from "@/db/queries/rechecks";
 import { lockUnit } from "@/db/queries/units";
 import { holders } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/require-user";
@@ -52,7 +62,14 @@ export async function updateRecheckSettings(actor: Pick<SessionUser, "id" | "wor
   return transaction(async (tx) => {
     const before = await recheckSettings(actor, tx);
     await setRecheckSettings(tx, { workspaceId: actor.workspaceId, settings });
-    await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.id, action: "recheck.settings_changed", subjectType: "workspace", subjectId: actor.workspaceId, detail: { from: before.settings, to: settings } });
+    await logActivity(tx, {
+      workspaceId: actor.workspaceId,
+      actorId: actor.id,
+      action: "recheck.settings_changed",
+      subjectType: "workspace",
+      subjectId: actor.workspaceId,
+      detail: { from: before.settings, to: settings },
+    });
     return settings;
   });
 }
@@ -73,7 +90,9 @@ export async function drawOnGradeRecorded(tx: Tx, grade: { workspaceId: string; 
   const auditorIds = await listActiveUserIdsWithRoles({ workspaceId, roles: holders("recheck.perform") }, tx);
   const drift = await graderDrift(tx, { workspaceId, graderId: grade.graderId, at: grade.gradedAt, settings, timeZone });
   const graderRates = drift.flagged ? { [grade.graderId]: recheckRateFor(settings, { drifting: true }) } : {};
-  const raisedFor = drift.flagged ? { [grade.graderId]: { drifting: true, reasons: drift.reasons, agreement: Number.isNaN(drift.agreement.share) ? null : drift.agreement.share, n: drift.agreement.n, weeks: drift.weeks } } : {};
+  const raisedFor = drift.flagged
+    ? { [grade.graderId]: { drifting: true, reasons: drift.reasons, agreement: Number.isNaN(drift.agreement.share) ? null : drift.agreement.share, n: drift.agreement.n, weeks: drift.weeks } }
+    : {};
   const seed = newSeed();
   const input = { period, candidates, alreadyDrawn, rate: settings.rate, graderRates, raisedFor, minimumPerGrader: settings.minimumPerGrader, final: false, auditorIds };
   const result = drawRechecks({ seed, ...input });
@@ -87,16 +106,31 @@ export async function drawOnGradeRecorded(tx: Tx, grade: { workspaceId: string; 
     input,
     outcome: { drawn: result.drawn.map((d) => d.gradeId), graders: result.graders, noOtherAuditor: result.noOtherAuditor },
   });
-  const rows = await insertRecheckRowsForGrades(tx, workspaceId, result.drawn.map((d) => d.gradeId), { reason: drift.flagged ? "raised_rate" : "rate", drawId: draw.id });
+  const rows = await insertRecheckRowsForGrades(
+    tx,
+    workspaceId,
+    result.drawn.map((d) => d.gradeId),
+    { reason: drift.flagged ? "raised_rate" : "rate", drawId: draw.id },
+  );
   for (const row of rows) {
-    await logActivity(tx, { workspaceId, actorId: null, action: "recheck.drawn", subjectType: "unit", subjectId: row.unitId, detail: { recheckId: row.id, gradeId: row.gradeId, drawId: draw.id, reason: drift.flagged ? "raised_rate" : "rate" } });
+    await logActivity(tx, {
+      workspaceId,
+      actorId: null,
+      action: "recheck.drawn",
+      subjectType: "unit",
+      subjectId: row.unitId,
+      detail: { recheckId: row.id, gradeId: row.gradeId, drawId: draw.id, reason: drift.flagged ? "raised_rate" : "rate" },
+    });
   }
   return rows;
 }
 
 async function insertRecheckRowsForGrades(tx: Tx, workspaceId: string, gradeIds: string[], how: { reason: "rate" | "raised_rate"; drawId: string }) {
   const facts = await listGradeFacts({ workspaceId, gradeIds }, tx);
-  return insertRechecks(tx, facts.map((grade) => ({ workspaceId, ...grade, reason: how.reason, drawId: how.drawId })));
+  return insertRechecks(
+    tx,
+    facts.map((grade) => ({ workspaceId, ...grade, reason: how.reason, drawId: how.drawId })),
+  );
 }
 
 /** A lead or an auditor sends a unit's current grade to recheck by hand. */
@@ -107,10 +141,27 @@ export async function sendToRecheck(actor: Pick<SessionUser, "id" | "workspaceId
     const grade = await getCurrentGrade({ workspaceId: actor.workspaceId, unitId: input.unitId }, tx);
     if (!grade) throw new AppError("conflict", "This unit has no grade yet, so there is nothing to recheck. Send it once it is graded.");
     const [made] = await insertRechecks(tx, [
-      { workspaceId: actor.workspaceId, unitId: input.unitId, gradeId: grade.id, firstGraderId: grade.gradedBy, partTypeId: grade.partTypeId, rubricVersionId: grade.rubricVersionId, reason: "by_hand", sentBy: actor.id, sentNote: input.note ?? null },
+      {
+        workspaceId: actor.workspaceId,
+        unitId: input.unitId,
+        gradeId: grade.id,
+        firstGraderId: grade.gradedBy,
+        partTypeId: grade.partTypeId,
+        rubricVersionId: grade.rubricVersionId,
+        reason: "by_hand",
+        sentBy: actor.id,
+        sentNote: input.note ?? null,
+      },
     ]);
     if (!made) throw new AppError("conflict", "This unit's current grade is already in recheck (or was rechecked); a grade is rechecked once.");
-    await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.id, action: "recheck.sent", subjectType: "unit", subjectId: input.unitId, detail: { recheckId: made.id, gradeId: grade.id, note: input.note ?? null } });
+    await logActivity(tx, {
+      workspaceId: actor.workspaceId,
+      actorId: actor.id,
+      action: "recheck.sent",
+      subjectType: "unit",
+      subjectId: input.unitId,
+      detail: { recheckId: made.id, gradeId: grade.id, note: input.note ?? null },
+    });
     return { id: made.id, unitId: input.unitId };
   });
 }

@@ -4,7 +4,11 @@ import { GRADES } from "@/lib/grading/rubric-schema";
 import { saveRegionsSchema } from "@/lib/regions/schemas";
 import { isUuid } from "@/lib/validation";
 
-const uuid = (what: string) => z.string({ error: `${what} is required.` }).refine(isUuid, `${what} is not a valid id.`).transform((value) => value.toLowerCase());
+const uuid = (what: string) =>
+  z
+    .string({ error: `${what} is required.` })
+    .refine(isUuid, `${what} is not a valid id.`)
+    .transform((value) => value.toLowerCase());
 
 /** A lead or an auditor sends a unit's current grade to recheck. */
 export const sendToRecheckSchema = z.strictObject({
@@ -27,10 +31,7 @@ const grade = z.enum(GRADES, { error: "must be A, B, C or Reject" });
  */
 export const submitRecheckSchema = z.discriminatedUnion(
   "decision",
-  [
-    z.strictObject({ decision: z.literal("accept"), proposedGrade: grade }),
-    z.strictObject({ decision: z.literal("override"), proposedGrade: grade, finalGrade: grade, reason }),
-  ],
+  [z.strictObject({ decision: z.literal("accept"), proposedGrade: grade }), z.strictObject({ decision: z.literal("override"), proposedGrade: grade, finalGrade: grade, reason })],
   { error: 'decision must be "accept" or "override"' },
 );
 export type SubmitRecheckInput = z.infer<typeof submitRecheckSchema>;
@@ -40,14 +41,25 @@ export const adjudicateSchema = z.discriminatedUnion(
   "choice",
   [
     z.strictObject({ choice: z.literal("first"), reason: z.string({ error: "Say why this grade stands." }).trim().min(1, "Say why this grade stands.").max(1000, "must be at most 1000 characters") }),
-    z.strictObject({ choice: z.literal("recheck"), reason: z.string({ error: "Say why this grade stands." }).trim().min(1, "Say why this grade stands.").max(1000, "must be at most 1000 characters") }),
-    z.strictObject({ choice: z.literal("own"), finalGrade: grade, reason: z.string({ error: "Say why this grade stands." }).trim().min(1, "Say why this grade stands.").max(1000, "must be at most 1000 characters") }),
+    z.strictObject({
+      choice: z.literal("recheck"),
+      reason: z.string({ error: "Say why this grade stands." }).trim().min(1, "Say why this grade stands.").max(1000, "must be at most 1000 characters"),
+    }),
+    z.strictObject({
+      choice: z.literal("own"),
+      finalGrade: grade,
+      reason: z.string({ error: "Say why this grade stands." }).trim().min(1, "Say why this grade stands.").max(1000, "must be at most 1000 characters"),
+    }),
   ],
   { error: 'choice must be "first", "recheck" or "own"' },
 );
 export type AdjudicateInput = z.infer<typeof adjudicateSchema>;
 
-const dateKey = (what: string) => z.string().regex(/^\d{4}-\d{2}-\d{2}$/, `${what} must be a date like 2026-11-30.`).refine((value) => !Number.isNaN(Date.parse(`${value}T00:00:00Z`)) && new Date(`${value}T00:00:00Z`).toISOString().startsWith(value), `${what} is not a calendar date.`);
+const dateKey = (what: string) =>
+  z
+    .string()
+    .regex(/^\d{4}-\d{2}-\d{2}$/, `${what} must be a date like 2026-11-30.`)
+    .refine((value) => !Number.isNaN(Date.parse(`${value}T00:00:00Z`)) && new Date(`${value}T00:00:00Z`).toISOString().startsWith(value), `${what} is not a calendar date.`);
 
 /** The scorecards' period: local dates, both included; both optional (default: the last 12 weeks). */
 export const scorecardPeriodShape = { from: dateKey("The first day").optional(), to: dateKey("The last day").optional() };

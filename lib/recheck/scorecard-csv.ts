@@ -40,7 +40,13 @@ export const SCORECARD_CSV_COLUMNS: CsvColumn<ScorecardCsvRow>[] = [
   { header: "quadratic_kappa_low_95", value: (r) => r.figures.quadraticKappa.low },
   { header: "quadratic_kappa_high_95", value: (r) => r.figures.quadraticKappa.high },
   { header: "quadratic_kappa_band", value: (r) => r.figures.quadraticKappa.band },
-  { header: "mean_iou_by_class", value: (r) => Object.entries(r.figures.meanIou).map(([defect, { mean, n }]) => `${defect}=${mean.toFixed(3)} (n=${n})`).join("; ") },
+  {
+    header: "mean_iou_by_class",
+    value: (r) =>
+      Object.entries(r.figures.meanIou)
+        .map(([defect, { mean, n }]) => `${defect}=${mean.toFixed(3)} (n=${n})`)
+        .join("; "),
+  },
   { header: "drift_flagged", value: (r) => (r.drift ? r.drift.flagged : null) },
   { header: "drift_reasons", value: (r) => (r.drift ? r.drift.reasons.join(" ") : null) },
 ];

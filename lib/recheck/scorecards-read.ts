@@ -53,6 +53,13 @@ export async function readScorecards(actor: Pick<SessionUser, "workspaceId">, qu
     gradeSets.map((set) => [set.firstGrade, set.recheckGrade, ...(set.adjudicatedGrade ? [set.adjudicatedGrade] : [])]),
     { counts: gradeSets.map((set) => set.count) },
   );
-  return { ...cards, settings, names: Object.fromEntries(cards.graders.map((g) => [g.graderId, names.get(g.graderId) ?? "someone no longer listed"])), multiRater: team, timeZone, nextWeek: nextPeriod(periodOfDate(to, "week"), "week") };
+  return {
+    ...cards,
+    settings,
+    names: Object.fromEntries(cards.graders.map((g) => [g.graderId, names.get(g.graderId) ?? "someone no longer listed"])),
+    multiRater: team,
+    timeZone,
+    nextWeek: nextPeriod(periodOfDate(to, "week"), "week"),
+  };
 }
 export type ScorecardsView = Awaited<ReturnType<typeof readScorecards>>;

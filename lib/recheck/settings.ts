@@ -6,7 +6,11 @@
  */
 import { z } from "zod";
 
-const share = (what: string) => z.number({ error: `${what} must be a number.` }).min(0, `${what} must be at least 0.`).max(1, `${what} must be at most 1 (100 %).`);
+const share = (what: string) =>
+  z
+    .number({ error: `${what} must be a number.` })
+    .min(0, `${what} must be at least 0.`)
+    .max(1, `${what} must be at most 1 (100 %).`);
 
 export const recheckSettingsSchema = z
   .object({

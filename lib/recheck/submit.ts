@@ -64,7 +64,13 @@ async function measureWithOwnRegions(tx: Tx, user: Actor, recheck: LockedRecheck
   const { nominalSizeMm, panelResolution, views, defectClasses } = unit.partType;
   const outcome = await runInThread(
     "measure-unit",
-    { partType: { views, defectClasses, nominalSizeMm, panelResolution }, rubric: rubric.rubric, photos: inputs, functionalFailures: functionalFailureCounts(checklist.results), budgetMs: MEASURE_INLINE_BUDGET_MS },
+    {
+      partType: { views, defectClasses, nominalSizeMm, panelResolution },
+      rubric: rubric.rubric,
+      photos: inputs,
+      functionalFailures: functionalFailureCounts(checklist.results),
+      budgetMs: MEASURE_INLINE_BUDGET_MS,
+    },
     { timeoutMs: MEASURE_INLINE_BUDGET_MS + COMPUTE_START_ALLOWANCE_MS },
   );
   return { outcome, photos, sets: setOf, rubricVersion: rubric.version, checklistLatestAt: checklist.latestAt };
@@ -91,7 +97,9 @@ export async function submitRecheck(user: Actor, recheckId: string, input: Submi
     }
     const recheckGrade: Grade = input.decision === "accept" ? proposed : input.finalGrade;
     if (input.decision === "override" && recheckGrade === proposed) {
-      throw new AppError("bad_request", `The proposed grade is already ${proposed}; accept it instead of overriding.`, { fieldErrors: { finalGrade: `Choose a grade other than the proposed ${proposed}, or accept.` } });
+      throw new AppError("bad_request", `The proposed grade is already ${proposed}; accept it instead of overriding.`, {
+        fieldErrors: { finalGrade: `Choose a grade other than the proposed ${proposed}, or accept.` },
+      });
     }
     const first = await getFirstGradeOfRecheck({ workspaceId: user.workspaceId, gradeId: recheck.gradeId }, tx);
     if (!first) throw notFound("That recheck");
@@ -114,7 +122,11 @@ export async function submitRecheck(user: Actor, recheckId: string, input: Submi
     const comparison = await compareRecheck({ photos, firstGrade: first.finalGrade as Grade, recheckGrade });
     const decision = adjudicationDecision(comparison, settings);
     const notBlind = await hasOpenedUnit({ workspaceId: user.workspaceId, unitId: recheck.unitId, userId: user.id }, tx);
-    const measurement: StoredUnitResult = { ...measured.outcome.unit, checklistStamp: checklistStampOf(measured.checklistLatestAt), views: Object.fromEntries(measured.photos.map((p) => [p.id, p.viewKey])) };
+    const measurement: StoredUnitResult = {
+      ...measured.outcome.unit,
+      checklistStamp: checklistStampOf(measured.checklistLatestAt),
+      views: Object.fromEntries(measured.photos.map((p) => [p.id, p.viewKey])),
+    };
     const status = decision.required ? "adjudication" : "agreed";
     await storeRecheckSubmission(tx, {
       workspaceId: user.workspaceId,
@@ -129,7 +141,14 @@ export async function submitRecheck(user: Actor, recheckId: string, input: Submi
       adjudicationReasons: decision.reasons,
       status,
     });
-    await logActivity(tx, { workspaceId: user.workspaceId, actorId: user.id, action: "recheck.submitted", subjectType: "recheck", subjectId: recheckId, detail: { unitId: recheck.unitId, status, notBlind, steps: comparison.grade.steps } });
+    await logActivity(tx, {
+      workspaceId: user.workspaceId,
+      actorId: user.id,
+      action: "recheck.submitted",
+      subjectType: "recheck",
+      subjectId: recheckId,
+      detail: { unitId: recheck.unitId, status, notBlind, steps: comparison.grade.steps },
+    });
     return { id: recheckId, status, notBlind, recheckGrade, comparison, reasons: decision.reasons };
   });
 }

@@ -29,10 +29,7 @@ export type MergeResult = {
 };
 
 function entriesOf(payload: RegionSetPayload): Entry[] {
-  const list: Entry[] = [
-    ...payload.surfaces.map((value): Entry => ({ id: value.id, kind: "surface", value })),
-    ...payload.regions.map((value): Entry => ({ id: value.id, kind: "defect", value })),
-  ];
+  const list: Entry[] = [...payload.surfaces.map((value): Entry => ({ id: value.id, kind: "surface", value })), ...payload.regions.map((value): Entry => ({ id: value.id, kind: "defect", value }))];
   if (payload.ruler) list.push({ id: payload.ruler.id, kind: "ruler", value: payload.ruler });
   return list;
 }

@@ -17,9 +17,8 @@ import { getPhotoForRegions, getRegionSetHead, listPhotoRegions, lockRegionSet, 
 import type { SessionUser } from "@/lib/auth/require-user";
 import { AppError, notFound } from "@/lib/errors";
 import { parseRegionSet, type RegionSetPayload } from "@/lib/geometry/validate";
-import { claimForWork, workClaimsUnit } from "@/lib/queue/claim-for-work";
-import { assertNotLeasedByOther } from "@/lib/queue/queue";
-import { STATUS_LABELS } from "@/lib/units/state-machine";
+import { claimForWork } from "@/lib/queue/claim-for-work";
+import { assertUnitEditable, type UnitLeaseState } from "@/lib/units/editability";
 import { payloadFromRows, rowsForSave, samePayload } from "./payload";
 import type { SaveRegionsInput } from "./schemas";
 
@@ -35,16 +34,16 @@ export type RegionSetView = {
 
 /** Another save came first: the Bench gets the current state to merge with. */
 export class RegionVersionConflict extends AppError {
-  constructor(readonly current: RegionSetView, baseVersion: number) {
+  constructor(
+    readonly current: RegionSetView,
+    baseVersion: number,
+  ) {
     super(
       "conflict",
       `These regions were changed elsewhere${current.updatedByName ? ` by ${current.updatedByName}` : ""} (now version ${current.version}; this edit started from version ${baseVersion}). Nothing was saved; reload or merge, then save again.`,
     );
   }
 }
-
-/** Units whose regions may still change: waiting or on a bench (graded evidence is fixed). */
-const EDITABLE_STATUSES = ["queued", "on_bench"] as const;
 
 export async function loadPhotoForRegions(actor: Actor, photoId: string): Promise<PhotoForRegions> {
   const row = await getPhotoForRegions({ workspaceId: actor.workspaceId, photoId });
@@ -79,16 +78,13 @@ export function validateRegions(photo: PhotoForRegions, input: unknown): RegionS
 }
 
 /**
- * Whether the actor may mark regions on this unit's photos now (lot open, unit not yet graded, no
- * one else's running lease); throws 409 with the reason. The save checks it under the unit's lock;
- * learned suggestions check it unlocked, since they store nothing.
+ * Whether the actor may mark regions on this unit's photos now, and whether marking takes the unit
+ * onto their bench: lib/units/editability.ts ("regions": lot open, unit waiting or on a bench, no
+ * one else's running lease), thrown as the 403/409 with its sentence. The save checks it under the
+ * unit's lock; learned suggestions may check it unlocked, since they store nothing.
  */
-export function assertUnitAnnotatable(lotStatus: PhotoForRegions["lotStatus"], unit: Parameters<typeof assertNotLeasedByOther>[0], actor: SessionUser): void {
-  if (lotStatus !== "open") throw new AppError("conflict", "This unit's lot is decided; its regions can no longer change.");
-  if (!(EDITABLE_STATUSES as readonly string[]).includes(unit.status)) {
-    throw new AppError("conflict", `This unit is ${STATUS_LABELS[unit.status]}, so its regions are part of the record and can no longer change.`);
-  }
-  assertNotLeasedByOther(unit, actor);
+export function assertUnitAnnotatable(lotStatus: "open" | "decided", unit: UnitLeaseState, actor: Actor & Partial<Pick<SessionUser, "timeZone">>): { claims: boolean } {
+  return assertUnitEditable({ work: "regions", actor, lotStatus, unit, timeZone: actor.timeZone });
 }
 
 export async function saveRegionSet(actor: SessionUser, photoId: string, input: SaveRegionsInput): Promise<RegionSetView> {
@@ -99,7 +95,7 @@ export async function saveRegionSet(actor: SessionUser, photoId: string, input: 
     // The unit first (the same order as grading), so a grade and a save never deadlock.
     const unit = await lockUnit(tx, { workspaceId: actor.workspaceId, unitId: photo.unit.id });
     if (!unit) throw notFound("That photo");
-    assertUnitAnnotatable(photo.lotStatus, unit, actor);
+    const { claims } = assertUnitAnnotatable(unit.lotStatus, unit, actor);
     const set = await lockRegionSet(tx, key);
     if (set.version !== input.baseVersion) {
       const current = await readRegionSet(actor, photoId, tx);
@@ -109,7 +105,7 @@ export async function saveRegionSet(actor: SessionUser, photoId: string, input: 
       throw new RegionVersionConflict(current, input.baseVersion);
     }
     // Marking a unit that waits in the queue (or whose lease ran out) takes it onto the marker's bench.
-    if (workClaimsUnit(unit)) await claimForWork(tx, actor, unit, "regions");
+    if (claims) await claimForWork(tx, actor, unit, "regions");
     const version = set.version + 1;
     const previous = await listPhotoRegions(key, tx);
     const { rows, added, changed, removed } = rowsForSave(payload, previous, { authorId: actor.id, version });

@@ -6,11 +6,11 @@
  * corners, the lit edge's glow against the bezel and the median window's reach beyond the area
  * (our choice, c). Pure.
  */
-import type { ZoneDefinition } from "@/db/schema/lots";
 import { boundsOfShape } from "@/lib/geometry/bounds";
 import type { PolygonShape } from "@/lib/geometry/shape";
 import { zonesToPixels } from "@/lib/grading/measure-photo";
 import type { PixelSearchArea } from "@/lib/imaging/pixel-search-area";
+import type { ZoneDefinition } from "@/lib/part-types/schemas";
 
 export const EDGE_BAND_SHARE = 0.02;
 export const MIN_EDGE_BAND_PX = 16;
@@ -21,15 +21,22 @@ export function screenSearchArea(input: { surfaces: readonly PolygonShape[]; zon
   if (input.surfaces.length === 0) {
     return { problem: "This photo has no Surface yet. Mark the panel's outline with the Surface tool (or Suggest Surface) first: pixel faults are looked for only inside it." };
   }
-  const zones = zonesToPixels(input.zones.map((z) => ({ id: z.id, polygon: z.polygon })), [...input.surfaces], input.size);
+  const zones = zonesToPixels(
+    input.zones.map((z) => ({ id: z.id, polygon: z.polygon })),
+    [...input.surfaces],
+    input.size,
+  );
   const shapes = [...input.surfaces, ...zones.map((z) => z.shape)];
-  const boxes = [input.surfaces, zones.map((z) => z.shape)].filter((list) => list.length > 0).map((list) => {
-    const bounds = list.map((shape) => boundsOfShape(shape));
-    return { minX: Math.min(...bounds.map((b) => b.minX)), minY: Math.min(...bounds.map((b) => b.minY)), maxX: Math.max(...bounds.map((b) => b.maxX)), maxY: Math.max(...bounds.map((b) => b.maxY)) };
-  });
+  const boxes = [input.surfaces, zones.map((z) => z.shape)]
+    .filter((list) => list.length > 0)
+    .map((list) => {
+      const bounds = list.map((shape) => boundsOfShape(shape));
+      return { minX: Math.min(...bounds.map((b) => b.minX)), minY: Math.min(...bounds.map((b) => b.minY)), maxX: Math.max(...bounds.map((b) => b.maxX)), maxY: Math.max(...bounds.map((b) => b.maxY)) };
+    });
   const width = Math.min(...boxes.map((b) => b.maxX)) - Math.max(...boxes.map((b) => b.minX));
   const height = Math.min(...boxes.map((b) => b.maxY)) - Math.max(...boxes.map((b) => b.minY));
-  if (!(width > 0 && height > 0) || shapes.length === 0) return { problem: "The view's screen zone lies outside the Surface on this photo, so there is no active area to search. Check the Surface outline." };
+  if (!(width > 0 && height > 0) || shapes.length === 0)
+    return { problem: "The view's screen zone lies outside the Surface on this photo, so there is no active area to search. Check the Surface outline." };
   const edgeBandPx = Math.max(MIN_EDGE_BAND_PX, Math.round(EDGE_BAND_SHARE * Math.min(width, height)));
   const regions = [{ polygons: input.surfaces.map((s) => s.points) }];
   if (zones.length > 0) regions.push({ polygons: zones.map((z) => z.shape.points) });

@@ -11,9 +11,7 @@ import { clampPoint, type ImageSize } from "@/lib/geometry/clamp";
 import type { PolygonShape, SpotShape } from "@/lib/geometry/shape";
 import type { PixelCandidate } from "@/lib/imaging/pixel-candidates";
 
-export type SuggestionGhost =
-  | { id: string; role: "surface"; shape: PolygonShape; label: string }
-  | { id: string; role: "defect"; defect: string; shape: SpotShape; label: string };
+export type SuggestionGhost = { id: string; role: "surface"; shape: PolygonShape; label: string } | { id: string; role: "defect"; defect: string; shape: SpotShape; label: string };
 
 export type SuggestionResponse = { kind: "surface" | "pixel-candidates"; ghosts: SuggestionGhost[]; note: string };
 
@@ -50,7 +48,13 @@ export function candidateGhosts(candidates: readonly PixelCandidate[], allowed: 
       return;
     }
     const [x, y] = clampPoint([c.x, c.y], size);
-    ghosts.push({ id: `candidate-${i + 1}`, role: "defect", defect: c.kind, shape: { kind: "spot", x, y, radius: Math.max(MIN_CANDIDATE_RADIUS, c.radius) }, label: `${label} (score ${Math.round(c.score * 100)} %)` });
+    ghosts.push({
+      id: `candidate-${i + 1}`,
+      role: "defect",
+      defect: c.kind,
+      shape: { kind: "spot", x, y, radius: Math.max(MIN_CANDIDATE_RADIUS, c.radius) },
+      label: `${label} (score ${Math.round(c.score * 100)} %)`,
+    });
   });
   return { ghosts, withoutClass };
 }

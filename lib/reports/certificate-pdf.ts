@@ -32,7 +32,11 @@ function label(doc: PdfDoc, text: string, x: number, y: number, width: number) {
 
 function field(doc: PdfDoc, name: string, value: string, x: number, y: number, width: number, size = 11) {
   label(doc, name, x, y, width);
-  doc.font(PDF_FONT.semibold).fontSize(size).fillColor(INK).text(value || "—", x, y + 10, { width, height: size * 2.6, ellipsis: true });
+  doc
+    .font(PDF_FONT.semibold)
+    .fontSize(size)
+    .fillColor(INK)
+    .text(value || "—", x, y + 10, { width, height: size * 2.6, ellipsis: true });
 }
 
 /** Pixel size of an image as pdfkit reads it (openImage exists at run time; its types omit it). */
@@ -51,12 +55,28 @@ export async function renderCertificatePdf(data: CertificateData, options: Certi
 
   // Header: issuer, title, and the verification block on the right.
   doc.font(PDF_FONT.semibold).fontSize(10).fillColor(MUTED).text(data.workspaceName, left, margins.top, { width: textWidth, lineBreak: false, ellipsis: true });
-  doc.font(PDF_FONT.bold).fontSize(22).fillColor(INK).text("Condition certificate", left, margins.top + 14, { width: textWidth });
-  doc.font(PDF_FONT.regular).fontSize(9).fillColor(MUTED).text(`Issued ${formatInstant(data.issuedAt, timeZone)} · certificate ${data.shortCode}`, left, margins.top + 44, { width: textWidth });
+  doc
+    .font(PDF_FONT.bold)
+    .fontSize(22)
+    .fillColor(INK)
+    .text("Condition certificate", left, margins.top + 14, { width: textWidth });
+  doc
+    .font(PDF_FONT.regular)
+    .fontSize(9)
+    .fillColor(MUTED)
+    .text(`Issued ${formatInstant(data.issuedAt, timeZone)} · certificate ${data.shortCode}`, left, margins.top + 44, { width: textWidth });
   const qrX = left + width - qrSize;
   drawQr(doc, data.verificationUrl, { x: qrX, y: margins.top - 6, size: qrSize });
-  doc.font(PDF_FONT.bold).fontSize(10).fillColor(INK).text(data.shortCode, qrX, margins.top + qrSize - 4, { width: qrSize, align: "center", lineBreak: false });
-  doc.font(PDF_FONT.regular).fontSize(7).fillColor(MUTED).text("Scan, or enter the code on the verification page", qrX - 10, margins.top + qrSize + 9, { width: qrSize + 20, align: "center" });
+  doc
+    .font(PDF_FONT.bold)
+    .fontSize(10)
+    .fillColor(INK)
+    .text(data.shortCode, qrX, margins.top + qrSize - 4, { width: qrSize, align: "center", lineBreak: false });
+  doc
+    .font(PDF_FONT.regular)
+    .fontSize(7)
+    .fillColor(MUTED)
+    .text("Scan, or enter the code on the verification page", qrX - 10, margins.top + qrSize + 9, { width: qrSize + 20, align: "center" });
 
   // The part.
   let y = margins.top + 78;
@@ -72,11 +92,22 @@ export async function renderCertificatePdf(data: CertificateData, options: Certi
   const gradeBox = 84;
   doc.roundedRect(left, y, gradeBox, gradeBox, 6).lineWidth(1.5).strokeColor(INK).stroke();
   label(doc, "Cosmetic grade", left + 8, y + 8, gradeBox - 16);
-  doc.font(PDF_FONT.bold).fontSize(data.grade === "Reject" ? 20 : 40).fillColor(INK).text(data.grade, left, y + (data.grade === "Reject" ? 38 : 24), { width: gradeBox, align: "center", lineBreak: false });
+  doc
+    .font(PDF_FONT.bold)
+    .fontSize(data.grade === "Reject" ? 20 : 40)
+    .fillColor(INK)
+    .text(data.grade, left, y + (data.grade === "Reject" ? 38 : 24), { width: gradeBox, align: "center", lineBreak: false });
   const explanation = data.explanation.length ? data.explanation : ["No rubric rule lowered the grade: no measured defect reached a limit."];
   label(doc, "Why this grade", left + gradeBox + 16, y, width - gradeBox - 16);
   doc.font(PDF_FONT.regular).fontSize(9).fillColor(INK);
-  doc.text(clampLines(explanation, MAX_EXPLANATION_LINES).map((line) => `• ${line}`).join("\n"), left + gradeBox + 16, y + 12, { width: width - gradeBox - 16, height: 96, ellipsis: true });
+  doc.text(
+    clampLines(explanation, MAX_EXPLANATION_LINES)
+      .map((line) => `• ${line}`)
+      .join("\n"),
+    left + gradeBox + 16,
+    y + 12,
+    { width: width - gradeBox - 16, height: 96, ellipsis: true },
+  );
   y += 110;
 
   // Checklist.
@@ -85,9 +116,16 @@ export async function renderCertificatePdf(data: CertificateData, options: Certi
   const missing = data.checklist.length - passed - failed.length;
   label(doc, "Functional checklist", left, y, width);
   const summary = `${passed} of ${data.checklist.length} checks passed` + (failed.length ? `, ${failed.length} failed` : "") + (missing ? `, ${missing} not recorded` : "") + ".";
-  doc.font(PDF_FONT.semibold).fontSize(9.5).fillColor(INK).text(summary, left, y + 11, { width });
+  doc
+    .font(PDF_FONT.semibold)
+    .fontSize(9.5)
+    .fillColor(INK)
+    .text(summary, left, y + 11, { width });
   const itemLines = data.checklist.map((item) => `${item.result === "pass" ? "✓" : item.result === "fail" ? "✗" : "–"} ${item.label}${item.detail ? ` (${item.detail})` : ""}`);
-  doc.font(PDF_FONT.regular).fontSize(8.5).text(clampLines(itemLines, MAX_CHECKLIST_LINES).join("\n"), left, y + 25, { width, columns: 2, columnGap: 16, height: 62, ellipsis: true });
+  doc
+    .font(PDF_FONT.regular)
+    .fontSize(8.5)
+    .text(clampLines(itemLines, MAX_CHECKLIST_LINES).join("\n"), left, y + 25, { width, columns: 2, columnGap: 16, height: 62, ellipsis: true });
   y += 96;
 
   // Views with their regions.
@@ -102,7 +140,11 @@ export async function renderCertificatePdf(data: CertificateData, options: Certi
     const size = imageSize(doc, view.thumbnail);
     const drawnHeight = Math.min(thumbMaxHeight, (size.height * thumbWidth) / size.width);
     doc.image(view.thumbnail, x, y + 12, { fit: [thumbWidth, thumbMaxHeight], align: "center" });
-    doc.font(PDF_FONT.regular).fontSize(8).fillColor(MUTED).text(view.label, x, y + 16 + drawnHeight, { width: thumbWidth, align: "center", lineBreak: false, ellipsis: true });
+    doc
+      .font(PDF_FONT.regular)
+      .fontSize(8)
+      .fillColor(MUTED)
+      .text(view.label, x, y + 16 + drawnHeight, { width: thumbWidth, align: "center", lineBreak: false, ellipsis: true });
   });
   if (data.views.length > MAX_VIEWS) doc.text(`… ${data.views.length - MAX_VIEWS} more on the verification page`, left, y + 178, { width });
   y += 196;
@@ -110,8 +152,16 @@ export async function renderCertificatePdf(data: CertificateData, options: Certi
   // Integrity and caution, pinned to the bottom of the page.
   const bottom = doc.page.height - margins.bottom;
   label(doc, "Content hash (SHA-256 of the certificate's data, also shown on the verification page)", left, bottom - 74, width);
-  doc.font(PDF_FONT.regular).fontSize(9).fillColor(INK).text(groupedHash(certificateHash(data)), left, bottom - 63, { width, lineBreak: false });
-  doc.font(PDF_FONT.regular).fontSize(7.5).fillColor(MUTED).text(`${GRADE_CAUTION} Verify this certificate before relying on it: a revoked certificate says so on its verification page.`, left, bottom - 44, { width, height: 40 });
+  doc
+    .font(PDF_FONT.regular)
+    .fontSize(9)
+    .fillColor(INK)
+    .text(groupedHash(certificateHash(data)), left, bottom - 63, { width, lineBreak: false });
+  doc
+    .font(PDF_FONT.regular)
+    .fontSize(7.5)
+    .fillColor(MUTED)
+    .text(`${GRADE_CAUTION} Verify this certificate before relying on it: a revoked certificate says so on its verification page.`, left, bottom - 44, { width, height: 40 });
 
   if (doc.bufferedPageRange().count !== 1) throw new Error("The certificate ran onto a second page");
   return pdfBuffer(doc);

@@ -10,5 +10,4 @@ export const formatAql = (aql: number | null) => (aql === null ? "0 (none accept
 /** Share 0..1 as "12.5 %". */
 export const formatShare = (share: number) => `${(share * 100).toFixed(1)} %`;
 
-export const GRADE_CAUTION =
-  "Grades are decision aids: company policy, supplier contracts and local regulations decide. Standards tables in Partproof are summaries; the licensed standard governs.";
+export const GRADE_CAUTION = "Grades are decision aids: company policy, supplier contracts and local regulations decide. Standards tables in Partproof are summaries; the licensed standard governs.";

@@ -17,7 +17,7 @@ import { getPartType } from "@/db/queries/part-types";
 import { userNames } from "@/db/queries/reports";
 import { listLotUnits, listUnitResults } from "@/db/queries/units";
 import { getWorkspace } from "@/db/queries/workspaces";
-import type { ChecklistItem } from "@/db/schema/lots";
+import type { ChecklistItem } from "@/lib/part-types/schemas";
 import type { DefectSeverity } from "@/lib/part-types/severity";
 import type { Role } from "@/lib/auth/roles";
 import { notFound } from "@/lib/errors";
@@ -69,7 +69,16 @@ export async function loadLotReport(reader: Reader, lotId: string, { photos = tr
     SEVERITY_ORDER.map((severity) => {
       const p = lot.plan.byDefectSeverity[severity];
       const v = verdict.classes[severity];
-      const planRow: LotReportPlanRow = { aql: p.aql, codeLetter: p.codeLetter, planLetter: p.planLetter, sampleSize: p.sampleSize, accept: p.accept, reject: p.reject, inspected: v.inspected, found: v.found };
+      const planRow: LotReportPlanRow = {
+        aql: p.aql,
+        codeLetter: p.codeLetter,
+        planLetter: p.planLetter,
+        sampleSize: p.sampleSize,
+        accept: p.accept,
+        reject: p.reject,
+        inspected: v.inspected,
+        found: v.found,
+      };
       return [severity, planRow];
     }),
   ) as Record<DefectSeverity, LotReportPlanRow>;

@@ -31,8 +31,15 @@ function facts(doc: PdfDoc, rows: [string, string][]) {
   const width = doc.page.width - left - doc.page.margins.right - labelWidth;
   for (const [label, value] of rows) {
     const y = doc.y;
-    doc.font(PDF_FONT.semibold).fontSize(9).fillColor(MUTED).text(label, left, y, { width: labelWidth - 8 });
-    doc.font(PDF_FONT.regular).fillColor(INK).text(value || "—", left + labelWidth, y, { width });
+    doc
+      .font(PDF_FONT.semibold)
+      .fontSize(9)
+      .fillColor(MUTED)
+      .text(label, left, y, { width: labelWidth - 8 });
+    doc
+      .font(PDF_FONT.regular)
+      .fillColor(INK)
+      .text(value || "—", left + labelWidth, y, { width });
     doc.y = Math.max(doc.y, y + 12);
   }
 }
@@ -74,7 +81,11 @@ function verdictBlock(doc: PdfDoc, data: LotReportData, timeZone: string) {
   const { decision } = data;
   const verdict = decision?.verdict ?? data.runningVerdict ?? "pending";
   const title = decision ? (verdict === "accept" ? "Accepted" : "Rejected") : `Not decided yet (running verdict: ${verdict})`;
-  doc.font(PDF_FONT.bold).fontSize(14).fillColor(verdict === "reject" ? "#A2261C" : verdict === "accept" ? "#1F6B3A" : MUTED).text(title);
+  doc
+    .font(PDF_FONT.bold)
+    .fontSize(14)
+    .fillColor(verdict === "reject" ? "#A2261C" : verdict === "accept" ? "#1F6B3A" : MUTED)
+    .text(title);
   doc.moveDown(0.2);
   if (decision) {
     facts(doc, [
@@ -122,7 +133,11 @@ export async function renderLotReportPdf(data: LotReportData, options: LotReport
   const left = doc.page.margins.left;
 
   doc.font(PDF_FONT.bold).fontSize(18).fillColor(INK).text("Lot inspection report", left, doc.page.margins.top);
-  doc.font(PDF_FONT.regular).fontSize(9).fillColor(MUTED).text(`${data.workspaceName} · generated ${formatInstant(data.generatedAt, timeZone)} by ${data.generatedBy}`);
+  doc
+    .font(PDF_FONT.regular)
+    .fontSize(9)
+    .fillColor(MUTED)
+    .text(`${data.workspaceName} · generated ${formatInstant(data.generatedAt, timeZone)} by ${data.generatedBy}`);
   doc.moveDown(0.8);
   facts(doc, [
     ["Lot (purchase reference)", lot.purchaseRef],
@@ -137,11 +152,19 @@ export async function renderLotReportPdf(data: LotReportData, options: LotReport
   heading(doc, "Sampling plan per severity (ISO 2859-1 single sampling)");
   const planRows = DEFECT_SEVERITIES.map((severity) => [DEFECT_SEVERITY_LABELS[severity], data.plan[severity]] as [string, LotReportPlanRow]);
   drawTable(doc, planColumns, planRows, { x: left, y: doc.y });
-  doc.font(PDF_FONT.regular).fontSize(7.5).fillColor(MUTED).text("A unit counts once per severity in which it has a nonconformity; a lot is rejected in a class when the defectives found reach Re.", left, doc.y + 4);
+  doc
+    .font(PDF_FONT.regular)
+    .fontSize(7.5)
+    .fillColor(MUTED)
+    .text("A unit counts once per severity in which it has a nonconformity; a lot is rejected in a class when the defectives found reach Re.", left, doc.y + 4);
 
   heading(doc, "Verdict and disposition");
   verdictBlock(doc, data, timeZone);
-  doc.font(PDF_FONT.regular).fontSize(7.5).fillColor(MUTED).text(GRADE_CAUTION, left, doc.y + 4, { width: doc.page.width - left - doc.page.margins.right });
+  doc
+    .font(PDF_FONT.regular)
+    .fontSize(7.5)
+    .fillColor(MUTED)
+    .text(GRADE_CAUTION, left, doc.y + 4, { width: doc.page.width - left - doc.page.margins.right });
 
   heading(doc, "Defect classes (Pareto)");
   paretoSection(doc, paretoRows(data.defectCounts));

@@ -26,9 +26,7 @@ export function paretoRows(input: readonly ParetoInput[], { cutoff = DEFAULT_PAR
     const seen = merged.get(item.key);
     merged.set(item.key, seen ? { ...seen, count: seen.count + item.count } : { ...item });
   }
-  const sorted = [...merged.values()]
-    .filter((item) => item.count > 0)
-    .sort((a, b) => b.count - a.count || a.label.localeCompare(b.label) || (a.key < b.key ? -1 : a.key > b.key ? 1 : 0));
+  const sorted = [...merged.values()].filter((item) => item.count > 0).sort((a, b) => b.count - a.count || a.label.localeCompare(b.label) || (a.key < b.key ? -1 : a.key > b.key ? 1 : 0));
   const total = sorted.reduce((sum, item) => sum + item.count, 0);
   let running = 0;
   let reached = false;

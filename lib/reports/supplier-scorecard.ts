@@ -85,7 +85,8 @@ class FiguresSum {
       this.severity[severity].defectives += counts.defectives;
     }
     for (const [defect, counts] of Object.entries(lot.classes)) {
-      if (counts.units > lot.inspected || counts.units > counts.defects) throw new RangeError(`Class "${defect}": ${counts.units} units affected must be at most the ${lot.inspected} inspected and the ${counts.defects} defects.`);
+      if (counts.units > lot.inspected || counts.units > counts.defects)
+        throw new RangeError(`Class "${defect}": ${counts.units} units affected must be at most the ${lot.inspected} inspected and the ${counts.defects} defects.`);
       const entry = this.classes.get(defect) ?? { units: 0, defects: 0 };
       entry.units += counts.units;
       entry.defects += counts.defects;
@@ -100,7 +101,9 @@ class FiguresSum {
       rejected: this.rejected,
       open: this.open,
       inspected: this.inspected,
-      bySeverity: Object.fromEntries(DEFECT_SEVERITIES.map((s) => [s, { ...this.severity[s], per100: per100(this.severity[s].defectives, this.severity[s].inspected) }])) as SupplierFigures["bySeverity"],
+      bySeverity: Object.fromEntries(
+        DEFECT_SEVERITIES.map((s) => [s, { ...this.severity[s], per100: per100(this.severity[s].defectives, this.severity[s].inspected) }]),
+      ) as SupplierFigures["bySeverity"],
       classes: Object.fromEntries([...this.classes].map(([defect, c]) => [defect, { ...c, unitsPer100: per100(c.units, this.inspected), defectsPer100: per100(c.defects, this.inspected) }])),
     };
   }

@@ -45,15 +45,43 @@ export type PlanLetter = CodeLetter | "S";
 
 /** Sample size per letter for normal and tightened inspection (Tables 2-A, 2-B). */
 export const SAMPLE_SIZE_BY_LETTER: Readonly<Record<CodeLetter, number>> = {
-  A: 2, B: 3, C: 5, D: 8, E: 13, F: 20, G: 32, H: 50,
-  J: 80, K: 125, L: 200, M: 315, N: 500, P: 800, Q: 1250, R: 2000,
+  A: 2,
+  B: 3,
+  C: 5,
+  D: 8,
+  E: 13,
+  F: 20,
+  G: 32,
+  H: 50,
+  J: 80,
+  K: 125,
+  L: 200,
+  M: 315,
+  N: 500,
+  P: 800,
+  Q: 1250,
+  R: 2000,
 };
 /** Table 2-B's extra letter. No cell in the 0.065 … 10 columns leads to it. */
 export const TIGHTENED_EXTRA_LETTER = { letter: "S", sampleSize: 3150 } as const;
 /** Reduced sample sizes per letter (Z1.4 Table II-C; from memory (b)). */
 export const REDUCED_SAMPLE_SIZE_BY_LETTER: Readonly<Record<CodeLetter, number>> = {
-  A: 2, B: 2, C: 2, D: 3, E: 5, F: 8, G: 13, H: 20,
-  J: 32, K: 50, L: 80, M: 125, N: 200, P: 315, Q: 500, R: 800,
+  A: 2,
+  B: 2,
+  C: 2,
+  D: 3,
+  E: 5,
+  F: 8,
+  G: 13,
+  H: 20,
+  J: 32,
+  K: 50,
+  L: 80,
+  M: 125,
+  N: 200,
+  P: 315,
+  Q: 500,
+  R: 800,
 };
 
 // No MAX_LOT_SIZE: Table 1's last row is "500 001 and over".
@@ -250,12 +278,7 @@ export function resolvePlan(letter: CodeLetter, aql: number, severity: Inspectio
  * `accept`, `reject` from the plan actually used after following arrows. Throws SamplingInputError
  * on invalid input.
  */
-export function singleSamplingPlan(input: {
-  lotSize: number;
-  level: InspectionLevel;
-  aql: number;
-  severity: InspectionSeverity;
-}): SingleSamplingPlan {
+export function singleSamplingPlan(input: { lotSize: number; level: InspectionLevel; aql: number; severity: InspectionSeverity }): SingleSamplingPlan {
   const parsed = planInputSchema.safeParse(input);
   if (!parsed.success) throw new SamplingInputError(firstIssueMessage(parsed.error, input));
   const { lotSize, level, aql, severity } = parsed.data;

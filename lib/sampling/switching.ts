@@ -22,27 +22,22 @@
  * time); where it differs from what the rules called for, a note says so.
  */
 import { z } from "zod";
-import {
-  CODE_LETTERS,
-  INSPECTION_SEVERITIES,
-  judgeLot,
-  SamplingInputError,
-  tighterAcceptNumber,
-  type InspectionSeverity,
-} from "./iso2859";
+import { CODE_LETTERS, INSPECTION_SEVERITIES, judgeLot, SamplingInputError, tighterAcceptNumber, type InspectionSeverity } from "./iso2859";
 
 export const SWITCHING_SCORE_FOR_REDUCED = 30;
 
-const classResultSchema = z.object({
-  defectClass: z.string().optional(),
-  aql: z.number().positive().optional(),
-  planLetter: z.enum(CODE_LETTERS).optional(),
-  accept: z.number().int().min(0),
-  reject: z.number().int().min(1),
-  found: z.number().int().min(0),
-  /** Ac one AQL step tighter on the same sample; derived from aql + planLetter when absent. */
-  tighterAccept: z.number().int().min(0).nullable().optional(),
-}).refine((result) => result.reject > result.accept, { error: "reject must be greater than accept" });
+const classResultSchema = z
+  .object({
+    defectClass: z.string().optional(),
+    aql: z.number().positive().optional(),
+    planLetter: z.enum(CODE_LETTERS).optional(),
+    accept: z.number().int().min(0),
+    reject: z.number().int().min(1),
+    found: z.number().int().min(0),
+    /** Ac one AQL step tighter on the same sample; derived from aql + planLetter when absent. */
+    tighterAccept: z.number().int().min(0).nullable().optional(),
+  })
+  .refine((result) => result.reject > result.accept, { error: "reject must be greater than accept" });
 
 const decidedLotSchema = z.object({
   lotId: z.string().min(1),
@@ -113,9 +108,7 @@ function scorePoints(lot: DecidedLot): number | null {
   let smallest = Infinity;
   for (const result of lot.classes) {
     if (result.accept >= 2) {
-      const tighter =
-        result.tighterAccept ??
-        (result.aql !== undefined && result.planLetter !== undefined ? tighterAcceptNumber(result.planLetter, result.aql) : null);
+      const tighter = result.tighterAccept ?? (result.aql !== undefined && result.planLetter !== undefined ? tighterAcceptNumber(result.planLetter, result.aql) : null);
       if (tighter === null || tighter === undefined) {
         throw new SamplingInputError(`lot ${lot.lotId}: a class with Ac >= 2 needs aql and planLetter (or tighterAccept) for the switching score`);
       }
@@ -160,9 +153,13 @@ export function nextInspectionState(input: SwitchingInput): SwitchingState {
     if (lot.severity !== state.severity && !state.discontinued) {
       const approvedReduced = state.severity === "normal" && lot.severity === "reduced" && state.score >= SWITCHING_SCORE_FOR_REDUCED;
       if (!approvedReduced) notes.push(`Lot ${lot.lotId} was inspected on ${lot.severity} although the rules called for ${state.severity}.`);
-      switchTo(lot.severity, previousLotId, approvedReduced
-        ? `The switching score was ${state.score} (reduced needs ${SWITCHING_SCORE_FOR_REDUCED}) and reduced inspection was approved → reduced.`
-        : `Lot ${lot.lotId} was recorded on ${lot.severity} inspection → ${lot.severity}.`);
+      switchTo(
+        lot.severity,
+        previousLotId,
+        approvedReduced
+          ? `The switching score was ${state.score} (reduced needs ${SWITCHING_SCORE_FOR_REDUCED}) and reduced inspection was approved → reduced.`
+          : `Lot ${lot.lotId} was recorded on ${lot.severity} inspection → ${lot.severity}.`,
+      );
     }
     const notAccepted = !lot.accepted;
     if (state.discontinued) {
@@ -188,7 +185,12 @@ export function nextInspectionState(input: SwitchingInput): SwitchingState {
         state.acceptedOnTightened = 0;
         if (state.notAcceptedOnTightened >= 5) {
           state.discontinued = true;
-          transitions.push({ afterLotId: lot.lotId, from: "tightened", to: "discontinued", reason: `5 lots were not accepted while on tightened inspection (the last was ${lot.lotId}) → inspection discontinued until the supplier has corrected the cause.` });
+          transitions.push({
+            afterLotId: lot.lotId,
+            from: "tightened",
+            to: "discontinued",
+            reason: `5 lots were not accepted while on tightened inspection (the last was ${lot.lotId}) → inspection discontinued until the supplier has corrected the cause.`,
+          });
         }
       } else {
         state.acceptedOnTightened += 1;
@@ -207,8 +209,7 @@ export function nextInspectionState(input: SwitchingInput): SwitchingState {
   }
 
   const lastLotId = history.length ? history[history.length - 1].lotId : null;
-  const reducedEligible =
-    state.severity === "normal" && !state.discontinued && state.score >= SWITCHING_SCORE_FOR_REDUCED && state.acceptedOnNormal >= 10 && steadyProduction;
+  const reducedEligible = state.severity === "normal" && !state.discontinued && state.score >= SWITCHING_SCORE_FOR_REDUCED && state.acceptedOnNormal >= 10 && steadyProduction;
   if (reducedEligible && reducedAllowed) {
     switchTo("reduced", lastLotId, `The switching score is ${state.score} (reduced needs ${SWITCHING_SCORE_FOR_REDUCED}), production is steady and the lead has enabled reduced inspection → reduced.`);
   } else if (state.severity === "reduced" && !steadyProduction) {

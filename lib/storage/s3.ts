@@ -9,22 +9,12 @@ import "server-only";
  */
 import { createHash } from "node:crypto";
 import type { Readable } from "node:stream";
-import {
-  CopyObjectCommand,
-  DeleteObjectCommand,
-  GetObjectCommand,
-  HeadBucketCommand,
-  HeadObjectCommand,
-  ListObjectsV2Command,
-  PutObjectCommand,
-  S3Client,
-} from "@aws-sdk/client-s3";
+import { CopyObjectCommand, DeleteObjectCommand, GetObjectCommand, HeadBucketCommand, HeadObjectCommand, ListObjectsV2Command, PutObjectCommand, S3Client } from "@aws-sdk/client-s3";
 import { getSignedUrl } from "@aws-sdk/s3-request-presigner";
 import { AppError } from "@/lib/errors";
 import { env } from "@/lib/env";
 
-export const STORE_UNAVAILABLE_MESSAGE =
-  "The photo store is not reachable right now, so nothing was saved. Your file is still on your device; try again in a moment.";
+export const STORE_UNAVAILABLE_MESSAGE = "The photo store is not reachable right now, so nothing was saved. Your file is still on your device; try again in a moment.";
 
 export class ObjectStoreUnavailableError extends AppError {
   constructor(cause?: unknown) {
@@ -123,11 +113,7 @@ export async function presignPut(store: ObjectStore, key: string, { contentType,
   return getSignedUrl(store.client, new PutObjectCommand({ Bucket: store.bucket, Key: key, ContentType: contentType, ContentLength: contentLength }), { expiresIn: expiresInSeconds });
 }
 
-export async function presignGet(
-  store: ObjectStore,
-  key: string,
-  { expiresInSeconds, contentType, downloadName }: { expiresInSeconds: number; contentType?: string; downloadName?: string },
-) {
+export async function presignGet(store: ObjectStore, key: string, { expiresInSeconds, contentType, downloadName }: { expiresInSeconds: number; contentType?: string; downloadName?: string }) {
   const command = new GetObjectCommand({
     Bucket: store.bucket,
     Key: key,
@@ -151,9 +137,7 @@ export async function putObject(store: ObjectStore, key: string, body: Buffer, {
 
 /** Server-side copy inside the bucket (the bytes never pass through this process). */
 export async function copyObject(store: ObjectStore, fromKey: string, toKey: string): Promise<boolean> {
-  const copied = await callOrNull(() =>
-    store.client.send(new CopyObjectCommand({ Bucket: store.bucket, Key: toKey, CopySource: `${store.bucket}/${encodeURI(fromKey)}` })),
-  );
+  const copied = await callOrNull(() => store.client.send(new CopyObjectCommand({ Bucket: store.bucket, Key: toKey, CopySource: `${store.bucket}/${encodeURI(fromKey)}` })));
   return copied !== null;
 }
 

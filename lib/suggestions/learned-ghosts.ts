@@ -66,7 +66,11 @@ export async function learnedSuggestionsForPhoto(actor: SessionUser, photoId: st
     surface = found.shape ? [found.shape] : [];
     where = found.shape ? "inside the part's outline as Partproof found it (mark the Surface to set it yourself)" : "over the whole photo (mark the Surface to narrow it)";
   }
-  const found = await runInThread("suggest-learned", { model: model.model, image: preview, options: { surface: surface.length ? surface : undefined, defects: allowed, maxSuggestions: MAX_LEARNED_GHOSTS } });
+  const found = await runInThread("suggest-learned", {
+    model: model.model,
+    image: preview,
+    options: { surface: surface.length ? surface : undefined, defects: allowed, maxSuggestions: MAX_LEARNED_GHOSTS },
+  });
   const ghosts: LearnedGhost[] = [];
   for (const [k, s] of found.entries()) {
     const shape = clampShapeToImage(scaleShape(s.shape, 1 / toPreviewX, 1 / toPreviewY), context.size);
@@ -94,7 +98,14 @@ export async function recordDecisions(actor: SessionUser, photoId: string, input
       input.decisions.map((d) => ({ workspaceId: actor.workspaceId, photoId, modelId: model.id, defectClass: d.defect, shape: d.shape, score: d.score, decision: d.decision, decidedBy: actor.id })),
     );
     const accepted = rows.filter((r) => r.decision === "accepted").length;
-    await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.id, action: "suggestions.decided", subjectType: "photo", subjectId: photoId, detail: { modelVersion: model.version, accepted, dismissed: rows.length - accepted } });
+    await logActivity(tx, {
+      workspaceId: actor.workspaceId,
+      actorId: actor.id,
+      action: "suggestions.decided",
+      subjectType: "photo",
+      subjectId: photoId,
+      detail: { modelVersion: model.version, accepted, dismissed: rows.length - accepted },
+    });
     return { recorded: rows.length };
   });
 }

@@ -15,9 +15,7 @@ import type { Shape } from "@/lib/geometry/shape";
 import { getObjectBuffer, objectStore } from "@/lib/storage/s3";
 import { ACCEPTED_UNIT_STATUSES, mergeLabelled, planTraining, type DismissalPhoto, type LabelledPhoto, type PlannedPhoto } from "./training-set";
 
-export type TrainingOutcome =
-  | { trained: true; modelId: string; version: number; inUse: boolean; decision: string }
-  | { trained: false; reason: string };
+export type TrainingOutcome = { trained: true; modelId: string; version: number; inUse: boolean; decision: string } | { trained: false; reason: string };
 
 async function labelledPhotos(workspaceId: string): Promise<{ labelled: LabelledPhoto[]; dismissals: DismissalPhoto[] }> {
   const unitRows = await unitTrainingPhotos(workspaceId, ACCEPTED_UNIT_STATUSES);
@@ -31,7 +29,12 @@ async function labelledPhotos(workspaceId: string): Promise<{ labelled: Labelled
     if (r.role === "surface") surfacesOf.set(r.photoId, [...(surfacesOf.get(r.photoId) ?? []), r.shape]);
   }
   const unitPhotos: LabelledPhoto[] = unitRows.map((p) => ({ ...p, source: "unit", regions: defectsOf.get(p.photoId) ?? [], surfaces: surfacesOf.get(p.photoId) ?? [] }));
-  const galleryPhotos: LabelledPhoto[] = galleryRows.map(({ regions, ...p }) => ({ ...p, source: "gallery", regions: regions.regions.map((r) => ({ defect: r.defect, shape: r.shape })), surfaces: regions.surfaces.map((s) => s.shape) }));
+  const galleryPhotos: LabelledPhoto[] = galleryRows.map(({ regions, ...p }) => ({
+    ...p,
+    source: "gallery",
+    regions: regions.regions.map((r) => ({ defect: r.defect, shape: r.shape })),
+    surfaces: regions.surfaces.map((s) => s.shape),
+  }));
   const dismissals = new Map<string, DismissalPhoto>();
   for (const { shape, ...p } of dismissedRows) {
     const entry = dismissals.get(p.photoId) ?? { ...p, dismissed: [], regions: defectsOf.get(p.photoId) ?? [] };
@@ -78,10 +81,26 @@ export async function trainWorkspaceModel(workspaceId: string, requestedBy: stri
     const stored = await insertModel(
       tx,
       workspaceId,
-      { model: result.model, classCounts: Object.fromEntries(result.model.classes.map((c) => [c.defect, { regions: c.regions, photos: c.photos }])), sources, evaluation: result.candidate.evaluation, suggestable: [...result.candidate.suggestable], decision: result.decision, trainingMs: result.trainingMs, requestedBy },
+      {
+        model: result.model,
+        classCounts: Object.fromEntries(result.model.classes.map((c) => [c.defect, { regions: c.regions, photos: c.photos }])),
+        sources,
+        evaluation: result.candidate.evaluation,
+        suggestable: [...result.candidate.suggestable],
+        decision: result.decision,
+        trainingMs: result.trainingMs,
+        requestedBy,
+      },
       result.switchIn,
     );
-    await logActivity(tx, { workspaceId, actorId: requestedBy, action: stored.inUse ? "suggestions.model_switched_in" : "suggestions.model_kept_aside", subjectType: "suggestion_model", subjectId: stored.id, detail: { version: stored.version, decision: result.decision } });
+    await logActivity(tx, {
+      workspaceId,
+      actorId: requestedBy,
+      action: stored.inUse ? "suggestions.model_switched_in" : "suggestions.model_kept_aside",
+      subjectType: "suggestion_model",
+      subjectId: stored.id,
+      detail: { version: stored.version, decision: result.decision },
+    });
     return stored;
   });
   return { trained: true, modelId: row.id, version: row.version, inUse: row.inUse, decision: result.decision };

@@ -5,7 +5,12 @@ import { promisedGradeSchema } from "@/lib/lots/schemas";
 export const supplierSchema = z
   .object({
     name: z.string({ error: "Enter the supplier's name." }).trim().min(2, "Enter the supplier's name.").max(120, "Keep the name under 120 characters."),
-    contactName: z.string().trim().max(120, "Keep the contact name under 120 characters.").nullish().transform((v) => v || null),
+    contactName: z
+      .string()
+      .trim()
+      .max(120, "Keep the contact name under 120 characters.")
+      .nullish()
+      .transform((v) => v || null),
     contactEmail: emailSchema,
     notes: z.string().max(2000, "Keep notes under 2 000 characters.").optional().default(""),
     /** The grade this supplier's lots are bought at by default; null: the part type's. */

@@ -7,8 +7,7 @@ import type { SessionUser } from "@/lib/auth/require-user";
 import { AppError, notFound } from "@/lib/errors";
 import type { SupplierInput, SupplierUpdateInput } from "./schemas";
 
-const duplicate = () =>
-  new AppError("conflict", "A supplier with this name already exists in your workspace.", { fieldErrors: { name: "A supplier with this name already exists." } });
+const duplicate = () => new AppError("conflict", "A supplier with this name already exists in your workspace.", { fieldErrors: { name: "A supplier with this name already exists." } });
 
 export async function createSupplier(actor: SessionUser, input: SupplierInput) {
   try {

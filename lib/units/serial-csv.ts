@@ -127,10 +127,7 @@ export function parseSerialCsv(input: string): SerialParseResult {
 /** One sentence per problem, for a form or an API error (at most `limit`, then "… and N more"). */
 export function describeSerialProblems(parsed: SerialParseResult, limit = 20): string[] {
   if (parsed.listError) return [parsed.listError];
-  const lines = [
-    ...parsed.errors.map((e) => e.message),
-    ...parsed.duplicates.map((d) => `“${d.serial}” appears ${d.lines.length} times (lines ${d.lines.join(", ")})`),
-  ];
+  const lines = [...parsed.errors.map((e) => e.message), ...parsed.duplicates.map((d) => `“${d.serial}” appears ${d.lines.length} times (lines ${d.lines.join(", ")})`)];
   return lines.length > limit ? [...lines.slice(0, limit), `… and ${lines.length - limit} more`] : lines;
 }
 

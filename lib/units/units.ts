@@ -4,12 +4,11 @@ import { transaction } from "@/db/client";
 import { isUniqueViolation } from "@/db/errors";
 import { logActivity } from "@/db/queries/activity";
 import { lockLot, setLotSampleDraw } from "@/db/queries/lots";
-import { countLotUnits, getUnitDetail, insertUnits, lockUnit, updateUnitSerial } from "@/db/queries/units";
+import { countLotUnits, insertUnits, lockUnit, updateUnitSerial } from "@/db/queries/units";
 import type { SampleDraw } from "@/db/schema";
-import { can } from "@/lib/auth/permissions";
 import type { SessionUser } from "@/lib/auth/require-user";
 import { AppError, notFound } from "@/lib/errors";
-import { assertNotLeasedByOther } from "@/lib/queue/queue";
+import { assertUnitEditable } from "./editability";
 import { DRAW_ALGORITHM, drawSample } from "./sample-draw";
 import { describeSerialProblems, hasSerialProblems, parseSerialCsv } from "./serial-csv";
 import type { UnitsCreateInput } from "./schemas";
@@ -47,14 +46,22 @@ export async function createLotUnits(actor: SessionUser, lotId: string, input: U
       if (hasSerialProblems(parsed)) throw serialListError(describeSerialProblems(parsed));
       const pool = parsed.serials.map((s) => s.serial);
       if (pool.length > lot.quantity) {
-        throw new AppError("bad_request", `The list has ${pool.length.toLocaleString("en-GB")} serials but the lot has ${lot.quantity.toLocaleString("en-GB")} units; check that this is the right list. Nothing was stored.`, {
-          fieldErrors: { csv: "More serials than units in the lot." },
-        });
+        throw new AppError(
+          "bad_request",
+          `The list has ${pool.length.toLocaleString("en-GB")} serials but the lot has ${lot.quantity.toLocaleString("en-GB")} units; check that this is the right list. Nothing was stored.`,
+          {
+            fieldErrors: { csv: "More serials than units in the lot." },
+          },
+        );
       }
       if (pool.length < sampleSize) {
-        throw new AppError("bad_request", `The plan needs ${sampleSize} units but the list has ${pool.length} serials. Import the full list, or use numbered placeholders and scan serials on the bench. Nothing was stored.`, {
-          fieldErrors: { csv: `At least ${sampleSize} serials are needed.` },
-        });
+        throw new AppError(
+          "bad_request",
+          `The plan needs ${sampleSize} units but the list has ${pool.length} serials. Import the full list, or use numbered placeholders and scan serials on the bench. Nothing was stored.`,
+          {
+            fieldErrors: { csv: `At least ${sampleSize} serials are needed.` },
+          },
+        );
       }
       seed = input.seed ?? newDrawSeed();
       serials = drawSample(pool, sampleSize, seed);
@@ -89,11 +96,8 @@ export async function setUnitSerial(actor: SessionUser, unitId: string, serial: 
     return await transaction(async (tx) => {
       const unit = await lockUnit(tx, { workspaceId: actor.workspaceId, unitId });
       if (!unit) throw notFound("That unit");
-      const detail = (await getUnitDetail({ workspaceId: actor.workspaceId, unitId }, tx))!;
-      if (detail.lot.status !== "open") throw new AppError("conflict", "This unit's lot is decided; its serial can no longer change.");
+      assertUnitEditable({ work: "serial", actor, lotStatus: unit.lotStatus, unit, timeZone: actor.timeZone });
       if (!unit.placeholder) throw new AppError("conflict", "This unit's serial came from the supplier's list and cannot be edited here.", { fieldErrors: { serial: "Imported serials are fixed." } });
-      if (unit.status !== "queued" && unit.status !== "on_bench") throw new AppError("conflict", "This unit is graded; its serial can no longer change.");
-      if (!can(actor, "leases.manage")) assertNotLeasedByOther(unit, actor);
       const row = await updateUnitSerial(tx, { workspaceId: actor.workspaceId, unitId, serial });
       await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.id, action: "unit.serial_set", subjectType: "unit", subjectId: unitId, detail: { from: unit.serial, to: serial } });
       return row;

@@ -25,7 +25,8 @@ export type ReadParams<T> = { params: T; ignored: string[] };
 function singleValues(raw: RawSearchParams): { values: Record<string, string>; repeated: string[] } {
   const values: Record<string, string> = {};
   const repeated = new Set<string>();
-  const entries: [string, string][] = raw instanceof URLSearchParams ? [...raw.entries()] : Object.entries(raw).flatMap(([k, v]) => (v === undefined ? [] : (Array.isArray(v) ? v : [v]).map((one): [string, string] => [k, one])));
+  const entries: [string, string][] =
+    raw instanceof URLSearchParams ? [...raw.entries()] : Object.entries(raw).flatMap(([k, v]) => (v === undefined ? [] : (Array.isArray(v) ? v : [v]).map((one): [string, string] => [k, one])));
   for (const [key, value] of entries) {
     if (key in values || repeated.has(key)) {
       repeated.add(key);

@@ -18,7 +18,14 @@ export async function updateWorkspaceSettings(actor: SessionUser, input: Workspa
     const before = await getWorkspace({ workspaceId: actor.workspaceId }, tx);
     if (!before) throw notFound("That workspace");
     const row = await setWorkspaceTimeZone(tx, { workspaceId: actor.workspaceId, timeZone: input.timeZone });
-    await logActivity(tx, { workspaceId: actor.workspaceId, actorId: actor.id, action: "workspace.settings_changed", subjectType: "workspace", subjectId: actor.workspaceId, detail: { timeZone: { from: before.timeZone, to: input.timeZone } } });
+    await logActivity(tx, {
+      workspaceId: actor.workspaceId,
+      actorId: actor.id,
+      action: "workspace.settings_changed",
+      subjectType: "workspace",
+      subjectId: actor.workspaceId,
+      detail: { timeZone: { from: before.timeZone, to: input.timeZone } },
+    });
     return { name: row.name, timeZone: row.timeZone };
   });
 }

@@ -15,7 +15,10 @@ export function setupSteps(c: SetupCounts): SetupStep[] {
       done: c.partTypes > 0,
       href: "/part-types",
       action: c.partTypes > 0 ? "Review the part types" : "Add part types",
-      detail: c.partTypes > 0 ? `${c.partTypes} active: their views, zones, defect classes and checklists are what the Bench asks for.` : "What you inspect: the views to photograph, their zones, the defect classes and the functional checklist. Start from the examples or make your own.",
+      detail:
+        c.partTypes > 0
+          ? `${c.partTypes} active: their views, zones, defect classes and checklists are what the Bench asks for.`
+          : "What you inspect: the views to photograph, their zones, the defect classes and the functional checklist. Start from the examples or make your own.",
     },
     {
       key: "rubrics",
@@ -34,7 +37,10 @@ export function setupSteps(c: SetupCounts): SetupStep[] {
       done: c.suppliers > 0,
       href: "/suppliers",
       action: "Add a supplier",
-      detail: c.suppliers > 0 ? `${c.suppliers} active. Lots come from a supplier; evidence packs go to its contact.` : "Lots come from a supplier, and evidence packs go to its contact. Set the grade its lots are bought at.",
+      detail:
+        c.suppliers > 0
+          ? `${c.suppliers} active. Lots come from a supplier; evidence packs go to its contact.`
+          : "Lots come from a supplier, and evidence packs go to its contact. Set the grade its lots are bought at.",
     },
     {
       key: "people",

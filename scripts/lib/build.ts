@@ -8,7 +8,22 @@ import path from "node:path";
 import { projectRoot } from "./settings";
 import { run } from "./children";
 
-const BUILD_INPUTS = ["app", "components", "lib", "db", "public", "types", "proxy.ts", "instrumentation.ts", "instrumentation-node.ts", "instrumentation-client.ts", "next.config.ts", "postcss.config.mjs", "tsconfig.json", "package-lock.json"];
+const BUILD_INPUTS = [
+  "app",
+  "components",
+  "lib",
+  "db",
+  "public",
+  "types",
+  "proxy.ts",
+  "instrumentation.ts",
+  "instrumentation-node.ts",
+  "instrumentation-client.ts",
+  "next.config.ts",
+  "postcss.config.mjs",
+  "tsconfig.json",
+  "package-lock.json",
+];
 const SKIP = new Set(["node_modules", ".next", ".next-test", ".data", "migrations"]);
 
 function listFiles(entry: string, out: string[]) {

@@ -7,7 +7,12 @@ import fs from "node:fs";
 import path from "node:path";
 import { projectRoot } from "./settings";
 
-const firstLine = (text: string | undefined) => (text ?? "").replace(/\u001b\[[0-9;]*m/g, "").trim().split("\n")[0].slice(0, 240);
+const firstLine = (text: string | undefined) =>
+  (text ?? "")
+    .replace(/\u001b\[[0-9;]*m/g, "")
+    .trim()
+    .split("\n")[0]
+    .slice(0, 240);
 const relative = (file: string) => path.relative(projectRoot, file) || file;
 
 type VitestReport = {

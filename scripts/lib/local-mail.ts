@@ -13,7 +13,10 @@ import { isPortFree, portTakenMessage } from "./ports";
 export const INBOX_BANNER = "Partproof local inbox";
 
 function messageIdOf(raw: Buffer): string | null {
-  const head = raw.subarray(0, Math.min(raw.length, 64 * 1024)).toString("utf8").split(/\r?\n\r?\n/)[0];
+  const head = raw
+    .subarray(0, Math.min(raw.length, 64 * 1024))
+    .toString("utf8")
+    .split(/\r?\n\r?\n/)[0];
   const match = head.match(/^message-id:\s*(.+)$/im);
   return match ? match[1].trim() : null;
 }

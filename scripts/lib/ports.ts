@@ -11,10 +11,7 @@ export function isPortFree(port: number): Promise<boolean> {
 }
 
 export function portTakenMessage(port: number, what: string, envVar: string): string {
-  return (
-    `Port ${port} on 127.0.0.1 is already in use by another program, so ${what} cannot start there.\n` +
-    `Stop that program, or choose another port: ${envVar}=<port> npm start`
-  );
+  return `Port ${port} on 127.0.0.1 is already in use by another program, so ${what} cannot start there.\n` + `Stop that program, or choose another port: ${envVar}=<port> npm start`;
 }
 
 export async function waitFor(check: () => Promise<boolean>, { timeoutMs, intervalMs = 250, what }: { timeoutMs: number; intervalMs?: number; what: string }) {

@@ -34,19 +34,7 @@ export function findPostgresBin(): string {
 function runPg(bin: string, program: string, args: string[], opts: { allowFail?: boolean } = {}) {
   const full = path.join(bin, program);
   const [cmd, cmdArgs] = isRoot
-    ? [
-        "setpriv",
-        [
-          `--reuid=${osUser}`,
-          `--regid=${osUser}`,
-          "--init-groups",
-          "--inh-caps=+dac_read_search",
-          "--ambient-caps=+dac_read_search",
-          "--",
-          full,
-          ...args,
-        ],
-      ]
+    ? ["setpriv", [`--reuid=${osUser}`, `--regid=${osUser}`, "--init-groups", "--inh-caps=+dac_read_search", "--ambient-caps=+dac_read_search", "--", full, ...args]]
     : [full, args];
   const result = spawnSync(cmd, cmdArgs as string[], { encoding: "utf8" });
   if (result.status !== 0 && !opts.allowFail) {
@@ -82,15 +70,7 @@ export async function ensurePostgres(s: ServiceSettings, opts: { freshDatabase?:
     const pwFile = path.join(dataDir, "..", `.pw-${process.pid}`);
     fs.writeFileSync(pwFile, s.pg.password + "\n", { mode: 0o644 });
     try {
-      runPg(bin, "initdb", [
-        "-D", dataDir,
-        "-U", s.pg.user,
-        `--pwfile=${pwFile}`,
-        "--auth-local=trust",
-        "--auth-host=scram-sha-256",
-        "-E", "UTF8",
-        "--locale=C.UTF-8",
-      ]);
+      runPg(bin, "initdb", ["-D", dataDir, "-U", s.pg.user, `--pwfile=${pwFile}`, "--auth-local=trust", "--auth-host=scram-sha-256", "-E", "UTF8", "--locale=C.UTF-8"]);
     } finally {
       fs.rmSync(pwFile, { force: true });
     }
@@ -132,10 +112,15 @@ function startCluster(bin: string, s: ServiceSettings) {
     execFileSync("chown", [`${osUser}:${osUser}`, logFile]);
   }
   runPg(bin, "pg_ctl", [
-    "-D", s.pg.dataDir,
-    "-l", logFile,
-    "-o", `-p ${s.pg.port} -k ${socketDir} -c listen_addresses=127.0.0.1 -c max_connections=200 -c fsync=${s.name === "test" ? "off" : "on"}`,
-    "-w", "-t", "60",
+    "-D",
+    s.pg.dataDir,
+    "-l",
+    logFile,
+    "-o",
+    `-p ${s.pg.port} -k ${socketDir} -c listen_addresses=127.0.0.1 -c max_connections=200 -c fsync=${s.name === "test" ? "off" : "on"}`,
+    "-w",
+    "-t",
+    "60",
     "start",
   ]);
 }

@@ -83,7 +83,17 @@ function testMail(s: ServiceSettings, first: LocalMailHandle | null): Toggle {
 
 export type TestControls = { url: string; startWorker: () => Promise<void>; close: () => Promise<void> };
 
-export async function startTestControls({ settings, env, postgres, mail }: { settings: ServiceSettings; env: Record<string, string>; postgres: PostgresHandle; mail: LocalMailHandle | null }): Promise<TestControls> {
+export async function startTestControls({
+  settings,
+  env,
+  postgres,
+  mail,
+}: {
+  settings: ServiceSettings;
+  env: Record<string, string>;
+  postgres: PostgresHandle;
+  mail: LocalMailHandle | null;
+}): Promise<TestControls> {
   const s3 = await testObjectStore(settings);
   const worker = testWorker(env, settings.dataDir);
   const mailToggle = testMail(settings, mail);

@@ -86,9 +86,15 @@ test("a lead invites a colleague, who sets a password from the e-mail and signs 
 
   // The lead opens the message in the Outbox and follows the link in a fresh browser.
   await page.getByRole("navigation", { name: "Main" }).first().getByRole("link", { name: "Outbox" }).click();
-  await page.getByRole("row", { name: new RegExp(email) }).getByRole("link").click();
+  await page
+    .getByRole("row", { name: new RegExp(email) })
+    .getByRole("link")
+    .click();
   // The Outbox shows the message's web address as a link.
-  const link = (await page.getByTestId("message-text").getByRole("link", { name: /\/set-password\?token=/ }).getAttribute("href"))!;
+  const link = (await page
+    .getByTestId("message-text")
+    .getByRole("link", { name: /\/set-password\?token=/ })
+    .getAttribute("href"))!;
   expect(link).toMatch(/^https?:\/\/\S+\/set-password\?token=\S+$/);
 
   const context = await browser.newContext();

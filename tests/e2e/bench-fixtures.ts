@@ -14,7 +14,23 @@ let pool: pg.Pool | null = null;
 const db = () => (pool ??= new pg.Pool({ connectionString: process.env.DATABASE_URL, max: 2 }));
 
 export const BENCH_VIEWS = [
-  { key: "front", label: "Front", required: true, zones: [{ id: "lens-window", label: "Lens window", polygon: [[0, 0], [0.5, 0], [0.5, 1], [0, 1]] }] },
+  {
+    key: "front",
+    label: "Front",
+    required: true,
+    zones: [
+      {
+        id: "lens-window",
+        label: "Lens window",
+        polygon: [
+          [0, 0],
+          [0.5, 0],
+          [0.5, 1],
+          [0, 1],
+        ],
+      },
+    ],
+  },
   { key: "back", label: "Back", required: true, zones: [] },
 ];
 export const BENCH_DEFECTS = [
@@ -41,7 +57,12 @@ export async function createBenchUnit(holderEmail = "inspector@vellmoor.example"
     `INSERT INTO part_types (workspace_id, slug, name, category, views, defect_classes, checklist, nominal_size_mm) VALUES ($1, $2, $3, 'camera', $4, $5, '[]', '{"width":40,"height":30}') RETURNING id`,
     [ws, `e2e-bench-${t}`, `E2E bench module ${t}`, JSON.stringify(BENCH_VIEWS), JSON.stringify(BENCH_DEFECTS)],
   );
-  await db().query(`INSERT INTO rubric_versions (workspace_id, part_type_id, version, status, rubric, created_by, published_by, published_at) VALUES ($1, $2, 1, 'published', $3, $4, $4, now())`, [ws, partType.id, JSON.stringify(RUBRIC), lead.id]);
+  await db().query(`INSERT INTO rubric_versions (workspace_id, part_type_id, version, status, rubric, created_by, published_by, published_at) VALUES ($1, $2, 1, 'published', $3, $4, $4, now())`, [
+    ws,
+    partType.id,
+    JSON.stringify(RUBRIC),
+    lead.id,
+  ]);
   const supplier = await q<{ id: string }>("INSERT INTO suppliers (workspace_id, name, contact_email) VALUES ($1, $2, 'bench@supplier.example') RETURNING id", [ws, `E2E bench supplier ${t}`]);
   const plan = fixturePlan(2);
   const lot = await q<{ id: string; created_at: Date }>(
@@ -70,8 +91,12 @@ export async function createBenchUnit(holderEmail = "inspector@vellmoor.example"
 export async function partPhoto(width: number, height: number): Promise<Buffer> {
   const shade = 30 + crypto.randomInt(40);
   // A small tag of random colour in the card's corner, so two photos of one unit are never one file.
-  const tag = await sharp({ create: { width: 16, height: 16, channels: 3, background: { r: crypto.randomInt(256), g: crypto.randomInt(256), b: crypto.randomInt(256) } } }).png().toBuffer();
-  const part = await sharp({ create: { width: width / 2, height: height / 2, channels: 3, background: { r: shade, g: shade + 4, b: shade + 8 } } }).png().toBuffer();
+  const tag = await sharp({ create: { width: 16, height: 16, channels: 3, background: { r: crypto.randomInt(256), g: crypto.randomInt(256), b: crypto.randomInt(256) } } })
+    .png()
+    .toBuffer();
+  const part = await sharp({ create: { width: width / 2, height: height / 2, channels: 3, background: { r: shade, g: shade + 4, b: shade + 8 } } })
+    .png()
+    .toBuffer();
   return sharp({ create: { width, height, channels: 3, background: { r: 224, g: 221, b: 214 } } })
     .composite([
       { input: part, left: width / 4, top: height / 4 },

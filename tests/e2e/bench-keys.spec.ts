@@ -48,7 +48,13 @@ test("a thumbnail click hands the keyboard to that photo; the tool in hand, Page
 
   // Trace a Surface with F: the zone notice goes away.
   await page.keyboard.press("f");
-  for (const [x, y] of [[400, 300], [1200, 300], [1200, 900], [400, 900], [400, 300]] as const) {
+  for (const [x, y] of [
+    [400, 300],
+    [1200, 300],
+    [1200, 900],
+    [400, 900],
+    [400, 300],
+  ] as const) {
     const p = await stagePoint(page, x, y);
     await page.mouse.click(p.x, p.y);
     await page.waitForTimeout(350);

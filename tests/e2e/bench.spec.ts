@@ -13,7 +13,10 @@ type Shape =
   | { kind: "polygon"; points: [number, number][] }
   | { kind: "line"; points: [number, number][]; width: number }
   | { kind: "spot"; x: number; y: number; radius: number };
-type RegionSet = { version: number; regions: { regions: { id: string; defect: string; shape: Shape }[]; surfaces: { id: string; shape: Shape }[]; ruler: { a: [number, number]; b: [number, number]; lengthMm: number } | null } };
+type RegionSet = {
+  version: number;
+  regions: { regions: { id: string; defect: string; shape: Shape }[]; surfaces: { id: string; shape: Shape }[]; ruler: { a: [number, number]; b: [number, number]; lengthMm: number } | null };
+};
 
 const ORIGINAL = { width: 4000, height: 3000 };
 
@@ -66,7 +69,10 @@ async function savedVersion(page: Page): Promise<number> {
 
 const near = (got: number, want: number, tolerance: number) => expect(Math.abs(got - want), `${got} vs ${want} (± ${tolerance.toFixed(1)})`).toBeLessThanOrEqual(tolerance);
 
-test("an inspector marks one shape with each tool, changes a class, undoes and redoes, reloads and finds everything in original pixels; a second tab loses nothing; the unit is graded", async ({ page, context }, testInfo) => {
+test("an inspector marks one shape with each tool, changes a class, undoes and redoes, reloads and finds everything in original pixels; a second tab loses nothing; the unit is graded", async ({
+  page,
+  context,
+}, testInfo) => {
   test.setTimeout(180_000);
   const fixture = await createBenchUnit();
   await signInAs(page, "inspector@vellmoor.example");
@@ -86,7 +92,12 @@ test("an inspector marks one shape with each tool, changes a class, undoes and r
   await drag(page, await v.at(1100, 800), await v.at(1500, 1100));
   // Outline: three clicks, then the first vertex again closes it.
   await page.getByTestId("tool-outline").click();
-  for (const [x, y] of [[2200, 900], [2700, 900], [2450, 1300]]) await click(page, await v.at(x, y));
+  for (const [x, y] of [
+    [2200, 900],
+    [2700, 900],
+    [2450, 1300],
+  ])
+    await click(page, await v.at(x, y));
   await click(page, await v.at(2200, 900));
   // Line: two clicks and a double-click on the last point.
   await page.getByTestId("tool-line").click();
@@ -99,7 +110,13 @@ test("an inspector marks one shape with each tool, changes a class, undoes and r
   await drag(page, await v.at(3500, 1500), await v.at(3650, 1500));
   // Surface around the part.
   await page.getByTestId("tool-surface").click();
-  for (const [x, y] of [[1000, 750], [3000, 750], [3000, 2250], [1000, 2250]]) await click(page, await v.at(x, y));
+  for (const [x, y] of [
+    [1000, 750],
+    [3000, 750],
+    [3000, 2250],
+    [1000, 2250],
+  ])
+    await click(page, await v.at(x, y));
   await click(page, await v.at(1000, 750));
   // Ruler along the part's top edge, 40 mm.
   await page.getByTestId("tool-ruler").click();
@@ -127,7 +144,10 @@ test("an inspector marks one shape with each tool, changes a class, undoes and r
   expect(firstVersion).toBeGreaterThan(0);
 
   await page.screenshot({ path: testInfo.outputPath("bench-1440x900.png"), fullPage: true });
-  for (const [width, height] of [[1024, 768], [768, 1024]]) {
+  for (const [width, height] of [
+    [1024, 768],
+    [768, 1024],
+  ]) {
     await page.setViewportSize({ width, height });
     await page.waitForTimeout(400);
     await page.screenshot({ path: testInfo.outputPath(`bench-${width}x${height}.png`), fullPage: true });
@@ -153,7 +173,11 @@ test("an inspector marks one shape with each tool, changes a class, undoes and r
   expect(line.shape.kind).toBe("line");
   if (outline.shape.kind !== "polygon" || line.shape.kind !== "line" || spot.shape.kind !== "spot") throw new Error("unexpected kinds");
   const outlinePoints = outline.shape.points;
-  [[2200, 900], [2700, 900], [2450, 1300]].forEach(([x, y], i) => (near(outlinePoints[i][0], x, t), near(outlinePoints[i][1], y, t)));
+  [
+    [2200, 900],
+    [2700, 900],
+    [2450, 1300],
+  ].forEach(([x, y], i) => (near(outlinePoints[i][0], x, t), near(outlinePoints[i][1], y, t)));
   expect(line.shape.points.length).toBeGreaterThanOrEqual(3);
   near(line.shape.points[0][0], 1200, t);
   near(line.shape.points.at(-1)![0], 2300, t);

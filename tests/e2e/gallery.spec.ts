@@ -30,8 +30,41 @@ test("a trainer promotes a graded unit's photo, edits caption and regions, publi
   // The inspector's graded unit: a photo with a Surface and a scratch, measured and accepted (the API the Bench uses).
   await signInAs(page, "inspector@vellmoor.example");
   const photo = await uploadThroughApi(page.request, fixture.unitId, await partPhoto(1600, 1200), "front");
-  const surface = { id: "surface-1", shape: { kind: "polygon", points: [[400, 300], [1200, 300], [1200, 900], [400, 900]] } };
-  const saved = await page.request.put(`/api/photos/${photo.id}/regions`, { data: { baseVersion: 0, regions: { regions: [{ id: "scratch-1", defect: "scratch", shape: { kind: "line", points: [[500, 400], [900, 600]], width: 8 } }], surfaces: [surface], ruler: null } } });
+  const surface = {
+    id: "surface-1",
+    shape: {
+      kind: "polygon",
+      points: [
+        [400, 300],
+        [1200, 300],
+        [1200, 900],
+        [400, 900],
+      ],
+    },
+  };
+  const saved = await page.request.put(`/api/photos/${photo.id}/regions`, {
+    data: {
+      baseVersion: 0,
+      regions: {
+        regions: [
+          {
+            id: "scratch-1",
+            defect: "scratch",
+            shape: {
+              kind: "line",
+              points: [
+                [500, 400],
+                [900, 600],
+              ],
+              width: 8,
+            },
+          },
+        ],
+        surfaces: [surface],
+        ruler: null,
+      },
+    },
+  });
   expect(saved.status(), await saved.text()).toBe(200);
   expect((await page.request.post(`/api/units/${fixture.unitId}/measure`)).status()).toBe(200);
   expect((await page.request.post(`/api/units/${fixture.unitId}/grades`, { data: { decision: "accept" } })).status()).toBe(201);
@@ -41,7 +74,10 @@ test("a trainer promotes a graded unit's photo, edits caption and regions, publi
   // The trainer finds the graded unit from the Gallery and opens its Bench (view only).
   await signInAs(page, "trainer@vellmoor.example");
   await page.goto("/gallery/new");
-  await page.getByTestId("graded-units").getByRole("link", { name: new RegExp(fixture.serial) }).click();
+  await page
+    .getByTestId("graded-units")
+    .getByRole("link", { name: new RegExp(fixture.serial) })
+    .click();
   await expect(page.getByRole("heading", { level: 1 })).toHaveText(fixture.serial);
   await expect(page.getByTestId("read-only-banner")).toBeVisible();
   await page.getByTestId("add-to-gallery").click();

@@ -11,7 +11,25 @@ import { fixturePlan } from "./db";
 const hex = (n: number) => crypto.randomBytes(n).toString("hex");
 
 // The part type's lens window is the left half of the Surface box; v1: scratch > 0.5 % → B, > 1 % → C.
-const VIEWS = [{ key: "lens", label: "Lens", required: true, zones: [{ id: "lens-window", label: "lens window", polygon: [[0, 0], [0.5, 0], [0.5, 1], [0, 1]] }] }];
+const VIEWS = [
+  {
+    key: "lens",
+    label: "Lens",
+    required: true,
+    zones: [
+      {
+        id: "lens-window",
+        label: "lens window",
+        polygon: [
+          [0, 0],
+          [0.5, 0],
+          [0.5, 1],
+          [0, 1],
+        ],
+      },
+    ],
+  },
+];
 const DEFECTS = [
   { key: "scratch", label: "scratch", severity: "major" },
   { key: "dent", label: "dent", severity: "minor" },
@@ -37,10 +55,12 @@ export async function createGradableUnit(leadEmail: string) {
       `INSERT INTO part_types (workspace_id, slug, name, category, views, defect_classes, checklist, nominal_size_mm) VALUES ($1, $2, $3, 'camera', $4, $5, '[]', '{"width":20,"height":10}') RETURNING id`,
       [ws, `browser-${hex(4)}`, name, JSON.stringify(VIEWS), JSON.stringify(DEFECTS)],
     );
-    await client.query(
-      `INSERT INTO rubric_versions (workspace_id, part_type_id, version, status, rubric, created_by, published_by, published_at) VALUES ($1, $2, 1, 'published', $3, $4, $4, now())`,
-      [ws, partType.id, JSON.stringify(RUBRIC_V1), lead.id],
-    );
+    await client.query(`INSERT INTO rubric_versions (workspace_id, part_type_id, version, status, rubric, created_by, published_by, published_at) VALUES ($1, $2, 1, 'published', $3, $4, $4, now())`, [
+      ws,
+      partType.id,
+      JSON.stringify(RUBRIC_V1),
+      lead.id,
+    ]);
     const supplier = await q<{ id: string }>(`INSERT INTO suppliers (workspace_id, name, contact_email) VALUES ($1, $2, 'browser@supplier.example') RETURNING id`, [ws, `Browser Supplier ${hex(4)}`]);
     const lot = await q<{ id: string; created_at: Date }>(
       `INSERT INTO lots (workspace_id, supplier_id, part_type_id, purchase_ref, quantity, received_on, due_on, inspection_level, aql_major, aql_minor, inspection_severity, plan, created_by)
@@ -62,14 +82,32 @@ export async function createGradableUnit(leadEmail: string) {
     await client.query(`INSERT INTO region_sets (photo_id, workspace_id, version, updated_by) VALUES ($1, $2, 1, $3)`, [photoId, ws, lead.id]);
     // Surface 200 × 100 px; a 12 × 10 px scratch in the 100 × 100 px lens window = 1.2 % → C under v1.
     const regions = [
-      ["surface-1", "surface", null, { kind: "polygon", points: [[50, 50], [250, 50], [250, 150], [50, 150]] }],
+      [
+        "surface-1",
+        "surface",
+        null,
+        {
+          kind: "polygon",
+          points: [
+            [50, 50],
+            [250, 50],
+            [250, 150],
+            [50, 150],
+          ],
+        },
+      ],
       ["scratch-1", "defect", "scratch", { kind: "rect", x: 60, y: 60, width: 12, height: 10 }],
     ] as const;
     for (const [clientId, role, defect, shape] of regions) {
-      await client.query(
-        `INSERT INTO regions (workspace_id, photo_id, client_id, role, defect_class, shape, author_id, version_written) VALUES ($1, $2, $3, $4, $5, $6, $7, 1)`,
-        [ws, photoId, clientId, role, defect, JSON.stringify(shape), lead.id],
-      );
+      await client.query(`INSERT INTO regions (workspace_id, photo_id, client_id, role, defect_class, shape, author_id, version_written) VALUES ($1, $2, $3, $4, $5, $6, $7, 1)`, [
+        ws,
+        photoId,
+        clientId,
+        role,
+        defect,
+        JSON.stringify(shape),
+        lead.id,
+      ]);
     }
     await client.query("COMMIT");
     return { partTypeId: partType.id, partTypeName: name, unitId: unit.id, serial };

@@ -34,26 +34,30 @@ test("an inspector sees learned ghosts, accepts one and dismisses one; both are 
   for (const text of await learned.allInnerTexts()) expect(text).toMatch(/^Scratch \d{1,3} % \(learned\)/);
 
   const count = await learned.count();
-  await learned.first().getByRole("button", { name: /^Accept / }).click();
+  await learned
+    .first()
+    .getByRole("button", { name: /^Accept / })
+    .click();
   await expect(learned).toHaveCount(count - 1);
-  await learned.first().getByRole("button", { name: /^Dismiss / }).click();
+  await learned
+    .first()
+    .getByRole("button", { name: /^Dismiss / })
+    .click();
   await expect(learned).toHaveCount(count - 2);
 
   // Recorded: one accepted, one dismissed, by the inspector, against the model that made them.
   const db = testDb();
   const decisions = async () =>
-    (
-      await db.query<DecisionRow>(
-        `SELECT d.decision, d.defect_class, u.email FROM suggestion_decisions d JOIN users u ON u.id = d.decided_by WHERE d.photo_id = $1 ORDER BY d.decision`,
-        [photo.id],
-      )
-    ).rows;
+    (await db.query<DecisionRow>(`SELECT d.decision, d.defect_class, u.email FROM suggestion_decisions d JOIN users u ON u.id = d.decided_by WHERE d.photo_id = $1 ORDER BY d.decision`, [photo.id]))
+      .rows;
   await expect.poll(decisions, { timeout: 15_000 }).toEqual([
     { decision: "accepted", defect_class: "scratch", email: "inspector@vellmoor.example" },
     { decision: "dismissed", defect_class: "scratch", email: "inspector@vellmoor.example" },
   ]);
   // The accepted ghost became an ordinary region, saved by the Bench's autosave.
   await expect
-    .poll(async () => ((await (await page.request.get(`/api/photos/${photo.id}/regions`)).json()) as { regions: { regions: { defect: string }[] } }).regions.regions.map((r) => r.defect), { timeout: 15_000 })
+    .poll(async () => ((await (await page.request.get(`/api/photos/${photo.id}/regions`)).json()) as { regions: { regions: { defect: string }[] } }).regions.regions.map((r) => r.defect), {
+      timeout: 15_000,
+    })
     .toEqual(["scratch"]);
 });

@@ -50,7 +50,10 @@ test("Lots: filters, sort and page survive back and forward, and a copied link s
     await expect(page).toHaveURL(new RegExp(`supplierId=${supplierId}`));
     await filters.getByLabel("Status").selectOption("open");
     await page.getByRole("navigation", { name: "Lot pages" }).getByLabel("Per page").selectOption("10");
-    await page.getByRole("columnheader", { name: /Purchase ref/ }).getByRole("button").click();
+    await page
+      .getByRole("columnheader", { name: /Purchase ref/ })
+      .getByRole("button")
+      .click();
     await expectLotsView(page, { supplierId, refs: refs.slice(0, 10), pageLabel: "Page 1 of 2" });
     await page.getByRole("button", { name: "Next" }).click();
     await expect(page).toHaveURL(/[?&]page=2(&|$)/);

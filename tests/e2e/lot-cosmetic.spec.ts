@@ -15,7 +15,18 @@ import { signInAs } from "./support";
 test.describe.configure({ timeout: 180_000 });
 
 const stamp = () => `${Date.now().toString(36)}${Math.floor(Math.random() * 1000)}`;
-const SURFACE = { id: "surface", shape: { kind: "polygon", points: [[50, 50], [250, 50], [250, 150], [50, 150]] } };
+const SURFACE = {
+  id: "surface",
+  shape: {
+    kind: "polygon",
+    points: [
+      [50, 50],
+      [250, 50],
+      [250, 150],
+      [50, 150],
+    ],
+  },
+};
 const SCRATCH = { id: "scratch", defect: "scratch", shape: { kind: "rect", x: 60, y: 60, width: 30, height: 10 } }; // 1.5 % of the Surface
 const DENT = { id: "dent", defect: "dent", shape: { kind: "spot", x: 200, y: 120, radius: 4 } };
 

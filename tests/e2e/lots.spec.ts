@@ -121,7 +121,11 @@ async function decidedLot(request: APIRequestContext, supplierId: string, partTy
     expect(res.ok(), await res.text()).toBe(true);
     return (await res.json()) as T;
   };
-  const { lot } = await ok<{ lot: { id: string } }>(await request.post("/api/lots", { data: { supplierId, partTypeId, purchaseRef: ref, quantity: 2, receivedOn: "2026-11-01", dueOn: "2026-11-05", inspectionLevel: "II", aqlCritical: null, aqlMajor: 1.0, aqlMinor: 2.5 } }));
+  const { lot } = await ok<{ lot: { id: string } }>(
+    await request.post("/api/lots", {
+      data: { supplierId, partTypeId, purchaseRef: ref, quantity: 2, receivedOn: "2026-11-01", dueOn: "2026-11-05", inspectionLevel: "II", aqlCritical: null, aqlMajor: 1.0, aqlMinor: 2.5 },
+    }),
+  );
   await ok(await request.post(`/api/lots/${lot.id}/units`, { data: { source: "placeholders" } }));
   const { units } = await ok<{ units: { id: string }[] }>(await request.get(`/api/lots/${lot.id}/units`));
   for (const [i, unit] of units.entries()) {

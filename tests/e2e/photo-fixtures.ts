@@ -23,10 +23,12 @@ export async function createPhotoBenchUnit(): Promise<string> {
   if (!process.env.DATABASE_URL) throw new Error("DATABASE_URL is not set; run browser tests through `npm test`.");
   const t = crypto.randomBytes(4).toString("hex");
   const { rows: ws } = await db().query("SELECT w.id, u.id AS lead FROM workspaces w JOIN users u ON u.workspace_id = w.id WHERE w.slug = 'vellmoor' AND u.email = 'lead@vellmoor.example'");
-  const { rows: pt } = await db().query(
-    "INSERT INTO part_types (workspace_id, slug, name, category, views, defect_classes, checklist) VALUES ($1, $2, $3, 'camera', $4, '[]', '[]') RETURNING id",
-    [ws[0].id, `e2e-photo-${t}`, `E2E camera module ${t}`, JSON.stringify(E2E_VIEWS)],
-  );
+  const { rows: pt } = await db().query("INSERT INTO part_types (workspace_id, slug, name, category, views, defect_classes, checklist) VALUES ($1, $2, $3, 'camera', $4, '[]', '[]') RETURNING id", [
+    ws[0].id,
+    `e2e-photo-${t}`,
+    `E2E camera module ${t}`,
+    JSON.stringify(E2E_VIEWS),
+  ]);
   const { rows: sup } = await db().query("INSERT INTO suppliers (workspace_id, name, contact_email) VALUES ($1, $2, 'e2e@supplier.example') RETURNING id", [ws[0].id, `E2E photo supplier ${t}`]);
   const plan = fixturePlan(1);
   const { rows: lot } = await db().query(
@@ -70,7 +72,9 @@ export async function orientedPhoto(index: number, orientation: 1 | 3 | 6 | 8): 
       for (let c = 0; c < 3; c++) raw[i + c] = Math.max(0, Math.min(255, (marker ? 128 : base[c]) + noise));
     }
   }
-  const upright = await sharp(raw, { raw: { width: w, height: h, channels: 3 } }).jpeg({ quality: 92 }).toBuffer();
+  const upright = await sharp(raw, { raw: { width: w, height: h, channels: 3 } })
+    .jpeg({ quality: 92 })
+    .toBuffer();
   return asCameraJpeg(upright, { orientation, capturedAt: new Date("2026-11-30T09:00:00Z"), offset: "+01:00" });
 }
 

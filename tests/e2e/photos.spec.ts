@@ -61,7 +61,10 @@ test("an inspector uploads 10 photos at once, watches the progress, and sees eac
   await page.getByRole("button", { name: "Upload 10 photos" }).click();
   await expect(page.getByRole("progressbar")).toHaveCount(11); // one per file and one for the batch
   const seen = await watching;
-  expect(seen.some((v) => v > 0 && v < 100), `batch progress values seen: ${seen.join(", ")}`).toBe(true);
+  expect(
+    seen.some((v) => v > 0 && v < 100),
+    `batch progress values seen: ${seen.join(", ")}`,
+  ).toBe(true);
   expect(seen.at(-1)).toBe(100);
   await cdp.send("Network.emulateNetworkConditions", { offline: false, latency: 0, downloadThroughput: -1, uploadThroughput: -1 });
 
@@ -77,12 +80,16 @@ test("an inspector uploads 10 photos at once, watches the progress, and sees eac
     const image = page.getByAltText(new RegExp(`bench-${i + 1}-exif${o}\\.jpg$`));
     await expect(image).toBeVisible();
     await expect
-      .poll(() => image.evaluate((img: HTMLImageElement) => (img.complete && img.naturalWidth > 0 ? [img.naturalWidth, img.naturalHeight] : null)), { message: `thumbnail of bench-${i + 1} (Exif ${o})` })
+      .poll(() => image.evaluate((img: HTMLImageElement) => (img.complete && img.naturalWidth > 0 ? [img.naturalWidth, img.naturalHeight] : null)), {
+        message: `thumbnail of bench-${i + 1} (Exif ${o})`,
+      })
       .toEqual([320, 240]);
     if (o === 1) continue;
     const res = await page.request.get((await image.getAttribute("src"))!);
     expect(res.headers()["content-type"]).toBe("image/webp");
-    const { data, info } = await sharp(await res.body()).raw().toBuffer({ resolveWithObject: true });
+    const { data, info } = await sharp(await res.body())
+      .raw()
+      .toBuffer({ resolveWithObject: true });
     const pixel = (x: number, y: number) => [...data.subarray((y * info.width + x) * info.channels, (y * info.width + x) * info.channels + 3)];
     // CIPA DC-008 (Exif 2.3): orientation 3 is shown turned 180°, 6 turned 90° clockwise and 8 turned
     // 90° counter-clockwise; after that, the picture's own top-left quadrant is at the top left. (a)

@@ -16,7 +16,9 @@ test("pixel faults are suggested inside the active screen area only; accepting a
   const { unitId } = await createScreenBenchUnit();
   await signInAs(page, "inspector@vellmoor.example");
   const photo = await uploadThroughApi(page.request, unitId, await screenPhoto(), "screen-white");
-  const surface = await page.request.put(`/api/photos/${photo.id}/regions`, { data: { baseVersion: 0, regions: { surfaces: [{ id: "surface-1", shape: { kind: "polygon", points: SCREEN_SURFACE } }], regions: [], ruler: null } } });
+  const surface = await page.request.put(`/api/photos/${photo.id}/regions`, {
+    data: { baseVersion: 0, regions: { surfaces: [{ id: "surface-1", shape: { kind: "polygon", points: SCREEN_SURFACE } }], regions: [], ruler: null } },
+  });
   expect(surface.ok(), await surface.text()).toBe(true);
 
   await page.goto(`/units/${unitId}`);
@@ -39,6 +41,9 @@ test("pixel faults are suggested inside the active screen area only; accepting a
     .toBe(2);
   const saved = (await (await page.request.get(`/api/photos/${photo.id}/regions`)).json()) as { regions: { regions: { defect: string; shape: Spot }[] } };
   for (const fault of SCREEN_INSIDE) {
-    expect(saved.regions.regions.some((r) => r.defect === fault.kind && Math.hypot(r.shape.x - (fault.x + 1), r.shape.y - (fault.y + 1)) <= 1.5), `${fault.kind} at ${fault.x},${fault.y}`).toBe(true);
+    expect(
+      saved.regions.regions.some((r) => r.defect === fault.kind && Math.hypot(r.shape.x - (fault.x + 1), r.shape.y - (fault.y + 1)) <= 1.5),
+      `${fault.kind} at ${fault.x},${fault.y}`,
+    ).toBe(true);
   }
 });

@@ -21,7 +21,10 @@ async function signOut(page: Page) {
 }
 
 async function shots(page: Page, name: string, outputPath: (name: string) => string) {
-  for (const [width, height] of [[1440, 900], [1024, 768]] as const) {
+  for (const [width, height] of [
+    [1440, 900],
+    [1024, 768],
+  ] as const) {
     await page.setViewportSize({ width, height });
     await page.waitForTimeout(300);
     await page.screenshot({ path: outputPath(`${name}-${width}x${height}.png`) });
@@ -45,8 +48,21 @@ test("a graded unit is drawn, rechecked blind, adjudicated by a lead, and the un
     await signInAs(page, "inspector@vellmoor.example");
     const front = await uploadThroughApi(page.request, fixture.unitId, await partPhoto(1600, 1200), "front");
     await uploadThroughApi(page.request, fixture.unitId, await partPhoto(1600, 1200), "back");
-    const surface = { id: "s1", shape: { kind: "polygon", points: [[400, 300], [1200, 300], [1200, 900], [400, 900]] } };
-    const saved = await page.request.put(`/api/photos/${front.id}/regions`, { data: { baseVersion: 0, regions: { regions: [{ id: "first-scratch", defect: "scratch", shape: { kind: "rect", x: 420, y: 320, width: 60, height: 40 } }], surfaces: [surface], ruler: null } } });
+    const surface = {
+      id: "s1",
+      shape: {
+        kind: "polygon",
+        points: [
+          [400, 300],
+          [1200, 300],
+          [1200, 900],
+          [400, 900],
+        ],
+      },
+    };
+    const saved = await page.request.put(`/api/photos/${front.id}/regions`, {
+      data: { baseVersion: 0, regions: { regions: [{ id: "first-scratch", defect: "scratch", shape: { kind: "rect", x: 420, y: 320, width: 60, height: 40 } }], surfaces: [surface], ruler: null } },
+    });
     expect(saved.status()).toBe(200);
     await page.goto(`/units/${fixture.unitId}`);
     const panel = page.getByTestId("grade-panel");

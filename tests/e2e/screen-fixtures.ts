@@ -8,7 +8,25 @@ import crypto from "node:crypto";
 import sharp from "sharp";
 import { fixturePlan, testDb } from "./db";
 
-const VIEWS = [{ key: "screen-white", label: "White screen", required: true, zones: [{ id: "screen-active", label: "Screen active", polygon: [[0.04, 0.03], [0.96, 0.03], [0.96, 0.97], [0.04, 0.97]] }] }];
+const VIEWS = [
+  {
+    key: "screen-white",
+    label: "White screen",
+    required: true,
+    zones: [
+      {
+        id: "screen-active",
+        label: "Screen active",
+        polygon: [
+          [0.04, 0.03],
+          [0.96, 0.03],
+          [0.96, 0.97],
+          [0.04, 0.97],
+        ],
+      },
+    ],
+  },
+];
 const DEFECTS = [
   { key: "scratch", label: "Scratch", severity: "minor" },
   { key: "pixel-lit", label: "Always-lit pixel", severity: "major" },
@@ -47,8 +65,16 @@ export async function createScreenBenchUnit(holderEmail = "inspector@vellmoor.ex
  * y 130–1070 and the band max(16, 2 % of 940) = 19 px. Planted 2 × 2 specks: a lit and a dark
  * pixel inside; lit ones on the table's corner, on the body, and 10 px inside the zone's edge.
  */
-export const SCREEN_SURFACE: [number, number][] = [[130, 100], [1470, 100], [1470, 1100], [130, 1100]];
-export const SCREEN_INSIDE = [{ x: 500, y: 400, kind: "pixel-lit" }, { x: 1100, y: 800, kind: "pixel-dark" }];
+export const SCREEN_SURFACE: [number, number][] = [
+  [130, 100],
+  [1470, 100],
+  [1470, 1100],
+  [130, 1100],
+];
+export const SCREEN_INSIDE = [
+  { x: 500, y: 400, kind: "pixel-lit" },
+  { x: 1100, y: 800, kind: "pixel-dark" },
+];
 
 export async function screenPhoto(): Promise<Buffer> {
   const [w, h] = [1600, 1200];
@@ -77,5 +103,7 @@ export async function screenPhoto(): Promise<Buffer> {
   speck(12, 12, 255);
   speck(140, 600, 255);
   speck(194, 600, 255);
-  return sharp(raw, { raw: { width: w, height: h, channels: 3 } }).jpeg({ quality: 95, chromaSubsampling: "4:4:4" }).toBuffer();
+  return sharp(raw, { raw: { width: w, height: h, channels: 3 } })
+    .jpeg({ quality: 95, chromaSubsampling: "4:4:4" })
+    .toBuffer();
 }

@@ -18,7 +18,18 @@ test("a lead draws a new zone on a photo of the part type, and it is saved with 
   const bench = await context.newPage();
   await signInAs(bench, "inspector@vellmoor.example");
   const photo = await uploadThroughApi(bench.request, unitId, await partPhoto(4000, 3000), "front");
-  const surface = { id: "surface-1", shape: { kind: "polygon", points: [[1000, 750], [3000, 750], [3000, 2250], [1000, 2250]] } };
+  const surface = {
+    id: "surface-1",
+    shape: {
+      kind: "polygon",
+      points: [
+        [1000, 750],
+        [3000, 750],
+        [3000, 2250],
+        [1000, 2250],
+      ],
+    },
+  };
   const saved = await bench.request.put(`/api/photos/${photo.id}/regions`, { data: { baseVersion: 0, regions: { surfaces: [surface], regions: [], ruler: null } } });
   expect(saved.ok(), await saved.text()).toBe(true);
   await context.close();
@@ -68,9 +79,20 @@ test("a lead draws a new zone on a photo of the part type, and it is saved with 
   const tolerance = 2 / scale / 2000 + 0.002; // two screen pixels in Surface-box units
   const xs = connector.polygon.map(([u]) => u);
   const ys = connector.polygon.map(([, v]) => v);
-  for (const [got, want] of [[Math.min(...xs), 0.1], [Math.max(...xs), 0.4], [Math.min(...ys), 0.1], [Math.max(...ys), 0.4]]) expect(Math.abs(got - want)).toBeLessThanOrEqual(tolerance);
+  for (const [got, want] of [
+    [Math.min(...xs), 0.1],
+    [Math.max(...xs), 0.4],
+    [Math.min(...ys), 0.1],
+    [Math.max(...ys), 0.4],
+  ])
+    expect(Math.abs(got - want)).toBeLessThanOrEqual(tolerance);
   // The lens window, not redrawn, is kept exactly.
-  expect(partType.views.find((v) => v.key === "front")!.zones.find((z) => z.id === "lens-window")!.polygon).toEqual([[0, 0], [0.5, 0], [0.5, 1], [0, 1]]);
+  expect(partType.views.find((v) => v.key === "front")!.zones.find((z) => z.id === "lens-window")!.polygon).toEqual([
+    [0, 0],
+    [0.5, 0],
+    [0.5, 1],
+    [0, 1],
+  ]);
 });
 
 test("a lead removes a drawn zone in the drawer; a view with no photo yet says what to do instead", async ({ page, browser }) => {
@@ -79,7 +101,18 @@ test("a lead removes a drawn zone in the drawer; a view with no photo yet says w
   const bench = await context.newPage();
   await signInAs(bench, "inspector@vellmoor.example");
   const photo = await uploadThroughApi(bench.request, unitId, await partPhoto(1200, 900), "front");
-  const surface = { id: "surface-1", shape: { kind: "polygon", points: [[300, 225], [900, 225], [900, 675], [300, 675]] } };
+  const surface = {
+    id: "surface-1",
+    shape: {
+      kind: "polygon",
+      points: [
+        [300, 225],
+        [900, 225],
+        [900, 675],
+        [300, 675],
+      ],
+    },
+  };
   const saved = await bench.request.put(`/api/photos/${photo.id}/regions`, { data: { baseVersion: 0, regions: { surfaces: [surface], regions: [], ruler: null } } });
   expect(saved.ok(), await saved.text()).toBe(true);
   await context.close();
@@ -110,7 +143,10 @@ test("a lead removes a drawn zone in the drawer; a view with no photo yet says w
   expect(partType.views.find((v) => v.key === "front")!.zones).toEqual([]);
 });
 
-test("on a photo with no Surface a lead has one suggested and the stored zones appear; Enter adds a zone, never saves the part type; Close asks once before dropping a drawing", async ({ page, browser }) => {
+test("on a photo with no Surface a lead has one suggested and the stored zones appear; Enter adds a zone, never saves the part type; Close asks once before dropping a drawing", async ({
+  page,
+  browser,
+}) => {
   const { unitId, partTypeId } = await createBenchUnit();
   const context = await browser.newContext();
   const bench = await context.newPage();

@@ -71,7 +71,7 @@ describe("set password, in-process (the app's own function on the test database)
     await expect(setPasswordWithToken({ token: "z".repeat(43), password: "a-long-enough-password", ip: "203.0.113.75" })).rejects.toMatchObject({ status: 400 });
     expect(hashPassword).not.toHaveBeenCalled();
     const user = await createUser({ workspaceId, roles: ["inspector"], password: null });
-    const token = await issueAuthToken(db(), { workspaceId, userId: user.id, purpose: "invite", ttlMs: 3_600_000 });
+    const token = await issueAuthToken({ workspaceId, userId: user.id, purpose: "invite", ttlMs: 3_600_000 });
     await setPasswordWithToken({ token, password: "a-long-enough-password", ip: "203.0.113.76" });
     expect(hashPassword).toHaveBeenCalledTimes(1);
   });
@@ -90,14 +90,16 @@ describe("sign-up", () => {
 describe("one-time links", () => {
   it("twenty links issued at once for one account leave exactly one that works", async () => {
     const user = await createUser({ workspaceId, roles: ["inspector"] });
-    const tokens = await Promise.all(Array.from({ length: 20 }, () => issueAuthToken(db(), { workspaceId, userId: user.id, purpose: "reset", ttlMs: 3_600_000 })));
+    const tokens = await Promise.all(Array.from({ length: 20 }, () => issueAuthToken({ workspaceId, userId: user.id, purpose: "reset", ttlMs: 3_600_000 })));
     expect(new Set(tokens).size).toBe(20);
     const live = await db()
       .select()
       .from(authTokens)
       .where(and(eq(authTokens.userId, user.id), eq(authTokens.purpose, "reset"), isNull(authTokens.usedAt)));
     expect(live).toHaveLength(1);
-    const working = await Promise.all(tokens.map(async (token) => (await api(null, "POST", "/api/password/set", { token, password: "one-of-twenty-pass" }, from(`198.51.100.${tokens.indexOf(token) + 100}`))).status));
+    const working = await Promise.all(
+      tokens.map(async (token) => (await api(null, "POST", "/api/password/set", { token, password: "one-of-twenty-pass" }, from(`198.51.100.${tokens.indexOf(token) + 100}`))).status),
+    );
     expect(working.filter((s) => s === 200)).toHaveLength(1);
   });
 });

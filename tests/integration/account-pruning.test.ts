@@ -20,15 +20,19 @@ it("removes what can no longer count and keeps what still can", async () => {
   const [old, recent] = await Promise.all([createUser({ workspaceId: ws.id, roles: ["inspector"] }), createUser({ workspaceId: ws.id, roles: ["inspector"] })]);
   const tag = uniqueEmail("prune");
 
-  await db().insert(rateLimitCounters).values([
-    { bucket: "prune-test", key: `${tag}|old`, windowStart: ago(25 * HOUR), count: 5 },
-    { bucket: "prune-test", key: `${tag}|recent`, windowStart: ago(HOUR), count: 5 },
-  ]);
+  await db()
+    .insert(rateLimitCounters)
+    .values([
+      { bucket: "prune-test", key: `${tag}|old`, windowStart: ago(25 * HOUR), count: 5 },
+      { bucket: "prune-test", key: `${tag}|recent`, windowStart: ago(HOUR), count: 5 },
+    ]);
   const [oldSession, liveSession] = [crypto.randomUUID(), crypto.randomUUID()];
-  await db().insert(revokedSessions).values([
-    { sessionId: oldSession, userId: old.id, expiresAt: ago(60_000) },
-    { sessionId: liveSession, userId: old.id, expiresAt: new Date(now.getTime() + HOUR) },
-  ]);
+  await db()
+    .insert(revokedSessions)
+    .values([
+      { sessionId: oldSession, userId: old.id, expiresAt: ago(60_000) },
+      { sessionId: liveSession, userId: old.id, expiresAt: new Date(now.getTime() + HOUR) },
+    ]);
   const tokens = await db()
     .insert(authTokens)
     .values([
@@ -54,11 +58,30 @@ it("removes what can no longer count and keeps what still can", async () => {
 
   const counters = await db().select({ key: rateLimitCounters.key }).from(rateLimitCounters).where(eq(rateLimitCounters.bucket, "prune-test"));
   expect(counters.map((c) => c.key)).toEqual([`${tag}|recent`]);
-  const sessions = await db().select({ id: revokedSessions.sessionId }).from(revokedSessions).where(inArray(revokedSessions.sessionId, [oldSession, liveSession]));
+  const sessions = await db()
+    .select({ id: revokedSessions.sessionId })
+    .from(revokedSessions)
+    .where(inArray(revokedSessions.sessionId, [oldSession, liveSession]));
   expect(sessions.map((s) => s.id)).toEqual([liveSession]);
-  const keptTokens = await db().select({ tokenHash: authTokens.tokenHash }).from(authTokens).where(inArray(authTokens.id, tokens.map((t) => t.id)));
+  const keptTokens = await db()
+    .select({ tokenHash: authTokens.tokenHash })
+    .from(authTokens)
+    .where(
+      inArray(
+        authTokens.id,
+        tokens.map((t) => t.id),
+      ),
+    );
   expect(keptTokens.map((t) => t.tokenHash).sort()).toEqual([`${tag}-just-used`, `${tag}-live`]);
-  const keptSignUps = await db().select({ email: signUpRequests.email }).from(signUpRequests).where(inArray(signUpRequests.id, signUps.map((s) => s.id)));
+  const keptSignUps = await db()
+    .select({ email: signUpRequests.email })
+    .from(signUpRequests)
+    .where(
+      inArray(
+        signUpRequests.id,
+        signUps.map((s) => s.id),
+      ),
+    );
   expect(keptSignUps.map((s) => s.email)).toEqual([`new-${tag}`]);
   // Nothing of a live account went with them.
   const [{ n }] = (await db().execute<{ n: number }>(sql`SELECT count(*)::int AS n FROM users WHERE id IN (${old.id}, ${recent.id})`)).rows;

@@ -1,4 +1,4 @@
-import { beforeAll, describe, expect, it } from "vitest";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { holders } from "@/lib/auth/permissions";
 import { ROLES, type Role } from "@/lib/auth/roles";
 import { api, signIn, type Session } from "../support/http";
@@ -10,7 +10,7 @@ import { photoFixtureIds } from "../support/photo-access";
 import { queueFixtureIds } from "../support/queue-access";
 import { recheckFixtureIds } from "../support/recheck-access";
 import { regionFixtureIds } from "../support/region-access";
-import { suggestionFixtureIds } from "../support/suggestion-access";
+import { suggestionFixtureIds, waitForTrainingsToFinish } from "../support/suggestion-access";
 import { ROUTES, type RouteRow } from "./routes";
 
 type Ids = Record<string, string>;
@@ -32,7 +32,20 @@ async function fixtureIds(lead: Session): Promise<Ids> {
   const emails = await api<{ emails: { id: string }[] }>(lead, "GET", "/api/outbox");
   const people = await api<{ people: { id: string; roles: string[] }[] }>(lead, "GET", "/api/people");
   const someone = people.body.people.find((p) => !p.roles.includes("lead"))!;
-  return { invitedPersonId: invited.body.person.id, personId: someone.id, supplierId: supplier.body.supplier.id, emailId: emails.body.emails[0].id, ...(await gradingFixtureIds(lead)), ...(await galleryFixtureIds(lead)), ...(await queueFixtureIds(lead)), ...(await recheckFixtureIds(lead)), ...(await photoFixtureIds(lead)), ...(await regionFixtureIds(lead)), ...(await suggestionFixtureIds(lead)), ...(await lotFixtureIds(lead, supplier.body.supplier.id)) };
+  return {
+    invitedPersonId: invited.body.person.id,
+    personId: someone.id,
+    supplierId: supplier.body.supplier.id,
+    emailId: emails.body.emails[0].id,
+    ...(await gradingFixtureIds(lead)),
+    ...(await galleryFixtureIds(lead)),
+    ...(await queueFixtureIds(lead)),
+    ...(await recheckFixtureIds(lead)),
+    ...(await photoFixtureIds(lead)),
+    ...(await regionFixtureIds(lead)),
+    ...(await suggestionFixtureIds(lead)),
+    ...(await lotFixtureIds(lead, supplier.body.supplier.id)),
+  };
 }
 
 beforeAll(async () => {
@@ -46,6 +59,9 @@ beforeAll(async () => {
   own = await fixtureIds(sessions.lead);
   foreign = await fixtureIds(foreignLead);
 });
+
+// The matrix asks for trainings; they must not finish under the next file's feet.
+afterAll(() => waitForTrainingsToFinish(), 300_000);
 
 describe.each(ROUTES.map((r) => [`${r.method} ${r.path}`, r] as const))("%s", (_name, route) => {
   const body = () => route.body?.(own);

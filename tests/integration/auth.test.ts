@@ -67,7 +67,8 @@ describe("sign-in limit", () => {
     expect(checked + refused + busy).toBe(200);
     expect(results.some((r) => r.signedIn)).toBe(false);
     // Refused attempts are not counted, so hammering does not extend the lock.
-    const [row] = (await db().execute<{ n: number }>(sql`SELECT sum(count)::int AS n FROM rate_limit_counters WHERE bucket = 'sign-in:account+address' AND key = ${`${user.email}|203.0.113.200`}`)).rows;
+    const [row] = (await db().execute<{ n: number }>(sql`SELECT sum(count)::int AS n FROM rate_limit_counters WHERE bucket = 'sign-in:account+address' AND key = ${`${user.email}|203.0.113.200`}`))
+      .rows;
     expect(row.n).toBe(5);
   });
 

@@ -39,13 +39,21 @@ function poolWith(limits: Record<string, string>, connectionString = process.env
   }
 }
 
-const failureOf = (p: Promise<unknown>) => p.then(() => null, (e: unknown) => e as Error & { code?: string });
+const failureOf = (p: Promise<unknown>) =>
+  p.then(
+    () => null,
+    (e: unknown) => e as Error & { code?: string },
+  );
 
 describe("database time limits", () => {
   it("every connection of the app's pools runs with a statement timeout and an idle-in-transaction timeout", async () => {
-    const main = (await db().execute<{ statement: string; idle: string }>(sql`SELECT current_setting('statement_timeout') AS statement, current_setting('idle_in_transaction_session_timeout') AS idle`)).rows[0];
+    const main = (
+      await db().execute<{ statement: string; idle: string }>(sql`SELECT current_setting('statement_timeout') AS statement, current_setting('idle_in_transaction_session_timeout') AS idle`)
+    ).rows[0];
     expect(main).toEqual({ statement: "30s", idle: "1min" });
-    const prepared = (await executePrepared<{ statement: string; idle: string }>(sql`SELECT current_setting('statement_timeout') AS statement, current_setting('idle_in_transaction_session_timeout') AS idle`)).rows[0];
+    const prepared = (
+      await executePrepared<{ statement: string; idle: string }>(sql`SELECT current_setting('statement_timeout') AS statement, current_setting('idle_in_transaction_session_timeout') AS idle`)
+    ).rows[0];
     expect(prepared).toEqual({ statement: "30s", idle: "1min" });
   });
 

@@ -116,7 +116,15 @@ describe("measured numbers", () => {
 
 describe("uploading straight into the gallery", () => {
   const intent = (session: Session, bytes: number) =>
-    api<IntentBody & { error?: { message: string } }>(session, "POST", "/api/gallery/uploads", { partTypeId: scene.partType.id, viewKey: "lens", kind: "normal", grade: "A", fileName: "clean-lens.jpg", contentType: "image/jpeg", bytes });
+    api<IntentBody & { error?: { message: string } }>(session, "POST", "/api/gallery/uploads", {
+      partTypeId: scene.partType.id,
+      viewKey: "lens",
+      kind: "normal",
+      grade: "A",
+      fileName: "clean-lens.jpg",
+      contentType: "image/jpeg",
+      bytes,
+    });
 
   it("makes a draft item with an empty region set once the photo is ready; the same ticket again answers the same item", async () => {
     const bytes = await makePhotoLikeJpeg({ width: 480, height: 360, seed: 91 });
@@ -150,7 +158,15 @@ describe("uploading straight into the gallery", () => {
   });
 
   it("refuses a view the part type lacks and another person's ticket", async () => {
-    const wrongView = await api<{ error: { message: string } }>(trainer, "POST", "/api/gallery/uploads", { partTypeId: scene.partType.id, viewKey: "side", kind: "normal", grade: "A", fileName: "x.jpg", contentType: "image/jpeg", bytes: 1000 });
+    const wrongView = await api<{ error: { message: string } }>(trainer, "POST", "/api/gallery/uploads", {
+      partTypeId: scene.partType.id,
+      viewKey: "side",
+      kind: "normal",
+      grade: "A",
+      fileName: "x.jpg",
+      contentType: "image/jpeg",
+      bytes: 1000,
+    });
     expect(wrongView.status).toBe(400);
     expect(wrongView.body.error.message).toMatch(/not a view of/);
     const started = await intent(trainer, 1000);

@@ -47,7 +47,11 @@ async function keysOf(photoId: string): Promise<string[]> {
   return keys.sort();
 }
 
-const age = (photoId: string) => db().update(photos).set({ createdAt: new Date(Date.now() - 3 * HOUR) }).where(eq(photos.id, photoId));
+const age = (photoId: string) =>
+  db()
+    .update(photos)
+    .set({ createdAt: new Date(Date.now() - 3 * HOUR) })
+    .where(eq(photos.id, photoId));
 
 it("keeps the original of a photo a gallery item shows, in every status, and names the reason", async () => {
   const photo = await galleryUpload(71);
@@ -56,7 +60,16 @@ it("keeps the original of a photo a gallery item shows, in every status, and nam
   expect(await originalDeletionBlockers(db(), ref)).toEqual([]);
   const [item] = await db()
     .insert(galleryItems)
-    .values({ workspaceId: trainer.workspaceId, partTypeId, viewKey: "front", kind: "normal", photoId: photo.id, regions: { regions: [], surfaces: [], ruler: null }, grade: "A", createdBy: trainer.id })
+    .values({
+      workspaceId: trainer.workspaceId,
+      partTypeId,
+      viewKey: "front",
+      kind: "normal",
+      photoId: photo.id,
+      regions: { regions: [], surfaces: [], ruler: null },
+      grade: "A",
+      createdBy: trainer.id,
+    })
     .returning({ id: galleryItems.id });
   expect(await originalDeletionBlockers(db(), ref)).toEqual(["A gallery item shows this photo; its original is kept for as long as an item uses it."]);
   await db().update(galleryItems).set({ status: "retired", retiredAt: new Date() }).where(eq(galleryItems.id, item.id));
@@ -68,7 +81,16 @@ it("sweeps a gallery upload no item names after the grace period, and never one 
   const unused = await galleryUpload(73);
   await db()
     .insert(galleryItems)
-    .values({ workspaceId: trainer.workspaceId, partTypeId, viewKey: "front", kind: "abnormal", photoId: used.id, regions: { regions: [], surfaces: [], ruler: null }, grade: "B", createdBy: trainer.id });
+    .values({
+      workspaceId: trainer.workspaceId,
+      partTypeId,
+      viewKey: "front",
+      kind: "abnormal",
+      photoId: used.id,
+      regions: { regions: [], surfaces: [], ruler: null },
+      grade: "B",
+      createdBy: trainer.id,
+    });
   const usedKeys = await keysOf(used.id);
   const unusedKeys = await keysOf(unused.id);
   expect(usedKeys).toHaveLength(3);

@@ -22,7 +22,12 @@ let inspector: Session;
 let auditor: Session;
 let scene: Awaited<ReturnType<typeof createGradedPhoto>>;
 
-const itemCount = async () => (await db().select({ n: sql<number>`count(*)::int` }).from(galleryItems))[0].n;
+const itemCount = async () =>
+  (
+    await db()
+      .select({ n: sql<number>`count(*)::int` })
+      .from(galleryItems)
+  )[0].n;
 
 beforeAll(async () => {
   const vellmoor = await workspaceBySlug("vellmoor");
@@ -147,7 +152,11 @@ describe("bad input stores nothing", () => {
     const outside = { ...SCRATCHED, regions: [{ id: "a", defect: "scratch", shape: { kind: "rect", x: 290, y: 10, width: 50, height: 10 } }] };
     const unknown = { ...SCRATCHED, regions: [{ id: "a", defect: "swelling", shape: { kind: "rect", x: 10, y: 10, width: 5, height: 5 } }] };
     const many = { ...SCRATCHED, regions: Array.from({ length: 101 }, (_, i) => ({ id: `r${i}`, defect: "dent", shape: { kind: "spot", x: 100, y: 100, radius: 2 } })) };
-    for (const [payload, pattern] of [[outside, /outside/], [unknown, /not allowed/], [many, /at most 100 defect regions/]] as const) {
+    for (const [payload, pattern] of [
+      [outside, /outside/],
+      [unknown, /not allowed/],
+      [many, /at most 100 defect regions/],
+    ] as const) {
       const res = await api<ErrorBody>(trainer, "PATCH", `/api/gallery/${id}`, { revision: 0, regions: payload });
       expect(res.status).toBe(400);
       expect(res.body.error.message).toMatch(pattern);

@@ -30,7 +30,8 @@ const grade = (who: Session, unitId: string, body: Record<string, unknown>) => a
 
 beforeAll(async () => {
   owner = await workspaceIdOf("lead@vellmoor.example");
-  const make = async (roles: ("inspector" | "trainer" | "auditor" | "lead")[]) => signIn((await createUser({ workspaceId: owner.workspaceId, roles, email: uniqueEmail(`integrity-${roles[0]}`) })).email, TEST_PASSWORD);
+  const make = async (roles: ("inspector" | "trainer" | "auditor" | "lead")[]) =>
+    signIn((await createUser({ workspaceId: owner.workspaceId, roles, email: uniqueEmail(`integrity-${roles[0]}`) })).email, TEST_PASSWORD);
   [lead, lead2, inspector, inspector2, auditor, trainer] = await Promise.all([make(["lead"]), make(["lead"]), make(["inspector"]), make(["inspector"]), make(["auditor"]), make(["trainer"])]);
 });
 
@@ -109,7 +110,11 @@ describe("a graded unit's grade changes only by a lead's override naming it", ()
     const next = await grade(lead2, unit.id, { decision: "override", kind: "override", finalGrade: "Reject", reason: "Cracked lens.", expectedCurrentGradeId: corrected.body.grade.id });
     expect(next.status).toBe(201);
     const history = await api<{ grades: Grade[]; current: Grade }>(lead, "GET", `/api/units/${unit.id}/grades`);
-    expect(history.body.grades.map((g) => [g.kind, g.finalGrade])).toEqual([["inspection", "C"], ["override", "B"], ["override", "Reject"]]);
+    expect(history.body.grades.map((g) => [g.kind, g.finalGrade])).toEqual([
+      ["inspection", "C"],
+      ["override", "B"],
+      ["override", "Reject"],
+    ]);
     expect(history.body.current.id).toBe(next.body.grade.id);
   });
 

@@ -15,7 +15,17 @@ import { FIXTURE_RUBRIC_V1, FIXTURE_SURFACE, createMeasurableUnit, createPhoto, 
 import { api, signIn, type Session } from "../support/http";
 
 type ErrorBody = { error: { code: string; message: string; fieldErrors?: Record<string, string> } };
-type Measured = { status: string; measurement: { id: string; stale: boolean; reasons: string[]; rubricVersion: number; proposal: { grade: string; lines: { text: string }[] }; photos: { measurement: { calibration: { method: string } } }[] } };
+type Measured = {
+  status: string;
+  measurement: {
+    id: string;
+    stale: boolean;
+    reasons: string[];
+    rubricVersion: number;
+    proposal: { grade: string; lines: { text: string }[] };
+    photos: { measurement: { calibration: { method: string } } }[];
+  };
+};
 type Grade = { id: string; kind: string; proposedGrade: string; finalGrade: string; overrideReason: string | null; rubricVersion: number; explanation: { lines: { text: string }[] } };
 type History = { grades: Grade[]; current: Grade | null };
 
@@ -111,7 +121,9 @@ describe("measuring a unit", () => {
 
   it("the job handler measures the unit it is given (as the worker calls it)", async () => {
     const { unit } = await createMeasurableUnit(owner);
-    await handleMeasureUnitJobs([{ id: "00000000-0000-4000-8000-000000000001", name: "measure-unit", expireInSeconds: 600, data: { workspaceId: owner.workspaceId, unitId: unit.id, requestedBy: owner.userId } }]);
+    await handleMeasureUnitJobs([
+      { id: "00000000-0000-4000-8000-000000000001", name: "measure-unit", expireInSeconds: 600, data: { workspaceId: owner.workspaceId, unitId: unit.id, requestedBy: owner.userId } },
+    ]);
     const measured = await api<{ measurement: Measured["measurement"] }>(inspector, "GET", `/api/units/${unit.id}/measure`);
     expect(measured.body.measurement).toMatchObject({ stale: false, proposal: { grade: "C" } });
   });
@@ -135,7 +147,11 @@ describe("recording grades", () => {
     expect(same.body.error.message).toMatch(/already C; accept it instead/);
     expect(await gradeCount(unit.id)).toBe(0);
 
-    const overridden = await api<{ grade: Grade }>(inspector, "POST", `/api/units/${unit.id}/grades`, { decision: "override", finalGrade: "B", reason: "The mark is a smudge on the glass, it wiped off." });
+    const overridden = await api<{ grade: Grade }>(inspector, "POST", `/api/units/${unit.id}/grades`, {
+      decision: "override",
+      finalGrade: "B",
+      reason: "The mark is a smudge on the glass, it wiped off.",
+    });
     expect(overridden.status).toBe(201);
     expect(overridden.body.grade).toMatchObject({ kind: "inspection", proposedGrade: "C", finalGrade: "B", overrideReason: "The mark is a smudge on the glass, it wiped off.", rubricVersion: 1 });
     expect(overridden.body.grade.explanation.lines[0].text).toBe("scratch covers 1.2 % of lens window > 1.0 % allowed for B → C");
@@ -143,11 +159,19 @@ describe("recording grades", () => {
     // A lead's later correction is its own kind, needs the lead role and a reason.
     expect((await api<ErrorBody>(inspector, "POST", `/api/units/${unit.id}/grades`, { decision: "accept", kind: "override", reason: "x" })).status).toBe(403);
     expect((await api<ErrorBody>(lead, "POST", `/api/units/${unit.id}/grades`, { decision: "accept", kind: "override" })).status).toBe(400);
-    const corrected = await api<{ grade: Grade }>(lead, "POST", `/api/units/${unit.id}/grades`, { decision: "accept", kind: "override", reason: "Checked under the loupe: the scratch is real.", expectedCurrentGradeId: overridden.body.grade.id });
+    const corrected = await api<{ grade: Grade }>(lead, "POST", `/api/units/${unit.id}/grades`, {
+      decision: "accept",
+      kind: "override",
+      reason: "Checked under the loupe: the scratch is real.",
+      expectedCurrentGradeId: overridden.body.grade.id,
+    });
     expect(corrected.body.grade).toMatchObject({ kind: "override", proposedGrade: "C", finalGrade: "C" });
 
     const history = await api<History>(inspector, "GET", `/api/units/${unit.id}/grades`);
-    expect(history.body.grades.map((g) => [g.kind, g.finalGrade])).toEqual([["inspection", "B"], ["override", "C"]]);
+    expect(history.body.grades.map((g) => [g.kind, g.finalGrade])).toEqual([
+      ["inspection", "B"],
+      ["override", "C"],
+    ]);
     expect(history.body.current?.id).toBe(corrected.body.grade.id);
   });
 
@@ -156,13 +180,20 @@ describe("recording grades", () => {
     await api(inspector, "POST", `/api/units/${unit.id}/measure`);
     await api(inspector, "POST", `/api/units/${unit.id}/grades`, { decision: "accept" });
     // As the tables' owner (the app's own role may not even try: db-role.test.ts).
-    const update = await ownerDb().execute(sql`UPDATE grades SET final_grade = 'A' WHERE unit_id = ${unit.id}`).then(() => "no error", refusal);
+    const update = await ownerDb()
+      .execute(sql`UPDATE grades SET final_grade = 'A' WHERE unit_id = ${unit.id}`)
+      .then(() => "no error", refusal);
     expect(update).toMatch(/grades is append-only \(UPDATE refused\)/);
-    const remove = await ownerDb().execute(sql`DELETE FROM grades WHERE unit_id = ${unit.id}`).then(() => "no error", refusal);
+    const remove = await ownerDb()
+      .execute(sql`DELETE FROM grades WHERE unit_id = ${unit.id}`)
+      .then(() => "no error", refusal);
     expect(remove).toMatch(/grades is append-only \(DELETE refused\)/);
     const [row] = await db().select().from(grades).where(eq(grades.unitId, unit.id));
     const { id: _id, createdAt: _at, ...copy } = row;
-    const unreasoned = await db().insert(grades).values({ ...copy, finalGrade: "A", overrideReason: null }).then(() => "no error", refusal);
+    const unreasoned = await db()
+      .insert(grades)
+      .values({ ...copy, finalGrade: "A", overrideReason: null })
+      .then(() => "no error", refusal);
     expect(unreasoned).toMatch(/grades_override_reason/);
   });
 });
@@ -178,10 +209,18 @@ describe("a new rubric version never rewrites past grades", () => {
     // A trainer drafts v2 (C only above 2 %), a lead publishes it.
     const base = `/api/part-types/${partType.id}/rubrics`;
     await api(lead, "POST", base);
-    await api(lead, "PATCH", `${base}/draft`, { rubric: { ...FIXTURE_RUBRIC_V1, rules: FIXTURE_RUBRIC_V1.rules.map((r) => (r.id === "lens-scratch-c" ? { ...r, threshold: 2 } : r)) }, version: 2, revision: 0 });
+    await api(lead, "PATCH", `${base}/draft`, {
+      rubric: { ...FIXTURE_RUBRIC_V1, rules: FIXTURE_RUBRIC_V1.rules.map((r) => (r.id === "lens-scratch-c" ? { ...r, threshold: 2 } : r)) },
+      version: 2,
+      revision: 0,
+    });
     expect((await api(lead, "POST", `${base}/draft/publish`, { version: 2, revision: 1 })).body).toEqual({ version: 2 });
 
-    type Preview = { rubricVersion: { version: number; status: string }; basis: { grade: { finalGrade: string; rubricVersion: number }; stale: boolean }; result: { grade: string; lines: { text: string }[] } };
+    type Preview = {
+      rubricVersion: { version: number; status: string };
+      basis: { grade: { finalGrade: string; rubricVersion: number }; stale: boolean };
+      result: { grade: string; lines: { text: string }[] };
+    };
     const preview = await api<Preview>(inspector, "GET", `/api/units/${unit.id}/grade-preview?rubricVersion=2`);
     expect(preview.status, JSON.stringify(preview.body)).toBe(200);
     expect(preview.body.rubricVersion).toMatchObject({ version: 2, status: "published" });
@@ -215,7 +254,11 @@ describe("a new rubric version never rewrites past grades", () => {
   it("another workspace sees the unit as missing", async () => {
     const { unit } = await createMeasurableUnit(owner);
     const other = await signIn("lead@quillfen.example");
-    for (const [method, path] of [["GET", "grades"], ["POST", "measure"], ["GET", "grade-preview"]] as const) {
+    for (const [method, path] of [
+      ["GET", "grades"],
+      ["POST", "measure"],
+      ["GET", "grade-preview"],
+    ] as const) {
       const foreign = await api<ErrorBody>(other, method, `/api/units/${unit.id}/${path}`);
       const missing = await api<ErrorBody>(other, method, `/api/units/00000000-0000-4000-8000-000000000000/${path}`);
       expect(foreign.status).toBe(404);

@@ -40,7 +40,10 @@ beforeAll(async () => {
   const owner = { workspaceId, userId: lead.id };
 
   const rendered = await renderDefectPhotos(400, 12, 640);
-  const model = await trainRegionModel(rendered.map((p) => ({ image: p.jpeg, regions: p.regions, surface: [p.surface] })), { trees: 8 });
+  const model = await trainRegionModel(
+    rendered.map((p) => ({ image: p.jpeg, regions: p.regions, surface: [p.surface] })),
+    { trees: 8 },
+  );
   const [row] = await db()
     .insert(suggestionModels)
     .values({
@@ -96,7 +99,10 @@ describe("learned suggestions on the Bench", { timeout: 120_000 }, () => {
     expect(graded.status).toBe(409);
     expect(graded.body.error.message).toMatch(/graded|record/i);
 
-    await db().update(units).set({ leaseHolderId: otherInspectorId, leaseExpiresAt: new Date(Date.now() + 30 * 60_000) }).where(eq(units.id, benchUnitId));
+    await db()
+      .update(units)
+      .set({ leaseHolderId: otherInspectorId, leaseExpiresAt: new Date(Date.now() + 30 * 60_000) })
+      .where(eq(units.id, benchUnitId));
     try {
       const leased = await api<ErrorBody>(inspector, "POST", `/api/photos/${benchPhotoId}/learned-suggestions`, {});
       expect(leased.status).toBe(409);
@@ -133,7 +139,11 @@ describe("learned suggestions on the Bench", { timeout: 120_000 }, () => {
     const ok = await api<{ recorded: number }>(inspector, "POST", `/api/photos/${benchPhotoId}/suggestion-decisions`, { modelId, decisions });
     expect(ok.status).toBe(201);
     expect(ok.body.recorded).toBe(2);
-    const rows = await db().select().from(suggestionDecisions).where(and(eq(suggestionDecisions.workspaceId, workspaceId), eq(suggestionDecisions.photoId, benchPhotoId))).orderBy(suggestionDecisions.decision);
+    const rows = await db()
+      .select()
+      .from(suggestionDecisions)
+      .where(and(eq(suggestionDecisions.workspaceId, workspaceId), eq(suggestionDecisions.photoId, benchPhotoId)))
+      .orderBy(suggestionDecisions.decision);
     expect(rows.map((r) => [r.decision, r.defectClass, r.modelId])).toEqual([
       ["accepted", first.defect, modelId],
       ["dismissed", "crack", modelId],

@@ -34,10 +34,34 @@ const RUBRIC: Rubric = {
   notes: ["Test rubric for the lot counts."],
 };
 /** Surface 200 × 100 px = 20 000 px; a 30 × 10 px scratch is 1.5 % of it (a: rectangle areas). */
-const SURFACE: FixtureRegion = { clientId: "surface", role: "surface", shape: { kind: "polygon", points: [[50, 50], [250, 50], [250, 150], [50, 150]] } };
+const SURFACE: FixtureRegion = {
+  clientId: "surface",
+  role: "surface",
+  shape: {
+    kind: "polygon",
+    points: [
+      [50, 50],
+      [250, 50],
+      [250, 150],
+      [50, 150],
+    ],
+  },
+};
 const SCRATCH: FixtureRegion = { clientId: "scratch", role: "defect", defect: "scratch", shape: { kind: "rect", x: 60, y: 60, width: 30, height: 10 } };
 const DENT: FixtureRegion = { clientId: "dent", role: "defect", defect: "dent", shape: { kind: "spot", x: 200, y: 120, radius: 4 } };
-const CRACK: FixtureRegion = { clientId: "crack", role: "defect", defect: "crack", shape: { kind: "line", points: [[100, 100], [140, 110]], width: 2 } };
+const CRACK: FixtureRegion = {
+  clientId: "crack",
+  role: "defect",
+  defect: "crack",
+  shape: {
+    kind: "line",
+    points: [
+      [100, 100],
+      [140, 110],
+    ],
+    width: 2,
+  },
+};
 
 let lead: Session;
 let inspector: Session;
@@ -70,12 +94,28 @@ async function scene(supplierGrade: "A" | "B" | "C" | null) {
     201,
   );
   await insertRubricVersion({ workspaceId: owner.workspaceId, partTypeId: partType.id, version: 1, status: "published", rubric: RUBRIC, actorId: owner.userId });
-  const { supplier } = await ok(api<{ supplier: { id: string } }>(lead, "POST", "/api/suppliers", { name: `Cosmetic Supplier ${tag}`, contactEmail: "grade@supplier.example", promisedGrade: supplierGrade }), "supplier", 201);
+  const { supplier } = await ok(
+    api<{ supplier: { id: string } }>(lead, "POST", "/api/suppliers", { name: `Cosmetic Supplier ${tag}`, contactEmail: "grade@supplier.example", promisedGrade: supplierGrade }),
+    "supplier",
+    201,
+  );
   return { partTypeId: partType.id, supplierId: supplier.id, tag };
 }
 
 async function receive(ids: { partTypeId: string; supplierId: string; tag: string }, extra: Record<string, unknown> = {}) {
-  const body = { supplierId: ids.supplierId, partTypeId: ids.partTypeId, purchaseRef: `PO-COS-${ids.tag}`, quantity: 10, receivedOn: "2026-11-20", dueOn: "2026-11-27", inspectionLevel: "II", aqlCritical: null, aqlMajor: 4.0, aqlMinor: 4.0, ...extra };
+  const body = {
+    supplierId: ids.supplierId,
+    partTypeId: ids.partTypeId,
+    purchaseRef: `PO-COS-${ids.tag}`,
+    quantity: 10,
+    receivedOn: "2026-11-20",
+    dueOn: "2026-11-27",
+    inspectionLevel: "II",
+    aqlCritical: null,
+    aqlMajor: 4.0,
+    aqlMinor: 4.0,
+    ...extra,
+  };
   const { lot } = await ok(api<{ lot: { id: string; promisedGrade: string; plan: { sampleSize: number } } }>(lead, "POST", "/api/lots", body), "lot", 201);
   await ok(api(lead, "POST", `/api/lots/${lot.id}/units`, { source: "placeholders" }), "units", 201);
   const { units } = await ok(api<{ units: { id: string }[] }>(lead, "GET", `/api/lots/${lot.id}/units`), "unit list");
@@ -89,9 +129,7 @@ async function inspect(unitId: string, input: { power: boolean; regions: Fixture
   const photo = await createPhoto({ workspaceId: owner.workspaceId, unitId, uploadedBy: owner.userId, viewKey: "back" });
   await saveRegions({ workspaceId: owner.workspaceId, photoId: photo.id, authorId: owner.userId, regions: [SURFACE, ...input.regions] });
   const measured = await ok(api<{ measurement: { id: string; proposal: { grade: string } } }>(inspector, "POST", `/api/units/${unitId}/measure`), "measure");
-  const decision = input.override
-    ? { decision: "override", finalGrade: input.override, reason: "Judged at the bench." }
-    : { decision: "accept" };
+  const decision = input.override ? { decision: "override", finalGrade: input.override, reason: "Judged at the bench." } : { decision: "accept" };
   await ok(api(inspector, "POST", `/api/units/${unitId}/grades`, { measurementId: measured.measurement.id, ...decision }), "grade", 201);
   return measured.measurement.proposal.grade;
 }
@@ -114,7 +152,19 @@ describe("the promised grade", () => {
     const chosen = await receive(await scene("B"), { promisedGrade: "C" });
     expect(chosen.lot.promisedGrade).toBe("C");
     const ids = await scene(null);
-    const bad = await api<{ error: { message: string } }>(lead, "POST", "/api/lots", { supplierId: ids.supplierId, partTypeId: ids.partTypeId, purchaseRef: "PO-BAD", quantity: 10, receivedOn: "2026-11-20", dueOn: "2026-11-27", inspectionLevel: "II", aqlCritical: null, aqlMajor: 4.0, aqlMinor: 4.0, promisedGrade: "Reject" });
+    const bad = await api<{ error: { message: string } }>(lead, "POST", "/api/lots", {
+      supplierId: ids.supplierId,
+      partTypeId: ids.partTypeId,
+      purchaseRef: "PO-BAD",
+      quantity: 10,
+      receivedOn: "2026-11-20",
+      dueOn: "2026-11-27",
+      inspectionLevel: "II",
+      aqlCritical: null,
+      aqlMajor: 4.0,
+      aqlMinor: 4.0,
+      promisedGrade: "Reject",
+    });
     expect(bad.status).toBe(400);
     expect(bad.body.error.message).toMatch(/promised grade is A, B or C/);
   });
@@ -187,7 +237,18 @@ describe("cosmetic grades in the lot counts", () => {
     for (const unitId of unitIds) await inspect(unitId, { power: true, regions: [SCRATCH] }); // each would now count as major
     const stored = { critical: { found: 0, inspected: 3, sampleSize: 3 }, major: { found: 0, inspected: 3, sampleSize: 3 }, minor: { found: 0, inspected: 3, sampleSize: 3 } };
     // As the earlier rule decided it: on the checklists alone, accepted to stock.
-    await db().update(lots).set({ status: "decided", verdict: "accept", disposition: "to_stock", dispositionReason: "Decided before cosmetic counts.", decisionCounts: stored, decidedBy: owner.userId, decidedAt: new Date() }).where(eq(lots.id, lot.id));
+    await db()
+      .update(lots)
+      .set({
+        status: "decided",
+        verdict: "accept",
+        disposition: "to_stock",
+        dispositionReason: "Decided before cosmetic counts.",
+        decisionCounts: stored,
+        decidedBy: owner.userId,
+        decidedAt: new Date(),
+      })
+      .where(eq(lots.id, lot.id));
     const got = await view(lot.id);
     expect(got.lot.verdict).toBe("accept");
     expect(got.verdict.classes.major.found).toBe(0);

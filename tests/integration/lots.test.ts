@@ -11,7 +11,12 @@ import { db } from "@/db/client";
 import { api, signIn, type Session } from "../support/http";
 import { lotBody, partTypeIdsBySlug } from "../support/lot-access";
 
-type Plan = { sampleSize: number; severity: string; switchingReason: string; byDefectSeverity: Record<string, { codeLetter: string; planLetter: string; sampleSize: number; accept: number; reject: number }> };
+type Plan = {
+  sampleSize: number;
+  severity: string;
+  switchingReason: string;
+  byDefectSeverity: Record<string, { codeLetter: string; planLetter: string; sampleSize: number; accept: number; reject: number }>;
+};
 const count = async (table: string) => (await db().execute<{ n: number }>(sql.raw(`SELECT count(*)::int AS n FROM ${table}`))).rows[0].n;
 
 let lead: Session;
@@ -144,7 +149,11 @@ describe("a lot's unit list", () => {
       }
     }
     const listed = (await api<{ units: { failed: number; worstFailure: string | null }[] }>(lead, "GET", `/api/lots/${lot.id}/units`)).body.units;
-    expect(listed.map((u) => [u.failed, u.worstFailure])).toEqual([[3, "critical"], [2, "major"], [0, null]]);
+    expect(listed.map((u) => [u.failed, u.worstFailure])).toEqual([
+      [3, "critical"],
+      [2, "major"],
+      [0, null],
+    ]);
   });
 });
 
@@ -178,7 +187,12 @@ describe("switching rules across lots", () => {
         expect(res.status).toBe(200);
       }
     }
-    const decided = await api(lead, "POST", `/api/lots/${lot.id}/disposition`, reject ? { disposition: "return_to_vendor", reason: "Power button dead." } : { disposition: "to_stock", reason: "Clean." });
+    const decided = await api(
+      lead,
+      "POST",
+      `/api/lots/${lot.id}/disposition`,
+      reject ? { disposition: "return_to_vendor", reason: "Power button dead." } : { disposition: "to_stock", reason: "Clean." },
+    );
     expect(decided.status, JSON.stringify(decided.body)).toBe(200);
     // Its units, checked but never graded, leave the queue with the decision: none is offered again.
     const after = (await api<{ units: { status: string }[] }>(lead, "GET", `/api/lots/${lot.id}/units`)).body.units;

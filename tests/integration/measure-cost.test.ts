@@ -32,13 +32,25 @@ async function largePhoto() {
 }
 
 const save = (photoId: string, shapes: unknown[]) =>
-  api<ErrorBody>(inspector, "PUT", `/api/photos/${photoId}/regions`, { baseVersion: 0, regions: { regions: shapes.map((shape, k) => ({ id: `r${k}`, defect: "scratch", shape })), surfaces: [], ruler: null } });
+  api<ErrorBody>(inspector, "PUT", `/api/photos/${photoId}/regions`, {
+    baseVersion: 0,
+    regions: { regions: shapes.map((shape, k) => ({ id: `r${k}`, defect: "scratch", shape })), surfaces: [], ruler: null },
+  });
 
 describe("measuring costs are bounded", () => {
   it("a Line or Spot beyond its cap, or a set beyond the work budget, is refused at save and nothing is stored", async () => {
     const { large } = await largePhoto();
     // The issue's case: a 2-point Line 4 000 px wide (16 s to measure before, 68 s for four).
-    const wide = await save(large.id, [{ kind: "line", points: [[0, 1500], [4000, 1500]], width: 4000 }]);
+    const wide = await save(large.id, [
+      {
+        kind: "line",
+        points: [
+          [0, 1500],
+          [4000, 1500],
+        ],
+        width: 4000,
+      },
+    ]);
     expect(wide.status).toBe(400);
     expect(wide.body.error.message).toMatch(/Region 1 \(Line\): the line is 4000 px wide; at most 200 px \(5 % of the photo's long edge\) is allowed — mark a wider defect with Outline\./);
     const spot = await save(large.id, [{ kind: "spot", x: 2000, y: 1500, radius: 900 }]);
@@ -51,12 +63,46 @@ describe("measuring costs are bounded", () => {
     expect(costly.body.error.message).toMatch(/too long to measure: their edges and lines cross 24\.1 million pixel rows in all, at most 1\.0 million are allowed per photo/);
     expect(await db().select().from(regions).where(eq(regions.photoId, large.id))).toHaveLength(0);
     // At the caps is fine.
-    expect((await save(large.id, [{ kind: "line", points: [[0, 1500], [4000, 1500]], width: 200 }, { kind: "spot", x: 10, y: 10, radius: 400 }])).status).toBe(200);
+    expect(
+      (
+        await save(large.id, [
+          {
+            kind: "line",
+            points: [
+              [0, 1500],
+              [4000, 1500],
+            ],
+            width: 200,
+          },
+          { kind: "spot", x: 10, y: 10, radius: 400 },
+        ])
+      ).status,
+    ).toBe(200);
   });
 
   it("regions stored before the caps make measuring answer 409 naming the photo, and store nothing", async () => {
     const { unit, large } = await largePhoto();
-    await saveRegions({ workspaceId: owner.workspaceId, photoId: large.id, authorId: owner.userId, regions: [FIXTURE_SURFACE, { clientId: "w", role: "defect", defect: "scratch", shape: { kind: "line", points: [[0, 1500], [4000, 1500]], width: 4000 } }] });
+    await saveRegions({
+      workspaceId: owner.workspaceId,
+      photoId: large.id,
+      authorId: owner.userId,
+      regions: [
+        FIXTURE_SURFACE,
+        {
+          clientId: "w",
+          role: "defect",
+          defect: "scratch",
+          shape: {
+            kind: "line",
+            points: [
+              [0, 1500],
+              [4000, 1500],
+            ],
+            width: 4000,
+          },
+        },
+      ],
+    });
     const started = Date.now();
     const res = await api<ErrorBody>(inspector, "POST", `/api/units/${unit.id}/measure`);
     expect(res.status, JSON.stringify(res.body)).toBe(409);
@@ -68,7 +114,19 @@ describe("measuring costs are bounded", () => {
   it("measuring runs off the request thread: the server keeps answering while a heavy set is measured", async () => {
     const { unit, large } = await largePhoto();
     // Within every cap and the budget: 330 Lines at the width cap, each across all 3 000 rows.
-    const heavy: FixtureRegion[] = Array.from({ length: 330 }, (_, k) => ({ clientId: `h${k}`, role: "defect", defect: "scratch", shape: { kind: "line", points: [[k * 11, 0], [k * 11 + 2, 3000]], width: 199 } }));
+    const heavy: FixtureRegion[] = Array.from({ length: 330 }, (_, k) => ({
+      clientId: `h${k}`,
+      role: "defect",
+      defect: "scratch",
+      shape: {
+        kind: "line",
+        points: [
+          [k * 11, 0],
+          [k * 11 + 2, 3000],
+        ],
+        width: 199,
+      },
+    }));
     await saveRegions({ workspaceId: owner.workspaceId, photoId: large.id, authorId: owner.userId, regions: heavy });
     let measured = false;
     const measuring = api(inspector, "POST", `/api/units/${unit.id}/measure`).then((res) => {
@@ -97,7 +155,10 @@ function streamBody(path: string, total: number, cookie?: string): Promise<{ sta
   return new Promise((resolve, reject) => {
     const url = new URL(path, BASE_URL);
     // Same-origin, JSON: only the size may be wrong.
-    const req = http.request(url, { method: path.includes("/regions") ? "PUT" : "POST", headers: { origin: BASE_URL, "content-type": "application/json", "transfer-encoding": "chunked", ...(cookie ? { cookie } : {}) } });
+    const req = http.request(url, {
+      method: path.includes("/regions") ? "PUT" : "POST",
+      headers: { origin: BASE_URL, "content-type": "application/json", "transfer-encoding": "chunked", ...(cookie ? { cookie } : {}) },
+    });
     let sent = 0;
     let answered = false;
     const chunk = Buffer.alloc(64 * 1024, 0x20); // JSON whitespace
@@ -138,7 +199,11 @@ describe("request bodies are counted while they stream", () => {
   });
 
   it("a declared Content-Length over the limit is refused with a sentence without reading the body", async () => {
-    const res = await fetch(`${BASE_URL}/api/password/forgot`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ email: `${"a".repeat(40_000)}@tests.example` }) });
+    const res = await fetch(`${BASE_URL}/api/password/forgot`, {
+      method: "POST",
+      headers: { "content-type": "application/json" },
+      body: JSON.stringify({ email: `${"a".repeat(40_000)}@tests.example` }),
+    });
     expect(res.status).toBe(413);
     expect(((await res.json()) as ErrorBody).error.message).toBe("The request is too large (limit 16 KB).");
   });

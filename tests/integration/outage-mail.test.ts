@@ -37,7 +37,10 @@ it("an invitation sent while the mail server is down is queued, shown pending, a
   expect(res.body.message).toMatch(/queued and goes out by itself/);
   const listed = await api<{ people: Person[] }>(lead, "GET", "/api/people");
   expect(listed.body.people.find((p) => p.email === email)).toMatchObject({ hasPassword: false, invitationEmail: "queued" });
-  const [queued] = await db().select().from(outgoingEmails).where(and(eq(outgoingEmails.toAddress, email), eq(outgoingEmails.kind, "invitation")));
+  const [queued] = await db()
+    .select()
+    .from(outgoingEmails)
+    .where(and(eq(outgoingEmails.toAddress, email), eq(outgoingEmails.kind, "invitation")));
   expect(queued.status).toBe("queued");
   expect(queued.error).toBeTruthy();
   // A few retries fail while the server stays down; nothing arrives, nothing is marked sent.
@@ -47,7 +50,10 @@ it("an invitation sent while the mail server is down is queued, shown pending, a
   await serviceControl("mail", "start");
   mailDown = false;
   const link = await latestLinkTo(email, 60_000);
-  const rows = await db().select().from(outgoingEmails).where(and(eq(outgoingEmails.toAddress, email), eq(outgoingEmails.kind, "invitation")));
+  const rows = await db()
+    .select()
+    .from(outgoingEmails)
+    .where(and(eq(outgoingEmails.toAddress, email), eq(outgoingEmails.kind, "invitation")));
   expect(rows).toHaveLength(1);
   expect(rows[0]).toMatchObject({ status: "sent", error: null });
   expect(rows[0].attempts).toBeGreaterThan(1);

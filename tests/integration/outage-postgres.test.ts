@@ -46,7 +46,11 @@ const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
 function setWith(count: number): RegionSetPayload {
   return {
-    regions: Array.from({ length: count }, (_, i) => ({ id: `pg-${i + 1}`, defect: "scratch", shape: { kind: "rect" as const, x: 10 + (i % 20) * 150, y: 10 + Math.floor(i / 20) * 150, width: 100, height: 80 } })),
+    regions: Array.from({ length: count }, (_, i) => ({
+      id: `pg-${i + 1}`,
+      defect: "scratch",
+      shape: { kind: "rect" as const, x: 10 + (i % 20) * 150, y: 10 + Math.floor(i / 20) * 150, width: 100, height: 80 },
+    })),
     surfaces: [],
     ruler: null,
   };

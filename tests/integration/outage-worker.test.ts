@@ -67,7 +67,11 @@ it("photos being processed when the worker is killed all end ready, each once, w
   }
   // Killed as soon as the worker has photos in hand (read straight from the table: polling the
   // API could miss a photo that takes the worker only a few seconds).
-  const processing = () => db().select({ id: photos.id }).from(photos).where(and(eq(photos.unitId, unit), eq(photos.status, "processing")));
+  const processing = () =>
+    db()
+      .select({ id: photos.id })
+      .from(photos)
+      .where(and(eq(photos.unitId, unit), eq(photos.status, "processing")));
   const deadline = Date.now() + 60_000;
   while ((await processing()).length === 0) {
     if (Date.now() > deadline) throw new Error("the worker never started on the photos");
@@ -98,7 +102,10 @@ it("photos being processed when the worker is killed all end ready, each once, w
   expect(readyEntries.map((e) => e.n)).toEqual([1, 1, 1, 1, 1, 1]);
   expect(rows.some((r) => r.attempts > 1)).toBe(true);
   // Exactly the objects the rows name: original, preview and thumbnail of each photo, nothing else.
-  const named = rows.flatMap((r) => [r.originalKey, r.previewKey, r.thumbnailKey]).filter(Boolean).sort();
+  const named = rows
+    .flatMap((r) => [r.originalKey, r.previewKey, r.thumbnailKey])
+    .filter(Boolean)
+    .sort();
   expect(await storedKeysFor(unit)).toEqual(named);
   expect(named).toHaveLength(18);
 });
@@ -109,7 +116,19 @@ it("a measurement job cut off by a killed worker is run again by the next one an
   // Enough work that the job is still running when the worker is killed (a few seconds, well
   // inside the job's expiry): four 12 MP photos, each with 15 wide scratch lines across it.
   const lines = (p: number): FixtureRegion[] =>
-    Array.from({ length: 15 }, (_, i) => ({ clientId: `line-${p}-${i}`, role: "defect", defect: "scratch", shape: { kind: "line", points: [[20, 20 + i * 190], [3980, 2980 - i * 190]], width: 40 } }));
+    Array.from({ length: 15 }, (_, i) => ({
+      clientId: `line-${p}-${i}`,
+      role: "defect",
+      defect: "scratch",
+      shape: {
+        kind: "line",
+        points: [
+          [20, 20 + i * 190],
+          [3980, 2980 - i * 190],
+        ],
+        width: 40,
+      },
+    }));
   await db().update(photos).set({ width: 4000, height: 3000 }).where(eq(photos.id, photo.id));
   await saveRegions({ workspaceId: owner.workspaceId, photoId: photo.id, authorId: owner.userId, regions: lines(0) });
   for (let p = 1; p < 4; p++) {
@@ -133,6 +152,9 @@ it("a measurement job cut off by a killed worker is run again by the next one an
     await new Promise((r) => setTimeout(r, 500));
   }
   expect((await state()).retry_count).toBeGreaterThan(0);
-  const stored = await db().select({ id: measurements.id }).from(measurements).where(and(eq(measurements.unitId, measured.id), isNull(measurements.photoId)));
+  const stored = await db()
+    .select({ id: measurements.id })
+    .from(measurements)
+    .where(and(eq(measurements.unitId, measured.id), isNull(measurements.photoId)));
   expect(stored).toHaveLength(1);
 });

@@ -10,7 +10,25 @@ const valid = (name: string) => ({
   name,
   category: "speaker",
   modelFamily: "Korvo X2",
-  views: [{ key: "front", label: "Front", required: true, zones: [{ id: "body", label: "Body", polygon: [[0, 0], [1, 0], [1, 1], [0, 1]] }] }],
+  views: [
+    {
+      key: "front",
+      label: "Front",
+      required: true,
+      zones: [
+        {
+          id: "body",
+          label: "Body",
+          polygon: [
+            [0, 0],
+            [1, 0],
+            [1, 1],
+            [0, 1],
+          ],
+        },
+      ],
+    },
+  ],
   defectClasses: [{ key: "dent", label: "Dent", severity: "major" }],
   checklist: [{ id: "level", label: "Sound level", kind: "numeric", unit: "dB(A)", min: 75, max: null, decimals: 0, severityOnFail: "minor" }],
 });
@@ -48,7 +66,28 @@ describe("part types", () => {
 
   const bad: [string, (b: ReturnType<typeof valid>) => unknown][] = [
     ["min above max", (b) => ({ ...b, checklist: [{ ...b.checklist[0], min: 90, max: 80 }] })],
-    ["zone outside 0..1", (b) => ({ ...b, views: [{ ...b.views[0], zones: [{ id: "body", label: "Body", polygon: [[0, 0], [2, 0], [1, 1]] }] }] })],
+    [
+      "zone outside 0..1",
+      (b) => ({
+        ...b,
+        views: [
+          {
+            ...b.views[0],
+            zones: [
+              {
+                id: "body",
+                label: "Body",
+                polygon: [
+                  [0, 0],
+                  [2, 0],
+                  [1, 1],
+                ],
+              },
+            ],
+          },
+        ],
+      }),
+    ],
     ["no views", (b) => ({ ...b, views: [] })],
     ["bad severity", (b) => ({ ...b, defectClasses: [{ key: "dent", label: "Dent", severity: "cosmetic" }] })],
     ["unknown field", (b) => ({ ...b, workspaceId: "x" })],

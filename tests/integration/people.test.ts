@@ -38,8 +38,16 @@ describe("invitations", () => {
 
   it("answers alike for an address with an account in another workspace; that invitation cannot be accepted", async () => {
     const unknownEmail = uniqueEmail("stranger");
-    const unknown = await api<{ person: { email: string; hasPassword: boolean }; emailSent: boolean; message: string }>(lead, "POST", "/api/people", { email: unknownEmail, name: "Sam Stranger", roles: ["inspector"] });
-    const known = await api<{ person: { id: string; email: string; hasPassword: boolean }; emailSent: boolean; message: string }>(lead, "POST", "/api/people", { email: "Inspector@Quillfen.example", name: "Quinn Elsewhere", roles: ["inspector"] });
+    const unknown = await api<{ person: { email: string; hasPassword: boolean }; emailSent: boolean; message: string }>(lead, "POST", "/api/people", {
+      email: unknownEmail,
+      name: "Sam Stranger",
+      roles: ["inspector"],
+    });
+    const known = await api<{ person: { id: string; email: string; hasPassword: boolean }; emailSent: boolean; message: string }>(lead, "POST", "/api/people", {
+      email: "Inspector@Quillfen.example",
+      name: "Quinn Elsewhere",
+      roles: ["inspector"],
+    });
     expect(known.status).toBe(unknown.status);
     expect(Object.keys(known.body).sort()).toEqual(Object.keys(unknown.body).sort());
     expect(known.body.message.replace("inspector@quillfen.example", "X")).toBe(unknown.body.message.replace(unknownEmail, "X"));
@@ -67,7 +75,10 @@ describe("invitations", () => {
     const email = uniqueEmail("expired");
     const res = await api<{ person: { id: string } }>(lead, "POST", "/api/people", { email, name: "Ed Expired", roles: ["inspector"] });
     const token = tokenFromLink(await latestLinkTo(email));
-    await db().update(authTokens).set({ expiresAt: new Date(Date.now() - 1000) }).where(eq(authTokens.userId, res.body.person.id));
+    await db()
+      .update(authTokens)
+      .set({ expiresAt: new Date(Date.now() - 1000) })
+      .where(eq(authTokens.userId, res.body.person.id));
     const set = await api(null, "POST", "/api/password/set", { token, password: "late-but-long-enough" });
     expect(set.status).toBe(400);
     const [row] = await db().select().from(users).where(eq(users.id, res.body.person.id));
@@ -117,7 +128,11 @@ describe("bad input to People stores nothing", () => {
   it("an address already in this workspace (any case) → 409 and no second account, no e-mail", async () => {
     const before = await countUsers();
     const mailsBefore = (await db().select().from(outgoingEmails)).length;
-    const res = await api<{ error: { message: string; fieldErrors: Record<string, string> } }>(lead, "POST", "/api/people", { email: "Trainer@Vellmoor.example", name: "Copy Cat", roles: ["inspector"] });
+    const res = await api<{ error: { message: string; fieldErrors: Record<string, string> } }>(lead, "POST", "/api/people", {
+      email: "Trainer@Vellmoor.example",
+      name: "Copy Cat",
+      roles: ["inspector"],
+    });
     expect(res.status).toBe(409);
     expect(res.body.error.fieldErrors.email).toMatch(/already uses this e-mail address/);
     expect(await countUsers()).toBe(before);

@@ -28,14 +28,47 @@ const CASES: Case[] = [
   { name: "a 0-byte file (declared)", bytes: () => Buffer.alloc(0), status: 400, code: "empty", message: /empty/, at: "intent" },
   { name: "a 0-byte file declared as 2 KB", bytes: () => Buffer.alloc(0), declaredBytes: 2048, status: 400, code: "empty", message: /empty/, at: "finalise" },
   { name: "a file over 40 MB (declared)", bytes: () => Buffer.alloc(16), declaredBytes: 40 * MiB + 1, status: 413, code: "too_large", message: /at most 40\.0 MB/, at: "intent" },
-  { name: "a file over 40 MB declared as small", bytes: async () => Buffer.concat([await makePhotoLikeJpeg({ width: 64, height: 48 }), Buffer.alloc(40 * MiB)]), declaredBytes: 5000, status: 413, code: "too_large", message: /40\.0 MB/, at: "finalise" },
+  {
+    name: "a file over 40 MB declared as small",
+    bytes: async () => Buffer.concat([await makePhotoLikeJpeg({ width: 64, height: 48 }), Buffer.alloc(40 * MiB)]),
+    declaredBytes: 5000,
+    status: 413,
+    code: "too_large",
+    message: /40\.0 MB/,
+    at: "finalise",
+  },
   { name: "an SVG (declared)", bytes: () => svg, contentType: "image/svg+xml", status: 415, code: "unsupported_format", message: /SVG drawing/, at: "intent" },
   { name: "an SVG sent as image/jpeg", bytes: () => svg, status: 415, code: "unsupported_format", message: /SVG drawing/, at: "finalise" },
   { name: "a text file sent as image/jpeg", bytes: () => Buffer.from("serial,grade\nA1,B\n"), status: 415, code: "unsupported_format", message: /text file/, at: "finalise" },
   { name: "a PDF (declared)", bytes: () => Buffer.from("%PDF-1.7\n"), contentType: "application/pdf", status: 415, code: "unsupported_format", message: /PDF/, at: "intent" },
-  { name: "a PDF sent as image/png", bytes: () => Buffer.from("%PDF-1.7\n%\u00e2\u00e3\n1 0 obj\n"), contentType: "image/png", status: 415, code: "unsupported_format", message: /PDF/, at: "finalise" },
-  { name: "a truncated JPEG", bytes: async () => { const j = await makePhotoLikeJpeg({ width: 800, height: 600, seed: 3 }); return j.subarray(0, Math.floor(j.length * 0.6)); }, status: 422, code: "corrupt", message: /damaged or incomplete/, at: "finalise" },
-  { name: "a JPEG with garbled data", bytes: async () => garbleMiddle(await makePhotoLikeJpeg({ width: 800, height: 600, seed: 4 }), 400), status: 422, code: "corrupt", message: /damaged or incomplete/, at: "finalise" },
+  {
+    name: "a PDF sent as image/png",
+    bytes: () => Buffer.from("%PDF-1.7\n%\u00e2\u00e3\n1 0 obj\n"),
+    contentType: "image/png",
+    status: 415,
+    code: "unsupported_format",
+    message: /PDF/,
+    at: "finalise",
+  },
+  {
+    name: "a truncated JPEG",
+    bytes: async () => {
+      const j = await makePhotoLikeJpeg({ width: 800, height: 600, seed: 3 });
+      return j.subarray(0, Math.floor(j.length * 0.6));
+    },
+    status: 422,
+    code: "corrupt",
+    message: /damaged or incomplete/,
+    at: "finalise",
+  },
+  {
+    name: "a JPEG with garbled data",
+    bytes: async () => garbleMiddle(await makePhotoLikeJpeg({ width: 800, height: 600, seed: 4 }), 400),
+    status: 422,
+    code: "corrupt",
+    message: /damaged or incomplete/,
+    at: "finalise",
+  },
   // 20000 × 20000 = 400 megapixels in a ~50 KB valid PNG: a decompression bomb.
   { name: "a decompression bomb (400 MP PNG)", bytes: () => makePngBomb(20000, 20000), contentType: "image/png", status: 422, code: "too_many_pixels", message: /megapixels/, at: "finalise" },
   // 7072 × 7072 = 50,013,184 pixels: just over the 50-megapixel limit.
@@ -43,7 +76,15 @@ const CASES: Case[] = [
 ];
 if (!canDecodeHeic()) {
   CASES.push(
-    { name: "a HEIC photo (declared)", bytes: () => makeFtypFile("heic", ["mif1", "heic"]), contentType: "image/heic", status: 415, code: "unsupported_format", message: /convert it to JPEG/, at: "intent" },
+    {
+      name: "a HEIC photo (declared)",
+      bytes: () => makeFtypFile("heic", ["mif1", "heic"]),
+      contentType: "image/heic",
+      status: 415,
+      code: "unsupported_format",
+      message: /convert it to JPEG/,
+      at: "intent",
+    },
     { name: "a HEIC photo sent as image/jpeg", bytes: () => makeFtypFile("heic", ["mif1", "heic"]), status: 415, code: "unsupported_format", message: /convert it to JPEG/, at: "finalise" },
   );
 }

@@ -25,7 +25,10 @@ beforeAll(async () => {
   [inspector, inspector2] = await Promise.all([signIn("inspector@vellmoor.example"), signIn("inspector2@vellmoor.example")]);
 });
 
-const jpeg = (seed: number) => sharp({ create: { width: 80, height: 60, channels: 3, background: { r: seed % 255, g: 120, b: 60 } } }).jpeg().toBuffer();
+const jpeg = (seed: number) =>
+  sharp({ create: { width: 80, height: 60, channels: 3, background: { r: seed % 255, g: 120, b: 60 } } })
+    .jpeg()
+    .toBuffer();
 
 /** A unit on the bench nobody holds, with one ready photo uploaded through the real pipeline as "front". */
 async function unitWithPhoto() {
@@ -36,7 +39,11 @@ async function unitWithPhoto() {
   return { unitId: unitIds[0], photoId: finalise!.body.photo.id, bytes };
 }
 
-const logged = (photoId: string, action: string) => db().select().from(activityLog).where(and(eq(activityLog.subjectId, photoId), eq(activityLog.action, action)));
+const logged = (photoId: string, action: string) =>
+  db()
+    .select()
+    .from(activityLog)
+    .where(and(eq(activityLog.subjectId, photoId), eq(activityLog.action, action)));
 
 describe("reassigning a photo's view", () => {
   it("files the photo under another view of its part type and logs from → to", async () => {
@@ -142,7 +149,10 @@ describe("removing a wrong photo", () => {
 
   it("does not let the same file back in by uploading it again", async () => {
     const { unitId, photoId, bytes } = await unitWithPhoto();
-    await api(inspector, "PUT", `/api/photos/${photoId}/regions`, { baseVersion: 0, regions: { regions: [{ id: "r-1", defect: "scratch", shape: { kind: "rect", x: 5, y: 5, width: 10, height: 10 } }], surfaces: [], ruler: null } });
+    await api(inspector, "PUT", `/api/photos/${photoId}/regions`, {
+      baseVersion: 0,
+      regions: { regions: [{ id: "r-1", defect: "scratch", shape: { kind: "rect", x: 5, y: 5, width: 10, height: 10 } }], surfaces: [], ruler: null },
+    });
     expect((await api<{ outcome: string }>(inspector, "POST", `/api/photos/${photoId}/removal`, { reason: "Wrong unit" })).body.outcome).toBe("withdrawn");
     const { finalise } = await uploadPhoto(inspector, unitId, bytes, { viewKey: "front" });
     expect(finalise?.status).toBe(409);

@@ -3,10 +3,10 @@
  * same intent → PUT → finalise → processing pipeline as a browser upload.
  */
 import { beforeAll, expect, it } from "vitest";
-import type { ViewDefinition } from "@/db/schema";
 import { seedPhotos } from "@/db/seed/photos";
 import { EXAMPLE_PART_TYPES } from "@/lib/grading/example-part-types";
 import { createPhotoUnits, photoRowsFor, storedKeysFor } from "../support/photos";
+import type { ViewDefinition } from "@/lib/part-types/schemas";
 
 const displayViews: ViewDefinition[] = (EXAMPLE_PART_TYPES.display.views ?? []).map((key) => ({ key, label: key, required: true, zones: [] }));
 let lots: { lotId: string; unitIds: string[] }[];

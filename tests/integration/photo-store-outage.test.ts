@@ -10,7 +10,20 @@ import { afterAll, beforeAll, expect, it } from "vitest";
 import { signIn, type Session } from "../support/http";
 import { createUser, TEST_PASSWORD, uniqueEmail, workspaceBySlug } from "../support/db";
 import { makePhotoLikeRaw } from "@/support/fixtures/make-photos";
-import { createPhotoUnits, fetchBytes, finalise, objectStoreControl, photoRowsFor, putToStore, requestUpload, storedKeysFor, uploadPhoto, waitForPhoto, type IntentBody, type PhotoJson } from "../support/photos";
+import {
+  createPhotoUnits,
+  fetchBytes,
+  finalise,
+  objectStoreControl,
+  photoRowsFor,
+  putToStore,
+  requestUpload,
+  storedKeysFor,
+  uploadPhoto,
+  waitForPhoto,
+  type IntentBody,
+  type PhotoJson,
+} from "../support/photos";
 
 const sha256 = (bytes: Buffer) => createHash("sha256").update(bytes).digest("hex");
 let inspector: Session;
@@ -30,7 +43,10 @@ async function photos(count: number): Promise<Buffer[]> {
       { input: { create: { width: 40, height: 40, channels: 3, background: { r: 15 * i, g: 200, b: 255 - 15 * i } } }, left: 40 + 60 * i, top: 40 },
     ]);
   const files = await Promise.all(Array.from({ length: count - 1 }, (_, i) => marked(i).jpeg({ quality: 90 }).toBuffer()));
-  const big = await sharp(await marked(count).png({ compressionLevel: 0 }).toBuffer()).resize(7000, 5250).jpeg({ quality: 92 }).toBuffer();
+  const big = await sharp(await marked(count).png({ compressionLevel: 0 }).toBuffer())
+    .resize(7000, 5250)
+    .jpeg({ quality: 92 })
+    .toBuffer();
   return [...files, big];
 }
 

@@ -48,7 +48,10 @@ it("deletes unfinalised uploads and unnamed photo objects after the grace period
   const { intent: lateIntent, finalise: late } = await uploadPhoto(inspector, unit, bytes.subarray(0, 900), { wait: false });
   expect(late?.status, JSON.stringify(late?.body ?? lateIntent.body)).toBe(202);
   await waitForPhoto(inspector, late!.body.photo.id, (p) => p.status === "failed");
-  await db().update(photos).set({ updatedAt: new Date(Date.now() - 48 * HOUR) }).where(eq(photos.id, late!.body.photo.id));
+  await db()
+    .update(photos)
+    .set({ updatedAt: new Date(Date.now() - 48 * HOUR) })
+    .where(eq(photos.id, late!.body.photo.id));
 
   const young = await sweepOrphans({ graceMs: HOUR, noticeRetentionMs: 72 * HOUR });
   expect(young.deleted.filter((k) => k.includes(unit))).toEqual([]);
@@ -78,7 +81,10 @@ it("marks a photo whose job was lost (no progress for hours) as failed, so Retry
   const { finalise } = await uploadPhoto(inspector, unit, await makePhotoLikeJpeg({ width: 320, height: 240, seed: 63 }));
   const id = finalise!.body.photo.id;
   // As a worker crash would leave it: processing, nothing happening since.
-  await db().update(photos).set({ status: "processing", updatedAt: new Date(Date.now() - 4 * HOUR) }).where(eq(photos.id, id));
+  await db()
+    .update(photos)
+    .set({ status: "processing", updatedAt: new Date(Date.now() - 4 * HOUR) })
+    .where(eq(photos.id, id));
   const report = await sweepOrphans({ stalledMs: 3 * HOUR });
   expect(report.stalledMarked).toBeGreaterThanOrEqual(1);
   const stalled = await waitForPhoto(inspector, id, (p) => p.status === "failed");

@@ -173,7 +173,11 @@ describe("tickets and unit state", () => {
     const wrong = await finalise(inspector, unitB, intent.body.ticket);
     expect(wrong.status).toBe(400);
     expect(wrong.body.error?.message).toMatch(/not valid for this unit/);
-    const tampered = await finalise(inspector, unitC, intent.body.ticket.replace(/.$/, (c) => (c === "A" ? "B" : "A")));
+    const tampered = await finalise(
+      inspector,
+      unitC,
+      intent.body.ticket.replace(/.$/, (c) => (c === "A" ? "B" : "A")),
+    );
     expect(tampered.status).toBe(400);
     expect((await finalise(inspector, unitC, intent.body.ticket)).status).toBe(201);
   });

@@ -100,7 +100,10 @@ describe("Take next", () => {
     expect(page2.body.units.map((u) => [u.lotId, u.sampleIndex])).toEqual([[late.id, 3]]);
     expect(page2.body.nextCursor).toBeNull();
     const other = await api<Page>(lead, "GET", `/api/queue?partTypeId=${otherPartTypeId}`);
-    expect(other.body.units.map((u) => [u.sampleIndex, u.holder?.id])).toEqual([[1, aId], [2, bId]]);
+    expect(other.body.units.map((u) => [u.sampleIndex, u.holder?.id])).toEqual([
+      [1, aId],
+      [2, bId],
+    ]);
   });
 
   it("stats count waiting and on-bench units per part type", async () => {
@@ -122,7 +125,9 @@ describe("queue stats", () => {
     const unit = (sampleIndex: number) => sql`lot_id = ${open.id} AND sample_index = ${sampleIndex}`;
     // 1 stays queued. 2 is on a bench, 3 on a bench whose lease ran out (so waiting again).
     await db().execute(sql`UPDATE units SET status = 'on_bench', lease_holder_id = ${inspector.id}, claimed_at = now(), lease_expires_at = now() + interval '10 minutes' WHERE ${unit(2)}`);
-    await db().execute(sql`UPDATE units SET status = 'on_bench', lease_holder_id = ${inspector.id}, claimed_at = now() - interval '30 minutes', lease_expires_at = now() - interval '1 minute' WHERE ${unit(3)}`);
+    await db().execute(
+      sql`UPDATE units SET status = 'on_bench', lease_holder_id = ${inspector.id}, claimed_at = now() - interval '30 minutes', lease_expires_at = now() - interval '1 minute' WHERE ${unit(3)}`,
+    );
     // Graded now after 10 minutes on the bench, two days ago after 30, and 40 days ago after 5.
     await db().execute(sql`UPDATE units SET status = 'graded', claimed_at = now() - interval '10 minutes', graded_at = now() WHERE ${unit(4)}`);
     await db().execute(sql`UPDATE units SET status = 'graded', claimed_at = now() - interval '2 days 30 minutes', graded_at = now() - interval '2 days' WHERE ${unit(5)}`);
@@ -174,7 +179,11 @@ describe("leases", () => {
   });
 
   it("releasing a unit that is not on a bench is a 409 with a reason", async () => {
-    const [queued] = await db().select().from(units).where(sql`${units.lotId} = ${late.id} AND ${units.status} = 'queued'`).limit(1);
+    const [queued] = await db()
+      .select()
+      .from(units)
+      .where(sql`${units.lotId} = ${late.id} AND ${units.status} = 'queued'`)
+      .limit(1);
     const res = await api<{ error: { message: string } }>(lead, "DELETE", `/api/units/${queued.id}/lease`);
     expect(res.status).toBe(409);
     expect(res.body.error.message).toBe("This unit is waiting in the queue, so it cannot be put back in the queue.");
@@ -182,7 +191,13 @@ describe("leases", () => {
 });
 
 describe("bad input changes nothing", () => {
-  const snapshot = async () => (await db().select({ id: units.id, status: units.status, holder: units.leaseHolderId, exp: units.leaseExpiresAt }).from(units).where(sql`${units.lotId} IN (${early.id}, ${late.id})`)).sort((x, y) => x.id.localeCompare(y.id));
+  const snapshot = async () =>
+    (
+      await db()
+        .select({ id: units.id, status: units.status, holder: units.leaseHolderId, exp: units.leaseExpiresAt })
+        .from(units)
+        .where(sql`${units.lotId} IN (${early.id}, ${late.id})`)
+    ).sort((x, y) => x.id.localeCompare(y.id));
 
   it("unknown or malformed filters → 400", async () => {
     const before = await snapshot();

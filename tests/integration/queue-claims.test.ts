@@ -53,8 +53,17 @@ describe(`${CLAIMERS} concurrent claimers over ${UNITS} queued units`, () => {
   }, 300_000);
 
   it("an expired lease makes its unit claimable again, to exactly one claimer", async () => {
-    const expired = (await db().select({ id: units.id }).from(units).where(sql`${units.lotId} = ${lotId}`).limit(25)).map((r) => r.id);
-    await db().update(units).set({ leaseExpiresAt: sql`now() - interval '1 second'` }).where(inArray(units.id, expired));
+    const expired = (
+      await db()
+        .select({ id: units.id })
+        .from(units)
+        .where(sql`${units.lotId} = ${lotId}`)
+        .limit(25)
+    ).map((r) => r.id);
+    await db()
+      .update(units)
+      .set({ leaseExpiresAt: sql`now() - interval '1 second'` })
+      .where(inArray(units.id, expired));
     const results = await Promise.all(inspectors.map((inspector) => claimNextUnit({ user: inspector, filters: { lotId } })));
     const got = results.filter((r) => r !== null).map((r) => r!.id);
     expect(got.sort()).toEqual([...expired].sort());
@@ -71,7 +80,10 @@ describe(`${CLAIMERS} concurrent claimers over ${UNITS} queued units`, () => {
     const filters = { partTypeId: partType.id };
     const first = await claimNextUnit({ user: inspector, filters });
     expect(first?.lotId).toBe(urgent.id);
-    await db().update(units).set({ leaseExpiresAt: sql`now() - interval '1 second'` }).where(inArray(units.id, [first!.id]));
+    await db()
+      .update(units)
+      .set({ leaseExpiresAt: sql`now() - interval '1 second'` })
+      .where(inArray(units.id, [first!.id]));
     const again = await claimNextUnit({ user: inspectors[1], filters });
     expect(again?.id).toBe(first!.id); // not the waiting unit of the lot due later
     expect((await claimNextUnit({ user: inspectors[2], filters }))?.lotId).toBe(later.id);

@@ -14,7 +14,18 @@ import { gradedUnit, RECHECK_DEFAULTS, recheckWorld, type Person, type RecheckWo
 
 type ErrorBody = { error: { code: string; message: string } };
 const ALWAYS = { ...RECHECK_DEFAULTS, rate: 1, raisedRate: 1 };
-const SURFACE = { id: "audit-surface", shape: { kind: "polygon", points: [[50, 50], [250, 50], [250, 150], [50, 150]] } };
+const SURFACE = {
+  id: "audit-surface",
+  shape: {
+    kind: "polygon",
+    points: [
+      [50, 50],
+      [250, 50],
+      [250, 150],
+      [50, 150],
+    ],
+  },
+};
 
 /** A unit graded C by `grader`, rechecked A by world.auditor: waiting for adjudication. */
 async function disagreement(world: RecheckWorld, grader: Person) {
@@ -36,7 +47,10 @@ describe("adjudication", () => {
     const both: Person = { ...(await signIn(user.email, TEST_PASSWORD)), id: user.id };
     const { unit, recheckId } = await disagreement(world, both);
 
-    for (const [who, message] of [[both, /gave the first grade/], [world.auditor, /rechecked this unit/]] as const) {
+    for (const [who, message] of [
+      [both, /gave the first grade/],
+      [world.auditor, /rechecked this unit/],
+    ] as const) {
       const view = await api<ErrorBody>(who, "GET", `/api/rechecks/${recheckId}/adjudication`);
       expect(view.status).toBe(403);
       expect(view.body.error.message).toMatch(message);
@@ -50,7 +64,11 @@ describe("adjudication", () => {
     expect(listed.body.adjudications.map((a) => a.id)).toContain(recheckId);
     expect((await api<{ adjudications: { id: string }[] }>(world.auditor, "GET", "/api/rechecks/adjudications")).body.adjudications.map((a) => a.id)).not.toContain(recheckId);
 
-    const view = await api<{ first: { grade: string }; second: { grade: string }; photos: { comparison: { areas: Record<string, { onlyFirst: unknown[] }> } }[] }>(world.auditor2, "GET", `/api/rechecks/${recheckId}/adjudication`);
+    const view = await api<{ first: { grade: string }; second: { grade: string }; photos: { comparison: { areas: Record<string, { onlyFirst: unknown[] }> } }[] }>(
+      world.auditor2,
+      "GET",
+      `/api/rechecks/${recheckId}/adjudication`,
+    );
     expect(view.status, JSON.stringify(view.body)).toBe(200);
     expect(view.body.first.grade).toBe("C");
     expect(view.body.second.grade).toBe("A");
@@ -72,7 +90,10 @@ describe("adjudication", () => {
     expect((await api(world.auditor2, "POST", "/api/rechecks/00000000-0000-4000-8000-000000000000/adjudication", { choice: "first", reason: "x" })).status).toBe(404);
     expect(await db().select().from(grades).where(eq(grades.unitId, unit.id))).toHaveLength(before.length);
 
-    const settled = await api<{ adjudication: { finalGrade: string; decidedLotAffected: boolean } }>(world.auditor2, "POST", `/api/rechecks/${recheckId}/adjudication`, { choice: "recheck", reason: "The scratch is shorter than first marked." });
+    const settled = await api<{ adjudication: { finalGrade: string; decidedLotAffected: boolean } }>(world.auditor2, "POST", `/api/rechecks/${recheckId}/adjudication`, {
+      choice: "recheck",
+      reason: "The scratch is shorter than first marked.",
+    });
     expect(settled.status, JSON.stringify(settled.body)).toBe(201);
     expect(settled.body.adjudication).toEqual(expect.objectContaining({ finalGrade: "A", decidedLotAffected: false }));
     const history = await api<{ current: { kind: string; finalGrade: string; overrideReason: string } }>(world.lead, "GET", `/api/units/${unit.id}/grades`);
@@ -85,13 +106,25 @@ describe("adjudication", () => {
     const { unit, recheckId } = await disagreement(world, world.inspector);
     const [row] = await db().select({ lotId: units.lotId }).from(units).where(eq(units.id, unit.id));
     // The lot was decided (on the first grade) before the disagreement was settled.
-    await db().update(lots).set({ status: "decided", verdict: "accept", disposition: "to_stock", dispositionReason: "Accepted on the first grades.", decidedAt: new Date(), decidedBy: world.lead.id }).where(eq(lots.id, row.lotId));
-    const settled = await api<{ adjudication: { decidedLotAffected: boolean } }>(world.lead, "POST", `/api/rechecks/${recheckId}/adjudication`, { choice: "own", finalGrade: "B", reason: "Between the two: a B." });
+    await db()
+      .update(lots)
+      .set({ status: "decided", verdict: "accept", disposition: "to_stock", dispositionReason: "Accepted on the first grades.", decidedAt: new Date(), decidedBy: world.lead.id })
+      .where(eq(lots.id, row.lotId));
+    const settled = await api<{ adjudication: { decidedLotAffected: boolean } }>(world.lead, "POST", `/api/rechecks/${recheckId}/adjudication`, {
+      choice: "own",
+      finalGrade: "B",
+      reason: "Between the two: a B.",
+    });
     expect(settled.status, JSON.stringify(settled.body)).toBe(201);
     expect(settled.body.adjudication.decidedLotAffected).toBe(true);
     const [lot] = await db().select().from(lots).where(eq(lots.id, row.lotId));
     expect(lot).toMatchObject({ status: "decided", verdict: "accept", disposition: "to_stock" });
-    const [entry] = await db().select().from(activityLog).where(and(eq(activityLog.subjectType, "lot"), eq(activityLog.subjectId, row.lotId))).orderBy(desc(activityLog.createdAt)).limit(1);
+    const [entry] = await db()
+      .select()
+      .from(activityLog)
+      .where(and(eq(activityLog.subjectType, "lot"), eq(activityLog.subjectId, row.lotId)))
+      .orderBy(desc(activityLog.createdAt))
+      .limit(1);
     expect(entry).toMatchObject({ action: "lot.decided_lot_affected" });
     const [recheck] = await db().select().from(rechecks).where(eq(rechecks.id, recheckId));
     // The scorecards read the adjudicated grade from the recheck row (migration 0021).

@@ -30,7 +30,9 @@ let galleryItemId: string;
 beforeAll(async () => {
   world = await recheckWorld({ ...RECHECK_DEFAULTS, rate: 1, raisedRate: 1 });
   await db().update(users).set({ name: marker }).where(eq(users.id, world.inspector.id));
-  made = await gradedUnit(world, world.inspector, { regions: [FIXTURE_SURFACE, { clientId: firstRegionId, role: "defect", defect: "scratch", shape: { kind: "rect", x: 60, y: 60, width: 12, height: 10 } }] });
+  made = await gradedUnit(world, world.inspector, {
+    regions: [FIXTURE_SURFACE, { clientId: firstRegionId, role: "defect", defect: "scratch", shape: { kind: "rect", x: 60, y: 60, width: 12, height: 10 } }],
+  });
   // A lead promotes the graded photo to the Gallery and publishes it: the item carries the first
   // grader's regions and grade, so the auditor must not reach it while the recheck waits.
   const promoted = await api<{ item: { id: string } }>(world.lead, "POST", "/api/gallery", { photoId: made.photo.id });
@@ -127,7 +129,24 @@ describe("marking, measuring and submitting", () => {
 
   it("the auditor marks their own regions, measures and grades; the comparison is stored and differing grades go to adjudication", async () => {
     // A smaller scratch than the first grader's 12 × 10: 10 × 4 = 40 px = 0.4 % of the lens window → A under v1 (first: C).
-    const regions = { regions: [{ id: "audit-1", defect: "scratch", shape: { kind: "rect", x: 60, y: 60, width: 10, height: 4 } }], surfaces: [{ id: "audit-surface", shape: { kind: "polygon", points: [[50, 50], [250, 50], [250, 150], [50, 150]] } }], ruler: null };
+    const regions = {
+      regions: [{ id: "audit-1", defect: "scratch", shape: { kind: "rect", x: 60, y: 60, width: 10, height: 4 } }],
+      surfaces: [
+        {
+          id: "audit-surface",
+          shape: {
+            kind: "polygon",
+            points: [
+              [50, 50],
+              [250, 50],
+              [250, 150],
+              [50, 150],
+            ],
+          },
+        },
+      ],
+      ruler: null,
+    };
     const saved = await api(world.auditor, "PUT", `/api/rechecks/${recheckId}/regions`, { photoId: made.photo.id, baseVersion: 0, regions });
     expect(saved.status, JSON.stringify(saved.body)).toBe(200);
     const stale = await api<ErrorBody>(world.auditor, "PUT", `/api/rechecks/${recheckId}/regions`, { photoId: made.photo.id, baseVersion: 0, regions });
@@ -135,7 +154,10 @@ describe("marking, measuring and submitting", () => {
     const measured = await api<{ proposal: { grade: string } }>(world.auditor, "POST", `/api/rechecks/${recheckId}/measure`);
     expect(measured.status, JSON.stringify(measured.body)).toBe(200);
     expect(measured.body.proposal.grade).toBe("A");
-    const submitted = await api<{ recheck: { status: string; notBlind: boolean; recheckGrade: string } }>(world.auditor, "POST", `/api/rechecks/${recheckId}/submission`, { decision: "accept", proposedGrade: "A" });
+    const submitted = await api<{ recheck: { status: string; notBlind: boolean; recheckGrade: string } }>(world.auditor, "POST", `/api/rechecks/${recheckId}/submission`, {
+      decision: "accept",
+      proposedGrade: "A",
+    });
     expect(submitted.status, JSON.stringify(submitted.body)).toBe(201);
     expect(submitted.body.recheck).toMatchObject({ status: "adjudication", notBlind: false, recheckGrade: "A" });
     const [row] = await db().select().from(rechecks).where(eq(rechecks.id, recheckId));

@@ -119,7 +119,11 @@ describe("recheck settings", () => {
 describe("who opened a unit's inspection data", () => {
   it("is recorded when someone reads its grades, and only then", async () => {
     const unit = await gradedUnitNotDrawn();
-    const opened = () => db().select().from(unitOpenings).where(and(eq(unitOpenings.unitId, unit.id), eq(unitOpenings.userId, world.inspector2.id)));
+    const opened = () =>
+      db()
+        .select()
+        .from(unitOpenings)
+        .where(and(eq(unitOpenings.unitId, unit.id), eq(unitOpenings.userId, world.inspector2.id)));
     expect(await opened()).toHaveLength(0);
     expect((await api(world.inspector2, "GET", `/api/units/${unit.id}/grades`)).status).toBe(200);
     expect(await opened()).toHaveLength(1);

@@ -50,7 +50,11 @@ describe("taking the next recheck", () => {
     const { photo } = await gradedUnit(own, own.inspector);
     const taken = await next(own.auditor);
     expect(taken.status).toBe(200);
-    const saved = await api(own.auditor, "PUT", `/api/rechecks/${taken.body.recheck.id}/regions`, { photoId: photo.id, baseVersion: 0, regions: { regions: [{ id: "mine", defect: "scratch", shape: { kind: "rect", x: 70, y: 70, width: 10, height: 10 } }], surfaces: [], ruler: null } });
+    const saved = await api(own.auditor, "PUT", `/api/rechecks/${taken.body.recheck.id}/regions`, {
+      photoId: photo.id,
+      baseVersion: 0,
+      regions: { regions: [{ id: "mine", defect: "scratch", shape: { kind: "rect", x: 70, y: 70, width: 10, height: 10 } }], surfaces: [], ruler: null },
+    });
     expect(saved.status, JSON.stringify(saved.body)).toBe(200);
     expect((await api(own.auditor, "DELETE", `/api/rechecks/${taken.body.recheck.id}/lease`)).status).toBe(204);
     expect(await db().select().from(recheckRegionSets).where(eq(recheckRegionSets.recheckId, taken.body.recheck.id))).toHaveLength(0);

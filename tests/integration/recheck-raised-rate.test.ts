@@ -32,7 +32,15 @@ describe("the raised rate for a drifting grader", () => {
     const other: Grade = firstGrade === "Reject" ? "A" : "Reject";
     await db()
       .update(rechecks)
-      .set({ status: "adjudication", submittedAt: new Date(), auditorId: world.auditor.id, proposedGrade: other, recheckGrade: other, comparison: { photos: [], classes: {}, grade: { first: firstGrade, recheck: other, steps: gradeSteps(firstGrade, other), agreement: gradeAgreement(firstGrade, other) } }, adjudicationReasons: [] })
+      .set({
+        status: "adjudication",
+        submittedAt: new Date(),
+        auditorId: world.auditor.id,
+        proposedGrade: other,
+        recheckGrade: other,
+        comparison: { photos: [], classes: {}, grade: { first: firstGrade, recheck: other, steps: gradeSteps(firstGrade, other), agreement: gradeAgreement(firstGrade, other) } },
+        adjudicationReasons: [],
+      })
       .where(eq(rechecks.id, drawn.id));
 
     const second = await gradedUnit(world, world.inspector);

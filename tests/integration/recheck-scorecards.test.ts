@@ -16,7 +16,15 @@ import { gradedUnit, RECHECK_DEFAULTS, recheckWorld, type RecheckWorld } from ".
 
 type ErrorBody = { error: { code: string; message: string; fieldErrors?: Record<string, string> } };
 type Counts = { graded: number; rechecked: number; notBlind: number; figures: { n: number; exact: { share: number | null }; withinOne: number | null } };
-type View = { from: string; to: string; weeks: string[]; graders: (Counts & { graderId: string; drift: { flagged: boolean } })[]; team: Counts; names: Record<string, string>; multiRater: { units: number } };
+type View = {
+  from: string;
+  to: string;
+  weeks: string[];
+  graders: (Counts & { graderId: string; drift: { flagged: boolean } })[];
+  team: Counts;
+  names: Record<string, string>;
+  multiRater: { units: number };
+};
 
 let world: RecheckWorld;
 const firstGrades: Grade[] = [];
@@ -26,7 +34,16 @@ async function submit(gradeId: string, firstGrade: Grade, recheckGrade: Grade, n
   const steps = gradeSteps(firstGrade, recheckGrade);
   await db()
     .update(rechecks)
-    .set({ status: steps === 0 ? "agreed" : "adjudication", submittedAt: new Date(), auditorId: world.auditor.id, proposedGrade: recheckGrade, recheckGrade, notBlind, comparison: { photos: [], classes: {}, grade: { first: firstGrade, recheck: recheckGrade, steps, agreement: gradeAgreement(firstGrade, recheckGrade) } }, adjudicationReasons: [] })
+    .set({
+      status: steps === 0 ? "agreed" : "adjudication",
+      submittedAt: new Date(),
+      auditorId: world.auditor.id,
+      proposedGrade: recheckGrade,
+      recheckGrade,
+      notBlind,
+      comparison: { photos: [], classes: {}, grade: { first: firstGrade, recheck: recheckGrade, steps, agreement: gradeAgreement(firstGrade, recheckGrade) } },
+      adjudicationReasons: [],
+    })
     .where(eq(rechecks.gradeId, gradeId));
 }
 
@@ -156,7 +173,10 @@ describe("GET /api/recheck/scorecards/csv", () => {
     expect(res.status).toBe(200);
     expect(res.headers.get("content-type")).toMatch(/^text\/csv/);
     expect(res.headers.get("content-disposition")).toMatch(/^attachment; filename="scorecards-\d{4}-\d{2}-\d{2}-to-\d{4}-\d{2}-\d{2}\.csv"$/);
-    const lines = String(res.body).replace(/^\uFEFF/, "").trim().split("\r\n");
+    const lines = String(res.body)
+      .replace(/^\uFEFF/, "")
+      .trim()
+      .split("\r\n");
     expect(lines[0].split(",").slice(0, 7)).toEqual(["grader", "grader_id", "period", "graded", "rechecked", "not_blind", "n"]);
     // 12 weeks + the period, for the one grader and for the team.
     expect(lines).toHaveLength(1 + 2 * 13);

@@ -36,11 +36,47 @@ async function freshPhoto() {
 }
 
 const ONE_OF_EACH: RegionSetPayload = {
-  surfaces: [{ id: "s-1", shape: { kind: "polygon", points: [[10, 10], [290, 10], [290, 190], [10, 190]] } }],
+  surfaces: [
+    {
+      id: "s-1",
+      shape: {
+        kind: "polygon",
+        points: [
+          [10, 10],
+          [290, 10],
+          [290, 190],
+          [10, 190],
+        ],
+      },
+    },
+  ],
   regions: [
     { id: "k-1", defect: "scratch", shape: { kind: "rect", x: 20.5, y: 30.25, width: 40, height: 12.125 } },
-    { id: "k-2", defect: "dent", shape: { kind: "polygon", points: [[100, 100], [140, 100], [120, 130]] } },
-    { id: "k-10", defect: "scratch", shape: { kind: "line", points: [[50, 150], [90, 160], [130, 150.5]], width: 2.5 } },
+    {
+      id: "k-2",
+      defect: "dent",
+      shape: {
+        kind: "polygon",
+        points: [
+          [100, 100],
+          [140, 100],
+          [120, 130],
+        ],
+      },
+    },
+    {
+      id: "k-10",
+      defect: "scratch",
+      shape: {
+        kind: "line",
+        points: [
+          [50, 150],
+          [90, 160],
+          [130, 150.5],
+        ],
+        width: 2.5,
+      },
+    },
     { id: "k-3", defect: "crack", shape: { kind: "spot", x: 250, y: 50, radius: 3.75 } },
   ],
   ruler: { id: "r-1", a: [10, 195], b: [110, 195], lengthMm: 10 },
@@ -73,7 +109,10 @@ describe("reading and saving a photo's regions", () => {
       ["k-3", "defect", 4, 1],
       ["r-1", "ruler", 5, 1],
     ]);
-    const [logged] = await db().select().from(activityLog).where(and(eq(activityLog.subjectId, photo.id), eq(activityLog.action, "regions.saved")));
+    const [logged] = await db()
+      .select()
+      .from(activityLog)
+      .where(and(eq(activityLog.subjectId, photo.id), eq(activityLog.action, "regions.saved")));
     expect(logged.detail).toMatchObject({ version: 1, regions: 6, added: 6, changed: 0, removed: 0 });
   });
 
@@ -112,28 +151,108 @@ describe("reading and saving a photo's regions", () => {
     const points = (n: number) => Array.from({ length: n }, (_, i) => [i % 300, Math.floor(i / 300)]);
     const cases: [string, string | object, RegExp][] = [
       // 1e309 is valid JSON that JSON.parse turns into Infinity (NaN cannot be written in JSON at all).
-      ["1e309", '{"baseVersion":0,"regions":{"regions":[{"id":"a","defect":"scratch","shape":{"kind":"rect","x":1e309,"y":1,"width":5,"height":5}}]}}', /Region 1 \(Box\): x must be a finite number\./],
-      ["-1e309 radius", '{"baseVersion":0,"regions":{"regions":[{"id":"a","defect":"scratch","shape":{"kind":"spot","x":5,"y":5,"radius":-1e309}}]}}', /Region 1 \(Spot\): the radius must be a finite number\./],
+      [
+        "1e309",
+        '{"baseVersion":0,"regions":{"regions":[{"id":"a","defect":"scratch","shape":{"kind":"rect","x":1e309,"y":1,"width":5,"height":5}}]}}',
+        /Region 1 \(Box\): x must be a finite number\./,
+      ],
+      [
+        "-1e309 radius",
+        '{"baseVersion":0,"regions":{"regions":[{"id":"a","defect":"scratch","shape":{"kind":"spot","x":5,"y":5,"radius":-1e309}}]}}',
+        /Region 1 \(Spot\): the radius must be a finite number\./,
+      ],
       ["Infinity literal", '{"baseVersion":0,"regions":{"regions":[{"id":"a","defect":"scratch","shape":{"kind":"spot","x":Infinity,"y":5,"radius":2}}]}}', /not valid JSON/],
       ["NaN literal", '{"baseVersion":0,"regions":{"regions":[{"id":"a","defect":"scratch","shape":{"kind":"spot","x":NaN,"y":5,"radius":2}}]}}', /not valid JSON/],
-      ["2 million points", withRegion({ id: "a", defect: "scratch", shape: { kind: "line", points: new Array(2_000_000).fill(0), width: 1 } }), /Region 1 \(Line\): the points may hold at most 5000 points\./],
+      [
+        "2 million points",
+        withRegion({ id: "a", defect: "scratch", shape: { kind: "line", points: new Array(2_000_000).fill(0), width: 1 } }),
+        /Region 1 \(Line\): the points may hold at most 5000 points\./,
+      ],
       ["5 001 points", withRegion({ id: "a", defect: "scratch", shape: { kind: "polygon", points: points(5_001) } }), /Region 1 \(Outline\): the points may hold at most 5000 points\./],
-      ["self-closing line", withRegion({ id: "a", defect: "scratch", shape: { kind: "line", points: [[10, 10], [60, 40], [10, 10]], width: 2 } }), /Region 1 \(Line\): the line only runs back and forth between 2 points/],
-      ["collinear outline", withRegion({ id: "a", defect: "scratch", shape: { kind: "polygon", points: [[10, 10], [20, 20], [30, 30]] } }), /Region 1 \(Outline\): a polygon needs at least 3 points that are not on one line/],
-      ["two-point outline", withRegion({ id: "a", defect: "scratch", shape: { kind: "polygon", points: [[10, 10], [20, 20]] } }), /Region 1 \(Outline\)/],
+      [
+        "self-closing line",
+        withRegion({
+          id: "a",
+          defect: "scratch",
+          shape: {
+            kind: "line",
+            points: [
+              [10, 10],
+              [60, 40],
+              [10, 10],
+            ],
+            width: 2,
+          },
+        }),
+        /Region 1 \(Line\): the line only runs back and forth between 2 points/,
+      ],
+      [
+        "collinear outline",
+        withRegion({
+          id: "a",
+          defect: "scratch",
+          shape: {
+            kind: "polygon",
+            points: [
+              [10, 10],
+              [20, 20],
+              [30, 30],
+            ],
+          },
+        }),
+        /Region 1 \(Outline\): a polygon needs at least 3 points that are not on one line/,
+      ],
+      [
+        "two-point outline",
+        withRegion({
+          id: "a",
+          defect: "scratch",
+          shape: {
+            kind: "polygon",
+            points: [
+              [10, 10],
+              [20, 20],
+            ],
+          },
+        }),
+        /Region 1 \(Outline\)/,
+      ],
       ["outside the photo", withRegion({ id: "a", defect: "scratch", shape: { kind: "rect", x: 280, y: 10, width: 40, height: 5 } }), /Region 1 \(Box\): .*outside the 300 × 200 px photo/],
       ["negative coordinates", withRegion({ id: "a", defect: "scratch", shape: { kind: "spot", x: -3, y: 5, radius: 2 } }), /Region 1 \(Spot\): the spot's centre \(-3, 5\) lies/],
       ["zero radius", withRegion({ id: "a", defect: "scratch", shape: { kind: "spot", x: 30, y: 30, radius: 0 } }), /Region 1 \(Spot\)/],
-      ["zero line width", withRegion({ id: "a", defect: "scratch", shape: { kind: "line", points: [[10, 10], [50, 50]], width: 0 } }), /Region 1 \(Line\): a line needs a width above 0\./],
+      [
+        "zero line width",
+        withRegion({
+          id: "a",
+          defect: "scratch",
+          shape: {
+            kind: "line",
+            points: [
+              [10, 10],
+              [50, 50],
+            ],
+            width: 0,
+          },
+        }),
+        /Region 1 \(Line\): a line needs a width above 0\./,
+      ],
       ["negative box", withRegion({ id: "a", defect: "scratch", shape: { kind: "rect", x: 50, y: 50, width: -10, height: 5 } }), /Region 1 \(Box\)/],
-      ["unknown class", withRegion({ id: "a", defect: "bogus", shape: { kind: "spot", x: 30, y: 30, radius: 2 } }), /Region 1 \(Spot\): the defect class “bogus” is not allowed for this part type \(allowed: scratch, dent, crack\)\./],
+      [
+        "unknown class",
+        withRegion({ id: "a", defect: "bogus", shape: { kind: "spot", x: 30, y: 30, radius: 2 } }),
+        /Region 1 \(Spot\): the defect class “bogus” is not allowed for this part type \(allowed: scratch, dent, crack\)\./,
+      ],
       ["unknown shape field", withRegion({ id: "a", defect: "scratch", shape: { kind: "spot", x: 30, y: 30, radius: 2, colour: "red" } }), /has unknown field\(s\) colour/],
       ["unknown top-level field", { baseVersion: 0, regions: { regions: [], surfaces: [], ruler: null }, force: true }, /Unknown field: force/],
       ["unknown set field", { baseVersion: 0, regions: { regions: [], surfaces: [], ruler: null, zones: [] } }, /has unknown field\(s\) zones/],
       ["unknown shape kind", withRegion({ id: "a", defect: "scratch", shape: { kind: "ellipse", x: 30, y: 30 } }), /must be "rect", "polygon", "line" or "spot"/],
       ["missing regions", { baseVersion: 0 }, /regions\): is missing/],
       ["version as text", { baseVersion: "0", regions: { regions: [] } }, /baseVersion/],
-      ["duplicate ids", { baseVersion: 0, regions: { regions: [1, 2].map(() => ({ id: "same", defect: "scratch", shape: { kind: "spot", x: 30, y: 30, radius: 2 } })) } }, /“same” is already used by region 1/],
+      [
+        "duplicate ids",
+        { baseVersion: 0, regions: { regions: [1, 2].map(() => ({ id: "same", defect: "scratch", shape: { kind: "spot", x: 30, y: 30, radius: 2 } })) } },
+        /“same” is already used by region 1/,
+      ],
     ];
     for (const [name, body, message] of cases) {
       const res = await api<ErrorBody>(inspector, "PUT", path, body);
@@ -161,7 +280,10 @@ describe("who may save, and when", () => {
   it("is read-only for everybody else while another person's lease runs, leads included; the holder saves", async () => {
     const { unit, path, photo } = await freshPhoto();
     const holder = await workspaceIdOf("inspector2@vellmoor.example");
-    await db().update(units).set({ leaseHolderId: holder.userId, leaseExpiresAt: new Date(Date.now() + 600_000) }).where(eq(units.id, unit.id));
+    await db()
+      .update(units)
+      .set({ leaseHolderId: holder.userId, leaseExpiresAt: new Date(Date.now() + 600_000) })
+      .where(eq(units.id, unit.id));
     const body = withRegion({ id: "a", defect: "scratch", shape: { kind: "spot", x: 30, y: 30, radius: 2 } });
     for (const session of [inspector, lead]) {
       const refused = await api<ErrorBody>(session, "PUT", path, body);
@@ -171,7 +293,10 @@ describe("who may save, and when", () => {
     expect(await setVersion(photo.id)).toBeNull();
     expect((await api(inspector2, "PUT", path, body)).status).toBe(200);
     // An expired lease no longer locks anyone out.
-    await db().update(units).set({ leaseExpiresAt: new Date(Date.now() - 1000) }).where(eq(units.id, unit.id));
+    await db()
+      .update(units)
+      .set({ leaseExpiresAt: new Date(Date.now() - 1000) })
+      .where(eq(units.id, unit.id));
     expect((await api(inspector, "PUT", path, { ...body, baseVersion: 1 })).status).toBe(200);
   });
 
@@ -186,7 +311,10 @@ describe("who may save, and when", () => {
     const me = await workspaceIdOf("inspector@vellmoor.example");
     expect(after).toMatchObject({ status: "on_bench", leaseHolderId: me.userId });
     expect(after.leaseExpiresAt!.getTime()).toBeGreaterThan(Date.now());
-    const [claimed] = await db().select().from(activityLog).where(and(eq(activityLog.subjectId, unit.id), eq(activityLog.action, "unit.claimed")));
+    const [claimed] = await db()
+      .select()
+      .from(activityLog)
+      .where(and(eq(activityLog.subjectId, unit.id), eq(activityLog.action, "unit.claimed")));
     expect(claimed.detail).toMatchObject({ via: "regions" });
     // It is now the saver's: someone else is refused, and the queue no longer offers it.
     const refused = await api<ErrorBody>(inspector2, "PUT", path, { ...body, baseVersion: 1 });

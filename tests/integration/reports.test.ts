@@ -22,10 +22,34 @@ import { api, BASE_URL, signIn, type Session } from "../support/http";
 import { flatText, pdfText } from "../support/pdf-text";
 import { testStore } from "../support/photos";
 
-const SURFACE: FixtureRegion = { clientId: "surface", role: "surface", shape: { kind: "polygon", points: [[50, 50], [250, 50], [250, 150], [50, 150]] } };
+const SURFACE: FixtureRegion = {
+  clientId: "surface",
+  role: "surface",
+  shape: {
+    kind: "polygon",
+    points: [
+      [50, 50],
+      [250, 50],
+      [250, 150],
+      [50, 150],
+    ],
+  },
+};
 const SCRATCH: FixtureRegion = { clientId: "scratch", role: "defect", defect: "scratch", shape: { kind: "rect", x: 60, y: 60, width: 30, height: 10 } };
 const DENT: FixtureRegion = { clientId: "dent", role: "defect", defect: "dent", shape: { kind: "spot", x: 200, y: 120, radius: 4 } };
-const CRACK: FixtureRegion = { clientId: "crack", role: "defect", defect: "crack", shape: { kind: "line", points: [[100, 100], [140, 110]], width: 2 } };
+const CRACK: FixtureRegion = {
+  clientId: "crack",
+  role: "defect",
+  defect: "crack",
+  shape: {
+    kind: "line",
+    points: [
+      [100, 100],
+      [140, 110],
+    ],
+    width: 2,
+  },
+};
 
 /** Starts with "+": a spreadsheet would read it as a formula. */
 const REASON = "+2 cracked housings over the limit.";
@@ -96,7 +120,12 @@ beforeAll(async () => {
     partTypeId: partType.id,
     version: 1,
     status: "published",
-    rubric: { rules: [{ id: "scratch-c", metric: "share", defect: "scratch", comparison: ">", threshold: 1, grade: "C" }, { id: "crack-r", metric: "count", defect: "crack", comparison: ">", threshold: 0, grade: "Reject" }] },
+    rubric: {
+      rules: [
+        { id: "scratch-c", metric: "share", defect: "scratch", comparison: ">", threshold: 1, grade: "C" },
+        { id: "crack-r", metric: "count", defect: "crack", comparison: ">", threshold: 0, grade: "Reject" },
+      ],
+    },
     actorId: owner.userId,
   });
   // Accented names: the CSV is UTF-8 and the PDF's font carries them.
@@ -104,7 +133,18 @@ beforeAll(async () => {
   const { supplier } = await ok(api<{ supplier: { id: string } }>(lead, "POST", "/api/suppliers", { name: supplierName, contactEmail: "reports@supplier.example" }), "supplier", 201);
   const purchaseRef = `PO-REP-${tag}`;
   const { lot } = await ok(
-    api<{ lot: { id: string } }>(lead, "POST", "/api/lots", { supplierId: supplier.id, partTypeId: partType.id, purchaseRef, quantity: 10, receivedOn: "2026-11-18", dueOn: "2026-11-27", inspectionLevel: "II", aqlCritical: null, aqlMajor: 4.0, aqlMinor: 4.0 }),
+    api<{ lot: { id: string } }>(lead, "POST", "/api/lots", {
+      supplierId: supplier.id,
+      partTypeId: partType.id,
+      purchaseRef,
+      quantity: 10,
+      receivedOn: "2026-11-18",
+      dueOn: "2026-11-27",
+      inspectionLevel: "II",
+      aqlCritical: null,
+      aqlMajor: 4.0,
+      aqlMinor: 4.0,
+    }),
     "lot",
     201,
   );
@@ -115,7 +155,9 @@ beforeAll(async () => {
   await inspect(unitIds[1], `REP-${tag}-2`, { power: false, regions: [CRACK] });
   await inspect(unitIds[2], `REP-${tag}-3`, { power: true, regions: [] });
   // One real preview in the store, so the report draws an annotated photo.
-  const preview = await sharp({ create: { width: 300, height: 200, channels: 3, background: "#8a9199" } }).webp().toBuffer();
+  const preview = await sharp({ create: { width: 300, height: 200, channels: 3, background: "#8a9199" } })
+    .webp()
+    .toBuffer();
   await putObject(testStore(), scratched.previewKey!, preview, { contentType: "image/webp" });
   await ok(api(lead, "POST", `/api/lots/${lot.id}/disposition`, { disposition: "return_to_vendor", reason: REASON }), "decision");
   ids = { partTypeId: partType.id, supplierId: supplier.id, lotId: lot.id, unitIds, purchaseRef, supplierName };
@@ -151,7 +193,17 @@ describe("CSV exports", () => {
       .where(and(inArray(photos.unitId, ids.unitIds), eq(regions.role, "defect")));
     expect(rows.map((r) => r.region_id).sort()).toEqual(dbRegions.map((r) => r.id).sort());
     const byClass = Object.fromEntries(rows.map((r) => [r.defect_class, r]));
-    expect(byClass.scratch).toMatchObject({ shape: "rect", x_px: "60", y_px: "60", width_px: "30", height_px: "10", region_area_px: "300", px_per_mm: "10", calibration: "nominal", region_area_mm2: "3" });
+    expect(byClass.scratch).toMatchObject({
+      shape: "rect",
+      x_px: "60",
+      y_px: "60",
+      width_px: "30",
+      height_px: "10",
+      region_area_px: "300",
+      px_per_mm: "10",
+      calibration: "nominal",
+      region_area_mm2: "3",
+    });
     // Surface 200 × 100 = 20 000 px; the scratch's 300 px are 1.5 % of it (a: rectangle areas).
     expect(Number(byClass.scratch.class_share_of_surface)).toBeCloseTo(0.015, 4);
     expect(byClass.scratch.class_count_on_photo).toBe("1");
@@ -165,7 +217,16 @@ describe("CSV exports", () => {
     const { rows: lotRows } = await csv(lead, `kind=lots&supplierId=${ids.supplierId}`);
     const [lot] = await db().select().from(lots).where(eq(lots.id, ids.lotId));
     expect(lotRows).toHaveLength(1);
-    expect(lotRows[0]).toMatchObject({ lot_id: lot.id, purchase_ref: ids.purchaseRef, received_on: "2026-11-18", status: "decided", verdict: lot.verdict, disposition: "return_to_vendor",  units_sampled: "3", units_graded: "3" });
+    expect(lotRows[0]).toMatchObject({
+      lot_id: lot.id,
+      purchase_ref: ids.purchaseRef,
+      received_on: "2026-11-18",
+      status: "decided",
+      verdict: lot.verdict,
+      disposition: "return_to_vendor",
+      units_sampled: "3",
+      units_graded: "3",
+    });
     // A reason a spreadsheet would run as a formula gets a leading apostrophe (OWASP "CSV injection", a).
     expect(lotRows[0].disposition_reason).toBe(`'${REASON}`);
     expect(new Date(lotRows[0].decided_at).toISOString()).toBe(lot.decidedAt!.toISOString());

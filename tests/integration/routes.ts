@@ -25,7 +25,13 @@ const unique = (p: string) => `${p}-${Date.now().toString(36)}-${++n}`;
 export const ROUTES: RouteRow[] = [
   { method: "GET", path: "/api/health", permission: "public", allowedStatus: 200 },
   // Sign-up only e-mails a confirmation link (202); the workspace comes when the link is used.
-  { method: "POST", path: "/api/signup", permission: "public", body: () => ({ companyName: unique("Route Check Works"), name: "Route Checker", email: `${unique("signup")}@tests.example` }), allowedStatus: 202 },
+  {
+    method: "POST",
+    path: "/api/signup",
+    permission: "public",
+    body: () => ({ companyName: unique("Route Check Works"), name: "Route Checker", email: `${unique("signup")}@tests.example` }),
+    allowedStatus: 202,
+  },
   { method: "POST", path: "/api/password/forgot", permission: "public", body: () => ({ email: `${unique("nobody")}@tests.example` }), allowedStatus: 200 },
   // A well-formed but unknown token: the handler itself answers 400 "link not valid".
   { method: "POST", path: "/api/password/set", permission: "public", body: () => ({ token: "x".repeat(43), password: "long-enough-password" }), allowedStatus: 400 },
@@ -53,9 +59,21 @@ export const ROUTES: RouteRow[] = [
   { method: "POST", path: "/api/part-types/:partTypeId/rubrics", permission: "rubrics.edit", allowedStatus: 200 },
   { method: "GET", path: "/api/part-types/:partTypeId/rubrics/draft", permission: "rubrics.read", allowedStatus: 200 },
   // Every allowed caller names edit 0 of draft v2: the first saves (200), the later ones meet its save (409).
-  { method: "PATCH", path: "/api/part-types/:partTypeId/rubrics/draft", permission: "rubrics.edit", body: () => ({ rubric: { rules: [{ id: unique("route-check"), metric: "count", defect: "scratch", comparison: ">", threshold: 3, grade: "B" }] }, version: 2, revision: 0 }), allowedStatus: [200, 409] },
+  {
+    method: "PATCH",
+    path: "/api/part-types/:partTypeId/rubrics/draft",
+    permission: "rubrics.edit",
+    body: () => ({ rubric: { rules: [{ id: unique("route-check"), metric: "count", defect: "scratch", comparison: ">", threshold: 3, grade: "B" }] }, version: 2, revision: 0 }),
+    allowedStatus: [200, 409],
+  },
   { method: "GET", path: "/api/part-types/:partTypeId/rubrics/diff", permission: "rubrics.read", allowedStatus: 200 },
-  { method: "POST", path: "/api/part-types/:partTypeId/rubrics/preview", permission: "rubrics.read", body: () => ({ rubric: { rules: [{ id: "preview", metric: "count", defect: "scratch", comparison: ">", threshold: 0, grade: "B" }] }, photos: [] }), allowedStatus: 200 },
+  {
+    method: "POST",
+    path: "/api/part-types/:partTypeId/rubrics/preview",
+    permission: "rubrics.read",
+    body: () => ({ rubric: { rules: [{ id: "preview", metric: "count", defect: "scratch", comparison: ">", threshold: 0, grade: "B" }] }, photos: [] }),
+    allowedStatus: 200,
+  },
   { method: "POST", path: "/api/part-types/:publishPartTypeId/rubrics/draft/publish", permission: "rubrics.publish", body: () => ({ version: 2, revision: 0 }), allowedStatus: 200 },
   // Grading (the fixture unit has a ready photo with regions, measured and graded once).
   { method: "POST", path: "/api/units/:unitId/measure", permission: "regions.edit", allowedStatus: 200 },
@@ -74,7 +92,13 @@ export const ROUTES: RouteRow[] = [
   // Photo intake (tests/support/photo-access.ts: a unit on the bench with one ready photo).
   { method: "GET", path: "/api/units/:photoUnitId/photos", permission: "inspection.read", allowedStatus: 200 },
   // An intent stores nothing (no row, no object) until the browser uploads and finalises.
-  { method: "POST", path: "/api/units/:photoUnitId/photos/uploads", permission: "photos.capture", body: () => ({ viewKey: "front", fileName: "route-check.jpg", contentType: "image/jpeg", bytes: 1000 }), allowedStatus: 201 },
+  {
+    method: "POST",
+    path: "/api/units/:photoUnitId/photos/uploads",
+    permission: "photos.capture",
+    body: () => ({ viewKey: "front", fileName: "route-check.jpg", contentType: "image/jpeg", bytes: 1000 }),
+    allowedStatus: 201,
+  },
   // A well-formed but forged ticket: the handler itself answers 400 (real finalising is in photos.test.ts).
   { method: "POST", path: "/api/units/:photoUnitId/photos", permission: "photos.capture", body: () => ({ ticket: `${"e30".repeat(8)}.${"x".repeat(43)}` }), allowedStatus: 400 },
   { method: "GET", path: "/api/photos/:photoId", permission: "inspection.read", allowedStatus: 200 },
@@ -94,7 +118,13 @@ export const ROUTES: RouteRow[] = [
   // Regions and suggestions on the Bench (tests/support/region-access.ts: a ready photo on a unit nobody holds).
   { method: "GET", path: "/api/photos/:regionPhotoId/regions", permission: "inspection.read", allowedStatus: 200 },
   // Every allowed caller sends version 0: the first one saves (200) and takes the unit onto their bench; the later ones meet that lease or its save (409).
-  { method: "PUT", path: "/api/photos/:regionPhotoId/regions", permission: "regions.edit", body: () => ({ baseVersion: 0, regions: { regions: [{ id: "route-1", defect: "scratch", shape: { kind: "rect", x: 10, y: 10, width: 20, height: 10 } }], surfaces: [], ruler: null } }), allowedStatus: [200, 409] },
+  {
+    method: "PUT",
+    path: "/api/photos/:regionPhotoId/regions",
+    permission: "regions.edit",
+    body: () => ({ baseVersion: 0, regions: { regions: [{ id: "route-1", defect: "scratch", shape: { kind: "rect", x: 10, y: 10, width: 20, height: 10 } }], surfaces: [], ruler: null } }),
+    allowedStatus: [200, 409],
+  },
   { method: "POST", path: "/api/photos/:regionPhotoId/suggestions", permission: "regions.edit", body: () => ({ kind: "surface" }), allowedStatus: 200 },
   // Learned ghosts and the record of decisions (tests/support/suggestion-access.ts): only where the caller may mark now,
   // so a caller meeting the lease the region save above gave its first caller gets 409, as that save does.
@@ -108,11 +138,40 @@ export const ROUTES: RouteRow[] = [
   },
   // Part types, lots, units and checklists (tests/support/lot-access.ts).
   { method: "GET", path: "/api/part-types", permission: "part-types.read", allowedStatus: 200 },
-  { method: "POST", path: "/api/part-types", permission: "part-types.edit", body: () => ({ name: unique("Route part"), category: "other", views: [{ key: "front", label: "Front", required: true, zones: [] }], defectClasses: [{ key: "scratch", label: "Scratch", severity: "minor" }], checklist: [] }), allowedStatus: 201 },
+  {
+    method: "POST",
+    path: "/api/part-types",
+    permission: "part-types.edit",
+    body: () => ({
+      name: unique("Route part"),
+      category: "other",
+      views: [{ key: "front", label: "Front", required: true, zones: [] }],
+      defectClasses: [{ key: "scratch", label: "Scratch", severity: "minor" }],
+      checklist: [],
+    }),
+    allowedStatus: 201,
+  },
   { method: "GET", path: "/api/part-types/:lotPartTypeId", permission: "part-types.read", allowedStatus: 200 },
   { method: "PATCH", path: "/api/part-types/:editPartTypeId", permission: "part-types.edit", body: () => ({ modelFamily: unique("Korvo") }), allowedStatus: 200 },
   { method: "GET", path: "/api/lots", permission: "lots.read", allowedStatus: 200 },
-  { method: "POST", path: "/api/lots", permission: "lots.manage", body: (ids) => ({ supplierId: ids.supplierId, partTypeId: ids.lotPartTypeId, purchaseRef: unique("PO-ROUTE"), quantity: 40, receivedOn: "2026-11-20", dueOn: "2026-11-25", inspectionLevel: "II", aqlCritical: null, aqlMajor: 1.0, aqlMinor: 2.5 }), allowedStatus: 201 },
+  {
+    method: "POST",
+    path: "/api/lots",
+    permission: "lots.manage",
+    body: (ids) => ({
+      supplierId: ids.supplierId,
+      partTypeId: ids.lotPartTypeId,
+      purchaseRef: unique("PO-ROUTE"),
+      quantity: 40,
+      receivedOn: "2026-11-20",
+      dueOn: "2026-11-25",
+      inspectionLevel: "II",
+      aqlCritical: null,
+      aqlMajor: 1.0,
+      aqlMinor: 2.5,
+    }),
+    allowedStatus: 201,
+  },
   { method: "GET", path: "/api/lots/:lotId", permission: "lots.read", allowedStatus: 200 },
   { method: "GET", path: "/api/lots/:lotId/units", permission: "lots.read", allowedStatus: 200 },
   // Reports (issue 17): the lot report PDF and the CSV exports (a filter naming another workspace's supplier is a 404).
@@ -120,9 +179,21 @@ export const ROUTES: RouteRow[] = [
   { method: "GET", path: "/api/reports/export?kind=defects&supplierId=:supplierId", permission: "reports.read", allowedStatus: 200 },
   { method: "POST", path: "/api/lots/:emptyLotId/units", permission: "lots.manage", body: () => ({ source: "placeholders" }), allowedStatus: 201 },
   // The fixture battery lot has a swollen cell (critical, Re 1): rejected, so it may be returned.
-  { method: "POST", path: "/api/lots/:decidableLotId/disposition", permission: "lots.decide", body: () => ({ disposition: "return_to_vendor", reason: "Route check: swollen cell." }), allowedStatus: 200 },
+  {
+    method: "POST",
+    path: "/api/lots/:decidableLotId/disposition",
+    permission: "lots.decide",
+    body: () => ({ disposition: "return_to_vendor", reason: "Route check: swollen cell." }),
+    allowedStatus: 200,
+  },
   { method: "GET", path: "/api/inspection-schemes?supplierId=:supplierId&partTypeId=:lotPartTypeId", permission: "lots.read", allowedStatus: 200 },
-  { method: "PUT", path: "/api/inspection-schemes", permission: "lots.manage", body: (ids) => ({ supplierId: ids.supplierId, partTypeId: ids.lotPartTypeId, steadyProduction: true }), allowedStatus: 200 },
+  {
+    method: "PUT",
+    path: "/api/inspection-schemes",
+    permission: "lots.manage",
+    body: (ids) => ({ supplierId: ids.supplierId, partTypeId: ids.lotPartTypeId, steadyProduction: true }),
+    allowedStatus: 200,
+  },
   { method: "GET", path: "/api/units/:benchUnitId", permission: "inspection.read", allowedStatus: 200 },
   { method: "PATCH", path: "/api/units/:serialUnitId", permission: "units.record", body: () => ({ serial: unique("SN-ROUTE") }), allowedStatus: 200 },
   // The inspector's first result takes the queued unit onto their bench; the lead may still correct it.
@@ -143,19 +214,37 @@ export const ROUTES: RouteRow[] = [
   { method: "GET", path: "/api/gallery/:galleryItemId/measurement", permission: "gallery.read", allowedStatus: 200 },
   { method: "GET", path: "/api/gallery/reference?partType=:galleryPartTypeId&view=lens", permission: "gallery.read", allowedStatus: 200 },
   // An intent stores nothing until the browser uploads and finalises.
-  { method: "POST", path: "/api/gallery/uploads", permission: "gallery.edit", body: (ids) => ({ partTypeId: ids.galleryPartTypeId, viewKey: "lens", kind: "normal", grade: "A", fileName: "route-check.jpg", contentType: "image/jpeg", bytes: 1000 }), allowedStatus: 201 },
+  {
+    method: "POST",
+    path: "/api/gallery/uploads",
+    permission: "gallery.edit",
+    body: (ids) => ({ partTypeId: ids.galleryPartTypeId, viewKey: "lens", kind: "normal", grade: "A", fileName: "route-check.jpg", contentType: "image/jpeg", bytes: 1000 }),
+    allowedStatus: 201,
+  },
   // A well-formed but forged ticket: the handler itself answers 400 (real finalising is in gallery-uploads.test.ts).
   { method: "POST", path: "/api/gallery/photos", permission: "gallery.edit", body: () => ({ ticket: `${"e30".repeat(8)}.${"x".repeat(43)}` }), allowedStatus: 400 },
   // Recheck (issue 19). The grading fixture unit is graded: the first allowed caller sends it (201), later ones find it sent (409).
   { method: "POST", path: "/api/rechecks", permission: "recheck.perform", body: (ids) => ({ unitId: ids.unitId }), allowedStatus: [201, 409] },
   { method: "GET", path: "/api/workspace/recheck-settings", permission: "workspace.read", allowedStatus: 200 },
   // The defaults again, so other tests draw as usual.
-  { method: "PUT", path: "/api/workspace/recheck-settings", permission: "workspace.manage", body: () => ({ rate: 0.05, raisedRate: 0.2, minimumPerGrader: 1, iouThreshold: 0.5, meaningfulShare: 0.0005, meaningfulPx: 100, driftAgreement: 0.8, driftWeeks: 4, driftMinRechecks: 5 }), allowedStatus: 200 },
+  {
+    method: "PUT",
+    path: "/api/workspace/recheck-settings",
+    permission: "workspace.manage",
+    body: () => ({ rate: 0.05, raisedRate: 0.2, minimumPerGrader: 1, iouThreshold: 0.5, meaningfulShare: 0.0005, meaningfulPx: 100, driftAgreement: 0.8, driftWeeks: 4, driftMinRechecks: 5 }),
+    allowedStatus: 200,
+  },
   // The recheck fixture (tests/support/recheck-access.ts) waits, held by nobody: work on it is 409 for anyone allowed.
   { method: "GET", path: "/api/rechecks/:recheckId", permission: "recheck.perform", allowedStatus: 409 },
   { method: "PUT", path: "/api/rechecks/:recheckId/lease", permission: "recheck.perform", allowedStatus: 409 },
   { method: "DELETE", path: "/api/rechecks/:recheckId/lease", permission: "recheck.perform", allowedStatus: 409 },
-  { method: "PUT", path: "/api/rechecks/:recheckId/regions", permission: "recheck.perform", body: (ids) => ({ photoId: ids.recheckPhotoId, baseVersion: 0, regions: { regions: [], surfaces: [], ruler: null } }), allowedStatus: 409 },
+  {
+    method: "PUT",
+    path: "/api/rechecks/:recheckId/regions",
+    permission: "recheck.perform",
+    body: (ids) => ({ photoId: ids.recheckPhotoId, baseVersion: 0, regions: { regions: [], surfaces: [], ruler: null } }),
+    allowedStatus: 409,
+  },
   { method: "POST", path: "/api/rechecks/:recheckId/measure", permission: "recheck.perform", allowedStatus: 409 },
   { method: "POST", path: "/api/rechecks/:recheckId/submission", permission: "recheck.perform", body: () => ({ decision: "accept", proposedGrade: "A" }), allowedStatus: 409 },
   { method: "GET", path: "/api/rechecks/adjudications", permission: "recheck.adjudicate", allowedStatus: 200 },

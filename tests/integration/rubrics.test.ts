@@ -19,7 +19,13 @@ let inspector: Session;
 let owner: { workspaceId: string; userId: string };
 
 const refusal = (e: unknown) => String((e as { cause?: { message?: string } }).cause?.message ?? e);
-const dbError = (query: ReturnType<typeof sql>) => db().execute(query).then(() => "no error", (e) => refusal(e));
+const dbError = (query: ReturnType<typeof sql>) =>
+  db()
+    .execute(query)
+    .then(
+      () => "no error",
+      (e) => refusal(e),
+    );
 
 beforeAll(async () => {
   lead = await signIn("lead@vellmoor.example");
@@ -61,7 +67,10 @@ describe("rubric drafts and publishing", () => {
     expect(published.body).toEqual({ version: 2 });
 
     const list = await api<Versions>(inspector, "GET", base);
-    expect(list.body.versions.map((v) => [v.version, v.status])).toEqual([[2, "published"], [1, "published"]]);
+    expect(list.body.versions.map((v) => [v.version, v.status])).toEqual([
+      [2, "published"],
+      [1, "published"],
+    ]);
     expect(list.body.versions[0].rubric.rules.find((r) => r.id === "lens-scratch-c")?.threshold).toBe(2);
 
     // No draft any more: saving answers 409 and the published v2 is untouched.
@@ -85,7 +94,10 @@ describe("rubric drafts and publishing", () => {
     const before = (await api<{ draft: { rubric: unknown; updatedAt: string } }>(trainer, "GET", `${base}/draft`)).body.draft;
     const bad: [unknown, RegExp][] = [
       [{ rules: [{ id: "neg", metric: "count", defect: "scratch", comparison: ">", threshold: -1, grade: "B" }] }, /Rule 1 \("neg"\), threshold: cannot be negative/],
-      [{ rules: [{ id: "sw", metric: "count", defect: "swelling", comparison: ">", threshold: 0, grade: "Reject" }] }, /Rule 1 \("sw"\), defect: defect class "swelling" is not one of this part type's defect classes \(allowed: scratch, dent, crack\)/],
+      [
+        { rules: [{ id: "sw", metric: "count", defect: "swelling", comparison: ">", threshold: 0, grade: "Reject" }] },
+        /Rule 1 \("sw"\), defect: defect class "swelling" is not one of this part type's defect classes \(allowed: scratch, dent, crack\)/,
+      ],
       [{ rules: [{ id: "a", metric: "count", defect: "dent", comparison: ">", threshold: 0, grade: "A" }] }, /grade: cannot be A/],
       [{ rules: [{ id: "z", metric: "count", defect: "dent", zone: "lens-window", comparison: ">", threshold: 0, grade: "B" }] }, /unknown field "zone" for a count rule/],
       [{ rules: "all of them" }, /rules: must be a list of rules/],
@@ -171,19 +183,32 @@ describe("the database keeps published versions immutable", () => {
   it("refuses UPDATE and DELETE of a published row, allows them on a draft", async () => {
     const partType = await partTypeWithV1();
     await insertRubricVersion({ workspaceId: owner.workspaceId, partTypeId: partType.id, version: 2, status: "draft" });
-    expect(await dbError(sql`UPDATE rubric_versions SET rubric = '{"rules":[]}'::jsonb WHERE part_type_id = ${partType.id} AND version = 1`)).toMatch(/version 1 is published and immutable \(UPDATE refused\)/);
+    expect(await dbError(sql`UPDATE rubric_versions SET rubric = '{"rules":[]}'::jsonb WHERE part_type_id = ${partType.id} AND version = 1`)).toMatch(
+      /version 1 is published and immutable \(UPDATE refused\)/,
+    );
     expect(await dbError(sql`DELETE FROM rubric_versions WHERE part_type_id = ${partType.id} AND version = 1`)).toMatch(/version 1 is published and immutable \(DELETE refused\)/);
     expect(await dbError(sql`UPDATE rubric_versions SET rubric = '{"rules":[]}'::jsonb WHERE part_type_id = ${partType.id} AND version = 2`)).toBe("no error");
     expect(await dbError(sql`DELETE FROM rubric_versions WHERE part_type_id = ${partType.id} AND version = 2`)).toBe("no error");
     // TRUNCATE is the owner's alone (the app's role has no TRUNCATE right; db-role.test.ts).
-    expect(await ownerDb().execute(sql`TRUNCATE rubric_versions CASCADE`).then(() => "no error", (e) => refusal(e))).toMatch(/cannot be truncated/);
+    expect(
+      await ownerDb()
+        .execute(sql`TRUNCATE rubric_versions CASCADE`)
+        .then(
+          () => "no error",
+          (e) => refusal(e),
+        ),
+    ).toMatch(/cannot be truncated/);
   });
 
   it("allows only one draft per part type and unique version numbers", async () => {
     const partType = await partTypeWithV1();
     await insertRubricVersion({ workspaceId: owner.workspaceId, partTypeId: partType.id, version: 2, status: "draft" });
-    await expect(insertRubricVersion({ workspaceId: owner.workspaceId, partTypeId: partType.id, version: 3, status: "draft" }).catch((e) => Promise.reject(refusal(e)))).rejects.toMatch(/rubric_versions_one_draft_key/);
-    await expect(insertRubricVersion({ workspaceId: owner.workspaceId, partTypeId: partType.id, version: 1, status: "published" }).catch((e) => Promise.reject(refusal(e)))).rejects.toMatch(/rubric_versions_part_type_version_key/);
+    await expect(insertRubricVersion({ workspaceId: owner.workspaceId, partTypeId: partType.id, version: 3, status: "draft" }).catch((e) => Promise.reject(refusal(e)))).rejects.toMatch(
+      /rubric_versions_one_draft_key/,
+    );
+    await expect(insertRubricVersion({ workspaceId: owner.workspaceId, partTypeId: partType.id, version: 1, status: "published" }).catch((e) => Promise.reject(refusal(e)))).rejects.toMatch(
+      /rubric_versions_part_type_version_key/,
+    );
   });
 });
 
@@ -205,7 +230,10 @@ describe("preview", () => {
     expect(res.body.result.grade).toBe("B");
     expect(res.body.result.lines.map((l) => l.text)).toEqual(["scratch covers 1.2 % of lens window > 0.5 % allowed for A → B"]);
     expect(await count()).toBe(before);
-    const bad = await api<ErrorBody>(trainer, "POST", `/api/part-types/${partType.id}/rubrics/preview`, { rubric: { rules: v2Rules }, photos: [{ ...photo, byDefect: { scratch: { ...photo.byDefect.scratch, share: 2 } } }] });
+    const bad = await api<ErrorBody>(trainer, "POST", `/api/part-types/${partType.id}/rubrics/preview`, {
+      rubric: { rules: v2Rules },
+      photos: [{ ...photo, byDefect: { scratch: { ...photo.byDefect.scratch, share: 2 } } }],
+    });
     expect(bad.status).toBe(400);
     expect(bad.body.error.message).toMatch(/Invalid photo measurement 1/);
   });

@@ -12,7 +12,15 @@ import { photos } from "@/db/schema";
 import { createPartType, createPhoto, createUnit, FIXTURE_SURFACE, saveRegions, scratchBox, workspaceIdOf } from "../support/grading";
 import { api, signIn, type Session } from "../support/http";
 
-type Sample = { id: string; unitLabel: string; width: number; height: number; preview: { width: number; height: number } | null; surfaces: { id: string; shape: unknown }[]; urls: { preview: string } };
+type Sample = {
+  id: string;
+  unitLabel: string;
+  width: number;
+  height: number;
+  preview: { width: number; height: number } | null;
+  surfaces: { id: string; shape: unknown }[];
+  urls: { preview: string };
+};
 type ErrorBody = { error: { code: string; message: string } };
 
 let lead: Session;

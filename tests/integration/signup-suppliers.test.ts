@@ -80,7 +80,13 @@ describe("suppliers", () => {
   it("bad input → 400 and nothing stored", async () => {
     const lead = await signIn("lead@vellmoor.example");
     const before = await count("suppliers");
-    for (const body of [{}, { name: "X" }, { name: "Fine Name", contactEmail: "nope" }, { name: "Fine Name", contactEmail: "a@b.example", notes: "n".repeat(3000) }, { name: "Fine Name", contactEmail: "a@b.example", workspaceId: "x" }]) {
+    for (const body of [
+      {},
+      { name: "X" },
+      { name: "Fine Name", contactEmail: "nope" },
+      { name: "Fine Name", contactEmail: "a@b.example", notes: "n".repeat(3000) },
+      { name: "Fine Name", contactEmail: "a@b.example", workspaceId: "x" },
+    ]) {
       const res = await api(lead, "POST", "/api/suppliers", body);
       expect(res.status, JSON.stringify(body)).toBe(400);
     }
@@ -95,7 +101,15 @@ describe("activity log", () => {
     // drizzle wraps the PostgreSQL error; the trigger's message is on the cause.
     const refusal = (e: unknown) => String((e as { cause?: { message?: string } }).cause?.message);
     // As the tables' owner (the app's own role may not even try: db-role.test.ts).
-    await expect(ownerDb().execute(sql`UPDATE activity_log SET action = 'tampered'`).catch((e) => Promise.reject(refusal(e)))).rejects.toMatch(/append-only \(UPDATE refused\)/);
-    await expect(ownerDb().execute(sql`DELETE FROM activity_log`).catch((e) => Promise.reject(refusal(e)))).rejects.toMatch(/append-only \(DELETE refused\)/);
+    await expect(
+      ownerDb()
+        .execute(sql`UPDATE activity_log SET action = 'tampered'`)
+        .catch((e) => Promise.reject(refusal(e))),
+    ).rejects.toMatch(/append-only \(UPDATE refused\)/);
+    await expect(
+      ownerDb()
+        .execute(sql`DELETE FROM activity_log`)
+        .catch((e) => Promise.reject(refusal(e))),
+    ).rejects.toMatch(/append-only \(DELETE refused\)/);
   });
 });

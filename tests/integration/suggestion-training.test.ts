@@ -15,7 +15,16 @@ import { createUser, createWorkspace, TEST_PASSWORD } from "../support/db";
 import { api, signIn, type Session } from "../support/http";
 import { createPlantedPhotos, type PlantedPhoto } from "../support/suggestion-training";
 
-type Model = { id: string; version: number; inUse: boolean; classCounts: Record<string, { regions: number; photos: number }>; sources: { unitPhotos: number; testPhotos: number; acceptedRegions: number }; evaluation: { photos: number; byClass: Record<string, { recall: number; precision: number; accepted: number }> }; suggestable: { defect: string; suggest: boolean; reason: string }[]; decision: string };
+type Model = {
+  id: string;
+  version: number;
+  inUse: boolean;
+  classCounts: Record<string, { regions: number; photos: number }>;
+  sources: { unitPhotos: number; testPhotos: number; acceptedRegions: number };
+  evaluation: { photos: number; byClass: Record<string, { recall: number; precision: number; accepted: number }> };
+  suggestable: { defect: string; suggest: boolean; reason: string }[];
+  decision: string;
+};
 
 let ownerA: { workspaceId: string; userId: string };
 let trainerA: Session;
@@ -28,7 +37,11 @@ async function trainAndWait(session: Session): Promise<{ trained: boolean; versi
   expect(queued.body.jobId).toBeTruthy();
   const deadline = Date.now() + 280_000;
   while (Date.now() < deadline) {
-    const job = await api<{ state: string; outcome: { trained: boolean; version?: number; inUse?: boolean; reason?: string } | null }>(session, "GET", `/api/suggestion-models/jobs/${queued.body.jobId}`);
+    const job = await api<{ state: string; outcome: { trained: boolean; version?: number; inUse?: boolean; reason?: string } | null }>(
+      session,
+      "GET",
+      `/api/suggestion-models/jobs/${queued.body.jobId}`,
+    );
     expect(job.status).toBe(200);
     if (job.body.state === "completed") return job.body.outcome!;
     if (job.body.state === "failed") throw new Error(`training failed: ${JSON.stringify(job.body)}`);
@@ -70,7 +83,10 @@ describe("training learned suggestions in the job worker", { timeout: 600_000 },
     expect(Object.keys(model.classCounts).some((d) => d.startsWith("b-"))).toBe(false);
     expect(model.sources).toMatchObject({ unitPhotos: trainSide.length, testPhotos: 10, acceptedRegions: plantedA.reduce((n, p) => n + p.regions.length, 0) });
     expect(model.evaluation.photos).toBe(10);
-    const heldScratches = plantedA.filter((p) => p.held).flatMap((p) => p.regions).filter((r) => r.defect === "scratch").length;
+    const heldScratches = plantedA
+      .filter((p) => p.held)
+      .flatMap((p) => p.regions)
+      .filter((r) => r.defect === "scratch").length;
     expect(model.evaluation.byClass.scratch.accepted).toBe(heldScratches);
     for (const [defect, f] of Object.entries(model.evaluation.byClass)) console.log(`held-out ${defect}: recall ${f.recall}, precision ${f.precision} on ${f.accepted} regions`);
     console.log(model.suggestable.map((c) => `${c.defect}: ${c.suggest ? "suggested" : "not suggested"} (${c.reason})`).join("\n"));
@@ -84,9 +100,18 @@ describe("training learned suggestions in the job worker", { timeout: 600_000 },
     const trainIds = plantedA.filter((p) => !p.held).map((p) => p.photoId);
     await db().transaction(async (tx) => {
       const inTraining = and(eq(regions.workspaceId, ownerA.workspaceId), inArray(regions.photoId, trainIds));
-      await tx.update(regions).set({ defectClass: "swap-tmp" }).where(and(inTraining, eq(regions.defectClass, "scratch")));
-      await tx.update(regions).set({ defectClass: "scratch" }).where(and(inTraining, eq(regions.defectClass, "stain")));
-      await tx.update(regions).set({ defectClass: "stain" }).where(and(inTraining, eq(regions.defectClass, "swap-tmp")));
+      await tx
+        .update(regions)
+        .set({ defectClass: "swap-tmp" })
+        .where(and(inTraining, eq(regions.defectClass, "scratch")));
+      await tx
+        .update(regions)
+        .set({ defectClass: "scratch" })
+        .where(and(inTraining, eq(regions.defectClass, "stain")));
+      await tx
+        .update(regions)
+        .set({ defectClass: "stain" })
+        .where(and(inTraining, eq(regions.defectClass, "swap-tmp")));
     });
     const outcome = await trainAndWait(trainerA);
     expect(outcome).toMatchObject({ trained: true, version: 2, inUse: false });
@@ -94,7 +119,10 @@ describe("training learned suggestions in the job worker", { timeout: 600_000 },
     expect(v2).toMatchObject({ version: 2, inUse: false });
     expect(v2.decision).toMatch(/the model in use stays/);
     expect(v1).toMatchObject({ version: 1, inUse: true });
-    const inUse = await db().select({ version: suggestionModels.version }).from(suggestionModels).where(and(eq(suggestionModels.workspaceId, ownerA.workspaceId), eq(suggestionModels.inUse, true)));
+    const inUse = await db()
+      .select({ version: suggestionModels.version })
+      .from(suggestionModels)
+      .where(and(eq(suggestionModels.workspaceId, ownerA.workspaceId), eq(suggestionModels.inUse, true)));
     expect(inUse).toEqual([{ version: 1 }]);
   });
 

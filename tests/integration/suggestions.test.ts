@@ -37,7 +37,23 @@ async function displayUnit() {
       views: [
         { key: "front", label: "Front", required: true, zones: [] },
         // The display's active area, as the seeded display part type has it (0..1 of the Surface box).
-        { key: "screen-white", label: "White screen", required: true, zones: [{ id: "screen-active", label: "Screen active", polygon: [[0.04, 0.03], [0.96, 0.03], [0.96, 0.97], [0.04, 0.97]] }] },
+        {
+          key: "screen-white",
+          label: "White screen",
+          required: true,
+          zones: [
+            {
+              id: "screen-active",
+              label: "Screen active",
+              polygon: [
+                [0.04, 0.03],
+                [0.96, 0.03],
+                [0.96, 0.97],
+                [0.04, 0.97],
+              ],
+            },
+          ],
+        },
       ],
       defectClasses: [
         { key: "scratch", label: "Scratch", severity: "minor" },
@@ -63,8 +79,13 @@ describe("suggestions", () => {
   it("suggests the Surface found on the preview, scaled back to the original's pixels; stores nothing", async () => {
     const unit = await displayUnit();
     // 3200 × 2400 original → 2560 × 1920 preview (long edge 2560): a 1.25 scale to undo.
-    const part = await sharp({ create: { width: 1600, height: 1200, channels: 3, background: { r: 40, g: 42, b: 45 } } }).png().toBuffer();
-    const jpeg = await sharp({ create: { width: 3200, height: 2400, channels: 3, background: { r: 222, g: 220, b: 214 } } }).composite([{ input: part, left: 800, top: 600 }]).jpeg({ quality: 90 }).toBuffer();
+    const part = await sharp({ create: { width: 1600, height: 1200, channels: 3, background: { r: 40, g: 42, b: 45 } } })
+      .png()
+      .toBuffer();
+    const jpeg = await sharp({ create: { width: 3200, height: 2400, channels: 3, background: { r: 222, g: 220, b: 214 } } })
+      .composite([{ input: part, left: 800, top: 600 }])
+      .jpeg({ quality: 90 })
+      .toBuffer();
     const photo = await upload(unit.id, jpeg, "front");
     expect(photo.preview).toEqual({ width: 2560, height: 1920 });
 
@@ -76,7 +97,13 @@ describe("suggestions", () => {
     const xs = ghost.shape.kind === "polygon" ? ghost.shape.points.map((p) => p[0]) : [];
     const ys = ghost.shape.kind === "polygon" ? ghost.shape.points.map((p) => p[1]) : [];
     // The part spans x 800–2400, y 600–1800 of the original; one working-copy pixel is 5 px here.
-    for (const [got, want] of [[Math.min(...xs), 800], [Math.max(...xs), 2400], [Math.min(...ys), 600], [Math.max(...ys), 1800]]) expect(Math.abs(got - want)).toBeLessThanOrEqual(12);
+    for (const [got, want] of [
+      [Math.min(...xs), 800],
+      [Math.max(...xs), 2400],
+      [Math.min(...ys), 600],
+      [Math.max(...ys), 1800],
+    ])
+      expect(Math.abs(got - want)).toBeLessThanOrEqual(12);
     expect(ghost.label).toMatch(/Suggested Surface \(high confidence\)/);
     const [set] = await db().select().from(regionSets).where(eq(regionSets.photoId, photo.id));
     expect(set).toBeUndefined();
@@ -114,14 +141,27 @@ describe("suggestions", () => {
     speck(20, 20, 255); // the photo's corner
     speck(108, 400, 255); // the body, outside the panel
     speck(148, 400, 255); // inside the zone, 8 px from its edge: in the band
-    const jpeg = await sharp(raw, { raw: { width: w, height: h, channels: 3 } }).jpeg({ quality: 95, chromaSubsampling: "4:4:4" }).toBuffer();
+    const jpeg = await sharp(raw, { raw: { width: w, height: h, channels: 3 } })
+      .jpeg({ quality: 95, chromaSubsampling: "4:4:4" })
+      .toBuffer();
     const screen = await upload(unit.id, jpeg, "screen-white");
 
     const noSurface = await suggest(screen.id, { kind: "pixel-candidates" });
     expect(noSurface.status).toBe(409);
     expect(noSurface.body.error?.message).toMatch(/no Surface yet/);
 
-    const surface = { id: "surface-1", shape: { kind: "polygon", points: [[100, 80], [1100, 80], [1100, 820], [100, 820]] } };
+    const surface = {
+      id: "surface-1",
+      shape: {
+        kind: "polygon",
+        points: [
+          [100, 80],
+          [1100, 80],
+          [1100, 820],
+          [100, 820],
+        ],
+      },
+    };
     const saved = await api(inspector, "PUT", `/api/photos/${screen.id}/regions`, { baseVersion: 0, regions: { surfaces: [surface], regions: [], ruler: null } });
     expect(saved.status, JSON.stringify(saved.body)).toBe(200);
     const res = await suggest(screen.id, { kind: "pixel-candidates" });
@@ -137,7 +177,9 @@ describe("suggestions", () => {
 
   it("looks for pixel faults only on screen views, and refuses unknown kinds and fields", async () => {
     const unit = await displayUnit();
-    const jpeg = await sharp({ create: { width: 80, height: 60, channels: 3, background: { r: 10, g: 200, b: crypto.randomInt(255) } } }).jpeg().toBuffer();
+    const jpeg = await sharp({ create: { width: 80, height: 60, channels: 3, background: { r: 10, g: 200, b: crypto.randomInt(255) } } })
+      .jpeg()
+      .toBuffer();
     const front = await upload(unit.id, jpeg, "front");
     const notScreen = await suggest(front.id, { kind: "pixel-candidates" });
     expect(notScreen.status).toBe(409);

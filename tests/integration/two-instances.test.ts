@@ -78,7 +78,11 @@ async function signInOn(server: Instance, email: string, password: string, heade
 }
 
 const call = (server: Instance, jar: Jar, method: string, path: string, body?: unknown) =>
-  fetch(`${server.url}${path}`, { method, headers: { cookie: cookieHeader(jar), ...(body === undefined ? {} : { "content-type": "application/json" }) }, body: body === undefined ? undefined : JSON.stringify(body) });
+  fetch(`${server.url}${path}`, {
+    method,
+    headers: { cookie: cookieHeader(jar), ...(body === undefined ? {} : { "content-type": "application/json" }) },
+    body: body === undefined ? undefined : JSON.stringify(body),
+  });
 
 describe("two web servers and two workers on one database and one store", () => {
   it("a session made on one server is valid on the other", async () => {

@@ -13,11 +13,26 @@ export function uniqueEmail(prefix: string) {
 }
 
 export async function createWorkspace(name = `Test Works ${crypto.randomBytes(3).toString("hex")}`) {
-  const [row] = await db().insert(workspaces).values({ name, slug: `test-${crypto.randomBytes(5).toString("hex")}` }).returning();
+  const [row] = await db()
+    .insert(workspaces)
+    .values({ name, slug: `test-${crypto.randomBytes(5).toString("hex")}` })
+    .returning();
   return row;
 }
 
-export async function createUser({ workspaceId, roles, email = uniqueEmail(roles.join("-")), password = TEST_PASSWORD, active = true }: { workspaceId: string; roles: Role[]; email?: string; password?: string | null; active?: boolean }) {
+export async function createUser({
+  workspaceId,
+  roles,
+  email = uniqueEmail(roles.join("-")),
+  password = TEST_PASSWORD,
+  active = true,
+}: {
+  workspaceId: string;
+  roles: Role[];
+  email?: string;
+  password?: string | null;
+  active?: boolean;
+}) {
   const [row] = await db()
     .insert(users)
     .values({ workspaceId, email, name: `Test ${roles.join("/")}`, roles, active, passwordHash: password ? await hashPassword(password) : null })

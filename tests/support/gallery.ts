@@ -30,7 +30,20 @@ export async function createGradedPhoto(lead: Session, { extraPhotos = 0 } = {})
 export const EMPTY_REGIONS: RegionSetPayload = { regions: [], surfaces: [], ruler: null };
 export const SCRATCHED: RegionSetPayload = {
   regions: [{ id: "s1", defect: "scratch", shape: { kind: "rect", x: 60, y: 60, width: 12, height: 10 } }],
-  surfaces: [{ id: "surface-1", shape: { kind: "polygon", points: [[50, 50], [250, 50], [250, 150], [50, 150]] } }],
+  surfaces: [
+    {
+      id: "surface-1",
+      shape: {
+        kind: "polygon",
+        points: [
+          [50, 50],
+          [250, 50],
+          [250, 150],
+          [50, 150],
+        ],
+      },
+    },
+  ],
   ruler: null,
 };
 

@@ -7,17 +7,50 @@ import crypto from "node:crypto";
 import { eq, sql } from "drizzle-orm";
 import { db } from "@/db/client";
 import { lots, partTypes, photos, regions, regionSets, rubricVersions, suppliers, units, users } from "@/db/schema";
-import type { DefectClassDefinition, StoredSamplingPlan, ViewDefinition } from "@/db/schema/lots";
+import type { StoredSamplingPlan } from "@/db/schema/lots";
 import type { Shape } from "@/lib/geometry/shape";
 import type { RulerMark } from "@/lib/geometry/ruler";
 import type { Rubric } from "@/lib/grading/rubric-schema";
+import type { DefectClassDefinition, ViewDefinition } from "@/lib/part-types/schemas";
 
 const hex = (n: number) => crypto.randomBytes(n).toString("hex");
 
 /** A lens-style part: view "lens" whose zone "lens-window" is the left half of the Surface box. */
 export const FIXTURE_VIEWS: ViewDefinition[] = [
-  { key: "lens", label: "Lens", required: true, zones: [{ id: "lens-window", label: "lens window", polygon: [[0, 0], [0.5, 0], [0.5, 1], [0, 1]] }] },
-  { key: "back", label: "Back", required: false, zones: [{ id: "body", label: "body", polygon: [[0, 0], [1, 0], [1, 1], [0, 1]] }] },
+  {
+    key: "lens",
+    label: "Lens",
+    required: true,
+    zones: [
+      {
+        id: "lens-window",
+        label: "lens window",
+        polygon: [
+          [0, 0],
+          [0.5, 0],
+          [0.5, 1],
+          [0, 1],
+        ],
+      },
+    ],
+  },
+  {
+    key: "back",
+    label: "Back",
+    required: false,
+    zones: [
+      {
+        id: "body",
+        label: "body",
+        polygon: [
+          [0, 0],
+          [1, 0],
+          [1, 1],
+          [0, 1],
+        ],
+      },
+    ],
+  },
 ];
 export const FIXTURE_DEFECTS: DefectClassDefinition[] = [
   { key: "scratch", label: "scratch", severity: "major" },
@@ -84,7 +117,10 @@ const PLAN: StoredSamplingPlan = {
 
 /** A lot of the part type with one unit on the bench; returns the unit. */
 export async function createUnit(input: { workspaceId: string; partTypeId: string; createdBy: string }) {
-  const [supplier] = await db().insert(suppliers).values({ workspaceId: input.workspaceId, name: `Fixture Supplier ${hex(4)}`, contactEmail: "fixture@supplier.example" }).returning();
+  const [supplier] = await db()
+    .insert(suppliers)
+    .values({ workspaceId: input.workspaceId, name: `Fixture Supplier ${hex(4)}`, contactEmail: "fixture@supplier.example" })
+    .returning();
   const [lot] = await db()
     .insert(lots)
     .values({
@@ -105,7 +141,18 @@ export async function createUnit(input: { workspaceId: string; partTypeId: strin
     .returning();
   const [unit] = await db()
     .insert(units)
-    .values({ workspaceId: input.workspaceId, lotId: lot.id, sampleIndex: 1, serial: `SN-${hex(4)}`, status: "on_bench", partTypeId: input.partTypeId, supplierId: supplier.id, lotDueOn: lot.dueOn, lotReceivedOn: lot.receivedOn, lotCreatedAt: lot.createdAt })
+    .values({
+      workspaceId: input.workspaceId,
+      lotId: lot.id,
+      sampleIndex: 1,
+      serial: `SN-${hex(4)}`,
+      status: "on_bench",
+      partTypeId: input.partTypeId,
+      supplierId: supplier.id,
+      lotDueOn: lot.dueOn,
+      lotReceivedOn: lot.receivedOn,
+      lotCreatedAt: lot.createdAt,
+    })
     .returning();
   return unit;
 }
@@ -139,9 +186,7 @@ export async function createPhoto(input: { workspaceId: string; unitId: string; 
 }
 
 export type FixtureRegion =
-  | { clientId: string; role: "defect"; defect: string; shape: Shape }
-  | { clientId: string; role: "surface"; shape: Shape }
-  | { clientId: string; role: "ruler"; ruler: RulerMark };
+  { clientId: string; role: "defect"; defect: string; shape: Shape } | { clientId: string; role: "surface"; shape: Shape } | { clientId: string; role: "ruler"; ruler: RulerMark };
 
 /** Saves a photo's whole region set as the Bench would: version + 1, rows replaced. */
 export async function saveRegions(input: { workspaceId: string; photoId: string; authorId: string; regions: FixtureRegion[] }) {
@@ -172,9 +217,26 @@ export async function saveRegions(input: { workspaceId: string; photoId: string;
 }
 
 /** The Surface used throughout: 200 × 100 px at (50, 50) (20 × 10 mm nominal → 10 px/mm). */
-export const FIXTURE_SURFACE: FixtureRegion = { clientId: "surface-1", role: "surface", shape: { kind: "polygon", points: [[50, 50], [250, 50], [250, 150], [50, 150]] } };
+export const FIXTURE_SURFACE: FixtureRegion = {
+  clientId: "surface-1",
+  role: "surface",
+  shape: {
+    kind: "polygon",
+    points: [
+      [50, 50],
+      [250, 50],
+      [250, 150],
+      [50, 150],
+    ],
+  },
+};
 /** A scratch box of w × h px inside the lens window (the Surface's left half, 10 000 px). */
-export const scratchBox = (w: number, h: number, clientId = "scratch-1"): FixtureRegion => ({ clientId, role: "defect", defect: "scratch", shape: { kind: "rect", x: 60, y: 60, width: w, height: h } });
+export const scratchBox = (w: number, h: number, clientId = "scratch-1"): FixtureRegion => ({
+  clientId,
+  role: "defect",
+  defect: "scratch",
+  shape: { kind: "rect", x: 60, y: 60, width: w, height: h },
+});
 
 /** A graded-unit scene: part type with published v1 (and optionally a draft), one photo with regions. */
 export async function createMeasurableUnit(owner: { workspaceId: string; userId: string }, options: { regions?: FixtureRegion[]; draft?: boolean } = {}) {

@@ -71,12 +71,21 @@ export async function startWebServer(name: string, port: number, env: Record<str
   if (!distDir) throw new Error("TEST_DIST_DIR is not set; run the integration tests through `npm run test:integration`.");
   const url = `http://127.0.0.1:${port}`;
   // A server left over on the port would answer the health check in this one's place.
-  if (await fetch(`${url}/api/health`).then(() => true, () => false)) throw new Error(`Something already answers on ${url}; stop it before running this test.`);
+  if (
+    await fetch(`${url}/api/health`).then(
+      () => true,
+      () => false,
+    )
+  )
+    throw new Error(`Something already answers on ${url}; stop it before running this test.`);
   const { child, log } = launch(name, ["--import", "tsx", "scripts/serve.ts"], { PORT: String(port), HOST: "127.0.0.1", NEXT_DIST_DIR: distDir, APP_URL: url, NEXTAUTH_URL: url, ...env });
   const deadline = Date.now() + 120_000;
   for (;;) {
     if (child.exitCode !== null) throw new Error(`${name} exited (${child.exitCode}): ${fs.readFileSync(log, "utf8").slice(-2000)}`);
-    const ok = await fetch(`${url}/api/health`).then((r) => r.ok, () => false);
+    const ok = await fetch(`${url}/api/health`).then(
+      (r) => r.ok,
+      () => false,
+    );
     if (ok) break;
     if (Date.now() > deadline) throw new Error(`${name} did not answer on ${url} within 120 s`);
     await new Promise((r) => setTimeout(r, 250));

@@ -11,7 +11,18 @@ async function must<T>(result: Promise<{ status: number; body: T }>, status: num
 }
 
 export function lotBody(ids: { supplierId: string; partTypeId: string }, quantity = 50) {
-  return { supplierId: ids.supplierId, partTypeId: ids.partTypeId, purchaseRef: `PO-FX-${tag()}`, quantity, receivedOn: "2026-11-20", dueOn: "2026-11-27", inspectionLevel: "II", aqlCritical: null, aqlMajor: 1.0, aqlMinor: 2.5 };
+  return {
+    supplierId: ids.supplierId,
+    partTypeId: ids.partTypeId,
+    purchaseRef: `PO-FX-${tag()}`,
+    quantity,
+    receivedOn: "2026-11-20",
+    dueOn: "2026-11-27",
+    inspectionLevel: "II",
+    aqlCritical: null,
+    aqlMajor: 1.0,
+    aqlMinor: 2.5,
+  };
 }
 
 /** Seeded part types (by slug) of the caller's workspace. */

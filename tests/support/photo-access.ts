@@ -10,12 +10,16 @@ export async function photoFixtureIds(lead: Session): Promise<Record<string, str
   const me = await api<{ user: { workspaceId: string } }>(lead, "GET", "/api/me");
   const { unitIds } = await createPhotoUnits({ id: me.body.user.workspaceId });
   // Unique pixels per workspace, so the two fixture photos never look like one reused file.
-  const jpeg = await sharp({ create: { width: 64, height: 48, channels: 3, background: { r: Math.floor(Math.random() * 255), g: 90, b: 40 } } }).jpeg().toBuffer();
+  const jpeg = await sharp({ create: { width: 64, height: 48, channels: 3, background: { r: Math.floor(Math.random() * 255), g: 90, b: 40 } } })
+    .jpeg()
+    .toBuffer();
   const { finalise } = await uploadPhoto(lead, unitIds[0], jpeg);
   if (finalise?.status !== 201) throw new Error(`Fixture photo upload failed: ${JSON.stringify(finalise?.body)}`);
   // A second unit whose photo has saved regions (the lead saved them, so the lead holds the unit): removal withdraws it.
   const second = await createPhotoUnits({ id: me.body.user.workspaceId });
-  const other = await sharp({ create: { width: 64, height: 48, channels: 3, background: { r: 40, g: Math.floor(Math.random() * 255), b: 90 } } }).jpeg().toBuffer();
+  const other = await sharp({ create: { width: 64, height: 48, channels: 3, background: { r: 40, g: Math.floor(Math.random() * 255), b: 90 } } })
+    .jpeg()
+    .toBuffer();
   const removable = await uploadPhoto(lead, second.unitIds[0], other);
   if (removable.finalise?.status !== 201) throw new Error(`Fixture photo upload failed: ${JSON.stringify(removable.finalise?.body)}`);
   const removalPhotoId = removable.finalise.body.photo.id;

@@ -7,10 +7,11 @@
 import crypto from "node:crypto";
 import { asc, eq } from "drizzle-orm";
 import { db } from "@/db/client";
-import { lots, partTypes, photos, suppliers, units, users, workspaces, type StoredSamplingPlan, type ViewDefinition } from "@/db/schema";
+import { lots, partTypes, photos, suppliers, units, users, workspaces, type StoredSamplingPlan } from "@/db/schema";
 import { createObjectStore, listObjects } from "@/lib/storage/s3";
 import { serviceControl } from "./services";
 import { api, BASE_URL, type ApiResult, type Session } from "./http";
+import type { ViewDefinition } from "@/lib/part-types/schemas";
 
 export const PHOTO_VIEWS: ViewDefinition[] = [
   { key: "front", label: "Front", required: true, zones: [] },
@@ -49,16 +50,55 @@ export async function createPhotoUnits(
   const t = tag();
   const [partType] = await db()
     .insert(partTypes)
-    .values({ workspaceId: ws.id, slug: `photo-fixture-${t}`, name: `Photo fixture ${category} ${t}`, category, views, defectClasses: [{ key: "scratch", label: "Scratch", severity: "minor" }], checklist: [] })
+    .values({
+      workspaceId: ws.id,
+      slug: `photo-fixture-${t}`,
+      name: `Photo fixture ${category} ${t}`,
+      category,
+      views,
+      defectClasses: [{ key: "scratch", label: "Scratch", severity: "minor" }],
+      checklist: [],
+    })
     .returning();
-  const [supplier] = await db().insert(suppliers).values({ workspaceId: ws.id, name: `Photo fixture supplier ${t}`, contactEmail: "photos@supplier.example" }).returning();
+  const [supplier] = await db()
+    .insert(suppliers)
+    .values({ workspaceId: ws.id, name: `Photo fixture supplier ${t}`, contactEmail: "photos@supplier.example" })
+    .returning();
   const [lot] = await db()
     .insert(lots)
-    .values({ workspaceId: ws.id, supplierId: supplier.id, partTypeId: partType.id, purchaseRef: `PO-PHOTO-${t}`, quantity: count, receivedOn: "2026-11-30", dueOn: "2099-12-31", inspectionLevel: "II", aqlCritical: null, aqlMajor: 1, aqlMinor: 2.5, inspectionSeverity: "normal", plan: PLAN, createdBy: lead.id })
+    .values({
+      workspaceId: ws.id,
+      supplierId: supplier.id,
+      partTypeId: partType.id,
+      purchaseRef: `PO-PHOTO-${t}`,
+      quantity: count,
+      receivedOn: "2026-11-30",
+      dueOn: "2099-12-31",
+      inspectionLevel: "II",
+      aqlCritical: null,
+      aqlMajor: 1,
+      aqlMinor: 2.5,
+      inspectionSeverity: "normal",
+      plan: PLAN,
+      createdBy: lead.id,
+    })
     .returning();
   const rows = await db()
     .insert(units)
-    .values(Array.from({ length: count }, (_, i) => ({ workspaceId: ws.id, lotId: lot.id, sampleIndex: i + 1, serial: `PH-${t}-${i + 1}`, status, partTypeId: partType.id, supplierId: supplier.id, lotDueOn: lot.dueOn, lotReceivedOn: lot.receivedOn, lotCreatedAt: lot.createdAt })))
+    .values(
+      Array.from({ length: count }, (_, i) => ({
+        workspaceId: ws.id,
+        lotId: lot.id,
+        sampleIndex: i + 1,
+        serial: `PH-${t}-${i + 1}`,
+        status,
+        partTypeId: partType.id,
+        supplierId: supplier.id,
+        lotDueOn: lot.dueOn,
+        lotReceivedOn: lot.receivedOn,
+        lotCreatedAt: lot.createdAt,
+      })),
+    )
     .returning({ id: units.id });
   return { workspaceId: ws.id, partTypeId: partType.id, lotId: lot.id, unitIds: rows.map((r) => r.id) };
 }

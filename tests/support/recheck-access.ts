@@ -17,7 +17,18 @@ export async function recheckFixtureIds(lead: Session): Promise<Record<string, s
   const { unit, v1, photo, partType } = await createMeasurableUnit({ workspaceId, userId: grader.id });
   const [grade] = await db()
     .insert(grades)
-    .values({ workspaceId, unitId: unit.id, kind: "inspection", proposedGrade: "A", finalGrade: "A", rubricVersionId: v1.id, measurementIds: [], explanation: { lines: [], notes: [] }, regionsVersions: {}, gradedBy: grader.id })
+    .values({
+      workspaceId,
+      unitId: unit.id,
+      kind: "inspection",
+      proposedGrade: "A",
+      finalGrade: "A",
+      rubricVersionId: v1.id,
+      measurementIds: [],
+      explanation: { lines: [], notes: [] },
+      regionsVersions: {},
+      gradedBy: grader.id,
+    })
     .returning();
   const [recheck] = await db()
     .insert(rechecks)

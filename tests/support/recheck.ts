@@ -17,7 +17,13 @@ export async function recheckWorld(settings?: Record<string, unknown>): Promise<
     const user = await createUser({ workspaceId: workspace.id, roles, email: uniqueEmail(prefix) });
     return { ...(await signIn(user.email, TEST_PASSWORD)), id: user.id };
   };
-  const [lead, inspector, inspector2, auditor, auditor2] = await Promise.all([make(["lead"], "rc-lead"), make(["inspector"], "rc-insp"), make(["inspector"], "rc-insp2"), make(["auditor"], "rc-aud"), make(["auditor"], "rc-aud2")]);
+  const [lead, inspector, inspector2, auditor, auditor2] = await Promise.all([
+    make(["lead"], "rc-lead"),
+    make(["inspector"], "rc-insp"),
+    make(["inspector"], "rc-insp2"),
+    make(["auditor"], "rc-aud"),
+    make(["auditor"], "rc-aud2"),
+  ]);
   const world = { workspaceId: workspace.id, lead, inspector, inspector2, auditor, auditor2 };
   if (settings) {
     const res = await api(lead, "PUT", "/api/workspace/recheck-settings", settings);
@@ -26,7 +32,17 @@ export async function recheckWorld(settings?: Record<string, unknown>): Promise<
   return world;
 }
 
-export const RECHECK_DEFAULTS = { rate: 0.05, raisedRate: 0.2, minimumPerGrader: 1, iouThreshold: 0.5, meaningfulShare: 0.0005, meaningfulPx: 100, driftAgreement: 0.8, driftWeeks: 4, driftMinRechecks: 5 };
+export const RECHECK_DEFAULTS = {
+  rate: 0.05,
+  raisedRate: 0.2,
+  minimumPerGrader: 1,
+  iouThreshold: 0.5,
+  meaningfulShare: 0.0005,
+  meaningfulPx: 100,
+  driftAgreement: 0.8,
+  driftWeeks: 4,
+  driftMinRechecks: 5,
+};
 
 /**
  * A unit graded by `grader` through the API (measured, proposal accepted). The rows around it

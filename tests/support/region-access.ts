@@ -12,8 +12,13 @@ export async function regionFixtureIds(lead: Session): Promise<Record<string, st
   const { unitIds } = await createPhotoUnits({ id: me.body.user.workspaceId });
   // A dark part on a light card, unique per workspace (so the two fixture photos never look reused).
   const shade = 20 + Math.floor(Math.random() * 60);
-  const part = await sharp({ create: { width: 60, height: 40, channels: 3, background: { r: shade, g: shade, b: shade } } }).png().toBuffer();
-  const jpeg = await sharp({ create: { width: 120, height: 90, channels: 3, background: { r: 225, g: 222, b: 215 } } }).composite([{ input: part, left: 30, top: 25 }]).jpeg().toBuffer();
+  const part = await sharp({ create: { width: 60, height: 40, channels: 3, background: { r: shade, g: shade, b: shade } } })
+    .png()
+    .toBuffer();
+  const jpeg = await sharp({ create: { width: 120, height: 90, channels: 3, background: { r: 225, g: 222, b: 215 } } })
+    .composite([{ input: part, left: 30, top: 25 }])
+    .jpeg()
+    .toBuffer();
   const { finalise } = await uploadPhoto(lead, unitIds[0], jpeg);
   if (finalise?.status !== 201) throw new Error(`Fixture photo upload failed: ${JSON.stringify(finalise?.body)}`);
   return { regionPhotoId: finalise.body.photo.id };

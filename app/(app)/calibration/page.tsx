@@ -8,13 +8,5 @@ export const metadata: Metadata = { title: screen.label };
 
 export default async function CalibrationPage() {
   await requirePageUser({ permission: screen.permission, from: screen.href });
-  return (
-    <PlannedScreen
-      screen={screen}
-      coming={[
-        "Grade calibration sets and see your score against the key.",
-        "Trainers build sets from gallery items.",
-        ]}
-    />
-  );
+  return <PlannedScreen screen={screen} coming={["Grade calibration sets and see your score against the key.", "Trainers build sets from gallery items."]} />;
 }

@@ -30,7 +30,12 @@ export default async function GalleryPage(props: PageProps<"/gallery">) {
   const canEdit = canEditGallery(user.roles);
   const canManageSuggestions = can(user, "suggestions.manage");
   const page = await listGallery(user, { ...filters, limit: GALLERY_PAGE_DEFAULT });
-  const partTypes: FilterPartType[] = partTypeRows.map((p) => ({ id: p.id, name: p.name, views: p.views.map((v) => ({ key: v.key, label: v.label })), defectClasses: p.defectClasses.map((d) => ({ key: d.key, label: d.label })) }));
+  const partTypes: FilterPartType[] = partTypeRows.map((p) => ({
+    id: p.id,
+    name: p.name,
+    views: p.views.map((v) => ({ key: v.key, label: v.label })),
+    defectClasses: p.defectClasses.map((d) => ({ key: d.key, label: d.label })),
+  }));
   const byId = new Map(partTypes.map((p) => [p.id, p]));
   const filtered = Object.keys(filters).some((k) => k !== "cursor");
   return (
@@ -58,11 +63,19 @@ export default async function GalleryPage(props: PageProps<"/gallery">) {
         <EmptyState title={filtered ? "Nothing matches these filters" : "The gallery is empty"} testId="gallery-empty">
           {filtered ? (
             <>
-              No {canEdit ? "" : "published "}item matches. <Link href="/gallery" className="font-medium underline">Show every item</Link>.
+              No {canEdit ? "" : "published "}item matches.{" "}
+              <Link href="/gallery" className="font-medium underline">
+                Show every item
+              </Link>
+              .
             </>
           ) : canEdit ? (
             <>
-              Add examples: open a graded unit on the Bench and choose “Add to gallery” under its photo, or upload a photo (<Link href="/gallery/new" className="font-medium underline">Add an example</Link>). Write a caption that says why it has its grade, then publish it.
+              Add examples: open a graded unit on the Bench and choose “Add to gallery” under its photo, or upload a photo (
+              <Link href="/gallery/new" className="font-medium underline">
+                Add an example
+              </Link>
+              ). Write a caption that says why it has its grade, then publish it.
             </>
           ) : (
             "Trainers publish reference examples here: what a normal part looks like and what each defect looks like, with the grade it deserves."
@@ -76,7 +89,14 @@ export default async function GalleryPage(props: PageProps<"/gallery">) {
             const classLabels = Object.fromEntries(partType?.defectClasses.map((d) => [d.key, d.label]) ?? []);
             return (
               <li key={item.id}>
-                <GalleryCard item={item} viewLabel={viewLabel} classLabels={classLabels} classKeys={partType?.defectClasses.map((d) => d.key) ?? item.defectClasses} showStatus={canEdit} href={`/gallery/${item.id}`} />
+                <GalleryCard
+                  item={item}
+                  viewLabel={viewLabel}
+                  classLabels={classLabels}
+                  classKeys={partType?.defectClasses.map((d) => d.key) ?? item.defectClasses}
+                  showStatus={canEdit}
+                  href={`/gallery/${item.id}`}
+                />
               </li>
             );
           })}

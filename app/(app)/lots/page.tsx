@@ -59,7 +59,11 @@ export default async function LotsPage(props: PageProps<"/lots">) {
         )}
       </div>
       {counts.lots === 0 && (
-        <EmptyState title="No lots yet" steps={can(user, "workspace.manage") ? setupSteps(counts).filter((s) => s.key === "part-types" || s.key === "suppliers" || s.key === "lot") : []} testId="lots-empty">
+        <EmptyState
+          title="No lots yet"
+          steps={can(user, "workspace.manage") ? setupSteps(counts).filter((s) => s.key === "part-types" || s.key === "suppliers" || s.key === "lot") : []}
+          testId="lots-empty"
+        >
           {canReceive
             ? "A lot is a delivery from a supplier. Receiving it computes the ISO 2859-1 sample; its units then wait in the Queue."
             : "A QC lead receives lots from suppliers; they appear here, and their sampled units wait in the Queue."}

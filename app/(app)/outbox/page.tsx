@@ -21,19 +21,27 @@ export default async function OutboxPage() {
     <div className="max-w-5xl space-y-6">
       <div>
         <h1 className="page-title">Outbox</h1>
-        <p className="text-gauge-700">
-          Development aid: e-mails this workspace sent, as the local inbox received them. It disappears when a real mail server is configured.
-        </p>
+        <p className="text-gauge-700">Development aid: e-mails this workspace sent, as the local inbox received them. It disappears when a real mail server is configured.</p>
       </div>
       <div className="card overflow-x-auto">
         <table className="min-w-full text-sm" data-testid="outbox-table">
           <thead className="bg-gauge-50 text-left text-xs uppercase tracking-wide text-gauge-600">
             <tr>
-              <th scope="col" className="px-4 py-2">Sent</th>
-              <th scope="col" className="px-4 py-2">Kind</th>
-              <th scope="col" className="px-4 py-2">To</th>
-              <th scope="col" className="px-4 py-2">Subject</th>
-              <th scope="col" className="px-4 py-2">Status</th>
+              <th scope="col" className="px-4 py-2">
+                Sent
+              </th>
+              <th scope="col" className="px-4 py-2">
+                Kind
+              </th>
+              <th scope="col" className="px-4 py-2">
+                To
+              </th>
+              <th scope="col" className="px-4 py-2">
+                Subject
+              </th>
+              <th scope="col" className="px-4 py-2">
+                Status
+              </th>
             </tr>
           </thead>
           <tbody className="divide-y divide-gauge-100">

@@ -19,8 +19,8 @@ export default async function PeoplePage() {
       </div>
       {counts.people <= 1 && (
         <EmptyState title="Only you so far" testId="people-empty">
-          Invite your inspectors, trainers and auditors below: each receives an e-mail with a link to set a password. Check the workspace&apos;s time zone
-          first; every time in Partproof is shown in it.
+          Invite your inspectors, trainers and auditors below: each receives an e-mail with a link to set a password. Check the workspace&apos;s time zone first; every time in Partproof is shown in
+          it.
         </EmptyState>
       )}
       <WorkspaceSettingsForm timeZone={user.timeZone} />

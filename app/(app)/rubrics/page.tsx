@@ -20,7 +20,8 @@ export default async function RubricsPage(props: PageProps<"/rubrics">) {
       <div>
         <h1 className="page-title">Rubrics</h1>
         <p className="max-w-3xl text-gauge-700">
-          How each part type&rsquo;s measurements become a grade. Trainers edit a draft and try it on a sample unit; a QC lead publishes it. A published version never changes, and grades keep the version they were given under.
+          How each part type&rsquo;s measurements become a grade. Trainers edit a draft and try it on a sample unit; a QC lead publishes it. A published version never changes, and grades keep the
+          version they were given under.
         </p>
       </div>
       {partTypes.length === 0 ? (
@@ -28,15 +29,14 @@ export default async function RubricsPage(props: PageProps<"/rubrics">) {
           A rubric belongs to a part type.{" "}
           <Link href="/part-types" className="font-medium text-gauge-700 underline">
             Add part types first
-          </Link>
-          {" "}(the examples come with example rubrics to adapt).
+          </Link>{" "}
+          (the examples come with example rubrics to adapt).
         </EmptyState>
       ) : (
         partTypes.some((p) => p.publishedVersion === null) && (
           <p className="max-w-3xl rounded-md bg-signal-50 px-3 py-2 text-sm text-signal-700" data-testid="rubrics-unpublished">
-            {partTypes.filter((p) => p.publishedVersion === null).length} of {partTypes.length} part types have no published rubric: their units cannot be
-            graded, and their lots are judged on the checklist alone. Example rubrics start as drafts: adapt the thresholds to your contracts, then a QC lead
-            publishes them.
+            {partTypes.filter((p) => p.publishedVersion === null).length} of {partTypes.length} part types have no published rubric: their units cannot be graded, and their lots are judged on the
+            checklist alone. Example rubrics start as drafts: adapt the thresholds to your contracts, then a QC lead publishes them.
           </p>
         )
       )}
@@ -47,7 +47,8 @@ export default async function RubricsPage(props: PageProps<"/rubrics">) {
         canPublish={can(user, "rubrics.publish")}
       />
       <p className="max-w-3xl text-xs text-gauge-600">
-        Grades are decision aids; company policy, supplier contracts and local regulations decide. The seeded rubrics are invented examples to adapt. ISO 13406-2 pixel-fault classes are summarised; the licensed standard governs.
+        Grades are decision aids; company policy, supplier contracts and local regulations decide. The seeded rubrics are invented examples to adapt. ISO 13406-2 pixel-fault classes are summarised;
+        the licensed standard governs.
       </p>
     </div>
   );

@@ -11,7 +11,10 @@ export const POST = handler({ permission: "suggestions.manage" }, async (req, _c
   await parseJson(req, trainRequestSchema, { allowEmpty: true, maxBytes: 256 });
   const { jobId } = await enqueueSuggestionTraining({ workspaceId: user.workspaceId, requestedBy: user.id });
   return Response.json(
-    { jobId, message: jobId ? "Training in the background; the new model appears in the history when it is done." : "A training for this workspace is already waiting; it will use the latest regions." },
+    {
+      jobId,
+      message: jobId ? "Training in the background; the new model appears in the history when it is done." : "A training for this workspace is already waiting; it will use the latest regions.",
+    },
     { status: 202 },
   );
 });

@@ -20,8 +20,26 @@ import { countSpans, type SpanSet } from "@/lib/imaging/raster/spans";
 import type { WorkingImage } from "./working-image";
 
 export const CH = {
-  n: 0, l: 1, l2: 2, cr: 3, cr2: 4, cb: 5, cb2: 6, mag: 7, jxx: 8, jyy: 9, jxy: 10, strong: 11,
-  lap: 12, lap2: 13, dogPos: 14, dogNeg: 15, inside: 16, ridgeW: 17, ridgeX: 18, ridgeY: 19,
+  n: 0,
+  l: 1,
+  l2: 2,
+  cr: 3,
+  cr2: 4,
+  cb: 5,
+  cb2: 6,
+  mag: 7,
+  jxx: 8,
+  jyy: 9,
+  jxy: 10,
+  strong: 11,
+  lap: 12,
+  lap2: 13,
+  dogPos: 14,
+  dogNeg: 15,
+  inside: 16,
+  ridgeW: 17,
+  ridgeX: 18,
+  ridgeY: 19,
   /** 8 direction bins from here. */
   dir: 20,
   /** 10 LBP bins from here. */
@@ -156,9 +174,14 @@ export function buildCellGrid(image: WorkingImage, cellSize: number, surface: Sp
       const l = cropLuma[cropRow + x];
       const cr = rgb[p] - rgb[p + 1];
       const cb = (rgb[p] + rgb[p + 1]) / 2 - rgb[p + 2];
-      const ul = lumaAt(left, yUp), u = lumaAt(x, yUp), ur = lumaAt(right, yUp);
-      const le = lumaAt(left, y), ri = lumaAt(right, y);
-      const dl = lumaAt(left, yDown), d = lumaAt(x, yDown), dr = lumaAt(right, yDown);
+      const ul = lumaAt(left, yUp),
+        u = lumaAt(x, yUp),
+        ur = lumaAt(right, yUp);
+      const le = lumaAt(left, y),
+        ri = lumaAt(right, y);
+      const dl = lumaAt(left, yDown),
+        d = lumaAt(x, yDown),
+        dr = lumaAt(right, yDown);
       const gx = ur + 2 * ri + dr - ul - 2 * le - dl;
       const gy = dl + 2 * d + dr - ul - 2 * u - ur;
       // Sobel's gain is 4 on a unit step; divide so magnitudes are in luma levels per pixel.
@@ -166,9 +189,7 @@ export function buildCellGrid(image: WorkingImage, cellSize: number, surface: Sp
       const lap = u + d + le + ri - 4 * l;
       const dog = near[cropRow + x] - around[cropRow + x];
       const t = l + LBP_TOLERANCE;
-      const code =
-        (ul >= t ? 1 : 0) | (u >= t ? 2 : 0) | (ur >= t ? 4 : 0) | (ri >= t ? 8 : 0) |
-        (dr >= t ? 16 : 0) | (d >= t ? 32 : 0) | (dl >= t ? 64 : 0) | (le >= t ? 128 : 0);
+      const code = (ul >= t ? 1 : 0) | (u >= t ? 2 : 0) | (ur >= t ? 4 : 0) | (ri >= t ? 8 : 0) | (dr >= t ? 16 : 0) | (d >= t ? 32 : 0) | (dl >= t ? 64 : 0) | (le >= t ? 128 : 0);
       const ridge = dog * dog;
 
       acc[a + CH.n] += 1;
@@ -250,7 +271,10 @@ function prefixSums(acc: Float64Array, cols: number, rows: number): Float64Array
 /** Adds the sums of every channel over cells [x0, x1) × [y0, y1) (clipped to the grid) into `out`. */
 export function windowSums(grid: CellGrid, x0: number, y0: number, x1: number, y1: number, out: Float64Array): Float64Array {
   out.fill(0);
-  const ax = Math.max(0, x0), ay = Math.max(0, y0), bx = Math.min(grid.cols, x1), by = Math.min(grid.rows, y1);
+  const ax = Math.max(0, x0),
+    ay = Math.max(0, y0),
+    bx = Math.min(grid.cols, x1),
+    by = Math.min(grid.rows, y1);
   if (ax >= bx || ay >= by) return out;
   const stride = (grid.cols + 1) * CHANNELS;
   const [p11, p01, p10, p00] = [by * stride + bx * CHANNELS, ay * stride + bx * CHANNELS, by * stride + ax * CHANNELS, ay * stride + ax * CHANNELS];

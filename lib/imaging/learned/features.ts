@@ -11,14 +11,37 @@
 import { CH, CHANNELS, windowSums, type CellGrid } from "./cell-grid";
 
 export const FEATURE_NAMES = [
-  "patch.l", "patch.l-rel", "patch.l-sd", "patch.cr-rel", "patch.cb-rel", "patch.cr-sd", "patch.cb-sd",
-  "patch.gradient", "patch.coherence", "patch.strong-share", "patch.laplacian-var",
-  "patch.dog-pos", "patch.dog-neg", "patch.dog-max", "patch.dog-min",
+  "patch.l",
+  "patch.l-rel",
+  "patch.l-sd",
+  "patch.cr-rel",
+  "patch.cb-rel",
+  "patch.cr-sd",
+  "patch.cb-sd",
+  "patch.gradient",
+  "patch.coherence",
+  "patch.strong-share",
+  "patch.laplacian-var",
+  "patch.dog-pos",
+  "patch.dog-neg",
+  "patch.dog-max",
+  "patch.dog-min",
   ...Array.from({ length: 8 }, (_, k) => `patch.direction-${k}`),
   ...Array.from({ length: 10 }, (_, k) => `patch.lbp-${k}`),
-  "cell.l-vs-ring", "cell.cr-vs-ring", "cell.cb-vs-ring", "cell.gradient", "cell.coherence", "cell.dog-max", "cell.dog-min",
-  "patch.l-vs-ring", "patch.cr-vs-ring", "patch.cb-vs-ring",
-  "context.l-sd", "context.gradient", "context.inside", "patch.inside",
+  "cell.l-vs-ring",
+  "cell.cr-vs-ring",
+  "cell.cb-vs-ring",
+  "cell.gradient",
+  "cell.coherence",
+  "cell.dog-max",
+  "cell.dog-min",
+  "patch.l-vs-ring",
+  "patch.cr-vs-ring",
+  "patch.cb-vs-ring",
+  "context.l-sd",
+  "context.gradient",
+  "context.inside",
+  "patch.inside",
 ] as const;
 export const FEATURE_COUNT = FEATURE_NAMES.length;
 
@@ -69,16 +92,37 @@ function cellFeatures(grid: CellGrid, index: number, sums: Sums, out: Float64Arr
   }
   directionTotal ||= 1;
   let o = offset;
-  out[o++] = mean(patch, CH.l); out[o++] = mean(patch, CH.l) - ref.l; out[o++] = sd(patch, CH.l, CH.l2);
-  out[o++] = mean(patch, CH.cr) - ref.cr; out[o++] = mean(patch, CH.cb) - ref.cb; out[o++] = sd(patch, CH.cr, CH.cr2); out[o++] = sd(patch, CH.cb, CH.cb2);
-  out[o++] = mean(patch, CH.mag); out[o++] = coherence(patch); out[o++] = mean(patch, CH.strong); out[o++] = sd(patch, CH.lap, CH.lap2);
-  out[o++] = mean(patch, CH.dogPos); out[o++] = mean(patch, CH.dogNeg); out[o++] = extremeDog(grid, cx, cy, PATCH_RADIUS, 1); out[o++] = extremeDog(grid, cx, cy, PATCH_RADIUS, -1);
+  out[o++] = mean(patch, CH.l);
+  out[o++] = mean(patch, CH.l) - ref.l;
+  out[o++] = sd(patch, CH.l, CH.l2);
+  out[o++] = mean(patch, CH.cr) - ref.cr;
+  out[o++] = mean(patch, CH.cb) - ref.cb;
+  out[o++] = sd(patch, CH.cr, CH.cr2);
+  out[o++] = sd(patch, CH.cb, CH.cb2);
+  out[o++] = mean(patch, CH.mag);
+  out[o++] = coherence(patch);
+  out[o++] = mean(patch, CH.strong);
+  out[o++] = sd(patch, CH.lap, CH.lap2);
+  out[o++] = mean(patch, CH.dogPos);
+  out[o++] = mean(patch, CH.dogNeg);
+  out[o++] = extremeDog(grid, cx, cy, PATCH_RADIUS, 1);
+  out[o++] = extremeDog(grid, cx, cy, PATCH_RADIUS, -1);
   for (let k = 0; k < 8; k++) out[o++] = patch[CH.dir + ((strongest + k) % 8)] / directionTotal;
   for (let k = 0; k < 10; k++) out[o++] = mean(patch, CH.lbp + k);
-  out[o++] = mean(cell, CH.l) - ringMean(context, cell, CH.l); out[o++] = mean(cell, CH.cr) - ringMean(context, cell, CH.cr); out[o++] = mean(cell, CH.cb) - ringMean(context, cell, CH.cb);
-  out[o++] = mean(cell, CH.mag); out[o++] = coherence(cell); out[o++] = grid.dogMax[index]; out[o++] = grid.dogMin[index];
-  out[o++] = mean(patch, CH.l) - ringMean(context, patch, CH.l); out[o++] = mean(patch, CH.cr) - ringMean(context, patch, CH.cr); out[o++] = mean(patch, CH.cb) - ringMean(context, patch, CH.cb);
-  out[o++] = sd(context, CH.l, CH.l2); out[o++] = mean(context, CH.mag); out[o++] = mean(context, CH.inside); out[o++] = mean(patch, CH.inside);
+  out[o++] = mean(cell, CH.l) - ringMean(context, cell, CH.l);
+  out[o++] = mean(cell, CH.cr) - ringMean(context, cell, CH.cr);
+  out[o++] = mean(cell, CH.cb) - ringMean(context, cell, CH.cb);
+  out[o++] = mean(cell, CH.mag);
+  out[o++] = coherence(cell);
+  out[o++] = grid.dogMax[index];
+  out[o++] = grid.dogMin[index];
+  out[o++] = mean(patch, CH.l) - ringMean(context, patch, CH.l);
+  out[o++] = mean(patch, CH.cr) - ringMean(context, patch, CH.cr);
+  out[o++] = mean(patch, CH.cb) - ringMean(context, patch, CH.cb);
+  out[o++] = sd(context, CH.l, CH.l2);
+  out[o++] = mean(context, CH.mag);
+  out[o++] = mean(context, CH.inside);
+  out[o++] = mean(patch, CH.inside);
 }
 
 /** Feature rows for the given cells (plain arrays, as the forest library takes them). */

@@ -38,7 +38,7 @@ function flatten(root: LibraryNode, columns: number[], classes: number): FlatTre
       tree.right[index] = visit(node.right);
     } else {
       // A leaf's distribution only reaches its own largest label: pad to every class.
-      const raw = (Array.isArray(node.distribution?.[0]) ? node.distribution[0] : node.distribution ?? []) as number[];
+      const raw = (Array.isArray(node.distribution?.[0]) ? node.distribution[0] : (node.distribution ?? [])) as number[];
       tree.leaf[index] = tree.leaves.length;
       tree.leaves.push(Array.from({ length: classes }, (_, c) => share(raw[c] ?? 0)));
     }

@@ -17,7 +17,12 @@ export const trainingSettingsSchema = z.strictObject({
   workingSide: z.number().int().min(256).max(4096).default(1024),
   /** Cell (classification unit) side in working px. */
   cellSize: z.number().int().min(4).max(32).default(8),
-  seed: z.number().int().min(0).max(2 ** 31 - 1).default(20261201),
+  seed: z
+    .number()
+    .int()
+    .min(0)
+    .max(2 ** 31 - 1)
+    .default(20261201),
   /** Who grows the trees: our histogram trainer, or ml-random-forest (slower; kept as the reference). */
   trainer: z.enum(["histogram", "ml-random-forest"]).default("histogram"),
   trees: z.number().int().min(1).max(200).default(30),
@@ -77,9 +82,36 @@ const modelHeader = z.object({
   format: z.literal(REGION_MODEL_FORMAT, { error: "is not a Partproof region model" }),
   version: z.literal(REGION_MODEL_VERSION, { error: `must be version ${REGION_MODEL_VERSION}; retrain the model` }),
   settings: trainingSettingsSchema,
-  features: z.array(z.string()).refine((names) => names.length === FEATURE_NAMES.length && names.every((name, k) => name === FEATURE_NAMES[k]), "were computed by another version of the features; retrain the model"),
-  classes: z.array(z.object({ defect: z.string(), kind: z.enum(["line", "outline", "spot"]), threshold: z.number().gt(0).max(1), lineWidth: z.number().positive(), spotRadius: z.number().positive(), minCells: z.number().int().min(1) }).passthrough()),
-  forest: z.object({ classes: z.number().int().min(1), trees: z.array(z.object({ feature: z.array(z.number().int()), threshold: z.array(z.number()), left: z.array(z.number().int()), right: z.array(z.number().int()), leaf: z.array(z.number().int()), leaves: z.array(z.array(z.number())) })).min(1) }),
+  features: z
+    .array(z.string())
+    .refine((names) => names.length === FEATURE_NAMES.length && names.every((name, k) => name === FEATURE_NAMES[k]), "were computed by another version of the features; retrain the model"),
+  classes: z.array(
+    z
+      .object({
+        defect: z.string(),
+        kind: z.enum(["line", "outline", "spot"]),
+        threshold: z.number().gt(0).max(1),
+        lineWidth: z.number().positive(),
+        spotRadius: z.number().positive(),
+        minCells: z.number().int().min(1),
+      })
+      .passthrough(),
+  ),
+  forest: z.object({
+    classes: z.number().int().min(1),
+    trees: z
+      .array(
+        z.object({
+          feature: z.array(z.number().int()),
+          threshold: z.array(z.number()),
+          left: z.array(z.number().int()),
+          right: z.array(z.number().int()),
+          leaf: z.array(z.number().int()),
+          leaves: z.array(z.array(z.number())),
+        }),
+      )
+      .min(1),
+  }),
 });
 
 /** The model checked well enough to score with (throws a readable message otherwise). */

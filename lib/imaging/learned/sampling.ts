@@ -40,7 +40,7 @@ function cellCounts(spans: SpanSet, grid: CellGrid): Map<number, number> {
   for (let k = 0; k < spans.rowCount; k++) {
     const rowCell = Math.floor((spans.top + k) / size) * grid.cols;
     for (let i = spans.offsets[k]; i < spans.offsets[k + 1]; i += 2) {
-      for (let x = spans.cols[i]; x < spans.cols[i + 1]; ) {
+      for (let x = spans.cols[i]; x < spans.cols[i + 1];) {
         const cellX = Math.floor(x / size);
         const end = Math.min(spans.cols[i + 1], (cellX + 1) * size);
         counts.set(rowCell + cellX, (counts.get(rowCell + cellX) ?? 0) + end - x);
@@ -92,7 +92,10 @@ export function pickCells(grid: CellGrid, labels: CellLabels, quota: ReadonlyMap
   const hardPool = byBusyness.slice(0, Math.max(hardShare, Math.ceil(byBusyness.length / 5)));
   const hard = shuffled(hardPool, random).slice(0, hardShare);
   const taken = new Set(hard);
-  const rest = shuffled(labels.negatives.filter((cell) => !taken.has(cell)), random).slice(0, negativeQuota - hard.length);
+  const rest = shuffled(
+    labels.negatives.filter((cell) => !taken.has(cell)),
+    random,
+  ).slice(0, negativeQuota - hard.length);
   for (const cell of [...hard, ...rest]) picked.push([cell, 0]);
   return picked;
 }

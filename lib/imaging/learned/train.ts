@@ -58,7 +58,10 @@ type Plan = {
 
 function plan(examples: readonly TrainingExample[], settings: TrainingSettings, random: () => number): Plan {
   const regionCounts = countRegions(examples);
-  const defects = [...regionCounts].filter(([, n]) => n >= settings.minRegionsPerClass).map(([d]) => d).sort();
+  const defects = [...regionCounts]
+    .filter(([, n]) => n >= settings.minRegionsPerClass)
+    .map(([d]) => d)
+    .sort();
   if (defects.length === 0) throw new RangeError(`No defect class has ${settings.minRegionsPerClass} or more accepted regions to learn from.`);
   const label = new Map(defects.map((d, k) => [d, k + 1]));
   const withRegions = examples.map((_, k) => k).filter((k) => examples[k].regions.some((r) => label.has(r.defect)));
@@ -103,7 +106,10 @@ async function collect(examples: readonly TrainingExample[], settings: TrainingS
       for (const c of new Set(shapes.map((s) => s.classIndex - 1))) habits[c].photos++;
       const { perClass, negatives } = quotaFor(k);
       const picked = pickCells(photo.grid, labelCells(photo.grid, masks, photo.inside), perClass, negatives, random);
-      const rows = featureRows(photo.grid, picked.map(([cell]) => cell));
+      const rows = featureRows(
+        photo.grid,
+        picked.map(([cell]) => cell),
+      );
       const into = calibrationSet.has(k) ? calibrationSamples : fitSamples;
       rows.forEach((row, r) => into.push({ row, label: picked[r][1] }));
       if (calibrationSet.has(k)) calibration.push({ photo, scores: [], truth: shapes.map((s) => ({ classIndex: s.classIndex - 1, shape: s.shape })) });
@@ -141,7 +147,11 @@ function choosePhotos(examples: readonly TrainingExample[], maxPhotos: number, r
   if (examples.length <= maxPhotos) return examples.slice();
   const counts = countRegions(examples);
   const weight = examples.map((e, k) => ({ k, w: e.regions.reduce((sum, r) => sum + 1 / counts.get(r.defect)!, 0) + random() * 1e-9 }));
-  return weight.sort((a, b) => b.w - a.w).slice(0, maxPhotos).sort((a, b) => a.k - b.k).map(({ k }) => examples[k]);
+  return weight
+    .sort((a, b) => b.w - a.w)
+    .slice(0, maxPhotos)
+    .sort((a, b) => a.k - b.k)
+    .map(({ k }) => examples[k]);
 }
 
 export async function trainModel(offered: readonly TrainingExample[], settings: TrainingSettings): Promise<RegionModel> {
@@ -153,7 +163,13 @@ export async function trainModel(offered: readonly TrainingExample[], settings: 
 
   const grow = settings.trainer === "histogram" ? trainHistogramForest : trainForest;
   const forestOptions = { trees: settings.trees, maxDepth: settings.maxDepth, featureShare: settings.featureShare, minLeafSamples: settings.minLeafSamples, seed: settings.seed };
-  const train = (samples: Sample[]) => grow(samples.map((s) => s.row), samples.map((s) => s.label), defects.length + 1, forestOptions);
+  const train = (samples: Sample[]) =>
+    grow(
+      samples.map((s) => s.row),
+      samples.map((s) => s.label),
+      defects.length + 1,
+      forestOptions,
+    );
   const fit = capSamples(fitSamples, settings, random);
   let forest = train(fit);
 

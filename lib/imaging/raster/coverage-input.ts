@@ -8,6 +8,7 @@ import { z } from "zod";
 import { AppError } from "@/lib/errors";
 import { maxLineWidthFor, maxSpotRadiusFor } from "@/lib/geometry/clamp";
 import { MAX_RASTER_ROWS_PER_PHOTO } from "@/lib/geometry/limits";
+import { lineShapeSchema, polygonShapeSchema, rectShapeSchema, spotShapeSchema } from "@/lib/geometry/shape-schemas";
 import { describeRasterBudget } from "@/lib/geometry/validate";
 import type { CoverageInput } from "@/lib/measure/types";
 import { rasterRows } from "./cost";
@@ -20,33 +21,26 @@ const MAX_PIXELS = 268_402_689;
 const MAX_REGIONS = 10_000;
 const MAX_POINTS = 100_000;
 
-const coordinate = z
-  .number({ error: "must be a finite number" })
-  .min(-COORDINATE_LIMIT, `must be >= ${-COORDINATE_LIMIT}`)
-  .max(COORDINATE_LIMIT, `must be <= ${COORDINATE_LIMIT}`);
+const coordinate = z.number({ error: "must be a finite number" }).min(-COORDINATE_LIMIT, `must be >= ${-COORDINATE_LIMIT}`).max(COORDINATE_LIMIT, `must be <= ${COORDINATE_LIMIT}`);
 const size = coordinate.min(0, "must not be negative");
 const point = z.tuple([coordinate, coordinate]);
 
+/** The measuring variant of the base shapes (lib/geometry/shape-schemas.ts): bounded numbers, shapes with an area. */
 const shapeSchema = z.discriminatedUnion(
   "kind",
   [
-    z.object({ kind: z.literal("rect"), x: coordinate, y: coordinate, width: size, height: size }),
-    z.object({ kind: z.literal("polygon"), points: z.array(point).min(3, "a polygon needs at least 3 points").max(MAX_POINTS) }),
-    z.object({
-      kind: z.literal("line"),
+    rectShapeSchema.extend({ x: coordinate, y: coordinate, width: size, height: size }),
+    polygonShapeSchema.extend({ points: z.array(point).min(3, "a polygon needs at least 3 points").max(MAX_POINTS) }),
+    lineShapeSchema.extend({
       points: z.array(point).min(1, "a line needs at least 1 point").max(MAX_POINTS),
       width: size.positive("a line's width must be greater than 0"),
     }),
-    z.object({ kind: z.literal("spot"), x: coordinate, y: coordinate, radius: size }),
+    spotShapeSchema.extend({ x: coordinate, y: coordinate, radius: size }),
   ],
   { error: 'kind must be one of "rect", "polygon", "line", "spot"' },
 );
 
-export const photoSide = z
-  .number({ error: "must be a number" })
-  .int("must be a whole number of pixels")
-  .min(1, "must be at least 1 pixel")
-  .max(MAX_SIDE, `must be at most ${MAX_SIDE} pixels`);
+export const photoSide = z.number({ error: "must be a number" }).int("must be a whole number of pixels").min(1, "must be at least 1 pixel").max(MAX_SIDE, `must be at most ${MAX_SIDE} pixels`);
 
 /** A photo's region list (also one side of a region-set comparison, lib/imaging/compare-regions.ts). */
 export const regionListSchema = z
@@ -93,8 +87,10 @@ export function checkMeasuringCost(input: CoverageInput, context: z.RefinementCt
   const lineCap = maxLineWidthFor(input);
   const spotCap = maxSpotRadiusFor(input);
   input.regions.forEach(({ shape }, index) => {
-    if (shape.kind === "line" && shape.width > lineCap) context.addIssue({ code: "custom", path: ["regions", index, "shape", "width"], message: `must be at most ${lineCap} px (5 % of the photo's long edge)` });
-    if (shape.kind === "spot" && shape.radius > spotCap) context.addIssue({ code: "custom", path: ["regions", index, "shape", "radius"], message: `must be at most ${spotCap} px (10 % of the photo's long edge)` });
+    if (shape.kind === "line" && shape.width > lineCap)
+      context.addIssue({ code: "custom", path: ["regions", index, "shape", "width"], message: `must be at most ${lineCap} px (5 % of the photo's long edge)` });
+    if (shape.kind === "spot" && shape.radius > spotCap)
+      context.addIssue({ code: "custom", path: ["regions", index, "shape", "radius"], message: `must be at most ${spotCap} px (10 % of the photo's long edge)` });
   });
   const shapes = [...input.regions.map((r) => r.shape), ...(input.surface ?? []), ...(input.zones ?? []).map((z) => z.shape)];
   const rows = rasterRows(shapes, input);

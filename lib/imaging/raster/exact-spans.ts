@@ -160,7 +160,7 @@ function windingRowSorted(row: number, xs: Float64Array, directions: Int8Array, 
   const down = downs.subarray(0, downCount).sort();
   let winding = 0;
   let start = 0;
-  for (let u = 0, d = 0; u < upCount || d < downCount; ) {
+  for (let u = 0, d = 0; u < upCount || d < downCount;) {
     // Ties take the upward crossing first, as the insertion sort's stable order may not: either
     // order yields the same covered pixels, since a zero-length run covers none.
     const takeUp = d >= downCount || (u < upCount && up[u] <= down[d]);

@@ -100,7 +100,14 @@ export function shapeRings(shape: Shape, sides = 256): Point[][] {
   switch (shape.kind) {
     case "rect": {
       const { x, y, width, height } = shape;
-      return [[[x, y], [x + width, y], [x + width, y + height], [x, y + height]]];
+      return [
+        [
+          [x, y],
+          [x + width, y],
+          [x + width, y + height],
+          [x, y + height],
+        ],
+      ];
     }
     case "polygon":
       return [shape.points];

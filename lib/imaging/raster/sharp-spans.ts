@@ -67,7 +67,9 @@ function pathData(geometry: Geometry, dx: number, dy: number): string {
     case "polygon":
       return `M${geometry.points.map(([px, py]) => `${x(px)} ${y(py)}`).join("L")}Z`;
     case "spot":
-      return `M${equalAreaCircle(geometry.x, geometry.y, geometry.radius).map(([px, py]) => `${x(px)} ${y(py)}`).join("L")}Z`;
+      return `M${equalAreaCircle(geometry.x, geometry.y, geometry.radius)
+        .map(([px, py]) => `${x(px)} ${y(py)}`)
+        .join("L")}Z`;
     case "stroke":
       return `M${x(geometry.a[0])} ${y(geometry.a[1])}L${x(geometry.b[0])} ${y(geometry.b[1])}`;
   }
@@ -86,8 +88,7 @@ function equalAreaCircle(cx: number, cy: number, radius: number): Point[] {
   return Array.from({ length: sides }, (_, k) => [cx + scaled * Math.cos(k * step), cy + scaled * Math.sin(k * step)] as Point);
 }
 
-const strokeAttributes = (width: number) =>
-  `fill="none" stroke="#fff" stroke-width="${num(width)}" stroke-linecap="round" stroke-linejoin="round"`;
+const strokeAttributes = (width: number) => `fill="none" stroke="#fff" stroke-width="${num(width)}" stroke-linecap="round" stroke-linejoin="round"`;
 
 function collectPieces(shapes: Shape[], frame: Frame): Piece[] {
   const pieces: Piece[] = [];
@@ -168,7 +169,10 @@ function atlasSvg(atlas: Atlas): string {
 }
 
 async function renderAtlasMask(atlas: Atlas): Promise<Uint8Array> {
-  const mask = await sharp(Buffer.from(atlasSvg(atlas))).extractChannel(3).raw().toBuffer();
+  const mask = await sharp(Buffer.from(atlasSvg(atlas)))
+    .extractChannel(3)
+    .raw()
+    .toBuffer();
   if (mask.length !== atlas.width * atlas.height) {
     throw new Error(`sharp returned ${mask.length} bytes for a ${atlas.width}×${atlas.height} mask`);
   }

@@ -20,23 +20,57 @@ const GRADES = ["A", "B", "C", "Reject"] as const;
 /** One [row category, column category] pair per count of a table. */
 function pairsOf<T>(table: number[][], categories: readonly T[]): [T, T][] {
   const pairs: [T, T][] = [];
-  table.forEach((row, i) => row.forEach((count, j) => {
-    for (let k = 0; k < count; k++) pairs.push([categories[i], categories[j]]);
-  }));
+  table.forEach((row, i) =>
+    row.forEach((count, j) => {
+      for (let k = 0; k < count; k++) pairs.push([categories[i], categories[j]]);
+    }),
+  );
   return pairs;
 }
 const round = (value: number, digits: number) => Number(value.toFixed(digits));
 
-const GWET_TABLE = [[40, 4, 4, 17], [6, 25, 2, 13], [4, 1, 21, 12], [15, 5, 9, 45]];
-const SAS_TABLE = [[0, 4, 1], [0, 8, 0], [0, 1, 5]];
+const GWET_TABLE = [
+  [40, 4, 4, 17],
+  [6, 25, 2, 13],
+  [4, 1, 21, 12],
+  [15, 5, 9, 45],
+];
+const SAS_TABLE = [
+  [0, 4, 1],
+  [0, 8, 0],
+  [0, 1, 5],
+];
 
 describe("cohenKappa: worked examples", () => {
   it("[[20, 5], [10, 15]] → p_o 0.70, p_e 0.50, κ 0.40 (REF a)", () => {
-    expect(cohenKappa(pairsOf([[20, 5], [10, 15]], ["yes", "no"]))).toBeCloseTo(0.4, 12);
+    expect(
+      cohenKappa(
+        pairsOf(
+          [
+            [20, 5],
+            [10, 15],
+          ],
+          ["yes", "no"],
+        ),
+      ),
+    ).toBeCloseTo(0.4, 12);
   });
 
   it("[[20, 20], [10, 50]] → κ ≈ 0.348 (REF a, Artstein & Poesio 2008 via scikit-learn's test)", () => {
-    expect(round(cohenKappa(pairsOf([[20, 20], [10, 50]], [0, 1])), 3)).toBe(0.348);
+    expect(
+      round(
+        cohenKappa(
+          pairsOf(
+            [
+              [20, 20],
+              [10, 50],
+            ],
+            [0, 1],
+          ),
+        ),
+        3,
+      ),
+    ).toBe(0.348);
   });
 
   it("Gwet (2014) 4 × 4 table → κ 0.432 (REF a)", () => {
@@ -65,7 +99,13 @@ describe("cohenKappa: worked examples", () => {
 describe("cohenKappa: the full grade scale (our choice, c)", () => {
   // Nobody gave a B. Pairs (first, second): (A,A) (C,C) (Reject,Reject) (A,C) (C,Reject); n = 5.
   // Rows A 2, C 2, Reject 1; columns A 1, C 2, Reject 2.
-  const gradePairs: LabelPair[] = [["A", "A"], ["C", "C"], ["Reject", "Reject"], ["A", "C"], ["C", "Reject"]];
+  const gradePairs: LabelPair[] = [
+    ["A", "A"],
+    ["C", "C"],
+    ["Reject", "Reject"],
+    ["A", "C"],
+    ["C", "Reject"],
+  ];
 
   it("quadratic weights on the full scale A=0, B=1, C=2, Reject=3 give 2/3 (HAND)", () => {
     // w: A–C 4, A–Reject 9, C–Reject 1. Σw·o = 4 + 1 = 5.
@@ -106,7 +146,15 @@ describe("cohenKappa: degenerate and bad input", () => {
 
   it("is defined once a single pair disagrees, even with one category per rater", () => {
     // Rater 1 always A, rater 2 always B: p_o = 0, p_e = 0 → κ = 0.
-    expect(cohenKappa([["A", "B"], ["A", "B"]], { categories: GRADES })).toBe(0);
+    expect(
+      cohenKappa(
+        [
+          ["A", "B"],
+          ["A", "B"],
+        ],
+        { categories: GRADES },
+      ),
+    ).toBe(0);
   });
 
   it("names the offending label, weighting or cell", () => {
@@ -116,7 +164,12 @@ describe("cohenKappa: degenerate and bad input", () => {
     expect(() => cohenKappa([["A"]] as never)).toThrow(/pairs\[0\] must be \[first, second\]/);
     expect(() => cohenKappa([[Number.NaN, 1]])).toThrow(/finite number/);
     expect(() => kappaFromTable([[1, 2], [3]])).toThrow(/square/);
-    expect(() => kappaFromTable([[1, -2], [3, 4]])).toThrow(/cell \[0\]\[1\]/);
+    expect(() =>
+      kappaFromTable([
+        [1, -2],
+        [3, 4],
+      ]),
+    ).toThrow(/cell \[0\]\[1\]/);
   });
 });
 
@@ -131,8 +184,24 @@ describe("cohenKappaInterval (Fleiss, Cohen & Everitt 1969 standard error)", () 
 
   it("matches statsmodels on the worked examples, all weightings (SM)", () => {
     const cases: [number[][], "none" | "linear" | "quadratic", number, number][] = [
-      [[[20, 5], [10, 15]], "none", 0.1269960629, 0.1510922905],
-      [[[20, 20], [10, 50]], "none", 0.0950081805, 0.1616134749],
+      [
+        [
+          [20, 5],
+          [10, 15],
+        ],
+        "none",
+        0.1269960629,
+        0.1510922905,
+      ],
+      [
+        [
+          [20, 20],
+          [10, 50],
+        ],
+        "none",
+        0.0950081805,
+        0.1616134749,
+      ],
       [GWET_TABLE, "none", 0.0459691816, 0.3414028356],
       [GWET_TABLE, "linear", 0.0533880507, 0.3021722174],
       [GWET_TABLE, "quadratic", 0.0657946958, 0.25423071],
@@ -149,8 +218,16 @@ describe("cohenKappaInterval (Fleiss, Cohen & Everitt 1969 standard error)", () 
     const result = cohenKappaInterval(pairsOf(GWET_TABLE, GRADES), { weights: "quadratic", categories: GRADES });
     expect(result.standardError).toBeCloseTo(0.0657946958, 9);
     // Perfect agreement: SE 0 → [1, 1]; a near-perfect small table would reach past 1 unclamped.
-    expect(kappaIntervalFromTable([[5, 0], [0, 5]])).toMatchObject({ kappa: 1, standardError: 0, low: 1, high: 1 });
-    const nearPerfect = kappaIntervalFromTable([[9, 1], [0, 10]]);
+    expect(
+      kappaIntervalFromTable([
+        [5, 0],
+        [0, 5],
+      ]),
+    ).toMatchObject({ kappa: 1, standardError: 0, low: 1, high: 1 });
+    const nearPerfect = kappaIntervalFromTable([
+      [9, 1],
+      [0, 10],
+    ]);
     expect(nearPerfect.kappa + 1.96 * nearPerfect.standardError).toBeGreaterThan(1);
     expect(nearPerfect.high).toBe(1);
   });
@@ -164,14 +241,31 @@ describe("gwetAc1", () => {
   it("stays high where kappa collapses on skewed grades (REF: the paradox AC1 answers; HAND)", () => {
     // 95 (A,A), 2 (A,B), 2 (B,A), 1 (B,B): p_o 0.96; p_e(κ) = 0.97² + 0.03² = 0.9418 → κ = 0.0182/0.0582.
     // AC1 on the 4-grade scale: π_A 0.97, π_B 0.03, p_e = (0.0291 + 0.0291)/3 = 0.0194 → 0.9406/0.9806.
-    const pairs = pairsOf([[95, 2], [2, 1]], ["A", "B"]);
+    const pairs = pairsOf(
+      [
+        [95, 2],
+        [2, 1],
+      ],
+      ["A", "B"],
+    );
     expect(cohenKappa(pairs, { categories: GRADES })).toBeCloseTo(0.0182 / 0.0582, 12);
     expect(gwetAc1(pairs, { categories: GRADES })).toBeCloseTo(0.9406 / 0.9806, 12);
   });
 
   it("uses the full scale: the number of categories changes p_e (HAND)", () => {
     // Same pairs on a 2-category scale: p_e = 0.0582/1 → AC1 = (0.96 − 0.0582)/(1 − 0.0582).
-    expect(gwetAc1(pairsOf([[95, 2], [2, 1]], ["A", "B"]), { categories: ["A", "B"] })).toBeCloseTo(0.9018 / 0.9418, 12);
+    expect(
+      gwetAc1(
+        pairsOf(
+          [
+            [95, 2],
+            [2, 1],
+          ],
+          ["A", "B"],
+        ),
+        { categories: ["A", "B"] },
+      ),
+    ).toBeCloseTo(0.9018 / 0.9418, 12);
   });
 
   it("is 1 for unanimous data (where kappa is undefined), NaN for no pairs, and needs categories", () => {

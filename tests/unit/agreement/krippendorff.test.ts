@@ -21,17 +21,8 @@ import { mulberry32 } from "@/support/prng";
 const parseRow = (text: string) => text.split(" ").map((value) => (value === "." ? null : Number(value)));
 const round = (value: number, digits: number) => Number(value.toFixed(digits));
 
-const WIKI_3x15 = [
-  parseRow(". . . . . 3 4 1 2 1 1 3 3 . 3"),
-  parseRow("1 . 2 1 3 3 4 3 . . . . . . ."),
-  parseRow(". . 2 1 3 4 4 . 2 1 1 3 3 . 4"),
-];
-const K11_4x12 = [
-  parseRow("1 2 3 3 2 1 4 1 2 . . ."),
-  parseRow("1 2 3 3 2 2 4 1 2 5 . 3"),
-  parseRow(". 3 3 3 2 3 4 2 2 5 1 ."),
-  parseRow("1 2 3 3 2 4 4 1 2 5 1 ."),
-];
+const WIKI_3x15 = [parseRow(". . . . . 3 4 1 2 1 1 3 3 . 3"), parseRow("1 . 2 1 3 3 4 3 . . . . . . ."), parseRow(". . 2 1 3 4 4 . 2 1 1 3 3 . 4")];
+const K11_4x12 = [parseRow("1 2 3 3 2 1 4 1 2 . . ."), parseRow("1 2 3 3 2 2 4 1 2 5 . 3"), parseRow(". 3 3 3 2 3 4 2 2 5 1 ."), parseRow("1 2 3 3 2 4 4 1 2 5 1 .")];
 
 /** COINC: alpha by the coincidence matrix, numeric values in ascending order. */
 function alphaByCoincidences(data: AlphaValue[][], metric: AlphaMetric): number {
@@ -39,11 +30,16 @@ function alphaByCoincidences(data: AlphaValue[][], metric: AlphaMetric): number 
   const size = values.length;
   const o = Array.from({ length: size }, () => new Array<number>(size).fill(0));
   for (let unit = 0; unit < data[0].length; unit++) {
-    const inUnit = data.map((row) => row[unit]).filter((value) => value !== null).map((value) => values.indexOf(Number(value)));
+    const inUnit = data
+      .map((row) => row[unit])
+      .filter((value) => value !== null)
+      .map((value) => values.indexOf(Number(value)));
     if (inUnit.length < 2) continue;
-    inUnit.forEach((c, i) => inUnit.forEach((k, j) => {
-      if (i !== j) o[c][k] += 1 / (inUnit.length - 1);
-    }));
+    inUnit.forEach((c, i) =>
+      inUnit.forEach((k, j) => {
+        if (i !== j) o[c][k] += 1 / (inUnit.length - 1);
+      }),
+    );
   }
   const nc = o.map((row) => row.reduce((sum, x) => sum + x, 0));
   const n = nc.reduce((sum, x) => sum + x, 0);
@@ -112,9 +108,7 @@ describe("krippendorffAlpha: against the coincidence-matrix computation (COINC)"
     for (let trial = 0; trial < 25; trial++) {
       const raters = 2 + Math.floor(random() * 4);
       const units = 5 + Math.floor(random() * 40);
-      const data = Array.from({ length: raters }, () =>
-        Array.from({ length: units }, () => (random() < 0.25 ? null : 1 + Math.floor(random() * 4))),
-      );
+      const data = Array.from({ length: raters }, () => Array.from({ length: units }, () => (random() < 0.25 ? null : 1 + Math.floor(random() * 4))));
       for (const metric of ["nominal", "ordinal", "interval"] as const) {
         const expected = alphaByCoincidences(data, metric);
         const actual = krippendorffAlpha(data, { metric });
@@ -129,7 +123,11 @@ describe("krippendorffAlpha: grades, degenerate cases and bad input", () => {
   const GRADES = ["A", "B", "C", "Reject"];
 
   it("grades with categories equal their positions 0–3 as numbers", () => {
-    const grades = [["A", "B", null, "C", "Reject", "A"], ["A", "C", "B", "C", "C", null], [null, "B", "B", "Reject", "Reject", "A"]];
+    const grades = [
+      ["A", "B", null, "C", "Reject", "A"],
+      ["A", "C", "B", "C", "C", null],
+      [null, "B", "B", "Reject", "Reject", "A"],
+    ];
     const numbers = grades.map((row) => row.map((grade) => (grade === null ? null : GRADES.indexOf(grade))));
     for (const metric of ["nominal", "ordinal", "interval"] as const) {
       expect(krippendorffAlpha(grades, { metric, categories: GRADES })).toBeCloseTo(krippendorffAlpha(numbers, { metric }), 12);
@@ -137,20 +135,69 @@ describe("krippendorffAlpha: grades, degenerate cases and bad input", () => {
   });
 
   it("is NaN with no variation or no pairable unit (c)", () => {
-    expect(krippendorffAlpha([["B", "B", null], ["B", "B", "B"]], { metric: "nominal" })).toBeNaN();
-    expect(krippendorffAlpha([[1, null], [null, 2]], { metric: "interval" })).toBeNaN();
+    expect(
+      krippendorffAlpha(
+        [
+          ["B", "B", null],
+          ["B", "B", "B"],
+        ],
+        { metric: "nominal" },
+      ),
+    ).toBeNaN();
+    expect(
+      krippendorffAlpha(
+        [
+          [1, null],
+          [null, 2],
+        ],
+        { metric: "interval" },
+      ),
+    ).toBeNaN();
     expect(krippendorffAlpha([], { metric: "nominal" })).toBeNaN();
   });
 
   it("is 1 for perfect agreement with variation", () => {
-    expect(krippendorffAlpha([["A", "C", "B"], ["A", "C", "B"], [null, "C", "B"]], { metric: "ordinal", categories: GRADES })).toBe(1);
+    expect(
+      krippendorffAlpha(
+        [
+          ["A", "C", "B"],
+          ["A", "C", "B"],
+          [null, "C", "B"],
+        ],
+        { metric: "ordinal", categories: GRADES },
+      ),
+    ).toBe(1);
   });
 
   it("refuses ragged rows, unknown labels, unordered text for ordinal and text for interval", () => {
     expect(() => krippendorffAlpha([[1, 2], [1]], { metric: "nominal" })).toThrow(/rater 1 has 1 entries, expected 2/);
-    expect(() => krippendorffAlpha([["A", "E"], ["A", "B"]], { metric: "ordinal", categories: GRADES })).toThrow(/"E" is not one of the categories/);
-    expect(() => krippendorffAlpha([["A", "B"], ["A", "B"]], { metric: "ordinal" })).toThrow(/pass categories/);
-    expect(() => krippendorffAlpha([["A", "B"], ["A", "B"]], { metric: "interval" })).toThrow(/interval metric needs numbers/);
+    expect(() =>
+      krippendorffAlpha(
+        [
+          ["A", "E"],
+          ["A", "B"],
+        ],
+        { metric: "ordinal", categories: GRADES },
+      ),
+    ).toThrow(/"E" is not one of the categories/);
+    expect(() =>
+      krippendorffAlpha(
+        [
+          ["A", "B"],
+          ["A", "B"],
+        ],
+        { metric: "ordinal" },
+      ),
+    ).toThrow(/pass categories/);
+    expect(() =>
+      krippendorffAlpha(
+        [
+          ["A", "B"],
+          ["A", "B"],
+        ],
+        { metric: "interval" },
+      ),
+    ).toThrow(/interval metric needs numbers/);
     expect(() => krippendorffAlpha([[1, 2]], { metric: "ratio" as never })).toThrow(/metric must be/);
   });
 

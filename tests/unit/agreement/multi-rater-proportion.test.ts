@@ -42,9 +42,11 @@ const FIVE_OBSERVERS = unitsOf([
 
 function pairsOf(table: number[][], categories: Label[]): [Label, Label][] {
   const pairs: [Label, Label][] = [];
-  table.forEach((row, i) => row.forEach((count, j) => {
-    for (let k = 0; k < count; k++) pairs.push([categories[i], categories[j]]);
-  }));
+  table.forEach((row, i) =>
+    row.forEach((count, j) => {
+      for (let k = 0; k < count; k++) pairs.push([categories[i], categories[j]]);
+    }),
+  );
   return pairs;
 }
 
@@ -58,13 +60,38 @@ describe("gwetAc1Units", () => {
   });
 
   it("with two ratings per unit it is the two-rater AC1: 0.8493305 and 0.456 (ABS a, REF a)", () => {
-    const abstractors = pairsOf([[13, 0, 0], [0, 20, 7], [0, 4, 56]], ["ectopic", "aiu", "niu"]);
-    expect(gwetAc1Units(abstractors.map((pair) => [...pair]), { categories: ["ectopic", "aiu", "niu"] })).toBeCloseTo(0.8493305, 7);
+    const abstractors = pairsOf(
+      [
+        [13, 0, 0],
+        [0, 20, 7],
+        [0, 4, 56],
+      ],
+      ["ectopic", "aiu", "niu"],
+    );
+    expect(
+      gwetAc1Units(
+        abstractors.map((pair) => [...pair]),
+        { categories: ["ectopic", "aiu", "niu"] },
+      ),
+    ).toBeCloseTo(0.8493305, 7);
     const grades = ["A", "B", "C", "Reject"];
-    const gwet = pairsOf([[40, 4, 4, 17], [6, 25, 2, 13], [4, 1, 21, 12], [15, 5, 9, 45]], grades);
+    const gwet = pairsOf(
+      [
+        [40, 4, 4, 17],
+        [6, 25, 2, 13],
+        [4, 1, 21, 12],
+        [15, 5, 9, 45],
+      ],
+      grades,
+    );
     const twoRater = gwetAc1(gwet, { categories: grades });
     expect(round(twoRater, 3)).toBe(0.456);
-    expect(gwetAc1Units(gwet.map((pair) => [...pair]), { categories: grades })).toBeCloseTo(twoRater, 12);
+    expect(
+      gwetAc1Units(
+        gwet.map((pair) => [...pair]),
+        { categories: grades },
+      ),
+    ).toBeCloseTo(twoRater, 12);
   });
 
   it("weights: a unit of weight w gives the AC1 of that unit repeated w times (IRR data)", () => {
@@ -85,7 +112,15 @@ describe("gwetAc1Units", () => {
     expect(gwetAc1Units([["A", "A"], ["B", "B"], ["A"]], { categories: ["A", "B"] })).toBeCloseTo(1, 12);
     // Units [A,B], [A,A,B]: p_a = (0 + 2/6)/2 = 1/6; π_A = (1/2 + 2/3)/2 = 7/12; p_e = 2·(7/12)(5/12)/1 = 70/144;
     // AC1 = (1/6 − 70/144)/(1 − 70/144) = (24 − 70)/(144 − 70) = −46/74.
-    expect(gwetAc1Units([["A", "B"], ["A", "A", "B"]], { categories: ["A", "B"] })).toBeCloseTo(-46 / 74, 12);
+    expect(
+      gwetAc1Units(
+        [
+          ["A", "B"],
+          ["A", "A", "B"],
+        ],
+        { categories: ["A", "B"] },
+      ),
+    ).toBeCloseTo(-46 / 74, 12);
     expect(gwetAc1Units([["A"], []], { categories: ["A", "B"] })).toBeNaN();
   });
 

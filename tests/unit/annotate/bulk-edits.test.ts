@@ -30,7 +30,10 @@ describe("replacing every region", () => {
   });
 
   it("drops a drawing in progress first", () => {
-    const drawing = drive(withTool(makeState(), "outline"), [["click", 10, 10], ["click", 50, 10]]);
+    const drawing = drive(withTool(makeState(), "outline"), [
+      ["click", 10, 10],
+      ["click", 50, 10],
+    ]);
     expect(drawing.draft).not.toBeNull();
     expect(replaceAllRegions(drawing, [rect("x", 1)]).draft).toBeNull();
   });
@@ -40,12 +43,33 @@ describe("adding accepted suggestions", () => {
   it("adds them with fresh ids as one undo step, clamped to the photo, and shows a hidden class again", () => {
     const hidden = { ...makeState(), hiddenDefects: ["dead-pixel"] };
     const { state, ids } = addNewRegions(hidden, [
-      { role: "surface", shape: { kind: "polygon", points: [[-5, 0], [500, 0], [500, 900]] } },
+      {
+        role: "surface",
+        shape: {
+          kind: "polygon",
+          points: [
+            [-5, 0],
+            [500, 0],
+            [500, 900],
+          ],
+        },
+      },
       { role: "defect", defect: "dead-pixel", shape: { kind: "spot", x: 40, y: 50, radius: 1 } },
       { role: "defect", defect: "not-a-class", shape: { kind: "spot", x: 40, y: 50, radius: 1 } },
     ]);
     expect(ids).toEqual(["t-1", "t-2"]);
-    expect(state.regions[0]).toEqual({ id: "t-1", role: "surface", shape: { kind: "polygon", points: [[0, 0], [500, 0], [500, 800]] } });
+    expect(state.regions[0]).toEqual({
+      id: "t-1",
+      role: "surface",
+      shape: {
+        kind: "polygon",
+        points: [
+          [0, 0],
+          [500, 0],
+          [500, 800],
+        ],
+      },
+    });
     expect(state.hiddenDefects).toEqual([]);
     expect(undo(state).regions).toEqual([]);
     expect(state.nextIdNumber).toBe(3);
@@ -59,7 +83,13 @@ describe("adding accepted suggestions", () => {
   it("counts what it left out and why: another class, an invalid shape, a repeat of a region already there", () => {
     const spot = (x: number, y: number, defect = "dead-pixel") => ({ role: "defect" as const, defect, shape: { kind: "spot" as const, x, y, radius: 1 } });
     const first = addNewRegions(makeState(), [spot(40, 50)]).state;
-    const outcome = addNewRegions(first, [spot(40.5, 50.2), spot(300, 300), spot(300.4, 300), { role: "defect", defect: "dead-pixel", shape: { kind: "spot", x: 500, y: 500, radius: 0 } }, spot(60, 60, "not-a-class")]);
+    const outcome = addNewRegions(first, [
+      spot(40.5, 50.2),
+      spot(300, 300),
+      spot(300.4, 300),
+      { role: "defect", defect: "dead-pixel", shape: { kind: "spot", x: 500, y: 500, radius: 0 } },
+      spot(60, 60, "not-a-class"),
+    ]);
     expect(outcome.ids).toHaveLength(1); // only the Spot at (300, 300); its neighbour repeats it
     expect(outcome.skipped).toEqual({ class: 1, invalid: 1, duplicate: 2, limit: 0 });
     expect(describeAddOutcome(outcome, 5)).toBe(

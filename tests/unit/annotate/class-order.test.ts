@@ -30,7 +30,10 @@ describe("the order the Bench offers classes in", () => {
   });
 
   it("starts with no class when every class is critical, so drawing waits for a deliberate choice", () => {
-    const onlyCritical = [{ key: "crack", severity: "critical" as const }, { key: "swelling", severity: "critical" as const }];
+    const onlyCritical = [
+      { key: "crack", severity: "critical" as const },
+      { key: "swelling", severity: "critical" as const },
+    ];
     expect(startingClass(onlyCritical)).toBeNull();
     const state = createAnnotationState({ image: { width: 100, height: 100 }, allowedDefects: ["crack", "swelling"], startingDefect: null, idPrefix: "t" });
     expect(state.activeDefect).toBeNull();

@@ -28,7 +28,12 @@ describe("image ↔ stage", () => {
   });
 
   it("round-trips both ways", () => {
-    for (const [x, y] of [[0, 0], [3999.5, 2999.25], [-10, 1e4], [1234.567, 89.01]]) {
+    for (const [x, y] of [
+      [0, 0],
+      [3999.5, 2999.25],
+      [-10, 1e4],
+      [1234.567, 89.01],
+    ]) {
       const back = toImage(viewport, toStage(viewport, imagePoint(x, y)));
       expect(back.x).toBeCloseTo(x, 9);
       expect(back.y).toBeCloseTo(y, 9);

@@ -7,10 +7,46 @@ import { describeOutsideImage } from "@/lib/geometry/degenerate";
 import { makeState } from "./helpers";
 
 const box: Region = { id: "b1", role: "defect", defect: "dent", shape: { kind: "rect", x: 100, y: 100, width: 50, height: 40 } };
-const outline: Region = { id: "o1", role: "defect", defect: "crack", shape: { kind: "polygon", points: [[300, 300], [400, 300], [350, 380]] } };
-const line: Region = { id: "l1", role: "defect", defect: "scratch", shape: { kind: "line", points: [[10, 10], [90, 10]], width: 4 } };
+const outline: Region = {
+  id: "o1",
+  role: "defect",
+  defect: "crack",
+  shape: {
+    kind: "polygon",
+    points: [
+      [300, 300],
+      [400, 300],
+      [350, 380],
+    ],
+  },
+};
+const line: Region = {
+  id: "l1",
+  role: "defect",
+  defect: "scratch",
+  shape: {
+    kind: "line",
+    points: [
+      [10, 10],
+      [90, 10],
+    ],
+    width: 4,
+  },
+};
 const spot: Region = { id: "p1", role: "defect", defect: "dead-pixel", shape: { kind: "spot", x: 500, y: 500, radius: 3 } };
-const surface: Region = { id: "s1", role: "surface", shape: { kind: "polygon", points: [[0, 0], [1000, 0], [1000, 800], [0, 800]] } };
+const surface: Region = {
+  id: "s1",
+  role: "surface",
+  shape: {
+    kind: "polygon",
+    points: [
+      [0, 0],
+      [1000, 0],
+      [1000, 800],
+      [0, 800],
+    ],
+  },
+};
 const ruler: Region = { id: "k1", role: "ruler", ruler: { a: [10, 700], b: [310, 700], lengthMm: 30 } };
 
 const loaded = () => makeState({ regions: [surface, box, outline, line, spot, ruler] });
@@ -59,7 +95,16 @@ describe("adding", () => {
     const s = makeState();
     const clamped = model.addDefectShape(s, { kind: "rect", x: 950, y: -20, width: 100, height: 40 });
     expect(shapeOf(clamped, "t-1")).toEqual({ kind: "rect", x: 950, y: 0, width: 50, height: 20 });
-    expect(model.addDefectShape(s, { kind: "polygon", points: [[0, 0], [5, 5], [9, 9]] })).toBe(s);
+    expect(
+      model.addDefectShape(s, {
+        kind: "polygon",
+        points: [
+          [0, 0],
+          [5, 5],
+          [9, 9],
+        ],
+      }),
+    ).toBe(s);
     expect(model.addDefectShape(s, { kind: "rect", x: 2000, y: 0, width: 5, height: 5 })).toBe(s);
     expect(model.addDefectShape({ ...s, activeDefect: null }, { kind: "spot", x: 1, y: 1, radius: 1 })).toEqual({ ...s, activeDefect: null });
   });
@@ -72,7 +117,14 @@ describe("adding", () => {
 
   it("adds surfaces and replaces the ruler in one step", () => {
     const s0 = loaded();
-    const s1 = model.addSurface(s0, { kind: "polygon", points: [[1, 1], [9, 1], [5, 9]] });
+    const s1 = model.addSurface(s0, {
+      kind: "polygon",
+      points: [
+        [1, 1],
+        [9, 1],
+        [5, 9],
+      ],
+    });
     expect(s1.regions.filter((r) => r.role === "surface")).toHaveLength(2);
     expectUndoable(s0, s1);
     const s2 = model.placeRuler(s0, { a: [0, 0], b: [100, 0], lengthMm: 10 });
@@ -84,7 +136,14 @@ describe("adding", () => {
 
   it("keeps surfaces under defects and the ruler on top whatever the drawing order, as a saved set reloads", () => {
     const s0 = model.placeRuler(loaded(), { a: [0, 0], b: [100, 0], lengthMm: 10 });
-    const s1 = model.addSurface(s0, { kind: "polygon", points: [[1, 1], [9, 1], [5, 9]] });
+    const s1 = model.addSurface(s0, {
+      kind: "polygon",
+      points: [
+        [1, 1],
+        [9, 1],
+        [5, 9],
+      ],
+    });
     const s2 = model.addDefectShape(s1, { kind: "spot", x: 50, y: 50, radius: 3 });
     const roles = s2.regions.map((r) => r.role);
     expect(roles).toEqual([...roles].sort((a, b) => ["surface", "defect", "ruler"].indexOf(a) - ["surface", "defect", "ruler"].indexOf(b)));
@@ -120,13 +179,25 @@ describe("editing", () => {
     expect(shapeOf(pushed, "e")).toMatchObject({ x: expect.closeTo(1000 - 59.5129591190956, 9) });
     expect(describeOutsideImage(shapeOf(pushed, "e"), pushed.image)).toBeNull();
     let seed = 12345;
-    const rnd = () => ((seed = (seed * 1103515245 + 12345) % 2147483648) / 2147483648);
+    const rnd = () => (seed = (seed * 1103515245 + 12345) % 2147483648) / 2147483648;
     for (let i = 0; i < 300; i++) {
       const x = rnd() * 900 + 0.1;
       const y = rnd() * 700 + 0.3;
       const regions: Region[] = [
         { id: "r", role: "defect", defect: "dent", shape: { kind: "rect", x, y, width: rnd() * 90 + 0.7, height: rnd() * 90 + 0.1 } },
-        { id: "p", role: "defect", defect: "dent", shape: { kind: "polygon", points: [[x, y], [x + 33.3, y + 0.1], [x + 7.7, y + 77.7]].map(([px, py]) => [Math.min(px, 1000), Math.min(py, 800)] as [number, number]) } },
+        {
+          id: "p",
+          role: "defect",
+          defect: "dent",
+          shape: {
+            kind: "polygon",
+            points: [
+              [x, y],
+              [x + 33.3, y + 0.1],
+              [x + 7.7, y + 77.7],
+            ].map(([px, py]) => [Math.min(px, 1000), Math.min(py, 800)] as [number, number]),
+          },
+        },
       ];
       let s = makeState({ regions });
       for (const id of ["r", "p"]) {
@@ -164,16 +235,37 @@ describe("editing", () => {
   it("moves, inserts and deletes vertices", () => {
     const s0 = loaded();
     const moved = model.moveRegionVertex(s0, "o1", 2, imagePoint(350, 2000));
-    expect(shapeOf(moved, "o1")).toEqual({ kind: "polygon", points: [[300, 300], [400, 300], [350, 800]] });
+    expect(shapeOf(moved, "o1")).toEqual({
+      kind: "polygon",
+      points: [
+        [300, 300],
+        [400, 300],
+        [350, 800],
+      ],
+    });
     expectUndoable(s0, moved);
     const inserted = model.insertRegionVertex(s0, "o1", 2, imagePoint(310, 350));
-    expect(shapeOf(inserted, "o1")).toEqual({ kind: "polygon", points: [[300, 300], [400, 300], [350, 380], [310, 350]] });
+    expect(shapeOf(inserted, "o1")).toEqual({
+      kind: "polygon",
+      points: [
+        [300, 300],
+        [400, 300],
+        [350, 380],
+        [310, 350],
+      ],
+    });
     expectUndoable(s0, inserted);
     const deleted = model.deleteRegionVertex(inserted, "o1", 3);
     expect(shapeOf(deleted, "o1")).toEqual(shapeOf(s0, "o1"));
     expectUndoable(inserted, deleted);
     const lineExtended = model.insertRegionVertex(s0, "l1", 0, imagePoint(50, 30));
-    expect(shapeOf(lineExtended, "l1")).toMatchObject({ points: [[10, 10], [50, 30], [90, 10]] });
+    expect(shapeOf(lineExtended, "l1")).toMatchObject({
+      points: [
+        [10, 10],
+        [50, 30],
+        [90, 10],
+      ],
+    });
   });
 
   it("keeps polygons at 3 or more vertices and lines at 2 or more, and refuses degenerate results", () => {

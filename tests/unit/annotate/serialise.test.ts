@@ -7,11 +7,24 @@ import { DEFECTS, dragSteps, drive, makeState, withTool } from "./helpers";
 describe("region-set payload", () => {
   it("serialises drawn regions into a payload the save schema accepts, and loads it back", () => {
     let s = makeState();
-    s = drive(withTool(s, "surface"), [["click", 0, 0], ["click", 900, 0], ["click", 900, 700], ["key", "Enter"]]);
+    s = drive(withTool(s, "surface"), [
+      ["click", 0, 0],
+      ["click", 900, 0],
+      ["click", 900, 700],
+      ["key", "Enter"],
+    ]);
     s = drive(withTool(s, "box"), dragSteps(10, 10, 60, 60));
-    s = drive(withTool(s, "line"), [["click", 100, 100], ["dblclick", 300, 120]]);
+    s = drive(withTool(s, "line"), [
+      ["click", 100, 100],
+      ["dblclick", 300, 120],
+    ]);
     s = drive(withTool(s, "spot"), [["click", 500, 500]]);
-    s = drive(withTool(s, "outline"), [["click", 600, 600], ["click", 700, 600], ["click", 650, 700], ["key", "Enter"]]);
+    s = drive(withTool(s, "outline"), [
+      ["click", 600, 600],
+      ["click", 700, 600],
+      ["click", 650, 700],
+      ["key", "Enter"],
+    ]);
     s = setRulerLength(drive(withTool(s, "ruler"), dragSteps(10, 790, 310, 790)), 30);
 
     const payload = toRegionSetPayload(s);

@@ -31,9 +31,7 @@ describe("itemDifficulty", () => {
   });
 
   it("breaks ties by the share that missed, then by item id", () => {
-    const result = itemDifficulty([
-      { attemptId: "p1", items: [itemScore("z", "B", "C"), itemScore("y", "B", "B", { crack: classScore(0, 1) }), itemScore("x", "B", "C")] },
-    ]);
+    const result = itemDifficulty([{ attemptId: "p1", items: [itemScore("z", "B", "C"), itemScore("y", "B", "B", { crack: classScore(0, 1) }), itemScore("x", "B", "C")] }]);
     // All three wrong once; y missed a defect, so it leads; x before z by id.
     expect(result.map((item) => item.itemId)).toEqual(["y", "x", "z"]);
   });

@@ -15,11 +15,29 @@ import { DEFAULT_CALIBRATION_THRESHOLDS, calibrationThresholdsSchema } from "@/l
 import type { Grade } from "@/lib/grading/rubric-schema";
 
 const GRADES: Grade[] = ["A", "B", "C", "Reject"];
-const GWET_TABLE = [[40, 4, 4, 17], [6, 25, 2, 13], [4, 1, 21, 12], [15, 5, 9, 45]];
+const GWET_TABLE = [
+  [40, 4, 4, 17],
+  [6, 25, 2, 13],
+  [4, 1, 21, 12],
+  [15, 5, 9, 45],
+];
 
 /** A class score with only the fields the summary reads made meaningful. */
 function classScore(keyPx: number, attemptPx: number, iou: number, counts: Partial<CalibrationClassScore> = {}): CalibrationClassScore {
-  return { keyPx, attemptPx, sharedPx: 0, unionPx: keyPx + attemptPx, iou, dice: (2 * iou) / (1 + iou), keyDefects: keyPx > 0 ? 1 : 0, attemptDefects: attemptPx > 0 ? 1 : 0, matched: 0, missed: 0, extra: 0, ...counts };
+  return {
+    keyPx,
+    attemptPx,
+    sharedPx: 0,
+    unionPx: keyPx + attemptPx,
+    iou,
+    dice: (2 * iou) / (1 + iou),
+    keyDefects: keyPx > 0 ? 1 : 0,
+    attemptDefects: attemptPx > 0 ? 1 : 0,
+    matched: 0,
+    missed: 0,
+    extra: 0,
+    ...counts,
+  };
 }
 
 function itemScore(itemId: string, key: Grade, given: Grade, classes: Record<string, CalibrationClassScore> = {}): CalibrationItemScore {
@@ -30,9 +48,11 @@ function itemScore(itemId: string, key: Grade, given: Grade, classes: Record<str
 describe("summariseAttempt: grades", () => {
   it("Gwet's 4 × 4 table as 223 items: κ 0.432 (GWET a), quadratic κ 0.3832 with its interval (SM)", () => {
     const items: CalibrationItemScore[] = [];
-    GWET_TABLE.forEach((row, i) => row.forEach((count, j) => {
-      for (let k = 0; k < count; k++) items.push(itemScore(`i${items.length}`, GRADES[i], GRADES[j]));
-    }));
+    GWET_TABLE.forEach((row, i) =>
+      row.forEach((count, j) => {
+        for (let k = 0; k < count; k++) items.push(itemScore(`i${items.length}`, GRADES[i], GRADES[j]));
+      }),
+    );
     const summary = summariseAttempt(items, DEFAULT_CALIBRATION_THRESHOLDS);
     expect(summary.items).toBe(223);
     expect(Number(summary.grades.kappa.kappa.toFixed(3))).toBe(0.432);
@@ -87,10 +107,7 @@ describe("summariseAttempt: mean IoU per class and which classes decide (c)", ()
   });
 
   it("fails on the one class under its threshold and says which", () => {
-    const items = [
-      itemScore("1", "B", "B", { dent: classScore(80, 80, 0.9), crack: classScore(40, 30, 0.45) }),
-      itemScore("2", "C", "C", { crack: classScore(40, 30, 0.5) }),
-    ];
+    const items = [itemScore("1", "B", "B", { dent: classScore(80, 80, 0.9), crack: classScore(40, 30, 0.45) }), itemScore("2", "C", "C", { crack: classScore(40, 30, 0.5) })];
     const summary = summariseAttempt(items, DEFAULT_CALIBRATION_THRESHOLDS);
     // Crack mean (0.45 + 0.5) / 2 = 0.475 < 0.5.
     expect(summary.checks.filter((check) => !check.passed)).toEqual([{ check: "mean_iou", defect: "crack", value: 0.475, threshold: 0.5, passed: false }]);

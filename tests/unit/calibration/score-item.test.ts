@@ -60,8 +60,14 @@ describe("scoreCalibrationItem: regions", () => {
   it("returns the missed and the extra areas as rectangles of the photo's pixels, per class (HAND)", async () => {
     const score = await scoreCalibrationItem(item([region("k", "dent", rect(0, 0, 4, 4))], [region("g", "dent", rect(2, 2, 4, 4))], { width: 10, height: 10 }));
     // Key minus grader: rows 0–1 cols 0–3, rows 2–3 cols 0–1. Grader minus key: rows 2–3 cols 4–5, rows 4–5 cols 2–5.
-    expect(score.areas!.dent.missed).toEqual([{ x: 0, y: 0, width: 4, height: 2 }, { x: 0, y: 2, width: 2, height: 2 }]);
-    expect(score.areas!.dent.extra).toEqual([{ x: 4, y: 2, width: 2, height: 2 }, { x: 2, y: 4, width: 4, height: 2 }]);
+    expect(score.areas!.dent.missed).toEqual([
+      { x: 0, y: 0, width: 4, height: 2 },
+      { x: 0, y: 2, width: 2, height: 2 },
+    ]);
+    expect(score.areas!.dent.extra).toEqual([
+      { x: 4, y: 2, width: 2, height: 2 },
+      { x: 2, y: 4, width: 4, height: 2 },
+    ]);
     const perfect = await scoreCalibrationItem(item([region("k", "dent", rect(1, 1, 3, 3))], [region("g", "dent", rect(1, 1, 3, 3))]));
     expect(perfect.areas!.dent).toEqual({ missed: [], extra: [] });
     expect(perfect.classes.dent.iou).toBe(1);

@@ -11,9 +11,9 @@
  */
 import Decimal from "decimal.js-light";
 import { describe, expect, it } from "vitest";
-import type { ChecklistItem } from "@/db/schema/lots";
 import { decimalPlaces, describeLimits, evaluateChecklistItem, roundToDecimals, suspectReading } from "@/lib/checklist/evaluate";
 import { AppError } from "@/lib/errors";
+import type { ChecklistItem } from "@/lib/part-types/schemas";
 
 type Numeric = Extract<ChecklistItem, { kind: "numeric" }>;
 const voltage: Numeric = { id: "ocv", label: "Open-circuit voltage", kind: "numeric", unit: "V", min: 3.0, max: 4.4, decimals: 2, severityOnFail: "major" };

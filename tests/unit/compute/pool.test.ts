@@ -11,7 +11,25 @@ import { AppError } from "@/lib/errors";
 import { DeadlineExceeded, measureUnit, type GradingPartTypeInput, type UnitMeasureInput } from "@/lib/grading/grade-unit";
 
 const partType: GradingPartTypeInput = {
-  views: [{ key: "lens", label: "Lens", required: true, zones: [{ id: "lens-window", label: "lens window", polygon: [[0, 0], [0.5, 0], [0.5, 1], [0, 1]] }] }],
+  views: [
+    {
+      key: "lens",
+      label: "Lens",
+      required: true,
+      zones: [
+        {
+          id: "lens-window",
+          label: "lens window",
+          polygon: [
+            [0, 0],
+            [0.5, 0],
+            [0.5, 1],
+            [0, 1],
+          ],
+        },
+      ],
+    },
+  ],
   defectClasses: [{ key: "scratch", label: "scratch", severity: "major" }],
   nominalSizeMm: { width: 20, height: 10 },
   panelResolution: null,
@@ -19,7 +37,28 @@ const partType: GradingPartTypeInput = {
 const input = (defects: UnitMeasureInput["photos"][number]["defects"], extra: Partial<UnitMeasureInput> = {}): UnitMeasureInput => ({
   partType,
   rubric: { rules: [{ id: "lens-scratch-b", metric: "share", defect: "scratch", zone: "lens-window", comparison: ">", threshold: 0.5, grade: "B" }] },
-  photos: [{ photoId: "p1", viewKey: "lens", width: 300, height: 200, regionsVersion: 1, defects, surfaces: [{ kind: "polygon", points: [[50, 50], [250, 50], [250, 150], [50, 150]] }], rulers: [] }],
+  photos: [
+    {
+      photoId: "p1",
+      viewKey: "lens",
+      width: 300,
+      height: 200,
+      regionsVersion: 1,
+      defects,
+      surfaces: [
+        {
+          kind: "polygon",
+          points: [
+            [50, 50],
+            [250, 50],
+            [250, 150],
+            [50, 150],
+          ],
+        },
+      ],
+      rulers: [],
+    },
+  ],
   functionalFailures: { critical: 0, major: 0, minor: 0 },
   ...extra,
 });
@@ -39,7 +78,23 @@ describe("runInThread", () => {
     await expect(empty).rejects.toBeInstanceOf(AppError);
     await expect(empty).rejects.toMatchObject({ code: "conflict", message: expect.stringMatching(/has no photos yet/) });
     // A Line stored wider than today's cap (16 px on a 300 px photo) is refused, not measured.
-    const wide = runInThread("measure-unit", input([{ id: "w", defect: "scratch", shape: { kind: "line", points: [[60, 60], [200, 60]], width: 150 } }]));
+    const wide = runInThread(
+      "measure-unit",
+      input([
+        {
+          id: "w",
+          defect: "scratch",
+          shape: {
+            kind: "line",
+            points: [
+              [60, 60],
+              [200, 60],
+            ],
+            width: 150,
+          },
+        },
+      ]),
+    );
     await expect(wide).rejects.toMatchObject({ code: "conflict", message: expect.stringMatching(/^Photo 1 \(Lens\) cannot be measured: .*must be at most 16 px/) });
   }, 60_000);
 
@@ -48,7 +103,9 @@ describe("runInThread", () => {
   }, 60_000);
 
   it("ends a task past its hard limit (ComputeTimeout) and keeps serving afterwards", async () => {
-    const noise = await sharp({ create: { width: 3000, height: 2000, channels: 3, background: "#808080", noise: { type: "gaussian", mean: 128, sigma: 40 } } }).jpeg().toBuffer();
+    const noise = await sharp({ create: { width: 3000, height: 2000, channels: 3, background: "#808080", noise: { type: "gaussian", mean: 128, sigma: 40 } } })
+      .jpeg()
+      .toBuffer();
     const late = runInThread("pixel-candidates", { image: noise }, { timeoutMs: 50 });
     await expect(late).rejects.toBeInstanceOf(ComputeTimeout);
     await expect(late).rejects.toThrow(/Looking for pixel faults took longer than 0 s and was stopped\. Mark them by hand, or try again\./);
@@ -56,7 +113,9 @@ describe("runInThread", () => {
   }, 60_000);
 
   it("refuses a second task of a kind capped at one at once, without queueing it", async () => {
-    const image = await sharp({ create: { width: 600, height: 400, channels: 3, background: "#202020" } }).png().toBuffer();
+    const image = await sharp({ create: { width: 600, height: 400, channels: 3, background: "#202020" } })
+      .png()
+      .toBuffer();
     const first = runInThread("pixel-candidates", { image });
     await expect(runInThread("pixel-candidates", { image })).rejects.toBeInstanceOf(ComputeBusy);
     await expect(first).resolves.toMatchObject({ candidates: expect.any(Array) });

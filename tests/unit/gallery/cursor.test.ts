@@ -11,7 +11,12 @@ describe("gallery keyset cursor", () => {
   });
 
   it("refuses anything else with a sentence that says to start again", () => {
-    for (const bad of ["", "not-base64!", Buffer.from('{"createdAt":"yesterday","id":"x"}').toString("base64url"), Buffer.from('{"createdAt":"2026-12-02T23:14:05Z","id":"7e6d5c4b-3a29-4817-a6b5-c4d3e2f1a0b9","extra":1}').toString("base64url")]) {
+    for (const bad of [
+      "",
+      "not-base64!",
+      Buffer.from('{"createdAt":"yesterday","id":"x"}').toString("base64url"),
+      Buffer.from('{"createdAt":"2026-12-02T23:14:05Z","id":"7e6d5c4b-3a29-4817-a6b5-c4d3e2f1a0b9","extra":1}').toString("base64url"),
+    ]) {
       expect(isGalleryCursor(bad)).toBe(false);
       expect(() => decodeGalleryCursor(bad)).toThrow(/start again from the first page/);
     }

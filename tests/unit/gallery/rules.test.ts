@@ -12,7 +12,18 @@ import {
   type ReferenceSortable,
 } from "@/lib/gallery/rules";
 
-const scratch = (id: string, x = 10) => ({ id, defect: "scratch", shape: { kind: "line" as const, points: [[x, 10], [x + 50, 20]] as [number, number][], width: 6 } });
+const scratch = (id: string, x = 10) => ({
+  id,
+  defect: "scratch",
+  shape: {
+    kind: "line" as const,
+    points: [
+      [x, 10],
+      [x + 50, 20],
+    ] as [number, number][],
+    width: 6,
+  },
+});
 const stain = (id: string) => ({ id, defect: "stain", shape: { kind: "spot" as const, x: 40, y: 40, radius: 8 } });
 const payload = (regions: RegionSetPayload["regions"] = []): RegionSetPayload => ({ regions, surfaces: [], ruler: null });
 
@@ -38,7 +49,25 @@ describe("what an item shows", () => {
 
   it("calls a promoted photo abnormal only when its regions show a defect (a Surface alone is normal)", () => {
     expect(kindFromRegions(payload([scratch("a")]))).toBe("abnormal");
-    expect(kindFromRegions({ regions: [], surfaces: [{ id: "s", shape: { kind: "polygon", points: [[0, 0], [10, 0], [10, 10]] } }], ruler: null })).toBe("normal");
+    expect(
+      kindFromRegions({
+        regions: [],
+        surfaces: [
+          {
+            id: "s",
+            shape: {
+              kind: "polygon",
+              points: [
+                [0, 0],
+                [10, 0],
+                [10, 10],
+              ],
+            },
+          },
+        ],
+        ruler: null,
+      }),
+    ).toBe("normal");
   });
 });
 
@@ -70,7 +99,11 @@ describe("region budget of an item", () => {
 
   it(`counts points over regions and surfaces (at most ${GALLERY_MAX_POINTS})`, () => {
     const ring = (n: number) => Array.from({ length: n }, (_, k) => [100 + 50 * Math.cos((2 * Math.PI * k) / n), 100 + 50 * Math.sin((2 * Math.PI * k) / n)] as [number, number]);
-    const set: RegionSetPayload = { regions: [{ id: "o", defect: "stain", shape: { kind: "polygon", points: ring(15_000) } }], surfaces: [{ id: "s", shape: { kind: "polygon", points: ring(5_000) } }], ruler: null };
+    const set: RegionSetPayload = {
+      regions: [{ id: "o", defect: "stain", shape: { kind: "polygon", points: ring(15_000) } }],
+      surfaces: [{ id: "s", shape: { kind: "polygon", points: ring(5_000) } }],
+      ruler: null,
+    };
     expect(regionBudgetProblem(set)).toBeNull();
     set.surfaces[0].shape.points.push([1, 1]);
     expect(regionBudgetProblem(set)).toMatch(/20000 points in all \(these hold 20001\)/);

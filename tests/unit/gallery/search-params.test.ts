@@ -5,7 +5,15 @@ const PT = "0b7c5f0e-5b8f-4c52-9a55-3c2f0f1f0a01";
 
 describe("gallery list state in the URL", () => {
   it("keeps every valid filter and drops the ones that do not parse, instead of failing", () => {
-    expect(parseGallerySearchParams({ partType: PT, view: "lens", defect: "scratch", kind: "abnormal", grade: "B", status: "draft", cursor: "abc" })).toEqual({ partType: PT, view: "lens", defect: "scratch", kind: "abnormal", grade: "B", status: "draft", cursor: "abc" });
+    expect(parseGallerySearchParams({ partType: PT, view: "lens", defect: "scratch", kind: "abnormal", grade: "B", status: "draft", cursor: "abc" })).toEqual({
+      partType: PT,
+      view: "lens",
+      defect: "scratch",
+      kind: "abnormal",
+      grade: "B",
+      status: "draft",
+      cursor: "abc",
+    });
     expect(parseGallerySearchParams({ partType: "not-an-id", grade: "E", kind: ["normal", "abnormal"], view: "", limit: "5" })).toEqual({});
   });
 

@@ -22,7 +22,11 @@ describe("distance to a segment", () => {
 });
 
 describe("distance to a polyline", () => {
-  const path: Point[] = [[0, 0], [10, 0], [10, 10]];
+  const path: Point[] = [
+    [0, 0],
+    [10, 0],
+    [10, 10],
+  ];
 
   it("finds the nearest segment and its index", () => {
     expect(closestPointOnPolyline([12, 6], path)).toEqual({ point: [10, 6], distance: 2, segmentIndex: 1 });

@@ -4,7 +4,6 @@ import type { Point } from "@/lib/geometry/shape";
 import { simplifyPolyline, simplifyRing, simplifyToLimit } from "@/lib/geometry/simplify";
 import { mulberry32 as random } from "@/support/prng";
 
-
 function noisyStroke(n: number, seed = 7): Point[] {
   const rnd = random(seed);
   return Array.from({ length: n }, (_, i) => [i * 0.05, Math.sin(i / 500) * 40 + (rnd() - 0.5) * 0.6]);
@@ -14,14 +13,28 @@ describe("Douglas–Peucker simplification", () => {
   it("matches a hand-worked example", () => {
     // Chord (0,0)–(4,0): (3,3) is 3 away → kept. Chord (0,0)–(3,3): (2,0) is 6/√18 ≈ 1.41 away →
     // kept; (1,0.4) is 1.8/√18 ≈ 0.42 away. Chord (0,0)–(2,0): (1,0.4) is 0.4 away.
-    const pts: Point[] = [[0, 0], [1, 0.4], [2, 0], [3, 3], [4, 0]];
-    expect(simplifyPolyline(pts, 0.5)).toEqual([[0, 0], [2, 0], [3, 3], [4, 0]]);
+    const pts: Point[] = [
+      [0, 0],
+      [1, 0.4],
+      [2, 0],
+      [3, 3],
+      [4, 0],
+    ];
+    expect(simplifyPolyline(pts, 0.5)).toEqual([
+      [0, 0],
+      [2, 0],
+      [3, 3],
+      [4, 0],
+    ]);
     expect(simplifyPolyline(pts, 0.3)).toEqual(pts);
   });
 
   it("reduces a straight run to its end points", () => {
     const straight: Point[] = Array.from({ length: 50 }, (_, i) => [i, 2 * i]);
-    expect(simplifyPolyline(straight, 0.01)).toEqual([[0, 0], [49, 98]]);
+    expect(simplifyPolyline(straight, 0.01)).toEqual([
+      [0, 0],
+      [49, 98],
+    ]);
   });
 
   it("keeps every dropped point within the tolerance of the result (the algorithm's guarantee)", () => {
@@ -43,8 +56,28 @@ describe("Douglas–Peucker simplification", () => {
   });
 
   it("leaves short inputs and a zero tolerance alone", () => {
-    expect(simplifyPolyline([[0, 0], [1, 1]], 5)).toEqual([[0, 0], [1, 1]]);
-    expect(simplifyPolyline([[0, 0], [1, 0.1], [2, 0]], 0)).toHaveLength(3);
+    expect(
+      simplifyPolyline(
+        [
+          [0, 0],
+          [1, 1],
+        ],
+        5,
+      ),
+    ).toEqual([
+      [0, 0],
+      [1, 1],
+    ]);
+    expect(
+      simplifyPolyline(
+        [
+          [0, 0],
+          [1, 0.1],
+          [2, 0],
+        ],
+        0,
+      ),
+    ).toHaveLength(3);
   });
 });
 
@@ -56,6 +89,25 @@ describe("ring simplification", () => {
     expect(ring.length).toBeLessThan(100);
     const worst = Math.max(...circle.map((p) => distanceToPolyline(p, ring, true)));
     expect(worst).toBeLessThanOrEqual(0.5 + 1e-9);
+  });
+
+  it("keeps a rectangle's corners and drops the points on its sides (moved from the Surface suggestion's own copy)", () => {
+    const ring: Point[] = [
+      [0, 0],
+      [5, 0],
+      [10, 0],
+      [10, 3],
+      [10, 6],
+      [5, 6],
+      [0, 6],
+      [0, 3],
+    ];
+    expect(simplifyRing(ring, 0.5)).toEqual([
+      [0, 0],
+      [10, 0],
+      [10, 6],
+      [0, 6],
+    ]);
   });
 
   it("never collapses below a triangle", () => {

@@ -7,12 +7,48 @@ const context: RegionSetContext = { width: 400, height: 300, allowedDefects: ["s
 
 const goodSet = {
   regions: [
-    { id: "r1", defect: "scratch", shape: { kind: "line", points: [[10, 10], [60, 40], [90, 35]], width: 3 } },
+    {
+      id: "r1",
+      defect: "scratch",
+      shape: {
+        kind: "line",
+        points: [
+          [10, 10],
+          [60, 40],
+          [90, 35],
+        ],
+        width: 3,
+      },
+    },
     { id: "r2", defect: "dent", shape: { kind: "rect", x: 0, y: 0, width: 400, height: 300 } },
-    { id: "r3", defect: "crack", shape: { kind: "polygon", points: [[100, 100], [150, 100], [120, 160]] } },
+    {
+      id: "r3",
+      defect: "crack",
+      shape: {
+        kind: "polygon",
+        points: [
+          [100, 100],
+          [150, 100],
+          [120, 160],
+        ],
+      },
+    },
     { id: "r4", defect: "dent", shape: { kind: "spot", x: 400, y: 300, radius: 12 } },
   ],
-  surfaces: [{ id: "s1", shape: { kind: "polygon", points: [[5, 5], [395, 5], [395, 295], [5, 295]] } }],
+  surfaces: [
+    {
+      id: "s1",
+      shape: {
+        kind: "polygon",
+        points: [
+          [5, 5],
+          [395, 5],
+          [395, 295],
+          [5, 295],
+        ],
+      },
+    },
+  ],
   ruler: { id: "k1", a: [10, 290], b: [210, 290], lengthMm: 20 },
 };
 
@@ -35,8 +71,36 @@ describe("a valid region set", () => {
   });
 
   it("accepts polygons that repeat points (the ring closes itself) and closed loops of 3+ points", () => {
-    expect(parseRegionSet(withShape({ kind: "polygon", points: [[1, 1], [50, 1], [50, 1], [1, 40], [1, 1]] }), context).ok).toBe(true);
-    expect(parseRegionSet(withShape({ kind: "line", points: [[1, 1], [50, 1], [1, 40], [1, 1]], width: 2 }), context).ok).toBe(true);
+    expect(
+      parseRegionSet(
+        withShape({
+          kind: "polygon",
+          points: [
+            [1, 1],
+            [50, 1],
+            [50, 1],
+            [1, 40],
+            [1, 1],
+          ],
+        }),
+        context,
+      ).ok,
+    ).toBe(true);
+    expect(
+      parseRegionSet(
+        withShape({
+          kind: "line",
+          points: [
+            [1, 1],
+            [50, 1],
+            [1, 40],
+            [1, 1],
+          ],
+          width: 2,
+        }),
+        context,
+      ).ok,
+    ).toBe(true);
   });
 
   it("refuses to build a schema for a photo without a size", () => {
@@ -49,7 +113,18 @@ describe("numbers that are not finite", () => {
   it("rejects NaN and ±Infinity given directly", () => {
     expect(messages(withShape({ kind: "spot", x: Number.NaN, y: 5, radius: 2 }))).toEqual(["Region 1 (Spot): x must be a finite number."]);
     expect(messages(withShape({ kind: "rect", x: 1, y: 1, width: Infinity, height: 2 }))).toEqual(["Region 1 (Box): the width must be a finite number."]);
-    expect(messages(withShape({ kind: "polygon", points: [[1, 1], [2, -Infinity], [3, 1]] }))).toEqual(["Region 1 (Outline): y of point 2 must be a finite number."]);
+    expect(
+      messages(
+        withShape({
+          kind: "polygon",
+          points: [
+            [1, 1],
+            [2, -Infinity],
+            [3, 1],
+          ],
+        }),
+      ),
+    ).toEqual(["Region 1 (Outline): y of point 2 must be a finite number."]);
   });
 
   it("rejects 1e309, which JSON.parse turns into Infinity", () => {
@@ -69,33 +144,140 @@ describe("degenerate shapes", () => {
       regions: [
         goodSet.regions[0],
         goodSet.regions[1],
-        { id: "bad", defect: "crack", shape: { kind: "polygon", points: [[0, 0], [10, 10], [20, 20]] } },
+        {
+          id: "bad",
+          defect: "crack",
+          shape: {
+            kind: "polygon",
+            points: [
+              [0, 0],
+              [10, 10],
+              [20, 20],
+            ],
+          },
+        },
       ],
     };
     expect(messages(set)).toEqual(["Region 3 (Outline): a polygon needs at least 3 points that are not on one line."]);
-    expect(messages(withShape({ kind: "polygon", points: [[0, 0], [5, 5]] }))).toEqual(["Region 1 (Outline): a polygon needs at least 3 points that are not on one line."]);
-    expect(messages(withShape({ kind: "polygon", points: [[0, 0], [20, 20], [20, 0], [0, 20]] }))[0]).toMatch(/^Region 1 \(Outline\): the polygon encloses no area/);
+    expect(
+      messages(
+        withShape({
+          kind: "polygon",
+          points: [
+            [0, 0],
+            [5, 5],
+          ],
+        }),
+      ),
+    ).toEqual(["Region 1 (Outline): a polygon needs at least 3 points that are not on one line."]);
+    expect(
+      messages(
+        withShape({
+          kind: "polygon",
+          points: [
+            [0, 0],
+            [20, 20],
+            [20, 0],
+            [0, 20],
+          ],
+        }),
+      )[0],
+    ).toMatch(/^Region 1 \(Outline\): the polygon encloses no area/);
     expect(messages(withShape({ kind: "rect", x: 1, y: 1, width: 0, height: 2 }))).toEqual(["Region 1 (Box): a box needs a width and a height above 0."]);
     expect(messages(withShape({ kind: "spot", x: 1, y: 1, radius: -2 }))).toEqual(["Region 1 (Spot): a spot needs a radius above 0."]);
-    expect(messages(withShape({ kind: "line", points: [[1, 1], [9, 9]], width: 0 }))).toEqual(["Region 1 (Line): a line needs a width above 0."]);
-    expect(messages(withShape({ kind: "line", points: [[3, 3], [3, 3], [3, 3]], width: 2 }))).toEqual(["Region 1 (Line): a line needs at least 2 different points."]);
+    expect(
+      messages(
+        withShape({
+          kind: "line",
+          points: [
+            [1, 1],
+            [9, 9],
+          ],
+          width: 0,
+        }),
+      ),
+    ).toEqual(["Region 1 (Line): a line needs a width above 0."]);
+    expect(
+      messages(
+        withShape({
+          kind: "line",
+          points: [
+            [3, 3],
+            [3, 3],
+            [3, 3],
+          ],
+          width: 2,
+        }),
+      ),
+    ).toEqual(["Region 1 (Line): a line needs at least 2 different points."]);
   });
 
   it("rejects self-closing lines that only retrace two points", () => {
     const expected = "Region 1 (Line): the line only runs back and forth between 2 points (it closes on itself); draw it once from one end to the other.";
-    expect(messages(withShape({ kind: "line", points: [[10, 10], [50, 50], [10, 10]], width: 2 }))).toEqual([expected]);
-    expect(messages(withShape({ kind: "line", points: [[10, 10], [50, 50], [10, 10], [50, 50]], width: 2 }))).toEqual([expected]);
+    expect(
+      messages(
+        withShape({
+          kind: "line",
+          points: [
+            [10, 10],
+            [50, 50],
+            [10, 10],
+          ],
+          width: 2,
+        }),
+      ),
+    ).toEqual([expected]);
+    expect(
+      messages(
+        withShape({
+          kind: "line",
+          points: [
+            [10, 10],
+            [50, 50],
+            [10, 10],
+            [50, 50],
+          ],
+          width: 2,
+        }),
+      ),
+    ).toEqual([expected]);
   });
 });
 
 describe("coordinates outside the image", () => {
   it("rejects any defining point past [0, width] × [0, height]", () => {
-    expect(messages(withShape({ kind: "polygon", points: [[0, 0], [401, 0], [0, 300]] }))).toEqual(["Region 1 (Outline): point 2 (401, 0) lies outside the 400 × 300 px photo."]);
+    expect(
+      messages(
+        withShape({
+          kind: "polygon",
+          points: [
+            [0, 0],
+            [401, 0],
+            [0, 300],
+          ],
+        }),
+      ),
+    ).toEqual(["Region 1 (Outline): point 2 (401, 0) lies outside the 400 × 300 px photo."]);
     expect(messages(withShape({ kind: "rect", x: -1, y: 0, width: 5, height: 5 }))).toEqual(["Region 1 (Box): the box reaches outside the 400 × 300 px photo."]);
     expect(messages(withShape({ kind: "spot", x: 200, y: 300.01, radius: 5 }))).toEqual(["Region 1 (Spot): the spot's centre (200, 300.01) lies outside the 400 × 300 px photo."]);
-    expect(messages({ regions: [], surfaces: [{ id: "s", shape: { kind: "polygon", points: [[0, 0], [10, 0], [10, -5]] } }] })).toEqual([
-      "Surface 1: point 3 (10, -5) lies outside the 400 × 300 px photo.",
-    ]);
+    expect(
+      messages({
+        regions: [],
+        surfaces: [
+          {
+            id: "s",
+            shape: {
+              kind: "polygon",
+              points: [
+                [0, 0],
+                [10, 0],
+                [10, -5],
+              ],
+            },
+          },
+        ],
+      }),
+    ).toEqual(["Surface 1: point 3 (10, -5) lies outside the 400 × 300 px photo."]);
     expect(messages({ regions: [], ruler: { id: "k", a: [0, 0], b: [500, 0], lengthMm: 10 } })).toEqual(["Ruler: end b lies outside the 400 × 300 px photo."]);
   });
 });
@@ -132,9 +314,7 @@ describe("sizes", () => {
     const ring: Point[] = Array.from({ length: 5_000 }, (_, i) => [200 + 100 * Math.cos(i / 796), 150 + 100 * Math.sin(i / 796)]);
     const count = MAX_TOTAL_POINTS_PER_PHOTO / 5_000 + 1;
     const regions = Array.from({ length: count }, (_, i) => ({ id: `r${i}`, defect: "dent", shape: { kind: "polygon", points: ring } }));
-    expect(messages({ regions })).toEqual([
-      `Region set: the photo's regions hold ${count * 5_000} points in all; at most ${MAX_TOTAL_POINTS_PER_PHOTO} are allowed (simplify the longest outlines).`,
-    ]);
+    expect(messages({ regions })).toEqual([`Region set: the photo's regions hold ${count * 5_000} points in all; at most ${MAX_TOTAL_POINTS_PER_PHOTO} are allowed (simplify the longest outlines).`]);
   });
 
   it("caps the number of messages", () => {
@@ -147,17 +327,12 @@ describe("sizes", () => {
 
 describe("classes, ids, kinds and fields", () => {
   it("rejects an unknown defect class and lists the allowed ones", () => {
-    expect(messages({ regions: [{ ...goodSet.regions[1], defect: "rust" }] })).toEqual([
-      "Region 1 (Box): the defect class “rust” is not allowed for this part type (allowed: scratch, crack, dent).",
-    ]);
+    expect(messages({ regions: [{ ...goodSet.regions[1], defect: "rust" }] })).toEqual(["Region 1 (Box): the defect class “rust” is not allowed for this part type (allowed: scratch, crack, dent)."]);
   });
 
   it("rejects duplicate, empty, long and odd ids", () => {
     const dup = { regions: [goodSet.regions[0], { ...goodSet.regions[1], id: "r1" }], surfaces: [{ ...goodSet.surfaces[0], id: "r1" }] };
-    expect(messages(dup)).toEqual([
-      "Region 2 (Box): the id “r1” is already used by region 1.",
-      "Surface 1: the id “r1” is already used by region 1.",
-    ]);
+    expect(messages(dup)).toEqual(["Region 2 (Box): the id “r1” is already used by region 1.", "Surface 1: the id “r1” is already used by region 1."]);
     expect(messages({ regions: [{ ...goodSet.regions[1], id: "" }] })).toEqual(["Region 1 (Box): the id must not be empty."]);
     expect(messages({ regions: [{ ...goodSet.regions[1], id: "x".repeat(65) }] })).toEqual(["Region 1 (Box): the id must be at most 64 characters."]);
     expect(messages({ regions: [{ ...goodSet.regions[1], id: "a b" }] })).toEqual(["Region 1 (Box): the id may only use letters, digits, - and _."]);
@@ -167,7 +342,18 @@ describe("classes, ids, kinds and fields", () => {
     expect(messages(withShape({ kind: "triangle", points: [] }))).toEqual(['Region 1: kind must be "rect", "polygon", "line" or "spot".']);
     expect(messages(withShape({ kind: "constructor" }))).toEqual(['Region 1: kind must be "rect", "polygon", "line" or "spot".']);
     expect(messages(withShape({ kind: "spot", x: 1, y: 1, radius: 2, colour: "red" }))).toEqual(["Region 1 (Spot): the shape has unknown field(s) colour."]);
-    expect(messages(withShape({ kind: "line", points: [[1, 1, 1], [2, 2]], width: 1 }))).toEqual(["Region 1 (Line): point 1 must be a pair [x, y]."]);
+    expect(
+      messages(
+        withShape({
+          kind: "line",
+          points: [
+            [1, 1, 1],
+            [2, 2],
+          ],
+          width: 1,
+        }),
+      ),
+    ).toEqual(["Region 1 (Line): point 1 must be a pair [x, y]."]);
     expect(messages({ regions: "none" })).toEqual(["Regions: must be a list."]);
     expect(messages(null)).toEqual(["Region set: must be an object with regions, surfaces and ruler."]);
     expect(messages({ regions: [], extra: 1 })).toEqual(["Region set: has unknown field(s) extra."]);

@@ -24,23 +24,15 @@ describe("diffRubrics", () => {
   });
 
   it("describes grade, comparison, selector and metric changes", () => {
-    expect(texts(v1, { ...v1, rules: [{ ...lensB, grade: "C" }, dust, failures] })).toEqual([
-      "scratch on lens window: grade changed from B to C",
-    ]);
-    expect(texts(v1, { ...v1, rules: [lensB, { ...dust, comparison: ">=", threshold: 3 }, failures] })).toEqual([
-      "dust in the Lens view: condition for C changed from > 2 to ≥ 3",
-    ]);
-    expect(texts(v1, { ...v1, rules: [{ ...lensB, defect: "dust" }, dust, failures] })).toEqual([
-      "scratch on lens window: now applies to dust on lens window",
-    ]);
+    expect(texts(v1, { ...v1, rules: [{ ...lensB, grade: "C" }, dust, failures] })).toEqual(["scratch on lens window: grade changed from B to C"]);
+    expect(texts(v1, { ...v1, rules: [lensB, { ...dust, comparison: ">=", threshold: 3 }, failures] })).toEqual(["dust in the Lens view: condition for C changed from > 2 to ≥ 3"]);
+    expect(texts(v1, { ...v1, rules: [{ ...lensB, defect: "dust" }, dust, failures] })).toEqual(["scratch on lens window: now applies to dust on lens window"]);
     expect(texts(v1, { ...v1, rules: [lensB, dust, { ...failures, severity: "major", grade: "C" }] })).toEqual([
       "critical functional failures: now applies to major functional failures",
       "major functional failures: grade changed from Reject to C",
     ]);
     const lengthRule: Rule = { id: "lens-b", metric: "maxLengthMm", defect: "scratch", comparison: ">", threshold: 2, grade: "B" };
-    expect(texts(v1, { ...v1, rules: [lengthRule, dust, failures] })).toEqual([
-      'Rule "lens-b" changed from "scratch on lens window, share > 0.5 % → B" to "scratch, longest > 2.0 mm → B"',
-    ]);
+    expect(texts(v1, { ...v1, rules: [lengthRule, dust, failures] })).toEqual(['Rule "lens-b" changed from "scratch on lens window, share > 0.5 % → B" to "scratch, longest > 2.0 mm → B"']);
   });
 
   it("lists removed, changed, added rules and notes in that order", () => {

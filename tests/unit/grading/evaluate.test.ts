@@ -15,11 +15,9 @@ const labels = {
   views: { back: "Back", lens: "Lens", "screen-white": "Screen white" },
 };
 
-const unit = (photos: Parameters<typeof photo>[0][], functionalFailures = noFailures) =>
-  buildUnitMetrics({ photos: photos.map(photo), functionalFailures });
+const unit = (photos: Parameters<typeof photo>[0][], functionalFailures = noFailures) => buildUnitMetrics({ photos: photos.map(photo), functionalFailures });
 
-const grade = (rules: Rule[], metrics: ReturnType<typeof unit>, defectSeverities = {}) =>
-  evaluateRubric({ rubric: { rules }, metrics, defectSeverities, labels });
+const grade = (rules: Rule[], metrics: ReturnType<typeof unit>, defectSeverities = {}) => evaluateRubric({ rubric: { rules }, metrics, defectSeverities, labels });
 
 const lensShare: Rule = { id: "lens-b", metric: "share", defect: "scratch", zone: "lens-window", comparison: ">", threshold: 0.5, grade: "B" };
 const lensUnit = (share: number) => unit([{ photoId: "l1", viewKey: "lens", zones: { "lens-window": { byDefect: { scratch: { share } } } } }]);
@@ -38,9 +36,7 @@ describe("evaluateRubric", () => {
     // 0.008 of the zone = 0.8 %.
     const result = grade([lensShare], lensUnit(0.008));
     expect(result.grade).toBe("B");
-    expect(result.lines).toEqual([
-      { ruleId: "lens-b", grade: "B", text: "scratch covers 0.8 % of lens window > 0.5 % allowed for A → B", value: 0.8, threshold: 0.5 },
-    ]);
+    expect(result.lines).toEqual([{ ruleId: "lens-b", grade: "B", text: "scratch covers 0.8 % of lens window > 0.5 % allowed for A → B", value: 0.8, threshold: 0.5 }]);
   });
 
   it("does not fire '>' at exactly the threshold but fires '>='; 7/100 equals a 7 % threshold", () => {
@@ -106,10 +102,7 @@ describe("evaluateRubric", () => {
     ];
     const result = grade(rules, unit([], { critical: 1, major: 0, minor: 2 }));
     expect(result.grade).toBe("Reject");
-    expect(result.lines.map((l) => l.text)).toEqual([
-      "critical functional failures 1 > 0 allowed for C → Reject",
-      "minor functional failures 2 > 1 allowed for A → B",
-    ]);
+    expect(result.lines.map((l) => l.text)).toEqual(["critical functional failures 1 > 0 allowed for C → Reject", "minor functional failures 2 > 1 allowed for A → B"]);
     expect(grade(rules, unit([], { critical: 0, major: 5, minor: 1 })).grade).toBe("A");
   });
 
@@ -149,9 +142,7 @@ describe("evaluateRubric", () => {
     });
     // A calibrated photo showing scratches but no Line regions: nothing to measure a length from.
     const noLines = unit([{ photoId: "c", viewKey: "back", defects: { scratch: { share: 0.01 } } }]);
-    expect(grade([total], noLines).notes).toEqual([
-      'Could not evaluate "total-c" (scratch, total length > 10.0 mm → C) on photo c (Back): no length was measured (lengths come from Line regions).',
-    ]);
+    expect(grade([total], noLines).notes).toEqual(['Could not evaluate "total-c" (scratch, total length > 10.0 mm → C) on photo c (Back): no length was measured (lengths come from Line regions).']);
   });
 
   it("notes rules whose view, zone or pixel count is missing", () => {
@@ -204,9 +195,7 @@ describe("evaluateRubric", () => {
 
   it("refuses an invalid rubric with a clear error", () => {
     const bad = { rules: [{ ...lensShare, threshold: -1 }] } as Rubric;
-    expect(() => grade(bad.rules, lensUnit(0))).toThrowError(
-      new AppError("bad_request", 'The rubric is not valid: Rule 1 ("lens-b"), threshold: cannot be negative'),
-    );
+    expect(() => grade(bad.rules, lensUnit(0))).toThrowError(new AppError("bad_request", 'The rubric is not valid: Rule 1 ("lens-b"), threshold: cannot be negative'));
   });
 });
 

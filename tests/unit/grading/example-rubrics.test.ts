@@ -11,19 +11,14 @@ import { parseRubric } from "@/lib/grading/rubric-schema";
 import { buildUnitMetrics } from "@/lib/grading/unit-metrics";
 import { noFailures, photo } from "./fixtures";
 
-const SEEDED_DEFECTS = [
-  "scratch", "crack", "dent", "chip", "pixel-lit", "pixel-dark", "pixel-subpixel",
-  "moisture", "dust", "corrosion", "screw-boss", "torn-flex", "swelling", "stain",
-];
+const SEEDED_DEFECTS = ["scratch", "crack", "dent", "chip", "pixel-lit", "pixel-dark", "pixel-subpixel", "moisture", "dust", "corrosion", "screw-boss", "torn-flex", "swelling", "stain"];
 
 /** One calibrated, defect-free photo per view, every zone present, pixel class I on screen views. */
 const cleanUnit = (slug: keyof typeof EXAMPLE_PART_TYPES) => {
   const partType = EXAMPLE_PART_TYPES[slug];
   const zones = Object.fromEntries((partType.zones ?? []).map((zone) => [zone, {}]));
   return buildUnitMetrics({
-    photos: (partType.views ?? []).map((viewKey) =>
-      photo({ photoId: `clean-${viewKey}`, viewKey, zones, pixelClass: viewKey.startsWith("screen-") ? "I" : undefined }),
-    ),
+    photos: (partType.views ?? []).map((viewKey) => photo({ photoId: `clean-${viewKey}`, viewKey, zones, pixelClass: viewKey.startsWith("screen-") ? "I" : undefined })),
     functionalFailures: noFailures,
   });
 };
@@ -77,10 +72,7 @@ describe("example rubrics", () => {
     });
     const result = evaluateRubric({ rubric: EXAMPLE_RUBRICS.battery, metrics: swollen, defectSeverities: EXAMPLE_PART_TYPES.battery.defectSeverities });
     expect(result.grade).toBe("Reject");
-    expect(result.lines.map((l) => l.text)).toEqual([
-      "swelling found (1 region): a critical defect for this part type → Reject",
-      "swelling count 1 > 0 allowed for C → Reject",
-    ]);
+    expect(result.lines.map((l) => l.text)).toEqual(["swelling found (1 region): a critical defect for this part type → Reject", "swelling count 1 > 0 allowed for C → Reject"]);
   });
 
   it("rear camera: a light lens scratch is B, a heavy one C, with readable lines", () => {
@@ -94,9 +86,6 @@ describe("example rubrics", () => {
     expect(run(0.003).lines.map((l) => l.text)).toEqual(["scratch covers 0.3 % of lens window > 0.2 % allowed for A → B"]);
     const heavy = run(0.02);
     expect(heavy.grade).toBe("C");
-    expect(heavy.lines.map((l) => l.text)).toEqual([
-      "scratch covers 2.0 % of lens window > 1.0 % allowed for B → C",
-      "scratch covers 2.0 % of lens window > 0.2 % allowed for A → B",
-    ]);
+    expect(heavy.lines.map((l) => l.text)).toEqual(["scratch covers 2.0 % of lens window > 1.0 % allowed for B → C", "scratch covers 2.0 % of lens window > 0.2 % allowed for A → B"]);
   });
 });

@@ -38,12 +38,7 @@ export function photo(input: {
     const zonePx = z.zonePx ?? 100_000;
     byZone[zone] = {
       zonePx,
-      byDefect: Object.fromEntries(
-        Object.entries(z.byDefect ?? {}).map(([defect, m]) => [
-          defect,
-          { px: m.px ?? Math.round(m.share * zonePx), share: m.share, areaMm2: m.areaMm2 ?? null },
-        ]),
-      ),
+      byDefect: Object.fromEntries(Object.entries(z.byDefect ?? {}).map(([defect, m]) => [defect, { px: m.px ?? Math.round(m.share * zonePx), share: m.share, areaMm2: m.areaMm2 ?? null }])),
     };
   }
   return {
@@ -51,10 +46,7 @@ export function photo(input: {
     viewKey: input.viewKey,
     width: SIDE,
     height: SIDE,
-    calibration:
-      pxPerMm === null
-        ? { method: "none", pxPerMm: null, detail: "no ruler" }
-        : { method: "ruler", pxPerMm, detail: "test ruler" },
+    calibration: pxPerMm === null ? { method: "none", pxPerMm: null, detail: "no ruler" } : { method: "ruler", pxPerMm, detail: "test ruler" },
     surfacePx: SURFACE_PX,
     surfaceMm2: pxPerMm === null ? null : SURFACE_PX / (pxPerMm * pxPerMm),
     byDefect,

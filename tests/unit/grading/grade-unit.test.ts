@@ -10,7 +10,23 @@ import type { Rubric } from "@/lib/grading/rubric-schema";
 
 const partType: GradingPartTypeInput = {
   views: [
-    { key: "lens", label: "Lens", required: true, zones: [{ id: "lens-window", label: "lens window", polygon: [[0, 0], [0.5, 0], [0.5, 1], [0, 1]] }] },
+    {
+      key: "lens",
+      label: "Lens",
+      required: true,
+      zones: [
+        {
+          id: "lens-window",
+          label: "lens window",
+          polygon: [
+            [0, 0],
+            [0.5, 0],
+            [0.5, 1],
+            [0, 1],
+          ],
+        },
+      ],
+    },
     { key: "back", label: "Back", required: true, zones: [] },
   ],
   defectClasses: [
@@ -39,7 +55,17 @@ const lensPhoto = (scratch: { width: number; height: number } | null, version = 
   height: 200,
   regionsVersion: version,
   defects: scratch ? [{ id: "s1", defect: "scratch", shape: { kind: "rect", x: 60, y: 60, ...scratch } }] : [],
-  surfaces: [{ kind: "polygon", points: [[50, 50], [250, 50], [250, 150], [50, 150]] }],
+  surfaces: [
+    {
+      kind: "polygon",
+      points: [
+        [50, 50],
+        [250, 50],
+        [250, 150],
+        [50, 150],
+      ],
+    },
+  ],
   rulers: [],
 });
 const backPhoto: UnitPhotoInput = { ...lensPhoto(null, 1), photoId: "photo-back", viewKey: "back" };
@@ -55,16 +81,26 @@ describe("measureUnit", () => {
     expect(lens.byZone["lens-window"].byDefect.scratch.share).toBeCloseTo(0.012, 12);
     expect(lens.byDefect.scratch.areaMm2).toBeCloseTo(1.2, 9); // 120 px / (10 px/mm)²
     expect(outcome.unit.proposal.grade).toBe("C");
-    expect(outcome.unit.proposal.lines.map((l) => l.text)).toEqual([
-      "scratch covers 1.2 % of lens window > 1.0 % allowed for B → C",
-      "scratch covers 1.2 % of lens window > 0.5 % allowed for A → B",
-    ]);
+    expect(outcome.unit.proposal.lines.map((l) => l.text)).toEqual(["scratch covers 1.2 % of lens window > 1.0 % allowed for B → C", "scratch covers 1.2 % of lens window > 0.5 % allowed for A → B"]);
     expect(outcome.unit.defectSeverities).toEqual({ scratch: "major", crack: "critical" });
   });
 
   it("rejects a critical defect through the built-in rule and counts failed checklist items", async () => {
     const cracked = lensPhoto(null);
-    cracked.defects = [{ id: "c1", defect: "crack", shape: { kind: "line", points: [[60, 60], [90, 100]], width: 2 } }];
+    cracked.defects = [
+      {
+        id: "c1",
+        defect: "crack",
+        shape: {
+          kind: "line",
+          points: [
+            [60, 60],
+            [90, 100],
+          ],
+          width: 2,
+        },
+      },
+    ];
     const outcome = await measureUnit({ partType, rubric: rubricV1, photos: [cracked], functionalFailures: { critical: 0, major: 1, minor: 0 } });
     expect(outcome.unit.proposal.grade).toBe("Reject");
     expect(outcome.unit.proposal.lines[0].text).toBe("crack found (1 region): a critical defect for this part type → Reject");

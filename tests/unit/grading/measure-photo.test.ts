@@ -17,7 +17,15 @@ function area(shape: MultiPolygon): number {
   return shape.reduce((sum, polygon) => sum + ring(polygon[0]) - polygon.slice(1).reduce((holes, h) => holes + ring(h), 0), 0);
 }
 
-const rectPolygon = (x: number, y: number, w: number, h: number): Shape => ({ kind: "polygon", points: [[x, y], [x + w, y], [x + w, y + h], [x, y + h]] });
+const rectPolygon = (x: number, y: number, w: number, h: number): Shape => ({
+  kind: "polygon",
+  points: [
+    [x, y],
+    [x + w, y],
+    [x + w, y + h],
+    [x, y + h],
+  ],
+});
 
 // A part outlined as a 400 × 200 px rectangle at (100, 200); a 100 px ruler over 10 mm (10 px/mm).
 const surface = rectPolygon(100, 200, 400, 200);
@@ -30,7 +38,17 @@ const base: MeasurePhotoInput = {
   defects: [],
   surfaces: [surface],
   rulers: [ruler],
-  zones: [{ id: "left-half", polygon: [[0, 0], [0.5, 0], [0.5, 1], [0, 1]] }],
+  zones: [
+    {
+      id: "left-half",
+      polygon: [
+        [0, 0],
+        [0.5, 0],
+        [0.5, 1],
+        [0, 1],
+      ],
+    },
+  ],
   nominalSizeMm: null,
   panel: null,
 };
@@ -38,23 +56,105 @@ const base: MeasurePhotoInput = {
 describe("zonesToPixels", () => {
   it("maps 0..1 coordinates onto the Surface's bounding box", () => {
     // Linear map x = minX + u·w, y = minY + v·h (a: affine interpolation).
-    const [zone] = zonesToPixels([{ id: "z", polygon: [[0, 0], [0.5, 0], [0.5, 1], [0.25, 0.75]] }], [surface], { width: 640, height: 480 });
-    expect(zone.shape.points).toEqual([[100, 200], [300, 200], [300, 400], [200, 350]]);
+    const [zone] = zonesToPixels(
+      [
+        {
+          id: "z",
+          polygon: [
+            [0, 0],
+            [0.5, 0],
+            [0.5, 1],
+            [0.25, 0.75],
+          ],
+        },
+      ],
+      [surface],
+      { width: 640, height: 480 },
+    );
+    expect(zone.shape.points).toEqual([
+      [100, 200],
+      [300, 200],
+      [300, 400],
+      [200, 350],
+    ]);
   });
 
   it("uses the bounding box of several Surface outlines together", () => {
-    const [zone] = zonesToPixels([{ id: "z", polygon: [[0, 0], [1, 0], [1, 1]] }], [rectPolygon(10, 20, 10, 10), rectPolygon(50, 60, 50, 40)], { width: 200, height: 200 });
-    expect(zone.shape.points).toEqual([[10, 20], [100, 20], [100, 100]]);
+    const [zone] = zonesToPixels(
+      [
+        {
+          id: "z",
+          polygon: [
+            [0, 0],
+            [1, 0],
+            [1, 1],
+          ],
+        },
+      ],
+      [rectPolygon(10, 20, 10, 10), rectPolygon(50, 60, 50, 40)],
+      { width: 200, height: 200 },
+    );
+    expect(zone.shape.points).toEqual([
+      [10, 20],
+      [100, 20],
+      [100, 100],
+    ]);
   });
 
   it("falls back to the whole image without a Surface", () => {
-    const [zone] = zonesToPixels([{ id: "z", polygon: [[0.5, 0.5], [1, 0.5], [1, 1]] }], [], { width: 640, height: 480 });
-    expect(zone.shape.points).toEqual([[320, 240], [640, 240], [640, 480]]);
+    const [zone] = zonesToPixels(
+      [
+        {
+          id: "z",
+          polygon: [
+            [0.5, 0.5],
+            [1, 0.5],
+            [1, 1],
+          ],
+        },
+      ],
+      [],
+      { width: 640, height: 480 },
+    );
+    expect(zone.shape.points).toEqual([
+      [320, 240],
+      [640, 240],
+      [640, 480],
+    ]);
   });
 
   it("refuses a broken zone with a sentence naming it", () => {
-    expect(() => zonesToPixels([{ id: "lens", polygon: [[0, 0], [1, 0]] }], [surface], { width: 10, height: 10 })).toThrow(/zone "lens" is not valid: a zone needs at least 3 points/);
-    expect(() => zonesToPixels([{ id: "lens", polygon: [[0, 0], [1, 0], [Number.NaN, 1]] }], [surface], { width: 10, height: 10 })).toThrow(/zone "lens"/);
+    expect(() =>
+      zonesToPixels(
+        [
+          {
+            id: "lens",
+            polygon: [
+              [0, 0],
+              [1, 0],
+            ],
+          },
+        ],
+        [surface],
+        { width: 10, height: 10 },
+      ),
+    ).toThrow(/zone "lens" is not valid: a zone needs at least 3 points/);
+    expect(() =>
+      zonesToPixels(
+        [
+          {
+            id: "lens",
+            polygon: [
+              [0, 0],
+              [1, 0],
+              [Number.NaN, 1],
+            ],
+          },
+        ],
+        [surface],
+        { width: 10, height: 10 },
+      ),
+    ).toThrow(/zone "lens"/);
   });
 });
 
@@ -78,10 +178,29 @@ describe("measurePhoto", () => {
 
   it("agrees with polygon-clipping on a slanted defect clipped to a triangular zone (1 %)", async () => {
     // Reference: polygon-clipping 0.15.7 (npm) intersection + shoelace area (docs/references.md "Areas and images").
-    const zone = { id: "tri", polygon: [[0, 0], [1, 0], [0, 1]] as [number, number][] };
-    const defect: Shape = { kind: "polygon", points: [[120, 230], [330, 210], [360, 330], [140, 380]] };
+    const zone = {
+      id: "tri",
+      polygon: [
+        [0, 0],
+        [1, 0],
+        [0, 1],
+      ] as [number, number][],
+    };
+    const defect: Shape = {
+      kind: "polygon",
+      points: [
+        [120, 230],
+        [330, 210],
+        [360, 330],
+        [140, 380],
+      ],
+    };
     const { measurement } = await measurePhoto({ ...base, zones: [zone], defects: [{ id: "d", defect: "stain", shape: defect }] });
-    const zonePx: Pair[] = [[100, 200], [500, 200], [100, 400]];
+    const zonePx: Pair[] = [
+      [100, 200],
+      [500, 200],
+      [100, 400],
+    ];
     const defectPx = defect.kind === "polygon" ? (defect.points as Pair[]) : [];
     const exactZone = area(polygonClipping.intersection([zonePx], [surface.kind === "polygon" ? (surface.points as Pair[]) : []]));
     const exactOverlap = area(polygonClipping.intersection([zonePx], [defectPx]));
@@ -94,8 +213,30 @@ describe("measurePhoto", () => {
     const { measurement } = await measurePhoto({
       ...base,
       defects: [
-        { id: "s1", defect: "scratch", shape: { kind: "line", points: [[150, 250], [180, 290]], width: 2 } },
-        { id: "s2", defect: "scratch", shape: { kind: "line", points: [[300, 250], [360, 330]], width: 2 } },
+        {
+          id: "s1",
+          defect: "scratch",
+          shape: {
+            kind: "line",
+            points: [
+              [150, 250],
+              [180, 290],
+            ],
+            width: 2,
+          },
+        },
+        {
+          id: "s2",
+          defect: "scratch",
+          shape: {
+            kind: "line",
+            points: [
+              [300, 250],
+              [360, 330],
+            ],
+            width: 2,
+          },
+        },
         { id: "u1", defect: "dust", shape: { kind: "spot", x: 400, y: 300, radius: 15 } },
         { id: "u2", defect: "dust", shape: { kind: "spot", x: 450, y: 350, radius: 5 } },
       ],
@@ -109,7 +250,12 @@ describe("measurePhoto", () => {
 
   it("calibrates from the nominal size when there is no ruler, and says so", async () => {
     // 400 × 200 px outline of a 40 × 20 mm part → 10 px/mm on both sides.
-    const { measurement, notes } = await measurePhoto({ ...base, rulers: [], nominalSizeMm: { width: 20, height: 40 }, defects: [{ id: "d", defect: "dent", shape: { kind: "rect", x: 110, y: 210, width: 20, height: 10 } }] });
+    const { measurement, notes } = await measurePhoto({
+      ...base,
+      rulers: [],
+      nominalSizeMm: { width: 20, height: 40 },
+      defects: [{ id: "d", defect: "dent", shape: { kind: "rect", x: 110, y: 210, width: 20, height: 10 } }],
+    });
     expect(measurement.calibration.method).toBe("nominal");
     expect(measurement.calibration.pxPerMm).toBeCloseTo(10, 12);
     expect(measurement.byDefect.dent.areaMm2).toBeCloseTo(2, 9);
@@ -120,7 +266,20 @@ describe("measurePhoto", () => {
     const { measurement, notes } = await measurePhoto({
       ...base,
       rulers: [],
-      defects: [{ id: "s", defect: "scratch", shape: { kind: "line", points: [[150, 250], [250, 250]], width: 3 } }],
+      defects: [
+        {
+          id: "s",
+          defect: "scratch",
+          shape: {
+            kind: "line",
+            points: [
+              [150, 250],
+              [250, 250],
+            ],
+            width: 3,
+          },
+        },
+      ],
     });
     expect(measurement.calibration).toMatchObject({ method: "none", pxPerMm: null });
     expect(measurement.surfaceMm2).toBeNull();
@@ -130,7 +289,19 @@ describe("measurePhoto", () => {
   });
 
   it("notes a zone that falls outside the surface and zones placed without a Surface", async () => {
-    const outside = await measurePhoto({ ...base, zones: [{ id: "off", polygon: [[1.2, 0], [1.4, 0], [1.4, 0.5]] }] });
+    const outside = await measurePhoto({
+      ...base,
+      zones: [
+        {
+          id: "off",
+          polygon: [
+            [1.2, 0],
+            [1.4, 0],
+            [1.4, 0.5],
+          ],
+        },
+      ],
+    });
     expect(outside.measurement.byZone.off.zonePx).toBe(0);
     expect(outside.notes.join(" ")).toMatch(/Zone "off" falls outside the Surface/);
     const noSurface = await measurePhoto({ ...base, surfaces: [] });

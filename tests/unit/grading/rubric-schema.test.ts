@@ -39,27 +39,17 @@ describe("rubric schema", () => {
   });
 
   it("names the rule and field in each error, in plain words", () => {
-    expect(errorsOf({ rules: [share({ threshold: 150 })] })).toEqual([
-      'Rule 1 ("lens-scratch-b"), threshold: is a percentage and cannot exceed 100 %',
-    ]);
+    expect(errorsOf({ rules: [share({ threshold: 150 })] })).toEqual(['Rule 1 ("lens-scratch-b"), threshold: is a percentage and cannot exceed 100 %']);
     expect(errorsOf({ rules: [share({ threshold: -1 })] })).toEqual(['Rule 1 ("lens-scratch-b"), threshold: cannot be negative']);
-    expect(errorsOf({ rules: [share({ threshold: Number.POSITIVE_INFINITY })] })).toEqual([
-      'Rule 1 ("lens-scratch-b"), threshold: must be a finite number, not Infinity',
-    ]);
-    expect(errorsOf({ rules: [share({ threshold: Number.NaN })] })).toEqual([
-      'Rule 1 ("lens-scratch-b"), threshold: must be a finite number, not NaN',
-    ]);
+    expect(errorsOf({ rules: [share({ threshold: Number.POSITIVE_INFINITY })] })).toEqual(['Rule 1 ("lens-scratch-b"), threshold: must be a finite number, not Infinity']);
+    expect(errorsOf({ rules: [share({ threshold: Number.NaN })] })).toEqual(['Rule 1 ("lens-scratch-b"), threshold: must be a finite number, not NaN']);
     expect(errorsOf({ rules: [share({ metric: "sharpness" })] })).toEqual([
       'Rule 1 ("lens-scratch-b"), metric: unknown metric "sharpness"; use one of share, count, maxLengthMm, totalLengthMm, areaMm2, maxDiameterMm, pixelFaultClass, functionalFailures',
     ]);
-    expect(errorsOf({ rules: [share({ grade: "A" })] })).toEqual([
-      'Rule 1 ("lens-scratch-b"), grade: cannot be A: A is the default grade, a rule can only lower it to B, C or Reject',
-    ]);
+    expect(errorsOf({ rules: [share({ grade: "A" })] })).toEqual(['Rule 1 ("lens-scratch-b"), grade: cannot be A: A is the default grade, a rule can only lower it to B, C or Reject']);
     expect(errorsOf({ rules: [share({ grade: "D" })] })).toEqual(['Rule 1 ("lens-scratch-b"), grade: must be B, C or Reject, not "D"']);
     expect(errorsOf({ rules: [share({ grade: undefined })] })).toEqual(['Rule 1 ("lens-scratch-b"), grade: is required']);
-    expect(errorsOf({ rules: [share({ comparison: "<" })] })).toEqual([
-      'Rule 1 ("lens-scratch-b"), comparison: must be ">" or ">=", not "<" (rules fire when a measure exceeds its limit)',
-    ]);
+    expect(errorsOf({ rules: [share({ comparison: "<" })] })).toEqual(['Rule 1 ("lens-scratch-b"), comparison: must be ">" or ">=", not "<" (rules fire when a measure exceeds its limit)']);
   });
 
   it("rejects a zone on metrics that zones do not record, and fractional counts", () => {
@@ -67,9 +57,7 @@ describe("rubric schema", () => {
       'Rule 1 ("lens-scratch-b"): unknown field "zone" for a count rule. Zones record covered area only, so only share and areaMm2 rules take a zone.',
     ]);
     const { zone: _zone, ...unzoned } = share({ metric: "count", threshold: 1.5 });
-    expect(errorsOf({ rules: [unzoned] })).toEqual([
-      'Rule 1 ("lens-scratch-b"), threshold: must be a whole number',
-    ]);
+    expect(errorsOf({ rules: [unzoned] })).toEqual(['Rule 1 ("lens-scratch-b"), threshold: must be a whole number']);
   });
 
   it('rejects ">= 0", which would fire on a clean unit', () => {
@@ -81,23 +69,15 @@ describe("rubric schema", () => {
 
   it("checks pixel-fault classes and failure severities", () => {
     const pixel = { id: "px", metric: "pixelFaultClass", comparison: "worse-than", threshold: "beyond", grade: "C" };
-    expect(errorsOf({ rules: [pixel] })).toEqual([
-      'Rule 1 ("px"), threshold: cannot be "beyond": no class is worse; use "IV" to mean "beyond class IV"',
-    ]);
-    expect(errorsOf({ rules: [{ ...pixel, threshold: "V" }] })).toEqual([
-      'Rule 1 ("px"), threshold: must be an ISO 13406-2 class I, II, III or IV, not "V"',
-    ]);
-    expect(errorsOf({ rules: [{ ...pixel, threshold: "II", comparison: ">" }] })).toEqual([
-      'Rule 1 ("px"), comparison: must be "worse-than" for a pixelFaultClass rule',
-    ]);
+    expect(errorsOf({ rules: [pixel] })).toEqual(['Rule 1 ("px"), threshold: cannot be "beyond": no class is worse; use "IV" to mean "beyond class IV"']);
+    expect(errorsOf({ rules: [{ ...pixel, threshold: "V" }] })).toEqual(['Rule 1 ("px"), threshold: must be an ISO 13406-2 class I, II, III or IV, not "V"']);
+    expect(errorsOf({ rules: [{ ...pixel, threshold: "II", comparison: ">" }] })).toEqual(['Rule 1 ("px"), comparison: must be "worse-than" for a pixelFaultClass rule']);
     const failures = { id: "f", metric: "functionalFailures", severity: "fatal", comparison: ">", threshold: 0, grade: "Reject" };
     expect(errorsOf({ rules: [failures] })).toEqual(['Rule 1 ("f"), severity: must be critical, major or minor, not "fatal"']);
   });
 
   it("rejects duplicate ids, bad ids, too many rules and unknown rubric fields", () => {
-    expect(errorsOf({ rules: [share(), share()] })).toEqual([
-      'Rule 2 ("lens-scratch-b"), id: "lens-scratch-b" is already used by rule 1; rule ids must be unique',
-    ]);
+    expect(errorsOf({ rules: [share(), share()] })).toEqual(['Rule 2 ("lens-scratch-b"), id: "lens-scratch-b" is already used by rule 1; rule ids must be unique']);
     expect(errorsOf({ rules: [share({ id: "builtin:x" })] })).toEqual([
       'Rule 1 ("builtin:x"), id: must be 1–64 characters of lower-case letters, digits, ".", "_" or "-", starting with a letter or digit',
     ]);

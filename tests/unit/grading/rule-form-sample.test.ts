@@ -4,7 +4,6 @@
  * evaluation (lib/grading/evaluate.ts), so a wrong mapping shows up as a wrong grade.
  */
 import { describe, expect, it } from "vitest";
-import type { ViewDefinition } from "@/db/schema/lots";
 import { evaluateRubric } from "@/lib/grading/evaluate";
 import { EXAMPLE_PART_TYPES } from "@/lib/grading/example-part-types";
 import { EXAMPLE_RUBRICS } from "@/lib/grading/example-rubrics";
@@ -12,9 +11,21 @@ import { fromRubric, newRule, rubricFormErrors, toRubric, type RuleFormValues } 
 import type { Rubric } from "@/lib/grading/rubric-schema";
 import { buildSampleUnit, readingKey, sampleReadingsFor } from "@/lib/grading/sample-unit";
 import { buildUnitMetrics } from "@/lib/grading/unit-metrics";
+import type { ViewDefinition } from "@/lib/part-types/schemas";
 
 const lists = { defects: ["scratch", "dent", "crack"], zones: ["lens-window", "body"], views: ["lens", "back"] };
-const row = (over: Partial<RuleFormValues>): RuleFormValues => ({ id: "r1", metric: "count", defect: "dent", view: "", zone: "", severity: "major", comparison: ">", threshold: "0", grade: "B", ...over });
+const row = (over: Partial<RuleFormValues>): RuleFormValues => ({
+  id: "r1",
+  metric: "count",
+  defect: "dent",
+  view: "",
+  zone: "",
+  severity: "major",
+  comparison: ">",
+  threshold: "0",
+  grade: "B",
+  ...over,
+});
 
 describe("rule form mapping", () => {
   it("round-trips every example rubric unchanged", () => {
@@ -22,7 +33,14 @@ describe("rule form mapping", () => {
   });
 
   it("keeps only the fields a metric takes", () => {
-    const values = { rules: [row({ metric: "count", zone: "body", view: "lens" }), row({ id: "f", metric: "functionalFailures", defect: "dent", view: "lens", severity: "critical", grade: "Reject" }), row({ id: "p", metric: "pixelFaultClass", threshold: "II", comparison: ">=" })], notes: [] };
+    const values = {
+      rules: [
+        row({ metric: "count", zone: "body", view: "lens" }),
+        row({ id: "f", metric: "functionalFailures", defect: "dent", view: "lens", severity: "critical", grade: "Reject" }),
+        row({ id: "p", metric: "pixelFaultClass", threshold: "II", comparison: ">=" }),
+      ],
+      notes: [],
+    };
     expect(toRubric(values)).toEqual({
       rules: [
         { id: "r1", metric: "count", defect: "dent", comparison: ">", threshold: 0, view: "lens", grade: "B" },
@@ -56,8 +74,38 @@ describe("rule form mapping", () => {
 });
 
 const views: ViewDefinition[] = [
-  { key: "lens", label: "Lens", required: true, zones: [{ id: "lens-window", label: "Lens window", polygon: [[0, 0], [1, 0], [1, 1]] }] },
-  { key: "back", label: "Back", required: true, zones: [{ id: "body", label: "Body", polygon: [[0, 0], [1, 0], [1, 1]] }] },
+  {
+    key: "lens",
+    label: "Lens",
+    required: true,
+    zones: [
+      {
+        id: "lens-window",
+        label: "Lens window",
+        polygon: [
+          [0, 0],
+          [1, 0],
+          [1, 1],
+        ],
+      },
+    ],
+  },
+  {
+    key: "back",
+    label: "Back",
+    required: true,
+    zones: [
+      {
+        id: "body",
+        label: "Body",
+        polygon: [
+          [0, 0],
+          [1, 0],
+          [1, 1],
+        ],
+      },
+    ],
+  },
 ];
 const grade = (rubric: Rubric, readings: Record<string, number>, failures = { critical: 0, major: 0, minor: 0 }) => {
   const sample = buildSampleUnit(views, rubric, { readings, pixelClasses: {}, functionalFailures: failures });
@@ -78,7 +126,9 @@ describe("sample unit", () => {
   const dentKey = readingKey({ metric: "count", defect: "dent", view: null, zone: null });
 
   it("lists one reading per selector and the failure severities the rubric reads", () => {
-    const { readings, severities } = sampleReadingsFor({ rules: [...rubric.rules, { id: "lens-c", metric: "share", defect: "scratch", zone: "lens-window", comparison: ">", threshold: 1, grade: "C" }] });
+    const { readings, severities } = sampleReadingsFor({
+      rules: [...rubric.rules, { id: "lens-c", metric: "share", defect: "scratch", zone: "lens-window", comparison: ">", threshold: 1, grade: "C" }],
+    });
     expect(readings.map((r) => r.key)).toEqual([lensKey, backKey, dentKey]);
     expect(severities).toEqual(["major"]);
   });
@@ -103,7 +153,20 @@ describe("sample unit", () => {
 
   it("works for every example rubric with its example part type's views", () => {
     for (const [slug, example] of Object.entries(EXAMPLE_RUBRICS)) {
-      const partViews = EXAMPLE_PART_TYPES[slug as keyof typeof EXAMPLE_PART_TYPES].views!.map((key) => ({ key, label: key, required: true, zones: EXAMPLE_PART_TYPES[slug as keyof typeof EXAMPLE_PART_TYPES].zones!.map((id) => ({ id, label: id, polygon: [[0, 0], [1, 0], [1, 1]] as [number, number][] })) }));
+      const partViews = EXAMPLE_PART_TYPES[slug as keyof typeof EXAMPLE_PART_TYPES].views!.map((key) => ({
+        key,
+        label: key,
+        required: true,
+        zones: EXAMPLE_PART_TYPES[slug as keyof typeof EXAMPLE_PART_TYPES].zones!.map((id) => ({
+          id,
+          label: id,
+          polygon: [
+            [0, 0],
+            [1, 0],
+            [1, 1],
+          ] as [number, number][],
+        })),
+      }));
       const sample = buildSampleUnit(partViews, example, { readings: {}, pixelClasses: {}, functionalFailures: { critical: 0, major: 0, minor: 0 } });
       const result = evaluateRubric({ rubric: example, metrics: buildUnitMetrics(sample), defectSeverities: {} });
       expect(result.grade, slug).toBe("A");

@@ -9,8 +9,7 @@ import { buildUnitMetrics, readMetric, totalDefectCount } from "@/lib/grading/un
 import type { Rule } from "@/lib/grading/rubric-schema";
 import { noFailures, photo } from "./fixtures";
 
-const rule = (over: Record<string, unknown>) =>
-  ({ id: "r", metric: "count", defect: "scratch", comparison: ">", threshold: 0, grade: "B", ...over }) as Rule;
+const rule = (over: Record<string, unknown>) => ({ id: "r", metric: "count", defect: "scratch", comparison: ">", threshold: 0, grade: "B", ...over }) as Rule;
 
 const twoBackOneFront = buildUnitMetrics({
   photos: [
@@ -113,15 +112,10 @@ describe("readMetric aggregation", () => {
 
   it("takes the worst pixel-fault class over photos that have one", () => {
     const metrics = buildUnitMetrics({
-      photos: [
-        photo({ photoId: "w", viewKey: "screen-white", pixelClass: "II" }),
-        photo({ photoId: "k", viewKey: "screen-black", pixelClass: "IV" }),
-        photo({ photoId: "f", viewKey: "front" }),
-      ],
+      photos: [photo({ photoId: "w", viewKey: "screen-white", pixelClass: "II" }), photo({ photoId: "k", viewKey: "screen-black", pixelClass: "IV" }), photo({ photoId: "f", viewKey: "front" })],
       functionalFailures: noFailures,
     });
-    const pixel = (view?: string) =>
-      readMetric(metrics, { id: "p", metric: "pixelFaultClass", view, comparison: "worse-than", threshold: "I", grade: "B" });
+    const pixel = (view?: string) => readMetric(metrics, { id: "p", metric: "pixelFaultClass", view, comparison: "worse-than", threshold: "I", grade: "B" });
     // ISO 13406-2 class order I (best) … IV (a, docs/references.md table); "beyond" is worse than IV.
     expect(pixel().value).toBe("IV");
     expect(pixel("screen-white").value).toBe("II");
@@ -141,12 +135,8 @@ describe("buildUnitMetrics validation", () => {
       new AppError("bad_request", "Invalid photo measurement 1: byDefect.scratch.share: Too big: expected number to be <=1"),
     );
     const twice = photo({ photoId: "p", viewKey: "back" });
-    expect(() => buildUnitMetrics({ photos: [twice, twice], functionalFailures: noFailures })).toThrowError(
-      'Photo "p" is measured twice; each photo counts once.',
-    );
-    expect(() => buildUnitMetrics({ photos: [], functionalFailures: { critical: -1, major: 0, minor: 0 } })).toThrowError(
-      /^Invalid functional failure counts: critical: /,
-    );
+    expect(() => buildUnitMetrics({ photos: [twice, twice], functionalFailures: noFailures })).toThrowError('Photo "p" is measured twice; each photo counts once.');
+    expect(() => buildUnitMetrics({ photos: [], functionalFailures: { critical: -1, major: 0, minor: 0 } })).toThrowError(/^Invalid functional failure counts: critical: /);
     expect(() => buildUnitMetrics({ photos: [], functionalFailures: { critical: 0.5, major: 0, minor: 0 } })).toThrowError(AppError);
   });
 });

@@ -54,7 +54,9 @@ describe("measurement staleness", () => {
 
   it("is stale when regions changed, a photo was added or removed, or the checklist changed", () => {
     const name = (id: string) => `Photo ${id.toUpperCase()}`;
-    expect(measurementStaleness(measured, { regionsVersions: { a: 3, b: 5 }, checklistStamp: measured.checklistStamp }, name).reasons).toEqual(["Photo A: regions changed since measuring (version 2 → 3)."]);
+    expect(measurementStaleness(measured, { regionsVersions: { a: 3, b: 5 }, checklistStamp: measured.checklistStamp }, name).reasons).toEqual([
+      "Photo A: regions changed since measuring (version 2 → 3).",
+    ]);
     expect(measurementStaleness(measured, { regionsVersions: { a: 2, b: 5, c: 0 }, checklistStamp: measured.checklistStamp }, name).reasons).toEqual(["Photo C was added after measuring."]);
     expect(measurementStaleness(measured, { regionsVersions: { a: 2 }, checklistStamp: measured.checklistStamp }, name).reasons).toEqual(["Photo B was measured but is no longer part of the unit."]);
     expect(measurementStaleness(measured, { regionsVersions: { a: 2, b: 5 }, checklistStamp: null }).reasons).toEqual(["Checklist results changed since measuring."]);

@@ -61,7 +61,9 @@ describe("the route table", () => {
 
   it("each row states the permission its handler names", () => {
     const named = new Map(discovered.map((r) => [key(r.method, r.path), r.access]));
-    const differing = ROUTES.filter((r) => named.get(key(r.method, asTemplate(r.path))) !== r.permission).map((r) => `${key(r.method, r.path)}: table ${r.permission}, handler ${named.get(key(r.method, asTemplate(r.path)))}`);
+    const differing = ROUTES.filter((r) => named.get(key(r.method, asTemplate(r.path))) !== r.permission).map(
+      (r) => `${key(r.method, r.path)}: table ${r.permission}, handler ${named.get(key(r.method, asTemplate(r.path)))}`,
+    );
     expect(differing).toEqual([]);
   });
 });

@@ -23,7 +23,11 @@ function countingRequest(total: number, headers: Record<string, string> = {}) {
 }
 
 const schema = z.strictObject({ a: z.number() });
-const failure = (promise: Promise<unknown>) => promise.then(() => null, (err: unknown) => err);
+const failure = (promise: Promise<unknown>) =>
+  promise.then(
+    () => null,
+    (err: unknown) => err,
+  );
 
 describe("parseJson", () => {
   it("answers 413 once the counter passes the limit, without pulling the rest of a chunked body", async () => {

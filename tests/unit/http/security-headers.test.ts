@@ -3,7 +3,13 @@ import { getSignedUrl } from "@aws-sdk/s3-request-presigner";
 import { describe, expect, it } from "vitest";
 import { objectStoreOrigin, pageContentSecurityPolicy, staticSecurityHeaders } from "@/lib/http/security-headers";
 
-const directives = (csp: string) => Object.fromEntries(csp.split(";").map((d) => d.trim().split(/\s+/)).map(([name, ...values]) => [name, values]));
+const directives = (csp: string) =>
+  Object.fromEntries(
+    csp
+      .split(";")
+      .map((d) => d.trim().split(/\s+/))
+      .map(([name, ...values]) => [name, values]),
+  );
 
 describe("pageContentSecurityPolicy", () => {
   const csp = directives(pageContentSecurityPolicy({ nonce: "abc123", connectSources: ["http://127.0.0.1:4600"], https: false, dev: false }));

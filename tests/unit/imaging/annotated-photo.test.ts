@@ -28,14 +28,20 @@ async function pixel(jpeg: Buffer, x: number, y: number) {
   return { r: data[at], g: data[at + 1], b: data[at + 2] };
 }
 
-const near = (a: { r: number; g: number; b: number }, b: { r: number; g: number; b: number }, tolerance = 24) => Math.abs(a.r - b.r) <= tolerance && Math.abs(a.g - b.g) <= tolerance && Math.abs(a.b - b.b) <= tolerance;
+const near = (a: { r: number; g: number; b: number }, b: { r: number; g: number; b: number }, tolerance = 24) =>
+  Math.abs(a.r - b.r) <= tolerance && Math.abs(a.g - b.g) <= tolerance && Math.abs(a.b - b.b) <= tolerance;
 const hex = (colour: string) => ({ r: parseInt(colour.slice(1, 3), 16), g: parseInt(colour.slice(3, 5), 16), b: parseInt(colour.slice(5, 7), 16) });
 
 // Rendering and reading PDFs/images back is CPU-bound; the machine may be shared.
 describe("renderAnnotatedPhoto", { timeout: 30_000 }, () => {
   it("draws a region's outline in its class colour where the region is, and leaves the rest of the photo alone", async () => {
     const dentColour = defectStyleMap(classes.map((c) => c.key)).get("dent")!.colour;
-    const out = await renderAnnotatedPhoto({ image: await greyPhoto(400, 300), regions: [{ defect: "dent", shape: { kind: "rect", x: 100, y: 100, width: 120, height: 80 } }], classes, legend: false });
+    const out = await renderAnnotatedPhoto({
+      image: await greyPhoto(400, 300),
+      regions: [{ defect: "dent", shape: { kind: "rect", x: 100, y: 100, width: 120, height: 80 } }],
+      classes,
+      legend: false,
+    });
     expect([out.width, out.height]).toEqual([400, 300]);
     // Walk the rectangle's outline: dashes leave gaps (halo shows there), but a good part is the class colour.
     const { data, info } = await sharp(out.jpeg).raw().toBuffer({ resolveWithObject: true });
@@ -81,7 +87,12 @@ describe("renderAnnotatedPhoto", { timeout: 30_000 }, () => {
   });
 
   it("adds a white legend band below the photo", async () => {
-    const out = await renderAnnotatedPhoto({ image: await greyPhoto(400, 300), regions: [{ defect: "dent", shape: { kind: "rect", x: 10, y: 10, width: 20, height: 20 } }], classes, caption: "Unit OV-1 · Front · grade C" });
+    const out = await renderAnnotatedPhoto({
+      image: await greyPhoto(400, 300),
+      regions: [{ defect: "dent", shape: { kind: "rect", x: 10, y: 10, width: 20, height: 20 } }],
+      classes,
+      caption: "Unit OV-1 · Front · grade C",
+    });
     expect(out.photoHeight).toBe(300);
     expect(out.height).toBeGreaterThan(320);
     expect(near(await pixel(out.jpeg, 395, out.height - 3), { r: 255, g: 255, b: 255 }, 6)).toBe(true);
@@ -92,9 +103,39 @@ describe("annotationOverlay", () => {
   const input = {
     image: Buffer.alloc(0),
     regions: [
-      { defect: "scratch", shape: { kind: "line" as const, points: [[10, 10], [90, 40]] as [number, number][], width: 3 } },
-      { defect: "scratch", shape: { kind: "line" as const, points: [[20, 60], [90, 90]] as [number, number][], width: 2 } },
-      { defect: "crack", shape: { kind: "polygon" as const, points: [[50, 50], [80, 50], [70, 80]] as [number, number][] } },
+      {
+        defect: "scratch",
+        shape: {
+          kind: "line" as const,
+          points: [
+            [10, 10],
+            [90, 40],
+          ] as [number, number][],
+          width: 3,
+        },
+      },
+      {
+        defect: "scratch",
+        shape: {
+          kind: "line" as const,
+          points: [
+            [20, 60],
+            [90, 90],
+          ] as [number, number][],
+          width: 2,
+        },
+      },
+      {
+        defect: "crack",
+        shape: {
+          kind: "polygon" as const,
+          points: [
+            [50, 50],
+            [80, 50],
+            [70, 80],
+          ] as [number, number][],
+        },
+      },
       { defect: "swelling", shape: { kind: "rect" as const, x: 1, y: 1, width: 5, height: 5 } },
     ],
     surface: [{ kind: "rect" as const, x: 0, y: 0, width: 100, height: 100 }],

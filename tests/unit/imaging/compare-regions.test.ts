@@ -120,7 +120,11 @@ describe.each<RegionRaster>(["sharp", "exact"])("compareRegionSets (regionRaster
         b: [],
       });
       const dent = result.byDefect.dent;
-      expect(dent.aDefects.map((defect) => [defect.regionIds, defect.px])).toEqual([[["k1", "k2"], 175], [["k3"], 25], [["k4"], 25]]);
+      expect(dent.aDefects.map((defect) => [defect.regionIds, defect.px])).toEqual([
+        [["k1", "k2"], 175],
+        [["k3"], 25],
+        [["k4"], 25],
+      ]);
       expect(dent).toMatchObject({ aPx: 225, bPx: 0, matchedA: 0, onlyA: 3, onlyB: 0, iou: 0 });
     });
   });
@@ -139,8 +143,7 @@ describe.each<RegionRaster>(["sharp", "exact"])("compareRegionSets (regionRaster
         expect(areaBoth).toBeGreaterThan(2000);
         expect(areaBoth).toBeLessThan(0.95 * Math.min(areaA, areaB));
         const measured = result.byDefect[defect];
-        const within = (px: number, exact: number, label: string) =>
-          expect(Math.abs(px - exact) / exact, `${defect} ${label}: ${px} px vs exact ${exact.toFixed(1)}`).toBeLessThan(0.01);
+        const within = (px: number, exact: number, label: string) => expect(Math.abs(px - exact) / exact, `${defect} ${label}: ${px} px vs exact ${exact.toFixed(1)}`).toBeLessThan(0.01);
         within(measured.aPx, areaA, "A");
         within(measured.bPx, areaB, "B");
         within(measured.intersectionPx, areaBoth, "A∩B");
@@ -154,7 +157,10 @@ describe.each<RegionRaster>(["sharp", "exact"])("compareRegionSets (regionRaster
     it("per-side pixels and defects equal measureCoverage's px and count for the same regions (same rasteriser)", async () => {
       const input = perturbedScene(14);
       const result = await compare(input);
-      for (const [sideRegions, key] of [[input.a, "a"], [input.b, "b"]] as const) {
+      for (const [sideRegions, key] of [
+        [input.a, "a"],
+        [input.b, "b"],
+      ] as const) {
         const coverage = await measureCoverage({ width: input.width, height: input.height, regions: sideRegions, surface: input.surface }, { regionRaster });
         for (const [defect, measured] of Object.entries(coverage.byDefect)) {
           expect(key === "a" ? result.byDefect[defect].aPx : result.byDefect[defect].bPx, `${key} ${defect}`).toBe(measured.px);
@@ -189,7 +195,15 @@ describe("compareRegionSets input validation", () => {
     const error = await compareRegionSets({
       width: 0,
       height: 10,
-      a: [region("k1", "dent", { kind: "polygon", points: [[0, 0], [1, 1]] })],
+      a: [
+        region("k1", "dent", {
+          kind: "polygon",
+          points: [
+            [0, 0],
+            [1, 1],
+          ],
+        }),
+      ],
       b: [region("", "dent", rect(0, 0, 1, 1))],
     }).catch((caught: unknown) => caught);
     expect(error).toBeInstanceOf(AppError);

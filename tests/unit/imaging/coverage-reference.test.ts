@@ -24,7 +24,9 @@ function referenceCoverage(input: CoverageInput) {
   return {
     surfaceArea: multiPolygonArea(surface),
     byDefect: Object.fromEntries(defects.map((defect) => [defect, classArea(defect, surface)])),
-    byZone: Object.fromEntries(zones.map((zone) => [zone.id, { zoneArea: multiPolygonArea(zone.clipped), byDefect: Object.fromEntries(defects.map((defect) => [defect, classArea(defect, zone.clipped)])) }])),
+    byZone: Object.fromEntries(
+      zones.map((zone) => [zone.id, { zoneArea: multiPolygonArea(zone.clipped), byDefect: Object.fromEntries(defects.map((defect) => [defect, classArea(defect, zone.clipped)])) }]),
+    ),
   };
 }
 
@@ -43,7 +45,15 @@ function randomScene(seed: number, withCurves: boolean): CoverageInput {
     // Radii within the Spot cap (10 % of the 640 px long edge, lib/geometry/limits.ts).
     if (withCurves && k % 3 === 1) shape = { kind: "spot", x: cx, y: cy, radius: 15 + random() * 49 };
     if (withCurves && k % 3 === 2) {
-      shape = { kind: "line", points: [[cx, cy], [cx + 80 + random() * 150, cy + random() * 120 - 60], [cx + random() * 200, cy + 100 + random() * 60]], width: 4 + random() * 14 };
+      shape = {
+        kind: "line",
+        points: [
+          [cx, cy],
+          [cx + 80 + random() * 150, cy + random() * 120 - 60],
+          [cx + random() * 200, cy + 100 + random() * 60],
+        ],
+        width: 4 + random() * 14,
+      };
     }
     regions.push({ id: `r${k}`, defect, shape });
   }
@@ -108,7 +118,17 @@ describe("trap: @turf/area is geodesic (square metres on the globe), not a pixel
   it("our reference area is planar: a 100 × 100 px square has area 10 000 wherever it sits", () => {
     // Source: shoelace formula (a, geometry). A geodesic area would read the numbers as degrees and
     // change with "latitude" y (and be undefined beyond ±90), so it must not be the reference.
-    const square = (x: number, y: number): MultiPolygon => [[[[x, y], [x + 100, y], [x + 100, y + 100], [x, y + 100], [x, y]]]];
+    const square = (x: number, y: number): MultiPolygon => [
+      [
+        [
+          [x, y],
+          [x + 100, y],
+          [x + 100, y + 100],
+          [x, y + 100],
+          [x, y],
+        ],
+      ],
+    ];
     expect(multiPolygonArea(square(0, 0))).toBe(10_000);
     expect(multiPolygonArea(square(2000, 2900))).toBe(10_000);
   });

@@ -21,7 +21,17 @@ describe.each<CoverageOptions["regionRaster"]>(["sharp", "exact"])("measureCover
     it("counts an axis-aligned shape with corners on pixel corners as exactly its area", async () => {
       // Source: docs/references.md "Raster vs exact" (a polygon with vertices on pixel corners counts
       // exactly its area); area of a rectangle w·h and of an L by the shoelace formula (a, geometry).
-      const lShape: Shape = { kind: "polygon", points: [[10, 10], [70, 10], [70, 30], [30, 30], [30, 90], [10, 90]] };
+      const lShape: Shape = {
+        kind: "polygon",
+        points: [
+          [10, 10],
+          [70, 10],
+          [70, 30],
+          [30, 30],
+          [30, 90],
+          [10, 90],
+        ],
+      };
       const result = await measure({ width: 200, height: 150, regions: [region("r", "dent", rect(100, 20, 37, 51)), region("l", "chip", lShape)] });
       expect(result.byDefect.dent.px).toBe(37 * 51);
       expect(result.byDefect.chip.px).toBe(60 * 20 + 20 * 60);
@@ -50,7 +60,16 @@ describe.each<CoverageOptions["regionRaster"]>(["sharp", "exact"])("measureCover
       const result = await measure({
         width: 800,
         height: 400,
-        regions: [region("l", "scratch", { kind: "line", points: [[40.7, 60.2], [651, 268.1]], width })],
+        regions: [
+          region("l", "scratch", {
+            kind: "line",
+            points: [
+              [40.7, 60.2],
+              [651, 268.1],
+            ],
+            width,
+          }),
+        ],
       });
       const area = length * width + Math.PI * (width / 2) ** 2;
       expect(Math.abs(result.byDefect.scratch.px - area) / area).toBeLessThan(0.01);
@@ -100,11 +119,7 @@ describe.each<CoverageOptions["regionRaster"]>(["sharp", "exact"])("measureCover
       const result = await measure({
         width: 400,
         height: 100,
-        regions: [
-          region("a", "dent", rect(-10, 90, 30, 30)),
-          region("s", "dust", { kind: "spot", x: 0, y: 0, radius: 40 }),
-          region("far", "chip", rect(500, 500, 10, 10)),
-        ],
+        regions: [region("a", "dent", rect(-10, 90, 30, 30)), region("s", "dust", { kind: "spot", x: 0, y: 0, radius: 40 }), region("far", "chip", rect(500, 500, 10, 10))],
       });
       expect(result.byDefect.dent.px).toBe(20 * 10);
       expect(Math.abs(result.byDefect.dust.px - (Math.PI * 1600) / 4) / ((Math.PI * 1600) / 4)).toBeLessThan(0.01);
@@ -140,8 +155,22 @@ describe.each<CoverageOptions["regionRaster"]>(["sharp", "exact"])("measureCover
         width: 300,
         height: 200,
         regions: [
-          region("a", "scratch", { kind: "line", points: [[10, 10], [120, 80]], width: 4 }),
-          region("b", "scratch", { kind: "line", points: [[10, 80], [120, 10]], width: 4 }),
+          region("a", "scratch", {
+            kind: "line",
+            points: [
+              [10, 10],
+              [120, 80],
+            ],
+            width: 4,
+          }),
+          region("b", "scratch", {
+            kind: "line",
+            points: [
+              [10, 80],
+              [120, 10],
+            ],
+            width: 4,
+          }),
           region("c", "scratch", { kind: "spot", x: 250, y: 150, radius: 10 }),
         ],
       });
@@ -189,7 +218,16 @@ describe("measureCoverage input validation", () => {
     const error = await rejection({
       ...valid,
       width: 0,
-      regions: [region("a", "dent", { kind: "spot", x: Number.NaN, y: 1, radius: -1 }), region("b", "dent", { kind: "polygon", points: [[0, 0], [1, 1]] })],
+      regions: [
+        region("a", "dent", { kind: "spot", x: Number.NaN, y: 1, radius: -1 }),
+        region("b", "dent", {
+          kind: "polygon",
+          points: [
+            [0, 0],
+            [1, 1],
+          ],
+        }),
+      ],
     });
     expect(error).toBeInstanceOf(AppError);
     expect((error as AppError).code).toBe("bad_request");
@@ -201,7 +239,10 @@ describe("measureCoverage input validation", () => {
     const error = (await rejection({
       ...valid,
       regions: [region("a", "dent", { kind: "blob" } as never), region("b", "scratch", { kind: "line", points: [[0, 0]], width: 0 })],
-      zones: [{ id: "z", shape: rect(0, 0, 1, 1) }, { id: "z", shape: rect(0, 0, 1, 1) }],
+      zones: [
+        { id: "z", shape: rect(0, 0, 1, 1) },
+        { id: "z", shape: rect(0, 0, 1, 1) },
+      ],
     })) as AppError;
     expect(Object.keys(error.fieldErrors ?? {}).sort()).toEqual(["regions.0.shape.kind", "regions.1.shape.width", "zones.1.id"]);
   });
@@ -215,12 +256,27 @@ describe("measureCoverage input validation", () => {
   it("refuses, before any work, Lines and Spots beyond their caps and sets beyond the per-photo work budget", async () => {
     // The issue's case: a 2-point Line 4 000 px wide on a 4000 × 3000 photo (16 s through sharp before).
     const started = performance.now();
-    const wide = (await rejection({ width: 4000, height: 3000, regions: [region("w", "scratch", { kind: "line", points: [[0, 1500], [4000, 1500]], width: 4000 })] })) as AppError;
+    const wide = (await rejection({
+      width: 4000,
+      height: 3000,
+      regions: [
+        region("w", "scratch", {
+          kind: "line",
+          points: [
+            [0, 1500],
+            [4000, 1500],
+          ],
+          width: 4000,
+        }),
+      ],
+    })) as AppError;
     expect(wide.fieldErrors).toEqual({ "regions.0.shape.width": "must be at most 200 px (5 % of the photo's long edge)" });
     const big = (await rejection({ width: 4000, height: 3000, regions: [region("s", "dust", { kind: "spot", x: 10, y: 10, radius: 401 })] })) as AppError;
     expect(big.fieldErrors).toEqual({ "regions.0.shape.radius": "must be at most 400 px (10 % of the photo's long edge)" });
     // 40 zigzags of 2 000 edges, each edge spanning all 3 000 rows: 240 million shape rows.
-    const zigzag = Array.from({ length: 40 }, (_, k) => region(`z${k}`, "dent", { kind: "polygon", points: Array.from({ length: 2000 }, (_, i) => [k + i * 0.01, i % 2 ? 3000 : 0] as [number, number]) }));
+    const zigzag = Array.from({ length: 40 }, (_, k) =>
+      region(`z${k}`, "dent", { kind: "polygon", points: Array.from({ length: 2000 }, (_, i) => [k + i * 0.01, i % 2 ? 3000 : 0] as [number, number]) }),
+    );
     const costly = (await rejection({ width: 4000, height: 3000, regions: zigzag })) as AppError;
     expect(costly.message).toMatch(/too long to measure: their edges and lines cross 240\.1 million pixel rows in all, at most 1\.0 million are allowed per photo/);
     // Refused from arithmetic on the input, not by trying (generous bound for a loaded machine).
@@ -230,7 +286,16 @@ describe("measureCoverage input validation", () => {
   it("stops with DeadlineExceeded once its deadline has passed, also inside the rasterising loops", async () => {
     await expect(measureCoverage(valid, { deadline: Date.now() - 1 })).rejects.toBeInstanceOf(DeadlineExceeded);
     // Within the caps but plenty of rows: the check inside the loops fires long before the end.
-    const lines = Array.from({ length: 300 }, (_, k) => region(`l${k}`, "scratch", { kind: "line", points: [[k * 4, 0], [k * 4 + 3, 3000]], width: 199 }));
+    const lines = Array.from({ length: 300 }, (_, k) =>
+      region(`l${k}`, "scratch", {
+        kind: "line",
+        points: [
+          [k * 4, 0],
+          [k * 4 + 3, 3000],
+        ],
+        width: 199,
+      }),
+    );
     const started = performance.now();
     await expect(measureCoverage({ width: 4000, height: 3000, regions: lines }, { deadline: Date.now() + 20 })).rejects.toBeInstanceOf(DeadlineExceeded);
     expect(performance.now() - started).toBeLessThan(2000);

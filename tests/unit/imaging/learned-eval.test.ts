@@ -23,8 +23,18 @@ function area(polygons: Polygon[]): number {
 
 describe("regionIou", () => {
   it("matches exact polygon areas (polygon-clipping) within 1 %", () => {
-    const a: Pair[] = [[100, 100], [520, 140], [480, 560], [130, 430]];
-    const b: Pair[] = [[300, 250], [700, 260], [650, 700], [280, 610]];
+    const a: Pair[] = [
+      [100, 100],
+      [520, 140],
+      [480, 560],
+      [130, 430],
+    ];
+    const b: Pair[] = [
+      [300, 250],
+      [700, 260],
+      [650, 700],
+      [280, 610],
+    ];
     const shared = area(polygonClipping.intersection([a], [b]));
     const union = area(polygonClipping.union([a], [b]));
     const exact = shared / union;
@@ -42,7 +52,11 @@ describe("regionIou", () => {
 
 describe("evaluateSuggestions", () => {
   it("matches one-to-one, best score first, per class (a worked example)", () => {
-    const accepted = [{ defect: "scratch", shape: box(0, 0, 100, 20) }, { defect: "scratch", shape: box(0, 200, 100, 20) }, { defect: "stain", shape: box(500, 500, 50, 50) }];
+    const accepted = [
+      { defect: "scratch", shape: box(0, 0, 100, 20) },
+      { defect: "scratch", shape: box(0, 200, 100, 20) },
+      { defect: "stain", shape: box(500, 500, 50, 50) },
+    ];
     const suggested = [
       { defect: "scratch", shape: box(0, 0, 100, 20), score: 0.9 }, // hit on the first scratch
       { defect: "scratch", shape: box(10, 0, 100, 20), score: 0.8 }, // same scratch again: a miss
@@ -60,7 +74,9 @@ describe("evaluateSuggestions", () => {
   });
 
   it("counts classes that only one side names, with zeros rather than NaN", () => {
-    const result = evaluateSuggestions([{ width: 100, height: 100, accepted: [{ defect: "dent", shape: box(0, 0, 10, 10) }], suggested: [{ defect: "__proto__", shape: box(50, 50, 10, 10), score: 0.5 }] }]);
+    const result = evaluateSuggestions([
+      { width: 100, height: 100, accepted: [{ defect: "dent", shape: box(0, 0, 10, 10) }], suggested: [{ defect: "__proto__", shape: box(50, 50, 10, 10), score: 0.5 }] },
+    ]);
     expect(result.byClass.dent).toEqual({ accepted: 1, suggested: 0, hits: 0, recall: 0, precision: 0, f1: 0 });
     expect(Object.hasOwn(result.byClass, "__proto__")).toBe(true);
   });
@@ -86,9 +102,11 @@ describe("splitByPhoto", () => {
 });
 
 const evaluation = (byClass: Record<string, [accepted: number, suggested: number, hits: number]>): Evaluation => ({
-    iouThreshold: 0.3,
-    photos: 20,
-    byClass: Object.fromEntries(Object.entries(byClass).map(([d, [a, s, h]]) => [d, { accepted: a, suggested: s, hits: h, recall: a ? h / a : 0, precision: s ? h / s : 0, f1: a && s && h ? (2 * h) / (a + s) : 0 }])),
+  iouThreshold: 0.3,
+  photos: 20,
+  byClass: Object.fromEntries(
+    Object.entries(byClass).map(([d, [a, s, h]]) => [d, { accepted: a, suggested: s, hits: h, recall: a ? h / a : 0, precision: s ? h / s : 0, f1: a && s && h ? (2 * h) / (a + s) : 0 }]),
+  ),
 });
 
 describe("the suggestion rule and the model switch", () => {

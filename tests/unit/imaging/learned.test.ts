@@ -30,7 +30,10 @@ beforeAll(async () => {
   train = await renderDefectPhotos(0, 40, WIDTH);
   test = await renderDefectPhotos(100, 20, WIDTH);
   model = await trainRegionModel(train.map(asExample));
-  evaluation = await evaluateRegionModel(model, test.map((p) => ({ image: p.jpeg, width: p.width, height: p.height, regions: p.regions, surface: [p.surface] })));
+  evaluation = await evaluateRegionModel(
+    model,
+    test.map((p) => ({ image: p.jpeg, width: p.width, height: p.height, regions: p.regions, surface: [p.surface] })),
+  );
   for (const [defect, f] of Object.entries(evaluation.byClass)) {
     console.log(`learned suggestions, held-out ${defect}: recall ${f.recall} (${f.hits}/${f.accepted}), precision ${f.precision} (${f.hits}/${f.suggested}), F1 ${f.f1}`);
   }
@@ -84,7 +87,10 @@ describe("learned suggestions on held-out synthetic photos", { timeout: 60_000 }
 
   it("answers in the pixels of the image it is given (here 2 × the training size)", async () => {
     const photo = test[1];
-    const big = await sharp(photo.jpeg).resize(photo.width * 2).jpeg({ quality: 92 }).toBuffer();
+    const big = await sharp(photo.jpeg)
+      .resize(photo.width * 2)
+      .jpeg({ quality: 92 })
+      .toBuffer();
     const s = photo.surface;
     if (s.kind !== "rect") throw new Error("the renderer's Surface is a rect");
     const surface = [{ kind: "rect" as const, x: s.x * 2, y: s.y * 2, width: s.width * 2, height: s.height * 2 }];
@@ -118,7 +124,9 @@ describe("learned suggestions on held-out synthetic photos", { timeout: 60_000 }
 
   it("refuses bad input with a sentence, and a model of another version", async () => {
     await expect(trainRegionModel([])).rejects.toThrow(AppError);
-    await expect(trainRegionModel([{ image: Buffer.from("not a photo"), regions: [{ defect: "scratch", shape: { kind: "spot", x: 1, y: 1, radius: 0 } }] }])).rejects.toThrow(/examples are not usable/);
+    await expect(trainRegionModel([{ image: Buffer.from("not a photo"), regions: [{ defect: "scratch", shape: { kind: "spot", x: 1, y: 1, radius: 0 } }] }])).rejects.toThrow(
+      /examples are not usable/,
+    );
     await expect(trainRegionModel([{ image: test[0].jpeg, regions: [] }])).rejects.toThrow(/No defect class has 3 or more/);
     await expect(trainRegionModel([asExample(test[0])], { trees: 0 })).rejects.toThrow(/Invalid training options/);
     await expect(suggestRegions({ ...model, version: 0 } as unknown as RegionModel, test[0].jpeg)).rejects.toThrow(/retrain the model/);

@@ -1,16 +1,7 @@
 import { createHash } from "node:crypto";
 import sharp from "sharp";
 import { describe, expect, it } from "vitest";
-import {
-  MAX_PHOTO_BYTES,
-  MAX_PHOTO_PIXELS,
-  PhotoRejectedError,
-  canDecodeAvif,
-  canDecodeHeic,
-  normalizePhoto,
-  readExifCaptureTime,
-  type PhotoRejectionCode,
-} from "@/lib/imaging/normalize";
+import { MAX_PHOTO_BYTES, MAX_PHOTO_PIXELS, PhotoRejectedError, canDecodeAvif, canDecodeHeic, normalizePhoto, readExifCaptureTime, type PhotoRejectionCode } from "@/lib/imaging/normalize";
 import {
   GRID_CELL,
   GRID_COLUMNS,
@@ -62,8 +53,14 @@ const UPRIGHT_POSITION: Record<number, Mapping> = {
 };
 // Same manual (a), its own table: where the stored 0th row and 0th column end up when upright.
 const ZEROTH_ROW_AND_COLUMN: Record<number, [row: string, column: string]> = {
-  1: ["top", "left"], 2: ["top", "right"], 3: ["bottom", "right"], 4: ["bottom", "left"],
-  5: ["left", "top"], 6: ["right", "top"], 7: ["right", "bottom"], 8: ["left", "bottom"],
+  1: ["top", "left"],
+  2: ["top", "right"],
+  3: ["bottom", "right"],
+  4: ["bottom", "left"],
+  5: ["left", "top"],
+  6: ["right", "top"],
+  7: ["right", "bottom"],
+  8: ["left", "bottom"],
 };
 
 /** The edges of a uw × uh raster that every one of these points lies on. */
@@ -193,8 +190,13 @@ describe("rejections", () => {
   });
 
   it("an animated WebP → unsupported_format (a photo is one still frame)", async () => {
-    const frame = (colour: string) => sharp({ create: { width: 32, height: 32, channels: 3, background: colour } }).png().toBuffer();
-    const animated = await sharp([await frame("#d22"), await frame("#2d2")], { join: { animated: true } }).webp().toBuffer();
+    const frame = (colour: string) =>
+      sharp({ create: { width: 32, height: 32, channels: 3, background: colour } })
+        .png()
+        .toBuffer();
+    const animated = await sharp([await frame("#d22"), await frame("#2d2")], { join: { animated: true } })
+      .webp()
+      .toBuffer();
     expect((await sharp(animated).metadata()).pages).toBe(2);
     expect(await expectRejected(animated, "unsupported_format")).toContain("animated");
   });
@@ -243,7 +245,10 @@ describe("derivatives", () => {
     expect([photo.width, photo.height]).toEqual([3000, 4000]);
     expect([photo.previewWidth, photo.previewHeight]).toEqual([1920, 2560]);
     expect([photo.thumbnailWidth, photo.thumbnailHeight]).toEqual([240, 320]);
-    for (const [output, size] of [[photo.preview, [1920, 2560]], [photo.thumbnail, [240, 320]]] as const) {
+    for (const [output, size] of [
+      [photo.preview, [1920, 2560]],
+      [photo.thumbnail, [240, 320]],
+    ] as const) {
       const meta = await sharp(output).metadata();
       expect(meta.format).toBe("webp");
       expect([meta.width, meta.height]).toEqual(size);
@@ -309,9 +314,17 @@ describe("derivatives", () => {
   });
 
   it("profile-less inputs (grey JPEG, 16-bit PNG, PNG with alpha) keep their colours", async () => {
-    const grey = await sharp({ create: { width: 64, height: 48, channels: 3, background: { r: 90, g: 90, b: 90 } } }).greyscale().jpeg({ quality: 100 }).toBuffer();
-    const deep = await sharp({ create: { width: 64, height: 48, channels: 3, background: { r: 200, g: 120, b: 40 } } }).png().toColourspace("rgb16").toBuffer();
-    const alpha = await sharp({ create: { width: 64, height: 48, channels: 4, background: { r: 30, g: 160, b: 220, alpha: 1 } } }).png().toBuffer();
+    const grey = await sharp({ create: { width: 64, height: 48, channels: 3, background: { r: 90, g: 90, b: 90 } } })
+      .greyscale()
+      .jpeg({ quality: 100 })
+      .toBuffer();
+    const deep = await sharp({ create: { width: 64, height: 48, channels: 3, background: { r: 200, g: 120, b: 40 } } })
+      .png()
+      .toColourspace("rgb16")
+      .toBuffer();
+    const alpha = await sharp({ create: { width: 64, height: 48, channels: 4, background: { r: 30, g: 160, b: 220, alpha: 1 } } })
+      .png()
+      .toBuffer();
     expect((await sharp(deep).metadata()).depth).toBe("ushort"); // the fixture really is 16-bit
     for (const input of [grey, deep, alpha]) {
       expect((await sharp(input).metadata()).hasProfile).toBe(false);
@@ -328,7 +341,9 @@ describe("derivatives", () => {
   });
 
   it.runIf(canDecodeAvif())("AVIF is accepted when the installed libheif decodes it", async () => {
-    const avif = await sharp(await smallJpeg()).avif().toBuffer();
+    const avif = await sharp(await smallJpeg())
+      .avif()
+      .toBuffer();
     const photo = await normalizePhoto(avif);
     expect(photo.format).toBe("avif");
     expect([photo.width, photo.height]).toEqual([640, 480]);
@@ -341,7 +356,10 @@ describe("derivatives", () => {
 // (TAG_DATETIME_ORIGINAL, TAG_OFFSET_TIME, getDateTimeOriginal), which quote the Exif standard.
 describe("capture time", () => {
   const withExif = async (ifd2: Record<string, string>) =>
-    sharp(await smallJpeg()).withExif({ IFD2: ifd2 }).jpeg().toBuffer();
+    sharp(await smallJpeg())
+      .withExif({ IFD2: ifd2 })
+      .jpeg()
+      .toBuffer();
 
   it("reads DateTimeOriginal and OffsetTimeOriginal written by libvips/libexif", async () => {
     const photo = await normalizePhoto(await withExif({ DateTimeOriginal: "2024:05:06 07:08:09", OffsetTimeOriginal: "+02:00" }));

@@ -4,7 +4,6 @@ import { Image } from "image-js";
 import { greyscaleHistogram, histogramOfBytes, otsuSplit, otsuThreshold } from "@/lib/imaging/otsu";
 import { mulberry32 as prng } from "@/support/prng";
 
-
 function gaussian(random: () => number): number {
   return Math.sqrt(-2 * Math.log(1 - random())) * Math.cos(2 * Math.PI * random());
 }
@@ -84,10 +83,14 @@ describe("otsuSplit — against image-js 1.7.0 on generated multi-level images",
   it("three-level images and images with empty levels between modes", () => {
     const histograms: number[][] = [];
     const h1 = new Array(256).fill(0);
-    h1[50] = 700; h1[120] = 500; h1[200] = 1200;
+    h1[50] = 700;
+    h1[120] = 500;
+    h1[200] = 1200;
     histograms.push(h1);
     const h2 = new Array(256).fill(0);
-    h2[10] = 900; h2[100] = 30; h2[240] = 1470; // two big modes with a small third, wide gaps
+    h2[10] = 900;
+    h2[100] = 30;
+    h2[240] = 1470; // two big modes with a small third, wide gaps
     histograms.push(h2);
     const h3 = new Array(256).fill(0);
     for (let level = 0; level < 256; level += 17) h3[level] = 1 + ((level * 7) % 23) * 10; // sparse comb
@@ -127,8 +130,13 @@ describe("otsuSplit — rules of this implementation", () => {
 describe("greyscaleHistogram (sharp raw bytes)", () => {
   it("counts every level of a greyscale PNG exactly", async () => {
     const histogram = new Array(256).fill(0);
-    histogram[0] = 100; histogram[77] = 250; histogram[128] = 50; histogram[255] = 200;
-    const png = await sharp(Buffer.from(pixelsOf(histogram)), { raw: { width: 20, height: 30, channels: 1 } }).png().toBuffer();
+    histogram[0] = 100;
+    histogram[77] = 250;
+    histogram[128] = 50;
+    histogram[255] = 200;
+    const png = await sharp(Buffer.from(pixelsOf(histogram)), { raw: { width: 20, height: 30, channels: 1 } })
+      .png()
+      .toBuffer();
     const result = await greyscaleHistogram(png);
     expect(result.width).toBe(20);
     expect(result.height).toBe(30);

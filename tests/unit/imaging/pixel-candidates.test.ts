@@ -14,7 +14,6 @@ import { mulberry32 as prng } from "@/support/prng";
 type Rgb = [number, number, number];
 type Planted = { x: number; y: number; size: number; colour: (number | null)[]; kind: PixelCandidate["kind"] };
 
-
 /** A uniform screen with optional Gaussian noise (σ) and a left-to-right gradient (± gradient / 2). */
 function screen(width: number, height: number, colour: Rgb, { noise = 0, gradient = 0, seed = 1 } = {}): Buffer {
   const random = prng(seed);
@@ -99,8 +98,14 @@ describe("suggestPixelCandidates — planted faults on uniform test screens", ()
 
   it("mid grey with a gradient, noise σ 3 and JPEG q90 4:4:4: every kind, at most 1 false one", async () => {
     const faults = [
-      lit(30, 30, 1), lit(90, 40, 2), dark(150, 50, 1), dark(210, 60, 3),
-      element(270, 70, 1, 0, 255), element(40, 160, 1, 1, 0), element(120, 170, 2, 2, 255), element(200, 180, 1, 0, 0),
+      lit(30, 30, 1),
+      lit(90, 40, 2),
+      dark(150, 50, 1),
+      dark(210, 60, 3),
+      element(270, 70, 1, 0, 255),
+      element(40, 160, 1, 1, 0),
+      element(120, 170, 2, 2, 255),
+      element(200, 180, 1, 0, 0),
     ];
     const { result } = await expectAllFound([128, 128, 128], faults, { noise: 3, gradient: 30, format: { quality: 90, chromaSubsampling: "4:4:4" }, maxFalse: 1 });
     // The residual noise estimate is in the right range (σ 3 before JPEG smoothing).
@@ -196,7 +201,12 @@ describe("suggestPixelCandidates — the active screen area", () => {
     }
     return data;
   }
-  const rect = (x0: number, y0: number, x1: number, y1: number): [number, number][] => [[x0, y0], [x1, y0], [x1, y1], [x0, y1]];
+  const rect = (x0: number, y0: number, x1: number, y1: number): [number, number][] => [
+    [x0, y0],
+    [x1, y0],
+    [x1, y1],
+    [x0, y1],
+  ];
 
   it("looks only inside the Surface and the zone, an edge band in: no candidates on the corners or the table", async () => {
     const [w, h] = [640, 480];

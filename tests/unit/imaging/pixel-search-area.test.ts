@@ -7,7 +7,12 @@ import { describe, expect, it } from "vitest";
 import type { Point } from "@/lib/geometry/shape";
 import { compileSearchArea, searchableTiles } from "@/lib/imaging/pixel-search-area";
 
-const rect = (x0: number, y0: number, x1: number, y1: number): Point[] => [[x0, y0], [x1, y0], [x1, y1], [x0, y1]];
+const rect = (x0: number, y0: number, x1: number, y1: number): Point[] => [
+  [x0, y0],
+  [x1, y0],
+  [x1, y1],
+  [x0, y1],
+];
 const image = { width: 1000, height: 800 };
 
 describe("compileSearchArea", () => {

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import sharp from "sharp";
 import type { Point } from "@/lib/geometry/shape";
-import { simplifyRing, suggestSurface, traceOuterBoundary } from "@/lib/imaging/suggest-surface";
+import { suggestSurface, traceOuterBoundary } from "@/lib/imaging/suggest-surface";
 import { mulberry32 as prng } from "@/support/prng";
 
 /** Shoelace formula (a: the standard surveyor's area formula for a simple polygon). */
@@ -17,7 +17,6 @@ function shoelace(points: Point[]): number {
 
 /** Area of a w × h rectangle with corner radius r: w·h − (4 − π)·r² (a: elementary geometry). */
 const roundedRectArea = (w: number, h: number, r: number) => w * h - (4 - Math.PI) * r * r;
-
 
 type Part = { x: number; y: number; w: number; h: number; r: number; rotate?: number; grey: number };
 
@@ -119,7 +118,9 @@ describe("suggestSurface on generated parts", () => {
   });
 
   it("says so when the photo is one flat level, and rejects what is not an image", async () => {
-    const flat = await sharp({ create: { width: 300, height: 200, channels: 3, background: "#777777" } }).png().toBuffer();
+    const flat = await sharp({ create: { width: 300, height: 200, channels: 3, background: "#777777" } })
+      .png()
+      .toBuffer();
     const result = await suggestSurface(flat);
     expect(result).toMatchObject({ shape: null, confidence: "none" });
     await expect(suggestSurface(Buffer.from("nope"))).rejects.toThrow(/could not be decoded/);
@@ -131,7 +132,12 @@ describe("boundary tracing and simplification", () => {
   const mask = (rows: string[]) => ({
     width: rows[0].length,
     height: rows.length,
-    data: Uint8Array.from(rows.join("").split("").map((c) => (c === "#" ? 1 : 0))),
+    data: Uint8Array.from(
+      rows
+        .join("")
+        .split("")
+        .map((c) => (c === "#" ? 1 : 0)),
+    ),
   });
 
   it("traces pixel edges so the shoelace area equals the pixel count (L shape, notch)", () => {
@@ -148,10 +154,5 @@ describe("boundary tracing and simplification", () => {
       expect(shoelace(corners)).toBe(count);
       for (const [x, y] of corners) expect(Number.isInteger(x) && Number.isInteger(y)).toBe(true);
     }
-  });
-
-  it("Douglas–Peucker keeps a rectangle's corners and drops collinear points", () => {
-    const ring: Point[] = [[0, 0], [5, 0], [10, 0], [10, 3], [10, 6], [5, 6], [0, 6], [0, 3]];
-    expect(simplifyRing(ring, 0.5)).toEqual([[0, 0], [10, 0], [10, 6], [0, 6]]);
   });
 });

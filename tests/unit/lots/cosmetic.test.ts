@@ -51,7 +51,15 @@ describe("which classes a fired line stands for", () => {
 describe("cosmeticNonconformities", () => {
   it("adds nothing while the grade keeps the promise", () => {
     expect(cosmeticNonconformities("B", grade("B", [["scratch-b", "B"]]))).toEqual([]);
-    expect(cosmeticNonconformities("C", grade("C", [["scratch-c", "C"], ["dent-c", "C"]]))).toEqual([]);
+    expect(
+      cosmeticNonconformities(
+        "C",
+        grade("C", [
+          ["scratch-c", "C"],
+          ["dent-c", "C"],
+        ]),
+      ),
+    ).toEqual([]);
   });
 
   it("counts the severity of the class whose rule broke the promise, with a reason", () => {
@@ -59,11 +67,28 @@ describe("cosmeticNonconformities", () => {
   });
 
   it("only lines worse than the promise count: a B stain under a C scratch does not, when B was promised", () => {
-    expect(severitiesOf(cosmeticNonconformities("B", grade("C", [["scratch-c", "C"], ["stain-b", "B"]])))).toEqual(["major"]);
+    expect(
+      severitiesOf(
+        cosmeticNonconformities(
+          "B",
+          grade("C", [
+            ["scratch-c", "C"],
+            ["stain-b", "B"],
+          ]),
+        ),
+      ),
+    ).toEqual(["major"]);
   });
 
   it("counts once per severity class, whatever the number of classes in it (CLS)", () => {
-    const defects = cosmeticNonconformities("A", grade("C", [["scratch-c", "C"], ["dent-c", "C"], ["stain-b", "B"]]));
+    const defects = cosmeticNonconformities(
+      "A",
+      grade("C", [
+        ["scratch-c", "C"],
+        ["dent-c", "C"],
+        ["stain-b", "B"],
+      ]),
+    );
     expect(defects).toEqual([
       { severity: "major", source: "cosmetic", label: "grade C (promised A): Scratch" },
       { severity: "minor", source: "cosmetic", label: "grade C (promised A): Dent, Stain" },
@@ -91,13 +116,19 @@ describe("cosmeticNonconformities", () => {
   it("a grade below the promise only through a functional rule adds nothing cosmetic (the failure counts)", () => {
     expect(cosmeticNonconformities("A", grade("C", [["func-major", "C"]]))).toEqual([]);
     // A stain within the promise beside it is not what broke the promise either.
-    expect(cosmeticNonconformities("B", grade("C", [["func-major", "C"], ["stain-b", "B"]]))).toEqual([]);
+    expect(
+      cosmeticNonconformities(
+        "B",
+        grade("C", [
+          ["func-major", "C"],
+          ["stain-b", "B"],
+        ]),
+      ),
+    ).toEqual([]);
   });
 
   it("a line of a rule the rubric version does not have names no class", () => {
-    expect(cosmeticNonconformities("A", grade("C", [["gone", "C"]]))).toEqual([
-      { severity: "major", source: "cosmetic", label: "grade C (promised A): overridden with no defect class to go by" },
-    ]);
+    expect(cosmeticNonconformities("A", grade("C", [["gone", "C"]]))).toEqual([{ severity: "major", source: "cosmetic", label: "grade C (promised A): overridden with no defect class to go by" }]);
   });
 });
 
@@ -106,8 +137,7 @@ describe("the lot counts: units defective cosmetically only, functionally only, 
   const units = Array.from({ length: 20 }, (_, i) => ({ id: `u${i + 1}`, sampleIndex: i + 1, status: "graded" as const }));
   const items = ["power", "audio"];
   const passing = units.flatMap((u) => items.map((itemId) => ({ unitId: u.id, itemId, passed: true, severityOnFail: "major" as const })));
-  const fail = (unitId: string, itemId: string, severityOnFail: "major" | "minor") =>
-    passing.map((r) => (r.unitId === unitId && r.itemId === itemId ? { ...r, passed: false, severityOnFail } : r));
+  const fail = (unitId: string, itemId: string, severityOnFail: "major" | "minor") => passing.map((r) => (r.unitId === unitId && r.itemId === itemId ? { ...r, passed: false, severityOnFail } : r));
 
   it("a cosmetic-only defective counts in its class and rejects the lot at Re", () => {
     const cosmeticDefects = new Map([["u2", cosmeticNonconformities("A", grade("C", [["scratch-c", "C"]]))]]);
@@ -124,7 +154,18 @@ describe("the lot counts: units defective cosmetically only, functionally only, 
   });
 
   it("a unit defective both ways counts once per class: a major failure and a major scratch are one major", () => {
-    const cosmeticDefects = new Map([["u4", cosmeticNonconformities("A", grade("C", [["scratch-c", "C"], ["dent-c", "C"]]))]]);
+    const cosmeticDefects = new Map([
+      [
+        "u4",
+        cosmeticNonconformities(
+          "A",
+          grade("C", [
+            ["scratch-c", "C"],
+            ["dent-c", "C"],
+          ]),
+        ),
+      ],
+    ]);
     const verdict = lotVerdict(plan, unitFindings({ units, results: fail("u4", "power", "major"), checklistItemIds: items, cosmeticGrading: true, cosmeticDefects }));
     expect(verdict.classes.major.found).toBe(1);
     expect(verdict.classes.minor.found).toBe(1);
@@ -133,7 +174,10 @@ describe("the lot counts: units defective cosmetically only, functionally only, 
 
   it("two cosmetic-only minor units reach the minor Re (2) and reject", () => {
     const minor = cosmeticNonconformities("A", grade("C", [["dent-c", "C"]]));
-    const cosmeticDefects = new Map([["u5", minor], ["u6", minor]]);
+    const cosmeticDefects = new Map([
+      ["u5", minor],
+      ["u6", minor],
+    ]);
     const verdict = lotVerdict(plan, unitFindings({ units, results: passing, checklistItemIds: items, cosmeticGrading: true, cosmeticDefects }));
     expect(verdict.classes.minor).toMatchObject({ found: 2, status: "reject" });
   });

@@ -46,7 +46,14 @@ describe("decided lots → switching rules", () => {
     major: { found: major, inspected: 13, sampleSize: 13 },
     minor: { found: 0, inspected: 20, sampleSize: 20 },
   });
-  const lot = (id: string, major: number, purchaseRef = id): DecidedLotRow => ({ id, purchaseRef, inspectionSeverity: "normal", verdict: major >= 1 ? "reject" : "accept", plan, decisionCounts: counts(major) });
+  const lot = (id: string, major: number, purchaseRef = id): DecidedLotRow => ({
+    id,
+    purchaseRef,
+    inspectionSeverity: "normal",
+    verdict: major >= 1 ? "reject" : "accept",
+    plan,
+    decisionCounts: counts(major),
+  });
 
   it("maps classes with their Ac/Re and found counts (critical without an AQL carries none)", () => {
     expect(decidedLotForSwitching(lot("l1", 1))).toEqual({

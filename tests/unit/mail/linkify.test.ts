@@ -12,8 +12,16 @@ describe("linkifyText", () => {
   });
 
   it("leaves a sentence's full stop, comma or bracket out of the address", () => {
-    expect(linkifyText("See http://127.0.0.1:3000/lots/1.")).toEqual([{ kind: "text", text: "See " }, { kind: "link", href: "http://127.0.0.1:3000/lots/1" }, { kind: "text", text: "." }]);
-    expect(linkifyText("(http://a.example/x), then")).toEqual([{ kind: "text", text: "(" }, { kind: "link", href: "http://a.example/x" }, { kind: "text", text: "), then" }]);
+    expect(linkifyText("See http://127.0.0.1:3000/lots/1.")).toEqual([
+      { kind: "text", text: "See " },
+      { kind: "link", href: "http://127.0.0.1:3000/lots/1" },
+      { kind: "text", text: "." },
+    ]);
+    expect(linkifyText("(http://a.example/x), then")).toEqual([
+      { kind: "text", text: "(" },
+      { kind: "link", href: "http://a.example/x" },
+      { kind: "text", text: "), then" },
+    ]);
   });
 
   it("never links other schemes, and plain text stays one part", () => {

@@ -66,7 +66,15 @@ describe("calibratePhoto — nominal size against the Surface", () => {
   });
 
   it("ID-1 card as a polygon, turned by 90°: matched long side to long side (not width to width)", () => {
-    const polygon = { kind: "polygon" as const, points: [[100, 100], [639.8, 100], [639.8, 956], [100, 956]] as [number, number][] };
+    const polygon = {
+      kind: "polygon" as const,
+      points: [
+        [100, 100],
+        [639.8, 100],
+        [639.8, 956],
+        [100, 956],
+      ] as [number, number][],
+    };
     const calibration = calibratePhoto({ rulers: [], surface: [polygon], nominalSizeMm: { width: 85.6, height: 53.98 } });
     expect(calibration.pxPerMm).toBeCloseTo(10, 9);
     expect(calibration.detail).toContain("Surface box 539.8 × 856.0 px against 85.6 × 54.0 mm");
@@ -81,7 +89,14 @@ describe("calibratePhoto — nominal size against the Surface", () => {
   it("bounding box spans several shapes, line half-widths and spot radii", () => {
     expect(
       shapesBoundingBox([
-        { kind: "line", points: [[10, 10], [50, 10]], width: 4 },
+        {
+          kind: "line",
+          points: [
+            [10, 10],
+            [50, 10],
+          ],
+          width: 4,
+        },
         { kind: "spot", x: 80, y: 30, radius: 5 },
       ]),
     ).toEqual({ minX: 8, minY: 8, maxX: 85, maxY: 35 });

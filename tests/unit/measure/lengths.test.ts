@@ -8,7 +8,15 @@ const none: Calibration = { method: "none", pxPerMm: null, detail: "" };
 describe("lengths", () => {
   it("sums the segments of a Line's centre line", () => {
     // 3-4-5 triple × 10 = 50 px, then a vertical 60 px (a: Pythagoras).
-    const line = { kind: "line" as const, points: [[0, 0], [30, 40], [30, 100]] as [number, number][], width: 8 };
+    const line = {
+      kind: "line" as const,
+      points: [
+        [0, 0],
+        [30, 40],
+        [30, 100],
+      ] as [number, number][],
+      width: 8,
+    };
     expect(lineLengthPx(line)).toBe(110);
     expect(lineLengthMm(line, twelve)).toBeCloseTo(110 / 12, 12);
     expect(lineLengthMm(line, none)).toBeNull();
@@ -30,7 +38,16 @@ describe("lengths", () => {
 
   it("rejects malformed shapes and numbers", () => {
     expect(() => lineLengthPx({ kind: "line", points: [[0, 0]], width: 1 })).toThrow(/at least two points/);
-    expect(() => lineLengthPx({ kind: "line", points: [[0, 0], [Number.NaN, 1]], width: 1 })).toThrow(/finite/);
+    expect(() =>
+      lineLengthPx({
+        kind: "line",
+        points: [
+          [0, 0],
+          [Number.NaN, 1],
+        ],
+        width: 1,
+      }),
+    ).toThrow(/finite/);
     expect(() => spotDiameterPx({ kind: "spot", x: 0, y: 0, radius: -1 })).toThrow(/negative/);
     expect(() => areaPxToMm2(-5, twelve)).toThrow(/negative/);
     expect(() => pxToMm(5, { method: "ruler", pxPerMm: 0, detail: "" })).toThrow(/positive/);

@@ -1,15 +1,6 @@
 import { describe, expect, it } from "vitest";
 import type { Point, Shape } from "@/lib/geometry/shape";
-import {
-  ISO_13406_2_PER_MILLION,
-  PIXEL_DARK,
-  PIXEL_LIT,
-  PIXEL_SUBPIXEL,
-  assessPixelFaults,
-  photoToPanelUnit,
-  pixelFaultClass,
-  pixelFaultLimits,
-} from "@/lib/measure/pixel-faults";
+import { ISO_13406_2_PER_MILLION, PIXEL_DARK, PIXEL_LIT, PIXEL_SUBPIXEL, assessPixelFaults, photoToPanelUnit, pixelFaultClass, pixelFaultLimits } from "@/lib/measure/pixel-faults";
 import type { PixelFaultCounts } from "@/lib/measure/types";
 
 const zero: PixelFaultCounts = { alwaysLit: 0, alwaysDark: 0, subPixel: 0, clustersLitOrDark: 0, clustersSubPixel: 0 };
@@ -93,7 +84,12 @@ describe("assessPixelFaults", () => {
 
   it("maps through the panel's corners when the panel is photographed turned by 90°", () => {
     // Panel 100 × 50 px at 10 photo px per panel px; the panel's x axis runs down the photo.
-    const corners: [Point, Point, Point, Point] = [[600, 100], [600, 1100], [100, 1100], [100, 100]];
+    const corners: [Point, Point, Point, Point] = [
+      [600, 100],
+      [600, 1100],
+      [100, 1100],
+      [100, 100],
+    ];
     const photoOf = (col: number, row: number): Point => [600 - (row + 0.5) * 10, 100 + (col + 0.5) * 10];
     const [u, v] = photoToPanelUnit(corners)(photoOf(10, 5));
     expect(u).toBeCloseTo(10.5 / 100, 12);
@@ -114,9 +110,19 @@ describe("assessPixelFaults", () => {
   it("the perspective map sends corners to the unit square and the diagonals' crossing to its centre", () => {
     // A projective map preserves incidence, so the crossing of the quad's diagonals maps to the
     // crossing of the square's diagonals, (0.5, 0.5) (a: projective geometry).
-    const corners: [Point, Point, Point, Point] = [[120, 80], [980, 140], [900, 700], [60, 620]];
+    const corners: [Point, Point, Point, Point] = [
+      [120, 80],
+      [980, 140],
+      [900, 700],
+      [60, 620],
+    ];
     const toUnit = photoToPanelUnit(corners);
-    const expected: Point[] = [[0, 0], [1, 0], [1, 1], [0, 1]];
+    const expected: Point[] = [
+      [0, 0],
+      [1, 0],
+      [1, 1],
+      [0, 1],
+    ];
     corners.forEach((corner, i) => {
       const [u, v] = toUnit(corner);
       expect(u).toBeCloseTo(expected[i][0], 9);
@@ -128,7 +134,14 @@ describe("assessPixelFaults", () => {
     const [u, v] = toUnit([x0 + t * (x2 - x0), y0 + t * (y2 - y0)]);
     expect(u).toBeCloseTo(0.5, 9);
     expect(v).toBeCloseTo(0.5, 9);
-    expect(() => photoToPanelUnit([[0, 0], [1, 1], [2, 2], [3, 3]])).toThrow(/degenerate|span/);
+    expect(() =>
+      photoToPanelUnit([
+        [0, 0],
+        [1, 1],
+        [2, 2],
+        [3, 3],
+      ]),
+    ).toThrow(/degenerate|span/);
   });
 
   it("states its assumptions: no mapping, non-Spot pixel regions, spots off the panel", () => {
@@ -137,7 +150,19 @@ describe("assessPixelFaults", () => {
     expect(unmapped.counts.alwaysDark).toBe(0);
     expect(unmapped.assumptions.join(" ")).toMatch(/not Spots/);
     expect(unmapped.assumptions.join(" ")).toMatch(/one photo pixel is taken as one panel pixel/);
-    const off = assessPixelFaults({ panel: { widthPx: 10, heightPx: 10 }, mapping: { kind: "corners", corners: [[0, 0], [100, 0], [100, 100], [0, 100]] }, regions: [spot("a", PIXEL_LIT, 150, 50)] });
+    const off = assessPixelFaults({
+      panel: { widthPx: 10, heightPx: 10 },
+      mapping: {
+        kind: "corners",
+        corners: [
+          [0, 0],
+          [100, 0],
+          [100, 100],
+          [0, 100],
+        ],
+      },
+      regions: [spot("a", PIXEL_LIT, 150, 50)],
+    });
     expect(off.assumptions.join(" ")).toMatch(/outside the panel corners/);
   });
 

@@ -14,7 +14,17 @@ describe("part type form model", () => {
   }
 
   it("reads zones and choices line by line, ignoring blank lines and spaces", () => {
-    expect(textToZones("lens-window | Lens window | 0.2,0.2 0.8,0.2  0.5,0.9\n\n")).toEqual([{ id: "lens-window", label: "Lens window", polygon: [[0.2, 0.2], [0.8, 0.2], [0.5, 0.9]] }]);
+    expect(textToZones("lens-window | Lens window | 0.2,0.2 0.8,0.2  0.5,0.9\n\n")).toEqual([
+      {
+        id: "lens-window",
+        label: "Lens window",
+        polygon: [
+          [0.2, 0.2],
+          [0.8, 0.2],
+          [0.5, 0.9],
+        ],
+      },
+    ]);
     expect(textToOptions("none | None | pass\nloud | Loud | fail")).toEqual([
       { value: "none", label: "None", passes: true },
       { value: "loud", label: "Loud", passes: false },

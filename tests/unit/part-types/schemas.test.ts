@@ -59,8 +59,46 @@ describe("partTypeSchema refuses", () => {
     refuse((p) => ({ ...p, checklist: [{ ...p.checklist[3], min: 3.001 }] }), /more decimals/);
   });
   it("zone points outside 0..1, choice items where nothing passes, unknown fields and kinds", () => {
-    refuse((p) => ({ ...p, views: [{ ...p.views[0], zones: [{ id: "body", label: "Body", polygon: [[0, 0], [1.2, 0], [1, 1]] }] }] }), /run from 0 to 1/);
-    refuse((p) => ({ ...p, checklist: [{ id: "x", label: "X", kind: "choice", severityOnFail: "minor", options: [{ value: "a", label: "A", passes: false }, { value: "b", label: "B", passes: false }] }] }), /At least one choice must pass/);
+    refuse(
+      (p) => ({
+        ...p,
+        views: [
+          {
+            ...p.views[0],
+            zones: [
+              {
+                id: "body",
+                label: "Body",
+                polygon: [
+                  [0, 0],
+                  [1.2, 0],
+                  [1, 1],
+                ],
+              },
+            ],
+          },
+        ],
+      }),
+      /run from 0 to 1/,
+    );
+    refuse(
+      (p) => ({
+        ...p,
+        checklist: [
+          {
+            id: "x",
+            label: "X",
+            kind: "choice",
+            severityOnFail: "minor",
+            options: [
+              { value: "a", label: "A", passes: false },
+              { value: "b", label: "B", passes: false },
+            ],
+          },
+        ],
+      }),
+      /At least one choice must pass/,
+    );
     refuse((p) => ({ ...p, colour: "red" }), /Unknown|unrecognized/i);
     refuse((p) => ({ ...p, checklist: [{ id: "x", label: "X", kind: "slider", severityOnFail: "minor" }] }), /kind/);
     refuse((p) => ({ ...p, views: [] }), /at least one view/);

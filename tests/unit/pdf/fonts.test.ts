@@ -13,7 +13,16 @@ import { pdfText } from "@/tests/support/pdf-text";
 /** Invented names of the kind suppliers and people have (demo-style, not real persons). */
 export const ACCENTED_NAMES = ["Piet Moravec", "Zoë Łukasiewicz", "Ørjan Brændøy", "Søren Ødegård", "Ärzte Çelik", "Ñandú Peña", "Đorđe Šćepanović", "Łódź Żółć", "Œuvre Straße", "Dvořák Ťapák"];
 
-const TEMPLATE_FILES = ["lib/pdf/document.ts", "lib/pdf/table.ts", "lib/pdf/pareto-chart.ts", "lib/reports/lot-report-pdf.ts", "lib/reports/certificate-pdf.ts", "lib/reports/format.ts", "lib/imaging/annotated-photo.ts", "lib/lots/schemas.ts"];
+const TEMPLATE_FILES = [
+  "lib/pdf/document.ts",
+  "lib/pdf/table.ts",
+  "lib/pdf/pareto-chart.ts",
+  "lib/reports/lot-report-pdf.ts",
+  "lib/reports/certificate-pdf.ts",
+  "lib/reports/format.ts",
+  "lib/imaging/annotated-photo.ts",
+  "lib/lots/schemas.ts",
+];
 
 const codePoints = (text: string) => [...new Set([...text].map((c) => c.codePointAt(0)!))];
 const missing = (points: number[]) => points.filter((p) => !fontHasGlyph(p)).map((p) => String.fromCodePoint(p));

@@ -34,7 +34,14 @@ describe("compareRecheck", () => {
     const result = await compareRecheck({
       photos: [
         photo("front", [["dent", rect(0, 0, 4, 4)]], [["dent", rect(2, 2, 4, 4)]]),
-        photo("back", [["dent", rect(5, 5, 5, 5)], ["scratch", rect(0, 0, 10, 1)]], [["dent", rect(5, 5, 5, 5)]]),
+        photo(
+          "back",
+          [
+            ["dent", rect(5, 5, 5, 5)],
+            ["scratch", rect(0, 0, 10, 1)],
+          ],
+          [["dent", rect(5, 5, 5, 5)]],
+        ),
       ],
       firstGrade: "B",
       recheckGrade: "Reject",
@@ -51,13 +58,33 @@ describe("compareRecheck", () => {
 
   it("leaves out a class wholly outside the Surface, and keeps the areas for the adjudication overlay when asked (HAND)", async () => {
     const result = await compareRecheck(
-      { photos: [photo("front", [["dent", rect(0, 0, 4, 4)], ["dust", rect(15, 15, 3, 3)]], [["dent", rect(2, 2, 4, 4)]], [rect(0, 0, 10, 10)])], firstGrade: "C", recheckGrade: "B" },
+      {
+        photos: [
+          photo(
+            "front",
+            [
+              ["dent", rect(0, 0, 4, 4)],
+              ["dust", rect(15, 15, 3, 3)],
+            ],
+            [["dent", rect(2, 2, 4, 4)]],
+            [rect(0, 0, 10, 10)],
+          ),
+        ],
+        firstGrade: "C",
+        recheckGrade: "B",
+      },
       { keepAreas: true },
     );
     expect(Object.keys(result.photos[0].classes)).toEqual(["dent"]);
     expect(result.photos[0].areas!.dent).toEqual({
-      onlyFirst: [{ x: 0, y: 0, width: 4, height: 2 }, { x: 0, y: 2, width: 2, height: 2 }],
-      onlyRecheck: [{ x: 4, y: 2, width: 2, height: 2 }, { x: 2, y: 4, width: 4, height: 2 }],
+      onlyFirst: [
+        { x: 0, y: 0, width: 4, height: 2 },
+        { x: 0, y: 2, width: 2, height: 2 },
+      ],
+      onlyRecheck: [
+        { x: 4, y: 2, width: 2, height: 2 },
+        { x: 2, y: 4, width: 4, height: 2 },
+      ],
       shared: [{ x: 2, y: 2, width: 2, height: 2 }],
     });
     expect(result.grade.agreement).toBe("one_step");

@@ -34,9 +34,15 @@ describe("drawRechecks: how many (RULE, HAND)", () => {
   it("applies a minimum above ⌈rate × n⌉ only on the period's final run, and never more than n", () => {
     const candidates = [...grades("ann", "cam", 30), ...grades("bo", "cam", 2)];
     const final = drawRechecks({ seed: "7", candidates, rate: 0.05, minimumPerGrader: 3 });
-    expect(final.graders.map((g) => [g.graderId, g.target])).toEqual([["ann", 3], ["bo", 2]]);
+    expect(final.graders.map((g) => [g.graderId, g.target])).toEqual([
+      ["ann", 3],
+      ["bo", 2],
+    ]);
     const running = drawRechecks({ seed: "7", candidates, rate: 0.05, minimumPerGrader: 3, final: false });
-    expect(running.graders.map((g) => [g.graderId, g.target])).toEqual([["ann", 2], ["bo", 1]]);
+    expect(running.graders.map((g) => [g.graderId, g.target])).toEqual([
+      ["ann", 2],
+      ["bo", 1],
+    ]);
   });
 
   it("uses a grader's own (raised) rate", () => {
@@ -45,7 +51,10 @@ describe("drawRechecks: how many (RULE, HAND)", () => {
     expect(recheckRateFor(settings, { lastCalibrationFailed: true })).toBe(0.2);
     expect(recheckRateFor(settings, { drifting: true })).toBe(0.2);
     const result = drawRechecks({ seed: "1", candidates: [...grades("ann", "cam", 100), ...grades("bo", "cam", 100)], rate: 0.05, graderRates: { bo: recheckRateFor(settings, { drifting: true }) } });
-    expect(result.graders.map((g) => [g.graderId, g.rate, g.drawn])).toEqual([["ann", 0.05, 5], ["bo", 0.2, 20]]);
+    expect(result.graders.map((g) => [g.graderId, g.rate, g.drawn])).toEqual([
+      ["ann", 0.05, 5],
+      ["bo", 0.2, 20],
+    ]);
   });
 });
 

@@ -9,7 +9,13 @@ import { SCORECARD_CSV_COLUMNS, scorecardCsvRows } from "@/lib/recheck/scorecard
 import { bandLabel, formatKappa, formatKappaInterval, formatPercent, formatShareInterval } from "@/lib/recheck/scorecard-format";
 import { DEFAULT_RECHECK_SETTINGS } from "@/lib/recheck/settings";
 
-const r = (graderId: string, gradedAt: string, firstGrade: ScorecardRecheck["firstGrade"], recheckGrade: ScorecardRecheck["recheckGrade"]): ScorecardRecheck => ({ graderId, gradedAt, firstGrade, recheckGrade, blind: true });
+const r = (graderId: string, gradedAt: string, firstGrade: ScorecardRecheck["firstGrade"], recheckGrade: ScorecardRecheck["recheckGrade"]): ScorecardRecheck => ({
+  graderId,
+  gradedAt,
+  firstGrade,
+  recheckGrade,
+  blind: true,
+});
 
 // Two weeks (Mondays 1 and 8 June 2026, UTC); "zed" rechecked only in the first week.
 const cards = buildScorecards({
@@ -21,7 +27,13 @@ const cards = buildScorecards({
     { graderId: "zed", day: "2026-06-02", count: 7 },
     { graderId: "amy", day: "2026-06-09", count: 3 },
   ],
-  rechecks: [r("zed", "2026-06-02T10:00:00Z", "A", "A"), r("zed", "2026-06-02T11:00:00Z", "B", "C"), r("zed", "2026-06-03T11:00:00Z", "B", "B"), r("zed", "2026-06-04T11:00:00Z", "C", "C"), r("amy", "2026-06-09T09:00:00Z", "A", "B")],
+  rechecks: [
+    r("zed", "2026-06-02T10:00:00Z", "A", "A"),
+    r("zed", "2026-06-02T11:00:00Z", "B", "C"),
+    r("zed", "2026-06-03T11:00:00Z", "B", "B"),
+    r("zed", "2026-06-04T11:00:00Z", "C", "C"),
+    r("amy", "2026-06-09T09:00:00Z", "A", "B"),
+  ],
 });
 const view = { ...cards, names: { zed: "Zed Orrow", amy: "Amy Quell" } };
 
@@ -60,7 +72,12 @@ describe("scorecardCsvRows", () => {
     expect(cell(zedEmptyWeek, "kappa")).toBe("");
     expect(cell(zedEmptyWeek, "drift_flagged")).toBe("");
     // HAND: team 5 rechecks, 3 the same → 0.6.
-    expect(cell(lines.find((line) => line.startsWith("Team,,2026-06-01..2026-06-14"))!, "exact_agreement")).toBe("0.6");
+    expect(
+      cell(
+        lines.find((line) => line.startsWith("Team,,2026-06-01..2026-06-14"))!,
+        "exact_agreement",
+      ),
+    ).toBe("0.6");
   });
 });
 

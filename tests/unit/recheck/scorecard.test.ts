@@ -11,7 +11,14 @@ import { buildScorecards, type ClassIouSum, type RecheckCount, type ScorecardRec
 import { localDate, parseDateKey, periodOfDate } from "@/lib/time/periods";
 import { DEFAULT_RECHECK_SETTINGS } from "@/lib/recheck/settings";
 
-const recheck = (graderId: string, gradedAt: string, firstGrade: Grade, recheckGrade: Grade, extra: Partial<ScorecardRecheck> = {}): ScorecardRecheck => ({ graderId, gradedAt, firstGrade, recheckGrade, blind: true, ...extra });
+const recheck = (graderId: string, gradedAt: string, firstGrade: Grade, recheckGrade: Grade, extra: Partial<ScorecardRecheck> = {}): ScorecardRecheck => ({
+  graderId,
+  gradedAt,
+  firstGrade,
+  recheckGrade,
+  blind: true,
+  ...extra,
+});
 
 /** Ten of bo's grades, Monday 15 to Friday 19 June, three of them confirmed. */
 const boWeek = Array.from({ length: 10 }, (_, i) => recheck("bo", `2026-06-${15 + (i % 5)}T09:00:00Z`, "B", i < 3 ? "B" : "C"));

@@ -13,14 +13,20 @@ import { describe, expect, it } from "vitest";
 import type { Grade } from "@/lib/grading/rubric-schema";
 import { AgreementTally } from "@/lib/recheck/tally";
 
-const SAS_TABLE = [[0, 4, 1], [0, 8, 0], [0, 1, 5]];
+const SAS_TABLE = [
+  [0, 4, 1],
+  [0, 8, 0],
+  [0, 1, 5],
+];
 const GRADES: Grade[] = ["A", "B", "C", "Reject"];
 
 function tallyOf(table: number[][]): AgreementTally {
   const tally = new AgreementTally();
-  table.forEach((row, i) => row.forEach((count, j) => {
-    for (let k = 0; k < count; k++) tally.add(GRADES[i], GRADES[j]);
-  }));
+  table.forEach((row, i) =>
+    row.forEach((count, j) => {
+      for (let k = 0; k < count; k++) tally.add(GRADES[i], GRADES[j]);
+    }),
+  );
   return tally;
 }
 
@@ -54,14 +60,29 @@ describe("AgreementTally", () => {
   });
 
   it("adds up: two tallies merged give the figures of all their rechecks", () => {
-    const left = tallyOf([[3, 1, 0, 0], [0, 2, 1, 0], [0, 0, 0, 0], [0, 0, 0, 0]]);
+    const left = tallyOf([
+      [3, 1, 0, 0],
+      [0, 2, 1, 0],
+      [0, 0, 0, 0],
+      [0, 0, 0, 0],
+    ]);
     left.add("A", "A", { dent: { iou: 0.2, unionPx: 5 } });
-    const right = tallyOf([[0, 0, 0, 0], [1, 0, 0, 0], [0, 1, 4, 0], [0, 0, 1, 2]]);
+    const right = tallyOf([
+      [0, 0, 0, 0],
+      [1, 0, 0, 0],
+      [0, 1, 4, 0],
+      [0, 0, 1, 2],
+    ]);
     right.add("C", "C", { dent: { iou: 0.8, unionPx: 5 } });
     const merged = new AgreementTally();
     merged.addTally(left);
     merged.addTally(right);
-    const all = tallyOf([[3, 1, 0, 0], [1, 2, 1, 0], [0, 1, 4, 0], [0, 0, 1, 2]]);
+    const all = tallyOf([
+      [3, 1, 0, 0],
+      [1, 2, 1, 0],
+      [0, 1, 4, 0],
+      [0, 0, 1, 2],
+    ]);
     all.add("A", "A", { dent: { iou: 0.2, unionPx: 5 } });
     all.add("C", "C", { dent: { iou: 0.8, unionPx: 5 } });
     expect(merged.figures()).toEqual(all.figures());

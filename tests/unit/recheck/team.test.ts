@@ -16,18 +16,17 @@ const SCALE: Grade[] = ["A", "B", "C", "Reject"];
 
 /** Units as the grades they got, from one row per rater; `offset` maps the first value to "A". */
 function unitsOf(rows: (number | null)[][], offset: number): Grade[][] {
-  return rows[0].map((_, unit) => rows.map((row) => row[unit]).filter((value): value is number => value !== null).map((value) => SCALE[value - offset]));
+  return rows[0].map((_, unit) =>
+    rows
+      .map((row) => row[unit])
+      .filter((value): value is number => value !== null)
+      .map((value) => SCALE[value - offset]),
+  );
 }
 const row = (text: string) => text.split(" ").map((value) => (value === "." ? null : Number(value)));
 
 const FIVE_OBSERVERS = unitsOf(
-  [
-    row("1 1 2 . 0 0 1 1 2 2 . 0 1 3 1"),
-    row("1 1 3 0 0 0 0 . 2 1 1 0 2 3 1"),
-    row("2 0 3 0 0 0 2 2 2 1 0 0 2 2 1"),
-    row(". 1 3 . . . . 0 . 1 0 0 2 2 ."),
-    row("2 . . 0 0 0 1 . 2 . . . . 3 1"),
-  ],
+  [row("1 1 2 . 0 0 1 1 2 2 . 0 1 3 1"), row("1 1 3 0 0 0 0 . 2 1 1 0 2 3 1"), row("2 0 3 0 0 0 2 2 2 1 0 0 2 2 1"), row(". 1 3 . . . . 0 . 1 0 0 2 2 ."), row("2 . . 0 0 0 1 . 2 . . . . 3 1")],
   0,
 );
 const THREE_CODERS = unitsOf([row(". . . . . 3 4 1 2 1 1 3 3 . 3"), row("1 . 2 1 3 3 4 3 . . . . . . ."), row(". . 2 1 3 4 4 . 2 1 1 3 3 . 4")], 1);
@@ -72,7 +71,10 @@ describe("multiRaterAgreement", () => {
     expect(none.units).toBe(0);
     expect(none.alphaOrdinal).toBeNaN();
     expect(none.ac1).toBeNaN();
-    const allA = multiRaterAgreement([["A", "A"], ["A", "A", "A"]]);
+    const allA = multiRaterAgreement([
+      ["A", "A"],
+      ["A", "A", "A"],
+    ]);
     expect(allA.alphaOrdinal).toBeNaN();
     expect(allA.ac1).toBeCloseTo(1, 12);
   });

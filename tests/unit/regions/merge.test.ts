@@ -61,7 +61,17 @@ describe("merging region sets", () => {
   });
 
   it("surfaces merge like regions", () => {
-    const s = (id: string, x: number) => ({ id, shape: { kind: "polygon" as const, points: [[x, 0], [x + 10, 0], [x, 10]] as [number, number][] } });
+    const s = (id: string, x: number) => ({
+      id,
+      shape: {
+        kind: "polygon" as const,
+        points: [
+          [x, 0],
+          [x + 10, 0],
+          [x, 10],
+        ] as [number, number][],
+      },
+    });
     const result = mergeRegionSets({ base: set([], { surfaces: [s("s1", 0)] }), mine: set([], { surfaces: [s("s1", 0), s("s2", 50)] }), theirs: set([], { surfaces: [s("s1", 5)] }) });
     expect(result.payload.surfaces).toEqual([s("s1", 5), s("s2", 50)]);
   });

@@ -9,9 +9,32 @@ import type { RegionSetPayload } from "@/lib/geometry/validate";
 import { canonicalJson, contentsOfPayload, payloadFromRows, rowsForSave, samePayload, type StoredRegion } from "@/lib/regions/payload";
 
 const payload: RegionSetPayload = {
-  surfaces: [{ id: "s1", shape: { kind: "polygon", points: [[0, 0], [100, 0], [100, 80]] } }],
+  surfaces: [
+    {
+      id: "s1",
+      shape: {
+        kind: "polygon",
+        points: [
+          [0, 0],
+          [100, 0],
+          [100, 80],
+        ],
+      },
+    },
+  ],
   regions: [
-    { id: "a-2", defect: "scratch", shape: { kind: "line", points: [[1, 1], [50, 40]], width: 3 } },
+    {
+      id: "a-2",
+      defect: "scratch",
+      shape: {
+        kind: "line",
+        points: [
+          [1, 1],
+          [50, 40],
+        ],
+        width: 3,
+      },
+    },
     { id: "a-10", defect: "dent", shape: { kind: "rect", x: 5, y: 6, width: 7, height: 8 } },
     { id: "a-1", defect: "dent", shape: { kind: "spot", x: 20, y: 30, radius: 4 } },
   ],
@@ -21,7 +44,13 @@ const payload: RegionSetPayload = {
 describe("rows for a save", () => {
   it("keeps drawing order in position (surfaces, defects in payload order, ruler) and loads back the same payload", () => {
     const { rows, added, changed, removed } = rowsForSave(payload, [], { authorId: "u1", version: 1 });
-    expect(rows.map((r) => [r.clientId, r.position])).toEqual([["s1", 0], ["a-2", 1], ["a-10", 2], ["a-1", 3], ["r1", 4]]);
+    expect(rows.map((r) => [r.clientId, r.position])).toEqual([
+      ["s1", 0],
+      ["a-2", 1],
+      ["a-10", 2],
+      ["a-1", 3],
+      ["r1", 4],
+    ]);
     expect({ added, changed, removed }).toEqual({ added: 5, changed: 0, removed: 0 });
     // Rows come back from the database in any order; ids sort "a-1" < "a-10" < "a-2", so order by id would be wrong.
     const shuffled = [rows[3], rows[0], rows[4], rows[2], rows[1]];

@@ -7,8 +7,25 @@ import { describe, expect, it } from "vitest";
 import type { PolygonShape } from "@/lib/geometry/shape";
 import { screenSearchArea } from "@/lib/regions/screen-area";
 
-const surface: PolygonShape = { kind: "polygon", points: [[500, 200], [3500, 200], [3500, 2800], [500, 2800]] };
-const zone = { id: "screen-active", label: "Screen active", polygon: [[0.04, 0.03], [0.96, 0.03], [0.96, 0.97], [0.04, 0.97]] as [number, number][] };
+const surface: PolygonShape = {
+  kind: "polygon",
+  points: [
+    [500, 200],
+    [3500, 200],
+    [3500, 2800],
+    [500, 2800],
+  ],
+};
+const zone = {
+  id: "screen-active",
+  label: "Screen active",
+  polygon: [
+    [0.04, 0.03],
+    [0.96, 0.03],
+    [0.96, 0.97],
+    [0.04, 0.97],
+  ] as [number, number][],
+};
 const size = { width: 4000, height: 3000 };
 
 describe("screenSearchArea", () => {
@@ -27,7 +44,15 @@ describe("screenSearchArea", () => {
   });
 
   it("without zones, the Surface alone; a small panel still gets 16 px", () => {
-    const small: PolygonShape = { kind: "polygon", points: [[10, 10], [310, 10], [310, 210], [10, 210]] };
+    const small: PolygonShape = {
+      kind: "polygon",
+      points: [
+        [10, 10],
+        [310, 10],
+        [310, 210],
+        [10, 210],
+      ],
+    };
     const result = screenSearchArea({ surfaces: [small], zones: [], size });
     if ("problem" in result) throw new Error(result.problem);
     expect(result.area.regions).toHaveLength(1);

@@ -9,9 +9,26 @@ import type { PixelCandidate } from "@/lib/imaging/pixel-candidates";
 
 describe("suggestion mapping", () => {
   it("scales a Surface found on a 2560 × 1920 preview to the 4000 × 3000 original, per axis, clamped", () => {
-    const shape = scalePolygon({ kind: "polygon", points: [[0, 0], [1280, 960], [2560, 1920], [2600, 10]] }, { width: 2560, height: 1920 }, { width: 4000, height: 3000 });
+    const shape = scalePolygon(
+      {
+        kind: "polygon",
+        points: [
+          [0, 0],
+          [1280, 960],
+          [2560, 1920],
+          [2600, 10],
+        ],
+      },
+      { width: 2560, height: 1920 },
+      { width: 4000, height: 3000 },
+    );
     // 4000 / 2560 = 1.5625 and 3000 / 1920 = 1.5625: (1280, 960) → (2000, 1500).
-    expect(shape.points).toEqual([[0, 0], [2000, 1500], [4000, 3000], [4000, 15.63]]);
+    expect(shape.points).toEqual([
+      [0, 0],
+      [2000, 1500],
+      [4000, 3000],
+      [4000, 15.63],
+    ]);
   });
 
   it("turns pixel candidates into Spots of their class, at least 1 px in radius; unknown classes are counted", () => {

@@ -26,7 +26,11 @@ describe("benchTime", () => {
   });
 
   it("does not guess: a lapsed lease, a grade with no session open, and no grade give null with the reason", () => {
-    expect(benchTime([claimed("10:00", "ann"), { at: at("10:40"), kind: "lease_expired" }, claimed("11:00", "bo"), graded("11:10")])).toMatchObject({ minutes: null, unknown: "lease_lapsed", byPerson: { bo: 10 } });
+    expect(benchTime([claimed("10:00", "ann"), { at: at("10:40"), kind: "lease_expired" }, claimed("11:00", "bo"), graded("11:10")])).toMatchObject({
+      minutes: null,
+      unknown: "lease_lapsed",
+      byPerson: { bo: 10 },
+    });
     expect(benchTime([claimed("10:00", "ann"), released("10:10"), graded("12:00")])).toMatchObject({ minutes: null, unknown: "no_session", byPerson: { ann: 10 } });
     expect(benchTime([claimed("10:00", "ann")])).toMatchObject({ minutes: null, unknown: "not_graded" });
     expect(benchTime([])).toMatchObject({ minutes: null, unknown: "not_graded", sessions: 0 });

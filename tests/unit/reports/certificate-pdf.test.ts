@@ -10,7 +10,9 @@ import { renderCertificatePdf } from "@/lib/reports/certificate-pdf";
 import { flatText, pdfText } from "@/tests/support/pdf-text";
 import { certificateFixture } from "@/support/fixtures/report-data";
 
-const thumbnail = await sharp({ create: { width: 320, height: 240, channels: 3, background: { r: 120, g: 130, b: 140 } } }).jpeg().toBuffer();
+const thumbnail = await sharp({ create: { width: 320, height: 240, channels: 3, background: { r: 120, g: 130, b: 140 } } })
+  .jpeg()
+  .toBuffer();
 
 // Rendering and reading PDFs/images back is CPU-bound; the machine may be shared.
 describe("renderCertificatePdf", { timeout: 30_000 }, () => {

@@ -21,8 +21,8 @@ const columns: CsvColumn<Row>[] = [
 const rows: Row[] = [
   { serial: "OV-CAM-0001", supplier: "Brændøy Komponenter", grade: "A", defects: 0, gradedAt: new Date("2026-11-30T08:15:00Z"), note: "" },
   { serial: "OV-CAM-0002", supplier: "Zoë Łukasiewicz, Parts & Co", grade: "C", defects: 3, gradedAt: new Date("2026-11-30T09:00:05.250Z"), note: 'says "as new", is not' },
-  { serial: "OV-CAM-0003", supplier: "Ørjan's \"Spares\"", grade: null, defects: 12, gradedAt: null, note: "line one\nline two\r\nline three" },
-  { serial: "OV-CAM-0004", supplier: "Piet Moravec", grade: "Reject", defects: -1, gradedAt: new Date("2026-12-01T00:00:00Z"), note: "=HYPERLINK(\"x\")" },
+  { serial: "OV-CAM-0003", supplier: 'Ørjan\'s "Spares"', grade: null, defects: 12, gradedAt: null, note: "line one\nline two\r\nline three" },
+  { serial: "OV-CAM-0004", supplier: "Piet Moravec", grade: "Reject", defects: -1, gradedAt: new Date("2026-12-01T00:00:00Z"), note: '=HYPERLINK("x")' },
 ];
 
 async function* iterate<T>(items: readonly T[]) {
@@ -50,7 +50,7 @@ describe("csvStream", () => {
       ["OV-CAM-0002", "Zoë Łukasiewicz, Parts & Co", "C", "3", "2026-11-30T09:00:05.250Z", 'says "as new", is not'],
       ["OV-CAM-0003", 'Ørjan\'s "Spares"', "", "12", "", "line one\nline two\r\nline three"],
       // The formula is neutralised (OWASP, a); the negative number is a number and stays as it is.
-      ["OV-CAM-0004", "Piet Moravec", "Reject", "-1", "2026-12-01T00:00:00.000Z", "'=HYPERLINK(\"x\")"],
+      ["OV-CAM-0004", "Piet Moravec", "Reject", "-1", "2026-12-01T00:00:00.000Z", '\'=HYPERLINK("x")'],
     ]);
   });
 

@@ -12,10 +12,24 @@ import { flatText, pdfText } from "@/tests/support/pdf-text";
 import { lotReportFixture, PEOPLE, REPORT_CLASSES, SUPPLIER } from "@/support/fixtures/report-data";
 
 async function photo(i: number) {
-  const image = await sharp({ create: { width: 640, height: 480, channels: 3, background: { r: 90 + i, g: 110, b: 120 } } }).jpeg().toBuffer();
+  const image = await sharp({ create: { width: 640, height: 480, channels: 3, background: { r: 90 + i, g: 110, b: 120 } } })
+    .jpeg()
+    .toBuffer();
   const annotated = await renderAnnotatedPhoto({
     image,
-    regions: [{ defect: "crack", shape: { kind: "polygon", points: [[100, 100], [300, 120], [200, 300]] } }],
+    regions: [
+      {
+        defect: "crack",
+        shape: {
+          kind: "polygon",
+          points: [
+            [100, 100],
+            [300, 120],
+            [200, 300],
+          ],
+        },
+      },
+    ],
     classes: REPORT_CLASSES,
     caption: `Unit ${i} · Front`,
     maxEdge: 640,

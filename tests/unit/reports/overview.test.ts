@@ -18,12 +18,22 @@ describe("benchEventOf", () => {
 describe("scorecardInput", () => {
   const base = { lotId: "l1", supplierId: "s1", receivedOn: "2026-10-14", inspected: 5, classes: { scratch: { units: 2, defects: 3 } } };
   it("a decided lot brings the counts its decision recorded", () => {
-    const row = scorecardInput({ ...base, status: "decided", verdict: "reject", decisionCounts: { critical: { found: 0, inspected: 5, sampleSize: 5 }, major: { found: 2, inspected: 5, sampleSize: 5 }, minor: { found: 1, inspected: 3, sampleSize: 3 } } });
+    const row = scorecardInput({
+      ...base,
+      status: "decided",
+      verdict: "reject",
+      decisionCounts: { critical: { found: 0, inspected: 5, sampleSize: 5 }, major: { found: 2, inspected: 5, sampleSize: 5 }, minor: { found: 1, inspected: 3, sampleSize: 3 } },
+    });
     expect(row.bySeverity).toEqual({ critical: { inspected: 5, defectives: 0 }, major: { inspected: 5, defectives: 2 }, minor: { inspected: 3, defectives: 1 } });
     expect(row.classes).toEqual(base.classes);
   });
   it("defectives found before every check was done count as examined units (never more defectives than inspected)", () => {
-    const row = scorecardInput({ ...base, status: "decided", verdict: "reject", decisionCounts: { critical: { found: 1, inspected: 0, sampleSize: 5 }, major: { found: 0, inspected: 0, sampleSize: 5 }, minor: { found: 0, inspected: 0, sampleSize: 5 } } });
+    const row = scorecardInput({
+      ...base,
+      status: "decided",
+      verdict: "reject",
+      decisionCounts: { critical: { found: 1, inspected: 0, sampleSize: 5 }, major: { found: 0, inspected: 0, sampleSize: 5 }, minor: { found: 0, inspected: 0, sampleSize: 5 } },
+    });
     expect(row.bySeverity.critical).toEqual({ inspected: 1, defectives: 1 });
   });
   it("an open lot adds nothing per severity yet, but its graded units' classes", () => {

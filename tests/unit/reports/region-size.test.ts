@@ -18,12 +18,47 @@ describe("regionSize", () => {
   });
 
   it("polygon: the shoelace area (3-4-5 triangle → 6)", () => {
-    expect(regionSize({ kind: "polygon", points: [[0, 0], [4, 0], [0, 3]] }, 2).areaPx).toBe(6);
-    expect(regionSize({ kind: "polygon", points: [[0, 0], [4, 0], [0, 3]] }, 2).areaMm2).toBe(1.5);
+    expect(
+      regionSize(
+        {
+          kind: "polygon",
+          points: [
+            [0, 0],
+            [4, 0],
+            [0, 3],
+          ],
+        },
+        2,
+      ).areaPx,
+    ).toBe(6);
+    expect(
+      regionSize(
+        {
+          kind: "polygon",
+          points: [
+            [0, 0],
+            [4, 0],
+            [0, 3],
+          ],
+        },
+        2,
+      ).areaMm2,
+    ).toBe(1.5);
   });
 
   it("line: centre-line length, area = length × width, box widened by half the stroke", () => {
-    const size = regionSize({ kind: "line", points: [[0, 0], [3, 4], [3, 10]], width: 2 }, 5);
+    const size = regionSize(
+      {
+        kind: "line",
+        points: [
+          [0, 0],
+          [3, 4],
+          [3, 10],
+        ],
+        width: 2,
+      },
+      5,
+    );
     expect(size.lengthPx).toBe(11); // 5 (3-4-5) + 6
     expect(size.areaPx).toBe(22);
     expect(size.lengthMm).toBeCloseTo(2.2, 10);

@@ -9,9 +9,24 @@ import { describe, expect, it } from "vitest";
 import { supplierScorecards, type SupplierLotRow } from "@/lib/reports/supplier-scorecard";
 
 type Counts = [inspected: number, defectives: number];
-function lot(supplierId: string, receivedOn: string, verdict: "accept" | "reject" | null, severity: { critical: Counts; major: Counts; minor: Counts }, inspected: number, classes: SupplierLotRow["classes"] = {}): SupplierLotRow {
+function lot(
+  supplierId: string,
+  receivedOn: string,
+  verdict: "accept" | "reject" | null,
+  severity: { critical: Counts; major: Counts; minor: Counts },
+  inspected: number,
+  classes: SupplierLotRow["classes"] = {},
+): SupplierLotRow {
   const counts = ([i, d]: Counts) => ({ inspected: i, defectives: d });
-  return { supplierId, receivedOn, status: verdict ? "decided" : "open", verdict, bySeverity: { critical: counts(severity.critical), major: counts(severity.major), minor: counts(severity.minor) }, inspected, classes };
+  return {
+    supplierId,
+    receivedOn,
+    status: verdict ? "decided" : "open",
+    verdict,
+    bySeverity: { critical: counts(severity.critical), major: counts(severity.major), minor: counts(severity.minor) },
+    inspected,
+    classes,
+  };
 }
 
 const LOTS = [

@@ -13,7 +13,13 @@ import { describe, expect, it } from "vitest";
 import { inspectorThroughput, median, type ThroughputRow } from "@/lib/reports/throughput";
 import { mulberry32 } from "@/support/prng";
 
-const row = (graderId: string, partTypeId: string, gradedAt: string, minutes: number | null, graderMinutes: number | null = minutes): ThroughputRow => ({ graderId, partTypeId, gradedAt, minutes, graderMinutes });
+const row = (graderId: string, partTypeId: string, gradedAt: string, minutes: number | null, graderMinutes: number | null = minutes): ThroughputRow => ({
+  graderId,
+  partTypeId,
+  gradedAt,
+  minutes,
+  graderMinutes,
+});
 
 describe("median", () => {
   it("takes the mean of the two middle values for an even count (NP, D3)", () => {

@@ -61,12 +61,8 @@ describe("Table 1 — sample size code letters (REF, a)", () => {
 });
 
 it("sample sizes A…R are 2 … 2000 (REF, a) and reduced sizes 2 … 800 (b, from memory)", () => {
-  expect(CODE_LETTERS.map((letter) => SAMPLE_SIZE_BY_LETTER[letter])).toEqual([
-    2, 3, 5, 8, 13, 20, 32, 50, 80, 125, 200, 315, 500, 800, 1250, 2000,
-  ]);
-  expect(CODE_LETTERS.map((letter) => REDUCED_SAMPLE_SIZE_BY_LETTER[letter])).toEqual([
-    2, 2, 2, 3, 5, 8, 13, 20, 32, 50, 80, 125, 200, 315, 500, 800,
-  ]);
+  expect(CODE_LETTERS.map((letter) => SAMPLE_SIZE_BY_LETTER[letter])).toEqual([2, 3, 5, 8, 13, 20, 32, 50, 80, 125, 200, 315, 500, 800, 1250, 2000]);
+  expect(CODE_LETTERS.map((letter) => REDUCED_SAMPLE_SIZE_BY_LETTER[letter])).toEqual([2, 2, 2, 3, 5, 8, 13, 20, 32, 50, 80, 125, 200, 315, 500, 800]);
 });
 
 type Expected = [letter: CodeLetter, aql: number, planLetter: CodeLetter, sampleSize: number, accept: number, reject: number, source: string];
@@ -182,38 +178,62 @@ describe("Table 2-C — reduced inspection (Z1.4 plans with the Ac/Re gap; b, fr
 describe("singleSamplingPlan", () => {
   it("returns Table 1's letter and the plan after arrows (lot 1000, II, AQL 2.5: J, n 80, 5/6; N1, N2)", () => {
     expect(singleSamplingPlan({ lotSize: 1000, level: "II", aql: 2.5, severity: "normal" })).toEqual({
-      codeLetter: "J", planLetter: "J", sampleSize: 80, accept: 5, reject: 6, hundredPercent: false,
+      codeLetter: "J",
+      planLetter: "J",
+      sampleSize: 80,
+      accept: 5,
+      reject: 6,
+      hundredPercent: false,
     });
   });
 
   it("keeps the code letter when an arrow moves the plan (lot 120, II → F; AQL 1.0 ↑ to E, n 13; N1)", () => {
     expect(singleSamplingPlan({ lotSize: 120, level: "II", aql: 1.0, severity: "normal" })).toMatchObject({
-      codeLetter: "F", planLetter: "E", sampleSize: 13, accept: 0, reject: 1,
+      codeLetter: "F",
+      planLetter: "E",
+      sampleSize: 13,
+      accept: 0,
+      reject: 1,
     });
   });
 
   it("uses the tightened table when asked (lot 1000, II, 2.5 tightened: J, n 80, 3/4; T1)", () => {
     expect(singleSamplingPlan({ lotSize: 1000, level: "II", aql: 2.5, severity: "tightened" })).toMatchObject({
-      codeLetter: "J", sampleSize: 80, accept: 3, reject: 4,
+      codeLetter: "J",
+      sampleSize: 80,
+      accept: 3,
+      reject: 4,
     });
   });
 
   // REF (a): "If sample size equals or exceeds lot size, do 100 percent inspection."
   it("switches to 100 % inspection when the sample exceeds the lot (lot 5, II, 0.65 → F n 20)", () => {
     expect(singleSamplingPlan({ lotSize: 5, level: "II", aql: 0.65, severity: "normal" })).toEqual({
-      codeLetter: "A", planLetter: "F", sampleSize: 5, accept: 0, reject: 1, hundredPercent: true,
+      codeLetter: "A",
+      planLetter: "F",
+      sampleSize: 5,
+      accept: 0,
+      reject: 1,
+      hundredPercent: true,
     });
   });
 
   it("switches to 100 % inspection when the sample equals the lot (lot 13, II, 1.0 → E n 13)", () => {
     expect(singleSamplingPlan({ lotSize: 13, level: "II", aql: 1.0, severity: "normal" })).toMatchObject({
-      codeLetter: "B", planLetter: "E", sampleSize: 13, hundredPercent: true,
+      codeLetter: "B",
+      planLetter: "E",
+      sampleSize: 13,
+      hundredPercent: true,
     });
   });
 
   it("treats a lot of one unit as 100 % inspection of that unit", () => {
     expect(singleSamplingPlan({ lotSize: 1, level: "II", aql: 6.5, severity: "normal" })).toMatchObject({
-      codeLetter: "A", sampleSize: 1, accept: 0, reject: 1, hundredPercent: true,
+      codeLetter: "A",
+      sampleSize: 1,
+      accept: 0,
+      reject: 1,
+      hundredPercent: true,
     });
   });
 

@@ -30,7 +30,9 @@ describe("seal / open", () => {
   // itself: NIST SP 800-38D (a, read in a public source)): key = HMAC-SHA-256(secret, label),
   // additional data = the purpose, "<iv>.<tag>.<ciphertext>" in base64url.
   it("is AES-256-GCM under the documented key and layout", () => {
-    const [iv, tag, body] = seal("mail-job", message, { secret }).split(".").map((p) => Buffer.from(p, "base64url"));
+    const [iv, tag, body] = seal("mail-job", message, { secret })
+      .split(".")
+      .map((p) => Buffer.from(p, "base64url"));
     const decipher = createDecipheriv("aes-256-gcm", createHmac("sha256", secret).update("partproof mail-job seal v1").digest(), iv);
     decipher.setAAD(Buffer.from("mail-job"));
     decipher.setAuthTag(tag);

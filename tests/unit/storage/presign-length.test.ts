@@ -5,8 +5,7 @@ import { describe, expect, it } from "vitest";
 import { createObjectStore, presignPut } from "@/lib/storage/s3";
 
 type SourceData = string | ArrayBuffer | ArrayBufferView;
-const bytes = (data: SourceData) =>
-  typeof data === "string" ? Buffer.from(data) : ArrayBuffer.isView(data) ? Buffer.from(data.buffer, data.byteOffset, data.byteLength) : Buffer.from(data);
+const bytes = (data: SourceData) => (typeof data === "string" ? Buffer.from(data) : ArrayBuffer.isView(data) ? Buffer.from(data.buffer, data.byteOffset, data.byteLength) : Buffer.from(data));
 
 /** SHA-256 / HMAC-SHA-256 for the reference signer (its Checksum interface, on node:crypto). */
 class NodeSha256 {
@@ -37,7 +36,15 @@ async function signatureForUpload(url: URL, contentLength: number): Promise<stri
   const signingDate = new Date(`${amzDate.slice(0, 4)}-${amzDate.slice(4, 6)}-${amzDate.slice(6, 8)}T${amzDate.slice(9, 11)}:${amzDate.slice(11, 13)}:${amzDate.slice(13, 15)}Z`);
   const signer = new SignatureV4({ service: "s3", region: "eu-central-1", credentials, sha256: NodeSha256, uriEscapePath: false, applyChecksum: false });
   const signed = await signer.presign(
-    { method: "PUT", protocol: url.protocol, hostname: url.hostname, port: url.port ? Number(url.port) : undefined, path: decodeURIComponent(url.pathname), query, headers: { host: url.host, "content-length": String(contentLength), "x-amz-content-sha256": url.searchParams.get("X-Amz-Content-Sha256")! } },
+    {
+      method: "PUT",
+      protocol: url.protocol,
+      hostname: url.hostname,
+      port: url.port ? Number(url.port) : undefined,
+      path: decodeURIComponent(url.pathname),
+      query,
+      headers: { host: url.host, "content-length": String(contentLength), "x-amz-content-sha256": url.searchParams.get("X-Amz-Content-Sha256")! },
+    },
     // The payload hash (UNSIGNED-PAYLOAD) travels in the query already, as the SDK put it there.
     { signingDate, expiresIn: Number(url.searchParams.get("X-Amz-Expires")), unhoistableHeaders: new Set(["x-amz-content-sha256"]), unsignableHeaders: new Set(["x-amz-content-sha256"]) },
   );

@@ -26,7 +26,15 @@ describe("classRows", () => {
   it("gives one row per class learned or judged, sorted, with labels, counts, held-out figures and the rule's verdict", () => {
     expect(classRows(model, { scratch: "Scratch", crack: "Crack" })).toEqual([
       { defect: "crack", label: "Crack", learnedRegions: 24, learnedPhotos: 24, heldOut: null, suggest: false, reason: "learned from 24 regions (needs 30)" },
-      { defect: "scratch", label: "Scratch", learnedRegions: 48, learnedPhotos: 40, heldOut: { accepted: 19, suggested: 22, hits: 17, recall: 0.895, precision: 0.773 }, suggest: true, reason: "held-out recall 0.895, precision 0.773 on 19 regions" },
+      {
+        defect: "scratch",
+        label: "Scratch",
+        learnedRegions: 48,
+        learnedPhotos: 40,
+        heldOut: { accepted: 19, suggested: 22, hits: 17, recall: 0.895, precision: 0.773 },
+        suggest: true,
+        reason: "held-out recall 0.895, precision 0.773 on 19 regions",
+      },
     ]);
   });
 
@@ -38,8 +46,12 @@ describe("classRows", () => {
 
 describe("describeSources", () => {
   it("counts the workspace's photos, and says plainly when the model is the seed's demo model", () => {
-    expect(describeSources(model)).toBe("Learned from 12 graded unit photos, 1 gallery photo and 0 photos with dismissed suggestions (61 accepted regions in the workspace then), judged on 16 held-out photos.");
-    expect(describeSources({ ...model, sources: { ...model.sources, syntheticPhotos: 40 } })).toBe("Demo model: learned from 40 synthetic photos the seed rendered (none of this workspace's), judged on 16 held-out photos.");
+    expect(describeSources(model)).toBe(
+      "Learned from 12 graded unit photos, 1 gallery photo and 0 photos with dismissed suggestions (61 accepted regions in the workspace then), judged on 16 held-out photos.",
+    );
+    expect(describeSources({ ...model, sources: { ...model.sources, syntheticPhotos: 40 } })).toBe(
+      "Demo model: learned from 40 synthetic photos the seed rendered (none of this workspace's), judged on 16 held-out photos.",
+    );
   });
 });
 
@@ -47,7 +59,9 @@ describe("describeRules", () => {
   it("states the hit rule, the suggestion rule and the switching rule with the numbers the job applies", () => {
     const lines = describeRules({ iouThreshold: EVALUATION_IOU, suggestion: SUGGESTION_RULE, firstTrainingRegions: 60, retrainAfterNewRegions: 50 });
     expect(lines[0]).toContain("IoU ≥ 0.3");
-    expect(lines[1]).toBe("A class is suggested only when the model learned it from at least 30 regions on 10 photos, the held-out photos hold at least 8 of its regions, and there its recall is at least 0.6 and its precision at least 0.4.");
+    expect(lines[1]).toBe(
+      "A class is suggested only when the model learned it from at least 30 regions on 10 photos, the held-out photos hold at least 8 of its regions, and there its recall is at least 0.6 and its precision at least 0.4.",
+    );
     expect(lines[2]).toContain("on a tie, a model that may suggest nothing never replaces one");
     expect(lines[3]).toContain("60 accepted regions, then after every 50 new ones");
   });

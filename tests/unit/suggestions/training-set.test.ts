@@ -8,13 +8,25 @@ const labelled = (photoId: string, source: "unit" | "gallery" = "unit", defect =
   ...geometry(photoId),
   source,
   regions: [{ defect, shape: { kind: "rect", x: 100, y: 200, width: 40, height: 20 } }],
-  surfaces: [{ kind: "polygon", points: [[0, 0], [4000, 0], [4000, 3000]] }],
+  surfaces: [
+    {
+      kind: "polygon",
+      points: [
+        [0, 0],
+        [4000, 0],
+        [4000, 3000],
+      ],
+    },
+  ],
 });
 const ids = Array.from({ length: 200 }, (_, k) => `00000000-0000-4000-8000-${String(k).padStart(12, "0")}`);
 
 describe("planTraining", () => {
   it("never puts a photo on both sides, and splits as splitByPhoto does", () => {
-    const plan = planTraining(ids.map((id) => labelled(id)), []);
+    const plan = planTraining(
+      ids.map((id) => labelled(id)),
+      [],
+    );
     const train = new Set(plan.train.map((p) => p.photoId));
     const test = plan.test.map((p) => p.photoId);
     expect(test.filter((id) => train.has(id))).toEqual([]);
@@ -30,11 +42,24 @@ describe("planTraining", () => {
     const photo = [...plan.train, ...plan.test][0];
     expect(photo.width).toBe(2000);
     expect(photo.regions[0].shape).toEqual({ kind: "rect", x: 50, y: 100, width: 20, height: 10 });
-    expect(photo.surface).toEqual([{ kind: "polygon", points: [[0, 0], [2000, 0], [2000, 1500]] }]);
+    expect(photo.surface).toEqual([
+      {
+        kind: "polygon",
+        points: [
+          [0, 0],
+          [2000, 0],
+          [2000, 1500],
+        ],
+      },
+    ]);
   });
 
   it("turns dismissed ghosts on unlabelled photos into training photos whose only clean area is what was dismissed", () => {
-    const dismissed: DismissalPhoto = { ...geometry("d-1"), dismissed: [{ kind: "spot", x: 400, y: 400, radius: 20 }], regions: [{ defect: "stain", shape: { kind: "rect", x: 0, y: 0, width: 10, height: 10 } }] };
+    const dismissed: DismissalPhoto = {
+      ...geometry("d-1"),
+      dismissed: [{ kind: "spot", x: 400, y: 400, radius: 20 }],
+      regions: [{ defect: "stain", shape: { kind: "rect", x: 0, y: 0, width: 10, height: 10 } }],
+    };
     const alreadyLabelled: DismissalPhoto = { ...geometry(ids[3]), dismissed: [{ kind: "spot", x: 10, y: 10, radius: 5 }], regions: [] };
     const plan = planTraining([labelled(ids[3])], [dismissed, alreadyLabelled]);
     const extra = plan.train.filter((p) => p.source === "dismissals");

@@ -55,7 +55,7 @@ describe("drawSample", () => {
     const counts = new Array(10).fill(0);
     const firsts = new Array(10).fill(0);
     for (let seed = 0; seed < 20_000; seed++) {
-      const sample = drawSample(items, 3, String(seed * 2654435761 % 4294967296));
+      const sample = drawSample(items, 3, String((seed * 2654435761) % 4294967296));
       for (const item of sample) counts[item] += 1;
       firsts[sample[0]] += 1;
     }

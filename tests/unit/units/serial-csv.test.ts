@@ -51,7 +51,7 @@ describe("parseSerialCsv", () => {
       { line: 2, message: "line 2: “OV 2” contains a space; serials use letters, digits and . _ / -" },
       { line: 3, message: "line 3: “-OV3” must start with a letter or digit" },
       { line: 4, message: "line 4: the serial is longer than 64 characters" },
-      { line: 6, message: "line 6: “OV-\"6” contains “\"”; serials use letters, digits and . _ / -" },
+      { line: 6, message: 'line 6: “OV-"6” contains “"”; serials use letters, digits and . _ / -' },
     ]);
   });
 

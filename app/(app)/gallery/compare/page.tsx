@@ -44,7 +44,9 @@ export default async function ComparePage(props: PageProps<"/gallery/compare">) 
       </div>
     );
   }
-  const partTypes = await Promise.all([...new Set([a, b].filter((i): i is GalleryItemDto => i !== null).map((i) => i.partType.id))].map((id) => getGradingPartType({ workspaceId: user.workspaceId, partTypeId: id })));
+  const partTypes = await Promise.all(
+    [...new Set([a, b].filter((i): i is GalleryItemDto => i !== null).map((i) => i.partType.id))].map((id) => getGradingPartType({ workspaceId: user.workspaceId, partTypeId: id })),
+  );
   const partTypeOf = (item: GalleryItemDto) => partTypes.find((p) => p?.id === item.partType.id)!;
 
   if (!a || !b) {

@@ -25,7 +25,9 @@ export default async function GalleryAddPage() {
       <h1 className="page-title">Add to the gallery</h1>
       <div className="grid gap-4 lg:grid-cols-2">
         <section className="space-y-2" aria-labelledby="from-unit">
-          <h2 id="from-unit" className="text-lg font-semibold">From a graded unit</h2>
+          <h2 id="from-unit" className="text-lg font-semibold">
+            From a graded unit
+          </h2>
           <p className="text-sm text-gauge-700">Open the unit on the Bench, pick the photo and choose “Add to gallery”: its regions and the unit&apos;s grade become a draft.</p>
           {graded.length === 0 ? (
             <p className="card p-4 text-sm text-gauge-700">No unit has been graded yet.</p>
@@ -46,7 +48,9 @@ export default async function GalleryAddPage() {
           )}
         </section>
         <section className="space-y-2" aria-labelledby="upload">
-          <h2 id="upload" className="text-lg font-semibold">Upload a photo</h2>
+          <h2 id="upload" className="text-lg font-semibold">
+            Upload a photo
+          </h2>
           <p className="text-sm text-gauge-700">Say what it shows and the grade it deserves; then mark its regions and write its caption on the item&apos;s page, and publish it.</p>
           <GalleryUploadForm partTypes={partTypes.map((p) => ({ id: p.id, name: p.name, views: p.views.map((v) => ({ key: v.key, label: v.label })) }))} />
         </section>

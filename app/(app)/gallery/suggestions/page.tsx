@@ -32,7 +32,8 @@ export default async function SuggestionsPage() {
           </p>
           <h1 className="page-title">Learned suggestions</h1>
           <p className="max-w-2xl text-gauge-700">
-            Partproof learns from this workspace’s own accepted regions (graded units and published gallery items) and from suggestions inspectors dismissed, and proposes regions on the Bench. Each model is judged on photos it never learned from.
+            Partproof learns from this workspace’s own accepted regions (graded units and published gallery items) and from suggestions inspectors dismissed, and proposes regions on the Bench. Each
+            model is judged on photos it never learned from.
           </p>
         </div>
         <TrainNow />

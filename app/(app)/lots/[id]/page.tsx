@@ -38,7 +38,8 @@ export default async function LotPage(props: PageProps<"/lots/[id]">) {
     lot.status === "decided" ? listDecidedLotAffected({ workspaceId: user.workspaceId, lotId: id }) : Promise.resolve([]),
   ]);
   // A decided lot shows the counts its decision rested on, never a recount under a later rule.
-  const verdict = lot.status === "decided" && lot.verdict && lot.decisionCounts ? decidedVerdictView(lot.plan, { verdict: lot.verdict, counts: lot.decisionCounts }, progress.verdict) : progress.verdict;
+  const verdict =
+    lot.status === "decided" && lot.verdict && lot.decisionCounts ? decidedVerdictView(lot.plan, { verdict: lot.verdict, counts: lot.decisionCounts }, progress.verdict) : progress.verdict;
   const canDecide = can(user, "lots.decide");
   const canManage = can(user, "lots.manage");
   const shownVerdict = lot.status === "decided" && lot.verdict ? lot.verdict : verdict.verdict;
@@ -51,7 +52,8 @@ export default async function LotPage(props: PageProps<"/lots/[id]">) {
       </Link>
       {affected.length > 0 && (
         <div role="alert" className="rounded-md border-2 border-signal-500 bg-signal-50 p-3 text-sm text-signal-800" data-testid="decided-lot-affected">
-          This lot was decided before {affected.length === 1 ? "an adjudication" : `${affected.length} adjudications`} changed a unit&apos;s grade ({affected.map((a) => a.serial ?? "a unit").join(", ")}). The decision and its counts stay as recorded; review whether the lot needs a follow-up.
+          This lot was decided before {affected.length === 1 ? "an adjudication" : `${affected.length} adjudications`} changed a unit&apos;s grade (
+          {affected.map((a) => a.serial ?? "a unit").join(", ")}). The decision and its counts stay as recorded; review whether the lot needs a follow-up.
         </div>
       )}
       <div className="flex flex-wrap items-start justify-between gap-3">
@@ -76,7 +78,14 @@ export default async function LotPage(props: PageProps<"/lots/[id]">) {
         <h2 id="progress-title" className="text-lg font-semibold">
           Progress: {verdict.unitsInspected} of {lot.plan.sampleSize} units inspected
         </h2>
-        <div className="h-2 overflow-hidden rounded bg-gauge-100" role="progressbar" aria-valuemin={0} aria-valuemax={lot.plan.sampleSize} aria-valuenow={verdict.unitsInspected} aria-label="Units inspected">
+        <div
+          className="h-2 overflow-hidden rounded bg-gauge-100"
+          role="progressbar"
+          aria-valuemin={0}
+          aria-valuemax={lot.plan.sampleSize}
+          aria-valuenow={verdict.unitsInspected}
+          aria-label="Units inspected"
+        >
           <div className="h-full bg-gauge-600" style={{ width: `${percent}%` }} />
         </div>
         <p className="text-sm" data-testid="verdict-summary">
@@ -86,8 +95,12 @@ export default async function LotPage(props: PageProps<"/lots/[id]">) {
 
       <section className="card space-y-3 p-5" aria-labelledby="plan-title">
         <div className="flex flex-wrap items-baseline justify-between gap-2">
-          <h2 id="plan-title" className="text-lg font-semibold">Sampling plan</h2>
-          <span className="text-xs text-gauge-600">Stored with the lot on {formatDate(lot.createdAt, user.timeZone)} by {row.createdByName}</span>
+          <h2 id="plan-title" className="text-lg font-semibold">
+            Sampling plan
+          </h2>
+          <span className="text-xs text-gauge-600">
+            Stored with the lot on {formatDate(lot.createdAt, user.timeZone)} by {row.createdByName}
+          </span>
         </div>
         <p className="text-sm" data-testid="plan-switching">
           <strong className="font-medium">{lot.inspectionSeverity[0].toUpperCase() + lot.inspectionSeverity.slice(1)} inspection</strong>, level {lot.plan.level}. Why: {lot.plan.switchingReason}
@@ -97,7 +110,9 @@ export default async function LotPage(props: PageProps<"/lots/[id]">) {
       </section>
 
       <section className="card space-y-3 p-5" aria-labelledby="disposition-title">
-        <h2 id="disposition-title" className="text-lg font-semibold">Disposition</h2>
+        <h2 id="disposition-title" className="text-lg font-semibold">
+          Disposition
+        </h2>
         {lot.status === "decided" ? (
           <p className="text-sm" data-testid="disposition">
             <strong>{DISPOSITION_LABELS[lot.disposition!]}</strong> ({lot.verdict}) on {lot.decidedAt ? formatDate(lot.decidedAt, user.timeZone) : "—"}: {lot.dispositionReason}
@@ -112,7 +127,9 @@ export default async function LotPage(props: PageProps<"/lots/[id]">) {
       </section>
 
       <section className="space-y-3" aria-labelledby="units-title">
-        <h2 id="units-title" className="text-lg font-semibold">Units</h2>
+        <h2 id="units-title" className="text-lg font-semibold">
+          Units
+        </h2>
         {lotUnits.length === 0 ? (
           canManage && lot.status === "open" ? (
             <UnitImport lotId={id} sampleSize={lot.plan.sampleSize} quantity={lot.quantity} />
@@ -126,11 +143,16 @@ export default async function LotPage(props: PageProps<"/lots/[id]">) {
                 ? `Drawn at random from a list of ${lot.sampleDraw.poolSize} serials with seed ${lot.sampleDraw.seed} (${lot.sampleDraw.algorithm}); the same list and seed give the same sample.`
                 : "Numbered placeholders: inspectors scan each unit's serial on the bench."}
             </p>
-            <LotUnitsList units={lotUnits} checklistLength={row.checklistItemIds.length} defectsByUnit={can(user, "inspection.read") ? progress.defectsByUnit : new Map()} now={new Date()} benchLinks={can(user, "inspection.read")} />
+            <LotUnitsList
+              units={lotUnits}
+              checklistLength={row.checklistItemIds.length}
+              defectsByUnit={can(user, "inspection.read") ? progress.defectsByUnit : new Map()}
+              now={new Date()}
+              benchLinks={can(user, "inspection.read")}
+            />
           </>
         )}
       </section>
-
 
       <SwitchingBox supplierId={lot.supplierId} partTypeId={lot.partTypeId} view={next} canEdit={canManage} title={`Next lot of ${row.partTypeName} from ${row.supplierName}`} />
     </div>

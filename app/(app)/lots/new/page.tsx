@@ -12,7 +12,11 @@ export const metadata: Metadata = { title: "Receive a lot" };
 
 export default async function NewLotPage() {
   const user = await requirePageUser({ permission: "lots.manage", from: "/lots/new" });
-  const [suppliers, partTypes, counts] = await Promise.all([listSuppliers({ workspaceId: user.workspaceId }), listPartTypes({ workspaceId: user.workspaceId, active: true }), getSetupCounts({ workspaceId: user.workspaceId })]);
+  const [suppliers, partTypes, counts] = await Promise.all([
+    listSuppliers({ workspaceId: user.workspaceId }),
+    listPartTypes({ workspaceId: user.workspaceId, active: true }),
+    getSetupCounts({ workspaceId: user.workspaceId }),
+  ]);
   const activeSuppliers = suppliers.filter((s) => s.active);
   // Without an active supplier and part type there is nothing to choose: say what to do instead.
   const missing = setupSteps(counts).filter((s) => (s.key === "part-types" && partTypes.length === 0) || (s.key === "suppliers" && activeSuppliers.length === 0));
@@ -27,7 +31,8 @@ export default async function NewLotPage() {
       </div>
       {missing.length > 0 ? (
         <EmptyState title="Before you can receive a lot" steps={missing} testId="receive-lot-empty">
-          A lot comes from a supplier and is of one part type; {missing.length === 2 ? "there are none yet" : activeSuppliers.length === 0 ? "there is no active supplier yet" : "there is no active part type yet"}.
+          A lot comes from a supplier and is of one part type;{" "}
+          {missing.length === 2 ? "there are none yet" : activeSuppliers.length === 0 ? "there is no active supplier yet" : "there is no active part type yet"}.
         </EmptyState>
       ) : (
         <LotCreateForm

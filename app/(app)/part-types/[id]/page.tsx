@@ -22,7 +22,9 @@ export default async function PartTypePage(props: PageProps<"/part-types/[id]">)
   const category = partType.category as PartCategory;
   return (
     <div className="max-w-5xl space-y-6">
-      <Link href="/part-types" className="text-sm text-gauge-600 underline">← Part types</Link>
+      <Link href="/part-types" className="text-sm text-gauge-600 underline">
+        ← Part types
+      </Link>
       <div>
         <h1 className="page-title">{partType.name}</h1>
         <p className="text-gauge-700">

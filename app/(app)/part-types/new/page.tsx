@@ -9,7 +9,9 @@ export default async function NewPartTypePage() {
   await requirePageUser({ permission: "part-types.edit", from: "/part-types/new" });
   return (
     <div className="max-w-5xl space-y-6">
-      <Link href="/part-types" className="text-sm text-gauge-600 underline">← Part types</Link>
+      <Link href="/part-types" className="text-sm text-gauge-600 underline">
+        ← Part types
+      </Link>
       <h1 className="page-title">New part type</h1>
       <PartTypeForm />
     </div>

@@ -1,6 +1,5 @@
 import type { Metadata } from "next";
 import { RecheckBench } from "@/components/recheck/recheck-bench";
-import type { BlindRecheckJson } from "@/components/recheck/api";
 import { requirePageUser } from "@/lib/auth/require-user";
 import { pageIdOrNotFound } from "@/lib/http/page-params";
 import { blindRecheckView } from "@/lib/recheck/blind-view";
@@ -12,5 +11,5 @@ export default async function RecheckBenchPage(props: PageProps<"/recheck/[id]">
   const { id: rawId } = await props.params;
   const user = await requirePageUser({ permission: "recheck.perform", from: `/recheck/${rawId}` });
   const view = await blindRecheckView(user, pageIdOrNotFound(rawId));
-  return <RecheckBench view={JSON.parse(JSON.stringify(view)) as BlindRecheckJson} />;
+  return <RecheckBench view={view} />;
 }

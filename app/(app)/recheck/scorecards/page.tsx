@@ -46,7 +46,8 @@ export default async function ScorecardsPage(props: PageProps<"/recheck/scorecar
         </p>
         <h1 className="page-title">Grader scorecards</h1>
         <p className="max-w-3xl text-gauge-700">
-          How often each grader&apos;s grades agree with a blind recheck of the same unit, {view.from} to {view.to} ({view.timeZone}). A recheck counts in the week of the grade it checks. Rechecks whose auditor had opened the unit&apos;s inspection work are &ldquo;not blind&rdquo;: counted, never used in a figure.
+          How often each grader&apos;s grades agree with a blind recheck of the same unit, {view.from} to {view.to} ({view.timeZone}). A recheck counts in the week of the grade it checks. Rechecks
+          whose auditor had opened the unit&apos;s inspection work are &ldquo;not blind&rdquo;: counted, never used in a figure.
         </p>
       </header>
 
@@ -80,9 +81,17 @@ export default async function ScorecardsPage(props: PageProps<"/recheck/scorecar
             <h2 id="graders-heading" className="text-lg font-semibold">
               Graders
             </h2>
-            <GraderTable graders={view.graders} names={view.names} team={view.team} selected={selected?.graderId ?? null} linkFor={(graderId) => scorecardHref({ ...period, grader: graderId ?? undefined })} />
+            <GraderTable
+              graders={view.graders}
+              names={view.names}
+              team={view.team}
+              selected={selected?.graderId ?? null}
+              linkFor={(graderId) => scorecardHref({ ...period, grader: graderId ?? undefined })}
+            />
             <p className="text-xs text-gauge-600">
-              Kappa and weighted kappa (quadratic weights) on the full A/B/C/Reject scale; 95 % intervals from the analytic standard error (Fleiss, Cohen &amp; Everitt, 1969), exact agreement with the Wilson interval; bands as named by Landis &amp; Koch (1977). A grader is flagged for drift when, over the last {view.settings.driftWeeks} weeks, their exact agreement is under {Math.round(threshold * 100)} % (with at least {view.settings.driftMinRechecks} rechecks) or the top of its interval is under the rest of the team.
+              Kappa and weighted kappa (quadratic weights) on the full A/B/C/Reject scale; 95 % intervals from the analytic standard error (Fleiss, Cohen &amp; Everitt, 1969), exact agreement with the
+              Wilson interval; bands as named by Landis &amp; Koch (1977). A grader is flagged for drift when, over the last {view.settings.driftWeeks} weeks, their exact agreement is under{" "}
+              {Math.round(threshold * 100)} % (with at least {view.settings.driftMinRechecks} rechecks) or the top of its interval is under the rest of the team.
             </p>
           </section>
 
@@ -91,7 +100,11 @@ export default async function ScorecardsPage(props: PageProps<"/recheck/scorecar
               <h2 id="trend-heading" className="text-lg font-semibold">
                 {cardLabel}: weekly trend
               </h2>
-              {selected && <p className={`text-sm ${selected.drift.flagged ? "font-medium text-fault-700" : "text-gauge-700"}`} data-testid="drift-detail">Drift: {driftText(selected.drift)}.</p>}
+              {selected && (
+                <p className={`text-sm ${selected.drift.flagged ? "font-medium text-fault-700" : "text-gauge-700"}`} data-testid="drift-detail">
+                  Drift: {driftText(selected.drift)}.
+                </p>
+              )}
               {!selected && <p className="text-sm text-gauge-700">Everyone&apos;s rechecks together. Choose a grader above for their own card.</p>}
             </div>
             <div className="grid gap-6 xl:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
@@ -114,10 +127,13 @@ export default async function ScorecardsPage(props: PageProps<"/recheck/scorecar
             ) : (
               <>
                 <p className="text-sm">
-                  Krippendorff&apos;s alpha (ordinal): <strong className="tabular-nums">{Number.isFinite(multi.alphaOrdinal) ? multi.alphaOrdinal.toFixed(2) : "n/a"}</strong>; Gwet&apos;s AC1: <strong className="tabular-nums">{Number.isFinite(multi.ac1) ? multi.ac1.toFixed(2) : "n/a"}</strong> over {multi.units} unit{multi.units === 1 ? "" : "s"} ({multi.grades} grades, {multi.unitsWithMoreThanTwo} with more than two).
+                  Krippendorff&apos;s alpha (ordinal): <strong className="tabular-nums">{Number.isFinite(multi.alphaOrdinal) ? multi.alphaOrdinal.toFixed(2) : "n/a"}</strong>; Gwet&apos;s AC1:{" "}
+                  <strong className="tabular-nums">{Number.isFinite(multi.ac1) ? multi.ac1.toFixed(2) : "n/a"}</strong> over {multi.units} unit{multi.units === 1 ? "" : "s"} ({multi.grades} grades,{" "}
+                  {multi.unitsWithMoreThanTwo} with more than two).
                 </p>
                 <p className="text-xs text-gauge-600">
-                  Each unit&apos;s first grade, its blind recheck and any adjudication. Both figures stay meaningful when nearly every unit gets the same grade, where kappa does not. An adjudication is made after seeing both earlier grades, so it raises agreement a little. Exact agreement of the team: {formatPercent(view.team.figures.exact.share)}.
+                  Each unit&apos;s first grade, its blind recheck and any adjudication. Both figures stay meaningful when nearly every unit gets the same grade, where kappa does not. An adjudication
+                  is made after seeing both earlier grades, so it raises agreement a little. Exact agreement of the team: {formatPercent(view.team.figures.exact.share)}.
                 </p>
               </>
             )}

@@ -1,13 +1,13 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { BenchWorkspace } from "@/components/bench/bench-workspace";
-import type { UnitView } from "@/components/bench/use-unit";
 import { getUnitForGrading } from "@/db/queries/grading";
 import { listRubricVersions } from "@/db/queries/rubrics";
 import { getUnitDetail, listUnitResults } from "@/db/queries/units";
 import { can } from "@/lib/auth/permissions";
 import { requirePageUser } from "@/lib/auth/require-user";
 import { pageIdOrNotFound } from "@/lib/http/page-params";
+import { toUnitView } from "@/lib/units/dto";
 import { isUuid } from "@/lib/validation";
 
 export const metadata: Metadata = { title: "Bench" };
@@ -23,10 +23,13 @@ export default async function UnitPage(props: PageProps<"/units/[id]">) {
   const key = { workspaceId: user.workspaceId, unitId: id };
   const [detail, grading] = await Promise.all([getUnitDetail(key), getUnitForGrading(key)]);
   if (!detail || !grading) notFound();
-  const [results, versions] = await Promise.all([listUnitResults({ workspaceId: user.workspaceId, unitIds: [id] }), listRubricVersions({ workspaceId: user.workspaceId, partTypeId: grading.partTypeId })]);
-  // The same JSON the API sends, so the panels' queries start from what they will refetch.
-  const initial = JSON.parse(JSON.stringify({ ...detail, results })) as UnitView;
-  const me = { id: user.id, isLead: can(user, "leases.manage"), canRecord: can(user, "units.record"), timeZone: user.timeZone };
+  const [results, versions] = await Promise.all([
+    listUnitResults({ workspaceId: user.workspaceId, unitIds: [id] }),
+    listRubricVersions({ workspaceId: user.workspaceId, partTypeId: grading.partTypeId }),
+  ]);
+  // The same value the API sends, so the panels' queries start from what they will refetch.
+  const initial = toUnitView(detail, results);
+  const me = { id: user.id, roles: user.roles, timeZone: user.timeZone };
   const { views, defectClasses, panelResolution } = grading.partType;
   return (
     <BenchWorkspace

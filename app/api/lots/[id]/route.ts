@@ -15,9 +15,19 @@ export const GET = handler({ permission: "lots.read" }, async (_req, ctx: RouteC
   const progress = await oneLotProgress(user.workspaceId, progressInput(row));
   const next = await switchingStateFor({ workspaceId: user.workspaceId, supplierId: row.lot.supplierId, partTypeId: row.lot.partTypeId });
   return Response.json({
-    lot: { ...lotSummary(row, progress), plan: row.lot.plan, sampleDraw: row.lot.sampleDraw, dispositionReason: row.lot.dispositionReason, decidedAt: row.lot.decidedAt, decisionCounts: row.lot.decisionCounts },
+    lot: {
+      ...lotSummary(row, progress),
+      plan: row.lot.plan,
+      sampleDraw: row.lot.sampleDraw,
+      dispositionReason: row.lot.dispositionReason,
+      decidedAt: row.lot.decidedAt,
+      decisionCounts: row.lot.decisionCounts,
+    },
     // A decided lot answers with the verdict and counts its decision stored (lib/lots/verdict.ts).
-    verdict: row.lot.status === "decided" && row.lot.verdict && row.lot.decisionCounts ? decidedVerdictView(row.lot.plan, { verdict: row.lot.verdict, counts: row.lot.decisionCounts }, progress.verdict) : progress.verdict,
+    verdict:
+      row.lot.status === "decided" && row.lot.verdict && row.lot.decisionCounts
+        ? decidedVerdictView(row.lot.plan, { verdict: row.lot.verdict, counts: row.lot.decisionCounts }, progress.verdict)
+        : progress.verdict,
     cosmeticGrading: progress.cosmeticGrading,
     /** What each unit counts as (failed items and cosmetic nonconformities), for units that count at all. */
     unitDefects: Object.fromEntries([...progress.defectsByUnit].filter(([, defects]) => defects.length > 0)),

@@ -1,6 +1,7 @@
 import { getUnitDetail, listUnitResults } from "@/db/queries/units";
 import { notFound } from "@/lib/errors";
 import { handler, parseJson } from "@/lib/http/route";
+import { toUnitView } from "@/lib/units/dto";
 import { unitUpdateSchema } from "@/lib/units/schemas";
 import { setUnitSerial } from "@/lib/units/units";
 import { parseId } from "@/lib/validation";
@@ -13,7 +14,7 @@ export const GET = handler({ permission: "inspection.read" }, async (_req, ctx: 
   if (!detail) throw notFound("That unit");
   const results = await listUnitResults({ workspaceId: user.workspaceId, unitIds: [id] });
   await noteInspectionOpened(user, id);
-  return Response.json({ ...detail, results });
+  return Response.json(toUnitView(detail, results));
 });
 
 /** Sets a placeholder unit's serial. */

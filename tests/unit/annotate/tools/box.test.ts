@@ -16,7 +16,10 @@ describe("Box tool", () => {
   });
 
   it("shows the box while dragging and normalises a reversed drag", () => {
-    const mid = drive(boxState(), [["down", 60, 40], ["move", 30, 25]]);
+    const mid = drive(boxState(), [
+      ["down", 60, 40],
+      ["move", 30, 25],
+    ]);
     expect(mid.draft).toMatchObject({ tool: "box", start: { x: 60, y: 40 }, current: { x: 30, y: 25 } });
     expect(mid.regions).toEqual([]);
     const s = drive(boxState(), dragSteps(60, 40, 10, 10));
@@ -42,7 +45,12 @@ describe("Box tool", () => {
   });
 
   it("cancels with Escape", () => {
-    const s = drive(boxState(), [["down", 10, 10], ["move", 50, 50], ["key", "Escape"], ["up", 50, 50]]);
+    const s = drive(boxState(), [
+      ["down", 10, 10],
+      ["move", 50, 50],
+      ["key", "Escape"],
+      ["up", 50, 50],
+    ]);
     expect(s.draft).toBeNull();
     expect(s.regions).toEqual([]);
   });

@@ -8,7 +8,11 @@ import type { Point } from "@/lib/geometry/shape";
 import { drive, makeState, only, withTool } from "../helpers";
 
 const outlineState = () => withTool(makeState(), "outline");
-const triangleClicks = [["click", 100, 100], ["click", 200, 100], ["click", 150, 180]] as const;
+const triangleClicks = [
+  ["click", 100, 100],
+  ["click", 200, 100],
+  ["click", 150, 180],
+] as const;
 
 function polygonPoints(state: ReturnType<typeof makeState>): Point[] {
   const region = only(state.regions);
@@ -19,7 +23,19 @@ function polygonPoints(state: ReturnType<typeof makeState>): Point[] {
 describe("Outline tool", () => {
   it("closes on a click near the first vertex", () => {
     const s = drive(outlineState(), [...triangleClicks, ["click", 104, 103]]);
-    expect(only(s.regions)).toEqual({ id: "t-1", role: "defect", defect: "scratch", shape: { kind: "polygon", points: [[100, 100], [200, 100], [150, 180]] } });
+    expect(only(s.regions)).toEqual({
+      id: "t-1",
+      role: "defect",
+      defect: "scratch",
+      shape: {
+        kind: "polygon",
+        points: [
+          [100, 100],
+          [200, 100],
+          [150, 180],
+        ],
+      },
+    });
     expect(s.draft).toBeNull();
     expect(s.history.past).toHaveLength(1);
   });
@@ -35,17 +51,38 @@ describe("Outline tool", () => {
   });
 
   it("closes with Enter or a double-click", () => {
-    expect(polygonPoints(drive(outlineState(), [...triangleClicks, ["key", "Enter"]]))).toEqual([[100, 100], [200, 100], [150, 180]]);
-    const dbl = drive(outlineState(), [["click", 100, 100], ["click", 200, 100], ["dblclick", 150, 180]]);
-    expect(polygonPoints(dbl)).toEqual([[100, 100], [200, 100], [150, 180]]);
+    expect(polygonPoints(drive(outlineState(), [...triangleClicks, ["key", "Enter"]]))).toEqual([
+      [100, 100],
+      [200, 100],
+      [150, 180],
+    ]);
+    const dbl = drive(outlineState(), [
+      ["click", 100, 100],
+      ["click", 200, 100],
+      ["dblclick", 150, 180],
+    ]);
+    expect(polygonPoints(dbl)).toEqual([
+      [100, 100],
+      [200, 100],
+      [150, 180],
+    ]);
   });
 
   it("will not close fewer than 3 points, or points on one line, and says why", () => {
-    const two = drive(outlineState(), [["click", 100, 100], ["click", 200, 100], ["key", "Enter"]]);
+    const two = drive(outlineState(), [
+      ["click", 100, 100],
+      ["click", 200, 100],
+      ["key", "Enter"],
+    ]);
     expect(two.regions).toEqual([]);
     expect(two.draft).not.toBeNull();
     expect(draftHint(two)).toBe("a polygon needs at least 3 points that are not on one line.");
-    const straight = drive(outlineState(), [["click", 100, 100], ["click", 200, 100], ["click", 300, 100], ["key", "Enter"]]);
+    const straight = drive(outlineState(), [
+      ["click", 100, 100],
+      ["click", 200, 100],
+      ["click", 300, 100],
+      ["key", "Enter"],
+    ]);
     expect(straight.regions).toEqual([]);
     expect(draftHint(drive(outlineState(), triangleClicks))).toBeNull();
   });
@@ -55,7 +92,12 @@ describe("Outline tool", () => {
     expect(s.draft).toMatchObject({ points: [{ x: 100 }, { x: 200 }] });
     const z = drive(outlineState(), [...triangleClicks, ["key", "z", { mod: true }]]);
     expect(z.draft).toMatchObject({ points: [{ x: 100 }, { x: 200 }] });
-    expect(drive(outlineState(), [["click", 1, 1], ["key", "Backspace"]]).draft).toBeNull();
+    expect(
+      drive(outlineState(), [
+        ["click", 1, 1],
+        ["key", "Backspace"],
+      ]).draft,
+    ).toBeNull();
     expect(drive(outlineState(), [...triangleClicks, ["key", "Escape"]]).draft).toBeNull();
   });
 
@@ -84,7 +126,16 @@ describe("Outline tool", () => {
   });
 
   it("clamps vertices clicked beside the photo onto its edge", () => {
-    const s = drive(outlineState(), [["click", -50, 100], ["click", 200, -20], ["click", 200, 300], ["key", "Enter"]]);
-    expect(polygonPoints(s)).toEqual([[0, 100], [200, 0], [200, 300]]);
+    const s = drive(outlineState(), [
+      ["click", -50, 100],
+      ["click", 200, -20],
+      ["click", 200, 300],
+      ["key", "Enter"],
+    ]);
+    expect(polygonPoints(s)).toEqual([
+      [0, 100],
+      [200, 0],
+      [200, 300],
+    ]);
   });
 });

@@ -23,7 +23,10 @@ describe("tool registry", () => {
     s = handleKey(s, key("B", { shift: true })).state;
     expect(s.activeTool).toBe("box");
     expect(s.selectedId).toBeNull();
-    s = drive(s, [["down", 100, 100], ["move", 150, 150]]);
+    s = drive(s, [
+      ["down", 100, 100],
+      ["move", 150, 150],
+    ]);
     s = handleKey(s, key("o")).state;
     expect(s.activeTool).toBe("outline");
     expect(s.draft).toBeNull();
@@ -31,7 +34,10 @@ describe("tool registry", () => {
   });
 
   it("cancels a drag in progress when the tool changes", () => {
-    const dragging = drive(makeState({ regions: [box] }), [["down", 30, 30], ["move", 300, 300]]);
+    const dragging = drive(makeState({ regions: [box] }), [
+      ["down", 30, 30],
+      ["move", 300, 300],
+    ]);
     const switched = activateTool(dragging, "spot");
     expect(switched.regions).toEqual([box]);
     expect(switched.history.pending).toBeNull();

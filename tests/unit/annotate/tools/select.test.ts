@@ -7,9 +7,45 @@ import { dragSteps, drive, makeState } from "../helpers";
 
 const box: Region = { id: "b1", role: "defect", defect: "dent", shape: { kind: "rect", x: 100, y: 100, width: 200, height: 100 } };
 const dust: Region = { id: "d1", role: "defect", defect: "dead-pixel", shape: { kind: "spot", x: 150, y: 150, radius: 4 } };
-const crack: Region = { id: "c1", role: "defect", defect: "crack", shape: { kind: "polygon", points: [[500, 500], [600, 500], [550, 600]] } };
-const scratch: Region = { id: "s1", role: "defect", defect: "scratch", shape: { kind: "line", points: [[500, 100], [700, 100]], width: 2 } };
-const face: Region = { id: "f1", role: "surface", shape: { kind: "polygon", points: [[0, 0], [1000, 0], [1000, 800], [0, 800]] } };
+const crack: Region = {
+  id: "c1",
+  role: "defect",
+  defect: "crack",
+  shape: {
+    kind: "polygon",
+    points: [
+      [500, 500],
+      [600, 500],
+      [550, 600],
+    ],
+  },
+};
+const scratch: Region = {
+  id: "s1",
+  role: "defect",
+  defect: "scratch",
+  shape: {
+    kind: "line",
+    points: [
+      [500, 100],
+      [700, 100],
+    ],
+    width: 2,
+  },
+};
+const face: Region = {
+  id: "f1",
+  role: "surface",
+  shape: {
+    kind: "polygon",
+    points: [
+      [0, 0],
+      [1000, 0],
+      [1000, 800],
+      [0, 800],
+    ],
+  },
+};
 const ruler: Region = { id: "k1", role: "ruler", ruler: { a: [100, 700], b: [400, 700], lengthMm: 30 } };
 
 const scene = (): AnnotationState => makeState({ regions: [face, box, dust, crack, scratch, ruler] });
@@ -22,7 +58,10 @@ const shape = (s: AnnotationState, id: string) => {
 describe("picking", () => {
   it("selects what is clicked and clears the selection on empty ground", () => {
     expect(drive(scene(), [["click", 250, 180]]).selectedId).toBe("b1");
-    const cleared = drive(makeState({ regions: [box] }), [["click", 250, 180], ["click", 800, 700]]);
+    const cleared = drive(makeState({ regions: [box] }), [
+      ["click", 250, 180],
+      ["click", 800, 700],
+    ]);
     expect(cleared.selectedId).toBeNull();
   });
 
@@ -46,7 +85,19 @@ describe("picking", () => {
 });
 
 describe("dragging", () => {
-  const part: Region = { id: "f2", role: "surface", shape: { kind: "polygon", points: [[100, 100], [600, 100], [600, 500], [100, 500]] } };
+  const part: Region = {
+    id: "f2",
+    role: "surface",
+    shape: {
+      kind: "polygon",
+      points: [
+        [100, 100],
+        [600, 100],
+        [600, 500],
+        [100, 500],
+      ],
+    },
+  };
 
   it("does not move a Surface that was not selected first: the drag only selects it", () => {
     // Issue 15: a Box drag that ran with Select carried the whole Surface 250 × 170 px away.
@@ -59,7 +110,15 @@ describe("dragging", () => {
 
   it("moves a Surface once it is selected", () => {
     const s = drive(makeState({ regions: [part] }), [["click", 300, 300], ...dragSteps(300, 300, 320, 290)]);
-    expect(shape(s, "f2")).toEqual({ kind: "polygon", points: [[120, 90], [620, 90], [620, 490], [120, 490]] });
+    expect(shape(s, "f2")).toEqual({
+      kind: "polygon",
+      points: [
+        [120, 90],
+        [620, 90],
+        [620, 490],
+        [120, 490],
+      ],
+    });
     expect(s.history.past).toHaveLength(1);
   });
 
@@ -79,7 +138,11 @@ describe("dragging", () => {
   });
 
   it("treats a press with a tiny wobble as a click (no edit)", () => {
-    const s = drive(scene(), [["down", 250, 180], ["move", 251, 181], ["up", 251, 181]]);
+    const s = drive(scene(), [
+      ["down", 250, 180],
+      ["move", 251, 181],
+      ["up", 251, 181],
+    ]);
     expect(s.regions).toEqual(scene().regions);
     expect(s.history.past).toHaveLength(0);
     expect(s.selectedId).toBe("b1");
@@ -94,7 +157,14 @@ describe("dragging", () => {
   it("moves a vertex, and snaps back if the result would be degenerate", () => {
     const selected = model.selectRegion(scene(), "c1");
     const moved = drive(selected, dragSteps(550, 600, 560, 650));
-    expect(shape(moved, "c1")).toEqual({ kind: "polygon", points: [[500, 500], [600, 500], [560, 650]] });
+    expect(shape(moved, "c1")).toEqual({
+      kind: "polygon",
+      points: [
+        [500, 500],
+        [600, 500],
+        [560, 650],
+      ],
+    });
     const flattened = drive(selected, dragSteps(550, 600, 550, 500));
     expect(shape(flattened, "c1")).toEqual(crack.shape);
     expect(flattened.history.past).toHaveLength(0);
@@ -108,7 +178,12 @@ describe("dragging", () => {
   });
 
   it("cancels a drag with Escape", () => {
-    const s = drive(scene(), [["down", 250, 180], ["move", 400, 300], ["key", "Escape"], ["up", 400, 300]]);
+    const s = drive(scene(), [
+      ["down", 250, 180],
+      ["move", 400, 300],
+      ["key", "Escape"],
+      ["up", 400, 300],
+    ]);
     expect(shape(s, "b1")).toEqual(box.shape);
     expect(s.history.past).toHaveLength(0);
   });
@@ -124,14 +199,29 @@ describe("vertex editing", () => {
 
   it("inserts a vertex where an edge is double-clicked", () => {
     const s = drive(model.selectRegion(scene(), "s1"), [["dblclick", 600, 101]]);
-    expect(shape(s, "s1")).toEqual({ kind: "line", points: [[500, 100], [600, 100], [700, 100]], width: 2 });
+    expect(shape(s, "s1")).toEqual({
+      kind: "line",
+      points: [
+        [500, 100],
+        [600, 100],
+        [700, 100],
+      ],
+      width: 2,
+    });
   });
 
   it("lists handles for every kind of region", () => {
     expect(handlesOf(box).map((h) => h.handle)).toHaveLength(8);
-    expect(handlesOf(crack).map((h) => h.point)).toEqual([[500, 500], [600, 500], [550, 600]]);
+    expect(handlesOf(crack).map((h) => h.point)).toEqual([
+      [500, 500],
+      [600, 500],
+      [550, 600],
+    ]);
     expect(handlesOf(dust)).toEqual([{ handle: { kind: "radius" }, point: [154, 150] }]);
-    expect(handlesOf(ruler).map((h) => h.point)).toEqual([[100, 700], [400, 700]]);
+    expect(handlesOf(ruler).map((h) => h.point)).toEqual([
+      [100, 700],
+      [400, 700],
+    ]);
   });
 });
 
@@ -140,7 +230,10 @@ describe("keys", () => {
     const selected = model.selectRegion(scene(), "b1");
     expect(model.regionById(drive(selected, [["key", "Delete"]]), "b1")).toBeUndefined();
     expect(model.regionById(drive(selected, [["key", "Backspace"]]), "b1")).toBeUndefined();
-    const nudged = drive(selected, [["key", "ArrowRight"], ["key", "ArrowDown", { shift: true }]]);
+    const nudged = drive(selected, [
+      ["key", "ArrowRight"],
+      ["key", "ArrowDown", { shift: true }],
+    ]);
     expect(shape(nudged, "b1")).toMatchObject({ x: 101, y: 110 });
     expect(nudged.history.past).toHaveLength(2);
     expect(drive(selected, [["key", "Escape"]]).selectedId).toBeNull();

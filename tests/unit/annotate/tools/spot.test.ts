@@ -24,7 +24,11 @@ describe("Spot tool", () => {
   });
 
   it("ignores a wobble below the drag threshold and never goes below the minimum radius", () => {
-    const wobble = drive(spotState(), [["down", 100, 100], ["move", 101, 101], ["up", 101, 101]]);
+    const wobble = drive(spotState(), [
+      ["down", 100, 100],
+      ["move", 101, 101],
+      ["up", 101, 101],
+    ]);
     expect(only(wobble.regions)).toMatchObject({ shape: { radius: DEFAULT_SPOT_RADIUS_PX } });
     const tiny = drive(spotState(32), [["click", 10, 10]]);
     expect(only(tiny.regions)).toMatchObject({ shape: { radius: MIN_SPOT_RADIUS } });
@@ -36,7 +40,11 @@ describe("Spot tool", () => {
   });
 
   it("cancels with Escape", () => {
-    const s = drive(spotState(), [["down", 10, 10], ["key", "Escape"], ["up", 10, 10]]);
+    const s = drive(spotState(), [
+      ["down", 10, 10],
+      ["key", "Escape"],
+      ["up", 10, 10],
+    ]);
     expect(s.regions).toEqual([]);
   });
 });

@@ -7,14 +7,38 @@ import { dragSteps, drive, makeState, only, withTool } from "../helpers";
 
 describe("Surface tool", () => {
   it("draws the part outline as a surface region without a class", () => {
-    const s = drive(withTool(makeState(), "surface"), [["click", 0, 0], ["click", 900, 0], ["click", 900, 700], ["click", 0, 700], ["click", 3, 2]]);
-    expect(only(s.regions)).toEqual({ id: "t-1", role: "surface", shape: { kind: "polygon", points: [[0, 0], [900, 0], [900, 700], [0, 700]] } });
+    const s = drive(withTool(makeState(), "surface"), [
+      ["click", 0, 0],
+      ["click", 900, 0],
+      ["click", 900, 700],
+      ["click", 0, 700],
+      ["click", 3, 2],
+    ]);
+    expect(only(s.regions)).toEqual({
+      id: "t-1",
+      role: "surface",
+      shape: {
+        kind: "polygon",
+        points: [
+          [0, 0],
+          [900, 0],
+          [900, 700],
+          [0, 700],
+        ],
+      },
+    });
   });
 
   it("works when the part type has no defect classes, and allows several surfaces", () => {
     const start = withTool(makeState({ allowedDefects: [] }), "surface");
     expect(start.activeTool).toBe("surface");
-    const square = (x: number) => [["click", x, 0], ["click", x + 100, 0], ["click", x + 100, 100], ["key", "Enter"]] as const;
+    const square = (x: number) =>
+      [
+        ["click", x, 0],
+        ["click", x + 100, 0],
+        ["click", x + 100, 100],
+        ["key", "Enter"],
+      ] as const;
     const s = drive(start, [...square(0), ...square(300)]);
     expect(s.regions.map((r) => r.role)).toEqual(["surface", "surface"]);
   });

@@ -3,7 +3,11 @@ import { canvasHint } from "@/components/annotate/canvas-hint";
 import { TOOLS } from "@/lib/annotate/tools";
 import { makeState, withTool } from "../../annotate/helpers";
 
-const words = (text: string) => text.toLowerCase().split(/[^a-z]+/).filter((w) => w.length >= 6);
+const words = (text: string) =>
+  text
+    .toLowerCase()
+    .split(/[^a-z]+/)
+    .filter((w) => w.length >= 6);
 
 /** Longer words of the key reminder that the tool's description has already used. */
 function saidTwice(description: string, reminder: string): string[] {

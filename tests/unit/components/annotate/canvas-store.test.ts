@@ -11,15 +11,26 @@ const storeOf = (state = makeState()): CanvasStore => ({ state, pressBase: null 
 describe("canvas store", () => {
   it("returns the same store for an edit that changes nothing (React then skips the render)", () => {
     const store = storeOf();
-    expect(canvasReducer(store, edit((s) => s))).toBe(store);
+    expect(
+      canvasReducer(
+        store,
+        edit((s) => s),
+      ),
+    ).toBe(store);
   });
 
   it("takes a press back when it turns into a pinch, keeping the view the pinch made", () => {
     const box = storeOf(activateTool(makeState(), "box"));
     const pressed = canvasReducer(box, { type: "press", edit: (s) => pointerDown(s, imagePoint(100, 100), NO_MODIFIERS) });
     expect(pressed.state.draft?.tool).toBe("box");
-    const moved = canvasReducer(pressed, edit((s) => pointerMove(s, imagePoint(300, 250), NO_MODIFIERS)));
-    const zoomed = canvasReducer(moved, edit((s) => setViewport(s, { scale: 2, offsetX: -50, offsetY: 10 })));
+    const moved = canvasReducer(
+      pressed,
+      edit((s) => pointerMove(s, imagePoint(300, 250), NO_MODIFIERS)),
+    );
+    const zoomed = canvasReducer(
+      moved,
+      edit((s) => setViewport(s, { scale: 2, offsetX: -50, offsetY: 10 })),
+    );
     const cancelled = canvasReducer(zoomed, { type: "cancel-press" });
     expect(cancelled.state.draft).toBeNull();
     expect(cancelled.state.regions).toBe(box.state.regions);

@@ -23,9 +23,12 @@ describe("two-finger pinch", () => {
   });
 
   it("gives the same view applied step by step as in one step (the canvas applies it per move)", () => {
-    const a0 = stagePoint(100, 100), b0 = stagePoint(200, 100);
-    const a1 = stagePoint(80, 110), b1 = stagePoint(240, 90);
-    const a2 = stagePoint(50, 120), b2 = stagePoint(300, 80);
+    const a0 = stagePoint(100, 100),
+      b0 = stagePoint(200, 100);
+    const a1 = stagePoint(80, 110),
+      b1 = stagePoint(240, 90);
+    const a2 = stagePoint(50, 120),
+      b2 = stagePoint(300, 80);
     const stepwise = pinchViewport({ viewport: pinchViewport({ viewport: start, a: a0, b: b0 }, a1, b1), a: a1, b: b1 }, a2, b2);
     const direct = pinchViewport({ viewport: start, a: a0, b: b0 }, a2, b2);
     expect(stepwise.scale).toBeCloseTo(direct.scale, 12);

@@ -9,17 +9,72 @@ describe("region size summaries (original px)", () => {
 
   // (c) Shoelace formula on the 3-4-5 right triangle: area 3·4/2 = 6; perimeter path 3 + 4 = 7.
   it("gives an outline its area and point count", () => {
-    expect(regionSizeSummary({ id: "a", role: "defect", defect: "chip", shape: { kind: "polygon", points: [[0, 0], [3, 0], [0, 4]] } })).toBe("6 px², 3 points");
+    expect(
+      regionSizeSummary({
+        id: "a",
+        role: "defect",
+        defect: "chip",
+        shape: {
+          kind: "polygon",
+          points: [
+            [0, 0],
+            [3, 0],
+            [0, 4],
+          ],
+        },
+      }),
+    ).toBe("6 px², 3 points");
   });
 
   it("gives a line its length along the vertices and its width", () => {
-    expect(regionSizeSummary({ id: "a", role: "defect", defect: "scratch", shape: { kind: "line", points: [[0, 0], [3, 0], [3, 4]], width: 2.5 } })).toBe("7 px long, 2.5 px wide");
-    expect(regionSizeSummary({ id: "a", role: "defect", defect: "scratch", shape: { kind: "line", points: [[0, 0], [300, 400]], width: 4 } })).toBe("500 px long, 4 px wide");
+    expect(
+      regionSizeSummary({
+        id: "a",
+        role: "defect",
+        defect: "scratch",
+        shape: {
+          kind: "line",
+          points: [
+            [0, 0],
+            [3, 0],
+            [3, 4],
+          ],
+          width: 2.5,
+        },
+      }),
+    ).toBe("7 px long, 2.5 px wide");
+    expect(
+      regionSizeSummary({
+        id: "a",
+        role: "defect",
+        defect: "scratch",
+        shape: {
+          kind: "line",
+          points: [
+            [0, 0],
+            [300, 400],
+          ],
+          width: 4,
+        },
+      }),
+    ).toBe("500 px long, 4 px wide");
   });
 
   it("gives a spot its radius and a surface its area", () => {
     expect(regionSizeSummary({ id: "a", role: "defect", defect: "dust", shape: { kind: "spot", x: 5, y: 5, radius: 2.25 } })).toBe("radius 2.3 px");
-    const surface: Region = { id: "s", role: "surface", shape: { kind: "polygon", points: [[0, 0], [2000, 0], [2000, 1500], [0, 1500]] } };
+    const surface: Region = {
+      id: "s",
+      role: "surface",
+      shape: {
+        kind: "polygon",
+        points: [
+          [0, 0],
+          [2000, 0],
+          [2000, 1500],
+          [0, 1500],
+        ],
+      },
+    };
     expect(regionSizeSummary(surface)).toBe("3\u2009000\u2009000 px², 4 points");
   });
 

@@ -2,8 +2,7 @@ import { describe, expect, it } from "vitest";
 import { fitToView, stagePoint, toImage, toStage, type Viewport } from "@/lib/annotate/coords";
 import { applyViewCommand, viewCommandForKey, ZOOM_STEP } from "@/components/annotate/view-commands";
 
-const key = (k: string, extra: Partial<{ code: string; shift: boolean; alt: boolean; mod: boolean }> = {}) =>
-  viewCommandForKey({ key: k, shift: false, alt: false, mod: false, ...extra });
+const key = (k: string, extra: Partial<{ code: string; shift: boolean; alt: boolean; mod: boolean }> = {}) => viewCommandForKey({ key: k, shift: false, alt: false, mod: false, ...extra });
 
 describe("view keys", () => {
   it("maps + = − _ 0 and Shift+0", () => {

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { failureText } from "@/components/bench/checklist-item-row";
-import type { ChecklistItem } from "@/db/schema/lots";
+import type { ChecklistItem } from "@/lib/part-types/schemas";
 
 const swelling: ChecklistItem = { id: "swelling", label: "No swelling", kind: "pass_fail", severityOnFail: "critical" };
 const ocv: ChecklistItem = { id: "ocv", label: "Open-circuit voltage", kind: "numeric", unit: "V", min: 3, max: 4.4, decimals: 2, severityOnFail: "major" };
@@ -14,6 +14,8 @@ describe("how a failed checklist result reads", () => {
   });
 
   it("keeps 'automatically' for a reading judged against the item's limits", () => {
-    expect(failureText(ocv, { failureReason: "2.87 V is below the minimum 3.00 V.", severityOnFail: "major" })).toBe("Failed automatically — 2.87 V is below the minimum 3.00 V. Adds a major functional defect.");
+    expect(failureText(ocv, { failureReason: "2.87 V is below the minimum 3.00 V.", severityOnFail: "major" })).toBe(
+      "Failed automatically — 2.87 V is below the minimum 3.00 V. Adds a major functional defect.",
+    );
   });
 });

@@ -6,7 +6,19 @@ import { decisionRequests, isLearned } from "@/components/bench/learned-decision
 
 const spot = { kind: "spot", x: 10, y: 10, radius: 3 } as const;
 const learned = (id: string, modelId: string, defect = "scratch"): GhostShape => ({ id, label: id, role: "defect", defect, shape: spot, learned: { modelId, score: 0.75 } });
-const surface: GhostShape = { id: "s", label: "Surface", role: "surface", shape: { kind: "polygon", points: [[0, 0], [10, 0], [10, 10]] } };
+const surface: GhostShape = {
+  id: "s",
+  label: "Surface",
+  role: "surface",
+  shape: {
+    kind: "polygon",
+    points: [
+      [0, 0],
+      [10, 0],
+      [10, 10],
+    ],
+  },
+};
 const pixel: GhostShape = { id: "p", label: "Pixel", role: "defect", defect: "dead-pixel", shape: { kind: "spot", x: 1, y: 1, radius: 1 } };
 
 describe("decisionRequests", () => {

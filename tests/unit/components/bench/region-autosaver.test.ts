@@ -95,7 +95,7 @@ describe("autosave", () => {
     }
     expect(waits).toEqual([1000, 2000, 4000, 8000, 16000, 30000, 30000]);
     expect(calls).toHaveLength(8);
-    expect(saver.getStatus()).toEqual({ kind: "saving", attempt: 7 }) // a retry, so the page keeps its "Try again now" button (disabled);
+    expect(saver.getStatus()).toEqual({ kind: "saving", attempt: 7 }); // a retry, so the page keeps its "Try again now" button (disabled);
   });
 
   it("holds a 409 for the person, then saves what they chose over the server's version", async () => {

@@ -16,7 +16,9 @@ async function quadrants(): Promise<Buffer> {
   const [w, h] = [200, 100];
   const raw = Buffer.alloc(w * h * 3);
   for (let y = 0; y < h; y++) for (let x = 0; x < w; x++) raw.set(y < h / 2 ? (x < w / 2 ? RED : GREEN) : x < w / 2 ? BLUE : YELLOW, (y * w + x) * 3);
-  return sharp(raw, { raw: { width: w, height: h, channels: 3 } }).jpeg({ quality: 100, chromaSubsampling: "4:4:4" }).toBuffer();
+  return sharp(raw, { raw: { width: w, height: h, channels: 3 } })
+    .jpeg({ quality: 100, chromaSubsampling: "4:4:4" })
+    .toBuffer();
 }
 
 async function storedCorners(jpeg: Buffer) {
@@ -25,10 +27,21 @@ async function storedCorners(jpeg: Buffer) {
     const i = (y * info.width + x) * info.channels;
     return [data[i], data[i + 1], data[i + 2]];
   };
-  const nearest = (c: number[]) => ([["red", RED], ["green", GREEN], ["blue", BLUE], ["yellow", YELLOW]] as const).reduce((best, [name, ref]) => {
-    const d = ref.reduce((s, v, k) => s + (v - c[k]) ** 2, 0);
-    return d < best.d ? { name, d } : best;
-  }, { name: "", d: Infinity }).name;
+  const nearest = (c: number[]) =>
+    (
+      [
+        ["red", RED],
+        ["green", GREEN],
+        ["blue", BLUE],
+        ["yellow", YELLOW],
+      ] as const
+    ).reduce(
+      (best, [name, ref]) => {
+        const d = ref.reduce((s, v, k) => s + (v - c[k]) ** 2, 0);
+        return d < best.d ? { name, d } : best;
+      },
+      { name: "", d: Infinity },
+    ).name;
   const m = 5;
   return { size: [info.width, info.height], topLeft: nearest(at(m, m)), topRight: nearest(at(info.width - m, m)), bottomLeft: nearest(at(m, info.height - m)) };
 }

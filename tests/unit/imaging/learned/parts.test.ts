@@ -19,7 +19,11 @@ import { mulberry32 } from "@/support/prng";
 function blobs(count: number, seed: number) {
   const random = mulberry32(seed);
   const normal = () => Math.sqrt(-2 * Math.log(1 - random())) * Math.cos(2 * Math.PI * random());
-  const centres = [[0, 0], [2.2, 0.5], [0.8, 2.4]];
+  const centres = [
+    [0, 0],
+    [2.2, 0.5],
+    [0.8, 2.4],
+  ];
   const rows: number[][] = [];
   const labels: number[] = [];
   for (let k = 0; k < count; k++) {
@@ -112,7 +116,17 @@ describe("pixel measurements", () => {
   });
 
   it("convex hull of cell corners keeps only the outer corners", () => {
-    const hull = convexHull([[0, 0], [8, 0], [8, 8], [0, 8], [8, 0], [16, 0], [16, 8], [8, 8], [4, 4]]);
+    const hull = convexHull([
+      [0, 0],
+      [8, 0],
+      [8, 8],
+      [0, 8],
+      [8, 0],
+      [16, 0],
+      [16, 8],
+      [8, 8],
+      [4, 4],
+    ]);
     expect(hull).toHaveLength(4);
     expect(new Set(hull.map((p) => p.join(",")))).toEqual(new Set(["0,0", "16,0", "16,8", "0,8"]));
   });

@@ -30,9 +30,23 @@ function randomShape(random: () => number): Shape {
     case 1:
       return { kind: "spot", x, y, radius: 0.5 + random() * 12 };
     case 2:
-      return { kind: "polygon", points: [[x, y], [x + 5 + random() * 40, y + random() * 20], [x + random() * 20, y + 5 + random() * 40]] };
+      return {
+        kind: "polygon",
+        points: [
+          [x, y],
+          [x + 5 + random() * 40, y + random() * 20],
+          [x + random() * 20, y + 5 + random() * 40],
+        ],
+      };
     default:
-      return { kind: "line", points: [[x, y], [x + random() * 60 - 30, y + random() * 60 - 30]], width: 0.5 + random() * 6 };
+      return {
+        kind: "line",
+        points: [
+          [x, y],
+          [x + random() * 60 - 30, y + random() * 60 - 30],
+        ],
+        width: 0.5 + random() * 6,
+      };
   }
 }
 

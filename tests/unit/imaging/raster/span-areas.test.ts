@@ -43,9 +43,23 @@ function randomShape(random: () => number): Shape {
     case 1:
       return { kind: "spot", x, y, radius: 0.5 + random() * 15 };
     case 2:
-      return { kind: "polygon", points: [[x, y], [x + 5 + random() * 50, y + random() * 20], [x + random() * 20, y + 5 + random() * 50]] };
+      return {
+        kind: "polygon",
+        points: [
+          [x, y],
+          [x + 5 + random() * 50, y + random() * 20],
+          [x + random() * 20, y + 5 + random() * 50],
+        ],
+      };
     default:
-      return { kind: "line", points: [[x, y], [x + random() * 80 - 40, y + random() * 80 - 40]], width: 0.5 + random() * 8 };
+      return {
+        kind: "line",
+        points: [
+          [x, y],
+          [x + random() * 80 - 40, y + random() * 80 - 40],
+        ],
+        width: 0.5 + random() * 8,
+      };
   }
 }
 
@@ -75,7 +89,10 @@ describe("subtractSpanSets", () => {
   it("cuts a hole out of the middle of a run, leaving both ends", () => {
     const a = shapeSpans({ kind: "rect", x: 0, y: 0, width: 10, height: 1 }, frame);
     const b = shapeSpans({ kind: "rect", x: 3, y: 0, width: 4, height: 1 }, frame);
-    expect(spanRects(subtractSpanSets(a, b))).toEqual([{ x: 0, y: 0, width: 3, height: 1 }, { x: 7, y: 0, width: 3, height: 1 }]);
+    expect(spanRects(subtractSpanSets(a, b))).toEqual([
+      { x: 0, y: 0, width: 3, height: 1 },
+      { x: 7, y: 0, width: 3, height: 1 },
+    ]);
   });
 });
 
@@ -102,14 +119,22 @@ describe("spanRects", () => {
 describe("compareRegionSets with keepAreas", () => {
   it("returns only-A, only-B and shared areas of each class (squares [0,4]² and [2,6]², docs/references.md a)", async () => {
     const result = await compareRegionSets(
-      { width: 10, height: 10, a: [{ id: "k", defect: "dent", shape: { kind: "rect", x: 0, y: 0, width: 4, height: 4 } }], b: [{ id: "g", defect: "dent", shape: { kind: "rect", x: 2, y: 2, width: 4, height: 4 } }] },
+      {
+        width: 10,
+        height: 10,
+        a: [{ id: "k", defect: "dent", shape: { kind: "rect", x: 0, y: 0, width: 4, height: 4 } }],
+        b: [{ id: "g", defect: "dent", shape: { kind: "rect", x: 2, y: 2, width: 4, height: 4 } }],
+      },
       { keepAreas: true },
     );
     const areas = result.byDefect.dent.areas!;
     expect(countSpans(areas.onlyA)).toBe(12);
     expect(countSpans(areas.onlyB)).toBe(12);
     expect(spanRects(areas.both)).toEqual([{ x: 2, y: 2, width: 2, height: 2 }]);
-    expect(spanRects(areas.onlyA)).toEqual([{ x: 0, y: 0, width: 4, height: 2 }, { x: 0, y: 2, width: 2, height: 2 }]);
+    expect(spanRects(areas.onlyA)).toEqual([
+      { x: 0, y: 0, width: 4, height: 2 },
+      { x: 0, y: 2, width: 2, height: 2 },
+    ]);
   });
 
   it("leaves the areas out unless asked", async () => {

@@ -8,18 +8,8 @@ import { describe, expect, it } from "vitest";
 import type { Point, Shape } from "@/lib/geometry/shape";
 import { capsuleSection, shapeSpans } from "@/lib/imaging/raster/exact-spans";
 import { sharpShapeSpans } from "@/lib/imaging/raster/sharp-spans";
-import {
-  countIntersection,
-  countSpans,
-  intersectSpanSets,
-  LooseSpans,
-  spanRow,
-  spanSetsOverlap,
-  unionSpanSets,
-  type SpanSet,
-} from "@/lib/imaging/raster/spans";
+import { countIntersection, countSpans, intersectSpanSets, LooseSpans, spanRow, spanSetsOverlap, unionSpanSets, type SpanSet } from "@/lib/imaging/raster/spans";
 import { mulberry32 as seededRandom } from "@/support/prng";
-
 
 /** Nonzero winding number test at one point (the textbook crossing rule). */
 function insidePolygon(points: Point[], x: number, y: number): boolean {
@@ -79,7 +69,13 @@ const coveredPixels = (mask: Uint8Array) => mask.reduce((sum, value) => sum + va
 function randomStarPolygon(random: () => number, cx: number, cy: number, maxRadius: number): Shape {
   const sides = 3 + Math.floor(random() * 10);
   const angles = Array.from({ length: sides }, () => random() * 2 * Math.PI).sort((a, b) => a - b);
-  return { kind: "polygon", points: angles.map((angle) => { const radius = maxRadius * (0.2 + 0.8 * random()); return [cx + radius * Math.cos(angle), cy + radius * Math.sin(angle)] as Point; }) };
+  return {
+    kind: "polygon",
+    points: angles.map((angle) => {
+      const radius = maxRadius * (0.2 + 0.8 * random());
+      return [cx + radius * Math.cos(angle), cy + radius * Math.sin(angle)] as Point;
+    }),
+  };
 }
 
 function randomShape(random: () => number, width: number, height: number): Shape {
@@ -121,8 +117,30 @@ describe("exact rasteriser follows the documented pixel-centre rule", () => {
 
   it("gives shapes sharing an edge disjoint pixels (half-open ties)", () => {
     const frame = { width: 40, height: 40 };
-    const left = shapeSpans({ kind: "polygon", points: [[0, 0], [20.5, 0], [10.5, 40], [0, 40]] }, frame);
-    const right = shapeSpans({ kind: "polygon", points: [[20.5, 0], [40, 0], [40, 40], [10.5, 40]] }, frame);
+    const left = shapeSpans(
+      {
+        kind: "polygon",
+        points: [
+          [0, 0],
+          [20.5, 0],
+          [10.5, 40],
+          [0, 40],
+        ],
+      },
+      frame,
+    );
+    const right = shapeSpans(
+      {
+        kind: "polygon",
+        points: [
+          [20.5, 0],
+          [40, 0],
+          [40, 40],
+          [10.5, 40],
+        ],
+      },
+      frame,
+    );
     expect(spanSetsOverlap(left, right)).toBe(false);
     expect(countSpans(left) + countSpans(right)).toBe(1600);
   });
@@ -192,8 +210,24 @@ describe("sharp (crispEdges) masks against the exact pixel-centre rule", () => {
   it("agree closely on lines cut into tiles, spots, and shapes cut by the image border", async () => {
     const frame = { width: 500, height: 400 };
     const shapes: Shape[] = [
-      { kind: "line", points: [[-30.2, -20.7], [480.6, 390.1]], width: 7.5 },
-      { kind: "line", points: [[40, 300], [200, 310], [260, 120], [255, 121]], width: 4 },
+      {
+        kind: "line",
+        points: [
+          [-30.2, -20.7],
+          [480.6, 390.1],
+        ],
+        width: 7.5,
+      },
+      {
+        kind: "line",
+        points: [
+          [40, 300],
+          [200, 310],
+          [260, 120],
+          [255, 121],
+        ],
+        width: 4,
+      },
       { kind: "line", points: [[100.3, 50.6]], width: 9 },
       { kind: "spot", x: 498.2, y: 10.4, radius: 25.3 },
       { kind: "rect", x: -15, y: 380, width: 60, height: 40 },

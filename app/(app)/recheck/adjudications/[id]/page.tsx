@@ -1,6 +1,5 @@
 import type { Metadata } from "next";
 import { AdjudicationScreen } from "@/components/recheck/adjudication-screen";
-import type { AdjudicationJson } from "@/components/recheck/api";
 import { requirePageUser } from "@/lib/auth/require-user";
 import { pageIdOrNotFound } from "@/lib/http/page-params";
 import { adjudicationView } from "@/lib/recheck/adjudication-view";
@@ -12,5 +11,5 @@ export default async function AdjudicationPage(props: PageProps<"/recheck/adjudi
   const { id: rawId } = await props.params;
   const user = await requirePageUser({ permission: "recheck.adjudicate", from: `/recheck/adjudications/${rawId}` });
   const view = await adjudicationView(user, pageIdOrNotFound(rawId));
-  return <AdjudicationScreen view={JSON.parse(JSON.stringify(view)) as AdjudicationJson} />;
+  return <AdjudicationScreen view={view} />;
 }
