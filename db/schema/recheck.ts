@@ -127,7 +127,9 @@ export const rechecks = pgTable(
     index("rechecks_unit_idx").on(t.workspaceId, t.unitId),
     index("rechecks_grader_idx").on(t.workspaceId, t.firstGraderId, t.createdAt),
     // The scorecards read a period's submitted rechecks by when the rechecked grade was recorded.
-    index("rechecks_scorecard_idx").on(t.workspaceId, t.firstGradedAt).where(sql`${t.submittedAt} IS NOT NULL`),
+    index("rechecks_scorecard_idx")
+      .on(t.workspaceId, t.firstGradedAt)
+      .where(sql`${t.submittedAt} IS NOT NULL`),
     unique("rechecks_workspace_id_key").on(t.workspaceId, t.id),
     sameWorkspace("rechecks_unit_fk", t.workspaceId, t.unitId, units),
     sameWorkspace("rechecks_grade_fk", t.workspaceId, t.gradeId, grades),
@@ -221,7 +223,11 @@ export const graderDayCounts = pgTable(
     day: date({ mode: "string" }).notNull(),
     graded: integer().notNull(),
   },
-  (t) => [primaryKey({ name: "grader_day_counts_pkey", columns: [t.workspaceId, t.day, t.graderId] }), sameWorkspace("grader_day_counts_grader_fk", t.workspaceId, t.graderId, users), check("grader_day_counts_graded", sql`${t.graded} > 0`)],
+  (t) => [
+    primaryKey({ name: "grader_day_counts_pkey", columns: [t.workspaceId, t.day, t.graderId] }),
+    sameWorkspace("grader_day_counts_grader_fk", t.workspaceId, t.graderId, users),
+    check("grader_day_counts_graded", sql`${t.graded} > 0`),
+  ],
 );
 
 export type RecheckRow = typeof rechecks.$inferSelect;

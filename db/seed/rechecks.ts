@@ -53,8 +53,23 @@ async function person(workspaceId: string, email: string): Promise<SessionUser> 
 }
 
 /** First grade → recheck grade of each history recheck, per grader (HAND: Ines 8 of 8 agree, Piet 3 of 5). */
-const INES: [Grade, Grade][] = [["A", "A"], ["A", "A"], ["B", "B"], ["A", "A"], ["C", "C"], ["A", "A"], ["B", "B"], ["A", "A"]];
-const PIET: [Grade, Grade][] = [["A", "A"], ["A", "B"], ["B", "B"], ["A", "A"], ["B", "C"]];
+const INES: [Grade, Grade][] = [
+  ["A", "A"],
+  ["A", "A"],
+  ["B", "B"],
+  ["A", "A"],
+  ["C", "C"],
+  ["A", "A"],
+  ["B", "B"],
+  ["A", "A"],
+];
+const PIET: [Grade, Grade][] = [
+  ["A", "A"],
+  ["A", "B"],
+  ["B", "B"],
+  ["A", "A"],
+  ["B", "C"],
+];
 
 async function seedHistory(workspaceId: string, people: { ines: SessionUser; piet: SessionUser; auditor: SessionUser; lead: SessionUser }) {
   const rows = await db()
@@ -78,15 +93,41 @@ async function seedHistory(workspaceId: string, people: { ines: SessionUser; pie
       const gradedAt = new Date(unit.lotCreatedAt.getTime() + HOUR + unit.sampleIndex * 20 * 60_000);
       const [grade] = await tx
         .insert(grades)
-        .values({ workspaceId, unitId: unit.unitId, kind: "inspection", proposedGrade: first, finalGrade: first, rubricVersionId: rubric.id, measurementIds: [], explanation: { lines: [], notes: [HISTORY_NOTE] }, regionsVersions: {}, gradedBy: grader.id, createdAt: gradedAt })
+        .values({
+          workspaceId,
+          unitId: unit.unitId,
+          kind: "inspection",
+          proposedGrade: first,
+          finalGrade: first,
+          rubricVersionId: rubric.id,
+          measurementIds: [],
+          explanation: { lines: [], notes: [HISTORY_NOTE] },
+          regionsVersions: {},
+          gradedBy: grader.id,
+          createdAt: gradedAt,
+        })
         .returning({ id: grades.id });
       if (!rechecked) continue;
       const [firstGrade, recheckGrade] = rechecked;
       const steps = gradeSteps(firstGrade, recheckGrade);
       const submittedAt = new Date(gradedAt.getTime() + 5 * HOUR);
       const base = {
-        workspaceId, unitId: unit.unitId, gradeId: grade.id, firstGraderId: grader.id, firstGrade, firstGradedAt: gradedAt, partTypeId: unit.partTypeId, rubricVersionId: rubric.id,
-        reason: "by_hand" as const, sentBy: people.lead.id, sentNote: HISTORY_NOTE, auditorId: people.auditor.id, proposedGrade: recheckGrade, recheckGrade, submittedAt, createdAt: new Date(gradedAt.getTime() + HOUR),
+        workspaceId,
+        unitId: unit.unitId,
+        gradeId: grade.id,
+        firstGraderId: grader.id,
+        firstGrade,
+        firstGradedAt: gradedAt,
+        partTypeId: unit.partTypeId,
+        rubricVersionId: rubric.id,
+        reason: "by_hand" as const,
+        sentBy: people.lead.id,
+        sentNote: HISTORY_NOTE,
+        auditorId: people.auditor.id,
+        proposedGrade: recheckGrade,
+        recheckGrade,
+        submittedAt,
+        createdAt: new Date(gradedAt.getTime() + HOUR),
         comparison: { photos: [], classes: {}, grade: { first: firstGrade, recheck: recheckGrade, steps, agreement: gradeAgreement(firstGrade, recheckGrade) } },
         adjudicationReasons: steps === 0 ? [] : [{ kind: "grade_differs" as const, first: firstGrade, recheck: recheckGrade, steps }],
       };
@@ -97,17 +138,53 @@ async function seedHistory(workspaceId: string, people: { ines: SessionUser; pie
       // Piet's two disagreements, settled by the lead a day later: the first time the first grade stands, the second the recheck's.
       const choice = settled++ === 0 ? ("first" as const) : ("recheck" as const);
       const final = choice === "first" ? firstGrade : recheckGrade;
-      const reason = choice === "first" ? "The mark the auditor graded on is a reflection of the light box, not wear." : "The scuff on the frame is deeper than first judged; the auditor's grade stands.";
+      const reason =
+        choice === "first" ? "The mark the auditor graded on is a reflection of the light box, not wear." : "The scuff on the frame is deeper than first judged; the auditor's grade stands.";
       const adjudicatedAt = new Date(submittedAt.getTime() + DAY);
       const [adjudication] = await tx
         .insert(grades)
-        .values({ workspaceId, unitId: unit.unitId, kind: "adjudication", proposedGrade: final, finalGrade: final, overrideReason: reason, rubricVersionId: rubric.id, measurementIds: [], explanation: { lines: [], notes: [HISTORY_NOTE] }, regionsVersions: {}, gradedBy: people.lead.id, createdAt: adjudicatedAt })
+        .values({
+          workspaceId,
+          unitId: unit.unitId,
+          kind: "adjudication",
+          proposedGrade: final,
+          finalGrade: final,
+          overrideReason: reason,
+          rubricVersionId: rubric.id,
+          measurementIds: [],
+          explanation: { lines: [], notes: [HISTORY_NOTE] },
+          regionsVersions: {},
+          gradedBy: people.lead.id,
+          createdAt: adjudicatedAt,
+        })
         .returning({ id: grades.id });
       // The lot was decided on the first grades; a different outcome is told, never rewritten.
       const decidedLotAffected = final !== firstGrade;
-      await tx.insert(rechecks).values({ ...base, status: "settled", adjudicatedBy: people.lead.id, adjudicationChoice: choice, adjudicationReason: reason, adjudicationGradeId: adjudication.id, adjudicatedGrade: final, adjudicatedAt, decidedLotAffected });
+      await tx
+        .insert(rechecks)
+        .values({
+          ...base,
+          status: "settled",
+          adjudicatedBy: people.lead.id,
+          adjudicationChoice: choice,
+          adjudicationReason: reason,
+          adjudicationGradeId: adjudication.id,
+          adjudicatedGrade: final,
+          adjudicatedAt,
+          decidedLotAffected,
+        });
       if (decidedLotAffected) {
-        await tx.insert(activityLog).values({ workspaceId, actorId: people.lead.id, action: "lot.decided_lot_affected", subjectType: "lot", subjectId: unit.lotId, detail: { demo: true, unitId: unit.unitId, serial: unit.serial, from: firstGrade, to: final }, createdAt: adjudicatedAt });
+        await tx
+          .insert(activityLog)
+          .values({
+            workspaceId,
+            actorId: people.lead.id,
+            action: "lot.decided_lot_affected",
+            subjectType: "lot",
+            subjectId: unit.lotId,
+            detail: { demo: true, unitId: unit.unitId, serial: unit.serial, from: firstGrade, to: final },
+            createdAt: adjudicatedAt,
+          });
       }
     }
     if (queue.ines.length + queue.piet.length > 0) throw new Error("Seed rechecks: the history lots have too few units for the planned rechecks.");
@@ -127,7 +204,15 @@ async function gradeAsPlanted(inspector: SessionUser, unitId: string, planted: P
 
 function regionPayload(photo: PlantedPhoto, defectClasses: Set<string>, leaveOut?: string) {
   const box = photo.surface as Extract<Shape, { kind: "rect" }>;
-  const surface: PolygonShape = { kind: "polygon", points: [[box.x, box.y], [box.x + box.width, box.y], [box.x + box.width, box.y + box.height], [box.x, box.y + box.height]] };
+  const surface: PolygonShape = {
+    kind: "polygon",
+    points: [
+      [box.x, box.y],
+      [box.x + box.width, box.y],
+      [box.x + box.width, box.y + box.height],
+      [box.x, box.y + box.height],
+    ],
+  };
   const regions = photo.regions
     .map((r, i) => ({ id: `seed-${photo.viewKey}-${i + 1}`, defect: CLASS_OF[r.defect] ?? r.defect, shape: r.shape }))
     .filter((r) => defectClasses.has(r.defect) && r.defect !== leaveOut);
@@ -182,7 +267,10 @@ export async function seedRechecks(workspaceSlug: string, planted: PlantedPhoto[
   const camera = await flawedUnit(workspaceId, "PO-24-0769", planted);
   const inesGrade = await gradeAsPlanted(people.ines, camera.unitId, planted, camera.classes);
   const waiting = await recheckOf(people.lead, camera.unitId, inesGrade.id, "Dust on the lens window: worth a second look before the lot is decided.");
-  const [{ n }] = await db().select({ n: sql<number>`count(*)::int` }).from(rechecks).where(eq(rechecks.workspaceId, workspaceId));
+  const [{ n }] = await db()
+    .select({ n: sql<number>`count(*)::int` })
+    .from(rechecks)
+    .where(eq(rechecks.workspaceId, workspaceId));
   console.log(
     `Demo rechecks: ${history.graded} history grades, ${history.rechecked} rechecked (${history.adjudicated} adjudicated; Piet Moravec drifting), ` +
       `a disagreement on ${battery.serial} waiting for adjudication (${pietGrade.finalGrade} first, ${submitted.recheckGrade} on recheck) and a recheck of ${camera.serial} waiting (${n} in all).`,

@@ -137,28 +137,52 @@ describe("what the scorecards read instead of every grade (migration 0021)", () 
     const v1 = await insertRubricVersion({ workspaceId: other.workspaceId, partTypeId: partType.id, version: 1, status: "published" });
     const unit = await createUnit({ workspaceId: other.workspaceId, partTypeId: partType.id, createdBy: other.lead.id });
     const grade = (kind: "inspection" | "adjudication", gradedBy: string, at: string) => ({
-      workspaceId: other.workspaceId, unitId: unit.id, kind, proposedGrade: "A" as const, finalGrade: "A" as const, rubricVersionId: v1.id, measurementIds: [], explanation: { lines: [], notes: [] }, regionsVersions: {}, gradedBy, createdAt: new Date(at),
+      workspaceId: other.workspaceId,
+      unitId: unit.id,
+      kind,
+      proposedGrade: "A" as const,
+      finalGrade: "A" as const,
+      rubricVersionId: v1.id,
+      measurementIds: [],
+      explanation: { lines: [], notes: [] },
+      regionsVersions: {},
+      gradedBy,
+      createdAt: new Date(at),
     });
     // HAND: 23:30 UTC on 5 January is 6 January in Kiritimati (UTC+14) and still 5 January in UTC.
-    await db().insert(grades).values([
-      grade("inspection", other.inspector.id, "2026-01-05T23:30:00Z"),
-      grade("inspection", other.inspector.id, "2026-01-05T08:00:00Z"),
-      grade("inspection", other.inspector2.id, "2026-01-05T23:45:00Z"),
-      grade("adjudication", other.lead.id, "2026-01-05T12:00:00Z"),
-    ]);
+    await db()
+      .insert(grades)
+      .values([
+        grade("inspection", other.inspector.id, "2026-01-05T23:30:00Z"),
+        grade("inspection", other.inspector.id, "2026-01-05T08:00:00Z"),
+        grade("inspection", other.inspector2.id, "2026-01-05T23:45:00Z"),
+        grade("adjudication", other.lead.id, "2026-01-05T12:00:00Z"),
+      ]);
     const inspector = other.inspector.id;
     const inspector2 = other.inspector2.id;
-    const byDay = (rows: { grader_id: string; day: string; graded: number }[]) => rows.map((row) => [row.grader_id === inspector ? "inspector" : row.grader_id === inspector2 ? "inspector2" : row.grader_id, row.day, row.graded]);
+    const byDay = (rows: { grader_id: string; day: string; graded: number }[]) =>
+      rows.map((row) => [row.grader_id === inspector ? "inspector" : row.grader_id === inspector2 ? "inspector2" : row.grader_id, row.day, row.graded]);
     let counts = await dayCounts(other.workspaceId);
     expect(counts.stored).toEqual(counts.counted);
-    expect(byDay(counts.stored)).toEqual(expect.arrayContaining([["inspector", "2026-01-05", 2], ["inspector2", "2026-01-05", 1]]));
+    expect(byDay(counts.stored)).toEqual(
+      expect.arrayContaining([
+        ["inspector", "2026-01-05", 2],
+        ["inspector2", "2026-01-05", 1],
+      ]),
+    );
     expect(counts.stored).toHaveLength(2);
 
     const changed = await api(other.lead, "PATCH", "/api/workspace", { timeZone: "Pacific/Kiritimati" });
     expect(changed.status, JSON.stringify(changed.body)).toBe(200);
     counts = await dayCounts(other.workspaceId);
     expect(counts.stored).toEqual(counts.counted);
-    expect(byDay(counts.stored)).toEqual(expect.arrayContaining([["inspector", "2026-01-05", 1], ["inspector", "2026-01-06", 1], ["inspector2", "2026-01-06", 1]]));
+    expect(byDay(counts.stored)).toEqual(
+      expect.arrayContaining([
+        ["inspector", "2026-01-05", 1],
+        ["inspector", "2026-01-06", 1],
+        ["inspector2", "2026-01-06", 1],
+      ]),
+    );
     expect(counts.stored).toHaveLength(3);
     // And the scorecards read them in the new zone.
     const res = await api<View>(other.lead, "GET", "/api/recheck/scorecards?from=2026-01-05&to=2026-01-11");

@@ -32,7 +32,17 @@ export async function recheckFixtureIds(lead: Session): Promise<Record<string, s
     .returning();
   const [recheck] = await db()
     .insert(rechecks)
-    .values({ workspaceId, unitId: unit.id, gradeId: grade.id, firstGraderId: grader.id, ...firstGradeFacts(grade.id), partTypeId: partType.id, rubricVersionId: v1.id, reason: "by_hand", sentBy: leadId })
+    .values({
+      workspaceId,
+      unitId: unit.id,
+      gradeId: grade.id,
+      firstGraderId: grader.id,
+      ...firstGradeFacts(grade.id),
+      partTypeId: partType.id,
+      rubricVersionId: v1.id,
+      reason: "by_hand",
+      sentBy: leadId,
+    })
     .returning();
   return { recheckId: recheck.id, recheckPhotoId: photo.id };
 }

@@ -214,6 +214,14 @@ describe("krippendorffAlpha: grades, degenerate cases and bad input", () => {
     // Weights of 1 change nothing: K11's ordinal 0.815 (K11 a).
     expect(round(krippendorffAlpha(K11_4x12, { metric: "ordinal", weights: new Array(12).fill(1) }), 3)).toBe(0.815);
     expect(() => krippendorffAlpha(K11_4x12, { metric: "ordinal", weights: [1, 2] })).toThrow(/one entry per unit \(12\)/);
-    expect(() => krippendorffAlpha([[1, 2], [1, 2]], { metric: "nominal", weights: [1, -1] })).toThrow(/whole number >= 0/);
+    expect(() =>
+      krippendorffAlpha(
+        [
+          [1, 2],
+          [1, 2],
+        ],
+        { metric: "nominal", weights: [1, -1] },
+      ),
+    ).toThrow(/whole number >= 0/);
   });
 });

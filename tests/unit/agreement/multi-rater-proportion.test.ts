@@ -95,7 +95,10 @@ describe("gwetAc1Units", () => {
   });
 
   it("weights: a unit of weight w gives the AC1 of that unit repeated w times (IRR data)", () => {
-    for (const [units, categories] of [[FOUR_RATERS, [1, 2, 3, 4, 5]], [FIVE_OBSERVERS, [0, 1, 2, 3]]] as const) {
+    for (const [units, categories] of [
+      [FOUR_RATERS, [1, 2, 3, 4, 5]],
+      [FIVE_OBSERVERS, [0, 1, 2, 3]],
+    ] as const) {
       const weights = units.map((_, unit) => (unit % 3) + 1);
       const repeated = units.flatMap((unit, index) => Array.from({ length: weights[index] }, () => unit));
       const weighted = gwetAc1Units(units, { categories, weights });

@@ -94,7 +94,15 @@ describe("multiRaterAgreement", () => {
       expect(Math.abs(counted.alphaOrdinal - multiRaterAgreement(data).alphaOrdinal)).toBeGreaterThan(1e-6);
     }
     // A count of 0 leaves the unit out; a count that is not a whole number is refused.
-    expect(multiRaterAgreement([["A", "B"], ["A", "A"]], { counts: [0, 3] }).units).toBe(3);
+    expect(
+      multiRaterAgreement(
+        [
+          ["A", "B"],
+          ["A", "A"],
+        ],
+        { counts: [0, 3] },
+      ).units,
+    ).toBe(3);
     expect(() => multiRaterAgreement([["A", "B"]], { counts: [1.5] })).toThrow(/whole number/);
     expect(() => multiRaterAgreement([["A", "B"]], { counts: [1, 2] })).toThrow(/one entry per unit/);
   });
