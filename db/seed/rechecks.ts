@@ -160,31 +160,27 @@ async function seedHistory(workspaceId: string, people: { ines: SessionUser; pie
         .returning({ id: grades.id });
       // The lot was decided on the first grades; a different outcome is told, never rewritten.
       const decidedLotAffected = final !== firstGrade;
-      await tx
-        .insert(rechecks)
-        .values({
-          ...base,
-          status: "settled",
-          adjudicatedBy: people.lead.id,
-          adjudicationChoice: choice,
-          adjudicationReason: reason,
-          adjudicationGradeId: adjudication.id,
-          adjudicatedGrade: final,
-          adjudicatedAt,
-          decidedLotAffected,
-        });
+      await tx.insert(rechecks).values({
+        ...base,
+        status: "settled",
+        adjudicatedBy: people.lead.id,
+        adjudicationChoice: choice,
+        adjudicationReason: reason,
+        adjudicationGradeId: adjudication.id,
+        adjudicatedGrade: final,
+        adjudicatedAt,
+        decidedLotAffected,
+      });
       if (decidedLotAffected) {
-        await tx
-          .insert(activityLog)
-          .values({
-            workspaceId,
-            actorId: people.lead.id,
-            action: "lot.decided_lot_affected",
-            subjectType: "lot",
-            subjectId: unit.lotId,
-            detail: { demo: true, unitId: unit.unitId, serial: unit.serial, from: firstGrade, to: final },
-            createdAt: adjudicatedAt,
-          });
+        await tx.insert(activityLog).values({
+          workspaceId,
+          actorId: people.lead.id,
+          action: "lot.decided_lot_affected",
+          subjectType: "lot",
+          subjectId: unit.lotId,
+          detail: { demo: true, unitId: unit.unitId, serial: unit.serial, from: firstGrade, to: final },
+          createdAt: adjudicatedAt,
+        });
       }
     }
     if (queue.ines.length + queue.piet.length > 0) throw new Error("Seed rechecks: the history lots have too few units for the planned rechecks.");
