@@ -95,7 +95,7 @@ async function setUp() {
       ["bench-inspector@gallery-bench.example", "inspector"],
     ]) {
       await c.query(
-        `INSERT INTO users (workspace_id, email, name, password_hash, roles) VALUES ($1, $2, $3, $4, $5) ON CONFLICT (email) DO UPDATE SET password_hash = EXCLUDED.password_hash, active = true`,
+        `INSERT INTO users (workspace_id, email, name, password_hash, roles) VALUES ($1, $2, $3, $4, $5) ON CONFLICT (email) WHERE password_hash IS NOT NULL DO UPDATE SET password_hash = EXCLUDED.password_hash, active = true`,
         [ws, email, `Bench ${role}`, passwordHash, [role]],
       );
     }

@@ -4,6 +4,7 @@
  */
 import { sql } from "drizzle-orm";
 import { closeDb, db } from "./client";
+import { seedCalibration } from "./seed/calibration";
 import { seedGallery } from "./seed/gallery";
 import { seedLots } from "./seed/lots";
 import { seedPartTypes } from "./seed/part-types";
@@ -30,11 +31,13 @@ export async function seedDemo() {
   const photos = await seedPhotos();
   // Needs the published rubrics (each example's grade is what its rubric says of its regions).
   const gallery = await seedGallery();
+  // A calibration set of those examples with one passing and one failing attempt.
+  const calibration = await seedCalibration();
   // Needs the photos' planted marks and the rubrics: recheck history for the scorecards, a recheck to do, a disagreement to settle.
   const rechecks = await seedRechecks("vellmoor", photos.planted);
   // So a newcomer's Bench shows learned ghosts (the demo has too few marked regions to train on).
   const suggestionModel = await seedSuggestionModel();
-  return { seeded: true as const, people, partTypes, lots, rubrics, photos: { photos: photos.photos, units: photos.units, reused: photos.reused }, gallery, rechecks, suggestionModel };
+  return { seeded: true as const, people, partTypes, lots, rubrics, photos: { photos: photos.photos, units: photos.units, reused: photos.reused }, gallery, calibration, rechecks, suggestionModel };
 }
 
 if (import.meta.url === `file://${process.argv[1]}`) {

@@ -9,7 +9,7 @@ export type Screen = {
    * may open it. API routes name their own permissions, so editing this table never changes them.
    */
   permission: Permission;
-  /** "planned" screens say what is coming and do nothing else yet. */
+  /** "planned" marks a screen in the navigation that is not built yet (none today). */
   status: "ready" | "planned";
   summary: string;
 };
@@ -18,7 +18,7 @@ export const SCREENS: readonly Screen[] = [
   { href: "/queue", label: "Queue", permission: "queue.work", status: "ready", summary: "Take the next unit that matters most, with a lease so no one else gets it." },
   { href: "/lots", label: "Lots", permission: "lots.read", status: "ready", summary: "Lots received from suppliers, their sampling plans, verdicts and dispositions." },
   { href: "/gallery", label: "Gallery", permission: "gallery.read", status: "ready", summary: "Reference examples of normal and abnormal parts per part type and defect class." },
-  { href: "/calibration", label: "Calibration", permission: "calibration.read", status: "planned", summary: "Calibration sets that graders grade, scored against the key." },
+  { href: "/calibration", label: "Calibration", permission: "calibration.read", status: "ready", summary: "Calibration sets that graders grade, scored against the key." },
   { href: "/recheck", label: "Recheck", permission: "recheck.perform", status: "ready", summary: "Blind re-grading of sampled units, agreement figures and adjudication." },
   { href: "/rubrics", label: "Rubrics", permission: "rubrics.review", status: "ready", summary: "Versioned grading rules per part type: drafts, publication, differences." },
   { href: "/suppliers", label: "Suppliers", permission: "suppliers.review", status: "ready", summary: "Who sends the parts and where evidence goes." },

@@ -58,7 +58,7 @@ async function setUp() {
       emails.push(email);
       await c.query(
         `INSERT INTO users (workspace_id, email, name, password_hash, roles) VALUES ($1, $2, $3, $4, $5)
-         ON CONFLICT (email) DO UPDATE SET password_hash = EXCLUDED.password_hash, active = true`,
+         ON CONFLICT (email) WHERE password_hash IS NOT NULL DO UPDATE SET password_hash = EXCLUDED.password_hash, active = true`,
         [ws, email, i <= INSPECTORS ? `Bench inspector ${i}` : "Bench lead", passwordHash, i <= INSPECTORS ? ["inspector"] : ["lead"]],
       );
     }

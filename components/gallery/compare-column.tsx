@@ -6,7 +6,7 @@ import type { GalleryItemDto } from "@/lib/gallery/dto";
 import { ItemBadges } from "./item-badges";
 import { ItemCanvas, type ItemPartType } from "./item-canvas";
 import { ItemMeasurement } from "./item-measurement";
-import { measurementLabels } from "./item-screen";
+import { measurementLabels } from "@/components/grading/measurement-labels";
 
 /** One side of a comparison: the item on its own read-only canvas, its caption, grade and numbers. */
 export function CompareColumn({ item, partType }: { item: GalleryItemDto; partType: ItemPartType }) {

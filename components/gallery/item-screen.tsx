@@ -3,7 +3,7 @@
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import Link from "next/link";
 import { useMemo, useState } from "react";
-import type { MeasurementLabels } from "@/components/grading/measurement-table";
+import { measurementLabels } from "@/components/grading/measurement-labels";
 import { FormMessage } from "@/components/ui/form-field";
 import type { GalleryItemDto } from "@/lib/gallery/dto";
 import { apiFetch } from "@/lib/http/client";
@@ -12,14 +12,6 @@ import { ItemCanvas, type ItemPartType } from "./item-canvas";
 import { ItemEditor } from "./item-editor";
 import { ItemMeasurement } from "./item-measurement";
 import { galleryKeys } from "@/lib/query-keys/gallery";
-
-export function measurementLabels(partType: ItemPartType): MeasurementLabels {
-  return {
-    defects: Object.fromEntries(partType.defectClasses.map((d) => [d.key, d.label])),
-    zones: Object.fromEntries(partType.views.flatMap((v) => v.zones.map((z) => [z.id, z.label]))),
-    views: Object.fromEntries(partType.views.map((v) => [v.key, v.label])),
-  };
-}
 
 /**
  * One gallery item: the photo on the read-only, zoomable canvas, the caption and the grade it

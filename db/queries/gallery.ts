@@ -13,6 +13,17 @@ import type { Grade } from "@/lib/grading/rubric-schema";
 
 type ItemKey = { workspaceId: string; itemId: string };
 
+/**
+ * Not an item of a calibration set assigned to `readerId` that they have not submitted yet: a
+ * set's key is its items' regions, grade and caption, so until the attempt is submitted the taker
+ * meets those items nowhere in the Gallery (lib/calibration/attempts.ts, "blind").
+ */
+const notKeyFor = (readerId: string, workspaceId: SQL, itemId: SQL) => sql`NOT EXISTS (
+  SELECT 1 FROM calibration_set_items si
+  JOIN calibration_assignments a ON a.workspace_id = si.workspace_id AND a.set_id = si.set_id AND a.user_id = ${readerId}::uuid
+  LEFT JOIN calibration_attempts t ON t.workspace_id = a.workspace_id AND t.assignment_id = a.id
+  WHERE si.workspace_id = ${workspaceId} AND si.gallery_item_id = ${itemId} AND t.submitted_at IS NULL)`;
+
 const creators = alias(users, "gallery_creators");
 
 const cardColumns = {
@@ -52,7 +63,7 @@ function selectCards(tx: DbOrTx) {
 export type GalleryCardRow = Awaited<ReturnType<ReturnType<typeof selectCards>["where"]>>[number];
 
 /** One item with what its page shows (photo size, part type, rubric version number, who made it). */
-export async function getGalleryItem({ workspaceId, itemId }: ItemKey, tx: DbOrTx = db()) {
+export async function getGalleryItem({ workspaceId, itemId, readerId }: ItemKey & { readerId?: string }, tx: DbOrTx = db()) {
   const [row] = await tx
     .select({
       ...cardColumns,
@@ -70,7 +81,7 @@ export async function getGalleryItem({ workspaceId, itemId }: ItemKey, tx: DbOrT
     .innerJoin(partTypes, and(eq(partTypes.workspaceId, galleryItems.workspaceId), eq(partTypes.id, galleryItems.partTypeId)))
     .innerJoin(creators, eq(creators.id, galleryItems.createdBy))
     .leftJoin(rubricVersions, eq(rubricVersions.id, galleryItems.rubricVersionId))
-    .where(and(eq(galleryItems.workspaceId, workspaceId), eq(galleryItems.id, itemId)))
+    .where(and(eq(galleryItems.workspaceId, workspaceId), eq(galleryItems.id, itemId), readerId ? notKeyFor(readerId, sql`${galleryItems.workspaceId}`, sql`${galleryItems.id}`) : undefined))
     .limit(1);
   return row ?? null;
 }
@@ -154,7 +165,19 @@ type ListRow = {
  * comparison, an index condition; the ORDER BY with the index's NULLS LAST, or PostgreSQL sorts
  * every item of the workspace for each page — and only those rows are joined.
  */
-export async function listGalleryItems({ workspaceId, filters, after, limit }: { workspaceId: string; filters: GalleryListFilters; after?: GalleryListKey; limit: number }) {
+export async function listGalleryItems({
+  workspaceId,
+  readerId,
+  filters,
+  after,
+  limit,
+}: {
+  workspaceId: string;
+  readerId: string;
+  filters: GalleryListFilters;
+  after?: GalleryListKey;
+  limit: number;
+}) {
   const statuses = sql.join(
     filters.statuses.map((s) => STATUS_LITERALS[s]),
     sql`, `,
@@ -172,6 +195,7 @@ export async function listGalleryItems({ workspaceId, filters, after, limit }: {
     WITH page AS MATERIALIZED (
       SELECT g.* FROM gallery_items g
       WHERE g.workspace_id = ${workspaceId}::uuid AND g.status IN (${statuses}) ${sql.join(conditions, sql` `)}
+        AND ${notKeyFor(readerId, sql`g.workspace_id`, sql`g.id`)}
       ORDER BY g.created_at DESC NULLS LAST, g.id DESC NULLS LAST
       LIMIT ${limit + 1}
     )
@@ -216,6 +240,7 @@ export async function listGalleryItems({ workspaceId, filters, after, limit }: {
  */
 export function listReferenceItems({
   workspaceId,
+  readerId,
   partTypeId,
   viewKey,
   defectClass,
@@ -223,13 +248,20 @@ export function listReferenceItems({
   hideUnitsAwaitingRecheck,
 }: {
   workspaceId: string;
+  readerId: string;
   partTypeId: string;
   viewKey: string;
   defectClass?: string;
   limit: number;
   hideUnitsAwaitingRecheck?: boolean;
 }) {
-  const where: (SQL | undefined)[] = [eq(galleryItems.workspaceId, workspaceId), eq(galleryItems.status, "published"), eq(galleryItems.partTypeId, partTypeId), eq(galleryItems.viewKey, viewKey)];
+  const where: (SQL | undefined)[] = [
+    eq(galleryItems.workspaceId, workspaceId),
+    eq(galleryItems.status, "published"),
+    eq(galleryItems.partTypeId, partTypeId),
+    eq(galleryItems.viewKey, viewKey),
+    notKeyFor(readerId, sql`${galleryItems.workspaceId}`, sql`${galleryItems.id}`),
+  ];
   // A class narrows the abnormal items to those showing it; normal items stay as the comparison.
   if (defectClass) where.push(or(eq(galleryItems.kind, "normal"), sql`${galleryItems.defectClasses} @> ARRAY[${defectClass}]::text[]`));
   if (hideUnitsAwaitingRecheck)

@@ -484,7 +484,7 @@ export function listDecidedLotAffected({ workspaceId, lotId }: Scope & { lotId: 
     .orderBy(asc(rechecks.adjudicatedAt));
 }
 
-// Scorecards. Both reads touch only rows made for them (migration 0021): the per-day counts and
+// Scorecards. Both reads touch only rows made for them (migration scorecard_reads): the per-day counts and
 // the recheck rows, which carry their grade's facts; neither scans the period's grades.
 
 /** Local midnight of `date` in `timeZone`, as an SQL timestamptz. */

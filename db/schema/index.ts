@@ -5,4 +5,5 @@ export * from "./regions";
 export * from "./grading";
 export * from "./gallery";
 export * from "./suggestions";
+export * from "./calibration";
 export * from "./recheck";

@@ -12,6 +12,21 @@ import { partTypes, units } from "./lots";
 import { photos } from "./photos";
 import { sameWorkspace } from "./workspace-keys";
 
+/**
+ * Why a grader's rate was raised: their drift over `weeks` (reasons "below_threshold" /
+ * "below_team") and/or their last submitted calibration attempt failing (reason
+ * "calibration_failed", with that attempt). Records made before calibration counted lack
+ * `lastCalibration`.
+ */
+export type RaisedRateReason = {
+  drifting: boolean;
+  reasons: string[];
+  agreement: number | null;
+  n: number;
+  weeks: string[];
+  lastCalibration?: { attemptId: string; setId: string; submittedAt: string; passed: boolean };
+};
+
 /** What a recorded draw ran on: everything drawRechecks needs to give the same answer again. */
 export type RecheckDrawInputRecord = {
   period: string;
@@ -23,7 +38,7 @@ export type RecheckDrawInputRecord = {
   final: boolean;
   auditorIds: string[];
   /** Why a grader's rate in `graderRates` is raised (lib/recheck/raised-rate.ts); older records lack it. */
-  raisedFor?: Record<string, { drifting: boolean; reasons: string[]; agreement: number | null; n: number; weeks: string[] }>;
+  raisedFor?: Record<string, RaisedRateReason>;
 };
 export type RecheckDrawOutcome = { drawn: string[]; graders: GraderDraw[]; noOtherAuditor: string[] };
 
@@ -208,7 +223,7 @@ export const unitOpenings = pgTable(
 /**
  * Inspection grades per grader and local day (the workspace's time zone): what the scorecards'
  * "graded" column reads instead of counting every grade of the period. Kept by triggers
- * (migration 0021): each inspection grade inserted adds one in the same transaction, and a change
+ * (migration scorecard_reads): each inspection grade inserted adds one in the same transaction, and a change
  * of the workspace's time zone recounts that workspace's days, so the table always equals
  * `SELECT graded_by, local day, count(*) FROM grades WHERE kind = 'inspection' GROUP BY 1, 2`
  * (tests/integration/recheck-scorecards.test.ts checks it against that count).

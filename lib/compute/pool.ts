@@ -21,6 +21,7 @@ type KindLimits = { concurrent: number; hardTimeoutMs: number; what: string; adv
 export const COMPUTE_LIMITS: Record<TaskName, KindLimits> = {
   "measure-unit": { concurrent: 2, hardTimeoutMs: 90_000, what: "Measuring", advice: "Nothing was stored; use fewer or simpler regions, or try again." },
   "suggest-surface": { concurrent: 2, hardTimeoutMs: 8_000, what: "Finding the Surface", advice: "Mark it by hand, or try again." },
+  "score-calibration": { concurrent: 2, hardTimeoutMs: 60_000, what: "Scoring the attempt", advice: "Nothing was submitted; your answers are kept. Try again in a moment." },
   "pixel-candidates": { concurrent: 1, hardTimeoutMs: 20_000, what: "Looking for pixel faults", advice: "Mark them by hand, or try again." },
   // Only the job worker runs it (one training at a time per process); the bench measures ~30 s for 1 000 regions.
   "train-suggestion-model": { concurrent: 1, hardTimeoutMs: 15 * 60_000, what: "Training the suggestion model", advice: "Nothing was stored; it will be tried again." },

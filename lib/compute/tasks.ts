@@ -3,6 +3,7 @@
  * Plain data in and out (structured clone). Errors travel back as data, so an AppError keeps its
  * code and sentence and a DeadlineExceeded stays recognisable on the other side.
  */
+import { scoreCalibrationSet, type ScoreSetInput } from "@/lib/calibration/score-set";
 import { AppError } from "@/lib/errors";
 import { measureUnit, type UnitMeasureInput } from "@/lib/grading/grade-unit";
 import { DeadlineExceeded } from "@/lib/imaging/deadline";
@@ -25,6 +26,7 @@ export const TASKS = {
       test: input.test.map((p) => ({ ...p, image: bufferOf(p.image) })),
     }),
   "suggest-learned": ({ model, image, options }: { model: RegionModel; image: Uint8Array; options?: SuggestOptions }) => suggestRegions(model, bufferOf(image), options),
+  "score-calibration": (input: ScoreSetInput) => scoreCalibrationSet(input),
 };
 
 export type TaskName = keyof typeof TASKS;

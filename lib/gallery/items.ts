@@ -3,6 +3,8 @@ import "server-only";
  * Reading the Gallery: the filtered list (keyset pages), one item, and the Bench's reference
  * panel. Anyone in the workspace reads published items; drafts and retired items are for editors
  * only and answer 404 to anyone else (lib/gallery/access.ts), like an item of another workspace.
+ * The items of a calibration set someone is assigned and has not submitted are kept from them the
+ * same way (the set's key; db/queries/gallery.ts notKeyFor).
  */
 import { getGalleryItem, getSourceUnitLabel, listGalleryItems, listReferenceItems, type GalleryListFilters } from "@/db/queries/gallery";
 import { getGradingPartType } from "@/db/queries/rubrics";
@@ -14,7 +16,7 @@ import { toGalleryCardDto, toGalleryItemDto, type GalleryCardDto, type GalleryIt
 import type { GalleryStatus } from "./rules";
 import type { GalleryListQuery, ReferenceQuery } from "./schemas";
 
-type Reader = Pick<SessionUser, "workspaceId" | "roles">;
+type Reader = Pick<SessionUser, "id" | "workspaceId" | "roles">;
 
 export const ITEM_NOT_FOUND = "That gallery item";
 
@@ -38,7 +40,7 @@ export async function listGallery(reader: Reader, query: GalleryListQuery): Prom
     hideUnitsAwaitingRecheck: hidesUnitsAwaitingRecheck(reader.roles),
   };
   const after = query.cursor ? decodeGalleryCursor(query.cursor) : undefined;
-  const rows = await listGalleryItems({ workspaceId: reader.workspaceId, filters, after, limit: query.limit });
+  const rows = await listGalleryItems({ workspaceId: reader.workspaceId, readerId: reader.id, filters, after, limit: query.limit });
   const page = rows.slice(0, query.limit);
   const last = page.at(-1);
   return {
@@ -49,7 +51,7 @@ export async function listGallery(reader: Reader, query: GalleryListQuery): Prom
 
 /** The item as its page shows it; 404 when the reader may not see it. */
 export async function readGalleryItem(reader: Reader, itemId: string): Promise<GalleryItemDto> {
-  const row = await getGalleryItem({ workspaceId: reader.workspaceId, itemId });
+  const row = await getGalleryItem({ workspaceId: reader.workspaceId, itemId, readerId: reader.id });
   if (!row || !canOpenItem(reader.roles, row)) throw notFound(ITEM_NOT_FOUND);
   const source = row.sourceUnitId ? await getSourceUnitLabel({ workspaceId: reader.workspaceId, unitId: row.sourceUnitId }) : null;
   const label = source ? (source.serial ? `${source.serial} (${source.purchaseRef})` : `Sample ${source.sampleIndex} of ${source.purchaseRef}`) : null;
@@ -68,6 +70,7 @@ export async function listReference(reader: Reader, query: ReferenceQuery): Prom
   }
   const rows = await listReferenceItems({
     workspaceId: reader.workspaceId,
+    readerId: reader.id,
     partTypeId: query.partType,
     viewKey: query.view,
     defectClass: query.defect,

@@ -30,8 +30,8 @@ export type GalleryMeasurement = {
 
 const NO_RULES = { rules: [], notes: [] };
 
-export async function measureGalleryItem(reader: Pick<SessionUser, "workspaceId" | "roles">, itemId: string): Promise<GalleryMeasurement | null> {
-  const item = await getGalleryItem({ workspaceId: reader.workspaceId, itemId });
+export async function measureGalleryItem(reader: Pick<SessionUser, "id" | "workspaceId" | "roles">, itemId: string): Promise<GalleryMeasurement | null> {
+  const item = await getGalleryItem({ workspaceId: reader.workspaceId, itemId, readerId: reader.id });
   if (!item || !canOpenItem(reader.roles, item)) throw notFound(ITEM_NOT_FOUND);
   if (item.photo.status !== "ready" || !item.photo.width || !item.photo.height) return null;
   const published = await getLatestPublished({ workspaceId: reader.workspaceId, partTypeId: item.partTypeId });

@@ -40,10 +40,11 @@ async function readyPhoto(user: SessionUser, photoId: string) {
 }
 
 /** Streams the preview or thumbnail (same origin, so canvases that draw it stay readable). */
-export async function derivativeResponse(req: Request, user: SessionUser, photoId: string, variant: "preview" | "thumbnail"): Promise<Response> {
+export async function derivativeResponse(req: Request, user: SessionUser, photoId: string, variant: "preview" | "thumbnail", options: { etag?: string } = {}): Promise<Response> {
   const photo = await readyPhoto(user, photoId);
   const key = variant === "preview" ? photo.previewKey! : photo.thumbnailKey!;
-  const etag = `"${photo.id}-${variant}"`;
+  // A caller that must not tell the photo's id (a calibration item, taken blind) names its own tag.
+  const etag = `"${options.etag ?? photo.id}-${variant}"`;
   if (req.headers.get("if-none-match") === etag) return new Response(null, { status: 304, headers: { ...IMAGE_HEADERS, ETag: etag } });
   const object = await getObjectStream(objectStore(), key);
   if (!object) throw notFound("That photo");

@@ -14,9 +14,9 @@ import "server-only";
  * - Only runs that drew something are recorded (seed, algorithm and the whole input), like the
  *   lot's sample draw: the record is enough to run drawRechecks again and get the same grades.
  * - The raised rate (draw.ts `recheckRateFor`) applies to a grader whose agreement drifts by the
- *   scorecards' rule over the weeks up to the grade (raised-rate.ts); their rechecks are drawn
- *   with reason "raised_rate" and the record says why (`input.raisedFor`). Calibration attempts
- *   are not stored yet, so a failed calibration cannot raise it (raised-rate.ts says more).
+ *   scorecards' rule over the weeks up to the grade, or whose last calibration attempt failed
+ *   (raised-rate.ts); their rechecks are drawn with reason "raised_rate" and the record says why
+ *   (`input.raisedFor`).
  * - By hand: the unit's current grade is sent (an override or an adjudication too); a grade that
  *   already has a recheck is refused with 409, never doubled.
  */
@@ -40,7 +40,7 @@ import type { SessionUser } from "@/lib/auth/require-user";
 import { AppError, notFound } from "@/lib/errors";
 import { periodOf } from "@/lib/time/periods";
 import { drawRechecks, RECHECK_DRAW_ALGORITHM, recheckRateFor } from "./draw";
-import { graderDrift } from "./raised-rate";
+import { raisedRateReason } from "./raised-rate";
 import { DEFAULT_RECHECK_SETTINGS, recheckSettingsSchema, type RecheckSettings } from "./settings";
 
 const DAY_MS = 86_400_000;
@@ -88,11 +88,9 @@ export async function drawOnGradeRecorded(tx: Tx, grade: { workspaceId: string; 
   const candidates = week.map(({ gradeId, graderId, partTypeId }) => ({ gradeId, graderId, partTypeId }));
   const alreadyDrawn = await listRecheckedGradeIds({ workspaceId, gradeIds: candidates.map((c) => c.gradeId) }, tx);
   const auditorIds = await listActiveUserIdsWithRoles({ workspaceId, roles: holders("recheck.perform") }, tx);
-  const drift = await graderDrift(tx, { workspaceId, graderId: grade.graderId, at: grade.gradedAt, settings, timeZone });
-  const graderRates = drift.flagged ? { [grade.graderId]: recheckRateFor(settings, { drifting: true }) } : {};
-  const raisedFor = drift.flagged
-    ? { [grade.graderId]: { drifting: true, reasons: drift.reasons, agreement: Number.isNaN(drift.agreement.share) ? null : drift.agreement.share, n: drift.agreement.n, weeks: drift.weeks } }
-    : {};
+  const raised = await raisedRateReason(tx, { workspaceId, graderId: grade.graderId, at: grade.gradedAt, settings, timeZone });
+  const graderRates = raised ? { [grade.graderId]: recheckRateFor(settings, { drifting: raised.drifting, lastCalibrationFailed: raised.reasons.includes("calibration_failed") }) } : {};
+  const raisedFor = raised ? { [grade.graderId]: raised } : {};
   const seed = newSeed();
   const input = { period, candidates, alreadyDrawn, rate: settings.rate, graderRates, raisedFor, minimumPerGrader: settings.minimumPerGrader, final: false, auditorIds };
   const result = drawRechecks({ seed, ...input });
@@ -110,7 +108,7 @@ export async function drawOnGradeRecorded(tx: Tx, grade: { workspaceId: string; 
     tx,
     workspaceId,
     result.drawn.map((d) => d.gradeId),
-    { reason: drift.flagged ? "raised_rate" : "rate", drawId: draw.id },
+    { reason: raised ? "raised_rate" : "rate", drawId: draw.id },
   );
   for (const row of rows) {
     await logActivity(tx, {
@@ -119,7 +117,7 @@ export async function drawOnGradeRecorded(tx: Tx, grade: { workspaceId: string; 
       action: "recheck.drawn",
       subjectType: "unit",
       subjectId: row.unitId,
-      detail: { recheckId: row.id, gradeId: row.gradeId, drawId: draw.id, reason: drift.flagged ? "raised_rate" : "rate" },
+      detail: { recheckId: row.id, gradeId: row.gradeId, drawId: draw.id, reason: raised ? "raised_rate" : "rate" },
     });
   }
   return rows;

@@ -21,7 +21,8 @@ const plural = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? o
 
 /** One row per class the model learned or was judged on, in class-name order. */
 export function classRows(model: Pick<SuggestionModelDto, "classCounts" | "evaluation" | "suggestable">, labels: Readonly<Record<string, string>> = {}): ClassRow[] {
-  const classes = [...new Set([...Object.keys(model.classCounts), ...model.suggestable.map((c) => c.defect)])].sort();
+  // A class can be judged without being learned (only held-out photos had it): it gets a row too.
+  const classes = [...new Set([...Object.keys(model.classCounts), ...Object.keys(model.evaluation.byClass), ...model.suggestable.map((c) => c.defect)])].sort();
   return classes.map((defect) => {
     const counts = Object.hasOwn(model.classCounts, defect) ? model.classCounts[defect] : { regions: 0, photos: 0 };
     const figures = Object.hasOwn(model.evaluation.byClass, defect) ? model.evaluation.byClass[defect] : null;
@@ -33,7 +34,7 @@ export function classRows(model: Pick<SuggestionModelDto, "classCounts" | "evalu
       learnedPhotos: counts.photos,
       heldOut: figures && { accepted: figures.accepted, suggested: figures.suggested, hits: figures.hits, recall: figures.recall, precision: figures.precision },
       suggest: decision?.suggest ?? false,
-      reason: decision?.reason ?? "not judged",
+      reason: decision?.reason ?? (figures ? "not learned: only held-out photos had it" : "not judged"),
     };
   });
 }

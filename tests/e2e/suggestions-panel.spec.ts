@@ -67,7 +67,9 @@ test("Train now queues a training in the worker and the panel shows how it ended
   await page.goto("/gallery/suggestions");
   await expect(page.getByTestId("suggestion-models-empty")).toBeVisible();
   await page.getByTestId("train-now-button").click();
-  await expect(page.getByTestId("train-now")).toContainText("Training in the background");
+  // On a quiet machine the worker can finish (nothing to learn) before the page shows the queued
+  // message; the page then shows the outcome instead, which the test checks below.
+  await expect(page.getByTestId("train-now")).toContainText(/Training in the background|Nothing was trained:/);
 
   // Queued for this workspace, asked for by this trainer, in the worker's training queue.
   const queued = async () =>

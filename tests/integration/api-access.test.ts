@@ -3,6 +3,7 @@ import { holders } from "@/lib/auth/permissions";
 import { ROLES, type Role } from "@/lib/auth/roles";
 import { api, signIn, type Session } from "../support/http";
 import { createUser, TEST_PASSWORD, uniqueEmail, workspaceBySlug } from "../support/db";
+import { calibrationFixtureIds } from "../support/calibration-access";
 import { galleryFixtureIds } from "../support/gallery-access";
 import { gradingFixtureIds } from "../support/grading-access";
 import { lotFixtureIds } from "../support/lot-access";
@@ -39,6 +40,7 @@ async function fixtureIds(lead: Session): Promise<Ids> {
     emailId: emails.body.emails[0].id,
     ...(await gradingFixtureIds(lead)),
     ...(await galleryFixtureIds(lead)),
+    ...(await calibrationFixtureIds(lead)),
     ...(await queueFixtureIds(lead)),
     ...(await recheckFixtureIds(lead)),
     ...(await photoFixtureIds(lead)),

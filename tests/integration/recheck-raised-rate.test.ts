@@ -1,8 +1,10 @@
 /**
- * Issue 19, item 1: a grader whose agreement drifts is drawn at the raised rate (the scorecards'
- * drift rule over the weeks up to the grade, lib/recheck/raised-rate.ts); everyone else keeps the
- * normal rate. Against the test server and its PostgreSQL. The drifting grader's submitted
- * recheck is stored directly (the auditor's steps are recheck-blind.test.ts's subject).
+ * Issue 19, item 1: a grader whose agreement drifts, or whose last calibration attempt failed, is
+ * drawn at the raised rate (the scorecards' drift rule over the weeks up to the grade, and the
+ * stored verdict of the last submitted attempt, lib/recheck/raised-rate.ts); everyone else keeps
+ * the normal rate. Against the test server and its PostgreSQL. The drifting grader's submitted
+ * recheck is stored directly (the auditor's steps are recheck-blind.test.ts's subject); the
+ * calibration attempts are taken and scored through the API.
  */
 import { eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
@@ -11,7 +13,9 @@ import { recheckDraws, rechecks } from "@/db/schema";
 import { gradeAgreement, gradeSteps } from "@/lib/grading/grade-steps";
 import type { Grade } from "@/lib/grading/rubric-schema";
 import { drawRechecks } from "@/lib/recheck/draw";
-import { gradedUnit, RECHECK_DEFAULTS, recheckWorld, type RecheckWorld } from "../support/recheck";
+import { createAssignedSet, createCalibrationItems, KEYS } from "../support/calibration";
+import { api } from "../support/http";
+import { gradedUnit, RECHECK_DEFAULTS, recheckWorld, type Person, type RecheckWorld } from "../support/recheck";
 
 const rechecksOf = (workspaceId: string) => db().select().from(rechecks).where(eq(rechecks.workspaceId, workspaceId));
 
@@ -59,5 +63,49 @@ describe("the raised rate for a drifting grader", () => {
     const theirs = (await rechecksOf(world.workspaceId)).filter((r) => r.firstGraderId === world.inspector2.id);
     expect(theirs.map((r) => [r.gradeId, r.reason])).toEqual([[other1.grade.id, "rate"]]);
     expect(theirs.map((r) => r.gradeId)).not.toContain(other2.grade.id);
+  });
+});
+
+/** `taker` takes an assigned set of the five fixture items: the key's own answers, or nothing marked and Reject throughout. */
+async function takeCalibration(world: RecheckWorld, taker: Person, itemIds: string[], answers: "as the key" | "all wrong") {
+  await createAssignedSet(world.lead, itemIds, taker.id, `Raised-rate set ${taker.id}`);
+  const mine = await api<{ assignments: { id: string }[] }>(taker, "GET", "/api/calibration/assignments");
+  const started = await api<{ attemptId: string }>(taker, "POST", `/api/calibration/assignments/${mine.body.assignments[0].id}/attempt`);
+  const attemptId = started.body.attemptId;
+  for (const [i, key] of KEYS.entries()) {
+    const answer = answers === "as the key" ? { position: i + 1, grade: key.grade, regions: key.regions } : { position: i + 1, grade: "Reject", regions: { regions: [], surfaces: [], ruler: null } };
+    const saved = await api(taker, "PUT", `/api/calibration/attempts/${attemptId}/answers`, answer);
+    expect(saved.status, JSON.stringify(saved.body)).toBe(200);
+  }
+  const submitted = await api<{ attempt: { result: { passed: boolean } } }>(taker, "POST", `/api/calibration/attempts/${attemptId}/submit`);
+  expect(submitted.status, JSON.stringify(submitted.body)).toBe(200);
+  return { attemptId, passed: submitted.body.attempt.result.passed };
+}
+
+describe("the raised rate after a failed calibration", () => {
+  it("draws a grader whose last calibration attempt failed at the raised rate and names the attempt; a passing grader keeps the normal rate", async () => {
+    const calWorld = await recheckWorld({ ...RECHECK_DEFAULTS, rate: 0.1, raisedRate: 1, driftMinRechecks: 50 });
+    const items = await createCalibrationItems(calWorld.lead);
+    const itemIds = items.published.map((p) => p.id);
+    const failed = await takeCalibration(calWorld, calWorld.inspector, itemIds, "all wrong");
+    const passed = await takeCalibration(calWorld, calWorld.inspector2, itemIds, "as the key");
+    expect([failed.passed, passed.passed]).toEqual([false, true]);
+
+    // Week's first grade: drawn either way (⌈rate × 1⌉ = 1). The second shows the rate.
+    await gradedUnit(calWorld, calWorld.inspector);
+    const second = await gradedUnit(calWorld, calWorld.inspector);
+    const raised = (await rechecksOf(calWorld.workspaceId)).find((r) => r.gradeId === second.grade.id);
+    expect(raised, "the failed grader's second grade of the week is drawn").toBeDefined();
+    expect(raised!.reason).toBe("raised_rate");
+    const [draw] = await db().select().from(recheckDraws).where(eq(recheckDraws.id, raised!.drawId!));
+    expect(draw.input.graderRates).toEqual({ [calWorld.inspector.id]: 1 });
+    expect(draw.input.raisedFor?.[calWorld.inspector.id]).toMatchObject({ drifting: false, reasons: ["calibration_failed"], lastCalibration: { attemptId: failed.attemptId, passed: false } });
+    expect(drawRechecks({ seed: draw.seed, ...draw.input }).drawn.map((d) => d.gradeId)).toEqual(draw.outcome.drawn);
+
+    const theirFirst = await gradedUnit(calWorld, calWorld.inspector2);
+    const theirSecond = await gradedUnit(calWorld, calWorld.inspector2);
+    const theirs = (await rechecksOf(calWorld.workspaceId)).filter((r) => r.firstGraderId === calWorld.inspector2.id);
+    expect(theirs.map((r) => [r.gradeId, r.reason])).toEqual([[theirFirst.grade.id, "rate"]]);
+    expect(theirs.map((r) => r.gradeId)).not.toContain(theirSecond.grade.id);
   });
 });

@@ -120,7 +120,7 @@ async function dayCounts(workspaceId: string) {
   return { stored: stored.rows, counted: counted.rows };
 }
 
-describe("what the scorecards read instead of every grade (migration 0021)", () => {
+describe("what the scorecards read instead of every grade (migration scorecard_reads)", () => {
   it("the per-day counts equal the grades' own count, and recheck rows carry their grade's facts", async () => {
     const { stored, counted } = await dayCounts(world.workspaceId);
     expect(counted.reduce((n, row) => n + row.graded, 0)).toBe(3);

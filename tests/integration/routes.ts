@@ -223,6 +223,38 @@ export const ROUTES: RouteRow[] = [
   },
   // A well-formed but forged ticket: the handler itself answers 400 (real finalising is in gallery-uploads.test.ts).
   { method: "POST", path: "/api/gallery/photos", permission: "gallery.edit", body: () => ({ ticket: `${"e30".repeat(8)}.${"x".repeat(43)}` }), allowedStatus: 400 },
+  // Calibration (tests/support/calibration-access.ts: five published items, a set of them assigned to the lead, the lead's attempt started).
+  { method: "GET", path: "/api/calibration/sets", permission: "calibration.manage", allowedStatus: 200 },
+  {
+    method: "POST",
+    path: "/api/calibration/sets",
+    permission: "calibration.manage",
+    body: (ids) => ({ name: unique("Route check set"), itemIds: ids.calibrationItemIds.split(",") }),
+    allowedStatus: 201,
+  },
+  { method: "GET", path: "/api/calibration/sets/:calibrationSetId", permission: "calibration.manage", allowedStatus: 200 },
+  {
+    method: "POST",
+    path: "/api/calibration/sets/:calibrationSetId/assignments",
+    permission: "calibration.manage",
+    body: (ids) => ({ userIds: [ids.calibrationTakerId], dueOn: "2099-12-31" }),
+    allowedStatus: 200,
+  },
+  { method: "GET", path: "/api/calibration/assignments", permission: "calibration.take", allowedStatus: 200 },
+  // The fixture's assignment and attempt are the lead's: the other takers meet them as missing ones (404; their own are in calibration.test.ts).
+  { method: "POST", path: "/api/calibration/assignments/:calibrationAssignmentId/attempt", permission: "calibration.take", allowedStatus: [200, 404] },
+  { method: "GET", path: "/api/calibration/attempts/:calibrationAttemptId", permission: "calibration.take", allowedStatus: [200, 404] },
+  {
+    method: "PUT",
+    path: "/api/calibration/attempts/:calibrationAttemptId/answers",
+    permission: "calibration.take",
+    body: () => ({ position: 1, grade: "C", regions: { regions: [], surfaces: [], ruler: null } }),
+    allowedStatus: [200, 404],
+  },
+  { method: "GET", path: "/api/calibration/attempts/:calibrationAttemptId/image?position=1", permission: "calibration.take", allowedStatus: [200, 404] },
+  { method: "GET", path: "/api/calibration/attempts/:calibrationAttemptId/measurement?position=1", permission: "calibration.take", allowedStatus: [200, 404] },
+  // Four items have no grade yet: the lead's submit is refused (409); scoring itself is in calibration.test.ts.
+  { method: "POST", path: "/api/calibration/attempts/:calibrationAttemptId/submit", permission: "calibration.take", allowedStatus: [409, 404] },
   // Recheck (issue 19). The grading fixture unit is graded: the first allowed caller sends it (201), later ones find it sent (409).
   { method: "POST", path: "/api/rechecks", permission: "recheck.perform", body: (ids) => ({ unitId: ids.unitId }), allowedStatus: [201, 409] },
   { method: "GET", path: "/api/workspace/recheck-settings", permission: "workspace.read", allowedStatus: 200 },

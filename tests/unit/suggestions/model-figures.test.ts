@@ -35,11 +35,20 @@ describe("classRows", () => {
         suggest: true,
         reason: "held-out recall 0.895, precision 0.773 on 19 regions",
       },
+      {
+        defect: "stain",
+        label: "stain",
+        learnedRegions: 0,
+        learnedPhotos: 0,
+        heldOut: { accepted: 0, suggested: 3, hits: 0, recall: 0, precision: 0 },
+        suggest: false,
+        reason: "not learned: only held-out photos had it",
+      },
     ]);
   });
 
   it("keeps a class named like an Object property as data, and falls back to the key without a label", () => {
-    const odd = { ...model, classCounts: { constructor: { regions: 2, photos: 1 } }, suggestable: [] };
+    const odd = { ...model, classCounts: { constructor: { regions: 2, photos: 1 } }, evaluation: { ...model.evaluation, byClass: {} }, suggestable: [] };
     expect(classRows(odd)).toEqual([{ defect: "constructor", label: "constructor", learnedRegions: 2, learnedPhotos: 1, heldOut: null, suggest: false, reason: "not judged" }]);
   });
 });
