@@ -22,6 +22,7 @@ import type { RegionSetPayload } from "@/lib/geometry/validate";
 import { measureUnit } from "@/lib/grading/grade-unit";
 import type { Grade } from "@/lib/grading/rubric-schema";
 import { renderAnnotatedPartPhoto, type PlantedDefect } from "./photo-art";
+import { classKeyOf } from "./photo-defects";
 
 /** Per part type: the examples to make, as [view, planted defects]; the first is the normal one. */
 const EXAMPLES: Record<string, [string, PlantedDefect[]][]> = {
@@ -69,9 +70,6 @@ const EXAMPLES: Record<string, [string, PlantedDefect[]][]> = {
   ],
 };
 
-/** Planted marks named as the part types name their classes. */
-const CLASS_OF: Partial<Record<PlantedDefect, string>> = { "dead-pixel": "pixel-dark", "stuck-pixel": "pixel-lit" };
-
 const pct = (share: number) => `${(share * 100).toFixed(share < 0.001 ? 3 : 2)} %`;
 
 async function trainerOf(workspaceId: string): Promise<SessionUser | null> {
@@ -91,7 +89,7 @@ type SeedPartType = typeof partTypes.$inferSelect;
 /** The planted marks as the item's regions (with the part's outline as its Surface), its grade and caption. */
 async function judge(partType: SeedPartType, viewKey: string, photo: Awaited<ReturnType<typeof renderAnnotatedPartPhoto>>, rubric: NonNullable<Awaited<ReturnType<typeof getLatestPublished>>>) {
   const known = new Set(partType.defectClasses.map((d) => d.key));
-  const defects = photo.regions.map((r, i) => ({ id: `d${i + 1}`, defect: CLASS_OF[r.defect] ?? r.defect, shape: r.shape })).filter((r) => known.has(r.defect));
+  const defects = photo.regions.map((r, i) => ({ id: `d${i + 1}`, defect: classKeyOf(r.defect), shape: r.shape })).filter((r) => known.has(r.defect));
   const box = photo.surface as Extract<Shape, { kind: "rect" }>;
   const surface: PolygonShape = {
     kind: "polygon",

@@ -13,6 +13,10 @@ export type PlantedDefect = "scratch" | "crack" | "stain" | "dust" | "dent" | "c
 export type Box = { x: number; y: number; w: number; h: number };
 export type Drawn = { svg: string; surface: Box; screen?: Box };
 export type PlantedRegion = { defect: PlantedDefect; shape: Shape };
+
+/** A planted mark's class as the part types name it (lib/part-types/starter-catalogue.ts): the
+ * pixel faults are named by what the pixel does; every other planted name is already a class key. */
+export const classKeyOf = (defect: PlantedDefect): string => ({ "dead-pixel": "pixel-dark", "stuck-pixel": "pixel-lit" })[defect as string] ?? defect;
 export type Planted = { svg: string; regions: PlantedRegion[] };
 
 /** How much wider than the visible stroke an inspector draws a Line, at 1 600 px (common practice). */

@@ -27,6 +27,7 @@ import { trainAndJudge } from "@/lib/suggestions/train-and-judge";
 import { ACCEPTED_UNIT_STATUSES } from "@/lib/suggestions/training-set";
 import { renderDefectPhotos } from "./defect-photos";
 import { renderAnnotatedPartPhoto, type AnnotatedPartPhoto } from "./photo-art";
+import { classKeyOf } from "./photo-defects";
 import { plantedDefects } from "./photos";
 
 const TRAIN_PHOTOS = 40;
@@ -54,7 +55,8 @@ async function benchLikePhotos(): Promise<AnnotatedPartPhoto[]> {
   return photos;
 }
 
-const asPhoto = (p: AnnotatedPartPhoto) => ({ image: p.jpeg, width: p.width, height: p.height, regions: p.regions, surface: [p.surface] });
+// Regions under the part types' class keys, so the model's classes are the workspace's own.
+const asPhoto = (p: AnnotatedPartPhoto) => ({ image: p.jpeg, width: p.width, height: p.height, regions: p.regions.map((r) => ({ ...r, defect: classKeyOf(r.defect) })), surface: [p.surface] });
 
 export async function seedSuggestionModel({ workspaceSlug = "vellmoor" }: { workspaceSlug?: string } = {}): Promise<{ version: number; suggests: string[]; seconds: number } | null> {
   const started = performance.now();

@@ -132,7 +132,7 @@ export function compareModels(candidate: ModelStanding, current: ModelStanding |
         ),
       ),
       currentScore: null,
-      reason: "No model is in use yet.",
+      reason: "The first model of this workspace: nothing was in use before it, so it is switched in.",
     };
   const classes = [...new Set([...candidate.suggestable, ...current.suggestable].filter((c) => c.suggest).map((c) => c.defect))].sort();
   const candidateScore = round(meanF1(candidate, classes));

@@ -138,7 +138,7 @@ describe("the suggestion rule and the model switch", () => {
     expect(compareModels(standing({ scratch: [10, 10, 7] }), current)).toMatchObject({ switchIn: false });
     // Losing a class the model in use suggests counts as F1 0 for it.
     expect(compareModels(standing({ scratch: [10, 10, 5] }), current).switchIn).toBe(false);
-    expect(compareModels(standing({ scratch: [10, 10, 2] }), null)).toMatchObject({ switchIn: true, reason: "No model is in use yet." });
+    expect(compareModels(standing({ scratch: [10, 10, 2] }), null)).toMatchObject({ switchIn: true, reason: "The first model of this workspace: nothing was in use before it, so it is switched in." });
   });
 
   it("on a tie switches the new model in, unless it may suggest nothing (a tie at 0 keeps the model in use)", () => {
