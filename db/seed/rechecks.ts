@@ -33,14 +33,13 @@ import { sendToRecheck } from "@/lib/recheck/recording";
 import { saveRecheckRegions } from "@/lib/recheck/recheck-regions";
 import { measureRecheck, submitRecheck } from "@/lib/recheck/submit";
 import { readRegionSet, saveRegionSet } from "@/lib/regions/regions";
+import { classKeyOf } from "./photo-defects";
 import type { PlantedPhoto } from "./photos";
 
 const HOUR = 3_600_000;
 const DAY = 24 * HOUR;
 const HISTORY_LOTS = ["PO-24-0702", "PO-24-0733", "TR-5480"];
 const HISTORY_NOTE = "Demo history: graded before photos and measurements were kept (invented by the seed).";
-/** Planted marks named as the part types name their classes (as db/seed/gallery.ts). */
-const CLASS_OF: Record<string, string> = { "dead-pixel": "pixel-dark", "stuck-pixel": "pixel-lit" };
 
 async function person(workspaceId: string, email: string): Promise<SessionUser> {
   const [row] = await db()
@@ -210,7 +209,7 @@ function regionPayload(photo: PlantedPhoto, defectClasses: Set<string>, leaveOut
     ],
   };
   const regions = photo.regions
-    .map((r, i) => ({ id: `seed-${photo.viewKey}-${i + 1}`, defect: CLASS_OF[r.defect] ?? r.defect, shape: r.shape }))
+    .map((r, i) => ({ id: `seed-${photo.viewKey}-${i + 1}`, defect: classKeyOf(r.defect), shape: r.shape }))
     .filter((r) => defectClasses.has(r.defect) && r.defect !== leaveOut);
   return { regions, surfaces: [{ id: "surface", shape: surface }], ruler: null };
 }
