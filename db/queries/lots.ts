@@ -1,6 +1,7 @@
 import "server-only";
 import { and, asc, desc, eq, ilike, inArray, isNotNull, sql, type SQL } from "drizzle-orm";
 import { db, type DbOrTx } from "@/db/client";
+import { runReads } from "@/db/run-reads";
 import { checklistResults, grades, inspectionSchemes, lots, measurements, partTypes, rubricVersions, suppliers, units, users } from "@/db/schema";
 import type { InspectionScheme, Lot, NewLot, SampleDraw } from "@/db/schema/lots";
 import type { DefectSeverity } from "@/lib/part-types/severity";
@@ -112,24 +113,27 @@ export async function listLots({ workspaceId, query }: { workspaceId: string; qu
  */
 export async function loadLotEvidence({ workspaceId, lotIds }: { workspaceId: string; lotIds: string[] }, tx: DbOrTx = db()) {
   if (lotIds.length === 0) return { units: [], results: [], grades: [], rubricRules: new Map<string, Rule[]>(), gradedPartTypeIds: new Set<string>() };
-  const [unitRows, resultRows, gradeRows, published] = await Promise.all([
-    tx
-      .select({ id: units.id, lotId: units.lotId, sampleIndex: units.sampleIndex, status: units.status })
-      .from(units)
-      .where(and(eq(units.workspaceId, workspaceId), inArray(units.lotId, lotIds))),
-    tx
-      .select({ unitId: checklistResults.unitId, lotId: units.lotId, itemId: checklistResults.itemId, passed: checklistResults.passed, severityOnFail: checklistResults.severityOnFail })
-      .from(checklistResults)
-      .innerJoin(units, eq(units.id, checklistResults.unitId))
-      .where(and(eq(checklistResults.workspaceId, workspaceId), inArray(units.lotId, lotIds))),
-    tx.execute<{
-      unit_id: string;
-      final_grade: Grade;
-      lines: { ruleId: string; grade: Grade }[];
-      rubric_version_id: string;
-      severities: Record<string, DefectSeverity> | null;
-      labels: Record<string, string> | null;
-    }>(sql`
+  const [unitRows, resultRows, gradeRows, published] = await runReads(tx, [
+    () =>
+      tx
+        .select({ id: units.id, lotId: units.lotId, sampleIndex: units.sampleIndex, status: units.status })
+        .from(units)
+        .where(and(eq(units.workspaceId, workspaceId), inArray(units.lotId, lotIds))),
+    () =>
+      tx
+        .select({ unitId: checklistResults.unitId, lotId: units.lotId, itemId: checklistResults.itemId, passed: checklistResults.passed, severityOnFail: checklistResults.severityOnFail })
+        .from(checklistResults)
+        .innerJoin(units, eq(units.id, checklistResults.unitId))
+        .where(and(eq(checklistResults.workspaceId, workspaceId), inArray(units.lotId, lotIds))),
+    () =>
+      tx.execute<{
+        unit_id: string;
+        final_grade: Grade;
+        lines: { ruleId: string; grade: Grade }[];
+        rubric_version_id: string;
+        severities: Record<string, DefectSeverity> | null;
+        labels: Record<string, string> | null;
+      }>(sql`
       SELECT DISTINCT ON (g.unit_id) g.unit_id, g.final_grade, g.explanation->'lines' AS lines, g.rubric_version_id,
         m.result->'defectSeverities' AS severities, m.result->'labels'->'defects' AS labels
       FROM ${grades} g
@@ -140,11 +144,12 @@ export async function loadLotEvidence({ workspaceId, lotIds }: { workspaceId: st
         sql`, `,
       )})
       ORDER BY g.unit_id, g.created_at DESC, g.id DESC`),
-    tx
-      .selectDistinct({ partTypeId: rubricVersions.partTypeId })
-      .from(rubricVersions)
-      .innerJoin(lots, eq(lots.partTypeId, rubricVersions.partTypeId))
-      .where(and(eq(rubricVersions.workspaceId, workspaceId), eq(rubricVersions.status, "published"), inArray(lots.id, lotIds))),
+    () =>
+      tx
+        .selectDistinct({ partTypeId: rubricVersions.partTypeId })
+        .from(rubricVersions)
+        .innerJoin(lots, eq(lots.partTypeId, rubricVersions.partTypeId))
+        .where(and(eq(rubricVersions.workspaceId, workspaceId), eq(rubricVersions.status, "published"), inArray(lots.id, lotIds))),
   ]);
   const versionIds = [...new Set(gradeRows.rows.map((g) => g.rubric_version_id))];
   const versions = versionIds.length

@@ -1,5 +1,6 @@
 import "server-only";
 import { transaction, type DbOrTx } from "@/db/client";
+import { runReads } from "@/db/run-reads";
 import { logActivity } from "@/db/queries/activity";
 import { getScheme, listDecidedLots, upsertScheme } from "@/db/queries/lots";
 import { getPartType } from "@/db/queries/part-types";
@@ -26,7 +27,7 @@ export async function assertPair(pair: Pair, tx?: DbOrTx) {
 
 /** Where the switching rules stand for the next lot of a supplier + part type, and why. */
 export async function switchingStateFor(pair: Pair, tx?: DbOrTx): Promise<{ state: SwitchingState; settings: SchemeSettings; decidedLots: number }> {
-  const [decided, scheme] = await Promise.all([listDecidedLots(pair, tx), getScheme(pair, tx)]);
+  const [decided, scheme] = await runReads(tx, [() => listDecidedLots(pair, tx), () => getScheme(pair, tx)]);
   const settings: SchemeSettings = scheme ? { reducedAllowed: scheme.reducedAllowed, steadyProduction: scheme.steadyProduction, resumedAfterLotIds: scheme.resumedAfterLotIds } : DEFAULT_SCHEME;
   return { state: nextInspectionState(switchingInputFor(decided, settings)), settings, decidedLots: decided.length };
 }

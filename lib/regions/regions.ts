@@ -11,6 +11,7 @@ import "server-only";
  * read path that withholds them (this GET serves every role for now).
  */
 import { transaction, type DbOrTx } from "@/db/client";
+import { runReads } from "@/db/run-reads";
 import { logActivity } from "@/db/queries/activity";
 import { lockUnit } from "@/db/queries/units";
 import { getPhotoForRegions, getRegionSetHead, listPhotoRegions, lockRegionSet, writeRegionSet, type PhotoForRegions } from "@/db/queries/regions";
@@ -53,7 +54,7 @@ export async function loadPhotoForRegions(actor: Actor, photoId: string): Promis
 
 export async function readRegionSet(actor: Actor, photoId: string, tx?: DbOrTx): Promise<RegionSetView> {
   const key = { workspaceId: actor.workspaceId, photoId };
-  const [head, rows] = await Promise.all([getRegionSetHead(key, tx), listPhotoRegions(key, tx)]);
+  const [head, rows] = await runReads(tx, [() => getRegionSetHead(key, tx), () => listPhotoRegions(key, tx)]);
   return { photoId, version: head.version, regions: payloadFromRows(rows), updatedAt: head.updatedAt?.toISOString() ?? null, updatedByName: head.updatedByName };
 }
 
