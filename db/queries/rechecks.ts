@@ -511,16 +511,27 @@ const submittedInPeriod = (workspaceId: string, from: string, to: string, timeZo
 const localWeek = (timeZone: string) => sql`to_char(date_trunc('week', r.first_graded_at AT TIME ZONE ${timeZone}), 'YYYY-MM-DD')`;
 
 /**
- * The period's submitted rechecks counted per grader, local week, first grade, recheck grade and
- * blind mark (lib/recheck/scorecard.ts `RecheckCount`): about a thousand rows for 5 000 rechecks.
+ * The period's submitted rechecks counted per grader, local week, first grade, recheck grade,
+ * adjudicated grade and blind mark (lib/recheck/scorecard.ts `RecheckCount`): about a thousand
+ * rows for 5 000 rechecks. The same rows, summed over graders and weeks, are the grade sets alpha
+ * and AC1 are computed from (lib/recheck/team.ts `gradeSetsOf`), so the period's rechecks are
+ * scanned once for both.
  */
 export async function countRechecksByGraderAndWeek({ workspaceId, from, to, timeZone }: Scope & { from: string; to: string; timeZone: string }, tx: DbOrTx = db()) {
-  const { rows } = await tx.execute<{ grader_id: string; week: string; first_grade: Grade; recheck_grade: Grade; not_blind: boolean; count: number }>(sql`
-    SELECT r.first_grader_id AS grader_id, ${localWeek(timeZone)} AS week, r.first_grade, r.recheck_grade, r.not_blind, count(*)::int AS count
+  const { rows } = await tx.execute<{ grader_id: string; week: string; first_grade: Grade; recheck_grade: Grade; adjudicated_grade: Grade | null; not_blind: boolean; count: number }>(sql`
+    SELECT r.first_grader_id AS grader_id, ${localWeek(timeZone)} AS week, r.first_grade, r.recheck_grade, r.adjudicated_grade, r.not_blind, count(*)::int AS count
     FROM rechecks r
     WHERE ${submittedInPeriod(workspaceId, from, to, timeZone)}
-    GROUP BY 1, 2, 3, 4, 5`);
-  return rows.map((row) => ({ graderId: row.grader_id, week: row.week, firstGrade: row.first_grade, recheckGrade: row.recheck_grade, blind: !row.not_blind, count: row.count }));
+    GROUP BY 1, 2, 3, 4, 5, 6`);
+  return rows.map((row) => ({
+    graderId: row.grader_id,
+    week: row.week,
+    firstGrade: row.first_grade,
+    recheckGrade: row.recheck_grade,
+    adjudicatedGrade: row.adjudicated_grade,
+    blind: !row.not_blind,
+    count: row.count,
+  }));
 }
 
 /**
@@ -535,16 +546,6 @@ export async function sumClassIouByGraderAndWeek({ workspaceId, from, to, timeZo
     WHERE ${submittedInPeriod(workspaceId, from, to, timeZone)} AND NOT r.not_blind AND (c.value->>'unionPx')::float8 > 0
     GROUP BY 1, 2, 3`);
   return rows.map((row) => ({ graderId: row.grader_id, week: row.week, defect: row.defect, sum: Number(row.sum), n: row.n }));
-}
-
-/** The period's blind rechecks counted per grade set (first, recheck, adjudicated or null): at most 4 × 4 × 5 rows, for alpha and AC1. */
-export async function countRecheckGradeSets({ workspaceId, from, to, timeZone }: Scope & { from: string; to: string; timeZone: string }, tx: DbOrTx = db()) {
-  const { rows } = await tx.execute<{ first_grade: Grade; recheck_grade: Grade; adjudicated_grade: Grade | null; count: number }>(sql`
-    SELECT r.first_grade, r.recheck_grade, r.adjudicated_grade, count(*)::int AS count
-    FROM rechecks r
-    WHERE ${submittedInPeriod(workspaceId, from, to, timeZone)} AND NOT r.not_blind
-    GROUP BY 1, 2, 3`);
-  return rows.map((row) => ({ firstGrade: row.first_grade, recheckGrade: row.recheck_grade, adjudicatedGrade: row.adjudicated_grade, count: row.count }));
 }
 
 /**

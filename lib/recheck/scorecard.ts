@@ -44,7 +44,16 @@ export type ScorecardRecheck = {
 };
 export type GradedCount = { graderId: string; day: string; count: number };
 /** Rechecks of one grader's grades of one local week (`week`: its Monday), counted by grade pair and blind mark. */
-export type RecheckCount = { graderId: string; week: string; firstGrade: Grade; recheckGrade: Grade; blind: boolean; count: number };
+export type RecheckCount = {
+  graderId: string;
+  week: string;
+  firstGrade: Grade;
+  recheckGrade: Grade;
+  /** The adjudication's grade where there was one (not used here; alpha and AC1 read it, lib/recheck/team.ts `gradeSetsOf`). */
+  adjudicatedGrade?: Grade | null;
+  blind: boolean;
+  count: number;
+};
 /** Over one grader's blind rechecks of one local week where `defect` was in play (union > 0): the IoU summed, and how many. */
 export type ClassIouSum = { graderId: string; week: string; defect: string; sum: number; n: number };
 export type ScorecardInput = {

@@ -15,13 +15,13 @@ import "server-only";
  * - The 95 % intervals are the analytic ones of lib/agreement (Fleiss–Cohen–Everitt standard
  *   error for kappa, Wilson for shares), not a bootstrap.
  */
-import { countGradesByGraderAndDay, countRecheckGradeSets, countRechecksByGraderAndWeek, listWorkspaceUserNames, sumClassIouByGraderAndWeek } from "@/db/queries/rechecks";
+import { countGradesByGraderAndDay, countRechecksByGraderAndWeek, listWorkspaceUserNames, sumClassIouByGraderAndWeek } from "@/db/queries/rechecks";
 import type { SessionUser } from "@/lib/auth/require-user";
 import { localDate, nextPeriod, periodOfDate } from "@/lib/time/periods";
 import { recheckSettings } from "./recording";
 import type { ScorecardQuery } from "./schemas";
 import { buildScorecards } from "./scorecard";
-import { multiRaterAgreement } from "./team";
+import { gradeSetsOf, multiRaterAgreement } from "./team";
 
 const DAY_MS = 86_400_000;
 
@@ -40,19 +40,16 @@ export async function readScorecards(actor: Pick<SessionUser, "workspaceId">, qu
   const key = { workspaceId: actor.workspaceId, from, to, timeZone };
   // Counted in SQL (db/queries/rechecks.ts): hundreds of rows come back, not one per grade or recheck,
   // so the work here does not grow with the period's grades and rechecks.
-  const [graded, recheckCounts, classIouSums, gradeSets, names] = await Promise.all([
+  const [graded, recheckCounts, classIouSums, names] = await Promise.all([
     countGradesByGraderAndDay(key),
     countRechecksByGraderAndWeek(key),
     sumClassIouByGraderAndWeek(key),
-    countRecheckGradeSets(key),
     listWorkspaceUserNames(actor),
   ]);
   const cards = buildScorecards({ from, to, timeZone, graded, settings, recheckCounts, classIouSums });
   // Each counted grade set stands for `count` units graded alike (alpha and AC1 take the counts as weights).
-  const team = multiRaterAgreement(
-    gradeSets.map((set) => [set.firstGrade, set.recheckGrade, ...(set.adjudicatedGrade ? [set.adjudicatedGrade] : [])]),
-    { counts: gradeSets.map((set) => set.count) },
-  );
+  const { units, counts } = gradeSetsOf(recheckCounts);
+  const team = multiRaterAgreement(units, { counts });
   return {
     ...cards,
     settings,

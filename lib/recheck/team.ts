@@ -54,3 +54,25 @@ export function multiRaterAgreement(units: readonly (readonly Grade[])[], option
     ac1: gwetAc1Units(rated, { categories: GRADES, weights }),
   };
 }
+
+/** Rechecks counted alike (lib/recheck/scorecard.ts `RecheckCount`, read per grader and week). */
+type CountedRecheck = { firstGrade: Grade; recheckGrade: Grade; adjudicatedGrade?: Grade | null; blind: boolean; count: number };
+
+/**
+ * The blind rechecks' grade sets (first grade, recheck grade, and the adjudicated grade where
+ * there was one) with how many units share each, summed over graders and weeks: the `units` and
+ * `counts` that `multiRaterAgreement` takes. Not-blind rechecks are left out, as in the scorecards.
+ */
+export function gradeSetsOf(rows: readonly CountedRecheck[]): { units: Grade[][]; counts: number[] } {
+  const sets = new Map<string, { unit: Grade[]; count: number }>();
+  for (const row of rows) {
+    if (!row.blind) continue;
+    const unit = [row.firstGrade, row.recheckGrade, ...(row.adjudicatedGrade ? [row.adjudicatedGrade] : [])];
+    const key = unit.join("|");
+    const set = sets.get(key);
+    if (set) set.count += row.count;
+    else sets.set(key, { unit, count: row.count });
+  }
+  const list = [...sets.values()];
+  return { units: list.map((set) => set.unit), counts: list.map((set) => set.count) };
+}
