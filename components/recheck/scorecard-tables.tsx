@@ -52,7 +52,7 @@ export function GraderTable({
       <td className={`${td} whitespace-nowrap tabular-nums`}>{formatKappaInterval(counts.figures.kappa)}</td>
       <td className={td}>{bandLabel(counts.figures.kappa)}</td>
       <td className={`${td} whitespace-nowrap tabular-nums`}>{formatKappaInterval(counts.figures.quadraticKappa)}</td>
-      <td className={`${td} min-w-64`} data-testid={`drift-${key}`}>
+      <td className={`${td} min-w-48`} data-testid={`drift-${key}`}>
         {drift ? drift.flagged ? <span className="font-medium text-fault-700">⚑ {driftText(drift)}</span> : "No" : "—"}
       </td>
     </tr>
