@@ -4,7 +4,9 @@ import { servedOverHttps, sessionCookieName } from "@/lib/auth/cookies";
 import { env } from "@/lib/env";
 import { objectStoreOrigin, pageContentSecurityPolicy, staticSecurityHeaders } from "@/lib/http/security-headers";
 
-const PUBLIC_PAGES = ["/sign-in", "/sign-up", "/forgot-password", "/set-password"];
+// "/verify": a certificate's verification page, opened by a buyer's phone from the QR code;
+// "/evidence": an evidence pack's link, opened by the supplier from the e-mail.
+const PUBLIC_PAGES = ["/sign-in", "/sign-up", "/forgot-password", "/set-password", "/verify", "/evidence"];
 
 let cached: ReturnType<typeof readSettings> | undefined;
 const settings = () => (cached ??= readSettings());

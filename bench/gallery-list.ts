@@ -1,6 +1,7 @@
 /**
  * The Gallery list API under load, against the RUNNING production app (`npm start` first; loopback
- * only). Creates (or reuses) a workspace "Gallery bench (generated)" in the demo database with
+ * only), and only when it serves this tree's production build (`next build` output in .next, as users
+ * get; a `next dev` server is refused). Creates (or reuses) a workspace "Gallery bench (generated)" in the demo database with
  * 5 000 published gallery items (each with a Surface and three defect regions, as a curated
  * example has), then 10 keep-alive connections walk the whole list in keyset pages of 48 (the
  * screen's page), unfiltered and with a part type + class + grade filter, as an inspector (published
@@ -8,10 +9,13 @@
  * Without a running app it says so and measures nothing.
  */
 import crypto from "node:crypto";
+import fs from "node:fs";
+import path from "node:path";
 import { hash } from "@node-rs/argon2";
 import pg from "pg";
 import { benchClient, signIn as signInAs } from "../scripts/lib/bench-http";
-import { databaseUrl, demoSettings } from "../scripts/lib/settings";
+import { sourceHash } from "../scripts/lib/build";
+import { databaseUrl, demoSettings, projectRoot } from "../scripts/lib/settings";
 
 const settings = demoSettings();
 const BASE = process.env.BENCH_BASE_URL ?? settings.app.url;
@@ -194,6 +198,22 @@ async function walk(cookie: string, query: string) {
   return { latencies, perWalk, seconds: (performance.now() - started) / 1000, bytesPerPage: bytes / latencies.length };
 }
 
+/**
+ * The build id of this tree's production build when the app at BASE serves it: only a server of
+ * that build answers its `_next/static/<build id>/_buildManifest.js` (a dev server has no such
+ * file). Says whether the build is older than the sources.
+ */
+async function servedProductionBuild(): Promise<{ id: string; current: boolean } | null> {
+  const distDir = path.join(projectRoot, process.env.NEXT_DIST_DIR ?? ".next");
+  const idFile = path.join(distDir, "BUILD_ID");
+  if (!fs.existsSync(idFile)) return null;
+  const id = fs.readFileSync(idFile, "utf8").trim();
+  const res = await fetch(`${BASE}/_next/static/${id}/_buildManifest.js`).catch(() => null);
+  if (!res?.ok) return null;
+  const marker = path.join(distDir, "partproof-build.sha256");
+  return { id, current: fs.existsSync(marker) && fs.readFileSync(marker, "utf8") === sourceHash() };
+}
+
 async function main() {
   const health = await fetch(`${BASE}/api/health`)
     .then((r) => r.json())
@@ -202,6 +222,12 @@ async function main() {
     console.log(`No Partproof app answers at ${BASE}: not measured. Start it with \`npm start\` (or set BENCH_BASE_URL), then run \`npm run bench -- gallery-list\`.`);
     return;
   }
+  const build = await servedProductionBuild();
+  if (!build) {
+    console.log(`The app at ${BASE} does not serve this tree's production build (.next): not measured. Start it with \`npm start\` (it builds when the sources changed), not \`npm run dev\`.`);
+    return;
+  }
+  console.log(`Against the production build ${build.id}${build.current ? "" : " (OLDER than the sources: restart `npm start` to rebuild)"}.`);
   console.log(`Setting up ${ITEMS.toLocaleString("en")} gallery items in "Gallery bench (generated)" …`);
   const { partTypeId } = await setUp();
   const [inspector, trainer] = await Promise.all(["bench-inspector@gallery-bench.example", "bench-trainer@gallery-bench.example"].map(signIn));

@@ -5,6 +5,7 @@
 import { sql } from "drizzle-orm";
 import { closeDb, db } from "./client";
 import { seedCalibration } from "./seed/calibration";
+import { seedEvidence } from "./seed/evidence";
 import { seedGallery } from "./seed/gallery";
 import { seedLots } from "./seed/lots";
 import { seedPartTypes } from "./seed/part-types";
@@ -27,6 +28,8 @@ export async function seedDemo() {
   const lots = await seedLots(db(), people);
   // Must run after the part types are seeded (it publishes example rubrics for the seeded ones).
   const rubrics = await seedRubrics(db());
+  // Evidence packs and claims on the decided lots the supplier was told about.
+  const evidence = await seedEvidence(people);
   // Last: photographs the units the steps above created, through the upload pipeline.
   const photos = await seedPhotos();
   // Needs the published rubrics (each example's grade is what its rubric says of its regions).
@@ -37,7 +40,19 @@ export async function seedDemo() {
   const rechecks = await seedRechecks("vellmoor", photos.planted);
   // So a newcomer's Bench shows learned ghosts (the demo has too few marked regions to train on).
   const suggestionModel = await seedSuggestionModel();
-  return { seeded: true as const, people, partTypes, lots, rubrics, photos: { photos: photos.photos, units: photos.units, reused: photos.reused }, gallery, calibration, rechecks, suggestionModel };
+  return {
+    seeded: true as const,
+    people,
+    partTypes,
+    lots,
+    rubrics,
+    evidence,
+    photos: { photos: photos.photos, units: photos.units, reused: photos.reused },
+    gallery,
+    calibration,
+    rechecks,
+    suggestionModel,
+  };
 }
 
 if (import.meta.url === `file://${process.argv[1]}`) {

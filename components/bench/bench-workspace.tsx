@@ -1,6 +1,7 @@
 "use client";
 
 import { useQuery, useQueryClient } from "@tanstack/react-query";
+import { UnitCertificates } from "@/components/certificates/unit-certificates";
 import { useMemo, useState } from "react";
 import type { AllowedDefect } from "@/components/annotate/types";
 import { AddToGallery } from "@/components/gallery/add-to-gallery";
@@ -49,6 +50,8 @@ type BenchWorkspaceProps = {
   initialPhotoId: string | null;
   /** May add a graded unit's photo to the Gallery (trainers and leads). */
   canPromote: boolean;
+  /** May issue and revoke condition certificates (leads). */
+  canCertify?: boolean;
 };
 
 const BANNER_TONE = {
@@ -64,7 +67,7 @@ const BANNER_TONE = {
  * photos) in a column that folds. Landscape screens put the panels beside the canvas, portrait
  * ones below it. Owns the selected photo and the tool in hand; the panels own their own data.
  */
-export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersions, initialPhotoId, canPromote }: BenchWorkspaceProps) {
+export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersions, initialPhotoId, canPromote, canCertify = false }: BenchWorkspaceProps) {
   const unitId = initial.unit.id;
   const queryClient = useQueryClient();
   const { data: view } = useUnit(unitId, initial);
@@ -168,6 +171,7 @@ export function BenchWorkspace({ initial, me, canCorrect, partType, rubricVersio
             framed={false}
           />
           <GradeHistory unitId={unitId} framed={false} />
+          {canCertify && <UnitCertificates unitId={unitId} graded={current !== null && current !== undefined} />}
           <GradeWhatIf unitId={unitId} versions={rubricVersions} framed={false} />
         </div>
       ),

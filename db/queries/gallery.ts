@@ -131,41 +131,46 @@ export type GalleryListKey = { createdAt: string; id: string };
 /** A status as a literal: a generic plan cannot read a parameter's value, and these are fixed words. */
 const STATUS_LITERALS: Record<GalleryStatus, SQL> = { draft: sql.raw("'draft'"), published: sql.raw("'published'"), retired: sql.raw("'retired'") };
 
+/** A listed item: its card as JSON text (the GalleryCardDto, see galleryCardJson) and its keyset. */
 type ListRow = {
   id: string;
-  status: GalleryStatus;
-  kind: GalleryKind;
-  part_type_id: string;
-  part_type_name: string;
-  view_key: string;
-  grade: Grade;
-  defect_classes: string[];
-  caption: string;
-  regions: GalleryCardRow["regions"];
-  revision: number;
-  created_at: Date;
-  updated_at: Date;
   /** created_at to the microsecond as ISO text: a JS Date keeps only milliseconds, and a cursor must not skip rows. */
   cursor_at: string;
-  photo_id: string;
-  photo_status: GalleryCardRow["photo"]["status"];
-  width: number | null;
-  height: number | null;
-  preview_width: number | null;
-  preview_height: number | null;
-  thumbnail_width: number | null;
-  thumbnail_height: number | null;
+  card: string;
 };
 
+/** A timestamp as JavaScript's toISOString writes it (UTC, milliseconds, "Z"). */
+const isoMillis = (column: SQL) => sql`to_char(${column} AT TIME ZONE 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.MS"Z"')`;
+const sizeJson = (width: SQL, height: SQL) => sql`CASE WHEN ${width} IS NOT NULL AND ${height} IS NOT NULL THEN json_build_object('width', ${width}, 'height', ${height}) END`;
+
 /**
- * A page of items, newest first; `after` is the last row of the previous page (keyset). One extra
- * row tells whether more follow. The hot read of the Gallery, so a prepared statement (planned
- * once per connection, see executePrepared) of the queue list's shape: the page is cut from
- * gallery_items alone by walking gallery_items_list_idx in its order — the keyset a row
+ * The card of a listed item built by PostgreSQL, in exactly the shape toGalleryCardDto
+ * (lib/gallery/dto.ts) makes of a row — tests/integration/gallery-browse.test.ts compares the two
+ * for every listed item. The list is the Gallery's hot read: parsing 48 cards' region sets into
+ * objects and writing them out again cost the app about half its CPU per page (bench/gallery-list.ts),
+ * so the list's cards go from the database to the answer as text.
+ */
+const galleryCardJson = sql`json_build_object(
+  'id', g.id, 'status', g.status, 'kind', g.kind,
+  'partType', json_build_object('id', g.part_type_id, 'name', pt.name),
+  'viewKey', g.view_key, 'grade', g.grade, 'defectClasses', g.defect_classes, 'caption', g.caption, 'regions', g.regions,
+  'revision', g.revision, 'createdAt', ${isoMillis(sql`g.created_at`)}, 'updatedAt', ${isoMillis(sql`g.updated_at`)},
+  'photo', json_build_object(
+    'id', p.id, 'ready', p.status = 'ready',
+    'original', ${sizeJson(sql`p.width`, sql`p.height`)},
+    'preview', ${sizeJson(sql`p.preview_width`, sql`p.preview_height`)},
+    'thumbnail', ${sizeJson(sql`p.thumbnail_width`, sql`p.thumbnail_height`)},
+    'urls', CASE WHEN p.status = 'ready' THEN json_build_object('thumbnail', '/api/photos/' || p.id || '/thumbnail', 'preview', '/api/photos/' || p.id || '/preview') END))::text`;
+
+/**
+ * A page of items, newest first, as card JSON texts; `after` is the last row of the previous page
+ * (keyset). One extra row tells whether more follow. The hot read of the Gallery, so a prepared
+ * statement (planned once per connection, see executePrepared) of the queue list's shape: the page
+ * is cut from gallery_items alone by walking gallery_items_list_idx in its order — the keyset a row
  * comparison, an index condition; the ORDER BY with the index's NULLS LAST, or PostgreSQL sorts
  * every item of the workspace for each page — and only those rows are joined.
  */
-export async function listGalleryItems({
+export async function listGalleryCards({
   workspaceId,
   readerId,
   filters,
@@ -177,7 +182,7 @@ export async function listGalleryItems({
   filters: GalleryListFilters;
   after?: GalleryListKey;
   limit: number;
-}) {
+}): Promise<{ id: string; cursorAt: string; card: string }[]> {
   const statuses = sql.join(
     filters.statuses.map((s) => STATUS_LITERALS[s]),
     sql`, `,
@@ -199,39 +204,12 @@ export async function listGalleryItems({
       ORDER BY g.created_at DESC NULLS LAST, g.id DESC NULLS LAST
       LIMIT ${limit + 1}
     )
-    SELECT g.id, g.status, g.kind, g.part_type_id, pt.name AS part_type_name, g.view_key, g.grade, g.defect_classes, g.caption, g.regions,
-           g.revision, g.created_at, g.updated_at, to_char(g.created_at AT TIME ZONE 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.US"Z"') AS cursor_at,
-           p.id AS photo_id, p.status AS photo_status, p.width, p.height, p.preview_width, p.preview_height, p.thumbnail_width, p.thumbnail_height
+    SELECT g.id, to_char(g.created_at AT TIME ZONE 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.US"Z"') AS cursor_at, ${galleryCardJson} AS card
     FROM page g
     JOIN photos p ON p.workspace_id = g.workspace_id AND p.id = g.photo_id
     JOIN part_types pt ON pt.workspace_id = g.workspace_id AND pt.id = g.part_type_id
     ORDER BY g.created_at DESC NULLS LAST, g.id DESC NULLS LAST`);
-  return rows.map((r) => ({
-    id: r.id,
-    status: r.status,
-    kind: r.kind,
-    partTypeId: r.part_type_id,
-    partTypeName: r.part_type_name,
-    viewKey: r.view_key,
-    grade: r.grade,
-    defectClasses: r.defect_classes,
-    caption: r.caption,
-    regions: r.regions,
-    revision: r.revision,
-    createdAt: r.created_at,
-    updatedAt: r.updated_at,
-    cursorAt: r.cursor_at,
-    photo: {
-      id: r.photo_id,
-      status: r.photo_status,
-      width: r.width,
-      height: r.height,
-      previewWidth: r.preview_width,
-      previewHeight: r.preview_height,
-      thumbnailWidth: r.thumbnail_width,
-      thumbnailHeight: r.thumbnail_height,
-    },
-  })) satisfies (GalleryCardRow & { cursorAt: string })[];
+  return rows.map((r) => ({ id: r.id, cursorAt: r.cursor_at, card: r.card }));
 }
 
 /**

@@ -5,5 +5,7 @@ export * from "./regions";
 export * from "./grading";
 export * from "./gallery";
 export * from "./suggestions";
+export * from "./certificates";
 export * from "./calibration";
 export * from "./recheck";
+export * from "./evidence";

@@ -75,6 +75,8 @@ export const PERMISSIONS = {
   "recheck.adjudicate": { roles: ["auditor"], what: "settle a disagreement between a grade and its recheck" },
   "reports.read": { roles: ["auditor"], what: "read reports, scorecards and exports" },
   "evidence.send": { roles: LEADS, what: "send a supplier evidence pack and follow its claim" },
+  /** A certificate vouches to a buyer for a unit's condition in the workspace's name: leads only. */
+  "certificates.manage": { roles: LEADS, what: "issue, download and revoke condition certificates of graded units" },
 } as const satisfies Record<string, Grant>;
 
 export type Permission = keyof typeof PERMISSIONS;

@@ -6,7 +6,7 @@ import "server-only";
  * The items of a calibration set someone is assigned and has not submitted are kept from them the
  * same way (the set's key; db/queries/gallery.ts notKeyFor).
  */
-import { getGalleryItem, getSourceUnitLabel, listGalleryItems, listReferenceItems, type GalleryListFilters } from "@/db/queries/gallery";
+import { getGalleryItem, getSourceUnitLabel, listGalleryCards, listReferenceItems, type GalleryListFilters } from "@/db/queries/gallery";
 import { getGradingPartType } from "@/db/queries/rubrics";
 import type { SessionUser } from "@/lib/auth/require-user";
 import { AppError, notFound } from "@/lib/errors";
@@ -29,7 +29,12 @@ export function listedStatuses(reader: Reader, status: GalleryListQuery["status"
 
 export type GalleryPage = { items: GalleryCardDto[]; nextCursor: string | null };
 
-export async function listGallery(reader: Reader, query: GalleryListQuery): Promise<GalleryPage> {
+/**
+ * A page of the list as the API answers it, as JSON text ({ items, nextCursor }, a GalleryPage):
+ * the cards come as JSON from PostgreSQL (db/queries/gallery.ts galleryCardJson, the shape of
+ * toGalleryCardDto) and are joined here without being parsed and written out again.
+ */
+export async function listGalleryJson(reader: Reader, query: GalleryListQuery): Promise<string> {
   const filters: GalleryListFilters = {
     statuses: listedStatuses(reader, query.status),
     partTypeId: query.partType,
@@ -40,13 +45,16 @@ export async function listGallery(reader: Reader, query: GalleryListQuery): Prom
     hideUnitsAwaitingRecheck: hidesUnitsAwaitingRecheck(reader.roles),
   };
   const after = query.cursor ? decodeGalleryCursor(query.cursor) : undefined;
-  const rows = await listGalleryItems({ workspaceId: reader.workspaceId, readerId: reader.id, filters, after, limit: query.limit });
+  const rows = await listGalleryCards({ workspaceId: reader.workspaceId, readerId: reader.id, filters, after, limit: query.limit });
   const page = rows.slice(0, query.limit);
   const last = page.at(-1);
-  return {
-    items: page.map(toGalleryCardDto),
-    nextCursor: rows.length > query.limit && last ? encodeGalleryCursor({ createdAt: last.cursorAt, id: last.id }) : null,
-  };
+  const nextCursor = rows.length > query.limit && last ? encodeGalleryCursor({ createdAt: last.cursorAt, id: last.id }) : null;
+  return `{"items":[${page.map((row) => row.card).join(",")}],"nextCursor":${JSON.stringify(nextCursor)}}`;
+}
+
+/** The same page as objects, for the server-rendered screens. */
+export async function listGallery(reader: Reader, query: GalleryListQuery): Promise<GalleryPage> {
+  return JSON.parse(await listGalleryJson(reader, query)) as GalleryPage;
 }
 
 /** The item as its page shows it; 404 when the reader may not see it. */

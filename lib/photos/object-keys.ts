@@ -7,6 +7,8 @@
  *   uploads/<workspace>/<unit | gallery>/<photo>         staging: the only key a browser gets a PUT URL for
  *   photos/<workspace>/<unit | gallery>/<photo>/original  the accepted bytes, copied by the server
  *   photos/<workspace>/<unit | gallery>/<photo>/preview.webp, …/thumbnail.webp
+ *   evidence/<workspace>/<evidence pack>/<n>              file n of a pack sent by evidence link
+ *                                                         (the orphan sweep does not read this prefix)
  */
 export const STAGING_PREFIX = "uploads/";
 export const PHOTOS_PREFIX = "photos/";
@@ -70,4 +72,13 @@ export function parsePhotoKey(key: string): (PhotoKeyOwner & { kind: PhotoObject
     if (owner && kind) return { ...owner, kind };
   }
   return null;
+}
+
+export const EVIDENCE_PREFIX = "evidence/";
+
+/** File `index` (0-based, in the pack's attachment order) of an evidence pack sent as a link. */
+export function evidenceFileKey({ workspaceId, packId, index }: { workspaceId: string; packId: string; index: number }): string {
+  checked({ workspaceId, unitId: packId, photoId: packId });
+  if (!Number.isInteger(index) || index < 0) throw new Error(`evidence file index must be a whole number >= 0 (got ${index})`);
+  return `${EVIDENCE_PREFIX}${workspaceId}/${packId}/${index}`;
 }

@@ -13,6 +13,8 @@ export const unitKeys = {
   /** The latest measurement, or a background job's (`jobId`); without a job id, the prefix of both. */
   measurement: (unitId: string, jobId?: string | null) => (jobId === undefined ? ([...unitKeys.one(unitId), "measurement"] as const) : ([...unitKeys.one(unitId), "measurement", jobId] as const)),
   grades: (unitId: string) => [...unitKeys.one(unitId), "grades"] as const,
+  /** The unit's condition certificates (leads). */
+  certificates: (unitId: string) => [...unitKeys.one(unitId), "certificates"] as const,
   /** The stored measurement graded again under rubric `version`; without a version, the prefix of all. */
   gradePreview: (unitId: string, version?: number | null) =>
     version === undefined ? ([...unitKeys.one(unitId), "grade-preview"] as const) : ([...unitKeys.one(unitId), "grade-preview", version] as const),

@@ -136,10 +136,25 @@ export async function renderCertificatePdf(data: CertificateData, options: Certi
   const thumbMaxHeight = 150;
   views.forEach((view, i) => {
     const x = left + i * (thumbWidth + gap);
-    // The label goes right under the picture as drawn (fit keeps the aspect ratio).
-    const size = imageSize(doc, view.thumbnail);
-    const drawnHeight = Math.min(thumbMaxHeight, (size.height * thumbWidth) / size.width);
-    doc.image(view.thumbnail, x, y + 12, { fit: [thumbWidth, thumbMaxHeight], align: "center" });
+    // The label goes right under the picture as drawn (fit keeps the aspect ratio). A photo the
+    // store could not give back still has its place and label (its hash is on the page).
+    let drawnHeight = 90;
+    if (view.thumbnail.length > 0) {
+      const size = imageSize(doc, view.thumbnail);
+      drawnHeight = Math.min(thumbMaxHeight, (size.height * thumbWidth) / size.width);
+      doc.image(view.thumbnail, x, y + 12, { fit: [thumbWidth, thumbMaxHeight], align: "center" });
+    } else {
+      doc
+        .rect(x, y + 12, thumbWidth, drawnHeight)
+        .lineWidth(0.5)
+        .strokeColor(MUTED)
+        .stroke();
+      doc
+        .font(PDF_FONT.regular)
+        .fontSize(8)
+        .fillColor(MUTED)
+        .text("Photo not available", x, y + 12 + drawnHeight / 2 - 4, { width: thumbWidth, align: "center", lineBreak: false });
+    }
     doc
       .font(PDF_FONT.regular)
       .fontSize(8)

@@ -56,7 +56,7 @@ test("an inspector uploads 10 photos at once, watches the progress, and sees eac
 
   // A slow uplink, so the progress can be watched (Chromium's own network throttling).
   const cdp = await page.context().newCDPSession(page);
-  await cdp.send("Network.emulateNetworkConditions", { offline: false, latency: 20, downloadThroughput: -1, uploadThroughput: 1_500_000 });
+  await cdp.send("Network.emulateNetworkConditions", { offline: false, latency: 20, downloadThroughput: -1, uploadThroughput: 1_000_000 });
   const watching = watchBatchProgress(page);
   await page.getByRole("button", { name: "Upload 10 photos" }).click();
   await expect(page.getByRole("progressbar")).toHaveCount(11); // one per file and one for the batch

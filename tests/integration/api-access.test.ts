@@ -4,6 +4,8 @@ import { ROLES, type Role } from "@/lib/auth/roles";
 import { api, signIn, type Session } from "../support/http";
 import { createUser, TEST_PASSWORD, uniqueEmail, workspaceBySlug } from "../support/db";
 import { calibrationFixtureIds } from "../support/calibration-access";
+import { certificateFixtureIds } from "../support/certificate-access";
+import { evidenceFixtureIds } from "../support/evidence-access";
 import { galleryFixtureIds } from "../support/gallery-access";
 import { gradingFixtureIds } from "../support/grading-access";
 import { lotFixtureIds } from "../support/lot-access";
@@ -33,12 +35,14 @@ async function fixtureIds(lead: Session): Promise<Ids> {
   const emails = await api<{ emails: { id: string }[] }>(lead, "GET", "/api/outbox");
   const people = await api<{ people: { id: string; roles: string[] }[] }>(lead, "GET", "/api/people");
   const someone = people.body.people.find((p) => !p.roles.includes("lead"))!;
-  return {
+  const grading = await gradingFixtureIds(lead);
+  const ids: Ids = {
     invitedPersonId: invited.body.person.id,
     personId: someone.id,
     supplierId: supplier.body.supplier.id,
     emailId: emails.body.emails[0].id,
-    ...(await gradingFixtureIds(lead)),
+    ...grading,
+    ...(await certificateFixtureIds(lead, grading.unitId)),
     ...(await galleryFixtureIds(lead)),
     ...(await calibrationFixtureIds(lead)),
     ...(await queueFixtureIds(lead)),
@@ -48,6 +52,7 @@ async function fixtureIds(lead: Session): Promise<Ids> {
     ...(await suggestionFixtureIds(lead)),
     ...(await lotFixtureIds(lead, supplier.body.supplier.id)),
   };
+  return { ...ids, ...(await evidenceFixtureIds(lead, { lotId: ids.lotId, supplierId: ids.supplierId })) };
 }
 
 beforeAll(async () => {

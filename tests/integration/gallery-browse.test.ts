@@ -3,7 +3,7 @@
  * editors, the Bench's reference order, the measured numbers of an item, and uploading a photo
  * straight into the gallery through the presigned pipeline.
  */
-import { eq } from "drizzle-orm";
+import { eq, sql } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db/client";
 import { galleryItems, photos } from "@/db/schema";
@@ -70,6 +70,29 @@ describe("the list", () => {
       cursor = page.body.nextCursor;
     }
     expect(seen).toEqual([ids.backView, ids.scratchB, ids.dentB, ids.scratchC, ids.normal]);
+  });
+
+  it("lists each item exactly as its own page describes it (the list's cards are written by PostgreSQL, the page's by toGalleryCardDto)", async () => {
+    const own = await createGradedPhoto(await signIn("lead@vellmoor.example"), { extraPhotos: 2 });
+    const [ready, waiting] = own.extra;
+    const base = { partTypeId: own.partType.id };
+    const published = await insertItem(own.owner, { ...base, photoId: ready.id, status: "published", regions: SCRATCHED, grade: "B" });
+    const draft = await insertItem(own.owner, { ...base, photoId: waiting.id, kind: "normal", grade: "A" });
+    // The edges of the two ways of writing a card: a photo still processing (no sizes, no URLs) and
+    // a time whose microseconds a JavaScript Date cuts to milliseconds (.999999 → .999, never rounded up).
+    await db().update(photos).set({ status: "processing", previewWidth: null, previewHeight: null, thumbnailWidth: null, thumbnailHeight: null }).where(eq(photos.id, waiting.id));
+    await db().execute(sql`UPDATE gallery_items SET updated_at = '2026-11-30 23:59:59.999999+00' WHERE id = ${published.id}`);
+    const listed = (await api<Page>(trainer, "GET", `/api/gallery?partType=${own.partType.id}`)).body.items;
+    expect(listed.map((i) => i.id)).toEqual([draft.id, published.id]);
+    for (const card of listed) {
+      const page = await api<{ item: GalleryItemDto }>(trainer, "GET", `/api/gallery/${card.id}`);
+      expect(page.status).toBe(200);
+      const { rubricVersion: _v, source: _s, createdByName: _c, publishedAt: _p, retiredAt: _r, ...pageCard } = page.body.item;
+      expect(card).toEqual(pageCard);
+    }
+    expect(listed[1].updatedAt).toBe("2026-11-30T23:59:59.999Z");
+    expect(listed[0].photo).toMatchObject({ ready: false, urls: null, preview: null, thumbnail: null });
+    expect(listed[1].photo.urls).toEqual({ thumbnail: `/api/photos/${ready.id}/thumbnail`, preview: `/api/photos/${ready.id}/preview` });
   });
 
   it("answers 400 with a sentence to bad filters and a forged cursor", async () => {

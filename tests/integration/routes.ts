@@ -176,7 +176,23 @@ export const ROUTES: RouteRow[] = [
   { method: "GET", path: "/api/lots/:lotId/units", permission: "lots.read", allowedStatus: 200 },
   // Reports (issue 17): the lot report PDF and the CSV exports (a filter naming another workspace's supplier is a 404).
   { method: "GET", path: "/api/lots/:lotId/report", permission: "reports.read", allowedStatus: 200 },
+  // Condition certificates: the fixture unit is graded; issuing answers 201, or 409 while its serial is missing.
+  { method: "GET", path: "/api/units/:unitId/certificates", permission: "certificates.manage", allowedStatus: 200 },
+  { method: "POST", path: "/api/units/:unitId/certificates", permission: "certificates.manage", body: () => ({}), allowedStatus: [201, 409] },
+  // The fixture certificate (tests/support/certificate-access.ts); revoking it twice answers 409.
+  { method: "GET", path: "/api/certificates/:certificateId/pdf", permission: "certificates.manage", allowedStatus: 200 },
+  { method: "POST", path: "/api/certificates/:certificateId/revoke", permission: "certificates.manage", body: () => ({ reason: "Route check." }), allowedStatus: [200, 409] },
   { method: "GET", path: "/api/reports/export?kind=defects&supplierId=:supplierId", permission: "reports.read", allowedStatus: 200 },
+  // Evidence packs and claims: the fixture lot is open, so preview and send answer 409 (nothing is sent); evidence.test.ts covers the rest.
+  { method: "GET", path: "/api/lots/:lotId/evidence", permission: "evidence.send", allowedStatus: 200 },
+  { method: "POST", path: "/api/lots/:lotId/evidence/preview", permission: "evidence.send", body: () => ({ subject: "Lot {{lot}}", body: "Route check." }), allowedStatus: 409 },
+  { method: "POST", path: "/api/lots/:lotId/evidence", permission: "evidence.send", body: () => ({ subject: "Lot {{lot}}", body: "Route check." }), allowedStatus: 409 },
+  { method: "GET", path: "/api/suppliers/:supplierId/evidence", permission: "evidence.send", allowedStatus: 200 },
+  // The fixture pack (tests/support/evidence-access.ts): its claim at version 1 moves once (a later caller's version is stale: 409); its link is withdrawn once (then 409).
+  { method: "PATCH", path: "/api/claims/:claimId", permission: "evidence.send", body: () => ({ status: "closed", note: "Route check.", version: 1 }), allowedStatus: [200, 409] },
+  { method: "POST", path: "/api/evidence-packs/:evidencePackId/revoke", permission: "evidence.send", body: () => ({}), allowedStatus: [200, 409] },
+  // Public: a file behind an evidence link; a token that is not one gets the plain refusal (404). evidence-link.test.ts opens real ones.
+  { method: "GET", path: "/api/evidence-links/:evidenceLinkToken?file=0", permission: "public", allowedStatus: 404 },
   { method: "POST", path: "/api/lots/:emptyLotId/units", permission: "lots.manage", body: () => ({ source: "placeholders" }), allowedStatus: 201 },
   // The fixture battery lot has a swollen cell (critical, Re 1): rejected, so it may be returned.
   {

@@ -14,6 +14,7 @@ import { screenByHref } from "@/lib/nav";
 import { EXPORT_KINDS, EXPORT_LABELS, exportHref, REPORT_PAGE_KEYS, reportAllowed, reportParamsSchema, type ReportFilter, type ReportParams } from "@/lib/reports/filters";
 import { loadGradeDistribution, loadSupplierScorecards, loadThroughput } from "@/lib/reports/overview";
 import { GRADE_CAUTION } from "@/lib/reports/format";
+import { loadOpenClaimCounts } from "@/lib/reports/supplier-follow-up";
 import { listParamsSearch, readListParams, type RawSearchParams } from "@/lib/url-state/list-params";
 
 const screen = screenByHref("/reports")!;
@@ -27,7 +28,8 @@ function withoutEmpty(raw: Record<string, string | string[] | undefined>): RawSe
 }
 
 async function Scorecards({ scope, classLabels, supplierNames }: { scope: Scope; classLabels: Record<string, string>; supplierNames: Map<string, string> }) {
-  return <ReportScorecards scorecards={await loadSupplierScorecards(scope, classLabels)} supplierNames={supplierNames} />;
+  const [scorecards, openClaims] = await Promise.all([loadSupplierScorecards(scope, classLabels), loadOpenClaimCounts({ workspaceId: scope.workspaceId })]);
+  return <ReportScorecards scorecards={scorecards} supplierNames={supplierNames} openClaims={openClaims} />;
 }
 
 async function Grades({ scope, period, partTypeNames }: { scope: Scope; period: ReportParams["period"]; partTypeNames: Map<string, string> }) {

@@ -59,6 +59,16 @@ describe("renderCertificatePdf", { timeout: 30_000 }, () => {
     expect(text).toContain("Reject");
   });
 
+  it("keeps the place and label of a view whose photo could not be read (an empty thumbnail)", async () => {
+    const data = certificateFixture(thumbnail);
+    const views = [{ ...data.views[0], label: "Lens side", thumbnail: Buffer.alloc(0) }, ...data.views.slice(1)];
+    const pages = await pdfText(await renderCertificatePdf({ ...data, views }));
+    expect(pages).toHaveLength(1);
+    const text = flatText(pages);
+    expect(text).toContain("Photo not available");
+    expect(text).toContain("Lens side");
+  });
+
   it("uses the workspace's time zone when given", async () => {
     const text = flatText(await pdfText(await renderCertificatePdf(certificateFixture(thumbnail), { timeZone: "Europe/Oslo" })));
     expect(text).toContain("Issued 2026-12-01 11:30 Europe/Oslo");

@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { InspectionSeverityBadge, VerdictBadge } from "@/components/lots/badges";
+import { EvidencePanel } from "@/components/evidence/evidence-panel";
 import { DispositionForm } from "@/components/lots/disposition-form";
 import { LotUnitsList } from "@/components/lots/lot-units-list";
 import { CountingNote, PlanTable } from "@/components/lots/plan-table";
@@ -125,6 +126,8 @@ export default async function LotPage(props: PageProps<"/lots/[id]">) {
           <p className="text-sm text-gauge-700">Verdict reached ({verdict.verdict}); a QC lead records the disposition.</p>
         )}
       </section>
+
+      {lot.status === "decided" && can(user, "evidence.send") && <EvidencePanel lotId={id} />}
 
       <section className="space-y-3" aria-labelledby="units-title">
         <h2 id="units-title" className="text-lg font-semibold">

@@ -2,7 +2,9 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { getSupplier } from "@/db/queries/suppliers";
+import { SupplierEvidence } from "@/components/evidence/supplier-evidence";
 import { SupplierForm } from "@/components/suppliers/supplier-form";
+import { SupplierScorecardSection } from "@/components/suppliers/supplier-scorecard";
 import { requirePageUser } from "@/lib/auth/require-user";
 import { pageIdOrNotFound } from "@/lib/http/page-params";
 import { can } from "@/lib/auth/permissions";
@@ -16,7 +18,7 @@ export default async function SupplierPage(props: PageProps<"/suppliers/[id]">) 
   const supplier = await getSupplier({ workspaceId: user.workspaceId, supplierId: id });
   if (!supplier) notFound();
   return (
-    <div className="max-w-4xl space-y-6">
+    <div className="max-w-6xl space-y-6">
       <Link href="/suppliers" className="text-sm text-gauge-600 underline">
         ← Suppliers
       </Link>
@@ -28,6 +30,8 @@ export default async function SupplierPage(props: PageProps<"/suppliers/[id]">) 
         </p>
         {supplier.notes && <p className="mt-2 whitespace-pre-line text-sm">{supplier.notes}</p>}
       </div>
+      {can(user, "reports.read") && <SupplierScorecardSection workspaceId={user.workspaceId} supplierId={supplier.id} timeZone={user.timeZone} />}
+      {can(user, "evidence.send") && <SupplierEvidence supplierId={supplier.id} />}
       {can(user, "suppliers.edit") && (
         <SupplierForm
           supplierId={supplier.id}

@@ -36,6 +36,7 @@ export default async function UnitPage(props: PageProps<"/units/[id]">) {
       initial={initial}
       me={me}
       canCorrect={can(user, "grades.override")}
+      canCertify={can(user, "certificates.manage")}
       partType={{ views, defectClasses, panelResolution }}
       rubricVersions={versions.map((v) => ({ version: v.version, status: v.status }))}
       initialPhotoId={uuidOrNull(search.photo)}
