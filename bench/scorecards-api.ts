@@ -104,8 +104,8 @@ async function setUp() {
         .rows[0].id as string;
       // One grade in 20 is rechecked, each grader's in turn; one in seven a step apart (a step up, or down from Reject).
       await c.query(
-        `INSERT INTO rechecks (workspace_id, unit_id, grade_id, first_grader_id, part_type_id, rubric_version_id, reason, draw_id, status, auditor_id, measurement, proposed_grade, recheck_grade, comparison, adjudication_reasons, submitted_at, created_at)
-         SELECT $1, g.unit_id, g.id, g.graded_by, $2, $3, 'rate', $4, CASE WHEN r.grade = g.final_grade THEN 'agreed' ELSE 'adjudication' END, ($5::uuid[])[1 + g.k % 3], '{}', r.grade, r.grade,
+        `INSERT INTO rechecks (workspace_id, unit_id, grade_id, first_grader_id, first_grade, first_graded_at, part_type_id, rubric_version_id, reason, draw_id, status, auditor_id, measurement, proposed_grade, recheck_grade, comparison, adjudication_reasons, submitted_at, created_at)
+         SELECT $1, g.unit_id, g.id, g.graded_by, g.final_grade, g.created_at, $2, $3, 'rate', $4, CASE WHEN r.grade = g.final_grade THEN 'agreed' ELSE 'adjudication' END, ($5::uuid[])[1 + g.k % 3], '{}', r.grade, r.grade,
                 jsonb_build_object('classes', jsonb_build_object('scratch', jsonb_build_object('iou', 0.35 + (g.k % 60) / 100.0, 'unionPx', 400 + g.k % 300), 'dent', jsonb_build_object('iou', 0.5 + (g.k % 40) / 100.0, 'unionPx', 200))),
                 '[]', g.created_at + interval '1 day', g.created_at + interval '1 minute'
          FROM (SELECT id, unit_id, graded_by, final_grade, created_at, row_number() OVER (ORDER BY created_at, id) - 1 AS k FROM grades WHERE workspace_id = $1) g

@@ -11,6 +11,7 @@ import { seedLots } from "./seed/lots";
 import { seedPartTypes } from "./seed/part-types";
 import { seedPeople } from "./seed/people";
 import { seedPhotos } from "./seed/photos";
+import { seedRechecks } from "./seed/rechecks";
 import { seedRubrics } from "./seed/rubrics";
 import { seedSuggestionModel } from "./seed/suggestion-model";
 
@@ -35,6 +36,8 @@ export async function seedDemo() {
   const gallery = await seedGallery();
   // A calibration set of those examples with one passing and one failing attempt.
   const calibration = await seedCalibration();
+  // Needs the photos' planted marks and the rubrics: recheck history for the scorecards, a recheck to do, a disagreement to settle.
+  const rechecks = await seedRechecks("vellmoor", photos.planted);
   // So a newcomer's Bench shows learned ghosts (the demo has too few marked regions to train on).
   const suggestionModel = await seedSuggestionModel();
   return {
@@ -44,9 +47,10 @@ export async function seedDemo() {
     lots,
     rubrics,
     evidence,
-    photos,
+    photos: { photos: photos.photos, units: photos.units, reused: photos.reused },
     gallery,
     calibration,
+    rechecks,
     suggestionModel,
   };
 }

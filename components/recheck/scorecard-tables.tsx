@@ -52,7 +52,7 @@ export function GraderTable({
       <td className={`${td} whitespace-nowrap tabular-nums`}>{formatKappaInterval(counts.figures.kappa)}</td>
       <td className={td}>{bandLabel(counts.figures.kappa)}</td>
       <td className={`${td} whitespace-nowrap tabular-nums`}>{formatKappaInterval(counts.figures.quadraticKappa)}</td>
-      <td className={td} data-testid={`drift-${key}`}>
+      <td className={`${td} min-w-48`} data-testid={`drift-${key}`}>
         {drift ? drift.flagged ? <span className="font-medium text-fault-700">⚑ {driftText(drift)}</span> : "No" : "—"}
       </td>
     </tr>
@@ -150,7 +150,7 @@ export function ScorecardWeekTable({ weeks, label }: { weeks: ({ week: string } 
                 {w.week}
               </th>
               <td className={`${td} tabular-nums`}>{w.figures.n}</td>
-              <td className={`${td} tabular-nums`}>{formatPercent(w.figures.exact.share)}</td>
+              <td className={`${td} whitespace-nowrap tabular-nums`}>{formatPercent(w.figures.exact.share)}</td>
               <td className={`${td} tabular-nums`}>{formatKappa(w.figures.kappa.kappa)}</td>
               <td className={td}>{bandLabel(w.figures.kappa)}</td>
             </tr>

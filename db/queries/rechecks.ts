@@ -4,12 +4,29 @@ import "server-only";
  * statements of ./leases.ts), the auditor's separate region sets, and who opened a unit's
  * inspection data. Every query is scoped by workspace; the decisions are in lib/recheck.
  */
-import { and, asc, desc, eq, gte, inArray, isNull, sql } from "drizzle-orm";
+import { and, asc, desc, eq, gte, inArray, isNull, lte, sql } from "drizzle-orm";
 import { db, executePrepared, type DbOrTx } from "@/db/client";
-import { checklistResults, grades, lots, partTypes, photos, recheckDraws, recheckRegionSets, rechecks, rubricVersions, unitOpenings, units, users, workspaces, type NewRecheckRow } from "@/db/schema";
+import {
+  checklistResults,
+  graderDayCounts,
+  grades,
+  lots,
+  partTypes,
+  photos,
+  recheckDraws,
+  recheckRegionSets,
+  rechecks,
+  rubricVersions,
+  unitOpenings,
+  units,
+  users,
+  workspaces,
+  type NewRecheckRow,
+} from "@/db/schema";
 import type { RecheckDrawInputRecord, RecheckDrawOutcome } from "@/db/schema/recheck";
 import type { RegionSetPayload } from "@/lib/geometry/validate";
 import type { RecheckSettings } from "@/lib/recheck/settings";
+import type { Grade } from "@/lib/grading/rubric-schema";
 import { ASYNC_COMMIT, leaseColumns, leaseEnd, noLease } from "./leases";
 
 type Scope = { workspaceId: string };
@@ -79,10 +96,20 @@ export async function insertRecheckDraw(
   return inserted;
 }
 
+/** The rechecked grade's final grade and time, copied by the database itself (a timestamp through JavaScript would lose its microseconds). */
+export const firstGradeFacts = (gradeId: string) => ({
+  firstGrade: sql<Grade>`(SELECT g.final_grade FROM grades g WHERE g.id = ${gradeId})`,
+  firstGradedAt: sql<Date>`(SELECT g.created_at FROM grades g WHERE g.id = ${gradeId})`,
+});
+
 /** Adds rechecks; a grade that already has one is skipped (rechecks_grade_key), never doubled. Returns the rows made. */
-export function insertRechecks(tx: DbOrTx, rows: NewRecheckRow[]) {
+export function insertRechecks(tx: DbOrTx, rows: Omit<NewRecheckRow, "firstGrade" | "firstGradedAt">[]) {
   if (rows.length === 0) return Promise.resolve([]);
-  return tx.insert(rechecks).values(rows).onConflictDoNothing({ target: rechecks.gradeId }).returning({ id: rechecks.id, gradeId: rechecks.gradeId, unitId: rechecks.unitId });
+  return tx
+    .insert(rechecks)
+    .values(rows.map((row) => ({ ...row, ...firstGradeFacts(row.gradeId) })))
+    .onConflictDoNothing({ target: rechecks.gradeId })
+    .returning({ id: rechecks.id, gradeId: rechecks.gradeId, unitId: rechecks.unitId });
 }
 
 export function getRecheckDraw({ workspaceId, drawId }: Scope & { drawId: string }, tx: DbOrTx = db()) {
@@ -407,12 +434,22 @@ export async function settleRecheck(
     choice,
     reason,
     gradeId,
+    grade,
     decidedLotAffected,
-  }: Scope & { recheckId: string; adjudicatedBy: string; choice: "first" | "recheck" | "own"; reason: string; gradeId: string; decidedLotAffected: boolean },
+  }: Scope & { recheckId: string; adjudicatedBy: string; choice: "first" | "recheck" | "own"; reason: string; gradeId: string; grade: Grade; decidedLotAffected: boolean },
 ) {
   await tx
     .update(rechecks)
-    .set({ status: "settled", adjudicatedBy, adjudicationChoice: choice, adjudicationReason: reason, adjudicationGradeId: gradeId, adjudicatedAt: sql`now()`, decidedLotAffected })
+    .set({
+      status: "settled",
+      adjudicatedBy,
+      adjudicationChoice: choice,
+      adjudicationReason: reason,
+      adjudicationGradeId: gradeId,
+      adjudicatedGrade: grade,
+      adjudicatedAt: sql`now()`,
+      decidedLotAffected,
+    })
     .where(and(eq(rechecks.workspaceId, workspaceId), eq(rechecks.id, recheckId)));
 }
 
@@ -447,42 +484,68 @@ export function listDecidedLotAffected({ workspaceId, lotId }: Scope & { lotId: 
     .orderBy(asc(rechecks.adjudicatedAt));
 }
 
-// Scorecards.
+// Scorecards. Both reads touch only rows made for them (migration scorecard_reads): the per-day counts and
+// the recheck rows, which carry their grade's facts; neither scans the period's grades.
 
 /** Local midnight of `date` in `timeZone`, as an SQL timestamptz. */
 const localMidnight = (date: string, timeZone: string) => sql`((${date}::date)::timestamp AT TIME ZONE ${timeZone})`;
 
-/** Inspection grades per grader and local day in [from, to] (local dates, both included). */
-export async function countGradesByGraderAndDay({ workspaceId, from, to, timeZone }: Scope & { from: string; to: string; timeZone: string }, tx: DbOrTx = db()) {
-  const { rows } = await tx.execute<{ grader_id: string; day: string; count: number }>(sql`
-    SELECT graded_by AS grader_id, to_char((created_at AT TIME ZONE ${timeZone})::date, 'YYYY-MM-DD') AS day, count(*)::int AS count
-    FROM grades
-    WHERE workspace_id = ${workspaceId} AND kind = 'inspection'
-      AND created_at >= ${localMidnight(from, timeZone)} AND created_at < ${localMidnight(to, timeZone)} + interval '1 day'
-    GROUP BY 1, 2`);
-  return rows.map((row) => ({ graderId: row.grader_id, day: row.day, count: row.count }));
+/**
+ * Inspection grades per grader and local day in [from, to] (local dates, both included), from
+ * grader_day_counts (kept by triggers in the workspace's current time zone, which is the one
+ * the scorecards use).
+ */
+export async function countGradesByGraderAndDay({ workspaceId, from, to }: Scope & { from: string; to: string }, tx: DbOrTx = db()) {
+  const rows = await tx
+    .select({ graderId: graderDayCounts.graderId, day: graderDayCounts.day, count: graderDayCounts.graded })
+    .from(graderDayCounts)
+    .where(and(eq(graderDayCounts.workspaceId, workspaceId), gte(graderDayCounts.day, from), lte(graderDayCounts.day, to)));
+  return rows;
 }
 
-/** Submitted rechecks whose rechecked grade falls in [from, to]: both grades, the blind mark, the unit-level class IoU, any adjudicated grade. */
-export async function listSubmittedRechecksForPeriod({ workspaceId, from, to, timeZone }: Scope & { from: string; to: string; timeZone: string }, tx: DbOrTx = db()) {
-  const { rows } = await tx.execute<{
-    grader_id: string;
-    graded_at: Date;
-    first_grade: string;
-    recheck_grade: string;
-    not_blind: boolean;
-    classes: Record<string, { iou: number; unionPx: number }> | null;
-    adjudicated_grade: string | null;
-    unit_id: string;
-  }>(sql`
-    SELECT r.first_grader_id AS grader_id, g.created_at AS graded_at, g.final_grade AS first_grade, r.recheck_grade, r.not_blind,
-           r.comparison->'classes' AS classes, a.final_grade AS adjudicated_grade, r.unit_id
+/** The period's submitted rechecks: those whose rechecked grade was recorded on a local day in [from, to]. */
+const submittedInPeriod = (workspaceId: string, from: string, to: string, timeZone: string) => sql`
+    r.workspace_id = ${workspaceId} AND r.submitted_at IS NOT NULL
+    AND r.first_graded_at >= ${localMidnight(from, timeZone)} AND r.first_graded_at < ${localMidnight(to, timeZone)} + interval '1 day'`;
+/** The local week (its Monday, as lib/time/periods.ts counts weeks) of the rechecked grade. */
+const localWeek = (timeZone: string) => sql`to_char(date_trunc('week', r.first_graded_at AT TIME ZONE ${timeZone}), 'YYYY-MM-DD')`;
+
+/**
+ * The period's submitted rechecks counted per grader, local week, first grade, recheck grade,
+ * adjudicated grade and blind mark (lib/recheck/scorecard.ts `RecheckCount`): about a thousand
+ * rows for 5 000 rechecks. The same rows, summed over graders and weeks, are the grade sets alpha
+ * and AC1 are computed from (lib/recheck/team.ts `gradeSetsOf`), so the period's rechecks are
+ * scanned once for both.
+ */
+export async function countRechecksByGraderAndWeek({ workspaceId, from, to, timeZone }: Scope & { from: string; to: string; timeZone: string }, tx: DbOrTx = db()) {
+  const { rows } = await tx.execute<{ grader_id: string; week: string; first_grade: Grade; recheck_grade: Grade; adjudicated_grade: Grade | null; not_blind: boolean; count: number }>(sql`
+    SELECT r.first_grader_id AS grader_id, ${localWeek(timeZone)} AS week, r.first_grade, r.recheck_grade, r.adjudicated_grade, r.not_blind, count(*)::int AS count
     FROM rechecks r
-    JOIN grades g ON g.id = r.grade_id
-    LEFT JOIN grades a ON a.id = r.adjudication_grade_id
-    WHERE r.workspace_id = ${workspaceId} AND r.submitted_at IS NOT NULL
-      AND g.created_at >= ${localMidnight(from, timeZone)} AND g.created_at < ${localMidnight(to, timeZone)} + interval '1 day'`);
-  return rows;
+    WHERE ${submittedInPeriod(workspaceId, from, to, timeZone)}
+    GROUP BY 1, 2, 3, 4, 5, 6`);
+  return rows.map((row) => ({
+    graderId: row.grader_id,
+    week: row.week,
+    firstGrade: row.first_grade,
+    recheckGrade: row.recheck_grade,
+    adjudicatedGrade: row.adjudicated_grade,
+    blind: !row.not_blind,
+    count: row.count,
+  }));
+}
+
+/**
+ * Per grader, local week and defect class, the class IoU of the period's blind rechecks where the
+ * class was in play (union > 0 in the stored comparison), summed, and how many
+ * (lib/recheck/scorecard.ts `ClassIouSum`).
+ */
+export async function sumClassIouByGraderAndWeek({ workspaceId, from, to, timeZone }: Scope & { from: string; to: string; timeZone: string }, tx: DbOrTx = db()) {
+  const { rows } = await tx.execute<{ grader_id: string; week: string; defect: string; sum: number; n: number }>(sql`
+    SELECT r.first_grader_id AS grader_id, ${localWeek(timeZone)} AS week, c.key AS defect, sum((c.value->>'iou')::float8) AS sum, count(*)::int AS n
+    FROM rechecks r CROSS JOIN LATERAL jsonb_each(r.comparison->'classes') c
+    WHERE ${submittedInPeriod(workspaceId, from, to, timeZone)} AND NOT r.not_blind AND (c.value->>'unionPx')::float8 > 0
+    GROUP BY 1, 2, 3`);
+  return rows.map((row) => ({ graderId: row.grader_id, week: row.week, defect: row.defect, sum: Number(row.sum), n: row.n }));
 }
 
 /**
@@ -492,11 +555,10 @@ export async function listSubmittedRechecksForPeriod({ workspaceId, from, to, ti
  */
 export async function countDriftWindow({ workspaceId, graderId, fromDay, until, timeZone }: Scope & { graderId: string; fromDay: string; until: Date; timeZone: string }, tx: DbOrTx = db()) {
   const { rows } = await tx.execute<{ mine: boolean; first_grade: string; recheck_grade: string; count: number }>(sql`
-    SELECT r.first_grader_id = ${graderId} AS mine, g.final_grade AS first_grade, r.recheck_grade, count(*)::int AS count
+    SELECT r.first_grader_id = ${graderId} AS mine, r.first_grade, r.recheck_grade, count(*)::int AS count
     FROM rechecks r
-    JOIN grades g ON g.id = r.grade_id
     WHERE r.workspace_id = ${workspaceId} AND r.submitted_at IS NOT NULL AND NOT r.not_blind
-      AND g.created_at >= ${localMidnight(fromDay, timeZone)} AND g.created_at < ${until.toISOString()}::timestamptz
+      AND r.first_graded_at >= ${localMidnight(fromDay, timeZone)} AND r.first_graded_at < ${until.toISOString()}::timestamptz
     GROUP BY 1, 2, 3`);
   return rows.map((row) => ({ mine: row.mine, firstGrade: row.first_grade, recheckGrade: row.recheck_grade, count: row.count }));
 }

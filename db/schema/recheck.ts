@@ -1,5 +1,5 @@
 import { sql } from "drizzle-orm";
-import { boolean, check, foreignKey, index, integer, jsonb, pgTable, primaryKey, text, timestamp, unique, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { boolean, check, date, foreignKey, index, integer, jsonb, pgTable, primaryKey, text, timestamp, unique, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import type { RegionSetPayload } from "@/lib/geometry/validate";
 import type { Grade } from "@/lib/grading/rubric-schema";
 import type { StoredUnitResult } from "@/lib/grading/stored-measurement";
@@ -94,8 +94,12 @@ export const rechecks = pgTable(
     unitId: uuid().notNull(),
     /** The grade rechecked (an inspection grade, or the unit's current grade when sent by hand). */
     gradeId: uuid().notNull(),
-    /** Copied from the grade so the queue and the scorecards read one table. */
+    /** Copied from the grade (grades are append-only, so the copies never go stale): the queue and the scorecards read one table. */
     firstGraderId: uuid().notNull(),
+    firstGrade: text({ enum: ["A", "B", "C", "Reject"] })
+      .$type<Grade>()
+      .notNull(),
+    firstGradedAt: timestamp({ withTimezone: true }).notNull(),
     partTypeId: uuid().notNull(),
     rubricVersionId: uuid().notNull(),
     reason: text({ enum: RECHECK_REASONS }).notNull(),
@@ -122,6 +126,8 @@ export const rechecks = pgTable(
     adjudicationChoice: text({ enum: ADJUDICATION_CHOICES }),
     adjudicationReason: text(),
     adjudicationGradeId: uuid(),
+    /** The adjudication grade's final grade, copied for the scorecards' multi-rater figures. */
+    adjudicatedGrade: text({ enum: ["A", "B", "C", "Reject"] }).$type<Grade>(),
     adjudicatedAt: timestamp({ withTimezone: true }),
     /** A decided lot this outcome would have changed (the lead is told, nothing rewritten). */
     decidedLotAffected: boolean().notNull().default(false),
@@ -135,6 +141,10 @@ export const rechecks = pgTable(
       .where(sql`${t.status} = 'waiting'`),
     index("rechecks_unit_idx").on(t.workspaceId, t.unitId),
     index("rechecks_grader_idx").on(t.workspaceId, t.firstGraderId, t.createdAt),
+    // The scorecards read a period's submitted rechecks by when the rechecked grade was recorded.
+    index("rechecks_scorecard_idx")
+      .on(t.workspaceId, t.firstGradedAt)
+      .where(sql`${t.submittedAt} IS NOT NULL`),
     unique("rechecks_workspace_id_key").on(t.workspaceId, t.id),
     sameWorkspace("rechecks_unit_fk", t.workspaceId, t.unitId, units),
     sameWorkspace("rechecks_grade_fk", t.workspaceId, t.gradeId, grades),
@@ -157,6 +167,7 @@ export const rechecks = pgTable(
       "rechecks_adjudication_fields",
       sql`(${t.status} = 'settled') = (${t.adjudicatedAt} IS NOT NULL) AND (${t.adjudicatedAt} IS NULL OR (${t.adjudicatedBy} IS NOT NULL AND ${t.adjudicationGradeId} IS NOT NULL AND length(btrim(coalesce(${t.adjudicationReason}, ''))) > 0))`,
     ),
+    check("rechecks_adjudicated_grade", sql`(${t.adjudicationGradeId} IS NULL) = (${t.adjudicatedGrade} IS NULL)`),
   ],
 );
 
@@ -206,6 +217,31 @@ export const unitOpenings = pgTable(
     primaryKey({ name: "unit_openings_pkey", columns: [t.unitId, t.userId] }),
     sameWorkspace("unit_openings_unit_fk", t.workspaceId, t.unitId, units),
     sameWorkspace("unit_openings_user_fk", t.workspaceId, t.userId, users),
+  ],
+);
+
+/**
+ * Inspection grades per grader and local day (the workspace's time zone): what the scorecards'
+ * "graded" column reads instead of counting every grade of the period. Kept by triggers
+ * (migration scorecard_reads): each inspection grade inserted adds one in the same transaction, and a change
+ * of the workspace's time zone recounts that workspace's days, so the table always equals
+ * `SELECT graded_by, local day, count(*) FROM grades WHERE kind = 'inspection' GROUP BY 1, 2`
+ * (tests/integration/recheck-scorecards.test.ts checks it against that count).
+ */
+export const graderDayCounts = pgTable(
+  "grader_day_counts",
+  {
+    workspaceId: uuid()
+      .notNull()
+      .references(() => workspaces.id),
+    graderId: uuid().notNull(),
+    day: date({ mode: "string" }).notNull(),
+    graded: integer().notNull(),
+  },
+  (t) => [
+    primaryKey({ name: "grader_day_counts_pkey", columns: [t.workspaceId, t.day, t.graderId] }),
+    sameWorkspace("grader_day_counts_grader_fk", t.workspaceId, t.graderId, users),
+    check("grader_day_counts_graded", sql`${t.graded} > 0`),
   ],
 );
 

@@ -14,7 +14,7 @@ import { db } from "@/db/client";
 import { activityLog, claims, evidencePacks, lots, outgoingEmails, suppliers } from "@/db/schema";
 import type { ClaimStatus } from "@/lib/evidence/claim-status";
 import { evidenceFiles } from "@/lib/evidence/attachments";
-import { DEFAULT_EVIDENCE_BODY, DEFAULT_EVIDENCE_SUBJECT, evidenceValues, fillTemplate } from "@/lib/evidence/template";
+import { DEFAULT_EVIDENCE_BODY, DEFAULT_EVIDENCE_SUBJECT, evidenceText, evidenceValues, fillTemplate } from "@/lib/evidence/template";
 import { loadLotReport } from "@/lib/reports/lot-report-load";
 import type { seedPeople } from "./people";
 
@@ -54,9 +54,10 @@ export async function seedEvidence(people: People) {
     const sentAt = new Date(lot.decidedAt.getTime() + 2 * HOUR);
     const claimRef = spec.claimRef ?? `CLM-${sentAt.getUTCFullYear()}-0001`;
     const report = await loadLotReport(reader, lot.id);
-    const values = evidenceValues(report, claimRef);
+    // The demo's packs were small enough to attach.
+    const values = evidenceValues(report, claimRef, { kind: "attached" });
     const subject = fillTemplate(DEFAULT_EVIDENCE_SUBJECT, values);
-    const body = fillTemplate(DEFAULT_EVIDENCE_BODY, values);
+    const body = evidenceText(DEFAULT_EVIDENCE_BODY, values, { kind: "attached" });
     const files = await evidenceFiles(report, { timeZone: "UTC" });
     const answeredAt = new Date(sentAt.getTime() + spec.answeredAfterDays * DAY);
     await db().transaction(async (tx) => {

@@ -13,7 +13,8 @@ import type { SessionUser } from "@/lib/auth/require-user";
 import type { Role } from "@/lib/auth/roles";
 import { finaliseUpload } from "@/lib/photos/finalise";
 import { createUploadIntent } from "@/lib/photos/intents";
-import { asCameraJpeg, renderPartPhoto, type PlantedDefect } from "./photo-art";
+import { asCameraJpeg, renderAnnotatedPartPhoto, type PlantedDefect, type PlantedRegion } from "./photo-art";
+import type { Shape } from "@/lib/geometry/shape";
 
 const MAX_UNITS_PER_LOT = 2;
 const MAX_PHOTOS = 30;
@@ -70,12 +71,15 @@ async function upload(actor: SessionUser, unitId: string, viewKey: string, fileN
   return finaliseUpload(actor, unitId, { ticket: intent.ticket }, { dispatch: "inline" });
 }
 
+/** A demo photo with what was planted on it (upright pixels): what the recheck demo marks as its regions (rechecks.ts). */
+export type PlantedPhoto = { photoId: string; unitId: string; viewKey: string; surface: Shape; regions: PlantedRegion[] };
+
 /** `lotIds` limits the seed to those lots (for its integration test); the demo seed photographs all. */
-export async function seedPhotos({ lotIds }: { lotIds?: string[] } = {}): Promise<{ photos: number; units: number; reused: number }> {
+export async function seedPhotos({ lotIds }: { lotIds?: string[] } = {}): Promise<{ photos: number; units: number; reused: number; planted: PlantedPhoto[] }> {
   const candidates = await openUnits(lotIds);
   if (candidates.length === 0) {
     console.log("Demo photos: the seed has no open units of seeded lots yet, so no photos were created.");
-    return { photos: 0, units: 0, reused: 0 };
+    return { photos: 0, units: 0, reused: 0, planted: [] };
   }
   const perLot = new Map<string, SeedUnit[]>();
   for (const unit of candidates) {
@@ -86,6 +90,7 @@ export async function seedPhotos({ lotIds }: { lotIds?: string[] } = {}): Promis
   let count = 0;
   let orientationTurn = 0;
   const photographed = new Set<string>();
+  const planted: PlantedPhoto[] = [];
   let firstClean: { workspaceId: string; unitId: string; viewKey: string; bytes: Buffer } | null = null;
 
   for (const lotUnits of perLot.values()) {
@@ -96,13 +101,15 @@ export async function seedPhotos({ lotIds }: { lotIds?: string[] } = {}): Promis
       for (const [viewIndex, view] of unit.views.entries()) {
         if (count >= MAX_PHOTOS) break;
         const defects = index === 0 ? plantedDefects(unit.kind, view.key) : [];
-        const upright = await renderPartPhoto({ kind: unit.kind, viewKey: view.key, defects, seed: count * 7919 + 17 });
+        const annotated = await renderAnnotatedPartPhoto({ kind: unit.kind, viewKey: view.key, defects, seed: count * 7919 + 17 });
+        const upright = annotated.jpeg;
         // Every fourth photo is shot with the phone held another way: 6, 3, 8 in turn.
         const orientation = count % 4 === 1 ? ([6, 3, 8] as const)[orientationTurn++ % 3] : 1;
         const capturedAt = new Date(`${unit.receivedOn}T08:30:00Z`);
         capturedAt.setUTCMinutes(30 + count * 3);
         const bytes = await asCameraJpeg(upright, { orientation, capturedAt, offset: "+01:00" });
-        await upload(actor, unit.unitId, view.key, `IMG_${String(4100 + count).padStart(4, "0")}.jpg`, bytes);
+        const stored = await upload(actor, unit.unitId, view.key, `IMG_${String(4100 + count).padStart(4, "0")}.jpg`, bytes);
+        planted.push({ photoId: stored.photo.id, unitId: unit.unitId, viewKey: view.key, surface: annotated.surface, regions: annotated.regions });
         count++;
         photographed.add(unit.unitId);
         if (!firstClean && defects.length === 0 && viewIndex === 0) firstClean = { workspaceId: unit.workspaceId, unitId: unit.unitId, viewKey: view.key, bytes };
@@ -120,5 +127,5 @@ export async function seedPhotos({ lotIds }: { lotIds?: string[] } = {}): Promis
     photographed.add(other.unitId);
   }
   console.log(`Demo photos: ${count} synthetic photos on ${photographed.size} units, processed through the upload pipeline (${reused} flagged as a possible reused photo).`);
-  return { photos: count, units: photographed.size, reused };
+  return { photos: count, units: photographed.size, reused, planted };
 }

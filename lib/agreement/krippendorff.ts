@@ -14,14 +14,17 @@
  *   `categories`. Categories nobody used have n_g = 0 and change nothing.
  * - NaN (undefined) when fewer than two pairable values exist or D_e = 0 (every pairable value is
  *   the same: the data show no variation to agree about).
+ * - `weights` (optional, one whole number ≥ 0 per unit): unit u counts as weights[u] identical
+ *   units — the same alpha as repeating its column that many times, without building the
+ *   repeated data (the scorecards pass counted grade sets, lib/recheck/scorecards-read.ts).
  */
 import { resolveScale, type Label } from "@/lib/agreement/labels";
 
 export type AlphaMetric = "nominal" | "ordinal" | "interval";
 export type AlphaValue = Label | null | undefined;
 
-export function krippendorffAlpha(data: readonly (readonly AlphaValue[])[], options: { metric: AlphaMetric; categories?: readonly Label[] }): number {
-  const { metric, categories } = options ?? {};
+export function krippendorffAlpha(data: readonly (readonly AlphaValue[])[], options: { metric: AlphaMetric; categories?: readonly Label[]; weights?: readonly number[] }): number {
+  const { metric, categories, weights } = options ?? {};
   if (metric !== "nominal" && metric !== "ordinal" && metric !== "interval") {
     throw new RangeError(`krippendorffAlpha: metric must be "nominal", "ordinal" or "interval", got ${String(metric)}.`);
   }
@@ -30,6 +33,7 @@ export function krippendorffAlpha(data: readonly (readonly AlphaValue[])[], opti
   data.forEach((row, rater) => {
     if (row.length !== unitCount) throw new RangeError(`krippendorffAlpha: rater ${rater} has ${row.length} entries, expected ${unitCount} (one per unit; null where missing).`);
   });
+  const weightOf = checkedWeights(weights, unitCount, "krippendorffAlpha");
 
   const present = (value: AlphaValue): value is Label => value !== null && value !== undefined;
   const scale = resolveScale(
@@ -43,25 +47,25 @@ export function krippendorffAlpha(data: readonly (readonly AlphaValue[])[], opti
   }
 
   // Pairable units as lists of scale positions; value counts n_c over pairable values.
-  const units: number[][] = [];
+  const units: { values: number[]; weight: number }[] = [];
   for (let unit = 0; unit < unitCount; unit++) {
     const values = data
       .map((row) => row[unit])
       .filter(present)
       .map(scale.indexOf);
-    if (values.length >= 2) units.push(values);
+    if (values.length >= 2) units.push({ values, weight: weightOf(unit) });
   }
   const counts = new Array<number>(scale.categories.length).fill(0);
-  for (const values of units) for (const position of values) counts[position]++;
+  for (const { values, weight } of units) for (const position of values) counts[position] += weight;
   const n = counts.reduce((sum, count) => sum + count, 0);
   if (n < 2) return Number.NaN;
 
   const distance = distanceFunction(metric, scale.categories, counts, categories !== undefined);
   let observed = 0;
-  for (const values of units) {
+  for (const { values, weight } of units) {
     let unitSum = 0;
     for (let i = 0; i < values.length; i++) for (let j = 0; j < values.length; j++) if (i !== j) unitSum += distance(values[i], values[j]);
-    observed += unitSum / (values.length - 1);
+    observed += (weight * unitSum) / (values.length - 1);
   }
   observed /= n;
   let expected = 0;
@@ -88,4 +92,15 @@ function distanceFunction(metric: AlphaMetric, scale: Label[], counts: number[],
     if (low === high) return 0;
     return (before[high + 1] - before[low] - (counts[low] + counts[high]) / 2) ** 2;
   };
+}
+
+/** Each unit's weight (1 without weights); refuses a list of the wrong length or a weight that is not a whole number ≥ 0. */
+export function checkedWeights(weights: readonly number[] | undefined, unitCount: number, where: string): (unit: number) => number {
+  if (weights === undefined) return () => 1;
+  if (!Array.isArray(weights) || weights.length !== unitCount)
+    throw new RangeError(`${where}: weights must have one entry per unit (${unitCount}), got ${Array.isArray(weights) ? weights.length : typeof weights}.`);
+  weights.forEach((weight, unit) => {
+    if (!Number.isInteger(weight) || weight < 0) throw new RangeError(`${where}: the weight of unit ${unit} must be a whole number >= 0, got ${weight}.`);
+  });
+  return (unit) => weights[unit];
 }

@@ -8,12 +8,15 @@
  *   π_k = (1/n) Σ_i r_ik / r_i,   p_e = Σ_k π_k (1 − π_k) / (q − 1),   AC1 = (p_a − p_e) / (1 − p_e).
  * With two ratings on every unit this is exactly the two-rater `gwetAc1` (kappa.ts). NaN when no
  * unit has two ratings. Units with a single rating still count in π_k, as in the published form.
+ * `weights` (optional, one whole number ≥ 0 per unit): unit i counts as weights[i] identical units.
  */
+import { checkedWeights } from "@/lib/agreement/krippendorff";
 import { resolveScale, type Label } from "@/lib/agreement/labels";
 
-export function gwetAc1Units(units: readonly (readonly Label[])[], options: { categories: readonly Label[] }): number {
+export function gwetAc1Units(units: readonly (readonly Label[])[], options: { categories: readonly Label[]; weights?: readonly number[] }): number {
   if (!Array.isArray(units) || units.some((unit) => !Array.isArray(unit))) throw new TypeError("gwetAc1Units: units must be one array of labels per unit.");
   if (!options?.categories) throw new RangeError("gwetAc1Units: categories are required (the number of categories changes the result).");
+  const weightOf = checkedWeights(options.weights, units.length, "gwetAc1Units");
   const scale = resolveScale(units.flat(), options.categories, false, "gwetAc1Units");
   const size = scale.categories.length;
   if (size < 2) throw new RangeError("gwetAc1Units: the scale needs at least two categories.");
@@ -22,17 +25,18 @@ export function gwetAc1Units(units: readonly (readonly Label[])[], options: { ca
   let pairable = 0;
   let agreement = 0;
   const counts = new Array<number>(size);
-  for (const unit of units) {
-    if (unit.length === 0) continue;
+  for (const [index, unit] of units.entries()) {
+    const weight = weightOf(index);
+    if (unit.length === 0 || weight === 0) continue;
     counts.fill(0);
     for (const label of unit) counts[scale.indexOf(label)]++;
-    rated++;
-    for (let k = 0; k < size; k++) shares[k] += counts[k] / unit.length;
+    rated += weight;
+    for (let k = 0; k < size; k++) shares[k] += (weight * counts[k]) / unit.length;
     if (unit.length >= 2) {
-      pairable++;
+      pairable += weight;
       let same = 0;
       for (const count of counts) same += count * (count - 1);
-      agreement += same / (unit.length * (unit.length - 1));
+      agreement += (weight * same) / (unit.length * (unit.length - 1));
     }
   }
   if (pairable === 0) return Number.NaN;

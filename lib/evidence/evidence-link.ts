@@ -33,11 +33,6 @@ export function evidenceLinkUrl(pack: { id: string; linkExpiresAt: Date }): stri
   return `${env().APP_URL.replace(/\/$/, "")}/evidence/${token}`;
 }
 
-/** The paragraph the e-mail carries in place of the files. */
-export function evidenceLinkParagraph({ url, files, totalBytes, expiresAt }: { url: string; files: number; totalBytes: number; expiresAt: string }): string {
-  return `The evidence (${files} files, ${(totalBytes / 1048576).toFixed(1)} MB) is too large to attach. Open it here until ${expiresAt}:\n${url}`;
-}
-
 /** Uploads the files of pack `packId`; on any failure removes what was uploaded and rethrows. */
 export async function storeEvidenceFiles(workspaceId: string, packId: string, files: readonly EvidenceFile[]): Promise<void> {
   const store = objectStore();

@@ -11,7 +11,8 @@ import "server-only";
  *   backoff, so the lead's request never waits on the mail server, and a failure shows with its
  *   reason on the lot, the supplier page and the Outbox.
  * - The files are rendered before the transaction (PDF and photos take a while), then the lot is
- *   locked and checked again, so a lot reopened in between sends nothing.
+ *   locked and checked again, so a lot reopened in between sends nothing. The text is filled in
+ *   after them: whether they go attached or by link decides what it says about them.
  * - The claim reference is the lead's, or CLM-<year>-<n> numbered per workspace; a reference in
  *   use is a 409 (case-insensitive).
  */
@@ -40,9 +41,9 @@ import { transactionWithJobs } from "@/lib/jobs/send";
 import { loadLotReport } from "@/lib/reports/lot-report-load";
 import { formatInstant } from "@/lib/reports/format";
 import { DEFAULT_EVIDENCE_LIMIT_BYTES, evidenceFiles, totalBytes, type EvidenceFile } from "./attachments";
-import { evidenceLinkExpiry, evidenceLinkParagraph, evidenceLinkUrl, removeEvidenceFiles, storeEvidenceFiles } from "./evidence-link";
+import { evidenceLinkExpiry, evidenceLinkUrl, removeEvidenceFiles, storeEvidenceFiles } from "./evidence-link";
 import type { EvidenceDraft } from "./schemas";
-import { EVIDENCE_BODY_MAX, EVIDENCE_SUBJECT_MAX, evidenceValues, fillTemplate } from "./template";
+import { EVIDENCE_BODY_MAX, EVIDENCE_SUBJECT_MAX, evidenceText, evidenceValues, fillTemplate, type FilesDelivery } from "./template";
 
 const CLAIMABLE_DISPOSITIONS = new Set(["return_to_vendor", "sort", "downgrade"]);
 
@@ -75,10 +76,19 @@ export type PreparedEvidence = {
   files: EvidenceFile[];
   totalBytes: number;
   delivery: "attached" | "link";
+  /** Set when the files go by link: when the link stops opening. */
+  linkExpiresAt: Date | null;
 };
 
-/** Fills the template and renders the files (nothing stored). 404 for another workspace's lot, 409 for a lot not to claim on. */
-export async function prepareEvidence(user: SessionUser, lotId: string, draft: EvidenceDraft): Promise<PreparedEvidence> {
+/** What the preview shows where the link will be: its address names the pack, which exists only once sent. */
+export const PREVIEW_LINK_URL = "[the evidence link, made when you send]";
+
+/**
+ * Renders the files, then fills the template: `{{files}}` depends on whether they fit in an
+ * e-mail (nothing stored). `linkUrl` gives the link's address for its expiry. 404 for another
+ * workspace's lot, 409 for a lot not to claim on, 400 for a text too long once filled in.
+ */
+export async function prepareEvidence(user: SessionUser, lotId: string, draft: EvidenceDraft, linkUrl: (expiresAt: Date) => string): Promise<PreparedEvidence> {
   const row = await getLot({ workspaceId: user.workspaceId, lotId });
   if (!row) throw notFound("That lot");
   const refusal = evidenceRefusal(row.lot);
@@ -87,28 +97,20 @@ export async function prepareEvidence(user: SessionUser, lotId: string, draft: E
   if (!contact) throw notFound("That lot");
   const claimRef = draft.claimRef || (await nextClaimReference(user.workspaceId, new Date()));
   const report = await loadLotReport({ workspaceId: user.workspaceId, name: user.name, roles: user.roles }, lotId);
-  const values = evidenceValues(report, claimRef);
+  const files = await evidenceFiles(report, { timeZone: user.timeZone });
+  const total = totalBytes(files);
+  const linkExpiresAt = total > evidenceLimitBytes() ? evidenceLinkExpiry(new Date()) : null;
+  const delivery: FilesDelivery = linkExpiresAt
+    ? { kind: "link", url: linkUrl(linkExpiresAt), files: files.length, totalBytes: total, expiresAt: formatInstant(linkExpiresAt, user.timeZone) }
+    : { kind: "attached" };
+  const values = evidenceValues(report, claimRef, delivery);
   const subject = fillTemplate(draft.subject, values).replace(/\s+/g, " ").trim();
-  const text = fillTemplate(draft.body, values);
+  const text = evidenceText(draft.body, values, delivery);
   if (subject.length > EVIDENCE_SUBJECT_MAX)
     throw new AppError("bad_request", `Filled in, the subject is ${subject.length} characters; keep it under ${EVIDENCE_SUBJECT_MAX}.`, { fieldErrors: { subject: "Too long once filled in." } });
   if (text.length > EVIDENCE_BODY_MAX)
     throw new AppError("bad_request", `Filled in, the message is ${text.length} characters; keep it under ${EVIDENCE_BODY_MAX}.`, { fieldErrors: { body: "Too long once filled in." } });
-  const files = await evidenceFiles(report, { timeZone: user.timeZone });
-  const total = totalBytes(files);
-  return { to: contact.contactEmail, supplierId: contact.supplierId, subject, text, claimRef, files, totalBytes: total, delivery: total > evidenceLimitBytes() ? "link" : "attached" };
-}
-
-/** The preview's text: for a pack sent by link, the paragraph the e-mail will carry (its address is made when it is sent). */
-export function previewText(prepared: PreparedEvidence, timeZone: string): string {
-  if (prepared.delivery === "attached") return prepared.text;
-  const paragraph = evidenceLinkParagraph({
-    url: "[the evidence link, made when you send]",
-    files: prepared.files.length,
-    totalBytes: prepared.totalBytes,
-    expiresAt: formatInstant(evidenceLinkExpiry(new Date()), timeZone),
-  });
-  return `${prepared.text.trimEnd()}\n\n${paragraph}`;
+  return { to: contact.contactEmail, supplierId: contact.supplierId, subject, text, claimRef, files, totalBytes: total, delivery: delivery.kind, linkExpiresAt };
 }
 
 const escapeHtml = (s: string) => s.replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" })[c]!);
@@ -120,25 +122,19 @@ const htmlOf = (text: string) =>
 
 /** Stores the pack, its claim and the queued e-mail with its delivery job, all or nothing. */
 export async function sendEvidence(user: SessionUser, lotId: string, draft: EvidenceDraft) {
-  const prepared = await prepareEvidence(user, lotId, draft);
   const packId = randomUUID();
+  const prepared = await prepareEvidence(user, lotId, draft, (linkExpiresAt) => evidenceLinkUrl({ id: packId, linkExpiresAt }));
   const byLink = prepared.delivery === "link";
-  const linkExpiresAt = byLink ? evidenceLinkExpiry(new Date()) : null;
-  let text = prepared.text;
-  if (linkExpiresAt) {
-    const url = evidenceLinkUrl({ id: packId, linkExpiresAt });
-    text = `${text.trimEnd()}\n\n${evidenceLinkParagraph({ url, files: prepared.files.length, totalBytes: prepared.totalBytes, expiresAt: formatInstant(linkExpiresAt, user.timeZone) })}`;
-    await storeEvidenceFiles(user.workspaceId, packId, prepared.files);
-  }
+  if (byLink) await storeEvidenceFiles(user.workspaceId, packId, prepared.files);
   try {
-    return await storePack(user, lotId, packId, { ...prepared, text }, linkExpiresAt);
+    return await storePack(user, lotId, packId, prepared);
   } catch (err) {
     if (byLink) await removeEvidenceFiles(user.workspaceId, packId, prepared.files.length);
     throw err;
   }
 }
 
-async function storePack(user: SessionUser, lotId: string, packId: string, prepared: PreparedEvidence, linkExpiresAt: Date | null) {
+async function storePack(user: SessionUser, lotId: string, packId: string, prepared: PreparedEvidence) {
   return transactionWithJobs(async (tx, jobs) => {
     const lot = await lockLot(tx, { workspaceId: user.workspaceId, lotId });
     if (!lot) throw notFound("That lot");
@@ -156,7 +152,7 @@ async function storePack(user: SessionUser, lotId: string, packId: string, prepa
       body: prepared.text,
       attachments: prepared.files.map(({ filename, contentType, bytes }) => ({ filename, contentType, bytes })),
       delivery: prepared.delivery,
-      linkExpiresAt,
+      linkExpiresAt: prepared.linkExpiresAt,
       createdBy: user.id,
     });
     const claim = await insertClaim(tx, { workspaceId: user.workspaceId, evidencePackId: pack.id, supplierId: prepared.supplierId, lotId, reference: prepared.claimRef, updatedBy: user.id });

@@ -10,6 +10,10 @@
  *   from the lot's decision (the counts it rested on), not a recount.
  * - Limits: subject 200 characters, body 5 000 (a supplier reads the attachments for the detail);
  *   checked on the template and again on the filled text, since a long reason can pass them.
+ * - `{{files}}` says where the files are, which is known only once they are rendered: attached to
+ *   the e-mail, or (over the size limit) on the evidence link's page, with the link. A template
+ *   that leaves `{{files}}` out still gets the link, at the end, when the files go by link: the
+ *   supplier must be able to reach them whatever the lead wrote.
  */
 import { DEFECT_SEVERITIES, DEFECT_SEVERITY_LABELS } from "@/lib/part-types/severity";
 import { DISPOSITION_LABELS } from "@/lib/lots/schemas";
@@ -28,6 +32,7 @@ export const EVIDENCE_PLACEHOLDERS = {
   defectives: "defective units found per severity",
   reason: "the lead's reason recorded with the decision",
   claimRef: "the claim / RMA reference",
+  files: "where the files are: attached, or (when too large to attach) the evidence link",
   workspace: "your workspace's name",
 } as const;
 
@@ -45,13 +50,25 @@ Defective units found: {{defectives}}
 
 Reason: {{reason}}
 
-Please quote claim {{claimRef}} in your reply. The lot inspection report (PDF), the photos of the defective units with their defects marked, and a table of the sampled units are attached.
+Please quote claim {{claimRef}} in your reply. {{files}}
 
 Regards,
 {{workspace}}`;
 
+/** How the files reach the supplier: attached to the e-mail, or on the evidence link's page (expiry as the reader's local time). */
+export type FilesDelivery = { kind: "attached" } | { kind: "link"; url: string; files: number; totalBytes: number; expiresAt: string };
+
+const WHAT_IS_SENT = "The lot inspection report (PDF), the photos of the defective units with their defects marked, and a table of the sampled units";
+
+/** The `{{files}}` sentence: true to the way the files are sent. */
+export function filesSentence(delivery: FilesDelivery): string {
+  if (delivery.kind === "attached") return `${WHAT_IS_SENT} are attached.`;
+  const mb = (delivery.totalBytes / 1048576).toFixed(1);
+  return `${WHAT_IS_SENT} (${delivery.files} files, ${mb} MB) are too large to attach; they are on a read-only page you can open until ${delivery.expiresAt}:\n${delivery.url}`;
+}
+
 /** The values of the placeholders for a decided lot. */
-export function evidenceValues(report: LotReportData, claimRef: string): EvidenceValues {
+export function evidenceValues(report: LotReportData, claimRef: string, delivery: FilesDelivery): EvidenceValues {
   const decision = report.decision;
   const verdict = decision?.verdict === "reject" ? "rejected" : decision?.verdict === "accept" ? "accepted" : "not decided";
   const disposition = decision?.disposition ? ` — ${DISPOSITION_LABELS[decision.disposition].toLowerCase()}` : "";
@@ -70,6 +87,7 @@ export function evidenceValues(report: LotReportData, claimRef: string): Evidenc
     defectives,
     reason: decision?.reason?.trim() || "—",
     claimRef,
+    files: filesSentence(delivery),
     workspace: report.workspaceName,
   };
 }
@@ -114,4 +132,11 @@ export function templateProblemMessage(what: "subject" | "body", template: strin
 export function fillTemplate(template: string, values: EvidenceValues): string {
   if (checkTemplate(template).problems.length) throw new RangeError("fillTemplate: the template has problems; check it first");
   return template.replace(/\{\{([^{}]*)\}\}/g, (_, name: string) => values[name.trim() as EvidencePlaceholder]);
+}
+
+/** The e-mail's text: the body filled in; files sent by link whose body leaves out {{files}} get the link sentence at the end. */
+export function evidenceText(body: string, values: EvidenceValues, delivery: FilesDelivery): string {
+  const text = fillTemplate(body, values);
+  if (delivery.kind === "attached" || checkTemplate(body).used.includes("files")) return text;
+  return `${text.trimEnd()}\n\n${values.files}`;
 }

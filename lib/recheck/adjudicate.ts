@@ -68,7 +68,16 @@ export async function adjudicate(actor: Actor, recheckId: string, input: Adjudic
     });
     const lot = await getLotStatus({ workspaceId: actor.workspaceId, lotId: unit.lotId }, tx);
     const decidedLotAffected = lot?.status === "decided" && chosen.final !== first.finalGrade;
-    await settleRecheck(tx, { workspaceId: actor.workspaceId, recheckId, adjudicatedBy: actor.id, choice: input.choice, reason: input.reason, gradeId: row.id, decidedLotAffected });
+    await settleRecheck(tx, {
+      workspaceId: actor.workspaceId,
+      recheckId,
+      adjudicatedBy: actor.id,
+      choice: input.choice,
+      reason: input.reason,
+      gradeId: row.id,
+      grade: chosen.final,
+      decidedLotAffected,
+    });
     await logActivity(tx, {
       workspaceId: actor.workspaceId,
       actorId: actor.id,

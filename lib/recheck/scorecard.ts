@@ -7,9 +7,16 @@
  * - `graded`: inspection grades counted per grader and local day, e.g.
  *   `GROUP BY graded_by, (created_at AT TIME ZONE tz)::date` — a few thousand rows for 100 000
  *   graded units, however many units there are;
- * - `rechecks`: one row per recheck whose first grade falls in the period (5 000 is a busy
- *   quarter): grader, time of the first grade, both grades, the blind mark and the unit-level
- *   class IoU of the stored comparison (compare.ts `classes`, iou and unionPx are enough).
+ * - `rechecks`: one row per recheck whose first grade falls in the period: grader, time of the
+ *   first grade, both grades, the blind mark and the unit-level class IoU of the stored
+ *   comparison (compare.ts `classes`, iou and unionPx are enough);
+ * - or, what the API reads (db/queries/rechecks.ts), the same already counted per grader and
+ *   local week: `recheckCounts` (rechecks per first grade, recheck grade and blind mark) and
+ *   `classIouSums` (per class, the IoU summed over the blind rechecks where it was in play, and
+ *   how many). The two forms may be mixed; counted rows give the same scorecards as the rows they
+ *   count (tests/unit/recheck/scorecard.test.ts). Counted rows must lie in the period (the SQL
+ *   filters by local day); a week outside it is ignored. 5 000 rechecks over 12 weeks and 20
+ *   graders come as about a thousand counted rows, however many rechecks there are.
  *
  * Decisions:
  * - A recheck counts in the week (and period) of the grade it rechecks, in the workspace's time
@@ -36,12 +43,27 @@ export type ScorecardRecheck = {
   classes?: Readonly<Record<string, ClassIou>>;
 };
 export type GradedCount = { graderId: string; day: string; count: number };
+/** Rechecks of one grader's grades of one local week (`week`: its Monday), counted by grade pair and blind mark. */
+export type RecheckCount = {
+  graderId: string;
+  week: string;
+  firstGrade: Grade;
+  recheckGrade: Grade;
+  /** The adjudication's grade where there was one (not used here; alpha and AC1 read it, lib/recheck/team.ts `gradeSetsOf`). */
+  adjudicatedGrade?: Grade | null;
+  blind: boolean;
+  count: number;
+};
+/** Over one grader's blind rechecks of one local week where `defect` was in play (union > 0): the IoU summed, and how many. */
+export type ClassIouSum = { graderId: string; week: string; defect: string; sum: number; n: number };
 export type ScorecardInput = {
   /** First and last local day of the period, both included. */
   from: string;
   to: string;
   timeZone: string;
-  rechecks: readonly ScorecardRecheck[];
+  rechecks?: readonly ScorecardRecheck[];
+  recheckCounts?: readonly RecheckCount[];
+  classIouSums?: readonly ClassIouSum[];
   graded: readonly GradedCount[];
   settings: DriftSettings;
 };
@@ -80,12 +102,24 @@ export function buildScorecards(input: ScorecardInput): Scorecards {
     if (!inPeriod(row.day)) continue;
     weeksOf(row.graderId)[weekIndex.get(periodOfDate(row.day, "week"))!].graded += row.count;
   }
-  for (const recheck of input.rechecks) {
+  for (const recheck of input.rechecks ?? []) {
     const day = localDate(recheck.gradedAt, timeZone);
     if (!inPeriod(day)) continue;
     const week = weeksOf(recheck.graderId)[weekIndex.get(periodOfDate(day, "week"))!];
     if (recheck.blind) week.tally.add(recheck.firstGrade, recheck.recheckGrade, recheck.classes);
     else week.notBlind++;
+  }
+
+  for (const row of input.recheckCounts ?? []) {
+    const index = weekIndex.get(row.week);
+    if (index === undefined) continue;
+    const week = weeksOf(row.graderId)[index];
+    if (row.blind) week.tally.addCount(row.firstGrade, row.recheckGrade, row.count);
+    else week.notBlind += row.count;
+  }
+  for (const row of input.classIouSums ?? []) {
+    const index = weekIndex.get(row.week);
+    if (index !== undefined) weeksOf(row.graderId)[index].tally.addClassSum(row.defect, row.sum, row.n);
   }
 
   const driftWindow = weeks.slice(-input.settings.driftWeeks);

@@ -1,8 +1,10 @@
 import "server-only";
 /**
  * The scorecards of a period, read for the screen and the CSV: the SQL counts grades per grader
- * and day and lists the period's submitted rechecks (db/queries/rechecks.ts); the figures come
- * from the pure cores (scorecard.ts per grader and week, team.ts for alpha and AC1).
+ * and day (kept as grades are recorded), and the period's submitted rechecks per grader, week and
+ * grade pair, with class IoU sums and grade sets (db/queries/rechecks.ts); the figures come from
+ * the pure cores (scorecard.ts per grader and week, team.ts for alpha and AC1). The read's cost
+ * is measured by bench/scorecards-api.ts.
  *
  * Decisions:
  * - Default period: the 12 weeks up to today (the week in progress included), local dates in
@@ -13,14 +15,13 @@ import "server-only";
  * - The 95 % intervals are the analytic ones of lib/agreement (Fleiss–Cohen–Everitt standard
  *   error for kappa, Wilson for shares), not a bootstrap.
  */
-import { countGradesByGraderAndDay, listSubmittedRechecksForPeriod, listWorkspaceUserNames } from "@/db/queries/rechecks";
+import { countGradesByGraderAndDay, countRechecksByGraderAndWeek, listWorkspaceUserNames, sumClassIouByGraderAndWeek } from "@/db/queries/rechecks";
 import type { SessionUser } from "@/lib/auth/require-user";
-import type { Grade } from "@/lib/grading/rubric-schema";
 import { localDate, nextPeriod, periodOfDate } from "@/lib/time/periods";
 import { recheckSettings } from "./recording";
 import type { ScorecardQuery } from "./schemas";
 import { buildScorecards } from "./scorecard";
-import { multiRaterAgreement } from "./team";
+import { gradeSetsOf, multiRaterAgreement } from "./team";
 
 const DAY_MS = 86_400_000;
 
@@ -37,23 +38,18 @@ export async function readScorecards(actor: Pick<SessionUser, "workspaceId">, qu
   const from = query.from ?? (query.to ? periodOfDate(query.to, "week") : fallback.from);
   const to = query.to ?? fallback.to;
   const key = { workspaceId: actor.workspaceId, from, to, timeZone };
-  const [graded, rows, names] = await Promise.all([countGradesByGraderAndDay(key), listSubmittedRechecksForPeriod(key), listWorkspaceUserNames(actor)]);
-  const cards = buildScorecards({
-    from,
-    to,
-    timeZone,
-    graded,
-    settings,
-    rechecks: rows.map((row) => ({
-      graderId: row.grader_id,
-      gradedAt: row.graded_at,
-      firstGrade: row.first_grade as Grade,
-      recheckGrade: row.recheck_grade as Grade,
-      blind: !row.not_blind,
-      classes: row.classes ?? undefined,
-    })),
-  });
-  const team = multiRaterAgreement(rows.filter((row) => !row.not_blind).map((row) => [row.first_grade, row.recheck_grade, ...(row.adjudicated_grade ? [row.adjudicated_grade] : [])] as Grade[]));
+  // Counted in SQL (db/queries/rechecks.ts): hundreds of rows come back, not one per grade or recheck,
+  // so the work here does not grow with the period's grades and rechecks.
+  const [graded, recheckCounts, classIouSums, names] = await Promise.all([
+    countGradesByGraderAndDay(key),
+    countRechecksByGraderAndWeek(key),
+    sumClassIouByGraderAndWeek(key),
+    listWorkspaceUserNames(actor),
+  ]);
+  const cards = buildScorecards({ from, to, timeZone, graded, settings, recheckCounts, classIouSums });
+  // Each counted grade set stands for `count` units graded alike (alpha and AC1 take the counts as weights).
+  const { units, counts } = gradeSetsOf(recheckCounts);
+  const team = multiRaterAgreement(units, { counts });
   return {
     ...cards,
     settings,

@@ -40,13 +40,12 @@ type Actor = Pick<SessionUser, "id" | "workspaceId">;
 
 async function measureWithOwnRegions(tx: Tx, user: Actor, recheck: LockedRecheck) {
   const key = { workspaceId: user.workspaceId, unitId: recheck.unitId };
-  const [unit, photos, sets, rubric, checklist] = await Promise.all([
-    getBlindUnit(key, tx),
-    listBlindPhotos(key, tx),
-    listRecheckRegionSets({ workspaceId: user.workspaceId, recheckId: recheck.id }, tx),
-    getRubricVersionNumber({ workspaceId: user.workspaceId, rubricVersionId: recheck.rubricVersionId }, tx),
-    getChecklistState(key, tx),
-  ]);
+  // One after another: a transaction is one connection, and pg refuses overlapping queries on a client from pg@9 (a warning now).
+  const unit = await getBlindUnit(key, tx);
+  const photos = await listBlindPhotos(key, tx);
+  const sets = await listRecheckRegionSets({ workspaceId: user.workspaceId, recheckId: recheck.id }, tx);
+  const rubric = await getRubricVersionNumber({ workspaceId: user.workspaceId, rubricVersionId: recheck.rubricVersionId }, tx);
+  const checklist = await getChecklistState(key, tx);
   if (!unit || !rubric) throw notFound("That recheck");
   const setOf = new Map(sets.map((set) => [set.photoId, set]));
   const inputs: UnitPhotoInput[] = photos.map((photo) => {

@@ -50,6 +50,24 @@ export class AgreementTally {
     }
   }
 
+  /** `count` rechecks graded `first` and then `recheck` (rows the database counted, lib/recheck/scorecard.ts). */
+  addCount(first: Grade, recheck: Grade, count: number): void {
+    if (!Number.isInteger(count) || count < 0) throw new RangeError(`A recheck count is a whole number >= 0; got ${count}.`);
+    this.table[rankOf(first)][rankOf(recheck)] += count;
+    this.n += count;
+  }
+
+  /** The IoU of `n` rechecks where the class was in play, summed (the database's sum of what `add` adds one by one). */
+  addClassSum(defect: string, sum: number, n: number): void {
+    if (!Number.isInteger(n) || n < 0) throw new RangeError(`A count of rechecks is a whole number >= 0; ${defect} has ${n}.`);
+    if (!(sum >= 0 && sum <= n)) throw new RangeError(`${n} IoU values between 0 and 1 sum to between 0 and ${n}; ${defect} has ${sum}.`);
+    if (n === 0) return;
+    const entry = this.classes.get(defect) ?? { sum: 0, n: 0 };
+    entry.sum += sum;
+    entry.n += n;
+    this.classes.set(defect, entry);
+  }
+
   addTally(other: AgreementTally): void {
     other.table.forEach((row, i) => row.forEach((count, j) => (this.table[i][j] += count)));
     this.n += other.n;

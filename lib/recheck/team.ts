@@ -29,19 +29,50 @@ export type MultiRaterFigures = {
   ac1: number;
 };
 
-export function multiRaterAgreement(units: readonly (readonly Grade[])[], options: { minGrades?: number } = {}): MultiRaterFigures {
+/**
+ * `counts` (optional, one whole number per entry of `units`): entry i stands for counts[i] units
+ * graded alike — the scorecards pass the period's grade sets counted in SQL, so the work does not
+ * grow with the number of rechecks. The figures equal those of the units written out.
+ */
+export function multiRaterAgreement(units: readonly (readonly Grade[])[], options: { minGrades?: number; counts?: readonly number[] } = {}): MultiRaterFigures {
   const minGrades = options.minGrades ?? 2;
   if (!Number.isInteger(minGrades) || minGrades < 2) throw new RangeError(`Agreement needs units with at least two grades; minGrades was ${minGrades}.`);
-  const rated = units.filter((unit) => unit.length >= minGrades);
+  if (options.counts && options.counts.length !== units.length) throw new RangeError(`counts must have one entry per unit (${units.length}), got ${options.counts.length}.`);
+  const kept = units.map((unit, index) => ({ unit, count: options.counts?.[index] ?? 1 })).filter(({ unit, count }) => unit.length >= minGrades && count > 0);
+  const rated = kept.map(({ unit }) => unit);
+  const weights = kept.map(({ count }) => count);
+  const total = (of: (unit: readonly Grade[]) => number) => kept.reduce((sum, { unit, count }) => sum + count * of(unit), 0);
   const slots = rated.reduce((most, unit) => Math.max(most, unit.length), 0);
   // Krippendorff's data layout: one row per "rating slot", one entry per unit, null where a unit
   // has fewer grades; alpha depends only on the grades within each unit, not on who is in a row.
   const rows = Array.from({ length: slots }, (_, slot) => rated.map((unit) => unit[slot] ?? null));
   return {
-    units: rated.length,
-    unitsWithMoreThanTwo: rated.filter((unit) => unit.length > 2).length,
-    grades: rated.reduce((total, unit) => total + unit.length, 0),
-    alphaOrdinal: rated.length === 0 ? Number.NaN : krippendorffAlpha(rows, { metric: "ordinal", categories: GRADES }),
-    ac1: gwetAc1Units(rated, { categories: GRADES }),
+    units: total(() => 1),
+    unitsWithMoreThanTwo: total((unit) => (unit.length > 2 ? 1 : 0)),
+    grades: total((unit) => unit.length),
+    alphaOrdinal: rated.length === 0 ? Number.NaN : krippendorffAlpha(rows, { metric: "ordinal", categories: GRADES, weights }),
+    ac1: gwetAc1Units(rated, { categories: GRADES, weights }),
   };
+}
+
+/** Rechecks counted alike (lib/recheck/scorecard.ts `RecheckCount`, read per grader and week). */
+type CountedRecheck = { firstGrade: Grade; recheckGrade: Grade; adjudicatedGrade?: Grade | null; blind: boolean; count: number };
+
+/**
+ * The blind rechecks' grade sets (first grade, recheck grade, and the adjudicated grade where
+ * there was one) with how many units share each, summed over graders and weeks: the `units` and
+ * `counts` that `multiRaterAgreement` takes. Not-blind rechecks are left out, as in the scorecards.
+ */
+export function gradeSetsOf(rows: readonly CountedRecheck[]): { units: Grade[][]; counts: number[] } {
+  const sets = new Map<string, { unit: Grade[]; count: number }>();
+  for (const row of rows) {
+    if (!row.blind) continue;
+    const unit = [row.firstGrade, row.recheckGrade, ...(row.adjudicatedGrade ? [row.adjudicatedGrade] : [])];
+    const key = unit.join("|");
+    const set = sets.get(key);
+    if (set) set.count += row.count;
+    else sets.set(key, { unit, count: row.count });
+  }
+  const list = [...sets.values()];
+  return { units: list.map((set) => set.unit), counts: list.map((set) => set.count) };
 }

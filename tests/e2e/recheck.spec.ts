@@ -95,7 +95,25 @@ test("a graded unit is drawn, rechecked blind, adjudicated by a lead, and the un
     expect(html).not.toContain("first-scratch");
     await shots(page, "recheck-bench", (n) => testInfo.outputPath(n));
 
-    // Marks nothing of the kind and grades A instead (its own measurement proposes A).
+    // Marks a dent of its own (a Box; Dent is the first class) on the part's right half in the front photo,
+    // away from the lens window, in its separate region set; one dent is under the rubric's count of 2, so
+    // its measurement proposes A where the first grade was B.
+    await page.getByTestId("tool-box").click();
+    const stage = page.getByTestId("annotation-stage");
+    const at = async (x: number, y: number) => {
+      const [zoom, ox, oy] = await Promise.all(["data-zoom", "data-offset-x", "data-offset-y"].map(async (name) => Number(await stage.getAttribute(name))));
+      const box = (await stage.boundingBox())!;
+      return { x: box.x + ox + x * zoom, y: box.y + oy + y * zoom };
+    };
+    const [from, to] = [await at(900, 480), await at(980, 550)];
+    await page.mouse.move(from.x, from.y);
+    await page.mouse.down();
+    await page.mouse.move(to.x, to.y, { steps: 6 });
+    await page.mouse.up();
+    await expect(stage).toHaveAttribute("data-region-count", "1");
+    await expect(page.getByTestId("save-status")).toHaveAttribute("data-state", "saved", { timeout: 15_000 });
+    const own = await pool.query<{ payload: { regions: { defect: string; shape: { kind: string } }[] } }>("SELECT payload FROM recheck_region_sets WHERE recheck_id = $1", [drawn.rows[0].id]);
+    expect(own.rows.flatMap((row) => row.payload.regions.map((r) => [r.defect, r.shape.kind]))).toEqual([["dent", "rect"]]);
     await page.getByRole("button", { name: "Measure", exact: true }).click();
     await expect(page.getByTestId("recheck-proposal")).toHaveText("A", { timeout: 30_000 });
     await page.getByRole("button", { name: "Submit my grade" }).click();
@@ -108,6 +126,9 @@ test("a graded unit is drawn, rechecked blind, adjudicated by a lead, and the un
     await page.goto(`/recheck/adjudications/${drawn.rows[0].id}`);
     const screen = page.getByTestId("adjudication");
     await expect(screen).toContainText("First grade");
+    // Both region sets are there to compare: the first grader's scratch and the auditor's dent, on the front photo.
+    await expect(screen).toContainText("First grade's regions (1)");
+    await expect(screen).toContainText("Recheck's regions (1)");
     await shots(page, "adjudication", (n) => testInfo.outputPath(n));
     await page.getByLabel("The recheck (A)").check();
     await page.getByLabel("Reason").fill("The first mark is on the card, not on the part.");

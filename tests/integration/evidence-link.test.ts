@@ -77,14 +77,22 @@ describe("evidence links", () => {
     expect(preview.delivery).toBe("link");
     expect(preview.totalBytes).toBeGreaterThan(1_000_000);
     expect(preview.text).toContain("[the evidence link, made when you send]");
+    // The message says where the files are: behind the link, never "attached".
+    expect(preview.text).not.toContain("are attached");
 
-    sent = await ok(api(lead, "POST", `/api/lots/${lotId}/evidence`, draft({ claimRef: `LNK-${tag}` })), "send", 202);
+    // Sent with the template the lead starts from (the evidence panel's), which names {{files}}.
+    const { template } = await ok(api<{ template: { body: string } }>(lead, "GET", `/api/lots/${lotId}/evidence`), "template");
+    sent = await ok(api(lead, "POST", `/api/lots/${lotId}/evidence`, draft({ claimRef: `LNK-${tag}`, body: template.body })), "send", 202);
     expect(sent.evidencePack.delivery).toBe("link");
     const message = await until("the link e-mail in the inbox", async () => (await parsedMessagesTo(contact)).find((m) => m.subject.includes(`LNK-${tag}`)));
     expect(message.attachments).toEqual([]);
     const found = message.text.match(/https?:\/\/\S+\/evidence\/\S+/);
     expect(found, message.text).not.toBeNull();
     linkUrl = found![0];
+    expect(message.text).not.toContain("are attached");
+    expect(message.text).toContain("are too large to attach; they are on a read-only page you can open until");
+    // In the default template's place for them, before the sign-off.
+    expect(message.text.indexOf(linkUrl)).toBeLessThan(message.text.indexOf("Regards,"));
     expect(linkUrl.startsWith(`${BASE_URL}/evidence/`)).toBe(true);
     // One object per file, named by the pack.
     expect(await storedKeys()).toEqual(sent.evidencePack.attachments.map((_, i) => `evidence/${workspaceId}/${sent.evidencePack.id}/${i}`).sort());

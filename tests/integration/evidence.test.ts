@@ -72,7 +72,8 @@ describe("evidence packs", () => {
         lead,
         "POST",
         `/api/lots/${ids.lotId}/evidence`,
-        draft({ claimRef: `RMA-${tag}` }),
+        // The template the lead starts from (the evidence panel's), which names {{files}}.
+        draft({ claimRef: `RMA-${tag}`, body: (await ok(api<{ template: { body: string } }>(lead, "GET", `/api/lots/${ids.lotId}/evidence`), "template")).template.body }),
       ),
       "send",
       202,
@@ -84,6 +85,9 @@ describe("evidence packs", () => {
     });
     expect(email.kind).toBe("supplier_evidence");
     const message = await until("the message in the inbox", async () => (await parsedMessagesTo(contact)).find((m) => m.subject.includes(`RMA-${tag}`)));
+    // The message says the files are attached (they are), and nothing of a link.
+    expect(message.text).toContain("and a table of the sampled units are attached.");
+    expect(message.text).not.toMatch(/evidence link|too large/);
     const byType = (type: string) => message.attachments.filter((a) => a.contentType.startsWith(type));
     const [pdf] = byType("application/pdf");
     const text = flatText(await pdfText(pdf.content));

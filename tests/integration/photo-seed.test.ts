@@ -18,9 +18,15 @@ beforeAll(async () => {
 it("photographs every view of two units per lot through the upload pipeline", { timeout: 120_000 }, async () => {
   const result = await seedPhotos({ lotIds: lots.map((l) => l.lotId) });
   // 5 display views × 2 units + 3 camera views × 2 units, plus one photo handed in for a second unit.
-  expect(result).toEqual({ photos: 17, units: 4, reused: 1 });
+  expect(result).toMatchObject({ photos: 17, units: 4, reused: 1 });
   const rows = (await Promise.all(lots.flatMap((l) => l.unitIds).map(photoRowsFor))).flat();
   expect(rows).toHaveLength(17);
+  // What was planted on each rendered photo (the recheck demo marks it): marks on the first unit of each lot only.
+  expect(result.planted).toHaveLength(16);
+  expect(result.planted.every((p) => rows.some((r) => r.id === p.photoId && r.unitId === p.unitId))).toBe(true);
+  const firstUnits = new Set(lots.map((l) => l.unitIds[0]));
+  expect(result.planted.filter((p) => p.regions.length > 0).every((p) => firstUnits.has(p.unitId))).toBe(true);
+  expect(result.planted.filter((p) => firstUnits.has(p.unitId)).some((p) => p.regions.length > 0)).toBe(true);
   expect(rows.every((r) => r.status === "ready")).toBe(true);
   // Every demo photo is drawn upright at 1600 × 1200; those stored for Exif 6 and 8 are 1200 × 1600
   // rasters, which CIPA DC-008 turns back to 1600 × 1200 (90° clockwise / counter-clockwise). (a)

@@ -127,6 +127,7 @@ describe("adjudication", () => {
       .limit(1);
     expect(entry).toMatchObject({ action: "lot.decided_lot_affected" });
     const [recheck] = await db().select().from(rechecks).where(eq(rechecks.id, recheckId));
-    expect(recheck).toMatchObject({ status: "settled", adjudicationChoice: "own", decidedLotAffected: true });
+    // The scorecards read the adjudicated grade from the recheck row (migration scorecard_reads).
+    expect(recheck).toMatchObject({ status: "settled", adjudicationChoice: "own", adjudicatedGrade: "B", decidedLotAffected: true });
   });
 });

@@ -4,12 +4,13 @@
  * auditors' submissions are stored directly (their steps are recheck-blind.test.ts's subject).
  * Figures by hand (HAND); kappa itself is checked against published examples in the unit tests.
  */
-import { eq } from "drizzle-orm";
+import { eq, sql } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db/client";
-import { rechecks } from "@/db/schema";
+import { grades, rechecks } from "@/db/schema";
 import { gradeAgreement, gradeSteps } from "@/lib/grading/grade-steps";
 import type { Grade } from "@/lib/grading/rubric-schema";
+import { createPartType, createUnit, insertRubricVersion } from "../support/grading";
 import { api } from "../support/http";
 import { gradedUnit, RECHECK_DEFAULTS, recheckWorld, type RecheckWorld } from "../support/recheck";
 
@@ -104,6 +105,89 @@ describe("GET /api/recheck/scorecards", () => {
   it("is for auditors and leads only", async () => {
     expect((await api(world.inspector, "GET", "/api/recheck/scorecards")).status).toBe(403);
     expect((await api(world.inspector, "GET", "/api/recheck/scorecards/csv")).status).toBe(403);
+  });
+});
+
+/** grader_day_counts as stored, and as counted from the grades themselves in the workspace's time zone now. */
+async function dayCounts(workspaceId: string) {
+  const stored = await db().execute<{ grader_id: string; day: string; graded: number }>(
+    sql`SELECT grader_id, to_char(day, 'YYYY-MM-DD') AS day, graded FROM grader_day_counts WHERE workspace_id = ${workspaceId} ORDER BY day, grader_id`,
+  );
+  const counted = await db().execute<{ grader_id: string; day: string; graded: number }>(sql`
+    SELECT g.graded_by AS grader_id, to_char((g.created_at AT TIME ZONE w.time_zone)::date, 'YYYY-MM-DD') AS day, count(*)::int AS graded
+    FROM grades g JOIN workspaces w ON w.id = g.workspace_id
+    WHERE g.workspace_id = ${workspaceId} AND g.kind = 'inspection' GROUP BY 1, 2 ORDER BY 2, 1`);
+  return { stored: stored.rows, counted: counted.rows };
+}
+
+describe("what the scorecards read instead of every grade (migration scorecard_reads)", () => {
+  it("the per-day counts equal the grades' own count, and recheck rows carry their grade's facts", async () => {
+    const { stored, counted } = await dayCounts(world.workspaceId);
+    expect(counted.reduce((n, row) => n + row.graded, 0)).toBe(3);
+    expect(stored).toEqual(counted);
+    const copies = await db().execute<{ same: boolean }>(sql`
+      SELECT r.first_grade = g.final_grade AND r.first_graded_at = g.created_at AND r.first_grader_id = g.graded_by AS same
+      FROM rechecks r JOIN grades g ON g.id = r.grade_id WHERE r.workspace_id = ${world.workspaceId}`);
+    expect(copies.rows.map((row) => row.same)).toEqual([true, true, true]);
+  });
+
+  it("only inspection grades count, on their local day, and a change of time zone recounts the days", async () => {
+    const other = await recheckWorld();
+    const partType = await createPartType(other.workspaceId);
+    const v1 = await insertRubricVersion({ workspaceId: other.workspaceId, partTypeId: partType.id, version: 1, status: "published" });
+    const unit = await createUnit({ workspaceId: other.workspaceId, partTypeId: partType.id, createdBy: other.lead.id });
+    const grade = (kind: "inspection" | "adjudication", gradedBy: string, at: string) => ({
+      workspaceId: other.workspaceId,
+      unitId: unit.id,
+      kind,
+      proposedGrade: "A" as const,
+      finalGrade: "A" as const,
+      rubricVersionId: v1.id,
+      measurementIds: [],
+      explanation: { lines: [], notes: [] },
+      regionsVersions: {},
+      gradedBy,
+      createdAt: new Date(at),
+    });
+    // HAND: 23:30 UTC on 5 January is 6 January in Kiritimati (UTC+14) and still 5 January in UTC.
+    await db()
+      .insert(grades)
+      .values([
+        grade("inspection", other.inspector.id, "2026-01-05T23:30:00Z"),
+        grade("inspection", other.inspector.id, "2026-01-05T08:00:00Z"),
+        grade("inspection", other.inspector2.id, "2026-01-05T23:45:00Z"),
+        grade("adjudication", other.lead.id, "2026-01-05T12:00:00Z"),
+      ]);
+    const inspector = other.inspector.id;
+    const inspector2 = other.inspector2.id;
+    const byDay = (rows: { grader_id: string; day: string; graded: number }[]) =>
+      rows.map((row) => [row.grader_id === inspector ? "inspector" : row.grader_id === inspector2 ? "inspector2" : row.grader_id, row.day, row.graded]);
+    let counts = await dayCounts(other.workspaceId);
+    expect(counts.stored).toEqual(counts.counted);
+    expect(byDay(counts.stored)).toEqual(
+      expect.arrayContaining([
+        ["inspector", "2026-01-05", 2],
+        ["inspector2", "2026-01-05", 1],
+      ]),
+    );
+    expect(counts.stored).toHaveLength(2);
+
+    const changed = await api(other.lead, "PATCH", "/api/workspace", { timeZone: "Pacific/Kiritimati" });
+    expect(changed.status, JSON.stringify(changed.body)).toBe(200);
+    counts = await dayCounts(other.workspaceId);
+    expect(counts.stored).toEqual(counts.counted);
+    expect(byDay(counts.stored)).toEqual(
+      expect.arrayContaining([
+        ["inspector", "2026-01-05", 1],
+        ["inspector", "2026-01-06", 1],
+        ["inspector2", "2026-01-06", 1],
+      ]),
+    );
+    expect(counts.stored).toHaveLength(3);
+    // And the scorecards read them in the new zone.
+    const res = await api<View>(other.lead, "GET", "/api/recheck/scorecards?from=2026-01-05&to=2026-01-11");
+    expect(res.status).toBe(200);
+    expect(Object.fromEntries(res.body.graders.map((g) => [g.graderId, g.graded]))).toEqual({ [inspector]: 2, [inspector2]: 1 });
   });
 });
 

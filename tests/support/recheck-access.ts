@@ -4,6 +4,7 @@
  * the matrix is its grader), held by nobody.
  */
 import { db } from "@/db/client";
+import { firstGradeFacts } from "@/db/queries/rechecks";
 import { grades, rechecks } from "@/db/schema";
 import { createUser } from "./db";
 import { createMeasurableUnit } from "./grading";
@@ -31,7 +32,17 @@ export async function recheckFixtureIds(lead: Session): Promise<Record<string, s
     .returning();
   const [recheck] = await db()
     .insert(rechecks)
-    .values({ workspaceId, unitId: unit.id, gradeId: grade.id, firstGraderId: grader.id, partTypeId: partType.id, rubricVersionId: v1.id, reason: "by_hand", sentBy: leadId })
+    .values({
+      workspaceId,
+      unitId: unit.id,
+      gradeId: grade.id,
+      firstGraderId: grader.id,
+      ...firstGradeFacts(grade.id),
+      partTypeId: partType.id,
+      rubricVersionId: v1.id,
+      reason: "by_hand",
+      sentBy: leadId,
+    })
     .returning();
   return { recheckId: recheck.id, recheckPhotoId: photo.id };
 }

@@ -200,4 +200,28 @@ describe("krippendorffAlpha: grades, degenerate cases and bad input", () => {
     ).toThrow(/interval metric needs numbers/);
     expect(() => krippendorffAlpha([[1, 2]], { metric: "ratio" as never })).toThrow(/metric must be/);
   });
+
+  it("weights: a unit of weight w gives the alpha of its column repeated w times (K11, REF data; every metric)", () => {
+    for (const data of [K11_4x12, WIKI_3x15]) {
+      const weights = data[0].map((_, unit) => (unit % 3) + 1);
+      const repeated = data.map((row) => row.flatMap((value, unit) => Array.from({ length: weights[unit] }, () => value)));
+      for (const metric of ["nominal", "ordinal", "interval"] as const) {
+        const weighted = krippendorffAlpha(data, { metric, weights });
+        expect(weighted).toBeCloseTo(krippendorffAlpha(repeated, { metric }), 12);
+        expect(Math.abs(weighted - krippendorffAlpha(data, { metric }))).toBeGreaterThan(1e-6);
+      }
+    }
+    // Weights of 1 change nothing: K11's ordinal 0.815 (K11 a).
+    expect(round(krippendorffAlpha(K11_4x12, { metric: "ordinal", weights: new Array(12).fill(1) }), 3)).toBe(0.815);
+    expect(() => krippendorffAlpha(K11_4x12, { metric: "ordinal", weights: [1, 2] })).toThrow(/one entry per unit \(12\)/);
+    expect(() =>
+      krippendorffAlpha(
+        [
+          [1, 2],
+          [1, 2],
+        ],
+        { metric: "nominal", weights: [1, -1] },
+      ),
+    ).toThrow(/whole number >= 0/);
+  });
 });

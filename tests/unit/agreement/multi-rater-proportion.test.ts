@@ -94,6 +94,21 @@ describe("gwetAc1Units", () => {
     ).toBeCloseTo(twoRater, 12);
   });
 
+  it("weights: a unit of weight w gives the AC1 of that unit repeated w times (IRR data)", () => {
+    for (const [units, categories] of [
+      [FOUR_RATERS, [1, 2, 3, 4, 5]],
+      [FIVE_OBSERVERS, [0, 1, 2, 3]],
+    ] as const) {
+      const weights = units.map((_, unit) => (unit % 3) + 1);
+      const repeated = units.flatMap((unit, index) => Array.from({ length: weights[index] }, () => unit));
+      const weighted = gwetAc1Units(units, { categories, weights });
+      expect(weighted).toBeCloseTo(gwetAc1Units(repeated, { categories }), 12);
+      expect(Math.abs(weighted - gwetAc1Units(units, { categories }))).toBeGreaterThan(1e-6);
+    }
+    expect(round(gwetAc1Units(FOUR_RATERS, { categories: [1, 2, 3, 4, 5], weights: new Array(12).fill(1) }), 3)).toBe(0.775);
+    expect(() => gwetAc1Units(FOUR_RATERS, { categories: [1, 2, 3, 4, 5], weights: [2] })).toThrow(/one entry per unit/);
+  });
+
   it("a unit rated once counts in the chance term only; NaN when no unit has two ratings", () => {
     // Hand computation: units [A,A], [B,B], [A]; p_a = 1; π_A = (1 + 0 + 1)/3, π_B = 1/3;
     // p_e = (2/3·1/3 + 1/3·2/3) / (2 − 1) = 4/9; AC1 = (1 − 4/9)/(1 − 4/9) = 1.

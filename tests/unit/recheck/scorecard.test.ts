@@ -7,7 +7,8 @@
  */
 import { describe, expect, it } from "vitest";
 import type { Grade } from "@/lib/grading/rubric-schema";
-import { buildScorecards, type ScorecardRecheck } from "@/lib/recheck/scorecard";
+import { buildScorecards, type ClassIouSum, type RecheckCount, type ScorecardRecheck } from "@/lib/recheck/scorecard";
+import { localDate, parseDateKey, periodOfDate } from "@/lib/time/periods";
 import { DEFAULT_RECHECK_SETTINGS } from "@/lib/recheck/settings";
 
 const recheck = (graderId: string, gradedAt: string, firstGrade: Grade, recheckGrade: Grade, extra: Partial<ScorecardRecheck> = {}): ScorecardRecheck => ({
@@ -107,5 +108,54 @@ describe("buildScorecards", () => {
     expect(() => buildScorecards({ ...input, from: "2026-06-31" })).toThrow(/Not a calendar date/);
     expect(() => buildScorecards({ ...input, from: "2026-07-01" })).toThrow(/starts .* after it ends/);
     expect(() => buildScorecards({ ...input, timeZone: "Mars/Olympus" })).toThrow(RangeError);
+  });
+});
+
+/**
+ * What the scorecards SQL does (db/queries/rechecks.ts): keep the rechecks of the period's local
+ * days, count them per grader, local week, grade pair and blind mark, and sum the blind ones'
+ * class IoU where the class was in play. Written out here so the two forms can be compared.
+ */
+function countedLikeTheDatabase(rows: readonly ScorecardRecheck[], from: string, to: string, timeZone: string) {
+  const counts = new Map<string, RecheckCount>();
+  const sums = new Map<string, ClassIouSum>();
+  for (const row of rows) {
+    const day = localDate(row.gradedAt, timeZone);
+    if (parseDateKey(day) < parseDateKey(from) || parseDateKey(day) > parseDateKey(to)) continue;
+    const week = periodOfDate(day, "week");
+    const key = [row.graderId, week, row.firstGrade, row.recheckGrade, row.blind].join("|");
+    const count = counts.get(key) ?? { graderId: row.graderId, week, firstGrade: row.firstGrade, recheckGrade: row.recheckGrade, blind: row.blind, count: 0 };
+    count.count++;
+    counts.set(key, count);
+    if (!row.blind) continue;
+    for (const [defect, { iou, unionPx }] of Object.entries(row.classes ?? {})) {
+      if (!(unionPx > 0)) continue;
+      const sum = sums.get(`${row.graderId}|${week}|${defect}`) ?? { graderId: row.graderId, week, defect, sum: 0, n: 0 };
+      sum.sum += iou;
+      sum.n++;
+      sums.set(`${row.graderId}|${week}|${defect}`, sum);
+    }
+  }
+  return { recheckCounts: [...counts.values()], classIouSums: [...sums.values()] };
+}
+
+describe("buildScorecards from counted rows", () => {
+  it("gives the same scorecards as the rows it counts (every figure, trend and drift flag)", () => {
+    const counted = countedLikeTheDatabase(input.rechecks, input.from, input.to, input.timeZone);
+    // Fewer rows than rechecks: bo's ten are two counted rows (3 B→B and 7 B→C, all in one week).
+    expect(counted.recheckCounts.length).toBeLessThan(input.rechecks.length);
+    const fromCounts = buildScorecards({ ...input, rechecks: undefined, ...counted });
+    expect(fromCounts).toEqual(buildScorecards(input));
+    // And mixed: half as rows, half counted.
+    const half = Math.floor(input.rechecks.length / 2);
+    const mixed = buildScorecards({ ...input, rechecks: input.rechecks.slice(0, half), ...countedLikeTheDatabase(input.rechecks.slice(half), input.from, input.to, input.timeZone) });
+    expect(mixed).toEqual(buildScorecards(input));
+  });
+
+  it("ignores a counted week outside the period and refuses impossible counts and sums", () => {
+    const outside: RecheckCount = { graderId: "ann", week: "2026-05-25", firstGrade: "A", recheckGrade: "Reject", blind: true, count: 4 };
+    expect(buildScorecards({ ...input, recheckCounts: [outside] })).toEqual(buildScorecards(input));
+    expect(() => buildScorecards({ ...input, recheckCounts: [{ ...outside, week: "2026-06-01", count: 1.5 }] })).toThrow(/whole number >= 0/);
+    expect(() => buildScorecards({ ...input, classIouSums: [{ graderId: "ann", week: "2026-06-01", defect: "scratch", sum: 3, n: 2 }] })).toThrow(/sum to between 0 and 2/);
   });
 });

@@ -10,7 +10,7 @@
  */
 import { describe, expect, it } from "vitest";
 import type { Grade } from "@/lib/grading/rubric-schema";
-import { multiRaterAgreement } from "@/lib/recheck/team";
+import { gradeSetsOf, multiRaterAgreement } from "@/lib/recheck/team";
 
 const SCALE: Grade[] = ["A", "B", "C", "Reject"];
 
@@ -77,5 +77,61 @@ describe("multiRaterAgreement", () => {
     ]);
     expect(allA.alphaOrdinal).toBeNaN();
     expect(allA.ac1).toBeCloseTo(1, 12);
+  });
+
+  it("counted units give the figures of the units written out (the scorecards pass grade sets with counts)", () => {
+    // THREE_CODERS and FIVE_OBSERVERS with each unit repeated 1, 2, 3, … times, against the same units counted.
+    for (const data of [THREE_CODERS, FIVE_OBSERVERS]) {
+      const counts = data.map((_, index) => (index % 4) + 1);
+      const written = multiRaterAgreement(data.flatMap((unit, index) => Array.from({ length: counts[index] }, () => unit)));
+      const counted = multiRaterAgreement(data, { counts });
+      expect(counted.units).toBe(written.units);
+      expect(counted.unitsWithMoreThanTwo).toBe(written.unitsWithMoreThanTwo);
+      expect(counted.grades).toBe(written.grades);
+      expect(counted.alphaOrdinal).toBeCloseTo(written.alphaOrdinal, 12);
+      expect(counted.ac1).toBeCloseTo(written.ac1, 12);
+      // And not the figures of the units counted once (the counts change them).
+      expect(Math.abs(counted.alphaOrdinal - multiRaterAgreement(data).alphaOrdinal)).toBeGreaterThan(1e-6);
+    }
+    // A count of 0 leaves the unit out; a count that is not a whole number is refused.
+    expect(
+      multiRaterAgreement(
+        [
+          ["A", "B"],
+          ["A", "A"],
+        ],
+        { counts: [0, 3] },
+      ).units,
+    ).toBe(3);
+    expect(() => multiRaterAgreement([["A", "B"]], { counts: [1.5] })).toThrow(/whole number/);
+    expect(() => multiRaterAgreement([["A", "B"]], { counts: [1, 2] })).toThrow(/one entry per unit/);
+  });
+});
+
+describe("gradeSetsOf (the scorecards' counted rechecks as grade sets)", () => {
+  // REF's units with two or three grades, as rechecks (first, recheck, adjudicated), each spread over
+  // two graders and two weeks as the SQL counts them, plus rows alpha and AC1 must not see.
+  const rechecked = THREE_CODERS.filter((unit) => unit.length >= 2);
+  const rows = rechecked.flatMap(([firstGrade, recheckGrade, adjudicatedGrade], index) => [
+    { graderId: `g${index % 2}`, week: "2026-11-02", firstGrade, recheckGrade, adjudicatedGrade: adjudicatedGrade ?? null, blind: true, count: 1 },
+    { graderId: `g${(index + 1) % 2}`, week: "2026-11-09", firstGrade, recheckGrade, adjudicatedGrade: adjudicatedGrade ?? null, blind: true, count: index % 3 },
+    // Not blind: the auditor could have seen the first grade, so it is in no figure.
+    { graderId: "g0", week: "2026-11-09", firstGrade, recheckGrade: "Reject" as Grade, adjudicatedGrade: null, blind: false, count: 5 },
+  ]);
+
+  it("sums rows alike over graders and weeks, leaves out the not-blind ones, and gives the units' figures (REF)", () => {
+    const { units, counts } = gradeSetsOf(rows);
+    const figures = multiRaterAgreement(units, { counts });
+    const written = multiRaterAgreement(rechecked.flatMap((unit, index) => Array.from({ length: 1 + (index % 3) }, () => unit)));
+    expect(figures.units).toBe(written.units);
+    expect(figures.grades).toBe(written.grades);
+    expect(figures.alphaOrdinal).toBeCloseTo(written.alphaOrdinal, 12);
+    expect(figures.ac1).toBeCloseTo(written.ac1, 12);
+    // Each set once: REF's ordinal alpha 0.806721.
+    const once = gradeSetsOf(rows.filter((row) => row.week === "2026-11-02"));
+    expect(Number(multiRaterAgreement(once.units, { counts: once.counts }).alphaOrdinal.toFixed(6))).toBe(0.806721);
+    // Identical sets from different graders and weeks become one entry.
+    expect(new Set(units.map((unit) => unit.join("|"))).size).toBe(units.length);
+    expect(units.length).toBeLessThan(rechecked.length);
   });
 });

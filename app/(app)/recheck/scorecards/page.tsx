@@ -46,8 +46,9 @@ export default async function ScorecardsPage(props: PageProps<"/recheck/scorecar
         </p>
         <h1 className="page-title">Grader scorecards</h1>
         <p className="max-w-3xl text-gauge-700">
-          How often each grader&apos;s grades agree with a blind recheck of the same unit, {view.from} to {view.to} ({view.timeZone}). A recheck counts in the week of the grade it checks. Rechecks
-          whose auditor had opened the unit&apos;s inspection work are &ldquo;not blind&rdquo;: counted, never used in a figure.
+          How often each grader&apos;s grades agree with a blind recheck of the same unit, <span className="whitespace-nowrap">{view.from}</span> to{" "}
+          <span className="whitespace-nowrap">{view.to}</span> ({view.timeZone}). A recheck counts in the week of the grade it checks. Rechecks whose auditor had opened the unit&apos;s inspection work
+          are &ldquo;not blind&rdquo;: counted, never used in a figure.
         </p>
       </header>
 

@@ -1,4 +1,4 @@
-import { prepareEvidence, previewText } from "@/lib/evidence/evidence-packs";
+import { PREVIEW_LINK_URL, prepareEvidence } from "@/lib/evidence/evidence-packs";
 import { evidenceDraftSchema } from "@/lib/evidence/schemas";
 import { handler, parseJson } from "@/lib/http/route";
 import { parseId } from "@/lib/validation";
@@ -7,12 +7,12 @@ import { parseId } from "@/lib/validation";
 export const POST = handler({ permission: "evidence.send" }, async (req, ctx: RouteContext<"/api/lots/[id]/evidence/preview">, user) => {
   const lotId = parseId((await ctx.params).id, "That lot");
   const draft = await parseJson(req, evidenceDraftSchema, { maxBytes: 32 * 1024 });
-  const p = await prepareEvidence(user, lotId, draft);
+  const p = await prepareEvidence(user, lotId, draft, () => PREVIEW_LINK_URL);
   return Response.json({
     preview: {
       to: p.to,
       subject: p.subject,
-      text: previewText(p, user.timeZone),
+      text: p.text,
       claimRef: p.claimRef,
       delivery: p.delivery,
       totalBytes: p.totalBytes,
