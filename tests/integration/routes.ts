@@ -237,7 +237,7 @@ export const ROUTES: RouteRow[] = [
     body: (ids) => ({ partTypeId: ids.galleryPartTypeId, viewKey: "lens", kind: "normal", grade: "A", fileName: "route-check.jpg", contentType: "image/jpeg", bytes: 1000 }),
     allowedStatus: 201,
   },
-  // A well-formed but forged ticket: the handler itself answers 400 (real finalising is in gallery-uploads.test.ts).
+  // A well-formed but forged ticket: the handler itself answers 400 (real finalising is in gallery-photos.test.ts).
   { method: "POST", path: "/api/gallery/photos", permission: "gallery.edit", body: () => ({ ticket: `${"e30".repeat(8)}.${"x".repeat(43)}` }), allowedStatus: 400 },
   // Calibration (tests/support/calibration-access.ts: five published items, a set of them assigned to the lead, the lead's attempt started).
   { method: "GET", path: "/api/calibration/sets", permission: "calibration.manage", allowedStatus: 200 },
