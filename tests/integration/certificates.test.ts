@@ -15,25 +15,11 @@ import { certificates } from "@/db/schema";
 import { signPublicLink } from "@/lib/reports/public-links";
 import { putObject } from "@/lib/storage/s3";
 import sharp from "sharp";
-import { createPhoto, insertRubricVersion, saveRegions, workspaceIdOf, type FixtureRegion } from "../support/grading";
-import { api, BASE_URL, signIn, type Session } from "../support/http";
+import { createPhoto, insertRubricVersion, saveRegions, workspaceIdOf } from "../support/grading";
+import { SCRATCH, SURFACE } from "../support/evidence";
+import { api, BASE_URL, ok, signIn, type Session } from "../support/http";
 import { flatText, pdfText } from "../support/pdf-text";
 import { testStore } from "../support/photos";
-
-const SURFACE: FixtureRegion = {
-  clientId: "surface",
-  role: "surface",
-  shape: {
-    kind: "polygon",
-    points: [
-      [50, 50],
-      [250, 50],
-      [250, 150],
-      [50, 150],
-    ],
-  },
-};
-const SCRATCH: FixtureRegion = { clientId: "scratch", role: "defect", defect: "scratch", shape: { kind: "rect", x: 60, y: 60, width: 30, height: 10 } };
 
 let lead: Session;
 let inspector: Session;
@@ -41,12 +27,6 @@ let foreignLead: Session;
 let owner: { workspaceId: string; userId: string };
 const tag = Date.now().toString(36);
 let unitIds: string[] = [];
-
-async function ok<T>(res: Promise<{ status: number; body: T }>, what: string, status = 200): Promise<T> {
-  const r = await res;
-  if (r.status !== status) throw new Error(`${what} → ${r.status}: ${JSON.stringify(r.body)}`);
-  return r.body;
-}
 
 /** A public page as a signed-out visitor sees it. */
 async function publicPage(path: string) {

@@ -12,8 +12,8 @@ import sharp from "sharp";
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db/client";
 import { claims, evidencePacks, grades, outgoingEmails, units } from "@/db/schema";
-import { evidenceDraft as draft, evidenceWorld, inspectUnit, lotWithUnits, ok, SCRATCH, until } from "../support/evidence";
-import { api, BASE_URL, signIn, type Session } from "../support/http";
+import { evidenceDraft as draft, evidenceWorld, inspectUnit, lotWithUnits, SCRATCH, until } from "../support/evidence";
+import { api, BASE_URL, ok, signIn, type Session } from "../support/http";
 import { parsedMessagesTo } from "../support/inbox-parsed";
 import { flatText, pdfText } from "../support/pdf-text";
 

@@ -14,8 +14,8 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db/client";
 import { lots } from "@/db/schema";
 import type { Rubric } from "@/lib/grading/rubric-schema";
-import { createPhoto, insertRubricVersion, saveRegions, workspaceIdOf, type FixtureRegion } from "../support/grading";
-import { api, signIn, type Session } from "../support/http";
+import { createPhoto, FIXTURE_SURFACE, insertRubricVersion, saveRegions, workspaceIdOf, type FixtureRegion } from "../support/grading";
+import { api, ok, signIn, type Session } from "../support/http";
 
 type Defect = { severity: string; source: string; label?: string };
 type LotView = {
@@ -34,19 +34,7 @@ const RUBRIC: Rubric = {
   notes: ["Test rubric for the lot counts."],
 };
 /** Surface 200 × 100 px = 20 000 px; a 30 × 10 px scratch is 1.5 % of it (a: rectangle areas). */
-const SURFACE: FixtureRegion = {
-  clientId: "surface",
-  role: "surface",
-  shape: {
-    kind: "polygon",
-    points: [
-      [50, 50],
-      [250, 50],
-      [250, 150],
-      [50, 150],
-    ],
-  },
-};
+const SURFACE: FixtureRegion = { ...FIXTURE_SURFACE, clientId: "surface" };
 const SCRATCH: FixtureRegion = { clientId: "scratch", role: "defect", defect: "scratch", shape: { kind: "rect", x: 60, y: 60, width: 30, height: 10 } };
 const DENT: FixtureRegion = { clientId: "dent", role: "defect", defect: "dent", shape: { kind: "spot", x: 200, y: 120, radius: 4 } };
 const CRACK: FixtureRegion = {
@@ -67,12 +55,6 @@ let lead: Session;
 let inspector: Session;
 let owner: { workspaceId: string; userId: string };
 let n = 0;
-
-async function ok<T>(res: Promise<{ status: number; body: T }>, what: string, status = 200): Promise<T> {
-  const r = await res;
-  if (r.status !== status) throw new Error(`${what} → ${r.status}: ${JSON.stringify(r.body)}`);
-  return r.body;
-}
 
 /** A part type with one major checklist item, its rubric published, and a supplier buying at `supplierGrade`. */
 async function scene(supplierGrade: "A" | "B" | "C" | null) {

@@ -17,24 +17,12 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db/client";
 import { grades, lots, photos, regions, units } from "@/db/schema";
 import { putObject } from "@/lib/storage/s3";
-import { createPhoto, insertRubricVersion, saveRegions, workspaceIdOf, type FixtureRegion } from "../support/grading";
-import { api, BASE_URL, signIn, type Session } from "../support/http";
+import { createPhoto, FIXTURE_SURFACE, insertRubricVersion, saveRegions, workspaceIdOf, type FixtureRegion } from "../support/grading";
+import { api, BASE_URL, ok, signIn, type Session } from "../support/http";
 import { flatText, pdfText } from "../support/pdf-text";
 import { testStore } from "../support/photos";
 
-const SURFACE: FixtureRegion = {
-  clientId: "surface",
-  role: "surface",
-  shape: {
-    kind: "polygon",
-    points: [
-      [50, 50],
-      [250, 50],
-      [250, 150],
-      [50, 150],
-    ],
-  },
-};
+const SURFACE: FixtureRegion = { ...FIXTURE_SURFACE, clientId: "surface" };
 const SCRATCH: FixtureRegion = { clientId: "scratch", role: "defect", defect: "scratch", shape: { kind: "rect", x: 60, y: 60, width: 30, height: 10 } };
 const DENT: FixtureRegion = { clientId: "dent", role: "defect", defect: "dent", shape: { kind: "spot", x: 200, y: 120, radius: 4 } };
 const CRACK: FixtureRegion = {
@@ -60,12 +48,6 @@ let inspector: Session;
 let owner: { workspaceId: string; userId: string };
 const tag = `${Date.now().toString(36)}`;
 let ids: { partTypeId: string; supplierId: string; lotId: string; unitIds: string[]; purchaseRef: string; supplierName: string };
-
-async function ok<T>(res: Promise<{ status: number; body: T }>, what: string, status = 200): Promise<T> {
-  const r = await res;
-  if (r.status !== status) throw new Error(`${what} → ${r.status}: ${JSON.stringify(r.body)}`);
-  return r.body;
-}
 
 async function download(session: Session, path: string) {
   const res = await fetch(`${BASE_URL}${path}`, { headers: { cookie: session.cookie } });

@@ -5,30 +5,12 @@
  */
 import sharp from "sharp";
 import { putObject } from "@/lib/storage/s3";
-import { createPhoto, insertRubricVersion, saveRegions, workspaceIdOf, type FixtureRegion } from "./grading";
-import { api, type Session } from "./http";
+import { createPhoto, FIXTURE_SURFACE, insertRubricVersion, saveRegions, workspaceIdOf, type FixtureRegion } from "./grading";
+import { api, ok, type Session } from "./http";
 import { testStore } from "./photos";
 
-export const SURFACE: FixtureRegion = {
-  clientId: "surface",
-  role: "surface",
-  shape: {
-    kind: "polygon",
-    points: [
-      [50, 50],
-      [250, 50],
-      [250, 150],
-      [50, 150],
-    ],
-  },
-};
+export const SURFACE: FixtureRegion = { ...FIXTURE_SURFACE, clientId: "surface" };
 export const SCRATCH: FixtureRegion = { clientId: "scratch", role: "defect", defect: "scratch", shape: { kind: "rect", x: 60, y: 60, width: 30, height: 10 } };
-
-export async function ok<T>(res: Promise<{ status: number; body: T }>, what: string, status = 200): Promise<T> {
-  const r = await res;
-  if (r.status !== status) throw new Error(`${what} → ${r.status}: ${JSON.stringify(r.body)}`);
-  return r.body;
-}
 
 /** Polls until `read` gives a value, or fails with `what` after the deadline (waits for states, not for time). */
 export async function until<T>(what: string, read: () => Promise<T | undefined>, timeoutMs = 60_000): Promise<T> {

@@ -76,3 +76,10 @@ export async function api<T = Record<string, unknown>>(session: Session | null, 
   }
   return { status: res.status, body: parsed as T, headers: res.headers };
 }
+
+/** The body of an API answer that must have `status` (default 200); otherwise fails naming `what`, the status and the body. */
+export async function ok<T>(res: Promise<{ status: number; body: T }>, what: string, status = 200): Promise<T> {
+  const r = await res;
+  if (r.status !== status) throw new Error(`${what} → ${r.status}: ${JSON.stringify(r.body)}`);
+  return r.body;
+}
