@@ -17,12 +17,11 @@ import type { SessionUser } from "@/lib/auth/require-user";
 import type { Role } from "@/lib/auth/roles";
 import { editItem, publishItem } from "@/lib/gallery/edits";
 import { createGalleryUploadIntent, finaliseGalleryUpload } from "@/lib/gallery/uploads";
-import type { PolygonShape, Shape } from "@/lib/geometry/shape";
 import type { RegionSetPayload } from "@/lib/geometry/validate";
 import { measureUnit } from "@/lib/grading/grade-unit";
 import type { Grade } from "@/lib/grading/rubric-schema";
 import { renderAnnotatedPartPhoto, type PlantedDefect } from "./photo-art";
-import { classKeyOf } from "./photo-defects";
+import { classKeyOf, surfacePolygon } from "./photo-defects";
 
 /** Per part type: the examples to make, as [view, planted defects]; the first is the normal one. */
 const EXAMPLES: Record<string, [string, PlantedDefect[]][]> = {
@@ -90,16 +89,7 @@ type SeedPartType = typeof partTypes.$inferSelect;
 async function judge(partType: SeedPartType, viewKey: string, photo: Awaited<ReturnType<typeof renderAnnotatedPartPhoto>>, rubric: NonNullable<Awaited<ReturnType<typeof getLatestPublished>>>) {
   const known = new Set(partType.defectClasses.map((d) => d.key));
   const defects = photo.regions.map((r, i) => ({ id: `d${i + 1}`, defect: classKeyOf(r.defect), shape: r.shape })).filter((r) => known.has(r.defect));
-  const box = photo.surface as Extract<Shape, { kind: "rect" }>;
-  const surface: PolygonShape = {
-    kind: "polygon",
-    points: [
-      [box.x, box.y],
-      [box.x + box.width, box.y],
-      [box.x + box.width, box.y + box.height],
-      [box.x, box.y + box.height],
-    ],
-  };
+  const surface = surfacePolygon(photo.surface);
   const regions: RegionSetPayload = { regions: defects, surfaces: [{ id: "surface", shape: surface }], ruler: null };
   const measured = await measureUnit({
     partType: { views: partType.views, defectClasses: partType.defectClasses, nominalSizeMm: partType.nominalSizeMm, panelResolution: partType.panelResolution },

@@ -6,7 +6,7 @@
  * blot, a Spot per speck. Stroke widths and blur scale with the photo's width (1 at 1 600 px), so
  * a 12 MP render shows the same defects as the demo's 1 600 × 1 200 photos.
  */
-import type { Point, Shape } from "@/lib/geometry/shape";
+import type { Point, PolygonShape, Shape } from "@/lib/geometry/shape";
 
 export type PlantedDefect = "scratch" | "crack" | "stain" | "dust" | "dent" | "chip" | "corrosion" | "swelling" | "torn-flex" | "dead-pixel" | "stuck-pixel";
 
@@ -16,6 +16,20 @@ export type PlantedRegion = { defect: PlantedDefect; shape: Shape };
 
 /** A planted mark's class as the part types name it (lib/part-types/starter-catalogue.ts): the
  * pixel faults are named by what the pixel does; every other planted name is already a class key. */
+/** A planted part's outline (a rect) as the Surface polygon a region set holds. */
+export function surfacePolygon(outline: Shape): PolygonShape {
+  const box = outline as Extract<Shape, { kind: "rect" }>;
+  return {
+    kind: "polygon",
+    points: [
+      [box.x, box.y],
+      [box.x + box.width, box.y],
+      [box.x + box.width, box.y + box.height],
+      [box.x, box.y + box.height],
+    ],
+  };
+}
+
 export const classKeyOf = (defect: PlantedDefect): string => ({ "dead-pixel": "pixel-dark", "stuck-pixel": "pixel-lit" })[defect as string] ?? defect;
 export type Planted = { svg: string; regions: PlantedRegion[] };
 

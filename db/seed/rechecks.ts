@@ -23,7 +23,6 @@ import { getLatestPublished } from "@/db/queries/rubrics";
 import { activityLog, grades, lots, partTypes, rechecks, units, users, workspaces } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/require-user";
 import type { Role } from "@/lib/auth/roles";
-import type { PolygonShape, Shape } from "@/lib/geometry/shape";
 import { gradeAgreement, gradeSteps } from "@/lib/grading/grade-steps";
 import { recordGrade } from "@/lib/grading/grades";
 import type { Grade } from "@/lib/grading/rubric-schema";
@@ -33,7 +32,7 @@ import { sendToRecheck } from "@/lib/recheck/recording";
 import { saveRecheckRegions } from "@/lib/recheck/recheck-regions";
 import { measureRecheck, submitRecheck } from "@/lib/recheck/submit";
 import { readRegionSet, saveRegionSet } from "@/lib/regions/regions";
-import { classKeyOf } from "./photo-defects";
+import { classKeyOf, surfacePolygon } from "./photo-defects";
 import type { PlantedPhoto } from "./photos";
 
 const HOUR = 3_600_000;
@@ -198,16 +197,7 @@ async function gradeAsPlanted(inspector: SessionUser, unitId: string, planted: P
 }
 
 function regionPayload(photo: PlantedPhoto, defectClasses: Set<string>, leaveOut?: string) {
-  const box = photo.surface as Extract<Shape, { kind: "rect" }>;
-  const surface: PolygonShape = {
-    kind: "polygon",
-    points: [
-      [box.x, box.y],
-      [box.x + box.width, box.y],
-      [box.x + box.width, box.y + box.height],
-      [box.x, box.y + box.height],
-    ],
-  };
+  const surface = surfacePolygon(photo.surface);
   const regions = photo.regions
     .map((r, i) => ({ id: `seed-${photo.viewKey}-${i + 1}`, defect: classKeyOf(r.defect), shape: r.shape }))
     .filter((r) => defectClasses.has(r.defect) && r.defect !== leaveOut);

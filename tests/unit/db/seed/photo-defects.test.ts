@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { classKeyOf, type PlantedDefect } from "@/db/seed/photo-defects";
+import { classKeyOf, surfacePolygon, type PlantedDefect } from "@/db/seed/photo-defects";
 import { PART_TYPE_CATALOGUE } from "@/lib/part-types/starter-catalogue";
 
 // Every mark the seed can plant, as PlantedDefect lists them.
@@ -15,5 +15,19 @@ describe("classKeyOf", () => {
     expect(classKeyOf("dead-pixel")).toBe("pixel-dark");
     expect(classKeyOf("stuck-pixel")).toBe("pixel-lit");
     expect(classKeyOf("scratch")).toBe("scratch");
+  });
+});
+
+describe("surfacePolygon", () => {
+  it("gives a planted part's outline as the polygon of its four corners, clockwise from the top left", () => {
+    expect(surfacePolygon({ kind: "rect", x: 10, y: 20, width: 30, height: 40 })).toEqual({
+      kind: "polygon",
+      points: [
+        [10, 20],
+        [40, 20],
+        [40, 60],
+        [10, 60],
+      ],
+    });
   });
 });
