@@ -12,6 +12,7 @@ import { hash } from "@node-rs/argon2";
 import pg from "pg";
 import { benchClient, signIn as signInAs } from "../scripts/lib/bench-http";
 import { databaseUrl, demoSettings } from "../scripts/lib/settings";
+import { benchLotPlan } from "../scripts/lib/bench-plan";
 
 const settings = demoSettings();
 const BASE = process.env.BENCH_BASE_URL ?? settings.app.url;
@@ -83,8 +84,8 @@ async function setUp() {
       // 100 lots of 1 000 units each (one transaction: a run either made all of it or nothing).
       await c.query(
         `INSERT INTO lots (workspace_id, supplier_id, part_type_id, purchase_ref, quantity, received_on, due_on, inspection_level, aql_major, aql_minor, inspection_severity, plan, created_by)
-         SELECT $1, $2, $3, 'SB-' || n, 1000, current_date - 84, current_date - 80, 'II', 1.0, 2.5, 'normal', '{}', $4 FROM generate_series(1, $5::int) n`,
-        [ws, sup, pt, lead, UNITS / 1000],
+         SELECT $1, $2, $3, 'SB-' || n, 1000, current_date - 84, current_date - 80, 'II', 1.0, 2.5, 'normal', $6, $4 FROM generate_series(1, $5::int) n`,
+        [ws, sup, pt, lead, UNITS / 1000, JSON.stringify(benchLotPlan(1000, "Scorecards bench (generated)"))],
       );
       await c.query(
         `INSERT INTO units (workspace_id, lot_id, sample_index, serial, status, part_type_id, supplier_id, lot_due_on, lot_received_on, lot_created_at, graded_at)

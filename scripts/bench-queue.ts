@@ -15,6 +15,7 @@ import path from "node:path";
 import { hash } from "@node-rs/argon2";
 import pg from "pg";
 import { benchClient, signIn as signInAs } from "./lib/bench-http";
+import { benchLotPlan } from "./lib/bench-plan";
 import { databaseUrl, demoSettings, projectRoot } from "./lib/settings";
 
 const settings = demoSettings();
@@ -81,8 +82,7 @@ async function setUp() {
     );
     let sup = (await c.query("SELECT id FROM suppliers WHERE workspace_id = $1", [ws])).rows[0];
     if (!sup) sup = (await c.query("INSERT INTO suppliers (workspace_id, name, contact_email) VALUES ($1, 'Bench supplier', 'bench@supplier.example') RETURNING id", [ws])).rows[0];
-    const plan = (n: number) =>
-      JSON.stringify({ standard: "ISO 2859-1 single sampling", lotSize: n, level: "II", severity: "normal", sampleSize: n, hundredPercent: true, byDefectSeverity: {}, switchingReason: "bench" });
+    const plan = (n: number) => JSON.stringify(benchLotPlan(n, "queue benchmark"));
     async function lotWithUnits(ref: string, n: number, due: string) {
       const lot = (
         await c.query(

@@ -8,6 +8,7 @@
  * A unit that was graded in the meantime is left as it is and a new one is added to the lot.
  */
 import type pg from "pg";
+import { benchLotPlan } from "../../scripts/lib/bench-plan";
 import { PHOTO, UI_BENCH_DEFECTS } from "./scene";
 
 export const BENCH_INSPECTOR = "inspector@vellmoor.example";
@@ -54,16 +55,7 @@ export async function prepareFixture(pool: pg.Pool): Promise<UiBenchFixture> {
       [ws, LOT_REF, partType!.id],
     );
     if (!lot) {
-      const plan = {
-        standard: "ISO 2859-1 single sampling",
-        lotSize: 1,
-        level: "II",
-        severity: "normal",
-        sampleSize: 1,
-        hundredPercent: true,
-        byDefectSeverity: {},
-        switchingReason: "UI benchmark fixture",
-      };
+      const plan = benchLotPlan(1, "UI benchmark fixture");
       lot = await one<{ id: string; created_at: Date }>(
         `INSERT INTO lots (workspace_id, supplier_id, part_type_id, purchase_ref, quantity, received_on, due_on, inspection_level, aql_major, aql_minor, inspection_severity, plan, created_by)
          VALUES ($1, $2, $3, $4, 1, '2026-12-01', '2099-12-31', 'II', 1, 2.5, 'normal', $5, $6) RETURNING id, created_at`,
