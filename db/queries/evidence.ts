@@ -32,12 +32,17 @@ export async function insertClaim(tx: DbOrTx, row: { workspaceId: string; eviden
   return inserted;
 }
 
-/** How many claims the workspace numbered in a year (the app's next number follows). */
-export async function countNumberedClaims(tx: DbOrTx, { workspaceId, prefix }: { workspaceId: string; prefix: string }) {
+/**
+ * The highest number among the workspace's claim references of the form `<prefix><digits>`
+ * (case-insensitive, as references are unique), 0 when there is none. The largest, not a count:
+ * a reference a lead typed in that form would otherwise be handed out again.
+ */
+export async function lastClaimNumber(tx: DbOrTx, { workspaceId, prefix }: { workspaceId: string; prefix: string }) {
+  const pattern = `^${prefix.toUpperCase().replace(/[.*+?^${}()|[\]\\]/g, "\\$&")}([0-9]{1,9})$`;
   const [row] = await tx
-    .select({ n: sql<number>`count(*)::int` })
+    .select({ n: sql<number>`coalesce(max(substring(upper(${claims.reference}) FROM ${pattern})::int), 0)::int` })
     .from(claims)
-    .where(and(eq(claims.workspaceId, workspaceId), sql`${claims.reference} LIKE ${`${prefix}%`}`));
+    .where(and(eq(claims.workspaceId, workspaceId), sql`upper(${claims.reference}) ~ ${pattern}`));
   return row?.n ?? 0;
 }
 

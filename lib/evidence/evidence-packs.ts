@@ -13,19 +13,21 @@ import "server-only";
  * - The files are rendered before the transaction (PDF and photos take a while), then the lot is
  *   locked and checked again, so a lot reopened in between sends nothing. The text is filled in
  *   after them: whether they go attached or by link decides what it says about them.
- * - The claim reference is the lead's, or CLM-<year>-<n> numbered per workspace; a reference in
- *   use is a 409 (case-insensitive).
+ * - The claim reference is the lead's, or CLM-<year>-<n> numbered per workspace (one more than the
+ *   highest such number, typed ones included); a reference the lead typed that is in use is a
+ *   409 (case-insensitive). A numbered one taken by a pack sent at the same moment is numbered
+ *   again (up to three tries), since the lead never chose it.
  */
 import { randomUUID } from "node:crypto";
 import { transaction } from "@/db/client";
 import { logActivity } from "@/db/queries/activity";
 import {
   type EvidencePackRow,
-  countNumberedClaims,
   getClaim,
   insertQueuedEvidenceEmail,
   getLotSupplierContact,
   insertClaim,
+  lastClaimNumber,
   insertEvidencePack,
   listLotEvidencePacks,
   listSupplierEvidencePacks,
@@ -63,7 +65,7 @@ const claimPrefix = (at: Date) => `CLM-${at.getUTCFullYear()}-`;
 
 async function nextClaimReference(workspaceId: string, at: Date): Promise<string> {
   const prefix = claimPrefix(at);
-  const n = await transaction((tx) => countNumberedClaims(tx, { workspaceId, prefix }));
+  const n = await transaction((tx) => lastClaimNumber(tx, { workspaceId, prefix }));
   return `${prefix}${String(n + 1).padStart(4, "0")}`;
 }
 
@@ -120,8 +122,22 @@ const htmlOf = (text: string) =>
     .map((p) => `<p>${escapeHtml(p).replace(/\n/g, "<br>")}</p>`)
     .join("")}</body></html>`;
 
+const NUMBERING_TRIES = 3;
+const CLAIM_REF_TAKEN = "Already used.";
+
 /** Stores the pack, its claim and the queued e-mail with its delivery job, all or nothing. */
 export async function sendEvidence(user: SessionUser, lotId: string, draft: EvidenceDraft) {
+  for (let attempt = 1; ; attempt++) {
+    try {
+      return await sendOnce(user, lotId, draft);
+    } catch (err) {
+      const numberTaken = err instanceof AppError && err.fieldErrors?.claimRef === CLAIM_REF_TAKEN;
+      if (draft.claimRef || !numberTaken || attempt >= NUMBERING_TRIES) throw err;
+    }
+  }
+}
+
+async function sendOnce(user: SessionUser, lotId: string, draft: EvidenceDraft) {
   const packId = randomUUID();
   const prepared = await prepareEvidence(user, lotId, draft, (linkExpiresAt) => evidenceLinkUrl({ id: packId, linkExpiresAt }));
   const byLink = prepared.delivery === "link";
@@ -158,7 +174,7 @@ async function storePack(user: SessionUser, lotId: string, packId: string, prepa
     const claim = await insertClaim(tx, { workspaceId: user.workspaceId, evidencePackId: pack.id, supplierId: prepared.supplierId, lotId, reference: prepared.claimRef, updatedBy: user.id });
     if (!claim)
       throw new AppError("conflict", `Claim reference ${prepared.claimRef} is already used in this workspace; type another or leave it empty to have one numbered.`, {
-        fieldErrors: { claimRef: "Already used." },
+        fieldErrors: { claimRef: CLAIM_REF_TAKEN },
       });
     await logActivity(tx, {
       workspaceId: user.workspaceId,

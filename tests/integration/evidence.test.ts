@@ -173,4 +173,21 @@ describe("evidence packs", () => {
     expect((await api(foreignLead, "PATCH", `/api/claims/${anyClaim.id}`, { status: "closed", note: "", version: anyClaim.version })).status).toBe(404);
     expect(await countRows()).toEqual(before);
   });
+
+  it("an app-numbered claim follows the highest CLM number, typed ones included, and two sent at once get different numbers", async () => {
+    const prefix = `CLM-${new Date().getUTCFullYear()}-`;
+    // A reference a lead typed in the app's own form, far above anything numbered so far.
+    const typed = 800_000 + Math.floor(Math.random() * 100_000);
+    await ok(api(lead, "POST", `/api/lots/${ids.lotId}/evidence`, draft({ claimRef: `${prefix}${typed}` })), "typed", 202);
+    const { preview } = await ok(api<{ preview: { claimRef: string } }>(lead, "POST", `/api/lots/${ids.lotId}/evidence/preview`, draft()), "preview");
+    expect(preview.claimRef.startsWith(prefix)).toBe(true);
+    // Another file's pack may take the next number meanwhile; a count of claims would be far below.
+    expect(Number(preview.claimRef.slice(prefix.length))).toBeGreaterThan(typed);
+
+    const both = await Promise.all([1, 2].map(() => api<{ claim: { reference: string } }>(lead, "POST", `/api/lots/${ids.lotId}/evidence`, draft())));
+    expect(both.map((r) => r.status)).toEqual([202, 202]);
+    const [a, b] = both.map((r) => r.body.claim.reference);
+    expect(a).not.toBe(b);
+    for (const ref of [a, b]) expect(Number(ref.slice(prefix.length))).toBeGreaterThan(typed);
+  });
 });
