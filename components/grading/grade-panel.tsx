@@ -7,6 +7,7 @@ import { useForm, useWatch, type Resolver } from "react-hook-form";
 import type { z } from "zod";
 import { FormMessage } from "@/components/ui/form-field";
 import { useDateTime } from "@/components/ui/time-zone";
+import { useHydrated } from "@/components/ui/use-hydrated";
 import { GRADES } from "@/lib/grading/rubric-schema";
 import { MAX_REASON_LENGTH, recordGradeSchema } from "@/lib/grading/schemas";
 import { ApiError, apiFetch } from "@/lib/http/client";
@@ -61,6 +62,8 @@ const resolver: Resolver<FormValues> = (values, context, options) => schemaResol
 export function GradePanel(props: GradePanelProps) {
   const { unitId, canGrade, canCorrect, labels = { defects: {}, zones: {}, views: {} }, unsavedRegions = false, beforeMeasure, onGraded, readOnlyReason = null, framed = true } = props;
   const dateTime = useDateTime();
+  // A click on "Measure now" before React attaches its handler would be lost on a slow tablet.
+  const hydrated = useHydrated();
   const queryClient = useQueryClient();
   const [jobId, setJobId] = useState<string | null>(null);
   const [message, setMessage] = useState<{ kind: "error" | "success"; text: string } | null>(null);
@@ -138,7 +141,13 @@ export function GradePanel(props: GradePanelProps) {
           Measurement and proposed grade
         </h2>
         {canGrade && (
-          <button type="button" className="btn-secondary" onClick={() => measure.mutate()} disabled={measure.isPending || running || readOnlyReason !== null} title={readOnlyReason ?? undefined}>
+          <button
+            type="button"
+            className="btn-secondary"
+            onClick={() => measure.mutate()}
+            disabled={!hydrated || measure.isPending || running || readOnlyReason !== null}
+            title={readOnlyReason ?? undefined}
+          >
             {measure.isPending ? "Measuring…" : running ? "Measuring in the background…" : m ? "Measure again" : "Measure now"}
           </button>
         )}
