@@ -8,16 +8,23 @@
  *    stored 320 px thumbnails (and, for comparison, from the 2 560 px previews). Target median
  *    <= 300 ms, thumbnails included.
  * 3. Lot inspection report for a 200-unit lot with 40 defective units, each with one annotated
- *    12 MP photo: from the 12 MP originals and from the stored previews. Target <= 5 s.
+ *    photo of a 12 MP original, through the app's own path (annotateReportPhotos: fetch each stored
+ *    2 560 px preview from an S3 store, draw, encode; then the PDF), one at a time as before and a
+ *    few at a time as now; and from the 12 MP originals for comparison. Target <= 5 s.
  * Figures depend on the machine's load (printed with them), so CPU time is printed too; they are
  * printed, never asserted.
  */
-import { availableParallelism, loadavg } from "node:os";
+import fs from "node:fs";
+import os, { availableParallelism, loadavg } from "node:os";
+import path from "node:path";
+import { spawn } from "node:child_process";
 import sharp from "sharp";
 import { ANNOTATED_EDGE, renderAnnotatedPhoto } from "@/lib/imaging/annotated-photo";
 import { renderCertificatePdf } from "@/lib/reports/certificate-pdf";
 import { csvStream, type CsvColumn } from "@/lib/reports/csv-stream";
 import { renderLotReportPdf } from "@/lib/reports/lot-report-pdf";
+import { annotateReportPhotos, reportPhotoConcurrency, type ReportPhotoRow } from "@/lib/reports/lot-report-photos";
+import { createObjectStore, getObjectBuffer, putObject, type ObjectStore } from "@/lib/storage/s3";
 import type { Shape } from "@/lib/geometry/shape";
 import { makePhotoLikeJpeg } from "@/support/fixtures/make-photos";
 import { certificateFixture, lotReportFixture, REPORT_CLASSES } from "@/support/fixtures/report-data";
@@ -161,29 +168,57 @@ async function benchCertificate(label: string, sources: Buffer[]) {
   );
 }
 
-async function benchLotReport(label: string, photos: Buffer[]) {
-  const caption = (n: number) => `Unit OV-CAM-24-${1000 + n} · Front`;
-  const annotate = (n: number) =>
-    renderAnnotatedPhoto({
-      image: photos[n % photos.length],
-      regionSpace: { width: 4000, height: 3000 },
-      regions: regionsFor(n),
-      surface: SURFACE,
-      classes: REPORT_CLASSES,
-      caption: caption(n),
-      maxEdge: ANNOTATED_EDGE.report,
-    });
-  const annotating = await timed(async () => {
-    const done = [];
-    // Two at a time: one per core.
-    for (let i = 0; i < 40; i += 2) done.push(...(await Promise.all([annotate(i), annotate(i + 1)])));
-    return done.map((out, n) => ({ caption: caption(n), jpeg: out.jpeg, width: out.width, height: out.height }));
-  });
-  const pdf = await timed(() => renderLotReportPdf(lotReportFixture({ units: 200, defective: 40, photos: annotating.value })));
-  console.log(
-    `lot report, 200 units, 40 photos annotated from ${label}: ${ms(annotating.wall + pdf.wall)} (annotating ${ms(annotating.wall)}, PDF ${ms(pdf.wall)});` +
-      ` CPU ${ms(annotating.cpu + pdf.cpu)}; ${mb(pdf.value.length)}`,
+/**
+ * The lot report as the app makes it (lib/reports/lot-report-load.ts): the photos' stored objects
+ * fetched from an S3 store (a local s3rver the bench starts, as `npm start` does) and drawn by
+ * annotateReportPhotos, then the PDF. Only the rows come from memory instead of PostgreSQL (one
+ * query of a few ms). `concurrency` 1 is how the app did it before (one photo after another).
+ */
+async function benchLotReport(store: ObjectStore, label: string, keys: string[], concurrency: number) {
+  const units = new Map(Array.from({ length: 40 }, (_, n) => [`unit-${n}`, { serial: `OV-CAM-24-${1000 + n}`, sampleIndex: n * 5 + 1, grade: "C" }]));
+  const rows: ReportPhotoRow[] = Array.from({ length: 40 }, (_, n) => ({
+    unitId: `unit-${n}`,
+    viewKey: "front",
+    previewKey: keys[n],
+    width: 4000,
+    height: 3000,
+    regions: [...regionsFor(n).map((r) => ({ role: "defect" as const, defect: r.defect, shape: r.shape })), ...SURFACE.map((shape) => ({ role: "surface" as const, defect: null, shape }))],
+  }));
+  const annotating = await timed(() =>
+    annotateReportPhotos(rows, { read: (key) => getObjectBuffer(store, key), units, classes: REPORT_CLASSES, views: [{ key: "front", label: "Front" }], concurrency }),
   );
+  if (annotating.value.length !== 40) throw new Error(`expected 40 annotated photos, got ${annotating.value.length}`);
+  const pdf = await timed(() => renderLotReportPdf(lotReportFixture({ units: 200, defective: 40, photos: annotating.value })));
+  const photoBytes = annotating.value.reduce((sum, p) => sum + p.jpeg.length, 0);
+  console.log(
+    `lot report, 200 units, 40 photos fetched and annotated from ${label}, ${concurrency} at a time: ${ms(annotating.wall + pdf.wall)}` +
+      ` (fetching + annotating ${ms(annotating.wall)}, PDF ${ms(pdf.wall)}); CPU ${ms(annotating.cpu + pdf.cpu)}; PDF ${mb(pdf.value.length)},` +
+      ` photos ${annotating.value[0].width} × ${annotating.value[0].height} px, ${mb(photoBytes)} in all`,
+  );
+}
+
+/**
+ * A local S3 store for the time of `work`: s3rver (as scripts/lib/local-s3.ts runs it for `npm
+ * start`) in its own process, on a free port, over a temporary folder. Its own process, so the CPU
+ * time printed is the app's side only, as with a real store.
+ */
+async function withLocalStore(work: (store: ObjectStore) => Promise<void>) {
+  const dir = fs.mkdtempSync(path.join(os.tmpdir(), "partproof-bench-s3-"));
+  const script =
+    `const S3rver = require("s3rver");` +
+    `new S3rver({ address: "127.0.0.1", port: 0, directory: process.argv[1], silent: true, configureBuckets: [{ name: "bench", configs: [] }] })` +
+    `.run().then(({ port }) => console.log(port), (e) => { console.error(e); process.exit(1); });`;
+  const child = spawn(process.execPath, ["-e", script, dir], { stdio: ["ignore", "pipe", "inherit"] });
+  try {
+    const port = await new Promise<number>((resolve, reject) => {
+      child.stdout.once("data", (chunk: Buffer) => resolve(Number(String(chunk).trim())));
+      child.once("exit", (code) => reject(new Error(`the local S3 store stopped (exit ${code})`)));
+    });
+    await work(createObjectStore({ endpoint: `http://127.0.0.1:${port}`, region: "us-east-1", bucket: "bench", accessKeyId: "S3RVER", secretAccessKey: "S3RVER", forcePathStyle: true }));
+  } finally {
+    child.kill();
+    fs.rmSync(dir, { recursive: true, force: true });
+  }
 }
 
 console.log(`sharp ${sharp.versions.sharp} / libvips ${sharp.versions.vips}, concurrency ${sharp.concurrency()}, cache off; ${availableParallelism()} CPUs`);
@@ -197,9 +232,28 @@ const thumbnails = await Promise.all(originals.map((jpeg) => sharp(jpeg).resize(
 await benchCertificate("the stored 320 px thumbnails", thumbnails);
 await benchCertificate("the 2 560 px previews", previews);
 console.log("  target: median <= 300 ms");
-await benchLotReport("the 12 MP originals (4000 × 3000 JPEG)", originals);
-await benchLotReport("their stored 2 560 px previews (WebP)", previews);
-console.log(`  target: lot report <= 5 s (report photos ${ANNOTATED_EDGE.report} px on the long edge)`);
+// The web app's sharp settings: `npm start` runs it without MALLOC_ARENA_MAX, so libvips uses one
+// thread per image there (sharp's default on glibc); this process was started with it for the photo worker.
+const benchConcurrency = sharp.concurrency();
+sharp.concurrency(1);
+await withLocalStore(async (store) => {
+  // 40 photos of 40 units; three different pictures (a 12 MP synthetic photo takes ~1 s to make in JS), each under its own key per unit.
+  const previewKeys = await Promise.all(
+    Array.from({ length: 40 }, async (_, n) => (await putObject(store, `previews/${n}.webp`, previews[n % 3], { contentType: "image/webp" }), `previews/${n}.webp`)),
+  );
+  const originalKeys = await Promise.all(
+    Array.from({ length: 40 }, async (_, n) => (await putObject(store, `originals/${n}.jpg`, originals[n % 3], { contentType: "image/jpeg" }), `originals/${n}.jpg`)),
+  );
+  const parallel = reportPhotoConcurrency();
+  console.log(`lot report: sharp concurrency ${sharp.concurrency()} per image as in the web app (this process had ${benchConcurrency}); photos from a local S3 store`);
+  // Interleaved, so both see the same load.
+  await benchLotReport(store, "the stored 2 560 px previews (WebP; what the app reads)", previewKeys, 1);
+  await benchLotReport(store, "the stored 2 560 px previews (WebP; what the app reads)", previewKeys, parallel);
+  await benchLotReport(store, "the stored 2 560 px previews (WebP; what the app reads)", previewKeys, 1);
+  await benchLotReport(store, "the stored 2 560 px previews (WebP; what the app reads)", previewKeys, parallel);
+  await benchLotReport(store, "the 12 MP originals (4000 × 3000 JPEG; for comparison)", originalKeys, parallel);
+});
+console.log(`  target: lot report <= 5 s (report photos ${ANNOTATED_EDGE.report} px on the long edge; the app draws ${reportPhotoConcurrency()} at a time on this machine)`);
 console.log(
   `load average while measuring: ${loadavg()
     .map((l) => l.toFixed(1))

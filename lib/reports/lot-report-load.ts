@@ -7,7 +7,7 @@ import "server-only";
  * - A unit's defect classes and the Pareto's counts come from the measurement under its current
  *   grade (separate defects after merging overlaps); a unit not graded yet lists none.
  * - Photos: every current photo with a defect region of a unit that has a cosmetic defect, drawn
- *   from the stored preview at the report size (ANNOTATED_EDGE.report). `photos: false` leaves
+ *   from the stored preview at the report size, a few at a time (lot-report-photos.ts). `photos: false` leaves
  *   them out (the web view shows the unit list and links the PDF instead of decoding images).
  */
 import { getLot } from "@/db/queries/lots";
@@ -22,12 +22,11 @@ import type { DefectSeverity } from "@/lib/part-types/severity";
 import type { Role } from "@/lib/auth/roles";
 import { notFound } from "@/lib/errors";
 import { hidesUnitsAwaitingRecheck } from "@/lib/gallery/access";
-import type { Shape } from "@/lib/geometry/shape";
-import { ANNOTATED_EDGE, renderAnnotatedPhoto } from "@/lib/imaging/annotated-photo";
 import { DEFECT_SEVERITIES as SEVERITY_ORDER } from "@/lib/part-types/severity";
 import { oneLotProgress, progressInput } from "@/lib/lots/progress";
 import { decidedVerdictView } from "@/lib/lots/verdict";
 import { getObjectBuffer, objectStore } from "@/lib/storage/s3";
+import { annotateReportPhotos } from "./lot-report-photos";
 import type { LotReportData, LotReportPhoto, LotReportPlanRow, LotReportUnit } from "./lot-report-data";
 
 /** `roles`: readers without inspection.read see no grade or defect of a unit whose blind recheck still waits (issue 19). */
@@ -138,26 +137,6 @@ async function annotatedPhotos(
 ): Promise<LotReportPhoto[]> {
   const defective = unitRows.filter((u) => defectsByUnit.has(u.id));
   const rows = await listLotReportPhotos({ workspaceId, lotId, unitIds: defective.map((u) => u.id) });
-  const unitOf = new Map(unitRows.map((u) => [u.id, u]));
   const store = objectStore();
-  const out: LotReportPhoto[] = [];
-  for (const photo of rows) {
-    if (!photo.previewKey) continue;
-    const image = await getObjectBuffer(store, photo.previewKey);
-    if (!image) continue;
-    const unit = unitOf.get(photo.unitId)!;
-    const view = views.find((v) => v.key === photo.viewKey)?.label ?? photo.viewKey;
-    const caption = `Unit ${unit.serial ?? `#${unit.sampleIndex}`} · ${view}${unit.grade ? ` · grade ${unit.grade}` : ""}`;
-    const rendered = await renderAnnotatedPhoto({
-      image,
-      regionSpace: { width: photo.width, height: photo.height },
-      regions: photo.regions.filter((r) => r.role === "defect" && r.defect).map((r) => ({ defect: r.defect!, shape: r.shape as Shape })),
-      surface: photo.regions.filter((r) => r.role === "surface").map((r) => r.shape as Shape),
-      classes,
-      caption,
-      maxEdge: ANNOTATED_EDGE.report,
-    });
-    out.push({ caption, jpeg: rendered.jpeg, width: rendered.width, height: rendered.height });
-  }
-  return out;
+  return annotateReportPhotos(rows, { read: (key) => getObjectBuffer(store, key), units: new Map(unitRows.map((u) => [u.id, u])), classes, views });
 }
