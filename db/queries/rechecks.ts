@@ -4,11 +4,10 @@ import "server-only";
  * statements of ./leases.ts), the auditor's separate region sets, and who opened a unit's
  * inspection data. Every query is scoped by workspace; the decisions are in lib/recheck.
  */
-import { and, asc, desc, eq, gte, inArray, isNull, lte, sql } from "drizzle-orm";
+import { and, asc, desc, eq, gte, inArray, isNull, sql, type SQL } from "drizzle-orm";
 import { db, executePrepared, type DbOrTx } from "@/db/client";
 import {
   checklistResults,
-  graderDayCounts,
   grades,
   lots,
   partTypes,
@@ -484,31 +483,43 @@ export function listDecidedLotAffected({ workspaceId, lotId }: Scope & { lotId: 
     .orderBy(asc(rechecks.adjudicatedAt));
 }
 
-// Scorecards. Both reads touch only rows made for them (migration scorecard_reads): the per-day counts and
-// the recheck rows, which carry their grade's facts; neither scans the period's grades.
+// Scorecards. The reads touch only rows made for them (migrations scorecard_reads, recheck_class_scores):
+// the per-day counts, the recheck rows, which carry their grade's facts, and the comparisons' class
+// figures as rows; none scans the period's grades or expands a stored comparison.
 
 /** Local midnight of `date` in `timeZone`, as an SQL timestamptz. */
 const localMidnight = (date: string, timeZone: string) => sql`((${date}::date)::timestamp AT TIME ZONE ${timeZone})`;
 
 /**
- * Inspection grades per grader and local day in [from, to] (local dates, both included), from
- * grader_day_counts (kept by triggers in the workspace's current time zone, which is the one
- * the scorecards use).
+ * Inspection grades per grader and local week in [from, to] (local dates, both included), summed
+ * from grader_day_counts (kept by triggers in the workspace's current time zone, which is the one
+ * the scorecards use). Each week is keyed by its first day inside the period (its Monday, or
+ * `from` for a period starting mid-week), so the rows are day counts as lib/recheck/scorecard.ts
+ * `GradedCount` takes them, one per grader and week instead of one per grader and day.
  */
-export async function countGradesByGraderAndDay({ workspaceId, from, to }: Scope & { from: string; to: string }, tx: DbOrTx = db()) {
-  const rows = await tx
-    .select({ graderId: graderDayCounts.graderId, day: graderDayCounts.day, count: graderDayCounts.graded })
-    .from(graderDayCounts)
-    .where(and(eq(graderDayCounts.workspaceId, workspaceId), gte(graderDayCounts.day, from), lte(graderDayCounts.day, to)));
-  return rows;
+export async function countGradesByGraderAndWeek({ workspaceId, from, to }: Scope & { from: string; to: string }, tx: DbOrTx = db()) {
+  const { rows } = await tx.execute<{ grader_id: string; day: string; count: number }>(sql`
+    SELECT g.grader_id, to_char(g.day, 'YYYY-MM-DD') AS day, g.count
+    FROM (
+      SELECT d.grader_id, greatest(d.day - (extract(isodow FROM d.day)::int - 1), ${from}::date) AS day, sum(d.graded)::int AS count
+      FROM grader_day_counts d
+      WHERE d.workspace_id = ${workspaceId} AND d.day >= ${from}::date AND d.day <= ${to}::date
+      GROUP BY 1, 2
+    ) g`);
+  return rows.map((row) => ({ graderId: row.grader_id, day: row.day, count: row.count }));
 }
 
-/** The period's submitted rechecks: those whose rechecked grade was recorded on a local day in [from, to]. */
-const submittedInPeriod = (workspaceId: string, from: string, to: string, timeZone: string) => sql`
-    r.workspace_id = ${workspaceId} AND r.submitted_at IS NOT NULL
-    AND r.first_graded_at >= ${localMidnight(from, timeZone)} AND r.first_graded_at < ${localMidnight(to, timeZone)} + interval '1 day'`;
-/** The local week (its Monday, as lib/time/periods.ts counts weeks) of the rechecked grade. */
-const localWeek = (timeZone: string) => sql`to_char(date_trunc('week', r.first_graded_at AT TIME ZONE ${timeZone}), 'YYYY-MM-DD')`;
+/** Rows of the period: the rechecked grade was recorded on a local day in [from, to] (`alias`: rechecks or recheck_class_scores). */
+const firstGradedInPeriod = (alias: SQL, workspaceId: string, from: string, to: string, timeZone: string) => sql`
+    ${alias}.workspace_id = ${workspaceId}
+    AND ${alias}.first_graded_at >= ${localMidnight(from, timeZone)} AND ${alias}.first_graded_at < ${localMidnight(to, timeZone)} + interval '1 day'`;
+/**
+ * The local week (its Monday, as lib/time/periods.ts counts weeks) of the rechecked grade, as a
+ * local timestamp to group by; `weekKey` writes the grouped weeks as YYYY-MM-DD (formatting the
+ * few hundred groups rather than every row).
+ */
+const localWeek = (alias: SQL, timeZone: string) => sql`date_trunc('week', ${alias}.first_graded_at AT TIME ZONE ${timeZone})`;
+const weekKey = sql`to_char(g.week, 'YYYY-MM-DD')`;
 
 /**
  * The period's submitted rechecks counted per grader, local week, first grade, recheck grade,
@@ -518,11 +529,15 @@ const localWeek = (timeZone: string) => sql`to_char(date_trunc('week', r.first_g
  * scanned once for both.
  */
 export async function countRechecksByGraderAndWeek({ workspaceId, from, to, timeZone }: Scope & { from: string; to: string; timeZone: string }, tx: DbOrTx = db()) {
+  const r = sql`r`;
   const { rows } = await tx.execute<{ grader_id: string; week: string; first_grade: Grade; recheck_grade: Grade; adjudicated_grade: Grade | null; not_blind: boolean; count: number }>(sql`
-    SELECT r.first_grader_id AS grader_id, ${localWeek(timeZone)} AS week, r.first_grade, r.recheck_grade, r.adjudicated_grade, r.not_blind, count(*)::int AS count
-    FROM rechecks r
-    WHERE ${submittedInPeriod(workspaceId, from, to, timeZone)}
-    GROUP BY 1, 2, 3, 4, 5, 6`);
+    SELECT g.grader_id, ${weekKey} AS week, g.first_grade, g.recheck_grade, g.adjudicated_grade, g.not_blind, g.count
+    FROM (
+      SELECT r.first_grader_id AS grader_id, ${localWeek(r, timeZone)} AS week, r.first_grade, r.recheck_grade, r.adjudicated_grade, r.not_blind, count(*)::int AS count
+      FROM rechecks r
+      WHERE ${firstGradedInPeriod(r, workspaceId, from, to, timeZone)} AND r.submitted_at IS NOT NULL
+      GROUP BY 1, 2, 3, 4, 5, 6
+    ) g`);
   return rows.map((row) => ({
     graderId: row.grader_id,
     week: row.week,
@@ -537,14 +552,20 @@ export async function countRechecksByGraderAndWeek({ workspaceId, from, to, time
 /**
  * Per grader, local week and defect class, the class IoU of the period's blind rechecks where the
  * class was in play (union > 0 in the stored comparison), summed, and how many
- * (lib/recheck/scorecard.ts `ClassIouSum`).
+ * (lib/recheck/scorecard.ts `ClassIouSum`). Read from recheck_class_scores (the comparisons'
+ * classes as plain rows of submitted rechecks, migration recheck_class_scores), not by expanding
+ * each stored comparison's JSON.
  */
 export async function sumClassIouByGraderAndWeek({ workspaceId, from, to, timeZone }: Scope & { from: string; to: string; timeZone: string }, tx: DbOrTx = db()) {
+  const s = sql`s`;
   const { rows } = await tx.execute<{ grader_id: string; week: string; defect: string; sum: number; n: number }>(sql`
-    SELECT r.first_grader_id AS grader_id, ${localWeek(timeZone)} AS week, c.key AS defect, sum((c.value->>'iou')::float8) AS sum, count(*)::int AS n
-    FROM rechecks r CROSS JOIN LATERAL jsonb_each(r.comparison->'classes') c
-    WHERE ${submittedInPeriod(workspaceId, from, to, timeZone)} AND NOT r.not_blind AND (c.value->>'unionPx')::float8 > 0
-    GROUP BY 1, 2, 3`);
+    SELECT g.grader_id, ${weekKey} AS week, g.defect, g.sum, g.n
+    FROM (
+      SELECT s.first_grader_id AS grader_id, ${localWeek(s, timeZone)} AS week, s.defect, sum(s.iou) AS sum, count(*)::int AS n
+      FROM recheck_class_scores s
+      WHERE ${firstGradedInPeriod(s, workspaceId, from, to, timeZone)} AND NOT s.not_blind AND s.union_px > 0
+      GROUP BY 1, 2, 3
+    ) g`);
   return rows.map((row) => ({ graderId: row.grader_id, week: row.week, defect: row.defect, sum: Number(row.sum), n: row.n }));
 }
 

@@ -1,5 +1,5 @@
 import { sql } from "drizzle-orm";
-import { boolean, check, date, foreignKey, index, integer, jsonb, pgTable, primaryKey, text, timestamp, unique, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { boolean, check, date, doublePrecision, foreignKey, index, integer, jsonb, pgTable, primaryKey, text, timestamp, unique, uniqueIndex, uuid } from "drizzle-orm/pg-core";
 import type { RegionSetPayload } from "@/lib/geometry/validate";
 import type { Grade } from "@/lib/grading/rubric-schema";
 import type { StoredUnitResult } from "@/lib/grading/stored-measurement";
@@ -168,6 +168,40 @@ export const rechecks = pgTable(
       sql`(${t.status} = 'settled') = (${t.adjudicatedAt} IS NOT NULL) AND (${t.adjudicatedAt} IS NULL OR (${t.adjudicatedBy} IS NOT NULL AND ${t.adjudicationGradeId} IS NOT NULL AND length(btrim(coalesce(${t.adjudicationReason}, ''))) > 0))`,
     ),
     check("rechecks_adjudicated_grade", sql`(${t.adjudicationGradeId} IS NULL) = (${t.adjudicatedGrade} IS NULL)`),
+  ],
+);
+
+/**
+ * Per submitted recheck and defect class, the unit-level figures of its stored comparison
+ * (lib/recheck/compare.ts `classes`: IoU, Dice, the union's pixels) as plain columns, so the
+ * scorecards' mean IoU per class sums columns instead of expanding every recheck's comparison
+ * JSON (bench/scorecards-api.ts). Written by a trigger (migration recheck_class_scores) in the
+ * transaction that stores the comparison, from that comparison, so the rows always equal
+ * `jsonb_each(comparison->'classes')` of the recheck (tests/integration/recheck-scorecards.test.ts);
+ * the grader, the time of the first grade and the blind mark are the recheck's, copied (a grade
+ * never changes, and the blind mark is set with the comparison).
+ */
+export const recheckClassScores = pgTable(
+  "recheck_class_scores",
+  {
+    workspaceId: uuid()
+      .notNull()
+      .references(() => workspaces.id),
+    recheckId: uuid().notNull(),
+    defect: text().notNull(),
+    firstGraderId: uuid().notNull(),
+    firstGradedAt: timestamp({ withTimezone: true }).notNull(),
+    notBlind: boolean().notNull(),
+    unionPx: doublePrecision().notNull(),
+    iou: doublePrecision().notNull(),
+    dice: doublePrecision().notNull(),
+  },
+  (t) => [
+    primaryKey({ name: "recheck_class_scores_pkey", columns: [t.recheckId, t.defect] }),
+    // The scorecards read a period's rows by when the rechecked grade was recorded (index-only: every column they read is here).
+    index("recheck_class_scores_scorecard_idx").on(t.workspaceId, t.firstGradedAt, t.firstGraderId, t.defect, t.iou, t.unionPx, t.notBlind),
+    foreignKey({ name: "recheck_class_scores_recheck_fk", columns: [t.workspaceId, t.recheckId], foreignColumns: [rechecks.workspaceId, rechecks.id] }).onDelete("cascade"),
+    check("recheck_class_scores_iou", sql`${t.iou} >= 0 AND ${t.iou} <= 1 AND ${t.dice} >= 0 AND ${t.dice} <= 1 AND ${t.unionPx} >= 0`),
   ],
 );
 

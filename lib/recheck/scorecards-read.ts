@@ -1,8 +1,8 @@
 import "server-only";
 /**
- * The scorecards of a period, read for the screen and the CSV: the SQL counts grades per grader
- * and day (kept as grades are recorded), and the period's submitted rechecks per grader, week and
- * grade pair, with class IoU sums and grade sets (db/queries/rechecks.ts); the figures come from
+ * The scorecards of a period, read for the screen and the CSV: the SQL sums grades per grader
+ * and week (from the per-day counts kept as grades are recorded), and counts the period's
+ * submitted rechecks per grader, week and grade pair, with class IoU sums (db/queries/rechecks.ts); the figures come from
  * the pure cores (scorecard.ts per grader and week, team.ts for alpha and AC1). The read's cost
  * is measured by bench/scorecards-api.ts.
  *
@@ -15,7 +15,7 @@ import "server-only";
  * - The 95 % intervals are the analytic ones of lib/agreement (Fleiss–Cohen–Everitt standard
  *   error for kappa, Wilson for shares), not a bootstrap.
  */
-import { countGradesByGraderAndDay, countRechecksByGraderAndWeek, listWorkspaceUserNames, sumClassIouByGraderAndWeek } from "@/db/queries/rechecks";
+import { countGradesByGraderAndWeek, countRechecksByGraderAndWeek, listWorkspaceUserNames, sumClassIouByGraderAndWeek } from "@/db/queries/rechecks";
 import type { SessionUser } from "@/lib/auth/require-user";
 import { localDate, nextPeriod, periodOfDate } from "@/lib/time/periods";
 import { recheckSettings } from "./recording";
@@ -41,7 +41,7 @@ export async function readScorecards(actor: Pick<SessionUser, "workspaceId">, qu
   // Counted in SQL (db/queries/rechecks.ts): hundreds of rows come back, not one per grade or recheck,
   // so the work here does not grow with the period's grades and rechecks.
   const [graded, recheckCounts, classIouSums, names] = await Promise.all([
-    countGradesByGraderAndDay(key),
+    countGradesByGraderAndWeek(key),
     countRechecksByGraderAndWeek(key),
     sumClassIouByGraderAndWeek(key),
     listWorkspaceUserNames(actor),

@@ -10,12 +10,18 @@ import { db } from "@/db/client";
 import { grades, rechecks } from "@/db/schema";
 import { gradeAgreement, gradeSteps } from "@/lib/grading/grade-steps";
 import type { Grade } from "@/lib/grading/rubric-schema";
+import type { RecheckComparison } from "@/lib/recheck/compare";
 import { createPartType, createUnit, insertRubricVersion } from "../support/grading";
 import { api } from "../support/http";
 import { gradedUnit, RECHECK_DEFAULTS, recheckWorld, type RecheckWorld } from "../support/recheck";
 
 type ErrorBody = { error: { code: string; message: string; fieldErrors?: Record<string, string> } };
-type Counts = { graded: number; rechecked: number; notBlind: number; figures: { n: number; exact: { share: number | null }; withinOne: number | null } };
+type Counts = {
+  graded: number;
+  rechecked: number;
+  notBlind: number;
+  figures: { n: number; exact: { share: number | null }; withinOne: number | null; meanIou: Record<string, { mean: number; n: number }> };
+};
 type View = {
   from: string;
   to: string;
@@ -28,9 +34,26 @@ type View = {
 
 let world: RecheckWorld;
 const firstGrades: Grade[] = [];
+let notBlindGradeId: string;
+
+type ClassFigures = RecheckComparison["classes"];
+/** A unit-level class comparison with the given IoU and union (Dice = 2J / (1 + J), as compare.ts pools them). */
+const cls = (iou: number, unionPx: number): ClassFigures[string] => ({
+  firstPx: unionPx,
+  recheckPx: Math.round(iou * unionPx),
+  sharedPx: Math.round(iou * unionPx),
+  unionPx,
+  iou,
+  dice: (2 * iou) / (1 + iou),
+  firstDefects: 1,
+  recheckDefects: 1,
+  matched: 1,
+  onlyFirst: 0,
+  onlyRecheck: 0,
+});
 
 /** Stores the auditor's grade on the recheck of `gradeId` as if submitted. */
-async function submit(gradeId: string, firstGrade: Grade, recheckGrade: Grade, notBlind = false) {
+async function submit(gradeId: string, firstGrade: Grade, recheckGrade: Grade, notBlind = false, classes: ClassFigures = {}) {
   const steps = gradeSteps(firstGrade, recheckGrade);
   await db()
     .update(rechecks)
@@ -41,7 +64,7 @@ async function submit(gradeId: string, firstGrade: Grade, recheckGrade: Grade, n
       proposedGrade: recheckGrade,
       recheckGrade,
       notBlind,
-      comparison: { photos: [], classes: {}, grade: { first: firstGrade, recheck: recheckGrade, steps, agreement: gradeAgreement(firstGrade, recheckGrade) } },
+      comparison: { photos: [], classes, grade: { first: firstGrade, recheck: recheckGrade, steps, agreement: gradeAgreement(firstGrade, recheckGrade) } },
       adjudicationReasons: [],
     })
     .where(eq(rechecks.gradeId, gradeId));
@@ -54,9 +77,12 @@ beforeAll(async () => {
   for (const m of made) firstGrades.push(m.grade.finalGrade as Grade);
   const other = (g: Grade): Grade => (g === "Reject" ? "C" : g === "C" ? "Reject" : g === "B" ? "C" : "B");
   // HAND: the first agrees, the second is one step off, the third agrees but was not blind.
-  await submit(made[0].grade.id, firstGrades[0], firstGrades[0]);
-  await submit(made[1].grade.id, firstGrades[1], other(firstGrades[1]));
-  await submit(made[2].grade.id, firstGrades[2], firstGrades[2], true);
+  // Scratch IoU 0.5 and 0.25 on the blind two (0.9 on the not-blind one); dent in play on the
+  // first only; a class with an empty union (marked by neither side) on the second.
+  await submit(made[0].grade.id, firstGrades[0], firstGrades[0], false, { scratch: cls(0.5, 120), dent: cls(0.2, 30) });
+  await submit(made[1].grade.id, firstGrades[1], other(firstGrades[1]), false, { scratch: cls(0.25, 80), crack: { ...cls(1, 0), firstPx: 0, recheckPx: 0, sharedPx: 0 } });
+  await submit(made[2].grade.id, firstGrades[2], firstGrades[2], true, { scratch: cls(0.9, 50) });
+  notBlindGradeId = made[2].grade.id;
 });
 
 describe("GET /api/recheck/scorecards", () => {
@@ -78,6 +104,17 @@ describe("GET /api/recheck/scorecards", () => {
     // The team is this one grader here; alpha and AC1 over the two blind units.
     expect(res.body.team).toMatchObject({ graded: 3, rechecked: 3 });
     expect(res.body.multiRater.units).toBe(2);
+  });
+
+  it("gives the mean IoU per class over the blind rechecks where the class was in play", async () => {
+    const res = await api<View>(world.lead, "GET", "/api/recheck/scorecards");
+    const card = res.body.graders.find((g) => g.graderId === world.inspector.id)!;
+    // HAND: scratch (0.5 + 0.25) / 2 = 0.375 over 2 (the not-blind 0.9 left out); dent 0.2 over 1;
+    // crack had an empty union (neither side marked it) and says nothing.
+    expect(Object.keys(card.figures.meanIou).sort()).toEqual(["dent", "scratch"]);
+    expect(card.figures.meanIou.scratch.n).toBe(2);
+    expect(card.figures.meanIou.scratch.mean).toBeCloseTo(0.375, 12);
+    expect(card.figures.meanIou.dent).toEqual({ mean: expect.closeTo(0.2, 12), n: 1 });
   });
 
   it("a period without the grades has no scorecards for them", async () => {
@@ -188,7 +225,51 @@ describe("what the scorecards read instead of every grade (migration scorecard_r
     const res = await api<View>(other.lead, "GET", "/api/recheck/scorecards?from=2026-01-05&to=2026-01-11");
     expect(res.status).toBe(200);
     expect(Object.fromEntries(res.body.graders.map((g) => [g.graderId, g.graded]))).toEqual({ [inspector]: 2, [inspector2]: 1 });
+    // Days are summed per week in SQL; a period starting mid-week counts only its own days of that week.
+    const midWeek = await api<View>(other.lead, "GET", "/api/recheck/scorecards?from=2026-01-06&to=2026-01-11");
+    expect(midWeek.body.weeks).toEqual(["2026-01-05"]);
+    expect(Object.fromEntries(midWeek.body.graders.map((g) => [g.graderId, g.graded]))).toEqual({ [inspector]: 1, [inspector2]: 1 });
   });
+});
+
+/** recheck_class_scores as stored, and the stored comparisons' classes expanded from their JSON. */
+async function classScores(workspaceId: string) {
+  const stored = await db().execute(sql`
+    SELECT recheck_id, defect, first_grader_id, first_graded_at, not_blind, union_px, iou, dice
+    FROM recheck_class_scores WHERE workspace_id = ${workspaceId} ORDER BY 1, 2`);
+  const expanded = await db().execute(sql`
+    SELECT r.id AS recheck_id, c.key AS defect, r.first_grader_id, r.first_graded_at, r.not_blind,
+           (c.value->>'unionPx')::float8 AS union_px, (c.value->>'iou')::float8 AS iou, (c.value->>'dice')::float8 AS dice
+    FROM rechecks r CROSS JOIN LATERAL jsonb_each(r.comparison->'classes') c
+    WHERE r.workspace_id = ${workspaceId} AND r.submitted_at IS NOT NULL ORDER BY 1, 2`);
+  return { stored: stored.rows, expanded: expanded.rows };
+}
+
+describe("the comparisons' class figures as rows (migration recheck_class_scores)", () => {
+  it("equal each submitted recheck's stored comparison, and follow it when it is stored again", async () => {
+    let { stored, expanded } = await classScores(world.workspaceId);
+    // HAND: 2 classes + 2 classes + 1 class on the three submitted rechecks.
+    expect(expanded).toHaveLength(5);
+    expect(stored).toEqual(expanded);
+    // Storing a comparison again (here: the blind mark and the classes change together) replaces the rows.
+    const third = { gradeId: notBlindGradeId };
+    await db()
+      .update(rechecks)
+      .set({ notBlind: false, comparison: sql`jsonb_set(comparison, '{classes}', ${JSON.stringify({ dent: cls(0.6, 10) })}::jsonb)` })
+      .where(eq(rechecks.gradeId, third.gradeId));
+    ({ stored, expanded } = await classScores(world.workspaceId));
+    expect(expanded).toHaveLength(5);
+    expect(stored).toEqual(expanded);
+    expect(stored.filter((row) => row.not_blind)).toEqual([]);
+    // Put back as it was for the other tests.
+    await db()
+      .update(rechecks)
+      .set({ notBlind: true, comparison: sql`jsonb_set(comparison, '{classes}', ${JSON.stringify({ scratch: cls(0.9, 50) })}::jsonb)` })
+      .where(eq(rechecks.gradeId, third.gradeId));
+    ({ stored, expanded } = await classScores(world.workspaceId));
+    expect(stored).toEqual(expanded);
+  });
+
 });
 
 describe("GET /api/recheck/scorecards/csv", () => {
