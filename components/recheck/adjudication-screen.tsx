@@ -5,6 +5,7 @@ import { useState } from "react";
 import { GradeBadge } from "@/components/grading/grade-badge";
 import { FormMessage } from "@/components/ui/form-field";
 import { GRADES, type Grade } from "@/lib/grading/rubric-schema";
+import { adjudicationReasonsText } from "@/lib/recheck/adjudication";
 import { apiFetch } from "@/lib/http/client";
 import { recheckUrls, type AdjudicationJson } from "./api";
 import { OVERLAY_KEY, OverlayOnPhoto, RegionsOnPhoto } from "./side-svg";
@@ -56,9 +57,7 @@ export function AdjudicationScreen({ view }: { view: AdjudicationJson }) {
         </h1>
         <p className="text-sm text-gauge-700">
           Lot <a href={`/lots/${view.unit.lotId}`}>{view.unit.purchaseRef}</a> · rubric version {view.unit.rubricVersion} · why:{" "}
-          {view.recheck.reasons
-            .map((r) => (r.kind === "grade_differs" ? `the grades differ by ${r.steps} step${r.steps === 1 ? "" : "s"}` : `${r.defect} overlaps ${percent(r.iou)} on one photo`))
-            .join("; ")}
+          {adjudicationReasonsText(view.recheck.reasons)}
         </p>
       </header>
       <div className="grid gap-3 md:grid-cols-2">

@@ -27,6 +27,7 @@ import { gradeAgreement, gradeSteps } from "@/lib/grading/grade-steps";
 import { recordGrade } from "@/lib/grading/grades";
 import type { Grade } from "@/lib/grading/rubric-schema";
 import { measureAndStore } from "@/lib/grading/unit-grading";
+import { adjudicationReasonsText, type AdjudicationReason } from "@/lib/recheck/adjudication";
 import { takeNextRecheck } from "@/lib/recheck/queue";
 import { sendToRecheck } from "@/lib/recheck/recording";
 import { saveRecheckRegions } from "@/lib/recheck/recheck-regions";
@@ -224,6 +225,12 @@ async function recheckOf(lead: SessionUser, unitId: string, gradeId: string, not
   return drawn ?? (await sendToRecheck(lead, { unitId, note }));
 }
 
+/** What the battery's disagreement is about, for the log: the grades when they differ, and what else does. */
+function disagreementText(first: Grade, recheck: Grade, reasons: readonly AdjudicationReason[]): string {
+  const grades = first === recheck ? `both graded ${first}` : null;
+  return [grades, adjudicationReasonsText(reasons)].filter(Boolean).join("; ");
+}
+
 export async function seedRechecks(workspaceSlug: string, planted: PlantedPhoto[]) {
   const [ws] = await db().select({ id: workspaces.id }).from(workspaces).where(eq(workspaces.slug, workspaceSlug));
   const workspaceId = ws.id;
@@ -258,7 +265,7 @@ export async function seedRechecks(workspaceSlug: string, planted: PlantedPhoto[
     .where(eq(rechecks.workspaceId, workspaceId));
   console.log(
     `Demo rechecks: ${history.graded} history grades, ${history.rechecked} rechecked (${history.adjudicated} adjudicated; Piet Moravec drifting), ` +
-      `a disagreement on ${battery.serial} waiting for adjudication (${pietGrade.finalGrade} first, ${submitted.recheckGrade} on recheck) and a recheck of ${camera.serial} waiting (${n} in all).`,
+      `a disagreement on ${battery.serial} waiting for adjudication (${disagreementText(pietGrade.finalGrade as Grade, submitted.recheckGrade, submitted.reasons)}) and a recheck of ${camera.serial} waiting (${n} in all).`,
   );
   return { ...history, disagreement: disagreement.id, waiting: waiting.id };
 }

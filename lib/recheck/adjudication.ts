@@ -39,3 +39,24 @@ export function adjudicationDecision(comparison: RecheckComparison, settings: Tr
   }
   return { required: reasons.length > 0, reasons };
 }
+
+const percent = (value: number) => (Number.isFinite(value) ? `${Math.round(value * 100)} %` : "n/a");
+
+/**
+ * Why a recheck went to adjudication, in words (the adjudication screen and the demo seed's log):
+ * reasons of the same class are told together ("swelling overlaps 0 % on 2 photos"), so a
+ * disagreement where the grades agree says what differs instead of only naming two equal grades.
+ */
+export function adjudicationReasonsText(reasons: readonly AdjudicationReason[], label: (defect: string) => string = (defect) => defect): string {
+  const parts: string[] = [];
+  const regions = new Map<string, number[]>();
+  for (const reason of reasons) {
+    if (reason.kind === "grade_differs") parts.push(`the grades differ by ${reason.steps} step${reason.steps === 1 ? "" : "s"} (${reason.first} first, ${reason.recheck} on recheck)`);
+    else regions.set(reason.defect, [...(regions.get(reason.defect) ?? []), reason.iou]);
+  }
+  for (const [defect, ious] of regions) {
+    const overlap = ious.length === 1 ? percent(ious[0]) : `${percent(Math.min(...ious))} to ${percent(Math.max(...ious))}`;
+    parts.push(`the ${label(defect)} regions overlap ${overlap} (IoU) on ${ious.length === 1 ? "one photo" : `${ious.length} photos`}`);
+  }
+  return parts.join("; ");
+}

@@ -3,7 +3,7 @@
  * boundaries; areas and thresholds by hand (HAND).
  */
 import { describe, expect, it } from "vitest";
-import { adjudicationDecision, meaningfulAreaPx } from "@/lib/recheck/adjudication";
+import { adjudicationDecision, adjudicationReasonsText, meaningfulAreaPx } from "@/lib/recheck/adjudication";
 import type { RecheckClassComparison, RecheckComparison } from "@/lib/recheck/compare";
 import { DEFAULT_RECHECK_SETTINGS } from "@/lib/recheck/settings";
 import type { Grade } from "@/lib/grading/rubric-schema";
@@ -61,5 +61,24 @@ describe("adjudicationDecision", () => {
     const input = comparison("A", "A", [{ photoId: "p", surfacePx: 1_000_000, classes: { dent: classes(2000, 2000, 0.8) } }]);
     expect(adjudicationDecision(input, DEFAULT_RECHECK_SETTINGS).required).toBe(false);
     expect(adjudicationDecision(input, strict).required).toBe(true);
+  });
+});
+
+describe("adjudicationReasonsText", () => {
+  it("says what differs when the grades agree, one class's photos told together (HAND)", () => {
+    const decision = adjudicationDecision(
+      comparison("Reject", "Reject", [
+        { photoId: "p1", surfacePx: 1_000_000, classes: { swelling: classes(5000, 0, 0), dent: classes(2000, 2100, 0.8) } },
+        { photoId: "p2", surfacePx: 1_000_000, classes: { swelling: classes(4000, 1000, 0.25) } },
+      ]),
+      DEFAULT_RECHECK_SETTINGS,
+    );
+    expect(adjudicationReasonsText(decision.reasons)).toBe("the swelling regions overlap 0 % to 25 % (IoU) on 2 photos");
+    expect(adjudicationReasonsText(decision.reasons, (d) => (d === "swelling" ? "Swelling" : d))).toBe("the Swelling regions overlap 0 % to 25 % (IoU) on 2 photos");
+  });
+
+  it("names both grades when they differ, and a single photo as one", () => {
+    const decision = adjudicationDecision(comparison("A", "C", [{ photoId: "p", surfacePx: 1_000_000, classes: { scratch: classes(900, 600, 0.1) } }]), DEFAULT_RECHECK_SETTINGS);
+    expect(adjudicationReasonsText(decision.reasons)).toBe("the grades differ by 2 steps (A first, C on recheck); the scratch regions overlap 10 % (IoU) on one photo");
   });
 });
