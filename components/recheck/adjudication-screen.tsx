@@ -56,8 +56,7 @@ export function AdjudicationScreen({ view }: { view: AdjudicationJson }) {
           Settle a disagreement · {view.unit.partTypeName} {view.unit.serial ?? ""}
         </h1>
         <p className="text-sm text-gauge-700">
-          Lot <a href={`/lots/${view.unit.lotId}`}>{view.unit.purchaseRef}</a> · rubric version {view.unit.rubricVersion} · why:{" "}
-          {adjudicationReasonsText(view.recheck.reasons)}
+          Lot <a href={`/lots/${view.unit.lotId}`}>{view.unit.purchaseRef}</a> · rubric version {view.unit.rubricVersion} · why: {adjudicationReasonsText(view.recheck.reasons)}
         </p>
       </header>
       <div className="grid gap-3 md:grid-cols-2">

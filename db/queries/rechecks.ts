@@ -6,22 +6,7 @@ import "server-only";
  */
 import { and, asc, desc, eq, gte, inArray, isNull, sql, type SQL } from "drizzle-orm";
 import { db, executePrepared, type DbOrTx } from "@/db/client";
-import {
-  checklistResults,
-  grades,
-  lots,
-  partTypes,
-  photos,
-  recheckDraws,
-  recheckRegionSets,
-  rechecks,
-  rubricVersions,
-  unitOpenings,
-  units,
-  users,
-  workspaces,
-  type NewRecheckRow,
-} from "@/db/schema";
+import { checklistResults, grades, lots, partTypes, photos, recheckDraws, recheckRegionSets, rechecks, rubricVersions, unitOpenings, units, users, workspaces, type NewRecheckRow } from "@/db/schema";
 import type { RecheckDrawInputRecord, RecheckDrawOutcome } from "@/db/schema/recheck";
 import type { RegionSetPayload } from "@/lib/geometry/validate";
 import type { RecheckSettings } from "@/lib/recheck/settings";

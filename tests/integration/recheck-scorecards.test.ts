@@ -269,7 +269,6 @@ describe("the comparisons' class figures as rows (migration recheck_class_scores
     ({ stored, expanded } = await classScores(world.workspaceId));
     expect(stored).toEqual(expanded);
   });
-
 });
 
 describe("GET /api/recheck/scorecards/csv", () => {
