@@ -12,6 +12,7 @@ import { seedPartTypes } from "./seed/part-types";
 import { seedPeople } from "./seed/people";
 import { seedPhotos } from "./seed/photos";
 import { seedRechecks } from "./seed/rechecks";
+import { seedCertificate, seedSupplierParetos } from "./seed/certificates";
 import { seedRubrics } from "./seed/rubrics";
 import { seedSuggestionModel } from "./seed/suggestion-model";
 
@@ -38,6 +39,10 @@ export async function seedDemo() {
   const calibration = await seedCalibration();
   // Needs the photos' planted marks and the rubrics: recheck history for the scorecards, a recheck to do, a disagreement to settle.
   const rechecks = await seedRechecks("vellmoor", photos.planted);
+  // A clean photographed unit graded and certified through the app's own steps (after the rechecks, so their draw is as before).
+  const certificate = await seedCertificate("vellmoor", photos.planted);
+  // Each supplier's scorecard Pareto has bars: a supplier no step above graded gets its flawed photographed unit graded as planted.
+  const paretos = await seedSupplierParetos("vellmoor", photos.planted);
   // So a newcomer's Bench shows learned ghosts (the demo has too few marked regions to train on).
   const suggestionModel = await seedSuggestionModel();
   return {
@@ -51,6 +56,8 @@ export async function seedDemo() {
     gallery,
     calibration,
     rechecks,
+    certificate,
+    paretos,
     suggestionModel,
   };
 }

@@ -1,6 +1,8 @@
 /**
  * A plain table for the Reports screen's figures (server-rendered; nothing to sort or page). Each
  * figure the charts show is also in one of these, so every number is readable as text.
+ * Headings wrap between words (bottom-aligned), so a nine-column table fits a 1 024 px window
+ * instead of scrolling its last columns out of sight.
  */
 export type ReportColumn<Row> = { header: string; cell: (row: Row) => React.ReactNode; numeric?: boolean; rowHeader?: boolean };
 
@@ -24,7 +26,7 @@ export function ReportTable<Row>({
         <thead className="bg-gauge-50 text-left text-xs uppercase tracking-wide text-gauge-600">
           <tr>
             {columns.map((c) => (
-              <th key={c.header} scope="col" className={`whitespace-nowrap px-2 py-2 font-medium lg:px-3 ${c.numeric ? "text-right" : ""}`}>
+              <th key={c.header} scope="col" className={`px-2 py-2 align-bottom font-medium lg:px-3 ${c.numeric ? "text-right" : ""}`}>
                 {c.header}
               </th>
             ))}

@@ -4,6 +4,7 @@ import { listPartTypes } from "@/db/queries/part-types";
 import { loadSupplierScorecards } from "@/lib/reports/overview";
 import { formatInstant } from "@/lib/reports/format";
 import { loadOpenClaims, loadSupplierSwitching } from "@/lib/reports/supplier-follow-up";
+import { monthLabel } from "@/lib/time/periods";
 
 /**
  * The full scorecard of one supplier (all its lots): lots received, accepted and rejected per
@@ -35,7 +36,7 @@ export async function SupplierScorecardSection({ workspaceId, supplierId, timeZo
             rows={card.months}
             rowKey={(m) => m.month}
             columns={[
-              { header: "Month", rowHeader: true, cell: (m) => m.month },
+              { header: "Month", rowHeader: true, cell: (m) => monthLabel(m.month) },
               { header: "Lots", numeric: true, cell: (m) => m.lots },
               { header: "Accepted", numeric: true, cell: (m) => m.accepted },
               { header: "Rejected", numeric: true, cell: (m) => m.rejected },

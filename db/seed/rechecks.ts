@@ -41,7 +41,7 @@ const DAY = 24 * HOUR;
 const HISTORY_LOTS = ["PO-24-0702", "PO-24-0733", "TR-5480"];
 const HISTORY_NOTE = "Demo history: graded before photos and measurements were kept (invented by the seed).";
 
-async function person(workspaceId: string, email: string): Promise<SessionUser> {
+export async function person(workspaceId: string, email: string): Promise<SessionUser> {
   const [row] = await db()
     .select({ id: users.id, email: users.email, name: users.name, roles: users.roles, workspaceName: workspaces.name, timeZone: workspaces.timeZone })
     .from(users)
@@ -188,7 +188,7 @@ async function seedHistory(workspaceId: string, people: { ines: SessionUser; pie
 }
 
 /** The planted marks of the unit's photos saved as `inspector`'s regions (with the part's outline as Surface), measured and graded as proposed. */
-async function gradeAsPlanted(inspector: SessionUser, unitId: string, planted: PlantedPhoto[], defectClasses: Set<string>) {
+export async function gradeAsPlanted(inspector: SessionUser, unitId: string, planted: PlantedPhoto[], defectClasses: Set<string>) {
   for (const photo of planted.filter((p) => p.unitId === unitId)) {
     const current = await readRegionSet(inspector, photo.photoId);
     await saveRegionSet(inspector, photo.photoId, { baseVersion: current.version, regions: regionPayload(photo, defectClasses) });

@@ -24,6 +24,17 @@ export type ParetoLayout = { width: number; height: number; margin?: { top: numb
 
 const DEFAULT_MARGIN = { top: 12, right: 40, bottom: 48, left: 40 };
 
+/**
+ * The count axis of a Pareto chart, for the PDF and the screen alike: from 0 to `maxCount` rounded
+ * up with d3's `nice()` (about five ticks), whole numbers only. One defect gives 0–1, not 0–4.
+ */
+export function countAxis(maxCount: number): { max: number; ticks: number[] } {
+  const scale = scaleLinear()
+    .domain([0, Math.max(1, maxCount)])
+    .nice(5);
+  return { max: scale.domain()[1], ticks: scale.ticks(5).filter((value) => Number.isInteger(value)) };
+}
+
 export function paretoGeometry(rows: readonly ParetoRow[], layout: ParetoLayout): ParetoGeometry {
   const margin = layout.margin ?? DEFAULT_MARGIN;
   const plot = { x: margin.left, y: margin.top, width: layout.width - margin.left - margin.right, height: layout.height - margin.top - margin.bottom };
@@ -33,10 +44,9 @@ export function paretoGeometry(rows: readonly ParetoRow[], layout: ParetoLayout)
     .domain(rows.map((row) => row.key))
     .range([plot.x, plot.x + plot.width])
     .padding(0.2);
-  const maxCount = Math.max(1, ...rows.map((row) => row.count));
+  const axis = countAxis(Math.max(0, ...rows.map((row) => row.count)));
   const counts = scaleLinear()
-    .domain([0, maxCount])
-    .nice(5)
+    .domain([0, axis.max])
     .range([plot.y + plot.height, plot.y]);
   const shares = scaleLinear()
     .domain([0, 1])
@@ -63,10 +73,7 @@ export function paretoGeometry(rows: readonly ParetoRow[], layout: ParetoLayout)
     bars,
     line: rows.map((row, i) => ({ x: bars[i].centerX, y: shares(row.cumulativeShare), cumulativeShare: row.cumulativeShare })),
     // Whole counts only: a fractional tick on a count axis reads as nonsense.
-    countTicks: counts
-      .ticks(5)
-      .filter((value) => Number.isInteger(value))
-      .map((value) => ({ value, y: counts(value) })),
+    countTicks: axis.ticks.map((value) => ({ value, y: counts(value) })),
     shareTicks: [0, 0.25, 0.5, 0.75, 1].map((value) => ({ value, y: shares(value) })),
     cutoff: cutoffValue === null ? null : { value: cutoffValue, y: shares(cutoffValue) },
   };

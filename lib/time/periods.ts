@@ -125,3 +125,11 @@ export function periodsBetween(from: string, to: string, unit: PeriodUnit): stri
   for (let period = periodOfDate(from, unit); period <= last; period = nextPeriod(period, unit)) periods.push(period);
   return periods;
 }
+
+const MONTH_ABBREVIATIONS = ["Jan", "Feb", "Mar", "Apr", "May", "Jun", "Jul", "Aug", "Sep", "Oct", "Nov", "Dec"] as const;
+
+/** A month period ("2026-11-01", or any date of that month) as people read it: "Nov 2026". */
+export function monthLabel(period: string): string {
+  parseDateKey(period);
+  return `${MONTH_ABBREVIATIONS[Number(period.slice(5, 7)) - 1]} ${period.slice(0, 4)}`;
+}

@@ -6,7 +6,7 @@
  */
 import { describe, expect, it } from "vitest";
 import { paretoRows } from "@/lib/reports/pareto";
-import { paretoGeometry } from "@/lib/reports/pareto-geometry";
+import { countAxis, paretoGeometry } from "@/lib/reports/pareto-geometry";
 
 const input = [
   { key: "dent", label: "Dent", count: 10 },
@@ -103,5 +103,19 @@ describe("paretoGeometry", () => {
     const g = paretoGeometry(paretoRows([{ key: "a", label: "A", count: 1 }]), { width: 200, height: 100 });
     expect(g.countTicks.every((t) => Number.isInteger(t.value))).toBe(true);
     expect(() => paretoGeometry(rows, { width: 50, height: 40 })).toThrow(/too small/);
+  });
+
+  // The screen's recharts axis takes these too (components/reports/pareto-chart.tsx).
+  it("gives a count axis that ends at the data's nice maximum, in whole numbers (d3 nice, 1-2-5 steps, a)", () => {
+    // One defect: [0, 1] is already nice (step 0.2), so the axis ends at 1 with ticks 0 and 1 (not 0–4).
+    expect(countAxis(1)).toEqual({ max: 1, ticks: [0, 1] });
+    expect(countAxis(0)).toEqual({ max: 1, ticks: [0, 1] });
+    // 3 / 5 = 0.6 → step 0.5; [0, 3] stays; the whole ticks are 0, 1, 2, 3.
+    expect(countAxis(3)).toEqual({ max: 3, ticks: [0, 1, 2, 3] });
+    // 7 / 5 = 1.4 < √2 ≈ 1.414 (d3 tickIncrement: thresholds √50, √10, √2) → step 1, so [0, 7].
+    expect(countAxis(7)).toEqual({ max: 7, ticks: [0, 1, 2, 3, 4, 5, 6, 7] });
+    // 9 → step 2, [0, 10] (as the geometry test above); 83 → step 20, [0, 100].
+    expect(countAxis(9)).toEqual({ max: 10, ticks: [0, 2, 4, 6, 8, 10] });
+    expect(countAxis(83)).toEqual({ max: 100, ticks: [0, 20, 40, 60, 80, 100] });
   });
 });

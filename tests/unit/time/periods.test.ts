@@ -10,7 +10,7 @@
  */
 import { describe, expect, it } from "vitest";
 import { formatDate } from "@/lib/time/format";
-import { localDate, nextPeriod, parseDateKey, periodOf, periodOfDate, periodsBetween } from "@/lib/time/periods";
+import { localDate, monthLabel, nextPeriod, parseDateKey, periodOf, periodOfDate, periodsBetween } from "@/lib/time/periods";
 import { mulberry32 } from "@/support/prng";
 
 describe("localDate", () => {
@@ -112,5 +112,23 @@ describe("periods", () => {
 
   it("refuses dates that are not calendar dates", () => {
     for (const bad of ["2026-02-30", "2026-13-01", "26-01-01", "2026-1-1", ""]) expect(() => parseDateKey(bad), bad).toThrow(RangeError);
+  });
+});
+
+describe("monthLabel", () => {
+  it("names a month period by its English abbreviation and year, as Intl's en-GB short month does (INTL)", () => {
+    expect(monthLabel("2026-11-01")).toBe("Nov 2026");
+    expect(monthLabel("2027-01-01")).toBe("Jan 2027");
+    for (let month = 1; month <= 12; month++) {
+      const key = `2026-${String(month).padStart(2, "0")}-01`;
+      const reference = new Intl.DateTimeFormat("en-GB", { month: "short", year: "numeric", timeZone: "UTC" }).format(new Date(`${key}T00:00:00Z`));
+      // en-GB writes September "Sept"; the label keeps three letters for every month.
+      expect(monthLabel(key)).toBe(month === 9 ? "Sep 2026" : reference);
+    }
+  });
+
+  it("refuses what is not a date key", () => {
+    expect(() => monthLabel("2026-13-01")).toThrow(RangeError);
+    expect(() => monthLabel("Nov 2026")).toThrow(RangeError);
   });
 });
