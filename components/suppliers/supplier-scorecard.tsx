@@ -36,7 +36,7 @@ export async function SupplierScorecardSection({ workspaceId, supplierId, timeZo
             rows={card.months}
             rowKey={(m) => m.month}
             columns={[
-              { header: "Month", rowHeader: true, cell: (m) => monthLabel(m.month) },
+              { header: "Month", rowHeader: true, cell: (m) => <span className="whitespace-nowrap">{monthLabel(m.month)}</span> },
               { header: "Lots", numeric: true, cell: (m) => m.lots },
               { header: "Accepted", numeric: true, cell: (m) => m.accepted },
               { header: "Rejected", numeric: true, cell: (m) => m.rejected },
