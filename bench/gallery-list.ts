@@ -10,6 +10,7 @@
  */
 import crypto from "node:crypto";
 import fs from "node:fs";
+import os from "node:os";
 import path from "node:path";
 import { hash } from "@node-rs/argon2";
 import pg from "pg";
@@ -176,6 +177,7 @@ async function walk(cookie: string, query: string) {
   let perWalk = 0;
   let bytes = 0;
   const started = performance.now();
+  const cpuBefore = process.cpuUsage();
   await Promise.all(
     Array.from({ length: CONNECTIONS }, async () => {
       for (let pass = 0; pass < PASSES; pass++) {
@@ -195,7 +197,11 @@ async function walk(cookie: string, query: string) {
       }
     }),
   );
-  return { latencies, perWalk, seconds: (performance.now() - started) / 1000, bytesPerPage: bytes / latencies.length };
+  const cpu = process.cpuUsage(cpuBefore);
+  const seconds = (performance.now() - started) / 1000;
+  // The client shares the machine with the app and PostgreSQL: its own CPU is what they lacked.
+  const clientCpuSeconds = (cpu.user + cpu.system) / 1e6;
+  return { latencies, perWalk, seconds, bytesPerPage: bytes / latencies.length, clientCpuMsPerPage: (1000 * clientCpuSeconds) / latencies.length, clientShare: clientCpuSeconds / seconds };
 }
 
 /**
@@ -238,13 +244,14 @@ async function main() {
     ["inspector, part type + stain + grade B", inspector, `partType=${partTypeId}&defect=stain&grade=B&limit=48`],
   ];
   for (const [label, cookie, query] of runs) {
-    const { latencies, perWalk, seconds, bytesPerPage } = await walk(cookie, query);
+    const { latencies, perWalk, seconds, bytesPerPage, clientCpuMsPerPage, clientShare } = await walk(cookie, query);
     console.log(`${label}: ${CONNECTIONS} connections × ${PASSES} walks, ${perWalk} items per walk, ${latencies.length} keyset pages of 48 (${(bytesPerPage / 1024).toFixed(0)} KiB each)`);
     console.log(
       `   page latency p50 ${ms(percentile(latencies, 50))}, p95 ${ms(percentile(latencies, 95))} (target p95 <= 50 ms), p99 ${ms(percentile(latencies, 99))}; ${(latencies.length / seconds).toFixed(0)} pages/s`,
     );
+    console.log(`   this client's own CPU: ${clientCpuMsPerPage.toFixed(2)} ms per page, ${(100 * clientShare).toFixed(0)} % of one core (${os.cpus().length} cores here)`);
   }
-  const load = (await import("node:os"))
+  const load = os
     .loadavg()
     .map((l) => l.toFixed(2))
     .join(" ");

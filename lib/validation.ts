@@ -25,6 +25,13 @@ export function parseWith<S extends z.ZodType>(schema: S, value: unknown, what?:
   return result.data;
 }
 
+/** Validates query parameters with a schema; a repeated parameter counts with its last value. */
+export function parseSearchParams<S extends z.ZodType>(params: URLSearchParams, schema: S): z.infer<S> {
+  const record: Record<string, string> = {};
+  for (const [key, value] of params) record[key] = value;
+  return parseWith(schema, record, "The query");
+}
+
 const uuidPattern = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 export function isUuid(value: string): boolean {

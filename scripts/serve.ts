@@ -28,6 +28,16 @@ function normaliseForwarding(req: http.IncomingMessage) {
   }
 }
 
+/**
+ * The plain Node routes (lib/http/node-routes.ts): a few hot read-only API routes answered here
+ * without Next.js's request handling, which costs more CPU than their own work. instrumentation.ts
+ * registers them from inside the build when Next.js prepares its server, which it does on the
+ * first request it is given (the start script's health check); a request they do not match, and
+ * any that comes before they are registered, goes to Next.js, which answers it the same way.
+ */
+type NodeRoutes = { find(method: string | undefined, url: string | undefined): unknown; answer(route: unknown, req: http.IncomingMessage, res: http.ServerResponse): Promise<void> };
+const nodeRoutes = () => (globalThis as Record<symbol, NodeRoutes | undefined>)[Symbol.for("partproof.nodeRoutes")];
+
 const app = next({ dev: false, dir: projectRoot, hostname, port });
 await app.prepare();
 const handle = app.getRequestHandler();
@@ -57,6 +67,16 @@ function lingerCloseWhenAnsweredEarly(req: http.IncomingMessage, res: http.Serve
 const server = http.createServer((req, res) => {
   normaliseForwarding(req);
   lingerCloseWhenAnsweredEarly(req, res);
+  const routes = nodeRoutes();
+  const route = routes?.find(req.method, req.url);
+  if (routes && route) {
+    routes.answer(route, req, res).catch((err: unknown) => {
+      console.error("Unexpected error in a plain Node route", err);
+      if (!res.headersSent) res.writeHead(500, { "Content-Type": "application/json" }).end('{"error":{"code":"internal","message":"Something went wrong on the server. Try again."}}');
+      else res.destroy();
+    });
+    return;
+  }
   void handle(req, res);
 });
 server.on("upgrade", (req, socket, head) => {

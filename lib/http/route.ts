@@ -4,7 +4,7 @@ import { isDatabaseUnavailable } from "@/db/errors";
 import type { Permission } from "@/lib/auth/permissions";
 import { requireUser, type SessionUser } from "@/lib/auth/require-user";
 import { AppError } from "@/lib/errors";
-import { parseWith } from "@/lib/validation";
+import { parseSearchParams, parseWith } from "@/lib/validation";
 import { guardedRoute } from "./api-guard";
 
 export const DATABASE_UNAVAILABLE_MESSAGE = "The database did not answer in time, so nothing was changed. Try again in a moment; your work on this page is kept.";
@@ -107,8 +107,5 @@ export async function parseJson<S extends z.ZodType>(req: Request, schema: S, { 
 
 /** Validates query parameters (single values only) with a schema. */
 export function parseQuery<S extends z.ZodType>(req: Request, schema: S): z.infer<S> {
-  const params = new URL(req.url).searchParams;
-  const record: Record<string, string> = {};
-  for (const [key, value] of params) record[key] = value;
-  return parseWith(schema, record, "The query");
+  return parseSearchParams(new URL(req.url).searchParams, schema);
 }

@@ -8,6 +8,7 @@ import fs from "node:fs";
 import path from "node:path";
 import { describe, expect, it } from "vitest";
 import { isPermission } from "@/lib/auth/permissions";
+import { NODE_ROUTES } from "@/lib/http/node-routes";
 import { NOT_IN_TABLE, ROUTES } from "../../integration/routes";
 
 /** The HTTP methods a route file exports, each with the access its `handler({ ... })` names (null: none named). */
@@ -65,5 +66,11 @@ describe("the route table", () => {
       (r) => `${key(r.method, r.path)}: table ${r.permission}, handler ${named.get(key(r.method, asTemplate(r.path)))}`,
     );
     expect(differing).toEqual([]);
+  });
+
+  it("each plain Node route of the production server has an App Router handler of the same path, method and permission", () => {
+    // lib/http/node-routes.ts: `next dev` serves the App Router handler, the production server the plain route.
+    const named = new Map(discovered.map((r) => [key(r.method, r.path), r.access]));
+    expect(NODE_ROUTES.map((r) => `${key(r.method, r.path)}: ${named.get(key(r.method, r.path)) ?? "no handler"}`)).toEqual(NODE_ROUTES.map((r) => `${key(r.method, r.path)}: ${r.permission}`));
   });
 });
