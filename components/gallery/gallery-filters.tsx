@@ -31,15 +31,17 @@ export function GalleryFilters({ filters, partTypes, canEdit }: { filters: Galle
       </select>
     </label>
   );
+  // Columns of at least 10.5rem (as many as fit: six beside each other at 1440 px, four at 1024 px),
+  // wide enough for each label on one line and each choice's longest default text.
   return (
-    <form role="search" aria-label="Gallery filters" className="grid grid-cols-2 gap-2 sm:grid-cols-3 lg:grid-cols-6" aria-busy={pending} onSubmit={(e) => e.preventDefault()}>
+    <form role="search" aria-label="Gallery filters" className="grid grid-cols-2 gap-2 sm:grid-cols-[repeat(auto-fill,minmax(10.5rem,1fr))]" aria-busy={pending} onSubmit={(e) => e.preventDefault()}>
       {select(
         "partType",
         "Part type",
         partTypes.map((p) => ({ value: p.id, label: p.name })),
         "Every part type",
       )}
-      {select("view", "View", partType?.views.map((v) => ({ value: v.key, label: v.label })) ?? [], partType ? "Every view" : "Choose a part type first", !partType)}
+      {select("view", "View", partType?.views.map((v) => ({ value: v.key, label: v.label })) ?? [], partType ? "Every view" : "Pick a part type", !partType)}
       {select(
         "defect",
         "Defect class",
