@@ -14,12 +14,13 @@ type Page = { items: GalleryCardDto[]; nextCursor: string | null };
 type ErrorBody = { error: { code: string; message: string; fieldErrors?: Record<string, string> } };
 
 let inspector: Session;
+let lead: Session;
 let ownItemId: string;
 let foreignItemId: string;
 let partTypeId: string;
 
 beforeAll(async () => {
-  const lead = await signIn("lead@vellmoor.example");
+  lead = await signIn("lead@vellmoor.example");
   inspector = await signIn("inspector@vellmoor.example");
   const scene = await createGradedPhoto(lead, { extraPhotos: 1 });
   partTypeId = scene.partType.id;
@@ -84,8 +85,9 @@ describe("GET /api/gallery on the production server", () => {
     expect((await api<ErrorBody>(inspector, "GET", "/api/gallery?colour=red")).body.error.message).toMatch(/Unknown field/);
   });
 
-  it("leaves other methods and paths to Next.js (a POST is still refused without its body; HEAD is answered)", async () => {
-    expect((await api<ErrorBody>(inspector, "POST", "/api/gallery", {})).status).toBe(400);
+  it("leaves other methods to Next.js: a POST is checked as before (403 for an inspector, 400 for a lead's empty body); HEAD is answered", async () => {
+    expect((await api<ErrorBody>(inspector, "POST", "/api/gallery", {})).status).toBe(403);
+    expect((await api<ErrorBody>(lead, "POST", "/api/gallery", {})).status).toBe(400);
     expect((await fetch(`${BASE_URL}/api/gallery`, { method: "HEAD", headers: { cookie: inspector.cookie } })).status).toBe(200);
   });
 });
