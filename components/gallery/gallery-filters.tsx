@@ -72,7 +72,7 @@ export function GalleryFilters({ filters, partTypes, canEdit }: { filters: Galle
             { value: "published", label: "Published" },
             { value: "retired", label: "Retired" },
           ],
-          "Drafts and published",
+          "All but retired",
         )}
     </form>
   );

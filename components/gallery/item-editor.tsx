@@ -78,7 +78,8 @@ export function ItemEditor({ item, partType, onDone }: { item: GalleryItemDto; p
             {caption.length} / {CAPTION_MAX}
           </p>
         </div>
-        <div className="grid grid-cols-2 gap-2">
+        {/* One above the other in the 24rem side column (lg), where two side by side cut the choices' text. */}
+        <div className="grid grid-cols-2 gap-2 lg:grid-cols-1">
           <label className="field-label">
             Grade it deserves
             <select className="field-input mt-1" value={grade} onChange={(e) => setGrade(e.target.value as Grade)} data-testid="grade-input">
