@@ -6,18 +6,14 @@ import { useState } from "react";
 import { useDateTime } from "@/components/ui/time-zone";
 import { CLAIM_STATUS_LABELS, CLAIM_STATUSES, type ClaimStatus } from "@/lib/evidence/claim-status";
 import { apiFetch, type ApiError } from "@/lib/http/client";
+import { deliveryText } from "@/lib/mail/delivery-text";
 import { evidenceKeys } from "@/lib/query-keys/evidence";
 import { formatBytes, type EvidencePackView } from "./types";
 
 const EMAIL_TONE = { sent: "text-ok-600", queued: "text-signal-700", failed: "text-fault-700" } as const;
 
-/** The e-mail's delivery state in words: queued (and retried), sent, or failed with the server's reason. */
-function deliveryText(p: EvidencePackView): string {
-  const retried = p.emailAttempts > 1 ? `, after ${p.emailAttempts} attempts` : "";
-  if (p.emailStatus === "sent") return `sent${retried}`;
-  if (p.emailStatus === "queued") return p.emailAttempts > 0 ? `queued, retrying (${p.emailAttempts} attempts so far${p.emailError ? `: ${p.emailError}` : ""})` : "queued";
-  return `failed${retried}${p.emailError ? `: ${p.emailError}` : ""}`;
-}
+/** The e-mail's delivery state in words (lib/mail/delivery-text.ts, as the Outbox says it). */
+const packDeliveryText = (p: EvidencePackView) => deliveryText({ status: p.emailStatus, attempts: p.emailAttempts, error: p.emailError });
 
 /** One pack: what went to whom and how it stands, and its claim with a status form. */
 export function EvidencePackItem({ pack, showLot = false }: { pack: EvidencePackView; showLot?: boolean }) {
@@ -57,7 +53,7 @@ export function EvidencePackItem({ pack, showLot = false }: { pack: EvidencePack
         To {pack.toAddress}: “{pack.subject}”
       </p>
       <p className={EMAIL_TONE[pack.emailStatus]} data-testid="evidence-delivery">
-        E-mail {deliveryText(pack)}
+        E-mail {packDeliveryText(pack)}
       </p>
       <p className="text-xs text-gauge-600">
         {pack.attachments.length} files, {formatBytes(total)}

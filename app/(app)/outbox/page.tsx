@@ -4,14 +4,12 @@ import { notFound } from "next/navigation";
 import { listOutgoingEmails } from "@/db/queries/emails";
 import { requirePageUser } from "@/lib/auth/require-user";
 import { localInboxDir } from "@/lib/env";
+import { deliveryText } from "@/lib/mail/delivery-text";
 import { formatDateTime } from "@/lib/time/format";
 
 export const metadata: Metadata = { title: "Outbox" };
 
 const KIND_LABELS = { invitation: "Invitation", password_reset: "Password reset", supplier_evidence: "Supplier evidence", sign_up: "Sign-up" } as const;
-
-const statusText = (e: { status: "sent" | "queued" | "failed"; error: string | null }) =>
-  e.status === "failed" ? `failed: ${e.error}` : e.status === "queued" ? `queued, retrying (${e.error})` : "delivered";
 
 export default async function OutboxPage() {
   const user = await requirePageUser({ permission: "outbox.read", from: "/outbox" });
@@ -55,7 +53,9 @@ export default async function OutboxPage() {
                     {e.subject}
                   </Link>
                 </td>
-                <td className={`px-4 py-2 ${e.status === "sent" ? "" : "text-fault-700"}`}>{statusText(e)}</td>
+                <td className={`px-4 py-2 ${e.status === "sent" ? "" : "text-fault-700"}`} data-testid={`outbox-status-${e.id}`}>
+                  {deliveryText(e)}
+                </td>
               </tr>
             ))}
             {emails.length === 0 && (
