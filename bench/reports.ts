@@ -1,9 +1,10 @@
 /**
  * Report production speed. Run: `npm run bench -- reports` (or `npx tsx bench/reports.ts`).
  *
- * 1. Streamed CSV of 100 000 unit rows from an async generator (standing in for a database
- *    cursor) through csvStream, read to the end as a download would. Target <= 5 s and peak RSS
- *    growth <= 100 MB. Measured first, in a process that has not yet decoded any photo.
+ * 1. csvStream alone: 100 000 unit rows from an async generator through csvStream, read to the
+ *    end as a download would (the formatting's share). The export from PostgreSQL through its
+ *    pg-cursor, with its memory growth, is bench/csv-export.ts. Measured first, in a process that
+ *    has not yet decoded any photo.
  * 2. Condition certificate: one-page PDF with three annotated view thumbnails, drawn from the
  *    stored 320 px thumbnails (and, for comparison, from the 2 560 px previews). Target median
  *    <= 300 ms, thumbnails included.
