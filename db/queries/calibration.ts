@@ -9,6 +9,8 @@ import { and, asc, desc, eq, inArray, sql } from "drizzle-orm";
 import { db, type DbOrTx } from "@/db/client";
 import { calibrationAssignments, calibrationAttempts, calibrationSetItems, calibrationSets, galleryItems, partTypes, photos, users } from "@/db/schema";
 import type { CalibrationAnswer, StoredAttemptScore } from "@/lib/calibration/types";
+import type { Grade } from "@/lib/grading/rubric-schema";
+import type { CalibrationFailedCheck, CalibrationResult } from "@/lib/recheck/scorecard-calibration";
 
 type SetKey = { workspaceId: string; setId: string };
 
@@ -266,4 +268,65 @@ export async function getLastSubmittedAttempt({ workspaceId, userId, at }: { wor
     .orderBy(desc(calibrationAttempts.submittedAt), desc(calibrationAttempts.id))
     .limit(1);
   return row;
+}
+
+/** Attempts submitted on a local day in [from, to] (the workspace's time zone): the scorecards' calibration reads. */
+const submittedInPeriod = ({ workspaceId, from, to, timeZone }: PeriodKey) => sql`
+  a.workspace_id = ${workspaceId} AND a.status = 'submitted'
+  AND a.submitted_at >= ((${from}::date)::timestamp AT TIME ZONE ${timeZone}) AND a.submitted_at < ((${to}::date)::timestamp AT TIME ZONE ${timeZone}) + interval '1 day'`;
+type PeriodKey = { workspaceId: string; from: string; to: string; timeZone: string };
+
+/**
+ * The submitted attempts of a period for the scorecards: who, which set, the local day, the share
+ * of items graded as the key and the verdict with the checks that failed. Only these figures leave
+ * the stored score — no item, key grade, region or caption — so a reader who has not taken the set
+ * learns nothing of its key.
+ */
+export async function listAttemptResultsInPeriod(key: PeriodKey, tx: DbOrTx = db()): Promise<CalibrationResult[]> {
+  const { rows } = await tx.execute<{
+    attempt_id: string;
+    user_id: string;
+    set_id: string;
+    set_name: string;
+    day: string;
+    items: number;
+    exact_share: number;
+    passed: boolean;
+    failed_checks: CalibrationFailedCheck[];
+  }>(sql`
+    SELECT a.id AS attempt_id, a.user_id, a.set_id, s.name AS set_name, to_char(a.submitted_at AT TIME ZONE ${key.timeZone}, 'YYYY-MM-DD') AS day,
+           jsonb_array_length(a.score->'items') AS items, (a.score->'summary'->'grades'->>'exactShare')::float8 AS exact_share, a.passed,
+           coalesce((SELECT jsonb_agg(c - 'passed') FROM jsonb_array_elements(a.score->'summary'->'checks') c WHERE NOT (c->>'passed')::boolean), '[]'::jsonb) AS failed_checks
+    FROM calibration_attempts a JOIN calibration_sets s ON s.workspace_id = a.workspace_id AND s.id = a.set_id
+    WHERE ${submittedInPeriod(key)}
+    ORDER BY a.submitted_at, a.id`);
+  return rows.map((row) => ({
+    attemptId: row.attempt_id,
+    userId: row.user_id,
+    setId: row.set_id,
+    setName: row.set_name,
+    day: row.day,
+    items: row.items,
+    exactShare: row.exact_share,
+    passed: row.passed,
+    failedChecks: row.failed_checks,
+  }));
+}
+
+/**
+ * Per gallery item taken in the period, its key grade and the grades the period's submitted
+ * attempts gave it, whichever sets it was in (the same example in two sets is one unit; if its key
+ * grade differed between the sets' copies, one unit per key). For the scorecards' alpha and AC1
+ * over calibration items (lib/recheck/team.ts); key grades are only counted into those two
+ * coefficients, never returned to a screen.
+ */
+export async function listCalibrationGradeSetsInPeriod(key: PeriodKey, tx: DbOrTx = db()) {
+  const { rows } = await tx.execute<{ gallery_item_id: string; key_grade: Grade; given: Grade[] }>(sql`
+    SELECT si.gallery_item_id, i->'grade'->>'key' AS key_grade, array_agg(i->'grade'->>'given' ORDER BY a.id) AS given
+    FROM calibration_attempts a
+    CROSS JOIN LATERAL jsonb_array_elements(a.score->'items') i
+    JOIN calibration_set_items si ON si.workspace_id = a.workspace_id AND si.set_id = a.set_id AND si.position = (i->>'position')::int
+    WHERE ${submittedInPeriod(key)}
+    GROUP BY 1, 2`);
+  return rows.map((row) => ({ galleryItemId: row.gallery_item_id, keyGrade: row.key_grade, given: row.given }));
 }

@@ -12,16 +12,21 @@ import "server-only";
  * - Alpha (ordinal) and AC1 are over the period's rechecked units, each unit with its first grade,
  *   its blind recheck grade and any adjudicated grade (not-blind rechecks left out, as in the
  *   scorecards). The adjudication saw both earlier grades (team.ts): the screen says so.
+ * - Calibration: the attempts submitted on a local day of the period, per person: set, day, the
+ *   share of items graded as the key, pass/fail and the failed checks (nothing of the key itself).
+ *   Alpha and AC1 are also given over the period's calibration items (key + each taker's grade as
+ *   one unit), apart from the rechecked units' figures (team.ts `calibrationGradeSets` says why).
  * - The 95 % intervals are the analytic ones of lib/agreement (Fleiss–Cohen–Everitt standard
  *   error for kappa, Wilson for shares), not a bootstrap.
  */
+import { listAttemptResultsInPeriod, listCalibrationGradeSetsInPeriod } from "@/db/queries/calibration";
 import { countGradesByGraderAndWeek, countRechecksByGraderAndWeek, listWorkspaceUserNames, sumClassIouByGraderAndWeek } from "@/db/queries/rechecks";
 import type { SessionUser } from "@/lib/auth/require-user";
 import { localDate, nextPeriod, periodOfDate } from "@/lib/time/periods";
 import { recheckSettings } from "./recording";
 import type { ScorecardQuery } from "./schemas";
 import { buildScorecards } from "./scorecard";
-import { gradeSetsOf, multiRaterAgreement } from "./team";
+import { calibrationGradeSets, gradeSetsOf, multiRaterAgreement } from "./team";
 
 const DAY_MS = 86_400_000;
 
@@ -40,21 +45,26 @@ export async function readScorecards(actor: Pick<SessionUser, "workspaceId">, qu
   const key = { workspaceId: actor.workspaceId, from, to, timeZone };
   // Counted in SQL (db/queries/rechecks.ts): hundreds of rows come back, not one per grade or recheck,
   // so the work here does not grow with the period's grades and rechecks.
-  const [graded, recheckCounts, classIouSums, names] = await Promise.all([
+  const [graded, recheckCounts, classIouSums, calibration, calibrationItems, names] = await Promise.all([
     countGradesByGraderAndWeek(key),
     countRechecksByGraderAndWeek(key),
     sumClassIouByGraderAndWeek(key),
+    listAttemptResultsInPeriod(key),
+    listCalibrationGradeSetsInPeriod(key),
     listWorkspaceUserNames(actor),
   ]);
   const cards = buildScorecards({ from, to, timeZone, graded, settings, recheckCounts, classIouSums });
   // Each counted grade set stands for `count` units graded alike (alpha and AC1 take the counts as weights).
   const { units, counts } = gradeSetsOf(recheckCounts);
   const team = multiRaterAgreement(units, { counts });
+  const people = new Set([...cards.graders.map((g) => g.graderId), ...calibration.map((a) => a.userId)]);
   return {
     ...cards,
     settings,
-    names: Object.fromEntries(cards.graders.map((g) => [g.graderId, names.get(g.graderId) ?? "someone no longer listed"])),
+    names: Object.fromEntries([...people].map((id) => [id, names.get(id) ?? "someone no longer listed"])),
     multiRater: team,
+    calibration,
+    calibrationMultiRater: multiRaterAgreement(calibrationGradeSets(calibrationItems)),
     timeZone,
     nextWeek: nextPeriod(periodOfDate(to, "week"), "week"),
   };

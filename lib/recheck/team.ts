@@ -76,3 +76,17 @@ export function gradeSetsOf(rows: readonly CountedRecheck[]): { units: Grade[][]
   const list = [...sets.values()];
   return { units: list.map((set) => set.unit), counts: list.map((set) => set.count) };
 }
+
+/** One calibration item's grades over a period: its key, and the grade each submitted attempt gave it. */
+type CalibrationItemGrades = { keyGrade: Grade; given: readonly Grade[] };
+
+/**
+ * Calibration items as units for `multiRaterAgreement`: the key and each taker's grade are the
+ * unit's grades, so an item taken by two people is a unit graded by three. Reported apart from the
+ * rechecked units, not pooled with them: the items are chosen examples (often borderline) graded
+ * by people being trained against a key set with hindsight, while a recheck is production work
+ * graded blind by a peer; pooled, a set taken by many people would outweigh the period's rechecks.
+ */
+export function calibrationGradeSets(items: readonly CalibrationItemGrades[]): Grade[][] {
+  return items.map((item) => [item.keyGrade, ...item.given]);
+}

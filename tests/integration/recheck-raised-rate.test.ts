@@ -13,9 +13,8 @@ import { recheckDraws, rechecks } from "@/db/schema";
 import { gradeAgreement, gradeSteps } from "@/lib/grading/grade-steps";
 import type { Grade } from "@/lib/grading/rubric-schema";
 import { drawRechecks } from "@/lib/recheck/draw";
-import { createAssignedSet, createCalibrationItems, KEYS } from "../support/calibration";
-import { api } from "../support/http";
-import { gradedUnit, RECHECK_DEFAULTS, recheckWorld, type Person, type RecheckWorld } from "../support/recheck";
+import { createCalibrationItems, takeAssignedSet } from "../support/calibration";
+import { gradedUnit, RECHECK_DEFAULTS, recheckWorld, type RecheckWorld } from "../support/recheck";
 
 const rechecksOf = (workspaceId: string) => db().select().from(rechecks).where(eq(rechecks.workspaceId, workspaceId));
 
@@ -66,29 +65,13 @@ describe("the raised rate for a drifting grader", () => {
   });
 });
 
-/** `taker` takes an assigned set of the five fixture items: the key's own answers, or nothing marked and Reject throughout. */
-async function takeCalibration(world: RecheckWorld, taker: Person, itemIds: string[], answers: "as the key" | "all wrong") {
-  await createAssignedSet(world.lead, itemIds, taker.id, `Raised-rate set ${taker.id}`);
-  const mine = await api<{ assignments: { id: string }[] }>(taker, "GET", "/api/calibration/assignments");
-  const started = await api<{ attemptId: string }>(taker, "POST", `/api/calibration/assignments/${mine.body.assignments[0].id}/attempt`);
-  const attemptId = started.body.attemptId;
-  for (const [i, key] of KEYS.entries()) {
-    const answer = answers === "as the key" ? { position: i + 1, grade: key.grade, regions: key.regions } : { position: i + 1, grade: "Reject", regions: { regions: [], surfaces: [], ruler: null } };
-    const saved = await api(taker, "PUT", `/api/calibration/attempts/${attemptId}/answers`, answer);
-    expect(saved.status, JSON.stringify(saved.body)).toBe(200);
-  }
-  const submitted = await api<{ attempt: { result: { passed: boolean } } }>(taker, "POST", `/api/calibration/attempts/${attemptId}/submit`);
-  expect(submitted.status, JSON.stringify(submitted.body)).toBe(200);
-  return { attemptId, passed: submitted.body.attempt.result.passed };
-}
-
 describe("the raised rate after a failed calibration", () => {
   it("draws a grader whose last calibration attempt failed at the raised rate and names the attempt; a passing grader keeps the normal rate", async () => {
     const calWorld = await recheckWorld({ ...RECHECK_DEFAULTS, rate: 0.1, raisedRate: 1, driftMinRechecks: 50 });
     const items = await createCalibrationItems(calWorld.lead);
     const itemIds = items.published.map((p) => p.id);
-    const failed = await takeCalibration(calWorld, calWorld.inspector, itemIds, "all wrong");
-    const passed = await takeCalibration(calWorld, calWorld.inspector2, itemIds, "as the key");
+    const failed = await takeAssignedSet(calWorld.lead, calWorld.inspector, itemIds, "all wrong");
+    const passed = await takeAssignedSet(calWorld.lead, calWorld.inspector2, itemIds, "as the key");
     expect([failed.passed, passed.passed]).toEqual([false, true]);
 
     // Week's first grade: drawn either way (⌈rate × 1⌉ = 1). The second shows the rate.

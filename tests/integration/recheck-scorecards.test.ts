@@ -11,6 +11,7 @@ import { grades, rechecks } from "@/db/schema";
 import { gradeAgreement, gradeSteps } from "@/lib/grading/grade-steps";
 import type { Grade } from "@/lib/grading/rubric-schema";
 import type { RecheckComparison } from "@/lib/recheck/compare";
+import { createCalibrationItems, takeAssignedSet } from "../support/calibration";
 import { createPartType, createUnit, insertRubricVersion } from "../support/grading";
 import { api } from "../support/http";
 import { gradedUnit, RECHECK_DEFAULTS, recheckWorld, type RecheckWorld } from "../support/recheck";
@@ -286,5 +287,69 @@ describe("GET /api/recheck/scorecards/csv", () => {
     expect(lines).toHaveLength(1 + 2 * 13);
     const period = lines.find((line) => line.includes(`,${world.inspector.id},`) && !line.includes("week of"))!;
     expect(period.split(",").slice(3, 8)).toEqual(["3", "3", "1", "2", "0.5"]);
+  });
+});
+
+type Calibration = { attemptId: string; userId: string; setName: string; day: string; items: number; exactShare: number; passed: boolean; failedChecks: { check: string }[] };
+type CalibrationView = View & { calibration: Calibration[]; calibrationMultiRater: { units: number; grades: number; unitsWithMoreThanTwo: number; ac1: number } };
+
+describe("calibration results on the scorecards (issue 19, item 6)", () => {
+  let passed: { attemptId: string };
+  let failed: { attemptId: string };
+  beforeAll(async () => {
+    const items = await createCalibrationItems(world.lead);
+    const itemIds = items.published.map((item) => item.id);
+    passed = await takeAssignedSet(world.lead, world.inspector, itemIds, "as the key", { name: "Scorecard set: passed" });
+    failed = await takeAssignedSet(world.lead, world.inspector2, itemIds, "all wrong", { name: "Scorecard set: failed" });
+    // The lead reads the scorecards while taking a set of the same items, not yet submitted.
+    await takeAssignedSet(world.lead, world.lead, itemIds, "as the key", { submit: false, name: "Scorecard set: in progress" });
+  });
+
+  it("lists each submitted attempt of the period with its set, day, grade agreement and verdict, and nothing of the key", async () => {
+    const res = await api<CalibrationView>(world.lead, "GET", "/api/recheck/scorecards");
+    expect(res.status).toBe(200);
+    const byAttempt = new Map(res.body.calibration.map((a) => [a.attemptId, a]));
+    // HAND: the in-progress attempt is not listed; "as the key" agrees on all 5 items, Reject throughout on none (no key is Reject).
+    expect(res.body.calibration).toHaveLength(2);
+    expect(byAttempt.get(passed.attemptId)).toMatchObject({ userId: world.inspector.id, setName: "Scorecard set: passed", items: 5, exactShare: 1, passed: true, failedChecks: [] });
+    expect(byAttempt.get(failed.attemptId)).toMatchObject({ userId: world.inspector2.id, setName: "Scorecard set: failed", items: 5, exactShare: 0, passed: false });
+    expect(byAttempt.get(failed.attemptId)!.failedChecks.map((c) => c.check)).toContain("grade_agreement");
+    expect(byAttempt.get(passed.attemptId)!.day).toBe(res.body.to);
+    // Only those fields cross: no item, key grade, region or caption.
+    for (const attempt of res.body.calibration) expect(Object.keys(attempt).sort()).toEqual(["attemptId", "day", "exactShare", "failedChecks", "items", "passed", "setId", "setName", "userId"]);
+    expect(JSON.stringify(res.body)).not.toContain("KEY-CAPTION");
+    // inspector2 graded nothing here, so has no scorecard, but is named for their attempt.
+    expect(res.body.graders.map((g) => g.graderId)).not.toContain(world.inspector2.id);
+    expect(res.body.names[world.inspector2.id]).toBeTruthy();
+  });
+
+  it("gives alpha and AC1 over the calibration items apart: each item's key and its two submitted grades (HAND)", async () => {
+    const res = await api<CalibrationView>(world.auditor, "GET", "/api/recheck/scorecards");
+    // The two takers had a set each, of the same 5 gallery items: 5 units of key + 2 grades; the lead's unsubmitted answers are not counted.
+    expect(res.body.calibrationMultiRater).toMatchObject({ units: 5, grades: 15, unitsWithMoreThanTwo: 5 });
+    // HAND (AC1, q = 4): per item the key and the passing taker agree, the failing one gave Reject: p_a = 1/3 on every item.
+    // Shares: keys C, A, B, C, A each twice over 15 grades, Reject 5: π_A = 4/15, π_B = 2/15, π_C = 4/15, π_R = 5/15;
+    // p_e = Σ π(1 − π) / 3 = (44 + 26 + 44 + 50) / 225 / 3 = 164/675; AC1 = (1/3 − 164/675) / (1 − 164/675) = 61/511.
+    expect(res.body.calibrationMultiRater.ac1).toBeCloseTo(61 / 511, 10);
+    // The rechecked units' figure is unchanged by calibration.
+    expect(res.body.multiRater.units).toBe(2);
+  });
+
+  it("writes one CSV row per attempt after its grader's rows, and nothing of the key", async () => {
+    const res = await api<string>(world.auditor, "GET", "/api/recheck/scorecards/csv");
+    const text = String(res.body);
+    expect(text).not.toContain("KEY-CAPTION");
+    const lines = text
+      .replace(/^\uFEFF/, "")
+      .trim()
+      .split("\r\n");
+    const header = lines[0].split(",");
+    const rows = lines.filter((line) => line.includes(",calibration on "));
+    expect(rows).toHaveLength(2);
+    const failedRow = rows.find((line) => line.includes(`,${world.inspector2.id},`))!.split(",");
+    expect(failedRow[header.indexOf("calibration_set")]).toBe("Scorecard set: failed");
+    expect(failedRow[header.indexOf("calibration_grade_agreement")]).toBe("0");
+    expect(failedRow[header.indexOf("calibration_passed")]).toBe("false");
+    expect(failedRow[header.indexOf("calibration_failed_checks")]).toMatch(/grade agreement 0 % \(needs 80 %\)/);
   });
 });

@@ -52,3 +52,32 @@ export async function createAssignedSet(trainer: Session, itemIds: string[], tak
   if (assigned.status !== 200) throw new Error(`Fixture assignment failed: ${JSON.stringify(assigned.body)}`);
   return { setId: made.body.set.id };
 }
+
+/**
+ * `taker` is assigned a new set of `itemIds` (by `trainer`) and takes it: the key's own answers, or
+ * nothing marked and Reject throughout; submitted unless `submit: false` (left in progress).
+ */
+export async function takeAssignedSet(
+  trainer: Session,
+  taker: Session & { id: string },
+  itemIds: string[],
+  answers: "as the key" | "all wrong",
+  { submit = true, name = `Taken set ${taker.id} ${Date.now()}` }: { submit?: boolean; name?: string } = {},
+) {
+  const { setId } = await createAssignedSet(trainer, itemIds, taker.id, name);
+  // The taker's list names sets, not their ids: `name` is unique per call.
+  const mine = await api<{ assignments: { id: string; setName: string }[] }>(taker, "GET", "/api/calibration/assignments");
+  const assignment = mine.body.assignments.find((a) => a.setName === name);
+  if (!assignment) throw new Error(`Fixture: ${taker.email} has no assignment of set "${name}": ${JSON.stringify(mine.body)}`);
+  const started = await api<{ attemptId: string }>(taker, "POST", `/api/calibration/assignments/${assignment.id}/attempt`);
+  const attemptId = started.body.attemptId;
+  for (const [i, key] of KEYS.entries()) {
+    const answer = answers === "as the key" ? { position: i + 1, grade: key.grade, regions: key.regions } : { position: i + 1, grade: "Reject", regions: { regions: [], surfaces: [], ruler: null } };
+    const saved = await api(taker, "PUT", `/api/calibration/attempts/${attemptId}/answers`, answer);
+    if (saved.status !== 200) throw new Error(`Fixture answer failed: ${JSON.stringify(saved.body)}`);
+  }
+  if (!submit) return { setId, attemptId, passed: null };
+  const submitted = await api<{ attempt: { result: { passed: boolean } } }>(taker, "POST", `/api/calibration/attempts/${attemptId}/submit`);
+  if (submitted.status !== 200) throw new Error(`Fixture submission failed: ${JSON.stringify(submitted.body)}`);
+  return { setId, attemptId, passed: submitted.body.attempt.result.passed };
+}

@@ -6,6 +6,7 @@ import { describe, expect, it } from "vitest";
 import { csvHeader, csvLines } from "@/lib/reports/csv-stream";
 import { buildScorecards, type ScorecardRecheck } from "@/lib/recheck/scorecard";
 import { SCORECARD_CSV_COLUMNS, scorecardCsvRows } from "@/lib/recheck/scorecard-csv";
+import { calibrationCountText, calibrationVerdictText, type CalibrationResult } from "@/lib/recheck/scorecard-calibration";
 import { bandLabel, formatKappa, formatKappaInterval, formatPercent, formatShareInterval } from "@/lib/recheck/scorecard-format";
 import { DEFAULT_RECHECK_SETTINGS } from "@/lib/recheck/settings";
 
@@ -35,12 +36,32 @@ const cards = buildScorecards({
     r("amy", "2026-06-09T09:00:00Z", "A", "B"),
   ],
 });
-const view = { ...cards, names: { zed: "Zed Orrow", amy: "Amy Quell" } };
+// Calibration: Zed passed one set and failed another; Bea (no grades, so no scorecard) took one.
+const attempt = (userId: string, day: string, setName: string, exactShare: number, passed: boolean, failedChecks: CalibrationResult["failedChecks"] = []): CalibrationResult => ({
+  attemptId: `${userId}-${day}`,
+  userId,
+  setId: setName,
+  setName,
+  day,
+  items: 5,
+  exactShare,
+  passed,
+  failedChecks,
+});
+const calibration = [
+  attempt("zed", "2026-06-03", "Housings", 1, true),
+  attempt("bea", "2026-06-05", "Housings", 0.8, true),
+  attempt("zed", "2026-06-10", "Cameras", 0.4, false, [
+    { check: "grade_agreement", value: 0.4, threshold: 0.8 },
+    { check: "mean_iou", defect: "scratch", value: 0.3125, threshold: 0.5 },
+  ]),
+];
+const view = { ...cards, names: { zed: "Zed Orrow", amy: "Amy Quell", bea: "Bea Lindqvist" }, calibration };
 
 describe("scorecardCsvRows", () => {
   const rows = scorecardCsvRows(view);
 
-  it("lists each grader by name week by week then their period, and the team last", () => {
+  it("lists each grader by name week by week then their period and calibration attempts, people with attempts only, and the team last", () => {
     expect(rows.map((row) => `${row.who}|${row.period}`)).toEqual([
       "Amy Quell|week of 2026-06-01",
       "Amy Quell|week of 2026-06-08",
@@ -48,6 +69,9 @@ describe("scorecardCsvRows", () => {
       "Zed Orrow|week of 2026-06-01",
       "Zed Orrow|week of 2026-06-08",
       "Zed Orrow|2026-06-01..2026-06-14",
+      "Zed Orrow|calibration on 2026-06-03",
+      "Zed Orrow|calibration on 2026-06-10",
+      "Bea Lindqvist|calibration on 2026-06-05",
       "Team|week of 2026-06-01",
       "Team|week of 2026-06-08",
       "Team|2026-06-01..2026-06-14",
@@ -78,6 +102,26 @@ describe("scorecardCsvRows", () => {
         "exact_agreement",
       ),
     ).toBe("0.6");
+  });
+
+  it("writes a calibration attempt's set, items, agreement, verdict and failed checks; its recheck columns stay empty", () => {
+    const lines = (csvHeader(SCORECARD_CSV_COLUMNS, { bom: false }) + csvLines(SCORECARD_CSV_COLUMNS, rows)).split("\r\n");
+    const header = lines[0].split(",");
+    expect(header.slice(-5)).toEqual(["calibration_set", "calibration_items", "calibration_grade_agreement", "calibration_passed", "calibration_failed_checks"]);
+    const failed = lines.find((line) => line.startsWith("Zed Orrow,zed,calibration on 2026-06-10"))!.split(",");
+    const cell = (column: string) => failed[header.indexOf(column)];
+    expect([cell("graded"), cell("n"), cell("exact_agreement"), cell("drift_flagged")]).toEqual(["", "", "", ""]);
+    expect([cell("calibration_set"), cell("calibration_items"), cell("calibration_grade_agreement"), cell("calibration_passed")]).toEqual(["Cameras", "5", "0.4", "false"]);
+    expect(cell("calibration_failed_checks")).toBe("grade agreement 40 % (needs 80 %); mean IoU of scratch 0.31 (needs 0.50)");
+  });
+});
+
+describe("calibration results in words", () => {
+  it("counts passes per person and says why an attempt failed (HAND)", () => {
+    expect(calibrationCountText(calibration.filter((a) => a.userId === "zed"))).toBe("1 of 2 passed");
+    expect(calibrationCountText([])).toBe("—");
+    expect(calibrationVerdictText(calibration[0])).toBe("Passed");
+    expect(calibrationVerdictText(calibration[2], (d) => (d === "scratch" ? "Scratch" : d))).toBe("Failed: grade agreement 40 % (needs 80 %); mean IoU of Scratch 0.31 (needs 0.50)");
   });
 });
 

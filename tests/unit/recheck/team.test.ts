@@ -10,7 +10,7 @@
  */
 import { describe, expect, it } from "vitest";
 import type { Grade } from "@/lib/grading/rubric-schema";
-import { gradeSetsOf, multiRaterAgreement } from "@/lib/recheck/team";
+import { calibrationGradeSets, gradeSetsOf, multiRaterAgreement } from "@/lib/recheck/team";
 
 const SCALE: Grade[] = ["A", "B", "C", "Reject"];
 
@@ -133,5 +133,24 @@ describe("gradeSetsOf (the scorecards' counted rechecks as grade sets)", () => {
     // Identical sets from different graders and weeks become one entry.
     expect(new Set(units.map((unit) => unit.join("|"))).size).toBe(units.length);
     expect(units.length).toBeLessThan(rechecked.length);
+  });
+});
+
+describe("calibrationGradeSets (calibration items as units: the key and each taker's grade)", () => {
+  it("makes Gwet's 5 observers' data, read as one key and four takers per item, give the same AC1 0.497 (IRR a)", () => {
+    // Each unit's first grade stands for the key, the others for the takers who graded that item.
+    const items = FIVE_OBSERVERS.map(([keyGrade, ...given]) => ({ keyGrade, given }));
+    const units = calibrationGradeSets(items);
+    expect(units).toEqual(FIVE_OBSERVERS);
+    expect(Number(multiRaterAgreement(units).ac1.toFixed(3))).toBe(0.497);
+  });
+
+  it("an item nobody took in the period is the key alone and counts in neither figure (HAND)", () => {
+    const units = calibrationGradeSets([
+      { keyGrade: "B", given: [] },
+      { keyGrade: "A", given: ["A", "B"] },
+    ]);
+    expect(units).toEqual([["B"], ["A", "A", "B"]]);
+    expect(multiRaterAgreement(units)).toMatchObject({ units: 1, grades: 3, unitsWithMoreThanTwo: 1 });
   });
 });

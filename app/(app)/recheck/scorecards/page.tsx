@@ -1,10 +1,12 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { ScorecardTrendChart, type TrendPoint } from "@/components/recheck/scorecard-trend-chart";
+import { CalibrationTable } from "@/components/recheck/scorecard-calibration";
 import { driftText, GraderTable, MeanIouTable, ScorecardWeekTable } from "@/components/recheck/scorecard-tables";
 import { IgnoredParamsNote } from "@/components/ui/ignored-params-note";
 import { listPartTypes } from "@/db/queries/part-types";
 import { requirePageUser } from "@/lib/auth/require-user";
+import { calibrationByPerson, calibrationCountText } from "@/lib/recheck/scorecard-calibration";
 import { formatPercent } from "@/lib/recheck/scorecard-format";
 import { scorecardHref, scorecardPageSchema } from "@/lib/recheck/scorecard-params";
 import { readScorecards } from "@/lib/recheck/scorecards-read";
@@ -34,6 +36,9 @@ export default async function ScorecardsPage(props: PageProps<"/recheck/scorecar
   const threshold = view.settings.driftAgreement;
   const points: TrendPoint[] = card.weeks.map((w) => ({ week: w.week, exact: finite(w.figures.exact.share), kappa: finite(w.figures.kappa.kappa), n: w.figures.n }));
   const multi = view.multiRater;
+  const calibrationOf = calibrationByPerson(view.calibration);
+  const calibrationShown = selected ? (calibrationOf.get(selected.graderId) ?? []) : view.calibration;
+  const calibrationMulti = view.calibrationMultiRater;
   const csvHref = `/api/recheck/scorecards/csv?from=${view.from}&to=${view.to}`;
 
   return (
@@ -88,6 +93,7 @@ export default async function ScorecardsPage(props: PageProps<"/recheck/scorecar
               team={view.team}
               selected={selected?.graderId ?? null}
               linkFor={(graderId) => scorecardHref({ ...period, grader: graderId ?? undefined })}
+              calibration={(graderId) => calibrationCountText(graderId ? (calibrationOf.get(graderId) ?? []) : view.calibration)}
             />
             <p className="text-xs text-gauge-600">
               Kappa and weighted kappa (quadratic weights) on the full A/B/C/Reject scale; 95 % intervals from the analytic standard error (Fleiss, Cohen &amp; Everitt, 1969), exact agreement with the
@@ -138,9 +144,28 @@ export default async function ScorecardsPage(props: PageProps<"/recheck/scorecar
                 </p>
               </>
             )}
+            {calibrationMulti.units > 0 && (
+              <p className="text-sm" data-testid="calibration-multi-rater">
+                Over the period&apos;s calibration items (each item&apos;s key and every taker&apos;s grade): alpha{" "}
+                <strong className="tabular-nums">{Number.isFinite(calibrationMulti.alphaOrdinal) ? calibrationMulti.alphaOrdinal.toFixed(2) : "n/a"}</strong>, AC1{" "}
+                <strong className="tabular-nums">{Number.isFinite(calibrationMulti.ac1) ? calibrationMulti.ac1.toFixed(2) : "n/a"}</strong> over {calibrationMulti.units} item
+                {calibrationMulti.units === 1 ? "" : "s"} ({calibrationMulti.grades} grades, {calibrationMulti.unitsWithMoreThanTwo} with more than two). Kept apart from the rechecks: the items are
+                chosen examples graded by people in training against a key.
+              </p>
+            )}
           </section>
         </>
       )}
+
+      <section className="card space-y-2 p-5" aria-labelledby="calibration-heading">
+        <h2 id="calibration-heading" className="text-lg font-semibold">
+          {selected ? `${cardLabel}: calibration` : "Calibration"}
+        </h2>
+        <p className="text-xs text-gauge-600">
+          Calibration attempts submitted in the period, scored against each set&apos;s key: the share of items graded as the key and whether the set&apos;s thresholds were met.
+        </p>
+        <CalibrationTable attempts={calibrationShown} names={view.names} showPerson={!selected} classLabels={classLabels} />
+      </section>
     </div>
   );
 }
