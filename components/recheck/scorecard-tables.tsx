@@ -29,15 +29,12 @@ export function GraderTable({
   team,
   linkFor,
   selected,
-  calibration,
 }: {
   graders: GraderRow[];
   names: Record<string, string>;
   team: Counts;
   linkFor: (graderId: string | null) => string;
   selected: string | null;
-  /** Per grader ("team" for everyone), their calibration attempts of the period in words ("1 of 2 passed"). */
-  calibration: (graderId: string | null) => string;
 }) {
   const sorted = [...graders].sort((a, b) => (names[a.graderId] ?? "").localeCompare(names[b.graderId] ?? ""));
   const row = (key: string, name: React.ReactNode, counts: Counts, drift: DriftFlag | null, isSelected: boolean) => (
@@ -55,9 +52,6 @@ export function GraderTable({
       <td className={`${td} whitespace-nowrap tabular-nums`}>{formatKappaInterval(counts.figures.kappa)}</td>
       <td className={td}>{bandLabel(counts.figures.kappa)}</td>
       <td className={`${td} whitespace-nowrap tabular-nums`}>{formatKappaInterval(counts.figures.quadraticKappa)}</td>
-      <td className={`${td} whitespace-nowrap`} data-testid={`calibration-count-${key}`}>
-        {calibration(key === "team" ? null : key)}
-      </td>
       <td className={`${td} min-w-48`} data-testid={`drift-${key}`}>
         {drift ? drift.flagged ? <span className="font-medium text-fault-700">⚑ {driftText(drift)}</span> : "No" : "—"}
       </td>
@@ -92,9 +86,6 @@ export function GraderTable({
             </th>
             <th scope="col" className={th}>
               Weighted kappa (95 %)
-            </th>
-            <th scope="col" className={th}>
-              Calibration
             </th>
             <th scope="col" className={th}>
               Drift

@@ -93,7 +93,6 @@ export default async function ScorecardsPage(props: PageProps<"/recheck/scorecar
               team={view.team}
               selected={selected?.graderId ?? null}
               linkFor={(graderId) => scorecardHref({ ...period, grader: graderId ?? undefined })}
-              calibration={(graderId) => calibrationCountText(graderId ? (calibrationOf.get(graderId) ?? []) : view.calibration)}
             />
             <p className="text-xs text-gauge-600">
               Kappa and weighted kappa (quadratic weights) on the full A/B/C/Reject scale; 95 % intervals from the analytic standard error (Fleiss, Cohen &amp; Everitt, 1969), exact agreement with the
@@ -159,7 +158,12 @@ export default async function ScorecardsPage(props: PageProps<"/recheck/scorecar
 
       <section className="card space-y-2 p-5" aria-labelledby="calibration-heading">
         <h2 id="calibration-heading" className="text-lg font-semibold">
-          {selected ? `${cardLabel}: calibration` : "Calibration"}
+          {selected ? `${cardLabel}: calibration` : "Calibration"}{" "}
+          {calibrationShown.length > 0 && (
+            <span className="text-sm font-normal text-gauge-600" data-testid="calibration-count">
+              ({calibrationCountText(calibrationShown)})
+            </span>
+          )}
         </h2>
         <p className="text-xs text-gauge-600">
           Calibration attempts submitted in the period, scored against each set&apos;s key: the share of items graded as the key and whether the set&apos;s thresholds were met.
