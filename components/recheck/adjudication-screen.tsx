@@ -3,12 +3,19 @@
 import { useMutation } from "@tanstack/react-query";
 import { useState } from "react";
 import { GradeBadge } from "@/components/grading/grade-badge";
+import type { MeasurementLabels } from "@/components/grading/measurement-table";
 import { FormMessage } from "@/components/ui/form-field";
 import { GRADES, type Grade } from "@/lib/grading/rubric-schema";
 import { adjudicationReasonsText } from "@/lib/recheck/adjudication";
 import { apiFetch } from "@/lib/http/client";
 import { recheckUrls, type AdjudicationJson } from "./api";
 import { OVERLAY_KEY, OverlayOnPhoto, RegionsOnPhoto } from "./side-svg";
+
+/** A label inside a sentence: "Dust under glass" reads "dust under glass"; "LCD bleed" stays. */
+const midSentence = (label: (key: string) => string) => (key: string) => {
+  const text = label(key);
+  return /^[A-Z][a-z]/.test(text) ? text[0].toLowerCase() + text.slice(1) : text;
+};
 
 const percent = (value: number) => (Number.isFinite(value) ? `${Math.round(value * 100)} %` : "n/a");
 
@@ -38,7 +45,9 @@ function Side({ title, side }: { title: string; side: AdjudicationJson["first"] 
  * explanation lines and the overlap per class; the adjudicator decides which grade stands, or
  * gives their own, always with a reason.
  */
-export function AdjudicationScreen({ view }: { view: AdjudicationJson }) {
+export function AdjudicationScreen({ view, labels }: { view: AdjudicationJson; labels: MeasurementLabels }) {
+  const defectLabel = (key: string) => labels.defects[key] ?? key;
+  const viewLabel = (key: string) => labels.views[key] ?? key;
   const [choice, setChoice] = useState<"first" | "recheck" | "own">("first");
   const [own, setOwn] = useState<Grade>("A");
   const [reason, setReason] = useState("");
@@ -56,7 +65,8 @@ export function AdjudicationScreen({ view }: { view: AdjudicationJson }) {
           Settle a disagreement · {view.unit.partTypeName} {view.unit.serial ?? ""}
         </h1>
         <p className="text-sm text-gauge-700">
-          Lot <a href={`/lots/${view.unit.lotId}`}>{view.unit.purchaseRef}</a> · rubric version {view.unit.rubricVersion} · why: {adjudicationReasonsText(view.recheck.reasons)}
+          Lot <a href={`/lots/${view.unit.lotId}`}>{view.unit.purchaseRef}</a> · rubric version {view.unit.rubricVersion} · why:{" "}
+          {adjudicationReasonsText(view.recheck.reasons, midSentence(defectLabel))}
         </p>
       </header>
       <div className="grid gap-3 md:grid-cols-2">
@@ -64,8 +74,8 @@ export function AdjudicationScreen({ view }: { view: AdjudicationJson }) {
         <Side title="Recheck" side={view.second} />
       </div>
       {view.photos.map((p) => (
-        <section key={p.photo.id} className="space-y-2" aria-label={`The ${p.photo.viewKey} photo`}>
-          <h2 className="text-base font-semibold">Photo: {p.photo.viewKey}</h2>
+        <section key={p.photo.id} className="space-y-2" aria-label={`The ${viewLabel(p.photo.viewKey)} photo`}>
+          <h2 className="text-base font-semibold">Photo: {viewLabel(p.photo.viewKey)}</h2>
           <div className="grid gap-3 lg:grid-cols-3">
             <figure>
               <RegionsOnPhoto photoId={p.photo.id} width={p.photo.width} height={p.photo.height} regions={p.first} label="The first grade's regions" />
@@ -118,7 +128,7 @@ export function AdjudicationScreen({ view }: { view: AdjudicationJson }) {
           {Object.entries(view.classes).map(([defect, c]) => (
             <tr key={defect}>
               <th scope="row" className="pr-4 font-normal">
-                {defect}
+                {defectLabel(defect)}
               </th>
               <td className="pr-4">{c.firstPx}</td>
               <td className="pr-4">{c.recheckPx}</td>

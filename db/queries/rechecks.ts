@@ -379,6 +379,7 @@ export async function getGradeForAdjudication({ workspaceId, gradeId }: Scope & 
       serial: units.serial,
       lotId: units.lotId,
       purchaseRef: lots.purchaseRef,
+      partTypeId: units.partTypeId,
       partTypeName: partTypes.name,
     })
     .from(grades)

@@ -68,7 +68,15 @@ export async function adjudicationView(actor: Actor, recheckId: string) {
         ? { choice: recheck.adjudicationChoice, reason: recheck.adjudicationReason, byName: names.get(recheck.adjudicatedBy!) ?? null, at: recheck.adjudicatedAt.toISOString() }
         : null,
     },
-    unit: { id: recheck.unitId, serial: first.serial, lotId: first.lotId, purchaseRef: first.purchaseRef, partTypeName: first.partTypeName, rubricVersion: first.rubricVersion },
+    unit: {
+      id: recheck.unitId,
+      serial: first.serial,
+      lotId: first.lotId,
+      purchaseRef: first.purchaseRef,
+      partTypeId: first.partTypeId,
+      partTypeName: first.partTypeName,
+      rubricVersion: first.rubricVersion,
+    },
     first: {
       grade: first.finalGrade,
       proposed: first.proposedGrade,

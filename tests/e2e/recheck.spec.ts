@@ -129,6 +129,10 @@ test("a graded unit is drawn, rechecked blind, adjudicated by a lead, and the un
     // Both region sets are there to compare: the first grader's scratch and the auditor's dent, on the front photo.
     await expect(screen).toContainText("First grade's regions (1)");
     await expect(screen).toContainText("Recheck's regions (1)");
+    // Classes and views by the part type's names, not its keys.
+    await expect(screen.getByRole("heading", { name: "Photo: Front" })).toBeVisible();
+    await expect(screen.getByRole("rowheader", { name: "Scratch", exact: true })).toBeVisible();
+    await expect(screen.getByRole("rowheader", { name: "Dent", exact: true })).toBeVisible();
     await shots(page, "adjudication", (n) => testInfo.outputPath(n));
     await page.getByLabel("The recheck (A)").check();
     await page.getByLabel("Reason").fill("The first mark is on the card, not on the part.");
