@@ -15,6 +15,7 @@ import pg from "pg";
 import { benchLotPlan } from "../scripts/lib/bench-plan";
 import { startServices } from "../scripts/lib/services";
 import { appDatabaseUrl, databaseUrl, demoSettings } from "../scripts/lib/settings";
+import { readMeasured } from "./_stream-measure";
 
 const UNITS = 100_000;
 const settings = demoSettings();
@@ -90,23 +91,11 @@ try {
   const { exportCsv } = await import("@/lib/reports/exports");
   const { closeDb } = await import("@/db/client");
   const run = async () => {
-    const before = process.memoryUsage().rss;
-    let peak = before;
-    const sampler = setInterval(() => (peak = Math.max(peak, process.memoryUsage().rss)), 5);
-    const start = performance.now();
-    const cpuStart = process.cpuUsage();
-    let bytes = 0;
     let lines = 0;
-    const reader = exportCsv("units", { workspaceId, filter: {}, timeZone: "UTC" }).getReader();
-    for (let next = await reader.read(); !next.done; next = await reader.read()) {
-      bytes += next.value.byteLength;
-      for (const byte of next.value) if (byte === 10) lines++;
-      peak = Math.max(peak, process.memoryUsage().rss);
-    }
-    const elapsed = performance.now() - start;
-    const cpu = process.cpuUsage(cpuStart);
-    clearInterval(sampler);
-    return { elapsed, cpu: (cpu.user + cpu.system) / 1000, bytes, lines, growth: peak - before, before, peak };
+    const cost = await readMeasured(exportCsv("units", { workspaceId, filter: {}, timeZone: "UTC" }), (chunk) => {
+      for (const byte of chunk) if (byte === 10) lines++;
+    });
+    return { ...cost, lines };
   };
   for (let i = 0; i < 3; i++) {
     const r = await run();

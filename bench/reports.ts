@@ -29,6 +29,7 @@ import { createObjectStore, getObjectBuffer, putObject, type ObjectStore } from 
 import type { Shape } from "@/lib/geometry/shape";
 import { makePhotoLikeJpeg } from "@/support/fixtures/make-photos";
 import { certificateFixture, lotReportFixture, REPORT_CLASSES } from "@/support/fixtures/report-data";
+import { readMeasured } from "./_stream-measure";
 
 const mb = (bytes: number) => `${(bytes / (1024 * 1024)).toFixed(1)} MB`;
 const ms = (value: number) => `${value.toFixed(0)} ms`;
@@ -74,23 +75,10 @@ const csvColumns: CsvColumn<UnitRow>[] = [
 ];
 
 async function benchCsv(rows: number) {
-  const before = process.memoryUsage().rss;
-  let peak = before;
-  const sampler = setInterval(() => (peak = Math.max(peak, process.memoryUsage().rss)), 5);
-  const start = performance.now();
-  const cpuStart = process.cpuUsage();
-  let bytes = 0;
-  const reader = csvStream(csvColumns, unitRows(rows)).getReader();
-  for (let next = await reader.read(); !next.done; next = await reader.read()) {
-    bytes += next.value.byteLength;
-    peak = Math.max(peak, process.memoryUsage().rss);
-  }
-  const elapsed = performance.now() - start;
-  const cpu = process.cpuUsage(cpuStart);
-  clearInterval(sampler);
+  const r = await readMeasured(csvStream(csvColumns, unitRows(rows)));
   console.log(
-    `CSV export, ${rows.toLocaleString("en")} rows × ${csvColumns.length} columns: ${ms(elapsed)} (CPU ${ms((cpu.user + cpu.system) / 1000)}), ${mb(bytes)} written,` +
-      ` peak RSS growth ${mb(peak - before)} (before ${mb(before)}, peak ${mb(peak)})`,
+    `CSV export, ${rows.toLocaleString("en")} rows × ${csvColumns.length} columns: ${ms(r.elapsed)} (CPU ${ms(r.cpu)}), ${mb(r.bytes)} written,` +
+      ` peak RSS growth ${mb(r.growth)} (before ${mb(r.before)}, peak ${mb(r.peak)})`,
   );
   console.log("  targets: <= 5 s, peak RSS growth <= 100 MB");
 }

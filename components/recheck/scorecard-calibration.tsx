@@ -3,6 +3,7 @@
  * one row each — set, day, items, grade agreement with the key, pass or fail and why. Only
  * submitted attempts, and nothing of the key (lib/recheck/scorecard-calibration.ts).
  */
+import { TableHead } from "@/components/ui/table-head";
 import { calibrationVerdictText, type CalibrationResult } from "@/lib/recheck/scorecard-calibration";
 import { formatPercent } from "@/lib/recheck/scorecard-format";
 
@@ -26,30 +27,7 @@ export function CalibrationTable({
     <div className="overflow-x-auto">
       <table className="min-w-full text-sm" data-testid="scorecard-calibration">
         <caption className="sr-only">Calibration attempts submitted in the period</caption>
-        <thead className="bg-gauge-50 text-left text-xs uppercase tracking-wide text-gauge-600">
-          <tr>
-            {showPerson && (
-              <th scope="col" className={th}>
-                Grader
-              </th>
-            )}
-            <th scope="col" className={th}>
-              Set
-            </th>
-            <th scope="col" className={th}>
-              Submitted
-            </th>
-            <th scope="col" className={th}>
-              Items
-            </th>
-            <th scope="col" className={th}>
-              Grade agreement
-            </th>
-            <th scope="col" className={th}>
-              Result
-            </th>
-          </tr>
-        </thead>
+        <TableHead columns={[...(showPerson ? ["Grader"] : []), "Set", "Submitted", "Items", "Grade agreement", "Result"]} cellClassName={th} />
         <tbody className="divide-y divide-gauge-100">
           {attempts.map((a) => (
             <tr key={a.attemptId} data-testid={`calibration-${a.attemptId}`}>
